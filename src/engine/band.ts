@@ -1,0 +1,78 @@
+/**
+ * A band: what one protective device does on a TCC sheet (DESIGN §3, §4).
+ *
+ * For a current `amps` (RMS symmetrical, at the device's own voltage):
+ * - `minTime(amps)` — the earliest time, in seconds, at which the device may operate
+ *   (fastest tolerance edge, minimum melting for a fuse); `Infinity` where it never operates;
+ * - `maxTime(amps)` — the latest time by which it will have cleared (slowest tolerance edge plus
+ *   interrupting time, total clearing for a fuse); `Infinity` where it may never clear.
+ *
+ * Both edges are non-increasing in current and `minTime(I) ≤ maxTime(I)` everywhere. Neither ever
+ * returns NaN. Beyond `maxAmps` (e.g. a fuse's last tabulated point) both edges hold their value at
+ * `maxAmps`; the band is drawn only up to `maxAmps`.
+ */
+export interface Band {
+  /** Earliest operating time in seconds at `amps`; `Infinity` where the device never operates. */
+  minTime(amps: number): number;
+  /** Latest clearing time in seconds at `amps`; `Infinity` where the device may never clear. */
+  maxTime(amps: number): number;
+  /**
+   * Currents (A, ascending, no duplicates) where either edge changes formula: pickups with their
+   * tolerance edges, segment joins, tabulated points. Between two breakpoints both edges are smooth.
+   */
+  breakpoints: Float64Array;
+  /** Lowest current (A) at which `minTime` is finite: the device cannot operate below it. */
+  minAmps: number;
+  /** Highest current (A) the band is defined to (interrupting rating, last point); `Infinity` if open. */
+  maxAmps: number;
+  /**
+   * Current (A) from which the device is current-limiting (clears within the first half-cycle and
+   * lets through less than the prospective current), or `Infinity`. Curves prove nothing above it.
+   */
+  currentLimitingFrom: number;
+  /** Problems found while building the band that do not stop it (e.g. a setting outside its usual range). */
+  diagnostics: string[];
+}
+
+/** One half-cycle, rounded as practitioners draw it: below this a TCC proves nothing (REFERENCE §3.5). */
+export const HALF_CYCLE_SECONDS = 0.01;
+
+/**
+ * Evaluates a band at many currents into preallocated arrays; the fast path for drawing and P1.
+ * @example evaluateBand(band, new Float64Array([100, 1000]))
+ */
+export function evaluateBand(
+  band: Band,
+  amps: Float64Array,
+  minTimes = new Float64Array(amps.length),
+  maxTimes = new Float64Array(amps.length),
+): { minTimes: Float64Array; maxTimes: Float64Array } {
+  const { minTime, maxTime } = band;
+  for (let i = 0; i < amps.length; i++) {
+    minTimes[i] = minTime(amps[i]);
+    maxTimes[i] = maxTime(amps[i]);
+  }
+  return { minTimes, maxTimes };
+}
+
+/**
+ * A band scaled to another voltage base: a current that flows at `fromVolts` is drawn at
+ * `I · fromVolts / toVolts` (REFERENCE §1.7), optionally multiplied by a fault-type factor
+ * (REFERENCE §1.8, e.g. 1/0.866 = 1.155 for the primary device on a Δ–Yg secondary L-L fault).
+ *
+ * @example scaleBand(feederBand, 480 / 12470) // a 480 V feeder drawn on a 12.47 kV sheet
+ */
+export function scaleBand(band: Band, currentFactor: number): Band {
+  if (currentFactor === 1) return band;
+  const { minTime, maxTime } = band;
+  const inverse = 1 / currentFactor;
+  return {
+    minTime: (amps) => minTime(amps * inverse),
+    maxTime: (amps) => maxTime(amps * inverse),
+    breakpoints: band.breakpoints.map((amps) => amps * currentFactor),
+    minAmps: band.minAmps * currentFactor,
+    maxAmps: band.maxAmps * currentFactor,
+    currentLimitingFrom: band.currentLimitingFrom * currentFactor,
+    diagnostics: band.diagnostics,
+  };
+}

@@ -1,0 +1,29 @@
+/**
+ * A problem with what the user gave us (a study file, a flag, a CSV row). The CLI maps it to exit code 2.
+ * The message is one line shaped `path: expected …, got "…"` so the user can find the field at once.
+ *
+ * @example throw new InputError('study.transformers[1].impedance', expectedGot('a percentage greater than 0', '-5'))
+ */
+export class InputError extends Error {
+  override readonly name = 'InputError';
+  readonly path: string;
+
+  constructor(path: string, message: string) {
+    super(`${path}: ${message}`);
+    this.path = path;
+  }
+}
+
+/** The `expected …, got "…"` half of an error message. */
+export function expectedGot(expected: string, got: unknown): string {
+  return `expected ${expected}, got ${quoteGot(got)}`;
+}
+
+/** Renders the offending value as the user typed it: strings quoted, objects as compact JSON. */
+export function quoteGot(got: unknown): string {
+  if (typeof got === 'string') return JSON.stringify(got);
+  if (got === undefined) return 'nothing';
+  if (typeof got === 'number') return Number.isNaN(got) ? '"NaN"' : `"${got}"`;
+  const text = JSON.stringify(got) ?? String(got);
+  return text.length > 60 ? `${text.slice(0, 57)}...` : text;
+}

@@ -1,0 +1,119 @@
+import type { Bus, Cable, Device, Motor, Study, Transformer } from '../study/index.ts';
+
+/** A branch of the radial tree: it carries current from its `from` bus down to its `to` bus. */
+export type Branch = { type: 'transformer'; item: Transformer } | { type: 'cable'; item: Cable };
+
+/** Anything a device can feed: a bus (for a main), a branch, or a motor. */
+export type Element = { type: 'bus'; item: Bus } | Branch | { type: 'motor'; item: Motor };
+
+/**
+ * The radial tree of a study, indexed for walking up and down (DESIGN §2). Built from a study that
+ * `readStudy` accepted; it does not validate again.
+ */
+export interface Network {
+  study: Study;
+  buses: Map<string, Bus>;
+  elements: Map<string, Element>;
+  /** The branch feeding each bus; absent for the source bus. */
+  feederOf: Map<string, Branch>;
+  /** Branches leaving each bus, in study order. */
+  branchesFrom: Map<string, Branch[]>;
+  /** Motors on each bus. */
+  motorsOn: Map<string, Motor[]>;
+  /** The device feeding each element id. */
+  deviceFeeding: Map<string, Device>;
+  devices: Map<string, Device>;
+}
+
+/** Builds the indexed tree. @example const network = networkOf(study) */
+export function networkOf(study: Study): Network {
+  const buses = new Map(study.buses.map((bus) => [bus.id, bus]));
+  const elements = new Map<string, Element>();
+  for (const item of study.buses) elements.set(item.id, { type: 'bus', item });
+  for (const item of study.transformers) elements.set(item.id, { type: 'transformer', item });
+  for (const item of study.cables) elements.set(item.id, { type: 'cable', item });
+  for (const item of study.motors) elements.set(item.id, { type: 'motor', item });
+  const feederOf = new Map<string, Branch>();
+  const branchesFrom = new Map<string, Branch[]>();
+  for (const element of elements.values()) {
+    if (element.type !== 'transformer' && element.type !== 'cable') continue;
+    feederOf.set(element.item.to, element);
+    branchesFrom.set(element.item.from, [...(branchesFrom.get(element.item.from) ?? []), element]);
+  }
+  const motorsOn = new Map<string, Motor[]>();
+  for (const motor of study.motors) motorsOn.set(motor.bus, [...(motorsOn.get(motor.bus) ?? []), motor]);
+  const deviceFeeding = new Map(study.devices.map((device) => [device.feeds, device]));
+  const devices = new Map(study.devices.map((device) => [device.id, device]));
+  return { study, buses, elements, feederOf, branchesFrom, motorsOn, deviceFeeding, devices };
+}
+
+/**
+ * The element ids from the source bus down to `elementId`, inclusive, alternating buses and
+ * branches and ending, for a motor, with the motor: `['MV', 'T1', 'SWBD', 'C-MCC', 'MCC', 'M1']`.
+ */
+export function pathTo(network: Network, elementId: string): string[] {
+  const element = network.elements.get(elementId);
+  if (!element) throw new RangeError(`no element "${elementId}" in the network`);
+  const path: string[] = [];
+  let bus: string | undefined;
+  if (element.type === 'motor') {
+    path.push(element.item.id);
+    bus = element.item.bus;
+  } else if (element.type === 'bus') bus = element.item.id;
+  else {
+    path.push(element.item.id);
+    bus = element.item.from;
+  }
+  while (bus !== undefined) {
+    path.push(bus);
+    const feeder = network.feederOf.get(bus);
+    if (!feeder) break;
+    path.push(feeder.item.id);
+    bus = feeder.item.from;
+  }
+  return path.reverse();
+}
+
+/**
+ * The bus where a device sits, which sets its voltage and the fault current at its location:
+ * the bus itself for a main, else the bus its transformer, cable or motor hangs from.
+ */
+export function locationBusOf(network: Network, device: Device): Bus {
+  const element = network.elements.get(device.feeds)!;
+  const busId =
+    element.type === 'bus' ? element.item.id : element.type === 'motor' ? element.item.bus : element.item.from;
+  return network.buses.get(busId)!;
+}
+
+/** The nearest device above `device` on the way to the source, if any. */
+export function upstreamDeviceOf(network: Network, device: Device): Device | undefined {
+  const path = pathTo(network, device.feeds);
+  for (let i = path.length - 2; i >= 0; i--) {
+    const above = network.deviceFeeding.get(path[i]);
+    if (above) return above;
+  }
+  return undefined;
+}
+
+/** Every series pair: each device with the nearest device above it (DESIGN §3 "pair"). */
+export function seriesPairs(network: Network): { upstream: Device; downstream: Device }[] {
+  const pairs: { upstream: Device; downstream: Device }[] = [];
+  for (const downstream of network.study.devices) {
+    const upstream = upstreamDeviceOf(network, downstream);
+    if (upstream) pairs.push({ upstream, downstream });
+  }
+  return pairs;
+}
+
+/** The transformers crossed going from bus `from` up or down to bus `to`, in order (for reflection). */
+export function transformersBetween(network: Network, from: string, to: string): Transformer[] {
+  const up = pathTo(network, from);
+  const down = pathTo(network, to);
+  let common = 0;
+  while (common < up.length && common < down.length && up[common] === down[common]) common++;
+  const crossed = [...up.slice(common).reverse(), ...down.slice(common)];
+  return crossed.flatMap((id) => {
+    const element = network.elements.get(id);
+    return element?.type === 'transformer' ? [element.item] : [];
+  });
+}

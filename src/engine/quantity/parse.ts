@@ -1,0 +1,89 @@
+import { create, unitDependencies } from 'mathjs';
+
+/** Only the unit machinery of mathjs: user text is parsed as a value with a unit, never evaluated. */
+const math = create({ unitDependencies });
+
+/** The physical dimensions discern accepts, each with the SI base unit the engine computes in. */
+export const DIMENSIONS = {
+  voltage: { si: 'V', plain: 'V' },
+  current: { si: 'A', plain: 'A' },
+  power: { si: 'VA', plain: 'kVA' },
+  impedance: { si: 'ohm', plain: 'ohm' },
+  length: { si: 'm', plain: 'ft' },
+  time: { si: 's', plain: 's' },
+  frequency: { si: 'Hz', plain: 'Hz' },
+} as const;
+
+export type Dimension = keyof typeof DIMENSIONS;
+
+export interface ParseQuantityOptions {
+  /**
+   * Unit assumed for a bare number, e.g. `'kVA'` so that `1500` means 1500 kVA.
+   * @default the dimension's SI unit
+   */
+  plainUnit?: string;
+  /** System frequency in Hz, needed only to read times given in cycles. @default 60 */
+  frequency?: number;
+}
+
+const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+const CYCLES = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(cycles?|cyc|~)$/i;
+
+/**
+ * Parses an engineering quantity to a plain number in SI base units (V, A, VA, Ω, m, s, Hz).
+ * Accepts a number (in `plainUnit`) or text such as `"13.8 kV"`, `"1500 kVA"`, `"100 ft"`,
+ * `"12 cycles"` (times only, at `frequency`). Throws `InputError`-shaped `RangeError` text on failure;
+ * callers at file and flag boundaries wrap it with the field path.
+ *
+ * @example parseQuantity('4.16 kV', 'voltage') // 4160
+ */
+export function parseQuantity(value: unknown, dimension: Dimension, options: ParseQuantityOptions = {}): number {
+  const { si, plain } = DIMENSIONS[dimension];
+  const { plainUnit = plain, frequency = 60 } = options;
+  if (typeof value === 'number') {
+    if (!Number.isFinite(value)) throw new RangeError(`expected a finite ${dimension}`);
+    return value === 0 ? 0 : math.unit(value, plainUnit).toNumber(si);
+  }
+  if (typeof value !== 'string') throw new TypeError(`expected a ${dimension} as a number or text with a unit`);
+  const text = value.trim().replace(/Ω/g, 'ohm').replace(/µ/g, 'u');
+  if (NUMBER.test(text)) return parseQuantity(Number(text), dimension, options);
+  const cycles = CYCLES.exec(text);
+  if (cycles) {
+    if (dimension !== 'time') throw new RangeError(`expected a ${dimension}, not a time in cycles`);
+    return Number(cycles[1]) / frequency;
+  }
+  let unit;
+  try {
+    unit = math.unit(text);
+  } catch {
+    throw new RangeError(`expected a ${dimension} such as "${example(dimension)}"`);
+  }
+  if (unit.value === null || !unit.equalBase(math.unit(1, si))) {
+    throw new RangeError(`expected a ${dimension} such as "${example(dimension)}"`);
+  }
+  return unit.toNumber(si);
+}
+
+/**
+ * Parses a percentage: `5.75`, `"5.75"` or `"5.75 %"` all give 5.75 (percent, not per unit).
+ * @example parsePercent('5.75 %') // 5.75
+ */
+export function parsePercent(value: unknown): number {
+  const text = typeof value === 'number' ? String(value) : typeof value === 'string' ? value.trim() : '';
+  const match = /^(.+?)\s*%?$/.exec(text);
+  const number = match && NUMBER.test(match[1]) ? Number(match[1]) : NaN;
+  if (!Number.isFinite(number)) throw new RangeError('expected a percentage such as "5.75 %"');
+  return number;
+}
+
+function example(dimension: Dimension): string {
+  return {
+    voltage: '13.8 kV',
+    current: '25 kA',
+    power: '1500 kVA',
+    impedance: '0.05 ohm',
+    length: '100 ft',
+    time: '0.3 s',
+    frequency: '60 Hz',
+  }[dimension];
+}

@@ -1,0 +1,17 @@
+export { createStudySchema, studySchema, STUDY_VERSION } from './schema.ts';
+export type {
+  Study,
+  StudyInput,
+  Source,
+  Bus,
+  Transformer,
+  Cable,
+  Motor,
+  Device,
+  View,
+  CoordinationSettings,
+} from './schema.ts';
+export { readStudy, parseStudy, formatProblem, formatPath } from './parse.ts';
+export type { StudyProblem } from './parse.ts';
+export { structureProblems } from './structure.ts';
+export { quantityField, percentField, availableFaultField, idField, positiveNumber } from './fields.ts';

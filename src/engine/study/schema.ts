@@ -1,0 +1,239 @@
+import { z } from 'zod';
+import { characteristicSchema } from '../devices/characteristic.ts';
+import { availableFaultField, idField, percentField, quantityField } from './fields.ts';
+
+/** The study file format version this code reads and writes. */
+export const STUDY_VERSION = 1;
+
+/**
+ * Builds the study schema for a system frequency, so that times written in cycles ("5 cycles") parse
+ * to seconds at that frequency. `studySchema` is the 60 Hz instance used for types and the JSON Schema.
+ */
+export function createStudySchema(frequency = 60) {
+  const voltage = (description: string) =>
+    quantityField('voltage', {
+      min: 0,
+      exclusiveMin: true,
+      description: `${description} (V, or text such as "12.47 kV")`,
+    });
+
+  const sourceLevel = z
+    .object({
+      available: availableFaultField,
+      xr: z.number().positive().optional().meta({ description: 'X/R ratio at the source; omit for all-reactance' }),
+    })
+    .strict();
+
+  const source = z.discriminatedUnion('kind', [
+    z
+      .object({
+        kind: z.literal('utility'),
+        id: idField,
+        bus: idField.meta({ description: 'the bus the source feeds' }),
+        max: sourceLevel.meta({ description: 'maximum available fault (for interrupting duty and coordination)' }),
+        min: sourceLevel.optional().meta({ description: 'minimum available fault (for sensitivity); defaults to max' }),
+      })
+      .strict(),
+    z.object({ kind: z.literal('infinite'), id: idField, bus: idField }).strict(),
+  ]);
+
+  const bus = z
+    .object({ id: idField, name: z.string().optional(), voltage: voltage('nominal line-to-line voltage') })
+    .strict();
+
+  const transformer = z
+    .object({
+      id: idField,
+      name: z.string().optional(),
+      from: idField.meta({ description: 'primary bus' }),
+      to: idField.meta({ description: 'secondary bus' }),
+      rating: quantityField('power', {
+        plainUnit: 'kVA',
+        min: 0,
+        exclusiveMin: true,
+        description: 'self-cooled rating (kVA, or "1.5 MVA")',
+      }),
+      primary: voltage('rated primary voltage'),
+      secondary: voltage('rated secondary voltage'),
+      impedance: percentField({
+        min: 0,
+        exclusiveMin: true,
+        description: 'nameplate impedance in percent on its own rating',
+      }),
+      xr: z.number().positive().optional().meta({ description: 'X/R ratio; omit for all-reactance' }),
+      connection: z
+        .enum(['delta-wye', 'delta-delta', 'wye-wye', 'wye-delta'])
+        .default('delta-wye')
+        .meta({ description: 'winding connection, primary first; wye secondaries are solidly grounded' }),
+      phases: z.union([z.literal(1), z.literal(3)]).default(3),
+      construction: z.enum(['liquid', 'dry']).default('liquid'),
+      category: z
+        .enum(['I', 'II', 'III', 'IV'])
+        .optional()
+        .meta({ description: 'IEEE C57.12.00 through-fault category; inferred from kVA when omitted' }),
+      faultFrequency: z
+        .enum(['frequent', 'infrequent'])
+        .default('infrequent')
+        .meta({ description: 'through-fault duty for the IEEE C57.109 curve' }),
+      impedanceTolerance: z
+        .boolean()
+        .default(false)
+        .meta({ description: 'use 92.5 % of nameplate %Z for maximum duty (common practice)' }),
+      supervised: z
+        .boolean()
+        .default(false)
+        .meta({ description: 'NEC 450.3: supervised location (qualified persons only)' }),
+    })
+    .strict();
+
+  const cable = z
+    .object({
+      id: idField,
+      name: z.string().optional(),
+      from: idField,
+      to: idField,
+      size: z.string().meta({ description: 'conductor size: "4/0", "500 kcmil", "12 AWG"' }),
+      material: z.enum(['copper', 'aluminium']).default('copper'),
+      conduit: z.enum(['pvc', 'aluminium', 'steel']).default('steel'),
+      insulation: z
+        .enum(['thermoplastic', 'xlpe', 'epr-105'])
+        .default('xlpe')
+        .meta({ description: 'sets the ICEA P-32-382 temperature limits' }),
+      length: quantityField('length', { min: 0, exclusiveMin: true, description: 'one-way length (ft, or "30 m")' }),
+      sets: z.number().int().positive().default(1).meta({ description: 'parallel sets per phase' }),
+      resistance: z
+        .number()
+        .nonnegative()
+        .optional()
+        .meta({ description: 'ohms per 1000 ft per conductor; overrides NEC Table 9 (MV cables)' }),
+      reactance: z
+        .number()
+        .nonnegative()
+        .optional()
+        .meta({ description: 'ohms per 1000 ft per conductor; overrides NEC Table 9' }),
+    })
+    .strict();
+
+  const motor = z
+    .object({
+      id: idField,
+      name: z.string().optional(),
+      bus: idField,
+      hp: z.number().positive().optional().meta({ description: 'rated horsepower (or give rating)' }),
+      rating: quantityField('power', { plainUnit: 'kVA', min: 0, exclusiveMin: true }).optional(),
+      fullLoadAmps: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+      contribution: z
+        .number()
+        .positive()
+        .default(4)
+        .meta({ description: 'first-cycle fault contribution as a multiple of FLA (common practice: 4)' }),
+      lockedRotor: z
+        .number()
+        .positive()
+        .default(6)
+        .meta({ description: 'locked-rotor current as a multiple of FLA (common practice: 6)' }),
+      accelerationTime: quantityField('time', { frequency, min: 0, exclusiveMin: true }).default(5),
+      xr: z.number().positive().optional(),
+    })
+    .strict();
+
+  const device = z
+    .object({
+      id: idField,
+      name: z.string().optional(),
+      feeds: idField.meta({
+        description: 'the element just below the device: a transformer, cable, motor, or a bus (for a main)',
+      }),
+      characteristic: characteristicSchema,
+      rating: quantityField('current', { min: 0, exclusiveMin: true })
+        .optional()
+        .meta({ description: 'ampere rating (fuse, breaker frame or plug) used by NEC checks' }),
+      interruptingRating: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+      margin: quantityField('time', { frequency, min: 0 })
+        .optional()
+        .meta({ description: 'coordination margin required above the devices it backs up' }),
+    })
+    .strict();
+
+  const view = z
+    .object({
+      id: idField,
+      title: z.string().optional(),
+      referenceVoltage: voltage('voltage base of the sheet'),
+      devices: z.array(idField).min(1),
+      faults: z
+        .array(idField)
+        .optional()
+        .meta({ description: 'buses whose fault currents are drawn; default: the buses of the devices shown' }),
+      withstand: z
+        .array(idField)
+        .default([])
+        .meta({ description: 'transformers and cables whose withstand curves are drawn' }),
+      motors: z.array(idField).default([]).meta({ description: 'motors whose starting curves are drawn' }),
+      currentRange: z.tuple([z.number().positive(), z.number().positive()]).optional(),
+      timeRange: z.tuple([z.number().positive(), z.number().positive()]).optional(),
+      notes: z.string().optional(),
+    })
+    .strict();
+
+  const coordination = z
+    .object({
+      thinMargin: quantityField('time', { frequency, min: 0 })
+        .default(0.1)
+        .meta({ description: 'a margin below this (beyond the required one) is "thin"' }),
+      halfCycle: quantityField('time', { frequency, min: 0 }).default(0.01),
+      margins: z
+        .record(z.string(), z.number().nonnegative())
+        .default({})
+        .meta({ description: 'required margin in seconds by pair kind, e.g. {"relay/relay": 0.3}' }),
+      fuseRatio: z
+        .number()
+        .positive()
+        .max(1)
+        .default(0.75)
+        .meta({
+          description: 'fuse/fuse: downstream total clearing must stay below this fraction of upstream minimum melting',
+        }),
+      edition: z
+        .enum(['2017', '2020', '2023'])
+        .default('2023')
+        .meta({ description: 'NFPA 70 edition the code checks follow' }),
+    })
+    .strict()
+    .default({ thinMargin: 0.1, halfCycle: 0.01, margins: {}, fuseRatio: 0.75, edition: '2023' });
+
+  return z
+    .object({
+      discern: z.literal(STUDY_VERSION).meta({ description: 'study file format version' }),
+      name: z.string().min(1),
+      description: z.string().optional(),
+      preparedBy: z.string().optional(),
+      date: z.string().optional(),
+      frequency: z.union([z.literal(50), z.literal(60)]).default(60),
+      source,
+      buses: z.array(bus).min(1),
+      transformers: z.array(transformer).default([]),
+      cables: z.array(cable).default([]),
+      motors: z.array(motor).default([]),
+      devices: z.array(device).default([]),
+      views: z.array(view).default([]),
+      coordination,
+    })
+    .strict();
+}
+
+/** The 60 Hz study schema: the single source of the study types and of `schema/study.schema.json`. */
+export const studySchema = createStudySchema(60);
+
+/** A parsed study: every quantity in SI base units (V, A, VA, m, s), every default filled in. */
+export type Study = z.output<typeof studySchema>;
+/** A study as written in a file, before parsing (numbers or text with units). */
+export type StudyInput = z.input<typeof studySchema>;
+export type Source = Study['source'];
+export type Bus = Study['buses'][number];
+export type Transformer = Study['transformers'][number];
+export type Cable = Study['cables'][number];
+export type Motor = Study['motors'][number];
+export type Device = Study['devices'][number];
+export type View = Study['views'][number];
+export type CoordinationSettings = Study['coordination'];
