@@ -83,7 +83,7 @@ export function positiveNumber(description?: string) {
 /** Element ids: short, unique across the study, usable in file names and flags. */
 export const idField = z
   .string()
-  .regex(/^[A-Za-z0-9][A-Za-z0-9_.\-]{0,63}$/, 'expected an id of letters, digits, ".", "_" or "-"')
+  .regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'expected an id of letters, digits, ".", "_" or "-"')
   .meta({ description: 'identifier, unique in the study' });
 
 function limitProblem(value: number, { min, exclusiveMin = false, max }: FieldLimits): string | undefined {
