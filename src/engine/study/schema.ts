@@ -186,14 +186,9 @@ export function createStudySchema(frequency = 60) {
         .record(z.string(), z.number().nonnegative())
         .default({})
         .meta({ description: 'required margin in seconds by pair kind, e.g. {"relay/relay": 0.3}' }),
-      fuseRatio: z
-        .number()
-        .positive()
-        .max(1)
-        .default(0.75)
-        .meta({
-          description: 'fuse/fuse: downstream total clearing must stay below this fraction of upstream minimum melting',
-        }),
+      fuseRatio: z.number().positive().max(1).default(0.75).meta({
+        description: 'fuse/fuse: downstream total clearing must stay below this fraction of upstream minimum melting',
+      }),
       edition: z
         .enum(['2017', '2020', '2023'])
         .default('2023')

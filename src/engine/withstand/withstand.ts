@@ -1,0 +1,56 @@
+/**
+ * A withstand ("damage") curve: the time-current limit of a transformer or cable, drawn dashed on
+ * the sheet. Currents are in amps at the equipment's own voltage (for a transformer, the winding
+ * given by `volts`).
+ */
+export interface WithstandCurve {
+  /** Id of the transformer or cable. */
+  elementId: string;
+  kind: 'transformer' | 'cable';
+  /** e.g. 'C57.109 Category II, frequent faults' or 'ICEA P-32-382, Cu 90→250 °C'. */
+  label: string;
+  /** Voltage the currents are given at (V). */
+  volts: number;
+  /**
+   * The curve as a polyline, in the order it is drawn (current non-decreasing; a vertical step is
+   * two points at the same current). `amps[i]`, `seconds[i]`.
+   */
+  amps: Float64Array;
+  seconds: Float64Array;
+  /**
+   * Time in seconds the equipment withstands at `amps`: `Infinity` to the left of the curve (below
+   * its lowest current), and the curve's end value held beyond its highest current is NOT assumed —
+   * beyond the end it returns the last point's time only if `extendsBeyondEnd`, else NaN-free `0`.
+   * At a vertical step it returns the lower (conservative) time.
+   */
+  timeAt(amps: number): number;
+  /** Source, method and choices, for the work panel and the findings. */
+  notes: string[];
+}
+
+/** A point or line on the sheet (DESIGN §3 "marker"). */
+export interface Marker {
+  kind: 'inrush' | 'locked-rotor' | 'full-load' | 'fault';
+  label: string;
+  /** Voltage the current is given at (V). */
+  volts: number;
+  amps: number;
+  /** Time of a point marker (s); omitted for a vertical line at `amps`. */
+  seconds?: number;
+  /** Id of the element it belongs to. */
+  elementId: string;
+}
+
+/**
+ * A motor starting curve: FLA at long times, locked-rotor current until the acceleration time,
+ * and the asymmetrical first-cycle point. A load curve the motor's device must stay above.
+ */
+export interface StartingCurve {
+  elementId: string;
+  label: string;
+  volts: number;
+  /** Polyline of the starting current in time (current non-increasing as time rises). */
+  amps: Float64Array;
+  seconds: Float64Array;
+  notes: string[];
+}
