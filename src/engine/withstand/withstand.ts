@@ -18,10 +18,9 @@ export interface WithstandCurve {
   amps: Float64Array;
   seconds: Float64Array;
   /**
-   * Time in seconds the equipment withstands at `amps`: `Infinity` to the left of the curve (below
-   * its lowest current), and the curve's end value held beyond its highest current is NOT assumed —
-   * beyond the end it returns the last point's time only if `extendsBeyondEnd`, else NaN-free `0`.
-   * At a vertical step it returns the lower (conservative) time.
+   * Time in seconds the equipment withstands at `amps`: `Infinity` below the curve's lowest current;
+   * beyond its highest current (where the curve ends) the last point's time is held. At a vertical
+   * step the lower (conservative) time is returned. Never NaN.
    */
   timeAt(amps: number): number;
   /** Source, method and choices, for the work panel and the findings. */
