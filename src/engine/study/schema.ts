@@ -2,6 +2,9 @@ import { z } from 'zod';
 import { characteristicSchema } from '../devices/characteristic.ts';
 import { availableFaultField, idField, percentField, quantityField } from './fields.ts';
 
+/** A pair kind key: upstream family / downstream family. */
+const PAIR_KIND = /^(relay|trip-unit|thermal-magnetic|fuse)\/(relay|trip-unit|thermal-magnetic|fuse)$/;
+
 /** The study file format version this code reads and writes. */
 export const STUDY_VERSION = 1;
 
@@ -183,7 +186,7 @@ export function createStudySchema(frequency = 60) {
         .meta({ description: 'a margin below this (beyond the required one) is "thin"' }),
       halfCycle: quantityField('time', { frequency, min: 0 }).default(0.01),
       margins: z
-        .record(z.string(), z.number().nonnegative())
+        .record(z.string().regex(PAIR_KIND, 'expected a pair kind such as "relay/fuse"'), z.number().nonnegative().max(5))
         .default({})
         .meta({ description: 'required margin in seconds by pair kind, e.g. {"relay/relay": 0.3}' }),
       fuseRatio: z.number().positive().max(1).default(0.75).meta({
