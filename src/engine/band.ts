@@ -1,3 +1,9 @@
+import type { Characteristic } from './devices/characteristic.ts';
+import { fuseBand } from './devices/fuse.ts';
+import { relayBand } from './devices/relay.ts';
+import { thermalMagneticBand } from './devices/thermalMagnetic.ts';
+import { tripUnitBand } from './devices/tripUnit.ts';
+
 /**
  * A band: what one protective device does on a TCC sheet (DESIGN §3, §4).
  *
@@ -75,4 +81,24 @@ export function scaleBand(band: Band, currentFactor: number): Band {
     currentLimitingFrom: band.currentLimitingFrom * currentFactor,
     diagnostics: band.diagnostics,
   };
+}
+
+/**
+ * The band of a device characteristic, dispatching on its `kind` to the family's band function
+ * (`relayBand`, `tripUnitBand`, `thermalMagneticBand`, `fuseBand` in `src/engine/devices/`).
+ * Amps are at the device's own voltage (relays: primary amps, through the CT ratio).
+ *
+ * @example bandOf(study.devices[0].characteristic).maxTime(4000)
+ */
+export function bandOf(characteristic: Characteristic): Band {
+  switch (characteristic.kind) {
+    case 'relay':
+      return relayBand(characteristic);
+    case 'trip-unit':
+      return tripUnitBand(characteristic);
+    case 'thermal-magnetic':
+      return thermalMagneticBand(characteristic);
+    case 'fuse':
+      return fuseBand(characteristic);
+  }
 }

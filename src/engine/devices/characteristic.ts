@@ -1,11 +1,37 @@
 import { z } from 'zod';
+import { fuseSchema } from './fuse.ts';
+import { createRelaySchema } from './relay.ts';
+import { createThermalMagneticSchema } from './thermalMagnetic.ts';
+import { createTripUnitSchema } from './tripUnit.ts';
 
 /**
- * The characteristic of a protective device: a discriminated union on `kind`, one member per
- * device family (each family's schema lives in its own file in this folder).
+ * Builds the characteristic schema for a system frequency, so that times in cycles parse at it.
+ * A discriminated union on `kind`, one member per device family (each in its own file here):
+ * `relay`, `trip-unit`, `thermal-magnetic`, `fuse`.
+ *
+ * @example createCharacteristicSchema(50).parse({ kind: 'relay', ct: '600:5', instantaneous: { pickup: 40 } })
  */
-export const characteristicSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('placeholder') }).meta({ description: 'a device with no characteristic yet' }),
-]);
+export function createCharacteristicSchema(frequency = 60) {
+  return z.discriminatedUnion('kind', [
+    createRelaySchema(frequency),
+    createTripUnitSchema(frequency),
+    createThermalMagneticSchema(frequency),
+    fuseSchema,
+  ]);
+}
 
+/**
+ * The characteristic of a protective device at 60 Hz: a discriminated union on `kind`.
+ * @example characteristicSchema.parse({ kind: 'fuse', minimumMelting: [[200, 300], [2000, 0.01]],
+ *   totalClearing: [[220, 300], [2000, 0.02]] })
+ */
+export const characteristicSchema = createCharacteristicSchema(60);
+
+/** A parsed characteristic: SI units (A, s), every default filled in. */
 export type Characteristic = z.output<typeof characteristicSchema>;
+
+/** A characteristic as written in a file (numbers or text with units). */
+export type CharacteristicInput = z.input<typeof characteristicSchema>;
+
+/** The device families, as their `kind`. */
+export const DEVICE_KINDS = ['relay', 'trip-unit', 'thermal-magnetic', 'fuse'] as const;

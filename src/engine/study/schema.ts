@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { characteristicSchema } from '../devices/characteristic.ts';
+import { createCharacteristicSchema } from '../devices/characteristic.ts';
 import { availableFaultField, idField, percentField, quantityField } from './fields.ts';
 
 /** A pair kind key: upstream family / downstream family. */
@@ -147,7 +147,7 @@ export function createStudySchema(frequency = 60) {
       feeds: idField.meta({
         description: 'the element just below the device: a transformer, cable, motor, or a bus (for a main)',
       }),
-      characteristic: characteristicSchema,
+      characteristic: createCharacteristicSchema(frequency),
       rating: quantityField('current', { min: 0, exclusiveMin: true })
         .optional()
         .meta({ description: 'ampere rating (fuse, breaker frame or plug) used by NEC checks' }),
@@ -185,6 +185,9 @@ export function createStudySchema(frequency = 60) {
         .default(0.1)
         .meta({ description: 'a margin below this (beyond the required one) is "thin"' }),
       halfCycle: quantityField('time', { frequency, min: 0 }).default(0.01),
+      horizon: quantityField('time', { frequency, min: 1 })
+        .default(1000)
+        .meta({ description: 'times beyond this count as never (the top of the sheet), s' }),
       margins: z
         .record(z.string().regex(PAIR_KIND, 'expected a pair kind such as "relay/fuse"'), z.number().nonnegative().max(5))
         .default({})
@@ -198,7 +201,7 @@ export function createStudySchema(frequency = 60) {
         .meta({ description: 'NFPA 70 edition the code checks follow' }),
     })
     .strict()
-    .default({ thinMargin: 0.1, halfCycle: 0.01, margins: {}, fuseRatio: 0.75, edition: '2023' });
+    .default({ thinMargin: 0.1, halfCycle: 0.01, horizon: 1000, margins: {}, fuseRatio: 0.75, edition: '2023' });
 
   return z
     .object({

@@ -1,0 +1,107 @@
+/**
+ * One element of a device edge (a long-time ramp, a short-time delay, an instantaneous trip…): it
+ * operates from `pickup` amps with a non-increasing time. Composite edges are built from these.
+ */
+export interface EdgeElement {
+  /** Current (A) from which the element operates; below it the element's time is `Infinity`. */
+  pickup: number;
+  /** Time in seconds at `amps ≥ pickup`; non-increasing in current, never NaN. */
+  time(amps: number): number;
+  /** Currents (A) above `pickup` where the element's own formula changes (e.g. an I²t ramp meeting its flat part). */
+  joins: readonly number[];
+  /** Times (s) the element is flat at over some range of current (a definite delay, a capped tail). */
+  levels: readonly number[];
+  /**
+   * The current (A) at which the element's curved part falls to `seconds`, or `Infinity` if it never
+   * does there. Flat elements have none. Used to find where a composite edge changes element.
+   */
+  reach?(seconds: number): number;
+}
+
+/** A composite edge: its time function and the currents where it changes formula. */
+export interface CompositeEdge {
+  time(amps: number): number;
+  /** Pickups, joins and element crossings, ascending and unique (A). */
+  breakpoints: number[];
+  /** Lowest current (A) at which the edge is finite. */
+  minAmps: number;
+}
+
+/**
+ * Combines elements into one edge: at each current the device operates on the fastest element
+ * (REFERENCE §2.3 "composite"), never faster than `floor` seconds, and `add` seconds are added
+ * (the breaker interrupting time of a relay's clearing edge). Non-increasing if every element is.
+ *
+ * @example compositeEdge([definiteElement(600, 0.5), definiteElement(3000, 0.02)], 0.016, 0.083).time(4000) // 0.103 s
+ */
+export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add = 0): CompositeEdge {
+  const count = elements.length;
+  // Flat elements first: once one at or below the floor has picked up, no other can be faster,
+  // so the curved ones (a power or logarithm each) are skipped at high current.
+  const ordered = [...elements].sort((x, y) => Number(x.reach !== undefined) - Number(y.reach !== undefined));
+  const pickups = Float64Array.from(ordered, (element) => element.pickup);
+  const times = ordered.map((element) => element.time);
+  const time = (amps: number): number => {
+    let fastest = Infinity;
+    for (let i = 0; i < count && fastest > floor; i++) {
+      if (amps >= pickups[i]) {
+        const t = times[i](amps);
+        if (t < fastest) fastest = t;
+      }
+    }
+    return (fastest > floor ? fastest : floor) + add;
+  };
+  // Every flat level another element (or the floor) sits at is where a curved element may hand over.
+  const levels = [floor, ...elements.flatMap((element) => element.levels)];
+  const points: number[] = [];
+  for (const element of elements) {
+    points.push(element.pickup, ...element.joins);
+    if (!element.reach) continue;
+    for (const level of levels) {
+      // Keep a crossing only where the edge really sits at that level (the elements hand over there).
+      const amps = element.reach(level);
+      const at = Math.max(level, floor) + add;
+      if (Number.isFinite(amps) && Math.abs(time(amps) - at) <= 1e-9 * at) points.push(amps);
+    }
+  }
+  return { time, breakpoints: uniqueAscending(points), minAmps: Math.min(Infinity, ...pickups) };
+}
+
+/**
+ * A flat element: `seconds` from `pickup` amps on (a definite-time or instantaneous trip).
+ * @example definiteElement(3000, 0.05).time(4000) // 0.05
+ */
+export function definiteElement(pickup: number, seconds: number): EdgeElement {
+  return { pickup, time: () => seconds, joins: [], levels: [seconds] };
+}
+
+/**
+ * An I²t ramp `t = seconds · (throughAmps / I)²` from `pickup`, held flat at `seconds` above
+ * `flatFrom` amps (`Infinity` for a ramp that never flattens, like a long-time delay).
+ *
+ * @example i2tElement(720, 10, 4800).time(2400) // 40 s (REFERENCE §7.6 long-time, tolerance-free)
+ */
+export function i2tElement(pickup: number, seconds: number, throughAmps: number, flatFrom = Infinity): EdgeElement {
+  const k = seconds * throughAmps * throughAmps;
+  const flat = Number.isFinite(flatFrom) ? k / (flatFrom * flatFrom) : 0;
+  return {
+    pickup,
+    time: (amps) => (amps < flatFrom ? k / (amps * amps) : flat),
+    joins: Number.isFinite(flatFrom) && flatFrom > pickup ? [flatFrom] : [],
+    levels: Number.isFinite(flatFrom) ? [flat] : [],
+    reach: (level) => {
+      const amps = Math.sqrt(k / level);
+      return amps > pickup && amps < flatFrom * (1 - 1e-9) ? amps : Infinity;
+    },
+  };
+}
+
+/**
+ * Sorts currents, keeping only distinct finite positive values (closer than 1e-10 relative counts as one).
+ * @example uniqueAscending([600, Infinity, 60, 600]) // [60, 600]
+ */
+export function uniqueAscending(values: readonly number[]): number[] {
+  const sorted = values.filter((v) => Number.isFinite(v) && v > 0).sort((a, b) => a - b);
+  // Values within 1e-10 of each other are one breakpoint reached by two routes (rounding apart).
+  return sorted.filter((v, i) => i === 0 || v > sorted[i - 1] * (1 + 1e-10));
+}

@@ -1,0 +1,74 @@
+import { z } from 'zod';
+import type { Band } from '../band.ts';
+import { quantityField } from '../study/fields.ts';
+import { uniqueAscending } from './composite.ts';
+import { isValidTable, pointTableSchema, tableElement, upperBelowLower } from './pointTable.ts';
+
+const ampsTable = pointTableSchema({ current: 'a current in amperes', unit: ' A' });
+
+/**
+ * Schema of a fuse characteristic (REFERENCE §4): `minimumMelting` and `totalClearing` as
+ * `[amperes, seconds]` tables (≥ 2 points, current ascending, time strictly descending), total
+ * clearing never earlier than minimum melting and starting at no lower current; optional
+ * `currentLimitingFrom` (A); `illustrative` (invented data, not a product) and `label`.
+ *
+ * @example fuseSchema.parse({ kind: 'fuse', minimumMelting: [[200, 300], [2000, 0.01]],
+ *   totalClearing: [[220, 300], [2000, 0.02]] })
+ */
+export const fuseSchema = z
+  .object({
+    kind: z.literal('fuse'),
+    label: z.string().optional(),
+    illustrative: z.boolean().default(false).meta({ description: 'invented curve data, not a product' }),
+    minimumMelting: ampsTable,
+    totalClearing: ampsTable,
+    currentLimitingFrom: quantityField('current', {
+      min: 0,
+      exclusiveMin: true,
+      description: 'current (A) from which the fuse is current-limiting',
+    }).optional(),
+  })
+  .strict()
+  .superRefine((fuse, ctx) => {
+    if (!isValidTable(fuse.minimumMelting) || !isValidTable(fuse.totalClearing)) return;
+    const problem = upperBelowLower(fuse.minimumMelting, fuse.totalClearing);
+    if (!problem) return;
+    const at = `${Number(problem.amps.toPrecision(6))} A`;
+    ctx.addIssue({
+      code: 'custom',
+      path: ['totalClearing'],
+      message: Number.isFinite(problem.lowerSeconds)
+        ? `expected total clearing no earlier than minimum melting, got ${Number(problem.upperSeconds.toPrecision(6))} s at ${at} (minimum melting ${Number(problem.lowerSeconds.toPrecision(6))} s)`
+        : `expected total clearing to start at or above the first minimum-melting current, got ${at}`,
+    });
+  })
+  .meta({ description: 'fuse: minimum-melting and total-clearing point tables' });
+
+/** A parsed fuse: tables in amperes and seconds. */
+export type Fuse = z.output<typeof fuseSchema>;
+
+/**
+ * The band of a fuse: `minTime` is the minimum-melting curve, `maxTime` the total-clearing curve,
+ * each interpolated linearly in log-log space between its points (REFERENCE §4.2).
+ * - Below a table's first current its edge is `Infinity` (the fuse does not melt / may never clear).
+ * - Beyond a table's last current its edge holds the last tabulated time; the curves are not
+ *   extrapolated, and `maxAmps` is the last tabulated current of the two tables.
+ * Breakpoints are every tabulated current.
+ *
+ * @example fuseBand(fuse).minTime(100) // Infinity below the first minimum-melting point
+ */
+export function fuseBand(fuse: Fuse): Band {
+  const melting = tableElement(fuse.minimumMelting);
+  const clearing = tableElement(fuse.totalClearing);
+  const diagnostics: string[] = [];
+  if (fuse.illustrative) diagnostics.push('illustrative curve, not a product: no selectivity claim may rest on it');
+  return {
+    minTime: melting.time,
+    maxTime: clearing.time,
+    breakpoints: Float64Array.from(uniqueAscending([...fuse.minimumMelting, ...fuse.totalClearing].map(([a]) => a))),
+    minAmps: melting.pickup,
+    maxAmps: Math.max(melting.lastAmps, clearing.lastAmps),
+    currentLimitingFrom: fuse.currentLimitingFrom ?? Infinity,
+    diagnostics,
+  };
+}

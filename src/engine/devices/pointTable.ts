@@ -1,0 +1,148 @@
+import { z } from 'zod';
+import type { EdgeElement } from './composite.ts';
+
+/** A digitised curve: `[current, seconds]` pairs, current ascending, time strictly descending. */
+export type PointTable = Array<[number, number]>;
+
+/** How a table's current column reads in errors: `'a current in amperes'` or `'a multiple of the rating'`. */
+export interface PointTableOptions {
+  current: string;
+  /** Unit written after a current in errors: `' A'` or `'×'`. */
+  unit: string;
+}
+
+/**
+ * Schema of a point table (REFERENCE §4.2): at least 2 points, every value greater than 0, current
+ * ascending and time strictly descending. Each rejection names the point: `[3][1]: expected a time
+ * below the previous point's 10 s, got "12"`.
+ *
+ * @example pointTableSchema({ current: 'a current in amperes', unit: ' A' }).parse([[200, 300], [1000, 0.1]])
+ */
+export function pointTableSchema({ current, unit }: PointTableOptions) {
+  return z
+    .array(z.tuple([z.number(), z.number()]))
+    .superRefine((points, ctx) => {
+      if (points.length < 2) {
+        ctx.addIssue({ code: 'custom', message: `expected at least 2 points, got ${points.length}` });
+        return;
+      }
+      for (let i = 0; i < points.length; i++) {
+        const problem = pointProblem(points, i, { current, unit });
+        if (problem) ctx.addIssue({ code: 'custom', path: [i, problem.column], message: problem.message });
+      }
+    })
+    .meta({ description: `[${current.replace(/^an? /, '')}, seconds] pairs, current ascending, time descending` });
+}
+
+/**
+ * What is wrong with point `i` of a table, if anything: the column (0 current, 1 time) and the
+ * message. Shared by the schema and the CSV reader so both speak alike.
+ */
+export function pointProblem(
+  points: readonly (readonly [number, number])[],
+  i: number,
+  { current, unit }: PointTableOptions,
+): { column: 0 | 1; message: string } | undefined {
+  const [amps, seconds] = points[i];
+  if (!(amps > 0) || !Number.isFinite(amps)) {
+    return { column: 0, message: `expected ${current} greater than 0, got "${amps}"` };
+  }
+  if (!(seconds > 0) || !Number.isFinite(seconds)) {
+    return { column: 1, message: `expected a time in seconds greater than 0, got "${seconds}"` };
+  }
+  if (i === 0) return undefined;
+  const [previousAmps, previousSeconds] = points[i - 1];
+  if (!(amps > previousAmps)) {
+    return {
+      column: 0,
+      message: `expected a current above the previous point's ${previousAmps}${unit}, got "${amps}"`,
+    };
+  }
+  if (!(seconds < previousSeconds)) {
+    return { column: 1, message: `expected a time below the previous point's ${previousSeconds} s, got "${seconds}"` };
+  }
+  return undefined;
+}
+
+/**
+ * Whether a table passes every rule of `pointTableSchema` (the cross-table checks run only then).
+ * @example isValidTable([[200, 300], [2000, 0.1]]) // true
+ */
+export function isValidTable(points: readonly (readonly [number, number])[]): boolean {
+  const options = { current: '', unit: '' };
+  return points.length >= 2 && points.every((_, i) => pointProblem(points, i, options) === undefined);
+}
+
+/**
+ * A table curve as an edge element, with currents multiplied by `scale` (a thermal band given in
+ * multiples of the rating). Between points it interpolates linearly in log-log space (REFERENCE
+ * §4.2); below the first current it is `Infinity`; beyond the last it holds the last time.
+ *
+ * @example tableElement([[200, 300], [2000, 0.1]]).time(632.456) // ≈ 5.477 s (half way in log)
+ */
+export function tableElement(points: PointTable, scale = 1): EdgeElement & { lastAmps: number } {
+  const n = points.length;
+  const logAmps = Float64Array.from(points, ([amps]) => Math.log(amps * scale));
+  const seconds = Float64Array.from(points, ([, t]) => t);
+  const logSeconds = seconds.map(Math.log);
+  const slopes = new Float64Array(n - 1);
+  for (let k = 0; k < n - 1; k++) slopes[k] = (logSeconds[k + 1] - logSeconds[k]) / (logAmps[k + 1] - logAmps[k]);
+  const first = points[0][0] * scale;
+  const lastAmps = points[n - 1][0] * scale;
+  const lastSeconds = points[n - 1][1];
+  const time = (amps: number): number => {
+    if (amps >= lastAmps) return lastSeconds;
+    if (!(amps >= first)) return Infinity;
+    const x = Math.log(amps);
+    // Binary search for the segment k with logAmps[k] ≤ x < logAmps[k + 1].
+    let lo = 0;
+    let hi = n - 1;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (logAmps[mid] <= x) lo = mid;
+      else hi = mid;
+    }
+    const dx = x - logAmps[lo];
+    // On a tabulated point return its time exactly, not through exp(log(t)).
+    return dx === 0 ? seconds[lo] : Math.exp(logSeconds[lo] + dx * slopes[lo]);
+  };
+  const reach = (level: number): number => {
+    const y = Math.log(level);
+    if (!(y < logSeconds[0]) || !(y > logSeconds[n - 1])) return Infinity;
+    let k = 0;
+    while (logSeconds[k + 1] > y) k++;
+    return Math.exp(logAmps[k] + (y - logSeconds[k]) / slopes[k]);
+  };
+  return {
+    pickup: first,
+    time,
+    joins: points.slice(1).map(([amps]) => amps * scale),
+    levels: [lastSeconds],
+    reach,
+    lastAmps,
+  };
+}
+
+/**
+ * Where a slower table (`upper`, e.g. total clearing) is faster than `lower` (minimum melting), or
+ * starts at a lower current, checked at every tabulated current of both (exact for log-log
+ * interpolation, which is linear in between). Returns the first offending current, or undefined.
+ *
+ * @example upperBelowLower([[100, 10], [1000, 0.01]], [[100, 12], [1000, 0.02]]) // undefined
+ */
+export function upperBelowLower(
+  lower: PointTable,
+  upper: PointTable,
+): { amps: number; lowerSeconds: number; upperSeconds: number } | undefined {
+  const low = tableElement(lower);
+  const high = tableElement(upper);
+  if (high.pickup < low.pickup)
+    return { amps: high.pickup, lowerSeconds: Infinity, upperSeconds: high.time(high.pickup) };
+  for (const amps of [...lower, ...upper].map(([a]) => a).sort((a, b) => a - b)) {
+    const lowerSeconds = low.time(amps);
+    const upperSeconds = high.time(amps);
+    // A relative slack of 1e-12 forgives the round trip through logarithms at shared points.
+    if (upperSeconds < lowerSeconds * (1 - 1e-12)) return { amps, lowerSeconds, upperSeconds };
+  }
+  return undefined;
+}

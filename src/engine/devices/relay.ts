@@ -1,0 +1,228 @@
+import { z } from 'zod';
+import type { Band } from '../band.ts';
+import { percentField, quantityField } from '../study/fields.ts';
+import { compositeEdge, definiteElement, uniqueAscending, type EdgeElement } from './composite.ts';
+import {
+  INVERSE_CURVES,
+  INVERSE_CURVE_NAMES,
+  inverseMultiple,
+  inverseTime,
+  type InverseCurveName,
+} from './inverseCurves.ts';
+
+/** Curves of the time-overcurrent element: the standard inverse-time curves and definite time. */
+export const RELAY_CURVES = [...INVERSE_CURVE_NAMES, 'definite-time'] as const;
+
+/** A CT ratio written "600:5". */
+const RATIO = /^\s*(\d+(?:\.\d+)?)\s*:\s*(\d+(?:\.\d+)?)\s*$/;
+
+/**
+ * Builds the relay schema for a system frequency (times in cycles, such as the default breaker
+ * interrupting time "5 cycles", parse at it). `relaySchema` is the 60 Hz instance.
+ *
+ * Fields: `ct` ("600:5" or `{ primary, secondary }` in amperes); `timeOvercurrent` with `curve`,
+ * `pickup` (tap, secondary A), `timeDial` (IEEE), `timeMultiplier` (IEC) or `delay` (definite time),
+ * and `definiteTimeFrom` (IEC G_D as a multiple of pickup: the time is held above it); `instantaneous`
+ * with `pickup` (secondary A) and `delay`; `operatingTime`, the fastest the relay operates (default
+ * "1 cycle", common practice 0.016–0.025 s); `breakerTime`, the interrupting time added to the
+ * clearing edge (default "5 cycles"); `tolerance.pickup` and `tolerance.time` in percent (default 0).
+ *
+ * @example createRelaySchema(50).parse({ kind: 'relay', ct: '600:5', instantaneous: { pickup: 40 } })
+ */
+export function createRelaySchema(frequency = 60) {
+  const time = (description: string) => quantityField('time', { frequency, min: 0, description });
+  const secondaryAmps = (description: string) =>
+    quantityField('current', { min: 0, exclusiveMin: true, description: `${description} (secondary A)` });
+  const ct = z
+    .union([
+      z.string(),
+      z
+        .object({
+          primary: quantityField('current', { min: 0, exclusiveMin: true }),
+          secondary: quantityField('current', { min: 0, exclusiveMin: true }),
+        })
+        .strict(),
+    ])
+    .transform((value, ctx) => {
+      if (typeof value !== 'string') return value;
+      const match = RATIO.exec(value);
+      if (!match || !(Number(match[1]) > 0) || !(Number(match[2]) > 0)) {
+        ctx.addIssue({ code: 'custom', message: `expected a CT ratio such as "600:5", got ${JSON.stringify(value)}` });
+        return z.NEVER;
+      }
+      return { primary: Number(match[1]), secondary: Number(match[2]) };
+    })
+    .meta({ description: 'CT ratio: "600:5" or { primary, secondary } in amperes' });
+
+  const timeOvercurrent = z
+    .object({
+      curve: z.enum(RELAY_CURVES),
+      pickup: secondaryAmps('pickup (tap)'),
+      timeDial: z.number().positive().optional().meta({ description: 'time dial of an IEEE curve' }),
+      timeMultiplier: z.number().positive().optional().meta({ description: 'time multiplier of an IEC curve' }),
+      delay: time('delay of a definite-time element').optional(),
+      definiteTimeFrom: z
+        .number()
+        .gt(1)
+        .optional()
+        .meta({ description: 'multiple of pickup above which the time is held (IEC G_D; common practice 20)' }),
+    })
+    .strict()
+    .superRefine((element, ctx) => {
+      const family = element.curve === 'definite-time' ? 'definite' : element.curve.slice(0, 4);
+      const wanted = { ieee: 'timeDial', 'iec-': 'timeMultiplier', definite: 'delay' }[family] as keyof typeof element;
+      const words = { timeDial: 'a time dial', timeMultiplier: 'a time multiplier', delay: 'a delay' };
+      for (const field of ['timeDial', 'timeMultiplier', 'delay'] as const) {
+        if (field === wanted && element[field] === undefined) {
+          ctx.addIssue({
+            code: 'custom',
+            path: [field],
+            message: `expected ${words[field]} for curve "${element.curve}", got nothing`,
+          });
+        } else if (field !== wanted && element[field] !== undefined) {
+          ctx.addIssue({
+            code: 'custom',
+            path: [field],
+            message: `expected no ${field} with curve "${element.curve}" (it takes ${String(wanted)}), got "${element[field]}"`,
+          });
+        }
+      }
+      if (family === 'definite' && element.definiteTimeFrom !== undefined) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['definiteTimeFrom'],
+          message: `expected no definiteTimeFrom on a definite-time curve, got "${element.definiteTimeFrom}"`,
+        });
+      }
+    });
+
+  return z
+    .object({
+      kind: z.literal('relay'),
+      label: z.string().optional(),
+      ct,
+      timeOvercurrent: timeOvercurrent.optional(),
+      instantaneous: z
+        .object({ pickup: secondaryAmps('instantaneous pickup'), delay: time('intentional delay').default(0) })
+        .strict()
+        .optional(),
+      operatingTime: time('fastest relay operating time; every element is floored to it').prefault('1 cycle'),
+      breakerTime: time('breaker interrupting time, added to the clearing edge').prefault('5 cycles'),
+      tolerance: z
+        .object({
+          pickup: percentField({ min: 0, max: 50, description: 'pickup tolerance ± %' }).default(0),
+          time: percentField({ min: 0, max: 50, description: 'operating time tolerance ± %' }).default(0),
+        })
+        .strict()
+        .prefault({}),
+    })
+    .strict()
+    .superRefine((relay, ctx) => {
+      if (!relay.timeOvercurrent && !relay.instantaneous) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['timeOvercurrent'],
+          message: 'expected a timeOvercurrent or an instantaneous element, got neither',
+        });
+      }
+    })
+    .meta({ description: 'protective relay with CT and breaker' });
+}
+
+/** Schema of a relay characteristic at 60 Hz (see `createRelaySchema`). */
+export const relaySchema = createRelaySchema(60);
+
+/** A parsed relay: currents in secondary amperes as set on the relay, times in seconds. */
+export type Relay = z.output<typeof relaySchema>;
+
+/**
+ * The band of a relay and its breaker, in primary amperes (pickup × CT ratio, REFERENCE §2.4).
+ * `minTime` uses the low pickup and time edges; `maxTime` the high edges plus the breaker
+ * interrupting time (REFERENCE §2.3). The relay trips on its fastest element, never faster than
+ * `operatingTime`. Inverse curves give `Infinity` at and below pickup; a definite-time or
+ * instantaneous element operates from its pickup on.
+ *
+ * @example relayBand(relaySchema.parse({ kind: 'relay', ct: '600:5',
+ *   timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 5, timeDial: 2 } })).minTime(6000) // 1.37816 s
+ */
+export function relayBand(relay: Relay): Band {
+  const { ct, timeOvercurrent, instantaneous, operatingTime, breakerTime, tolerance } = relay;
+  const ratio = ct.primary / ct.secondary;
+  const diagnostics: string[] = [];
+  const edge = (side: -1 | 1, add: number) => {
+    const pickupFactor = 1 + (side * tolerance.pickup) / 100;
+    const timeFactor = 1 + (side * tolerance.time) / 100;
+    const elements: EdgeElement[] = [];
+    if (timeOvercurrent) elements.push(overcurrentElement(timeOvercurrent, ratio * pickupFactor, timeFactor));
+    if (instantaneous) {
+      elements.push(definiteElement(instantaneous.pickup * ratio * pickupFactor, instantaneous.delay * timeFactor));
+    }
+    return compositeEdge(elements, operatingTime, add);
+  };
+  const low = edge(-1, 0);
+  const high = edge(1, breakerTime);
+
+  if (timeOvercurrent?.timeDial !== undefined && (timeOvercurrent.timeDial < 0.5 || timeOvercurrent.timeDial > 15)) {
+    diagnostics.push(`time dial ${timeOvercurrent.timeDial} is outside the usual 0.5–15 (common practice)`);
+  }
+  const multiplier = timeOvercurrent?.timeMultiplier;
+  if (multiplier !== undefined && (multiplier < 0.025 || multiplier > 1.2)) {
+    diagnostics.push(`time multiplier ${multiplier} is outside the usual 0.025–1.2 (common practice)`);
+  }
+  if (timeOvercurrent && instantaneous && instantaneous.pickup <= timeOvercurrent.pickup) {
+    diagnostics.push('instantaneous pickup is at or below the time-overcurrent pickup: the inverse curve never acts');
+  }
+  return {
+    minTime: low.time,
+    maxTime: high.time,
+    breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
+    minAmps: low.minAmps,
+    maxAmps: Infinity,
+    currentLimitingFrom: Infinity,
+    diagnostics,
+  };
+}
+
+/** The time-overcurrent element in primary amperes, with its pickup and time scaled by the edge factors. */
+function overcurrentElement(
+  element: NonNullable<Relay['timeOvercurrent']>,
+  pickupScale: number,
+  timeFactor: number,
+): EdgeElement {
+  const pickup = element.pickup * pickupScale;
+  if (element.curve === 'definite-time') return definiteElement(pickup, (element.delay ?? 0) * timeFactor);
+  const curve: InverseCurveName = element.curve;
+  const dial = (element.timeDial ?? element.timeMultiplier ?? 1) * timeFactor;
+  const cap = element.definiteTimeFrom ?? Infinity;
+  const capTime = inverseTime(curve, cap, dial);
+  const inverse = 1 / pickup;
+  const { a, b, p } = INVERSE_CURVES[curve];
+  // Inlined inverseTime with the constants bound: this closure runs once per current on every redraw
+  // (DESIGN §7 P1). For p = 0.02, expm1(p · ln m) is both faster than Math.pow and exact near m = 1.
+  const time =
+    p === 2
+      ? (amps: number) => {
+          const m = amps * inverse;
+          return m >= cap ? capTime : m > 1 ? dial * (a / (m * m - 1) + b) : Infinity;
+        }
+      : p === 1
+        ? (amps: number) => {
+            const m = amps * inverse;
+            return m >= cap ? capTime : m > 1 ? dial * (a / (m - 1) + b) : Infinity;
+          }
+        : (amps: number) => {
+            const m = amps * inverse;
+            return m >= cap ? capTime : m > 1 ? dial * (a / Math.expm1(p * Math.log(m)) + b) : Infinity;
+          };
+  return {
+    pickup,
+    time,
+    joins: Number.isFinite(cap) ? [cap * pickup] : [],
+    levels: Number.isFinite(cap) ? [capTime] : [],
+    reach: (seconds) => {
+      const multiple = inverseMultiple(curve, seconds, dial);
+      // At the cap itself the join already marks the change; the crossing must lie strictly below it.
+      return multiple < cap * (1 - 1e-9) ? multiple * pickup : Infinity;
+    },
+  };
+}

@@ -1,0 +1,133 @@
+import { z } from 'zod';
+import type { Band } from '../band.ts';
+import { percentField, quantityField } from '../study/fields.ts';
+import { compositeEdge, definiteElement, uniqueAscending } from './composite.ts';
+import { isValidTable, pointTableSchema, tableElement, upperBelowLower } from './pointTable.ts';
+
+const multiplesTable = pointTableSchema({ current: 'a multiple of the rating', unit: '×' });
+
+/**
+ * Builds the thermal-magnetic breaker schema for a system frequency; `thermalMagneticSchema` is the
+ * 60 Hz instance (REFERENCE §3.3). Fields: `rating` (A); `thermal.minimum` and `thermal.maximum`,
+ * the band's edges as `[multiple of rating, seconds]` tables (a template supplies them; the study keeps
+ * its own copy); `magnetic` with `pickup` (× rating) or `pickupAmps`, an optional adjustable `range`
+ * (same terms as the pickup), and `tolerance` ± % (default 20, common practice); `openingTime`
+ * (default "0.5 cycles") and `clearingTime` (default "1 cycle"); `currentLimiting`/`currentLimitingFrom`;
+ * `illustrative` and `label` for invented curves.
+ *
+ * @example createThermalMagneticSchema().parse({ kind: 'thermal-magnetic', rating: 100,
+ *   thermal: { minimum: [[1.05, 7200], [10, 2]], maximum: [[1.3, 7200], [10, 5]] }, magnetic: { pickup: 10 } })
+ */
+export function createThermalMagneticSchema(frequency = 60) {
+  const time = (description: string) => quantityField('time', { frequency, min: 0, description });
+  return z
+    .object({
+      kind: z.literal('thermal-magnetic'),
+      label: z.string().optional(),
+      illustrative: z.boolean().default(false).meta({ description: 'invented curve data, not a product' }),
+      rating: quantityField('current', { min: 0, exclusiveMin: true, description: 'breaker rating (A)' }),
+      thermal: z
+        .object({ minimum: multiplesTable, maximum: multiplesTable })
+        .strict()
+        .superRefine(({ minimum, maximum }, ctx) => {
+          if (!isValidTable(minimum) || !isValidTable(maximum)) return;
+          const problem = upperBelowLower(minimum, maximum);
+          if (problem) {
+            ctx.addIssue({
+              code: 'custom',
+              path: ['maximum'],
+              message: `expected the maximum edge no earlier than the minimum edge, got ${Number(problem.upperSeconds.toPrecision(6))} s at ${problem.amps}× (minimum ${Number(problem.lowerSeconds.toPrecision(6))} s)`,
+            });
+          }
+        }),
+      magnetic: z
+        .object({
+          pickup: z.number().positive().optional().meta({ description: 'magnetic pickup × rating' }),
+          pickupAmps: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+          range: z
+            .tuple([z.number().positive(), z.number().positive()])
+            .optional()
+            .meta({ description: 'adjustable range [low, high] in the terms of the pickup; omit for a fixed trip' }),
+          tolerance: percentField({ min: 0, max: 90, description: 'pickup tolerance ± %' }).default(20),
+        })
+        .strict()
+        .superRefine((magnetic, ctx) => {
+          if ((magnetic.pickup === undefined) === (magnetic.pickupAmps === undefined)) {
+            ctx.addIssue({
+              code: 'custom',
+              path: ['pickup'],
+              message: `expected exactly one of pickup (× rating) or pickupAmps, got ${magnetic.pickup === undefined ? 'neither' : 'both'}`,
+            });
+          }
+        }),
+      openingTime: time('fastest magnetic operation').prefault('0.5 cycles'),
+      clearingTime: time('latest clearing at high current').prefault('1 cycle'),
+      currentLimiting: z.boolean().default(false),
+      currentLimitingFrom: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+    })
+    .strict()
+    .superRefine((breaker, ctx) => {
+      if (breaker.openingTime > breaker.clearingTime) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['openingTime'],
+          message: `expected an opening time no later than the clearing time ${breaker.clearingTime} s, got "${breaker.openingTime}"`,
+        });
+      }
+    })
+    .meta({ description: 'thermal-magnetic molded-case breaker' });
+}
+
+/** Schema of a thermal-magnetic characteristic at 60 Hz (see `createThermalMagneticSchema`). */
+export const thermalMagneticSchema = createThermalMagneticSchema(60);
+
+/** A parsed thermal-magnetic breaker: `rating` in amperes, tables in multiples of it, times in seconds. */
+export type ThermalMagnetic = z.output<typeof thermalMagneticSchema>;
+
+/**
+ * The band of a thermal-magnetic breaker in amperes: the thermal tables scaled by the rating
+ * (log-log interpolated, `Infinity` below each table's first current, held beyond its last), and
+ * the magnetic trip, vertical at pickup × (1 ∓ tolerance) down to `openingTime` (fast edge) and
+ * `clearingTime` (slow edge). Both edges are floored to those times.
+ *
+ * @example thermalMagneticBand(breaker).minTime(2000) // 0.00833 s for a 100 A breaker, magnetic 10×
+ */
+export function thermalMagneticBand(breaker: ThermalMagnetic): Band {
+  const { rating, thermal, magnetic, openingTime, clearingTime } = breaker;
+  const magneticAmps = magnetic.pickupAmps ?? (magnetic.pickup ?? 10) * rating;
+  const low = compositeEdge(
+    [
+      tableElement(thermal.minimum, rating),
+      definiteElement(magneticAmps * (1 - magnetic.tolerance / 100), openingTime),
+    ],
+    openingTime,
+  );
+  const high = compositeEdge(
+    [
+      tableElement(thermal.maximum, rating),
+      definiteElement(magneticAmps * (1 + magnetic.tolerance / 100), clearingTime),
+    ],
+    clearingTime,
+  );
+  const diagnostics: string[] = [];
+  if (breaker.illustrative) diagnostics.push('illustrative curve, not a product: no selectivity claim may rest on it');
+  const setting = magnetic.pickupAmps ?? magnetic.pickup ?? 0;
+  if (magnetic.range && (setting < magnetic.range[0] || setting > magnetic.range[1])) {
+    diagnostics.push(
+      `magnetic pickup ${setting} is outside its adjustable range ${magnetic.range[0]}–${magnetic.range[1]}`,
+    );
+  }
+  let currentLimitingFrom = breaker.currentLimitingFrom ?? Infinity;
+  if (breaker.currentLimiting && breaker.currentLimitingFrom === undefined) {
+    currentLimitingFrom = magneticAmps * (1 + magnetic.tolerance / 100);
+  }
+  return {
+    minTime: low.time,
+    maxTime: high.time,
+    breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
+    minAmps: low.minAmps,
+    maxAmps: Infinity,
+    currentLimitingFrom,
+    diagnostics,
+  };
+}

@@ -1,0 +1,72 @@
+import { describe, expect, it } from 'vitest';
+import { parsePointsCsv } from '../../../src/engine/devices/pointsCsv.ts';
+import { fuseSchema } from '../../../src/engine/devices/fuse.ts';
+
+function rejection(text: string): string {
+  try {
+    parsePointsCsv(text);
+  } catch (error) {
+    return (error as Error).message;
+  }
+  return 'accepted';
+}
+
+describe('pointsCsv', () => {
+  it('has the expected defaults', () => {
+    expect(parsePointsCsv('200,300\n2000,0.01')).toEqual({
+      points: [
+        [200, 300],
+        [2000, 0.01],
+      ],
+    });
+  });
+
+  it('parsePointsCsv reads a header, comments, blank lines and other separators', () => {
+    const text = '# digitised from an invented curve\ncurrent,time\n\n200, 300\n400;10  # knee\n2000\t0.01\n';
+    expect(parsePointsCsv(text).points).toEqual([
+      [200, 300],
+      [400, 10],
+      [2000, 0.01],
+    ]);
+  });
+
+  it('parsePointsCsv splits three-column files into the fast and slow edges, fit for a fuse', () => {
+    const text = [
+      'curve,current,time',
+      'minimum-melting,200,100',
+      'minimum-melting,4000,0.01',
+      'total-clearing,200,120',
+      'total-clearing,4000,0.02',
+    ].join('\n');
+    const { minimum, maximum } = parsePointsCsv(text);
+    const fuse = fuseSchema.parse({ kind: 'fuse', minimumMelting: minimum, totalClearing: maximum });
+    expect(fuse.totalClearing).toEqual([
+      [200, 120],
+      [4000, 0.02],
+    ]);
+    expect(parsePointsCsv('min,1.05,3600\nmin,10,1\nMAX,1.35,3600\nmax,10,5').maximum).toEqual([
+      [1.35, 3600],
+      [10, 5],
+    ]);
+  });
+
+  it('parsePointsCsv names the row of a bad value', () => {
+    const lines = ['# header follows', 'current,time', '200,300', '400,10', '', '# comment', 'abc,1'];
+    expect(rejection(lines.join('\n'))).toMatch(/^row 7: expected a current in amperes greater than 0, got "abc"$/);
+    expect(rejection('200,300\n400,-1')).toMatch(/^row 2: expected a time in seconds greater than 0, got "-1"$/);
+    expect(rejection('200,300\n150,10')).toMatch(
+      /^row 2: expected a current above the previous point's 200, got "150"$/,
+    );
+    expect(rejection('200,300\n400,300')).toMatch(
+      /^row 2: expected a time below the previous point's 300 s, got "300"$/,
+    );
+    expect(rejection('200,300\n400,10,5')).toMatch(/^row 2: expected 2 fields \(current,time\), got "400,10,5"$/);
+    expect(rejection('melt,200,300')).toMatch(
+      /^row 1: expected a curve "minimum-melting", "total-clearing", "min" or "max", got "melt"$/,
+    );
+    expect(rejection('200,300')).toMatch(/^row 1: expected at least 2 points on this curve, got 1$/);
+    expect(rejection('# nothing here\n')).toMatch(
+      /^row 1: expected rows of current,time or curve,current,time, got no points$/,
+    );
+  });
+});

@@ -1,0 +1,200 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { assertInDelta } from '../../asserts.ts';
+import { assertBandContract } from './bandInvariants.ts';
+import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
+import { groundBandOf, tripUnitBand, tripUnitSchema } from '../../../src/engine/devices/tripUnit.ts';
+
+/** REFERENCE §7.6 (invented settings): I_r = 800 A, 10 s at 6 × I_r; short-time 4 × I_r, I²t in through (10 × I_r, 0.3 s). */
+const example = {
+  kind: 'trip-unit',
+  sensor: 800,
+  longTime: { pickup: 1, delay: 10 },
+  shortTime: { pickup: 4, delay: 0.3, i2t: true },
+} as const;
+
+const noTolerance = {
+  pickup: 0,
+  longTimeBelow: 0,
+  longTimeAbove: 0,
+  shortTimeBelow: 0,
+  shortTimeAbove: 0,
+};
+
+function rejection(input: unknown): string {
+  try {
+    readCharacteristic(input, { path: 'device.characteristic' });
+  } catch (error) {
+    return (error as Error).message;
+  }
+  return 'accepted';
+}
+
+describe('tripUnit', () => {
+  it('has the expected defaults', () => {
+    const unit = tripUnitSchema.parse(example);
+    expect(unit.longTime.delayAt).toBe(6);
+    expect(unit.shortTime?.i2tThrough).toBe(10);
+    // Common practice tolerances (REFERENCE §3.2): pickup ±10 %, long-time −10/+20 %, short-time band +0.05 s.
+    expect(unit.tolerance).toEqual({
+      pickup: 10,
+      groundPickup: 10,
+      longTimeBelow: 10,
+      longTimeAbove: 20,
+      shortTimeBelow: 0,
+      shortTimeAbove: 0.05,
+    });
+    assertInDelta(unit.openingTime, 0.5 / 60);
+    assertInDelta(unit.clearingTime, 3 / 60); // LVPCB instantaneous ≤ 3 cycles (REFERENCE §3.4)
+    expect(unit.currentLimiting).toBe(false);
+  });
+
+  it('tripUnitBand without tolerance is the nominal curve of REFERENCE §7.6, worked example (computed)', () => {
+    const band = tripUnitBand(tripUnitSchema.parse({ ...example, tolerance: noTolerance }));
+    const table: Array<[number, number]> = [
+      [1200, 160],
+      [2400, 40],
+      [3200, 1.875], // short-time picks up at 3200 A: 0.3 · (8000/3200)²
+      [4800, 0.83333],
+      [6400, 0.46875],
+      [8000, 0.3],
+      [20000, 0.3], // flat above 10 × I_r
+    ];
+    for (const [amps, seconds] of table) {
+      assertInDelta(band.minTime(amps), seconds, 1e-5);
+      assertInDelta(band.maxTime(amps), seconds, 1e-5);
+    }
+    assertInDelta(band.minTime(3199), 10 * (4800 / 3199) ** 2); // long-time just below the short-time pickup
+    expect(band.minTime(799)).toBe(Infinity);
+  });
+
+  it('tripUnitBand edges with the default tolerances, worked by hand (common practice)', () => {
+    const band = tripUnitBand(tripUnitSchema.parse(example));
+    // Long-time: fast edge from 720 A at 0.9 · 10 s, slow edge from 880 A at 1.2 · 10 s.
+    expect(band.minAmps).toBeCloseTo(720, 9);
+    assertInDelta(band.minTime(1200), 144);
+    assertInDelta(band.maxTime(1200), 192);
+    expect(band.maxTime(870)).toBe(Infinity);
+    // Short-time pickup 3200 A ± 10 %: the fast edge is on short time at 3200 A, the slow edge still long time.
+    assertInDelta(band.minTime(3200), 1.875);
+    assertInDelta(band.maxTime(3200), 27); // 12 · (4800/3200)²
+    assertInDelta(band.maxTime(3600), 0.35 * (8000 / 3600) ** 2); // slow edge picked up at 3520 A
+    assertInDelta(band.minTime(8000), 0.3);
+    assertInDelta(band.maxTime(8000), 0.35);
+    expect([...band.breakpoints].slice(0, 5).map((b) => Math.round(b))).toEqual([720, 880, 2880, 3520, 8000]);
+  });
+
+  it('tripUnitBand drops to the opening and clearing times above the instantaneous pickup', () => {
+    const band = tripUnitBand(tripUnitSchema.parse({ ...example, instantaneous: { pickup: 12 } })); // 9600 A
+    assertInDelta(band.minTime(8640), 0.5 / 60); // 9600 × 0.9
+    assertInDelta(band.maxTime(8640), 0.35);
+    assertInDelta(band.maxTime(10560), 3 / 60); // 9600 × 1.1
+    expect(band.currentLimitingFrom).toBe(Infinity);
+  });
+
+  it('tripUnitBand keeps the long-time ramp from undercutting the short-time band', () => {
+    const band = tripUnitBand(tripUnitSchema.parse({ ...example, shortTime: { pickup: 4, delay: 0.3 } }));
+    assertInDelta(band.minTime(100_000), 0.3); // without the hold, 9 · (4800/100000)² = 0.0207 s
+  });
+
+  it('tripUnitBand starts current limiting at the instantaneous slow edge when flagged', () => {
+    const flagged = tripUnitBand(
+      tripUnitSchema.parse({ ...example, instantaneous: { pickup: 10 }, currentLimiting: true }),
+    );
+    assertInDelta(flagged.currentLimitingFrom, 8800);
+    const given = tripUnitBand(tripUnitSchema.parse({ ...example, currentLimitingFrom: '20 kA' }));
+    expect(given.currentLimitingFrom).toBe(20000);
+  });
+
+  it('groundBandOf is undefined without a ground element and banded like short time with one', () => {
+    expect(groundBandOf(tripUnitSchema.parse(example))).toBeUndefined();
+    const unit = tripUnitSchema.parse({ ...example, sensor: 2000, ground: { pickup: 0.6, delay: 0.3 } });
+    const ground = groundBandOf(unit)!;
+    expect(ground.minAmps).toBeCloseTo(1080, 9); // 1200 A − 10 %
+    expect(ground.maxTime(1300)).toBe(Infinity); // 1200 A + 10 % = 1320 A
+    assertInDelta(ground.minTime(3000), 0.3);
+    assertInDelta(ground.maxTime(3000), 0.35);
+    expect(ground.diagnostics).toEqual([]);
+    const i2t = groundBandOf(
+      tripUnitSchema.parse({ ...example, sensor: 2000, ground: { pickup: 0.6, delay: 0.3, i2t: true } }),
+    )!;
+    assertInDelta(i2t.minTime(1500), 0.3 * (2000 / 1500) ** 2); // I²t through (1 × I_n, 0.3 s)
+  });
+
+  it('groundBandOf notes settings beyond NEC 230.95 (from memory)', () => {
+    const unit = tripUnitSchema.parse({ ...example, sensor: 3000, ground: { pickup: 0.5, delay: 1 } });
+    const text = groundBandOf(unit)!.diagnostics.join('\n');
+    expect(text).toMatch(/ground-fault pickup 1500 A is above the 1200 A of NEC 230\.95/);
+    expect(text).toMatch(/clearing at 3000 A is later than the 1 s/);
+  });
+
+  it('tripUnitBand notes settings outside the usual ranges', () => {
+    const band = tripUnitBand(tripUnitSchema.parse({ ...example, longTime: { pickup: 0.3, delay: 40 } }));
+    expect(band.diagnostics.join('\n')).toMatch(/long-time pickup 0\.3 × I_n is outside the usual 0\.4–1 × I_n/);
+    expect(band.diagnostics.join('\n')).toMatch(/long-time delay 40 s is outside the usual 2–30 s/);
+  });
+
+  it('tripUnitSchema rejects bad settings with the field path', () => {
+    expect(rejection({ ...example, sensor: 0 })).toMatch(
+      /^device\.characteristic\.sensor: expected a current greater than 0, got "0"$/,
+    );
+    expect(rejection({ ...example, longTime: { pickup: 1 } })).toMatch(
+      /^device\.characteristic\.longTime\.delay: expected/,
+    );
+    expect(rejection({ ...example, longTime: { pickup: 1, delay: 0 } })).toMatch(
+      /longTime\.delay: expected a time greater than 0, got "0"$/,
+    );
+    expect(rejection({ ...example, shortTime: { pickup: -2, delay: 0.3 } })).toMatch(
+      /shortTime\.pickup: expected a value greater than 0, got "-2"$/,
+    );
+    expect(rejection({ ...example, openingTime: 0.1, clearingTime: 0.05 })).toMatch(
+      /characteristic\.openingTime: expected an opening time no later than the clearing time 0\.05 s, got "0\.1"$/,
+    );
+    expect(
+      rejection({ ...example, shortTime: { pickup: 4, delay: 0.02 }, tolerance: { shortTimeBelow: 0.05 } }),
+    ).toMatch(/shortTime\.delay: expected a delay greater than the band's 0\.05 s below it, got "0\.02"$/);
+    expect(rejection({ ...example, instantaneous: { pickup: 10, delay: 1 } })).toMatch(
+      /instantaneous: expected no field "delay" here, got one$/,
+    );
+  });
+
+  it('tripUnitBand keeps the band contract over random settings', () => {
+    const settings = fc.record({
+      sensor: fc.integer({ min: 100, max: 5000 }),
+      ltPickup: fc.double({ min: 0.4, max: 1, noNaN: true }),
+      ltDelay: fc.double({ min: 2, max: 30, noNaN: true }),
+      shortTime: fc.option(
+        fc.record({
+          pickup: fc.double({ min: 1.5, max: 10, noNaN: true }),
+          delay: fc.double({ min: 0.05, max: 0.5, noNaN: true }),
+          i2t: fc.boolean(),
+          i2tThrough: fc.double({ min: 2, max: 12, noNaN: true }),
+        }),
+        { nil: undefined },
+      ),
+      instantaneous: fc.option(fc.double({ min: 2, max: 15, noNaN: true }), { nil: undefined }),
+      pickupTolerance: fc.double({ min: 0, max: 20, noNaN: true }),
+    });
+    fc.assert(
+      fc.property(
+        settings,
+        fc.array(fc.double({ min: 0, max: 1e7, noNaN: true }), { maxLength: 40 }),
+        (s, currents) => {
+          const unit = tripUnitSchema.parse({
+            kind: 'trip-unit',
+            sensor: s.sensor,
+            longTime: { pickup: s.ltPickup, delay: s.ltDelay },
+            shortTime: s.shortTime,
+            instantaneous: s.instantaneous === undefined ? undefined : { pickup: s.instantaneous },
+            tolerance: { pickup: s.pickupTolerance },
+          });
+          const band = tripUnitBand(unit);
+          assertBandContract(band, currents);
+          const lowPickup = s.sensor * s.ltPickup * (1 - s.pickupTolerance / 100);
+          expect(band.minTime(lowPickup * (1 - 1e-9))).toBe(Infinity);
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+});
