@@ -1,0 +1,112 @@
+import { conductorAreaCmil } from '../conductors/index.ts';
+import { InputError, expectedGot } from '../errors.ts';
+import { significant } from '../quantity/index.ts';
+import type { Cable } from '../study/index.ts';
+import { elementPath, requireNumberAbove } from './inputs.ts';
+import type { WithstandCurve } from './withstand.ts';
+
+/**
+ * ICEA P-32-382 conductor constants (REFERENCE §5.6): `K` in A²·s/cmil², `lambda` (λ) in °C, the
+ * inferred temperature of zero resistance. Copper 0.0297 / 234, aluminium 0.0125 / 228.
+ */
+export const ICEA_CONDUCTOR: Readonly<Record<Cable['material'], { k: number; lambda: number; symbol: string }>> = {
+  copper: { k: 0.0297, lambda: 234, symbol: 'Cu' },
+  aluminium: { k: 0.0125, lambda: 228, symbol: 'Al' },
+};
+
+/**
+ * Conductor temperatures by insulation, `[T1, T2]` in °C: normal operating and short-circuit limit
+ * (REFERENCE §5.6: thermoplastic from memory; XLPE/EPR and EPR MV-105 confirmed from public cable data).
+ */
+export const ICEA_TEMPERATURES: Readonly<Record<Cable['insulation'], readonly [number, number]>> = {
+  thermoplastic: [75, 150],
+  xlpe: [90, 250],
+  'epr-105': [105, 250],
+};
+
+/** Options of `cableWithstandOf`. */
+export interface CableWithstandOptions {
+  /** The cable's bus voltage (V, line-to-line): the voltage the curve's currents are given at. */
+  volts: number;
+  /**
+   * Area of one conductor in circular mils, when it should not come from `cable.size` (e.g. a size
+   * the NEC table does not list). Parallel `sets` still multiply it.
+   * @default conductorAreaCmil(cable.size); range > 0
+   */
+  conductorAreaCmil?: number;
+  /** Time (s) where the drawn line starts; the adiabatic formula is not valid for long durations. @default 10 */
+  longestSeconds?: number;
+  /** Time (s) where the drawn line ends (one half-cycle). @default 0.01 */
+  shortestSeconds?: number;
+}
+
+/**
+ * A cable's short-circuit withstand curve by ICEA P-32-382 (REFERENCE §5.6), adiabatic heating from
+ * the insulation's operating temperature T1 to its short-circuit limit T2:
+ * `(I / A)² · t = K · log10[(T2 + λ) / (T1 + λ)]`, I in A, A in cmil (× parallel sets), t in s.
+ * Drawn as a straight line of slope −2 in log-log from 10 s down to 0.01 s.
+ *
+ * @example cableWithstandOf({ size: '4/0', material: 'copper', insulation: 'xlpe', sets: 1, ... }, { volts: 480 }).timeAt(15_224.5) // ≈ 1 s
+ */
+export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): WithstandCurve {
+  const path = elementPath('cables', cable.id);
+  const { longestSeconds = 10, shortestSeconds = 0.01 } = options;
+  const volts = requireNumberAbove('options.volts', options.volts, 0, 'a voltage in V');
+  requireNumberAbove('options.shortestSeconds', shortestSeconds, 0, 'a time in s');
+  requireNumberAbove('options.longestSeconds', longestSeconds, shortestSeconds, 'a time in s');
+  const conductor = ICEA_CONDUCTOR[cable.material];
+  if (!conductor) throw new InputError(`${path}.material`, expectedGot('"copper" or "aluminium"', cable.material));
+  const temperatures = ICEA_TEMPERATURES[cable.insulation];
+  if (!temperatures) {
+    throw new InputError(`${path}.insulation`, expectedGot('"thermoplastic", "xlpe" or "epr-105"', cable.insulation));
+  }
+  const sets = cable.sets ?? 1;
+  if (!Number.isInteger(sets) || sets < 1)
+    throw new InputError(`${path}.sets`, expectedGot('a whole number of at least 1', sets));
+  const perConductor =
+    options.conductorAreaCmil === undefined
+      ? conductorAreaCmil(cable.size, `${path}.size`)
+      : requireNumberAbove('options.conductorAreaCmil', options.conductorAreaCmil, 0, 'an area in cmil');
+
+  // (I/A)²·t = c, with c = K·log10[(T2 + λ)/(T1 + λ)].
+  const [t1, t2] = temperatures;
+  const area = perConductor * sets;
+  const c = conductor.k * Math.log10((t2 + conductor.lambda) / (t1 + conductor.lambda));
+  const ampsAt = (seconds: number) => area * Math.sqrt(c / seconds);
+  const lowestAmps = ampsAt(longestSeconds);
+  const highestAmps = ampsAt(shortestSeconds);
+
+  // One point per decade of time; the line is straight in log-log, so the ends alone would draw it.
+  const times = [longestSeconds];
+  for (let t = 10 ** (Math.ceil(Math.log10(longestSeconds)) - 1); t > shortestSeconds * (1 + 1e-9); t /= 10) {
+    if (t < longestSeconds * (1 - 1e-9)) times.push(t);
+  }
+  times.push(shortestSeconds);
+  const seconds = Float64Array.from(times);
+  const amps = seconds.map(ampsAt);
+
+  const sizeText = `${sets > 1 ? `${sets} × ` : ''}${cable.size}`;
+  const temperatureText = `${t1}→${t2} °C`;
+  return {
+    elementId: cable.id,
+    kind: 'cable',
+    label: `ICEA P-32-382, ${sizeText} ${conductor.symbol} ${temperatureText}`,
+    volts,
+    amps,
+    seconds,
+    timeAt(current) {
+      if (!(current >= lowestAmps)) return Infinity;
+      if (current >= highestAmps) return shortestSeconds;
+      return c * (area / current) ** 2;
+    },
+    notes: [
+      `ICEA P-32-382 conductor withstand: (I/A)²·t = K·log10[(T2 + λ)/(T1 + λ)], adiabatic (valid for short durations)`,
+      `${cable.material}: K = ${conductor.k}, λ = ${conductor.lambda} °C; ${cable.insulation}: T1 = ${t1} °C, T2 = ${t2} °C`,
+      `A = ${sets} × ${significant(perConductor, 7)} cmil = ${significant(area, 7)} cmil` +
+        (options.conductorAreaCmil === undefined ? ` (${cable.size}, NEC Chapter 9 Table 8)` : ' (area given)'),
+      `I = ${significant(c ** 0.5, 5)} · A / √t: ${significant(lowestAmps, 6)} A at ${longestSeconds} s to ` +
+        `${significant(highestAmps, 6)} A at ${shortestSeconds} s, at ${significant(volts, 6)} V`,
+      'conductor only: metallic shields and sheaths are rated by another method (ICEA P-45-482)',
+    ],
+  };
+}

@@ -1,0 +1,128 @@
+import { InputError, expectedGot } from '../errors.ts';
+import { motorFullLoadAmps } from '../fault/motorFullLoad.ts';
+import { significant } from '../quantity/index.ts';
+import type { Motor } from '../study/index.ts';
+import { elementPath, requireNumberAbove } from './inputs.ts';
+import type { Marker, StartingCurve } from './withstand.ts';
+
+/** Times of the starting curve (s): the asymmetrical current from one half-cycle to 0.1 s, FLA up to 1000 s (common practice). */
+export const STARTING_TIMES = { halfCycle: 0.01, asymmetricalUntil: 0.1, longest: 1000 } as const;
+
+/** Options of `motorStartingOf`. */
+export interface MotorStartingOptions {
+  /** Multiplies FLA for the long-time running current. @default 1.0; range ≥ 1 */
+  serviceFactor?: number;
+  /** First-half-cycle asymmetrical current as a multiple of LRA (common practice 1.5–1.7). @default 1.6; range ≥ 1 */
+  asymmetryFactor?: number;
+  /** Locked-rotor current (A), e.g. from `lockedRotorAmpsFromCode`. @default motor.lockedRotor × FLA */
+  lockedRotorAmps?: number;
+  /** Top of the FLA line (s). @default 1000 */
+  longestSeconds?: number;
+}
+
+/** A motor's starting curve and its locked-rotor marker. */
+export interface MotorStarting {
+  curve: StartingCurve;
+  /** A point at (LRA, acceleration time). */
+  lockedRotor: Marker;
+  /** Full-load current (A) at `volts`, before the service factor. */
+  fullLoadAmps: number;
+}
+
+/**
+ * A motor's starting curve at `volts` (REFERENCE §5.7, common practice), in the order of time:
+ * the asymmetrical current `asymmetryFactor × LRA` from 0.01 s to 0.1 s, the locked-rotor current
+ * `LRA = lockedRotor × FLA` from 0.1 s to the acceleration time, then `FLA × serviceFactor` up to 1000 s.
+ * FLA comes from `motorFullLoadAmps` (nameplate, else kVA, else hp). The motor's device must stay
+ * above and to the right of it.
+ *
+ * @param volts the motor's bus voltage (V, line-to-line).
+ * @example motorStartingOf(motor100hp, 460, { lockedRotorAmps: 789.46 }).lockedRotor.amps // 789.46
+ */
+export function motorStartingOf(motor: Motor, volts: number, options: MotorStartingOptions = {}): MotorStarting {
+  const path = elementPath('motors', motor.id);
+  const { serviceFactor = 1, asymmetryFactor = 1.6, longestSeconds = STARTING_TIMES.longest } = options;
+  requireNumberAbove('volts', volts, 0, 'a voltage in V');
+  requireNumberAbove('options.serviceFactor', serviceFactor, 1, 'a service factor', true);
+  requireNumberAbove('options.asymmetryFactor', asymmetryFactor, 1, 'a multiple of locked-rotor current', true);
+  const fullLoadAmps = motorFullLoadAmps(motor, volts);
+  if (!(fullLoadAmps > 0 && Number.isFinite(fullLoadAmps))) {
+    throw new InputError(
+      `${path}.fullLoadAmps`,
+      expectedGot('a full-load current, or hp or rating to infer it', motor.fullLoadAmps),
+    );
+  }
+  const accelerationTime = requireNumberAbove(
+    `${path}.accelerationTime`,
+    motor.accelerationTime,
+    STARTING_TIMES.halfCycle,
+    'a time in s',
+  );
+  requireNumberAbove('options.longestSeconds', longestSeconds, accelerationTime, 'a time in s');
+
+  // Currents of the three steps; each must exceed the next so the curve falls as time rises.
+  const runningAmps = fullLoadAmps * serviceFactor;
+  const lockedRotorAmps =
+    options.lockedRotorAmps === undefined
+      ? requireNumberAbove(`${path}.lockedRotor`, motor.lockedRotor, 0, 'a multiple of full-load current') *
+        fullLoadAmps
+      : requireNumberAbove('options.lockedRotorAmps', options.lockedRotorAmps, 0, 'a current in A');
+  if (!(lockedRotorAmps > runningAmps)) {
+    const field = options.lockedRotorAmps === undefined ? `${path}.lockedRotor` : 'options.lockedRotorAmps';
+    throw new InputError(
+      field,
+      expectedGot(
+        `a locked-rotor current above the running current ${significant(runningAmps)} A`,
+        significant(lockedRotorAmps),
+      ),
+    );
+  }
+  const asymmetricalAmps = asymmetryFactor * lockedRotorAmps;
+  const asymmetricalUntil = Math.min(STARTING_TIMES.asymmetricalUntil, accelerationTime);
+
+  const points: [number, number][] = [
+    [asymmetricalAmps, STARTING_TIMES.halfCycle],
+    [asymmetricalAmps, asymmetricalUntil],
+    [lockedRotorAmps, asymmetricalUntil],
+    [lockedRotorAmps, accelerationTime],
+    [runningAmps, accelerationTime],
+    [runningAmps, longestSeconds],
+  ];
+  // A start shorter than 0.1 s leaves two equal points; keep one.
+  const distinct = points.filter(([a, t], i) => i === 0 || a !== points[i - 1][0] || t !== points[i - 1][1]);
+  const name = motor.name ?? motor.id;
+  const lraText = `${significant(lockedRotorAmps, 4)} A`;
+  return {
+    fullLoadAmps,
+    curve: {
+      elementId: motor.id,
+      label: `${name} starting: LRA ${lraText} for ${significant(accelerationTime, 3)} s`,
+      volts,
+      amps: Float64Array.from(distinct, ([a]) => a),
+      seconds: Float64Array.from(distinct, ([, t]) => t),
+      notes: [
+        `FLA ${significant(fullLoadAmps, 6)} A at ${significant(volts, 6)} V` +
+          (motor.fullLoadAmps === undefined
+            ? ' (inferred from the rating; NEC tables govern conductor sizing)'
+            : ' (nameplate)') +
+          (serviceFactor === 1
+            ? ''
+            : `; running current × service factor ${serviceFactor} = ${significant(runningAmps, 6)} A`),
+        options.lockedRotorAmps === undefined
+          ? `LRA = ${motor.lockedRotor} × FLA = ${lraText} (common practice without data: about 6 × FLA)`
+          : `LRA ${lraText} given`,
+        `asymmetrical first-cycle current ${asymmetryFactor} × LRA = ${significant(asymmetricalAmps, 4)} A from ` +
+          `${STARTING_TIMES.halfCycle} s to ${asymmetricalUntil} s (common practice: 1.5–1.7 × LRA)`,
+        `acceleration time ${significant(accelerationTime, 3)} s, then the running current up to ${longestSeconds} s (common practice)`,
+      ],
+    },
+    lockedRotor: {
+      kind: 'locked-rotor',
+      label: `${name} locked rotor ${lraText} for ${significant(accelerationTime, 3)} s`,
+      volts,
+      amps: lockedRotorAmps,
+      seconds: accelerationTime,
+      elementId: motor.id,
+    },
+  };
+}

@@ -1,0 +1,103 @@
+import { describe, it, expect } from 'vitest';
+import fc from 'fast-check';
+import { lockedRotorAmpsFromCode } from '../../../src/engine/withstand/lockedRotorCode.ts';
+import { motorStartingOf, STARTING_TIMES } from '../../../src/engine/withstand/motorStarting.ts';
+import { assertInDelta } from '../../asserts.ts';
+import { motorOf } from './fixtures.ts';
+
+describe('motorStartingOf', () => {
+  it('has the expected defaults', () => {
+    // REFERENCE §5.7 (common practice): LRA 6 × FLA without data, 1.6 × LRA asymmetrical, service factor 1.0
+    expect(STARTING_TIMES).toEqual({ halfCycle: 0.01, asymmetricalUntil: 0.1, longest: 1000 });
+    const { curve, lockedRotor, fullLoadAmps } = motorStartingOf(motorOf(), 460);
+    const fla = 100_000 / (Math.sqrt(3) * 460); // motorFullLoadAmps from hp: 125.51 A
+    assertInDelta(fullLoadAmps, fla, 1e-12);
+    expect(Array.from(curve.seconds)).toEqual([0.01, 0.1, 0.1, 5, 5, 1000]);
+    const expected = [1.6 * 6 * fla, 1.6 * 6 * fla, 6 * fla, 6 * fla, fla, fla];
+    curve.amps.forEach((amps, i) => assertInDelta(amps, expected[i], 1e-12));
+    expect(curve.volts).toBe(460);
+    expect(lockedRotor).toMatchObject({ kind: 'locked-rotor', volts: 460, seconds: 5, elementId: 'M1' });
+    assertInDelta(lockedRotor.amps, 6 * fla, 1e-12);
+  });
+
+  it('motorStartingOf(§7.9 motor) draws LRA 789.46 A to the acceleration time and 1263.1 A asymmetrical', () => {
+    // REFERENCE §7.9: 100 hp 460 V, FLC 124 A (NEC Table 430.250, from memory), code G → LRA 789.46 A,
+    // 1.6 × LRA = 1263.1 A (common practice)
+    const motor = motorOf({ fullLoadAmps: 124, accelerationTime: 8 });
+    const { curve, lockedRotor } = motorStartingOf(motor, 460, {
+      lockedRotorAmps: lockedRotorAmpsFromCode('G', 100, 460),
+    });
+    assertInDelta(lockedRotor.amps, 789.46, 1e-5);
+    expect(lockedRotor.seconds).toBe(8);
+    assertInDelta(curve.amps[0], 1263.1, 1e-4);
+    assertInDelta(curve.amps[1], 1263.1, 1e-4);
+    assertInDelta(curve.amps[2], 789.46, 1e-5);
+    expect(curve.seconds[3]).toBe(8);
+    expect(curve.amps[4]).toBe(124);
+    assertInDelta(lockedRotor.amps / 124, 6.4, 1e-2); // "≈ 6.4 × FLC"
+    expect(curve.notes.some((note) => /nameplate/.test(note))).toBe(true);
+  });
+
+  it('motorStartingOf multiplies the running current by the service factor', () => {
+    const { curve } = motorStartingOf(motorOf({ fullLoadAmps: 124 }), 460, { serviceFactor: 1.15 });
+    assertInDelta(curve.amps[curve.amps.length - 1], 142.6, 1e-12);
+    assertInDelta(curve.amps[2], 6 * 124, 1e-12); // LRA stays on nameplate FLA
+  });
+
+  it('motorStartingOf ends the asymmetrical current at an acceleration time shorter than 0.1 s', () => {
+    const { curve } = motorStartingOf(motorOf({ fullLoadAmps: 10, accelerationTime: 0.05 }), 480);
+    expect(Array.from(curve.seconds)).toEqual([0.01, 0.05, 0.05, 0.05, 1000]);
+    expect(Array.from(curve.amps)).toEqual([96, 96, 60, 10, 10]);
+  });
+
+  it('motorStartingOf falls in current as time rises, for any motor (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1, max: 5000, noNaN: true }),
+        fc.double({ min: 1.5, max: 12, noNaN: true }),
+        fc.double({ min: 0.011, max: 60, noNaN: true }),
+        fc.double({ min: 1, max: 1.4, noNaN: true }),
+        (fullLoadAmps, lockedRotor, accelerationTime, serviceFactor) => {
+          const { curve } = motorStartingOf(motorOf({ fullLoadAmps, lockedRotor, accelerationTime }), 480, {
+            serviceFactor,
+          });
+          for (let i = 1; i < curve.amps.length; i++) {
+            if (!(curve.amps[i] <= curve.amps[i - 1]) || !(curve.seconds[i] >= curve.seconds[i - 1])) return false;
+          }
+          return [...curve.amps, ...curve.seconds].every(Number.isFinite);
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+
+  describe('bad input', () => {
+    it('motorStartingOf rejects a motor with no way to find its full-load current', () => {
+      const motor = { ...motorOf(), hp: undefined };
+      expect(() => motorStartingOf(motor, 460)).toThrow(
+        /^motors\.M1\.fullLoadAmps: expected a full-load current, or hp or rating to infer it, got nothing$/,
+      );
+    });
+
+    it('motorStartingOf rejects a voltage, service factor or acceleration time out of range', () => {
+      expect(() => motorStartingOf(motorOf(), 0)).toThrow(/^volts: expected a voltage in V greater than 0, got "0"$/);
+      expect(() => motorStartingOf(motorOf(), 460, { serviceFactor: 0.9 })).toThrow(
+        /^options\.serviceFactor: expected a service factor of at least 1, got "0\.9"$/,
+      );
+      expect(() => motorStartingOf({ ...motorOf(), accelerationTime: 0.005 }, 460)).toThrow(
+        /^motors\.M1\.accelerationTime: expected a time in s greater than 0\.01, got "0\.005"$/,
+      );
+    });
+
+    it('motorStartingOf rejects a locked-rotor current at or below the running current', () => {
+      expect(() =>
+        motorStartingOf(motorOf({ fullLoadAmps: 100, lockedRotor: 1.1 }), 460, { serviceFactor: 1.15 }),
+      ).toThrow(
+        /^motors\.M1\.lockedRotor: expected a locked-rotor current above the running current 115 A, got "110"$/,
+      );
+      expect(() => motorStartingOf(motorOf({ fullLoadAmps: 100 }), 460, { lockedRotorAmps: 90 })).toThrow(
+        /^options\.lockedRotorAmps: expected a locked-rotor current above the running current 100 A, got "90"$/,
+      );
+    });
+  });
+});
