@@ -55,10 +55,11 @@ export function formatProblem(problem: StudyProblem): string {
 
 /** Renders a zod path as the user reads it: `study.devices[2].characteristic.kind`. */
 export function formatPath(path: readonly PropertyKey[]): string {
-  return path.reduce<string>(
-    (text, key) => (typeof key === 'number' ? `${text}[${key}]` : `${text}.${String(key)}`),
-    'study',
-  );
+  return path.reduce<string>((text, key) => {
+    if (typeof key === 'number') return `${text}[${key}]`;
+    const name = String(key);
+    return /^[A-Za-z_$][\w$]*$/.test(name) ? `${text}.${name}` : `${text}[${JSON.stringify(name)}]`;
+  }, 'study');
 }
 
 function describeIssue(issue: z.core.$ZodIssue): StudyProblem {
@@ -79,6 +80,10 @@ function describeIssue(issue: z.core.$ZodIssue): StudyProblem {
       };
     case 'unrecognized_keys':
       return { path, message: `expected no field ${issue.keys.map((k) => `"${k}"`).join(', ')} here, got one` };
+    case 'invalid_key': {
+      const nested = issue.issues[0]?.message ?? 'expected a known key';
+      return { path, message: `${nested.replace(/, got .*$/, '')}, got ${quoteGot(input)}` };
+    }
     case 'invalid_union':
       return { path, message: `expected ${unionExpectation(issue)}, got ${quoteGot(input)}` };
     case 'too_small':

@@ -1,0 +1,141 @@
+import { CAUTION } from '../../engine/caution.ts';
+import { expectedGot, InputError } from '../../engine/errors.ts';
+import { transformerCalculation, type TransformerCalculationInput } from '../../engine/fault/index.ts';
+import { formatAmps, formatVolts, significant } from '../../engine/quantity/index.ts';
+import { formatWork } from '../../engine/work.ts';
+import { parseArgs, percentFlag, positiveFlag, quantityFlag, requiredFlag, flagText } from '../args.ts';
+import type { Command } from '../command.ts';
+
+const FLAGS = {
+  kva: 'value',
+  primary: 'value',
+  secondary: 'value',
+  impedance: 'value',
+  phases: 'value',
+  xr: 'value',
+  'source-mva': 'value',
+  'source-ka': 'value',
+  'source-xr': 'value',
+  json: 'switch',
+  help: 'switch',
+} as const;
+
+const HELP = `discern transformer — full-load current and secondary bolted fault of one transformer
+
+  --kva <rating>          rating; a plain number is kVA ("1500", "1.5 MVA")
+  --primary <voltage>     primary line-to-line voltage; a plain number is volts ("12470", "12.47 kV")
+  --secondary <voltage>   secondary line-to-line voltage ("480", "480 V")
+  --impedance <percent>   nameplate impedance ("5.75", "5.75 %")
+  --phases 1|3            single- or three-phase (default 3)
+  --xr <ratio>            transformer X/R (default: all reactance)
+  --source-mva <power>    available three-phase fault at the primary, MVA (default: infinite source)
+  --source-ka <current>   or the same as a current, kA
+  --source-xr <ratio>     source X/R (default: all reactance)
+  --json                  print the result and its work as JSON
+
+Example: discern transformer --kva 1500 --primary "12.47 kV" --secondary 480 --impedance 5.75 --xr 6 --source-mva 250 --source-xr 12
+`;
+
+/**
+ * `discern transformer`: the quick calculation of DESIGN §5 — full-load amps on both sides, the
+ * infinite-bus and finite-source secondary fault, its primary-reflected value, and the work.
+ *
+ * @example await transformerCommand.run(['--kva', '1500', '--primary', '12.47 kV', '--secondary', '480', '--impedance', '5.75'], io)
+ */
+export const transformerCommand: Command = {
+  verb: 'transformer',
+  summary: 'full-load amps and secondary fault current of one transformer, with the work',
+  help: HELP,
+  async run(args, io) {
+    const parsed = parseArgs(args, FLAGS);
+    if (parsed.flags.has('help')) {
+      io.stdout(HELP);
+      return 0;
+    }
+    if (parsed.positionals.length > 0)
+      throw new InputError('transformer', expectedGot('flags only', parsed.positionals[0]));
+    const input = inputOf(parsed);
+    const result = transformerCalculation(input);
+    if (parsed.flags.has('json')) {
+      io.stdout(`${JSON.stringify({ input, ...result }, null, 2)}\n`);
+      return 0;
+    }
+    const phases = input.phases === 1 ? 'single-phase' : 'three-phase';
+    const lines = [
+      `Transformer ${significant(input.rating / 1000, 6)} kVA ${phases}, ${formatVolts(input.primary)} to ${formatVolts(input.secondary)}, ${significant(input.impedance, 6)} %Z`,
+      `Source: ${input.source ? (input.source.va !== undefined ? `${significant(input.source.va / 1e6, 6)} MVA` : formatAmps(input.source.amps)) : 'infinite'}`,
+      '',
+      `Full-load current     primary ${formatAmps(result.fullLoadAmps.primary)}   secondary ${formatAmps(result.fullLoadAmps.secondary)}`,
+      `Secondary fault (bolted, symmetrical RMS)`,
+      `  infinite source     ${formatAmps(result.faultAmps.infiniteBus)}`,
+      `  with this source    ${formatAmps(result.faultAmps.secondary)}   X/R ${significant(result.xr, 4)}`,
+      `  seen at the primary ${formatAmps(result.faultAmps.reflectedToPrimary)}`,
+      '',
+      'Work',
+      formatWork(result.work),
+      '',
+      CAUTION,
+      '',
+    ];
+    io.stdout(lines.join('\n'));
+    return 0;
+  },
+};
+
+function inputOf(parsed: ReturnType<typeof parseArgs>): TransformerCalculationInput {
+  const rating = quantityFlag(
+    requiredFlag(parsed, 'kva', 'a transformer rating such as "1500" (kVA)'),
+    'kva',
+    'power',
+    'kVA',
+    'a rating greater than 0 such as "1500" or "1.5 MVA"',
+  );
+  const voltage = (name: 'primary' | 'secondary') =>
+    quantityFlag(
+      requiredFlag(parsed, name, `a ${name} voltage such as "480" or "12.47 kV"`),
+      name,
+      'voltage',
+      'V',
+      'a voltage greater than 0 such as "480" or "12.47 kV"',
+    );
+  const primary = voltage('primary');
+  const secondary = voltage('secondary');
+  const impedance = percentFlag(requiredFlag(parsed, 'impedance', 'a percentage such as "5.75"'), 'impedance');
+  const phasesText = flagText(parsed, 'phases') ?? '3';
+  if (phasesText !== '1' && phasesText !== '3') throw new InputError('--phases', expectedGot('1 or 3', phasesText));
+  const optional = (name: 'xr' | 'source-xr') => {
+    const text = flagText(parsed, name);
+    return text === undefined ? undefined : positiveFlag(text, name, 'an X/R ratio greater than 0');
+  };
+  const mva = flagText(parsed, 'source-mva');
+  const ka = flagText(parsed, 'source-ka');
+  if (mva !== undefined && ka !== undefined)
+    throw new InputError('--source-ka', expectedGot('either --source-mva or --source-ka', 'both'));
+  const source =
+    mva !== undefined
+      ? { va: quantityFlag(mva, 'source-mva', 'power', 'MVA', 'an available fault greater than 0 such as "250" (MVA)') }
+      : ka !== undefined
+        ? {
+            amps: quantityFlag(
+              ka,
+              'source-ka',
+              'current',
+              'kA',
+              'an available fault greater than 0 such as "11.6" (kA)',
+            ),
+          }
+        : undefined;
+  const sourceXr = optional('source-xr');
+  if (sourceXr !== undefined && !source)
+    throw new InputError('--source-xr', expectedGot('--source-mva or --source-ka with it', `--source-xr ${sourceXr}`));
+  return {
+    rating,
+    primary,
+    secondary,
+    impedance,
+    phases: phasesText === '1' ? 1 : 3,
+    xr: optional('xr'),
+    source,
+    sourceXr,
+  };
+}

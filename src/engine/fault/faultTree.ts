@@ -1,0 +1,141 @@
+import { cableImpedanceOf } from '../conductors/cableImpedance.ts';
+import type { Branch, Network } from '../network/index.ts';
+import type { WorkStep } from '../work.ts';
+import { addImpedance, invertImpedance, parallelImpedance, ZERO_IMPEDANCE, type Impedance } from './impedance.ts';
+import { motorImpedanceOf } from './motorImpedance.ts';
+import { reflectImpedance } from './reflect.ts';
+import { sourceImpedanceOf, type SourceLevel } from './sourceImpedance.ts';
+import { transformerImpedanceOf } from './transformerImpedance.ts';
+
+/** The source and element assumptions of one fault condition (REFERENCE §1.3). */
+export interface FaultCondition {
+  /** 'max': maximum source, motors in, 75 °C; 'min': minimum source, no motors, 90 °C. */
+  kind: 'max' | 'min';
+  /** The utility figure used; undefined for an infinite source. */
+  level?: SourceLevel;
+  /** Whether motors contribute (first cycle). */
+  motors: boolean;
+  /** Conductor temperature for cable resistance (°C). */
+  temperature: number;
+  /** Whether transformers flagged `impedanceTolerance` use 92.5 % of nameplate %Z. */
+  toleranced: boolean;
+}
+
+/**
+ * The tree reduced for one condition, every impedance in ohms at its own bus's nominal voltage.
+ * `toward` is the Thevenin impedance looking from a bus toward the source (the source path with
+ * every motor branch not below the bus in parallel); `below` the motors at and below a bus, as one
+ * branch (undefined where there are none); `behind` a branch's impedance as seen from its `from`
+ * bus with the branch's own subtree removed.
+ */
+export interface FaultTree {
+  order: string[];
+  toward: Map<string, Impedance>;
+  below: Map<string, Impedance | undefined>;
+  behind: Map<string, Impedance>;
+  /** Series impedance of each branch: cables in ohms, transformers in ohms at the secondary. */
+  branchZ: Map<string, Impedance>;
+  /** The steps that produce each element's own impedance (source, branch, motor), by id; written when read. */
+  steps: Map<string, { readonly steps: WorkStep[] }>;
+  /** Motor first-cycle impedance by motor id (when the condition counts motors). */
+  motorZ: Map<string, Impedance>;
+}
+
+/**
+ * Reduces the radial tree for one condition in two passes (a Thevenin reduction): leaves to source,
+ * gathering motor branches; then source to leaves, putting each bus's source path in parallel with
+ * the motor branches hanging elsewhere. Linear in the number of elements.
+ *
+ * @example faultTreeOf(network, { kind: 'max', level: study.source.max, motors: true, temperature: 75, toleranced: true }).toward.get('SWBD')
+ */
+export function faultTreeOf(network: Network, condition: FaultCondition): FaultTree {
+  const { study } = network;
+  const volts = (busId: string) => network.buses.get(busId)!.voltage;
+  const steps = new Map<string, { readonly steps: WorkStep[] }>();
+  const branchZ = new Map<string, Impedance>();
+  const motorZ = new Map<string, Impedance>();
+
+  // Element impedances for this condition.
+  const root = study.source.bus;
+  if (condition.level) {
+    const source = sourceImpedanceOf(condition.level, volts(root));
+    steps.set(study.source.id, source);
+    branchZ.set(study.source.id, source.z);
+  } else {
+    branchZ.set(study.source.id, ZERO_IMPEDANCE);
+    steps.set(study.source.id, {
+      steps: [{ label: 'infinite source', formula: 'Z_U = 0', substituted: 'Z_U = 0', value: 0, unit: 'Ω' }],
+    });
+  }
+  study.cables.forEach((cable, i) => {
+    const result = cableImpedanceOf(cable, { temperature: condition.temperature, path: `study.cables[${i}]` });
+    branchZ.set(cable.id, result.z);
+    steps.set(cable.id, result);
+  });
+  for (const t of study.transformers) {
+    const result = transformerImpedanceOf(t, { toleranced: condition.toleranced });
+    branchZ.set(t.id, result.z);
+    steps.set(t.id, result);
+  }
+  if (condition.motors)
+    for (const motor of study.motors) {
+      const result = motorImpedanceOf(motor, volts(motor.bus));
+      motorZ.set(motor.id, result.z);
+      steps.set(motor.id, result);
+    }
+
+  // Breadth-first order from the source bus.
+  const order = [root];
+  for (let i = 0; i < order.length; i++)
+    for (const branch of network.branchesFrom.get(order[i]) ?? []) order.push(branch.item.to);
+
+  // Leaves to source: the motors at and below each bus, as one branch seen from it.
+  const below = new Map<string, Impedance | undefined>();
+  const feeding = new Map<string, Impedance | undefined>();
+  const motorsAt = (busId: string) => (network.motorsOn.get(busId) ?? []).map((m) => motorZ.get(m.id));
+  for (let i = order.length - 1; i >= 0; i--) {
+    const bus = order[i];
+    const branches = network.branchesFrom.get(bus) ?? [];
+    for (const branch of branches) {
+      const child = below.get(branch.item.to);
+      feeding.set(
+        branch.item.id,
+        child && seenFromParent(branch, addImpedance(branchZ.get(branch.item.id)!, child), volts),
+      );
+    }
+    below.set(bus, parallelImpedance(...motorsAt(bus), ...branches.map((b) => feeding.get(b.item.id))));
+  }
+
+  // Source to leaves: everything but a branch's own subtree, seen from its `from` bus.
+  const toward = new Map<string, Impedance>([[root, branchZ.get(study.source.id)!]]);
+  const behind = new Map<string, Impedance>();
+  for (const bus of order) {
+    const up = toward.get(bus)!;
+    const branches = network.branchesFrom.get(bus) ?? [];
+    const all = admittanceOf(parallelImpedance(up, ...motorsAt(bus), ...branches.map((b) => feeding.get(b.item.id))));
+    for (const branch of branches) {
+      const own = admittanceOf(feeding.get(branch.item.id));
+      const rest = up.r === 0 && up.x === 0 ? ZERO_IMPEDANCE : invertImpedance({ r: all.r - own.r, x: all.x - own.x });
+      behind.set(branch.item.id, rest);
+      const to = branch.item.to;
+      const z = branchZ.get(branch.item.id)!;
+      toward.set(
+        to,
+        branch.type === 'transformer'
+          ? addImpedance(reflectImpedance(rest, volts(bus), volts(to)), z)
+          : addImpedance(rest, z),
+      );
+    }
+  }
+  return { order, toward, below, behind, branchZ, steps, motorZ };
+}
+
+/** A branch's series impedance plus what hangs below it, referred to the branch's `from` bus. */
+function seenFromParent(branch: Branch, z: Impedance, volts: (busId: string) => number): Impedance {
+  return branch.type === 'transformer' ? reflectImpedance(z, volts(branch.item.to), volts(branch.item.from)) : z;
+}
+
+/** Admittance of an impedance; zero for an open circuit (undefined). */
+function admittanceOf(z: Impedance | undefined): Impedance {
+  return z ? invertImpedance(z) : ZERO_IMPEDANCE;
+}

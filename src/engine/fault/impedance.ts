@@ -1,0 +1,87 @@
+/**
+ * A complex impedance `r + jx`, in ohms (or per unit, when a calculation says so). Radial series
+ * elements add as complex numbers, never as magnitudes (REFERENCE §1.3).
+ *
+ * @example const z: Impedance = { r: 0.0049755, x: 0.0206405 } // Ω at 480 V
+ */
+export interface Impedance {
+  /** Resistance (Ω or pu). */
+  r: number;
+  /** Reactance (Ω or pu). */
+  x: number;
+}
+
+/** The zero impedance: an infinite bus. */
+export const ZERO_IMPEDANCE: Impedance = Object.freeze({ r: 0, x: 0 });
+
+/** Series sum `Σr + jΣx`. @example addImpedance({ r: 1, x: 2 }, { r: 0.5, x: 1 }) // { r: 1.5, x: 3 } */
+export function addImpedance(...terms: Impedance[]): Impedance {
+  let r = 0;
+  let x = 0;
+  for (const term of terms) {
+    r += term.r;
+    x += term.x;
+  }
+  return { r, x };
+}
+
+/** Multiplies by a real factor, e.g. the square of a voltage ratio. @example scaleImpedance({ r: 1, x: 2 }, 0.5) */
+export function scaleImpedance(z: Impedance, factor: number): Impedance {
+  return { r: z.r * factor, x: z.x * factor };
+}
+
+/** `|z| = √(r² + x²)`. @example magnitudeOf({ r: 3, x: 4 }) // 5 */
+export function magnitudeOf(z: Impedance): number {
+  return Math.hypot(z.r, z.x);
+}
+
+/** X/R ratio `x / r`; `Infinity` when there is no resistance. @example xrOf({ r: 1, x: 6.3 }) // 6.3 */
+export function xrOf(z: Impedance): number {
+  return z.r === 0 ? Infinity : z.x / z.r;
+}
+
+/**
+ * Splits a magnitude by an X/R ratio: `r = |Z| / √(1 + (X/R)²)`, `x = r · X/R` (REFERENCE §1.3).
+ * With `xr` omitted (or `Infinity`) the impedance is all reactance.
+ *
+ * @example impedanceOfMagnitude(0.003, 15) // { r: 0.00019956, x: 0.00299336 }
+ */
+export function impedanceOfMagnitude(magnitude: number, xr?: number): Impedance {
+  if (xr === undefined || xr === Infinity) return { r: 0, x: magnitude };
+  const r = magnitude / Math.sqrt(1 + xr * xr);
+  return { r, x: r * xr };
+}
+
+/** Admittance `1 / z` as a complex number `g + jb` stored in `{ r: g, x: b }` (siemens). @example invertImpedance({ r: 0, x: 2 }) // { r: 0, x: -0.5 } */
+export function invertImpedance(z: Impedance): Impedance {
+  const d = z.r * z.r + z.x * z.x;
+  if (d === 0) return { r: Infinity, x: Infinity };
+  return { r: z.r / d, x: -z.x / d };
+}
+
+/**
+ * Parallel combination `1 / Σ(1/zᵢ)`. `undefined` terms are open circuits and are skipped; with no
+ * terms left the result is `undefined` (nothing connected). A zero impedance makes the result zero.
+ *
+ * @example parallelImpedance({ r: 0, x: 2 }, { r: 0, x: 2 }) // { r: 0, x: 1 }
+ */
+export function parallelImpedance(...terms: (Impedance | undefined)[]): Impedance | undefined {
+  let g = 0;
+  let b = 0;
+  let any = false;
+  for (const term of terms) {
+    if (!term) continue;
+    if (term.r === 0 && term.x === 0) return ZERO_IMPEDANCE;
+    const y = invertImpedance(term);
+    g += y.r;
+    b += y.x;
+    any = true;
+  }
+  return any ? invertImpedance({ r: g, x: b }) : undefined;
+}
+
+/** Renders `r + jx` for work steps, six significant figures. @example formatImpedance({ r: 0.00995121, x: 0.0626969 }) // "0.00995121 + j0.0626969" */
+export function formatImpedance(z: Impedance, digits = 6): string {
+  const part = (v: number) => String(Number(v.toPrecision(digits)));
+  return `${part(z.r)} ${z.x < 0 ? '−' : '+'} j${part(Math.abs(z.x))}`;
+}

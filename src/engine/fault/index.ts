@@ -1,0 +1,37 @@
+export { motorFullLoadAmps } from './motorFullLoad.ts';
+export {
+  addImpedance,
+  scaleImpedance,
+  magnitudeOf,
+  xrOf,
+  impedanceOfMagnitude,
+  invertImpedance,
+  parallelImpedance,
+  formatImpedance,
+  ZERO_IMPEDANCE,
+} from './impedance.ts';
+export type { Impedance } from './impedance.ts';
+export { sourceImpedanceOf, sourcePowerOf } from './sourceImpedance.ts';
+export type { SourceLevel } from './sourceImpedance.ts';
+export {
+  transformerImpedanceOf,
+  fullLoadAmpsOf,
+  effectivePerUnit,
+  IMPEDANCE_TOLERANCE,
+} from './transformerImpedance.ts';
+export type { TransformerData } from './transformerImpedance.ts';
+export { motorImpedanceOf, DEFAULT_MOTOR_XR } from './motorImpedance.ts';
+export { reflectAmps, reflectImpedance } from './reflect.ts';
+export { DELTA_WYE_TABLE, unbalancedLineCurrents, shiftFactorsOf, isGroundedSecondary } from './deltaWye.ts';
+export type { Connection, FaultType, UnbalancedCase, UnbalancedCurrents } from './deltaWye.ts';
+export { faultTreeOf } from './faultTree.ts';
+export type { FaultCondition, FaultTree } from './faultTree.ts';
+export { faultLevelsOf, MINIMUM_FAULT_TEMPERATURE } from './faultLevels.ts';
+export type { FaultLevel, BusFault, TransformerFault, FaultLevels } from './faultLevels.ts';
+export { transformerFaultOf } from './transformerFault.ts';
+export { transformerCalculation } from './transformerCalculation.ts';
+export type { TransformerCalculationInput, TransformerCalculation } from './transformerCalculation.ts';
+export { num, impedanceStep } from './workSteps.ts';
+export { stepsTo, faultSteps } from './faultWork.ts';
+export { withLazySteps, withLazyWork } from './workSteps.ts';
+export { asymmetryOf } from './asymmetry.ts';

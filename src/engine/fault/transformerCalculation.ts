@@ -1,0 +1,166 @@
+import type { Work, WorkStep } from '../work.ts';
+import { addImpedance, formatImpedance, impedanceOfMagnitude, magnitudeOf, xrOf } from './impedance.ts';
+import { reflectAmps } from './reflect.ts';
+import { fullLoadAmpsOf, IMPEDANCE_TOLERANCE } from './transformerImpedance.ts';
+import { impedanceStep, num } from './workSteps.ts';
+
+/** Inputs of the quick transformer calculation, SI units. */
+export interface TransformerCalculationInput {
+  /** Rating (VA). */
+  rating: number;
+  /** Primary and secondary line-to-line voltages (V). */
+  primary: number;
+  secondary: number;
+  /** Nameplate impedance (percent). */
+  impedance: number;
+  /** 1 or 3. @default 3 */
+  phases?: 1 | 3;
+  /** Transformer X/R; omit for all-reactance. */
+  xr?: number;
+  /** Available three-phase fault at the primary: power (VA) or current (A); omit for an infinite source. */
+  source?: { va: number; amps?: undefined } | { amps: number; va?: undefined };
+  /** Source X/R; omit for all-reactance. */
+  sourceXr?: number;
+  /** Use 92.5 % of nameplate %Z (common practice, maximum duty). @default false */
+  impedanceTolerance?: boolean;
+}
+
+/** Result of the quick transformer calculation; amps are three-phase (or single-phase) bolted, symmetrical. */
+export interface TransformerCalculation {
+  fullLoadAmps: { primary: number; secondary: number };
+  faultAmps: {
+    /** `FLA_sec / Z_pu` (A at the secondary). */
+    infiniteBus: number;
+    /** With the source impedance, or the infinite-bus value when no source is given (A at the secondary). */
+    secondary: number;
+    /** `secondary` at the primary voltage (A). */
+    reflectedToPrimary: number;
+  };
+  /** Per-unit impedances on the transformer base. */
+  perUnit: { source: number; transformer: number; total: number };
+  /** X/R at the secondary terminals; `Infinity` with no resistance. */
+  xr: number;
+  work: Work;
+}
+
+/**
+ * A transformer's full-load currents and secondary bolted fault, infinite or finite source, by the
+ * per-unit method on the transformer's own base (REFERENCE §1.1–1.3, §1.7). A single-phase unit fed
+ * line-to-line from a three-phase source sees the source through two phases (Z1 + Z2), so its source
+ * impedance is `2 · S_T / S_sc` (computed from §1.2's line-to-line relation).
+ *
+ * @example transformerCalculation({ rating: 1.5e6, primary: 12470, secondary: 480, impedance: 5.75, xr: 6,
+ *   source: { va: 250e6 }, sourceXr: 12 }).faultAmps.secondary // 28 421.1 A (REFERENCE §7.4)
+ */
+export function transformerCalculation(input: TransformerCalculationInput): TransformerCalculation {
+  const { rating, primary, secondary, impedance, phases = 3, xr, source, sourceXr, impedanceTolerance = false } = input;
+  const work: WorkStep[] = [];
+  const root = phases === 3 ? '1.7320508 × ' : '';
+  const fla = (side: string, volts: number): number => {
+    const value = fullLoadAmpsOf(rating, volts, phases);
+    work.push({
+      label: `${side} full-load current (${phases === 3 ? 'three' : 'single'}-phase)`,
+      formula: phases === 3 ? 'I_FL = S / (√3 · V)' : 'I_FL = S / V',
+      substituted: `I_FL = ${num(rating)} / (${root}${num(volts)})`,
+      value,
+      unit: 'A',
+      source: 'REFERENCE §1.1, textbook identity',
+    });
+    return value;
+  };
+  const secondaryFla = fla('secondary', secondary);
+  const primaryFla = fla('primary', primary);
+
+  const perUnit = (impedance / 100) * (impedanceTolerance ? IMPEDANCE_TOLERANCE : 1);
+  work.push({
+    label: 'transformer impedance, per unit on its own base',
+    formula: impedanceTolerance ? 'Z_pu = 0.925 · %Z / 100' : 'Z_pu = %Z / 100',
+    substituted: `Z_pu = ${impedanceTolerance ? '0.925 × ' : ''}${num(impedance)} / 100`,
+    value: perUnit,
+    unit: 'pu',
+    source: impedanceTolerance ? 'IEEE C57.12.00 −7.5 % tolerance (from memory), common practice' : 'nameplate',
+  });
+  const infiniteBus = secondaryFla / perUnit;
+  work.push({
+    label: 'secondary fault, infinite source',
+    formula: 'I_sc = I_FL,sec / Z_pu',
+    substituted: `I_sc = ${num(secondaryFla)} / ${num(perUnit)}`,
+    value: infiniteBus,
+    unit: 'A',
+    source: 'REFERENCE §1.2',
+  });
+
+  const zT = impedanceOfMagnitude(perUnit, xr);
+  let total = zT;
+  let sourcePu = 0;
+  if (source) {
+    const power = source.va ?? Math.sqrt(3) * primary * source.amps!;
+    if (source.amps !== undefined)
+      work.push({
+        label: 'source short-circuit power from its fault current',
+        formula: 'S_sc = √3 · V_pri · I_sc',
+        substituted: `S_sc = 1.7320508 × ${num(primary)} × ${num(source.amps)}`,
+        value: power,
+        unit: 'VA',
+        source: 'REFERENCE §1.3',
+      });
+    const factor = phases === 3 ? 1 : 2;
+    sourcePu = (factor * rating) / power;
+    const zU = impedanceOfMagnitude(sourcePu, sourceXr);
+    work.push(
+      impedanceStep(
+        'source impedance on the transformer base',
+        phases === 3 ? 'Z_U = S_T / S_sc' : 'Z_U = 2 · S_T / S_sc (line-to-line loop)',
+        `Z_U = ${factor === 2 ? '2 × ' : ''}${num(rating)} / ${num(power)}; ${sourceXr === undefined ? 'all reactance' : `X/R ${num(sourceXr)}`}`,
+        zU,
+        'pu',
+        'REFERENCE §1.3',
+      ),
+      impedanceStep(
+        'transformer impedance split by its X/R',
+        'R = Z / √(1 + (X/R)²), X = R · X/R',
+        `Z_T = ${num(perUnit)}; ${xr === undefined ? 'all reactance' : `X/R ${num(xr)}`}`,
+        zT,
+        'pu',
+        'REFERENCE §1.3',
+      ),
+    );
+    total = addImpedance(zU, zT);
+    work.push(
+      impedanceStep(
+        'total impedance to the secondary terminals',
+        'Z = ΣR + jΣX',
+        `Z = (${formatImpedance(zU)}) + (${formatImpedance(zT)})`,
+        total,
+        'pu',
+        'REFERENCE §1.3, phasor sum',
+      ),
+    );
+  }
+  const secondaryAmps = secondaryFla / magnitudeOf(total);
+  if (source)
+    work.push({
+      label: 'secondary fault, finite source',
+      formula: 'I_sc = I_FL,sec / |Z|',
+      substituted: `I_sc = ${num(secondaryFla)} / ${num(magnitudeOf(total))}`,
+      value: secondaryAmps,
+      unit: 'A',
+      source: 'REFERENCE §1.3',
+    });
+  const reflectedToPrimary = reflectAmps(secondaryAmps, secondary, primary);
+  work.push({
+    label: 'secondary fault reflected to the primary',
+    formula: 'I_pri = I_sec · V_sec / V_pri',
+    substituted: `I_pri = ${num(secondaryAmps)} × ${num(secondary)} / ${num(primary)}`,
+    value: reflectedToPrimary,
+    unit: 'A',
+    source: 'REFERENCE §1.7',
+  });
+  return {
+    fullLoadAmps: { primary: primaryFla, secondary: secondaryFla },
+    faultAmps: { infiniteBus, secondary: secondaryAmps, reflectedToPrimary },
+    perUnit: { source: sourcePu, transformer: perUnit, total: magnitudeOf(total) },
+    xr: xrOf(total),
+    work,
+  };
+}

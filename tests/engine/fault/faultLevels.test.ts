@@ -1,0 +1,166 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { faultLevelsOf, MINIMUM_FAULT_TEMPERATURE, motorFullLoadAmps } from '../../../src/engine/fault/index.ts';
+import { networkOf } from '../../../src/engine/network/index.ts';
+import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { assertInDelta } from '../../asserts.ts';
+import { case72Input, study } from './studies.ts';
+
+const levelsOf = (input: StudyInput) => faultLevelsOf(networkOf(study(input)));
+const demoText = readFileSync('demo/harrowmere-selective.json', 'utf8');
+
+describe('faultLevelsOf', () => {
+  it('has the expected defaults', () => {
+    // Minimum fault: conductors at operating temperature (common practice, REFERENCE §1.4); min source defaults to max.
+    expect(MINIMUM_FAULT_TEMPERATURE).toBe(90);
+    const levels = levelsOf(case72Input());
+    const lv = levels.buses.get('LV')!;
+    assertInDelta(lv.min.threePhase, lv.max.threePhase, 1e-12); // no cable, no motors, same source
+    expect(levels.diagnostics).toEqual([]);
+  });
+
+  it('750 kVA secondary fault is 14 916.9 A, X/R 5.174, REFERENCE §7.2 (computed)', () => {
+    const lv = levelsOf(case72Input()).buses.get('LV')!;
+    assertInDelta(lv.max.threePhase, 14916.9, 1e-5);
+    assertInDelta(lv.max.xr, 5.174, 1e-3);
+    assertInDelta(lv.max.lineToLine, 0.8660254 * 14916.9, 1e-5);
+    const at416 = lv.reflected.find((r) => r.volts === 4160)!;
+    assertInDelta(at416.maxAmps, 1721.18, 1e-5);
+  });
+
+  it('the panel after 100 ft of 2 × 500 kcmil is 13 052.5 A, X/R 4.148, REFERENCE §7.2 (computed)', () => {
+    const pnl = levelsOf(case72Input()).buses.get('PNL')!;
+    assertInDelta(pnl.max.threePhase, 13052.5, 1e-5);
+    assertInDelta(pnl.max.xr, 4.148, 1e-3);
+    assertInDelta(pnl.max.impedance.r, 0.0049755, 1e-4);
+    assertInDelta(pnl.max.impedance.x, 0.0206405, 1e-5);
+  });
+
+  it('utility alone at the 4.16 kV bus is 34 696.5 A, REFERENCE §7.2 (computed)', () => {
+    assertInDelta(levelsOf(case72Input()).buses.get('MV')!.max.threePhase, 34696.5, 1e-5);
+  });
+
+  it('minimum uses the weaker source and R at 90 °C, so it is lower', () => {
+    const input = case72Input();
+    input.source = {
+      kind: 'utility',
+      id: 'U',
+      bus: 'MV',
+      max: { available: '250 MVA', xr: 15 },
+      min: { available: '100 MVA', xr: 10 },
+    };
+    const pnl = levelsOf(input).buses.get('PNL')!;
+    expect(pnl.min.threePhase).toBeLessThan(pnl.max.threePhase);
+    expect(pnl.work.some((s) => /resistance at 90 °C/.test(s.label))).toBe(true);
+  });
+
+  it('motors add 4 × 451 A ≈ 1804 A first-cycle at the 750 kVA secondary, REFERENCE §7.2 (computed, ±3 % for phase angle)', () => {
+    const input = case72Input();
+    input.motors = [{ id: 'M', bus: 'LV', fullLoadAmps: 451 }];
+    const lv = levelsOf(input).buses.get('LV')!;
+    expect(Math.abs(lv.max.motorAmps - 1804) / 1804).toBeLessThan(0.03);
+    expect(lv.min.motorAmps).toBe(0);
+    assertInDelta(lv.min.threePhase, 14916.9, 1e-5);
+  });
+
+  it('the demo study: 28 421 A at the 1500 kVA secondary before motors, REFERENCE §7.4; motors add less than 4 × their FLA', () => {
+    const study = parseStudy(demoText);
+    const demo = faultLevelsOf(networkOf(study));
+    const swbd = demo.buses.get('SWBD')!;
+    const t1 = demo.transformers.get('T1')!;
+    assertInDelta(swbd.max.threePhase - swbd.max.motorAmps, 28421.1, 1e-5);
+    assertInDelta(t1.reflectedToPrimary, 1093.99, 1e-5);
+    // Every demo motor sits below SWBD behind cable, so the first-cycle addition is positive but below Σ 4 × FLA.
+    const terminalSum = study.motors.reduce((sum, m) => sum + 4 * motorFullLoadAmps(m, 480), 0);
+    expect(swbd.max.motorAmps).toBeGreaterThan(0);
+    expect(swbd.max.motorAmps).toBeLessThan(terminalSum);
+    // MV bus: utility alone 11 574.8 A (REFERENCE §7.4) plus the motors seen through T1; minimum is 150 MVA alone.
+    const mv = demo.buses.get('MV')!;
+    assertInDelta(mv.min.threePhase, (12470 / Math.sqrt(3)) * (150e6 / 12470 ** 2), 1e-9);
+    expect(mv.max.threePhase).toBeGreaterThan(11574.8);
+    assertInDelta(mv.max.threePhase - mv.max.motorAmps, 11574.8, 1e-5);
+  });
+
+  it('line-to-ground equals three-phase on grounded wye and is 0 below a delta-delta transformer', () => {
+    const input = case72Input();
+    const levels = levelsOf(input);
+    expect(levels.buses.get('PNL')!.max.lineToGround).toBe(levels.buses.get('PNL')!.max.threePhase);
+    input.transformers![0].connection = 'delta-delta';
+    const delta = levelsOf(input);
+    expect(delta.buses.get('LV')!.max.lineToGround).toBe(0);
+    expect(delta.buses.get('PNL')!.min.lineToGround).toBe(0);
+    expect(delta.buses.get('PNL')!.work.some((s) => /delta \(ungrounded\)/.test(s.label))).toBe(true);
+  });
+
+  it('an infinite source gives an unbounded fault at its bus and says so', () => {
+    const input = case72Input();
+    input.source = { kind: 'infinite', id: 'U', bus: 'MV' };
+    const levels = levelsOf(input);
+    expect(levels.buses.get('MV')!.max.threePhase).toBe(Infinity);
+    assertInDelta(levels.buses.get('LV')!.max.threePhase, 15688.9, 1e-5); // infinite bus, REFERENCE §7.2
+    expect(levels.diagnostics[0]).toMatch(/^U: infinite source/);
+  });
+
+  it('the work ends at the number it reports', () => {
+    const pnl = levelsOf(case72Input()).buses.get('PNL')!;
+    const step = pnl.work.find((s) => s.label === 'maximum: three-phase bolted fault')!;
+    expect(step.value).toBe(pnl.max.threePhase);
+    expect(step.substituted).toMatch(/^I_3φ = 480 \/ \(1\.7320508 × 0\.021231/);
+  });
+
+  it('fault current never rises as cable length, %Z or source weakening is added (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1, max: 2000, noNaN: true }),
+        fc.double({ min: 0, max: 500, noNaN: true }),
+        fc.double({ min: 1, max: 12, noNaN: true }),
+        fc.double({ min: 0, max: 4, noNaN: true }),
+        fc.double({ min: 20, max: 1000, noNaN: true }),
+        fc.double({ min: 0.05, max: 1, noNaN: true }),
+        (feet, extraFeet, pct, extraPct, mva, weaken) => {
+          const make = (l: number, z: number, s: number) => {
+            const input = case72Input();
+            input.source = { kind: 'utility', id: 'U', bus: 'MV', max: { available: s, xr: 15 } };
+            input.transformers![0].impedance = z;
+            input.cables![0].length = l;
+            input.motors = [{ id: 'M', bus: 'PNL', fullLoadAmps: 200 }];
+            return levelsOf(input).buses.get('PNL')!.max.threePhase;
+          };
+          const base = make(feet, pct, mva);
+          return (
+            make(feet + extraFeet, pct, mva) <= base * (1 + 1e-12) &&
+            make(feet, pct + extraPct, mva) <= base * (1 + 1e-12) &&
+            make(feet, pct, mva * weaken) <= base * (1 + 1e-12)
+          );
+        },
+      ),
+      { numRuns: 100 },
+    );
+  });
+
+  it('results do not depend on the order of buses, cables and motors (property)', () => {
+    const raw = JSON.parse(demoText) as StudyInput;
+    const reference = faultLevelsOf(networkOf(parseStudy(raw)));
+    fc.assert(
+      fc.property(
+        fc.shuffledSubarray(raw.buses, { minLength: raw.buses.length }),
+        fc.shuffledSubarray(raw.cables!, { minLength: raw.cables!.length }),
+        fc.shuffledSubarray(raw.motors!, { minLength: raw.motors!.length }),
+        fc.shuffledSubarray(raw.transformers!, { minLength: raw.transformers!.length }),
+        (buses, cables, motors, transformers) => {
+          const shuffled = faultLevelsOf(networkOf(parseStudy({ ...raw, buses, cables, motors, transformers })));
+          for (const [id, bus] of reference.buses) {
+            const other = shuffled.buses.get(id)!;
+            assertInDelta(other.max.threePhase, bus.max.threePhase, 1e-9);
+            assertInDelta(other.min.threePhase, bus.min.threePhase, 1e-9);
+            assertInDelta(other.max.motorAmps, bus.max.motorAmps, 1e-6);
+          }
+          for (const [id, t] of reference.transformers)
+            assertInDelta(shuffled.transformers.get(id)!.reflectedToPrimary, t.reflectedToPrimary, 1e-9);
+        },
+      ),
+      { numRuns: 50 },
+    );
+  });
+});

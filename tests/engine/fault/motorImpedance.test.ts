@@ -1,0 +1,30 @@
+import { describe, expect, it } from 'vitest';
+import { DEFAULT_MOTOR_XR, motorImpedanceOf } from '../../../src/engine/fault/index.ts';
+import { assertInDelta } from '../../asserts.ts';
+
+const base = { id: 'M', hp: undefined, rating: undefined, fullLoadAmps: undefined, contribution: 4, xr: undefined };
+
+describe('motorImpedanceOf', () => {
+  it('has the expected defaults', () => {
+    expect(DEFAULT_MOTOR_XR).toBe(6); // common practice for LV groups (REFERENCE §1.5: a few to ~10)
+    const { z } = motorImpedanceOf({ ...base, fullLoadAmps: 451 }, 480);
+    assertInDelta(z.x / z.r, 6, 1e-12);
+  });
+
+  it('4 × 451 A of motor load contributes 1804 A at 480 V, REFERENCE §7.2 (computed)', () => {
+    const { z, amps } = motorImpedanceOf({ ...base, fullLoadAmps: 451 }, 480);
+    assertInDelta(amps, 1804, 1e-12);
+    assertInDelta(480 / (Math.sqrt(3) * Math.hypot(z.r, z.x)), 1804, 1e-12);
+  });
+
+  it('a 150 hp motor at 480 V: FLA from 1 hp ≈ 1 kVA (common practice), 4 × FLA', () => {
+    const { amps, steps } = motorImpedanceOf({ ...base, hp: 150 }, 480);
+    assertInDelta(amps, (4 * 150e3) / (Math.sqrt(3) * 480), 1e-12);
+    expect(steps[0].label).toMatch(/common practice/);
+  });
+
+  it('uses the motor X/R when given', () => {
+    const { z } = motorImpedanceOf({ ...base, fullLoadAmps: 100, xr: 10 }, 480);
+    assertInDelta(z.x / z.r, 10, 1e-12);
+  });
+});

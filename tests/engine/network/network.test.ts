@@ -1,0 +1,99 @@
+import { describe, expect, it } from 'vitest';
+import {
+  locationBusOf,
+  networkOf,
+  pathTo,
+  seriesPairs,
+  transformersBetween,
+  upstreamDeviceOf,
+} from '../../../src/engine/network/index.ts';
+import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+
+/** The Harrowmere network (invented, DESIGN §8), kept here so the network tests do not move with the demo files. */
+const demo: StudyInput = {
+  discern: 1,
+  name: 'Harrowmere network',
+  source: { kind: 'utility', id: 'UTIL', bus: 'MV', max: { available: '250 MVA', xr: 12 } },
+  buses: [
+    { id: 'MV', voltage: '12.47 kV' },
+    { id: 'SWBD', voltage: 480 },
+    { id: 'MCC', voltage: 480 },
+    { id: 'DOCK', voltage: 480 },
+    { id: 'OFC-P', voltage: 480 },
+    { id: 'OFC', voltage: 208 },
+  ],
+  transformers: [
+    { id: 'T1', from: 'MV', to: 'SWBD', rating: 1500, primary: '12.47 kV', secondary: 480, impedance: 5.75, xr: 6 },
+    { id: 'T2', from: 'OFC-P', to: 'OFC', rating: 112.5, primary: 480, secondary: 208, impedance: 3.5, xr: 2 },
+  ],
+  cables: [
+    { id: 'C-MCC', from: 'SWBD', to: 'MCC', size: '500 kcmil', sets: 2, length: 100 },
+    { id: 'C-DOCK', from: 'SWBD', to: 'DOCK', size: '500 kcmil', length: 150 },
+    { id: 'C-OFC', from: 'SWBD', to: 'OFC-P', size: '1/0', length: 60 },
+  ],
+  motors: [
+    { id: 'M-COMP1', bus: 'MCC', hp: 150 },
+    { id: 'M-COMP2', bus: 'MCC', hp: 150 },
+  ],
+};
+
+const network = networkOf(parseStudy(demo));
+
+describe('networkOf', () => {
+  it('has the expected defaults', () => {
+    // Every bus indexed; the source bus has no feeder; branches keep study order.
+    expect([...network.buses.keys()]).toEqual(['MV', 'SWBD', 'MCC', 'DOCK', 'OFC-P', 'OFC']);
+    expect(network.feederOf.has('MV')).toBe(false);
+    expect(network.branchesFrom.get('SWBD')!.map((b) => b.item.id)).toEqual(['C-MCC', 'C-DOCK', 'C-OFC']);
+    expect(network.motorsOn.get('MCC')!.map((m) => m.id)).toEqual(['M-COMP1', 'M-COMP2']);
+  });
+
+  it('pathTo walks from the source bus down to a motor, alternating buses and branches', () => {
+    expect(pathTo(network, 'M-COMP1')).toEqual(['MV', 'T1', 'SWBD', 'C-MCC', 'MCC', 'M-COMP1']);
+    expect(pathTo(network, 'OFC')).toEqual(['MV', 'T1', 'SWBD', 'C-OFC', 'OFC-P', 'T2', 'OFC']);
+    expect(pathTo(network, 'MV')).toEqual(['MV']);
+    expect(pathTo(network, 'T2')).toEqual(['MV', 'T1', 'SWBD', 'C-OFC', 'OFC-P', 'T2']);
+  });
+
+  it('pathTo refuses an unknown element', () => {
+    expect(() => pathTo(network, 'NOPE')).toThrow(/^no element "NOPE" in the network$/);
+  });
+
+  it('transformersBetween lists the transformers crossed, in order, either way', () => {
+    expect(transformersBetween(network, 'OFC', 'MV').map((t) => t.id)).toEqual(['T2', 'T1']);
+    expect(transformersBetween(network, 'MV', 'OFC').map((t) => t.id)).toEqual(['T1', 'T2']);
+    expect(transformersBetween(network, 'MCC', 'DOCK')).toEqual([]);
+    expect(transformersBetween(network, 'MCC', 'OFC').map((t) => t.id)).toEqual(['T2']);
+  });
+});
+
+describe('series pairs', () => {
+  const devices = [
+    { id: 'R-MAIN', feeds: 'T1' },
+    { id: 'B-MAIN', feeds: 'SWBD' },
+    { id: 'B-MCC', feeds: 'C-MCC' },
+    { id: 'B-OFC', feeds: 'C-OFC' },
+    { id: 'B-OFC2', feeds: 'T2' },
+    { id: 'OL-1', feeds: 'M-COMP1' },
+  ];
+  const fake = {
+    ...network,
+    study: { ...network.study, devices: devices as never },
+    deviceFeeding: new Map(devices.map((d) => [d.feeds, d as never])),
+    devices: new Map(devices.map((d) => [d.id, d as never])),
+  };
+
+  it('seriesPairs pairs each device with the nearest device above it', () => {
+    const pairs = seriesPairs(fake).map(
+      (p) => `${(p.upstream as { id: string }).id}>${(p.downstream as { id: string }).id}`,
+    );
+    expect(pairs).toEqual(['R-MAIN>B-MAIN', 'B-MAIN>B-MCC', 'B-MAIN>B-OFC', 'B-OFC>B-OFC2', 'B-MCC>OL-1']);
+  });
+
+  it('upstreamDeviceOf is undefined at the top, and locationBusOf is where the device sits', () => {
+    expect(upstreamDeviceOf(fake, devices[0] as never)).toBeUndefined();
+    expect(locationBusOf(fake, devices[0] as never).id).toBe('MV');
+    expect(locationBusOf(fake, devices[1] as never).id).toBe('SWBD');
+    expect(locationBusOf(fake, devices[5] as never).id).toBe('MCC');
+  });
+});
