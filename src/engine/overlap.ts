@@ -47,6 +47,11 @@ export interface OverlapOptions {
    * @default 0.1
    */
   instantaneousRegion?: number;
+  /**
+   * Times beyond this (s) count as never: a TCC sheet ends at about 1000 s, and an inverse curve's
+   * thousands of seconds just above pickup prove nothing about coordination. @default 1000
+   */
+  horizon?: number;
   /** Log-grid density on each smooth segment. @default 24 */
   samplesPerDecade?: number;
   /** Relative current tolerance of every interval edge. @default 1e-6 */
@@ -77,12 +82,13 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     thinMargin = 0.1,
     halfCycle = HALF_CYCLE_SECONDS,
     instantaneousRegion = 0.1,
+    horizon = 1000,
     samplesPerDecade = 24,
     tolerance = 1e-6,
   } = options;
   if (!(fromAmps > 0) || !(toAmps > fromAmps)) return [];
-  const upMin = up.minTime;
-  const downMax = down.maxTime;
+  const upMin = (amps: number) => beyond(up.minTime(amps), horizon);
+  const downMax = (amps: number) => beyond(down.maxTime(amps), horizon);
   const limitingFrom = Math.min(up.currentLimitingFrom, down.currentLimitingFrom);
 
   const classify = (amps: number): number => {
@@ -208,6 +214,11 @@ function withRefinedMinima(grid: Float64Array, score: (amps: number) => number):
   if (extra.length === 0) return grid;
   const merged = Float64Array.from([...grid, ...extra]);
   return merged.sort();
+}
+
+/** A time past the horizon counts as never. */
+function beyond(seconds: number, horizon: number): number {
+  return seconds > horizon ? Infinity : seconds;
 }
 
 /** The worse of two points: the smaller time ratio (ties broken by the smaller margin). */

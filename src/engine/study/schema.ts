@@ -189,7 +189,10 @@ export function createStudySchema(frequency = 60) {
         .default(1000)
         .meta({ description: 'times beyond this count as never (the top of the sheet), s' }),
       margins: z
-        .record(z.string().regex(PAIR_KIND, 'expected a pair kind such as "relay/fuse"'), z.number().nonnegative().max(5))
+        .record(
+          z.string().regex(PAIR_KIND, 'expected a pair kind such as "relay/fuse"'),
+          z.number().nonnegative().max(5),
+        )
         .default({})
         .meta({ description: 'required margin in seconds by pair kind, e.g. {"relay/relay": 0.3}' }),
       fuseRatio: z.number().positive().max(1).default(0.75).meta({

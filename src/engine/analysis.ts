@@ -1,0 +1,71 @@
+import { bandOf, type Band } from './band.ts';
+import { cableFindings } from './checks/cableProtection.ts';
+import type { CheckContext } from './checks/context.ts';
+import { checkPair, type PairCheck } from './checks/coordination.ts';
+import type { Finding, Severity } from './checks/finding.ts';
+import { motorFindings } from './checks/motorStarting.ts';
+import { nec450Findings } from './checks/nec450.ts';
+import { transformerFindings } from './checks/transformerProtection.ts';
+import { faultLevelsOf, type FaultLevels } from './fault/index.ts';
+import { locationBusOf, networkOf, seriesPairs, type Network } from './network/index.ts';
+import type { Study } from './study/index.ts';
+
+/** Everything the checks found for one study (DESIGN §2: the data the plots and reports render). */
+export interface Analysis {
+  study: Study;
+  network: Network;
+  faults: FaultLevels;
+  /** Each device's band at its own voltage. */
+  bands: Map<string, Band>;
+  /** Every series pair, with its classified current intervals. */
+  pairs: PairCheck[];
+  /** Findings in the order: pairs (top down), transformers, code limits, cables, motors, settings. */
+  findings: Finding[];
+  /** How many findings of each severity. */
+  counts: Record<Severity, number>;
+}
+
+/**
+ * Runs every check on a study that `readStudy` accepted: fault levels at every bus, each device's
+ * band, every series pair (DESIGN §4), transformer through-fault and inrush protection, NEC 450.3
+ * limits, cable short-circuit protection and motor starting. Pure: the result depends only on `study`.
+ *
+ * @example const { findings } = analyseStudy(parseStudy(text))
+ */
+export function analyseStudy(study: Study): Analysis {
+  const network = networkOf(study);
+  const faults = faultLevelsOf(network);
+  const bands = new Map(study.devices.map((device) => [device.id, bandOf(device.characteristic)]));
+  const context: CheckContext = { network, faults, bands };
+  const findings: Finding[] = [];
+
+  const pairs: PairCheck[] = [];
+  for (const pair of seriesPairs(network)) {
+    const { check, findings: pairFindings } = checkPair(context, pair, study.coordination);
+    pairs.push(check);
+    findings.push(...pairFindings);
+  }
+  for (const transformer of study.transformers)
+    findings.push(...transformerFindings(context, transformer, study.coordination.horizon));
+  for (const transformer of study.transformers)
+    findings.push(...nec450Findings(context, transformer, study.coordination.edition));
+  for (const cable of study.cables) findings.push(...cableFindings(context, cable, study.coordination.horizon));
+  for (const motor of study.motors) findings.push(...motorFindings(context, motor));
+  for (const device of study.devices) {
+    bands.get(device.id)!.diagnostics.forEach((message, index) =>
+      findings.push({
+        id: `setting:${device.id}:${index}`,
+        kind: 'setting',
+        severity: 'info',
+        title: `${device.name ?? device.id}: setting note`,
+        subjects: [device.id],
+        explanation: message,
+        referenceVolts: locationBusOf(network, device).voltage,
+      }),
+    );
+  }
+
+  const counts: Record<Severity, number> = { ok: 0, info: 0, warning: 0, fail: 0 };
+  for (const finding of findings) counts[finding.severity]++;
+  return { study, network, faults, bands, pairs, findings, counts };
+}

@@ -1,0 +1,93 @@
+import { scaleBand } from '../band.ts';
+import { locationBusOf, pathTo } from '../network/index.ts';
+import { findOverlaps } from '../overlap.ts';
+import { formatAmps, formatSeconds } from '../quantity/index.ts';
+import type { Cable, Device } from '../study/index.ts';
+import { conductorAreaCmil } from '../conductors/index.ts';
+import { cableWithstandOf } from '../withstand/index.ts';
+import { capitalise, describeRange, nameOf, rangeOf, type CheckContext } from './context.ts';
+import type { Finding } from './finding.ts';
+import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
+
+/**
+ * Checks that the device nearest above a cable clears before the cable's ICEA P-32-382 short-circuit
+ * limit (REFERENCE §5.6), from the current where the limit is 10 s up to the maximum fault at the
+ * cable's supply end (the largest current the cable can carry into a fault).
+ *
+ * @example cableFindings(context, cable)
+ */
+export function cableFindings(context: CheckContext, cable: Cable, horizon = 1000): Finding[] {
+  const { network, faults, bands } = context;
+  const device = protectingDevice(context, cable.id);
+  const name = cable.name ?? cable.id;
+  const volts = network.buses.get(cable.from)!.voltage;
+  if (!device) return [];
+  const deviceVolts = locationBusOf(network, device).voltage;
+  const curve = cableWithstandOf(cable, { volts, conductorAreaCmil: conductorAreaCmil(cable.size) });
+  const band = bands.get(device.id)!;
+  const withstand = withstandBandOf(curve, 1);
+  const toAmps = faults.buses.get(cable.from)!.max.threePhase;
+  const from = withstand.minAmps;
+  const deviceName = nameOf(device);
+  if (!(toAmps > from)) {
+    return [
+      {
+        id: `cable-withstand:${cable.id}`,
+        kind: 'cable-withstand',
+        severity: 'ok',
+        title: `${name} can carry any fault here for 10 s`,
+        subjects: [device.id, cable.id],
+        explanation: `The largest fault at ${cable.from}, ${formatAmps(toAmps, 3)}, is below the current ${name} withstands for 10 s (${formatAmps(from, 3)}).`,
+        basis: curve.notes.join(' '),
+        referenceVolts: volts,
+      },
+    ];
+  }
+  const scaled = scaleBand(band, deviceVolts / volts);
+  const intervals = findOverlaps(withstand, scaled, { fromAmps: from, toAmps, horizon, ...PROTECTION_FINDER });
+  const failures = intervals.filter((interval) => interval.status === 'overlap');
+  const range = rangeOf(from, toAmps, volts, []);
+  if (failures.length === 0) {
+    const least = intervals.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
+    return [
+      {
+        id: `cable-withstand:${cable.id}`,
+        kind: 'cable-withstand',
+        severity: 'ok',
+        title: `${deviceName} protects ${name}`,
+        subjects: [device.id, cable.id],
+        range,
+        worst: least.worst,
+        explanation: `${capitalise(describeRange(range))} ${deviceName} clears before ${name} reaches its short-circuit limit (${curve.label}); closest at ${formatAmps(least.worst.amps, 3)}: ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
+        basis: curve.notes.join(' '),
+        referenceVolts: volts,
+      },
+    ];
+  }
+  return failures.map((interval, index) => {
+    const failed = rangeOf(interval.fromAmps, interval.toAmps, volts, []);
+    return {
+      id: `cable-withstand:${cable.id}:${index}`,
+      kind: 'cable-withstand',
+      severity: 'fail',
+      title: `${deviceName} does not protect ${name}`,
+      subjects: [device.id, cable.id],
+      range: failed,
+      worst: interval.worst,
+      explanation: `${capitalise(describeRange(failed))} ${name} reaches its short-circuit limit after ${formatSeconds(interval.worst.upTime)}, but ${deviceName} may take ${formatSeconds(interval.worst.downTime)} to clear (${curve.label}).`,
+      suggestion: `Use a faster device (lower instantaneous or short-time pickup) or a larger conductor.`,
+      basis: curve.notes.join(' '),
+      referenceVolts: volts,
+    };
+  });
+}
+
+/** The device feeding the element, or the nearest one above it on the way to the source. */
+export function protectingDevice(context: CheckContext, elementId: string): Device | undefined {
+  const path = pathTo(context.network, elementId);
+  for (let i = path.length - 1; i >= 0; i--) {
+    const device = context.network.deviceFeeding.get(path[i]);
+    if (device) return device;
+  }
+  return undefined;
+}

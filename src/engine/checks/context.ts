@@ -1,0 +1,71 @@
+import type { Band } from '../band.ts';
+import type { FaultLevels } from '../fault/index.ts';
+import type { Network } from '../network/index.ts';
+import type { Device } from '../study/index.ts';
+import { formatAmps, formatVolts } from '../quantity/index.ts';
+import type { CurrentRange } from './finding.ts';
+
+/** What every check reads: the tree, its fault levels and each device's band (at its own voltage). */
+export interface CheckContext {
+  network: Network;
+  faults: FaultLevels;
+  bands: Map<string, Band>;
+}
+
+/** A device's name for sentences: its name, else its id. */
+export function nameOf(device: Device): string {
+  return device.name ?? device.id;
+}
+
+/**
+ * A current interval on the reference base, with the same interval at each other voltage given
+ * (a current I at V_ref is I·V_ref/V at voltage V).
+ */
+export function rangeOf(fromAmps: number, toAmps: number, referenceVolts: number, voltages: number[]): CurrentRange {
+  const distinct = [...new Set([referenceVolts, ...voltages])];
+  return {
+    fromAmps,
+    toAmps,
+    atVoltages: distinct.map((volts) => ({
+      volts,
+      fromAmps: (fromAmps * referenceVolts) / volts,
+      toAmps: (toAmps * referenceVolts) / volts,
+    })),
+  };
+}
+
+/** "between 9.8 kA and 14.9 kA at 480 V (340 A and 517 A at 12.47 kV)" */
+export function describeRange(range: CurrentRange): string {
+  const [first, ...others] = range.atVoltages;
+  const text = (r: { volts: number; fromAmps: number; toAmps: number }) =>
+    `${formatAmps(r.fromAmps, 3)} and ${formatAmps(r.toAmps, 3)} at ${formatVolts(r.volts)}`;
+  return `between ${text(first)}${others.length > 0 ? ` (${others.map(text).join('; ')})` : ''}`;
+}
+
+/**
+ * The lowest current at which a band's `maxTime` is at most `horizon` (the device is sure to clear
+ * within the sheet), found by bisection from its lowest operating current; `Infinity` if it never
+ * surely clears below `limit`.
+ */
+export function surelyClearsFrom(band: Band, limit: number, horizon = Infinity): number {
+  const clears = (amps: number) => band.maxTime(amps) <= horizon;
+  let lo = band.minAmps;
+  if (clears(lo)) return lo;
+  let hi = lo * 2;
+  while (!clears(hi)) {
+    if (hi > limit) return Infinity;
+    lo = hi;
+    hi *= 2;
+  }
+  for (let i = 0; i < 60 && hi - lo > 1e-9 * hi; i++) {
+    const mid = Math.sqrt(lo * hi);
+    if (!clears(mid)) lo = mid;
+    else hi = mid;
+  }
+  return hi;
+}
+
+/** Starts a sentence with a capital letter. */
+export function capitalise(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}

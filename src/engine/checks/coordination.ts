@@ -1,0 +1,194 @@
+import { scaleBand } from '../band.ts';
+import { locationBusOf, transformersBetween } from '../network/index.ts';
+import { findOverlaps, type OverlapInterval } from '../overlap.ts';
+import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
+import type { CoordinationSettings, Device } from '../study/index.ts';
+import { capitalise, describeRange, nameOf, rangeOf, type CheckContext } from './context.ts';
+import type { Finding, Severity } from './finding.ts';
+import { marginRuleOf, type MarginRule } from './margins.ts';
+
+/** Which fault a pair case models. */
+export type PairFault = 'three-phase' | 'line-to-line';
+
+/** One fault case of a pair, on the downstream device's voltage base. */
+export interface PairCase {
+  fault: PairFault;
+  /** Voltage base of the intervals: the downstream device's own voltage. */
+  referenceVolts: number;
+  /** Upstream current per downstream current for this fault (1.155 for a secondary L-L fault across Δ–Y). */
+  upstreamShift: number;
+  intervals: OverlapInterval[];
+}
+
+/** The full result of checking one series pair. */
+export interface PairCheck {
+  upstream: string;
+  downstream: string;
+  kind: string;
+  rule: MarginRule;
+  cases: PairCase[];
+}
+
+const SEVERITY: Record<OverlapInterval['status'], Severity> = {
+  selective: 'ok',
+  'thin margin': 'warning',
+  overlap: 'fail',
+  'not provable from curves': 'warning',
+};
+
+/**
+ * Checks one upstream/downstream pair over the current range it can see (DESIGN §4): from the lowest
+ * current either device can operate up to the maximum fault at the downstream device's location, on
+ * the downstream device's voltage base. Across a Δ–Y transformer it adds the secondary line-to-line
+ * case, in which the primary device sees 1/0.866 = 1.155 times the secondary devices' per-unit current
+ * (REFERENCE §1.8 item 1).
+ *
+ * @example checkPair(context, { upstream: main, downstream: feeder }, study.coordination)
+ */
+export function checkPair(
+  context: CheckContext,
+  pair: { upstream: Device; downstream: Device },
+  settings: CoordinationSettings,
+): { check: PairCheck; findings: Finding[] } {
+  const { network, faults, bands } = context;
+  const { upstream, downstream } = pair;
+  const upBus = locationBusOf(network, upstream);
+  const downBus = locationBusOf(network, downstream);
+  const referenceVolts = downBus.voltage;
+  const rule = marginRuleOf(upstream.characteristic.kind, downstream.characteristic.kind, settings, upstream.margin);
+  const kind = `${upstream.characteristic.kind}/${downstream.characteristic.kind}`;
+  const upBand = scaleBand(bands.get(upstream.id)!, upBus.voltage / referenceVolts);
+  const downBand = bands.get(downstream.id)!;
+  const fault = faults.buses.get(downBus.id)!.max;
+
+  const deltaWye = transformersBetween(network, upBus.id, downBus.id).some((t) => t.connection === 'delta-wye');
+  const scenarios: { fault: PairFault; shift: number; toAmps: number }[] = [
+    { fault: 'three-phase', shift: 1, toAmps: fault.threePhase },
+  ];
+  if (deltaWye) scenarios.push({ fault: 'line-to-line', shift: 1 / 0.866, toAmps: fault.lineToLine });
+
+  const cases: PairCase[] = scenarios.map(({ fault: name, shift, toAmps }) => ({
+    fault: name,
+    referenceVolts,
+    upstreamShift: shift,
+    intervals: findOverlaps(scaleBand(upBand, 1 / shift), downBand, {
+      toAmps,
+      margin: rule.margin,
+      timeRatio: rule.timeRatio,
+      thinMargin: settings.thinMargin,
+      halfCycle: settings.halfCycle,
+      horizon: settings.horizon,
+    }),
+  }));
+
+  const check: PairCheck = { upstream: upstream.id, downstream: downstream.id, kind, rule, cases };
+  return { check, findings: findingsOf(check, upstream, downstream, [upBus.voltage, referenceVolts]) };
+}
+
+/** One finding per interval that is not selective, or one "selective" finding for a clean pair. */
+function findingsOf(check: PairCheck, upstream: Device, downstream: Device, voltages: number[]): Finding[] {
+  const findings: Finding[] = [];
+  const up = nameOf(upstream);
+  const down = nameOf(downstream);
+  for (const pairCase of check.cases) {
+    const faultText = pairCase.fault === 'line-to-line' ? ' for a secondary line-to-line fault' : '';
+    pairCase.intervals.forEach((interval, index) => {
+      if (interval.status === 'selective' || isSliver(interval)) return;
+      const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages);
+      const { worst } = interval;
+      findings.push({
+        id: `coordination:${check.upstream}/${check.downstream}:${pairCase.fault}:${index}`,
+        kind: 'coordination',
+        severity: SEVERITY[interval.status],
+        status: interval.status,
+        title: `${up} over ${down}: ${interval.status}${faultText}`,
+        subjects: [check.upstream, check.downstream],
+        range,
+        worst,
+        explanation: explain(interval, up, down, describeRange(range), check.rule, faultText),
+        suggestion: suggest(interval, up, down, check.rule),
+        basis: check.rule.basis,
+        referenceVolts: pairCase.referenceVolts,
+      });
+    });
+  }
+  if (findings.length === 0) {
+    const all = check.cases.flatMap((c) => c.intervals);
+    const first = check.cases[0];
+    if (all.length > 0) {
+      const least = all.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
+      const range = rangeOf(
+        all[0].fromAmps,
+        first.intervals[first.intervals.length - 1].toAmps,
+        first.referenceVolts,
+        voltages,
+      );
+      findings.push({
+        id: `coordination:${check.upstream}/${check.downstream}`,
+        kind: 'coordination',
+        severity: 'ok',
+        status: 'selective',
+        title: `${up} over ${down}: selective`,
+        subjects: [check.upstream, check.downstream],
+        range,
+        worst: least.worst,
+        explanation: `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
+        basis: check.rule.basis,
+        referenceVolts: first.referenceVolts,
+      });
+    }
+  }
+  return findings;
+}
+
+/**
+ * A thin-margin interval narrower than 1 % in current is the crossing of a steep curve through the
+ * thin band on its way into or out of an overlap; it is reported with that overlap, not on its own.
+ */
+function isSliver(interval: OverlapInterval): boolean {
+  return interval.status === 'thin margin' && interval.toAmps < interval.fromAmps * 1.01;
+}
+
+function explain(
+  interval: OverlapInterval,
+  up: string,
+  down: string,
+  where: string,
+  rule: MarginRule,
+  faultText: string,
+): string {
+  const { worst } = interval;
+  const at = `At ${formatAmps(worst.amps, 3)}`;
+  switch (interval.status) {
+    case 'overlap':
+      if (worst.downTime === Infinity) {
+        return `${capitalise(where)}${faultText} ${up} may operate (from ${formatSeconds(worst.upTime)}) on a current that ${down} carries indefinitely: ${up} picks up below ${down}.`;
+      }
+      return `${capitalise(where)}${faultText} ${up} may open before ${down} has cleared. ${at} ${up} may operate in ${formatSeconds(worst.upTime)}; ${down} may take up to ${formatSeconds(worst.downTime)} to clear${rule.margin > 0 ? `, and ${rule.margin} s more is required between them` : ''}${rule.timeRatio < 1 ? ` (its clearing must stay under ${rule.timeRatio * 100} % of ${up}'s melting time)` : ''}.`;
+    case 'thin margin':
+      return `${capitalise(where)}${faultText} ${up} waits for ${down}, but only ${marginText(worst.marginSeconds)} beyond the required ${rule.margin} s (${at}: ${formatSeconds(worst.upTime)} against ${formatSeconds(worst.downTime)}).`;
+    case 'not provable from curves':
+      return `${capitalise(where)}${faultText} both devices operate within about the first half-cycle, or one is current-limiting: a time-current curve cannot show selectivity here. Use tested series-selectivity data or an I²t comparison.`;
+    default:
+      return `${capitalise(where)} ${up} waits for ${down}.`;
+  }
+}
+
+function suggest(interval: OverlapInterval, up: string, down: string, rule: MarginRule): string {
+  const { worst } = interval;
+  if (interval.status === 'not provable from curves') {
+    return `Confirm with the manufacturers' tested selectivity tables for ${up} above ${down}, or compare let-through and melting I²t.`;
+  }
+  if (worst.downTime === Infinity) {
+    return `Raise the pickup of ${up} above the highest pickup edge of ${down}, or lower ${down}'s pickup.`;
+  }
+  if (worst.upTime < 0.1) {
+    return `Raise ${up}'s instantaneous pickup above ${formatAmps(interval.toAmps, 3)} (the fault current here), or give ${up} a short-time delay instead of an instantaneous trip.`;
+  }
+  const needed = -worst.marginSeconds + (interval.status === 'thin margin' ? 0.1 : 0);
+  return `Slow ${up} by at least ${significant(Math.max(needed, 0.01), 2)} s at ${formatAmps(worst.amps, 3)} (a higher time dial or delay band), or speed up ${down}${rule.timeRatio < 1 ? ' (a smaller downstream fuse)' : ''}.`;
+}
+
+function marginText(seconds: number): string {
+  return seconds === Infinity ? 'unlimited time' : `${significant(seconds, 3)} s`;
+}

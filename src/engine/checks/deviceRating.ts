@@ -1,0 +1,34 @@
+import type { Device } from '../study/index.ts';
+
+/** The current NEC limits compare with a device, and what that current is. */
+export interface DeviceRating {
+  amps: number;
+  /** 'rating', 'maximum long-time setting (NEC 240.6(B))', 'pickup in primary amperes'. */
+  what: string;
+}
+
+/**
+ * The ampere figure the NEC compares with a limit: the `rating` given on the device; else a
+ * thermal-magnetic breaker's rating, a trip unit's sensor or plug rating (its maximum long-time
+ * setting, NEC 240.6(B)), a relay's time-overcurrent pickup in primary amps. A fuse needs its
+ * `rating` on the device; without one, `undefined`.
+ *
+ * @example ratingOf({ rating: 100, ... }) // { amps: 100, what: 'rating' }
+ */
+export function ratingOf(device: Device): DeviceRating | undefined {
+  if (device.rating !== undefined) return { amps: device.rating, what: 'rating' };
+  const c = device.characteristic;
+  switch (c.kind) {
+    case 'thermal-magnetic':
+      return { amps: c.rating, what: 'rating' };
+    case 'trip-unit':
+      return { amps: c.sensor, what: 'maximum long-time setting (sensor rating, NEC 240.6(B))' };
+    case 'relay': {
+      const pickup = c.timeOvercurrent?.pickup ?? c.instantaneous?.pickup;
+      if (pickup === undefined) return undefined;
+      return { amps: (pickup * c.ct.primary) / c.ct.secondary, what: 'pickup in primary amperes' };
+    }
+    default:
+      return undefined;
+  }
+}

@@ -1,0 +1,61 @@
+import { scaleBand } from '../band.ts';
+import { locationBusOf } from '../network/index.ts';
+import { formatAmps, formatSeconds } from '../quantity/index.ts';
+import type { Motor } from '../study/index.ts';
+import { motorStartingOf } from '../withstand/index.ts';
+import { nameOf, rangeOf, type CheckContext } from './context.ts';
+import { protectingDevice } from './cableProtection.ts';
+import type { Finding } from './finding.ts';
+
+/**
+ * Checks that a motor's start does not trip the device above it (REFERENCE §5.7): at every point of
+ * the starting curve — full-load current at long times, locked-rotor current until the acceleration
+ * time, the asymmetrical first-cycle point — the device's earliest operating time must be later.
+ *
+ * @example motorFindings(context, compressor)
+ */
+export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
+  const device = protectingDevice(context, motor.id);
+  if (!device) return [];
+  const volts = context.network.buses.get(motor.bus)!.voltage;
+  const band = scaleBand(context.bands.get(device.id)!, locationBusOf(context.network, device).voltage / volts);
+  const starting = motorStartingOf(motor, volts);
+  const name = motor.name ?? motor.id;
+  const deviceName = nameOf(device);
+  let worst: { amps: number; seconds: number; operates: number } | undefined;
+  for (let i = 0; i < starting.curve.amps.length; i++) {
+    const amps = starting.curve.amps[i];
+    const seconds = starting.curve.seconds[i];
+    const operates = band.minTime(amps);
+    if (operates <= seconds && (!worst || operates / seconds < worst.operates / worst.seconds))
+      worst = { amps, seconds, operates };
+  }
+  if (!worst) {
+    return [
+      {
+        id: `motor-starting:${motor.id}`,
+        kind: 'motor-starting',
+        severity: 'ok',
+        title: `${name} starts without tripping ${deviceName}`,
+        subjects: [device.id, motor.id],
+        explanation: `${deviceName} stays above ${name}'s starting curve: ${starting.curve.label}.`,
+        basis: starting.curve.notes.join(' '),
+        referenceVolts: volts,
+      },
+    ];
+  }
+  return [
+    {
+      id: `motor-starting:${motor.id}`,
+      kind: 'motor-starting',
+      severity: 'fail',
+      title: `${deviceName} may trip while ${name} starts`,
+      subjects: [device.id, motor.id],
+      range: rangeOf(worst.amps, worst.amps, volts, []),
+      explanation: `While starting, ${name} draws ${formatAmps(worst.amps, 3)} for up to ${formatSeconds(worst.seconds)}, and ${deviceName} may operate after ${formatSeconds(worst.operates)}.`,
+      suggestion: `Raise ${deviceName}'s pickup or delay (or instantaneous setting) above the starting current, within NEC 430.52 limits.`,
+      basis: starting.curve.notes.join(' '),
+      referenceVolts: volts,
+    },
+  ];
+}

@@ -1,0 +1,195 @@
+import { locationBusOf } from '../network/index.ts';
+import { formatAmps, significant } from '../quantity/index.ts';
+import type { Device, Transformer } from '../study/index.ts';
+import { transformerRatedAmps } from '../withstand/index.ts';
+import type { WorkStep } from '../work.ts';
+import { protectingDevice } from './cableProtection.ts';
+import { nameOf, type CheckContext } from './context.ts';
+import { ratingOf } from './deviceRating.ts';
+import type { Finding } from './finding.ts';
+import { nextStandardRating } from './standardRatings.ts';
+
+/** The cell of NEC Table 450.3(A) or (B) that limits one device, in percent of rated current. */
+interface Limit {
+  percent: number;
+  /** Note 1: the next higher standard rating or setting is permitted. */
+  nextHigher: boolean;
+  cell: string;
+}
+
+/**
+ * Checks the ratings of a transformer's primary and secondary devices against NEC 450.3 (REFERENCE §6.3):
+ * Table 450.3(A) for a primary over 1000 V (600 V before the 2020 edition), else 450.3(B), choosing the
+ * "primary and secondary" method when a secondary device feeds the secondary bus. Ratings are the device's
+ * ampere rating, an adjustable breaker's maximum setting (240.6(B)), or a relay's pickup in primary amps.
+ *
+ * @example nec450Findings(context, t1, '2023')
+ */
+export function nec450Findings(context: CheckContext, transformer: Transformer, edition: string): Finding[] {
+  const { network } = context;
+  const primaryDevice = protectingDevice(context, transformer.id);
+  const secondaryDevice = network.deviceFeeding.get(transformer.to);
+  const threshold = edition === '2017' ? 600 : 1000;
+  const overThreshold = transformer.primary > threshold;
+  const table = overThreshold ? '450.3(A)' : '450.3(B)';
+  const z = transformer.impedance;
+  const findings: Finding[] = [];
+  const name = transformer.name ?? transformer.id;
+
+  const sides: {
+    device: Device | undefined;
+    side: 'primary' | 'secondary';
+    volts: number;
+    limit: Limit | undefined;
+  }[] = [
+    { device: primaryDevice, side: 'primary', volts: transformer.primary, limit: undefined },
+    { device: secondaryDevice, side: 'secondary', volts: transformer.secondary, limit: undefined },
+  ];
+  for (const side of sides) {
+    const fla = transformerRatedAmps(transformer, side.volts);
+    side.limit = overThreshold
+      ? limitA(
+          side.side,
+          side.device,
+          z,
+          transformer.supervised,
+          secondaryDevice !== undefined,
+          side.volts > threshold,
+          threshold,
+        )
+      : limitB(side.side, fla, secondaryDevice !== undefined);
+  }
+  if (overThreshold && !transformer.supervised && !secondaryDevice) {
+    findings.push({
+      id: `nec-450.3:${transformer.id}:secondary-missing`,
+      kind: 'nec-450.3',
+      severity: 'fail',
+      title: `${name} needs secondary protection (NEC ${table})`,
+      subjects: [transformer.id],
+      explanation: `NEC Table ${table} requires a secondary device for a transformer over ${threshold} V outside supervised locations, and none feeds ${transformer.to}.`,
+      suggestion: `Add a secondary main at ${transformer.to} rated within ${transformer.secondary > threshold ? '250–300' : '125'} % of the secondary rated current.`,
+      referenceVolts: transformer.secondary,
+    });
+  }
+  for (const { device, side, volts, limit } of sides) {
+    if (!device || !limit) continue;
+    const fla = transformerRatedAmps(transformer, volts);
+    const rating = ratingOf(device);
+    if (!rating) {
+      findings.push({
+        id: `nec-450.3:${transformer.id}:${side}`,
+        kind: 'nec-450.3',
+        severity: 'info',
+        title: `${nameOf(device)} has no ampere rating to check against NEC ${table}`,
+        subjects: [device.id, transformer.id],
+        explanation: `Give ${nameOf(device)} its ampere rating ("rating" on the device) so its ${side} limit for ${name} can be checked.`,
+        referenceVolts: locationBusOf(network, device).voltage,
+      });
+      continue;
+    }
+    const limitAmps = (limit.percent / 100) * fla;
+    const allowed = limit.nextHigher ? nextStandardRating(limitAmps, device.characteristic.kind === 'fuse') : limitAmps;
+    const ok = rating.amps <= allowed + 1e-6;
+    const percent = (100 * rating.amps) / fla;
+    const work: WorkStep[] = [
+      {
+        label: `${side} rated current`,
+        formula: transformer.phases === 3 ? 'I = S / (√3 · V)' : 'I = S / V',
+        substituted: `I = ${transformer.rating} / (${transformer.phases === 3 ? '1.7320508 × ' : ''}${volts})`,
+        value: fla,
+        unit: 'A',
+        source: 'textbook identity',
+      },
+      {
+        label: `limit, ${limit.cell}`,
+        formula: 'I_max = limit % × I',
+        substituted: `I_max = ${limit.percent} % × ${significant(fla, 6)}`,
+        value: limitAmps,
+        unit: 'A',
+        source: `NEC Table ${table} (from memory)`,
+      },
+      ...(limit.nextHigher
+        ? [
+            {
+              label: 'next higher standard rating permitted (note 1)',
+              formula: 'NEC 240.6(A)',
+              substituted: `next standard rating ≥ ${significant(limitAmps, 6)} A`,
+              value: allowed,
+              unit: 'A',
+              source: 'NEC 240.6(A), 450.3 note 1 (from memory)',
+            },
+          ]
+        : []),
+      {
+        label: `${nameOf(device)} ${rating.what}`,
+        formula: 'rating / I × 100',
+        substituted: `${significant(rating.amps, 6)} / ${significant(fla, 6)} × 100`,
+        value: percent,
+        unit: '%',
+      },
+    ];
+    findings.push({
+      id: `nec-450.3:${transformer.id}:${side}`,
+      kind: 'nec-450.3',
+      severity: ok ? 'ok' : 'fail',
+      title: `${nameOf(device)} ${ok ? 'is within' : 'exceeds'} NEC ${table} for ${name} (${side})`,
+      subjects: [device.id, transformer.id],
+      explanation: `${nameOf(device)}'s ${rating.what} is ${formatAmps(rating.amps, 4)}, ${significant(percent, 3)} % of ${name}'s ${side} rated current ${formatAmps(fla, 4)}; ${limit.cell} allows ${limit.percent} %${limit.nextHigher ? ` or the next standard rating, ${formatAmps(allowed, 4)}` : ` (${formatAmps(limitAmps, 4)})`}.`,
+      suggestion: ok
+        ? undefined
+        : `Choose a ${side} device rated at most ${formatAmps(allowed, 4)}, or check whether another method of ${table} applies.`,
+      basis: `NFPA 70 ${edition}, Table ${table} (from memory; check the adopted edition)`,
+      referenceVolts: locationBusOf(network, device).voltage,
+      work,
+    });
+  }
+  return findings;
+}
+
+/** Table 450.3(A), over 1000 V (REFERENCE §6.3, from memory); %Z above 10 % is read as the 6–10 % row. */
+function limitA(
+  side: 'primary' | 'secondary',
+  device: Device | undefined,
+  z: number,
+  supervised: boolean,
+  hasSecondary: boolean,
+  sideOver: boolean,
+  threshold: number,
+): Limit | undefined {
+  if (!device) return undefined;
+  const fuse = device.characteristic.kind === 'fuse';
+  const low = z <= 6;
+  const type = fuse ? 'fuse' : 'breaker';
+  const row = `${supervised ? 'supervised location' : 'any location'}, %Z ${low ? '≤ 6 %' : 'over 6 %'}`;
+  if (side === 'primary') {
+    if (supervised && !hasSecondary) {
+      return { percent: fuse ? 250 : 300, nextHigher: true, cell: `supervised location, primary only, ${type}` };
+    }
+    return {
+      percent: fuse ? 300 : low ? 600 : 400,
+      nextHigher: true,
+      cell: `${row}, primary over ${threshold} V, ${type}`,
+    };
+  }
+  if (sideOver) {
+    return {
+      percent: fuse ? (low ? 250 : 225) : low ? 300 : 250,
+      nextHigher: true,
+      cell: `${row}, secondary over ${threshold} V, ${type}`,
+    };
+  }
+  return { percent: supervised ? 250 : 125, nextHigher: true, cell: `${row}, secondary ${threshold} V or less` };
+}
+
+/** Table 450.3(B), 1000 V and less (REFERENCE §6.3, confirmed). */
+function limitB(side: 'primary' | 'secondary', fla: number, hasSecondary: boolean): Limit {
+  if (side === 'primary') {
+    if (hasSecondary) return { percent: 250, nextHigher: false, cell: 'primary and secondary protection, primary' };
+    if (fla >= 9) return { percent: 125, nextHigher: true, cell: 'primary only, primary current 9 A or more' };
+    if (fla >= 2) return { percent: 167, nextHigher: false, cell: 'primary only, primary current under 9 A' };
+    return { percent: 300, nextHigher: false, cell: 'primary only, primary current under 2 A' };
+  }
+  return fla >= 9
+    ? { percent: 125, nextHigher: true, cell: 'primary and secondary protection, secondary current 9 A or more' }
+    : { percent: 167, nextHigher: false, cell: 'primary and secondary protection, secondary current under 9 A' };
+}

@@ -1,0 +1,145 @@
+import { findOverlaps } from '../overlap.ts';
+import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
+import type { Transformer } from '../study/index.ts';
+import { inrushMarkersOf, transformerRatedAmps, transformerWithstandOf } from '../withstand/index.ts';
+import { capitalise, describeRange, nameOf, rangeOf, surelyClearsFrom, type CheckContext } from './context.ts';
+import { protectingDevice } from './cableProtection.ts';
+import type { Finding } from './finding.ts';
+import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
+
+/**
+ * Checks a transformer's primary device against the transformer (REFERENCE §5, §6.6): it must clear
+ * below the IEEE C57.109 / C57.12.59 through-fault curve up to the largest secondary fault it sees
+ * (three-phase; for Δ–Yg also the secondary line-to-ground fault, with the curve shifted by 0.58,
+ * REFERENCE §1.8 item 2; Δ–Δ line-to-line with 0.87), and it must not operate on magnetising inrush.
+ * All on the primary voltage base.
+ *
+ * @example transformerFindings(context, t1)
+ */
+export function transformerFindings(context: CheckContext, transformer: Transformer, horizon = 1000): Finding[] {
+  const device = protectingDevice(context, transformer.id);
+  const name = transformer.name ?? transformer.id;
+  const volts = transformer.primary;
+  if (!device) {
+    return [
+      {
+        id: `transformer-withstand:${transformer.id}:none`,
+        kind: 'transformer-withstand',
+        severity: 'warning',
+        title: `${name} has no primary device`,
+        subjects: [transformer.id],
+        explanation: `No device feeds ${name}, so nothing in this study protects it against through-faults or is checked against its inrush.`,
+        suggestion: 'Add the primary fuse or relay that feeds the transformer.',
+        referenceVolts: volts,
+      },
+    ];
+  }
+  const band = context.bands.get(device.id)!;
+  const fault = context.faults.transformers.get(transformer.id)!;
+  const curve = transformerWithstandOf(transformer, { sourceImpedancePu: fault.sourceImpedancePu });
+  const toPrimary = transformer.secondary / transformer.primary;
+  const findings: Finding[] = [];
+  const deviceName = nameOf(device);
+
+  const cases = [{ label: 'three-phase', shift: 1, toAmps: fault.reflectedToPrimary }];
+  if (fault.factors.withstandShift !== 1) {
+    const unbalanced =
+      transformer.connection === 'delta-wye' ? fault.unbalanced.lineToGround : fault.unbalanced.lineToLine;
+    cases.push({
+      label: transformer.connection === 'delta-wye' ? 'secondary line-to-ground' : 'secondary line-to-line',
+      shift: fault.factors.withstandShift,
+      toAmps: Math.max(...unbalanced.primaryLineAmps),
+    });
+  }
+
+  for (const faultCase of cases) {
+    const withstand = withstandBandOf(curve, toPrimary * faultCase.shift);
+    const clearsFrom = surelyClearsFrom(band, faultCase.toAmps, horizon);
+    const from = withstand.minAmps;
+    const to = Math.min(faultCase.toAmps, withstand.maxAmps);
+    const suffix = faultCase.shift === 1 ? '' : ` (${faultCase.label} fault: curve × ${faultCase.shift})`;
+    if (!(to > from)) continue;
+    if (clearsFrom > from) {
+      const range = rangeOf(from, Math.min(clearsFrom, to), volts, [transformer.secondary]);
+      // Up to about three times rated current the secondary devices are expected to carry the duty.
+      const usual = clearsFrom <= 3 * transformerRatedAmps(transformer, volts) * faultCase.shift;
+      findings.push({
+        id: `transformer-withstand:${transformer.id}:${faultCase.label}:below-pickup`,
+        kind: 'transformer-withstand',
+        severity: usual ? 'info' : 'warning',
+        title: `${deviceName} leaves ${name}'s overload region to the secondary devices${suffix}`,
+        subjects: [device.id, transformer.id],
+        range,
+        explanation: `${capitalise(describeRange(range))} ${deviceName} is not sure to clear within the sheet's time range, so it does not protect ${name} there${suffix}; the secondary main and the load devices must.${usual ? " This is usual for a primary device set above the transformer's full-load current." : ` That reaches ${significant(clearsFrom / transformerRatedAmps(transformer, volts), 3)} times rated current: a smaller primary device would cover more of the through-fault range.`}`,
+        referenceVolts: volts,
+      });
+    }
+    const checkedFrom = Math.max(from, clearsFrom);
+    if (!(to > checkedFrom)) continue;
+    const intervals = findOverlaps(withstand, band, {
+      fromAmps: checkedFrom,
+      toAmps: to,
+      horizon,
+      ...PROTECTION_FINDER,
+    });
+    const failures = intervals.filter((interval) => interval.status === 'overlap');
+    const range = rangeOf(checkedFrom, to, volts, [transformer.secondary]);
+    if (failures.length === 0) {
+      const least = intervals.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
+      findings.push({
+        id: `transformer-withstand:${transformer.id}:${faultCase.label}`,
+        kind: 'transformer-withstand',
+        severity: 'ok',
+        title: `${deviceName} protects ${name}${suffix}`,
+        subjects: [device.id, transformer.id],
+        range,
+        worst: least.worst,
+        explanation: `${capitalise(describeRange(range))} ${deviceName} clears before ${curve.label} is reached${suffix}; the closest point is ${formatAmps(least.worst.amps, 3)}, where it clears in ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
+        basis: curve.notes.join(' '),
+        referenceVolts: volts,
+      });
+      continue;
+    }
+    failures.forEach((interval, index) => {
+      const failed = rangeOf(interval.fromAmps, interval.toAmps, volts, [transformer.secondary]);
+      findings.push({
+        id: `transformer-withstand:${transformer.id}:${faultCase.label}:${index}`,
+        kind: 'transformer-withstand',
+        // A secondary ground fault beyond the secondary main is cleared by the main; the primary device
+        // alone covers the zone up to the main, so the unbalanced cases warn rather than fail.
+        severity: faultCase.shift === 1 ? 'fail' : 'warning',
+        title: `${deviceName} does not protect ${name}${suffix}`,
+        subjects: [device.id, transformer.id],
+        range: failed,
+        worst: interval.worst,
+        explanation: `${capitalise(describeRange(failed))} ${deviceName} may take up to ${formatSeconds(interval.worst.downTime)} to clear, but ${name} withstands only ${formatSeconds(interval.worst.upTime)} there (${curve.label})${suffix}.`,
+        suggestion: `Use a smaller or faster primary device, or lower its pickup or time dial, so that it clears below the through-fault curve up to ${formatAmps(to, 3)}.`,
+        basis: curve.notes.join(' '),
+        referenceVolts: volts,
+      });
+    });
+  }
+
+  // Inrush: the device must not operate at or below/left of each inrush point.
+  for (const marker of inrushMarkersOf(transformer)) {
+    const operates = band.minTime(marker.amps);
+    const ok = operates > marker.seconds!;
+    findings.push({
+      id: `transformer-inrush:${transformer.id}:${marker.seconds}`,
+      kind: 'transformer-inrush',
+      severity: ok ? 'ok' : 'fail',
+      title: ok ? `${deviceName} rides through ${name}'s inrush` : `${deviceName} may trip on ${name}'s inrush`,
+      subjects: [device.id, transformer.id],
+      range: rangeOf(marker.amps, marker.amps, volts, []),
+      explanation: `${marker.label}: ${formatAmps(marker.amps, 3)} for ${formatSeconds(marker.seconds!)}. ${deviceName} ${
+        operates === Infinity ? 'does not operate at that current' : `may operate after ${formatSeconds(operates)}`
+      }${ok ? ', later than the inrush lasts.' : ', before the inrush has decayed.'}`,
+      suggestion: ok
+        ? undefined
+        : `Raise ${deviceName}'s instantaneous pickup or its time delay above ${formatAmps(marker.amps, 3)} at ${significant(marker.seconds!)} s.`,
+      basis: 'inrush points are common practice (REFERENCE §5.5)',
+      referenceVolts: volts,
+    });
+  }
+  return findings;
+}

@@ -1,0 +1,27 @@
+import type { Band } from '../band.ts';
+import type { WithstandCurve } from '../withstand/index.ts';
+
+/**
+ * A withstand curve seen as the "upstream" side of the overlap finder: the equipment lasts until
+ * `timeAt(I)`, so a device protects it where its clearing time stays below that. `scale` moves the
+ * curve's currents onto the sheet's base (and applies a Δ–Y shift, REFERENCE §1.8).
+ *
+ * @example findOverlaps(withstandBandOf(curve, 480 / 12470), primaryFuseBand, { toAmps, halfCycle: 0 })
+ */
+export function withstandBandOf(curve: WithstandCurve, scale: number): Band {
+  const { timeAt } = curve;
+  const inverse = 1 / scale;
+  const time = (amps: number) => timeAt(amps * inverse);
+  return {
+    minTime: time,
+    maxTime: time,
+    breakpoints: Float64Array.from(new Set(curve.amps)).map((amps) => amps * scale),
+    minAmps: curve.amps[0] * scale,
+    maxAmps: curve.amps[curve.amps.length - 1] * scale,
+    currentLimitingFrom: Infinity,
+    diagnostics: [],
+  };
+}
+
+/** Finder options that turn off the half-cycle rules, which do not apply to equipment limits. */
+export const PROTECTION_FINDER = { margin: 0, thinMargin: 0, halfCycle: 0, instantaneousRegion: 0 } as const;

@@ -1,0 +1,75 @@
+import type { Analysis } from '../analysis.ts';
+import type { Finding } from '../checks/finding.ts';
+import { formatAmps, formatVolts, significant } from '../quantity/index.ts';
+
+/** One row of the findings table, as plain text cells (shared by the CLI, Markdown and CSV). */
+export interface FindingRow {
+  severity: string;
+  kind: string;
+  title: string;
+  /** "9.8 kA–14.9 kA @ 480 V" or "" */
+  range: string;
+  /** "−0.03 s at 12 kA" or "" */
+  worst: string;
+  explanation: string;
+  suggestion: string;
+  basis: string;
+}
+
+/** Severity order for sorting and summaries: failures first. */
+export const SEVERITY_ORDER = { fail: 0, warning: 1, info: 2, ok: 3 } as const;
+
+/**
+ * The findings of an analysis as rows, failures first (stable within a severity), so every report
+ * format reads the same.
+ *
+ * @example findingRows(analysis).filter((row) => row.severity === 'fail')
+ */
+export function findingRows(analysis: Analysis): FindingRow[] {
+  return [...analysis.findings]
+    .map((finding, index) => ({ finding, index }))
+    .sort((a, b) => SEVERITY_ORDER[a.finding.severity] - SEVERITY_ORDER[b.finding.severity] || a.index - b.index)
+    .map(({ finding }) => rowOf(finding));
+}
+
+/** A finding as table cells. */
+export function rowOf(finding: Finding): FindingRow {
+  return {
+    severity: finding.severity,
+    kind: finding.kind,
+    title: finding.title,
+    range: rangeText(finding),
+    worst: worstText(finding),
+    explanation: finding.explanation,
+    suggestion: finding.suggestion ?? '',
+    basis: finding.basis ?? '',
+  };
+}
+
+/** "A–B @ V" on the finding's reference voltage, a single current when the range is a point. */
+export function rangeText(finding: Finding): string {
+  const range = finding.range;
+  if (!range) return '';
+  const at = `@ ${formatVolts(finding.referenceVolts)}`;
+  if (range.toAmps <= range.fromAmps * (1 + 1e-9)) return `${formatAmps(range.fromAmps, 3)} ${at}`;
+  return `${formatAmps(range.fromAmps, 3)}–${formatAmps(range.toAmps, 3)} ${at}`;
+}
+
+/** "margin −0.03 s at 12 kA" (negative inside an overlap). */
+export function worstText(finding: Finding): string {
+  const worst = finding.worst;
+  if (!worst) return '';
+  const margin =
+    worst.marginSeconds === Infinity
+      ? 'no operation'
+      : worst.marginSeconds === -Infinity
+        ? 'never clears'
+        : `${significant(worst.marginSeconds, 3)} s`;
+  return `${margin} at ${formatAmps(worst.amps, 3)}`;
+}
+
+/** "3 fail, 2 warning, 1 info, 14 ok" */
+export function summaryText(analysis: Analysis): string {
+  const { counts } = analysis;
+  return `${counts.fail} fail, ${counts.warning} warning, ${counts.info} info, ${counts.ok} ok`;
+}

@@ -1,0 +1,99 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { analyseStudy } from '../../src/engine/analysis.ts';
+import { parseStudy, type StudyInput } from '../../src/engine/study/index.ts';
+
+const demo = (name: string): StudyInput => JSON.parse(readFileSync(`demo/harrowmere-${name}.json`, 'utf8'));
+const failing = (name: string) => analyseStudy(parseStudy(demo(name))).findings.filter((f) => f.severity === 'fail');
+
+describe('analyseStudy', () => {
+  it('has the expected defaults: every series pair checked, findings for pairs, transformers, code, cables and motors', () => {
+    const analysis = analyseStudy(parseStudy(demo('selective')));
+    expect(analysis.pairs.map((p) => `${p.upstream}/${p.downstream}`)).toEqual([
+      'R-T1/MAIN',
+      'MAIN/FDR-MCC',
+      'FDR-MCC/MCC-M1',
+      'FDR-MCC/MCC-M2',
+      'MAIN/FDR-DOCK',
+      'MAIN/FDR-OFC',
+      'FDR-OFC/OFC-MAIN',
+      'MAIN/FDR-EM',
+      'FDR-EM/EM-BR',
+    ]);
+    const kinds = new Set(analysis.findings.map((f) => f.kind));
+    for (const kind of [
+      'coordination',
+      'transformer-withstand',
+      'transformer-inrush',
+      'nec-450.3',
+      'cable-withstand',
+      'motor-starting',
+    ]) {
+      expect(kinds).toContain(kind);
+    }
+    expect(analysis.counts.fail + analysis.counts.warning + analysis.counts.info + analysis.counts.ok).toBe(
+      analysis.findings.length,
+    );
+  });
+
+  it('finds nothing failing in the selective demo, as its description claims', () => {
+    expect(failing('selective')).toEqual([]);
+  });
+
+  it('checks pairs across the Δ–Y transformer for the secondary line-to-line case too (REFERENCE §1.8 item 1)', () => {
+    const analysis = analyseStudy(parseStudy(demo('selective')));
+    const primary = analysis.pairs.find((p) => p.upstream === 'R-T1')!;
+    expect(primary.cases.map((c) => c.fault)).toEqual(['three-phase', 'line-to-line']);
+    expect(primary.cases[1].upstreamShift).toBeCloseTo(1.1547, 4);
+    const office = analysis.pairs.find((p) => p.upstream === 'FDR-OFC')!;
+    expect(office.cases[0].referenceVolts).toBe(208);
+  });
+
+  it('explains each overlap of the overlap demo and names the devices', () => {
+    const titles = failing('overlap').map((f) => f.title);
+    expect(titles).toContain('Main 2000 A over MCC feeder 600 A: overlap');
+    expect(titles).toContain('Emergency feeder over Exhaust fan breaker 50 A: overlap');
+    const main = failing('overlap').find((f) => f.title === 'Main 2000 A over MCC feeder 600 A: overlap')!;
+    expect(main.explanation).toMatch(
+      /^Between 7200 A and \d+(\.\d+)? kA at 480 V Main 2000 A may open before MCC feeder 600 A has cleared\./,
+    );
+    expect(main.suggestion).toMatch(/instantaneous pickup/);
+    expect(main.worst!.marginSeconds).toBeLessThan(0);
+  });
+
+  it('checks clean once the overlap demo is edited back to the selective settings', () => {
+    const fixed = demo('overlap');
+    type Settings = Record<string, Record<string, unknown>>;
+    const device = (id: string) => fixed.devices!.find((d) => d.id === id)!.characteristic as unknown as Settings;
+    delete device('MAIN').instantaneous;
+    device('FDR-MCC').shortTime.delay = 0.2;
+    device('FDR-EM').longTime.pickup = 0.8;
+    expect(analyseStudy(parseStudy(fixed)).counts.fail).toBe(0);
+  });
+
+  it('reports the fused demo’s transformer protection problems: through-fault, NEC 450.3(A) and inrush', () => {
+    const kinds = failing('fused').map((f) => `${f.kind} ${f.subjects.join('/')}`);
+    expect(kinds).toContain('transformer-withstand F-T1/T1');
+    expect(kinds).toContain('nec-450.3 F-T1/T1');
+    expect(kinds).toContain('transformer-inrush FDR-OFC/T2');
+    const nec = failing('fused').find((f) => f.kind === 'nec-450.3')!;
+    // 300 % × 69.449 A = 208.3 A; next standard rating 225 A (NEC Table 450.3(A), 240.6(A), from memory).
+    expect(nec.explanation).toMatch(/250 A, 360 % of Service transformer's primary rated current 69\.45 A/);
+    expect(nec.explanation).toMatch(/next standard rating, 225 A/);
+  });
+
+  it('gives the same findings whatever the order of the study’s lists', () => {
+    const input = demo('overlap');
+    const shuffled = {
+      ...input,
+      devices: [...input.devices!].reverse(),
+      cables: [...input.cables!].reverse(),
+      buses: [...input.buses].reverse(),
+    };
+    const ids = (study: StudyInput) =>
+      analyseStudy(parseStudy(study))
+        .findings.map((f) => `${f.id} ${f.severity} ${f.range?.fromAmps.toPrecision(6)}`)
+        .sort();
+    expect(ids(shuffled)).toEqual(ids(input));
+  });
+});

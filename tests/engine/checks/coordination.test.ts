@@ -1,0 +1,85 @@
+import { describe, expect, it } from 'vitest';
+import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { assertInDelta } from '../../asserts.ts';
+
+/**
+ * A 480 V bus with 20 kA available, a definite-time relay (CT 1000:5, pickup 5 A = 1000 A, 0.5 s)
+ * above a trip unit (400 A sensor, long-time 10 s at 6 × I_r). Invented settings.
+ */
+function pairStudy(
+  changes: { relayDelay?: number; relayCurve?: { curve: 'definite-time'; pickup: number; delay: number } } = {},
+): StudyInput {
+  return {
+    discern: 1,
+    name: 'worked pair',
+    source: { kind: 'utility', id: 'U', bus: 'A', max: { available: '20 kA' } },
+    buses: [
+      { id: 'A', voltage: 480 },
+      { id: 'B', voltage: 480 },
+    ],
+    cables: [{ id: 'C1', from: 'A', to: 'B', size: '500 kcmil', length: '10 ft' }],
+    devices: [
+      {
+        id: 'UP',
+        feeds: 'A',
+        characteristic: {
+          kind: 'relay',
+          ct: '1000:5',
+          timeOvercurrent: changes.relayCurve ?? {
+            curve: 'definite-time',
+            pickup: 5,
+            delay: changes.relayDelay ?? 0.5,
+          },
+        },
+      },
+      {
+        id: 'DOWN',
+        feeds: 'C1',
+        characteristic: { kind: 'trip-unit', sensor: 400, longTime: { pickup: 1, delay: 10 } },
+      },
+    ],
+  };
+}
+
+describe('checkPair', () => {
+  it('has the expected defaults: relay over an LV breaker band needs 0.2 s, the range ends at the downstream fault', () => {
+    const [pair] = analyseStudy(parseStudy(pairStudy())).pairs;
+    expect(pair.kind).toBe('relay/trip-unit');
+    expect(pair.rule.margin).toBe(0.2);
+    expect(pair.cases).toHaveLength(1);
+    assertInDelta(pair.cases[0].intervals.at(-1)!.toAmps, 20_000, 1e-9);
+  });
+
+  it('finds the overlap edges a hand solution gives, to 1e-5', () => {
+    // Downstream latest clearing: long-time band +20 % (common practice) → t = 12 · (2400 / I)² s above 440 A.
+    // Overlap while 12 · (2400/I)² + 0.2 > 0.5 → I < 2400 · √(12 / 0.3) = 15 178.9 A (computed);
+    // thin while the slack is under 0.1 s → I < 2400 · √(12 / 0.2) = 18 590.3 A (computed).
+    const [pair] = analyseStudy(parseStudy(pairStudy())).pairs;
+    const intervals = pair.cases[0].intervals;
+    expect(intervals.map((i) => i.status)).toEqual(['selective', 'overlap', 'thin margin', 'selective']);
+    assertInDelta(intervals[1].fromAmps, 1000, 1e-5);
+    assertInDelta(intervals[1].toAmps, 2400 * Math.sqrt(12 / 0.3), 1e-5);
+    assertInDelta(intervals[2].toAmps, 2400 * Math.sqrt(12 / 0.2), 1e-5);
+  });
+
+  it('moves the overlap edge up as the relay is slowed, where the hand solution puts it', () => {
+    const analysis = analyseStudy(parseStudy(pairStudy({ relayDelay: 0.5 })));
+    expect(analysis.findings.filter((f) => f.kind === 'coordination' && f.severity === 'fail')).toHaveLength(1);
+    const slow = analyseStudy(parseStudy(pairStudy({ relayCurve: { curve: 'definite-time', pickup: 5, delay: 2 } })));
+    // At 1000 A the trip unit may take 12 · 2.4² = 69.1 s: still an overlap there; the edge moves to 2400 · √(12/1.8) (computed).
+    const intervals = slow.pairs[0].cases[0].intervals;
+    assertInDelta(intervals[1].toAmps, 2400 * Math.sqrt(12 / 1.8), 1e-5);
+  });
+
+  it('explains an overlap with both times at the worst point and suggests a direction', () => {
+    const finding = analyseStudy(parseStudy(pairStudy())).findings.find((f) => f.status === 'overlap')!;
+    expect(finding.title).toBe('UP over DOWN: overlap');
+    expect(finding.explanation).toMatch(/^Between 1000 A and 15\.2 kA at 480 V UP may open before DOWN has cleared\./);
+    expect(finding.explanation).toMatch(
+      /UP may operate in 0\.5 s; DOWN may take up to [\d.]+ s to clear, and 0\.2 s more is required/,
+    );
+    expect(finding.suggestion).toMatch(/^Slow UP by at least/);
+    expect(finding.basis).toMatch(/IEEE 242/);
+  });
+});

@@ -1,0 +1,50 @@
+import { describe, expect, it } from 'vitest';
+import { defaultMarginRule, marginRuleOf } from '../../../src/engine/checks/margins.ts';
+import { readFileSync } from 'node:fs';
+import { createStudySchema, readStudy } from '../../../src/engine/study/index.ts';
+
+const settings = createStudySchema().shape.coordination.parse(undefined);
+
+describe('marginRuleOf', () => {
+  it('has the expected defaults', () => {
+    expect(settings).toEqual({
+      thinMargin: 0.1,
+      halfCycle: 0.01,
+      horizon: 1000,
+      margins: {},
+      fuseRatio: 0.75,
+      edition: '2023',
+    });
+  });
+
+  it('uses 0.12 s relay over relay: the IEEE 242 ch. 15 digital-relay CTI less the breaker time already in the band (from memory)', () => {
+    expect(defaultMarginRule('relay', 'relay').margin).toBe(0.12);
+  });
+
+  it('uses the fuse–fuse 75 % rule with no added margin (REFERENCE §4.3, common practice)', () => {
+    expect(defaultMarginRule('fuse', 'fuse')).toMatchObject({ margin: 0, timeRatio: 0.75 });
+  });
+
+  it('asks LV breaker bands only not to overlap, since each includes tolerance and clearing (common practice)', () => {
+    expect(defaultMarginRule('trip-unit', 'thermal-magnetic')).toMatchObject({ margin: 0, timeRatio: 1 });
+    expect(defaultMarginRule('thermal-magnetic', 'fuse')).toMatchObject({ margin: 0, timeRatio: 1 });
+  });
+
+  it('takes the device margin first, then the study margin for the pair kind', () => {
+    const study = { ...settings, margins: { 'relay/trip-unit': 0.3 } };
+    expect(marginRuleOf('relay', 'trip-unit', study).margin).toBe(0.3);
+    expect(marginRuleOf('relay', 'trip-unit', study, 0.25).margin).toBe(0.25);
+    expect(marginRuleOf('relay', 'trip-unit', study).basis).toMatch(/set in the study/);
+  });
+
+  it('rejects a margin key that is not a pair kind, and a negative margin, naming the field', () => {
+    const demo = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8'));
+    const withMargins = (margins: object) => readStudy({ ...demo, coordination: { margins } }).problems[0];
+    expect(withMargins({ 'relay/recloser': 0.2 })).toEqual({
+      path: 'study.coordination.margins["relay/recloser"]',
+      message: 'expected a pair kind such as "relay/fuse", got "relay/recloser"',
+    });
+    expect(withMargins({ 'relay/fuse': -0.1 }).path).toBe('study.coordination.margins["relay/fuse"]');
+    expect(withMargins({ 'relay/fuse': -0.1 }).message).toMatch(/^expected a value of at least 0, got "-0.1"$/);
+  });
+});

@@ -1,0 +1,41 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { analyseStudy } from '../../src/engine/analysis.ts';
+import { probeAt } from '../../src/engine/probe.ts';
+import { parseStudy } from '../../src/engine/study/index.ts';
+
+const analysis = analyseStudy(parseStudy(readFileSync('demo/harrowmere-selective.json', 'utf8')));
+
+describe('probeAt', () => {
+  it('has the expected defaults: one reading per device of the view, on the view’s base', () => {
+    const probe = probeAt(analysis, 'service', 10_000);
+    expect(probe.referenceVolts).toBe(480);
+    expect(probe.readings.map((r) => r.deviceId)).toEqual(['R-T1', 'MAIN', 'FDR-MCC', 'MCC-M1']);
+  });
+
+  it('reads each device at its own voltage: 10 kA at 480 V is 384.9 A at 12.47 kV (REFERENCE §1.7)', () => {
+    const relay = probeAt(analysis, 'service', 10_000).readings[0];
+    expect(relay.ownVolts).toBe(12_470);
+    expect(relay.ownAmps).toBeCloseTo((10_000 * 480) / 12_470, 6);
+    expect(relay.minTime).toBe(analysis.bands.get('R-T1')!.minTime(relay.ownAmps));
+  });
+
+  it('names the device that clears first and the margin to the next one', () => {
+    const probe = probeAt(analysis, 'service', 10_000);
+    expect(probe.first).toBe('MCC-M1');
+    const motorBreaker = probe.readings.find((r) => r.deviceId === 'MCC-M1')!;
+    const feeder = probe.readings.find((r) => r.deviceId === 'FDR-MCC')!;
+    expect(probe.margin).toBeCloseTo(feeder.minTime - motorBreaker.maxTime, 12);
+    expect(probe.summary).toMatch(
+      /^Compressor 1 breaker clears first, [\d.]+ s before MCC feeder 600 A may operate\.$/,
+    );
+  });
+
+  it('says so when no device operates', () => {
+    expect(probeAt(analysis, 'service', 50).summary).toBe('No device operates at this current.');
+  });
+
+  it('rejects an unknown view', () => {
+    expect(() => probeAt(analysis, 'nowhere', 100)).toThrow(/no view "nowhere"/);
+  });
+});
