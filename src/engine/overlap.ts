@@ -91,64 +91,77 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   const downMax = (amps: number) => beyond(down.maxTime(amps), horizon);
   const limitingFrom = Math.min(up.currentLimitingFrom, down.currentLimitingFrom);
 
-  const classify = (amps: number): number => {
-    const upTime = upMin(amps);
+  const classOf = (amps: number, upTime: number, downTime: number): number => {
     if (upTime === Infinity) return 0;
-    const downTime = downMax(amps);
     const limiting = amps >= limitingFrom && upTime < instantaneousRegion;
     if ((upTime <= halfCycle && downTime <= halfCycle) || limiting) return 3;
     const slack = upTime * timeRatio - (downTime + margin);
     if (!(slack >= 0)) return 2;
     return slack < thinMargin ? 1 : 0;
   };
-  const worstOf = (amps: number): WorstPoint => {
-    const upTime = upMin(amps);
-    const downTime = downMax(amps);
+  const classify = (amps: number) => classOf(amps, upMin(amps), downMax(amps));
+  const ratioOf = (upTime: number, downTime: number): number => {
     const needed = downTime + margin;
-    const marginSeconds = upTime === Infinity ? Infinity : upTime * timeRatio - needed;
-    const ratio =
-      upTime === Infinity
-        ? Infinity
-        : needed === Infinity
-          ? 0
-          : needed === 0
-            ? Infinity
-            : (upTime * timeRatio) / needed;
-    return { amps, upTime, downTime, marginSeconds, ratio };
+    if (upTime === Infinity) return Infinity;
+    if (needed === Infinity) return 0;
+    return needed === 0 ? Infinity : (upTime * timeRatio) / needed;
   };
+  const pointOf = (amps: number, upTime = upMin(amps), downTime = downMax(amps)): WorstPoint => ({
+    amps,
+    upTime,
+    downTime,
+    marginSeconds: upTime === Infinity ? Infinity : upTime * timeRatio - (downTime + margin),
+    ratio: ratioOf(upTime, downTime),
+  });
 
   // Stage 1: the grid — range ends, every breakpoint inside, and log-spaced samples between them —
-  // with each local minimum of the time ratio refined and added, so a narrow dip cannot hide in a cell.
-  const grid = withRefinedMinima(
-    gridOf(fromAmps, toAmps, [up.breakpoints, down.breakpoints], samplesPerDecade),
-    (amps) => worstOf(amps).ratio,
-  );
-  const classes = new Int8Array(grid.length);
-  for (let i = 0; i < grid.length; i++) classes[i] = classify(grid[i]);
+  // evaluated once, with each local minimum of the time ratio refined and added, so that a narrow
+  // dip cannot hide inside a cell.
+  const grid = gridOf(fromAmps, toAmps, [up.breakpoints, down.breakpoints], samplesPerDecade);
+  const ratios = new Float64Array(grid.length);
+  for (let i = 0; i < grid.length; i++) ratios[i] = ratioOf(upMin(grid[i]), downMax(grid[i]));
+  // Only a dip that comes within twice the required time can cross a class edge unseen.
+  const extra = refinedMinima(grid, ratios, (amps) => ratioOf(upMin(amps), downMax(amps)), 2);
+  const points = extra.length === 0 ? grid : Float64Array.from([...grid, ...extra]).sort();
+  const upTimes = new Float64Array(points.length);
+  const downTimes = new Float64Array(points.length);
+  const classes = new Int8Array(points.length);
+  for (let i = 0; i < points.length; i++) {
+    upTimes[i] = upMin(points[i]);
+    downTimes[i] = downMax(points[i]);
+    classes[i] = classOf(points[i], upTimes[i], downTimes[i]);
+  }
 
   // Stage 2: bisect every change of class to the tolerance (several changes may share one cell);
   // collect the intervals, each with its worst point.
   const intervals: OverlapInterval[] = [];
   let start = fromAmps;
   let current = classes[0];
-  let worst = worstOf(grid[0]);
-  for (let i = 1; i < grid.length; i++) {
-    let lo = grid[i - 1];
+  let worst = pointOf(points[0], upTimes[0], downTimes[0]);
+  const consider = (i: number) => {
+    const ratio = ratioOf(upTimes[i], downTimes[i]);
+    const margin_ = upTimes[i] * timeRatio - (downTimes[i] + margin);
+    if (ratio < worst.ratio || (ratio === worst.ratio && margin_ < worst.marginSeconds)) {
+      worst = pointOf(points[i], upTimes[i], downTimes[i]);
+    }
+  };
+  for (let i = 1; i < points.length; i++) {
+    let lo = points[i - 1];
     while (classes[i] !== current) {
-      let hi = grid[i];
+      let hi = points[i];
       while (hi - lo > tolerance * lo) {
         const mid = Math.sqrt(lo * hi);
         if (classify(mid) === current) lo = mid;
         else hi = mid;
       }
-      worst = worse(worst, worstOf(lo));
+      worst = worse(worst, pointOf(lo));
       intervals.push({ fromAmps: start, toAmps: hi, status: STATUSES[current], worst });
       start = hi;
       lo = hi;
       current = classify(hi);
-      worst = worstOf(hi);
+      worst = pointOf(hi);
     }
-    worst = worse(worst, worstOf(grid[i]));
+    consider(i);
   }
   intervals.push({ fromAmps: start, toAmps, status: STATUSES[current], worst });
   return intervals;
@@ -178,22 +191,26 @@ function gridOf(from: number, to: number, breakpointSets: Float64Array[], sample
 }
 
 /**
- * Adds to a sorted grid the refined position of every interior local minimum of `score` (golden-section
- * search between the neighbouring samples), keeping the grid sorted.
+ * The refined position of every interior local minimum of `score` below `below` on a sorted grid
+ * (golden-section search between the neighbouring samples), given the grid's scores.
  */
-function withRefinedMinima(grid: Float64Array, score: (amps: number) => number): Float64Array {
-  const values = Array.from(grid, score);
+function refinedMinima(
+  grid: Float64Array,
+  values: Float64Array,
+  score: (amps: number) => number,
+  below: number,
+): number[] {
   const extra: number[] = [];
+  const golden = (Math.sqrt(5) - 1) / 2;
   for (let i = 1; i + 1 < grid.length; i++) {
-    if (!Number.isFinite(values[i]) || !(values[i] < values[i - 1]) || !(values[i] <= values[i + 1])) continue;
+    if (!(values[i] < below) || !(values[i] < values[i - 1]) || !(values[i] <= values[i + 1])) continue;
     let a = Math.log(grid[i - 1]);
     let b = Math.log(grid[i + 1]);
-    const golden = (Math.sqrt(5) - 1) / 2;
     let c = b - golden * (b - a);
     let d = a + golden * (b - a);
     let fc = score(Math.exp(c));
     let fd = score(Math.exp(d));
-    for (let k = 0; k < 40 && b - a > 1e-9; k++) {
+    for (let k = 0; k < 40 && b - a > 1e-7; k++) {
       if (fc < fd) {
         b = d;
         d = c;
@@ -211,9 +228,7 @@ function withRefinedMinima(grid: Float64Array, score: (amps: number) => number):
     const amps = Math.exp((a + b) / 2);
     if (amps > grid[i - 1] && amps < grid[i + 1] && amps !== grid[i]) extra.push(amps);
   }
-  if (extra.length === 0) return grid;
-  const merged = Float64Array.from([...grid, ...extra]);
-  return merged.sort();
+  return extra;
 }
 
 /** A time past the horizon counts as never. */
