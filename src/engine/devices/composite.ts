@@ -1,3 +1,4 @@
+import type { Band } from '../band.ts';
 /**
  * One element of a device edge (a long-time ramp, a short-time delay, an instantaneous trip…): it
  * operates from `pickup` amps with a non-increasing time. Composite edges are built from these.
@@ -104,4 +105,27 @@ export function uniqueAscending(values: readonly number[]): number[] {
   const sorted = values.filter((v) => Number.isFinite(v) && v > 0).sort((a, b) => a - b);
   // Values within 1e-10 of each other are one breakpoint reached by two routes (rounding apart).
   return sorted.filter((v, i) => i === 0 || v > sorted[i - 1] * (1 + 1e-10));
+}
+
+/**
+ * A band from its two composite edges: `minTime` the fast edge, `maxTime` the slow one, breakpoints
+ * of both, defined from the fast edge's lowest pickup upward with no upper limit.
+ *
+ * @example bandOfEdges(compositeEdge(low), compositeEdge(high), Infinity, [])
+ */
+export function bandOfEdges(
+  low: CompositeEdge,
+  high: CompositeEdge,
+  currentLimitingFrom: number,
+  diagnostics: string[],
+): Band {
+  return {
+    minTime: low.time,
+    maxTime: high.time,
+    breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
+    minAmps: low.minAmps,
+    maxAmps: Infinity,
+    currentLimitingFrom,
+    diagnostics,
+  };
 }

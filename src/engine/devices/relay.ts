@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { Band } from '../band.ts';
 import { percentField, quantityField } from '../study/fields.ts';
-import { compositeEdge, definiteElement, uniqueAscending, type EdgeElement } from './composite.ts';
+import { bandOfEdges, compositeEdge, definiteElement, type EdgeElement } from './composite.ts';
 import {
   INVERSE_CURVES,
   INVERSE_CURVE_NAMES,
@@ -172,15 +172,7 @@ export function relayBand(relay: Relay): Band {
   if (timeOvercurrent && instantaneous && instantaneous.pickup <= timeOvercurrent.pickup) {
     diagnostics.push('instantaneous pickup is at or below the time-overcurrent pickup: the inverse curve never acts');
   }
-  return {
-    minTime: low.time,
-    maxTime: high.time,
-    breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
-    minAmps: low.minAmps,
-    maxAmps: Infinity,
-    currentLimitingFrom: Infinity,
-    diagnostics,
-  };
+  return bandOfEdges(low, high, Infinity, diagnostics);
 }
 
 /** The time-overcurrent element in primary amperes, with its pickup and time scaled by the edge factors. */

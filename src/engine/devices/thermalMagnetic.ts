@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { Band } from '../band.ts';
 import { percentField, quantityField } from '../study/fields.ts';
-import { compositeEdge, definiteElement, uniqueAscending } from './composite.ts';
+import { bandOfEdges, compositeEdge, definiteElement } from './composite.ts';
 import { isValidTable, pointTableSchema, tableElement, upperBelowLower } from './pointTable.ts';
 
 const multiplesTable = pointTableSchema({ current: 'a multiple of the rating', unit: '×' });
@@ -121,13 +121,5 @@ export function thermalMagneticBand(breaker: ThermalMagnetic): Band {
   if (breaker.currentLimiting && breaker.currentLimitingFrom === undefined) {
     currentLimitingFrom = magneticAmps * (1 + magnetic.tolerance / 100);
   }
-  return {
-    minTime: low.time,
-    maxTime: high.time,
-    breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
-    minAmps: low.minAmps,
-    maxAmps: Infinity,
-    currentLimitingFrom,
-    diagnostics,
-  };
+  return bandOfEdges(low, high, currentLimitingFrom, diagnostics);
 }

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { Band } from '../band.ts';
 import { percentField, quantityField } from '../study/fields.ts';
-import { compositeEdge, definiteElement, i2tElement, uniqueAscending, type EdgeElement } from './composite.ts';
+import { bandOfEdges, compositeEdge, definiteElement, i2tElement, type EdgeElement } from './composite.ts';
 
 /**
  * Builds the electronic trip-unit (LSIG) schema for a system frequency; `tripUnitSchema` is the
@@ -190,23 +190,6 @@ function delayedElement(
 ): EdgeElement {
   const through = element.i2tThrough * base;
   return element.i2t ? i2tElement(pickup, delay, through, through) : definiteElement(pickup, delay);
-}
-
-function bandOfEdges(
-  low: ReturnType<typeof compositeEdge>,
-  high: ReturnType<typeof compositeEdge>,
-  currentLimitingFrom: number,
-  diagnostics: string[],
-): Band {
-  return {
-    minTime: low.time,
-    maxTime: high.time,
-    breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
-    minAmps: low.minAmps,
-    maxAmps: Infinity,
-    currentLimitingFrom,
-    diagnostics,
-  };
 }
 
 /** Settings outside their usual ranges (REFERENCE §3.2, common practice); the band is still built. */
