@@ -3,9 +3,10 @@ import { expectedGot, InputError } from '../../engine/errors.ts';
 import { faultLevelsOf, type BusFault, type FaultLevels } from '../../engine/fault/index.ts';
 import { networkOf } from '../../engine/network/index.ts';
 import { significant } from '../../engine/quantity/index.ts';
-import { formatProblem, readStudy, type Study } from '../../engine/study/index.ts';
+import type { Study } from '../../engine/study/index.ts';
 import { parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
+import { loadStudyFile } from '../studyFile.ts';
 import { formatTable, tableAmps } from '../table.ts';
 
 const HELP = `discern faults <study.json> — bolted fault currents at every bus, maximum and minimum
@@ -35,19 +36,8 @@ export const faultsCommand: Command = {
       return 0;
     }
     const [path, extra] = parsed.positionals;
-    if (path === undefined) throw new InputError('faults', expectedGot('a study file', undefined));
     if (extra !== undefined) throw new InputError('faults', expectedGot('one study file', extra));
-    let text: string;
-    try {
-      text = io.readText(path);
-    } catch {
-      throw new InputError(path, expectedGot('a readable study file', path));
-    }
-    const { study, problems } = readStudy(text);
-    if (!study) {
-      io.stderr(`${formatProblem(problems[0])}\n`);
-      return 2;
-    }
+    const study = loadStudyFile(path, io, 'faults');
     const levels = faultLevelsOf(networkOf(study));
     io.stdout(parsed.flags.has('json') ? `${JSON.stringify(jsonOf(study, levels), null, 2)}\n` : textOf(study, levels));
     return 0;
