@@ -1,0 +1,199 @@
+import { segmentCrossesBox } from './clip.ts';
+import { boxInside, boxesOverlap, type Box } from './geometry.ts';
+
+/** One place a label may go, and how much we would rather not put it there (0 = ideal). */
+export interface LabelCandidate {
+  box: Box;
+  cost: number;
+}
+
+/** A label to place: its size, the point it names and the places it may go, best first or not. */
+export interface LabelRequest {
+  id: string;
+  width: number;
+  height: number;
+  /** The pixel the label names (a point on its curve, a marker); the fallback search starts here. */
+  anchor: [number, number];
+  candidates: LabelCandidate[];
+}
+
+/** Where a label went; `leader` is a line from its anchor to the box when the box had to move away. */
+export interface LabelPlacement {
+  id: string;
+  box: Box;
+  leader: [number, number, number, number] | null;
+}
+
+/** Options of the label layout. */
+export interface LayoutOptions {
+  /** Every label box must lie inside this (the plot area). */
+  bounds: Box;
+  /** Boxes no label may overlap (text already placed by other means). */
+  obstacles?: Box[];
+  /** Curve lines (interleaved pixels); a label crossing one pays `lineCost` per segment. */
+  lines?: Float64Array[];
+  /** The id of the request each line belongs to (same order as `lines`), if any. */
+  lineOwners?: (string | undefined)[];
+  /** A label this close (px) to another request's line pays `nearCost` per segment, so it reads as its own curve's. @default 6 */
+  nearGap?: number;
+  /** @default 1 */
+  nearCost?: number;
+  /** Cost of a label box crossing one curve segment. @default 4 */
+  lineCost?: number;
+  /** Clear space kept between label boxes, px. @default 1 */
+  gap?: number;
+  /** Grid step of the fallback search, px. @default 6 */
+  searchStep?: number;
+}
+
+/**
+ * Places labels one after another, each in its cheapest candidate box that lies inside `bounds`,
+ * overlaps no placed label or obstacle (with `gap` px to spare), counting the curve segments it
+ * would cover. A label with no free candidate is put in the nearest free spot of a grid over the
+ * bounds, with a leader line back to its anchor. Boxes never overlap; a label that finds no spot at
+ * all is listed in `unplaced`.
+ * @example placeLabels([request], { bounds }).placed[0].box
+ */
+export function placeLabels(
+  requests: LabelRequest[],
+  options: LayoutOptions,
+): { placed: LabelPlacement[]; unplaced: string[] } {
+  const { bounds, obstacles = [], lines = [], lineOwners = [], lineCost = 4, gap = 1, searchStep = 6 } = options;
+  const { nearGap = 6, nearCost = 1 } = options;
+  const taken: Box[] = [...obstacles];
+  const placed: LabelPlacement[] = [];
+  const unplaced: string[] = [];
+  const others = (id: string) => lines.filter((_, i) => lineOwners[i] !== undefined && lineOwners[i] !== id);
+  const free = (box: Box) => boxInside(box, bounds) && !taken.some((t) => boxesOverlap(grow(box, gap), t));
+
+  for (const request of requests) {
+    const foreign = others(request.id);
+    const lineCosts = (box: Box) =>
+      lineCost * countCrossings(lines, box) +
+      (foreign.length ? nearCost * countCrossings(foreign, grow(box, nearGap)) : 0);
+    let best: LabelCandidate | null = null;
+    let bestCost = Infinity;
+    for (const candidate of request.candidates) {
+      if (candidate.cost >= bestCost || !free(candidate.box)) continue;
+      const cost = candidate.cost + lineCosts(candidate.box);
+      if (cost < bestCost) [best, bestCost] = [candidate, cost];
+    }
+    let leader: LabelPlacement['leader'] = null;
+    if (!best) {
+      best = searchFree(request, bounds, searchStep, free, lineCosts);
+      if (best) leader = leaderOf(request.anchor, best.box);
+    }
+    if (!best) {
+      unplaced.push(request.id);
+      continue;
+    }
+    taken.push(best.box);
+    placed.push({ id: request.id, box: best.box, leader });
+  }
+  return { placed, unplaced };
+}
+
+/**
+ * The eight places around a point a label of `width` × `height` px may take, `gap` px from it, with
+ * the costs of a reader's preference: above right first, then right, above, below right, and so on.
+ * @example candidatesAround([100, 100], 40, 12, 3)[0].box // { x: 103, y: 85, width: 40, height: 12 }
+ */
+export function candidatesAround(
+  [x, y]: [number, number],
+  width: number,
+  height: number,
+  gap: number,
+  baseCost = 0,
+): LabelCandidate[] {
+  const places: [number, number, number][] = [
+    [x + gap, y - gap - height, 0],
+    [x + gap, y - height / 2, 0.4],
+    [x - width / 2, y - gap - height, 0.8],
+    [x + gap, y + gap, 1],
+    [x - gap - width, y - gap - height, 1.2],
+    [x - gap - width, y - height / 2, 1.5],
+    [x - width / 2, y + gap, 1.5],
+    [x - gap - width, y + gap, 2],
+  ];
+  return places.map(([bx, by, cost]) => ({ box: { x: bx, y: by, width, height }, cost: cost + baseCost }));
+}
+
+/**
+ * Points spread evenly by length along a polyline (interleaved pixels), at fractions
+ * (i + 0.5) / count of its length; the anchors a curve's label is tried at.
+ * @example pointsAlong(new Float64Array([0, 0, 100, 0]), 2) // [[25, 0], [75, 0]]
+ */
+export function pointsAlong(polyline: Float64Array, count: number): [number, number][] {
+  const n = polyline.length / 2;
+  if (n === 0) return [];
+  if (n === 1) return [[polyline[0], polyline[1]]];
+  const lengths = [0];
+  for (let i = 1; i < n; i++)
+    lengths.push(
+      lengths[i - 1] + Math.hypot(polyline[2 * i] - polyline[2 * i - 2], polyline[2 * i + 1] - polyline[2 * i - 1]),
+    );
+  const total = lengths[n - 1];
+  const out: [number, number][] = [];
+  let j = 1;
+  for (let k = 0; k < count; k++) {
+    const target = (total * (k + 0.5)) / count;
+    while (j < n - 1 && lengths[j] < target) j++;
+    const span = lengths[j] - lengths[j - 1];
+    const f = span > 0 ? (target - lengths[j - 1]) / span : 0;
+    out.push([
+      polyline[2 * j - 2] + f * (polyline[2 * j] - polyline[2 * j - 2]),
+      polyline[2 * j - 1] + f * (polyline[2 * j + 1] - polyline[2 * j - 1]),
+    ]);
+  }
+  return out;
+}
+
+// Accepts a request with no free candidate; the free grid spot nearest its anchor, counting crossings.
+function searchFree(
+  request: LabelRequest,
+  bounds: Box,
+  step: number,
+  free: (box: Box) => boolean,
+  crossingCost: (box: Box) => number,
+): LabelCandidate | null {
+  const { width, height, anchor } = request;
+  let best: LabelCandidate | null = null;
+  for (let y = bounds.y + 2; y + height <= bounds.y + bounds.height - 2; y += step) {
+    for (let x = bounds.x + 2; x + width <= bounds.x + bounds.width - 2; x += step) {
+      const box = { x, y, width, height };
+      const [lx, ly] = nearestPoint(anchor, box);
+      const distanceCost = Math.hypot(lx - anchor[0], ly - anchor[1]) / 10;
+      if (best && distanceCost >= best.cost) continue;
+      if (!free(box)) continue;
+      const cost = distanceCost + crossingCost(box);
+      if (!best || cost < best.cost) best = { box, cost };
+    }
+  }
+  return best;
+}
+
+// Accepts an anchor and a box; the leader from the anchor to the box's nearest point.
+function leaderOf(anchor: [number, number], box: Box): [number, number, number, number] {
+  const [x, y] = nearestPoint(anchor, box);
+  return [anchor[0], anchor[1], x, y];
+}
+
+// Accepts a point and a box; the point of the box closest to it.
+function nearestPoint([x, y]: [number, number], box: Box): [number, number] {
+  return [Math.min(Math.max(x, box.x), box.x + box.width), Math.min(Math.max(y, box.y), box.y + box.height)];
+}
+
+// Accepts curve lines as interleaved pixels; how many of their segments touch the box.
+function countCrossings(lines: Float64Array[], box: Box): number {
+  let count = 0;
+  for (const line of lines) {
+    for (let i = 0; i + 3 < line.length; i += 2)
+      if (segmentCrossesBox(line[i], line[i + 1], line[i + 2], line[i + 3], box)) count++;
+  }
+  return count;
+}
+
+// Accepts a box; the same box grown by `by` px on every side.
+function grow(box: Box, by: number): Box {
+  return { x: box.x - by, y: box.y - by, width: box.width + 2 * by, height: box.height + 2 * by };
+}

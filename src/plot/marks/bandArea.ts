@@ -1,0 +1,134 @@
+import { traceBand, clampTime, type BandTrace } from '../bandTrace.ts';
+import type { PathItem } from '../geometry.ts';
+import { pathOf } from '../precision.ts';
+import { drawWindowOf, pixelOf, type SheetScales } from '../scales.ts';
+import type { SheetBand } from '../sheetInput.ts';
+import { simplifyPolyline } from '../simplify.ts';
+
+/** How a band is drawn: a light fill between its edges and a solid line along each edge. */
+export const bandAreaDefaults = {
+  /** px */
+  strokeWidth: 1.6,
+  fillOpacity: 0.13,
+  /** px: points closer than this to the line through their neighbours are dropped. */
+  tolerance: 0.1,
+} as const;
+
+/** Options of the band mark. */
+export interface BandAreaOptions {
+  /** Stroke and fill colour (an Okabe–Ito colour, by the band's order on the sheet). */
+  colour: string;
+  /** Edge line width in px. @default 1.6 */
+  strokeWidth?: number;
+  /** Opacity of the fill between the edges, 0–1. @default 0.13 */
+  fillOpacity?: number;
+  /** Simplification tolerance in px. @default 0.1 */
+  tolerance?: number;
+}
+
+/** A band's drawing: the primitives, and its edge lines in pixels for label placement. */
+export interface BandAreaGeometry {
+  items: PathItem[];
+  /** Visible edge lines as interleaved pixels, the maximum (clearing) edge first. */
+  strokes: Float64Array[];
+}
+
+/**
+ * Draws a band: the area between its edges clipped to the draw window (times from the half-cycle
+ * line to the top of the sheet, currents across the axis up to the band's `maxAmps` or the sheet
+ * band's `toAmps`, whichever is lower), and each edge
+ * as a line where it lies inside the window. A pickup is an exact vertical because the band is
+ * sampled on both sides of each breakpoint. When the edges coincide it is one line and no fill.
+ * @example bandArea(sheetBand, scales, { colour: '#E69F00' }).items.map((p) => p.role) // ['band-fill', 'band-max', 'band-min']
+ */
+export function bandArea(sheetBand: SheetBand, scales: SheetScales, options: BandAreaOptions): BandAreaGeometry {
+  const { colour, strokeWidth, fillOpacity, tolerance } = { ...bandAreaDefaults, ...options };
+  const window = drawWindowOf(scales);
+  const perDecade =
+    Math.abs(scales.x.range[1] - scales.x.range[0]) / Math.log10(scales.x.domain[1] / scales.x.domain[0]);
+  const to = Math.min(window.amps[1], sheetBand.toAmps ?? Infinity);
+  const trace = traceBand(sheetBand.band, { ...window, amps: [window.amps[0], to] }, Math.max(8, perDecade));
+  if (!trace) return { items: [], strokes: [] };
+  const [bottom, top] = window.seconds;
+  const first = trace.minTimes.findIndex((t) => t <= top);
+  const last = lastIndex(trace.maxTimes, (t) => t >= bottom);
+  if (first < 0 || last < first) return { items: [], strokes: [] };
+
+  const items: PathItem[] = [];
+  const dataId = sheetBand.id;
+  if (!trace.coincident) {
+    const outline = fillOutline(trace, first, last, scales, window.seconds);
+    const points = simplifyPolyline(outline, tolerance);
+    items.push({
+      type: 'path',
+      role: 'band-fill',
+      dataId,
+      d: pathOf(points, true),
+      points,
+      fill: colour,
+      fillOpacity,
+      stroke: 'none',
+    });
+  }
+  const strokes: Float64Array[] = [];
+  const edges = trace.coincident ? (['max'] as const) : (['max', 'min'] as const);
+  for (const edge of edges) {
+    const times = edge === 'max' ? trace.maxTimes : trace.minTimes;
+    for (const run of visibleRuns(trace.amps, times, scales, window.seconds)) {
+      const points = simplifyPolyline(run, tolerance);
+      strokes.push(points);
+      const role = trace.coincident ? 'band-line' : `band-${edge}`;
+      items.push({ type: 'path', role, dataId, d: pathOf(points), points, stroke: colour, strokeWidth, fill: 'none' });
+    }
+  }
+  return { items, strokes };
+}
+
+// Accepts a trace and the index span where the band shows; the fill outline, upper edge out and lower edge back.
+function fillOutline(
+  trace: BandTrace,
+  first: number,
+  last: number,
+  scales: SheetScales,
+  seconds: [number, number],
+): Float64Array {
+  const count = last - first + 1;
+  const out = new Float64Array(count * 4);
+  for (let k = 0; k < count; k++) {
+    const i = first + k;
+    const x = pixelOf(scales.x, trace.amps[i]);
+    out[2 * k] = x;
+    out[2 * k + 1] = pixelOf(scales.y, clampTime(trace.maxTimes[i], seconds));
+    const back = 2 * (2 * count - 1 - k);
+    out[back] = x;
+    out[back + 1] = pixelOf(scales.y, clampTime(trace.minTimes[i], seconds));
+  }
+  return out;
+}
+
+// Accepts one edge's samples; the runs of consecutive samples inside the time window, as pixel polylines.
+function visibleRuns(
+  amps: Float64Array,
+  times: Float64Array,
+  scales: SheetScales,
+  [bottom, top]: [number, number],
+): Float64Array[] {
+  const runs: Float64Array[] = [];
+  let run: number[] = [];
+  for (let i = 0; i <= amps.length; i++) {
+    const inside = i < amps.length && times[i] >= bottom && times[i] <= top;
+    if (inside) {
+      run.push(pixelOf(scales.x, amps[i]), pixelOf(scales.y, times[i]));
+      continue;
+    }
+    if (run.length >= 4) runs.push(Float64Array.from(run));
+    run = [];
+  }
+  return runs;
+}
+
+// Accepts a typed array and a predicate; the last index where it holds, or -1.
+function lastIndex(values: Float64Array, predicate: (v: number) => boolean): number {
+  for (let i = values.length - 1; i >= 0; i--) if (predicate(values[i])) return i;
+  return -1;
+}

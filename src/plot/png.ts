@@ -1,0 +1,33 @@
+import { Resvg } from '@resvg/resvg-js';
+
+/** The DejaVu faces a PNG is set in (Debian `fonts-dejavu-core`); named so output never depends on what else is installed. */
+export const DEJAVU_FONT_FILES = [
+  '/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf',
+  '/usr/share/fonts/truetype/dejavu/DejaVuSans-Bold.ttf',
+] as const;
+
+/** Options of {@link pngOf}. */
+export interface PngOptions {
+  /** Pixels per SVG unit: 2 gives a 1920 × 1440 image from a 960 × 720 sheet. @default 2 */
+  scale?: number;
+  /** TrueType files to set the text in. @default DEJAVU_FONT_FILES */
+  fontFiles?: readonly string[];
+}
+
+/**
+ * Renders an SVG string (a sheet from `svgOf`) to PNG bytes in Node with resvg, with system fonts
+ * off and the DejaVu files named, so the same SVG gives the same pixels on every machine that has
+ * those files. Throws a `RangeError` for a scale outside 0.1–10.
+ * @example writeFileSync('sheet.png', pngOf(svgOf(sheet), { scale: 2 }))
+ */
+export function pngOf(svg: string, options: PngOptions = {}): Uint8Array {
+  const { scale = 2, fontFiles = DEJAVU_FONT_FILES } = options;
+  if (!(Number.isFinite(scale) && scale >= 0.1 && scale <= 10))
+    throw new RangeError(`options.scale: expected a zoom from 0.1 to 10, got "${scale}"`);
+  const resvg = new Resvg(svg, {
+    font: { loadSystemFonts: false, fontFiles: [...fontFiles], defaultFontFamily: 'DejaVu Sans' },
+    fitTo: { mode: 'zoom', value: scale },
+    background: '#ffffff',
+  });
+  return new Uint8Array(resvg.render().asPng());
+}

@@ -1,0 +1,31 @@
+import { line } from 'd3-shape';
+
+/**
+ * Decimal places kept for every pixel coordinate the sheet writes out. This is the one place the plot
+ * layer rounds: path strings go through {@link pathOf}, lone numbers through {@link fixed}.
+ */
+export const DIGITS = 3;
+
+const polyline = line<readonly [number, number]>().digits(DIGITS);
+
+/**
+ * Formats a pixel coordinate with at most {@link DIGITS} decimals, no trailing zeros and no "-0".
+ * @example fixed(12.34567) // "12.346"
+ */
+export function fixed(value: number): string {
+  const rounded = Number(value.toFixed(DIGITS));
+  return String(rounded === 0 ? 0 : rounded);
+}
+
+/**
+ * An SVG path string for a polyline given as interleaved pixel coordinates `[x0, y0, x1, y1, …]`,
+ * rounded to {@link DIGITS} decimals; `closed` appends `Z`. Fewer than two points give "".
+ * @example pathOf(new Float64Array([0, 0, 10, 5])) // "M0,0L10,5"
+ */
+export function pathOf(points: ArrayLike<number>, closed = false): string {
+  if (points.length < 4) return '';
+  const pairs: [number, number][] = [];
+  for (let i = 0; i + 1 < points.length; i += 2) pairs.push([points[i], points[i + 1]]);
+  const d = polyline(pairs) ?? '';
+  return closed ? `${d}Z` : d;
+}

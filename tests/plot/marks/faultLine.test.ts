@@ -1,0 +1,40 @@
+import { describe, expect, it } from 'vitest';
+import { faultLabel, faultLine, faultLineDefaults } from '../../../src/plot/marks/faultLine.ts';
+import { pixelOf, scalesOf } from '../../../src/plot/scales.ts';
+
+const scales = scalesOf({ current: [10, 1e5], time: [0.01, 1000] }, { left: 100, top: 50, right: 700, bottom: 650 });
+// REFERENCE §7.4 (computed): 1500 kVA 12.47 kV–480 V, 250 MVA source: 28 421.1 A at 480 V = 1093.99 A at 12.47 kV.
+const swbd = { busId: 'SWBD', label: 'SWBD', amps: 1093.99, ownVolts: 480, ownAmps: 28_421.1, kind: 'max' as const };
+
+describe('faultLine', () => {
+  it('has the expected defaults', () => {
+    expect(faultLineDefaults).toEqual({ colour: '#4d4d4d', strokeWidth: 1.3, minDash: '9 3 2 3' });
+    const g = faultLine(swbd, scales, { fontSize: 11, referenceVolts: 12_470 });
+    expect(g.items[0]).toMatchObject({ role: 'fault-max', stroke: '#4d4d4d', dataId: 'SWBD:max' });
+    expect(g.items[0].dash).toBeUndefined();
+  });
+
+  it('faultLine draws a full-height vertical at the current on the sheet base', () => {
+    const { items } = faultLine(swbd, scales, { fontSize: 11, referenceVolts: 12_470 });
+    const x = pixelOf(scales.x, 1093.99);
+    expect([...items[0].points!]).toEqual([x, 650, x, 50]);
+  });
+
+  it('faultLabel reads a secondary fault and its primary-reflected value together (REFERENCE §7.4)', () => {
+    expect(faultLabel(swbd, 12_470)).toBe('SWBD 28.4 kA @ 480 V = 1.09 kA @ 12.47 kV');
+    expect(faultLabel({ ...swbd, amps: 28_421.1 }, 480)).toBe('SWBD 28.4 kA @ 480 V');
+    expect(faultLabel({ ...swbd, amps: 850, ownAmps: 850, kind: 'min' }, 480)).toBe('SWBD min 850 A @ 480 V');
+    // A label that already states its current is used as given.
+    expect(faultLabel({ ...swbd, label: 'SWBD 28.4 kA @ 480 V' }, 12_470)).toBe('SWBD 28.4 kA @ 480 V');
+  });
+
+  it('faultLine dashes the minimum level and skips a current off the axis', () => {
+    expect(faultLine({ ...swbd, kind: 'min' }, scales, { fontSize: 11, referenceVolts: 12_470 }).items[0].dash).toBe(
+      '9 3 2 3',
+    );
+    expect(faultLine({ ...swbd, amps: 5e5 }, scales, { fontSize: 11, referenceVolts: 12_470 })).toEqual({
+      items: [],
+      label: null,
+    });
+  });
+});

@@ -1,0 +1,35 @@
+import { describe, expect, it } from 'vitest';
+import { textWidth, truncateText, wrapText } from '../../src/plot/textWidth.ts';
+import { assertInDelta } from '../asserts.ts';
+
+describe('textWidth', () => {
+  it('has the expected defaults', () => {
+    // DejaVu Sans digits advance 1303 of 2048 units; bold 1425.
+    assertInDelta(textWidth('0', 2048), 1303, 1e-12);
+    assertInDelta(textWidth('0', 2048, 'bold'), 1425, 1e-12);
+    expect(textWidth('', 11)).toBe(0);
+  });
+
+  it('textWidth adds the advances of each character, symbols included', () => {
+    // '4','8','0',' ','V' = 1303·3 + 651 + 1401 units; 'Ω' 1565 units.
+    assertInDelta(textWidth('480 V', 11), ((1303 * 3 + 651 + 1401) / 2048) * 11, 1e-12);
+    assertInDelta(textWidth('Ω', 2048), 1565, 1e-12);
+  });
+});
+
+describe('wrapText', () => {
+  it('wrapText keeps every line within the width and loses no word', () => {
+    const text = 'For review by a qualified engineer. Local codes and the authority having jurisdiction govern.';
+    const lines = wrapText(text, 150, 11);
+    expect(lines.length).toBeGreaterThan(2);
+    for (const line of lines) expect(textWidth(line, 11)).toBeLessThanOrEqual(150);
+    expect(lines.join(' ')).toBe(text);
+  });
+
+  it('truncateText cuts a long word with an ellipsis that fits', () => {
+    const cut = truncateText('FEEDER-TO-COMPRESSOR-MCC', 60, 11);
+    expect(cut.endsWith('…')).toBe(true);
+    expect(textWidth(cut, 11)).toBeLessThanOrEqual(60);
+    expect(truncateText('MAIN', 60, 11)).toBe('MAIN');
+  });
+});
