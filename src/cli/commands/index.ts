@@ -2,12 +2,14 @@ import type { Command } from '../command.ts';
 import { bandCommand } from './band.ts';
 import { checkCommand } from './check.ts';
 import { faultsCommand } from './faults.ts';
+import { plotCommand } from './plot.ts';
 import { transformerCommand } from './transformer.ts';
 
 export { transformerCommand } from './transformer.ts';
 export { faultsCommand } from './faults.ts';
 export { bandCommand } from './band.ts';
 export { checkCommand } from './check.ts';
+export { plotCommand } from './plot.ts';
 
 /** Every verb of `discern`, in the order `discern --help` lists them. Adding a verb: one import, one entry. */
-export const commands: Command[] = [transformerCommand, faultsCommand, bandCommand, checkCommand];
+export const commands: Command[] = [transformerCommand, faultsCommand, bandCommand, checkCommand, plotCommand];

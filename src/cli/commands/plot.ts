@@ -1,0 +1,80 @@
+import { analyseStudy } from '../../engine/analysis.ts';
+import { expectedGot, InputError } from '../../engine/errors.ts';
+import { sheetOf } from '../../plot/sheet.ts';
+import { svgOf } from '../../plot/svg.ts';
+import { viewInputOf } from '../../plot/viewInput.ts';
+import { flagText, parseArgs } from '../args.ts';
+import type { Command } from '../command.ts';
+import { loadStudyFile } from '../studyFile.ts';
+
+const HELP = `discern plot <study.json> --out FILE — one view of a study as a TCC figure
+
+  --out FILE        fig.svg, fig.png or fig.pdf (the format follows the ending)
+  --view ID         which view (default: the study's first view)
+  --width PX        sheet width in px (default 960; at least 480)
+  --height PX       sheet height in px (default 720; at least 360)
+  --paper SIZE      PDF paper, letter or a4, printed landscape (default letter)
+  --scale N         PNG pixels per sheet px (default 2)
+
+Every figure carries the caution line: for review by a qualified engineer.
+`;
+
+/**
+ * `discern plot <study> --out fig.svg|png|pdf`: analyses the study and writes one view as the same
+ * figure the workbench exports (`viewInputOf` → `sheetOf` → `svgOf`, then resvg or jspdf).
+ *
+ * @example await plotCommand.run(['demo/harrowmere-selective.json', '--view', 'primary', '--out', 'out/primary.pdf'], io)
+ */
+export const plotCommand: Command = {
+  verb: 'plot',
+  summary: 'a view of a study as an SVG, PNG or PDF figure',
+  help: HELP,
+  async run(args, io) {
+    const parsed = parseArgs(args, {
+      out: 'value',
+      view: 'value',
+      width: 'value',
+      height: 'value',
+      paper: 'value',
+      scale: 'value',
+      help: 'switch',
+    });
+    if (parsed.flags.has('help')) {
+      io.stdout(HELP);
+      return 0;
+    }
+    const [path, extra] = parsed.positionals;
+    if (extra !== undefined) throw new InputError('plot', expectedGot('one study file', extra));
+    const out = flagText(parsed, 'out');
+    const format = /\.(svg|png|pdf)$/i.exec(out ?? '')?.[1].toLowerCase();
+    if (!out || !format) throw new InputError('--out', expectedGot('a file name ending .svg, .png or .pdf', out));
+    const width = numberFlag(flagText(parsed, 'width'), '--width');
+    const height = numberFlag(flagText(parsed, 'height'), '--height');
+    const scale = numberFlag(flagText(parsed, 'scale'), '--scale');
+    const paper = flagText(parsed, 'paper') ?? 'letter';
+    if (paper !== 'letter' && paper !== 'a4') throw new InputError('--paper', expectedGot('"letter" or "a4"', paper));
+
+    const study = loadStudyFile(path, io, 'plot');
+    const viewId = flagText(parsed, 'view') ?? study.views[0]?.id;
+    if (!viewId) throw new InputError(`${path}: study.views`, expectedGot('at least one view to plot', 'none'));
+    if (!study.views.some((view) => view.id === viewId)) {
+      throw new InputError('--view', expectedGot(`one of ${study.views.map((v) => v.id).join(', ')}`, viewId));
+    }
+    const sheet = sheetOf(viewInputOf(analyseStudy(study), viewId), { width, height, idPrefix: `tcc-${viewId}` });
+    const svg = svgOf(sheet);
+    // The PNG and PDF writers load native and large modules: only when asked for.
+    if (format === 'svg') io.writeFile(out, svg);
+    else if (format === 'png') io.writeFile(out, (await import('../../plot/png.ts')).pngOf(svg, { scale }));
+    else io.writeFile(out, await (await import('../../plot/pdf.ts')).pdfOf(svg, { paper }));
+    io.stdout(`${viewId}: wrote ${out}\n`);
+    return 0;
+  },
+};
+
+/** A positive number flag, or undefined when absent. */
+function numberFlag(text: string | undefined, flag: string): number | undefined {
+  if (text === undefined) return undefined;
+  const value = Number(text);
+  if (!(Number.isFinite(value) && value > 0)) throw new InputError(flag, expectedGot('a number greater than 0', text));
+  return value;
+}

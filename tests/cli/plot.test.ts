@@ -1,0 +1,52 @@
+import { describe, expect, it } from 'vitest';
+import { JSDOM } from 'jsdom';
+import { plotCommand } from '../../src/cli/commands/plot.ts';
+import { CAUTION } from '../../src/engine/caution.ts';
+import { runVerb } from './run.ts';
+
+describe('discern plot', () => {
+  it('has the expected defaults: the first view, as a standalone SVG carrying the caution', async () => {
+    const { code, stdout, files } = await runVerb(
+      ['demo/harrowmere-selective.json', '--out', 'out/x.svg'],
+      plotCommand,
+    );
+    expect(code).toBe(0);
+    expect(stdout).toBe('service: wrote out/x.svg\n');
+    const svg = String(files.get('out/x.svg'));
+    const doc = new new JSDOM('').window.DOMParser().parseFromString(svg, 'image/svg+xml');
+    expect(doc.getElementsByTagName('parsererror')).toHaveLength(0);
+    expect(doc.documentElement.getAttribute('width')).toBe('960');
+    expect(doc.documentElement.textContent?.replace(/\s+/g, ' ')).toContain(CAUTION.slice(0, 40));
+  });
+
+  it('writes PNG and PDF bytes for a chosen view and size', async () => {
+    const png = await runVerb(
+      ['demo/harrowmere-fused.json', '--view', 'primary', '--out', 'out/x.png', '--scale', '1'],
+      plotCommand,
+    );
+    expect(Array.from((png.files.get('out/x.png') as Uint8Array).slice(0, 4))).toEqual([0x89, 0x50, 0x4e, 0x47]);
+    const pdf = await runVerb(
+      ['demo/harrowmere-fused.json', '--view', 'primary', '--out', 'out/x.pdf', '--paper', 'a4'],
+      plotCommand,
+    );
+    expect(new TextDecoder().decode((pdf.files.get('out/x.pdf') as Uint8Array).slice(0, 5))).toBe('%PDF-');
+  });
+
+  it('exits 2 naming the flag for a bad format, view, size or paper', async () => {
+    const cases: [string[], RegExp][] = [
+      [['--out', 'x.gif'], /^--out: expected a file name ending \.svg, \.png or \.pdf, got "x\.gif"\n$/],
+      [
+        ['--out', 'x.svg', '--view', 'nowhere'],
+        /^--view: expected one of service, primary, office, emergency, got "nowhere"\n$/,
+      ],
+      [['--out', 'x.svg', '--width', '-3'], /^--width: expected a number greater than 0, got "-3"\n$/],
+      [['--out', 'x.svg', '--width', '100'], /^options\.width: expected a width in px of at least 480, got "100"\n$/],
+      [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected "letter" or "a4", got "legal"\n$/],
+    ];
+    for (const [args, message] of cases) {
+      const { code, stderr } = await runVerb(['demo/harrowmere-selective.json', ...args], plotCommand);
+      expect(code).toBe(2);
+      expect(stderr).toMatch(message);
+    }
+  });
+});
