@@ -67,9 +67,10 @@ const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not 
  *
  * At each current: `overlap` where `up.minTime · timeRatio < down.maxTime + margin` (so also where the
  * upstream device operates on a current the downstream one carries indefinitely); `thin margin` where the
- * slack is below `thinMargin`; `not provable from curves` where both edges are at or below the
- * half-cycle, or where either device is current-limiting while the upstream one responds within the
- * instantaneous region; otherwise `selective`.
+ * slack is below `thinMargin`; `not provable from curves` where both bands reach down to the
+ * half-cycle (the upstream earliest time and the downstream earliest time at or below it: two
+ * instantaneous trips), or where either device is current-limiting while the upstream one responds
+ * within the instantaneous region; otherwise `selective`.
  *
  * @example findOverlaps(mainBand, feederBand, { toAmps: 28_421, margin: 0 })
  */
@@ -89,12 +90,13 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   if (!(fromAmps > 0) || !(toAmps > fromAmps)) return [];
   const upMin = (amps: number) => beyond(up.minTime(amps), horizon);
   const downMax = (amps: number) => beyond(down.maxTime(amps), horizon);
+  const downFast = down.minTime;
   const limitingFrom = Math.min(up.currentLimitingFrom, down.currentLimitingFrom);
 
   const classOf = (amps: number, upTime: number, downTime: number): number => {
     if (upTime === Infinity) return 0;
     const limiting = amps >= limitingFrom && upTime < instantaneousRegion;
-    if ((upTime <= halfCycle && downTime <= halfCycle) || limiting) return 3;
+    if ((upTime <= halfCycle && (downTime <= halfCycle || downFast(amps) <= halfCycle)) || limiting) return 3;
     const slack = upTime * timeRatio - (downTime + margin);
     if (!(slack >= 0)) return 2;
     return slack < thinMargin ? 1 : 0;
