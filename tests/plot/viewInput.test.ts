@@ -1,0 +1,54 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { analyseStudy } from '../../src/engine/analysis.ts';
+import { CAUTION } from '../../src/engine/caution.ts';
+import { parseStudy } from '../../src/engine/study/index.ts';
+import { viewInputOf } from '../../src/plot/viewInput.ts';
+import { assertInDelta } from '../asserts.ts';
+
+const analysed = (name: string) => analyseStudy(parseStudy(readFileSync(`demo/harrowmere-${name}.json`, 'utf8')));
+
+describe('viewInputOf', () => {
+  it('has the expected defaults: the view’s devices on its base, fault lines of their buses, the caution', () => {
+    const input = viewInputOf(analysed('selective'), 'primary');
+    expect(input.referenceVolts).toBe(12_470);
+    expect(input.bands.map((b) => b.id)).toEqual(['R-T1', 'MAIN']);
+    expect(input.faultLines.map((f) => f.busId)).toEqual(['MV', 'SWBD']);
+    expect(input.caution).toBe(CAUTION);
+  });
+
+  it('draws a 480 V device on the 12.47 kV sheet at I · 480 / 12 470 (REFERENCE §1.7)', () => {
+    const analysis = analysed('selective');
+    const main = viewInputOf(analysis, 'primary').bands[1];
+    const own = analysis.bands.get('MAIN')!;
+    expect(main.ownVolts).toBe(480);
+    expect(main.band.maxTime((20_000 * 480) / 12_470)).toBe(own.maxTime(20_000));
+  });
+
+  it('labels the secondary fault with its primary-reflected value: 480/12 470 of the SWBD current', () => {
+    const analysis = analysed('selective');
+    const swbd = viewInputOf(analysis, 'primary').faultLines[1];
+    assertInDelta(swbd.amps, (analysis.faults.buses.get('SWBD')!.max.threePhase * 480) / 12_470, 1e-12);
+    expect(swbd.ownVolts).toBe(480);
+  });
+
+  it('adds the Δ–Yg secondary line-to-ground withstand curve, shifted by 0.58 (REFERENCE §1.8 item 2), and the inrush points', () => {
+    const input = viewInputOf(analysed('selective'), 'primary');
+    expect(input.withstand.map((w) => w.id)).toEqual(['T1', 'T1:shifted']);
+    assertInDelta(input.withstand[1].scale / input.withstand[0].scale, 0.58, 1e-9);
+    expect(input.markers.filter((m) => m.kind === 'inrush')).toHaveLength(1);
+  });
+
+  it('hatches the overlaps of the view’s pairs on the view’s base', () => {
+    const regions = viewInputOf(analysed('overlap'), 'service').regions;
+    expect(regions.length).toBeGreaterThan(0);
+    expect(regions.every((r) => r.toAmps > r.fromAmps)).toBe(true);
+    expect(regions.map((r) => r.status)).toContain('overlap');
+  });
+
+  it('rejects an unknown view, listing the views', () => {
+    expect(() => viewInputOf(analysed('selective'), 'nowhere')).toThrow(
+      /no view "nowhere" in the study \(views: service, primary, office, emergency\)/,
+    );
+  });
+});
