@@ -55,7 +55,10 @@ export function checkPair(
   const upBus = locationBusOf(network, upstream);
   const downBus = locationBusOf(network, downstream);
   const referenceVolts = downBus.voltage;
-  const rule = marginRuleOf(upstream.characteristic.kind, downstream.characteristic.kind, settings, upstream.margin);
+  const rule = marginRuleOf(upstream.characteristic.kind, downstream.characteristic.kind, settings, upstream.margin, {
+    upstream: upstream.id,
+    downstream: downstream.id,
+  });
   const kind = `${upstream.characteristic.kind}/${downstream.characteristic.kind}`;
   const upBand = scaleBand(bands.get(upstream.id)!, upBus.voltage / referenceVolts);
   const downBand = bands.get(downstream.id)!;

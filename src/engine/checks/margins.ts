@@ -61,8 +61,8 @@ export function defaultMarginRule(up: Family, down: Family, fuseRatio = 0.75): M
 }
 
 /**
- * The margin rule for a pair: a per-device `margin` on the upstream device first, then the study's
- * `coordination.margins["up/down"]`, then the defaults.
+ * The margin rule for a pair: the study's `coordination.pairs` entry for exactly this pair first, then
+ * a `margin` on the upstream device, then the study's `coordination.margins["up/down"]`, then the defaults.
  *
  * @example marginRuleOf('relay', 'fuse', settings, undefined) // { margin: 0.2, … }
  */
@@ -71,8 +71,11 @@ export function marginRuleOf(
   down: Family,
   settings: CoordinationSettings,
   deviceMargin?: number,
+  pair?: { upstream: string; downstream: string },
 ): MarginRule {
   const base = defaultMarginRule(up, down, settings.fuseRatio);
+  const own = pair && settings.pairs.find((p) => p.upstream === pair.upstream && p.downstream === pair.downstream);
+  if (own) return { ...base, margin: own.margin, basis: `${own.margin} s set in the study for this pair` };
   if (deviceMargin !== undefined)
     return { ...base, margin: deviceMargin, basis: `${deviceMargin} s set on the upstream device` };
   const studyMargin = settings.margins[`${up}/${down}`];

@@ -195,6 +195,18 @@ export function createStudySchema(frequency = 60) {
         )
         .default({})
         .meta({ description: 'required margin in seconds by pair kind, e.g. {"relay/relay": 0.3}' }),
+      pairs: z
+        .array(
+          z
+            .object({
+              upstream: idField,
+              downstream: idField,
+              margin: quantityField('time', { frequency, min: 0, max: 5 }),
+            })
+            .strict(),
+        )
+        .default([])
+        .meta({ description: 'required margin for one series pair, overriding every other rule' }),
       fuseRatio: z.number().positive().max(1).default(0.75).meta({
         description: 'fuse/fuse: downstream total clearing must stay below this fraction of upstream minimum melting',
       }),
@@ -204,7 +216,15 @@ export function createStudySchema(frequency = 60) {
         .meta({ description: 'NFPA 70 edition the code checks follow' }),
     })
     .strict()
-    .default({ thinMargin: 0.1, halfCycle: 0.01, horizon: 1000, margins: {}, fuseRatio: 0.75, edition: '2023' });
+    .default({
+      thinMargin: 0.1,
+      halfCycle: 0.01,
+      horizon: 1000,
+      margins: {},
+      pairs: [],
+      fuseRatio: 0.75,
+      edition: '2023',
+    });
 
   return z
     .object({

@@ -1,5 +1,6 @@
 import { expectedGot } from '../errors.ts';
 import type { StudyProblem } from './parse.ts';
+import { networkOf, upstreamDeviceOf } from '../network/network.ts';
 import type { Study } from './schema.ts';
 
 /** Winding voltages may differ from their bus's nominal voltage by this fraction (rounding of 480 vs 480Y/277). */
@@ -28,6 +29,18 @@ export function structureProblems(study: Study): StudyProblem[] {
   study.motors.forEach((m, i) => claim(`study.motors[${i}]`, m.id, 'motor'));
   study.devices.forEach((d, i) => claim(`study.devices[${i}]`, d.id, 'device'));
   const viewIds = new Set<string>();
+  // Per-pair margins name two devices in series, the first above the second.
+  const deviceFeeds = new Map(study.devices.map((d) => [d.id, d.feeds]));
+  const network = problems.length === 0 ? networkOf(study) : undefined;
+  study.coordination.pairs.forEach((pair, i) => {
+    const path = `study.coordination.pairs[${i}]`;
+    if (!deviceFeeds.has(pair.upstream)) problem(`${path}.upstream`, 'the id of a device', pair.upstream);
+    else if (!deviceFeeds.has(pair.downstream)) problem(`${path}.downstream`, 'the id of a device', pair.downstream);
+    else if (network && upstreamDeviceOf(network, network.devices.get(pair.downstream)!)?.id !== pair.upstream) {
+      problem(`${path}.upstream`, `the device just above ${pair.downstream}`, pair.upstream);
+    }
+  });
+
   study.views.forEach((v, i) => {
     if (viewIds.has(v.id)) problem(`study.views[${i}].id`, 'a view id not already used', v.id);
     viewIds.add(v.id);

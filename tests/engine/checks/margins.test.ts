@@ -12,6 +12,7 @@ describe('marginRuleOf', () => {
       halfCycle: 0.01,
       horizon: 1000,
       margins: {},
+      pairs: [],
       fuseRatio: 0.75,
       edition: '2023',
     });
@@ -46,5 +47,40 @@ describe('marginRuleOf', () => {
     });
     expect(withMargins({ 'relay/fuse': -0.1 }).path).toBe('study.coordination.margins["relay/fuse"]');
     expect(withMargins({ 'relay/fuse': -0.1 }).message).toMatch(/^expected a value of at least 0, got "-0.1"$/);
+  });
+});
+
+describe('coordination.pairs', () => {
+  const demo = () => JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8'));
+
+  it('sets the margin of one series pair, overriding every other rule', () => {
+    const study = readStudy({
+      ...demo(),
+      coordination: { pairs: [{ upstream: 'MAIN', downstream: 'FDR-MCC', margin: '6 cycles' }] },
+    }).study!;
+    expect(
+      marginRuleOf('trip-unit', 'trip-unit', study.coordination, 0.3, { upstream: 'MAIN', downstream: 'FDR-MCC' }),
+    ).toMatchObject({
+      margin: 0.1,
+      basis: '0.1 s set in the study for this pair',
+    });
+    expect(
+      marginRuleOf('trip-unit', 'trip-unit', study.coordination, undefined, {
+        upstream: 'MAIN',
+        downstream: 'FDR-DOCK',
+      }).margin,
+    ).toBe(0);
+  });
+
+  it('rejects a pair that names no device, or two devices that are not in series, naming the field', () => {
+    const problem = (pairs: object[]) => readStudy({ ...demo(), coordination: { pairs } }).problems[0];
+    expect(problem([{ upstream: 'NOPE', downstream: 'FDR-MCC', margin: 0.2 }])).toEqual({
+      path: 'study.coordination.pairs[0].upstream',
+      message: 'expected the id of a device, got "NOPE"',
+    });
+    expect(problem([{ upstream: 'R-T1', downstream: 'FDR-MCC', margin: 0.2 }])).toEqual({
+      path: 'study.coordination.pairs[0].upstream',
+      message: 'expected the device just above FDR-MCC, got "R-T1"',
+    });
   });
 });
