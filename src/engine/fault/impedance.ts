@@ -52,7 +52,7 @@ export function impedanceOfMagnitude(magnitude: number, xr?: number): Impedance 
   return { r, x: r * xr };
 }
 
-/** Admittance `1 / z` as a complex number `g + jb` stored in `{ r: g, x: b }` (siemens). @example invertImpedance({ r: 0, x: 2 }) // { r: 0, x: -0.5 } */
+/** Admittance `1 / z` as a complex number `g + jb` stored in `{ r: g, x: b }` (per ohm). @example invertImpedance({ r: 0, x: 2 }) // { r: 0, x: -0.5 } */
 export function invertImpedance(z: Impedance): Impedance {
   const d = z.r * z.r + z.x * z.x;
   if (d === 0) return { r: Infinity, x: Infinity };
