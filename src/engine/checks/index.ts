@@ -1,0 +1,15 @@
+export { checkPair } from './coordination.ts';
+export type { PairCheck, PairCase, PairFault } from './coordination.ts';
+export { transformerFindings } from './transformerProtection.ts';
+export { nec450Findings } from './nec450.ts';
+export { cableFindings, protectingDevice } from './cableProtection.ts';
+export { motorFindings } from './motorStarting.ts';
+export { defaultMarginRule, marginRuleOf } from './margins.ts';
+export type { Family, MarginRule } from './margins.ts';
+export { ratingOf } from './deviceRating.ts';
+export type { DeviceRating } from './deviceRating.ts';
+export { nextStandardRating, STANDARD_RATINGS, ADDITIONAL_FUSE_RATINGS } from './standardRatings.ts';
+export { withstandBandOf, PROTECTION_FINDER } from './withstandBand.ts';
+export { nameOf, rangeOf, describeRange, surelyClearsFrom, capitalise } from './context.ts';
+export type { CheckContext } from './context.ts';
+export type { Finding, FindingKind, Severity, CurrentRange } from './finding.ts';

@@ -1,0 +1,13 @@
+export { analyseStudy } from './analysis.ts';
+export type { Analysis } from './analysis.ts';
+export { probeAt } from './probe.ts';
+export type { Probe, ProbeReading } from './probe.ts';
+export { bandOf, scaleBand, evaluateBand, HALF_CYCLE_SECONDS } from './band.ts';
+export type { Band } from './band.ts';
+export { sampleBand } from './sampleBand.ts';
+export { findOverlaps } from './overlap.ts';
+export type { OverlapInterval, OverlapOptions, IntervalStatus, WorstPoint } from './overlap.ts';
+export { CAUTION, CAUTIONS } from './caution.ts';
+export { InputError, expectedGot } from './errors.ts';
+export { formatWork } from './work.ts';
+export type { Work, WorkStep } from './work.ts';
