@@ -4,7 +4,7 @@ import svelte from 'eslint-plugin-svelte';
 import globals from 'globals';
 
 export default ts.config(
-  { ignores: ['dist/', 'out/', 'node_modules/', 'tests/output/'] },
+  { ignores: ['dist/', 'dist-cli/', 'out/', 'node_modules/', 'tests/output/'] },
   js.configs.recommended,
   ...ts.configs.recommended,
   ...svelte.configs['flat/recommended'],
