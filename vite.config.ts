@@ -1,9 +1,52 @@
 import { defineConfig } from 'vitest/config';
+import type { Plugin } from 'vite';
 import { svelte } from '@sveltejs/vite-plugin-svelte';
+import { fileURLToPath } from 'node:url';
+
+// jspdf's helpers for HTML, raster SVG and PNG images (html2canvas, dompurify, canvg, fast-png) are never
+// used: the workbench writes sheets to PDF as vectors with svg2pdf.js, so a stub that throws replaces them.
+const absent = fileURLToPath(new URL('./src/app/lib/absentModule.ts', import.meta.url));
+
+/**
+ * The built page keeps a stricter Content-Security-Policy than the dev server can: no inline styles
+ * (the dev server injects them for hot reload) and no WebSocket (hot reload's channel).
+ */
+function strictBuildPolicy(): Plugin {
+  return {
+    name: 'discern-strict-build-policy',
+    apply: 'build',
+    transformIndexHtml: (html) =>
+      html
+        .replace("style-src 'self' 'unsafe-inline'", "style-src 'self'")
+        .replace("connect-src 'self' ws:", "connect-src 'self'"),
+  };
+}
 
 export default defineConfig({
-  plugins: [svelte()],
-  build: { outDir: 'dist', target: 'es2022' },
+  plugins: [svelte(), strictBuildPolicy()],
+  resolve: { alias: { html2canvas: absent, dompurify: absent, canvg: absent, 'fast-png': absent } },
+  build: { outDir: 'dist', target: 'es2022', chunkSizeWarningLimit: 800 },
+  worker: {
+    format: 'es',
+    // The checks' worker gets parsed studies, so it needs no schema: the engine builds its zod schemas
+    // (and the unit parser) at module level, and these calls are marked pure so the worker drops them.
+    rolldownOptions: {
+      treeshake: {
+        manualPureFunctions: [
+          'z',
+          'create',
+          'createStudySchema',
+          'createCharacteristicSchema',
+          'createRelaySchema',
+          'createTripUnitSchema',
+          'createThermalMagneticSchema',
+          'quantityField',
+          'percentField',
+          'pointTableSchema',
+        ],
+      },
+    },
+  },
   test: {
     include: ['tests/**/*.test.ts'],
     environment: 'node',

@@ -1,0 +1,17 @@
+export { default as CsvImport } from './CsvImport.svelte';
+export { default as Dialog } from './Dialog.svelte';
+export { default as FieldEditor } from './FieldEditor.svelte';
+export { default as FindingsPanel } from './FindingsPanel.svelte';
+export { default as ProbeReadout } from './ProbeReadout.svelte';
+export { default as ProblemsBar } from './ProblemsBar.svelte';
+export { default as PropertyEditor } from './PropertyEditor.svelte';
+export { default as RefusedFile } from './RefusedFile.svelte';
+export { default as Sheet } from './Sheet.svelte';
+export { default as SheetGuide } from './SheetGuide.svelte';
+export { default as SheetOverlay } from './SheetOverlay.svelte';
+export { default as SheetPanel } from './SheetPanel.svelte';
+export { default as SystemTree } from './SystemTree.svelte';
+export { default as TemplatePicker } from './TemplatePicker.svelte';
+export { default as Toolbar } from './Toolbar.svelte';
+export { default as ViewBar } from './ViewBar.svelte';
+export { default as WorkPanel } from './WorkPanel.svelte';

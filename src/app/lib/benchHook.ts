@@ -1,0 +1,60 @@
+import { flushSync } from 'svelte';
+import type { StudyContext } from '../state/context.ts';
+import type { DocumentPath } from './documentPath.ts';
+
+/** What `npm run bench` (DESIGN §7, P4) calls in the page: timings only, no access to anything else. */
+export interface BenchHook {
+  /**
+   * Sets the field at `path` to each of `values` in turn and returns, for each, the milliseconds
+   * from the edit until the sheet's DOM is updated and laid out.
+   */
+  measureEdits(path: DocumentPath, values: unknown[]): number[];
+  /** Moves the probe to each current (A at the reference voltage) and returns the milliseconds until its readout is laid out. */
+  measureProbe(amps: number[]): number[];
+  /** Paths of the numeric settings of the devices on the current sheet, for the benchmark to step. */
+  settingPaths(): { path: DocumentPath; value: number }[];
+}
+
+/**
+ * Installs `window.__discernBench`. The hook only times edits the user could make by hand.
+ * @example installBenchHook(window, { study, analysis, probe })
+ */
+export function installBenchHook(target: Window, context: StudyContext): void {
+  const { study, probe } = context;
+  const layout = () => document.querySelector('[data-testid="sheet-svg"]')?.getBoundingClientRect();
+  const hook: BenchHook = {
+    measureEdits(path, values) {
+      return values.map((value) => {
+        const start = performance.now();
+        study.edit(path, value, 'benchmark');
+        flushSync();
+        layout();
+        return performance.now() - start;
+      });
+    },
+    measureProbe(amps) {
+      return amps.map((a) => {
+        const start = performance.now();
+        probe.moveTo(a);
+        flushSync();
+        document.querySelector('[data-testid="probe-readout"]')?.getBoundingClientRect();
+        return performance.now() - start;
+      });
+    },
+    settingPaths() {
+      const found: { path: DocumentPath; value: number }[] = [];
+      const visit = (node: unknown, path: (string | number)[]) => {
+        if (typeof node === 'number' && path.length > 3) found.push({ path, value: node });
+        else if (node !== null && typeof node === 'object' && !Array.isArray(node)) {
+          for (const [key, child] of Object.entries(node)) visit(child, [...path, key]);
+        }
+      };
+      const onSheet = new Set(study.view?.devices ?? []);
+      (study.document.devices ?? []).forEach((device, i) => {
+        if (onSheet.has(device.id)) visit(device.characteristic, ['devices', i, 'characteristic']);
+      });
+      return found;
+    },
+  };
+  (target as unknown as { __discernBench: BenchHook }).__discernBench = hook;
+}

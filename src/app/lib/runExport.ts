@@ -1,0 +1,44 @@
+import type { StudyContext } from '../state/context.ts';
+import { csvReport, markdownReport } from '../../engine/report/index.ts';
+import { downloadText, fileStemOf } from './download.ts';
+import { downloadPdf, downloadPng, downloadSvg, type ExportKind } from './exports.ts';
+import { probesCsv } from './probeCsv.ts';
+
+/**
+ * Carries out one choice of the Export menu: the current sheet as SVG, PNG or PDF (all from the plot
+ * layer's SVG, so they match the command line's figure), the findings as Markdown or CSV (the
+ * engine's reports, as the command line writes them), the pinned probes as CSV, or the study as JSON
+ * (as written). Throws with a plain message when there is nothing to export yet.
+ *
+ * @example await runExport('svg', context)
+ */
+export async function runExport(kind: ExportKind, context: StudyContext): Promise<void> {
+  const { study, sheet } = context;
+  const stem = fileStemOf(study.document.name);
+  const view = study.view?.id ?? 'sheet';
+  switch (kind) {
+    case 'svg':
+      return downloadSvg(`${stem}-${view}.svg`, sheet.figureSvg());
+    case 'png':
+      return downloadPng(`${stem}-${view}.png`, sheet.figureSvg());
+    case 'pdf':
+      return downloadPdf(`${stem}-${view}.pdf`, sheet.figureSvg());
+    case 'findings-md':
+      return downloadText(`${stem}-findings.md`, markdownReport(checked(context)), 'text/markdown');
+    case 'findings-csv':
+      return downloadText(`${stem}-findings.csv`, csvReport(checked(context)), 'text/csv');
+    case 'probes-csv':
+      if (sheet.pinned.length === 0) throw new Error('no probes are pinned: click the sheet to pin one');
+      return downloadText(`${stem}-${view}-probes.csv`, probesCsv(sheet.pinned), 'text/csv');
+    case 'study-json':
+      return downloadText(`${stem}.json`, `${JSON.stringify(study.document, null, 2)}\n`, 'application/json');
+  }
+}
+
+// The analysis with the checks' findings; a report waits for them rather than leaving them out.
+function checked({ analysis }: StudyContext) {
+  if (!analysis.analysis || analysis.pending) {
+    throw new Error('the checks are still running: export the findings in a moment');
+  }
+  return analysis.analysis;
+}

@@ -1,0 +1,68 @@
+import type { DocumentPath } from './documentPath.ts';
+
+/** The kinds of item the System tree shows and the property editor edits. */
+export type ItemKind = 'source' | 'bus' | 'transformer' | 'cable' | 'motor' | 'device' | 'view';
+
+/** What is selected: an item of the study by kind and id. */
+export interface Selection {
+  kind: ItemKind;
+  id: string;
+}
+
+/** The study document's list holding each kind (the source is a single object). */
+export const COLLECTION_OF: Record<Exclude<ItemKind, 'source'>, string> = {
+  bus: 'buses',
+  transformer: 'transformers',
+  cable: 'cables',
+  motor: 'motors',
+  device: 'devices',
+  view: 'views',
+};
+
+/** A study document as far as selection needs it: lists of items with ids. */
+type Lists = Record<string, unknown>;
+
+/**
+ * Where the selected item sits in the document, or `undefined` when it is not there (deleted, or
+ * undone away).
+ *
+ * @example pathOfSelection(document, { kind: 'device', id: 'MAIN' }) // ['devices', 0]
+ */
+export function pathOfSelection(document: unknown, selection: Selection | undefined): DocumentPath | undefined {
+  if (!selection || document === null || typeof document !== 'object') return undefined;
+  if (selection.kind === 'source') return ['source'];
+  const list = (document as Lists)[COLLECTION_OF[selection.kind]];
+  if (!Array.isArray(list)) return undefined;
+  const index = list.findIndex((item) => item !== null && typeof item === 'object' && item.id === selection.id);
+  return index < 0 ? undefined : [COLLECTION_OF[selection.kind], index];
+}
+
+/**
+ * The selection a document path points into (the item owning a field named by a problem).
+ * @example selectionOfPath(document, ['devices', 0, 'rating']) // { kind: 'device', id: 'MAIN' }
+ */
+export function selectionOfPath(document: unknown, path: DocumentPath): Selection | undefined {
+  if (document === null || typeof document !== 'object' || path.length === 0) return undefined;
+  const [head, index] = path;
+  if (head === 'source') {
+    const id = (document as { source?: { id?: unknown } }).source?.id;
+    return typeof id === 'string' ? { kind: 'source', id } : undefined;
+  }
+  const kind = (Object.keys(COLLECTION_OF) as (keyof typeof COLLECTION_OF)[]).find((k) => COLLECTION_OF[k] === head);
+  const list = (document as Lists)[head as string];
+  if (!kind || !Array.isArray(list) || typeof index !== 'number') return undefined;
+  const id = list[index]?.id;
+  return typeof id === 'string' ? { kind, id } : undefined;
+}
+
+/**
+ * Parses a problem path (`study.devices[2].characteristic.pickup`) back into a document path.
+ * @example parseProblemPath('study.devices[2].rating') // ['devices', 2, 'rating']
+ */
+export function parseProblemPath(text: string): DocumentPath {
+  const path: (string | number)[] = [];
+  for (const match of text.replace(/^study\.?/, '').matchAll(/([^.[\]]+)|\[(\d+)\]/g)) {
+    path.push(match[2] !== undefined ? Number(match[2]) : match[1]);
+  }
+  return path;
+}

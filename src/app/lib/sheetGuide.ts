@@ -1,0 +1,77 @@
+/** One step of the guided reading of a sheet. */
+export interface GuideStep {
+  title: string;
+  /** Plain sentences for a new engineer. */
+  text: string[];
+}
+
+/**
+ * The guided reading of a TCC sheet, step by step, in the order an experienced engineer reads one.
+ * `names` are the curves on the current sheet, so the reading points at real things.
+ *
+ * @example sheetGuideOf({ bands: ['MAIN', 'FDR-MCC'], referenceVoltage: '480 V' })[0].title // 'The two axes'
+ */
+export function sheetGuideOf(current: { bands: string[]; referenceVoltage: string }): GuideStep[] {
+  const bands = current.bands.length > 0 ? current.bands.join(', ') : 'the devices of the view';
+  return [
+    {
+      title: 'The two axes',
+      text: [
+        'Across: current, in amperes, on a logarithmic scale — each major grid line is ten times the one before.',
+        'Up: time, in seconds, also logarithmic, from a hundredth of a second to many minutes.',
+        `Every current on this sheet is drawn at ${current.referenceVoltage}, the sheet's reference voltage. A device on another voltage is drawn at its current × its voltage ÷ the reference voltage, so currents that flow together line up.`,
+      ],
+    },
+    {
+      title: 'A band is what one device does',
+      text: [
+        `Each shaded band (${bands}) belongs to one protective device. Its left/lower edge is the earliest time the device may operate at that current (minimum melting for a fuse, the fast tolerance edge for a breaker or relay). Its right/upper edge is the latest time by which it will have cleared (total clearing, or the slow edge plus the breaker's interrupting time).`,
+        'Left of a band the device never operates: the current is below its pickup. Each band carries its name next to it, and a different outline pattern, so colour is never the only way to tell them apart.',
+      ],
+    },
+    {
+      title: 'The shape of a band: long-time, short-time, instantaneous',
+      text: [
+        'A sloping part is inverse-time: more current, faster operation (long-time on a breaker, the inverse curve of a relay, the melting of a fuse).',
+        'A flat step is a definite delay (short-time, or a definite-time relay element); a slope inside it marks I²t in.',
+        'The drop to the bottom of the sheet is the instantaneous pickup: above that current the device opens as fast as it can.',
+      ],
+    },
+    {
+      title: 'Fault lines: how much current can flow',
+      text: [
+        'The vertical lines mark the largest fault current at a bus (and, where shown, the smallest). Nothing to the right of the maximum can flow there, so a band beyond it never matters for that bus.',
+        'Select a bus or a transformer in the System region to see the fault current worked out in the Work region, every formula and number shown.',
+      ],
+    },
+    {
+      title: 'Dashed curves: what equipment can withstand',
+      text: [
+        'A dashed curve is a withstand ("damage") curve of a transformer or cable. The device protecting it should clear to the left of and below it at every current up to the fault level.',
+        'Markers show inrush (a transformer energising) and motor starting, which the devices must ride through: their bands should lie to the right of and above those points.',
+      ],
+    },
+    {
+      title: 'Two bands in series: selective or not',
+      text: [
+        'For an upstream device and the one below it, selectivity means the downstream device has cleared before the upstream one can start to operate, with a margin (the coordination time interval).',
+        'Where the bands cross or come too close the sheet hatches the current range: dense cross-hatching is an overlap (both may operate), single hatching a thin margin.',
+        'Below about 0.01 s (one half-cycle) curves prove nothing: where two instantaneous or current-limiting devices both reach that region the range is hatched as not provable from curves — tested selectivity data or an I²t comparison decides there.',
+      ],
+    },
+    {
+      title: 'The probe',
+      text: [
+        'Move the pointer across the sheet: the vertical line reads every device at that current — earliest operation, latest clearing — and says which clears first and by how much before the next may operate.',
+        'Click to pin a probe; pinned probes stay in the list below the sheet and can be exported as CSV. With the keyboard, focus the sheet and use the left and right arrow keys, Enter to pin.',
+      ],
+    },
+    {
+      title: 'Findings',
+      text: [
+        'The Findings region lists every check: pairs, transformer protection, NEC 450.3 limits, cables, motors. Open a finding to read its explanation and what to change; its current range is highlighted on the sheet and its devices are marked.',
+        'Select a device in the tree to list only the findings that name it.',
+      ],
+    },
+  ];
+}

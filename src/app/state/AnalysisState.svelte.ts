@@ -1,0 +1,156 @@
+import { untrack } from 'svelte';
+import type { Band } from '../../engine/band.ts';
+import { faultLevelsOf, type FaultLevels } from '../../engine/fault/index.ts';
+import { locationBusOf, type Network } from '../../engine/network/index.ts';
+import type { Analysis } from '../../engine/analysis.ts';
+import type { Finding, Severity } from '../../engine/checks/finding.ts';
+import type { PairCheck } from '../../engine/checks/coordination.ts';
+import type { Work } from '../../engine/work.ts';
+import type { AnalyseReply, AnalyseRequest } from '../worker/protocol.ts';
+import type { StudyState } from './StudyState.svelte.ts';
+import { bandsOf, findingCountsOf, idSetOf } from '../lib/lookups.ts';
+
+/** What the checks sent back for one study. */
+interface CheckResults {
+  findings: Finding[];
+  pairs: PairCheck[];
+  counts: Record<Severity, number>;
+}
+
+/** Where the checks run: a Web Worker in the browser, or in-line where there is none. */
+export interface CheckRunner {
+  post(request: AnalyseRequest): void;
+  onreply: ((reply: AnalyseReply) => void) | undefined;
+}
+
+/**
+ * The analysis behind the workbench, in two halves. The fast half — fault levels and every device's
+ * band — is derived on the main thread from the parsed study, so the sheet redraws on the same
+ * frame as an edit. The heavy half — every pair, transformer, code, cable and motor check — runs in
+ * a worker; its findings arrive a moment later (`pending` until then) and are merged in.
+ *
+ * @example const analysis = new AnalysisState(study, workerRunner()); $effect(() => analysis.request());
+ */
+export class AnalysisState {
+  #study: StudyState;
+  #runner: CheckRunner;
+  #sent = $state(0);
+  #received = $state(0);
+  #inFlight = false;
+  #waiting: AnalyseRequest | undefined;
+  #results: CheckResults | undefined = $state.raw();
+
+  /** The finding the user opened (highlighted on the sheet). */
+  selectedFindingId: string | undefined = $state();
+  /** The last failure of the checks, if the latest run failed. */
+  error: string | undefined = $state();
+
+  // The fast half, or why it could not be worked out (a study the engine cannot analyse).
+  readonly #fast = $derived.by(
+    (): { value?: { network: Network; faults: FaultLevels; bands: Map<string, Band> }; error?: string } | undefined => {
+      const network = this.#study.network;
+      if (!network) return undefined;
+      try {
+        return { value: { network, faults: faultLevelsOf(network), bands: bandsOf(network.study) } };
+      } catch (error) {
+        return { error: (error as Error).message };
+      }
+    },
+  );
+  /** Network, fault levels and bands of the current study (main thread). */
+  readonly base = $derived.by(() => this.#fast?.value);
+  /** Why the fault levels or bands of the current study could not be worked out, if they could not. */
+  readonly baseError = $derived.by(() => this.#fast?.error);
+  /** The whole analysis: the fast half now, the checks' findings as last received. */
+  readonly analysis: Analysis | undefined = $derived.by(() => {
+    const base = this.base;
+    if (!base) return undefined;
+    const results = this.#results;
+    return {
+      study: base.network.study,
+      ...base,
+      pairs: results?.pairs ?? [],
+      findings: results?.findings ?? [],
+      counts: results?.counts ?? { ok: 0, info: 0, warning: 0, fail: 0 },
+    };
+  });
+  /** Findings as last received (they may trail the latest edit while `pending`). */
+  readonly findings: Finding[] = $derived.by(() => this.#results?.findings ?? []);
+  /** True while the checks of the latest edit are still running. */
+  readonly pending = $derived.by(() => this.#received < this.#sent);
+  /** The finding the user opened. */
+  readonly selectedFinding = $derived.by(() => this.findings.find((f) => f.id === this.selectedFindingId));
+  /** Device ids the opened finding names (highlighted on the sheet and in the tree). */
+  readonly highlighted = $derived.by(() => idSetOf(this.selectedFinding?.subjects ?? []));
+  /** Per device: how many findings naming it fail or warn. */
+  readonly findingCounts = $derived.by(() => findingCountsOf(this.findings));
+
+  constructor(study: StudyState, runner: CheckRunner) {
+    this.#study = study;
+    this.#runner = runner;
+    runner.onreply = (reply) => this.#receive(reply);
+  }
+
+  /**
+   * Sends the current study to the checks. Only one run is in flight; edits made meanwhile wait,
+   * and only the newest of them runs next. Call it from an `$effect` so it follows every edit.
+   */
+  request(): void {
+    const study = this.#study.study;
+    if (!study) return;
+    // Only the study is a dependency; the counters are written without being tracked.
+    untrack(() => {
+      const request = { seq: ++this.#sent, study };
+      if (this.#inFlight) this.#waiting = request;
+      else this.#post(request);
+    });
+  }
+
+  /** Opens a finding (or closes it with `undefined`) and puts it on the sheet. */
+  selectFinding(id: string | undefined): void {
+    this.selectedFindingId = id;
+  }
+
+  /**
+   * The worked calculation for a selected bus or transformer (or the bus a selected device sits on),
+   * with a heading; `undefined` when there is nothing to show.
+   */
+  workFor(selection: { kind: string; id: string } | undefined): { title: string; work: Work } | undefined {
+    const base = this.base;
+    if (!base || !selection) return undefined;
+    if (selection.kind === 'transformer') {
+      const fault = base.faults.transformers.get(selection.id);
+      return fault && { title: `Transformer ${selection.id}: full-load and through-fault currents`, work: fault.work };
+    }
+    let busId = selection.kind === 'bus' ? selection.id : undefined;
+    if (selection.kind === 'device') {
+      const device = base.network.devices.get(selection.id);
+      if (device) busId = locationBusOf(base.network, device).id;
+    }
+    if (selection.kind === 'source') busId = base.network.study.source.bus;
+    const fault = busId ? base.faults.buses.get(busId) : undefined;
+    return fault && { title: `Bus ${busId}: available fault current`, work: fault.work };
+  }
+
+  #post(request: AnalyseRequest): void {
+    this.#inFlight = true;
+    this.#runner.post(request);
+  }
+
+  #receive(reply: AnalyseReply): void {
+    this.#inFlight = false;
+    const next = this.#waiting;
+    this.#waiting = undefined;
+    if (next) this.#post(next);
+    // A worker that failed to load answers with seq -1: it stands for every run sent so far.
+    const seq = reply.seq < 0 ? this.#sent : reply.seq;
+    if (seq <= this.#received) return;
+    this.#received = seq;
+    if (!reply.ok) {
+      this.error = `The checks failed: ${reply.message}`;
+      return;
+    }
+    this.error = undefined;
+    this.#results = { findings: reply.findings, pairs: reply.pairs, counts: reply.counts };
+  }
+}

@@ -1,0 +1,98 @@
+import { viewInputOf } from '../../plot/viewInput.ts';
+import { sheetOf, type Sheet } from '../../plot/sheet.ts';
+import { svgOf } from '../../plot/svg.ts';
+import type { SheetInput } from '../../plot/sheetInput.ts';
+import { probeAt, type Probe } from '../../engine/probe.ts';
+import type { StudyState } from './StudyState.svelte.ts';
+import type { AnalysisState } from './AnalysisState.svelte.ts';
+import type { ProbeState } from './ProbeState.svelte.ts';
+import { lookupOf } from '../lib/lookups.ts';
+
+/** The size exported figures are laid out at (px), the plot layer's default sheet. */
+export const FIGURE_SIZE = { width: 960, height: 720 } as const;
+
+/**
+ * The current view as a sheet: the plot layer's input and geometry for the space the Sheet region
+ * has, the probe's readout, and the standalone SVG for export (laid out at the figure size, so an
+ * exported figure matches the one the command line draws).
+ *
+ * @example sheet.width = 900; sheet.sheet?.layers // the geometry the Sheet component renders
+ */
+export class SheetState {
+  /** Space the Sheet region gives the drawing (px); the plot layer needs at least 480 × 360. */
+  width = $state(960);
+  height = $state(640);
+  /** Larger type on the page and the sheet, for a projector. */
+  largeText = $state(false);
+  #study: StudyState;
+  #analysis: AnalysisState;
+  #probe: ProbeState;
+
+  /** What the view draws, on its reference voltage (or the reason it cannot be drawn). */
+  readonly input = $derived.by((): { input?: SheetInput; error?: string } => {
+    const analysis = this.#analysis.analysis;
+    const view = this.#study.view;
+    if (this.#analysis.baseError) return { error: this.#analysis.baseError };
+    if (!analysis || !view) return {};
+    try {
+      return { input: viewInputOf(analysis, view.id) };
+    } catch (error) {
+      return { error: (error as Error).message };
+    }
+  });
+  // The sheet's geometry, or why the plot layer could not lay it out.
+  readonly #laidOut = $derived.by((): { sheet?: Sheet; error?: string } => {
+    const { input } = this.input;
+    if (!input) return {};
+    const width = Math.max(480, this.width);
+    const height = Math.max(360, this.height);
+    // The legend column takes at most a third of a narrow sheet (the plot layer's limit).
+    const panelWidth = Math.max(140, Math.min(250, Math.floor(width / 3)));
+    try {
+      return {
+        sheet: sheetOf(input, { width, height, panelWidth, fontSize: this.largeText ? 14 : 11, idPrefix: 'live' }),
+      };
+    } catch (error) {
+      return { error: (error as Error).message };
+    }
+  });
+  /** The sheet's geometry at the region's size. */
+  readonly sheet: Sheet | undefined = $derived.by(() => this.#laidOut.sheet);
+  /** Why the current view cannot be drawn, if it cannot. */
+  readonly error: string | undefined = $derived.by(() => this.input.error ?? this.#laidOut.error);
+  /** The colour each curve got on the sheet, by curve id. */
+  readonly colours = $derived.by(() =>
+    lookupOf(
+      this.sheet?.curves ?? [],
+      (c) => c.id,
+      (c) => c.colour,
+    ),
+  );
+  /** The engine's probe at the pointer's current, or undefined off the sheet. */
+  readonly probe: Probe | undefined = $derived.by(() => this.probeAt(this.#probe.amps));
+  /** The engine's probe at each pinned current. */
+  readonly pinned: Probe[] = $derived.by(() =>
+    this.#probe.pinned.map((amps) => this.probeAt(amps)).filter((p): p is Probe => p !== undefined),
+  );
+
+  constructor(study: StudyState, analysis: AnalysisState, probe: ProbeState) {
+    this.#study = study;
+    this.#analysis = analysis;
+    this.#probe = probe;
+  }
+
+  /** The engine's probe of the current view at `amps` (A at the reference voltage). */
+  probeAt(amps: number | undefined): Probe | undefined {
+    const analysis = this.#analysis.analysis;
+    const view = this.#study.view;
+    if (amps === undefined || !analysis || !view) return undefined;
+    return probeAt(analysis, view.id, amps);
+  }
+
+  /** The current view as a standalone SVG at the figure size (throws when there is no sheet). */
+  figureSvg(): string {
+    const { input, error } = this.input;
+    if (!input) throw new Error(error ?? 'there is no sheet to export: the study has no view');
+    return svgOf(sheetOf(input, { ...FIGURE_SIZE, idPrefix: 'tcc' }));
+  }
+}

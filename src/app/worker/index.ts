@@ -1,0 +1,2 @@
+export { inlineRunner, workerRunner } from './runners.ts';
+export type { AnalyseReply, AnalyseRequest } from './protocol.ts';

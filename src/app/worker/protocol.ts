@@ -1,0 +1,17 @@
+import type { Finding, Severity } from '../../engine/checks/finding.ts';
+import type { PairCheck } from '../../engine/checks/coordination.ts';
+import type { Study } from '../../engine/study/index.ts';
+
+/** Main thread → worker: analyse this parsed study (plain data; `seq` orders the replies). */
+export interface AnalyseRequest {
+  seq: number;
+  study: Study;
+}
+
+/**
+ * Worker → main thread: the checks' results as plain data. Bands hold closures and cannot cross
+ * threads, so the main thread rebuilds the bands of the view it draws.
+ */
+export type AnalyseReply =
+  | { seq: number; ok: true; findings: Finding[]; pairs: PairCheck[]; counts: Record<Severity, number> }
+  | { seq: number; ok: false; message: string };

@@ -1,0 +1,57 @@
+import { describe, it, expect } from 'vitest';
+import { pointsTargetsOf, previewTablesOf, withPoints } from '../../../src/app/lib/csvImport.ts';
+import { parsePointsCsv } from '../../../src/engine/devices/index.ts';
+
+// Invented, illustrative points (not a product).
+const both = parsePointsCsv(
+  'minimum-melting,150,300\nminimum-melting,2000,0.01\ntotal-clearing,170,300\ntotal-clearing,2200,0.02',
+);
+const one = parsePointsCsv('current,time\n2,1000\n10,5');
+
+describe('csvImport', () => {
+  it('has the expected defaults', () => {
+    expect(pointsTargetsOf('relay', both)).toEqual([]);
+    expect(previewTablesOf({})).toEqual([]);
+  });
+
+  it('pointsTargetsOf() puts a two-curve file on both edges and a one-curve file on either', () => {
+    expect(pointsTargetsOf('fuse', both).map((t) => t.label)).toEqual(['minimum melting and total clearing']);
+    expect(pointsTargetsOf('fuse', one).map((t) => t.label)).toEqual(['minimum melting', 'total clearing']);
+    expect(pointsTargetsOf('thermal-magnetic', one)[1].fields).toEqual([['thermal', 'maximum']]);
+  });
+
+  it('withPoints() replaces the tables and keeps every other setting', () => {
+    const fuse = {
+      kind: 'fuse',
+      label: 'Illustrative 200 A (illustrative, not a product)',
+      minimumMelting: [],
+      totalClearing: [],
+    };
+    const next = withPoints(fuse, both, pointsTargetsOf('fuse', both)[0]);
+    expect(next).toEqual({
+      ...fuse,
+      minimumMelting: [
+        [150, 300],
+        [2000, 0.01],
+      ],
+      totalClearing: [
+        [170, 300],
+        [2200, 0.02],
+      ],
+    });
+    const breaker = { kind: 'thermal-magnetic', rating: 400, thermal: { minimum: [[1, 1]], maximum: [[1, 2]] } };
+    const edited = withPoints(breaker, one, pointsTargetsOf('thermal-magnetic', one)[1]) as typeof breaker;
+    expect(edited.thermal.minimum).toEqual([[1, 1]]);
+    expect(edited.thermal.maximum).toEqual([
+      [2, 1000],
+      [10, 5],
+    ]);
+  });
+
+  it('previewTablesOf() names each curve of the file', () => {
+    expect(previewTablesOf(both).map((t) => [t.name, t.rows.length])).toEqual([
+      ['minimum (fast edge)', 2],
+      ['maximum (slow edge)', 2],
+    ]);
+  });
+});

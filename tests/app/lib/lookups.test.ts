@@ -1,0 +1,41 @@
+import { describe, it, expect } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { bandsOf, findingCountsOf, idSetOf, lookupOf } from '../../../src/app/lib/lookups.ts';
+import { bandOf } from '../../../src/engine/band.ts';
+import { parseStudy } from '../../../src/engine/study/index.ts';
+
+describe('lookups', () => {
+  it('has the expected defaults', () => {
+    expect(findingCountsOf([]).size).toBe(0);
+    expect(idSetOf([]).size).toBe(0);
+  });
+
+  it('bandsOf() gives every device the engine band of its characteristic', () => {
+    const study = parseStudy(readFileSync(new URL('../../../demo/harrowmere-selective.json', import.meta.url), 'utf8'));
+    const bands = bandsOf(study);
+    expect([...bands.keys()]).toEqual(study.devices.map((d) => d.id));
+    const main = study.devices.find((d) => d.id === 'MAIN')!;
+    expect(bands.get('MAIN')!.maxTime(20_000)).toBe(bandOf(main.characteristic).maxTime(20_000));
+  });
+
+  it('findingCountsOf() counts, per device, all findings naming it and those that fail or warn', () => {
+    const base = { kind: 'coordination' as const, title: '', explanation: '', referenceVolts: 480 };
+    const counts = findingCountsOf([
+      { ...base, id: 'a', severity: 'fail', subjects: ['MAIN', 'FDR'] },
+      { ...base, id: 'b', severity: 'ok', subjects: ['MAIN'] },
+      { ...base, id: 'c', severity: 'warning', subjects: ['FDR'] },
+    ]);
+    expect(counts.get('MAIN')).toEqual({ all: 2, problems: 1 });
+    expect(counts.get('FDR')).toEqual({ all: 2, problems: 2 });
+  });
+
+  it('lookupOf() and idSetOf() index by id', () => {
+    const colours = lookupOf(
+      [{ id: 'MAIN', colour: '#E69F00' }],
+      (c) => c.id,
+      (c) => c.colour,
+    );
+    expect(colours.get('MAIN')).toBe('#E69F00');
+    expect(idSetOf(['MAIN']).has('MAIN')).toBe(true);
+  });
+});

@@ -1,0 +1,93 @@
+import { describe, it, expect } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { AnalysisState, type CheckRunner } from '../../../src/app/state/AnalysisState.svelte.ts';
+import { StudyState } from '../../../src/app/state/StudyState.svelte.ts';
+import { analyseStudy } from '../../../src/engine/analysis.ts';
+import type { StudyInput } from '../../../src/engine/study/index.ts';
+import type { AnalyseRequest } from '../../../src/app/worker/protocol.ts';
+
+const demo = JSON.parse(
+  readFileSync(new URL('../../../demo/harrowmere-overlap.json', import.meta.url), 'utf8'),
+) as StudyInput;
+
+/** A runner that holds requests until the test answers them with the engine. */
+function heldRunner() {
+  const requests: AnalyseRequest[] = [];
+  const runner: CheckRunner & { requests: AnalyseRequest[]; answer(i: number): void } = {
+    requests,
+    post: (request) => void requests.push(request),
+    onreply: undefined,
+    answer(i) {
+      const { seq, study } = requests[i];
+      const { findings, pairs, counts } = analyseStudy(study);
+      runner.onreply?.({ seq, ok: true, findings, pairs, counts });
+    },
+  };
+  return runner;
+}
+
+describe('AnalysisState', () => {
+  it('has the expected defaults', () => {
+    const study = new StudyState(demo);
+    const analysis = new AnalysisState(study, heldRunner());
+    expect(analysis.findings).toEqual([]);
+    expect(analysis.pending).toBe(false);
+    expect(analysis.base?.bands.size).toBe(demo.devices!.length);
+    expect(analysis.selectedFinding).toBeUndefined();
+  });
+
+  it('request() sends the study once at a time and merges the findings that come back', () => {
+    const study = new StudyState(demo);
+    const runner = heldRunner();
+    const analysis = new AnalysisState(study, runner);
+    analysis.request();
+    expect(analysis.pending).toBe(true);
+    // An edit while the first run is out waits; two edits leave only the newest waiting.
+    study.edit(['name'], 'Edited once', 'name');
+    analysis.request();
+    study.edit(['name'], 'Edited twice', 'name');
+    analysis.request();
+    expect(runner.requests).toHaveLength(1);
+    runner.answer(0);
+    expect(runner.requests).toHaveLength(2);
+    expect(runner.requests[1].study.name).toBe('Edited twice');
+    expect(analysis.pending).toBe(true);
+    runner.answer(1);
+    expect(analysis.pending).toBe(false);
+    const expected = analyseStudy(study.study!);
+    expect(analysis.findings.map((f) => f.id)).toEqual(expected.findings.map((f) => f.id));
+    expect(analysis.analysis?.counts).toEqual(expected.counts);
+  });
+
+  it('selectFinding() highlights the devices a finding names; findingCounts counts per device', () => {
+    const study = new StudyState(demo);
+    const runner = heldRunner();
+    const analysis = new AnalysisState(study, runner);
+    analysis.request();
+    runner.answer(0);
+    const fail = analysis.findings.find((f) => f.severity === 'fail')!;
+    analysis.selectFinding(fail.id);
+    expect([...analysis.highlighted]).toEqual(fail.subjects);
+    const named = analysis.findings.filter((f) => f.subjects.includes(fail.subjects[0]));
+    expect(analysis.findingCounts.get(fail.subjects[0])?.all).toBe(named.length);
+  });
+
+  it('a failed run is reported and ends the wait', () => {
+    const study = new StudyState(demo);
+    const runner = heldRunner();
+    const analysis = new AnalysisState(study, runner);
+    analysis.request();
+    runner.onreply?.({ seq: -1, ok: false, message: 'worker script failed to load' });
+    expect(analysis.pending).toBe(false);
+    expect(analysis.error).toBe('The checks failed: worker script failed to load');
+  });
+
+  it('workFor() shows a transformer, a bus, or the bus a device sits on', () => {
+    const study = new StudyState(demo);
+    const analysis = new AnalysisState(study, heldRunner());
+    expect(analysis.workFor({ kind: 'transformer', id: 'T1' })?.title).toMatch(/^Transformer T1/);
+    expect(analysis.workFor({ kind: 'bus', id: 'SWBD' })?.work.length).toBeGreaterThan(0);
+    expect(analysis.workFor({ kind: 'device', id: 'MAIN' })?.title).toBe('Bus SWBD: available fault current');
+    expect(analysis.workFor(undefined)).toBeUndefined();
+  });
+});

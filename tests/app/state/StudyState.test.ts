@@ -1,0 +1,118 @@
+import { describe, it, expect } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { StudyState } from '../../../src/app/state/StudyState.svelte.ts';
+import type { StudyInput } from '../../../src/engine/study/index.ts';
+
+const text = readFileSync(new URL('../../../demo/harrowmere-selective.json', import.meta.url), 'utf8');
+const demo = JSON.parse(text) as StudyInput;
+const mainIndex = demo.devices!.findIndex((d) => d.id === 'MAIN');
+const sensor = ['devices', mainIndex, 'characteristic', 'sensor'];
+
+describe('StudyState', () => {
+  it('has the expected defaults', () => {
+    const state = new StudyState(demo, 'harrowmere-selective.json');
+    expect(state.document).toBe(demo);
+    expect(state.dirty).toBe(false);
+    expect(state.problems).toEqual([]);
+    expect(state.view?.id).toBe(demo.views![0].id);
+    expect(state.selection).toBeUndefined();
+    expect(state.network?.devices.has('MAIN')).toBe(true);
+  });
+
+  it('edit() changes one field as written, marks the study dirty and can be undone', () => {
+    const state = new StudyState(demo);
+    state.edit(sensor, '1600 A', 'sensor of MAIN');
+    expect(state.valueAt(sensor)).toBe('1600 A');
+    expect(state.study?.devices[mainIndex].characteristic).toMatchObject({ sensor: 1600 });
+    expect(state.dirty).toBe(true);
+    state.history.undo();
+    expect(state.document).toBe(demo);
+    expect(state.dirty).toBe(false);
+  });
+
+  it('a mistyped field names its path while study keeps the last valid parse', () => {
+    const state = new StudyState(demo);
+    const before = state.study;
+    state.edit(sensor, 'lots', 'sensor of MAIN');
+    expect(state.problems.map((p) => `${p.path}: ${p.message}`)).toEqual([
+      expect.stringMatching(
+        new RegExp(
+          `^study\\.devices\\[${mainIndex}\\]\\.characteristic\\.sensor: expected a current such as "25 kA", got "lots"$`,
+        ),
+      ),
+    ]);
+    expect(state.study).toEqual(before);
+  });
+
+  it('open() refuses a bad file and leaves the study, its history and its selection untouched', () => {
+    const state = new StudyState(demo, 'harrowmere-selective.json');
+    state.edit(sensor, 1600, 'sensor of MAIN');
+    state.selection = { kind: 'device', id: 'MAIN' };
+    const bad = JSON.stringify({
+      ...demo,
+      transformers: [{ ...demo.transformers![0], impedance: '-5' }, ...demo.transformers!.slice(1)],
+    });
+    expect(state.open(bad, 'bad.json')).toBe(false);
+    expect(state.refused?.fileName).toBe('bad.json');
+    expect(state.refused?.problems.map((p) => `${p.path}: ${p.message}`)).toContain(
+      'study.transformers[0].impedance: expected a percentage greater than 0, got "-5"',
+    );
+    expect(state.valueAt(sensor)).toBe(1600);
+    expect(state.history.canUndo).toBe(true);
+    expect(state.selection).toEqual({ kind: 'device', id: 'MAIN' });
+  });
+
+  it('open() asks before replacing a study with a good file, and only then', () => {
+    const state = new StudyState(demo);
+    let asked = 0;
+    const other = JSON.stringify({ ...demo, name: 'Other' });
+    expect(state.open(other, 'other.json', { confirmDiscard: () => (asked++, false) })).toBe(false);
+    expect(state.document.name).toBe(demo.name);
+    expect(state.open(other, 'other.json', { confirmDiscard: () => (asked++, true) })).toBe(true);
+    expect(asked).toBe(2);
+    expect(state.document.name).toBe('Other');
+    expect(state.history.canUndo).toBe(false);
+    expect(state.fileName).toBe('other.json');
+  });
+
+  it('newView() adds a sheet for a device and the devices above it; addDeviceToView() adds one more', () => {
+    const state = new StudyState(demo);
+    state.newView('FDR-DOCK');
+    expect(state.view?.devices).toEqual(['R-T1', 'MAIN', 'FDR-DOCK']);
+    state.addDeviceToView('FDR-MCC');
+    state.addDeviceToView('FDR-MCC');
+    expect(state.view?.devices).toEqual(['R-T1', 'MAIN', 'FDR-DOCK', 'FDR-MCC']);
+    state.removeDeviceFromView('R-T1');
+    expect(state.view?.devices).toEqual(['MAIN', 'FDR-DOCK', 'FDR-MCC']);
+    state.history.undo();
+    state.history.undo();
+    state.history.undo();
+    expect(state.study?.views).toHaveLength(demo.views!.length);
+  });
+
+  it('deleteView() removes the current sheet and shows the next', () => {
+    const state = new StudyState(demo);
+    state.viewId = demo.views![0].id;
+    state.deleteView();
+    expect(state.study?.views.map((v) => v.id)).toEqual(demo.views!.slice(1).map((v) => v.id));
+    expect(state.view?.id).toBe(demo.views![1].id);
+  });
+
+  it('load() with unsaved keeps a recovered study dirty; markSaved() makes it clean', () => {
+    const state = new StudyState(demo);
+    state.load(demo, 'recovered.json', { unsaved: true, viewId: demo.views!.at(-1)!.id });
+    expect(state.dirty).toBe(true);
+    expect(state.view?.id).toBe(demo.views!.at(-1)!.id);
+    state.markSaved('saved.json');
+    expect(state.dirty).toBe(false);
+    expect(state.fileName).toBe('saved.json');
+  });
+
+  it('newStudy() starts from one bus and no devices', () => {
+    const state = new StudyState(demo);
+    state.newStudy();
+    expect(state.problems).toEqual([]);
+    expect(state.study?.devices).toEqual([]);
+    expect(state.view).toBeUndefined();
+  });
+});

@@ -1,0 +1,41 @@
+import { describe, it, expect } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { inlineRunner } from '../../../src/app/worker/runners.ts';
+import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { parseStudy } from '../../../src/engine/study/index.ts';
+import type { AnalyseReply } from '../../../src/app/worker/protocol.ts';
+
+const study = parseStudy(readFileSync(new URL('../../../demo/harrowmere-overlap.json', import.meta.url), 'utf8'));
+
+describe('runners', () => {
+  it('has the expected defaults', () => {
+    expect(inlineRunner().onreply).toBeUndefined();
+  });
+
+  it('inlineRunner() answers on a later task with the engine findings, as plain data', async () => {
+    const runner = inlineRunner();
+    const reply = new Promise<AnalyseReply>((resolve) => (runner.onreply = resolve));
+    let answered = false;
+    void reply.then(() => (answered = true));
+    runner.post({ seq: 7, study });
+    expect(answered).toBe(false);
+    const got = await reply;
+    const expected = analyseStudy(study);
+    expect(got.seq).toBe(7);
+    expect(got.ok && got.counts).toEqual(expected.counts);
+    // What crosses a thread must survive structured cloning: no closures in findings or pairs.
+    expect(got.ok && structuredClone(got.findings)).toEqual(expected.findings);
+  });
+
+  it('inlineRunner() reports a failed run with its message', async () => {
+    const runner = inlineRunner();
+    const reply = new Promise<AnalyseReply>((resolve) => (runner.onreply = resolve));
+    runner.post({
+      seq: 1,
+      study: { ...study, devices: [{ ...study.devices[0], characteristic: { kind: 'nonsense' } }] } as never,
+    });
+    const got = await reply;
+    expect(got).toMatchObject({ seq: 1, ok: false });
+    expect(got.ok ? '' : got.message).not.toBe('');
+  });
+});
