@@ -28,7 +28,10 @@ export interface OverlapInterval {
 export interface OverlapOptions {
   /** Lowest current to check (A). @default the lowest current at which either device can operate */
   fromAmps?: number;
-  /** Highest current to check (A): the maximum fault current at the downstream device's location. */
+  /**
+   * Highest current to check (A): the maximum fault current at the downstream device's location.
+   * `Infinity` (an infinite bus) checks up to ten times the largest breakpoint of either band.
+   */
   toAmps: number;
   /** Required time margin in seconds above the downstream clearing time. @default 0 */
   margin?: number;
@@ -87,6 +90,12 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     samplesPerDecade = 24,
     tolerance = 1e-6,
   } = options;
+  // An infinite bus has no top current; beyond their last breakpoints both bands are flat, so ten
+  // times the largest one shows every change there is.
+  if (toAmps === Infinity) {
+    const largest = Math.max(fromAmps, ...up.breakpoints, ...down.breakpoints);
+    return findOverlaps(up, down, { ...options, toAmps: 10 * largest });
+  }
   if (!(fromAmps > 0) || !(toAmps > fromAmps)) return [];
   const upMin = (amps: number) => beyond(up.minTime(amps), horizon);
   const downMax = (amps: number) => beyond(down.maxTime(amps), horizon);

@@ -34,7 +34,9 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   const sheetBands = view.devices.map((id) => {
     const device = network.devices.get(id)!;
     const bus = locationBusOf(network, device);
-    const toAmps = faults.buses.get(bus.id)!.max.threePhase * onSheet(bus.voltage);
+    const fault = faults.buses.get(bus.id)!.max.threePhase;
+    // At an infinite bus there is no largest fault to stop the band at.
+    const toAmps = Number.isFinite(fault) ? fault * onSheet(bus.voltage) : undefined;
     return {
       id,
       label: device.name ?? id,
@@ -84,18 +86,20 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   const busIds = view.faults ?? [
     ...new Set(view.devices.map((id) => locationBusOf(network, network.devices.get(id)!).id)),
   ];
-  const faultLines = busIds.map((busId) => {
-    const bus = network.buses.get(busId)!;
-    const ownAmps = faults.buses.get(busId)!.max.threePhase;
-    return {
-      busId,
-      label: busId,
-      amps: ownAmps * onSheet(bus.voltage),
-      ownVolts: bus.voltage,
-      ownAmps,
-      kind: 'max' as const,
-    };
-  });
+  const faultLines = busIds
+    .filter((busId) => Number.isFinite(faults.buses.get(busId)!.max.threePhase))
+    .map((busId) => {
+      const bus = network.buses.get(busId)!;
+      const ownAmps = faults.buses.get(busId)!.max.threePhase;
+      return {
+        busId,
+        label: busId,
+        amps: ownAmps * onSheet(bus.voltage),
+        ownVolts: bus.voltage,
+        ownAmps,
+        kind: 'max' as const,
+      };
+    });
 
   const shown = new Set(view.devices);
   const regions: SheetRegion[] = analysis.findings

@@ -196,3 +196,11 @@ describe('findOverlaps', () => {
     );
   });
 });
+
+describe('findOverlaps at an infinite bus', () => {
+  it('checks up to ten times the largest breakpoint when the fault current is unbounded', () => {
+    const intervals = findOverlaps(definite(500, 0.5), ramp(1e6, 100), { toAmps: Infinity, margin: 0.1 });
+    expect(intervals.at(-1)!.toAmps).toBe(5000);
+    expect(intervals.map((interval) => interval.status)).toEqual(['selective', 'overlap', 'thin margin', 'selective']);
+  });
+});

@@ -1,6 +1,9 @@
 import type { z } from 'zod';
 import { InputError, quoteGot } from '../errors.ts';
-import { createStudySchema, type Study } from './schema.ts';
+import { createStudySchema, studySchema, type Study } from './schema.ts';
+
+/** The 50 Hz schema (times in cycles read at 50 Hz), built once like the 60 Hz `studySchema`. */
+const STUDY_SCHEMA_50 = createStudySchema(50);
 import { structureProblems } from './structure.ts';
 
 /** One thing wrong with a study file, located by its field path (`study.transformers[1].impedance`). */
@@ -31,7 +34,7 @@ export function readStudy(input: unknown): { study?: Study; problems: StudyProbl
     return { problems: [{ path: 'study', message: `expected a JSON object, got ${quoteGot(raw)}` }] };
   }
   const frequency = (raw as { frequency?: unknown }).frequency;
-  const schema = createStudySchema(frequency === 50 ? 50 : 60);
+  const schema = frequency === 50 ? STUDY_SCHEMA_50 : studySchema;
   const parsed = schema.safeParse(raw, { reportInput: true });
   if (!parsed.success) return { problems: parsed.error.issues.map(describeIssue) };
   const problems = structureProblems(parsed.data);

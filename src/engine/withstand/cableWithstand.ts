@@ -86,7 +86,7 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
   const amps = seconds.map(ampsAt);
 
   const sizeText = `${sets > 1 ? `${sets} × ` : ''}${cable.size}`;
-  const temperatureText = `${t1}→${t2} °C`;
+  const temperatureText = `${t1} to ${t2} °C`;
   return {
     elementId: cable.id,
     kind: 'cable',

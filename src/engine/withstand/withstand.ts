@@ -7,7 +7,7 @@ export interface WithstandCurve {
   /** Id of the transformer or cable. */
   elementId: string;
   kind: 'transformer' | 'cable';
-  /** e.g. 'C57.109 Category II, frequent faults' or 'ICEA P-32-382, Cu 90→250 °C'. */
+  /** e.g. 'C57.109 Category II, frequent faults' or 'ICEA P-32-382, 4/0 Cu 90 to 250 °C'. */
   label: string;
   /** Voltage the currents are given at (V). */
   volts: number;

@@ -83,3 +83,13 @@ describe('checkPair', () => {
     expect(finding.basis).toMatch(/IEEE 242/);
   });
 });
+
+describe('checkPair at an infinite bus', () => {
+  it('checks a finite range and finds the same edges', () => {
+    const study = { ...pairStudy(), source: { kind: 'infinite' as const, id: 'U', bus: 'A' } };
+    const [pair] = analyseStudy(parseStudy(study)).pairs;
+    const intervals = pair.cases[0].intervals;
+    expect(Number.isFinite(intervals.at(-1)!.toAmps)).toBe(true);
+    assertInDelta(intervals[1].toAmps, 2400 * Math.sqrt(12 / 0.3), 1e-5);
+  });
+});

@@ -21,7 +21,7 @@ describe('cableWithstandOf', () => {
     expect(curve.kind).toBe('cable');
     expect(curve.elementId).toBe('C1');
     expect(curve.volts).toBe(480);
-    expect(curve.label).toBe('ICEA P-32-382, 4/0 Cu 90→250 °C');
+    expect(curve.label).toBe('ICEA P-32-382, 4/0 Cu 90 to 250 °C');
     expect(Array.from(curve.seconds)).toEqual([10, 1, 0.1, 0.01]);
   });
 
@@ -44,7 +44,7 @@ describe('cableWithstandOf', () => {
     it('cableWithstandOf(500 kcmil Al XLPE) withstands 33 260.4 A for 0.5 s', () => {
       const curve = cableWithstandOf(cableOf({ size: '500 kcmil', material: 'aluminium' }), { volts: 480 });
       assertInDelta(curve.timeAt(33_260.4), 0.5, 1e-5);
-      expect(curve.label).toBe('ICEA P-32-382, 500 kcmil Al 90→250 °C');
+      expect(curve.label).toBe('ICEA P-32-382, 500 kcmil Al 90 to 250 °C');
     });
 
     it('cableWithstandOf(500 kcmil Cu XLPE) withstands 25 438.0 A for 2 s', () => {
@@ -55,7 +55,7 @@ describe('cableWithstandOf', () => {
     it('cableWithstandOf(2/0 Cu thermoplastic) withstands 22 283.3 A for 0.1 s', () => {
       const curve = cableWithstandOf(cableOf({ size: '2/0', insulation: 'thermoplastic' }), { volts: 208 });
       assertInDelta(ampsAtDrawnTime(curve, 0.1), 22_283.3, 1e-5);
-      expect(curve.label).toBe('ICEA P-32-382, 2/0 Cu 75→150 °C');
+      expect(curve.label).toBe('ICEA P-32-382, 2/0 Cu 75 to 150 °C');
     });
   });
 
@@ -74,7 +74,7 @@ describe('cableWithstandOf', () => {
     // REFERENCE §7.2's feeder: 2 sets of 500 kcmil Cu = 1 000 000 cmil; at 1 s: 0.07195 × 10⁶ (computed)
     const curve = cableWithstandOf(cableOf({ size: '500 kcmil', sets: 2 }), { volts: 480 });
     assertInDelta(ampsAtDrawnTime(curve, 1), 71_950, 1e-4);
-    expect(curve.label).toBe('ICEA P-32-382, 2 × 500 kcmil Cu 90→250 °C');
+    expect(curve.label).toBe('ICEA P-32-382, 2 × 500 kcmil Cu 90 to 250 °C');
   });
 
   it('cableWithstandOf takes the conductor area as an option when the size text should not set it', () => {
