@@ -1,5 +1,5 @@
-import type { z } from 'zod';
-import { InputError, quoteGot } from '../errors.ts';
+import { InputError } from '../errors.ts';
+import { formatIssuePath, issueMessage } from '../study/issueMessage.ts';
 import { createCharacteristicSchema, type Characteristic } from './characteristic.ts';
 
 /** Options of `readCharacteristic`. */
@@ -22,41 +22,5 @@ export function readCharacteristic(input: unknown, options: ReadCharacteristicOp
   const parsed = createCharacteristicSchema(frequency).safeParse(input, { reportInput: true });
   if (parsed.success) return parsed.data;
   const issue = parsed.error.issues[0];
-  throw new InputError(joinPath(path, issue.path), describe(issue));
-}
-
-function joinPath(base: string, path: readonly PropertyKey[]): string {
-  return path.reduce<string>(
-    (text, key) => (typeof key === 'number' ? `${text}[${key}]` : `${text}.${String(key)}`),
-    base,
-  );
-}
-
-/** One zod issue as the `expected …, got "…"` half of a message. */
-function describe(issue: z.core.$ZodIssue): string {
-  const input = 'input' in issue ? issue.input : undefined;
-  const got = input === undefined ? 'nothing' : quoteGot(input);
-  switch (issue.code) {
-    case 'custom':
-      return issue.message;
-    case 'invalid_type':
-      return `expected ${/^[aeiou]/.test(issue.expected) ? 'an' : 'a'} ${issue.expected}, got ${got}`;
-    case 'invalid_value':
-      return `expected one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}, got ${got}`;
-    case 'invalid_union': {
-      if (!('discriminator' in issue) || !issue.discriminator) return `expected one of the accepted forms, got ${got}`;
-      // Show the unknown discriminator value itself, not the whole object around it.
-      const key = String(issue.discriminator);
-      const value = input !== null && typeof input === 'object' ? (input as Record<string, unknown>)[key] : input;
-      return `expected a known "${key}", got ${value === undefined ? 'nothing' : quoteGot(value)}`;
-    }
-    case 'unrecognized_keys':
-      return `expected no field ${issue.keys.map((k) => `"${k}"`).join(', ')} here, got one`;
-    case 'too_small':
-      return `expected a value ${issue.inclusive ? 'of at least' : 'greater than'} ${issue.minimum}, got ${got}`;
-    case 'too_big':
-      return `expected a value of at most ${issue.maximum}, got ${got}`;
-    default:
-      return `${issue.message}, got ${got}`;
-  }
+  throw new InputError(formatIssuePath(path, issue.path), issueMessage(issue));
 }

@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import { InputError, quoteGot } from '../errors.ts';
+import { formatIssuePath, issueMessage } from './issueMessage.ts';
 import { createStudySchema, studySchema, type Study } from './schema.ts';
 
 /** The 50 Hz schema (times in cycles read at 50 Hz), built once like the 60 Hz `studySchema`. */
@@ -58,62 +59,9 @@ export function formatProblem(problem: StudyProblem): string {
 
 /** Renders a zod path as the user reads it: `study.devices[2].characteristic.kind`. */
 export function formatPath(path: readonly PropertyKey[]): string {
-  return path.reduce<string>((text, key) => {
-    if (typeof key === 'number') return `${text}[${key}]`;
-    const name = String(key);
-    return /^[A-Za-z_$][\w$]*$/.test(name) ? `${text}.${name}` : `${text}[${JSON.stringify(name)}]`;
-  }, 'study');
+  return formatIssuePath('study', path);
 }
 
 function describeIssue(issue: z.core.$ZodIssue): StudyProblem {
-  const path = formatPath(issue.path);
-  const input = 'input' in issue ? issue.input : undefined;
-  switch (issue.code) {
-    case 'custom':
-      return { path, message: issue.message };
-    case 'invalid_type':
-      return {
-        path,
-        message: `expected ${article(issue.expected)}, got ${input === undefined ? 'nothing' : quoteGot(input)}`,
-      };
-    case 'invalid_value':
-      return {
-        path,
-        message: `expected one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}, got ${quoteGot(input)}`,
-      };
-    case 'unrecognized_keys':
-      return { path, message: `expected no field ${issue.keys.map((k) => `"${k}"`).join(', ')} here, got one` };
-    case 'invalid_key': {
-      const nested = issue.issues[0]?.message ?? 'expected a known key';
-      return { path, message: `${nested.replace(/, got .*$/, '')}, got ${quoteGot(input)}` };
-    }
-    case 'invalid_union':
-      return { path, message: `expected ${unionExpectation(issue)}, got ${quoteGot(input)}` };
-    case 'too_small':
-      return {
-        path,
-        message: `expected ${issue.origin === 'array' ? `at least ${issue.minimum} item(s)` : `a value ${issue.inclusive ? 'of at least' : 'greater than'} ${issue.minimum}`}, got ${quoteGot(input)}`,
-      };
-    case 'too_big':
-      return {
-        path,
-        message: `expected ${issue.origin === 'array' ? `at most ${issue.maximum} item(s)` : `a value of at most ${issue.maximum}`}, got ${quoteGot(input)}`,
-      };
-    case 'invalid_format':
-      return {
-        path,
-        message: `${issue.message.startsWith('expected') ? issue.message : `expected ${issue.format}`}, got ${quoteGot(input)}`,
-      };
-    default:
-      return { path, message: `${issue.message}, got ${quoteGot(input)}` };
-  }
-}
-
-function unionExpectation(issue: z.core.$ZodIssueInvalidUnion): string {
-  if ('discriminator' in issue && issue.discriminator) return `a known "${String(issue.discriminator)}"`;
-  return 'one of the accepted forms';
-}
-
-function article(type: string): string {
-  return /^[aeiou]/.test(type) ? `an ${type}` : `a ${type}`;
+  return { path: formatPath(issue.path), message: issueMessage(issue) };
 }
