@@ -36,8 +36,7 @@ function denseClass(up: Band, down: Band, amps: number, margin: number, thin: nu
   if (u === Infinity) return 0;
   const d = never(down.maxTime(amps));
   const limiting = amps >= Math.min(up.currentLimitingFrom, down.currentLimitingFrom) && u < 0.1;
-  const bothInstantaneous =
-    u <= HALF_CYCLE_SECONDS && (d <= HALF_CYCLE_SECONDS || down.minTime(amps) <= HALF_CYCLE_SECONDS);
+  const bothInstantaneous = u <= HALF_CYCLE_SECONDS && d <= 0.1 && down.minTime(amps) <= HALF_CYCLE_SECONDS;
   if (bothInstantaneous || limiting) return 3;
   const slack = u - (d + margin);
   return !(slack >= 0) ? 2 : slack < thin ? 1 : 0;

@@ -2,7 +2,7 @@ import type { Characteristic } from './devices/characteristic.ts';
 import { fuseBand } from './devices/fuse.ts';
 import { relayBand } from './devices/relay.ts';
 import { thermalMagneticBand } from './devices/thermalMagnetic.ts';
-import { tripUnitBand } from './devices/tripUnit.ts';
+import { groundBandOf, tripUnitBand } from './devices/tripUnit.ts';
 
 /**
  * A band: what one protective device does on a TCC sheet (DESIGN §3, §4).
@@ -101,4 +101,42 @@ export function bandOf(characteristic: Characteristic): Band {
     case 'fuse':
       return fuseBand(characteristic);
   }
+}
+
+/**
+ * The band of a device's ground-fault element, for a trip unit that has one; `undefined` otherwise.
+ * Amps are ground (residual) current at the device's own voltage.
+ *
+ * @example groundFaultBandOf(main.characteristic)?.minTime(1500) // 0.4 s
+ */
+export function groundFaultBandOf(characteristic: Characteristic): Band | undefined {
+  return characteristic.kind === 'trip-unit' ? groundBandOf(characteristic) : undefined;
+}
+
+/**
+ * The band of a device whose elements all see the same current, operating on the fastest: each edge
+ * is the smaller of the bands' edges (a device with a phase and a ground-fault element, for a ground
+ * fault, which its phase element sees too).
+ *
+ * @example fastestOf([bandOf(c), groundFaultBandOf(c)!])
+ */
+export function fastestOf(bands: Band[]): Band {
+  if (bands.length === 1) return bands[0];
+  const minTimes = bands.map((band) => band.minTime);
+  const maxTimes = bands.map((band) => band.maxTime);
+  const smallest = (edges: ((amps: number) => number)[], amps: number) => {
+    let time = Infinity;
+    for (const edge of edges) time = Math.min(time, edge(amps));
+    return time;
+  };
+  const breakpoints = [...new Set(bands.flatMap((band) => [...band.breakpoints]))].sort((a, b) => a - b);
+  return {
+    minTime: (amps) => smallest(minTimes, amps),
+    maxTime: (amps) => smallest(maxTimes, amps),
+    breakpoints: Float64Array.from(breakpoints),
+    minAmps: Math.min(...bands.map((band) => band.minAmps)),
+    maxAmps: Math.max(...bands.map((band) => band.maxAmps)),
+    currentLimitingFrom: Math.min(...bands.map((band) => band.currentLimitingFrom)),
+    diagnostics: bands.flatMap((band) => band.diagnostics),
+  };
 }

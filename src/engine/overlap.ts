@@ -71,7 +71,7 @@ const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not 
  * At each current: `overlap` where `up.minTime · timeRatio < down.maxTime + margin` (so also where the
  * upstream device operates on a current the downstream one carries indefinitely); `thin margin` where the
  * slack is below `thinMargin`; `not provable from curves` where both bands reach down to the
- * half-cycle (the upstream earliest time and the downstream earliest time at or below it: two
+ * half-cycle and the downstream device surely clears within the instantaneous region (two
  * instantaneous trips), or where either device is current-limiting while the upstream one responds
  * within the instantaneous region; otherwise `selective`.
  *
@@ -105,7 +105,10 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   const classOf = (amps: number, upTime: number, downTime: number): number => {
     if (upTime === Infinity) return 0;
     const limiting = amps >= limitingFrom && upTime < instantaneousRegion;
-    if ((upTime <= halfCycle && (downTime <= halfCycle || downFast(amps) <= halfCycle)) || limiting) return 3;
+    // Two instantaneous trips: the upstream band and the downstream band both reach the half-cycle,
+    // and the downstream device surely clears within the instantaneous region.
+    const bothInstantaneous = upTime <= halfCycle && downTime <= instantaneousRegion && downFast(amps) <= halfCycle;
+    if (bothInstantaneous || limiting) return 3;
     const slack = upTime * timeRatio - (downTime + margin);
     if (!(slack >= 0)) return 2;
     return slack < thinMargin ? 1 : 0;

@@ -1,4 +1,4 @@
-import { scaleBand } from '../band.ts';
+import { fastestOf, groundFaultBandOf, scaleBand } from '../band.ts';
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { findOverlaps, type OverlapInterval } from '../overlap.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
@@ -8,7 +8,7 @@ import type { Finding, Severity } from './finding.ts';
 import { marginRuleOf, type MarginRule } from './margins.ts';
 
 /** Which fault a pair case models. */
-export type PairFault = 'three-phase' | 'line-to-line';
+export type PairFault = 'three-phase' | 'line-to-line' | 'ground-fault';
 
 /** One fault case of a pair, on the downstream device's voltage base. */
 export interface PairCase {
@@ -41,7 +41,8 @@ const SEVERITY: Record<OverlapInterval['status'], Severity> = {
  * current either device can operate up to the maximum fault at the downstream device's location, on
  * the downstream device's voltage base. Across a Δ–Y transformer it adds the secondary line-to-line
  * case, in which the primary device sees 1/0.866 = 1.155 times the secondary devices' per-unit current
- * (REFERENCE §1.8 item 1).
+ * (REFERENCE §1.8 item 1). Where the upstream device has a ground-fault element and no transformer lies
+ * between them, it adds the ground-fault case up to the line-to-ground fault there.
  *
  * @example checkPair(context, { upstream: main, downstream: feeder }, study.coordination)
  */
@@ -64,25 +65,46 @@ export function checkPair(
   const downBand = bands.get(downstream.id)!;
   const fault = faults.buses.get(downBus.id)!.max;
 
-  const deltaWye = transformersBetween(network, upBus.id, downBus.id).some((t) => t.connection === 'delta-wye');
-  const scenarios: { fault: PairFault; shift: number; toAmps: number }[] = [
-    { fault: 'three-phase', shift: 1, toAmps: fault.threePhase },
+  const between = transformersBetween(network, upBus.id, downBus.id);
+  const base = {
+    margin: rule.margin,
+    timeRatio: rule.timeRatio,
+    thinMargin: settings.thinMargin,
+    halfCycle: settings.halfCycle,
+    horizon: settings.horizon,
+  };
+  const cases: PairCase[] = [
+    {
+      fault: 'three-phase',
+      referenceVolts,
+      upstreamShift: 1,
+      intervals: findOverlaps(upBand, downBand, { ...base, toAmps: fault.threePhase }),
+    },
   ];
-  if (deltaWye) scenarios.push({ fault: 'line-to-line', shift: 1 / 0.866, toAmps: fault.lineToLine });
-
-  const cases: PairCase[] = scenarios.map(({ fault: name, shift, toAmps }) => ({
-    fault: name,
-    referenceVolts,
-    upstreamShift: shift,
-    intervals: findOverlaps(scaleBand(upBand, 1 / shift), downBand, {
-      toAmps,
-      margin: rule.margin,
-      timeRatio: rule.timeRatio,
-      thinMargin: settings.thinMargin,
-      halfCycle: settings.halfCycle,
-      horizon: settings.horizon,
-    }),
-  }));
+  // Across a Δ–Y transformer the primary device is 1/0.866 times harder hit by a secondary L-L fault.
+  if (between.some((t) => t.connection === 'delta-wye')) {
+    const shift = 1 / 0.866;
+    cases.push({
+      fault: 'line-to-line',
+      referenceVolts,
+      upstreamShift: shift,
+      intervals: findOverlaps(scaleBand(upBand, 1 / shift), downBand, { ...base, toAmps: fault.lineToLine }),
+    });
+  }
+  // A ground-fault element above sees ground current the devices below clear with their phase
+  // elements (or their own ground element); it does not cross a transformer (REFERENCE §3.2, 6.1).
+  const upGround = groundFaultBandOf(upstream.characteristic);
+  if (upGround && between.length === 0 && fault.lineToGround > 0) {
+    const downGround = groundFaultBandOf(downstream.characteristic);
+    const up = fastestOf([bands.get(upstream.id)!, upGround]);
+    const down = downGround ? fastestOf([downBand, downGround]) : downBand;
+    cases.push({
+      fault: 'ground-fault',
+      referenceVolts,
+      upstreamShift: 1,
+      intervals: findOverlaps(up, down, { ...base, toAmps: fault.lineToGround }),
+    });
+  }
 
   const check: PairCheck = { upstream: upstream.id, downstream: downstream.id, kind, rule, cases };
   return { check, findings: findingsOf(check, upstream, downstream, [upBus.voltage, referenceVolts]) };
@@ -94,7 +116,11 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
   const up = nameOf(upstream);
   const down = nameOf(downstream);
   for (const pairCase of check.cases) {
-    const faultText = pairCase.fault === 'line-to-line' ? ' for a secondary line-to-line fault' : '';
+    const faultText = {
+      'three-phase': '',
+      'line-to-line': ' for a secondary line-to-line fault',
+      'ground-fault': ' for a ground fault',
+    }[pairCase.fault];
     pairCase.intervals.forEach((interval, index) => {
       if (interval.status === 'selective' || isSliver(interval)) return;
       const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages);

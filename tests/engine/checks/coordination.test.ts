@@ -93,3 +93,50 @@ describe('checkPair at an infinite bus', () => {
     assertInDelta(intervals[1].toAmps, 2400 * Math.sqrt(12 / 0.3), 1e-5);
   });
 });
+
+describe('checkPair for a ground fault', () => {
+  /** A 2000 A main with a ground-fault element (1200 A, 0.5 s) above a 400 A phase-only feeder; invented settings. */
+  function groundStudy(): StudyInput {
+    const study = pairStudy();
+    study.devices = [
+      {
+        id: 'MAIN',
+        feeds: 'A',
+        characteristic: {
+          kind: 'trip-unit',
+          sensor: 2000,
+          longTime: { pickup: 1, delay: 10 },
+          ground: { pickup: 0.6, delay: 0.5 },
+        },
+      },
+      {
+        id: 'FDR',
+        feeds: 'C1',
+        characteristic: { kind: 'trip-unit', sensor: 400, longTime: { pickup: 1, delay: 10 } },
+      },
+    ];
+    return study;
+  }
+
+  it('adds a ground-fault case where the upstream device has a ground element', () => {
+    const [pair] = analyseStudy(parseStudy(groundStudy())).pairs;
+    expect(pair.cases.map((c) => c.fault)).toEqual(['three-phase', 'ground-fault']);
+  });
+
+  it('finds where the ground element beats the feeder’s long-time band, as a hand solution gives', () => {
+    // Ground element from 1200 A − 10 % = 1080 A at 0.5 s (common practice tolerances); feeder at most
+    // 12 · (2400/I)² s. Overlap while 12 · (2400/I)² > 0.5 → I < 2400 · √24 = 11 757.6 A; thin until
+    // 12 · (2400/I)² > 0.4 → I < 2400 · √30 = 13 145.3 A (computed).
+    const [pair] = analyseStudy(parseStudy(groundStudy())).pairs;
+    const intervals = pair.cases[1].intervals;
+    expect(intervals.map((i) => i.status)).toEqual(['selective', 'overlap', 'thin margin', 'selective']);
+    assertInDelta(intervals[1].fromAmps, 1080, 1e-5);
+    assertInDelta(intervals[1].toAmps, 2400 * Math.sqrt(24), 1e-5);
+    assertInDelta(intervals[2].toAmps, 2400 * Math.sqrt(30), 1e-5);
+  });
+
+  it('says the overlap is for a ground fault', () => {
+    const finding = analyseStudy(parseStudy(groundStudy())).findings.find((f) => f.status === 'overlap')!;
+    expect(finding.title).toBe('MAIN over FDR: overlap for a ground fault');
+  });
+});
