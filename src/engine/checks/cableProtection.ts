@@ -1,11 +1,11 @@
 import { scaleBand } from '../band.ts';
-import { locationBusOf, pathTo } from '../network/index.ts';
+import { locationBusOf } from '../network/index.ts';
 import { findOverlaps } from '../overlap.ts';
 import { formatAmps, formatSeconds } from '../quantity/index.ts';
-import type { Cable, Device } from '../study/index.ts';
+import type { Cable } from '../study/index.ts';
 import { conductorAreaCmil } from '../conductors/index.ts';
 import { cableWithstandOf } from '../withstand/index.ts';
-import { capitalise, describeRange, nameOf, rangeOf, type CheckContext } from './context.ts';
+import { capitalise, describeRange, nameOf, protectingDevice, rangeOf, type CheckContext } from './context.ts';
 import type { Finding } from './finding.ts';
 import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
 
@@ -80,14 +80,4 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
       referenceVolts: volts,
     };
   });
-}
-
-/** The device feeding the element, or the nearest one above it on the way to the source. */
-export function protectingDevice(context: CheckContext, elementId: string): Device | undefined {
-  const path = pathTo(context.network, elementId);
-  for (let i = path.length - 1; i >= 0; i--) {
-    const device = context.network.deviceFeeding.get(path[i]);
-    if (device) return device;
-  }
-  return undefined;
 }

@@ -1,6 +1,6 @@
 import type { Band } from '../band.ts';
 import type { FaultLevels } from '../fault/index.ts';
-import type { Network } from '../network/index.ts';
+import { pathTo, type Network } from '../network/index.ts';
 import type { Device } from '../study/index.ts';
 import { formatAmps, formatVolts } from '../quantity/index.ts';
 import type { CurrentRange } from './finding.ts';
@@ -68,4 +68,14 @@ export function surelyClearsFrom(band: Band, limit: number, horizon = Infinity):
 /** Starts a sentence with a capital letter. */
 export function capitalise(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+/** The device feeding the element, or the nearest one above it on the way to the source. */
+export function protectingDevice(context: CheckContext, elementId: string): Device | undefined {
+  const path = pathTo(context.network, elementId);
+  for (let i = path.length - 1; i >= 0; i--) {
+    const device = context.network.deviceFeeding.get(path[i]);
+    if (device) return device;
+  }
+  return undefined;
 }

@@ -3,8 +3,7 @@ import { locationBusOf } from '../network/index.ts';
 import { formatAmps, formatSeconds } from '../quantity/index.ts';
 import type { Motor } from '../study/index.ts';
 import { motorStartingOf } from '../withstand/index.ts';
-import { nameOf, rangeOf, type CheckContext } from './context.ts';
-import { protectingDevice } from './cableProtection.ts';
+import { nameOf, protectingDevice, rangeOf, type CheckContext } from './context.ts';
 import type { Finding } from './finding.ts';
 
 /**

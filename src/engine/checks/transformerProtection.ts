@@ -2,8 +2,15 @@ import { findOverlaps } from '../overlap.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
 import type { Transformer } from '../study/index.ts';
 import { inrushMarkersOf, transformerRatedAmps, transformerWithstandOf } from '../withstand/index.ts';
-import { capitalise, describeRange, nameOf, rangeOf, surelyClearsFrom, type CheckContext } from './context.ts';
-import { protectingDevice } from './cableProtection.ts';
+import {
+  capitalise,
+  describeRange,
+  nameOf,
+  protectingDevice,
+  rangeOf,
+  surelyClearsFrom,
+  type CheckContext,
+} from './context.ts';
 import type { Finding } from './finding.ts';
 import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
 

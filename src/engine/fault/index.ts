@@ -33,5 +33,5 @@ export { transformerCalculation } from './transformerCalculation.ts';
 export type { TransformerCalculationInput, TransformerCalculation } from './transformerCalculation.ts';
 export { num, impedanceStep } from './workSteps.ts';
 export { stepsTo, faultSteps } from './faultWork.ts';
-export { withLazySteps, withLazyWork } from './workSteps.ts';
+export { withLazy, withLazySteps, withLazyWork } from './workSteps.ts';
 export { asymmetryOf } from './asymmetry.ts';

@@ -32,32 +32,30 @@ export function impedanceStep(
 }
 
 /**
- * Adds a `steps` property to `result` that writes the work only when first read, then keeps it.
- * Large studies compute thousands of elements whose work is seldom opened; the numbers stay eager.
+ * Adds the property `key` to `result`, holding work steps that are written only when first read,
+ * then kept. Large studies compute thousands of elements whose work is seldom opened; the numbers
+ * stay eager. The property is enumerable, so `JSON.stringify` writes it like any other field.
  *
- * @example const { z, steps } = withLazySteps({ z }, () => [impedanceStep(...)])
+ * @example const bus = withLazy({ busId: 'SWBD' }, 'work', () => steps) // bus.work is built on first read
  */
-export function withLazySteps<T extends object>(
+export function withLazy<T extends object, K extends string>(
   result: T,
+  key: K,
   build: () => WorkStep[],
-): T & { readonly steps: WorkStep[] } {
+): T & { readonly [P in K]: WorkStep[] } {
   let cached: WorkStep[] | undefined;
-  return Object.defineProperty(result, 'steps', {
+  return Object.defineProperty(result, key, {
     enumerable: true,
     get: () => (cached ??= build()),
-  }) as T & { readonly steps: WorkStep[] };
+  }) as T & { readonly [P in K]: WorkStep[] };
 }
 
-/**
- * Adds a `work` property to `result` that is written when first read, then kept (as `withLazySteps`).
- * The property is enumerable, so `JSON.stringify` writes the work like any other field.
- *
- * @example const bus = withLazyWork({ busId: 'SWBD' }, () => steps) // bus.work is built on first read
- */
-export function withLazyWork<T extends object>(result: T, build: () => WorkStep[]): T & { readonly work: WorkStep[] } {
-  let cached: WorkStep[] | undefined;
-  return Object.defineProperty(result, 'work', {
-    enumerable: true,
-    get: () => (cached ??= build()),
-  }) as T & { readonly work: WorkStep[] };
+/** `withLazy(result, 'steps', build)`: an element's impedance steps. */
+export function withLazySteps<T extends object>(result: T, build: () => WorkStep[]) {
+  return withLazy(result, 'steps', build);
+}
+
+/** `withLazy(result, 'work', build)`: a bus's or transformer's worked calculation. */
+export function withLazyWork<T extends object>(result: T, build: () => WorkStep[]) {
+  return withLazy(result, 'work', build);
 }
