@@ -10,6 +10,7 @@ export type {
   Device,
   View,
   CoordinationSettings,
+  Revision,
 } from './schema.ts';
 export { readStudy, parseStudy, formatProblem, formatPath } from './parse.ts';
 export type { StudyProblem } from './parse.ts';

@@ -226,13 +226,30 @@ export function createStudySchema(frequency = 60) {
       edition: '2023',
     });
 
+  const revision = z
+    .object({
+      revision: z.string().min(1).meta({ description: 'revision mark, e.g. "A" or "2"' }),
+      date: z.string().optional(),
+      by: z.string().optional(),
+      description: z.string().optional().meta({ description: 'what changed' }),
+    })
+    .strict();
+
   return z
     .object({
       discern: z.literal(STUDY_VERSION).meta({ description: 'study file format version' }),
       name: z.string().min(1),
       description: z.string().optional(),
+      site: z.string().optional().meta({ description: 'where the system is: printed on every figure and report' }),
+      client: z.string().optional().meta({ description: 'for whom the study is made' }),
       preparedBy: z.string().optional(),
-      date: z.string().optional(),
+      checkedBy: z.string().optional(),
+      date: z.string().optional().meta({ description: 'the study date, printed as written (e.g. "2026-12-02")' }),
+      revisions: z
+        .array(revision)
+        .default([])
+        .meta({ description: 'revision log, oldest first; the last entry is the current revision' }),
+      notes: z.string().optional().meta({ description: 'study notes for the report cover' }),
       frequency: z.union([z.literal(50), z.literal(60)]).default(60),
       source,
       buses: z.array(bus).min(1),
@@ -261,3 +278,4 @@ export type Motor = Study['motors'][number];
 export type Device = Study['devices'][number];
 export type View = Study['views'][number];
 export type CoordinationSettings = Study['coordination'];
+export type Revision = Study['revisions'][number];
