@@ -8,30 +8,59 @@ import { transformerFaultOf } from './transformerFault.ts';
 import { withLazyWork } from './workSteps.ts';
 import { faultSteps, stepsTo } from './faultWork.ts';
 
-/** Bolted fault currents at one bus for one condition; amps at the bus's nominal voltage. */
+/**
+ * Bolted fault currents at one bus for one condition (maximum or minimum); amps symmetrical RMS at the
+ * bus's nominal voltage. Readers of fault duty (interrupting rating, sensitivity, ranges) read these.
+ *
+ * On a three-phase bus: `threePhase`, `lineToLine` and `lineToGround` are the three bolted faults from
+ * the sequence networks (Z2 = Z1). On a single-phase bus (below a single-phase transformer; `BusFault.phases`
+ * is 1) there is no three-phase fault: `threePhase` and `lineToLine` both hold the full-winding
+ * (line-to-line) fault, the one that reflects across the transformer by its voltage ratio, and
+ * `lineToGround` the line-to-neutral fault (half winding on a centre-tapped secondary). `largest` is the
+ * largest of them for duty checks.
+ *
+ * @example faults.buses.get('SWBD')!.max.lineToGround // A at 480 V
+ */
 export interface FaultLevel {
-  /** Three-phase bolted fault current (A, symmetrical RMS). */
+  /** Three-phase bolted fault (A); on a single-phase bus the full-winding line-to-line fault. */
   threePhase: number;
-  /** Line-to-line bolted fault, `0.866 · I_3φ` (A). */
+  /** Line-to-line bolted fault (A): `√3/2 · I_3φ` exactly (Z2 = Z1); on a single-phase bus the full-winding fault. */
   lineToLine: number;
-  /** Line-to-ground bolted fault (A): `≈ I_3φ` on solidly grounded wye systems (Z0 = Z1), 0 on delta systems. */
+  /**
+   * Line-to-ground bolted fault (A): `3·V_LN / |Z1 + Z2 + Z0|` from the zero-sequence network (source,
+   * transformer connection, neutral grounding, cables); 0 where no zero-sequence path reaches the bus
+   * (delta or ungrounded systems). On a single-phase bus the line-to-neutral (or grounded-leg) fault.
+   */
   lineToGround: number;
-  /** How much motors add to the three-phase fault (A); 0 at minimum. */
+  /** The largest of the bolted faults above (A): the duty a device at the bus must interrupt. */
+  largest: number;
+  /** How much motors add to the three-phase (full-winding) fault (A); 0 at minimum. */
   motorAmps: number;
-  /** ΣX/ΣR at the fault; `Infinity` if there is no resistance. */
+  /** ΣX/ΣR of the three-phase (single-phase: full-winding loop) fault; `Infinity` with no resistance. */
   xr: number;
-  /** Thevenin impedance at the fault (Ω at the bus voltage). */
+  /** X/R of the line-to-ground loop, `(2X1 + X0) / (2R1 + R0)` (single-phase: the line-to-neutral loop); NaN where `lineToGround` is 0. */
+  lineToGroundXr: number;
+  /** Positive-sequence Thevenin impedance at the fault (Ω at the bus voltage); single-phase: the full-winding loop. */
   impedance: Impedance;
+  /** Zero-sequence Thevenin impedance (Ω at the bus voltage, neutral impedance as 3·Zn included); undefined with no path. Single-phase: the line-to-neutral loop. */
+  zeroSequence?: Impedance;
 }
 
 /** Fault currents at one bus, with the work behind them. */
 export interface BusFault {
   busId: string;
-  /** Nominal line-to-line voltage (V). */
+  /** Nominal line-to-line voltage (V); for a single-phase bus the full-winding voltage (240 V for 120/240 V). */
   volts: number;
+  /** 3 for a three-phase bus; 1 for a bus below a single-phase transformer. */
+  phases: 1 | 3;
+  /** What the levels describe, in words: "three-phase", "single-phase 120/240 V centre-tapped", … */
+  system: string;
   max: FaultLevel;
   min: FaultLevel;
-  /** The max/min three-phase current reflected to every other voltage level of the study (A at `volts`). */
+  /**
+   * The max/min three-phase (single-phase: full-winding) current reflected to the voltage levels where
+   * that current flows: the buses on the bus's path to the source (A at `volts`).
+   */
   reflected: { volts: number; maxAmps: number; minAmps: number }[];
   work: Work;
 }
@@ -133,7 +162,10 @@ export function faultLevelsOf(network: Network): FaultLevels {
       ...stepsTo(network, min, busId, 'minimum'),
       ...faultSteps('minimum', volts, min.toward.get(busId)!, min.below.get(busId), minAt),
     ];
-    buses.set(busId, withLazyWork({ busId, volts, max: maxAt, min: minAt, reflected }, work));
+    buses.set(
+      busId,
+      withLazyWork({ busId, volts, phases: 3, system: 'three-phase', max: maxAt, min: minAt, reflected }, work),
+    );
   }
 
   const transformers = new Map(
@@ -160,6 +192,8 @@ function levelAt(
     threePhase,
     lineToLine: (threePhase * Math.sqrt(3)) / 2,
     lineToGround: grounded ? threePhase : 0,
+    largest: threePhase,
+    lineToGroundXr: grounded ? xrOf(z) : NaN,
     motorAmps: tree.motorZ.size > 0 && Number.isFinite(threePhase) ? Math.max(0, threePhase - withoutMotors) : 0,
     xr: xrOf(z),
     impedance: z,
