@@ -24,8 +24,31 @@ export function createStudySchema(frequency = 60) {
     .object({
       available: availableFaultField,
       xr: z.number().positive().optional().meta({ description: 'X/R ratio at the source; omit for all-reactance' }),
+      x0x1: z.number().nonnegative().optional().meta({
+        description: 'zero-sequence X0/X1 of the source; default 1 (Z0 = Z1, a solidly grounded source)',
+      }),
+      r0r1: z
+        .number()
+        .nonnegative()
+        .optional()
+        .meta({ description: 'zero-sequence R0/R1 of the source; default: x0x1' }),
+      lineToGround: availableFaultField.optional().meta({
+        description: 'available line-to-ground fault at the source bus ("10 kA"); sets Z0 instead of x0x1/r0r1',
+      }),
     })
     .strict();
+
+  const grounding = z
+    .object({
+      kind: z.enum(['solid', 'resistance', 'reactance', 'ungrounded']),
+      ohms: z.number().nonnegative().optional().meta({ description: 'neutral resistor or reactor (Ω)' }),
+    })
+    .strict()
+    .refine((g) => g.kind === 'solid' || g.kind === 'ungrounded' || g.ohms !== undefined, {
+      message: 'expected "ohms" with a resistance or reactance grounding',
+      path: ['ohms'],
+    })
+    .meta({ description: 'neutral grounding: solid, through a resistor or reactor of `ohms`, or ungrounded' });
 
   const source = z.discriminatedUnion('kind', [
     z
@@ -35,6 +58,7 @@ export function createStudySchema(frequency = 60) {
         bus: idField.meta({ description: 'the bus the source feeds' }),
         max: sourceLevel.meta({ description: 'maximum available fault (for interrupting duty and coordination)' }),
         min: sourceLevel.optional().meta({ description: 'minimum available fault (for sensitivity); defaults to max' }),
+        grounding: grounding.default({ kind: 'solid' }).meta({ description: 'neutral grounding of the source' }),
       })
       .strict(),
     z.object({ kind: z.literal('infinite'), id: idField, bus: idField }).strict(),
@@ -69,6 +93,20 @@ export function createStudySchema(frequency = 60) {
         .default('delta-wye')
         .meta({ description: 'winding connection, primary first; wye secondaries are solidly grounded' }),
       phases: z.union([z.literal(1), z.literal(3)]).default(3),
+      grounding: grounding
+        .default({ kind: 'solid' })
+        .meta({ description: 'secondary neutral grounding (wye, or the centre tap of a single-phase unit)' }),
+      primaryConnection: z.enum(['line-to-line', 'line-to-neutral']).optional().meta({
+        description:
+          'single-phase units: primary winding across two lines or line to neutral; default from the rated primary against the bus voltage',
+      }),
+      secondaryWinding: z.enum(['two-wire', 'centre-tapped']).optional().meta({
+        description: 'single-phase units: default centre-tapped (120/240 V) for a 240 V secondary, else two-wire',
+      }),
+      halfWinding: z.object({ r: z.number().positive(), x: z.number().positive() }).strict().optional().meta({
+        description:
+          'centre-tapped units: half-winding R and X as multiples of the full-winding per-unit values (default 1.5 and 1.2, common practice)',
+      }),
       construction: z.enum(['liquid', 'dry']).default('liquid'),
       category: z
         .enum(['I', 'II', 'III', 'IV'])
@@ -114,6 +152,11 @@ export function createStudySchema(frequency = 60) {
         .nonnegative()
         .optional()
         .meta({ description: 'ohms per 1000 ft per conductor; overrides NEC Table 9' }),
+      zeroSequence: z
+        .object({ resistance: z.number().nonnegative(), reactance: z.number().nonnegative() })
+        .strict()
+        .optional()
+        .meta({ description: 'zero-sequence R0 and X0, ohms per 1000 ft; default 3 × Z1 (common practice)' }),
     })
     .strict();
 
