@@ -2,10 +2,15 @@ import type { jsPDF as JsPdf } from 'jspdf';
 import type {} from 'svg2pdf.js';
 import { textWidth } from './textWidth.ts';
 
+/** Paper sizes a figure or report prints on. */
+export type Paper = 'letter' | 'a4' | 'tabloid' | 'a3';
+
 /** Options of {@link pdfOf}. */
 export interface PdfOptions {
-  /** Paper, printed landscape. @default 'letter' */
-  paper?: 'letter' | 'a4';
+  /** Paper. @default 'letter' */
+  paper?: Paper;
+  /** @default 'landscape' for a figure */
+  orientation?: 'landscape' | 'portrait';
   /** Clear margin on every side, in points (1/72 in). @default 36 */
   margin?: number;
   /**
@@ -14,10 +19,35 @@ export interface PdfOptions {
    * from the app's assets), or the text falls back to Helvetica, which lacks those glyphs.
    */
   fonts?: { regular: Uint8Array; bold?: Uint8Array };
+  /**
+   * The document's creation date, written into the PDF so that the same input gives the same bytes.
+   * @default '2000-01-01T00:00:00Z' (a fixed date: the writer reads no clock)
+   */
+  date?: string;
 }
 
-/** Paper sizes in points, landscape: width × height. */
-export const PAPER_POINTS = { letter: [792, 612], a4: [841.89, 595.28] } as const;
+/** Paper sizes in points, landscape: width × height (ANSI and ISO 216 sizes). */
+export const PAPER_POINTS = {
+  letter: [792, 612],
+  a4: [841.89, 595.28],
+  tabloid: [1224, 792],
+  a3: [1190.55, 841.89],
+} as const;
+
+/** The paper's width and height in points for an orientation. */
+export function pagePoints(paper: Paper, orientation: 'landscape' | 'portrait'): [number, number] {
+  const [long, short] = PAPER_POINTS[paper];
+  return orientation === 'landscape' ? [long, short] : [short, long];
+}
+
+/** One SVG placed on a page of a multi-page PDF, in points from the page's top-left corner. */
+export interface PagePlacement {
+  svg: string;
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
 
 /** Where Node reads the embedded faces from when `fonts` is not given. */
 const NODE_FONT_DIR = '/usr/share/fonts/truetype/dejavu/';
@@ -30,44 +60,69 @@ const NODE_FONT_DIR = '/usr/share/fonts/truetype/dejavu/';
  * @example writeFileSync('sheet.pdf', await pdfOf(svgOf(sheet), { paper: 'a4' }))
  */
 export async function pdfOf(svg: string, options: PdfOptions = {}): Promise<Uint8Array> {
-  const { paper = 'letter', margin = 36 } = options;
-  if (paper !== 'letter' && paper !== 'a4')
-    throw new RangeError(`options.paper: expected "letter" or "a4", got "${paper}"`);
-  if (!(Number.isFinite(margin) && margin >= 0 && margin < 200))
-    throw new RangeError(`options.margin: expected points from 0 to 200, got "${margin}"`);
-  const inBrowser = typeof window !== 'undefined' && typeof document !== 'undefined' && !isJsdom();
-  return inBrowser ? printInBrowser(svg, paper, margin, options.fonts) : printInNode(svg, paper, margin, options.fonts);
+  const { paper = 'letter', margin = 36, orientation = 'landscape' } = options;
+  checkOptions(paper, margin, orientation);
+  const [pageWidth, pageHeight] = pagePoints(paper, orientation);
+  const size = /<svg[^>]*?\swidth="([\d.]+)"[^>]*?\sheight="([\d.]+)"/.exec(svg);
+  const [width, height] = [Number(size?.[1]) || 960, Number(size?.[2]) || 720];
+  const fit = Math.min((pageWidth - 2 * margin) / width, (pageHeight - 2 * margin) / height);
+  const [w, h] = [width * fit, height * fit];
+  return pdfOfPages([[{ svg, x: (pageWidth - w) / 2, y: (pageHeight - h) / 2, width: w, height: h }]], options);
 }
 
-// Accepts an SVG string; prints it with the page's DOM.
-async function printInBrowser(
-  svg: string,
-  paper: 'letter' | 'a4',
-  margin: number,
-  fonts: PdfOptions['fonts'],
-): Promise<Uint8Array> {
+/**
+ * Prints pages of placed SVGs to one PDF on one paper size, with DejaVu Sans embedded; each page is a
+ * list of placements drawn in order. Deterministic: the creation date comes from the options and the
+ * file identifier from the content, so the same pages give the same bytes.
+ * @example await pdfOfPages([[{ svg, x: 0, y: 0, width: 612, height: 792 }]], { paper: 'letter', orientation: 'portrait' })
+ */
+export async function pdfOfPages(pages: PagePlacement[][], options: PdfOptions = {}): Promise<Uint8Array> {
+  const { paper = 'letter', margin = 36, orientation = 'landscape' } = options;
+  checkOptions(paper, margin, orientation);
+  const job: PrintJob = { pages, paper, orientation, date: options.date ?? '2000-01-01T00:00:00Z' };
+  const inBrowser = typeof window !== 'undefined' && typeof document !== 'undefined' && !isJsdom();
+  return inBrowser ? printInBrowser(job, options.fonts) : printInNode(job, options.fonts);
+}
+
+/** What one call prints. */
+interface PrintJob {
+  pages: PagePlacement[][];
+  paper: Paper;
+  orientation: 'landscape' | 'portrait';
+  date: string;
+}
+
+// Accepts the options; throws a one-line error naming the option when one is out of range.
+function checkOptions(paper: string, margin: number, orientation: string): void {
+  if (!(paper in PAPER_POINTS))
+    throw new RangeError(`options.paper: expected "letter", "a4", "tabloid" or "a3", got "${paper}"`);
+  if (orientation !== 'landscape' && orientation !== 'portrait')
+    throw new RangeError(`options.orientation: expected "landscape" or "portrait", got "${orientation}"`);
+  if (!(Number.isFinite(margin) && margin >= 0 && margin < 200))
+    throw new RangeError(`options.margin: expected points from 0 to 200, got "${margin}"`);
+}
+
+// Accepts a print job; prints it with the page's DOM.
+async function printInBrowser(job: PrintJob, fonts: PdfOptions['fonts']): Promise<Uint8Array> {
   const { jsPDF } = await import('jspdf');
   await import('svg2pdf.js');
-  const element = new DOMParser().parseFromString(svg, 'image/svg+xml').documentElement as unknown as SVGSVGElement;
   // Kept out of sight but in the document, so styles and text measurement work.
   const holder = document.createElement('div');
   holder.style.cssText = 'position:absolute;left:-10000px;top:0;visibility:hidden';
-  holder.appendChild(document.importNode(element, true));
   document.body.appendChild(holder);
   try {
-    return await print(jsPDF, holder.firstElementChild as SVGSVGElement, paper, margin, fonts);
+    const parse = (svg: string) => {
+      const element = new DOMParser().parseFromString(svg, 'image/svg+xml').documentElement;
+      return holder.appendChild(document.importNode(element, true)) as unknown as SVGSVGElement;
+    };
+    return await print(jsPDF, job, parse, fonts);
   } finally {
     holder.remove();
   }
 }
 
-// Accepts an SVG string; prints it in Node with a jsdom window installed as the global DOM for the call.
-async function printInNode(
-  svg: string,
-  paper: 'letter' | 'a4',
-  margin: number,
-  fonts: PdfOptions['fonts'],
-): Promise<Uint8Array> {
+// Accepts a print job; prints it in Node with a jsdom window installed as the global DOM for the call.
+async function printInNode(job: PrintJob, fonts: PdfOptions['fonts']): Promise<Uint8Array> {
   // Module names in variables keep bundlers from pulling Node-only code into the browser build.
   const jsdomName = 'jsdom';
   const fsName = 'node:fs';
@@ -78,25 +133,27 @@ async function printInNode(
   try {
     const { jsPDF } = await import('jspdf');
     await import('svg2pdf.js/dist/svg2pdf.es.min.js');
-    const element = new dom.window.DOMParser().parseFromString(svg, 'image/svg+xml').documentElement;
-    dom.window.document.body.appendChild(element);
-    return await print(jsPDF, element as unknown as SVGSVGElement, paper, margin, faces);
+    const parse = (svg: string) => {
+      const element = new dom.window.DOMParser().parseFromString(svg, 'image/svg+xml').documentElement;
+      return dom.window.document.body.appendChild(element) as unknown as SVGSVGElement;
+    };
+    return await print(jsPDF, job, parse, faces);
   } finally {
     restore();
     dom.window.close();
   }
 }
 
-// Accepts the jsPDF class and an SVG element in a document; the PDF bytes.
+// Accepts the jsPDF class, a job and a way to put an SVG string into a document; the PDF bytes.
 async function print(
   jsPDF: typeof JsPdf,
-  element: SVGSVGElement,
-  paper: 'letter' | 'a4',
-  margin: number,
+  job: PrintJob,
+  parse: (svg: string) => SVGSVGElement,
   fonts: PdfOptions['fonts'],
 ): Promise<Uint8Array> {
-  const [pageWidth, pageHeight] = PAPER_POINTS[paper];
-  const doc = new jsPDF({ orientation: 'landscape', unit: 'pt', format: paper, compress: true });
+  const doc = new jsPDF({ orientation: job.orientation, unit: 'pt', format: job.paper, compress: true });
+  doc.setCreationDate(new Date(job.date));
+  doc.setFileId(fileIdOf(job));
   if (fonts) {
     doc.addFileToVFS('DejaVuSans.ttf', base64Of(fonts.regular));
     doc.addFont('DejaVuSans.ttf', 'DejaVu Sans', 'normal');
@@ -104,12 +161,29 @@ async function print(
     doc.addFont('DejaVuSans-Bold.ttf', 'DejaVu Sans', 'bold');
     doc.setFont('DejaVu Sans', 'normal');
   }
-  const width = Number(element.getAttribute('width')) || 960;
-  const height = Number(element.getAttribute('height')) || 720;
-  const fit = Math.min((pageWidth - 2 * margin) / width, (pageHeight - 2 * margin) / height);
-  const [w, h] = [width * fit, height * fit];
-  await doc.svg(element, { x: (pageWidth - w) / 2, y: (pageHeight - h) / 2, width: w, height: h });
+  for (const [index, page] of job.pages.entries()) {
+    if (index > 0) doc.addPage(job.paper, job.orientation);
+    for (const placement of page) {
+      const element = parse(placement.svg);
+      await doc.svg(element, { x: placement.x, y: placement.y, width: placement.width, height: placement.height });
+      element.remove();
+    }
+  }
   return new Uint8Array(doc.output('arraybuffer'));
+}
+
+// Accepts a job; a 32-hex-digit identifier from its content (FNV-1a, four lanes), the same for the same job.
+function fileIdOf(job: PrintJob): string {
+  const lanes = [0x811c9dc5, 0x01000193, 0x9e3779b9, 0x85ebca6b];
+  const text = `${job.paper}|${job.orientation}|${job.date}|${job.pages.map((page) => page.map((p) => p.svg).join('|')).join('#')}`;
+  for (let i = 0; i < text.length; i++) {
+    for (let lane = 0; lane < 4; lane++)
+      lanes[lane] = Math.imul(lanes[lane] ^ (text.charCodeAt(i) + lane), 16777619) >>> 0;
+  }
+  return lanes
+    .map((lane) => lane.toString(16).padStart(8, '0'))
+    .join('')
+    .toUpperCase();
 }
 
 // Accepts the window of a jsdom; puts its DOM classes on globalThis and returns a function that puts back what was there.

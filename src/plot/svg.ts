@@ -2,6 +2,9 @@ import type { HatchPattern, Paint, Primitive } from './geometry.ts';
 import { fixed } from './precision.ts';
 import type { Sheet } from './sheet.ts';
 
+/** What `svgOf` writes: a TCC sheet, a one-line diagram or a report page. */
+export type Drawing = Pick<Sheet, 'width' | 'height' | 'fontFamily' | 'title' | 'description' | 'patterns' | 'layers'>;
+
 /**
  * Writes a sheet as a standalone SVG document: `width`/`height` and a `viewBox`, the title and
  * description, hatch patterns in `<defs>`, a white background and one `<g data-layer>` per layer,
@@ -9,7 +12,7 @@ import type { Sheet } from './sheet.ts';
  * rounded to 3 decimals, ids from the sheet, no clock). Every piece of user text is escaped.
  * @example svgOf(sheetOf(input)).startsWith('<svg xmlns="http://www.w3.org/2000/svg"') // true
  */
-export function svgOf(sheet: Sheet): string {
+export function svgOf(sheet: Drawing): string {
   const { width, height } = sheet;
   const out: string[] = [
     `<svg xmlns="http://www.w3.org/2000/svg" width="${fixed(width)}" height="${fixed(height)}" viewBox="0 0 ${fixed(width)} ${fixed(height)}" font-family="${escapeXml(sheet.fontFamily)}" role="img">`,
