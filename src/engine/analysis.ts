@@ -3,8 +3,10 @@ import { cableFindings } from './checks/cableProtection.ts';
 import type { CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
 import type { Finding, Severity } from './checks/finding.ts';
+import { busRatingFindings, interruptingFindings } from './checks/interruptingDuty.ts';
 import { motorFindings } from './checks/motorStarting.ts';
 import { nec450Findings } from './checks/nec450.ts';
+import { sensitivityFindings } from './checks/sensitivity.ts';
 import { transformerFindings } from './checks/transformerProtection.ts';
 import { faultLevelsOf, type FaultLevels } from './fault/index.ts';
 import { locationBusOf, networkOf, seriesPairs, type Network } from './network/index.ts';
@@ -19,7 +21,10 @@ export interface Analysis {
   bands: Map<string, Band>;
   /** Every series pair, with its classified current intervals. */
   pairs: PairCheck[];
-  /** Findings in the order: pairs (top down), transformers, code limits, cables, motors, settings. */
+  /**
+   * Findings in the order: pairs (top down), transformers, code limits, cables, motors, interrupting
+   * duty, equipment short-circuit ratings, sensitivity, settings.
+   */
   findings: Finding[];
   /** How many findings of each severity. */
   counts: Record<Severity, number>;
@@ -28,7 +33,9 @@ export interface Analysis {
 /**
  * Runs every check on a study that `readStudy` accepted: fault levels at every bus, each device's
  * band, every series pair (DESIGN §4), transformer through-fault and inrush protection, NEC 450.3
- * limits, cable short-circuit protection and motor starting. Pure: the result depends only on `study`.
+ * limits, cable short-circuit protection, motor starting, interrupting duty and equipment short-circuit
+ * ratings (NFPA 70 110.9, 110.10) and sensitivity to the minimum fault in each zone. Pure: the result
+ * depends only on `study`.
  *
  * @example const { findings } = analyseStudy(parseStudy(text))
  */
@@ -51,6 +58,10 @@ export function analyseStudy(study: Study): Analysis {
     findings.push(...nec450Findings(context, transformer, study.coordination.edition));
   for (const cable of study.cables) findings.push(...cableFindings(context, cable, study.coordination.horizon));
   for (const motor of study.motors) findings.push(...motorFindings(context, motor));
+  for (const device of study.devices) findings.push(...interruptingFindings(context, device, study.frequency));
+  for (const bus of study.buses) findings.push(...busRatingFindings(context, bus, study.frequency));
+  for (const device of study.devices)
+    findings.push(...sensitivityFindings(context, device, study.coordination.sensitivity));
   for (const device of study.devices) {
     bands.get(device.id)!.diagnostics.forEach((message, index) =>
       findings.push({

@@ -8,6 +8,9 @@ export type FindingKind =
   | 'nec-450.3'
   | 'cable-withstand'
   | 'motor-starting'
+  | 'interrupting-duty'
+  | 'short-circuit-rating'
+  | 'sensitivity'
   | 'setting';
 
 /** How bad: `ok` passes, `info` is advice, `warning` a thin margin or an unprovable region, `fail` an overlap or a protection failure. */

@@ -65,7 +65,14 @@ export function createStudySchema(frequency = 60) {
   ]);
 
   const bus = z
-    .object({ id: idField, name: z.string().optional(), voltage: voltage('nominal line-to-line voltage') })
+    .object({
+      id: idField,
+      name: z.string().optional(),
+      voltage: voltage('nominal line-to-line voltage'),
+      shortCircuitRating: quantityField('current', { min: 0, exclusiveMin: true }).optional().meta({
+        description: 'equipment short-circuit rating of the bus (switchboard, panelboard, MCC), A symmetrical',
+      }),
+    })
     .strict();
 
   const transformer = z
@@ -194,7 +201,18 @@ export function createStudySchema(frequency = 60) {
       rating: quantityField('current', { min: 0, exclusiveMin: true })
         .optional()
         .meta({ description: 'ampere rating (fuse, breaker frame or plug) used by NEC checks' }),
-      interruptingRating: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+      interruptingRating: quantityField('current', { min: 0, exclusiveMin: true })
+        .optional()
+        .meta({ description: 'interrupting rating, A symmetrical at the device voltage' }),
+      construction: z.enum(['moulded-case', 'insulated-case', 'power-breaker', 'mv-breaker']).optional().meta({
+        description:
+          'breaker construction, which sets its interrupting test X/R; default: mv-breaker above 1000 V, else moulded-case (power-breaker for a relay)',
+      }),
+      interruptingTestXr: z
+        .number()
+        .positive()
+        .optional()
+        .meta({ description: 'X/R of the interrupting-rating test circuit from the listing; overrides the default' }),
       margin: quantityField('time', { frequency, min: 0 })
         .optional()
         .meta({ description: 'coordination margin required above the devices it backs up' }),
@@ -257,6 +275,17 @@ export function createStudySchema(frequency = 60) {
         .enum(['2017', '2020', '2023'])
         .default('2023')
         .meta({ description: 'NFPA 70 edition the code checks follow' }),
+      sensitivity: z
+        .object({
+          maxTime: quantityField('time', { frequency, min: 0, exclusiveMin: true }).default(2).meta({
+            description: 'latest clearing time allowed at the minimum fault in a zone, s (common practice: 2 s)',
+          }),
+          arcingFactor: z.number().positive().max(1).optional().meta({
+            description: 'minimum faults multiplied by this to allow for arcing (e.g. 0.85); off when omitted',
+          }),
+        })
+        .strict()
+        .default({ maxTime: 2 }),
     })
     .strict()
     .default({
@@ -267,6 +296,7 @@ export function createStudySchema(frequency = 60) {
       pairs: [],
       fuseRatio: 0.75,
       edition: '2023',
+      sensitivity: { maxTime: 2 },
     });
 
   const revision = z

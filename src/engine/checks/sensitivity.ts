@@ -1,0 +1,199 @@
+import { fastestOf, groundFaultBandOf, type Band } from '../band.ts';
+import { DELTA_WYE_TABLE } from '../fault/index.ts';
+import { locationBusOf, transformersBetween, type Network } from '../network/index.ts';
+import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/index.ts';
+import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
+import { nameOf, rangeOf, type CheckContext } from './context.ts';
+import type { Finding } from './finding.ts';
+
+/** The sensitivity options of a study (`coordination.sensitivity`). */
+export type SensitivitySettings = CoordinationSettings['sensitivity'];
+
+/** The minimum faults a sensitivity check applies: the smallest phase fault and the line-to-ground fault. */
+export type SensitivityFault = 'line-to-line' | 'line-to-ground';
+
+/** One minimum fault in a device's zone and what the device does for it. */
+export interface SensitivityCase {
+  fault: SensitivityFault;
+  /** The zone bus where the device sees the least current for this fault. */
+  busId: string;
+  /** Minimum bolted fault at that bus (A at its voltage), before any arcing factor. */
+  boltedAmps: number;
+  /** The current through the device (A at its own voltage), arcing factor and transformer shift applied. */
+  deviceAmps: number;
+  /** Latest clearing time at `deviceAmps` (s); `Infinity` where the device may not operate. */
+  clearingTime: number;
+  /** Whether a ground-fault element of the device acts on this case. */
+  groundElement: boolean;
+}
+
+/**
+ * The buses a device protects, down to the next devices below it: for a main the bus it feeds, for a
+ * transformer or cable the bus at its far end, then every bus reached through branches no other device
+ * feeds. A bus fed by a main of its own ends the zone but belongs to it (the main's line terminals are
+ * the far end). A motor's zone is its terminals, taken as its bus.
+ *
+ * @example zoneBusesOf(network, feeder) // ['MCC']
+ */
+export function zoneBusesOf(network: Network, device: Device): string[] {
+  const element = network.elements.get(device.feeds)!;
+  if (element.type === 'motor') return [element.item.bus];
+  const zone: string[] = [];
+  const visit = (busId: string, descend: boolean) => {
+    zone.push(busId);
+    if (!descend) return;
+    for (const branch of network.branchesFrom.get(busId) ?? []) {
+      if (network.deviceFeeding.has(branch.item.id)) continue;
+      visit(branch.item.to, !network.deviceFeeding.has(branch.item.to));
+    }
+  };
+  if (element.type === 'bus') visit(element.item.id, true);
+  else visit(element.item.to, !network.deviceFeeding.has(element.item.to));
+  return zone;
+}
+
+/**
+ * The largest line current on a transformer's primary per ampere of the faulted secondary line, for a
+ * secondary fault (the per-unit table of line currents for each connection): 2/√3 for a line-to-line
+ * fault across Δ–Y or Y–Δ, 1/√3 for a line-to-ground fault across Δ–Y, 1 where the fault passes as it is.
+ * A single-phase unit passes its full-winding fault by the voltage ratio and a half-winding
+ * (line-to-neutral) fault of a centre-tapped secondary at half of it, by ampere-turn balance.
+ *
+ * @example primaryShiftOf(deltaWye, 'line-to-ground') // 0.57735
+ */
+export function primaryShiftOf(transformer: Transformer, fault: SensitivityFault): number {
+  if (transformer.phases === 1) {
+    if (fault === 'line-to-line') return 1;
+    return centreTapped(transformer) ? 0.5 : 1;
+  }
+  const row = DELTA_WYE_TABLE[transformer.connection][fault === 'line-to-line' ? 'lineToLine' : 'lineToGround'];
+  const secondary = Math.max(...row.secondary);
+  return secondary > 0 ? Math.max(...row.primary) / secondary : 0;
+}
+
+/**
+ * For each minimum fault, the zone bus where the device sees the least current, that current, and the
+ * device's latest clearing time for it. Line-to-line faults act on the phase elements; line-to-ground
+ * faults (where a zero-sequence path gives them current) on the phase elements and, with no transformer
+ * between, on a ground-fault element. Across transformers, currents scale by the bus voltages and by
+ * the shift of the transformer nearest the fault (`primaryShiftOf`).
+ *
+ * @example sensitivityCasesOf(context, feeder, { maxTime: 2 })
+ */
+export function sensitivityCasesOf(
+  context: CheckContext,
+  device: Device,
+  settings: SensitivitySettings,
+): SensitivityCase[] {
+  const { network, faults, bands } = context;
+  const factor = settings.arcingFactor ?? 1;
+  const location = locationBusOf(network, device);
+  const phaseBand = bands.get(device.id)!;
+  const groundBand = groundFaultBandOf(device.characteristic);
+  const cases: SensitivityCase[] = [];
+  for (const fault of ['line-to-line', 'line-to-ground'] as const) {
+    let least: SensitivityCase | undefined;
+    for (const busId of zoneBusesOf(network, device)) {
+      const level = faults.buses.get(busId)!.min;
+      const boltedAmps = fault === 'line-to-line' ? level.lineToLine : level.lineToGround;
+      if (!(boltedAmps > 0)) continue;
+      const between = transformersBetween(network, location.id, busId);
+      const nearest = between.at(-1);
+      const shift = nearest ? primaryShiftOf(nearest, fault) : 1;
+      const deviceAmps = (boltedAmps * factor * shift * network.buses.get(busId)!.voltage) / location.voltage;
+      if (!(deviceAmps > 0)) continue;
+      const groundElement = fault === 'line-to-ground' && groundBand !== undefined && between.length === 0;
+      const band: Band = groundElement ? fastestOf([phaseBand, groundBand]) : phaseBand;
+      const candidate = { fault, busId, boltedAmps, deviceAmps, clearingTime: band.maxTime(deviceAmps), groundElement };
+      if (!least || worse(candidate, least)) least = candidate;
+    }
+    if (least) cases.push(least);
+  }
+  return cases;
+}
+
+/**
+ * Sensitivity of one device: it must operate, within `settings.maxTime`, for the minimum fault at the
+ * far end of the zone it protects (`zoneBusesOf`): minimum source, no motors, conductors at operating
+ * temperature, line-to-line and line-to-ground where a zero-sequence path exists, optionally reduced
+ * by `settings.arcingFactor` for an arcing fault. One `ok` finding when every case passes; else, per
+ * failing case, a `fail` where the device may never clear (a protection failure) or a `warning` where it
+ * clears later than the time allowed (a common-practice target the engineer weighs, e.g. a transformer
+ * primary device backing up its secondary, where the through-fault check governs).
+ *
+ * @example sensitivityFindings(context, feeder, study.coordination.sensitivity)
+ */
+export function sensitivityFindings(context: CheckContext, device: Device, settings: SensitivitySettings): Finding[] {
+  const { network } = context;
+  const name = nameOf(device);
+  const location = locationBusOf(network, device);
+  const cases = sensitivityCasesOf(context, device, settings);
+  if (cases.length === 0) return [];
+  const arcing =
+    settings.arcingFactor === undefined
+      ? 'bolted faults'
+      : `arcing faults taken as ${significant(settings.arcingFactor * 100, 3)} % of the bolted fault (a user option; common practice, IEEE 1584 gives the method for the arcing current)`;
+  const basis = `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (common practice).`;
+  const describe = (c: SensitivityCase) => {
+    const bus = network.buses.get(c.busId)!;
+    const at = `${formatAmps(c.boltedAmps, 3)} ${c.fault} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
+    const through =
+      bus.voltage === location.voltage && c.deviceAmps === c.boltedAmps
+        ? ''
+        : `, ${formatAmps(c.deviceAmps, 3)} through ${name} at ${formatVolts(location.voltage)}`;
+    return `${at}${through}${c.groundElement ? ', ground-fault element included' : ''}`;
+  };
+  const rangeFor = (c: SensitivityCase) =>
+    rangeOf(c.deviceAmps, c.deviceAmps, location.voltage, [network.buses.get(c.busId)!.voltage]);
+  const failing = cases.filter((c) => !(c.clearingTime <= settings.maxTime));
+  if (failing.length === 0) {
+    const slowest = cases.reduce((a, b) => (b.clearingTime > a.clearingTime ? b : a));
+    return [
+      {
+        id: `sensitivity:${device.id}`,
+        kind: 'sensitivity',
+        severity: 'ok',
+        title: `${name} sees the minimum faults in its zone`,
+        subjects: [device.id],
+        range: rangeFor(slowest),
+        explanation: `${cases.map((c) => `For ${describe(c)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
+        basis,
+        referenceVolts: location.voltage,
+      },
+    ];
+  }
+  return failing.map((c) => {
+    const never = c.clearingTime === Infinity;
+    return {
+      id: `sensitivity:${device.id}:${c.fault}`,
+      kind: 'sensitivity',
+      severity: never ? 'fail' : 'warning',
+      title: never
+        ? `${name} may not operate for a minimum ${c.fault} fault`
+        : `${name} is slow for a minimum ${c.fault} fault`,
+      subjects: [device.id],
+      range: rangeFor(c),
+      explanation: never
+        ? `For ${describe(c)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
+        : `For ${describe(c)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
+      suggestion:
+        c.fault === 'line-to-ground'
+          ? `Lower ${name}'s pickup or delay, or add a ground-fault element, so it clears ${formatAmps(c.deviceAmps, 3)} within ${formatSeconds(settings.maxTime)}.`
+          : `Lower ${name}'s pickup or delay (short-time or instantaneous) so it clears ${formatAmps(c.deviceAmps, 3)} within ${formatSeconds(settings.maxTime)}.`,
+      basis,
+      referenceVolts: location.voltage,
+    };
+  });
+}
+
+/** Whether case `a` is harder on the device than `b`: slower to clear, or at equal time, less current. */
+function worse(a: SensitivityCase, b: SensitivityCase): boolean {
+  if (a.clearingTime !== b.clearingTime) return a.clearingTime > b.clearingTime;
+  return a.deviceAmps < b.deviceAmps;
+}
+
+/** Whether a single-phase transformer's secondary is centre-tapped (120/240 V): as entered, else a 240 V secondary. */
+function centreTapped(transformer: Transformer): boolean {
+  const winding = transformer.secondaryWinding;
+  return winding === undefined ? transformer.secondary === 240 : winding === 'centre-tapped';
+}
