@@ -1,21 +1,26 @@
 import { fastestOf, groundFaultBandOf, scaleBand } from '../band.ts';
+import { isPhaseShifting, primaryConnectionOf, secondaryWindingOf, throughFaultOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { findOverlaps, type OverlapInterval } from '../overlap.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
-import type { CoordinationSettings, Device } from '../study/index.ts';
+import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
 import { capitalise, describeRange, nameOf, rangeOf, type CheckContext } from './context.ts';
 import type { Finding, Severity } from './finding.ts';
 import { marginRuleOf, type MarginRule } from './margins.ts';
 
-/** Which fault a pair case models. */
-export type PairFault = 'three-phase' | 'line-to-line' | 'ground-fault';
+/**
+ * Which fault a pair case models: on a three-phase bus the three-phase, line-to-line (across a Δ–Y or
+ * Y–Δ transformer) and ground faults; on a single-phase bus the full-winding fault and the
+ * line-to-neutral (half-winding) fault of a centre-tapped secondary.
+ */
+export type PairFault = 'three-phase' | 'line-to-line' | 'ground-fault' | 'single-phase' | 'line-to-neutral';
 
 /** One fault case of a pair, on the downstream device's voltage base. */
 export interface PairCase {
   fault: PairFault;
   /** Voltage base of the intervals: the downstream device's own voltage. */
   referenceVolts: number;
-  /** Upstream current per downstream current for this fault (1.155 for a secondary L-L fault across Δ–Y). */
+  /** Upstream current per downstream current on the sheet for this fault (2/√3 for a secondary L-L fault across Δ–Y). */
   upstreamShift: number;
   intervals: OverlapInterval[];
 }
@@ -38,11 +43,19 @@ const SEVERITY: Record<OverlapInterval['status'], Severity> = {
 
 /**
  * Checks one upstream/downstream pair over the current range it can see (DESIGN §4): from the lowest
- * current either device can operate up to the maximum fault at the downstream device's location, on
- * the downstream device's voltage base. Across a Δ–Y transformer it adds the secondary line-to-line
- * case, in which the primary device sees 1/0.866 = 1.155 times the secondary devices' per-unit current
- * (REFERENCE §1.8 item 1). Where the upstream device has a ground-fault element and no transformer lies
- * between them, it adds the ground-fault case up to the line-to-ground fault there.
+ * current either device can operate up to the largest current that flows through both for a fault just
+ * below the downstream device (`throughFaultOf`: the source side plus the motors whose contribution
+ * passes through both), on the downstream device's voltage base.
+ *
+ * - Three-phase bus: the three-phase case; across an odd number of Δ–Y / Y–Δ transformers the secondary
+ *   line-to-line case too, in which a primary line carries 1.0 pu while the secondary lines carry √3/2,
+ *   so the upstream device sees exactly 2/√3 times the downstream per-unit current (symmetrical
+ *   components; the IEEE C37.91 / C57.109 shift factor); an even number of 30° shifts cancels. Where the
+ *   upstream device has a ground-fault element and no transformer lies between them, the ground-fault
+ *   case up to the line-to-ground current through both (zero-sequence network).
+ * - Single-phase bus: the full-winding fault, the upstream device across a single-phase transformer
+ *   connected line to neutral seeing √3 times (its winding is at V_LL/√3); and on a centre-tapped
+ *   secondary the line-to-neutral fault, of which a device above the transformer sees half (half the turns).
  *
  * @example checkPair(context, { upstream: main, downstream: feeder }, study.coordination)
  */
@@ -63,7 +76,8 @@ export function checkPair(
   const kind = `${upstream.characteristic.kind}/${downstream.characteristic.kind}`;
   const upBand = scaleBand(bands.get(upstream.id)!, upBus.voltage / referenceVolts);
   const downBand = bands.get(downstream.id)!;
-  const fault = faults.buses.get(downBus.id)!.max;
+  const busFault = faults.buses.get(downBus.id)!;
+  const through = throughFaultOf(network, faults, upstream, downBus.id);
 
   const between = transformersBetween(network, upBus.id, downBus.id);
   const base = {
@@ -73,37 +87,42 @@ export function checkPair(
     halfCycle: settings.halfCycle,
     horizon: settings.horizon,
   };
-  const cases: PairCase[] = [
-    {
-      fault: 'three-phase',
-      referenceVolts,
-      upstreamShift: 1,
-      intervals: findOverlaps(upBand, downBand, { ...base, toAmps: fault.threePhase }),
-    },
-  ];
-  // Across a Δ–Y transformer the primary device is 1/0.866 times harder hit by a secondary L-L fault.
-  if (between.some((t) => t.connection === 'delta-wye')) {
-    const shift = 1 / 0.866;
-    cases.push({
-      fault: 'line-to-line',
-      referenceVolts,
-      upstreamShift: shift,
-      intervals: findOverlaps(scaleBand(upBand, 1 / shift), downBand, { ...base, toAmps: fault.lineToLine }),
-    });
-  }
-  // A ground-fault element above sees ground current the devices below clear with their phase
-  // elements (or their own ground element); it does not cross a transformer (REFERENCE §3.2, 6.1).
-  const upGround = groundFaultBandOf(upstream.characteristic);
-  if (upGround && between.length === 0 && fault.lineToGround > 0) {
-    const downGround = groundFaultBandOf(downstream.characteristic);
-    const up = fastestOf([bands.get(upstream.id)!, upGround]);
-    const down = downGround ? fastestOf([downBand, downGround]) : downBand;
-    cases.push({
-      fault: 'ground-fault',
-      referenceVolts,
-      upstreamShift: 1,
-      intervals: findOverlaps(up, down, { ...base, toAmps: fault.lineToGround }),
-    });
+  const caseOf = (fault: PairFault, upstreamShift: number, toAmps: number): PairCase => ({
+    fault,
+    referenceVolts,
+    upstreamShift,
+    intervals: findOverlaps(upstreamShift === 1 ? upBand : scaleBand(upBand, 1 / upstreamShift), downBand, {
+      ...base,
+      toAmps,
+    }),
+  });
+  const cases: PairCase[] = [];
+  if (busFault.phases === 1) {
+    const singles = between.filter((t) => t.phases === 1);
+    const fullShift = singles.reduce((k, t) => k * (isLineToNeutral(context, t) ? Math.sqrt(3) : 1), 1);
+    cases.push(caseOf('single-phase', fullShift, through.threePhase));
+    const centreTapped = singles.some((t) => secondaryWindingOf(t) === 'centre-tapped');
+    if (through.lineToGround > 0 && busFault.system.includes('centre-tapped'))
+      cases.push(caseOf('line-to-neutral', fullShift * (centreTapped ? 0.5 : 1), through.lineToGround));
+  } else {
+    cases.push(caseOf('three-phase', 1, through.threePhase));
+    // Each Δ–Y or Y–Δ unit shifts the sequence currents by 30°: an odd count loads one primary line fully.
+    const shifts = between.filter((t) => t.phases === 3 && isPhaseShifting(t.connection)).length;
+    if (shifts % 2 === 1) cases.push(caseOf('line-to-line', 2 / Math.sqrt(3), through.lineToLine));
+    // A ground-fault element above sees ground current the devices below clear with their phase
+    // elements (or their own ground element); it does not cross a transformer.
+    const upGround = groundFaultBandOf(upstream.characteristic);
+    if (upGround && between.length === 0 && through.lineToGround > 0) {
+      const downGround = groundFaultBandOf(downstream.characteristic);
+      const up = fastestOf([bands.get(upstream.id)!, upGround]);
+      const down = downGround ? fastestOf([downBand, downGround]) : downBand;
+      cases.push({
+        fault: 'ground-fault',
+        referenceVolts,
+        upstreamShift: 1,
+        intervals: findOverlaps(up, down, { ...base, toAmps: through.lineToGround }),
+      });
+    }
   }
 
   const check: PairCheck = { upstream: upstream.id, downstream: downstream.id, kind, rule, cases };
@@ -120,6 +139,8 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       'three-phase': '',
       'line-to-line': ' for a secondary line-to-line fault',
       'ground-fault': ' for a ground fault',
+      'single-phase': '',
+      'line-to-neutral': ' for a line-to-neutral fault',
     }[pairCase.fault];
     pairCase.intervals.forEach((interval, index) => {
       if (interval.status === 'selective' || isSliver(interval)) return;
@@ -220,4 +241,10 @@ function suggest(interval: OverlapInterval, up: string, down: string, rule: Marg
 
 function marginText(seconds: number): string {
   return seconds === Infinity ? 'unlimited time' : `${significant(seconds, 3)} s`;
+}
+
+/** Whether a single-phase transformer's primary winding is connected line to neutral on a three-phase bus. */
+function isLineToNeutral(context: CheckContext, t: Transformer): boolean {
+  const primary = context.faults.buses.get(t.from)!;
+  return primary.phases === 3 && primaryConnectionOf(t, primary.volts) === 'line-to-neutral';
 }

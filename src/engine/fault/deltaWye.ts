@@ -6,13 +6,13 @@ export type Connection = Transformer['connection'];
 /** A bolted secondary fault type. */
 export type FaultType = 'threePhase' | 'lineToLine' | 'lineToGround';
 
-/** Per-unit line currents for one connection and secondary fault (REFERENCE §1.8). */
+/** Per-unit line currents for one connection and secondary fault (symmetrical components, IEEE 399). */
 export interface UnbalancedCase {
   /** Secondary line currents (a, b, c), pu of the three-phase fault at the same point. */
   secondary: readonly number[];
   /** Worst transformer winding current, pu. */
   winding: number;
-  /** Primary line currents, pu (on the primary after §1.7 scaling). */
+  /** Primary line currents, pu (on the primary, after scaling by the voltage ratio). */
   primary: readonly number[];
 }
 
@@ -23,12 +23,12 @@ const THREE_PHASE: UnbalancedCase = { secondary: [1, 1, 1], winding: 1, primary:
 const OPEN: UnbalancedCase = { secondary: [0, 0, 0], winding: 0, primary: [0, 0, 0] };
 
 /**
- * REFERENCE §1.8 as data: symmetrical components with Z1 = Z2, bolted faults, L-G at I_LG ≈ I_3φ
- * on solidly grounded wye secondaries (common practice). The Δ–Yg and Δ–Δ rows are from
- * REFERENCE §1.8 (derived by hand there; shift factors per IEEE C37.91 / C57.109 practice, from memory).
- * Y–Δ is worked the same way (computed): the delta secondary's faulted winding carries 2/3 of the
- * line current, 1.0 pu, and the other two 0.5 pu, which the wye primary lines carry unchanged.
- * Delta secondaries are ungrounded, so an L-G fault draws no fault current.
+ * Per-unit line currents for bolted secondary faults by symmetrical components with Z1 = Z2 (IEEE 399
+ * short-circuit chapter; the patterns behind the IEEE C37.91 / C57.109 shift factors). The L-G rows
+ * take I_LG = I_3φ (Z0 = Z1, a solidly grounded wye at the terminals); `faultLevelsOf` computes the
+ * actual L-G current from the zero-sequence network. Y–Δ is worked the same way: the delta secondary's
+ * faulted winding carries 2/3 of the line current, 1.0 pu, and the other two 0.5 pu, which the wye
+ * primary lines carry unchanged. Delta secondaries are ungrounded, so an L-G fault draws no fault current.
  *
  * @example DELTA_WYE_TABLE['delta-wye'].lineToGround.primary // [0.57735, 0.57735, 0]
  */
@@ -65,7 +65,7 @@ export interface UnbalancedCurrents extends UnbalancedCase {
 
 /**
  * The secondary and primary line currents for a bolted secondary fault, from the three-phase
- * secondary fault current and the transformer's voltages (REFERENCE §1.8 table, §1.7 scaling).
+ * secondary fault current and the transformer's voltages (`DELTA_WYE_TABLE`, voltage-ratio scaling).
  *
  * @example unbalancedLineCurrents('delta-wye', 'lineToGround', 8921.97, 208, 480).primaryAmps // [2232.14, 2232.14, 0]
  */
@@ -86,20 +86,31 @@ export function unbalancedLineCurrents(
 }
 
 /**
- * Sheet shift factors for a connection (REFERENCE §1.8): the device-coordination multiplier for a
- * secondary L-L fault (1/0.866 = 1.1547 for Δ–Yg, else 1) and the withstand-curve multiplier
- * (0.58 Δ–Yg for L-G, 0.87 Δ–Δ for L-L, else 1; rounded values as the trade uses them).
+ * Sheet shift factors for a connection (the IEEE C37.91 / C57.109 practice, exact values): the
+ * device-coordination multiplier for a secondary L-L fault, `2/√3` for Δ–Y and Y–Δ (a primary line
+ * carries 1.0 pu while the secondary lines carry √3/2), else 1; and the withstand-curve multiplier,
+ * `1/√3` for Δ–Yg with a secondary L-G fault, `√3/2` for Δ–Δ with a secondary L-L fault, else 1 (the
+ * trade rounds these to 1.15, 0.58 and 0.87). A single-phase unit has none.
  *
- * @example shiftFactorsOf('delta-wye') // { lineToLineDeviceShift: 1.1547, withstandShift: 0.58 }
+ * @example shiftFactorsOf('delta-wye') // { lineToLineDeviceShift: 1.1547005, withstandShift: 0.5773503 }
  */
-export function shiftFactorsOf(connection: Connection): { lineToLineDeviceShift: number; withstandShift: number } {
+export function shiftFactorsOf(
+  connection: Connection,
+  phases: 1 | 3 = 3,
+): { lineToLineDeviceShift: number; withstandShift: number } {
+  if (phases === 1) return { lineToLineDeviceShift: 1, withstandShift: 1 };
   return {
-    lineToLineDeviceShift: connection === 'delta-wye' ? 1 / HALF_ROOT3 : 1,
-    withstandShift: connection === 'delta-wye' ? 0.58 : connection === 'delta-delta' ? 0.87 : 1,
+    lineToLineDeviceShift: isPhaseShifting(connection) ? 2 / Math.sqrt(3) : 1,
+    withstandShift: connection === 'delta-wye' ? INV_ROOT3 : connection === 'delta-delta' ? HALF_ROOT3 : 1,
   };
 }
 
-/** Whether the secondary of a connection is a solidly grounded wye (it can carry ground-fault current). @example isGroundedSecondary('delta-delta') // false */
+/** Whether a connection shifts the phase by 30° (Δ–Y or Y–Δ), so that a secondary L-L fault loads one primary line fully. @example isPhaseShifting('wye-delta') // true */
+export function isPhaseShifting(connection: Connection): boolean {
+  return connection === 'delta-wye' || connection === 'wye-delta';
+}
+
+/** Whether the secondary of a connection is a wye (grounded as its `grounding` says; it can carry ground-fault current). @example isGroundedSecondary('delta-delta') // false */
 export function isGroundedSecondary(connection: Connection): boolean {
   return connection === 'delta-wye' || connection === 'wye-wye';
 }

@@ -1,12 +1,13 @@
 import type { Network } from '../network/index.ts';
 import type { Work } from '../work.ts';
-import { isGroundedSecondary } from './deltaWye.ts';
+import type { WorkStep } from '../work.ts';
 import { faultTreeOf, type FaultTree } from './faultTree.ts';
-import { magnitudeOf, parallelImpedance, xrOf, type Impedance } from './impedance.ts';
-import { reflectAmps } from './reflect.ts';
+import { faultSteps, singlePhaseSteps, stepsTo, zeroSequenceStepsTo } from './faultWork.ts';
+import { addImpedance, magnitudeOf, parallelImpedance, xrOf, type Impedance } from './impedance.ts';
+import { primaryConnectionOf, singlePhaseBusesOf, type SinglePhaseBus } from './singlePhase.ts';
 import { transformerFaultOf } from './transformerFault.ts';
 import { withLazyWork } from './workSteps.ts';
-import { faultSteps, stepsTo } from './faultWork.ts';
+import { zeroSequenceOf } from './zeroSequence.ts';
 
 /**
  * Bolted fault currents at one bus for one condition (maximum or minimum); amps symmetrical RMS at the
@@ -59,7 +60,7 @@ export interface BusFault {
   min: FaultLevel;
   /**
    * The max/min three-phase (single-phase: full-winding) current reflected to the voltage levels where
-   * that current flows: the buses on the bus's path to the source (A at `volts`).
+   * that current flows: the buses on the bus's path to the source (A at each entry's `volts`).
    */
   reflected: { volts: number; maxAmps: number; minAmps: number }[];
   work: Work;
@@ -83,7 +84,7 @@ export interface TransformerFault {
     lineToLine: { secondaryAmps: number; primaryLineAmps: number[] };
     lineToGround: { secondaryAmps: number; primaryLineAmps: number[] };
   };
-  /** Sheet shift factors (REFERENCE §1.8). */
+  /** Sheet shift factors (IEEE C37.91 / C57.109 practice, exact values; see `shiftFactorsOf`). */
   factors: { lineToLineDeviceShift: number; withstandShift: number };
   work: Work;
 }
@@ -93,17 +94,22 @@ export interface FaultLevels {
   buses: Map<string, BusFault>;
   transformers: Map<string, TransformerFault>;
   diagnostics: string[];
+  /** The reduced positive-sequence networks behind the levels, for current division (`throughFaultOf`). */
+  trees: { max: FaultTree; min: FaultTree };
 }
 
-/** Conductor temperature for minimum fault (°C): operating temperature, common practice (REFERENCE §1.4). */
+/** Conductor temperature for minimum fault (°C): operating temperature, common practice. */
 export const MINIMUM_FAULT_TEMPERATURE = 90;
 
 /**
- * Fault levels at every bus of a radial network (REFERENCE §1.3): series impedances added as complex
- * values, motors as parallel sources anywhere in the tree. Maximum: `max` source, motors in, Table 9
- * at 75 °C, %Z tolerance where asked. Minimum: `min` source (else `max`), no motors, R at 90 °C.
+ * Fault levels at every bus of a radial network by the ohmic form of the per-unit method (IEEE 141 /
+ * IEEE 399): series impedances added as complex values, motors as parallel sources anywhere in the
+ * tree, unbalanced faults from symmetrical components with Z2 = Z1 and the zero-sequence network of
+ * `zeroSequenceOf`; buses below a single-phase transformer as single-phase loops (`singlePhaseBusesOf`).
+ * Maximum: `max` source, motors in, NEC Table 9 at 75 °C, %Z tolerance where asked. Minimum: `min`
+ * source (else `max`), no motors, R at 90 °C.
  *
- * @example faultLevelsOf(networkOf(study)).buses.get('SWBD')!.max.threePhase // A at 480 V
+ * @example faultLevelsOf(networkOf(study)).buses.get('SWBD')!.max.lineToGround // A at 480 V
  */
 export function faultLevelsOf(network: Network): FaultLevels {
   const { study } = network;
@@ -119,83 +125,155 @@ export function faultLevelsOf(network: Network): FaultLevels {
     temperature: MINIMUM_FAULT_TEMPERATURE,
     toleranced: false,
   });
+  const zeroMax = zeroSequenceOf(network, max, maxLevel);
+  const zeroMin = zeroSequenceOf(network, min, minLevel);
+  const singleMax = singlePhaseBusesOf(network, max, zeroMax, true);
+  const singleMin = singlePhaseBusesOf(network, min, zeroMin, false);
 
   const diagnostics: string[] = [];
   if (source.kind === 'infinite')
     diagnostics.push(`${source.id}: infinite source, so the fault current at bus ${source.bus} is unbounded`);
   for (const t of study.transformers)
-    if (t.phases === 1)
-      diagnostics.push(`${t.id}: single-phase transformer; buses below it are computed as a three-phase system`);
+    if (
+      t.grounding.kind !== 'solid' &&
+      t.phases === 3 &&
+      (t.connection === 'delta-delta' || t.connection === 'wye-delta')
+    )
+      diagnostics.push(`${t.id}: ${t.connection} secondary is ungrounded; its grounding entry is not used`);
+  for (const motor of study.motors)
+    if (singleMax.has(motor.bus))
+      diagnostics.push(`${motor.id}: motors on single-phase bus ${motor.bus} are not counted as fault sources`);
 
-  // Grounding follows the nearest transformer above; the utility system is taken as solidly grounded.
-  const grounded = new Map<string, boolean>();
-  for (const busId of max.order) {
-    const feeder = network.feederOf.get(busId);
-    grounded.set(
-      busId,
-      !feeder
-        ? true
-        : feeder.type === 'transformer'
-          ? isGroundedSecondary(feeder.item.connection)
-          : grounded.get(feeder.item.from)!,
-    );
-  }
-
-  const levels = [...new Set(study.buses.map((b) => b.voltage))].sort((a, b) => b - a);
   const buses = new Map<string, BusFault>();
   for (const busId of max.order) {
     const volts = network.buses.get(busId)!.voltage;
-    const isGrounded = grounded.get(busId)!;
-    const noMotors = levelAt(network, bare, busId, isGrounded, 0);
-    const maxAt = levelAt(network, max, busId, isGrounded, noMotors.threePhase);
-    const minAt = levelAt(network, min, busId, isGrounded, 0);
-    const reflected = levels
-      .filter((v) => v !== volts)
-      .map((v) => ({
-        volts: v,
-        maxAmps: reflectAmps(maxAt.threePhase, volts, v),
-        minAmps: reflectAmps(minAt.threePhase, volts, v),
-      }));
+    const reflected = reflectionsOf(network, busId);
+    const single = singleMax.get(busId);
+    if (single) {
+      const singleLow = singleMin.get(busId)!;
+      const maxAt = singlePhaseLevel(single);
+      const minAt = singlePhaseLevel(singleLow);
+      const work = () => [
+        ...tagged('maximum', single.steps),
+        ...singlePhaseSteps('maximum', single, maxAt),
+        ...tagged('minimum', singleLow.steps),
+        ...singlePhaseSteps('minimum', singleLow, minAt),
+      ];
+      const levels = { busId, volts, phases: 1 as const, system: single.system, max: maxAt, min: minAt };
+      buses.set(busId, withLazyWork({ ...levels, reflected: reflectedAt(reflected, maxAt, minAt) }, work));
+      continue;
+    }
+    const noMotors = levelAt(network, bare, busId, zeroMax.atBus.get(busId), 0);
+    const maxAt = levelAt(network, max, busId, zeroMax.atBus.get(busId), noMotors.threePhase);
+    const minAt = levelAt(network, min, busId, zeroMin.atBus.get(busId), 0);
     const work = () => [
       ...stepsTo(network, max, busId, 'maximum'),
-      ...faultSteps('maximum', volts, max.toward.get(busId)!, max.below.get(busId), maxAt),
+      ...zeroSequenceStepsTo(network, zeroMax, busId, 'maximum'),
+      ...faultSteps('maximum', volts, max, network, busId, maxAt),
       ...stepsTo(network, min, busId, 'minimum'),
-      ...faultSteps('minimum', volts, min.toward.get(busId)!, min.below.get(busId), minAt),
+      ...zeroSequenceStepsTo(network, zeroMin, busId, 'minimum'),
+      ...faultSteps('minimum', volts, min, network, busId, minAt),
     ];
-    buses.set(
-      busId,
-      withLazyWork({ busId, volts, phases: 3, system: 'three-phase', max: maxAt, min: minAt, reflected }, work),
-    );
+    const levels = { busId, volts, phases: 3 as const, system: 'three-phase', max: maxAt, min: minAt };
+    buses.set(busId, withLazyWork({ ...levels, reflected: reflectedAt(reflected, maxAt, minAt) }, work));
   }
 
   const transformers = new Map(
-    study.transformers.map((t) => [t.id, transformerFaultOf(t, network, max, buses.get(t.to)!.max.threePhase)]),
+    study.transformers.map((t) => [t.id, transformerFaultOf(t, network, max, buses.get(t.to)!)]),
   );
-  return { buses, transformers, diagnostics };
+  return { buses, transformers, diagnostics, trees: { max, min } };
 }
 
-/** One condition's fault level at a bus. */
+/** Tags element steps with the condition's name. */
+function tagged(name: string, steps: WorkStep[]): WorkStep[] {
+  return steps.map((s) => ({ ...s, label: `${name}: ${s.label}` }));
+}
+
+/**
+ * For each voltage level on the bus's path to the source (its own excepted), the factor that carries a
+ * current at the bus to the line current there: `V_bus / V_winding` at each transformer crossed, the
+ * winding voltage being the line-to-neutral voltage for a single-phase unit connected line to neutral.
+ */
+function reflectionsOf(network: Network, busId: string): { volts: number; factor: number }[] {
+  const out: { volts: number; factor: number }[] = [];
+  const own = network.buses.get(busId)!.voltage;
+  let factor = 1;
+  for (let feeder = network.feederOf.get(busId); feeder; feeder = network.feederOf.get(feeder.item.from)) {
+    if (feeder.type !== 'transformer') continue;
+    const from = network.buses.get(feeder.item.from)!.voltage;
+    const to = network.buses.get(feeder.item.to)!.voltage;
+    const t = feeder.item;
+    const toNeutral =
+      t.phases === 1 && !isSinglePhaseBus(network, t.from) && primaryConnectionOf(t, from) === 'line-to-neutral';
+    const winding = toNeutral ? from / Math.sqrt(3) : from;
+    factor *= to / winding;
+    if (from !== own && !out.some((r) => r.volts === from)) out.push({ volts: from, factor });
+  }
+  return out;
+}
+
+/** Whether a bus lies below a single-phase transformer. */
+function isSinglePhaseBus(network: Network, busId: string): boolean {
+  for (let feeder = network.feederOf.get(busId); feeder; feeder = network.feederOf.get(feeder.item.from))
+    if (feeder.type === 'transformer' && feeder.item.phases === 1) return true;
+  return false;
+}
+
+function reflectedAt(reflections: { volts: number; factor: number }[], max: FaultLevel, min: FaultLevel) {
+  return reflections.map(({ volts, factor }) => ({
+    volts,
+    maxAmps: max.threePhase * factor,
+    minAmps: min.threePhase * factor,
+  }));
+}
+
+/** Amps from a voltage and a loop or Thevenin impedance; unbounded for a zero impedance. */
+function ampsOf(volts: number, z: Impedance): number {
+  const magnitude = magnitudeOf(z);
+  return magnitude === 0 ? Infinity : volts / magnitude;
+}
+
+/** A single-phase bus's levels: the full-winding loop, and the line-to-neutral (or grounded-leg) loop. */
+function singlePhaseLevel(bus: SinglePhaseBus): FaultLevel {
+  const full = ampsOf(bus.lineToLine.volts, bus.lineToLine.z);
+  const ground = bus.lineToGround ? ampsOf(bus.lineToGround.volts, bus.lineToGround.z) : 0;
+  return {
+    threePhase: full,
+    lineToLine: full,
+    lineToGround: ground,
+    largest: Math.max(full, ground),
+    motorAmps: 0,
+    xr: xrOf(bus.lineToLine.z),
+    lineToGroundXr: bus.lineToGround ? xrOf(bus.lineToGround.z) : NaN,
+    impedance: bus.lineToLine.z,
+    zeroSequence: bus.lineToGround?.z,
+  };
+}
+
+/** One condition's fault level at a three-phase bus. */
 function levelAt(
   network: Network,
   tree: FaultTree,
   busId: string,
-  grounded: boolean,
+  z0: Impedance | undefined,
   withoutMotors: number,
 ): FaultLevel {
   const volts = network.buses.get(busId)!.voltage;
-  const toward = tree.toward.get(busId)!;
-  const below = tree.below.get(busId);
-  const z = parallelImpedance(toward, below)!;
-  const magnitude = magnitudeOf(z);
-  const threePhase = magnitude === 0 ? Infinity : volts / (Math.sqrt(3) * magnitude);
+  const z = parallelImpedance(tree.toward.get(busId)!, tree.below.get(busId))!;
+  const threePhase = ampsOf(volts / Math.sqrt(3), z);
+  // Symmetrical components with Z2 = Z1: I_LL = √3·E / |2·Z1|, I_LG = 3·E / |2·Z1 + Z0| (IEEE 399).
+  const lineToLine = ampsOf((volts / Math.sqrt(3)) * Math.sqrt(3), addImpedance(z, z));
+  const loop = z0 && addImpedance(z, z, z0);
+  const lineToGround = loop ? ampsOf(Math.sqrt(3) * volts, loop) : 0;
   return {
     threePhase,
-    lineToLine: (threePhase * Math.sqrt(3)) / 2,
-    lineToGround: grounded ? threePhase : 0,
-    largest: threePhase,
-    lineToGroundXr: grounded ? xrOf(z) : NaN,
+    lineToLine,
+    lineToGround,
+    largest: Math.max(threePhase, lineToLine, lineToGround),
     motorAmps: tree.motorZ.size > 0 && Number.isFinite(threePhase) ? Math.max(0, threePhase - withoutMotors) : 0,
     xr: xrOf(z),
+    lineToGroundXr: loop ? xrOf(loop) : NaN,
     impedance: z,
+    zeroSequence: z0,
   };
 }

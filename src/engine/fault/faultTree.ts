@@ -7,7 +7,7 @@ import { reflectImpedance } from './reflect.ts';
 import { sourceImpedanceOf, type SourceLevel } from './sourceImpedance.ts';
 import { transformerImpedanceOf } from './transformerImpedance.ts';
 
-/** The source and element assumptions of one fault condition (REFERENCE §1.3). */
+/** The source and element assumptions of one fault condition (IEEE 141 / IEEE 399 maximum and minimum duty, common practice). */
 export interface FaultCondition {
   /** 'max': maximum source, motors in, 75 °C; 'min': minimum source, no motors, 90 °C. */
   kind: 'max' | 'min';
@@ -97,7 +97,8 @@ export function faultTreeOf(network: Network, condition: FaultCondition): FaultT
     const bus = order[i];
     const branches = network.branchesFrom.get(bus) ?? [];
     for (const branch of branches) {
-      const child = below.get(branch.item.to);
+      // A single-phase transformer's load side is not a balanced source: its motors feed no three-phase fault.
+      const child = isSinglePhase(branch) ? undefined : below.get(branch.item.to);
       feeding.set(
         branch.item.id,
         child && seenFromParent(branch, addImpedance(branchZ.get(branch.item.id)!, child), volts),
@@ -133,6 +134,11 @@ export function faultTreeOf(network: Network, condition: FaultCondition): FaultT
 /** A branch's series impedance plus what hangs below it, referred to the branch's `from` bus. */
 function seenFromParent(branch: Branch, z: Impedance, volts: (busId: string) => number): Impedance {
   return branch.type === 'transformer' ? reflectImpedance(z, volts(branch.item.to), volts(branch.item.from)) : z;
+}
+
+/** Whether a branch is a single-phase transformer (its load side is computed as single-phase loops). */
+export function isSinglePhase(branch: Branch): boolean {
+  return branch.type === 'transformer' && branch.item.phases === 1;
 }
 
 /** Admittance of an impedance; zero for an open circuit (undefined). */

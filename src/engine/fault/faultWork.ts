@@ -2,38 +2,55 @@ import type { Branch, Network } from '../network/index.ts';
 import type { WorkStep } from '../work.ts';
 import type { FaultLevel } from './faultLevels.ts';
 import type { FaultTree } from './faultTree.ts';
-import { formatImpedance, magnitudeOf, type Impedance } from './impedance.ts';
+import { addImpedance, formatImpedance, magnitudeOf } from './impedance.ts';
+import type { SinglePhaseBus } from './singlePhase.ts';
 import { impedanceStep, num } from './workSteps.ts';
+import type { ZeroSequenceNetwork } from './zeroSequence.ts';
 
 // The worked calculation behind each bus's fault level, written in the order a person would follow it.
+// Every substituted number carries its unit.
+
+const OHMIC = 'ohmic form of the per-unit method (IEEE 141 / IEEE 399)';
+
+/** The branches from the source down to a bus, top first. */
+function chainTo(network: Network, busId: string): Branch[] {
+  const chain: Branch[] = [];
+  for (let feeder = network.feederOf.get(busId); feeder; feeder = network.feederOf.get(feeder.item.from))
+    chain.unshift(feeder);
+  return chain;
+}
+
+/** Prefixes each step's label with the condition's name. */
+function tag(name: string, steps: readonly WorkStep[]): WorkStep[] {
+  return steps.map((s) => ({ ...s, label: `${name}: ${s.label}` }));
+}
 
 /**
  * The steps from the source down to the bus: each element, each reflection, each running sum.
  * @example stepsTo(network, tree, 'MCC', 'maximum')
  */
 export function stepsTo(network: Network, tree: FaultTree, busId: string, name: string): WorkStep[] {
-  const chain: Branch[] = [];
-  for (let feeder = network.feederOf.get(busId); feeder; feeder = network.feederOf.get(feeder.item.from))
-    chain.unshift(feeder);
   const volts = (id: string) => network.buses.get(id)!.voltage;
-  const tag = (steps: WorkStep[]) => steps.map((s) => ({ ...s, label: `${name}: ${s.label}` }));
-  const steps = tag(tree.steps.get(network.study.source.id)!.steps);
-  for (const branch of chain) {
+  const steps = tag(name, tree.steps.get(network.study.source.id)!.steps);
+  for (const branch of chainTo(network, busId)) {
     const id = branch.item.id;
     const from = branch.item.from;
     const to = branch.item.to;
     const up = tree.toward.get(from)!;
     const behind = tree.behind.get(id)!;
-    if (magnitudeOf({ r: behind.r - up.r, x: behind.x - up.x }) > 1e-9 * magnitudeOf(up))
+    if (magnitudeOf({ r: behind.r - up.r, x: behind.x - up.x }) > 1e-9 * magnitudeOf(up)) {
+      const motors = motorsAwayFrom(network, tree, from, id);
       steps.push(
         impedanceStep(
-          `${name}: toward the source from ${from}, with the motor branches there in parallel`,
+          `${name}: toward the source from ${from}, with the motor branches there in parallel (${motors.join(', ')})`,
           'Z = 1 / (1/Z_source + Σ 1/Z_motor branch)',
-          `Z = 1 / (1/(${formatImpedance(up)}) + motor branches at ${from})`,
+          `Z = 1 / (1/(${formatImpedance(up)} Ω) + Σ 1/Z for ${motors.join(', ')})`,
           behind,
           'Ω',
+          'motors as parallel sources (IEEE 399 short-circuit chapter)',
         ),
       );
+    }
     let carried = behind;
     if (branch.type === 'transformer') {
       const ratio = volts(to) / volts(from);
@@ -42,59 +59,133 @@ export function stepsTo(network: Network, tree: FaultTree, busId: string, name: 
         impedanceStep(
           `${name}: referred to ${num(volts(to))} V`,
           'Z_sec = Z_pri · (V_sec / V_pri)²',
-          `Z = (${formatImpedance(behind)}) × (${num(volts(to))} / ${num(volts(from))})²`,
+          `Z = (${formatImpedance(behind)} Ω) × (${num(volts(to))} V / ${num(volts(from))} V)²`,
           carried,
           'Ω',
-          'REFERENCE §1.3',
+          OHMIC,
         ),
       );
     }
-    steps.push(...tag(tree.steps.get(id)!.steps));
+    steps.push(...tag(name, tree.steps.get(id)!.steps));
     const total = tree.toward.get(to)!;
     steps.push(
       impedanceStep(
         `${name}: series sum to ${to}`,
         'Z = ΣR + jΣX',
-        `Z = (${formatImpedance(carried)}) + (${formatImpedance(tree.branchZ.get(id)!)})`,
+        `Z = (${formatImpedance(carried)} Ω) + (${formatImpedance(tree.branchZ.get(id)!)} Ω)`,
         total,
         'Ω',
-        'REFERENCE §1.3, phasor sum',
+        `${OHMIC}, phasor sum`,
       ),
     );
   }
   return steps;
 }
 
+/** The ids of the motors counted at `busId` but outside the branch `exceptBranch` (those in parallel with the source there). */
+function motorsAwayFrom(network: Network, tree: FaultTree, busId: string, exceptBranch: string): string[] {
+  const out: string[] = [];
+  const visit = (bus: string) => {
+    for (const motor of network.motorsOn.get(bus) ?? []) if (tree.motorZ.has(motor.id)) out.push(motor.id);
+    for (const branch of network.branchesFrom.get(bus) ?? [])
+      if (branch.item.id !== exceptBranch && !(branch.type === 'transformer' && branch.item.phases === 1))
+        visit(branch.item.to);
+  };
+  visit(busId);
+  for (let feeder = network.feederOf.get(busId); feeder; feeder = network.feederOf.get(feeder.item.from)) {
+    const from = feeder.item.from;
+    for (const motor of network.motorsOn.get(from) ?? []) if (tree.motorZ.has(motor.id)) out.push(motor.id);
+    for (const branch of network.branchesFrom.get(from) ?? [])
+      if (branch.item.id !== feeder.item.id && !(branch.type === 'transformer' && branch.item.phases === 1))
+        visit(branch.item.to);
+  }
+  return out.length > 0 ? out : ['motor branches'];
+}
+
+/** The motors at and below a bus (not past a single-phase transformer). */
+function motorsBelow(network: Network, tree: FaultTree, busId: string): string[] {
+  const out: string[] = [];
+  const visit = (bus: string) => {
+    for (const motor of network.motorsOn.get(bus) ?? []) if (tree.motorZ.has(motor.id)) out.push(motor.id);
+    for (const branch of network.branchesFrom.get(bus) ?? [])
+      if (!(branch.type === 'transformer' && branch.item.phases === 1)) visit(branch.item.to);
+  };
+  visit(busId);
+  return out;
+}
+
 /**
- * The closing steps at the bus: motor branches in parallel, then the currents.
- * @example faultSteps('maximum', 480, toward, below, level)
+ * The zero-sequence steps from the grounding point down to the bus.
+ * @example zeroSequenceStepsTo(network, zeroMax, 'MCC', 'maximum')
+ */
+export function zeroSequenceStepsTo(
+  network: Network,
+  zero: ZeroSequenceNetwork,
+  busId: string,
+  name: string,
+): WorkStep[] {
+  const steps: WorkStep[] = [];
+  const chain = chainTo(network, busId);
+  // Start at the lowest element that starts a zero-sequence path afresh: a transformer other than Yg–Yg, else the source.
+  let first = -1;
+  chain.forEach((branch, i) => {
+    if (branch.type === 'transformer' && branch.item.connection !== 'wye-wye') first = i;
+  });
+  if (first < 0) steps.push(...tag(name, zero.steps.get(network.study.source.id) ?? []));
+  for (const branch of chain.slice(Math.max(first, 0))) {
+    steps.push(...tag(name, zero.steps.get(branch.item.id) ?? []));
+    const z0 = zero.atBus.get(branch.item.to);
+    if (branch.type === 'cable' && z0)
+      steps.push(
+        impedanceStep(
+          `${name}: zero-sequence series sum to ${branch.item.to}`,
+          'Z0 = ΣR0 + jΣX0',
+          `Z0 = Z0 at ${branch.item.from} + Z0 of ${branch.item.id}`,
+          z0,
+          'Ω',
+          'zero-sequence network (IEEE 399 short-circuit chapter)',
+        ),
+      );
+  }
+  return steps;
+}
+
+/**
+ * The closing steps at a three-phase bus: the motors counted, motor branches in parallel, then the currents.
+ * @example faultSteps('maximum', 480, maxTree, network, 'MCC', level)
  */
 export function faultSteps(
   name: string,
   volts: number,
-  toward: Impedance,
-  below: Impedance | undefined,
+  tree: FaultTree,
+  network: Network,
+  busId: string,
   level: FaultLevel,
-) {
+): WorkStep[] {
   const steps: WorkStep[] = [];
+  const toward = tree.toward.get(busId)!;
+  const below = tree.below.get(busId);
   if (below) {
+    const motors = motorsBelow(network, tree, busId);
+    for (const id of motors) steps.push(...tag(name, tree.steps.get(id)!.steps.slice(0, 1)));
     steps.push(
       impedanceStep(
-        `${name}: motor branches at and below the bus, reduced`,
+        `${name}: motor branches at and below the bus (${motors.join(', ')}), reduced`,
         'Z_M,eq = 1 / Σ 1/Z_M',
-        'Z_M,eq',
+        `Z_M,eq = 1 / Σ 1/Z over ${motors.join(', ')} (each with its cable)`,
         below,
         'Ω',
+        'motors as parallel sources (IEEE 399 short-circuit chapter)',
       ),
     );
     steps.push(
       impedanceStep(
         `${name}: Thevenin impedance at the fault`,
         'Z_th = Z_source · Z_M,eq / (Z_source + Z_M,eq)',
-        `Z_th = (${formatImpedance(toward)}) ∥ (${formatImpedance(below)})`,
+        `Z_th = (${formatImpedance(toward)} Ω) ∥ (${formatImpedance(below)} Ω)`,
         level.impedance,
         'Ω',
-        'motors as parallel sources, REFERENCE §1.5',
+        'motors as parallel sources (IEEE 399 short-circuit chapter)',
       ),
     );
   }
@@ -102,43 +193,76 @@ export function faultSteps(
   steps.push(
     {
       label: `${name}: three-phase bolted fault`,
-      formula: 'I_3φ = V_LL / (√3 · |Z_th|)',
-      substituted: `I_3φ = ${num(volts)} / (1.7320508 × ${num(magnitudeOf(z))})`,
+      formula: 'I_3φ = V_LL / (√3 · |Z1|)',
+      substituted: `I_3φ = ${num(volts)} V / (1.7320508 × ${num(magnitudeOf(z))} Ω)`,
       value: level.threePhase,
       unit: 'A',
-      source: 'REFERENCE §1.3 ohmic method',
+      source: OHMIC,
     },
     {
       label: `${name}: X/R at the fault`,
       formula: 'X/R = ΣX / ΣR',
-      substituted: `X/R = ${num(z.x)} / ${num(z.r)}`,
+      substituted: `X/R = ${num(z.x)} Ω / ${num(z.r)} Ω`,
       value: level.xr,
       unit: '',
+      source: OHMIC,
     },
     {
       label: `${name}: line-to-line bolted fault`,
-      formula: 'I_LL = 0.866 · I_3φ',
-      substituted: `I_LL = 0.8660254 × ${num(level.threePhase)}`,
+      formula: 'I_LL = √3 · E / |Z1 + Z2|, Z2 = Z1',
+      substituted: `I_LL = ${num(volts)} V / (2 × ${num(magnitudeOf(z))} Ω)`,
       value: level.lineToLine,
       unit: 'A',
-      source: 'REFERENCE §1.2, Z2 = Z1',
+      source: 'symmetrical components, Z2 = Z1 (IEEE 399 short-circuit chapter)',
     },
-    level.lineToGround > 0
-      ? {
-          label: `${name}: line-to-ground bolted fault, solidly grounded wye`,
-          formula: 'I_LG = 3·V_LN / |Z1 + Z2 + Z0| ≈ I_3φ with Z0 = Z1',
-          substituted: 'I_LG ≈ I_3φ',
-          value: level.lineToGround,
-          unit: 'A',
-          source: 'REFERENCE §1.2, Z0 = Z1 common practice',
-        }
-      : {
-          label: `${name}: line-to-ground fault on a delta (ungrounded) system`,
-          formula: 'I_LG = 0',
-          substituted: 'I_LG = 0',
-          value: 0,
-          unit: 'A',
-        },
   );
+  const z0 = level.zeroSequence;
+  if (z0 && level.lineToGround > 0) {
+    const loop = addImpedance(z, z, z0);
+    steps.push({
+      label: `${name}: line-to-ground bolted fault`,
+      formula: 'I_LG = 3 · V_LN / |Z1 + Z2 + Z0| = √3 · V_LL / |2·Z1 + Z0|',
+      substituted: `I_LG = 1.7320508 × ${num(volts)} V / |2 × (${formatImpedance(z)}) Ω + (${formatImpedance(z0)}) Ω| = 1.7320508 × ${num(volts)} V / ${num(magnitudeOf(loop))} Ω`,
+      value: level.lineToGround,
+      unit: 'A',
+      source: 'symmetrical components (IEEE 399 short-circuit chapter)',
+    });
+  } else {
+    steps.push({
+      label: `${name}: line-to-ground fault on an ungrounded (delta or ungrounded-wye) system`,
+      formula: 'I_LG = 0 (no zero-sequence path)',
+      substituted: 'I_LG = 0 A',
+      value: 0,
+      unit: 'A',
+      source: 'IEEE 142: an ungrounded system draws only charging current',
+    });
+  }
+  return steps;
+}
+
+/**
+ * The closing steps at a single-phase bus: the full-winding fault and the line-to-neutral (or grounded-leg) fault.
+ * @example singlePhaseSteps('maximum', bus, level)
+ */
+export function singlePhaseSteps(name: string, bus: SinglePhaseBus, level: FaultLevel): WorkStep[] {
+  const steps: WorkStep[] = [
+    {
+      label: `${name}: full-winding (line-to-line) fault, ${bus.system}`,
+      formula: 'I = V / |Z_loop|',
+      substituted: `I = ${num(bus.lineToLine.volts)} V / ${num(magnitudeOf(bus.lineToLine.z))} Ω`,
+      value: level.lineToLine,
+      unit: 'A',
+      source: OHMIC,
+    },
+  ];
+  if (bus.lineToGround)
+    steps.push({
+      label: `${name}: line-to-${bus.lineToGround.volts < bus.lineToLine.volts ? 'neutral (half-winding)' : 'ground (grounded leg)'} fault`,
+      formula: 'I = V / |Z_loop|',
+      substituted: `I = ${num(bus.lineToGround.volts)} V / ${num(magnitudeOf(bus.lineToGround.z))} Ω`,
+      value: level.lineToGround,
+      unit: 'A',
+      source: OHMIC,
+    });
   return steps;
 }

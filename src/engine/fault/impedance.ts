@@ -1,6 +1,6 @@
 /**
  * A complex impedance `r + jx`, in ohms (or per unit, when a calculation says so). Radial series
- * elements add as complex numbers, never as magnitudes (REFERENCE §1.3).
+ * elements add as complex numbers, never as magnitudes (IEEE 141 / IEEE 399 per-unit method).
  *
  * @example const z: Impedance = { r: 0.0049755, x: 0.0206405 } // Ω at 480 V
  */
@@ -41,7 +41,7 @@ export function xrOf(z: Impedance): number {
 }
 
 /**
- * Splits a magnitude by an X/R ratio: `r = |Z| / √(1 + (X/R)²)`, `x = r · X/R` (REFERENCE §1.3).
+ * Splits a magnitude by an X/R ratio: `r = |Z| / √(1 + (X/R)²)`, `x = r · X/R` (IEEE 141 / IEEE 399 per-unit method).
  * With `xr` omitted (or `Infinity`) the impedance is all reactance.
  *
  * @example impedanceOfMagnitude(0.003, 15) // { r: 0.00019956, x: 0.00299336 }
@@ -84,4 +84,14 @@ export function parallelImpedance(...terms: (Impedance | undefined)[]): Impedanc
 export function formatImpedance(z: Impedance, digits = 6): string {
   const part = (v: number) => String(Number(v.toPrecision(digits)));
   return `${part(z.r)} ${z.x < 0 ? '−' : '+'} j${part(Math.abs(z.x))}`;
+}
+
+/** Complex product `a · b` (impedance or current phasors as `{ r, x }`). @example multiplyComplex({ r: 0, x: 1 }, { r: 0, x: 1 }) // { r: -1, x: 0 } */
+export function multiplyComplex(a: Impedance, b: Impedance): Impedance {
+  return { r: a.r * b.r - a.x * b.x, x: a.r * b.x + a.x * b.r };
+}
+
+/** Complex quotient `a / b`. @example divideComplex({ r: 1, x: 0 }, { r: 0, x: 2 }) // { r: 0, x: -0.5 } */
+export function divideComplex(a: Impedance, b: Impedance): Impedance {
+  return multiplyComplex(a, invertImpedance(b));
 }

@@ -8,6 +8,8 @@ export {
   invertImpedance,
   parallelImpedance,
   formatImpedance,
+  multiplyComplex,
+  divideComplex,
   ZERO_IMPEDANCE,
 } from './impedance.ts';
 export type { Impedance } from './impedance.ts';
@@ -20,11 +22,17 @@ export {
   IMPEDANCE_TOLERANCE,
 } from './transformerImpedance.ts';
 export type { TransformerData } from './transformerImpedance.ts';
-export { motorImpedanceOf, DEFAULT_MOTOR_XR } from './motorImpedance.ts';
+export { motorImpedanceOf, motorRatingText, DEFAULT_MOTOR_XR } from './motorImpedance.ts';
 export { reflectAmps, reflectImpedance } from './reflect.ts';
-export { DELTA_WYE_TABLE, unbalancedLineCurrents, shiftFactorsOf, isGroundedSecondary } from './deltaWye.ts';
+export {
+  DELTA_WYE_TABLE,
+  unbalancedLineCurrents,
+  shiftFactorsOf,
+  isGroundedSecondary,
+  isPhaseShifting,
+} from './deltaWye.ts';
 export type { Connection, FaultType, UnbalancedCase, UnbalancedCurrents } from './deltaWye.ts';
-export { faultTreeOf } from './faultTree.ts';
+export { faultTreeOf, isSinglePhase } from './faultTree.ts';
 export type { FaultCondition, FaultTree } from './faultTree.ts';
 export { faultLevelsOf, MINIMUM_FAULT_TEMPERATURE } from './faultLevels.ts';
 export type { FaultLevel, BusFault, TransformerFault, FaultLevels } from './faultLevels.ts';
@@ -32,6 +40,23 @@ export { transformerFaultOf } from './transformerFault.ts';
 export { transformerCalculation } from './transformerCalculation.ts';
 export type { TransformerCalculationInput, TransformerCalculation } from './transformerCalculation.ts';
 export { num, impedanceStep } from './workSteps.ts';
-export { stepsTo, faultSteps } from './faultWork.ts';
+export { stepsTo, faultSteps, zeroSequenceStepsTo, singlePhaseSteps } from './faultWork.ts';
 export { withLazy, withLazySteps, withLazyWork } from './workSteps.ts';
 export { asymmetryOf } from './asymmetry.ts';
+export {
+  zeroSequenceOf,
+  sourceZeroSequenceOf,
+  cableZeroSequenceOf,
+  neutralImpedanceOf,
+  CABLE_ZERO_SEQUENCE_MULTIPLE,
+} from './zeroSequence.ts';
+export type { Grounding, ZeroSequenceNetwork } from './zeroSequence.ts';
+export {
+  singlePhaseBusesOf,
+  primaryConnectionOf,
+  secondaryWindingOf,
+  HALF_WINDING_MULTIPLIERS,
+} from './singlePhase.ts';
+export type { SinglePhaseBus, SinglePhaseLoop } from './singlePhase.ts';
+export { throughFaultOf } from './throughFault.ts';
+export type { ThroughFault } from './throughFault.ts';

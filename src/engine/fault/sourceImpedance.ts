@@ -8,7 +8,7 @@ export type SourceLevel = Extract<Source, { kind: 'utility' }>['max'];
 
 /**
  * The utility's three-phase short-circuit power in VA: the given MVA, or `S = √3 · V · I` when the
- * figure is a current at the source bus voltage `volts` (REFERENCE §1.3).
+ * figure is a current at the source bus voltage `volts` (IEEE 141 / IEEE 399).
  *
  * @example sourcePowerOf({ available: { amps: 11574.8 } }, 12470) // ≈ 250e6 VA
  */
@@ -17,7 +17,7 @@ export function sourcePowerOf(level: Pick<SourceLevel, 'available'>, volts: numb
 }
 
 /**
- * The utility impedance in ohms at `volts` (ohmic method, REFERENCE §1.3): `|Z_U| = V² / S_sc`, split by
+ * The utility impedance in ohms at `volts` (ohmic method, IEEE 141 / IEEE 399): `|Z_U| = V² / S_sc`, split by
  * the source X/R (all reactance when X/R is omitted), with the steps that produce it.
  *
  * @example sourceImpedanceOf({ available: { va: 250e6 }, xr: 12 }, 480).z // { r: 7.6581e-5, x: 9.1897e-4 }
@@ -35,7 +35,7 @@ export function sourceImpedanceOf(level: SourceLevel, volts: number): { z: Imped
         substituted: `S_sc = 1.7320508 × ${num(volts)} × ${num(level.available.amps)}`,
         value: sourcePowerOf(level, volts),
         unit: 'VA',
-        source: 'REFERENCE §1.3',
+        source: 'S = √3 · V · I (IEEE 141)',
       });
     const split =
       level.xr === undefined
@@ -48,7 +48,7 @@ export function sourceImpedanceOf(level: SourceLevel, volts: number): { z: Imped
         `|Z_U| = ${num(volts)}² / ${num(power)} = ${num(magnitude)} Ω; ${split}`,
         z,
         'Ω',
-        'REFERENCE §1.3 ohmic method',
+        'ohmic method (IEEE 141 / IEEE 399)',
       ),
     );
     return steps;

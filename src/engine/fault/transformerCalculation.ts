@@ -45,12 +45,12 @@ export interface TransformerCalculation {
 
 /**
  * A transformer's full-load currents and secondary bolted fault, infinite or finite source, by the
- * per-unit method on the transformer's own base (REFERENCE §1.1–1.3, §1.7). A single-phase unit fed
+ * per-unit method on the transformer's own base (IEEE 141 / IEEE 399). A single-phase unit fed
  * line-to-line from a three-phase source sees the source through two phases (Z1 + Z2), so its source
- * impedance is `2 · S_T / S_sc` (computed from §1.2's line-to-line relation).
+ * impedance is `2 · S_T / S_sc` (symmetrical components, Z2 = Z1).
  *
  * @example transformerCalculation({ rating: 1.5e6, primary: 12470, secondary: 480, impedance: 5.75, xr: 6,
- *   source: { va: 250e6 }, sourceXr: 12 }).faultAmps.secondary // 28 421.1 A (REFERENCE §7.4)
+ *   source: { va: 250e6 }, sourceXr: 12 }).faultAmps.secondary // 28 421.1 A
  */
 export function transformerCalculation(input: TransformerCalculationInput): TransformerCalculation {
   const { rating, primary, secondary, impedance, phases = 3, xr, source, sourceXr, impedanceTolerance = false } = input;
@@ -64,7 +64,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
       substituted: `I_FL = ${num(rating)} / (${root}${num(volts)})`,
       value,
       unit: 'A',
-      source: 'REFERENCE §1.1, textbook identity',
+      source: 'textbook identity (IEEE 141)',
     });
     return value;
   };
@@ -78,7 +78,9 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
     substituted: `Z_pu = ${impedanceTolerance ? '0.925 × ' : ''}${num(impedance)} / 100`,
     value: perUnit,
     unit: 'pu',
-    source: impedanceTolerance ? 'IEEE C57.12.00 −7.5 % tolerance (from memory), common practice' : 'nameplate',
+    source: impedanceTolerance
+      ? 'IEEE C57.12.00 −7.5 % impedance tolerance (verify against the edition you work to); applied for maximum duty, common practice'
+      : 'nameplate',
   });
   const infiniteBus = secondaryFla / perUnit;
   work.push({
@@ -87,7 +89,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
     substituted: `I_sc = ${num(secondaryFla)} / ${num(perUnit)}`,
     value: infiniteBus,
     unit: 'A',
-    source: 'REFERENCE §1.2',
+    source: 'infinite-bus identity (IEEE 141 / IEEE 242)',
   });
 
   const zT = impedanceOfMagnitude(perUnit, xr);
@@ -102,7 +104,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
         substituted: `S_sc = 1.7320508 × ${num(primary)} × ${num(source.amps)}`,
         value: power,
         unit: 'VA',
-        source: 'REFERENCE §1.3',
+        source: 'S = √3 · V · I (IEEE 141)',
       });
     const factor = phases === 3 ? 1 : 2;
     sourcePu = (factor * rating) / power;
@@ -114,7 +116,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
         `Z_U = ${factor === 2 ? '2 × ' : ''}${num(rating)} / ${num(power)}; ${sourceXr === undefined ? 'all reactance' : `X/R ${num(sourceXr)}`}`,
         zU,
         'pu',
-        'REFERENCE §1.3',
+        'per-unit method (IEEE 141 / IEEE 399)',
       ),
       impedanceStep(
         'transformer impedance split by its X/R',
@@ -122,7 +124,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
         `Z_T = ${num(perUnit)}; ${xr === undefined ? 'all reactance' : `X/R ${num(xr)}`}`,
         zT,
         'pu',
-        'REFERENCE §1.3',
+        'per-unit method (IEEE 141 / IEEE 399)',
       ),
     );
     total = addImpedance(zU, zT);
@@ -133,7 +135,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
         `Z = (${formatImpedance(zU)}) + (${formatImpedance(zT)})`,
         total,
         'pu',
-        'REFERENCE §1.3, phasor sum',
+        'per-unit method (IEEE 141 / IEEE 399), phasor sum',
       ),
     );
   }
@@ -145,7 +147,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
       substituted: `I_sc = ${num(secondaryFla)} / ${num(magnitudeOf(total))}`,
       value: secondaryAmps,
       unit: 'A',
-      source: 'REFERENCE §1.3',
+      source: 'per-unit method (IEEE 141 / IEEE 399)',
     });
   const reflectedToPrimary = reflectAmps(secondaryAmps, secondary, primary);
   work.push({
@@ -154,7 +156,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
     substituted: `I_pri = ${num(secondaryAmps)} × ${num(secondary)} / ${num(primary)}`,
     value: reflectedToPrimary,
     unit: 'A',
-    source: 'REFERENCE §1.7',
+    source: 'turns ratio',
   });
   return {
     fullLoadAmps: { primary: primaryFla, secondary: secondaryFla },

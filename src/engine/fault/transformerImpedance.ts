@@ -3,7 +3,7 @@ import type { WorkStep } from '../work.ts';
 import { impedanceOfMagnitude, type Impedance } from './impedance.ts';
 import { impedanceStep, num, withLazySteps } from './workSteps.ts';
 
-/** Fraction of nameplate %Z used for maximum duty when `impedanceTolerance` is on (IEEE C57.12.00 −7.5 %, from memory). */
+/** Fraction of nameplate %Z used for maximum duty when `impedanceTolerance` is on (IEEE C57.12.00 −7.5 % impedance tolerance; verify against the edition you work to). */
 export const IMPEDANCE_TOLERANCE = 0.925;
 
 /** The transformer fields a fault calculation needs. */
@@ -12,7 +12,7 @@ export type TransformerData = Pick<Transformer, 'id' | 'rating' | 'primary' | 's
 
 /**
  * Full-load current of a winding in amps: `S / (√3 · V)` three-phase, `S / V` single-phase
- * (REFERENCE §1.1, textbook identity).
+ * (textbook identity, IEEE 141).
  *
  * @example fullLoadAmpsOf(1.5e6, 480, 3) // 1804.22
  */
@@ -33,7 +33,7 @@ export function effectivePerUnit(t: Pick<TransformerData, 'impedance' | 'impedan
 /**
  * The transformer's impedance in ohms referred to its secondary: `|Z_T| = Z_pu · V_sec² / S_T`, split
  * by its X/R (all reactance when omitted). This is the per-unit method's
- * `Z_pu · (S_base / S_T) · (kV_rated / kV_base)²` expressed in ohms (REFERENCE §1.3).
+ * `Z_pu · (S_base / S_T) · (kV_rated / kV_base)²` expressed in ohms (IEEE 141 / IEEE 399).
  *
  * @example transformerImpedanceOf(t1500, { toleranced: false }).z // { r: 0.0014519, x: 0.0087115 } Ω at 480 V
  */
@@ -55,7 +55,8 @@ export function transformerImpedanceOf(
         substituted: `Z_pu = 0.925 × ${num(t.impedance)} / 100`,
         value: perUnit,
         unit: 'pu',
-        source: 'IEEE C57.12.00 tolerance (from memory); applied for maximum duty, common practice',
+        source:
+          'IEEE C57.12.00 −7.5 % impedance tolerance (verify against the edition you work to); applied for maximum duty, common practice',
       });
     const split = t.xr === undefined ? 'all reactance (no X/R given)' : `X/R ${num(t.xr)}`;
     steps.push(
@@ -65,7 +66,7 @@ export function transformerImpedanceOf(
         `|Z_T| = ${num(perUnit)} × ${num(t.secondary)}² / ${num(t.rating)} = ${num(magnitude)} Ω; ${split}`,
         z,
         'Ω',
-        'REFERENCE §1.3',
+        'per-unit method (IEEE 141 / IEEE 399)',
       ),
     );
     return steps;

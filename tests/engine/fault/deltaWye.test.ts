@@ -46,12 +46,15 @@ describe('delta–wye per-unit table', () => {
     );
   });
 
-  it('shiftFactorsOf: 1.155 and 0.58 for Δ–Yg, 0.87 for Δ–Δ, 1 otherwise, REFERENCE §1.8 items 1–4', () => {
+  it('shiftFactorsOf: exactly 2/√3 for Δ–Y and Y–Δ, 1/√3 withstand for Δ–Yg, √3/2 for Δ–Δ (IEEE C37.91 shift factors, exact)', () => {
+    // A Δ–Y secondary L-L fault puts 1.0 pu in one primary line against √3/2 in the secondary lines.
     const dy = shiftFactorsOf('delta-wye');
-    assertInDelta(dy.lineToLineDeviceShift, 1.155, 1e-3);
-    expect(dy.withstandShift).toBe(0.58);
-    expect(shiftFactorsOf('delta-delta')).toEqual({ lineToLineDeviceShift: 1, withstandShift: 0.87 });
+    expect(dy.lineToLineDeviceShift).toBe(2 / Math.sqrt(3));
+    expect(dy.withstandShift).toBe(1 / Math.sqrt(3));
+    expect(shiftFactorsOf('wye-delta').lineToLineDeviceShift).toBe(2 / Math.sqrt(3));
+    expect(shiftFactorsOf('delta-delta')).toEqual({ lineToLineDeviceShift: 1, withstandShift: Math.sqrt(3) / 2 });
     expect(shiftFactorsOf('wye-wye')).toEqual({ lineToLineDeviceShift: 1, withstandShift: 1 });
+    expect(shiftFactorsOf('delta-wye', 1)).toEqual({ lineToLineDeviceShift: 1, withstandShift: 1 });
   });
 
   it('delta secondaries carry no ground-fault current', () => {

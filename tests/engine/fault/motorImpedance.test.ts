@@ -20,7 +20,8 @@ describe('motorImpedanceOf', () => {
   it('a 150 hp motor at 480 V: FLA from 1 hp ≈ 1 kVA (common practice), 4 × FLA', () => {
     const { amps, steps } = motorImpedanceOf({ ...base, hp: 150 }, 480);
     assertInDelta(amps, (4 * 150e3) / (Math.sqrt(3) * 480), 1e-12);
-    expect(steps[0].label).toMatch(/common practice/);
+    expect(steps[0].source).toMatch(/common practice/);
+    expect(steps[0].label).toMatch(/M \(150 hp\)/);
   });
 
   it('uses the motor X/R when given', () => {
