@@ -76,8 +76,15 @@ export function structureProblems(study: Study): StudyProblem[] {
   }
   study.transformers.forEach((t, i) => {
     const path = `study.transformers[${i}]`;
-    if (isBus(t.from) && !matches(t.primary, voltageOf.get(t.from)!))
-      problem(`${path}.primary`, `the voltage of bus ${t.from} (${voltageOf.get(t.from)} V)`, `${t.primary} V`);
+    // A single-phase unit may be connected line to neutral: its winding is at the bus voltage / √3.
+    const toNeutral = t.phases === 1 && t.primaryConnection !== 'line-to-line';
+    const primaryBus = voltageOf.get(t.from)!;
+    if (
+      isBus(t.from) &&
+      !matches(t.primary, primaryBus) &&
+      !(toNeutral && matches(t.primary, primaryBus / Math.sqrt(3)))
+    )
+      problem(`${path}.primary`, `the voltage of bus ${t.from} (${primaryBus} V)`, `${t.primary} V`);
     if (isBus(t.to) && !matches(t.secondary, voltageOf.get(t.to)!))
       problem(`${path}.secondary`, `the voltage of bus ${t.to} (${voltageOf.get(t.to)} V)`, `${t.secondary} V`);
   });
