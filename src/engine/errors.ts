@@ -21,9 +21,10 @@ export function expectedGot(expected: string, got: unknown): string {
 
 /** Renders the offending value as the user typed it: strings quoted, objects as compact JSON. */
 export function quoteGot(got: unknown): string {
-  if (typeof got === 'string') return JSON.stringify(got);
+  // Long text is cut so the message stays one readable line; JSON quoting escapes control characters.
+  if (typeof got === 'string') return JSON.stringify(got.length > 60 ? `${got.slice(0, 57)}...` : got);
   if (got === undefined) return 'nothing';
-  if (typeof got === 'number') return Number.isNaN(got) ? '"NaN"' : `"${got}"`;
+  if (typeof got === 'number') return `"${got}"`;
   const text = JSON.stringify(got) ?? String(got);
   return text.length > 60 ? `${text.slice(0, 57)}...` : text;
 }

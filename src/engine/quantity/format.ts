@@ -19,9 +19,12 @@ export function formatSeconds(seconds: number, digits = 3): string {
   return `${significant(seconds, digits)} s`;
 }
 
-/** Formats with an engineering prefix (k, M) once the value reaches 10 000 (amps) or 1 000 (others). */
+/**
+ * Formats with an engineering prefix (k, M) once the value reaches 10 000 (amps) or 1 000 (others).
+ * An infinite value (an infinite bus's fault current) reads "no limit"; NaN is a defect and is refused.
+ */
 export function formatSI(value: number, unit: string, digits = 4): string {
-  if (!Number.isFinite(value)) return `${value} ${unit}`;
+  if (!Number.isFinite(value)) return significant(value, digits);
   const threshold = unit === 'A' ? 10_000 : 1_000;
   const magnitude = Math.abs(value);
   if (magnitude >= 1e6 * (threshold / 1_000)) return `${significant(value / 1e6, digits)} M${unit}`;
@@ -29,9 +32,14 @@ export function formatSI(value: number, unit: string, digits = 4): string {
   return `${significant(value, digits)} ${unit}`;
 }
 
-/** Rounds to `digits` significant figures and drops trailing zeros: 0.30000 → "0.3". */
+/**
+ * Rounds to `digits` significant figures and drops trailing zeros: 0.30000 → "0.3". ±Infinity reads
+ * "no limit" so no output ever prints "Infinity"; NaN throws a `RangeError` (it means a defect upstream).
+ */
 export function significant(value: number, digits = 4): string {
-  if (value === 0 || !Number.isFinite(value)) return String(value);
+  if (Number.isNaN(value)) throw new RangeError('expected a number to format, got "NaN"');
+  if (!Number.isFinite(value)) return 'no limit';
+  if (value === 0) return '0';
   const rounded = Number(value.toPrecision(digits));
   return Math.abs(rounded) >= 1e15 || Math.abs(rounded) < 1e-6 ? rounded.toExponential() : String(rounded);
 }

@@ -32,12 +32,21 @@ const CYCLES = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(cycles?|cyc|
 /**
  * Parses an engineering quantity to a plain number in SI base units (V, A, VA, Ω, m, s, Hz).
  * Accepts a number (in `plainUnit`) or text such as `"13.8 kV"`, `"1500 kVA"`, `"100 ft"`,
- * `"12 cycles"` (times only, at `frequency`). Throws `InputError`-shaped `RangeError` text on failure;
+ * `"12 cycles"` (times only, at `frequency`). A power must be apparent (VA, kVA, MVA): "1500 kW" is
+ * refused, since reading it as kVA would assume a unity power factor. A value that overflows
+ * ("1e400 MVA") is refused rather than becoming Infinity. Throws `InputError`-shaped `RangeError` text on failure;
  * callers at file and flag boundaries wrap it with the field path.
  *
  * @example parseQuantity('4.16 kV', 'voltage') // 4160
  */
 export function parseQuantity(value: unknown, dimension: Dimension, options: ParseQuantityOptions = {}): number {
+  const parsed = parseUnchecked(value, dimension, options);
+  // "1e400 MVA" or 1e308 MVA overflow to Infinity on the way to SI units: refuse, never compute with it.
+  if (!Number.isFinite(parsed)) throw new RangeError(`expected a finite ${dimension}`);
+  return parsed;
+}
+
+function parseUnchecked(value: unknown, dimension: Dimension, options: ParseQuantityOptions): number {
   const { si, plain } = DIMENSIONS[dimension];
   const { plainUnit = plain, frequency = 60 } = options;
   if (typeof value === 'number') {
@@ -46,7 +55,7 @@ export function parseQuantity(value: unknown, dimension: Dimension, options: Par
   }
   if (typeof value !== 'string') throw new TypeError(`expected a ${dimension} as a number or text with a unit`);
   const text = value.trim().replace(/Ω/g, 'ohm').replace(/µ/g, 'u');
-  if (NUMBER.test(text)) return parseQuantity(Number(text), dimension, options);
+  if (NUMBER.test(text)) return parseUnchecked(Number(text), dimension, options);
   const cycles = CYCLES.exec(text);
   if (cycles) {
     if (dimension !== 'time') throw new RangeError(`expected a ${dimension}, not a time in cycles`);
@@ -60,6 +69,11 @@ export function parseQuantity(value: unknown, dimension: Dimension, options: Par
   }
   if (unit.value === null || !unit.equalBase(math.unit(1, si))) {
     throw new RangeError(`expected a ${dimension} such as "${example(dimension)}"`);
+  }
+  // Ratings and fault levels are apparent powers. A real power (W, hp) shares the dimension but is
+  // not the same quantity: without a stated power factor "1500 kW" is not 1500 kVA, so it is refused.
+  if (dimension === 'power' && !unit.units.every((part) => part.unit.name === 'VA')) {
+    throw new RangeError('expected an apparent power in VA, kVA or MVA (a real power in W needs a power factor)');
   }
   return unit.toNumber(si);
 }

@@ -12,6 +12,53 @@ export interface FieldLimits {
   max?: number;
 }
 
+/**
+ * The physically meaningful range of each dimension, in SI units, applied to every quantity field on
+ * top of its own limits: a value other than 0 must lie in `[smallest, largest]`. The bounds are wide
+ * (no real system comes near them) but they keep denormals, 1e-300 pickups and 1e308 voltages out of
+ * the engine, whose loops and logarithms are only meaningful on physical numbers. A field may narrow
+ * them (`min`, `max`); `why` is stated in the field's description and the JSON Schema.
+ */
+export const PHYSICAL_RANGES: Record<Dimension, { smallest: number; largest: number; unit: string; why: string }> = {
+  voltage: {
+    smallest: 1,
+    largest: 2e6,
+    unit: 'V',
+    why: 'from 1 V up to 2 MV, above the highest AC transmission voltage in service (1,100 kV)',
+  },
+  current: {
+    smallest: 1e-3,
+    largest: 1e7,
+    unit: 'A',
+    why: 'from 1 mA (the most sensitive relay pickups on 1 A CT secondaries) to 10 MA, beyond any fault current a power system delivers (a few hundred kA)',
+  },
+  power: {
+    smallest: 1,
+    largest: 1e12,
+    unit: 'VA',
+    why: 'from 1 VA to 1 TVA, beyond the fault level of any interconnected grid (about 100 GVA)',
+  },
+  impedance: {
+    smallest: 1e-9,
+    largest: 1e6,
+    unit: 'Ω',
+    why: 'from 1 nΩ to 1 MΩ, the span of power-system conductors and grounding impedances',
+  },
+  length: {
+    smallest: 1e-3,
+    largest: 1e6,
+    unit: 'm',
+    why: 'from 1 mm to 1000 km, longer than any feeder',
+  },
+  time: {
+    smallest: 1e-6,
+    largest: 1e5,
+    unit: 's',
+    why: 'zero, or from 1 µs to 100 000 s (about a day): a time-current sheet spans 0.01 s to 1000 s',
+  },
+  frequency: { smallest: 1, largest: 1e3, unit: 'Hz', why: 'from 1 Hz to 1 kHz' },
+};
+
 export interface QuantityFieldOptions extends FieldLimits {
   /** Unit of a bare number, e.g. 'kVA'. @default the dimension's plain unit (DIMENSIONS) */
   plainUnit?: string;
@@ -19,6 +66,12 @@ export interface QuantityFieldOptions extends FieldLimits {
   frequency?: number;
   /** Short description for the JSON Schema and editors. */
   description?: string;
+}
+
+/** The physical range of a dimension as the user reads it: "1 V to 2e+06 V". */
+function rangeText(dimension: Dimension): string {
+  const { smallest, largest, unit } = PHYSICAL_RANGES[dimension];
+  return `${smallest} ${unit} and ${largest} ${unit}`;
 }
 
 /**
@@ -39,14 +92,19 @@ export function quantityField(dimension: Dimension, options: QuantityFieldOption
         ctx.addIssue({ code: 'custom', message: `${(error as Error).message}, got ${quoteGot(value)}`, input: value });
         return z.NEVER;
       }
-      const problem = limitProblem(parsed, limits);
+      // A plain number's size was already bounded when the document was read (readStudy); text with a
+      // unit ("1e-310 A") is bounded here, in its dimension's SI range.
+      const problem =
+        limitProblem(parsed, limits) ?? physicalProblem(parsed, dimension, { smallest: typeof value === 'string' });
       if (problem) {
         ctx.addIssue({ code: 'custom', message: `expected a ${dimension} ${problem}, got ${quoteGot(value)}` });
         return z.NEVER;
       }
       return parsed;
     })
-    .meta({ description: description ?? `${dimension}: a number in ${plainUnit ?? 'SI units'} or text with a unit` });
+    .meta({
+      description: `${description ?? `${dimension}: a number in ${plainUnit ?? 'SI units'} or text with a unit`}; range: ${PHYSICAL_RANGES[dimension].why}`,
+    });
 }
 
 /**
@@ -54,7 +112,10 @@ export function quantityField(dimension: Dimension, options: QuantityFieldOption
  * @example percentField({ min: 0, exclusiveMin: true }).parse('5.75 %') // 5.75
  */
 export function percentField(limits: FieldLimits & { description?: string } = {}) {
-  const { description, ...rest } = limits;
+  const { description, ...given } = limits;
+  // Percentages are bounded like every number: at most 100 % unless the field says less (a study
+  // file's denormals are refused before any field is read, see readStudy).
+  const rest = { ...given, max: Math.min(given.max ?? 100, 100) };
   return z
     .union([z.number(), z.string()])
     .transform((value, ctx) => {
@@ -72,7 +133,9 @@ export function percentField(limits: FieldLimits & { description?: string } = {}
       }
       return parsed;
     })
-    .meta({ description: description ?? 'percentage: a number or text such as "5.75 %"' });
+    .meta({
+      description: `${description ?? 'percentage: a number or text such as "5.75 %"'}; range: ${rest.min ?? 0} % to ${rest.max} %`,
+    });
 }
 
 /** A plain positive number (ratios, multiples, time dials). */
@@ -80,11 +143,117 @@ export function positiveNumber(description?: string) {
   return z.number().positive().meta({ description });
 }
 
+/**
+ * A plain number within a physically meaningful range, both ends inclusive; `why` states the range's
+ * reason in the field's description (and so in the JSON Schema and the editor's help).
+ *
+ * @example boundedNumber(0.1, 1000, 'X/R ratio', 'from nearly resistive to the stiffest sources').parse(12) // 12
+ */
+export function boundedNumber(min: number, max: number, description: string, why: string) {
+  return z
+    .number()
+    .min(min)
+    .max(max)
+    .meta({ description: `${description}; range: ${min} to ${max}, ${why}` });
+}
+
+/** Why an X/R ratio lies in 0.1–1000: from nearly resistive circuits to the stiffest sources (published values stay below about 100). */
+export const XR_RANGE = [
+  0.1,
+  1000,
+  'from nearly resistive circuits to the stiffest sources (published values stay below about 100)',
+] as const;
+
+/** An X/R ratio in `XR_RANGE`. @example xrRatio('X/R ratio at the source').parse(12) // 12 */
+export function xrRatio(description: string) {
+  return boundedNumber(XR_RANGE[0], XR_RANGE[1], description, XR_RANGE[2]);
+}
+
+/**
+ * The longest list a view may hold (devices, fault lines, withstand curves, motors): a sheet with
+ * more curves than this cannot be read, and the cap keeps plotting time bounded.
+ */
+export const MAX_VIEW_ITEMS = 100;
+
+/**
+ * The longest list of one kind of element in a study: far beyond any site (a large industrial study
+ * has a few thousand buses), it keeps a corrupted or hostile file from exhausting memory.
+ */
+export const MAX_ELEMENTS = 20_000;
+
+/** Names and labels: 200 characters, about the width of a printed sheet in the sheet's font. */
+export const MAX_NAME = 200;
+
+/** Free text (descriptions, notes): 10 000 characters, a few printed pages. */
+export const MAX_NOTES = 10_000;
+
+/**
+ * A `[low, high]` range of a sheet's axis, low below high, both within `[smallest, largest]` of `unit`.
+ * @example axisRangeField('A', 1e-3, 1e7).parse([10, 100000]) // [10, 100000]
+ */
+export function axisRangeField(unit: string, smallest: number, largest: number, why: string) {
+  const end = z.number().min(smallest).max(largest);
+  return z
+    .tuple([end, end])
+    .superRefine(([low, high], ctx) => {
+      if (!(high > low))
+        ctx.addIssue({ code: 'custom', path: [1], message: `expected a value above ${low} ${unit}, got "${high}"` });
+    })
+    .meta({
+      description: `[low, high] in ${unit}, low below high; each from ${smallest} to ${largest} ${unit}, ${why}`,
+    });
+}
+
+/**
+ * A name or free text shown on sheets and reports: at most `max` characters (a label longer than a
+ * sheet is wide is not a name) and no control characters or non-characters (U+FFFE, U+FFFF), which
+ * make an SVG figure invalid XML and a PDF blank. Tabs and line breaks are allowed only in notes.
+ *
+ * @example textField(200, 'display name').parse('Main 2000 A') // 'Main 2000 A'
+ */
+export function textField(max: number, description: string, { multiline = false } = {}) {
+  const forbidden = multiline ? FORBIDDEN_IN_NOTES : FORBIDDEN_IN_NAMES;
+  return z
+    .string()
+    .max(max)
+    .superRefine((text, ctx) => {
+      if (!forbidden.test(text)) return;
+      const allowed = multiline ? ' (other than tab and line breaks)' : '';
+      ctx.addIssue({
+        code: 'custom',
+        message: `expected text without control characters${allowed} or U+FFFE/U+FFFF, got ${quoteGot(text)}`,
+      });
+    })
+    .meta({ description: `${description}; at most ${max} characters, no control characters` });
+}
+
+/** C0 and C1 controls, and the non-characters U+FFFE/U+FFFF (invalid in XML 1.0). */
+// eslint-disable-next-line no-control-regex
+const FORBIDDEN_IN_NAMES = /[\u0000-\u001f\u007f-\u009f\ufffe\uffff]/;
+// eslint-disable-next-line no-control-regex
+const FORBIDDEN_IN_NOTES = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f\ufffe\uffff]/;
+
+/** A display name or label: see `textField`. */
+export const nameField = textField(MAX_NAME, 'display name');
+
+/** Free text such as a description or notes: see `textField`. */
+export const notesField = textField(MAX_NOTES, 'free text', { multiline: true });
+
 /** Element ids: short, unique across the study, usable in file names and flags. */
 export const idField = z
   .string()
   .regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'expected an id of letters, digits, ".", "_" or "-"')
   .meta({ description: 'identifier, unique in the study' });
+
+/** A value other than 0 outside the dimension's physical range. */
+function physicalProblem(value: number, dimension: Dimension, check = { smallest: true }): string | undefined {
+  const { smallest, largest } = PHYSICAL_RANGES[dimension];
+  if (value === 0) return undefined;
+  const magnitude = Math.abs(value);
+  return (check.smallest && magnitude < smallest) || magnitude > largest
+    ? `between ${rangeText(dimension)}`
+    : undefined;
+}
 
 function limitProblem(value: number, { min, exclusiveMin = false, max }: FieldLimits): string | undefined {
   if (min !== undefined && (exclusiveMin ? !(value > min) : !(value >= min))) {
@@ -103,14 +272,14 @@ function limitProblem(value: number, { min, exclusiveMin = false, max }: FieldLi
 export const availableFaultField = z
   .union([z.number(), z.string()])
   .transform((value, ctx): { va: number; amps?: undefined } | { amps: number; va?: undefined } => {
-    const expected = 'an available fault such as "250 MVA" or "11.6 kA" greater than 0';
+    const expected = `an available fault such as "250 MVA" or "11.6 kA" greater than 0 (a power between ${rangeText('power')}, or a current between ${rangeText('current')})`;
     for (const [dimension, plainUnit] of [
       ['power', 'MVA'],
       ['current', 'A'],
     ] as const) {
       try {
         const parsed = parseQuantity(value, dimension, { plainUnit });
-        if (!(parsed > 0)) break;
+        if (!(parsed > 0) || physicalProblem(parsed, dimension)) break;
         return dimension === 'power' ? { va: parsed } : { amps: parsed };
       } catch {
         // not this dimension; try the next
@@ -119,4 +288,6 @@ export const availableFaultField = z
     ctx.addIssue({ code: 'custom', message: `expected ${expected}, got ${quoteGot(value)}` });
     return z.NEVER;
   })
-  .meta({ description: 'available three-phase fault: "250 MVA" (a bare number is MVA) or "11.6 kA"' });
+  .meta({
+    description: `available three-phase fault: "250 MVA" (a bare number is MVA) or "11.6 kA"; range: ${PHYSICAL_RANGES.power.why}; ${PHYSICAL_RANGES.current.why}`,
+  });

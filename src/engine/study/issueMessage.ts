@@ -30,14 +30,24 @@ export function issueMessage(issue: z.core.$ZodIssue): string {
       return `expected a known "${key}", got ${value === undefined ? 'nothing' : quoteGot(value)}`;
     }
     case 'too_small':
-      return `expected ${issue.origin === 'array' ? `at least ${issue.minimum} item(s)` : `a value ${issue.inclusive ? 'of at least' : 'greater than'} ${issue.minimum}`}, got ${got}`;
+      if (issue.origin === 'array') return `expected at least ${issue.minimum} item(s), got ${countOf(input)}`;
+      if (issue.origin === 'string') return `expected at least ${issue.minimum} character(s), got ${got}`;
+      return `expected a value ${issue.inclusive ? 'of at least' : 'greater than'} ${issue.minimum}, got ${got}`;
     case 'too_big':
-      return `expected ${issue.origin === 'array' ? `at most ${issue.maximum} item(s)` : `a value of at most ${issue.maximum}`}, got ${got}`;
+      if (issue.origin === 'array') return `expected at most ${issue.maximum} item(s), got ${countOf(input)}`;
+      if (issue.origin === 'string')
+        return `expected at most ${issue.maximum} characters, got ${typeof input === 'string' ? `"${input.length} characters"` : got}`;
+      return `expected a value of at most ${issue.maximum}, got ${got}`;
     case 'invalid_format':
       return `${issue.message.startsWith('expected') ? issue.message : `expected ${issue.format}`}, got ${got}`;
     default:
       return `${issue.message}, got ${got}`;
   }
+}
+
+/** How many items an array input held, for "expected at most 500 item(s), got 100000". */
+function countOf(input: unknown): string {
+  return Array.isArray(input) ? `"${input.length} items"` : quoteGot(input);
 }
 
 /**

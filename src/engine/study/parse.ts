@@ -1,11 +1,12 @@
 import type { z } from 'zod';
 import { InputError, quoteGot } from '../errors.ts';
 import { formatIssuePath, issueMessage } from './issueMessage.ts';
+import { jsonTextProblem, MAX_NESTING, withoutBom } from './jsonText.ts';
 import { createStudySchema, studySchema, type Study } from './schema.ts';
+import { structureProblems } from './structure.ts';
 
 /** The 50 Hz schema (times in cycles read at 50 Hz), built once like the 60 Hz `studySchema`. */
 const STUDY_SCHEMA_50 = createStudySchema(50);
-import { structureProblems } from './structure.ts';
 
 /** One thing wrong with a study file, located by its field path (`study.transformers[1].impedance`). */
 export interface StudyProblem {
@@ -13,33 +14,85 @@ export interface StudyProblem {
   message: string;
 }
 
+/** What `readStudy` found: the study when it is valid, the document as parsed, and every problem. */
+export interface StudyReading {
+  /** The parsed study (SI units, defaults filled), only when there is no problem. */
+  study?: Study;
+  /** The document as written (JSON parsed, before the schema), whenever the text is well-formed JSON. */
+  document?: unknown;
+  problems: StudyProblem[];
+}
+
 /**
- * Reads a study from JSON text or an already-parsed object: schema first, then the tree rules
- * (one source, every bus reached once, winding voltages matching their buses, unique ids).
- * Returns every problem found, each as a one-line `path: expected …, got "…"` message.
+ * Reads a study from JSON text or an already-parsed object, the one reader the command line and the
+ * workbench share, so both accept exactly the same files. In order: a UTF-8 byte-order mark is
+ * dropped; the JSON text is checked in one pass (syntax errors with line:column, a field given twice,
+ * absurd nesting); the schema (types, units, physical ranges); then the tree rules (unique ids, every
+ * reference resolves, one radial tree from the source: no loops, orphans or bus fed twice). Nothing
+ * walks the network before the tree rules pass. Returns every problem found, each as a one-line
+ * `path: expected …, got "…"` message.
  *
  * @example const { study, problems } = readStudy(await readFile('demo/selective.json', 'utf8'))
  */
-export function readStudy(input: unknown): { study?: Study; problems: StudyProblem[] } {
+export function readStudy(input: unknown): StudyReading {
   let raw = input;
   if (typeof input === 'string') {
-    try {
-      raw = JSON.parse(input);
-    } catch (error) {
-      return {
-        problems: [{ path: 'study', message: `expected JSON text, got a syntax error (${(error as Error).message})` }],
-      };
-    }
+    const text = withoutBom(input);
+    const problem = jsonTextProblem(text);
+    if (problem) return { problems: [problem] };
+    raw = JSON.parse(text);
   }
+  const problem = documentProblem(raw);
+  if (problem) return { document: raw, problems: [problem] };
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
-    return { problems: [{ path: 'study', message: `expected a JSON object, got ${quoteGot(raw)}` }] };
+    return { document: raw, problems: [{ path: 'study', message: `expected a JSON object, got ${quoteGot(raw)}` }] };
   }
   const frequency = (raw as { frequency?: unknown }).frequency;
   const schema = frequency === 50 ? STUDY_SCHEMA_50 : studySchema;
   const parsed = schema.safeParse(raw, { reportInput: true });
-  if (!parsed.success) return { problems: parsed.error.issues.map(describeIssue) };
+  if (!parsed.success) return { document: raw, problems: parsed.error.issues.map(describeIssue) };
   const problems = structureProblems(parsed.data);
-  return problems.length > 0 ? { problems } : { study: parsed.data, problems };
+  return problems.length > 0 ? { document: raw, problems } : { study: parsed.data, document: raw, problems };
+}
+
+/**
+ * Every plain number in a study, in whatever unit its field reads it, is 0 or between these in
+ * magnitude. No physical quantity of a power system, in the units the study format uses (V, A, kVA,
+ * MVA, ft, s, %, multiples), needs more; the bound keeps denormals (1e-310), overflowed JSON numbers
+ * (1e400 reads as Infinity) and 1e308 out before any field's own range is even asked.
+ */
+const NUMBER_MAGNITUDE = { smallest: 1e-9, largest: 1e12 };
+
+/**
+ * A number outside `NUMBER_MAGNITUDE`, or an object nested deeper than `MAX_NESTING`, in document
+ * order of discovery (walked iteratively; a cycle ends at the nesting limit).
+ */
+function documentProblem(input: unknown): StudyProblem | undefined {
+  const stack: { value: unknown; depth: number; path: PropertyKey[] }[] = [{ value: input, depth: 0, path: [] }];
+  while (stack.length > 0) {
+    const { value, depth, path } = stack.pop()!;
+    if (typeof value === 'number') {
+      const size = Math.abs(value);
+      if (value !== 0 && !(size >= NUMBER_MAGNITUDE.smallest && size <= NUMBER_MAGNITUDE.largest)) {
+        return {
+          path: formatPath(path),
+          message: `expected 0 or a number between ${NUMBER_MAGNITUDE.smallest} and ${NUMBER_MAGNITUDE.largest} in size, got ${quoteGot(value)}`,
+        };
+      }
+      continue;
+    }
+    if (value === null || typeof value !== 'object') continue;
+    if (depth >= MAX_NESTING) {
+      return { path: formatPath(path), message: `expected at most ${MAX_NESTING} levels of nesting, got more` };
+    }
+    const entries = Object.entries(value);
+    for (let k = entries.length - 1; k >= 0; k--) {
+      const [key, child] = entries[k];
+      if (typeof child === 'number' || (child !== null && typeof child === 'object'))
+        stack.push({ value: child, depth: depth + 1, path: [...path, Array.isArray(value) ? Number(key) : key] });
+    }
+  }
+  return undefined;
 }
 
 /**

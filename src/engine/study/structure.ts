@@ -1,15 +1,23 @@
-import { expectedGot } from '../errors.ts';
-import type { StudyProblem } from './parse.ts';
+import { NEC_TABLE_9, parseConductorSize } from '../conductors/index.ts';
+import { expectedGot, InputError } from '../errors.ts';
 import { networkOf, upstreamDeviceOf } from '../network/network.ts';
+import { formatSI } from '../quantity/format.ts';
+import type { StudyProblem } from './parse.ts';
 import type { Study } from './schema.ts';
 
 /** Winding voltages may differ from their bus's nominal voltage by this fraction (rounding of 480 vs 480Y/277). */
 const VOLTAGE_MATCH = 0.01;
 
 /**
- * The rules a schema cannot state: ids unique across the study, every reference resolves, the
- * system is one radial tree fed from the source (no orphans, no loops, no bus fed twice), winding
- * voltages match their buses, and each element has at most one device feeding it.
+ * The rules a schema cannot state: ids unique across the study, every reference resolves (branches,
+ * motors, devices' `feeds`, views, per-pair margins), the system is one radial tree fed from the
+ * source (no orphans, no loops, no bus fed twice), winding voltages match their buses, the minimum
+ * source is no stronger than the maximum, each element has at most one device feeding it, and a view
+ * names each thing once. Everything is checked iteratively, without walking the network, and only a
+ * study that passes all of it has its per-pair margins checked against the tree (which walks it):
+ * a loop can never reach code that assumes a tree.
+ *
+ * @example structureProblems(studyWithALoop) // [{ path: 'study.cables[4].to', message: 'expected a bus fed only once …' }]
  */
 export function structureProblems(study: Study): StudyProblem[] {
   const problems: StudyProblem[] = [];
@@ -29,18 +37,6 @@ export function structureProblems(study: Study): StudyProblem[] {
   study.motors.forEach((m, i) => claim(`study.motors[${i}]`, m.id, 'motor'));
   study.devices.forEach((d, i) => claim(`study.devices[${i}]`, d.id, 'device'));
   const viewIds = new Set<string>();
-  // Per-pair margins name two devices in series, the first above the second.
-  const deviceFeeds = new Map(study.devices.map((d) => [d.id, d.feeds]));
-  const network = problems.length === 0 ? networkOf(study) : undefined;
-  study.coordination.pairs.forEach((pair, i) => {
-    const path = `study.coordination.pairs[${i}]`;
-    if (!deviceFeeds.has(pair.upstream)) problem(`${path}.upstream`, 'the id of a device', pair.upstream);
-    else if (!deviceFeeds.has(pair.downstream)) problem(`${path}.downstream`, 'the id of a device', pair.downstream);
-    else if (network && upstreamDeviceOf(network, network.devices.get(pair.downstream)!)?.id !== pair.upstream) {
-      problem(`${path}.upstream`, `the device just above ${pair.downstream}`, pair.upstream);
-    }
-  });
-
   study.views.forEach((v, i) => {
     if (viewIds.has(v.id)) problem(`study.views[${i}].id`, 'a view id not already used', v.id);
     viewIds.add(v.id);
@@ -71,9 +67,32 @@ export function structureProblems(study: Study): StudyProblem[] {
       );
     else {
       feederOf.set(item.to, item.id);
-      childrenOf.set(item.from, [...(childrenOf.get(item.from) ?? []), item.to]);
+      const children = childrenOf.get(item.from);
+      if (children) children.push(item.to);
+      else childrenOf.set(item.from, [item.to]);
     }
   }
+  // Every bus reached from the source once; a bus in a loop is never reached (a depth-first walk
+  // with an explicit stack: any depth of tree).
+  const reached = new Set<string>();
+  if (isBus(study.source.bus)) {
+    const stack = [study.source.bus];
+    while (stack.length > 0) {
+      const bus = stack.pop()!;
+      if (reached.has(bus)) continue;
+      reached.add(bus);
+      for (const child of childrenOf.get(bus) ?? []) stack.push(child);
+    }
+  }
+  study.buses.forEach((bus, i) => {
+    if (!reached.has(bus.id))
+      problem(
+        `study.buses[${i}]`,
+        'a bus connected to the source through transformers and cables (this one is an orphan or in a loop)',
+        bus.id,
+      );
+  });
+
   study.transformers.forEach((t, i) => {
     const path = `study.transformers[${i}]`;
     // A single-phase unit may be connected line to neutral: its winding is at the bus voltage / √3.
@@ -88,28 +107,40 @@ export function structureProblems(study: Study): StudyProblem[] {
     if (isBus(t.to) && !matches(t.secondary, voltageOf.get(t.to)!))
       problem(`${path}.secondary`, `the voltage of bus ${t.to} (${voltageOf.get(t.to)} V)`, `${t.secondary} V`);
   });
+  // A cable's size sets its withstand (always) and its impedance (unless given per 1000 ft).
+  study.cables.forEach((c, i) => {
+    const path = `study.cables[${i}].size`;
+    try {
+      const size = parseConductorSize(c.size, path);
+      if ((c.resistance === undefined || c.reactance === undefined) && !NEC_TABLE_9[size])
+        problem(
+          path,
+          'a size in NEC Table 9 (12 AWG to 750 kcmil), or "resistance" and "reactance" per 1000 ft',
+          c.size,
+        );
+    } catch (error) {
+      if (!(error instanceof InputError)) throw error;
+      problems.push({ path, message: error.message.slice(path.length + 2) });
+    }
+  });
   study.cables.forEach((c, i) => {
     if (isBus(c.from) && isBus(c.to) && !matches(voltageOf.get(c.from)!, voltageOf.get(c.to)!)) {
       problem(`study.cables[${i}].to`, `a bus at the voltage of ${c.from} (${voltageOf.get(c.from)} V)`, c.to);
     }
   });
-  if (problems.length === 0) {
-    const reached = new Set<string>();
-    const stack = [study.source.bus];
-    while (stack.length > 0) {
-      const bus = stack.pop()!;
-      if (reached.has(bus)) continue;
-      reached.add(bus);
-      stack.push(...(childrenOf.get(bus) ?? []));
-    }
-    study.buses.forEach((bus, i) => {
-      if (!reached.has(bus.id))
-        problem(
-          `study.buses[${i}]`,
-          'a bus connected to the source through transformers and cables (this one is an orphan or in a loop)',
-          bus.id,
-        );
-    });
+
+  // The minimum source (for sensitivity) cannot deliver more than the maximum (for duty).
+  const source = study.source;
+  if (source.kind === 'utility' && source.min && isBus(source.bus)) {
+    const volts = voltageOf.get(source.bus)!;
+    const va = (level: { va?: number; amps?: number }) => level.va ?? Math.sqrt(3) * volts * level.amps!;
+    const max = va(source.max.available);
+    if (va(source.min.available) > max * (1 + 1e-9))
+      problem(
+        'study.source.min.available',
+        `a minimum fault no stronger than the maximum (${formatSI(max, 'VA')})`,
+        formatSI(va(source.min.available), 'VA'),
+      );
   }
 
   study.motors.forEach((m, i) => {
@@ -133,18 +164,42 @@ export function structureProblems(study: Study): StudyProblem[] {
     else fedBy.set(d.feeds, d.id);
   });
 
+  // Views: every reference resolves to the right kind, each named once.
   study.views.forEach((v, i) => {
     const path = `study.views[${i}]`;
-    v.devices.forEach(
-      (id, j) => kindOf.get(id) !== 'device' && problem(`${path}.devices[${j}]`, 'the id of a device', id),
-    );
-    v.faults?.forEach((id, j) => !isBus(id) && problem(`${path}.faults[${j}]`, 'the id of a bus', id));
-    v.withstand.forEach(
-      (id, j) =>
-        !['transformer', 'cable'].includes(kindOf.get(id) ?? '') &&
-        problem(`${path}.withstand[${j}]`, 'the id of a transformer or cable', id),
-    );
-    v.motors.forEach((id, j) => kindOf.get(id) !== 'motor' && problem(`${path}.motors[${j}]`, 'the id of a motor', id));
+    const list = (field: string, ids: readonly string[] | undefined, kinds: string[], expected: string) => {
+      const seen = new Set<string>();
+      ids?.forEach((id, j) => {
+        if (!kinds.includes(kindOf.get(id) ?? '')) problem(`${path}.${field}[${j}]`, expected, id);
+        else if (seen.has(id)) problem(`${path}.${field}[${j}]`, `each ${kinds.join(' or ')} once in a view`, id);
+        seen.add(id);
+      });
+    };
+    list('devices', v.devices, ['device'], 'the id of a device');
+    list('faults', v.faults, ['bus'], 'the id of a bus');
+    list('withstand', v.withstand, ['transformer', 'cable'], 'the id of a transformer or cable');
+    list('motors', v.motors, ['motor'], 'the id of a motor');
+  });
+
+  // Per-pair margins name two devices in series, the first just above the second.
+  const pairSeen = new Set<string>();
+  study.coordination.pairs.forEach((pair, i) => {
+    const path = `study.coordination.pairs[${i}]`;
+    if (kindOf.get(pair.upstream) !== 'device') problem(`${path}.upstream`, 'the id of a device', pair.upstream);
+    else if (kindOf.get(pair.downstream) !== 'device')
+      problem(`${path}.downstream`, 'the id of a device', pair.downstream);
+    else if (pairSeen.has(`${pair.upstream}\n${pair.downstream}`))
+      problem(`${path}`, 'each pair once', `${pair.upstream} above ${pair.downstream}`);
+    pairSeen.add(`${pair.upstream}\n${pair.downstream}`);
+  });
+  if (problems.length > 0) return problems;
+
+  // Only now is the study a tree, so the network can be walked.
+  const network = networkOf(study);
+  study.coordination.pairs.forEach((pair, i) => {
+    if (upstreamDeviceOf(network, network.devices.get(pair.downstream)!)?.id !== pair.upstream) {
+      problem(`study.coordination.pairs[${i}].upstream`, `the device just above ${pair.downstream}`, pair.upstream);
+    }
   });
   return problems;
 }

@@ -23,4 +23,10 @@ describe('quantity formatting', () => {
     expect(significant(28421.08, 6)).toBe('28421.1');
     expect(formatSI(250e6, 'VA')).toBe('250 MVA');
   });
+
+  it('never prints Infinity or NaN: an infinite value reads "no limit", NaN is refused', () => {
+    expect(formatAmps(Infinity)).toBe('no limit');
+    expect(significant(-Infinity)).toBe('no limit');
+    expect(() => formatAmps(NaN)).toThrow(/^expected a number to format, got "NaN"$/);
+  });
 });

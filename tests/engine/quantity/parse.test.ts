@@ -47,6 +47,20 @@ describe('parseQuantity', () => {
     expect(() => parseQuantity(text, dimension)).toThrow(message);
   });
 
+  it.each([
+    ['1e400 MVA', 'power'],
+    ['1e400 ft', 'length'],
+    ['1e400 cycles', 'time'],
+    ['1e400', 'current'],
+  ] as const)('refuses "%s", which overflows to Infinity, as a %s', (text, dimension) => {
+    expect(() => parseQuantity(text, dimension)).toThrow(new RegExp(`^expected a finite ${dimension}$`));
+  });
+
+  it('refuses a real power for an apparent one: "1500 kW" is not 1500 kVA without a power factor', () => {
+    expect(() => parseQuantity('1500 kW', 'power')).toThrow(/^expected an apparent power in VA, kVA or MVA/);
+    expect(() => parseQuantity('100 hp', 'power')).toThrow(/^expected an apparent power/);
+  });
+
   it('refuses non-finite numbers and other types', () => {
     expect(() => parseQuantity(Infinity, 'current')).toThrow(/^expected a finite current$/);
     expect(() => parseQuantity(true, 'current')).toThrow(/^expected a current as a number or text with a unit$/);

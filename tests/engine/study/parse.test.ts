@@ -105,7 +105,137 @@ describe('readStudy', () => {
     const input = demo();
     input.colour = 'blue';
     expect(firstProblem(input)).toMatch(/^study: expected no field "colour" here, got one$/);
-    expect(firstProblem('{ nope')).toMatch(/^study: expected JSON text, got a syntax error/);
+    expect(firstProblem('{ nope')).toMatch(/^study: expected a field name in double quotes at line 1:3, got "nope"$/);
+  });
+
+  it('reads a file that starts with a UTF-8 byte-order mark, as the workbench does', () => {
+    expect(readStudy(`\uFEFF${demoText}`).study?.name).toBe(parseStudy(demoText).name);
+  });
+
+  it('reports a JSON syntax error on one line with its line and column', () => {
+    const broken = demoText.replace('"voltage": 480', '"voltage": 480,,');
+    const message = firstProblem(broken);
+    expect(message).not.toContain('\n');
+    expect(message).toMatch(
+      /^study\.buses\[1\]: expected a field name in double quotes at line \d+:\d+, got ","$/,
+    );
+  });
+
+  it('refuses a field given twice in one object (JSON.parse would keep the last silently)', () => {
+    const twice = demoText.replace('"voltage": 480', '"voltage": 480, "voltage": 600');
+    expect(firstProblem(twice)).toMatch(
+      /^study\.buses\[1\]\.voltage: expected the field once in its object, got it twice \(again at line \d+:\d+\)$/,
+    );
+  });
+
+  it.each([
+    [
+      'a denormal',
+      1e-310,
+      /^study\.buses\[1\]\.voltage: expected 0 or a number between 1e-9 and 1000000000000 in size, got "1e-310"$/,
+    ],
+    ['an overflowed JSON number', '1e400', /^study\.buses\[1\]\.voltage: expected 0 or a number .*, got "Infinity"$/],
+    ['a unit that overflows', '1e400 kV', /^study\.buses\[1\]\.voltage: expected a finite voltage, got "1e400 kV"$/],
+    [
+      'an absurd voltage',
+      '1e308 V',
+      /^study\.buses\[1\]\.voltage: expected a voltage between 1 V and 2000000 V, got "1e308 V"$/,
+    ],
+  ])('refuses %s where a voltage belongs', (_, value, message) => {
+    const text = demoText.replace(
+      '"voltage": 480',
+      `"voltage": ${typeof value === 'string' && !value.includes(' ') ? value : JSON.stringify(value)}`,
+    );
+    expect(firstProblem(text)).toMatch(message);
+  });
+
+  it('refuses a real power where an apparent power belongs (no power factor is assumed)', () => {
+    const input = demo();
+    input.transformers![0].rating = '1500 kW';
+    expect(firstProblem(input)).toMatch(
+      /^study\.transformers\[0\]\.rating: expected an apparent power in VA, kVA or MVA/,
+    );
+  });
+
+  it('refuses a 1000 % transformer impedance', () => {
+    const input = demo();
+    input.transformers![0].impedance = '1000 %';
+    expect(firstProblem(input)).toMatch(
+      /^study\.transformers\[0\]\.impedance: expected a percentage of at most 25, got "1000 %"$/,
+    );
+  });
+
+  it('refuses a minimum source stronger than the maximum', () => {
+    const input = demo();
+    if (input.source.kind !== 'utility') throw new Error('the demo has a utility source');
+    input.source.min = { available: '300 MVA', xr: 10 };
+    expect(firstProblem(input)).toMatch(
+      /^study\.source\.min\.available: expected a minimum fault no stronger than the maximum \(250 MVA\), got "300 MVA"$/,
+    );
+  });
+
+  it('refuses a device listed twice in a view, and a view longer than a sheet can show', () => {
+    const input = demo();
+    input.views![0].devices.push(input.views![0].devices[0]);
+    expect(firstProblem(input)).toMatch(
+      /^study\.views\[0\]\.devices\[4\]: expected each device once in a view, got "R-T1"$/,
+    );
+    input.views![0].devices = Array.from({ length: 100_000 }, () => 'MAIN');
+    expect(firstProblem(input)).toMatch(
+      /^study\.views\[0\]\.devices: expected at most 100 item\(s\), got "100000 items"$/,
+    );
+  });
+
+  it('refuses names with control characters, U+FFFE, or longer than 200 characters', () => {
+    const input = demo();
+    input.buses[0].name = 'Main\u000bbus';
+    expect(firstProblem(input)).toMatch(
+      /^study\.buses\[0\]\.name: expected text without control characters or U\+FFFE\/U\+FFFF, got "Main\\u000bbus"$/,
+    );
+    input.buses[0].name = 'x\uFFFE';
+    expect(firstProblem(input)).toMatch(/^study\.buses\[0\]\.name: expected text without control characters/);
+    input.buses[0].name = 'x'.repeat(5_000_000);
+    expect(firstProblem(input)).toMatch(
+      /^study\.buses\[0\]\.name: expected at most 200 characters, got "5000000 characters"$/,
+    );
+  });
+
+  it('refuses a cable size the impedance and withstand curves cannot read', () => {
+    const input = demo();
+    input.cables![0].size = '2000 kcmil';
+    expect(firstProblem(input)).toMatch(/^study\.cables\[0\]\.size: expected a size in NEC Table 9/);
+  });
+
+  it('finds a cable loop before anything walks the tree, even with per-pair margins', () => {
+    const input = demo();
+    const i = input.cables!.push({ id: 'C-LOOP', from: 'MCC', to: 'SWBD', size: '4/0', length: 10 }) - 1;
+    input.coordination = { pairs: [{ upstream: 'MAIN', downstream: 'FDR-MCC', margin: 0.2 }] };
+    expect(firstProblem(input)).toMatch(
+      at(
+        `study.cables[${i}].to`,
+        /: expected a bus fed only once in a radial system \(T1 already feeds it\), got "SWBD"$/,
+      ),
+    );
+  });
+
+  it('refuses a per-pair margin naming something that is not a device', () => {
+    const input = demo();
+    input.coordination = { pairs: [{ upstream: 'MAIN', downstream: 'NOPE', margin: 0.2 }] };
+    expect(firstProblem(input)).toMatch(
+      /^study\.coordination\.pairs\[0\]\.downstream: expected the id of a device, got "NOPE"$/,
+    );
+  });
+
+  it('reads a radial chain 250 levels deep (no recursion anywhere)', () => {
+    const input = demo();
+    let above = 'EMP';
+    for (let k = 0; k < 250; k++) {
+      input.buses.push({ id: `D${k}`, voltage: 480 });
+      input.cables!.push({ id: `CD${k}`, from: above, to: `D${k}`, size: '4/0', length: 10 });
+      above = `D${k}`;
+    }
+    input.coordination = { pairs: [{ upstream: 'MAIN', downstream: 'FDR-EM', margin: 0.2 }] };
+    expect(readStudy(input).problems).toEqual([]);
   });
 
   it('parseStudy throws the first problem as an InputError with its path', () => {
