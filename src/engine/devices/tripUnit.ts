@@ -3,10 +3,13 @@ import type { Band } from '../band.ts';
 import { percentField, quantityField } from '../study/fields.ts';
 import { bandOfEdges, compositeEdge, definiteElement, i2tElement, type EdgeElement } from './composite.ts';
 
+/** How the long-time ramp meets the short-time function (see `createTripUnitSchema`). */
+export const LONG_TIME_RAMPS = ['independent', 'ends-at-short-time-pickup'] as const;
+
 /**
  * Builds the electronic trip-unit (LSIG) schema for a system frequency; `tripUnitSchema` is the
- * 60 Hz instance. Terms as in REFERENCE §3.2, with `I_n` the sensor or rating-plug amps and
- * `I_r = longTime.pickup × I_n`:
+ * 60 Hz instance. Terms as the trade uses them (IEEE 1015 / IEEE 3004.5 application practice), with
+ * `I_n` the sensor or rating-plug amps and `I_r = longTime.pickup × I_n`:
  * - `longTime`: `pickup` (× I_n), `delay` (band time at `delayAt` × I_r, default 6), an I²t ramp;
  * - `shortTime`: `pickup` (× I_r), `delay` (s), `i2t` (I²t in: ramp through (`i2tThrough` × I_r, delay),
  *   default 10) or flat;
@@ -16,7 +19,11 @@ import { bandOfEdges, compositeEdge, definiteElement, i2tElement, type EdgeEleme
  *   short-time (and ground) band −0/+0.05 s around the set delay;
  * - `openingTime` (default "0.5 cycles") and `clearingTime` (default "3 cycles"): the fastest
  *   operation and the latest clearing at high current; every edge is floored to them;
- * - `currentLimiting` / `currentLimitingFrom`: from the instantaneous upper pickup edge unless given.
+ * - `currentLimiting` / `currentLimitingFrom`: from the instantaneous upper pickup edge unless given;
+ * - `longTimeRamp`: `'independent'` (default: every function acts on its own at every current and the
+ *   breaker trips on whichever acts first, so the long-time ramp keeps falling past the short-time
+ *   delay) or `'ends-at-short-time-pickup'` (for trip units whose published curve hands the long-time
+ *   ramp over to the short-time function at the short-time pickup).
  *
  * @example createTripUnitSchema().parse({ kind: 'trip-unit', sensor: 800, longTime: { pickup: 1, delay: 10 } })
  */
@@ -72,6 +79,14 @@ export function createTripUnitSchema(frequency = 60) {
       clearingTime: time('latest clearing at high current').prefault('3 cycles'),
       currentLimiting: z.boolean().default(false),
       currentLimitingFrom: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+      longTimeRamp: z
+        .enum(LONG_TIME_RAMPS)
+        .default('independent')
+        .meta({
+          description:
+            'independent: every function acts on its own and the first to act trips the breaker; ' +
+            "ends-at-short-time-pickup: the long-time ramp hands over to the short-time function at its pickup, as some trip units' published curves show",
+        }),
     })
     .strict()
     .superRefine((unit, ctx) => {
@@ -105,10 +120,18 @@ export const tripUnitSchema = createTripUnitSchema(60);
 export type TripUnit = z.output<typeof tripUnitSchema>;
 
 /**
- * The phase band of a trip unit in amperes (REFERENCE §3.2 band construction): `minTime` uses the
- * low pickup edges and the fast time edges, `maxTime` the high pickup edges and slow time edges; the
- * breaker operates on its fastest element, never faster than `openingTime`, and has cleared by
- * `clearingTime` at the latest once any element acts at high current.
+ * The phase band of a trip unit in amperes: `minTime` uses the low pickup edges and the fast time
+ * edges, `maxTime` the high pickup edges and slow time edges (common practice). Each function acts on
+ * its own and the breaker operates on whichever acts first, so at every current each edge is the
+ * smallest of the functions' edges: where the long-time I²t ramp falls below the short-time delay,
+ * even before the short-time pickup, the band follows the ramp down. Never faster than
+ * `openingTime`, and cleared by `clearingTime` at the latest once any function acts at high current.
+ *
+ * With `longTimeRamp: 'ends-at-short-time-pickup'` the long-time function stops at the short-time
+ * pickup (each edge at its own pickup tolerance). Where the ramp has already fallen below the
+ * short-time delay there, a device would operate later above the pickup than just below it; the
+ * band keeps its edges non-increasing and still bounds the device: the fast edge holds the ramp's
+ * time at the pickup, the slow edge holds the short-time delay from where the ramp meets it.
  *
  * @example tripUnitBand(tripUnitSchema.parse({ kind: 'trip-unit', sensor: 800,
  *   longTime: { pickup: 1, delay: 10 } })).maxTime(4800) // 12 s (10 s + 20 %)
@@ -116,30 +139,40 @@ export type TripUnit = z.output<typeof tripUnitSchema>;
 export function tripUnitBand(unit: TripUnit): Band {
   const { sensor, longTime, shortTime, instantaneous, tolerance } = unit;
   const ratedAmps = longTime.pickup * sensor;
+  const handOver = Boolean(shortTime) && unit.longTimeRamp === 'ends-at-short-time-pickup';
+  const diagnostics = tripUnitDiagnostics(unit);
   const edge = (side: -1 | 1) => {
     const pickupFactor = 1 + (side * tolerance.pickup) / 100;
     const longFactor = side < 0 ? 1 - tolerance.longTimeBelow / 100 : 1 + tolerance.longTimeAbove / 100;
     const longSeconds = longTime.delay * longFactor;
     const longThrough = longTime.delayAt * ratedAmps;
+    const instantaneousPickup = instantaneous ? instantaneous.pickup * sensor * pickupFactor : Infinity;
     const elements: EdgeElement[] = [];
+    let longFlatFrom = Infinity;
     if (shortTime) {
-      const delay = bandDelay(unit, side, shortTime.delay);
-      elements.push(delayedElement(shortTime, ratedAmps, shortTime.pickup * ratedAmps * pickupFactor, delay));
-      // The long-time ramp is held at the short-time delay where it reaches it: the short-time
-      // element governs above its pickup, so the ramp never undercuts the short-time band.
-      const heldFrom = longThrough * Math.sqrt(longSeconds / delay);
-      elements.push(i2tElement(ratedAmps * pickupFactor, longSeconds, longThrough, heldFrom));
-    } else {
-      elements.push(i2tElement(ratedAmps * pickupFactor, longSeconds, longThrough));
+      const shortPickup = shortTime.pickup * ratedAmps * pickupFactor;
+      const short = delayedElement(shortTime, ratedAmps, shortPickup, bandDelay(unit, side, shortTime.delay));
+      elements.push(short);
+      if (handOver && shortPickup < instantaneousPickup) {
+        const rampAtPickup = longSeconds * (longThrough / shortPickup) ** 2;
+        const shortAtPickup = short.time(shortPickup);
+        // Fast edge: the ramp's time at the pickup is the earliest the device may act above it.
+        // Slow edge: the short-time time at the pickup is the latest it may take below it.
+        if (rampAtPickup >= shortAtPickup || side < 0) longFlatFrom = shortPickup;
+        else longFlatFrom = longThrough * Math.sqrt(longSeconds / shortAtPickup);
+        if (rampAtPickup < shortAtPickup && side < 0)
+          diagnostics.push(
+            `long-time ramp is at ${round(rampAtPickup)} s at the short-time pickup ${round(shortPickup)} A, ` +
+              `below the short-time ${round(shortAtPickup)} s: the band spans both there`,
+          );
+      }
     }
+    elements.push(i2tElement(ratedAmps * pickupFactor, longSeconds, longThrough, longFlatFrom));
     if (instantaneous) {
-      elements.push(
-        definiteElement(instantaneous.pickup * sensor * pickupFactor, side < 0 ? unit.openingTime : unit.clearingTime),
-      );
+      elements.push(definiteElement(instantaneousPickup, side < 0 ? unit.openingTime : unit.clearingTime));
     }
     return compositeEdge(elements, side < 0 ? unit.openingTime : unit.clearingTime);
   };
-  const diagnostics = tripUnitDiagnostics(unit);
   const flagged = unit.currentLimiting || unit.currentLimitingFrom !== undefined;
   let currentLimitingFrom = Infinity;
   if (unit.currentLimitingFrom !== undefined) currentLimitingFrom = unit.currentLimitingFrom;
@@ -148,7 +181,26 @@ export function tripUnitBand(unit: TripUnit): Band {
     diagnostics.push(
       'current-limiting is flagged but there is no instantaneous pickup or currentLimitingFrom to start it',
     );
-  return bandOfEdges(edge(-1), edge(1), currentLimitingFrom, diagnostics);
+  const low = edge(-1);
+  return bandOfEdges(low, edge(1), currentLimitingFrom, diagnostics);
+}
+
+/**
+ * How the long-time function meets the short-time function in this trip unit, in words for the
+ * sheet's legend and the report; undefined without a short-time function (nothing to meet).
+ *
+ * @example longTimeRampBasis(unit) // "long-time, short-time and instantaneous act independently; the first to act trips"
+ */
+export function longTimeRampBasis(unit: TripUnit): string | undefined {
+  if (!unit.shortTime) return undefined;
+  return unit.longTimeRamp === 'ends-at-short-time-pickup'
+    ? 'long-time ramp ends at the short-time pickup (as the published curve of this trip unit)'
+    : 'each function acts on its own; the first to act trips (long-time ramp not cut at the short-time pickup)';
+}
+
+/** A number to four significant figures for a note. */
+function round(value: number): number {
+  return Number(value.toPrecision(4));
 }
 
 /**
@@ -168,11 +220,10 @@ export function groundBandOf(unit: TripUnit): Band | undefined {
   };
   const diagnostics: string[] = [];
   if (ground.pickup * sensor > 1200) {
-    diagnostics.push(`ground-fault pickup ${ground.pickup * sensor} A is above the 1200 A of NEC 230.95 (from memory)`);
+    diagnostics.push(`ground-fault pickup ${ground.pickup * sensor} A is above the 1200 A of NEC 230.95`);
   }
   const high = edge(1);
-  if (high.time(3000) > 1)
-    diagnostics.push('ground-fault clearing at 3000 A is later than the 1 s of NEC 230.95 (from memory)');
+  if (high.time(3000) > 1) diagnostics.push('ground-fault clearing at 3000 A is later than the 1 s of NEC 230.95');
   return bandOfEdges(edge(-1), high, Infinity, diagnostics);
 }
 
@@ -192,7 +243,7 @@ function delayedElement(
   return element.i2t ? i2tElement(pickup, delay, through, through) : definiteElement(pickup, delay);
 }
 
-/** Settings outside their usual ranges (REFERENCE §3.2, common practice); the band is still built. */
+/** Settings outside their usual ranges (common practice); the band is still built. */
 function tripUnitDiagnostics({ longTime, shortTime, instantaneous, ground }: TripUnit): string[] {
   const out: string[] = [];
   const check = (name: string, value: number, min: number, max: number, unit: string) => {

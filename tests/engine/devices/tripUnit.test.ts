@@ -3,7 +3,8 @@ import fc from 'fast-check';
 import { assertInDelta } from '../../asserts.ts';
 import { assertBandContract } from './bandInvariants.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
-import { groundBandOf, tripUnitBand, tripUnitSchema } from '../../../src/engine/devices/tripUnit.ts';
+import { groundBandOf, longTimeRampBasis, tripUnitBand, tripUnitSchema } from '../../../src/engine/devices/tripUnit.ts';
+import { findOverlaps } from '../../../src/engine/overlap.ts';
 
 /** REFERENCE §7.6 (invented settings): I_r = 800 A, 10 s at 6 × I_r; short-time 4 × I_r, I²t in through (10 × I_r, 0.3 s). */
 const example = {
@@ -92,9 +93,105 @@ describe('tripUnit', () => {
     expect(band.currentLimitingFrom).toBe(Infinity);
   });
 
-  it('tripUnitBand keeps the long-time ramp from undercutting the short-time band', () => {
-    const band = tripUnitBand(tripUnitSchema.parse({ ...example, shortTime: { pickup: 4, delay: 0.3 } }));
-    assertInDelta(band.minTime(100_000), 0.3); // without the hold, 9 · (4800/100000)² = 0.0207 s
+  it('tripUnitBand lets the long-time ramp fall below a flat short-time delay at high current by default', () => {
+    const flat = tripUnitSchema.parse({ ...example, shortTime: { pickup: 4, delay: 0.3 } });
+    // Each function acts on its own (IEEE 1015 application practice, from memory): 0.9 · 10 · (4800/100000)².
+    assertInDelta(tripUnitBand(flat).minTime(100_000), 9 * (4800 / 100_000) ** 2);
+    // Handed over at the short-time pickup, the ramp no longer acts there and the short-time delay holds.
+    const handOver = tripUnitBand({ ...flat, longTimeRamp: 'ends-at-short-time-pickup' });
+    assertInDelta(handOver.minTime(100_000), 0.3);
+    assertInDelta(handOver.maxTime(100_000), 0.35);
+    // Below the short-time pickup both read the long-time ramp: 1.2 · 10 · (4800/3000)².
+    assertInDelta(handOver.maxTime(3000), 30.72);
+  });
+
+  describe('the long-time ramp below the short-time delay before the short-time pickup', () => {
+    // 800 A sensor, long-time 1 × I_n, 0.5 s at 6 × I_r, short-time 10 × I_r, 0.4 s flat (invented settings).
+    // Worked by hand with the I²t law t = t_LT · (6 · I_r / I)² and the common-practice tolerances:
+    // fast edge 0.9 · 0.5 = 0.45 s through 4800 A, short-time from 7200 A at 0.40 s;
+    // slow edge 1.2 · 0.5 = 0.60 s through 4800 A, short-time from 8800 A at 0.45 s.
+    const main = tripUnitSchema.parse({
+      kind: 'trip-unit',
+      sensor: 800,
+      longTime: { pickup: 1, delay: 0.5 },
+      shortTime: { pickup: 10, delay: 0.4 },
+    });
+    const fastRamp = (amps: number) => 0.45 * (4800 / amps) ** 2;
+    const slowRamp = (amps: number) => 0.6 * (4800 / amps) ** 2;
+
+    it('reads about 0.21 / 0.28 s at 7 kA, not the short-time 0.40 / 0.45 s', () => {
+      const band = tripUnitBand(main);
+      // 0.45 · (4800/7000)² = 0.45 · 0.470204 = 0.211592 s; 0.60 · 0.470204 = 0.282122 s.
+      assertInDelta(band.minTime(7000), 0.211592, 1e-5);
+      assertInDelta(band.maxTime(7000), 0.282122, 1e-5);
+      expect(longTimeRampBasis(main)).toMatch(/each function acts on its own/);
+    });
+
+    it('follows the ramp straight through the ramp-meets-delay points', () => {
+      const band = tripUnitBand(main);
+      const fastMeets = 4800 * Math.sqrt(0.45 / 0.4); // 5091.17 A, where the fast ramp reaches 0.40 s
+      const slowMeets = 4800 * Math.sqrt(0.6 / 0.45); // 5542.56 A, where the slow ramp reaches 0.45 s
+      assertInDelta(fastMeets, 5091.169, 1e-6);
+      assertInDelta(slowMeets, 5542.563, 1e-6);
+      for (const factor of [1 - 1e-6, 1, 1 + 1e-6, 1.1]) {
+        assertInDelta(band.minTime(fastMeets * factor), fastRamp(fastMeets * factor));
+        assertInDelta(band.maxTime(slowMeets * factor), slowRamp(slowMeets * factor));
+      }
+    });
+
+    it('is not raised by the short-time pickup on either side of it', () => {
+      const band = tripUnitBand(main);
+      for (const amps of [7200 * (1 - 1e-9), 7200, 7200 * (1 + 1e-9), 8000]) {
+        assertInDelta(band.minTime(amps), fastRamp(amps)); // 0.2 s at 7200 A, below the 0.40 s delay
+      }
+      for (const amps of [8800 * (1 - 1e-9), 8800, 8800 * (1 + 1e-9)]) {
+        assertInDelta(band.maxTime(amps), slowRamp(amps)); // 0.17851 s at 8800 A
+      }
+      assertInDelta(band.maxTime(8800), 0.178512, 1e-5);
+      // Far above: the fast ramp is 0.02592 s at 20 kA; the slow edge is floored at the 3-cycle clearing.
+      assertInDelta(band.minTime(20_000), 0.02592);
+      assertInDelta(band.maxTime(20_000), 3 / 60);
+      assertBandContract(band);
+    });
+
+    it('ends the ramp at the short-time pickup only when the unit says so, and still bounds it', () => {
+      const unit = { ...main, longTimeRamp: 'ends-at-short-time-pickup' as const };
+      const band = tripUnitBand(unit);
+      expect(longTimeRampBasis(unit)).toMatch(/ends at the short-time pickup/);
+      // Fast edge: the ramp to 7200 A, then held at its 0.2 s there (the earliest the unit may act above it).
+      assertInDelta(band.minTime(7000), 0.211592, 1e-5);
+      assertInDelta(band.minTime(7200), 0.2);
+      assertInDelta(band.minTime(10_000), 0.2);
+      // Slow edge: the ramp to where it meets 0.45 s (5542.56 A), then the short-time delay.
+      assertInDelta(band.maxTime(5000), slowRamp(5000));
+      assertInDelta(band.maxTime(7000), 0.45);
+      assertInDelta(band.maxTime(10_000), 0.45);
+      expect(band.diagnostics.join('\n')).toMatch(/long-time ramp is at 0\.2 s at the short-time pickup 7200 A/);
+      assertBandContract(band);
+    });
+
+    it('makes an upstream main overlap a feeder between about 5.9 and 7.3 kA', () => {
+      // Feeder (invented): 600 A sensor, long-time 0.5 s handed over at its short-time pickup, short-time
+      // 4 × I_r at 0.25 s flat (slow edge 0.30 s from 2640 A), instantaneous 11 × I_n (slow edge 7260 A).
+      const feeder = tripUnitBand(
+        tripUnitSchema.parse({
+          kind: 'trip-unit',
+          sensor: 600,
+          longTime: { pickup: 1, delay: 0.5 },
+          shortTime: { pickup: 4, delay: 0.25 },
+          instantaneous: { pickup: 11 },
+          longTimeRamp: 'ends-at-short-time-pickup',
+        }),
+      );
+      const intervals = findOverlaps(tripUnitBand(main), feeder, { toAmps: 12_000, margin: 0 });
+      const overlap = intervals.find((interval) => interval.status === 'overlap')!;
+      // The main's fast ramp reaches the feeder's 0.30 s at 4800 · √(0.45 / 0.30) = 5878.78 A.
+      assertInDelta(overlap.fromAmps, 4800 * Math.sqrt(0.45 / 0.3), 1e-5);
+      assertInDelta(overlap.toAmps, 7260, 1e-5);
+      // Below it the margin thins from where the ramp is 0.1 s above 0.30 s: 4800 · √(0.45 / 0.40) = 5091.17 A.
+      expect(intervals.slice(0, 3).map((interval) => interval.status)).toEqual(['selective', 'thin margin', 'overlap']);
+      assertInDelta(intervals[1].fromAmps, 4800 * Math.sqrt(0.45 / 0.4), 1e-5);
+    });
   });
 
   it('tripUnitBand starts current limiting at the instantaneous slow edge when flagged', () => {
@@ -173,7 +270,8 @@ describe('tripUnit', () => {
         { nil: undefined },
       ),
       instantaneous: fc.option(fc.double({ min: 2, max: 15, noNaN: true }), { nil: undefined }),
-      pickupTolerance: fc.double({ min: 0, max: 20, noNaN: true }),
+      pickupTolerance: fc.integer({ min: 0, max: 200 }).map((tenths) => tenths / 10),
+      longTimeRamp: fc.constantFrom('independent', 'ends-at-short-time-pickup'),
     });
     fc.assert(
       fc.property(
@@ -187,6 +285,7 @@ describe('tripUnit', () => {
             shortTime: s.shortTime,
             instantaneous: s.instantaneous === undefined ? undefined : { pickup: s.instantaneous },
             tolerance: { pickup: s.pickupTolerance },
+            longTimeRamp: s.longTimeRamp,
           });
           const band = tripUnitBand(unit);
           assertBandContract(band, currents);
