@@ -1,14 +1,86 @@
 import type { Motor } from '../study/index.ts';
+import { MOTOR_VOLTAGE_COLUMNS, TABLE_430_248, TABLE_430_250, type MotorCurrentTable } from './motorTables.ts';
+
+/** What `motorFullLoadOf` needs of a motor; `phases` defaults to 3. */
+export type MotorFullLoadInput = Pick<Motor, 'hp' | 'rating' | 'fullLoadAmps'> & { phases?: 1 | 3 };
+
+/** A motor's full-load current and where it came from, in words for work steps and curve notes. */
+export interface MotorFullLoad {
+  /** Full-load current (A). */
+  amps: number;
+  /** Its basis, e.g. "NFPA 70 Table 430.250, 15 hp at 460 V (12 hp taken at the next larger size)". */
+  basis: string;
+}
 
 /**
- * A motor's full-load current in amps at `volts` (line-to-line, three-phase): the nameplate value
- * when given; else from its kVA rating, `S / (√3 · V)`; else from horsepower taking 1 hp ≈ 1 kVA of
- * input for induction motors (common practice; NEC Table 430.250 values are close to it at 460 V).
+ * A motor's full-load current in amps on a bus of `volts` (line-to-line), first found of:
+ * 1. the nameplate `fullLoadAmps` (the motor's own current; NFPA 70 430.6(A)(2) uses it for overloads,
+ *    and the starting curve is compared with the overload device);
+ * 2. a kVA `rating`: `S / (√3 · V)`, or `S / V` single-phase;
+ * 3. horsepower in NFPA 70 Table 430.250 (three-phase) or 430.248 (single-phase), in the column
+ *    serving the bus (`MOTOR_VOLTAGE_COLUMNS`: 460 V for 480 V, 575 V for 600 V, 230 V for 240 V…);
+ *    between rows the next larger horsepower (common practice);
+ * 4. horsepower outside the tables (too large, or no column serves the bus): 1 hp ≈ 1 kVA of input
+ *    (common practice for induction motors).
  *
- * @example motorFullLoadAmps({ hp: 100, ... }, 460) // 125.5 A (table value 124 A, from memory)
+ * @example motorFullLoadOf({ hp: 100 }, 480).amps // 124 (Table 430.250, 460 V column)
  */
-export function motorFullLoadAmps(motor: Pick<Motor, 'hp' | 'rating' | 'fullLoadAmps'>, volts: number): number {
-  if (motor.fullLoadAmps !== undefined) return motor.fullLoadAmps;
-  const va = motor.rating ?? (motor.hp ?? 0) * 1000;
-  return va / (Math.sqrt(3) * volts);
+export function motorFullLoadOf(motor: MotorFullLoadInput, volts: number): MotorFullLoad {
+  const phases = motor.phases ?? 3;
+  const divisor = phases === 1 ? volts : Math.sqrt(3) * volts;
+  const formula = phases === 1 ? 'S / V' : 'S / (√3 · V)';
+  if (motor.fullLoadAmps !== undefined) return { amps: motor.fullLoadAmps, basis: 'nameplate' };
+  if (motor.rating !== undefined) {
+    return { amps: motor.rating / divisor, basis: `${formula} from ${motor.rating / 1000} kVA` };
+  }
+  const hp = motor.hp ?? 0;
+  const listed = tableFullLoadAmps(hp, volts, phases);
+  if (listed) {
+    const rounded = listed.hp === hp ? '' : ` (${hp} hp taken at the next larger size, common practice)`;
+    return {
+      amps: listed.amps,
+      basis: `NFPA 70 Table ${listed.table}, ${hpText(listed.hp)} hp at ${listed.column} V${rounded}`,
+    };
+  }
+  return {
+    amps: (hp * 1000) / divisor,
+    basis: `${formula} with 1 hp ≈ 1 kVA (common practice; NFPA 70 Table ${phases === 1 ? '430.248' : '430.250'} has no row or column for ${hp} hp at ${volts} V)`,
+  };
+}
+
+/**
+ * A motor's full-load current in amps at `volts` (see `motorFullLoadOf` for the order of sources).
+ * @example motorFullLoadAmps({ hp: 100 }, 460) // 124 A (NFPA 70 Table 430.250)
+ */
+export function motorFullLoadAmps(motor: MotorFullLoadInput, volts: number): number {
+  return motorFullLoadOf(motor, volts).amps;
+}
+
+/**
+ * The NFPA 70 table current for `hp` on a bus of `volts`: the column serving the bus and the
+ * smallest listed horsepower at or above `hp` with a value in that column; undefined when no column
+ * serves the bus or `hp` is above the column's last row.
+ *
+ * @example tableFullLoadAmps(12, 480, 3) // { amps: 21, hp: 15, column: 460, table: '430.250' }
+ */
+export function tableFullLoadAmps(
+  hp: number,
+  volts: number,
+  phases: 1 | 3,
+): { amps: number; hp: number; column: number; table: string } | undefined {
+  const table: MotorCurrentTable = phases === 1 ? TABLE_430_248 : TABLE_430_250;
+  const served = MOTOR_VOLTAGE_COLUMNS.find(({ from, to }) => volts >= from * 0.995 && volts <= to * 1.005);
+  const index = served ? table.volts.indexOf(served.column) : -1;
+  if (!served || index < 0 || !(hp > 0)) return undefined;
+  // A relative 1e-9 lets 0.333 hp entered as 1/3 match its row.
+  const row = table.rows.find(([rowHp, amps]) => rowHp >= hp * (1 - 1e-9) && Number.isFinite(amps[index]));
+  return row && { amps: row[1][index], hp: row[0], column: served.column, table: table.table };
+}
+
+/** Horsepower as the tables print it: ½, ¾, 1½, 7½, ⅙, ¼, ⅓ or a whole number. */
+function hpText(hp: number): string {
+  const fractions: Record<string, string> = { '0.5': '½', '0.75': '¾', '0.25': '¼', '1.5': '1½', '7.5': '7½' };
+  if (Math.abs(hp - 1 / 6) < 1e-9) return '⅙';
+  if (Math.abs(hp - 1 / 3) < 1e-9) return '⅓';
+  return fractions[String(hp)] ?? String(hp);
 }

@@ -175,6 +175,10 @@ export function createStudySchema(frequency = 60) {
       hp: z.number().positive().optional().meta({ description: 'rated horsepower (or give rating)' }),
       rating: quantityField('power', { plainUnit: 'kVA', min: 0, exclusiveMin: true }).optional(),
       fullLoadAmps: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+      phases: z
+        .union([z.literal(1), z.literal(3)])
+        .default(3)
+        .meta({ description: 'three-phase (NFPA 70 Table 430.250) or single-phase (Table 430.248) motor' }),
       contribution: z
         .number()
         .positive()

@@ -1,5 +1,5 @@
 import { InputError, expectedGot } from '../errors.ts';
-import { motorFullLoadAmps } from '../fault/motorFullLoad.ts';
+import { motorFullLoadOf } from '../fault/motorFullLoad.ts';
 import { significant } from '../quantity/index.ts';
 import type { Motor } from '../study/index.ts';
 import { elementPath, requireNumberAbove } from './inputs.ts';
@@ -30,10 +30,11 @@ export interface MotorStarting {
 }
 
 /**
- * A motor's starting curve at `volts` (REFERENCE §5.7, common practice), in the order of time:
+ * A motor's starting curve at `volts` (common practice, as IEEE 3004.8 and IEEE 242 draw it), in the order of time:
  * the asymmetrical current `asymmetryFactor × LRA` from 0.01 s to 0.1 s, the locked-rotor current
  * `LRA = lockedRotor × FLA` from 0.1 s to the acceleration time, then `FLA × serviceFactor` up to 1000 s.
- * FLA comes from `motorFullLoadAmps` (nameplate, else kVA, else hp). The motor's device must stay
+ * FLA comes from `motorFullLoadOf` (nameplate, else kVA, else hp through NFPA 70 Table 430.250 or
+ * 430.248), so the locked-rotor current follows the table too. The motor's device must stay
  * above and to the right of it.
  *
  * @param volts the motor's bus voltage (V, line-to-line).
@@ -45,7 +46,8 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
   requireNumberAbove('volts', volts, 0, 'a voltage in V');
   requireNumberAbove('options.serviceFactor', serviceFactor, 1, 'a service factor', true);
   requireNumberAbove('options.asymmetryFactor', asymmetryFactor, 1, 'a multiple of locked-rotor current', true);
-  const fullLoadAmps = motorFullLoadAmps(motor, volts);
+  const fullLoad = motorFullLoadOf(motor, volts);
+  const fullLoadAmps = fullLoad.amps;
   if (!(fullLoadAmps > 0 && Number.isFinite(fullLoadAmps))) {
     throw new InputError(
       `${path}.fullLoadAmps`,
@@ -101,10 +103,7 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
       amps: Float64Array.from(distinct, ([a]) => a),
       seconds: Float64Array.from(distinct, ([, t]) => t),
       notes: [
-        `FLA ${significant(fullLoadAmps, 6)} A at ${significant(volts, 6)} V` +
-          (motor.fullLoadAmps === undefined
-            ? ' (inferred from the rating; NEC tables govern conductor sizing)'
-            : ' (nameplate)') +
+        `FLA ${significant(fullLoadAmps, 6)} A at ${significant(volts, 6)} V (${fullLoad.basis})` +
           (serviceFactor === 1
             ? ''
             : `; running current × service factor ${serviceFactor} = ${significant(runningAmps, 6)} A`),

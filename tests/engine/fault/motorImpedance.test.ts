@@ -17,9 +17,9 @@ describe('motorImpedanceOf', () => {
     assertInDelta(480 / (Math.sqrt(3) * Math.hypot(z.r, z.x)), 1804, 1e-12);
   });
 
-  it('a 150 hp motor at 480 V: FLA from 1 hp ≈ 1 kVA (common practice), 4 × FLA', () => {
+  it('a 150 hp motor at 480 V: FLA 180 A from NFPA 70 Table 430.250 (460 V column), 4 × FLA', () => {
     const { amps, steps } = motorImpedanceOf({ ...base, hp: 150 }, 480);
-    assertInDelta(amps, (4 * 150e3) / (Math.sqrt(3) * 480), 1e-12);
+    assertInDelta(amps, 4 * 180, 1e-12);
     expect(steps[0].source).toMatch(/common practice/);
     expect(steps[0].label).toMatch(/M \(150 hp\)/);
   });

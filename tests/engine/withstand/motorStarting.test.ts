@@ -7,11 +7,12 @@ import { motorOf } from './fixtures.ts';
 
 describe('motorStartingOf', () => {
   it('has the expected defaults', () => {
-    // REFERENCE §5.7 (common practice): LRA 6 × FLA without data, 1.6 × LRA asymmetrical, service factor 1.0
+    // Common practice: LRA 6 × FLA without data, 1.6 × LRA asymmetrical, service factor 1.0
     expect(STARTING_TIMES).toEqual({ halfCycle: 0.01, asymmetricalUntil: 0.1, longest: 1000 });
     const { curve, lockedRotor, fullLoadAmps } = motorStartingOf(motorOf(), 460);
-    const fla = 100_000 / (Math.sqrt(3) * 460); // motorFullLoadAmps from hp: 125.51 A
+    const fla = 124; // 100 hp at 460 V: NFPA 70 Table 430.250 (2008 edition, confirmed against a reproduction)
     assertInDelta(fullLoadAmps, fla, 1e-12);
+    expect(curve.notes[0]).toMatch(/FLA 124 A at 460 V \(NFPA 70 Table 430\.250, 100 hp at 460 V\)/);
     expect(Array.from(curve.seconds)).toEqual([0.01, 0.1, 0.1, 5, 5, 1000]);
     const expected = [1.6 * 6 * fla, 1.6 * 6 * fla, 6 * fla, 6 * fla, fla, fla];
     curve.amps.forEach((amps, i) => assertInDelta(amps, expected[i], 1e-12));
@@ -21,8 +22,8 @@ describe('motorStartingOf', () => {
   });
 
   it('motorStartingOf(§7.9 motor) draws LRA 789.46 A to the acceleration time and 1263.1 A asymmetrical', () => {
-    // REFERENCE §7.9: 100 hp 460 V, FLC 124 A (NEC Table 430.250, from memory), code G → LRA 789.46 A,
-    // 1.6 × LRA = 1263.1 A (common practice)
+    // 100 hp 460 V, FLC 124 A (NFPA 70 Table 430.250), code G (NEC Table 430.7(B), from memory) → LRA
+    // 6.29 · 100 · 1000 / (√3 · 460) = 789.46 A; 1.6 × LRA = 1263.1 A (common practice)
     const motor = motorOf({ fullLoadAmps: 124, accelerationTime: 8 });
     const { curve, lockedRotor } = motorStartingOf(motor, 460, {
       lockedRotorAmps: lockedRotorAmpsFromCode('G', 100, 460),
@@ -36,6 +37,13 @@ describe('motorStartingOf', () => {
     expect(curve.amps[4]).toBe(124);
     assertInDelta(lockedRotor.amps / 124, 6.4, 1e-2); // "≈ 6.4 × FLC"
     expect(curve.notes.some((note) => /nameplate/.test(note))).toBe(true);
+  });
+
+  it('motorStartingOf takes a small motor FLA and LRA from NFPA 70 Table 430.250, not 1 kVA per hp', () => {
+    // 5 hp at 480 V: the 460 V column lists 7.6 A (2008 edition, confirmed); 1 kVA/hp would give 6.01 A.
+    const { fullLoadAmps, lockedRotor } = motorStartingOf(motorOf({ hp: 5 }), 480);
+    expect(fullLoadAmps).toBe(7.6);
+    assertInDelta(lockedRotor.amps, 6 * 7.6, 1e-12);
   });
 
   it('motorStartingOf multiplies the running current by the service factor', () => {
