@@ -9,7 +9,7 @@ describe('discern check', () => {
     expect(code).toBe(0);
     expect(stdout).toMatch(/^Harrowmere Cold Store — selective scheme\n/);
     expect(stdout).toMatch(/\n0 fail, \d+ warning, \d+ info, \d+ ok\n/);
-    expect(stdout).toContain(CAUTION);
+    expect(stdout.replace(/\s+/g, ' ')).toContain(CAUTION);
     expect(stdout).not.toMatch(/^ok /m);
   });
 
@@ -37,6 +37,51 @@ describe('discern check', () => {
     const json = JSON.parse(stdout);
     expect(json.findings.length).toBeGreaterThan(10);
     expect(json.pairs[0]).toMatchObject({ upstream: 'R-T1', downstream: 'MAIN' });
+  });
+
+  it('fails a 10 kA breaker on a 45 kA switchboard (NFPA 70 110.9) with exit 1', async () => {
+    // 45 kA at X/R 8 against a UL 489 10 kA rating (PF 50 %, X/R √3): duty 1.4404 × 45 kA = 64.8 kA (python3).
+    const { code, stdout } = await runVerb(['tests/fixtures/studies/interrupting-duty.json'], checkCommand);
+    expect(code).toBe(1);
+    expect(stdout).toMatch(/^fail\s+Lighting feeder 100 A: rated 10 kA, duty 64\.8 kA\s+64\.8 kA @ 480 V/m);
+    expect(stdout).toMatch(/\ncounts: 1 fail, 0 thin margin, 0 not provable, 0 warning, \d+ info, \d+ ok\n$/);
+  });
+
+  it('ends with one line counting each class, and exits 1 under --strict on thin margins or unprovable regions', async () => {
+    // The full demo has regions not provable from curves and no failures: 0 by default, 1 with --strict.
+    const plain = await runVerb(['demo/harrowmere-full.json'], checkCommand);
+    expect(plain.code).toBe(0);
+    const counts = plain.stdout.trimEnd().split('\n').at(-1)!;
+    const match = /^counts: 0 fail, (\d+) thin margin, (\d+) not provable, (\d+) warning, (\d+) info, (\d+) ok$/.exec(
+      counts,
+    );
+    expect(match).not.toBeNull();
+    expect(Number(match![2])).toBeGreaterThan(0);
+    const strict = await runVerb(['demo/harrowmere-full.json', '--strict'], checkCommand);
+    expect(strict.code).toBe(1);
+    // The selective demo has neither: --strict still passes it.
+    const selective = await runVerb(['demo/harrowmere-selective.json', '--strict'], checkCommand);
+    expect(selective.code).toBe(0);
+    expect(selective.stdout).toMatch(
+      /\ncounts: 0 fail, 0 thin margin, 0 not provable, \d+ warning, \d+ info, \d+ ok\n$/,
+    );
+    // The classes add up to the findings.
+    const json = JSON.parse((await runVerb(['demo/harrowmere-full.json', '--json'], checkCommand)).stdout);
+    const sum = match!.slice(1).reduce((total, n) => total + Number(n), 0) + 0;
+    expect(sum).toBe(json.findings.length);
+  });
+
+  it('keeps every line within 120 columns, wrapping long finding titles and explanations', async () => {
+    const { stdout } = await runVerb(['demo/harrowmere-overlap.json'], checkCommand);
+    const widest = Math.max(...stdout.split('\n').map((line) => [...line].length));
+    expect(widest).toBeLessThanOrEqual(120);
+    expect(stdout).toMatch(/\n {10}\S/); // a wrapped title continues under its column
+  });
+
+  it('lists --strict in its help', async () => {
+    const { code, stdout } = await runVerb(['--help'], checkCommand);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/--strict\s+also exit 1 on a thin margin or a region not provable from curves/);
   });
 
   it('exits 2 with one line naming the field for a bad study, a bad report name or a missing file', async () => {

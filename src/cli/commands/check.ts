@@ -1,20 +1,37 @@
 import { analyseStudy } from '../../engine/analysis.ts';
 import { CAUTION } from '../../engine/caution.ts';
 import { expectedGot, InputError } from '../../engine/errors.ts';
-import { csvReport, findingRows, jsonReport, markdownReport, summaryText } from '../../engine/report/index.ts';
+import {
+  classesText,
+  csvReport,
+  findingClassesOf,
+  findingRows,
+  jsonReport,
+  markdownReport,
+  summaryText,
+} from '../../engine/report/index.ts';
 import { flagText, parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
 import { loadStudyFile } from '../studyFile.ts';
-import { formatTable } from '../table.ts';
+import { formatTable, wrapText } from '../table.ts';
 
-const HELP = `discern check <study.json> — every pair, transformer, cable, motor and code check
+/** Widest line the findings table and details print, in characters. */
+const WIDTH = 120;
+
+const HELP = `discern check <study.json> — every pair, transformer, cable, motor, duty, sensitivity and code check
 
   --json            print the findings, pairs and fault levels as JSON
   --report FILE     also write a report: FILE ending .md (Markdown) or .csv
   --all             list passing checks too (default: only what needs attention, then a count)
+  --strict          also exit 1 on a thin margin or a region not provable from curves
+
+The last line counts each class for a review script:
+  counts: F fail, T thin margin, N not provable, W warning, I info, K ok
 
 Exit code: 0 when nothing fails (every pair selective or only thin / not provable from curves,
-every transformer and cable protected, code limits met); 1 when any check fails; 2 on bad input.
+every transformer and cable protected, code limits and interrupting ratings met, every device
+sensitive); with --strict, 0 only when there is also no thin margin and nothing unprovable;
+1 otherwise; 2 on bad input.
 `;
 
 /**
@@ -28,7 +45,13 @@ export const checkCommand: Command = {
   summary: 'coordination, transformer, cable, motor and NEC checks with a findings report',
   help: HELP,
   async run(args, io) {
-    const parsed = parseArgs(args, { json: 'switch', report: 'value', all: 'switch', help: 'switch' });
+    const parsed = parseArgs(args, {
+      json: 'switch',
+      report: 'value',
+      all: 'switch',
+      strict: 'switch',
+      help: 'switch',
+    });
     if (parsed.flags.has('help')) {
       io.stdout(HELP);
       return 0;
@@ -50,15 +73,33 @@ export const checkCommand: Command = {
       const table = formatTable(
         ['severity', 'finding', 'current range', 'worst margin'],
         rows.map((row) => [row.severity, row.title, row.range, row.worst]),
+        [],
+        { maxWidth: WIDTH, wrapColumn: 1 },
       );
       const details = rows
         .filter((row) => row.severity === 'fail' || row.severity === 'warning')
-        .map((row) => `- ${row.title}\n  ${row.explanation}${row.suggestion ? `\n  → ${row.suggestion}` : ''}`)
+        .map((row) =>
+          [
+            ...indented('- ', row.title),
+            ...indented('  ', row.explanation),
+            ...(row.suggestion ? indented('  → ', row.suggestion) : []),
+          ].join('\n'),
+        )
         .join('\n');
       io.stdout(
-        `${study.name}\n${rows.length > 0 ? `${table}\n` : ''}\n${details ? `${details}\n\n` : ''}${summaryText(analysis)}${report ? `; report written to ${report}` : ''}\n${CAUTION}\n`,
+        `${study.name}\n${rows.length > 0 ? `${table}\n` : ''}\n${details ? `${details}\n\n` : ''}${summaryText(analysis)}${report ? `; report written to ${report}` : ''}\n${indented('', CAUTION).join('\n')}\n`,
       );
     }
-    return analysis.counts.fail > 0 ? 1 : 0;
+    const classes = findingClassesOf(analysis);
+    // The counts line ends the output so a review script reads it from the last line, JSON or not.
+    if (!parsed.flags.has('json')) io.stdout(`${classesText(classes)}\n`);
+    const doubtful = classes.thinMargin + classes.notProvable;
+    return classes.fail > 0 || (parsed.flags.has('strict') && doubtful > 0) ? 1 : 0;
   },
 };
+
+/** Text wrapped to the output width, its first line after `lead` and the rest indented to match. */
+function indented(lead: string, text: string): string[] {
+  const pad = ' '.repeat(lead.length);
+  return wrapText(text, WIDTH - lead.length).map((line, i) => `${i === 0 ? lead : pad}${line}`);
+}

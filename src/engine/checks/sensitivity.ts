@@ -25,6 +25,8 @@ export interface SensitivityCase {
   clearingTime: number;
   /** Whether a ground-fault element of the device acts on this case. */
   groundElement: boolean;
+  /** Whether a transformer lies between the device and the fault. */
+  acrossTransformer: boolean;
 }
 
 /**
@@ -104,7 +106,9 @@ export function sensitivityCasesOf(
       if (!(deviceAmps > 0)) continue;
       const groundElement = fault === 'line-to-ground' && groundBand !== undefined && between.length === 0;
       const band: Band = groundElement ? fastestOf([phaseBand, groundBand]) : phaseBand;
-      const candidate = { fault, busId, boltedAmps, deviceAmps, clearingTime: band.maxTime(deviceAmps), groundElement };
+      const clearingTime = band.maxTime(deviceAmps);
+      const acrossTransformer = between.length > 0;
+      const candidate = { fault, busId, boltedAmps, deviceAmps, clearingTime, groundElement, acrossTransformer };
       if (!least || worse(candidate, least)) least = candidate;
     }
     if (least) cases.push(least);
@@ -137,10 +141,11 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   const describe = (c: SensitivityCase) => {
     const bus = network.buses.get(c.busId)!;
     const at = `${formatAmps(c.boltedAmps, 3)} ${c.fault} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
+    const arcingText = settings.arcingFactor === undefined ? '' : ' as an arcing fault';
     const through =
-      bus.voltage === location.voltage && c.deviceAmps === c.boltedAmps
+      c.deviceAmps === c.boltedAmps
         ? ''
-        : `, ${formatAmps(c.deviceAmps, 3)} through ${name} at ${formatVolts(location.voltage)}`;
+        : `, ${formatAmps(c.deviceAmps, 4)} through ${name} at ${formatVolts(location.voltage)}${arcingText}`;
     return `${at}${through}${c.groundElement ? ', ground-fault element included' : ''}`;
   };
   const rangeFor = (c: SensitivityCase) =>
@@ -176,14 +181,22 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
       explanation: never
         ? `For ${describe(c)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
         : `For ${describe(c)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
-      suggestion:
-        c.fault === 'line-to-ground'
-          ? `Lower ${name}'s pickup or delay, or add a ground-fault element, so it clears ${formatAmps(c.deviceAmps, 3)} within ${formatSeconds(settings.maxTime)}.`
-          : `Lower ${name}'s pickup or delay (short-time or instantaneous) so it clears ${formatAmps(c.deviceAmps, 3)} within ${formatSeconds(settings.maxTime)}.`,
+      suggestion: remedyOf(device, c, settings.maxTime),
       basis,
       referenceVolts: location.voltage,
     };
   });
+}
+
+/** What to change so the device clears the case in time. */
+function remedyOf(device: Device, c: SensitivityCase, maxTime: number): string {
+  const name = nameOf(device);
+  const goal = `so it clears ${formatAmps(c.deviceAmps, 3)} within ${formatSeconds(maxTime)}`;
+  if (device.characteristic.kind === 'fuse') return `Use a smaller fuse or a faster fuse class ${goal}.`;
+  if (c.acrossTransformer)
+    return `Lower ${name}'s pickup or delay ${goal}, or protect the transformer's secondary conductors with a device of their own.`;
+  if (c.fault === 'line-to-ground') return `Lower ${name}'s pickup or delay, or add a ground-fault element, ${goal}.`;
+  return `Lower ${name}'s pickup or delay (short-time or instantaneous) ${goal}.`;
 }
 
 /** Whether case `a` is harder on the device than `b`: slower to clear, or at equal time, less current. */

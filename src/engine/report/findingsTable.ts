@@ -73,3 +73,38 @@ export function summaryText(analysis: Analysis): string {
   const { counts } = analysis;
   return `${counts.fail} fail, ${counts.warning} warning, ${counts.info} info, ${counts.ok} ok`;
 }
+
+/** Findings counted by class, for a review script: failures, the two kinds of doubtful interval, other warnings, advice, passes. */
+export interface FindingClasses {
+  fail: number;
+  /** Coordination intervals selective by less than the thin-margin allowance. */
+  thinMargin: number;
+  /** Coordination intervals where both devices act within the half-cycle: curves cannot prove the order. */
+  notProvable: number;
+  /** Every other warning. */
+  warning: number;
+  info: number;
+  ok: number;
+}
+
+/**
+ * Counts an analysis's findings by class: `fail`, thin margin, not provable from curves, other
+ * warnings, info and ok (each finding in exactly one class).
+ *
+ * @example findingClassesOf(analysis).thinMargin // 3
+ */
+export function findingClassesOf(analysis: Analysis): FindingClasses {
+  const classes: FindingClasses = { fail: 0, thinMargin: 0, notProvable: 0, warning: 0, info: 0, ok: 0 };
+  for (const finding of analysis.findings) {
+    if (finding.severity === 'warning' && finding.status === 'thin margin') classes.thinMargin++;
+    else if (finding.severity === 'warning' && finding.status === 'not provable from curves') classes.notProvable++;
+    else classes[finding.severity]++;
+  }
+  return classes;
+}
+
+/** "counts: 2 fail, 3 thin margin, 1 not provable, 4 warning, 1 info, 30 ok" — one line a review script can read. */
+export function classesText(classes: FindingClasses): string {
+  const { fail, thinMargin, notProvable, warning, info, ok } = classes;
+  return `counts: ${fail} fail, ${thinMargin} thin margin, ${notProvable} not provable, ${warning} warning, ${info} info, ${ok} ok`;
+}

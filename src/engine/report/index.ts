@@ -1,5 +1,14 @@
-export { findingRows, rowOf, rangeText, worstText, summaryText, SEVERITY_ORDER } from './findingsTable.ts';
-export type { FindingRow } from './findingsTable.ts';
+export {
+  findingRows,
+  rowOf,
+  rangeText,
+  worstText,
+  summaryText,
+  findingClassesOf,
+  classesText,
+  SEVERITY_ORDER,
+} from './findingsTable.ts';
+export type { FindingRow, FindingClasses } from './findingsTable.ts';
 export { markdownReport } from './markdown.ts';
 export { csvReport } from './csv.ts';
 export { jsonReport } from './json.ts';
