@@ -22,10 +22,35 @@ function strictBuildPolicy(): Plugin {
   };
 }
 
+/**
+ * The Content-Security-Policy sent as a header. It repeats the page's meta policy and adds what only
+ * a header can carry: `frame-ancestors 'none'` (no other site may frame the workbench). The dev
+ * server keeps inline styles and the WebSocket that hot reload needs; `vite preview` serves the
+ * built page with the strict policy.
+ */
+const POLICY = [
+  "default-src 'self'",
+  "script-src 'self'",
+  "style-src 'self'",
+  "img-src 'self' data: blob:",
+  "connect-src 'self'",
+  "worker-src 'self' blob:",
+  "object-src 'none'",
+  "base-uri 'none'",
+  "form-action 'none'",
+  "frame-ancestors 'none'",
+].join('; ');
+const DEV_POLICY = POLICY.replace("style-src 'self'", "style-src 'self' 'unsafe-inline'").replace(
+  "connect-src 'self'",
+  "connect-src 'self' ws:",
+);
+
 export default defineConfig({
   plugins: [svelte(), strictBuildPolicy()],
   resolve: { alias: { html2canvas: absent, dompurify: absent, canvg: absent, 'fast-png': absent } },
   build: { outDir: 'dist', target: 'es2022', chunkSizeWarningLimit: 800 },
+  server: { headers: { 'Content-Security-Policy': DEV_POLICY } },
+  preview: { headers: { 'Content-Security-Policy': POLICY } },
   worker: {
     format: 'es',
     // The checks' worker gets parsed studies, so it needs no schema: the engine builds its zod schemas

@@ -148,8 +148,9 @@ describe('the workbench in Chromium', () => {
     await page.waitForTimeout(400);
     await page.reload();
     await page.getByTestId('sheet-svg').waitFor();
-    await expect(page.getByTestId('notice').textContent()).resolves.toMatch(
-      /^Recovered the unsaved study ".+" kept at /,
+    await page.getByTestId('recovery-restore').first().click();
+    await expect(page.getByTestId('recovered').textContent()).resolves.toMatch(
+      /^\s*Recovered the unsaved study ".+" kept at /,
     );
     await page.getByTestId('tree-device-MAIN').click();
     await expect(page.getByTestId(delayField).inputValue()).resolves.toBe('0.25');

@@ -1,7 +1,26 @@
-export { AUTOSAVE_KEY, clearAutosave, readAutosave, writeAutosave } from './autosave.ts';
-export type { AutosaveRecord, StorageLike } from './autosave.ts';
+export {
+  AUTOSAVE_PREFIX,
+  AUTOSAVE_SLOTS,
+  LEGACY_AUTOSAVE_KEY,
+  nameOf,
+  needsOffer,
+  readKept,
+  refusalOf,
+  StudyKeeper,
+} from './autosave.ts';
+export type {
+  AutosaveRecord,
+  KeepOutcome,
+  KeptProblem,
+  KeptStudies,
+  KeptVersion,
+  StaleMark,
+  StorageLike,
+} from './autosave.ts';
 export { installBenchHook } from './benchHook.ts';
 export type { BenchHook } from './benchHook.ts';
+export { builtStudyOf, documentOfText, networkOrUndefined, readingOf } from './builtStudy.ts';
+export type { BuildOutcome, BuiltStudy, StudyReading } from './builtStudy.ts';
 export { CAUTION } from './caution.ts';
 export { pointsTargetsOf, previewTablesOf, withPoints } from './csvImport.ts';
 export type { PointsTarget } from './csvImport.ts';
@@ -20,7 +39,11 @@ export type { HandlePlacement, HandleSettings } from './handles.ts';
 export { bandsOf, findingCountsOf, idSetOf, lookupOf } from './lookups.ts';
 export type { FindingCount } from './lookups.ts';
 export { newStudyDocument, newViewOf } from './newItems.ts';
+export { idleScheduler } from './idle.ts';
+export type { IdleHost, Scheduler } from './idle.ts';
 export { csvCell, probesCsv } from './probeCsv.ts';
+export { alsoRemoved, removalOf, withoutRemoval } from './removal.ts';
+export type { RemovableKind, Removal } from './removal.ts';
 export { runExport } from './runExport.ts';
 export { COLLECTION_OF, parseProblemPath, pathOfSelection, selectionOfPath } from './selection.ts';
 export type { ItemKind, Selection } from './selection.ts';
@@ -28,7 +51,7 @@ export { sheetGuideOf } from './sheetGuide.ts';
 export type { GuideStep } from './sheetGuide.ts';
 export { scaleValue, stepValue } from './stepValue.ts';
 export type { StepOptions } from './stepValue.ts';
-export { flattenTree, systemTreeOf } from './systemTree.ts';
-export type { TreeNode } from './systemTree.ts';
+export { flattenTree, rowsOf, systemRowsOf, systemTreeOf } from './systemTree.ts';
+export type { SystemRow, TreeNode } from './systemTree.ts';
 export { freeDeviceId, templateChoices } from './templates.ts';
 export type { TemplateChoice } from './templates.ts';

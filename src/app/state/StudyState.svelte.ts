@@ -1,16 +1,19 @@
-import { readStudy, type Study, type StudyInput, type StudyProblem } from '../../engine/study/index.ts';
-import { networkOf, type Network } from '../../engine/network/index.ts';
+import type { Study, StudyInput, StudyProblem } from '../../engine/study/index.ts';
+import type { Network } from '../../engine/network/index.ts';
 import { History } from './History.svelte.ts';
+import { builtStudyOf, documentOfText, networkOrUndefined, readingOf, type BuiltStudy } from '../lib/builtStudy.ts';
+import { removalOf, withoutRemoval } from '../lib/removal.ts';
 import { withItemAdded, withValueAt, withoutItemAt, valueAt, type DocumentPath } from '../lib/documentPath.ts';
 import { pathOfSelection, type Selection } from '../lib/selection.ts';
-import {
-  newStudyDocument,
-  newViewOf,
-  withNewBranch,
-  withNewMotor,
-  withoutDevice,
-  withoutMotor,
-} from '../lib/newItems.ts';
+import { newStudyDocument, newViewOf, withNewBranch, withNewMotor } from '../lib/newItems.ts';
+
+/** A study brought back from the browser's kept copies (shown in a banner until saved or replaced). */
+export interface RecoveredFrom {
+  /** When the copy was kept (ISO time). */
+  savedAt: string;
+  /** How many problems it had when it was restored. */
+  problems: number;
+}
 
 /**
  * The study being worked on: the document exactly as the user wrote it (so saving round-trips
@@ -32,12 +35,18 @@ export class StudyState {
   selection: Selection | undefined = $state();
   /** Problems of a file that was refused (the current study stays as it was). */
   refused: { fileName: string; problems: StudyProblem[] } | undefined = $state.raw();
+  /** Set while the study on screen is one restored from a kept copy and not yet saved or replaced. */
+  recovered: RecoveredFrom | undefined = $state.raw();
   #lastGood: Study | undefined;
+  /** The last study built whole before it was shown (a load reuses its reading and network). */
+  #built: BuiltStudy | undefined;
 
   /** The document being edited (file form). */
   readonly document = $derived.by(() => this.history.current);
-  /** The document read with the engine's schema and tree rules. */
-  readonly reading = $derived.by(() => readStudy(this.document));
+  /** The document read with the engine's schema and tree rules (never throws: a failure is a problem). */
+  readonly reading = $derived.by(() =>
+    this.#built?.document === this.document ? this.#built.reading : readingOf(this.document),
+  );
   /** Problems of the document as it stands (empty when it is valid). */
   readonly problems = $derived.by(() => this.reading.problems);
   /** The parsed study: the current document's, or the last valid one while it has problems. */
@@ -46,7 +55,11 @@ export class StudyState {
     return this.reading.study ?? this.#lastGood;
   });
   /** The radial tree of `study`. */
-  readonly network: Network | undefined = $derived.by(() => (this.study ? networkOf(this.study) : undefined));
+  readonly network: Network | undefined = $derived.by(() => {
+    const study = this.study;
+    if (!study) return undefined;
+    return this.#built?.reading.study === study ? this.#built.network : networkOrUndefined(study);
+  });
   /** The view on the sheet (the chosen one, else the first). */
   readonly view = $derived.by(() => {
     const views = this.study?.views ?? [];
@@ -87,30 +100,76 @@ export class StudyState {
   }
 
   /**
-   * Opens a study from text. A file with problems is refused: `refused` lists them and the
-   * current study, its history and its selection stay untouched. A good file replaces the study
-   * once `confirmDiscard` (asked only then) agrees. Returns true when opened.
+   * Opens a study from text, all or nothing: the whole new study (reading, network, tree, fault
+   * levels, bands) is built first and only then shown. A file with problems, or one that cannot be
+   * built, is refused: `refused` says why and the current study, its history and its selection stay
+   * untouched. A good file replaces the study once `confirmDiscard` (asked only then) agrees.
+   * Returns true when opened.
    */
   open(text: string, fileName: string, options: { confirmDiscard?: () => boolean } = {}): boolean {
-    const { study, problems } = readStudy(text);
-    if (!study) {
-      this.refused = { fileName, problems };
+    const document = documentOfText(text);
+    const built = builtStudyOf(document ?? text);
+    if (!built.ok || document === undefined) {
+      this.refused = { fileName, problems: built.ok ? [] : built.problems };
       return false;
     }
     // Only a good file can replace the study, so only then is there anything to confirm.
     if (options.confirmDiscard && !options.confirmDiscard()) return false;
-    this.load(JSON.parse(text) as StudyInput, fileName);
+    this.#show(built.value, fileName, {});
     return true;
   }
 
-  /** Replaces the study with a valid document (a demo, a recovered autosave, a new study). */
-  load(document: StudyInput, fileName?: string, options: { unsaved?: boolean; viewId?: string } = {}): void {
+  /**
+   * Replaces the study with a valid document (a demo, a new study), built whole first. A document
+   * that cannot be built is refused like a file (`refused`, under `fileName` or its name) and the
+   * current study stays. Returns true when shown.
+   */
+  load(document: StudyInput, fileName?: string, options: { unsaved?: boolean; viewId?: string } = {}): boolean {
+    const built = builtStudyOf(document);
+    if (!built.ok) {
+      this.refused = { fileName: fileName ?? String(document?.name ?? 'the study'), problems: built.problems };
+      return false;
+    }
+    this.#show(built.value, fileName, options);
+    return true;
+  }
+
+  /**
+   * Brings back a kept copy exactly as it was kept, problems and all (a field cleared to retype it
+   * stays cleared, and the problems bar says so). A copy that reads as a study is built whole first;
+   * when that fails the current study stays and `refused` says why. Returns true when shown.
+   */
+  restore(
+    document: StudyInput,
+    kept: { fileName?: string; viewId?: string; unsaved: boolean; savedAt: string },
+  ): boolean {
+    const built = builtStudyOf(document);
+    const reading = built.ok ? built.value : undefined;
+    const hasProblems = !built.ok && built.problems.length > 0 && !built.failed;
+    if (!reading && !hasProblems) {
+      this.refused = { fileName: kept.fileName ?? 'the kept copy', problems: built.ok ? [] : built.problems };
+      return false;
+    }
+    this.#show(reading ?? { document, reading: { problems: built.ok ? [] : built.problems } }, kept.fileName, {
+      unsaved: kept.unsaved,
+      viewId: kept.viewId,
+    });
+    this.recovered = { savedAt: kept.savedAt, problems: reading ? 0 : this.problems.length };
+    return true;
+  }
+
+  /** Swaps in a study built whole: document, history, file name, view, selection, in one step. */
+  #show(built: BuiltStudy, fileName: string | undefined, options: { unsaved?: boolean; viewId?: string }): void {
+    this.#built = built;
+    this.#lastGood = built.reading.study;
+    const document = built.document;
     this.history.reset(document);
     this.savedDocument = options.unsaved ? ({ ...document } as StudyInput) : document;
     this.fileName = fileName;
     this.viewId = options.viewId;
     this.selection = undefined;
     this.refused = undefined;
+    this.recovered = undefined;
   }
 
   /** Starts an empty study: an infinite source feeding one 480 V bus. */
@@ -122,6 +181,7 @@ export class StudyState {
   markSaved(fileName: string): void {
     this.savedDocument = this.document;
     this.fileName = fileName;
+    this.recovered = undefined;
   }
 
   /** Adds a device to the current view (when it is not on it yet). */
@@ -169,13 +229,14 @@ export class StudyState {
     if (added) this.selection = { kind: 'motor', id: added.id };
   }
 
-  /** Deletes a device (and takes it off every view), or a motor with its device. */
+  /**
+   * Deletes a bus, transformer, cable, motor or device with everything it takes (its device, what
+   * hangs below, its places on views: see `removalOf`), as one undo step.
+   */
   deleteItem(selection: Selection): void {
-    if (selection.kind === 'device')
-      this.history.commit(withoutDevice(this.document, selection.id), `delete ${selection.id}`);
-    else if (selection.kind === 'motor')
-      this.history.commit(withoutMotor(this.document, selection.id), `delete ${selection.id}`);
-    else return;
+    const removal = removalOf(this.document, selection);
+    if (!removal) return;
+    this.history.commit(withoutRemoval(this.document, removal), `delete ${selection.kind} ${selection.id}`);
     this.selection = undefined;
   }
 

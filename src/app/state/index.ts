@@ -1,5 +1,7 @@
 export { AnalysisState } from './AnalysisState.svelte.ts';
 export type { CheckRunner } from './AnalysisState.svelte.ts';
+export { AutosaveState } from './AutosaveState.svelte.ts';
+export type { AutosaveStatus } from './AutosaveState.svelte.ts';
 export { getStudyContext, setStudyContext } from './context.ts';
 export type { StudyContext } from './context.ts';
 export { History } from './History.svelte.ts';
@@ -7,3 +9,4 @@ export type { CommitOptions } from './History.svelte.ts';
 export { ProbeState } from './ProbeState.svelte.ts';
 export { FIGURE_SIZE, SheetState } from './SheetState.svelte.ts';
 export { StudyState } from './StudyState.svelte.ts';
+export type { RecoveredFrom } from './StudyState.svelte.ts';

@@ -1,4 +1,5 @@
 // Runs every check of a study off the main thread and posts the findings back as plain data.
+import { SCHEMA_SETTINGS } from '../lib/jitlessSchemas.ts';
 import { analyseStudy } from '../../engine/analysis.ts';
 import type { AnalyseReply, AnalyseRequest } from './protocol.ts';
 
@@ -6,6 +7,8 @@ const scope = self as unknown as {
   onmessage: ((event: MessageEvent<AnalyseRequest>) => void) | null;
   postMessage(reply: AnalyseReply): void;
 };
+
+if (!SCHEMA_SETTINGS.jitless) throw new Error('zod settings: expected jitless parsing, got compiled parsers');
 
 scope.onmessage = ({ data }) => {
   const { seq, study } = data;

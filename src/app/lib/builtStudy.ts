@@ -1,0 +1,100 @@
+import { readStudy, type Study, type StudyInput, type StudyProblem } from '../../engine/study/index.ts';
+import { networkOf, type Network } from '../../engine/network/index.ts';
+import { faultLevelsOf } from '../../engine/fault/index.ts';
+import { bandsOf } from './lookups.ts';
+import { systemRowsOf } from './systemTree.ts';
+
+/** A document as the engine reads it: the study when it is valid, and every problem. */
+export interface StudyReading {
+  study?: Study;
+  problems: StudyProblem[];
+}
+
+/** A document read and built all the way before it is shown: its reading and its radial tree. */
+export interface BuiltStudy {
+  document: StudyInput;
+  reading: StudyReading;
+  network?: Network;
+}
+
+/** The outcome of {@link builtStudyOf}: the built study, or why there is none. */
+export type BuildOutcome =
+  | { ok: true; value: BuiltStudy }
+  | {
+      ok: false;
+      problems: StudyProblem[];
+      /** True when building stopped with an error (as opposed to the study having problems). */
+      failed: boolean;
+    };
+
+/**
+ * Reads a document with the engine's `readStudy`, turning any error the reader throws into a
+ * problem of the whole study, so an edit or a file can never stop the workbench.
+ *
+ * @example readingOf({ discern: 1 }).problems[0].path // 'study.name'
+ */
+export function readingOf(document: unknown): StudyReading {
+  try {
+    return readStudy(document);
+  } catch (error) {
+    return { problems: [stopped('read', error)] };
+  }
+}
+
+/** The radial tree of a valid study, or `undefined` if building it throws. */
+export function networkOrUndefined(study: Study): Network | undefined {
+  try {
+    return networkOf(study);
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * The document in a study file's text (a leading byte-order mark allowed), or `undefined` when
+ * the text is not a JSON object (`readStudy` then says why).
+ *
+ * @example documentOfText('{"discern":1}') // { discern: 1 }
+ */
+export function documentOfText(text: string): StudyInput | undefined {
+  try {
+    const value: unknown = JSON.parse(text.replace(/^\uFEFF/, ''));
+    return value !== null && typeof value === 'object' && !Array.isArray(value) ? (value as StudyInput) : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * Builds everything the workbench shows of a study before any of it is shown: the reading, the
+ * radial tree, the System tree's rows, the fault levels and every band. Loading swaps the new study
+ * in only when all of these succeed, so the screen never mixes two studies.
+ *
+ * @example const built = builtStudyOf(document); if (built.ok) show(built.value); else refuse(built.problems)
+ */
+export function builtStudyOf(input: unknown): BuildOutcome {
+  const reading = readingOf(input);
+  const study = reading.study;
+  if (!study)
+    return { ok: false, problems: reading.problems, failed: reading.problems[0]?.message.startsWith(STOP) === true };
+  const document = (typeof input === 'string' ? documentOfText(input) : input) as StudyInput;
+  try {
+    const network = networkOf(study);
+    systemRowsOf(network);
+    faultLevelsOf(network);
+    bandsOf(study);
+    return { ok: true, value: { document, reading, network } };
+  } catch (error) {
+    return { ok: false, problems: [stopped('build', error)], failed: true };
+  }
+}
+
+const STOP = 'expected a study the workbench can';
+
+/** One line naming the whole study, for an error thrown while reading or building it. */
+function stopped(stage: 'read' | 'build', error: unknown): StudyProblem {
+  const reason = String((error as Error)?.message ?? error)
+    .replace(/\s+/g, ' ')
+    .slice(0, 200);
+  return { path: 'study', message: `${STOP} ${stage}, got one that stopped it (${reason})` };
+}
