@@ -220,6 +220,23 @@ export function createStudySchema(frequency = 60) {
       margin: quantityField('time', { frequency, min: 0 })
         .optional()
         .meta({ description: 'coordination margin required above the devices it backs up' }),
+      adjustable: z
+        .record(
+          z.string().regex(/^[a-zA-Z]+\.[a-zA-Z]+$/, 'expected a setting such as "timeOvercurrent.timeDial"'),
+          z
+            .object({
+              min: z.number().positive().optional(),
+              max: z.number().positive().optional(),
+              step: z.number().positive().optional(),
+              values: z.array(z.number().positive()).min(1).optional(),
+            })
+            .strict(),
+        )
+        .optional()
+        .meta({
+          description:
+            'the settings the device offers, by setting ("longTime.pickup"): lowest, highest and step, or the list of values; the setting window uses them in place of the generic ranges',
+        }),
     })
     .strict();
 

@@ -1,0 +1,354 @@
+import type { Band } from '../band.ts';
+import { cableFindings } from '../checks/cableProtection.ts';
+import { nameOf, protectingDevice, surelyClearsFrom } from '../checks/context.ts';
+import { checkPair } from '../checks/coordination.ts';
+import type { Finding } from '../checks/finding.ts';
+import type { MarginRule } from '../checks/margins.ts';
+import { motorFindings } from '../checks/motorStarting.ts';
+import { nec450Findings } from '../checks/nec450.ts';
+import { transformerFindings } from '../checks/transformerProtection.ts';
+import { locationBusOf } from '../network/index.ts';
+import { inrushMarkersOf, type Marker } from '../withstand/index.ts';
+import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
+import type { Device } from '../study/index.ts';
+import { fullLoadOf } from './fullLoad.ts';
+import { publicBasis } from './publicBasis.ts';
+import { sensitivityCurrentOf } from './sensitivity.ts';
+import type { Trial } from './trial.ts';
+
+/** What a constraint is about (DESIGN §3 "constraint"). */
+export type ConstraintKind =
+  | 'coordinate-below'
+  | 'coordinate-above'
+  | 'transformer-withstand'
+  | 'cable-withstand'
+  | 'inrush'
+  | 'motor-starting'
+  | 'carry-load'
+  | 'nec-450.3'
+  | 'sensitivity'
+  | 'interrupting-duty';
+
+/**
+ * Which way a constraint pushes the settings: `slower` is met by a slower device (it sets a lower
+ * edge of the window: coordinate with the devices below, ride through inrush and motor starting,
+ * carry load); `faster` by a faster one (an upper edge: coordinate with the device above, clear
+ * below withstand curves, NEC limits, sensitivity); `fixed` does not depend on the settings
+ * (interrupting duty, a code limit on a rating) and is reported, never a window edge.
+ */
+export type Favours = 'slower' | 'faster' | 'fixed';
+
+/** How a constraint stands for one trial setting. */
+export interface ConstraintResult {
+  /** The constraint holds (for coordination: no overlap interval; the check would not fail). */
+  ok: boolean;
+  /** It holds with room: no thin-margin interval either. */
+  clean: boolean;
+  /** The margin in `unit` (negative when violated); `Infinity` when unlimited. */
+  margin: number;
+  unit: 's' | 'A' | '%';
+  /** The margin in words: "0.23 s at 18 kA". */
+  text: string;
+}
+
+/** One reason a setting is allowed or not, with its source (DESIGN §3). */
+export interface Constraint {
+  /** Stable id: 'below:FDR-MCC', 'above:R-T1', 'withstand:T1', 'inrush:T1', 'load', 'sensitivity', … */
+  id: string;
+  kind: ConstraintKind;
+  /** Plain words: "coordinate with MCC feeder 600 A below (0 s margin)". */
+  label: string;
+  /** Published source or "common practice". */
+  source: string;
+  favours: Favours;
+  /** The other devices and elements involved (ids). */
+  subjects: string[];
+  /** For a coordination constraint: the pair's margin rule. */
+  rule?: MarginRule;
+  /** Evaluates the constraint for the device as it stands in the trial. */
+  evaluate(trial: Trial): ConstraintResult;
+}
+
+/** Options of `constraintsOf`. */
+export interface ConstraintsOptions {
+  /**
+   * Include coordination with the device above. A proposal leaves it out when the device above is
+   * itself being set afterwards (it will be set to wait for this one).
+   * @default true
+   */
+  includeAbove?: boolean;
+}
+
+/**
+ * Every constraint on one device's settings, the rest of the trial fixed: coordinate with each
+ * device below and the one above (the study's margin rules, IEEE 242 practice), clear below the
+ * withstand curves of the transformers and cables it protects up to their maximum fault (IEEE
+ * C57.109, ICEA P-32-382), ride through transformer inrush and motor starting, carry the load below,
+ * stay within NEC 450.3, operate on the minimum fault at the end of its zone, and (reported only)
+ * interrupt the maximum fault where it sits.
+ *
+ * @example constraintsOf(trial, 'MAIN').map((c) => c.label)
+ */
+export function constraintsOf(trial: Trial, deviceId: string, options: ConstraintsOptions = {}): Constraint[] {
+  const { includeAbove = true } = options;
+  const device = trial.deviceOf(deviceId);
+  const constraints: Constraint[] = [];
+  for (const belowId of trial.belowOf.get(deviceId) ?? [])
+    constraints.push(coordination(trial, deviceId, belowId, 'below'));
+  const aboveId = trial.aboveOf.get(deviceId);
+  if (aboveId && includeAbove) constraints.push(coordination(trial, aboveId, deviceId, 'above'));
+
+  const protects = trial.protects.get(deviceId) ?? { transformers: [], cables: [], motors: [] };
+  const horizon = trial.settings.horizon;
+  for (const transformer of protects.transformers) {
+    const name = transformer.name ?? transformer.id;
+    const toAmps = trial.faults.transformers.get(transformer.id)?.reflectedToPrimary ?? 0;
+    constraints.push({
+      id: `withstand:${transformer.id}`,
+      kind: 'transformer-withstand',
+      label: `clear below ${name}'s through-fault curve up to ${formatAmps(toAmps, 3)}`,
+      source: transformer.construction === 'dry' ? 'IEEE C57.12.59' : 'IEEE C57.109',
+      favours: 'faster',
+      subjects: [transformer.id],
+      // The unbalanced cases only warn in the check (the secondary main clears them), so only the
+      // three-phase case bounds the window.
+      evaluate: (t) =>
+        withstandResult(
+          transformerFindings(t, transformer, horizon).filter(
+            (f) => f.kind === 'transformer-withstand' && f.id.includes(':three-phase'),
+          ),
+        ),
+    });
+    const markers = inrushMarkersOf(transformer);
+    constraints.push({
+      id: `inrush:${transformer.id}`,
+      kind: 'inrush',
+      label: `ride through ${name}'s magnetising inrush (${markers.map((m) => `${formatAmps(m.amps, 3)} at ${m.seconds} s`).join(', ')})`,
+      source: 'inrush 8–12 × full-load current at 0.1 s (common practice)',
+      favours: 'slower',
+      subjects: [transformer.id],
+      evaluate: (t) => inrushResult(t.bands.get(deviceId)!, markers),
+    });
+  }
+  for (const cable of protects.cables) {
+    const name = cable.name ?? cable.id;
+    constraints.push({
+      id: `withstand:${cable.id}`,
+      kind: 'cable-withstand',
+      label: `clear below ${name}'s short-circuit limit up to ${formatAmps(trial.faults.buses.get(cable.from)!.max.threePhase, 3)}`,
+      source: 'ICEA P-32-382',
+      favours: 'faster',
+      subjects: [cable.id],
+      evaluate: (t) => withstandResult(cableFindings(t, cable, horizon)),
+    });
+  }
+  for (const motor of protects.motors) {
+    constraints.push({
+      id: `starting:${motor.id}`,
+      kind: 'motor-starting',
+      label: `ride through ${motor.name ?? motor.id}'s start`,
+      source: 'motor starting curve (common practice)',
+      favours: 'slower',
+      subjects: [motor.id],
+      evaluate: (t) => {
+        const failed = motorFindings(t, motor).find((f) => f.severity === 'fail');
+        return failed
+          ? { ok: false, clean: false, margin: -1, unit: 's', text: failed.explanation }
+          : { ok: true, clean: true, margin: Infinity, unit: 's', text: 'stays above the starting curve' };
+      },
+    });
+  }
+
+  const load = fullLoadOf(trial, device);
+  if (load) {
+    constraints.push({
+      id: 'load',
+      kind: 'carry-load',
+      label: `carry ${load.label}: pickup at least ${formatAmps(load.requiredAmps, 3)}`,
+      source: load.source,
+      favours: 'slower',
+      subjects: load.subjects,
+      evaluate: (t) => {
+        const pickup = pickupAmpsOf(t.deviceOf(deviceId));
+        const margin = pickup - load.requiredAmps;
+        // A relative tolerance keeps a pickup set exactly at the requirement on the right side of it.
+        const ok = margin >= -1e-9 * load.requiredAmps;
+        return {
+          ok,
+          clean: ok,
+          margin,
+          unit: 'A',
+          text: `pickup ${formatAmps(pickup, 3)} against ${formatAmps(load.requiredAmps, 3)}`,
+        };
+      },
+    });
+  }
+
+  for (const transformer of trial.study.transformers) {
+    const primary = protectingDevice(trial, transformer.id)?.id === deviceId;
+    const secondary = trial.network.deviceFeeding.get(transformer.to)?.id === deviceId;
+    if (!primary && !secondary) continue;
+    const side = primary ? 'primary' : 'secondary';
+    // A rating written on the device, or any family but a relay, is not a setting: the limit is reported.
+    const favours: Favours = device.rating === undefined && device.characteristic.kind === 'relay' ? 'faster' : 'fixed';
+    constraints.push({
+      id: `nec:${transformer.id}`,
+      kind: 'nec-450.3',
+      label: `stay within NEC 450.3 for ${transformer.name ?? transformer.id} (${side})`,
+      source: `NFPA 70 ${trial.settings.edition}, Table 450.3`,
+      favours,
+      subjects: [transformer.id],
+      evaluate: (t) => {
+        const finding = nec450Findings(t, transformer, t.settings.edition).find(
+          (f) => f.subjects[0] === deviceId && f.id.endsWith(`:${side}`),
+        );
+        const ok = finding?.severity !== 'fail';
+        return {
+          ok,
+          clean: ok,
+          margin: ok ? 0 : -1,
+          unit: 'A',
+          text: finding ? finding.explanation : 'no rating to compare',
+        };
+      },
+    });
+  }
+
+  const sensitivity = sensitivityCurrentOf(trial, device);
+  if (sensitivity) {
+    constraints.push({
+      id: 'sensitivity',
+      kind: 'sensitivity',
+      label: `operate on the minimum line-to-line fault at ${sensitivity.busName}, ${formatAmps(sensitivity.amps, 3)}`,
+      source: 'sensitivity to the minimum fault at the end of the zone (common practice)',
+      favours: 'faster',
+      subjects: [sensitivity.busId],
+      evaluate: (t) => {
+        const band = t.bands.get(deviceId)!;
+        const from = surelyClearsFrom(band, sensitivity.amps * 100, t.settings.horizon);
+        const margin = from === Infinity ? -100 : 100 * (sensitivity.amps / from - 1);
+        const ok = from <= sensitivity.amps * (1 + 1e-9);
+        const text = from === Infinity ? 'never sure to operate' : `sure to operate from ${formatAmps(from, 3)}`;
+        return { ok, clean: ok, margin, unit: '%', text };
+      },
+    });
+  }
+
+  const duty = trial.faults.buses.get(locationBusOf(trial.network, device).id)!.max.largest;
+  constraints.push({
+    id: 'interrupting',
+    kind: 'interrupting-duty',
+    label: `interrupt ${formatAmps(duty, 3)}, the largest fault where it sits`,
+    source: 'NFPA 70 110.9',
+    favours: 'fixed',
+    subjects: [],
+    evaluate: (t) => {
+      const rating = t.deviceOf(deviceId).interruptingRating;
+      if (rating === undefined)
+        return { ok: true, clean: true, margin: Infinity, unit: 'A', text: 'no interrupting rating given' };
+      const ok = rating >= duty;
+      return { ok, clean: ok, margin: rating - duty, unit: 'A', text: `rated ${formatAmps(rating, 3)}` };
+    },
+  });
+  return constraints;
+}
+
+/** The nominal (lowest-element) pickup of a device in amperes at its own voltage, as the load rule compares it. */
+export function pickupAmpsOf(device: Device): number {
+  const c = device.characteristic;
+  switch (c.kind) {
+    case 'trip-unit':
+      return c.longTime.pickup * c.sensor;
+    case 'relay':
+      return ((c.timeOvercurrent?.pickup ?? c.instantaneous?.pickup ?? 0) * c.ct.primary) / c.ct.secondary;
+    case 'thermal-magnetic':
+      return c.rating;
+    case 'fuse':
+      return device.rating ?? 0;
+  }
+}
+
+/** A pair constraint; `which` says whether the window's device is the upper ('below' rows) or lower one. */
+function coordination(trial: Trial, upId: string, downId: string, which: 'below' | 'above'): Constraint {
+  const other = trial.deviceOf(which === 'below' ? downId : upId);
+  const { check } = checkPair(
+    trial,
+    { upstream: trial.deviceOf(upId), downstream: trial.deviceOf(downId) },
+    trial.settings,
+  );
+  const rule = check.rule;
+  const separation = rule.timeRatio < 1 ? `${rule.timeRatio * 100} % time ratio` : `${rule.margin} s margin`;
+  return {
+    id: `${which}:${other.id}`,
+    kind: which === 'below' ? 'coordinate-below' : 'coordinate-above',
+    label: `coordinate with ${nameOf(other)} ${which === 'below' ? 'below' : 'above'} (${separation})`,
+    source: publicBasis(rule.basis),
+    favours: which === 'below' ? 'slower' : 'faster',
+    subjects: [other.id],
+    rule,
+    evaluate: (t) => {
+      const result = checkPair(t, { upstream: t.deviceOf(upId), downstream: t.deviceOf(downId) }, t.settings).check;
+      let ok = true;
+      let clean = true;
+      let margin = Infinity;
+      let at = 0;
+      for (const pairCase of result.cases) {
+        for (const interval of pairCase.intervals) {
+          if (interval.status === 'overlap') ok = false;
+          // A sliver of thin margin (under 1 % wide) is a steep curve crossing, reported with its overlap.
+          if (interval.status === 'thin margin' && interval.toAmps >= interval.fromAmps * 1.01) clean = false;
+          if (interval.status !== 'not provable from curves' && interval.worst.marginSeconds < margin) {
+            margin = interval.worst.marginSeconds;
+            at = interval.worst.amps;
+          }
+        }
+      }
+      const text =
+        margin === Infinity
+          ? 'never overlaps'
+          : margin === -Infinity
+            ? `operates where ${nameOf(t.deviceOf(downId))} never clears (${formatAmps(at, 3)})`
+            : `${significant(margin, 3)} s at ${formatAmps(at, 3)}`;
+      return { ok, clean: ok && clean, margin, unit: 's', text };
+    },
+  };
+}
+
+/** A withstand check's findings as a constraint result: no failure, the least separation as margin. */
+function withstandResult(findings: Finding[]): ConstraintResult {
+  let ok = true;
+  let margin = Infinity;
+  let at = 0;
+  for (const finding of findings) {
+    if (finding.severity === 'fail') ok = false;
+    if (finding.worst && finding.worst.upTime - finding.worst.downTime < margin) {
+      margin = finding.worst.upTime - finding.worst.downTime;
+      at = finding.worst.amps;
+    }
+  }
+  const text = margin === Infinity ? 'clears below the curve' : `${formatSeconds(margin)} at ${formatAmps(at, 3)}`;
+  return { ok, clean: ok, margin, unit: 's', text };
+}
+
+/** The time left between each inrush point and the device's earliest operation there (the check's own rule). */
+function inrushResult(band: Band, markers: Marker[]): ConstraintResult {
+  let margin = Infinity;
+  let text = 'does not operate on inrush';
+  for (const marker of markers) {
+    const left = band.minTime(marker.amps) - marker.seconds!;
+    if (left < margin) {
+      margin = left;
+      text = `${formatSeconds(left)} to spare at ${formatAmps(marker.amps, 3)}`;
+    }
+  }
+  const ok = margin > 0;
+  return {
+    ok,
+    clean: ok,
+    margin,
+    unit: 's',
+    text: ok
+      ? text
+      : `may operate ${formatSeconds(-margin)} before the inrush at ${formatAmps(markers[0].amps, 3)} has decayed`,
+  };
+}

@@ -1,0 +1,165 @@
+import { analyseStudy } from '../analysis.ts';
+import { nameOf } from '../checks/context.ts';
+import type { Finding } from '../checks/finding.ts';
+import { pathTo } from '../network/index.ts';
+import type { Device, Study } from '../study/index.ts';
+import { constraintsOf } from './constraints.ts';
+import { noWindowOf, type NoWindow } from './noWindow.ts';
+import { recommendationOf, TIE_BREAK, type ConstraintMargin } from './recommendation.ts';
+import type { Binding } from './settingInterval.ts';
+import { adjustableSettingsOf, type SettingValue } from './settings.ts';
+import { overridesOf } from './settingWindow.ts';
+import { trialOf } from './trial.ts';
+
+/** How a proposal orders the devices it sets (stated with every proposal). */
+export const PROPOSAL_ORDER =
+  'From the loads toward the source: the device furthest from the source first (by the number of buses and branches between them), ties in the order the study lists the devices. Each adjustable device is set to its fastest recommendation given the devices below it as already proposed; the device above is set afterwards to wait for it. Fuses, thermal-magnetic breakers and devices outside the proposal stay as they are and constrain the others.';
+
+/** One setting a proposal changes. */
+export interface SettingChange {
+  deviceId: string;
+  deviceName: string;
+  key: string;
+  label: string;
+  unit: string;
+  from: SettingValue | undefined;
+  to: SettingValue | undefined;
+  /** What holds the new value where it is. */
+  binding?: Binding;
+}
+
+/** What the proposal did for one device. */
+export interface DeviceProposal {
+  deviceId: string;
+  deviceName: string;
+  /** A setting keeping every constraint was found (otherwise the device keeps its settings). */
+  exists: boolean;
+  changes: SettingChange[];
+  /** Every constraint at the proposed (or kept) setting. */
+  margins: ConstraintMargin[];
+  noWindow?: NoWindow;
+}
+
+/** Settings for a path or a whole study, each inside its window, with the findings they clear or leave (DESIGN §3). */
+export interface Proposal {
+  /** Device ids in the order they were set. */
+  order: string[];
+  orderRule: string;
+  tieBreak: string;
+  devices: DeviceProposal[];
+  /** Every changed setting, in order. */
+  changes: SettingChange[];
+  /** The study with the proposed settings (parsed form). */
+  study: Study;
+  /** Failing and warning findings before that the proposal clears. */
+  cleared: Finding[];
+  /** Failing and warning findings that remain. */
+  remaining: Finding[];
+  /** Failing and warning findings the proposal brings that were not there before. */
+  introduced: Finding[];
+  /** Failures before and after. */
+  failsBefore: number;
+  failsAfter: number;
+}
+
+/** Options of `proposeSettings`. */
+export interface ProposalOptions {
+  /** The devices to set (e.g. one view's); @default every device of the study */
+  deviceIds?: string[];
+  /** Compare the findings before and after (two full analyses). @default true */
+  compare?: boolean;
+}
+
+/**
+ * Proposes settings for a path or a whole study (DESIGN §3 "proposal"): from the loads toward the
+ * source (`PROPOSAL_ORDER`), each adjustable device set to its fastest-clearing recommendation
+ * (`TIE_BREAK`) given what is below it. Returns the changes with before/after values and the findings
+ * they clear, leave or bring. Pure: the study is not touched.
+ *
+ * @example proposeSettings(study).changes.map((c) => `${c.deviceId} ${c.key} ${c.from} → ${c.to}`)
+ */
+export function proposeSettings(study: Study, options: ProposalOptions = {}): Proposal {
+  const { deviceIds, compare = true } = options;
+  const trial = trialOf(study);
+  const scope = new Set(deviceIds ?? study.devices.map((d) => d.id));
+  const depth = new Map(study.devices.map((d) => [d.id, pathTo(trial.network, d.feeds).length]));
+  const indexOf = new Map(study.devices.map((d, i) => [d.id, i]));
+  const adjustable = (device: Device) => adjustableSettingsOf(device, { overrides: overridesOf(device) }).length > 0;
+  const order = study.devices
+    .filter((d) => scope.has(d.id) && adjustable(d))
+    .sort((a, b) => depth.get(b.id)! - depth.get(a.id)! || indexOf.get(a.id)! - indexOf.get(b.id)!)
+    .map((d) => d.id);
+  const willBeSet = new Set(order);
+
+  const devices: DeviceProposal[] = [];
+  for (const id of order) {
+    const device = trial.deviceOf(id);
+    const above = trial.aboveOf.get(id);
+    const includeAbove = above === undefined || !willBeSet.has(above);
+    const constraints = constraintsOf(trial, id, { includeAbove });
+    const { recommendation, attempts } = recommendationOf(trial, id, constraints, {
+      overrides: overridesOf(device),
+      memo: new Map(),
+    });
+    if (recommendation) {
+      trial.place(recommendation.device);
+      devices.push({
+        deviceId: id,
+        deviceName: nameOf(device),
+        exists: true,
+        changes: recommendation.settings
+          .filter((s) => s.from !== s.to)
+          .map((s) => ({ deviceId: id, deviceName: nameOf(device), ...s })),
+        margins: recommendation.margins,
+      });
+    } else {
+      devices.push({
+        deviceId: id,
+        deviceName: nameOf(device),
+        exists: false,
+        changes: [],
+        margins: constraints.map((c) => ({
+          id: c.id,
+          kind: c.kind,
+          label: c.label,
+          source: c.source,
+          favours: c.favours,
+          result: c.evaluate(trial),
+        })),
+        noWindow: noWindowOf(trial, id, constraints, attempts, { remedies: false, includeAbove }),
+      });
+    }
+  }
+
+  const proposed: Study = { ...study, devices: study.devices.map((d) => trial.deviceOf(d.id)) };
+  let cleared: Finding[] = [];
+  let remaining: Finding[] = [];
+  let introduced: Finding[] = [];
+  let failsBefore = 0;
+  let failsAfter = 0;
+  if (compare) {
+    const attention = (f: Finding) => f.severity === 'fail' || f.severity === 'warning';
+    const before = analyseStudy(study).findings.filter(attention);
+    const after = analyseStudy(proposed).findings.filter(attention);
+    const afterIds = new Set(after.map((f) => f.id));
+    const beforeIds = new Set(before.map((f) => f.id));
+    cleared = before.filter((f) => !afterIds.has(f.id));
+    remaining = after.filter((f) => beforeIds.has(f.id));
+    introduced = after.filter((f) => !beforeIds.has(f.id));
+    failsBefore = before.filter((f) => f.severity === 'fail').length;
+    failsAfter = after.filter((f) => f.severity === 'fail').length;
+  }
+  return {
+    order,
+    orderRule: PROPOSAL_ORDER,
+    tieBreak: TIE_BREAK,
+    devices,
+    changes: devices.flatMap((d) => d.changes),
+    study: proposed,
+    cleared,
+    remaining,
+    introduced,
+    failsBefore,
+    failsAfter,
+  };
+}
