@@ -133,6 +133,11 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   const location = locationBusOf(network, device);
   const cases = sensitivityCasesOf(context, device, settings);
   if (cases.length === 0) return [];
+  // Below a single-phase transformer the faults are the full-winding and line-to-neutral ones.
+  const faultName = (c: SensitivityCase) =>
+    context.faults.buses.get(c.busId)!.phases === 1
+      ? { 'line-to-line': 'full-winding', 'line-to-ground': 'line-to-neutral' }[c.fault]
+      : c.fault;
   const arcing =
     settings.arcingFactor === undefined
       ? 'bolted faults'
@@ -140,7 +145,7 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   const basis = `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (common practice).`;
   const describe = (c: SensitivityCase) => {
     const bus = network.buses.get(c.busId)!;
-    const at = `${formatAmps(c.boltedAmps, 3)} ${c.fault} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
+    const at = `${formatAmps(c.boltedAmps, 3)} ${faultName(c)} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
     const arcingText = settings.arcingFactor === undefined ? '' : ' as an arcing fault';
     const through =
       c.deviceAmps === c.boltedAmps
@@ -174,8 +179,8 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
       kind: 'sensitivity',
       severity: never ? 'fail' : 'warning',
       title: never
-        ? `${name} may not operate for a minimum ${c.fault} fault`
-        : `${name} is slow for a minimum ${c.fault} fault`,
+        ? `${name} may not operate for a minimum ${faultName(c)} fault`
+        : `${name} is slow for a minimum ${faultName(c)} fault`,
       subjects: [device.id],
       range: rangeFor(c),
       explanation: never
