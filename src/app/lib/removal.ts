@@ -56,18 +56,20 @@ export function removalOf(document: StudyInput, selection: Selection): Removal |
   }
   // Everything below, bus by bus (a walk with its own stack: no depth limit, and a loop in a
   // mid-edit document is visited once).
+  const branchesFrom = groupBy([...transformers, ...cables], (branch) => branch.from);
+  const motorsOn = groupBy(motors, (motor) => motor.bus);
   const visited = new Set<unknown>();
   while (pending.length > 0) {
     const bus = pending.pop();
     if (bus === undefined || bus === sourceBus || visited.has(bus)) continue;
     visited.add(bus);
     removed.add(bus);
-    for (const branch of [...transformers, ...cables]) {
-      if (branch.from !== bus || removed.has(branch.id)) continue;
+    for (const branch of branchesFrom.get(bus) ?? []) {
+      if (removed.has(branch.id)) continue;
       removed.add(branch.id);
       pending.push(branch.to);
     }
-    for (const motor of motors) if (motor.bus === bus) removed.add(motor.id);
+    for (const motor of motorsOn.get(bus) ?? []) removed.add(motor.id);
   }
   for (const device of devices) if (removed.has(device.feeds)) removed.add(device.id);
 
@@ -174,6 +176,16 @@ export function alsoRemoved(removal: Removal): string {
 function listed(ids: string[]): string {
   if (ids.length <= 6) return ids.length === 1 ? ids[0] : `${ids.slice(0, -1).join(', ')} and ${ids.at(-1)}`;
   return `${ids.slice(0, 5).join(', ')} and ${ids.length - 5} more`;
+}
+
+function groupBy(items: Item[], keyOf: (item: Item) => unknown): Map<unknown, Item[]> {
+  const groups = new Map<unknown, Item[]>();
+  for (const item of items) {
+    const group = groups.get(keyOf(item));
+    if (group) group.push(item);
+    else groups.set(keyOf(item), [item]);
+  }
+  return groups;
 }
 
 function listOf(document: StudyInput, key: string): Item[] {

@@ -71,6 +71,12 @@ export class StudyState {
   readonly selectionPath = $derived.by(() => pathOfSelection(this.document, this.selection));
 
   constructor(document: StudyInput, fileName?: string) {
+    // Read once here, so the first parse is also the last good one an invalid edit falls back on.
+    const built = builtStudyOf(document);
+    if (built.ok) {
+      this.#built = built.value;
+      this.#lastGood = built.value.reading.study;
+    }
     this.history = new History(document);
     this.savedDocument = document;
     this.fileName = fileName;

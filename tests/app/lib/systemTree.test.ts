@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { flattenTree, systemTreeOf } from '../../../src/app/lib/systemTree.ts';
+import { flattenTree, systemRowsOf, systemTreeOf } from '../../../src/app/lib/systemTree.ts';
 import { newStudyDocument } from '../../../src/app/lib/newItems.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
@@ -41,5 +41,35 @@ describe('systemTree', () => {
         (demo.cables ?? []).length +
         (demo.motors ?? []).length,
     );
+  });
+
+  it('systemRowsOf() lists the rows in reading order with their depth below the source', () => {
+    const rows = systemRowsOf(network);
+    expect(rows.slice(0, 4).map((r) => `${r.depth} ${r.node.kind} ${r.node.id}`)).toEqual([
+      '0 source UTIL',
+      '1 bus MV',
+      '2 transformer T1',
+      '3 bus SWBD',
+    ]);
+    expect(rows.map((r) => r.node)).toEqual(flattenTree(systemTreeOf(network)));
+  });
+
+  it('a study 5,000 levels deep builds whole (no call-stack limit)', () => {
+    const buses = [{ id: 'B0', voltage: '480 V' }];
+    const cables = [];
+    for (let i = 1; i <= 5000; i++) {
+      buses.push({ id: `B${i}`, voltage: '480 V' });
+      cables.push({ id: `C${i}`, from: `B${i - 1}`, to: `B${i}`, size: '4/0', length: '1 ft' });
+    }
+    const deep = parseStudy({
+      discern: 1,
+      name: 'Deep',
+      source: { kind: 'infinite', id: 'U', bus: 'B0' },
+      buses,
+      cables,
+    });
+    const rows = systemRowsOf(networkOf(deep));
+    expect(rows).toHaveLength(1 + 5001 + 5000);
+    expect(rows.at(-1)).toMatchObject({ depth: 10_001, node: { kind: 'bus', id: 'B5000' } });
   });
 });

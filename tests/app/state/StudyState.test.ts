@@ -115,4 +115,68 @@ describe('StudyState', () => {
     expect(state.study?.devices).toEqual([]);
     expect(state.view).toBeUndefined();
   });
+
+  it('load() refuses a document with problems and keeps the study on screen whole', () => {
+    const state = new StudyState(demo, 'harrowmere-selective.json');
+    state.edit(sensor, 1600, 'sensor of MAIN');
+    expect(state.load({ ...demo, name: '' }, 'unnamed.json')).toBe(false);
+    expect(state.refused).toMatchObject({ fileName: 'unnamed.json', problems: [{ path: 'study.name' }] });
+    expect(state.document.name).toBe(demo.name);
+    expect(state.valueAt(sensor)).toBe(1600);
+    expect(state.network?.devices.has('MAIN')).toBe(true);
+  });
+
+  it('restore() brings a kept copy back exactly as kept, problems and all, with nothing of the old study', () => {
+    const state = new StudyState(demo, 'harrowmere-selective.json');
+    const kept = structuredClone(demo);
+    kept.name = 'Kept mid-edit';
+    (kept.devices![mainIndex].characteristic as { sensor: unknown }).sensor = '';
+    const shown = state.restore(kept, { fileName: 'kept.json', unsaved: true, savedAt: '2026-12-01T22:00:00Z' });
+    expect(shown).toBe(true);
+    expect(state.document).toBe(kept);
+    expect(state.valueAt(sensor)).toBe('');
+    expect(state.problems.map((p) => p.path)).toEqual([`study.devices[${mainIndex}].characteristic.sensor`]);
+    // The old study's parse does not stand in for the kept one: no tree until the problem is fixed.
+    expect(state.study).toBeUndefined();
+    expect(state.network).toBeUndefined();
+    expect(state.recovered).toEqual({ savedAt: '2026-12-01T22:00:00Z', problems: 1 });
+    expect(state.dirty).toBe(true);
+    state.edit(sensor, '2000 A', 'sensor of MAIN');
+    expect(state.study?.name).toBe('Kept mid-edit');
+    state.markSaved('kept.json');
+    expect(state.recovered).toBeUndefined();
+  });
+
+  it('the recovered mark goes when another study replaces the restored one', () => {
+    const state = new StudyState(demo);
+    state.restore(demo, { unsaved: true, savedAt: '2026-12-01T22:00:00Z' });
+    expect(state.recovered).toEqual({ savedAt: '2026-12-01T22:00:00Z', problems: 0 });
+    state.newStudy();
+    expect(state.recovered).toBeUndefined();
+  });
+
+  it('deleteItem(cable) removes the cable, its bus and what hangs below in one undo step', () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'cable', id: 'C-MCC' };
+    state.deleteItem({ kind: 'cable', id: 'C-MCC' });
+    expect(state.problems).toEqual([]);
+    expect(state.network?.buses.has('MCC')).toBe(false);
+    expect(state.network?.devices.has('MCC-M1')).toBe(false);
+    expect(state.selection).toBeUndefined();
+    expect(state.history.undoLabel).toBe('delete cable C-MCC');
+    state.history.undo();
+    expect(state.document).toBe(demo);
+  });
+
+  it('an edit that makes the reader throw is a problem of the study, never an error out of the state', () => {
+    const state = new StudyState(demo);
+    const hostile = {
+      get discern(): number {
+        throw new RangeError('Maximum call stack size exceeded');
+      },
+    };
+    state.edit(['source'], hostile, 'source');
+    expect(state.problems.map((p) => p.path)).toEqual(['study']);
+    expect(state.study?.name).toBe(demo.name);
+  });
 });
