@@ -6,18 +6,32 @@ import type { WorkStep } from '../work.ts';
 import { nameOf, protectingDevice, type CheckContext } from './context.ts';
 import { ratingOf } from './deviceRating.ts';
 import type { Finding } from './finding.ts';
-import { nextStandardRating } from './standardRatings.ts';
+import { nextERating, nextStandardRating } from './standardRatings.ts';
 
 /** The cell of NEC Table 450.3(A) or (B) that limits one device, in percent of rated current. */
 interface Limit {
   percent: number;
-  /** Note 1: the next higher standard rating or setting is permitted. */
+  /** Note 1: a higher rating or setting is permitted where the percentage does not land on one. */
   nextHigher: boolean;
   cell: string;
 }
 
+/** A transformer outside Table 450.3(A): above 10 % impedance in a row that depends on it. */
+interface OutsideTable {
+  outside: string;
+}
+
+/** How far Note 1 of Table 450.3(A)/(B) lets a device go above the computed limit, and on what basis. */
+interface Allowance {
+  amps: number;
+  /** The work step's label and source, or undefined where nothing above the limit is permitted. */
+  step?: { label: string; substituted: string; source: string };
+  /** The clause of the explanation after "allows N %". */
+  text: string;
+}
+
 /**
- * Checks the ratings of a transformer's primary and secondary devices against NEC 450.3 (REFERENCE §6.3):
+ * Checks the ratings of a transformer's primary and secondary devices against NFPA 70 450.3:
  * Table 450.3(A) for a primary over 1000 V (600 V before the 2020 edition), else 450.3(B), choosing the
  * "primary and secondary" method when a secondary device feeds the secondary bus. Ratings are the device's
  * ampere rating, an adjustable breaker's maximum setting (240.6(B)), or a relay's pickup in primary amps.
@@ -46,7 +60,7 @@ export function nec450Findings(context: CheckContext, transformer: Transformer, 
   ];
   for (const side of sides) {
     const fla = transformerRatedAmps(transformer, side.volts);
-    side.limit = overThreshold
+    const limit = overThreshold
       ? limitA(
           side.side,
           side.device,
@@ -57,6 +71,19 @@ export function nec450Findings(context: CheckContext, transformer: Transformer, 
           threshold,
         )
       : limitB(side.side, fla, secondaryDevice !== undefined);
+    if (limit && 'outside' in limit) {
+      findings.push({
+        id: `nec-450.3:${transformer.id}:${side.side}`,
+        kind: 'nec-450.3',
+        severity: 'warning',
+        title: `${name} at ${significant(z, 3)} % impedance is outside NEC Table ${table} (${side.side})`,
+        subjects: [...(side.device ? [side.device.id] : []), transformer.id],
+        explanation: `NEC Table ${table} lists transformers of at most 10 % impedance for ${limit.outside}; ${name} is ${significant(z, 3)} %, so the table sets no limit for its ${side.side} device and the 6–10 % row does not apply.`,
+        suggestion: `Set the ${side.side} protection under engineering supervision from the transformer's own data and the adopted code, and record the basis.`,
+        basis: `NFPA 70 ${edition}, Table ${table} (rows up to 10 % impedance)`,
+        referenceVolts: side.volts,
+      });
+    } else side.limit = limit;
   }
   if (overThreshold && !transformer.supervised && !secondaryDevice) {
     findings.push({
@@ -87,8 +114,10 @@ export function nec450Findings(context: CheckContext, transformer: Transformer, 
       continue;
     }
     const limitAmps = (limit.percent / 100) * fla;
-    const allowed = limit.nextHigher ? nextStandardRating(limitAmps, device.characteristic.kind === 'fuse') : limitAmps;
-    const ok = rating.amps <= allowed + 1e-6;
+    const allowance = allowanceOf(limit, limitAmps, device, volts, threshold);
+    const allowed = allowance.amps;
+    // A relative 1e-9 forgives a setting entered to the printed digits of the computed limit.
+    const ok = rating.amps <= allowed * (1 + 1e-9) + 1e-6;
     const percent = (100 * rating.amps) / fla;
     const work: WorkStep[] = [
       {
@@ -105,17 +134,17 @@ export function nec450Findings(context: CheckContext, transformer: Transformer, 
         substituted: `I_max = ${limit.percent} % × ${significant(fla, 6)}`,
         value: limitAmps,
         unit: 'A',
-        source: `NEC Table ${table} (from memory)`,
+        source: `NFPA 70 ${edition}, Table ${table}`,
       },
-      ...(limit.nextHigher
+      ...(allowance.step
         ? [
             {
-              label: 'next higher standard rating permitted (note 1)',
-              formula: 'NEC 240.6(A)',
-              substituted: `next standard rating ≥ ${significant(limitAmps, 6)} A`,
+              label: allowance.step.label,
+              formula: 'Table ' + table + ' note 1',
+              substituted: allowance.step.substituted,
               value: allowed,
               unit: 'A',
-              source: 'NEC 240.6(A), 450.3 note 1 (from memory)',
+              source: allowance.step.source,
             },
           ]
         : []),
@@ -133,11 +162,11 @@ export function nec450Findings(context: CheckContext, transformer: Transformer, 
       severity: ok ? 'ok' : 'fail',
       title: `${nameOf(device)} ${ok ? 'is within' : 'exceeds'} NEC ${table} for ${name} (${side})`,
       subjects: [device.id, transformer.id],
-      explanation: `${nameOf(device)}'s ${rating.what} is ${formatAmps(rating.amps, 4)}, ${significant(percent, 3)} % of ${name}'s ${side} rated current ${formatAmps(fla, 4)}; ${limit.cell} allows ${limit.percent} %${limit.nextHigher ? ` or the next standard rating, ${formatAmps(allowed, 4)}` : ` (${formatAmps(limitAmps, 4)})`}.`,
+      explanation: `${nameOf(device)}'s ${rating.what} is ${formatAmps(rating.amps, 4)}, ${significant(percent, 3)} % of ${name}'s ${side} rated current ${formatAmps(fla, 4)}; ${limit.cell} allows ${limit.percent} %${allowance.text}.`,
       suggestion: ok
         ? undefined
         : `Choose a ${side} device rated at most ${formatAmps(allowed, 4)}, or check whether another method of ${table} applies.`,
-      basis: `NFPA 70 ${edition}, Table ${table} (from memory; check the adopted edition)`,
+      basis: `NFPA 70 ${edition}, Table ${table} and its note 1; check the edition adopted where the work is done`,
       referenceVolts: locationBusOf(network, device).voltage,
       work,
     });
@@ -145,7 +174,11 @@ export function nec450Findings(context: CheckContext, transformer: Transformer, 
   return findings;
 }
 
-/** Table 450.3(A), over 1000 V (REFERENCE §6.3, from memory); %Z above 10 % is read as the 6–10 % row. */
+/**
+ * Table 450.3(A), over 1000 V. Rows: any location with %Z ≤ 6 % or 6–10 %; supervised locations
+ * (primary only: any %Z; primary and secondary: ≤ 6 % or 6–10 %). Above 10 % a row that depends on
+ * impedance does not apply: the transformer is outside the table.
+ */
 function limitA(
   side: 'primary' | 'secondary',
   device: Device | undefined,
@@ -154,16 +187,17 @@ function limitA(
   hasSecondary: boolean,
   sideOver: boolean,
   threshold: number,
-): Limit | undefined {
+): Limit | OutsideTable | undefined {
   if (!device) return undefined;
   const fuse = device.characteristic.kind === 'fuse';
-  const low = z <= 6;
   const type = fuse ? 'fuse' : 'breaker';
-  const row = `${supervised ? 'supervised location' : 'any location'}, %Z ${low ? '≤ 6 %' : 'over 6 %'}`;
+  if (side === 'primary' && supervised && !hasSecondary) {
+    return { percent: fuse ? 250 : 300, nextHigher: true, cell: `supervised location, primary only, ${type}` };
+  }
+  if (z > 10) return { outside: supervised ? 'supervised locations with secondary protection' : 'any location' };
+  const low = z <= 6;
+  const row = `${supervised ? 'supervised location' : 'any location'}, %Z ${low ? '≤ 6 %' : 'over 6 % to 10 %'}`;
   if (side === 'primary') {
-    if (supervised && !hasSecondary) {
-      return { percent: fuse ? 250 : 300, nextHigher: true, cell: `supervised location, primary only, ${type}` };
-    }
     return {
       percent: fuse ? 300 : low ? 600 : 400,
       nextHigher: true,
@@ -180,7 +214,55 @@ function limitA(
   return { percent: supervised ? 250 : 125, nextHigher: true, cell: `${row}, secondary ${threshold} V or less` };
 }
 
-/** Table 450.3(B), 1000 V and less (REFERENCE §6.3, confirmed). */
+/**
+ * What Note 1 of Table 450.3(A) (and of 450.3(B) for 125 %) permits above the computed limit:
+ * - at the threshold voltage and below, the next higher standard rating of NFPA 70 240.6(A);
+ * - above it, the next higher commercially available rating or setting: for an E-rated fuse the next
+ *   rating of `E_RATINGS` (common practice); for a relay, whose pickup is continuously adjustable,
+ *   the computed value itself; for any other device above 1000 V, the computed value (its available
+ *   ratings are not known here).
+ */
+function allowanceOf(limit: Limit, limitAmps: number, device: Device, volts: number, threshold: number): Allowance {
+  const exact = { amps: limitAmps, text: ` (${formatAmps(limitAmps, 4)})` };
+  if (!limit.nextHigher) return exact;
+  const kind = device.characteristic.kind;
+  if (volts <= threshold) {
+    const amps = nextStandardRating(limitAmps, kind === 'fuse');
+    return {
+      amps,
+      text: ` or the next standard rating, ${formatAmps(amps, 4)}`,
+      step: {
+        label: `next higher standard rating permitted (note 1, ${threshold} V and below)`,
+        substituted: `next standard rating ≥ ${significant(limitAmps, 6)} A`,
+        source: 'NFPA 70 240.6(A) and Table 450.3 note 1',
+      },
+    };
+  }
+  if (kind === 'fuse') {
+    const amps = nextERating(limitAmps);
+    if (amps === undefined) {
+      return { ...exact, text: `${exact.text}; no E rating in the common series reaches it` };
+    }
+    return {
+      amps,
+      text: ` or the next E rating commercially available, ${significant(amps, 4)}E`,
+      step: {
+        label: `next higher commercially available E rating (note 1, above ${threshold} V)`,
+        substituted: `next E rating ≥ ${significant(limitAmps, 6)} A`,
+        source: 'Table 450.3(A) note 1; E-rating series of common practice (ANSI C37.46 fuses)',
+      },
+    };
+  }
+  if (kind === 'relay') {
+    return {
+      amps: limitAmps,
+      text: ` (${formatAmps(limitAmps, 4)}; a continuously adjustable pickup is not rounded up above ${threshold} V)`,
+    };
+  }
+  return exact;
+}
+
+/** Table 450.3(B), 1000 V and less (NFPA 70). */
 function limitB(side: 'primary' | 'secondary', fla: number, hasSecondary: boolean): Limit {
   if (side === 'primary') {
     if (hasSecondary) return { percent: 250, nextHigher: false, cell: 'primary and secondary protection, primary' };

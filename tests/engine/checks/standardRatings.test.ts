@@ -1,8 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { nextStandardRating, STANDARD_RATINGS } from '../../../src/engine/checks/standardRatings.ts';
+import {
+  E_RATINGS,
+  nextERating,
+  nextStandardRating,
+  STANDARD_RATINGS,
+} from '../../../src/engine/checks/standardRatings.ts';
 
 describe('nextStandardRating', () => {
-  it('has the expected defaults: the NEC 240.6(A) list from 15 A to 6000 A (from memory)', () => {
+  it('has the expected defaults: the NFPA 70 240.6(A) list from 15 A to 6000 A (from memory)', () => {
     expect(STANDARD_RATINGS[0]).toBe(15);
     expect(STANDARD_RATINGS.at(-1)).toBe(6000);
     expect(STANDARD_RATINGS).toContain(1200);
@@ -19,5 +24,21 @@ describe('nextStandardRating', () => {
     expect(nextStandardRating(5)).toBe(15);
     expect(nextStandardRating(5, true)).toBe(6);
     expect(nextStandardRating(600.5, true)).toBe(601);
+  });
+});
+
+describe('nextERating', () => {
+  it('has the expected defaults: the common E-rating series 10E to 400E (common practice, from memory)', () => {
+    expect(E_RATINGS[0]).toBe(10);
+    expect(E_RATINGS.at(-1)).toBe(400);
+    expect(E_RATINGS).toContain(65);
+  });
+
+  it('rounds up within the E series, not the NEC 240.6(A) list', () => {
+    expect(nextERating(52.1)).toBe(65); // 240.6(A) would give 60 A
+    expect(nextERating(65)).toBe(65);
+    expect(nextERating(65.0001)).toBe(80);
+    expect(nextERating(400.5)).toBeUndefined();
+    expect(nextERating(52.1, [50, 55, 60])).toBe(55); // a maker's series given by the user
   });
 });
