@@ -1,11 +1,12 @@
 import type { Band } from '../band.ts';
 import { cableFindings } from '../checks/cableProtection.ts';
-import { nameOf, protectingDevice, surelyClearsFrom } from '../checks/context.ts';
+import { nameOf, protectingDevice } from '../checks/context.ts';
 import { checkPair } from '../checks/coordination.ts';
 import type { Finding } from '../checks/finding.ts';
 import type { MarginRule } from '../checks/margins.ts';
 import { motorFindings } from '../checks/motorStarting.ts';
 import { nec450Findings } from '../checks/nec450.ts';
+import { sensitivityCasesOf } from '../checks/sensitivity.ts';
 import { transformerFindings } from '../checks/transformerProtection.ts';
 import { locationBusOf } from '../network/index.ts';
 import { inrushMarkersOf, type Marker } from '../withstand/index.ts';
@@ -13,7 +14,6 @@ import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
 import type { Device } from '../study/index.ts';
 import { fullLoadOf } from './fullLoad.ts';
 import { publicBasis } from './publicBasis.ts';
-import { sensitivityCurrentOf } from './sensitivity.ts';
 import type { Trial } from './trial.ts';
 
 /** What a constraint is about (DESIGN §3 "constraint"). */
@@ -214,22 +214,31 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
     });
   }
 
-  const sensitivity = sensitivityCurrentOf(trial, device);
-  if (sensitivity) {
+  const sensitivity = sensitivityCasesOf(trial, device, trial.settings.sensitivity);
+  if (sensitivity.length > 0) {
+    const least = sensitivity.reduce((a, b) => (b.deviceAmps < a.deviceAmps ? b : a));
+    const bus = trial.network.buses.get(least.busId)!;
     constraints.push({
       id: 'sensitivity',
       kind: 'sensitivity',
-      label: `operate on the minimum line-to-line fault at ${sensitivity.busName}, ${formatAmps(sensitivity.amps, 3)}`,
+      label: `operate on the minimum faults in its zone (${least.fault} at ${bus.name ?? bus.id}: ${formatAmps(least.deviceAmps, 3)} through it)`,
       source: 'sensitivity to the minimum fault at the end of the zone (common practice)',
       favours: 'faster',
-      subjects: [sensitivity.busId],
+      subjects: [...new Set(sensitivity.map((c) => c.busId))],
       evaluate: (t) => {
-        const band = t.bands.get(deviceId)!;
-        const from = surelyClearsFrom(band, sensitivity.amps * 100, t.settings.horizon);
-        const margin = from === Infinity ? -100 : 100 * (sensitivity.amps / from - 1);
-        const ok = from <= sensitivity.amps * (1 + 1e-9);
-        const text = from === Infinity ? 'never sure to operate' : `sure to operate from ${formatAmps(from, 3)}`;
-        return { ok, clean: ok, margin, unit: '%', text };
+        const cases = sensitivityCasesOf(t, t.deviceOf(deviceId), t.settings.sensitivity);
+        const slowest = cases.reduce((a, b) => (b.clearingTime > a.clearingTime ? b : a), cases[0]);
+        const ok = cases.every((c) => c.clearingTime < Infinity);
+        const text = ok
+          ? `clears the least of them within ${formatSeconds(slowest.clearingTime)}`
+          : `may not operate on ${formatAmps(slowest.deviceAmps, 3)} (${slowest.fault})`;
+        return {
+          ok,
+          clean: ok,
+          margin: ok ? t.settings.sensitivity.maxTime - slowest.clearingTime : -Infinity,
+          unit: 's',
+          text,
+        };
       },
     });
   }

@@ -36,8 +36,6 @@ export type {
 export { settingText, changesText } from './settingText.ts';
 export { fullLoadOf } from './fullLoad.ts';
 export type { FullLoad } from './fullLoad.ts';
-export { sensitivityCurrentOf } from './sensitivity.ts';
-export type { SensitivityCurrent } from './sensitivity.ts';
 export { trialOf } from './trial.ts';
 export type { Trial, ProtectedElements } from './trial.ts';
 export { publicBasis } from './publicBasis.ts';
