@@ -27,6 +27,9 @@ describe('discern check', () => {
       /^# Coordination findings — Harrowmere Cold Store — fused primary/,
     );
     expect(md.stdout).toMatch(/^ok /m);
+    expect(String(md.files.get('out/findings.md'))).toMatch(
+      /\n`counts: \d+ fail, \d+ thin margin, \d+ not provable, \d+ warning, \d+ info, \d+ ok`\n/,
+    );
     const csv = await runVerb(['demo/harrowmere-fused.json', '--report', 'out/findings.csv'], checkCommand);
     expect(String(csv.files.get('out/findings.csv'))).toMatch(/^severity,kind,title/);
   });

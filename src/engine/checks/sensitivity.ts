@@ -1,5 +1,5 @@
 import { fastestOf, groundFaultBandOf, type Band } from '../band.ts';
-import { DELTA_WYE_TABLE } from '../fault/index.ts';
+import { DELTA_WYE_TABLE, secondaryWindingOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween, type Network } from '../network/index.ts';
 import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/index.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
@@ -66,7 +66,7 @@ export function zoneBusesOf(network: Network, device: Device): string[] {
 export function primaryShiftOf(transformer: Transformer, fault: SensitivityFault): number {
   if (transformer.phases === 1) {
     if (fault === 'line-to-line') return 1;
-    return centreTapped(transformer) ? 0.5 : 1;
+    return secondaryWindingOf(transformer) === 'centre-tapped' ? 0.5 : 1;
   }
   const row = DELTA_WYE_TABLE[transformer.connection][fault === 'line-to-line' ? 'lineToLine' : 'lineToGround'];
   const secondary = Math.max(...row.secondary);
@@ -208,10 +208,4 @@ function remedyOf(device: Device, c: SensitivityCase, maxTime: number): string {
 function worse(a: SensitivityCase, b: SensitivityCase): boolean {
   if (a.clearingTime !== b.clearingTime) return a.clearingTime > b.clearingTime;
   return a.deviceAmps < b.deviceAmps;
-}
-
-/** Whether a single-phase transformer's secondary is centre-tapped (120/240 V): as entered, else a 240 V secondary. */
-function centreTapped(transformer: Transformer): boolean {
-  const winding = transformer.secondaryWinding;
-  return winding === undefined ? transformer.secondary === 240 : winding === 'centre-tapped';
 }

@@ -1,6 +1,6 @@
 import type { Analysis } from '../analysis.ts';
 import { CAUTION } from '../caution.ts';
-import { findingRows, summaryText } from './findingsTable.ts';
+import { classesText, findingClassesOf, findingRows, summaryText } from './findingsTable.ts';
 
 /**
  * The findings report as Markdown: title block, caution, summary, a table of every finding (failures
@@ -21,6 +21,8 @@ export function markdownReport(analysis: Analysis): string {
     `> ${CAUTION}`,
     '',
     `**Summary:** ${summaryText(analysis)}.`,
+    '',
+    `\`${classesText(findingClassesOf(analysis))}\``,
     '',
     '| severity | check | finding | current range | worst margin |',
     '| --- | --- | --- | --- | --- |',
