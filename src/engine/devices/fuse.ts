@@ -1,13 +1,13 @@
 import { z } from 'zod';
 import type { Band } from '../band.ts';
-import { quantityField } from '../study/fields.ts';
+import { nameField, quantityField } from '../study/fields.ts';
 import { uniqueAscending } from './composite.ts';
 import { isValidTable, pointTableSchema, tableElement, upperBelowLower } from './pointTable.ts';
 
 const ampsTable = pointTableSchema({ current: 'a current in amperes', unit: ' A' });
 
 /**
- * Schema of a fuse characteristic (REFERENCE §4): `minimumMelting` and `totalClearing` as
+ * Schema of a fuse characteristic (minimum-melting and total-clearing curves, as ANSI C37.41 and UL 248 publish them): `minimumMelting` and `totalClearing` as
  * `[amperes, seconds]` tables (≥ 2 points, current ascending, time strictly descending), total
  * clearing never earlier than minimum melting and starting at no lower current; optional
  * `currentLimitingFrom` (A); `illustrative` (invented data, not a product) and `label`.
@@ -18,7 +18,7 @@ const ampsTable = pointTableSchema({ current: 'a current in amperes', unit: ' A'
 export const fuseSchema = z
   .object({
     kind: z.literal('fuse'),
-    label: z.string().optional(),
+    label: nameField.optional(),
     illustrative: z.boolean().default(false).meta({ description: 'invented curve data, not a product' }),
     minimumMelting: ampsTable,
     totalClearing: ampsTable,
@@ -49,7 +49,7 @@ export type Fuse = z.output<typeof fuseSchema>;
 
 /**
  * The band of a fuse: `minTime` is the minimum-melting curve, `maxTime` the total-clearing curve,
- * each interpolated linearly in log-log space between its points (REFERENCE §4.2).
+ * each interpolated linearly in log-log space between its points (common practice for digitised curves).
  * - Below a table's first current its edge is `Infinity` (the fuse does not melt / may never clear).
  * - Beyond a table's last current its edge holds the last tabulated time; the curves are not
  *   extrapolated, and `maxAmps` is the last tabulated current of the two tables.
@@ -62,9 +62,18 @@ export function fuseBand(fuse: Fuse): Band {
   const clearing = tableElement(fuse.totalClearing);
   const diagnostics: string[] = [];
   if (fuse.illustrative) diagnostics.push('illustrative curve, not a product: no selectivity claim may rest on it');
+  const meltingTime = melting.time;
+  const clearingTime = clearing.time;
   return {
-    minTime: melting.time,
-    maxTime: clearing.time,
+    minTime: meltingTime,
+    // The schema lets total clearing sit within a relative 1e-12 of minimum melting (the round trip
+    // through logarithms), so between points the two interpolations can cross by rounding: a fuse
+    // never clears before it melts, so the clearing edge is never below the melting one.
+    maxTime: (amps) => {
+      const clears = clearingTime(amps);
+      const melts = meltingTime(amps);
+      return clears >= melts ? clears : melts;
+    },
     breakpoints: Float64Array.from(uniqueAscending([...fuse.minimumMelting, ...fuse.totalClearing].map(([a]) => a))),
     minAmps: melting.pickup,
     maxAmps: Math.max(melting.lastAmps, clearing.lastAmps),

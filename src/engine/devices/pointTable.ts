@@ -12,26 +12,31 @@ export interface PointTableOptions {
 }
 
 /**
- * Schema of a point table (REFERENCE §4.2): at least 2 points, every value greater than 0, current
+ * Schema of a point table (a digitised curve, common practice): at least 2 points, every value greater than 0, current
  * ascending and time strictly descending. Each rejection names the point: `[3][1]: expected a time
  * below the previous point's 10 s, got "12"`.
  *
  * @example pointTableSchema({ current: 'a current in amperes', unit: ' A' }).parse([[200, 300], [1000, 0.1]])
  */
 export function pointTableSchema({ current, unit }: PointTableOptions) {
-  return z
-    .array(z.tuple([z.number(), z.number()]))
-    .superRefine((points, ctx) => {
-      if (points.length < 2) {
-        ctx.addIssue({ code: 'custom', message: `expected at least 2 points, got ${points.length}` });
-        return;
-      }
-      for (let i = 0; i < points.length; i++) {
-        const problem = pointProblem(points, i, { current, unit });
-        if (problem) ctx.addIssue({ code: 'custom', path: [i, problem.column], message: problem.message });
-      }
-    })
-    .meta({ description: `[${current.replace(/^an? /, '')}, seconds] pairs, current ascending, time descending` });
+  return (
+    z
+      .array(z.tuple([z.number().max(1e7), z.number().max(1e5)]))
+      // At most 1e7 A (or ×) and 1e5 s, like every current and time in a study; 1000 points is far
+      // more than any digitised curve needs and keeps band evaluation cheap.
+      .max(1000)
+      .superRefine((points, ctx) => {
+        if (points.length < 2) {
+          ctx.addIssue({ code: 'custom', message: `expected at least 2 points, got ${points.length}` });
+          return;
+        }
+        for (let i = 0; i < points.length; i++) {
+          const problem = pointProblem(points, i, { current, unit });
+          if (problem) ctx.addIssue({ code: 'custom', path: [i, problem.column], message: problem.message });
+        }
+      })
+      .meta({ description: `[${current.replace(/^an? /, '')}, seconds] pairs, current ascending, time descending` })
+  );
 }
 
 /**
@@ -75,8 +80,8 @@ export function isValidTable(points: readonly (readonly [number, number])[]): bo
 
 /**
  * A table curve as an edge element, with currents multiplied by `scale` (a thermal band given in
- * multiples of the rating). Between points it interpolates linearly in log-log space (REFERENCE
- * §4.2); below the first current it is `Infinity`; beyond the last it holds the last time.
+ * multiples of the rating). Between points it interpolates linearly in log-log space (common
+ * practice); below the first current it is `Infinity`; beyond the last it holds the last time.
  *
  * @example tableElement([[200, 300], [2000, 0.1]]).time(632.456) // ≈ 5.477 s (half way in log)
  */
