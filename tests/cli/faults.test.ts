@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { commands, faultsCommand } from '../../src/cli/commands/index.ts';
 import { assertInDelta } from '../asserts.ts';
+import { singlePhaseInput } from '../engine/fault/sequenceReference.ts';
 import { runVerb, spawnDiscern } from './run.ts';
 
 const demo = 'demo/harrowmere-selective.json';
@@ -21,12 +22,14 @@ describe('discern faults', () => {
   it('the table lists every bus with its voltage, max/min currents and the reflected values', async () => {
     const { stdout } = await run([demo]);
     expect(stdout).toMatch(
-      /bus +kV +3φ max A +3φ min A +L-L max A +L-L min A +L-G max A +L-G min A +X\/R max +motors A +at 12\.47 kV max\/min/,
+      /bus +kV +system +3φ max A +3φ min A +L-L max A +L-L min A +L-G max A +L-G min A +X\/R 3φ +X\/R L-G +motors A +at 12\.47 kV max\/min/,
     );
     for (const bus of ['MV', 'SWBD', 'MCC', 'DOCK', 'OFC-P', 'OFC'])
       expect(stdout).toMatch(new RegExp(`^${bus} `, 'm'));
-    // Demo T1 through-fault at 12.47 kV: 1094 A (REFERENCE §7.4); infinite bus 31 378 A (§7.1).
-    expect(stdout).toMatch(/^T1 +1500 +69 +1 804 +31 378 +\d[\d ]* +1 094 +1 094 +632$/m);
+    // Demo T1 through-fault at 12.47 kV: 1094 A; infinite bus 31 378 A (1804.22 A / 0.0575, IEEE 141 identity).
+    expect(stdout).toMatch(/^T1 +1500 +69 +1 804 +31 378 +\d[\d ]* +1 094 +1 094 +\d[\d ]*$/m);
+    // Each bus shows its current only at the voltages on its way to the source.
+    expect(stdout).toMatch(/^SWBD +0\.48 +3φ .* here *$/m);
     expect(stdout).toMatch(/Transformer secondary faults/);
     expect(stdout).toMatch(/qualified engineer/);
   });
@@ -38,10 +41,27 @@ describe('discern faults', () => {
     const swbd = json.buses.find((b: { busId: string }) => b.busId === 'SWBD');
     expect(swbd.volts).toBe(480);
     assertInDelta(swbd.max.threePhase - swbd.max.motorAmps, 28421.1, 1e-5); // REFERENCE §7.4 (computed)
-    expect(swbd.reflected.map((r: { volts: number }) => r.volts)).toEqual([12470, 208]);
+    expect(swbd.reflected.map((r: { volts: number }) => r.volts)).toEqual([12470]);
+    const ofc = json.buses.find((b: { busId: string }) => b.busId === 'OFC');
+    expect(ofc.reflected.map((r: { volts: number }) => r.volts)).toEqual([480, 12470]);
+    assertInDelta(ofc.reflected[1].maxAmps, (ofc.max.threePhase * 208) / 12470, 1e-12);
+    expect(swbd.phases).toBe(3);
+    expect(swbd.max.lineToGround).toBeGreaterThan(0);
     const t1 = json.transformers.find((t: { transformerId: string }) => t.transformerId === 'T1');
     assertInDelta(t1.reflectedToPrimary, 1093.99, 1e-5);
     expect(swbd.work.length).toBeGreaterThan(10);
+  });
+
+  it('a single-phase bus shows its full-winding and line-to-neutral faults and no three-phase fault', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'discern-faults-'));
+    const path = join(dir, 'single.json');
+    writeFileSync(path, JSON.stringify(singlePhaseInput()));
+    const { code, stdout } = await run([path]);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/^S +0\.24 +1φ +— +— +9 \d{3} /m);
+    expect(stdout).toMatch(
+      /^S: single-phase 120\/240 V centre-tapped; L-L is the full-winding fault, L-G the line-to-neutral \(half-winding\) fault\.$/m,
+    );
   });
 
   it('a bad study prints its first problem as one line, exit 2', async () => {

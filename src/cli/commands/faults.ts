@@ -15,13 +15,18 @@ const HELP = `discern faults <study.json> — bolted fault currents at every bus
 
 Maximum: maximum source, motors contributing (first cycle), cables at 75 °C.
 Minimum: minimum source, no motors, cable resistance at 90 °C.
-Line-to-ground is taken equal to three-phase on solidly grounded wye systems (Z0 = Z1), 0 on delta systems.
+Line-to-line and line-to-ground come from the sequence networks (Z2 = Z1): source Z0 as entered (else
+Z0 = Z1, solidly grounded), transformer connection and neutral grounding, cable Z0 as entered (else 3 × Z1).
+Each bus's current is also shown at the voltage levels it flows through on its way to the source.
+Single-phase buses (below a single-phase transformer) show the full-winding fault as L-L and the
+line-to-neutral (half-winding) fault as L-G; they have no three-phase fault.
 `;
 
 /**
- * `discern faults <study>`: a table of every bus (nominal voltage; max and min three-phase,
- * line-to-line and line-to-ground; X/R; motor contribution; the values reflected to the other voltage
- * levels), then each transformer's secondary fault and its primary-reflected value.
+ * `discern faults <study>`: a table of every bus (nominal voltage; three- or single-phase; max and min
+ * three-phase, line-to-line and line-to-ground; X/R of the three-phase and line-to-ground faults; motor
+ * contribution; the current at the voltage levels it flows through toward the source), then each
+ * transformer's secondary fault and its primary-side line currents.
  *
  * @example await faultsCommand.run(['demo/harrowmere-selective.json'], io)
  */
@@ -50,31 +55,48 @@ function textOf(study: Study, levels: FaultLevels): string {
   const headers = [
     'bus',
     'kV',
+    'system',
     '3φ max A',
     '3φ min A',
     'L-L max A',
     'L-L min A',
     'L-G max A',
     'L-G min A',
-    'X/R max',
+    'X/R 3φ',
+    'X/R L-G',
     'motors A',
     ...voltages.map((v) => `at ${significant(v / 1000, 4)} kV max/min`),
   ];
-  const rows = buses.map((b) => [
-    b.busId,
-    significant(b.volts / 1000, 4),
-    tableAmps(b.max.threePhase),
-    tableAmps(b.min.threePhase),
-    tableAmps(b.max.lineToLine),
-    tableAmps(b.min.lineToLine),
-    tableAmps(b.max.lineToGround),
-    tableAmps(b.min.lineToGround),
-    b.max.xr === Infinity ? '∞' : significant(b.max.xr, 3),
-    tableAmps(b.max.motorAmps),
-    ...voltages.map((v) => reflectedCell(b, v)),
-  ]);
-  const right = headers.map((_, c): 'left' | 'right' => (c === 0 ? 'left' : 'right'));
+  const ratio = (xr: number) => (Number.isNaN(xr) ? '—' : xr === Infinity ? '∞' : significant(xr, 3));
+  const rows = buses.map((b) => {
+    const single = b.phases === 1;
+    return [
+      b.busId,
+      significant(b.volts / 1000, 4),
+      single ? '1φ' : '3φ',
+      single ? '—' : tableAmps(b.max.threePhase),
+      single ? '—' : tableAmps(b.min.threePhase),
+      tableAmps(b.max.lineToLine),
+      tableAmps(b.min.lineToLine),
+      tableAmps(b.max.lineToGround),
+      tableAmps(b.min.lineToGround),
+      ratio(b.max.xr),
+      ratio(b.max.lineToGroundXr),
+      tableAmps(b.max.motorAmps),
+      ...voltages.map((v) => (v === b.volts ? 'here' : reflectedCell(b, v))),
+    ];
+  });
+  const right = headers.map((_, c): 'left' | 'right' => (c === 0 || c === 2 ? 'left' : 'right'));
   const parts = [`${study.name}: bolted fault currents (symmetrical RMS)`, '', formatTable(headers, rows, right)];
+  const singles = buses.filter((b) => b.phases === 1);
+  if (singles.length > 0)
+    parts.push(
+      '',
+      ...singles.map(
+        (b) =>
+          `${b.busId}: ${b.system}; L-L is the full-winding fault, L-G the ${b.system.includes('centre-tapped') ? 'line-to-neutral (half-winding)' : 'grounded-leg'} fault.`,
+      ),
+    );
   if (levels.transformers.size > 0) {
     const tHeaders = [
       'transformer',
@@ -115,7 +137,7 @@ function textOf(study: Study, levels: FaultLevels): string {
   if (levels.diagnostics.length > 0) parts.push('', ...levels.diagnostics.map((d) => `note: ${d}`));
   parts.push(
     '',
-    'Line-to-ground taken equal to three-phase on solidly grounded wye systems (Z0 = Z1, common practice).',
+    'Unbalanced faults by symmetrical components with Z2 = Z1 (IEEE 399). Without entered data: a solidly grounded source with Z0 = Z1, transformer Z0 = Z1, cable Z0 = 3 × Z1, half-winding 1.5 × R and 1.2 × X (common practice).',
     CAUTION,
     '',
   );
@@ -124,7 +146,7 @@ function textOf(study: Study, levels: FaultLevels): string {
 
 function reflectedCell(bus: BusFault, volts: number): string {
   const r = bus.reflected.find((x) => x.volts === volts);
-  return r ? `${tableAmps(r.maxAmps)} / ${tableAmps(r.minAmps)}` : '—';
+  return r ? `${tableAmps(r.maxAmps)} / ${tableAmps(r.minAmps)}` : '';
 }
 
 function jsonOf(study: Study, levels: FaultLevels) {

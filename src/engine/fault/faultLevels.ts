@@ -126,7 +126,12 @@ export function faultLevelsOf(network: Network): FaultLevels {
     toleranced: false,
   });
   const zeroMax = zeroSequenceOf(network, max, maxLevel);
-  const zeroMin = zeroSequenceOf(network, min, minLevel);
+  const zeroMin = zeroSequenceOf(
+    network,
+    min,
+    minLevel,
+    source.kind === 'utility' && source.min ? 'study.source.min' : 'study.source.max',
+  );
   const singleMax = singlePhaseBusesOf(network, max, zeroMax, true);
   const singleMin = singlePhaseBusesOf(network, min, zeroMin, false);
 

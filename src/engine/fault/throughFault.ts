@@ -44,6 +44,9 @@ export function throughFaultOf(
     return { threePhase: bus.max.threePhase, lineToLine: bus.max.lineToLine, lineToGround: bus.max.lineToGround };
   const tree = faults.trees.max;
   const toward = tree.toward.get(locationBus)!;
+  // At an infinite bus everything comes from the source, and there is no limit.
+  if (magnitudeOf(toward) === 0)
+    return { threePhase: Infinity, lineToLine: Infinity, lineToGround: bus.max.lineToGround > 0 ? Infinity : 0 };
   // The share of the fault's positive-sequence current that passes `upstream`, relative to what arrives from above.
   let share: Impedance = { r: 1, x: 0 };
   let at = locationBus;
@@ -52,6 +55,7 @@ export function throughFaultOf(
     const feeder = network.feederOf.get(at);
     if (!feeder || network.deviceFeeding.get(feeder.item.id) === upstream) break;
     const from = feeder.item.from;
+    if (magnitudeOf(tree.toward.get(from)!) === 0) break; // an infinite source takes the whole current
     share = multiplyComplex(share, divideComplex(tree.behind.get(feeder.item.id)!, tree.toward.get(from)!));
     at = from;
   }

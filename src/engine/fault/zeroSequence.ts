@@ -57,7 +57,7 @@ export function sourceZeroSequenceOf(
   z1: Impedance,
   volts: number,
   grounding: Grounding | undefined,
-  path = 'study.source',
+  path = 'study.source.max',
 ): { z0: Impedance | undefined; steps: WorkStep[] } {
   const zn = neutralImpedanceOf(grounding);
   if (!zn)
@@ -193,13 +193,24 @@ export interface ZeroSequenceNetwork {
  *
  * @example zeroSequenceOf(network, maxTree, study.source.max).atBus.get('SWBD')
  */
-export function zeroSequenceOf(network: Network, tree: FaultTree, level: SourceLevel | undefined): ZeroSequenceNetwork {
+export function zeroSequenceOf(
+  network: Network,
+  tree: FaultTree,
+  level: SourceLevel | undefined,
+  levelPath = 'study.source.max',
+): ZeroSequenceNetwork {
   const study: Study = network.study;
   const volts = (busId: string) => network.buses.get(busId)!.voltage;
   const steps = new Map<string, WorkStep[]>();
   const root = study.source.bus;
   const sourceGrounding = study.source.kind === 'utility' ? study.source.grounding : undefined;
-  const source = sourceZeroSequenceOf(level, tree.branchZ.get(study.source.id)!, volts(root), sourceGrounding);
+  const source = sourceZeroSequenceOf(
+    level,
+    tree.branchZ.get(study.source.id)!,
+    volts(root),
+    sourceGrounding,
+    levelPath,
+  );
   steps.set(study.source.id, source.steps);
   const atBus = new Map<string, Impedance | undefined>([[root, source.z0]]);
   const order = [root];

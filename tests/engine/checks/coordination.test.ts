@@ -140,3 +140,54 @@ describe('checkPair for a ground fault', () => {
     expect(finding.title).toBe('MAIN over FDR: overlap for a ground fault');
   });
 });
+
+describe('checkPair below a single-phase transformer', () => {
+  /** A 50 kVA 12.47 kV–120/240 V unit across two lines, a primary relay and a 240 V main (invented settings). */
+  function singlePhaseStudy(primary: string): StudyInput {
+    return {
+      discern: 1,
+      name: 'single-phase pair',
+      source: { kind: 'utility', id: 'U', bus: 'MV', max: { available: '250 MVA', xr: 12 } },
+      buses: [
+        { id: 'MV', voltage: '12.47 kV' },
+        { id: 'S', voltage: 240 },
+      ],
+      transformers: [
+        { id: 'T', from: 'MV', to: 'S', rating: '50 kVA', primary, secondary: 240, impedance: 2.1, xr: 2, phases: 1 },
+      ],
+      devices: [
+        {
+          id: 'R',
+          feeds: 'T',
+          characteristic: {
+            kind: 'relay',
+            ct: '10:5',
+            timeOvercurrent: { curve: 'definite-time', pickup: 5, delay: 0.5 },
+          },
+        },
+        {
+          id: 'MAIN',
+          feeds: 'S',
+          characteristic: { kind: 'trip-unit', sensor: 200, longTime: { pickup: 1, delay: 10 } },
+        },
+      ],
+    };
+  }
+
+  it('checks the full-winding fault and the line-to-neutral fault, of which the primary sees half (half the turns)', () => {
+    const analysis = analyseStudy(parseStudy(singlePhaseStudy('12.47 kV')));
+    const [pair] = analysis.pairs;
+    const bus = analysis.faults.buses.get('S')!;
+    expect(pair.cases.map((c) => [c.fault, c.upstreamShift])).toEqual([
+      ['single-phase', 1],
+      ['line-to-neutral', 0.5],
+    ]);
+    assertInDelta(pair.cases[0].intervals.at(-1)!.toAmps, bus.max.lineToLine, 1e-12);
+    assertInDelta(pair.cases[1].intervals.at(-1)!.toAmps, bus.max.lineToGround, 1e-12);
+  });
+
+  it('a unit connected line to neutral puts √3 times the bus-ratio current in its primary line', () => {
+    const [pair] = analyseStudy(parseStudy(singlePhaseStudy('7.2 kV'))).pairs;
+    expect(pair.cases.map((c) => c.upstreamShift)).toEqual([Math.sqrt(3), Math.sqrt(3) / 2]);
+  });
+});

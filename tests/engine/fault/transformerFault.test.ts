@@ -4,6 +4,7 @@ import { faultLevelsOf } from '../../../src/engine/fault/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
+import { deltaWyeInput, singlePhaseInput } from './sequenceReference.ts';
 import { case72Input, study } from './studies.ts';
 
 const demo = faultLevelsOf(networkOf(parseStudy(readFileSync('demo/harrowmere-selective.json', 'utf8'))));
@@ -20,11 +21,39 @@ describe('transformerFaultOf', () => {
     assertInDelta(t1.fullLoadAmps.primary, 69.449, 1e-5);
     assertInDelta(t1.reflectedToPrimary, 1093.99, 1e-5);
     assertInDelta(t1.unbalanced.lineToLine.secondaryAmps, 24613.4, 1e-5);
-    assertInDelta(t1.unbalanced.lineToGround.primaryLineAmps[0], 631.62, 1e-5);
     assertInDelta(t1.unbalanced.lineToLine.primaryLineAmps[0], 1093.99, 1e-5);
     assertInDelta(t1.sourceImpedancePu, 0.006, 1e-9); // 1.5 MVA / 250 MVA
     expect(t1.secondaryAmps).toBe(demo.buses.get('SWBD')!.max.threePhase);
-    expect(t1.factors.withstandShift).toBe(0.58);
+    expect(t1.factors.withstandShift).toBe(1 / Math.sqrt(3)); // IEEE C37.91 0.58, exact
+  });
+
+  it('a secondary L-G fault on a Δ–Yg unit: the winding carries I_LG, two primary lines I_LG · (V_s/V_p) / √3 (symmetrical components, IEEE 399)', () => {
+    const levels = faultLevelsOf(networkOf(study(deltaWyeInput())));
+    const t = levels.transformers.get('T')!;
+    const lg = levels.buses.get('LV')!.max.lineToGround;
+    assertInDelta(t.unbalanced.lineToGround.secondaryAmps, lg, 1e-9);
+    const line = (lg * 480) / 12470 / Math.sqrt(3);
+    assertInDelta(t.unbalanced.lineToGround.primaryLineAmps[0], line, 1e-9);
+    expect(t.unbalanced.lineToGround.primaryLineAmps.filter((a) => a > 1e-6 * line)).toHaveLength(2);
+    // A Yg–Yg unit passes the zero sequence: one primary line carries I_LG · V_s / V_p.
+    const input = deltaWyeInput();
+    input.transformers![0].connection = 'wye-wye';
+    const yy = faultLevelsOf(networkOf(study(input)));
+    const lgYY = yy.buses.get('LV')!.max.lineToGround;
+    assertInDelta(
+      Math.max(...yy.transformers.get('T')!.unbalanced.lineToGround.primaryLineAmps),
+      (lgYY * 480) / 12470,
+      1e-9,
+    );
+  });
+
+  it('a single-phase unit across two lines: the through-fault reflects by V_s / V_p into two primary lines', () => {
+    const levels = faultLevelsOf(networkOf(study(singlePhaseInput())));
+    const t = levels.transformers.get('T1P')!;
+    const full = levels.buses.get('S')!.max.lineToLine;
+    assertInDelta(t.reflectedToPrimary, (full * 240) / 12470, 1e-9);
+    expect(t.unbalanced.lineToLine.primaryLineAmps).toEqual([t.reflectedToPrimary, t.reflectedToPrimary, 0]);
+    assertInDelta(t.fullLoadAmps.secondary, 50e3 / 240, 1e-12);
   });
 
   it('112.5 kVA 480–208Y/120 3.5 %Z: FLA 312.269 / 135.316 A and infinite bus 8921.97 A, REFERENCE §7.3 (computed)', () => {

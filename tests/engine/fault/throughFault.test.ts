@@ -1,0 +1,122 @@
+import { describe, expect, it } from 'vitest';
+import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { faultLevelsOf, throughFaultOf } from '../../../src/engine/fault/index.ts';
+import { networkOf } from '../../../src/engine/network/index.ts';
+import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { assertInDelta } from '../../asserts.ts';
+import { abs, add, baseAmps3, baseOhms, div, mul, par, polar, scale, type C } from './perUnit.ts';
+
+/**
+ * 250 MVA X/R 12 at 12.47 kV, a 1500 kVA 5.75 %Z X/R 6 Δ–Yg unit to a 480 V switchboard with a motor
+ * group of 500 A FLA on it, and 100 ft of 2 × 500 kcmil Cu (steel conduit) to an MCC with a 200 A FLA
+ * motor group. A primary relay, a switchboard main, a feeder to the MCC and the MCC's motor feeder (invented).
+ */
+export function motorStudy(): StudyInput {
+  const tripUnit = (sensor: number) => ({ kind: 'trip-unit' as const, sensor, longTime: { pickup: 1, delay: 10 } });
+  return {
+    discern: 1,
+    name: 'motor contribution through two devices',
+    source: { kind: 'utility', id: 'U', bus: 'MV', max: { available: '250 MVA', xr: 12 } },
+    buses: [
+      { id: 'MV', voltage: '12.47 kV' },
+      { id: 'SWBD', voltage: 480 },
+      { id: 'MCC', voltage: 480 },
+    ],
+    transformers: [
+      {
+        id: 'T',
+        from: 'MV',
+        to: 'SWBD',
+        rating: '1500 kVA',
+        primary: '12.47 kV',
+        secondary: 480,
+        impedance: 5.75,
+        xr: 6,
+      },
+    ],
+    cables: [{ id: 'C', from: 'SWBD', to: 'MCC', size: '500 kcmil', sets: 2, length: '100 ft', conduit: 'steel' }],
+    motors: [
+      { id: 'M1', bus: 'SWBD', fullLoadAmps: 500, xr: 6 },
+      { id: 'M2', bus: 'MCC', fullLoadAmps: 200, xr: 6 },
+    ],
+    devices: [
+      {
+        id: 'R',
+        feeds: 'T',
+        characteristic: {
+          kind: 'relay',
+          ct: '100:5',
+          timeOvercurrent: { curve: 'definite-time', pickup: 5, delay: 0.5 },
+        },
+      },
+      { id: 'MAIN', feeds: 'SWBD', characteristic: tripUnit(2000) },
+      { id: 'F', feeds: 'C', characteristic: tripUnit(800) },
+      { id: 'FM', feeds: 'M2', characteristic: tripUnit(250) },
+    ],
+  };
+}
+
+// Hand solution in per unit on 1500 kVA, 480 V (IEEE 141 / IEEE 399 per-unit method; motors as
+// parallel sources at 4 × FLA, common practice). With equal pre-fault voltages, the current a bus
+// receives from its feeder divides at the bus above in inverse proportion to the parallel paths there.
+const S = 1.5e6;
+const ib = baseAmps3(S, 480);
+const zs = polar(S / 250e6, 12);
+const zt = polar(0.0575, 6);
+const zm1 = polar(ib / (4 * 500), 6);
+const zm2 = polar(ib / (4 * 200), 6);
+const zc: C = scale([0.029 * 0.1, 0.048 * 0.1], 1 / 2 / baseOhms(S, 480));
+const one: C = [1, 0];
+
+describe('throughFaultOf', () => {
+  const study = parseStudy(motorStudy());
+  const network = networkOf(study);
+  const faults = faultLevelsOf(network);
+  const device = (id: string) => network.devices.get(id)!;
+
+  it('main over the MCC feeder, fault just below the feeder: the source side alone, not the switchboard motors', () => {
+    const through = throughFaultOf(network, faults, device('MAIN'), 'SWBD');
+    assertInDelta(through.threePhase, ib / abs(add(zs, zt)), 1e-9);
+    // The bus total also has M1 and M2 (through the cable) in it.
+    const total = ib / abs(par(par(add(zs, zt), zm1), add(zc, zm2)));
+    assertInDelta(faults.buses.get('SWBD')!.max.threePhase, total, 1e-9);
+    expect(through.threePhase).toBeLessThan(total);
+    assertInDelta(through.lineToLine, (Math.sqrt(3) / 2) * through.threePhase, 1e-12);
+  });
+
+  it('the MCC feeder over the motor feeder: the switchboard motors pass through both, the MCC motor does not', () => {
+    const toward = add(par(add(zs, zt), zm1), zc);
+    assertInDelta(throughFaultOf(network, faults, device('F'), 'MCC').threePhase, ib / abs(toward), 1e-9);
+  });
+
+  it('two buses up, the current divides at the switchboard: the main carries I · Z_M1 / (Z_S + Z_T + Z_M1)', () => {
+    const toward = add(par(add(zs, zt), zm1), zc);
+    const arriving = div(one, toward);
+    const share = div(zm1, add(zs, zt, zm1));
+    assertInDelta(
+      throughFaultOf(network, faults, device('MAIN'), 'MCC').threePhase,
+      ib * abs(mul(arriving, share)),
+      1e-9,
+    );
+  });
+
+  it('line-to-ground through the main: I0 · (2·c1 + 1), c1 the share of positive sequence from the source side (symmetrical components, IEEE 399)', () => {
+    const z1 = par(par(add(zs, zt), zm1), add(zc, zm2));
+    const i0 = div(one, add(z1, z1, zt));
+    const c1 = div(z1, add(zs, zt));
+    const expected = ib * abs(mul(i0, add(scale(c1, 2), one)));
+    assertInDelta(throughFaultOf(network, faults, device('MAIN'), 'SWBD').lineToGround, expected, 1e-9);
+    // Below the bus total, since the motors carry no zero sequence but do carry positive sequence.
+    expect(expected).toBeLessThan(faults.buses.get('SWBD')!.max.lineToGround);
+  });
+
+  it('the pair checks end their ranges there, and the relay over the main gets the Δ–Y line-to-line case shifted by exactly 2/√3', () => {
+    const analysis = analyseStudy(study);
+    const pair = (up: string, down: string) => analysis.pairs.find((p) => p.upstream === up && p.downstream === down)!;
+    assertInDelta(pair('MAIN', 'F').cases[0].intervals.at(-1)!.toAmps, ib / abs(add(zs, zt)), 1e-9);
+    const relay = pair('R', 'MAIN');
+    const lineToLine = relay.cases.find((c) => c.fault === 'line-to-line')!;
+    expect(lineToLine.upstreamShift).toBe(2 / Math.sqrt(3));
+    assertInDelta(lineToLine.intervals.at(-1)!.toAmps, (Math.sqrt(3) / 2) * (ib / abs(add(zs, zt))), 1e-9);
+  });
+});
