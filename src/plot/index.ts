@@ -22,7 +22,7 @@ export { scalesOf, scaleOf, pixelOf, valueOf, decadeRangeOf, drawWindowOf, drawB
 export type { LogAxis, SheetScales, PlotFrame, DrawWindow } from './scales.ts';
 export { logTicks, tickLabel } from './ticks.ts';
 export type { Tick } from './ticks.ts';
-export { OKABE_ITO, CURVE_COLOURS, SHEET_COLOURS, curveColour } from './palette.ts';
+export { OKABE_ITO, CURVE_COLOURS, ALL_CURVE_COLOURS, REGION_COLOURS, SHEET_COLOURS, curveColour } from './palette.ts';
 export { boxesOverlap, boxInside } from './geometry.ts';
 export type { Box, Paint, Tagged, PathItem, RectItem, TextItem, Primitive, HatchPattern, Layer } from './geometry.ts';
 export { placeLabels, candidatesAround, pointsAlong } from './layout.ts';

@@ -44,14 +44,23 @@ export interface LayoutOptions {
   gap?: number;
   /** Grid step of the fallback search, px. @default 6 */
   searchStep?: number;
+  /** How far from its anchor (px) the fallback search looks for a free spot. @default 240 */
+  searchRadius?: number;
+  /** How many labels may use the fallback search; later ones with no free candidate are unplaced. @default 80 */
+  searchLimit?: number;
 }
+
+/** Side of a cell of the spatial grids, px. */
+const CELL = 32;
 
 /**
  * Places labels one after another, each in its cheapest candidate box that lies inside `bounds`,
  * overlaps no placed label or obstacle (with `gap` px to spare), counting the curve segments it
- * would cover. A label with no free candidate is put in the nearest free spot of a grid over the
- * bounds, with a leader line back to its anchor. Boxes never overlap; a label that finds no spot at
- * all is listed in `unplaced`.
+ * would cover. A label with no free candidate is put in the nearest free spot of a grid around its
+ * anchor (within `searchRadius` px), with a leader line back to its anchor. Boxes never overlap; a
+ * label that finds no spot at all is listed in `unplaced`. Curve segments and placed boxes are kept
+ * in a coarse grid of cells, so the work grows with the number of labels and segments, not their
+ * product.
  * @example placeLabels([request], { bounds }).placed[0].box
  */
 export function placeLabels(
@@ -59,18 +68,18 @@ export function placeLabels(
   options: LayoutOptions,
 ): { placed: LabelPlacement[]; unplaced: string[] } {
   const { bounds, obstacles = [], lines = [], lineOwners = [], lineCost = 4, gap = 1, searchStep = 6 } = options;
-  const { nearGap = 6, nearCost = 1 } = options;
-  const taken: Box[] = [...obstacles];
+  const { nearGap = 6, nearCost = 1, searchRadius = 240, searchLimit = 80 } = options;
+  const segments = new SegmentIndex(lines, lineOwners, CELL);
+  const taken = new BoxIndex(CELL);
+  for (const o of obstacles) taken.add(o);
   const placed: LabelPlacement[] = [];
   const unplaced: string[] = [];
-  const others = (id: string) => lines.filter((_, i) => lineOwners[i] !== undefined && lineOwners[i] !== id);
-  const free = (box: Box) => boxInside(box, bounds) && !taken.some((t) => boxesOverlap(grow(box, gap), t));
+  const free = (box: Box) => boxInside(box, bounds) && !taken.overlaps(grow(box, gap));
+  let searches = 0;
 
   for (const request of requests) {
-    const foreign = others(request.id);
     const lineCosts = (box: Box) =>
-      lineCost * countCrossings(lines, box) +
-      (foreign.length ? nearCost * countCrossings(foreign, grow(box, nearGap)) : 0);
+      lineCost * segments.count(box) + nearCost * segments.count(grow(box, nearGap), request.id);
     let best: LabelCandidate | null = null;
     let bestCost = Infinity;
     for (const candidate of request.candidates) {
@@ -79,15 +88,17 @@ export function placeLabels(
       if (cost < bestCost) [best, bestCost] = [candidate, cost];
     }
     let leader: LabelPlacement['leader'] = null;
-    if (!best) {
-      best = searchFree(request, bounds, searchStep, free, lineCosts);
+    // The wider search is bounded in reach and in count, so a crowded sheet stays quick; the rest go to the key.
+    if (!best && searches < searchLimit) {
+      searches++;
+      best = searchFree(request, bounds, searchStep, searchRadius, free, lineCosts);
       if (best) leader = leaderOf(request.anchor, best.box);
     }
     if (!best) {
       unplaced.push(request.id);
       continue;
     }
-    taken.push(best.box);
+    taken.add(best.box);
     placed.push({ id: request.id, box: best.box, leader });
   }
   return { placed, unplaced };
@@ -148,18 +159,23 @@ export function pointsAlong(polyline: Float64Array, count: number): [number, num
   return out;
 }
 
-// Accepts a request with no free candidate; the free grid spot nearest its anchor, counting crossings.
+// Accepts a request with no free candidate; the free grid spot nearest its anchor within `radius`, counting crossings.
 function searchFree(
   request: LabelRequest,
   bounds: Box,
   step: number,
+  radius: number,
   free: (box: Box) => boolean,
   crossingCost: (box: Box) => number,
 ): LabelCandidate | null {
   const { width, height, anchor } = request;
   let best: LabelCandidate | null = null;
-  for (let y = bounds.y + 2; y + height <= bounds.y + bounds.height - 2; y += step) {
-    for (let x = bounds.x + 2; x + width <= bounds.x + bounds.width - 2; x += step) {
+  const x0 = Math.max(bounds.x + 2, anchor[0] - radius - width);
+  const x1 = Math.min(bounds.x + bounds.width - 2 - width, anchor[0] + radius);
+  const y0 = Math.max(bounds.y + 2, anchor[1] - radius - height);
+  const y1 = Math.min(bounds.y + bounds.height - 2 - height, anchor[1] + radius);
+  for (let y = y0; y <= y1; y += step) {
+    for (let x = x0; x <= x1; x += step) {
       const box = { x, y, width, height };
       const [lx, ly] = nearestPoint(anchor, box);
       const distanceCost = Math.hypot(lx - anchor[0], ly - anchor[1]) / 10;
@@ -183,14 +199,92 @@ function nearestPoint([x, y]: [number, number], box: Box): [number, number] {
   return [Math.min(Math.max(x, box.x), box.x + box.width), Math.min(Math.max(y, box.y), box.y + box.height)];
 }
 
-// Accepts curve lines as interleaved pixels; how many of their segments touch the box.
-function countCrossings(lines: Float64Array[], box: Box): number {
-  let count = 0;
-  for (const line of lines) {
-    for (let i = 0; i + 3 < line.length; i += 2)
-      if (segmentCrossesBox(line[i], line[i + 1], line[i + 2], line[i + 3], box)) count++;
+// Accepts curve lines and their owners; answers how many segments touch a box, through a grid of cells.
+class SegmentIndex {
+  readonly #cells = new Map<number, number[]>();
+  readonly #lines: Float64Array[];
+  readonly #owners: (string | undefined)[];
+  /** Each segment's line and its first point's offset in that line. */
+  readonly #segLine: number[] = [];
+  readonly #segAt: number[] = [];
+  /** Per segment, the last query that counted it, so a segment in several cells counts once. */
+  #seen: Int32Array;
+  #query = 0;
+  readonly #cell: number;
+
+  constructor(lines: Float64Array[], owners: (string | undefined)[], cell: number) {
+    this.#lines = lines;
+    this.#owners = owners;
+    this.#cell = cell;
+    lines.forEach((line, l) => {
+      for (let i = 0; i + 3 < line.length; i += 2) {
+        const id = this.#segLine.length;
+        this.#segLine.push(l);
+        this.#segAt.push(i);
+        const [ax, ay, bx, by] = [line[i], line[i + 1], line[i + 2], line[i + 3]];
+        if (![ax, ay, bx, by].every(Number.isFinite)) continue;
+        forCells(Math.min(ax, bx), Math.min(ay, by), Math.max(ax, bx), Math.max(ay, by), cell, (key) => {
+          const list = this.#cells.get(key);
+          if (list) list.push(id);
+          else this.#cells.set(key, [id]);
+        });
+      }
+    });
+    this.#seen = new Int32Array(this.#segLine.length);
   }
-  return count;
+
+  /** Segments touching the box; with `notOwnedBy`, only those of lines that have an owner other than it. */
+  count(box: Box, notOwnedBy?: string): number {
+    const query = ++this.#query;
+    let count = 0;
+    forCells(box.x, box.y, box.x + box.width, box.y + box.height, this.#cell, (key) => {
+      for (const id of this.#cells.get(key) ?? []) {
+        if (this.#seen[id] === query) continue;
+        this.#seen[id] = query;
+        const l = this.#segLine[id];
+        if (notOwnedBy !== undefined) {
+          const owner = this.#owners[l];
+          if (owner === undefined || owner === notOwnedBy) continue;
+        }
+        const line = this.#lines[l];
+        const i = this.#segAt[id];
+        if (segmentCrossesBox(line[i], line[i + 1], line[i + 2], line[i + 3], box)) count++;
+      }
+    });
+    return count;
+  }
+}
+
+// Accepts boxes as they are placed; answers whether a box overlaps any, through a grid of cells.
+class BoxIndex {
+  readonly #cells = new Map<number, Box[]>();
+  readonly #cell: number;
+  constructor(cell: number) {
+    this.#cell = cell;
+  }
+  add(box: Box): void {
+    forCells(box.x, box.y, box.x + box.width, box.y + box.height, this.#cell, (key) => {
+      const list = this.#cells.get(key);
+      if (list) list.push(box);
+      else this.#cells.set(key, [box]);
+    });
+  }
+  overlaps(box: Box): boolean {
+    let hit = false;
+    forCells(box.x, box.y, box.x + box.width, box.y + box.height, this.#cell, (key) => {
+      if (!hit) hit = (this.#cells.get(key) ?? []).some((b) => boxesOverlap(box, b));
+    });
+    return hit;
+  }
+}
+
+// Accepts a rectangle's corners; calls back with the key of every grid cell it touches.
+function forCells(x0: number, y0: number, x1: number, y1: number, cell: number, visit: (key: number) => void): void {
+  const c0 = Math.floor(x0 / cell);
+  const c1 = Math.floor(x1 / cell);
+  const r0 = Math.floor(y0 / cell);
+  const r1 = Math.floor(y1 / cell);
+  for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) visit((r + 4096) * 8192 + (c + 4096));
 }
 
 // Accepts a box; the same box grown by `by` px on every side.

@@ -10,12 +10,14 @@ import type { SheetInput } from './sheetInput.ts';
 export interface SheetCodes {
   colours: Map<string, string>;
   coincident: Map<string, boolean>;
+  /** Each band's edge dash pattern ('' for solid). */
+  dashes: Map<string, string>;
   patternIds: Map<string, string>;
   markerColours: string[];
 }
 
 /**
- * The legend of a sheet, grouped in drawing order: devices, withstand curves, motor starting,
+ * The legend entries of a sheet (its key shows those the plot could not label), grouped in drawing order: devices, withstand curves, motor starting,
  * markers, fault currents, and the findings' regions. A curve drawn on another voltage base says so
  * ("480 V device, shown at 12.47 kV").
  * @example legendEntriesOf(input, codes).map((e) => e.group) // ['Devices', 'Devices', 'Fault current']
@@ -30,7 +32,12 @@ export function legendEntriesOf(input: SheetInput, codes: SheetCodes): LegendEnt
     entries.push({
       group: 'Devices',
       text: `${b.label}${base(b.ownVolts, 'device')}`,
-      swatch: { kind: 'band', colour: colour(b.id), coincident: codes.coincident.get(b.id) ?? false },
+      swatch: {
+        kind: 'band',
+        colour: colour(b.id),
+        coincident: codes.coincident.get(b.id) ?? false,
+        dash: codes.dashes.get(b.id) || undefined,
+      },
       dataId: b.id,
     });
   for (const w of input.withstand)

@@ -3,34 +3,35 @@ import type { Box, HatchPattern, Layer, Primitive, TextItem } from './geometry.t
 import { candidatesAround, placeLabels, pointsAlong, type LabelPlacement } from './layout.ts';
 import { legendEntriesOf } from './legendEntries.ts';
 import { axisX, axisY, plotFrame } from './marks/axis.ts';
-import { bandArea } from './marks/bandArea.ts';
-import { caution } from './marks/caution.ts';
-import { faultLine } from './marks/faultLine.ts';
+import { BAND_DASHES, bandArea } from './marks/bandArea.ts';
+import { faultBandHeight, faultLabelBand, faultLabelSlots, faultLine } from './marks/faultLine.ts';
 import { gridX, gridY, halfCycleRule } from './marks/grid.ts';
 import { labelItems, labelSize, type LabelSpec } from './marks/label.ts';
-import { legend } from './marks/legend.ts';
+import { legend, legendHeight } from './marks/legend.ts';
 import { marker } from './marks/marker.ts';
 import { overlapHatch, overlapHatchDefaults } from './marks/overlapHatch.ts';
-import { startingLine } from './marks/startingLine.ts';
-import { sheetTitle, titleBlock } from './marks/titleBlock.ts';
-import { withstandLine, type CurveGeometry } from './marks/withstandLine.ts';
+import { startingLine, startingLineDefaults } from './marks/startingLine.ts';
+import { studyStrip } from './marks/studyStrip.ts';
+import { withstandLine, withstandLineDefaults, type CurveGeometry } from './marks/withstandLine.ts';
 import { curveColour, OKABE_ITO } from './palette.ts';
 import { drawWindowOf, scalesOf, type DrawWindow, type PlotFrame, type SheetScales } from './scales.ts';
 import { inferCurrentRange } from './currentRange.ts';
-import { frameOf } from './sheetFrame.ts';
+import { frameOf, type SheetFrame } from './sheetFrame.ts';
 import { checkSheetInput, type RegionStatus, type SheetInput } from './sheetInput.ts';
 import { resolveSheetOptions, type SheetOptions } from './sheetOptions.ts';
-import { textWidth, truncateText } from './textWidth.ts';
+import { textWidth } from './textWidth.ts';
 
 /** Default time axis of a sheet (s): the half-cycle line to 1000 s, as TCC paper prints it. */
 export const DEFAULT_TIME_RANGE: [number, number] = [0.01, 1000];
 
-/** A curve on the sheet, for the probe and the findings panel: what it is and the colour it got. */
+/** A curve on the sheet, for the probe, the guide and the findings panel: what it is and the colour and edge pattern it got. */
 export interface SheetCurve {
   id: string;
   kind: 'band' | 'withstand' | 'starting';
   label: string;
   colour: string;
+  /** SVG dash array of its lines ('' for solid). */
+  dash: string;
 }
 
 /** A placed label: its text, box (px) and the curve or line it names. */
@@ -64,41 +65,167 @@ export interface Sheet {
 }
 
 /**
- * Builds a TCC sheet from its input: ranges (given, or decades around what is shown; time
- * 0.01–1000 s by default), the frame, the log-log grid and axes, hatched finding regions, bands,
- * withstand and starting curves, fault lines, markers, labels placed without collisions, the
- * legend, title block, title and caution. Pure: same input and options, same sheet.
+ * Builds a TCC sheet from its input: ranges (given, or decades around what matters; time
+ * 0.01–1000 s by default), the study strip across the top (title, revision, date, details,
+ * caution), the fault currents' labels set level in a band above the plot, the log-log grid and
+ * axes, the findings' regions hatched between the edges in conflict, bands (each with its own
+ * colour and edge pattern), withstand and starting curves, markers, every curve labelled where it
+ * runs (with a leader when it must stand off), and a key under the axis for whatever could not be
+ * labelled. Pure: same input and options, same sheet.
  * @example svgOf(sheetOf(input, { width: 960, height: 720 }))
  */
 export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
   checkSheetInput(input);
   const resolved = resolveSheetOptions(options);
-  const { fontSize, idPrefix } = resolved;
+  const { fontSize, idPrefix, margin, width } = resolved;
 
-  // Stage 1: ranges, frame and scales.
+  // Stage 1: ranges; the strip and the fault-label band, whose heights set where the plot starts.
   const ranges = {
     current: input.currentRange ?? inferCurrentRange(input),
     time: input.timeRange ?? DEFAULT_TIME_RANGE,
   };
-  const frame = frameOf(ranges, input.caution, resolved);
-  const scales = scalesOf(ranges, frame.plot);
-  const diagnostics: string[] = [];
+  const strip = studyStrip(
+    { ...input, view: input.view, caution: input.caution },
+    { x: margin, y: margin, width: width - 2 * margin, fontSize },
+  );
+  const across = frameOf(ranges, { strip: strip.height, faults: 0, key: 0 }, resolved);
+  const faultSlots = faultLabelSlots(input.faultLines, scalesOf(ranges, across.plot), {
+    fontSize,
+    referenceVolts: input.referenceVolts,
+  });
+  const faultBand = faultBandHeight(faultSlots.rows, fontSize);
 
-  // Stage 2: one colour per curve in drawing order, one hatch pattern per region status present.
+  // Stage 2: one colour and one edge pattern per curve in drawing order, one hatch pattern per region status present.
   const curves: SheetCurve[] = [
-    ...input.bands.map((b) => ({ id: b.id, kind: 'band' as const, label: b.label })),
-    ...input.withstand.map((w) => ({ id: w.id, kind: 'withstand' as const, label: w.label })),
-    ...input.starting.map((s) => ({ id: s.id, kind: 'starting' as const, label: s.label })),
+    ...input.bands.map((b, i) => ({
+      id: b.id,
+      kind: 'band' as const,
+      label: b.label,
+      dash: BAND_DASHES[i % BAND_DASHES.length],
+    })),
+    ...input.withstand.map((w) => ({
+      id: w.id,
+      kind: 'withstand' as const,
+      label: w.label,
+      dash: withstandLineDefaults.dash,
+    })),
+    ...input.starting.map((s) => ({
+      id: s.id,
+      kind: 'starting' as const,
+      label: s.label,
+      dash: startingLineDefaults.dash,
+    })),
   ].map((c, i) => ({ ...c, colour: curveColour(i) }));
   const colours = new Map(curves.map((c) => [c.id, c.colour]));
+  const dashes = new Map(curves.map((c) => [c.id, c.dash]));
   const statuses = [...new Set(input.regions.map((r) => r.status))];
   const patterns: HatchPattern[] = statuses.map((s, i) => ({
     id: `${idPrefix}-hatch-${i + 1}`,
     ...overlapHatchDefaults[s],
   }));
   const patternIds = new Map<RegionStatus, string>(statuses.map((s, i) => [s, patterns[i].id]));
+  const markerColours = input.markers.map((m) => colours.get(m.elementId) ?? OKABE_ITO.black);
 
-  // Stage 3: the marks, each giving primitives and, where it names something on the plot, a label request.
+  // Stage 3: the plot with its labels, laid out once with no key; again with room for the key if some label found no place.
+  const entries = legendEntriesOf(input, { colours, coincident: new Map(), dashes, patternIds, markerColours });
+  let key = 0;
+  let plot = drawPlot(input, frameOf(ranges, { strip: strip.height, faults: faultBand, key }, resolved), {
+    ranges,
+    colours,
+    dashes,
+    patternIds,
+    markerColours,
+    fontSize,
+  });
+  const keyWidth = width - 2 * margin;
+  const keyEntriesOf = (p: DrawnPlot) => {
+    const missing = new Set(p.unplacedDataIds);
+    return legendEntriesOf(input, { colours, coincident: p.coincident, dashes, patternIds, markerColours }).filter(
+      (e) => missing.has(e.dataId) && e.group !== 'Fault current',
+    );
+  };
+  let keyEntries = keyEntriesOf(plot);
+  if (keyEntries.length > 0) {
+    // The key may take up to a quarter of the sheet; what does not fit even then is counted and named in the notes.
+    key = Math.min(legendHeight(keyEntries, keyWidth, fontSize), resolved.height / 4);
+    plot = drawPlot(input, frameOf(ranges, { strip: strip.height, faults: faultBand, key }, resolved), {
+      ranges,
+      colours,
+      dashes,
+      patternIds,
+      markerColours,
+      fontSize,
+    });
+    keyEntries = keyEntriesOf(plot);
+  }
+  const { frame, scales } = plot;
+  const diagnostics = [...plot.diagnostics];
+  const keyGeometry = legend(keyEntries, {
+    box: { x: margin, y: frame.keyTop, width: keyWidth },
+    maxHeight: key,
+    fontSize,
+  });
+  for (const e of keyEntries.slice(keyGeometry.shown))
+    diagnostics.push(`"${e.text}" has no room on the plot or in its key; enlarge the sheet to see it named there`);
+  void entries;
+
+  const faultItems = faultLabelBand(faultSlots.slots, faultSlots.rows, {
+    left: frame.plot.left,
+    right: frame.plot.right,
+    bottom: frame.plot.top,
+    fontSize,
+  });
+  const layers: Layer[] = [
+    ...plot.layers,
+    { name: 'fault-labels', items: faultItems },
+    { name: 'legend', items: keyGeometry.items },
+    { name: 'study-strip', items: strip.items },
+  ];
+  return {
+    width: resolved.width,
+    height: resolved.height,
+    fontFamily: resolved.fontFamily,
+    title: input.title,
+    description: `Time-current curves of ${input.study}, view ${input.view}, currents at ${formatVolts(input.referenceVolts)}.`,
+    frame: frame.plot,
+    scales,
+    window: drawWindowOf(scales),
+    patterns,
+    layers,
+    labels: plot.labels,
+    curves,
+    diagnostics,
+  };
+}
+
+/** The plot region of a sheet, drawn for one frame: its layers, placed labels, and what could not be labelled. */
+interface DrawnPlot {
+  frame: SheetFrame;
+  scales: SheetScales;
+  layers: Layer[];
+  labels: SheetLabel[];
+  /** Data ids of curves, markers and regions whose label found no place on the plot. */
+  unplacedDataIds: string[];
+  coincident: Map<string, boolean>;
+  diagnostics: string[];
+}
+
+// Accepts the input, a frame and the sheet's codes; the plot drawn in that frame with every label placed that fits.
+function drawPlot(
+  input: SheetInput,
+  frame: SheetFrame,
+  codes: {
+    ranges: { current: [number, number]; time: [number, number] };
+    colours: Map<string, string>;
+    dashes: Map<string, string>;
+    patternIds: Map<RegionStatus, string>;
+    markerColours: string[];
+    fontSize: number;
+  },
+): DrawnPlot {
+  const { colours, dashes, patternIds, markerColours, fontSize } = codes;
+  const scales = scalesOf(codes.ranges, frame.plot);
+  const diagnostics: string[] = [];
   const specs: LabelSpec[] = [];
   const lines: Float64Array[] = [];
   const lineOwners: (string | undefined)[] = [];
@@ -106,26 +233,31 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
     lines.push(...more);
     lineOwners.push(...more.map(() => owner));
   };
+  const ref = input.referenceVolts;
+  const otherBase = (volts: number) => (Math.abs(volts - ref) <= 1e-9 * ref ? '' : ` (${formatVolts(volts)})`);
+
+  // Regions first: their labels are asked for after the markers', before the curves'.
   const regionItems: Primitive[] = [];
+  const regionSpecs: LabelSpec[] = [];
   input.regions.forEach((r, i) => {
     const g = overlapHatch(r, i, scales, { patternId: patternIds.get(r.status)!, fontSize });
     regionItems.push(...g.items);
-    if (g.label) specs.push(g.label);
+    if (g.label) regionSpecs.push(g.label);
   });
   const fills: Primitive[] = [];
   const edges: Primitive[] = [];
   const coincident = new Map<string, boolean>();
   const curveSpecs: LabelSpec[] = [];
-  const maxLabel = Math.min(200, (frame.plot.right - frame.plot.left) / 3);
   for (const b of input.bands) {
-    const g = bandArea(b, scales, { colour: colours.get(b.id)! });
+    const g = bandArea(b, scales, { colour: colours.get(b.id)!, dash: dashes.get(b.id) });
     coincident.set(b.id, !g.items.some((p) => p.role === 'band-fill') && g.items.length > 0);
     fills.push(...g.items.filter((p) => p.role === 'band-fill'));
     edges.push(...g.items.filter((p) => p.role !== 'band-fill'));
     addLines(b.id, g.strokes);
     if (g.strokes.length === 0)
       diagnostics.push(`${b.label} is outside the sheet's current or time range and is not drawn`);
-    else curveSpecs.push(curveLabel(b.id, b.label, colours.get(b.id)!, g.strokes[0], fontSize, maxLabel));
+    else
+      curveSpecs.push(curveLabel(b.id, `${b.label}${otherBase(b.ownVolts)}`, colours.get(b.id)!, g.strokes, fontSize));
   }
   const others: Primitive[] = [];
   const addCurve = (id: string, label: string, g: CurveGeometry) => {
@@ -133,29 +265,26 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
     addLines(id, g.strokes);
     if (g.strokes.length === 0)
       diagnostics.push(`${label} is outside the sheet's current or time range and is not drawn`);
-    else curveSpecs.push(curveLabel(id, label, colours.get(id)!, longest(g.strokes), fontSize, maxLabel));
+    else curveSpecs.push(curveLabel(id, label, colours.get(id)!, g.strokes, fontSize));
   };
   for (const w of input.withstand) addCurve(w.id, w.label, withstandLine(w, scales, { colour: colours.get(w.id)! }));
   for (const s of input.starting) addCurve(s.id, s.label, startingLine(s, scales, { colour: colours.get(s.id)! }));
   const faultItems: Primitive[] = [];
   for (const f of input.faultLines) {
-    const g = faultLine(f, scales, { fontSize, referenceVolts: input.referenceVolts });
+    const g = faultLine(f, scales, {});
     faultItems.push(...g.items);
-    for (const p of g.items) if (p.type === 'path' && p.points) addLines(undefined, [p.points]);
-    if (g.label) specs.unshift(g.label);
-    else diagnostics.push(`fault line ${f.label} (${f.kind}) is outside the sheet's current range`);
+    for (const p of g.items) if (p.points) addLines(undefined, [p.points]);
   }
-  const markerColours = input.markers.map((m) => colours.get(m.elementId) ?? OKABE_ITO.black);
   const markerItems: Primitive[] = [];
   input.markers.forEach((m, i) => {
     const g = marker(m, i, scales, { colour: markerColours[i], fontSize });
     markerItems.push(...g.items);
-    if (g.label) specs.unshift(g.label);
+    if (g.label) specs.push(g.label);
     else diagnostics.push(`marker ${m.label} is outside the sheet's ranges`);
   });
-  specs.push(...curveSpecs);
+  specs.push(...regionSpecs, ...curveSpecs);
 
-  // Stage 4: labels, tightest first (markers, fault lines), then regions and curves, clear of the half-cycle note.
+  // Labels, tightest first (markers, regions), then curves, clear of the half-cycle note.
   const halfCycle = halfCycleRule(scales, fontSize);
   const bounds = {
     x: frame.plot.left,
@@ -175,39 +304,12 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
   );
   const byId = new Map(specs.map((s) => [s.id, s]));
   const labelLayer = placed.flatMap((p) => labelItems(byId.get(p.id)!, p, {}));
-  for (const id of unplaced)
-    diagnostics.push(`no room on the plot for the label "${byId.get(id)?.text}"; it is in the legend`);
-
-  // Stage 5: the right-hand column (title block at the foot, legend above), title and caution.
-  const block = titleBlock(input, { x: frame.panel.x, bottom: frame.panel.bottom, width: frame.panel.width, fontSize });
-  const entries = legendEntriesOf(input, { colours, coincident, patternIds, markerColours });
-  const legendBox = {
-    x: frame.panel.x,
-    y: frame.panel.top,
-    width: frame.panel.width,
-    height: block.top - 12 - frame.panel.top,
-  };
-  const key = legend(entries, { box: legendBox, fontSize });
-  if (key.shown < entries.length)
-    diagnostics.push(`the legend shows ${key.shown} of ${entries.length} entries; enlarge the sheet to show all`);
-  const title = sheetTitle(input.title, {
-    x: frame.plot.left,
-    y: frame.titleBaseline,
-    width: resolved.width - 2 * resolved.margin - frame.plot.left,
-    fontSize,
-  });
-  const cautionItems = caution(input.caution, {
-    x: resolved.margin,
-    y: frame.cautionTop,
-    width: resolved.width - 2 * resolved.margin,
-    fontSize,
-  });
 
   const currentTitle = `Current in amperes at ${formatVolts(input.referenceVolts)}`;
   const layers: Layer[] = [
     { name: 'grid', items: [...gridX(scales, {}), ...gridY(scales, {})] },
-    { name: 'regions', items: regionItems },
     { name: 'band-fills', items: fills },
+    { name: 'regions', items: regionItems },
     { name: 'half-cycle', items: halfCycle },
     { name: 'curves', items: [...others, ...edges] },
     { name: 'fault-lines', items: faultItems },
@@ -221,50 +323,34 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
       ],
     },
     { name: 'labels', items: labelLayer },
-    { name: 'legend', items: key.items },
-    { name: 'title-block', items: block.items },
-    { name: 'title', items: [title] },
-    { name: 'caution', items: cautionItems },
   ];
   return {
-    width: resolved.width,
-    height: resolved.height,
-    fontFamily: resolved.fontFamily,
-    title: input.title,
-    description: `Time-current curves of ${input.study}, view ${input.view}, currents at ${formatVolts(input.referenceVolts)}.`,
-    frame: frame.plot,
+    frame,
     scales,
-    window: drawWindowOf(scales),
-    patterns,
     layers,
     labels: placed.map((p) => ({ ...p, dataId: byId.get(p.id)!.dataId, text: byId.get(p.id)!.text })),
-    curves,
+    unplacedDataIds: unplaced.map((id) => byId.get(id)!.dataId),
+    coincident,
     diagnostics,
   };
 }
 
-// Accepts a curve's first visible line; a bold label request at points spread along it.
-function curveLabel(
-  id: string,
-  label: string,
-  colour: string,
-  line: Float64Array,
-  fontSize: number,
-  maxWidth: number,
-): LabelSpec {
-  // On the plot a long name is cut; the legend carries it whole.
-  const text = truncateText(label, maxWidth, fontSize, 'bold');
-  const { width, height } = labelSize(text, fontSize, 'bold');
-  const anchors = pointsAlong(line, 12);
+// Accepts a curve's visible lines; a bold label request, whole, at points spread along them.
+function curveLabel(id: string, label: string, colour: string, strokes: Float64Array[], fontSize: number): LabelSpec {
+  const { width, height } = labelSize(label, fontSize, 'bold');
+  const line = longest(strokes);
+  const count = 12;
+  const anchors = pointsAlong(line, count);
+  const middle = (count - 1) / 2;
   // Prefer the middle of the curve a little (its ends crowd into pickups and the sheet's edges), and a label close to it.
   const candidates = anchors.flatMap((a, k) => [
-    ...candidatesAround(a, width, height, 3, Math.abs(k - 5.5) * 0.08),
-    ...candidatesAround(a, width, height, 14, 1.5 + Math.abs(k - 5.5) * 0.08),
+    ...candidatesAround(a, width, height, 3, Math.abs(k - middle) * 0.08),
+    ...candidatesAround(a, width, height, 14, 1.5 + Math.abs(k - middle) * 0.08),
   ]);
   return {
     id,
     dataId: id,
-    text,
+    text: label,
     colour,
     size: fontSize,
     weight: 'bold',

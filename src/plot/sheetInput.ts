@@ -15,6 +15,13 @@ export interface SheetInput {
   /** Title printed above the plot. */
   title: string;
   preparedBy?: string;
+  checkedBy?: string;
+  /** Where the system is. */
+  site?: string;
+  /** For whom the study is made. */
+  client?: string;
+  /** The study's current revision mark ("B"). */
+  revision?: string;
   /** As the user wrote it; the sheet never reads a clock. */
   date?: string;
   notes?: string;
@@ -86,6 +93,12 @@ export interface SheetRegion {
   status: RegionStatus;
   label: string;
   findingId: string;
+  /**
+   * The two edges in conflict, on the sheet's base: the upstream device's band (its `minTime`, the
+   * earliest operation) and the downstream device's (its `maxTime`, the latest clearing). When given,
+   * only the area between them is hatched; otherwise the interval's whole height.
+   */
+  edges?: { upstream: Band; downstream: Band };
 }
 
 const REGION_STATUSES: readonly RegionStatus[] = ['overlap', 'thin margin', 'not provable from curves'];

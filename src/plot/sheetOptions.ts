@@ -10,8 +10,6 @@ export interface SheetOptions {
   margin?: number;
   /** Base type size, px, 7–24; titles and notes are set relative to it. @default 11 */
   fontSize?: number;
-  /** Width of the legend and title-block column right of the plot, px, 140 up to a third of the width. @default 250 */
-  panelWidth?: number;
   /** Prefix of the ids the SVG defines (hatch patterns), so several sheets can share one page. @default 'tcc' */
   idPrefix?: string;
   /** CSS font list, DejaVu Sans first: the face text is measured in. @default 'DejaVu Sans, Arial, Helvetica, sans-serif' */
@@ -27,7 +25,6 @@ export const sheetDefaults: ResolvedSheetOptions = {
   height: 720,
   margin: 16,
   fontSize: 11,
-  panelWidth: 250,
   idPrefix: 'tcc',
   fontFamily: 'DejaVu Sans, Arial, Helvetica, sans-serif',
 };
@@ -39,12 +36,11 @@ export const sheetDefaults: ResolvedSheetOptions = {
  */
 export function resolveSheetOptions(options: SheetOptions = {}): ResolvedSheetOptions {
   const resolved = { ...sheetDefaults, ...definedOnly(options) };
-  const { width, height, margin, fontSize, panelWidth, idPrefix, fontFamily } = resolved;
+  const { width, height, margin, fontSize, idPrefix, fontFamily } = resolved;
   within('options.width', width, 480, 20_000, 'a width in px of at least 480');
   within('options.height', height, 360, 20_000, 'a height in px of at least 360');
   within('options.margin', margin, 0, 100, 'a margin in px from 0 to 100');
   within('options.fontSize', fontSize, 7, 24, 'a font size in px from 7 to 24');
-  within('options.panelWidth', panelWidth, 140, width / 3, `a panel width in px from 140 to ${Math.floor(width / 3)}`);
   if (typeof idPrefix !== 'string' || !/^[A-Za-z][\w-]*$/.test(idPrefix))
     throw new InputError('options.idPrefix', expectedGot('a letter followed by letters, digits, "_" or "-"', idPrefix));
   if (typeof fontFamily !== 'string' || /[<>"&]/.test(fontFamily) || fontFamily.trim() === '')

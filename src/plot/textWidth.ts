@@ -60,20 +60,24 @@ export function textWidth(text: string, size: number, weight: FontWeight = 'norm
 
 /**
  * Breaks `text` into lines no wider than `maxWidth` px at `size` px, at spaces; a single word wider
- * than the line is cut with a trailing "…". Empty text gives no lines.
+ * than the line is cut with a trailing "…". Empty text gives no lines. Each word is measured once.
  * @example wrapText('Results are for review by a qualified engineer', 120, 11) // ['Results are for review', 'by a qualified engineer']
  */
 export function wrapText(text: string, maxWidth: number, size: number, weight: FontWeight = 'normal'): string[] {
   const lines: string[] = [];
+  const space = textWidth(' ', size, weight);
   let current = '';
+  let currentWidth = 0;
   for (const word of text.split(/\s+/).filter((w) => w.length > 0)) {
-    const candidate = current ? `${current} ${word}` : word;
-    if (textWidth(candidate, size, weight) <= maxWidth) {
-      current = candidate;
+    const wordWidth = textWidth(word, size, weight);
+    if (current && currentWidth + space + wordWidth <= maxWidth) {
+      current = `${current} ${word}`;
+      currentWidth += space + wordWidth;
       continue;
     }
     if (current) lines.push(current);
-    current = textWidth(word, size, weight) <= maxWidth ? word : truncateText(word, maxWidth, size, weight);
+    current = wordWidth <= maxWidth ? word : truncateText(word, maxWidth, size, weight);
+    currentWidth = wordWidth <= maxWidth ? wordWidth : textWidth(current, size, weight);
   }
   if (current) lines.push(current);
   return lines;
@@ -81,11 +85,19 @@ export function wrapText(text: string, maxWidth: number, size: number, weight: F
 
 /**
  * `text` shortened with a trailing "…" so it fits in `maxWidth` px; unchanged when it already fits.
+ * Measures each character once.
  * @example truncateText('FEEDER-TO-COMPRESSOR-MCC', 60, 11) // 'FEEDER-T…'
  */
 export function truncateText(text: string, maxWidth: number, size: number, weight: FontWeight = 'normal'): string {
   if (textWidth(text, size, weight) <= maxWidth) return text;
-  const chars = [...text];
-  while (chars.length > 0 && textWidth(`${chars.join('')}…`, size, weight) > maxWidth) chars.pop();
-  return `${chars.join('')}…`;
+  const room = maxWidth - textWidth('…', size, weight);
+  let width = 0;
+  let kept = '';
+  for (const char of text) {
+    const w = textWidth(char, size, weight);
+    if (width + w > room) break;
+    width += w;
+    kept += char;
+  }
+  return `${kept}…`;
 }

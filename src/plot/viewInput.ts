@@ -1,5 +1,6 @@
+import { significant } from '../engine/quantity/format.ts';
 import type { Analysis } from '../engine/analysis.ts';
-import { scaleBand } from '../engine/band.ts';
+import { fastestOf, groundFaultBandOf, scaleBand, type Band } from '../engine/band.ts';
 import { CAUTION } from '../engine/caution.ts';
 import { locationBusOf } from '../engine/network/index.ts';
 import {
@@ -9,14 +10,28 @@ import {
   transformerWithstandOf,
 } from '../engine/withstand/index.ts';
 import { conductorAreaCmil } from '../engine/conductors/index.ts';
-import type { SheetInput, SheetMarker, SheetRegion, SheetStarting, SheetWithstand } from './sheetInput.ts';
+import type {
+  SheetBand,
+  SheetFaultLine,
+  SheetInput,
+  SheetMarker,
+  SheetRegion,
+  SheetStarting,
+  SheetWithstand,
+} from './sheetInput.ts';
+
+/** Upstream current per downstream current for a secondary line-to-line fault across a Δ–Y transformer (REFERENCE §1.8 item 1). */
+const LINE_TO_LINE_SHIFT = 1 / 0.866;
 
 /**
  * Gathers what one view of an analysed study draws, all on the view's reference voltage (DESIGN §3):
  * each device's band scaled by `V_own / V_ref`, the transformer and cable withstand curves (with the
  * Δ–Yg secondary line-to-ground curve × 0.58 beside a transformer's three-phase curve, REFERENCE §1.8),
  * inrush points, motor starting curves, each bus's maximum fault current as a line labelled at both
- * voltages, and the non-selective regions of the view's pairs.
+ * voltages, and the non-selective regions of the view's pairs, each hatched between the two edges in
+ * conflict. Where a finding rests on a secondary line-to-line fault the upstream band is drawn again,
+ * shifted by 1.155. A ground-fault view (`groundFault`) adds each ground-fault element's band, draws the
+ * line-to-ground fault currents and hatches the ground-fault findings, which other views leave out.
  *
  * @example sheetOf(viewInputOf(analysis, 'service'), { width: 960, height: 720 })
  */
@@ -31,12 +46,20 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   const onSheet = (volts: number) => volts / ref;
 
   // Each band is drawn up to the largest fault at its device's location: beyond it nothing flows.
-  const sheetBands = view.devices.map((id) => {
-    const device = network.devices.get(id)!;
-    const bus = locationBusOf(network, device);
-    const fault = faults.buses.get(bus.id)!.max.threePhase;
-    // At an infinite bus there is no largest fault to stop the band at.
-    const toAmps = Number.isFinite(fault) ? fault * onSheet(bus.voltage) : undefined;
+  const ground = view.groundFault;
+  const located = new Map(
+    view.devices.map((id) => {
+      const device = network.devices.get(id)!;
+      const bus = locationBusOf(network, device);
+      const level = faults.buses.get(bus.id)!.max;
+      const fault = ground ? level.lineToGround : level.threePhase;
+      // At an infinite bus there is no largest fault to stop the band at.
+      const toAmps = Number.isFinite(fault) && fault > 0 ? fault * onSheet(bus.voltage) : undefined;
+      return [id, { device, bus, toAmps }] as const;
+    }),
+  );
+  const sheetBands: SheetBand[] = view.devices.map((id) => {
+    const { device, bus, toAmps } = located.get(id)!;
     return {
       id,
       label: device.name ?? id,
@@ -45,6 +68,19 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
       toAmps,
     };
   });
+  if (ground)
+    for (const id of view.devices) {
+      const { device, bus, toAmps } = located.get(id)!;
+      const element = groundFaultBandOf(device.characteristic);
+      if (element)
+        sheetBands.push({
+          id: `${id}:ground-fault`,
+          label: `${device.name ?? id} ground-fault`,
+          band: scaleBand(element, onSheet(bus.voltage)),
+          ownVolts: bus.voltage,
+          toAmps,
+        });
+    }
 
   const withstand: SheetWithstand[] = [];
   const markers: SheetMarker[] = [];
@@ -61,7 +97,7 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
         const which = t.connection === 'delta-wye' ? 'secondary L-G' : 'secondary L-L';
         withstand.push({
           id: `${t.id}:shifted`,
-          label: `${name} ${which} (× ${shift})`,
+          label: `${name} ${which} (× ${significant(shift, 3)})`,
           curve,
           scale: onSheet(t.secondary) * shift,
         });
@@ -86,45 +122,85 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   const busIds = view.faults ?? [
     ...new Set(view.devices.map((id) => locationBusOf(network, network.devices.get(id)!).id)),
   ];
-  const faultLines = busIds
-    .filter((busId) => Number.isFinite(faults.buses.get(busId)!.max.threePhase))
+  const faultLines: SheetFaultLine[] = busIds
     .map((busId) => {
       const bus = network.buses.get(busId)!;
-      const ownAmps = faults.buses.get(busId)!.max.threePhase;
+      const level = faults.buses.get(busId)!.max;
+      const ownAmps = ground ? level.lineToGround : level.threePhase;
       return {
         busId,
-        label: busId,
+        label: ground ? `${busId} L-G` : busId,
         amps: ownAmps * onSheet(bus.voltage),
         ownVolts: bus.voltage,
         ownAmps,
         kind: 'max' as const,
       };
-    });
+    })
+    .filter((f) => Number.isFinite(f.ownAmps) && f.ownAmps > 0);
 
+  // Findings of the view's pairs, each hatched between its two edges; ground-fault ones only on a ground-fault view.
   const shown = new Set(view.devices);
-  const regions: SheetRegion[] = analysis.findings
-    .filter(
-      (f) =>
-        f.kind === 'coordination' &&
-        f.range &&
-        f.status &&
-        f.status !== 'selective' &&
-        f.subjects.every((s) => shown.has(s)),
-    )
-    .map((f) => ({
-      fromAmps: (f.range!.fromAmps * f.referenceVolts) / ref,
-      toAmps: (f.range!.toAmps * f.referenceVolts) / ref,
-      status: f.status as SheetRegion['status'],
+  const onSheetBand = (id: string) => {
+    const { bus } = located.get(id)!;
+    return (band: Band, shift = 1) => scaleBand(band, onSheet(bus.voltage) / shift);
+  };
+  const edgesOf = (up: string, down: string, fault: string): SheetRegion['edges'] => {
+    const upDevice = network.devices.get(up)!;
+    const downDevice = network.devices.get(down)!;
+    if (fault === 'line-to-line')
+      return {
+        upstream: onSheetBand(up)(bands.get(up)!, LINE_TO_LINE_SHIFT),
+        downstream: onSheetBand(down)(bands.get(down)!),
+      };
+    if (fault === 'ground-fault') {
+      const withGround = (d: typeof upDevice) => {
+        const element = groundFaultBandOf(d.characteristic);
+        return element ? fastestOf([bands.get(d.id)!, element]) : bands.get(d.id)!;
+      };
+      return { upstream: onSheetBand(up)(withGround(upDevice)), downstream: onSheetBand(down)(withGround(downDevice)) };
+    }
+    return { upstream: onSheetBand(up)(bands.get(up)!), downstream: onSheetBand(down)(bands.get(down)!) };
+  };
+  const regions: SheetRegion[] = [];
+  const shifted = new Set<string>();
+  for (const f of analysis.findings) {
+    if (f.kind !== 'coordination' || !f.range || !f.status || f.status === 'selective') continue;
+    if (!f.subjects.every((id) => shown.has(id))) continue;
+    const fault = /:(three-phase|line-to-line|ground-fault):\d+$/.exec(f.id)?.[1] ?? 'three-phase';
+    if ((fault === 'ground-fault') !== ground) continue;
+    const region: SheetRegion = {
+      fromAmps: (f.range.fromAmps * f.referenceVolts) / ref,
+      toAmps: (f.range.toAmps * f.referenceVolts) / ref,
+      status: f.status,
       label: f.title,
       findingId: f.id,
-    }))
-    .filter((r) => r.toAmps > r.fromAmps);
+      edges: edgesOf(f.subjects[0], f.subjects[1], fault),
+    };
+    if (!(region.toAmps > region.fromAmps)) continue;
+    regions.push(region);
+    if (fault === 'line-to-line') shifted.add(f.subjects[0]);
+  }
+  // The finding rests on the upstream band shifted for a secondary line-to-line fault: draw that band too.
+  for (const id of shifted) {
+    const { device, bus, toAmps } = located.get(id)!;
+    sheetBands.push({
+      id: `${id}:line-to-line`,
+      label: `${device.name ?? id} for a secondary L-L fault (× ${LINE_TO_LINE_SHIFT.toFixed(3)})`,
+      band: onSheetBand(id)(bands.get(id)!, LINE_TO_LINE_SHIFT),
+      ownVolts: bus.voltage,
+      toAmps,
+    });
+  }
 
   return {
     study: study.name,
     view: view.id,
     title: view.title ?? view.id,
     preparedBy: study.preparedBy,
+    checkedBy: study.checkedBy,
+    site: study.site,
+    client: study.client,
+    revision: study.revisions.at(-1)?.revision,
     date: study.date,
     notes: view.notes,
     referenceVolts: ref,

@@ -11,6 +11,7 @@ const codes = {
     ['M1', '#0072B2'],
   ]),
   coincident: new Map([['R2', true]]),
+  dashes: new Map([['R2', '10 3']]),
   patternIds: new Map([['overlap', 'tcc-hatch-1']]),
   markerColours: ['#009E73'],
 };
@@ -31,8 +32,8 @@ describe('legendEntriesOf', () => {
   it('legendEntriesOf draws each entry in its curve code: fill, dash, dots, symbol, hatch', () => {
     const entries = legendEntriesOf(fixtureInput(), codes);
     const swatch = (text: string) => entries.find((e) => e.text.startsWith(text))!.swatch;
-    expect(swatch('Relay R1')).toEqual({ kind: 'band', colour: '#000000', coincident: false });
-    expect(swatch('Relay R2')).toEqual({ kind: 'band', colour: '#56B4E9', coincident: true });
+    expect(swatch('Relay R1')).toEqual({ kind: 'band', colour: '#000000', coincident: false, dash: undefined });
+    expect(swatch('Relay R2')).toEqual({ kind: 'band', colour: '#56B4E9', coincident: true, dash: '10 3' });
     expect(swatch('TX1 through-fault')).toMatchObject({ kind: 'line', dash: '7 4' });
     expect(swatch('Compressor 1')).toMatchObject({ kind: 'line', dash: '1.5 3.5', round: true });
     expect(swatch('TX1 inrush')).toEqual({ kind: 'symbol', colour: '#009E73', symbol: 'inrush' });

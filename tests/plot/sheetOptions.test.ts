@@ -9,7 +9,6 @@ describe('resolveSheetOptions', () => {
       height: 720,
       margin: 16,
       fontSize: 11,
-      panelWidth: 250,
       idPrefix: 'tcc',
       fontFamily: 'DejaVu Sans, Arial, Helvetica, sans-serif',
     });
@@ -22,7 +21,6 @@ describe('resolveSheetOptions', () => {
       [{ height: NaN }, /^options\.height: expected a height in px of at least 360, got "NaN"$/],
       [{ margin: -1 }, /^options\.margin: expected a margin in px from 0 to 100, got "-1"$/],
       [{ fontSize: 40 }, /^options\.fontSize: expected a font size in px from 7 to 24, got "40"$/],
-      [{ panelWidth: 500 }, /^options\.panelWidth: expected a panel width in px from 140 to 320, got "500"$/],
       [
         { idPrefix: '1 bad' },
         /^options\.idPrefix: expected a letter followed by letters, digits, "_" or "-", got "1 bad"$/,

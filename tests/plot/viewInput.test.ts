@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../src/engine/analysis.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
 import { parseStudy } from '../../src/engine/study/index.ts';
+import { inferCurrentRange } from '../../src/plot/currentRange.ts';
 import { viewInputOf } from '../../src/plot/viewInput.ts';
 import { assertInDelta } from '../asserts.ts';
 
@@ -32,10 +33,11 @@ describe('viewInputOf', () => {
     expect(swbd.ownVolts).toBe(480);
   });
 
-  it('adds the Δ–Yg secondary line-to-ground withstand curve, shifted by 0.58 (REFERENCE §1.8 item 2), and the inrush points', () => {
+  it('adds the Δ–Yg secondary line-to-ground withstand curve, shifted by 1/√3 (REFERENCE §1.8 item 2), and the inrush points', () => {
     const input = viewInputOf(analysed('selective'), 'primary');
     expect(input.withstand.map((w) => w.id)).toEqual(['T1', 'T1:shifted']);
-    assertInDelta(input.withstand[1].scale / input.withstand[0].scale, 0.58, 1e-9);
+    assertInDelta(input.withstand[1].scale / input.withstand[0].scale, 1 / Math.sqrt(3), 1e-3);
+    expect(input.withstand[1].label).toMatch(/× 0\.577\)$/);
     expect(input.markers.filter((m) => m.kind === 'inrush')).toHaveLength(1);
   });
 
@@ -50,5 +52,25 @@ describe('viewInputOf', () => {
     expect(() => viewInputOf(analysed('selective'), 'nowhere')).toThrow(
       /no view "nowhere" in the study \(views: service, primary, office, emergency\)/,
     );
+  });
+
+  it('sets the current axis by the faults at the sheet’s own voltage: a 12.47 kV fault reflected to 480 V does not stretch it', () => {
+    const input = viewInputOf(analysed('overlap'), 'service');
+    const mv = input.faultLines.find((f) => f.ownVolts === 12_470)!;
+    expect(mv.amps).toBeGreaterThan(200_000);
+    expect(inferCurrentRange(input)[1]).toBe(100_000);
+  });
+
+  it('hatches each overlap between the two edges in conflict, and ground-fault findings only on a ground-fault view', () => {
+    const analysis = analysed('overlap');
+    const regions = viewInputOf(analysis, 'service').regions;
+    expect(regions.every((r) => r.edges !== undefined)).toBe(true);
+    expect(regions.some((r) => r.findingId.includes(':ground-fault:'))).toBe(false);
+    const view = analysis.study.views.find((v) => v.id === 'service')!;
+    const ground = { ...analysis, study: { ...analysis.study, views: [{ ...view, id: 'g', groundFault: true }] } };
+    const input = viewInputOf(ground, 'g');
+    expect(input.regions.every((r) => r.findingId.includes(':ground-fault:'))).toBe(true);
+    expect(input.bands.map((b) => b.id)).toContain('MAIN:ground-fault');
+    expect(input.faultLines.every((f) => f.label.endsWith('L-G'))).toBe(true);
   });
 });

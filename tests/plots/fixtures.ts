@@ -27,6 +27,6 @@ export const fixturePlots: Record<string, () => string> = {
   },
   'fixture-small-sheet': () =>
     svgOf(
-      sheetOf(fixtureInput({ timeRange: [0.001, 1000] }), { width: 640, height: 480, fontSize: 9, panelWidth: 180 }),
+      sheetOf(fixtureInput({ timeRange: [0.001, 1000] }), { width: 640, height: 480, fontSize: 9 }),
     ),
 };

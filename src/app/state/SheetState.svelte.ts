@@ -46,11 +46,9 @@ export class SheetState {
     if (!input) return {};
     const width = Math.max(480, this.width);
     const height = Math.max(360, this.height);
-    // The legend column takes at most a third of a narrow sheet (the plot layer's limit).
-    const panelWidth = Math.max(140, Math.min(250, Math.floor(width / 3)));
     try {
       return {
-        sheet: sheetOf(input, { width, height, panelWidth, fontSize: this.largeText ? 14 : 11, idPrefix: 'live' }),
+        sheet: sheetOf(input, { width, height, fontSize: this.largeText ? 14 : 11, idPrefix: 'live' }),
       };
     } catch (error) {
       return { error: (error as Error).message };

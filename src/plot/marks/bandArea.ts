@@ -14,10 +14,19 @@ export const bandAreaDefaults = {
   tolerance: 0.1,
 } as const;
 
+/**
+ * The edge patterns bands take in order on a sheet, so colour is never the only code for a device:
+ * solid, long dash, short dash, dash-dot, long dash-dot-dot, even dash; beyond six they repeat.
+ * Withstand curves ('7 4') and starting curves (dotted) keep patterns of their own.
+ */
+export const BAND_DASHES: readonly string[] = ['', '10 3', '3.5 2.5', '10 3 2.5 3', '16 3 2.5 3 2.5 3', '5.5 5.5'];
+
 /** Options of the band mark. */
 export interface BandAreaOptions {
   /** Stroke and fill colour (an Okabe–Ito colour, by the band's order on the sheet). */
   colour: string;
+  /** Edge dash pattern (SVG dash array, px); solid when empty. @default '' */
+  dash?: string;
   /** Edge line width in px. @default 1.6 */
   strokeWidth?: number;
   /** Opacity of the fill between the edges, 0–1. @default 0.13 */
@@ -42,7 +51,7 @@ export interface BandAreaGeometry {
  * @example bandArea(sheetBand, scales, { colour: '#E69F00' }).items.map((p) => p.role) // ['band-fill', 'band-max', 'band-min']
  */
 export function bandArea(sheetBand: SheetBand, scales: SheetScales, options: BandAreaOptions): BandAreaGeometry {
-  const { colour, strokeWidth, fillOpacity, tolerance } = { ...bandAreaDefaults, ...options };
+  const { colour, strokeWidth, fillOpacity, tolerance, dash = '' } = { ...bandAreaDefaults, ...options };
   const window = drawWindowOf(scales);
   const perDecade =
     Math.abs(scales.x.range[1] - scales.x.range[0]) / Math.log10(scales.x.domain[1] / scales.x.domain[0]);
@@ -78,7 +87,17 @@ export function bandArea(sheetBand: SheetBand, scales: SheetScales, options: Ban
       const points = simplifyPolyline(run, tolerance);
       strokes.push(points);
       const role = trace.coincident ? 'band-line' : `band-${edge}`;
-      items.push({ type: 'path', role, dataId, d: pathOf(points), points, stroke: colour, strokeWidth, fill: 'none' });
+      items.push({
+        type: 'path',
+        role,
+        dataId,
+        d: pathOf(points),
+        points,
+        stroke: colour,
+        strokeWidth,
+        fill: 'none',
+        ...(dash ? { dash } : {}),
+      });
     }
   }
   return { items, strokes };

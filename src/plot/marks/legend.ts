@@ -1,8 +1,8 @@
 import type { Marker } from '../../engine/withstand/withstand.ts';
-import type { Box, Primitive } from '../geometry.ts';
+import type { Primitive } from '../geometry.ts';
 import { SHEET_COLOURS } from '../palette.ts';
 import { pathOf } from '../precision.ts';
-import { wrapText } from '../textWidth.ts';
+import { textWidth, wrapText } from '../textWidth.ts';
 import { symbolPath } from './marker.ts';
 
 /** How the legend is laid out. */
@@ -19,7 +19,7 @@ export const legendDefaults = {
 
 /** How an entry's sample is drawn: the same code as on the plot. */
 export type LegendSwatch =
-  | { kind: 'band'; colour: string; coincident: boolean }
+  | { kind: 'band'; colour: string; coincident: boolean; dash?: string }
   | { kind: 'line'; colour: string; dash?: string; width: number; round?: boolean }
   | { kind: 'hatch'; colour: string; patternId: string }
   | { kind: 'symbol'; colour: string; symbol: Marker['kind'] };
@@ -34,11 +34,13 @@ export interface LegendEntry {
 
 /** Options of the legend mark. */
 export interface LegendOptions {
-  /** The space the legend may fill, px. */
-  box: Box;
+  /** Where the key starts (top-left, px) and how wide it may run. */
+  box: { x: number; y: number; width: number };
+  /** The most height it may take (px); entries beyond are counted in a closing line. @default Infinity */
+  maxHeight?: number;
   /** px */
   fontSize: number;
-  /** @default 'Legend' */
+  /** @default 'Not labelled on the plot:' */
   heading?: string;
 }
 
@@ -50,59 +52,73 @@ export interface LegendGeometry {
 }
 
 /**
- * Lays out the legend top-down in its box: a heading, then each group's heading and entries, each
- * entry a sample of its curve's code (fill and edges, dash, hatch or symbol) and its text wrapped to
- * the box. Entries that do not fit are counted in a closing "+ n more …" line.
+ * The key under the plot, cut to what the plot could not label: a heading, then each entry (a
+ * sample of its curve's code — fill and edges, dash, hatch or symbol — and its whole text) set
+ * left to right and wrapped into rows across the width. Entries beyond `maxHeight` are counted in a
+ * closing "+ n more …" line, never dropped unsaid. No entries, no key (height 0).
  * @example legend(entries, { box, fontSize: 11 }).shown // entries.length when all fit
  */
 export function legend(entries: LegendEntry[], options: LegendOptions): LegendGeometry {
-  const { box, fontSize, heading = 'Legend' } = options;
+  const { box, fontSize, maxHeight = Infinity, heading = 'Not labelled on the plot:' } = options;
+  if (entries.length === 0) return { items: [], shown: 0, height: 0 };
   const { swatchWidth, swatchGap, lineHeight, entryGap } = legendDefaults;
   const step = fontSize * lineHeight;
-  const textX = box.x + swatchWidth + swatchGap;
-  const textWidthMax = box.width - swatchWidth - swatchGap;
-  const bottom = box.y + box.height;
-  const items: Primitive[] = [text('legend-heading', box.x, box.y + fontSize, heading, fontSize * 1.05, 'bold')];
-  let y = box.y + fontSize + step * 0.6;
-  let group = '';
+  const right = box.x + box.width;
+  const headingSize = fontSize * 0.9;
+  const items: Primitive[] = [
+    text('legend-heading', box.x, box.y + step * 0.8, heading, headingSize, 'bold', SHEET_COLOURS.mutedText),
+  ];
+  let x = box.x + textWidth(heading, headingSize, 'bold') + entryGap * 3;
+  let row = 0;
   let shown = 0;
+  const rowsAllowed = Math.max(1, Math.floor(maxHeight / step));
   for (const [i, entry] of entries.entries()) {
-    const lines = wrapText(entry.text, textWidthMax, fontSize);
-    const headingHeight = entry.group !== group ? step * 1.15 : 0;
-    const height = headingHeight + lines.length * step + entryGap;
-    // Keep a line free for the "more" note unless this is the last entry.
-    const reserve = i < entries.length - 1 ? step : 0;
-    if (y + height + reserve > bottom) break;
-    if (headingHeight) {
-      items.push(
-        text('legend-group', box.x, y + step * 0.85, entry.group, fontSize * 0.9, 'bold', SHEET_COLOURS.mutedText),
-      );
-      y += headingHeight;
-      group = entry.group;
-    }
-    const middle = y + step * 0.55;
-    items.push(...swatchItems(entry, box.x, middle, swatchWidth));
+    const full = swatchWidth + swatchGap + textWidth(entry.text, fontSize);
+    const lines =
+      full <= box.width ? [entry.text] : wrapText(entry.text, box.width - swatchWidth - swatchGap, fontSize);
+    const width = Math.min(full, box.width);
+    let nextRow = row;
+    let nextX = x;
+    if (x + width > right) [nextRow, nextX] = [row + 1, box.x];
+    // Keep a row free for the "more" note unless this is the last entry.
+    const reserve = i < entries.length - 1 ? 1 : 0;
+    if (nextRow + lines.length + reserve > rowsAllowed) break;
+    [row, x] = [nextRow, nextX];
+    const top = box.y + row * step;
+    items.push(...swatchItems(entry, x, top + step * 0.5, swatchWidth));
     lines.forEach((line, k) =>
-      items.push({ ...text('legend-text', textX, y + step * (k + 0.85), line, fontSize), dataId: entry.dataId }),
+      items.push({
+        ...text('legend-text', x + swatchWidth + swatchGap, top + step * (k + 0.8), line, fontSize),
+        dataId: entry.dataId,
+      }),
     );
-    y += lines.length * step + entryGap;
+    row += lines.length - 1;
+    x = lines.length > 1 ? right : x + width + entryGap * 5;
     shown++;
   }
   if (shown < entries.length) {
+    row += 1;
     items.push(
       text(
         'legend-more',
         box.x,
-        y + step * 0.85,
-        `+ ${entries.length - shown} more not shown (enlarge the sheet)`,
+        box.y + row * step + step * 0.8,
+        `+ ${entries.length - shown} more, named in the sheet's drawing notes (enlarge the sheet to show them here)`,
         fontSize * 0.9,
         'normal',
         SHEET_COLOURS.mutedText,
       ),
     );
-    y += step;
   }
-  return { items, shown, height: y - box.y };
+  return { items, shown, height: (row + 1) * step + 2 };
+}
+
+/**
+ * The height in px the key needs to show every entry across `width`, so the sheet can make room.
+ * @example legendHeight(entries, 900, 11) // ≈ 14 for one short row
+ */
+export function legendHeight(entries: LegendEntry[], width: number, fontSize: number): number {
+  return legend(entries, { box: { x: 0, y: 0, width }, fontSize }).height;
 }
 
 // Accepts an entry and the swatch's left edge and vertical centre; the sample of the curve's code.
@@ -122,6 +138,7 @@ function swatchItems(entry: LegendEntry, x: number, y: number, width: number): P
             stroke: swatch.colour,
             strokeWidth: 1.6,
             fill: 'none',
+            ...(swatch.dash ? { dash: swatch.dash } : {}),
           },
         ];
       return [
@@ -145,6 +162,7 @@ function swatchItems(entry: LegendEntry, x: number, y: number, width: number): P
           stroke: swatch.colour,
           strokeWidth: 1.6,
           fill: 'none',
+          ...(swatch.dash ? { dash: swatch.dash } : {}),
         },
       ];
     }
