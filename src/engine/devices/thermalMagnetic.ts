@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { Band } from '../band.ts';
-import { percentField, quantityField } from '../study/fields.ts';
+import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
 import { bandOfEdges, compositeEdge, definiteElement } from './composite.ts';
 import { isValidTable, pointTableSchema, tableElement, upperBelowLower } from './pointTable.ts';
 
@@ -23,7 +23,7 @@ export function createThermalMagneticSchema(frequency = 60) {
   return z
     .object({
       kind: z.literal('thermal-magnetic'),
-      label: z.string().optional(),
+      label: nameField.optional(),
       illustrative: z.boolean().default(false).meta({ description: 'invented curve data, not a product' }),
       rating: quantityField('current', { min: 0, exclusiveMin: true, description: 'breaker rating (A)' }),
       thermal: z
@@ -42,10 +42,10 @@ export function createThermalMagneticSchema(frequency = 60) {
         }),
       magnetic: z
         .object({
-          pickup: z.number().positive().optional().meta({ description: 'magnetic pickup × rating' }),
+          pickup: boundedNumber(0.5, 100, 'magnetic pickup × rating', 'breakers offer about 3 × to 20 ×').optional(),
           pickupAmps: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
           range: z
-            .tuple([z.number().positive(), z.number().positive()])
+            .tuple([z.number().positive().max(1e7), z.number().positive().max(1e7)])
             .optional()
             .meta({ description: 'adjustable range [low, high] in the terms of the pickup; omit for a fixed trip' }),
           tolerance: percentField({ min: 0, max: 90, description: 'pickup tolerance ± %' }).default(20),

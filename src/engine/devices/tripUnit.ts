@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { Band } from '../band.ts';
-import { percentField, quantityField } from '../study/fields.ts';
+import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
 import { bandOfEdges, compositeEdge, definiteElement, i2tElement, type EdgeElement } from './composite.ts';
 
 /** How the long-time ramp meets the short-time function (see `createTripUnitSchema`). */
@@ -29,7 +29,9 @@ export const LONG_TIME_RAMPS = ['independent', 'ends-at-short-time-pickup'] as c
  */
 export function createTripUnitSchema(frequency = 60) {
   const time = (description: string) => quantityField('time', { frequency, min: 0, description });
-  const multiple = (description: string) => z.number().positive().meta({ description });
+  // Multiples of I_n or I_r: ground-fault pickups go down to about 0.2 ×, instantaneous up to about 15 ×.
+  const multiple = (description: string) =>
+    boundedNumber(0.05, 100, description, 'trip units offer about 0.2 × to 15 ×');
   const percent = (description: string, value: number) => percentField({ min: 0, max: 90, description }).default(value);
   const delayed = (pickup: string, through: string, throughDefault: number) =>
     z
@@ -44,7 +46,7 @@ export function createTripUnitSchema(frequency = 60) {
   return z
     .object({
       kind: z.literal('trip-unit'),
-      label: z.string().optional(),
+      label: nameField.optional(),
       sensor: quantityField('current', { min: 0, exclusiveMin: true, description: 'sensor or rating-plug amps I_n' }),
       longTime: z
         .object({
