@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkCommand } from '../../src/cli/commands/check.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
-import { runVerb } from './run.ts';
+import { runVerb, spawnDiscern } from './run.ts';
 
 describe('discern check', () => {
   it('has the expected defaults: a findings table without passing rows, a summary and the caution; exit 0 when nothing fails', async () => {
@@ -48,6 +48,12 @@ describe('discern check', () => {
     expect(code).toBe(1);
     expect(stdout).toMatch(/^fail\s+Lighting feeder 100 A: rated 10 kA, duty 64\.8 kA\s+64\.8 kA @ 480 V/m);
     expect(stdout).toMatch(/\ncounts: 1 fail, 0 thin margin, 0 not provable, 0 warning, \d+ info, \d+ ok\n$/);
+  });
+
+  it('ends a real process with exit 1 on the interrupting-duty failure, the counts line last', () => {
+    const { code, stdout } = spawnDiscern(['check', 'tests/fixtures/studies/interrupting-duty.json', '--strict']);
+    expect(code).toBe(1);
+    expect(stdout.trimEnd().split('\n').at(-1)).toMatch(/^counts: 1 fail, /);
   });
 
   it('ends with one line counting each class, and exits 1 under --strict on thin margins or unprovable regions', async () => {
