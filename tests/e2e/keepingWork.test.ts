@@ -114,8 +114,14 @@ describe('the workbench keeps the work', () => {
 
   it('an edit that leaves a problem (a field cleared to retype it), then a reload: offered back exactly as left', async () => {
     const { page, context } = await openWith();
+    const sheetBefore = await page.getByTestId('sheet-svg').boundingBox();
     await setMainDelay(page, '');
     await page.getByTestId('study-problems').waitFor();
+    // The problems bar sits beside the fields: it neither covers the sheet nor moves it.
+    const bar = (await page.getByTestId('study-problems').boundingBox())!;
+    const sheet = (await page.getByTestId('sheet-svg').boundingBox())!;
+    expect(sheet).toEqual(sheetBefore);
+    expect(bar.x + bar.width <= sheet.x || bar.y >= sheet.y + sheet.height || bar.y + bar.height <= sheet.y).toBe(true);
     await reloadAtOnce(page);
     const offer = page.getByTestId('recovery-offer');
     await offer.waitFor();
