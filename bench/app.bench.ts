@@ -3,17 +3,16 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { readFileSync, readdirSync } from 'node:fs';
 import { gzipSync } from 'node:zlib';
-import { fileURLToPath } from 'node:url';
 import { chromium } from 'playwright-core';
-import type { Benchmark } from './benchmark.ts';
+import { medianOf, single, type Benchmark } from './benchmark.ts';
+import { ROOT } from './root.ts';
 
-const ROOT = fileURLToPath(new URL('../', import.meta.url));
 const PORT = 4190;
 const EDITS = 60;
 const PROBES = 120;
 
 let built: Promise<void> | undefined;
-let measured: Promise<{ edit: number; probe: number; demo: string; devices: number; path: string }> | undefined;
+let measured: Promise<{ edit: number[]; probe: number[]; demo: string; devices: number; path: string }> | undefined;
 
 /** Builds dist/ once per run, from the sources as they are now. */
 function build(): Promise<void> {
@@ -41,11 +40,6 @@ function largestDemo(): { fileName: string; devices: number } {
       return { fileName, devices: study.devices?.length ?? 0 };
     })
     .sort((a, b) => b.devices - a.devices || a.fileName.localeCompare(b.fileName))[0];
-}
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)];
 }
 
 /** Opens the largest demo in Chromium and times setting changes and probe moves through the page's hook. */
@@ -105,8 +99,8 @@ function measure() {
       );
       // The first few edits warm the page's code up; the median ignores them anyway.
       return {
-        edit: median(result.editTimes.slice(5)),
-        probe: median(result.probeTimes.slice(5)),
+        edit: result.editTimes.slice(5),
+        probe: result.probeTimes.slice(5),
         demo: demo.fileName,
         devices: demo.devices,
         path: result.path,
@@ -140,7 +134,7 @@ export const benchmarks: Benchmark[] = [
     target: 16,
     async run() {
       const { edit, demo, devices, path } = await measure();
-      return { value: edit, detail: `${demo}, ${devices} devices, stepping ${path}` };
+      return medianOf(edit, `${demo}, ${devices} devices, stepping ${path}`);
     },
   },
   {
@@ -150,7 +144,7 @@ export const benchmarks: Benchmark[] = [
     target: 8,
     async run() {
       const { probe, demo } = await measure();
-      return { value: probe, detail: demo };
+      return medianOf(probe, demo);
     },
   },
   {
@@ -160,10 +154,7 @@ export const benchmarks: Benchmark[] = [
     target: 300,
     async run() {
       const { start, onDemand } = await bundleSizes();
-      return {
-        value: start / 1000,
-        detail: `plus ${(onDemand / 1000).toFixed(0)} kB loaded only for a PDF export`,
-      };
+      return single(start / 1000, `plus ${(onDemand / 1000).toFixed(0)} kB loaded only for a PDF export`);
     },
   },
   {
@@ -173,7 +164,7 @@ export const benchmarks: Benchmark[] = [
     target: 300,
     async run() {
       const { start, onDemand } = await bundleSizes();
-      return { value: (start + onDemand) / 1000 };
+      return single((start + onDemand) / 1000);
     },
   },
 ];

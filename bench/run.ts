@@ -1,4 +1,6 @@
-// `npm run bench`: runs every benchmark module in bench/ and prints each figure beside its target (DESIGN §7).
+// `npm run bench`: runs every benchmark module in bench/ and prints each figure beside its target
+// (DESIGN §7), the ratio figure / target, and the spread (min / median / max) of the runs behind it.
+// `npm run bench -- P1 P3` runs only those ids (a prefix matches: P2 also runs P2e).
 import { readdirSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { dirname, join } from 'node:path';
@@ -7,20 +9,24 @@ import type { Benchmark } from './benchmark.ts';
 const here = dirname(fileURLToPath(import.meta.url));
 const only = process.argv.slice(2);
 const modules = readdirSync(here)
-  .filter((file) => file.endsWith('.bench.ts'))
+  .filter((file) => /\.bench\.(ts|js)$/.test(file))
   .sort();
 
-const rows: string[][] = [['id', 'what', 'measured', 'target', 'ratio', 'holds']];
+const rows: string[][] = [['id', 'what', 'measured', 'target', 'ratio', 'holds', 'spread min / median / max (runs)']];
 let failed = 0;
 for (const file of modules) {
   const { benchmarks } = (await import(pathToFileURL(join(here, file)).href)) as { benchmarks: Benchmark[] };
   for (const bench of benchmarks) {
-    if (only.length > 0 && !only.includes(bench.id)) continue;
-    const { value, detail } = await bench.run();
-    const ratio = bench.higherIsBetter ? value / bench.target : value / bench.target;
-    const holds = bench.higherIsBetter ? value >= bench.target : value < bench.target;
+    if (only.length > 0 && !only.some((id) => bench.id.startsWith(id))) continue;
+    const { value, spread, detail } = await bench.run();
+    const ratio = value / bench.target;
+    const holds = bench.higherIsBetter
+      ? value >= bench.target
+      : bench.inclusive
+        ? value <= bench.target
+        : value < bench.target;
     if (!holds) failed++;
-    const comparator = bench.higherIsBetter ? '≥' : '<';
+    const comparator = bench.higherIsBetter ? '≥' : bench.inclusive ? '≤' : '<';
     rows.push([
       bench.id,
       bench.what + (detail ? ` (${detail})` : ''),
@@ -28,13 +34,15 @@ for (const file of modules) {
       `${comparator} ${format(bench.target)} ${bench.unit}`,
       ratio.toFixed(2),
       holds ? 'yes' : 'NO',
+      `${format(spread.min)} / ${format(spread.median)} / ${format(spread.max)} (${spread.runs})`,
     ]);
-    console.error(`${bench.id} done`);
+    console.error(`${bench.id} done: ${format(value)} ${bench.unit}`);
   }
 }
 const widths = rows[0].map((_, c) => Math.max(...rows.map((row) => row[c].length)));
 for (const row of rows) console.log(row.map((cell, c) => cell.padEnd(widths[c])).join('  '));
 console.log(failed === 0 ? 'every target holds' : `${failed} target(s) missed`);
+console.log('Timings on a shared machine vary from run to run: read the spread beside each figure.');
 
 function format(value: number): string {
   return Math.abs(value) >= 100 ? value.toFixed(0) : Number(value.toPrecision(3)).toString();

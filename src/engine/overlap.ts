@@ -55,18 +55,27 @@ export interface OverlapOptions {
    * thousands of seconds just above pickup prove nothing about coordination. @default 1000
    */
   horizon?: number;
-  /** Log-grid density on each smooth segment. @default 24 */
+  /** Log-grid density on each smooth segment. @default 12 */
   samplesPerDecade?: number;
   /** Relative current tolerance of every interval edge. @default 1e-6 */
   tolerance?: number;
 }
+
+/** Golden-section steps spent on each dip of the time ratio (its bottom to 0.2 % of a cell). */
+const DIP_STEPS = 10;
+const GOLDEN = (Math.sqrt(5) - 1) / 2;
+/** Cells of the grid in each smooth segment, however short (its ends and the point just below its top are always evaluated). */
+const MIN_CELLS = 1;
 
 const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not provable from curves'];
 
 /**
  * Finds, exactly, where an upstream band and a downstream band (on one voltage base) can and cannot be
  * told apart (DESIGN §4). The range is split at every breakpoint of both bands, each smooth segment is
- * sampled on a log grid, every change of class is bracketed and refined by bisection to `tolerance`.
+ * sampled on a log grid (evaluated once), every local dip of the time ratio is probed at its
+ * bottom, and every change of class is bracketed and refined to `tolerance`: at a
+ * breakpoint in one step, elsewhere by Illinois regula falsi on the logarithm of the times, which
+ * needs a handful of evaluations where bisection needs twenty.
  *
  * At each current: `overlap` where `up.minTime · timeRatio < down.maxTime + margin` (so also where the
  * upstream device operates on a current the downstream one carries indefinitely); `thin margin` where the
@@ -87,7 +96,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     halfCycle = HALF_CYCLE_SECONDS,
     instantaneousRegion = 0.1,
     horizon = 1000,
-    samplesPerDecade = 24,
+    samplesPerDecade = 12,
     tolerance = 1e-6,
   } = options;
   // An infinite bus has no top current; beyond their last breakpoints both bands are flat, so ten
@@ -97,8 +106,8 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     return findOverlaps(up, down, { ...options, toAmps: 10 * largest });
   }
   if (!(fromAmps > 0) || !(toAmps > fromAmps)) return [];
-  const upMin = (amps: number) => beyond(up.minTime(amps), horizon);
-  const downMax = (amps: number) => beyond(down.maxTime(amps), horizon);
+  const { minTime } = up;
+  const downSlow = down.maxTime;
   const downFast = down.minTime;
   const limitingFrom = Math.min(up.currentLimitingFrom, down.currentLimitingFrom);
 
@@ -107,152 +116,290 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     const limiting = amps >= limitingFrom && upTime < instantaneousRegion;
     // Two instantaneous trips: the upstream band and the downstream band both reach the half-cycle,
     // and the downstream device surely clears within the instantaneous region.
-    const bothInstantaneous = upTime <= halfCycle && downTime <= instantaneousRegion && downFast(amps) <= halfCycle;
-    if (bothInstantaneous || limiting) return 3;
+    if (limiting || (upTime <= halfCycle && downTime <= instantaneousRegion && downFast(amps) <= halfCycle)) return 3;
     const slack = upTime * timeRatio - (downTime + margin);
     if (!(slack >= 0)) return 2;
     return slack < thinMargin ? 1 : 0;
   };
-  const classify = (amps: number) => classOf(amps, upMin(amps), downMax(amps));
   const ratioOf = (upTime: number, downTime: number): number => {
     const needed = downTime + margin;
     if (upTime === Infinity) return Infinity;
     if (needed === Infinity) return 0;
     return needed === 0 ? Infinity : (upTime * timeRatio) / needed;
   };
-  const pointOf = (amps: number, upTime = upMin(amps), downTime = downMax(amps)): WorstPoint => ({
+  const pointOf = (amps: number, upTime: number, downTime: number): WorstPoint => ({
     amps,
     upTime,
     downTime,
     marginSeconds: upTime === Infinity ? Infinity : upTime * timeRatio - (downTime + margin),
     ratio: ratioOf(upTime, downTime),
   });
+  // The last evaluation, kept so that no current is evaluated twice.
+  let probeUp = 0;
+  let probeDown = 0;
+  const probe = (amps: number): number => {
+    const u = minTime(amps);
+    const d = downSlow(amps);
+    probeUp = u > horizon ? Infinity : u;
+    probeDown = d > horizon ? Infinity : d;
+    return classOf(amps, probeUp, probeDown);
+  };
 
   // Stage 1: the grid — range ends, every breakpoint inside, and log-spaced samples between them —
-  // evaluated once, with each local minimum of the time ratio refined and added, so that a narrow
-  // dip cannot hide inside a cell.
-  const grid = gridOf(fromAmps, toAmps, [up.breakpoints, down.breakpoints], samplesPerDecade);
-  const ratios = new Float64Array(grid.length);
-  for (let i = 0; i < grid.length; i++) ratios[i] = ratioOf(upMin(grid[i]), downMax(grid[i]));
-  // Only a dip that comes within twice the required time can cross a class edge unseen.
-  const extra = refinedMinima(grid, ratios, (amps) => ratioOf(upMin(amps), downMax(amps)), 2);
-  const points = extra.length === 0 ? grid : Float64Array.from([...grid, ...extra]).sort();
-  const upTimes = new Float64Array(points.length);
-  const downTimes = new Float64Array(points.length);
-  const classes = new Int8Array(points.length);
-  for (let i = 0; i < points.length; i++) {
-    upTimes[i] = upMin(points[i]);
-    downTimes[i] = downMax(points[i]);
-    classes[i] = classOf(points[i], upTimes[i], downTimes[i]);
+  // evaluated once; each local dip of the time ratio is probed where a parabola through its three
+  // samples bottoms out, so that a narrow dip cannot hide inside a cell.
+  const grid = gridOf(fromAmps, toAmps, up.breakpoints, down.breakpoints, samplesPerDecade, tolerance);
+  let count = grid.count;
+  const points = scratch.points;
+  const upTimes = ensure('upTimes', count);
+  const downTimes = ensure('downTimes', count);
+  const classes = ensureClasses(count);
+  for (let i = 0; i < count; i++) {
+    classes[i] = probe(points[i]);
+    upTimes[i] = probeUp;
+    downTimes[i] = probeDown;
   }
+  count = probeDips(count);
 
-  // Stage 2: bisect every change of class to the tolerance (several changes may share one cell);
-  // collect the intervals, each with its worst point.
+  // Stage 2: refine every change of class (several may share one cell); collect the intervals, each
+  // with its worst point.
   const intervals: OverlapInterval[] = [];
   let start = fromAmps;
   let current = classes[0];
   let worst = pointOf(points[0], upTimes[0], downTimes[0]);
-  const consider = (i: number) => {
-    const ratio = ratioOf(upTimes[i], downTimes[i]);
-    const margin_ = upTimes[i] * timeRatio - (downTimes[i] + margin);
-    if (ratio < worst.ratio || (ratio === worst.ratio && margin_ < worst.marginSeconds)) {
-      worst = pointOf(points[i], upTimes[i], downTimes[i]);
-    }
-  };
-  for (let i = 1; i < points.length; i++) {
+  let worstRatio = worst.ratio;
+  let worstMargin = worst.marginSeconds;
+  for (let i = 1; i < count; i++) {
     let lo = points[i - 1];
+    let loUp = upTimes[i - 1];
+    let loDown = downTimes[i - 1];
     while (classes[i] !== current) {
-      let hi = points[i];
-      while (hi - lo > tolerance * lo) {
-        const mid = Math.sqrt(lo * hi);
-        if (classify(mid) === current) lo = mid;
-        else hi = mid;
-      }
-      worst = worse(worst, pointOf(lo));
-      intervals.push({ fromAmps: start, toAmps: hi, status: STATUSES[current], worst });
-      start = hi;
-      lo = hi;
-      current = classify(hi);
-      worst = pointOf(hi);
+      const edge = refineEdge(lo, loUp, loDown, points[i], upTimes[i], downTimes[i], current);
+      const last = pointOf(edge.lo, edge.loUp, edge.loDown);
+      if (last.ratio < worstRatio || (last.ratio === worstRatio && last.marginSeconds < worstMargin)) worst = last;
+      intervals.push({ fromAmps: start, toAmps: edge.hi, status: STATUSES[current], worst });
+      start = edge.hi;
+      lo = edge.hi;
+      loUp = edge.hiUp;
+      loDown = edge.hiDown;
+      current = edge.hiClass;
+      worst = pointOf(lo, loUp, loDown);
+      worstRatio = worst.ratio;
+      worstMargin = worst.marginSeconds;
     }
-    consider(i);
+    const ratio = ratioOf(upTimes[i], downTimes[i]);
+    const slack = upTimes[i] * timeRatio - (downTimes[i] + margin);
+    if (ratio < worstRatio || (ratio === worstRatio && slack < worstMargin)) {
+      worst = pointOf(points[i], upTimes[i], downTimes[i]);
+      worstRatio = ratio;
+      worstMargin = worst.marginSeconds;
+    }
   }
   intervals.push({ fromAmps: start, toAmps, status: STATUSES[current], worst });
   return intervals;
-}
 
-/**
- * Log-spaced currents from `from` to `to` with every breakpoint inside, sorted and without duplicates;
- * each smooth segment gets at least four cells.
- */
-function gridOf(from: number, to: number, breakpointSets: Float64Array[], samplesPerDecade: number): Float64Array {
-  const knots = [from];
-  for (const set of breakpointSets) for (const amps of set) if (amps > from && amps < to) knots.push(amps);
-  knots.push(to);
-  knots.sort((a, b) => a - b);
-  const points: number[] = [];
-  for (let k = 0; k + 1 < knots.length; k++) {
-    const a = knots[k];
-    const b = knots[k + 1];
-    if (!(b > a * (1 + 1e-12))) continue;
-    const cells = Math.max(4, Math.ceil(samplesPerDecade * Math.log10(b / a)));
-    const step = Math.pow(b / a, 1 / cells);
-    let amps = a;
-    for (let c = 0; c < cells; c++, amps *= step) points.push(c === 0 ? a : amps);
+  /**
+   * Probes every interior local minimum of the time ratio that comes within twice the required time
+   * (only such a dip can cross a class edge unseen; one already inside an overlap cannot) at its
+   * bottom, found by golden-section search, and inserts that probe into the grid. Returns the new
+   * number of points.
+   */
+  function probeDips(size: number): number {
+    const dips: { amps: number; at: number; cls: number; up: number; down: number; ratio: number }[] = [];
+    let r0 = ratioOf(upTimes[0], downTimes[0]);
+    let r1 = size > 1 ? ratioOf(upTimes[1], downTimes[1]) : Infinity;
+    for (let i = 1; i + 1 < size; i++) {
+      const r2 = ratioOf(upTimes[i + 1], downTimes[i + 1]);
+      if (r1 < 2 && r1 < r0 && r1 <= r2 && classes[i] !== 2) {
+        // Golden-section search in log current between the neighbours, keeping the lowest probe.
+        let xa = Math.log(points[i - 1]);
+        let xb = Math.log(points[i + 1]);
+        let best: { amps: number; cls: number; up: number; down: number; ratio: number } | undefined;
+        const at = (x: number) => {
+          const amps = Math.exp(x);
+          const cls = probe(amps);
+          const ratio = ratioOf(probeUp, probeDown);
+          if (!best || ratio < best.ratio) best = { amps, cls, up: probeUp, down: probeDown, ratio };
+          return ratio;
+        };
+        let xc = xb - GOLDEN * (xb - xa);
+        let xd = xa + GOLDEN * (xb - xa);
+        let fc = at(xc);
+        let fd = at(xd);
+        for (let step = 0; step < DIP_STEPS; step++) {
+          if (fc < fd) {
+            xb = xd;
+            xd = xc;
+            fd = fc;
+            xc = xb - GOLDEN * (xb - xa);
+            fc = at(xc);
+          } else {
+            xa = xc;
+            xc = xd;
+            fc = fd;
+            xd = xa + GOLDEN * (xb - xa);
+            fd = at(xd);
+          }
+        }
+        if (best && best.amps > points[i - 1] && best.amps < points[i + 1] && best.amps !== points[i]) {
+          dips.push({ ...best, at: best.amps < points[i] ? i : i + 1 });
+        }
+      }
+      r0 = r1;
+      r1 = r2;
+    }
+    if (dips.length === 0) return size;
+    const total = size + dips.length;
+    if (points.length < total) throw new Error('overlap grid scratch too small'); // gridOf leaves room
+    // Insert from the last dip backwards, shifting the tail right once per dip.
+    let end = size;
+    for (let k = dips.length - 1; k >= 0; k--) {
+      const dip = dips[k];
+      for (let j = end; j > dip.at; j--) {
+        points[j + k] = points[j - 1];
+        upTimes[j + k] = upTimes[j - 1];
+        downTimes[j + k] = downTimes[j - 1];
+        classes[j + k] = classes[j - 1];
+      }
+      end = dip.at;
+      points[dip.at + k] = dip.amps;
+      upTimes[dip.at + k] = dip.up;
+      downTimes[dip.at + k] = dip.down;
+      classes[dip.at + k] = dip.cls;
+    }
+    return total;
   }
-  points.push(to);
-  return Float64Array.from(points);
-}
 
-/**
- * The refined position of every interior local minimum of `score` below `below` on a sorted grid
- * (golden-section search between the neighbouring samples), given the grid's scores.
- */
-function refinedMinima(
-  grid: Float64Array,
-  values: Float64Array,
-  score: (amps: number) => number,
-  below: number,
-): number[] {
-  const extra: number[] = [];
-  const golden = (Math.sqrt(5) - 1) / 2;
-  for (let i = 1; i + 1 < grid.length; i++) {
-    if (!(values[i] < below) || !(values[i] < values[i - 1]) || !(values[i] <= values[i + 1])) continue;
-    let a = Math.log(grid[i - 1]);
-    let b = Math.log(grid[i + 1]);
-    let c = b - golden * (b - a);
-    let d = a + golden * (b - a);
-    let fc = score(Math.exp(c));
-    let fd = score(Math.exp(d));
-    for (let k = 0; k < 40 && b - a > 1e-7; k++) {
-      if (fc < fd) {
-        b = d;
-        d = c;
-        fd = fc;
-        c = b - golden * (b - a);
-        fc = score(Math.exp(c));
+  /**
+   * The edge where the class stops being `current`, between `lo` (of that class) and `hi` (not): the
+   * last current of the class and the first beyond it, `tolerance` apart. A crossing of the slack's threshold is solved by
+   * Illinois regula falsi on the logarithms (bands are nearly straight on log-log paper); anything
+   * else (a pickup or the horizon inside a cell) falls back to bisection.
+   */
+  function refineEdge(
+    lo: number,
+    loUp: number,
+    loDown: number,
+    hi: number,
+    hiUp: number,
+    hiDown: number,
+    from: number,
+  ) {
+    let hiClass = classOf(hi, hiUp, hiDown);
+    // The threshold the slack crosses, when the change is a smooth crossing of one.
+    const to = hiClass;
+    // Leaving or entering "selective" crosses the thin-margin line; anything else the zero line.
+    const smooth = from <= 2 && to <= 2 && loUp !== Infinity && hiUp !== Infinity;
+    const threshold = !smooth ? -1 : from === 0 || (from === 1 && to === 0) ? thinMargin : 0;
+    const gOf = (u: number, d: number) => Math.log(u * timeRatio) - Math.log(d + margin + threshold);
+    let x0 = Math.log(lo);
+    let x1 = Math.log(hi);
+    let g0 = threshold >= 0 ? gOf(loUp, loDown) : NaN;
+    let g1 = threshold >= 0 ? gOf(hiUp, hiDown) : NaN;
+    let side = 0;
+    while (hi - lo > tolerance * lo) {
+      let x: number;
+      if (Number.isFinite(g0) && Number.isFinite(g1) && g0 !== g1) {
+        x = x1 - (g1 * (x1 - x0)) / (g1 - g0);
+        // Keep the probe strictly inside, and close the bracket once the estimate is near an end.
+        const room = 0.25 * tolerance;
+        if (!(x > x0 + room)) x = x0 + room;
+        if (!(x < x1 - room)) x = x1 - room;
       } else {
-        a = c;
-        c = d;
-        fc = fd;
-        d = a + golden * (b - a);
-        fd = score(Math.exp(d));
+        x = 0.5 * (x0 + x1);
+      }
+      const amps = Math.exp(x);
+      const cls = probe(amps);
+      const g = threshold >= 0 ? gOf(probeUp, probeDown) : NaN;
+      if (cls === from) {
+        lo = amps;
+        loUp = probeUp;
+        loDown = probeDown;
+        x0 = x;
+        g0 = g;
+        if (side === -1) g1 *= 0.5;
+        side = -1;
+      } else {
+        hi = amps;
+        hiUp = probeUp;
+        hiDown = probeDown;
+        hiClass = cls;
+        x1 = x;
+        g1 = g;
+        if (side === 1) g0 *= 0.5;
+        side = 1;
       }
     }
-    const amps = Math.exp((a + b) / 2);
-    if (amps > grid[i - 1] && amps < grid[i + 1] && amps !== grid[i]) extra.push(amps);
+    return { lo, loUp, loDown, hi, hiUp, hiDown, hiClass };
   }
-  return extra;
 }
 
-/** A time past the horizon counts as never. */
-function beyond(seconds: number, horizon: number): number {
-  return seconds > horizon ? Infinity : seconds;
+/**
+ * Scratch arrays the finder reuses from call to call (a study checks thousands of pairs): the grid's
+ * currents and the edges' times and classes there. They are grown on
+ * demand and never read beyond what the current call wrote.
+ */
+const scratch = {
+  points: new Float64Array(256),
+  upTimes: new Float64Array(256),
+  downTimes: new Float64Array(256),
+  classes: new Int8Array(256),
+};
+
+function ensure(name: 'upTimes' | 'downTimes', size: number): Float64Array {
+  if (scratch[name].length < size) scratch[name] = new Float64Array(2 * size);
+  return scratch[name];
 }
 
-/** The worse of two points: the smaller time ratio (ties broken by the smaller margin). */
-function worse(a: WorstPoint, b: WorstPoint): WorstPoint {
-  if (b.ratio < a.ratio) return b;
-  if (b.ratio === a.ratio && b.marginSeconds < a.marginSeconds) return b;
-  return a;
+function ensureClasses(size: number): Int8Array {
+  if (scratch.classes.length < size) scratch.classes = new Int8Array(2 * size);
+  return scratch.classes;
+}
+
+/**
+ * Fills `scratch.points` with log-spaced currents from `from` to `to` with every breakpoint inside,
+ * ascending and without duplicates ; each smooth segment gets
+ * least `MIN_CELLS` cells and the point just below its top. Returns how many points there are.
+ */
+function gridOf(
+  from: number,
+  to: number,
+  upBreakpoints: Float64Array,
+  downBreakpoints: Float64Array,
+  samplesPerDecade: number,
+  tolerance: number,
+): { count: number } {
+  const inside: number[] = [from];
+  for (const amps of upBreakpoints) if (amps > from && amps < to) inside.push(amps);
+  for (const amps of downBreakpoints) if (amps > from && amps < to) inside.push(amps);
+  inside.push(to);
+  inside.sort((a, b) => a - b);
+  let size = 1;
+  for (let k = 0; k + 1 < inside.length; k++) {
+    const a = inside[k];
+    const b = inside[k + 1];
+    if (b > a * (1 + 1e-12)) size += 1 + Math.max(MIN_CELLS, Math.ceil(samplesPerDecade * Math.log10(b / a)));
+  }
+  if (scratch.points.length < 2 * size) {
+    scratch.points = new Float64Array(2 * size);
+    ensure('upTimes', 2 * size);
+    ensure('downTimes', 2 * size);
+    ensureClasses(2 * size);
+  }
+  const { points } = scratch;
+  let count = 0;
+  for (let k = 0; k + 1 < inside.length; k++) {
+    const a = inside[k];
+    const b = inside[k + 1];
+    if (!(b > a * (1 + 1e-12))) continue;
+    const cells = Math.max(MIN_CELLS, Math.ceil(samplesPerDecade * Math.log10(b / a)));
+    const step = Math.pow(b / a, 1 / cells);
+    let amps = a;
+    for (let c = 0; c < cells; c++, amps *= step) points[count++] = c === 0 ? a : amps;
+    // Just below each breakpoint, so that an edge's value on either side of it is seen.
+    const below = b / (1 + 0.5 * tolerance);
+    if (b < to && below > points[count - 1]) points[count++] = below;
+  }
+  points[count++] = to;
+  return { count };
 }

@@ -17,7 +17,31 @@ export interface EdgeElement {
    * does there. Flat elements have none. Used to find where a composite edge changes element.
    */
   reach?(seconds: number): number;
+  /**
+   * The element's formula as data, when it is one of the closed forms below; the composite edge then
+   * evaluates it inline instead of calling `time` (same result, a fraction of the cost).
+   */
+  shape?: ElementShape;
 }
+
+/**
+ * The closed-form element formulas, as data: `flat` (a definite time), `i2t` (`k / I²`, held at `flat`
+ * from `flatFrom` amps) and `inverse` (`dial · (a / (M^p − 1) + b)` with `M = I · inversePickup`, held
+ * at `capTime` from the multiple `cap`).
+ */
+export type ElementShape =
+  | { kind: 'flat'; seconds: number }
+  | { kind: 'i2t'; k: number; flatFrom: number; flat: number }
+  | {
+      kind: 'inverse';
+      inversePickup: number;
+      dial: number;
+      a: number;
+      b: number;
+      p: number;
+      cap: number;
+      capTime: number;
+    };
 
 /** A composite edge: its time function and the currents where it changes formula. */
 export interface CompositeEdge {
@@ -41,14 +65,39 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   // so the curved ones (a power or logarithm each) are skipped at high current.
   const ordered = [...elements].sort((x, y) => Number(x.reach !== undefined) - Number(y.reach !== undefined));
   const pickups = Float64Array.from(ordered, (element) => element.pickup);
-  const times = ordered.map((element) => element.time);
+  const { kinds, params, others } = packed(ordered);
+  // One function for every composite edge, with the formulas inline: the callers' call sites see a
+  // single function, and no element closure is called except for tables.
   const time = (amps: number): number => {
     let fastest = Infinity;
     for (let i = 0; i < count && fastest > floor; i++) {
-      if (amps >= pickups[i]) {
-        const t = times[i](amps);
-        if (t < fastest) fastest = t;
+      if (!(amps >= pickups[i])) continue;
+      const at = i * STRIDE;
+      let t: number;
+      switch (kinds[i]) {
+        case FLAT:
+          t = params[at];
+          break;
+        case I2T:
+          t = amps < params[at + 1] ? params[at] / (amps * amps) : params[at + 2];
+          break;
+        case INVERSE: {
+          const m = amps * params[at];
+          const p = params[at + 4];
+          t =
+            m >= params[at + 5]
+              ? params[at + 6]
+              : m > 1
+                ? params[at + 1] *
+                  (params[at + 2] / (p === 2 ? m * m - 1 : p === 1 ? m - 1 : Math.expm1(p * Math.log(m))) +
+                    params[at + 3])
+                : Infinity;
+          break;
+        }
+        default:
+          t = others[i]!(amps);
       }
+      if (t < fastest) fastest = t;
     }
     return (fastest > floor ? fastest : floor) + add;
   };
@@ -68,12 +117,45 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   return { time, breakpoints: uniqueAscending(points), minAmps: Math.min(Infinity, ...pickups) };
 }
 
+const FLAT = 0;
+const I2T = 1;
+const INVERSE = 2;
+const OTHER = 3;
+/** Parameters per element in the packed array. */
+const STRIDE = 7;
+
+/** Elements as kind codes and packed parameters; elements without a shape keep their `time`. */
+function packed(elements: readonly EdgeElement[]) {
+  const kinds = new Int8Array(elements.length);
+  const params = new Float64Array(elements.length * STRIDE);
+  const others: (((amps: number) => number) | undefined)[] = [];
+  elements.forEach((element, i) => {
+    const shape = element.shape;
+    const at = i * STRIDE;
+    others.push(undefined);
+    if (shape?.kind === 'flat') {
+      kinds[i] = FLAT;
+      params[at] = shape.seconds;
+    } else if (shape?.kind === 'i2t') {
+      kinds[i] = I2T;
+      params.set([shape.k, shape.flatFrom, shape.flat], at);
+    } else if (shape?.kind === 'inverse') {
+      kinds[i] = INVERSE;
+      params.set([shape.inversePickup, shape.dial, shape.a, shape.b, shape.p, shape.cap, shape.capTime], at);
+    } else {
+      kinds[i] = OTHER;
+      others[i] = element.time;
+    }
+  });
+  return { kinds, params, others };
+}
+
 /**
  * A flat element: `seconds` from `pickup` amps on (a definite-time or instantaneous trip).
  * @example definiteElement(3000, 0.05).time(4000) // 0.05
  */
 export function definiteElement(pickup: number, seconds: number): EdgeElement {
-  return { pickup, time: () => seconds, joins: [], levels: [seconds] };
+  return { pickup, time: () => seconds, joins: [], levels: [seconds], shape: { kind: 'flat', seconds } };
 }
 
 /**
@@ -88,6 +170,7 @@ export function i2tElement(pickup: number, seconds: number, throughAmps: number,
   return {
     pickup,
     time: (amps) => (amps < flatFrom ? k / (amps * amps) : flat),
+    shape: { kind: 'i2t', k, flatFrom, flat },
     joins: Number.isFinite(flatFrom) && flatFrom > pickup ? [flatFrom] : [],
     levels: Number.isFinite(flatFrom) ? [flat] : [],
     reach: (level) => {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { Band } from '../band.ts';
-import { percentField, quantityField } from '../study/fields.ts';
+import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
 import { bandOfEdges, compositeEdge, definiteElement, type EdgeElement } from './composite.ts';
 import {
   INVERSE_CURVES,
@@ -58,12 +58,18 @@ export function createRelaySchema(frequency = 60) {
     .object({
       curve: z.enum(RELAY_CURVES),
       pickup: secondaryAmps('pickup (tap)'),
-      timeDial: z.number().positive().optional().meta({ description: 'time dial of an IEEE curve' }),
-      timeMultiplier: z.number().positive().optional().meta({ description: 'time multiplier of an IEC curve' }),
+      timeDial: boundedNumber(0.01, 100, 'time dial of an IEEE curve', 'relays offer about 0.05 to 15').optional(),
+      timeMultiplier: boundedNumber(
+        0.001,
+        100,
+        'time multiplier of an IEC curve',
+        'relays offer about 0.025 to 3.2',
+      ).optional(),
       delay: time('delay of a definite-time element').optional(),
       definiteTimeFrom: z
         .number()
         .gt(1)
+        .max(1000)
         .optional()
         .meta({ description: 'multiple of pickup above which the time is held (IEC G_D; common practice 20)' }),
     })
@@ -99,7 +105,7 @@ export function createRelaySchema(frequency = 60) {
   return z
     .object({
       kind: z.literal('relay'),
-      label: z.string().optional(),
+      label: nameField.optional(),
       ct,
       timeOvercurrent: timeOvercurrent.optional(),
       instantaneous: z
@@ -209,6 +215,7 @@ function overcurrentElement(
   return {
     pickup,
     time,
+    shape: { kind: 'inverse', inversePickup: inverse, dial, a, b, p, cap, capTime },
     joins: Number.isFinite(cap) ? [cap * pickup] : [],
     levels: Number.isFinite(cap) ? [capTime] : [],
     reach: (seconds) => {
