@@ -20,9 +20,6 @@ import type {
   SheetWithstand,
 } from './sheetInput.ts';
 
-/** Upstream current per downstream current for a secondary line-to-line fault across a Δ–Y transformer (REFERENCE §1.8 item 1). */
-const LINE_TO_LINE_SHIFT = 1 / 0.866;
-
 /**
  * Gathers what one view of an analysed study draws, all on the view's reference voltage (DESIGN §3):
  * each device's band scaled by `V_own / V_ref`, the transformer and cable withstand curves (with the
@@ -30,7 +27,7 @@ const LINE_TO_LINE_SHIFT = 1 / 0.866;
  * inrush points, motor starting curves, each bus's maximum fault current as a line labelled at both
  * voltages, and the non-selective regions of the view's pairs, each hatched between the two edges in
  * conflict. Where a finding rests on a secondary line-to-line fault the upstream band is drawn again,
- * shifted by 1.155. A ground-fault view (`groundFault`) adds each ground-fault element's band, draws the
+ * shifted as the pair check shifted it (2/√3 across a Δ–Y transformer). A ground-fault view (`groundFault`) adds each ground-fault element's band, draws the
  * line-to-ground fault currents and hatches the ground-fault findings, which other views leave out.
  *
  * @example sheetOf(viewInputOf(analysis, 'service'), { width: 960, height: 720 })
@@ -144,12 +141,17 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     const { bus } = located.get(id)!;
     return (band: Band, shift = 1) => scaleBand(band, onSheet(bus.voltage) / shift);
   };
+  // The upstream current per downstream current of a pair's line-to-line case, as the pair check used it.
+  const shiftOf = (up: string, down: string) =>
+    analysis.pairs
+      .find((p) => p.upstream === up && p.downstream === down)
+      ?.cases.find((c) => c.fault === 'line-to-line')?.upstreamShift ?? 1;
   const edgesOf = (up: string, down: string, fault: string): SheetRegion['edges'] => {
     const upDevice = network.devices.get(up)!;
     const downDevice = network.devices.get(down)!;
     if (fault === 'line-to-line')
       return {
-        upstream: onSheetBand(up)(bands.get(up)!, LINE_TO_LINE_SHIFT),
+        upstream: onSheetBand(up)(bands.get(up)!, shiftOf(up, down)),
         downstream: onSheetBand(down)(bands.get(down)!),
       };
     if (fault === 'ground-fault') {
@@ -162,7 +164,7 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     return { upstream: onSheetBand(up)(bands.get(up)!), downstream: onSheetBand(down)(bands.get(down)!) };
   };
   const regions: SheetRegion[] = [];
-  const shifted = new Set<string>();
+  const shifted = new Map<string, number>();
   for (const f of analysis.findings) {
     if (f.kind !== 'coordination' || !f.range || !f.status || f.status === 'selective') continue;
     if (!f.subjects.every((id) => shown.has(id))) continue;
@@ -178,15 +180,15 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     };
     if (!(region.toAmps > region.fromAmps)) continue;
     regions.push(region);
-    if (fault === 'line-to-line') shifted.add(f.subjects[0]);
+    if (fault === 'line-to-line') shifted.set(f.subjects[0], shiftOf(f.subjects[0], f.subjects[1]));
   }
   // The finding rests on the upstream band shifted for a secondary line-to-line fault: draw that band too.
-  for (const id of shifted) {
+  for (const [id, shift] of shifted) {
     const { device, bus, toAmps } = located.get(id)!;
     sheetBands.push({
       id: `${id}:line-to-line`,
-      label: `${device.name ?? id} for a secondary L-L fault (× ${LINE_TO_LINE_SHIFT.toFixed(3)})`,
-      band: onSheetBand(id)(bands.get(id)!, LINE_TO_LINE_SHIFT),
+      label: `${device.name ?? id} for a secondary L-L fault (× ${significant(shift, 4)})`,
+      band: onSheetBand(id)(bands.get(id)!, shift),
       ownVolts: bus.voltage,
       toAmps,
     });

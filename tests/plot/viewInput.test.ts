@@ -73,4 +73,15 @@ describe('viewInputOf', () => {
     expect(input.bands.map((b) => b.id)).toContain('MAIN:ground-fault');
     expect(input.faultLines.every((f) => f.label.endsWith('L-G'))).toBe(true);
   });
+
+  it('draws the upstream band shifted for a secondary line-to-line fault when a finding rests on it (2/√3 across Δ–Y)', () => {
+    const analysis = analysed('fused');
+    const input = viewInputOf(analysis, 'office');
+    const shifted = input.bands.find((b) => b.id === 'FDR-OFC:line-to-line')!;
+    expect(shifted.label).toMatch(/secondary L-L fault \(× 1\.155\)$/);
+    const plain = input.bands.find((b) => b.id === 'FDR-OFC')!;
+    assertInDelta(shifted.band.minTime(1000), plain.band.minTime(1000 * (2 / Math.sqrt(3))), 1e-9);
+    expect(input.regions.some((r) => r.findingId.includes(':line-to-line:'))).toBe(true);
+    expect(viewInputOf(analysed('selective'), 'office').bands.some((b) => b.id.endsWith(':line-to-line'))).toBe(false);
+  });
 });
