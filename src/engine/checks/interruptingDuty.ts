@@ -7,7 +7,7 @@ import { capitalise, nameOf, rangeOf, type CheckContext } from './context.ts';
 import type { Finding } from './finding.ts';
 
 /** What was tested to earn an interrupting or short-circuit rating: a breaker construction, a fuse, or equipment. */
-export type RatedConstruction = NonNullable<Device['construction']> | 'fuse' | 'equipment' | 'mv-equipment';
+export type RatedConstruction = NonNullable<Device['construction']> | 'fuse' | 'mv-fuse' | 'equipment' | 'mv-equipment';
 
 /** How a rating's test circuit compares with the system: its X/R and whether peaks or RMS currents are compared. */
 export interface RatingBasis {
@@ -61,7 +61,8 @@ export function ul489PowerFactor(ratingAmps: number): number {
 }
 
 /**
- * The construction a device's interrupting rating belongs to: `fuse` for a fuse; else the device's
+ * The construction a device's interrupting rating belongs to: `fuse` for a fuse (`mv-fuse` above
+ * 1000 V); else the device's
  * `construction`; else `mv-breaker` above 1000 V, `power-breaker` for a relay-tripped breaker at
  * 1000 V or less, and `moulded-case` for trip units and thermal-magnetic breakers (its UL 489 test X/R
  * is the lowest, so the duty factor the largest: the safe side when the construction is not known).
@@ -69,7 +70,7 @@ export function ul489PowerFactor(ratingAmps: number): number {
  * @example inferConstruction(device, 480) // 'moulded-case'
  */
 export function inferConstruction(device: Device, volts: number): RatedConstruction {
-  if (device.characteristic.kind === 'fuse') return 'fuse';
+  if (device.characteristic.kind === 'fuse') return volts > LOW_VOLTAGE_LIMIT ? 'mv-fuse' : 'fuse';
   if (device.construction) return device.construction;
   if (volts > LOW_VOLTAGE_LIMIT) return 'mv-breaker';
   return device.characteristic.kind === 'relay' ? 'power-breaker' : 'moulded-case';
@@ -81,7 +82,8 @@ export function inferConstruction(device: Device, volts: number): RatedConstruct
  *
  * - moulded-case, insulated-case (UL 489): power factor by rating (`ul489PowerFactor`), peaks compared;
  * - LV power circuit breakers (IEEE C37.13, UL 1066): power factor 15 %, X/R 6.59, RMS compared;
- * - fuses (UL 248-1): power factor 20 % or less, X/R 4.90, peaks compared;
+ * - fuses (UL 248-1): power factor 20 % or less, X/R 4.90, peaks compared; a fuse above 1000 V the same
+ *   unless its listed test X/R is entered (a lower test X/R gives a larger factor: the safe side);
  * - MV breakers (IEEE C37.04/C37.010): X/R = 2πf × 45 ms (17 at 60 Hz), RMS compared as a first-cycle screen;
  * - equipment at 1000 V or less: tested like a moulded-case breaker of the same rating (common practice);
  *   equipment above 1000 V: like an MV breaker.
@@ -122,12 +124,16 @@ export function ratingBasisOf(
             'low-voltage power circuit breaker, IEEE C37.13 / UL 1066 test circuit power factor 15 %; RMS asymmetrical currents compared, as IEEE 1015-2006 applies it',
         };
       case 'fuse':
+      case 'mv-fuse':
         return {
           construction,
           compare: 'peak',
           testXr: xrOfPowerFactor(0.2),
           testPowerFactor: 0.2,
-          source: 'fuse, UL 248-1 test circuit power factor 20 % or less; peak currents compared',
+          source:
+            construction === 'fuse'
+              ? 'fuse, UL 248-1 test circuit power factor 20 % or less; peak currents compared'
+              : 'medium-voltage fuse taken at the UL 248-1 low-voltage test circuit, power factor 20 %, which overstates the duty of a fuse tested at a higher X/R (enter its listed IEEE C37.41 test X/R); peak currents compared',
         };
       case 'mv-breaker':
       case 'mv-equipment':

@@ -38,6 +38,7 @@ describe('interrupting duty (NFPA 70 110.9) and equipment short-circuit rating (
     expect(inferConstruction(device('relay'), 480)).toBe('power-breaker');
     expect(inferConstruction(device('relay'), 12_470)).toBe('mv-breaker');
     expect(inferConstruction(device('fuse', 'power-breaker'), 480)).toBe('fuse');
+    expect(inferConstruction(device('fuse'), 12_470)).toBe('mv-fuse');
     expect(inferConstruction(device('trip-unit', 'insulated-case'), 480)).toBe('insulated-case');
   });
 
@@ -52,6 +53,9 @@ describe('interrupting duty (NFPA 70 110.9) and equipment short-circuit rating (
     assertInDelta(ratingBasisOf('mv-breaker', 40_000, 60).testXr, 16.9646, 1e-5);
     assertInDelta(ratingBasisOf('mv-breaker', 40_000, 50).testXr, 14.13717, 1e-5);
     expect(ratingBasisOf('power-breaker', 65_000, 60, 8).testXr).toBe(8);
+    // A fuse above 1000 V keeps the low-voltage test X/R unless its listed one is entered (the safe side).
+    expect(ratingBasisOf('mv-fuse', 50_000, 60)).toMatchObject({ compare: 'peak', testPowerFactor: 0.2 });
+    expect(ratingBasisOf('mv-fuse', 50_000, 60).source).toMatch(/IEEE C37\.41/);
   });
 
   it('multiplies by the peak ratio for moulded-case breakers and fuses, the RMS ratio for power breakers, 1 at or below the test X/R', () => {
