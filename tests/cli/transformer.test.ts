@@ -73,7 +73,7 @@ describe('discern transformer', () => {
     expect(stdout).toMatch(/infinite source +31\.38 kA/);
     expect(stdout).toMatch(/with this source +28\.42 kA +X\/R 6\.3/);
     expect(stdout).toMatch(/seen at the primary 1094 A/);
-    expect(stdout).toMatch(/I_sc = 1804\.22 \/ 0\.0634817 = 28421\.1 A/);
+    expect(stdout).toMatch(/I_sc = 1804\.22 A \/ 0\.0634817 pu = 28421\.1 A/);
   });
 
   it('--phases 1 uses S / V', async () => {

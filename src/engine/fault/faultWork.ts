@@ -140,7 +140,7 @@ export function zeroSequenceStepsTo(
         impedanceStep(
           `${name}: zero-sequence series sum to ${branch.item.to}`,
           'Z0 = ΣR0 + jΣX0',
-          `Z0 = Z0 at ${branch.item.from} + Z0 of ${branch.item.id}`,
+          `Z0 = (${formatImpedance(zero.atBus.get(branch.item.from)!)} Ω at ${branch.item.from}) + (Z0 of ${branch.item.id})`,
           z0,
           'Ω',
           'zero-sequence network (IEEE 399 short-circuit chapter)',

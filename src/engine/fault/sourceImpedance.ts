@@ -32,7 +32,7 @@ export function sourceImpedanceOf(level: SourceLevel, volts: number): { z: Imped
       steps.push({
         label: 'utility short-circuit power from its fault current',
         formula: 'S_sc = √3 · V · I_sc',
-        substituted: `S_sc = 1.7320508 × ${num(volts)} × ${num(level.available.amps)}`,
+        substituted: `S_sc = 1.7320508 × ${num(volts)} V × ${num(level.available.amps)} A`,
         value: sourcePowerOf(level, volts),
         unit: 'VA',
         source: 'S = √3 · V · I (IEEE 141)',
@@ -45,7 +45,7 @@ export function sourceImpedanceOf(level: SourceLevel, volts: number): { z: Imped
       impedanceStep(
         `utility impedance at ${num(volts)} V`,
         '|Z_U| = V² / S_sc',
-        `|Z_U| = ${num(volts)}² / ${num(power)} = ${num(magnitude)} Ω; ${split}`,
+        `|Z_U| = (${num(volts)} V)² / ${num(power)} VA = ${num(magnitude)} Ω; ${split}`,
         z,
         'Ω',
         'ohmic method (IEEE 141 / IEEE 399)',

@@ -61,7 +61,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
     work.push({
       label: `${side} full-load current (${phases === 3 ? 'three' : 'single'}-phase)`,
       formula: phases === 3 ? 'I_FL = S / (√3 · V)' : 'I_FL = S / V',
-      substituted: `I_FL = ${num(rating)} / (${root}${num(volts)})`,
+      substituted: `I_FL = ${num(rating)} VA / (${root}${num(volts)} V)`,
       value,
       unit: 'A',
       source: 'textbook identity (IEEE 141)',
@@ -75,7 +75,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
   work.push({
     label: 'transformer impedance, per unit on its own base',
     formula: impedanceTolerance ? 'Z_pu = 0.925 · %Z / 100' : 'Z_pu = %Z / 100',
-    substituted: `Z_pu = ${impedanceTolerance ? '0.925 × ' : ''}${num(impedance)} / 100`,
+    substituted: `Z_pu = ${impedanceTolerance ? '0.925 × ' : ''}${num(impedance)} % / 100`,
     value: perUnit,
     unit: 'pu',
     source: impedanceTolerance
@@ -86,7 +86,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
   work.push({
     label: 'secondary fault, infinite source',
     formula: 'I_sc = I_FL,sec / Z_pu',
-    substituted: `I_sc = ${num(secondaryFla)} / ${num(perUnit)}`,
+    substituted: `I_sc = ${num(secondaryFla)} A / ${num(perUnit)} pu`,
     value: infiniteBus,
     unit: 'A',
     source: 'infinite-bus identity (IEEE 141 / IEEE 242)',
@@ -101,7 +101,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
       work.push({
         label: 'source short-circuit power from its fault current',
         formula: 'S_sc = √3 · V_pri · I_sc',
-        substituted: `S_sc = 1.7320508 × ${num(primary)} × ${num(source.amps)}`,
+        substituted: `S_sc = 1.7320508 × ${num(primary)} V × ${num(source.amps)} A`,
         value: power,
         unit: 'VA',
         source: 'S = √3 · V · I (IEEE 141)',
@@ -113,7 +113,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
       impedanceStep(
         'source impedance on the transformer base',
         phases === 3 ? 'Z_U = S_T / S_sc' : 'Z_U = 2 · S_T / S_sc (line-to-line loop)',
-        `Z_U = ${factor === 2 ? '2 × ' : ''}${num(rating)} / ${num(power)}; ${sourceXr === undefined ? 'all reactance' : `X/R ${num(sourceXr)}`}`,
+        `Z_U = ${factor === 2 ? '2 × ' : ''}${num(rating)} VA / ${num(power)} VA; ${sourceXr === undefined ? 'all reactance' : `X/R ${num(sourceXr)}`}`,
         zU,
         'pu',
         'per-unit method (IEEE 141 / IEEE 399)',
@@ -121,7 +121,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
       impedanceStep(
         'transformer impedance split by its X/R',
         'R = Z / √(1 + (X/R)²), X = R · X/R',
-        `Z_T = ${num(perUnit)}; ${xr === undefined ? 'all reactance' : `X/R ${num(xr)}`}`,
+        `Z_T = ${num(perUnit)} pu; ${xr === undefined ? 'all reactance' : `X/R ${num(xr)}`}`,
         zT,
         'pu',
         'per-unit method (IEEE 141 / IEEE 399)',
@@ -144,7 +144,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
     work.push({
       label: 'secondary fault, finite source',
       formula: 'I_sc = I_FL,sec / |Z|',
-      substituted: `I_sc = ${num(secondaryFla)} / ${num(magnitudeOf(total))}`,
+      substituted: `I_sc = ${num(secondaryFla)} A / ${num(magnitudeOf(total))} pu`,
       value: secondaryAmps,
       unit: 'A',
       source: 'per-unit method (IEEE 141 / IEEE 399)',
@@ -153,7 +153,7 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
   work.push({
     label: 'secondary fault reflected to the primary',
     formula: 'I_pri = I_sec · V_sec / V_pri',
-    substituted: `I_pri = ${num(secondaryAmps)} × ${num(secondary)} / ${num(primary)}`,
+    substituted: `I_pri = ${num(secondaryAmps)} A × ${num(secondary)} V / ${num(primary)} V`,
     value: reflectedToPrimary,
     unit: 'A',
     source: 'turns ratio',

@@ -52,7 +52,7 @@ export function transformerImpedanceOf(
       steps.push({
         label: `${t.id} impedance with the −7.5 % test tolerance`,
         formula: 'Z_pu = 0.925 · %Z / 100',
-        substituted: `Z_pu = 0.925 × ${num(t.impedance)} / 100`,
+        substituted: `Z_pu = 0.925 × ${num(t.impedance)} % / 100`,
         value: perUnit,
         unit: 'pu',
         source:
@@ -63,7 +63,7 @@ export function transformerImpedanceOf(
       impedanceStep(
         `${t.id} impedance referred to ${num(t.secondary)} V`,
         '|Z_T| = Z_pu · V_sec² / S_T',
-        `|Z_T| = ${num(perUnit)} × ${num(t.secondary)}² / ${num(t.rating)} = ${num(magnitude)} Ω; ${split}`,
+        `|Z_T| = ${num(perUnit)} pu × (${num(t.secondary)} V)² / ${num(t.rating)} VA = ${num(magnitude)} Ω; ${split}`,
         z,
         'Ω',
         'per-unit method (IEEE 141 / IEEE 399)',

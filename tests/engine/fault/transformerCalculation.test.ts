@@ -76,7 +76,7 @@ describe('transformerCalculation', () => {
   it('the work lists each formula with its numbers and ends at the reflected value', () => {
     const r = transformerCalculation({ ...t750, source: { va: 250e6 }, sourceXr: 15 });
     expect(r.work.at(-1)!.value).toBe(r.faultAmps.reflectedToPrimary);
-    expect(r.work.at(-1)!.substituted).toBe('I_pri = 14916.9 × 480 / 4160');
+    expect(r.work.at(-1)!.substituted).toBe('I_pri = 14916.9 A × 480 V / 4160 V');
   });
 
   it('a weaker source never raises the secondary fault (property)', () => {
