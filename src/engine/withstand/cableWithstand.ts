@@ -6,7 +6,7 @@ import { elementPath, requireNumberAbove } from './inputs.ts';
 import type { WithstandCurve } from './withstand.ts';
 
 /**
- * ICEA P-32-382 conductor constants (REFERENCE §5.6): `K` in A²·s/cmil², `lambda` (λ) in °C, the
+ * ICEA P-32-382 conductor constants: `K` in A²·s/cmil², `lambda` (λ) in °C, the
  * inferred temperature of zero resistance. Copper 0.0297 / 234, aluminium 0.0125 / 228.
  */
 export const ICEA_CONDUCTOR: Readonly<Record<Cable['material'], { k: number; lambda: number; symbol: string }>> = {
@@ -16,13 +16,24 @@ export const ICEA_CONDUCTOR: Readonly<Record<Cable['material'], { k: number; lam
 
 /**
  * Conductor temperatures by insulation, `[T1, T2]` in °C: normal operating and short-circuit limit
- * (REFERENCE §5.6: thermoplastic from memory; XLPE/EPR and EPR MV-105 confirmed from public cable data).
+ * (ICEA P-32-382 as cable makers restate it for XLPE/EPR and EPR MV-105; 75/150 °C for thermoplastic is
+ * common practice).
  */
 export const ICEA_TEMPERATURES: Readonly<Record<Cable['insulation'], readonly [number, number]>> = {
   thermoplastic: [75, 150],
   xlpe: [90, 250],
   'epr-105': [105, 250],
 };
+
+/**
+ * The longest time (s) the adiabatic ICEA formula is drawn and checked to (common practice: it holds
+ * for short durations, about 10 s at most): the curve is a short-circuit limit only.
+ */
+export const ICEA_LONGEST_SECONDS = 10;
+
+/** What the cable curve leaves out, in words for the sheet, the findings and the report. */
+export const CABLE_OVERLOAD_NOTE =
+  'short-circuit limit only: the overload region beyond 10 s is not covered (check the ampacity and overload protection, NFPA 70 240.4)';
 
 /** Options of `cableWithstandOf`. */
 export interface CableWithstandOptions {
@@ -34,17 +45,19 @@ export interface CableWithstandOptions {
    * @default conductorAreaCmil(cable.size); range > 0
    */
   conductorAreaCmil?: number;
-  /** Time (s) where the drawn line starts; the adiabatic formula is not valid for long durations. @default 10 */
+  /** Time (s) where the drawn line starts; the adiabatic formula is not valid for long durations. @default 10; at most 10 */
   longestSeconds?: number;
   /** Time (s) where the drawn line ends (one half-cycle). @default 0.01 */
   shortestSeconds?: number;
 }
 
 /**
- * A cable's short-circuit withstand curve by ICEA P-32-382 (REFERENCE §5.6), adiabatic heating from
- * the insulation's operating temperature T1 to its short-circuit limit T2:
+ * A cable's short-circuit withstand curve by ICEA P-32-382, adiabatic heating from the insulation's
+ * operating temperature T1 to its short-circuit limit T2:
  * `(I / A)² · t = K · log10[(T2 + λ) / (T1 + λ)]`, I in A, A in cmil (× parallel sets), t in s.
- * Drawn as a straight line of slope −2 in log-log from 10 s down to 0.01 s.
+ * Drawn as a straight line of slope −2 in log-log from 10 s down to 0.01 s. It is a short-circuit
+ * limit only: below the 10 s current `timeAt` is `Infinity` (the overload region is not covered, and
+ * the label and notes say so), and it is never drawn beyond `ICEA_LONGEST_SECONDS`.
  *
  * @example cableWithstandOf({ size: '4/0', material: 'copper', insulation: 'xlpe', sets: 1, ... }, { volts: 480 }).timeAt(15_224.5) // ≈ 1 s
  */
@@ -54,6 +67,11 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
   const volts = requireNumberAbove('options.volts', options.volts, 0, 'a voltage in V');
   requireNumberAbove('options.shortestSeconds', shortestSeconds, 0, 'a time in s');
   requireNumberAbove('options.longestSeconds', longestSeconds, shortestSeconds, 'a time in s');
+  if (longestSeconds > ICEA_LONGEST_SECONDS)
+    throw new InputError(
+      'options.longestSeconds',
+      expectedGot(`a time of at most ${ICEA_LONGEST_SECONDS} s (a short-circuit limit only)`, longestSeconds),
+    );
   const conductor = ICEA_CONDUCTOR[cable.material];
   if (!conductor) throw new InputError(`${path}.material`, expectedGot('"copper" or "aluminium"', cable.material));
   const temperatures = ICEA_TEMPERATURES[cable.insulation];
@@ -90,7 +108,7 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
   return {
     elementId: cable.id,
     kind: 'cable',
-    label: `ICEA P-32-382, ${sizeText} ${conductor.symbol} ${temperatureText}`,
+    label: `ICEA P-32-382 short-circuit limit, ${sizeText} ${conductor.symbol} ${temperatureText}`,
     volts,
     amps,
     seconds,
@@ -107,6 +125,7 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
       `I = ${significant(c ** 0.5, 5)} · A / √t: ${significant(lowestAmps, 6)} A at ${longestSeconds} s to ` +
         `${significant(highestAmps, 6)} A at ${shortestSeconds} s, at ${significant(volts, 6)} V`,
       'conductor only: metallic shields and sheaths are rated by another method (ICEA P-45-482)',
+      CABLE_OVERLOAD_NOTE,
     ],
   };
 }

@@ -12,7 +12,13 @@ export {
 export type { ThermalCurve } from './transformerThermal.ts';
 export { transformerWithstandOf, MECHANICAL_FRACTION, MECHANICAL_SECONDS_AT_MAX } from './transformerWithstand.ts';
 export type { TransformerWithstandOptions } from './transformerWithstand.ts';
-export { cableWithstandOf, ICEA_CONDUCTOR, ICEA_TEMPERATURES } from './cableWithstand.ts';
+export {
+  CABLE_OVERLOAD_NOTE,
+  cableWithstandOf,
+  ICEA_CONDUCTOR,
+  ICEA_LONGEST_SECONDS,
+  ICEA_TEMPERATURES,
+} from './cableWithstand.ts';
 export type { CableWithstandOptions } from './cableWithstand.ts';
 export { scaleWithstand } from './scaleWithstand.ts';
 export type { ScaleWithstandOptions } from './scaleWithstand.ts';

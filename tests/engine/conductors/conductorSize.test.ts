@@ -16,6 +16,12 @@ describe('parseConductorSize', () => {
     ['500 kcmil', '500 kcmil'],
     ['250 MCM', '250 kcmil'],
     ['750kcmil', '750 kcmil'],
+    ['600 kcmil', '600 kcmil'],
+    ['600 MCM', '600 kcmil'],
+    ['1000 kcmil', '1000 kcmil'],
+    ['14 AWG', '14 AWG'],
+    ['#3', '3 AWG'],
+    ['1 AWG', '1 AWG'],
   ])('reads "%s" as %s', (text, canonical) => {
     expect(parseConductorSize(text)).toBe(canonical);
   });
@@ -40,8 +46,12 @@ describe('conductorAreaCmil', () => {
     expect(AWG_AREA_CMIL['4/0']).toBe(211600);
   });
 
-  // NEC Chapter 9 Table 8 areas as listed in REFERENCE §1.4 (from memory).
+  // NFPA 70 Chapter 9 Table 8 areas (from memory).
   it.each([
+    ['14 AWG', 4110],
+    ['3 AWG', 52620],
+    ['1 AWG', 83690],
+    ['600 kcmil', 600000],
     ['12 AWG', 6530],
     ['10 AWG', 10380],
     ['8 AWG', 16510],
@@ -54,8 +64,16 @@ describe('conductorAreaCmil', () => {
     ['4/0 AWG', 211600],
     ['250 kcmil', 250000],
     ['500 MCM', 500000],
-  ])('%s is %d cmil (REFERENCE §1.4)', (size, cmil) => {
+  ])('%s is %d cmil (NFPA 70 Ch. 9 Table 8)', (size, cmil) => {
     expect(conductorAreaCmil(size)).toBe(cmil);
+  });
+
+  it('AWG areas agree with the AWG law d = 5 · 92^((36 − n)/39) mil within the table rounding (ASTM B258)', () => {
+    const gauge: Record<string, number> = { '14 AWG': 14, '12 AWG': 12, '3 AWG': 3, '1 AWG': 1, '1/0': 0, '4/0': -3 };
+    for (const [size, n] of Object.entries(gauge)) {
+      const area = (5 * 92 ** ((36 - n) / 39)) ** 2;
+      expect(Math.abs(AWG_AREA_CMIL[size] - area) / area, size).toBeLessThan(0.002);
+    }
   });
 
   it('names the field on bad text', () => {

@@ -1,6 +1,11 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
-import { cableWithstandOf, ICEA_CONDUCTOR, ICEA_TEMPERATURES } from '../../../src/engine/withstand/cableWithstand.ts';
+import {
+  CABLE_OVERLOAD_NOTE,
+  cableWithstandOf,
+  ICEA_CONDUCTOR,
+  ICEA_TEMPERATURES,
+} from '../../../src/engine/withstand/cableWithstand.ts';
 import { assertInDelta } from '../../asserts.ts';
 import { cableOf } from './fixtures.ts';
 
@@ -13,7 +18,7 @@ function ampsAtDrawnTime(curve: { amps: Float64Array; seconds: Float64Array }, s
 
 describe('cableWithstandOf', () => {
   it('has the expected defaults', () => {
-    // ICEA P-32-382 constants, REFERENCE §5.6: Cu K 0.0297 λ 234; Al K 0.0125 λ 228
+    // ICEA P-32-382 constants (as cable makers restate them): Cu K 0.0297 λ 234; Al K 0.0125 λ 228
     expect(ICEA_CONDUCTOR.copper).toMatchObject({ k: 0.0297, lambda: 234 });
     expect(ICEA_CONDUCTOR.aluminium).toMatchObject({ k: 0.0125, lambda: 228 });
     expect(ICEA_TEMPERATURES).toEqual({ thermoplastic: [75, 150], xlpe: [90, 250], 'epr-105': [105, 250] });
@@ -21,13 +26,13 @@ describe('cableWithstandOf', () => {
     expect(curve.kind).toBe('cable');
     expect(curve.elementId).toBe('C1');
     expect(curve.volts).toBe(480);
-    expect(curve.label).toBe('ICEA P-32-382, 4/0 Cu 90 to 250 °C');
+    expect(curve.label).toBe('ICEA P-32-382 short-circuit limit, 4/0 Cu 90 to 250 °C');
     expect(Array.from(curve.seconds)).toEqual([10, 1, 0.1, 0.01]);
   });
 
-  describe('REFERENCE §7.8 ICEA P-32-382 cable points (computed)', () => {
+  describe('ICEA P-32-382 cable points, worked by hand (computed)', () => {
     it('cableWithstandOf(4/0 Cu XLPE) withstands 15 224.5 A for 1 s, 48 144.1 A for 0.1 s and 117 928 A for one cycle', () => {
-      // ICEA P-32-382, REFERENCE §5.6 / §7.8 (computed): 211 600 cmil, 90→250 °C
+      // ICEA P-32-382 (computed by hand): 211 600 cmil, 90→250 °C
       const curve = cableWithstandOf(cableOf({ size: '4/0' }), { volts: 480 });
       assertInDelta(ampsAtDrawnTime(curve, 1), 15_224.5, 1e-5);
       assertInDelta(ampsAtDrawnTime(curve, 0.1), 48_144.1, 1e-5);
@@ -35,7 +40,7 @@ describe('cableWithstandOf', () => {
     });
 
     it('cableWithstandOf(4/0 Cu XLPE) withstands 30 kA for 0.25754 s', () => {
-      // REFERENCE §7.8: t = 0.0297 · log10(484/324) · (211 600/30 000)² (computed)
+      // t = 0.0297 · log10(484/324) · (211 600/30 000)² (computed)
       const curve = cableWithstandOf(cableOf({ size: '4/0' }), { volts: 480 });
       assertInDelta(curve.timeAt(30_000), 0.25754, 1e-5);
       assertInDelta(curve.timeAt(30_000), 0.0297 * Math.log10(484 / 324) * (211_600 / 30_000) ** 2, 1e-12);
@@ -44,7 +49,7 @@ describe('cableWithstandOf', () => {
     it('cableWithstandOf(500 kcmil Al XLPE) withstands 33 260.4 A for 0.5 s', () => {
       const curve = cableWithstandOf(cableOf({ size: '500 kcmil', material: 'aluminium' }), { volts: 480 });
       assertInDelta(curve.timeAt(33_260.4), 0.5, 1e-5);
-      expect(curve.label).toBe('ICEA P-32-382, 500 kcmil Al 90 to 250 °C');
+      expect(curve.label).toBe('ICEA P-32-382 short-circuit limit, 500 kcmil Al 90 to 250 °C');
     });
 
     it('cableWithstandOf(500 kcmil Cu XLPE) withstands 25 438.0 A for 2 s', () => {
@@ -55,12 +60,12 @@ describe('cableWithstandOf', () => {
     it('cableWithstandOf(2/0 Cu thermoplastic) withstands 22 283.3 A for 0.1 s', () => {
       const curve = cableWithstandOf(cableOf({ size: '2/0', insulation: 'thermoplastic' }), { volts: 208 });
       assertInDelta(ampsAtDrawnTime(curve, 0.1), 22_283.3, 1e-5);
-      expect(curve.label).toBe('ICEA P-32-382, 2/0 Cu 75 to 150 °C');
+      expect(curve.label).toBe('ICEA P-32-382 short-circuit limit, 2/0 Cu 75 to 150 °C');
     });
   });
 
   it('cableWithstandOf meets the published coefficients c in I = c · A / √t', () => {
-    // REFERENCE §5.6 (computed; Cu and Al 90→250 °C published values confirmed)
+    // Coefficients c in I = c · A / √t (computed; Cu and Al 90→250 °C published values confirmed)
     const c = (input: Parameters<typeof cableOf>[0]) =>
       ampsAtDrawnTime(cableWithstandOf(cableOf({ size: '1000 kcmil', ...input }), { volts: 480 }), 1) / 1e6;
     assertInDelta(c({}), 0.07195, 1e-4);
@@ -71,10 +76,10 @@ describe('cableWithstandOf', () => {
   });
 
   it('cableWithstandOf multiplies the area by the parallel sets', () => {
-    // REFERENCE §7.2's feeder: 2 sets of 500 kcmil Cu = 1 000 000 cmil; at 1 s: 0.07195 × 10⁶ (computed)
+    // A feeder of 2 sets of 500 kcmil Cu = 1 000 000 cmil; at 1 s: 0.07195 × 10⁶ (computed)
     const curve = cableWithstandOf(cableOf({ size: '500 kcmil', sets: 2 }), { volts: 480 });
     assertInDelta(ampsAtDrawnTime(curve, 1), 71_950, 1e-4);
-    expect(curve.label).toBe('ICEA P-32-382, 2 × 500 kcmil Cu 90 to 250 °C');
+    expect(curve.label).toBe('ICEA P-32-382 short-circuit limit, 2 × 500 kcmil Cu 90 to 250 °C');
   });
 
   it('cableWithstandOf takes the conductor area as an option when the size text should not set it', () => {
@@ -90,6 +95,19 @@ describe('cableWithstandOf', () => {
     assertInDelta(curve.timeAt(at10), 10, 1e-12);
     assertInDelta(curve.timeAt(1e7), 0.01, 1e-12);
     expect(curve.timeAt(Number.NaN)).toBe(Infinity);
+  });
+
+  it('cableWithstandOf is a short-circuit limit only: nothing below the 10 s current, and it says so', () => {
+    const curve = cableWithstandOf(cableOf(), { volts: 480 });
+    const at10 = 211_600 * Math.sqrt((0.0297 * Math.log10(484 / 324)) / 10); // 4814.4 A (computed)
+    expect(curve.timeAt(at10 * (1 - 1e-9))).toBe(Infinity);
+    expect(curve.timeAt(at10 / 3)).toBe(Infinity); // the overload region is left to the ampacity rules
+    expect(Math.max(...curve.seconds)).toBe(10);
+    expect(curve.notes.at(-1)).toBe(CABLE_OVERLOAD_NOTE);
+    expect(CABLE_OVERLOAD_NOTE).toMatch(/overload region beyond 10 s is not covered/);
+    expect(() => cableWithstandOf(cableOf(), { volts: 480, longestSeconds: 60 })).toThrow(
+      /^options\.longestSeconds: expected a time of at most 10 s \(a short-circuit limit only\), got "60"$/,
+    );
   });
 
   it('cableWithstandOf draws between other times when asked', () => {
