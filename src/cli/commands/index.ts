@@ -2,7 +2,9 @@ import type { Command } from '../command.ts';
 import { bandCommand } from './band.ts';
 import { checkCommand } from './check.ts';
 import { faultsCommand } from './faults.ts';
+import { pathsCommand } from './paths.ts';
 import { plotCommand } from './plot.ts';
+import { reportCommand } from './report.ts';
 import { transformerCommand } from './transformer.ts';
 import { windowCommand } from './window.ts';
 import { proposeCommand } from './propose.ts';
@@ -12,6 +14,8 @@ export { faultsCommand } from './faults.ts';
 export { bandCommand } from './band.ts';
 export { checkCommand } from './check.ts';
 export { plotCommand } from './plot.ts';
+export { pathsCommand } from './paths.ts';
+export { reportCommand } from './report.ts';
 export { windowCommand } from './window.ts';
 export { proposeCommand } from './propose.ts';
 
@@ -22,6 +26,8 @@ export const commands: Command[] = [
   bandCommand,
   checkCommand,
   plotCommand,
+  pathsCommand,
+  reportCommand,
   windowCommand,
   proposeCommand,
 ];

@@ -64,7 +64,7 @@ export interface OneLine extends Drawing {
  * @example svgOf(oneLineOf(analyseStudy(study)))
  */
 export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): OneLine {
-  const { study, network, faults, findings } = analysis;
+  const { study, network, findings } = analysis;
   const { fontSize, lineHeight, gutter, labelGap, columnPadding, margin, header, fontFamily } = oneLineDefaults;
   const step = fontSize * lineHeight;
   const row = Math.max(3 * step, symbolDefaults.size + 10);

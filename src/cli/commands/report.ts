@@ -1,0 +1,77 @@
+import { analyseStudy } from '../../engine/analysis.ts';
+import { expectedGot, InputError } from '../../engine/errors.ts';
+import { flagText, parseArgs } from '../args.ts';
+import type { Command } from '../command.ts';
+import { loadStudyFile } from '../studyFile.ts';
+
+const HELP = `discern report <study.json> --out FILE — the whole coordination study report
+
+  --out FILE          study.pdf, study.html or study.md (the format follows the ending; Markdown
+                      writes its figures beside it as FILE-figure-N.svg)
+  --paper SIZE        letter, a4, tabloid or a3 (default letter)
+  --orientation O     portrait or landscape (default portrait)
+  --date TEXT         the date printed on the report (default: the study's date); the same study and
+                      date give the same bytes
+
+Sections: cover (study details, revision log, cautions), contents, scope and method, one-line
+diagram, fault currents, device settings, every time-current sheet, findings, and the worked fault
+calculation of every bus.
+`;
+
+/**
+ * `discern report <study> --out study.pdf|html|md`: analyses the study and writes the deliverable.
+ * @example await reportCommand.run(['demo/harrowmere-selective.json', '--out', 'out/study.pdf'], io)
+ */
+export const reportCommand: Command = {
+  verb: 'report',
+  summary:
+    'the whole study report: one-line diagram, fault and settings tables, sheets, findings (PDF, HTML, Markdown)',
+  help: HELP,
+  async run(args, io) {
+    const parsed = parseArgs(args, {
+      out: 'value',
+      paper: 'value',
+      orientation: 'value',
+      date: 'value',
+      help: 'switch',
+    });
+    if (parsed.flags.has('help')) {
+      io.stdout(HELP);
+      return 0;
+    }
+    const [path, extra] = parsed.positionals;
+    if (extra !== undefined) throw new InputError('report', expectedGot('one study file', extra));
+    const out = flagText(parsed, 'out');
+    const format = /\.(pdf|html|md)$/i.exec(out ?? '')?.[1].toLowerCase();
+    if (!out || !format) throw new InputError('--out', expectedGot('a file name ending .pdf, .html or .md', out));
+    const paper = flagText(parsed, 'paper') ?? 'letter';
+    if (paper !== 'letter' && paper !== 'a4' && paper !== 'tabloid' && paper !== 'a3')
+      throw new InputError('--paper', expectedGot('letter, a4, tabloid or a3', paper));
+    const orientation = flagText(parsed, 'orientation') ?? 'portrait';
+    if (orientation !== 'portrait' && orientation !== 'landscape')
+      throw new InputError('--orientation', expectedGot('portrait or landscape', orientation));
+    const date = flagText(parsed, 'date');
+    if (date !== undefined && (date.length > 40 || [...date].some((c) => c < ' ' || c === '\u007f')))
+      throw new InputError('--date', expectedGot('a date of at most 40 printable characters', date));
+
+    const study = loadStudyFile(path, io, 'report');
+    // The report's modules (and the PDF writer) load only when asked for.
+    const { studyReportOf, markdownOfReport, htmlOfReport, pdfOfReport } = await import('../../report/index.ts');
+    const report = studyReportOf(analyseStudy(study), { date });
+    const setup = { paper, orientation } as const;
+    if (format === 'pdf') {
+      // A parseable ISO date also becomes the PDF's creation date; otherwise a fixed one.
+      const created = date !== undefined && !Number.isNaN(Date.parse(date)) ? date : undefined;
+      io.writeFile(out, await pdfOfReport(report, setup, { date: created }));
+    } else if (format === 'html') io.writeFile(out, htmlOfReport(report, setup));
+    else {
+      const stem = out.replace(/^.*[\\/]/, '').replace(/\.md$/i, '');
+      const { text, figures } = markdownOfReport(report, stem);
+      const folder = out.slice(0, out.length - out.replace(/^.*[\\/]/, '').length);
+      for (const figure of figures) io.writeFile(`${folder}${figure.name}`, figure.svg);
+      io.writeFile(out, text);
+    }
+    io.stdout(`${study.name}: wrote ${out}\n`);
+    return 0;
+  },
+};

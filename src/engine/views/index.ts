@@ -1,0 +1,2 @@
+export { pathViewsOf } from './pathViews.ts';
+export type { PathView } from './pathViews.ts';

@@ -1,0 +1,326 @@
+import { CAUTION } from '../engine/caution.ts';
+import type { Primitive, TextItem } from '../plot/geometry.ts';
+import { SHEET_COLOURS } from '../plot/palette.ts';
+import { pagePoints, type PagePlacement, type Paper } from '../plot/pdf.ts';
+import { svgOf, type Drawing } from '../plot/svg.ts';
+import { textWidth, wrapText } from '../plot/textWidth.ts';
+import type { ReportBlock, StudyReport } from './studyReport.ts';
+
+/** Paper and orientation of a printed report. */
+export interface PageSetup {
+  paper: Paper;
+  orientation: 'landscape' | 'portrait';
+}
+
+/** How printed pages are laid out, in points. */
+export const pageDefaults = {
+  margin: 48,
+  body: 9.5,
+  small: 8,
+  heading: 15,
+  lineHeight: 1.35,
+  fontFamily: 'DejaVu Sans, Arial, Helvetica, sans-serif',
+} as const;
+
+/** One printed page: its own drawing (text, rules, header and footer) and at most one figure placed on it. */
+export interface ReportPage {
+  drawing: Drawing;
+  figure?: PagePlacement;
+}
+
+/**
+ * Lays a report out on pages of one paper size: a cover, a table of contents with page numbers, then
+ * each section from a new page; paragraphs and lists wrap, tables split between rows with their header
+ * repeated, each figure gets a page of its own scaled to fit, and every page carries the study name,
+ * the revision, the page number and the caution. Text is measured with the DejaVu Sans widths of the
+ * embedded face, so what is laid out here is what prints. Deterministic.
+ * @example reportPagesOf(studyReportOf(analysis), { paper: 'letter', orientation: 'portrait' }).length
+ */
+export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage[] {
+  const [pageWidth, pageHeight] = pagePoints(setup.paper, setup.orientation);
+  const { margin, body, heading, lineHeight } = pageDefaults;
+  const contentWidth = pageWidth - 2 * margin;
+  const top = margin + 18;
+  const bottom = pageHeight - margin - 30;
+
+  const pages: { items: Primitive[]; figure?: PagePlacement }[] = [];
+  let page: Primitive[] = [];
+  let y = top;
+  const newPage = () => {
+    page = [];
+    pages.push({ items: page });
+    y = top;
+  };
+  const room = (height: number) => {
+    if (y + height > bottom && y > top) newPage();
+  };
+  const line = (
+    text: string,
+    x: number,
+    size: number,
+    weight: 'normal' | 'bold' = 'normal',
+    fill = SHEET_COLOURS.text,
+  ) => {
+    page.push(textItem(text, x, y + size, size, weight, fill));
+    y += size * lineHeight;
+  };
+  const paragraph = (
+    text: string,
+    x: number = margin,
+    width: number = contentWidth,
+    size: number = body,
+    weight: 'normal' | 'bold' = 'normal',
+  ) => {
+    for (const row of wrapText(text, width, size, weight)) {
+      room(size * lineHeight);
+      line(row, x, size, weight);
+    }
+  };
+
+  // Cover: title, study details, revision log, notes and the cautions.
+  newPage();
+  y = top + 60;
+  for (const row of wrapText(report.title, contentWidth, 20, 'bold')) line(row, margin, 20, 'bold');
+  y += 16;
+  const labelWidth = 90;
+  for (const [label, value] of report.details) {
+    const rows = wrapText(value, contentWidth - labelWidth, 11);
+    page.push(textItem(label, margin, y + 11, 11, 'bold', SHEET_COLOURS.mutedText));
+    for (const row of rows) line(row, margin + labelWidth, 11);
+    y += 3;
+  }
+  if (report.revisions.length > 0) {
+    y += 12;
+    line('Revision log', margin, 11, 'bold');
+    table(['revision', 'date', 'by', 'what changed'], report.revisions);
+  }
+  if (report.notes) {
+    y += 12;
+    line('Notes', margin, 11, 'bold');
+    paragraph(report.notes);
+  }
+  y += 16;
+  line('Cautions', margin, 11, 'bold');
+  for (const caution of report.cautions) bullet(caution);
+
+  // Contents: filled in once the sections are laid out and their first pages are known.
+  newPage();
+  const contentsPage = page;
+  const firstPages: number[] = [];
+
+  report.sections.forEach((section, index) => {
+    newPage();
+    firstPages.push(pages.length);
+    for (const row of wrapText(`${index + 1}. ${section.title}`, contentWidth, heading, 'bold'))
+      line(row, margin, heading, 'bold');
+    y += 6;
+    for (const block of section.blocks) {
+      layBlock(block);
+      y += body * 0.6;
+    }
+  });
+
+  // The contents page, now that the page numbers are known.
+  page = contentsPage;
+  y = top;
+  line('Contents', margin, heading, 'bold');
+  y += 8;
+  report.sections.forEach((section, index) => {
+    const number = String(firstPages[index]);
+    page.push(textItem(number, margin + contentWidth, y + 11, 11, 'normal', SHEET_COLOURS.text, 'end'));
+    line(`${index + 1}. ${section.title}`, margin, 11);
+    y += 2;
+  });
+
+  // Every page's header and footer.
+  const footer = wrapText(CAUTION, contentWidth, 6.5);
+  const runningHead = [
+    report.details.find(([l]) => l === 'Study')?.[1],
+    report.details.find(([l]) => l === 'Revision')?.[1],
+  ]
+    .filter(Boolean)
+    .map((part, i) => (i === 1 ? `revision ${part}` : part))
+    .join(' — ');
+  return pages.map((p, index) => {
+    const items = [...p.items];
+    if (index > 0) items.push(textItem(runningHead, margin, margin, 7.5, 'normal', SHEET_COLOURS.mutedText));
+    items.push(
+      {
+        type: 'path',
+        d: `M${margin},${pageHeight - margin - 24}L${margin + contentWidth},${pageHeight - margin - 24}`,
+        stroke: SHEET_COLOURS.gridMajor,
+        strokeWidth: 0.5,
+        fill: 'none',
+        role: 'page-rule',
+      },
+      ...footer
+        .slice(0, 2)
+        .map((text, i) =>
+          textItem(
+            text,
+            margin,
+            pageHeight - margin - 14 + i * 8.5,
+            6.5,
+            'normal',
+            SHEET_COLOURS.mutedText,
+            'start',
+            'caution',
+          ),
+        ),
+      textItem(
+        `page ${index + 1} of ${pages.length}`,
+        margin + contentWidth,
+        pageHeight - margin + 6,
+        7.5,
+        'normal',
+        SHEET_COLOURS.mutedText,
+        'end',
+        'page-number',
+      ),
+    );
+    return {
+      drawing: {
+        width: pageWidth,
+        height: pageHeight,
+        fontFamily: pageDefaults.fontFamily,
+        title: `${runningHead}, page ${index + 1}`,
+        description: `Page ${index + 1} of ${pages.length} of the coordination study report.`,
+        patterns: [],
+        layers: [{ name: 'page', items }],
+      },
+      figure: p.figure,
+    };
+  });
+
+  // Accepts a block; lays it out from the current point, breaking pages where needed.
+  function layBlock(block: ReportBlock): void {
+    switch (block.type) {
+      case 'paragraph':
+        return paragraph(block.text);
+      case 'list':
+        for (const item of block.items) bullet(item);
+        return;
+      case 'table':
+        return table(block.columns, block.rows, block.numeric);
+      case 'work': {
+        room(4 * body * lineHeight);
+        paragraph(block.title, margin, contentWidth, body, 'bold');
+        for (const text of block.text.split('\n')) paragraph(text, margin + 8, contentWidth - 8, pageDefaults.small);
+        return;
+      }
+      case 'figure': {
+        // A figure takes a page of its own (a fresh one unless this page is still empty under its heading).
+        if (y > top + 3 * heading) newPage();
+        paragraph(block.caption, margin, contentWidth, body, 'bold');
+        const box = { x: margin, y: y + 4, width: contentWidth, height: bottom - y - 8 };
+        const fit = Math.min(box.width / block.drawing.width, box.height / block.drawing.height);
+        const [w, h] = [block.drawing.width * fit, block.drawing.height * fit];
+        pages[pages.length - 1].figure = {
+          svg: svgOf(block.drawing),
+          x: box.x + (box.width - w) / 2,
+          y: box.y,
+          width: w,
+          height: h,
+        };
+        // The page is full: what follows starts on the next one.
+        y = bottom;
+        return;
+      }
+    }
+  }
+
+  // Accepts one list item; a bullet and its wrapped text.
+  function bullet(text: string): void {
+    const rows = wrapText(text, contentWidth - 12, body);
+    rows.forEach((row, i) => {
+      room(body * lineHeight);
+      if (i === 0) page.push(textItem('•', margin + 2, y + body, body, 'normal', SHEET_COLOURS.text));
+      line(row, margin + 12, body);
+    });
+  }
+
+  // Accepts a table; columns sized to their contents within the page, cells wrapped, header repeated after a break.
+  function table(columns: string[], rows: string[][], numeric: boolean[] = []): void {
+    const size = pageDefaults.small;
+    const pad = 4;
+    const natural = columns.map(
+      (column, c) =>
+        Math.max(textWidth(column, size, 'bold'), ...rows.map((row) => textWidth(row[c] ?? '', size))) + 2 * pad,
+    );
+    const widths = fitColumns(natural, contentWidth);
+    const step = size * lineHeight;
+    const drawRow = (cells: string[], weight: 'normal' | 'bold') => {
+      const wrapped = cells.map((cell, c) => wrapText(cell, widths[c] - 2 * pad, size, weight));
+      const height = Math.max(1, ...wrapped.map((lines) => lines.length)) * step + pad;
+      return { wrapped, height };
+    };
+    const header = drawRow(columns, 'bold');
+    const put = (row: { wrapped: string[][]; height: number }, weight: 'normal' | 'bold') => {
+      let x: number = margin;
+      row.wrapped.forEach((lines, c) => {
+        const right = numeric[c] === true;
+        lines.forEach((text, i) =>
+          page.push(
+            textItem(
+              text,
+              right ? x + widths[c] - pad : x + pad,
+              y + size + i * step,
+              size,
+              weight,
+              SHEET_COLOURS.text,
+              right ? 'end' : 'start',
+            ),
+          ),
+        );
+        x += widths[c];
+      });
+      y += row.height;
+      page.push({
+        type: 'path',
+        d: `M${margin},${y - pad / 2}L${margin + contentWidth},${y - pad / 2}`,
+        stroke: SHEET_COLOURS.gridMinor,
+        strokeWidth: 0.5,
+        fill: 'none',
+        role: 'table-rule',
+      });
+    };
+    room(header.height + step * 2);
+    put(header, 'bold');
+    for (const cells of rows) {
+      const row = drawRow(cells, 'normal');
+      if (y + row.height > bottom) {
+        newPage();
+        put(header, 'bold');
+      }
+      put(row, 'normal');
+    }
+  }
+}
+
+// Accepts natural column widths and the room there is; shrinks the widest columns first until they fit.
+function fitColumns(natural: number[], width: number): number[] {
+  const total = natural.reduce((a, b) => a + b, 0);
+  if (total <= width) return natural.map((w) => w + (width - total) / natural.length);
+  const widths = [...natural];
+  // Cap every column at one level so the excess comes off the widest ones.
+  const sorted = [...natural].sort((a, b) => b - a);
+  let cap = sorted[0];
+  for (let i = 0; i < 60 && widths.reduce((a, b) => a + Math.min(b, cap), 0) > width; i++) cap *= 0.9;
+  const capped = widths.map((w) => Math.min(w, cap));
+  const sum = capped.reduce((a, b) => a + b, 0);
+  return capped.map((w) => (w * width) / sum);
+}
+
+// Accepts text and where it goes; one text primitive on a page.
+function textItem(
+  text: string,
+  x: number,
+  y: number,
+  size: number,
+  weight: 'normal' | 'bold',
+  fill: string,
+  anchor: 'start' | 'end' = 'start',
+  role = 'page-text',
+): TextItem {
+  return { type: 'text', x, y, text, size, anchor, fill, weight, role };
+}

@@ -1,0 +1,81 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { pathsCommand } from '../../src/cli/commands/paths.ts';
+import { reportCommand } from '../../src/cli/commands/report.ts';
+import { readStudy } from '../../src/engine/study/index.ts';
+import { runVerb } from './run.ts';
+
+describe('discern report', () => {
+  it('has the expected defaults: Markdown with its figures written beside it', async () => {
+    const { code, stdout, files } = await runVerb(
+      ['demo/harrowmere-fused.json', '--out', 'out/fused.md'],
+      reportCommand,
+    );
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/wrote out\/fused\.md\n$/);
+    const md = String(files.get('out/fused.md'));
+    expect(md).toMatch(/^# Protective device coordination study/);
+    for (const heading of ['Scope and method', 'One-line diagram', 'Fault currents', 'Device settings', 'Findings'])
+      expect(md).toContain(heading);
+    expect(files.get('out/fused-figure-1.svg')).toMatch(/^<svg /);
+    expect(md).toContain('(fused-figure-1.svg)');
+  });
+
+  it('writes one self-contained HTML page with no script', async () => {
+    const { code, files } = await runVerb(
+      ['demo/harrowmere-selective.json', '--out', 'out/s.html', '--paper', 'a3', '--orientation', 'landscape'],
+      reportCommand,
+    );
+    expect(code).toBe(0);
+    const html = String(files.get('out/s.html'));
+    expect(html).toMatch(/^<!DOCTYPE html>/);
+    expect(html).toContain('@page { size: 1190.55pt 841.89pt;');
+    expect(html).not.toMatch(/<script/i);
+  });
+
+  it('refuses a bad paper, orientation or output with a one-line message naming the flag', async () => {
+    for (const [args, message] of [
+      [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected letter, a4, tabloid or a3, got "legal"\n$/],
+      [['--out', 'x.pdf', '--orientation', 'sideways'], /^--orientation: expected portrait or landscape/],
+      [['--out', 'x.docx'], /^--out: expected a file name ending \.pdf, \.html or \.md/],
+    ] as const) {
+      const { code, stderr } = await runVerb(['demo/harrowmere-fused.json', ...args], reportCommand);
+      expect(code).toBe(2);
+      expect(stderr).toMatch(message);
+    }
+  });
+});
+
+describe('discern paths', () => {
+  it('adds one sheet per protective path to a copy, with the curves of its path, leaving the rest as written', async () => {
+    const input = 'demo/harrowmere-full.json';
+    const { code, stdout, files } = await runVerb([input, '--out', 'out/paths.json'], pathsCommand);
+    expect(code).toBe(0);
+    const written = JSON.parse(String(files.get('out/paths.json')));
+    const original = JSON.parse(readFileSync(input, 'utf8'));
+    const added = written.views.slice(original.views?.length ?? 0);
+    expect(stdout).toContain(`${added.length} sheets added`);
+    expect(added.length).toBeGreaterThan(3);
+    expect({ ...written, views: original.views }).toEqual(original);
+    const { study } = readStudy(written);
+    expect(study).toBeDefined();
+    // Every device appears on some sheet, and a motor's sheet carries its starting curve.
+    const shown = new Set(added.flatMap((view: { devices: string[] }) => view.devices));
+    for (const device of study!.devices) expect(shown.has(device.id), device.id).toBe(true);
+    for (const motor of study!.motors) {
+      const feeder = study!.devices.find((d) => d.feeds === motor.id);
+      if (!feeder) continue;
+      const sheet = added.find((view: { devices: string[] }) => view.devices.includes(feeder.id));
+      expect(sheet.motors).toContain(motor.id);
+    }
+  });
+
+  it('never writes over its input', async () => {
+    const { code, stderr } = await runVerb(
+      ['demo/harrowmere-full.json', '--out', 'demo/harrowmere-full.json'],
+      pathsCommand,
+    );
+    expect(code).toBe(2);
+    expect(stderr).toMatch(/^--out: expected a file other than the input/);
+  });
+});
