@@ -33,8 +33,9 @@ describe('discern band', () => {
     const { code, stdout } = await run([`${fixtures}/feeder-relay.json`, '--amps', '500,6000,10 kA']);
     expect(code).toBe(0);
     expect(stdout).toMatch(/^R-F1 \(relay\)\n/);
+    expect(stdout).toMatch(/current A primary at the device's own voltage\s+minTime s\s+maxTime s/);
     expect(stdout).toMatch(/\s500\s+no operation\s+no operation\n/);
-    // REFERENCE §7.5: CT 600:5, tap 5 A, IEEE VI TD 2 at 6000 A is 1.37816 s; +5 cycles for the breaker.
+    // IEEE C37.112 VI, CT 600:5, tap 5 A, TD 2 at 6000 A: 2 · (19.61/99 + 0.491) = 1.37816 s; +5 cycles breaker.
     expect(stdout).toMatch(/6 000\s+1\.37816\s+1\.46149\n/);
     expect(stdout).toMatch(/10 000\s+0\.0166667\s+0\.1\n/);
   });
@@ -44,6 +45,8 @@ describe('discern band', () => {
     expect(code).toBe(0);
     const json = JSON.parse(stdout);
     expect(json.kind).toBe('fuse');
+    expect(json.volts).toBeNull();
+    expect(json.ampsAre).toBe("amperes at the device's own voltage");
     expect(json.rows).toEqual([
       { amps: 100, minTime: null, maxTime: null },
       { amps: 400, minTime: 10, maxTime: 12 },
@@ -61,7 +64,8 @@ describe('discern band', () => {
     ]);
     expect(code).toBe(0);
     expect(stdout).toMatch(/^MAIN \(trip-unit\)\n/);
-    expect(stdout).toMatch(/1 200\s+144\s+192\n/); // REFERENCE §7.6 long time with −10/+20 % (worked example, computed)
+    expect(stdout).toMatch(/current A at 480 V\s+minTime s/); // the bus SWBD it feeds
+    expect(stdout).toMatch(/1 200\s+144\s+192\n/); // long time 10 s at 6 × 800 A with −10/+20 %: 9 · (4800/1200)², 12 · (4800/1200)² (computed)
     expect(stdout).toMatch(/8 000\s+0\.3\s+0\.35\n/);
   });
 

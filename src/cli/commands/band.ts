@@ -1,7 +1,8 @@
 import { bandOf } from '../../engine/band.ts';
 import { readCharacteristic, type Characteristic } from '../../engine/devices/index.ts';
 import { expectedGot, InputError } from '../../engine/errors.ts';
-import { parseQuantity, significant } from '../../engine/quantity/index.ts';
+import { locationBusOf, networkOf } from '../../engine/network/index.ts';
+import { formatVolts, parseQuantity, significant } from '../../engine/quantity/index.ts';
 import { readStudy } from '../../engine/study/index.ts';
 import { flagText, parseArgs, requiredFlag } from '../args.ts';
 import type { Command } from '../command.ts';
@@ -15,6 +16,8 @@ const HELP = `discern band <device-or-study.json> [--device id] --amps 100,1000,
 
 The file may be a study, one device ({ "id", "characteristic", … }) or a bare characteristic.
 minTime is the earliest operation, maxTime the latest clearing; relays are in primary amperes.
+The header says the voltage the currents are at: the device's bus voltage in a study, else the
+device's own (unstated) voltage.
 `;
 
 /**
@@ -37,7 +40,9 @@ export const bandCommand: Command = {
     if (path === undefined) throw new InputError('band', expectedGot('a device or study file', undefined));
     if (extra !== undefined) throw new InputError('band', expectedGot('one file', extra));
     const amps = ampsOf(requiredFlag(parsed, 'amps', 'currents in amperes separated by commas'));
-    const { id, characteristic } = deviceOf(path, io.readText, flagText(parsed, 'device'));
+    const { id, characteristic, volts } = deviceOf(path, io.readText, flagText(parsed, 'device'));
+    const primary = characteristic.kind === 'relay' ? ' primary' : '';
+    const at = volts === undefined ? "the device's own voltage" : formatVolts(volts);
     const band = bandOf(characteristic);
     const rows = amps.map((current) => ({
       amps: current,
@@ -49,6 +54,8 @@ export const bandCommand: Command = {
       const json = {
         device: id ?? null,
         kind: characteristic.kind,
+        volts: volts ?? null,
+        ampsAre: `${primary ? 'primary ' : ''}amperes at ${at}`,
         rows: rows.map((row) => ({ amps: row.amps, minTime: finite(row.minTime), maxTime: finite(row.maxTime) })),
         diagnostics: band.diagnostics,
       };
@@ -57,7 +64,7 @@ export const bandCommand: Command = {
     }
     const seconds = (t: number) => (Number.isFinite(t) ? significant(t, 6) : 'no operation');
     const table = formatTable(
-      ['current A', 'minTime s', 'maxTime s'],
+      [`current A${primary} at ${at}`, 'minTime s', 'maxTime s'],
       rows.map((row) => [tableAmps(row.amps), seconds(row.minTime), seconds(row.maxTime)]),
       ['right', 'right', 'right'],
     );
@@ -83,12 +90,15 @@ function ampsOf(text: string): number[] {
   });
 }
 
-/** Reads the file as a study (then `--device` picks the device), a single device, or a bare characteristic. */
+/**
+ * Reads the file as a study (then `--device` picks the device, and its bus gives the voltage), a single
+ * device, or a bare characteristic (no voltage known).
+ */
 function deviceOf(
   path: string,
   readText: (path: string) => string,
   deviceId: string | undefined,
-): { id?: string; characteristic: Characteristic } {
+): { id?: string; characteristic: Characteristic; volts?: number } {
   let text: string;
   try {
     text = readText(path);
@@ -115,7 +125,8 @@ function deviceOf(
       const list = ids.map((i) => JSON.stringify(i)).join(', ');
       throw new InputError('--device', expectedGot(ids.length ? `one of ${list}` : 'a study with devices', deviceId));
     }
-    return { id: device.id, characteristic: device.characteristic };
+    const volts = locationBusOf(networkOf(study), device).voltage;
+    return { id: device.id, characteristic: device.characteristic, volts };
   }
   if (deviceId !== undefined) throw new InputError('--device', expectedGot('a study file to pick from', deviceId));
   if ('characteristic' in record) {
