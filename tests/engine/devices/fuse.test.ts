@@ -42,7 +42,7 @@ describe('fuse', () => {
     expect(band.diagnostics).toEqual([]);
   });
 
-  it('fuseBand interpolates linearly in log-log space between points (REFERENCE §4.2)', () => {
+  it('fuseBand interpolates linearly in log-log space between points (common practice for digitised curves)', () => {
     const band = fuseBand(fuseSchema.parse(fuse));
     // Half way between 200 A and 400 A in log current is √(200·400) = 282.84 A; half way in log time is √(100·10).
     assertInDelta(band.minTime(Math.sqrt(200 * 400)), Math.sqrt(1000), 1e-12);

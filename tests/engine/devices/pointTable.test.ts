@@ -14,7 +14,7 @@ describe('pointTable', () => {
     expect(element.levels).toEqual([0.1]);
   });
 
-  it('tableElement scales currents and interpolates in log-log space (REFERENCE §4.2)', () => {
+  it('tableElement scales currents and interpolates in log-log space (common practice for digitised curves)', () => {
     const element = tableElement(
       [
         [2, 300],

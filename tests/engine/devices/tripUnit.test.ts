@@ -6,7 +6,7 @@ import { readCharacteristic } from '../../../src/engine/devices/readCharacterist
 import { groundBandOf, longTimeRampBasis, tripUnitBand, tripUnitSchema } from '../../../src/engine/devices/tripUnit.ts';
 import { findOverlaps } from '../../../src/engine/overlap.ts';
 
-/** REFERENCE §7.6 (invented settings): I_r = 800 A, 10 s at 6 × I_r; short-time 4 × I_r, I²t in through (10 × I_r, 0.3 s). */
+/** Invented settings worked by hand: I_r = 800 A, 10 s at 6 × I_r; short-time 4 × I_r, I²t in through (10 × I_r, 0.3 s). */
 const example = {
   kind: 'trip-unit',
   sensor: 800,
@@ -36,7 +36,7 @@ describe('tripUnit', () => {
     const unit = tripUnitSchema.parse(example);
     expect(unit.longTime.delayAt).toBe(6);
     expect(unit.shortTime?.i2tThrough).toBe(10);
-    // Common practice tolerances (REFERENCE §3.2): pickup ±10 %, long-time −10/+20 %, short-time band +0.05 s.
+    // Common practice tolerances: pickup ±10 %, long-time −10/+20 %, short-time band +0.05 s.
     expect(unit.tolerance).toEqual({
       pickup: 10,
       groundPickup: 10,
@@ -46,11 +46,11 @@ describe('tripUnit', () => {
       shortTimeAbove: 0.05,
     });
     assertInDelta(unit.openingTime, 0.5 / 60);
-    assertInDelta(unit.clearingTime, 3 / 60); // LVPCB instantaneous ≤ 3 cycles (REFERENCE §3.4)
+    assertInDelta(unit.clearingTime, 3 / 60); // LV power breaker instantaneous ≤ 3 cycles (common practice)
     expect(unit.currentLimiting).toBe(false);
   });
 
-  it('tripUnitBand without tolerance is the nominal curve of REFERENCE §7.6, worked example (computed)', () => {
+  it('tripUnitBand without tolerance is the nominal I²t curve t = 10 · (4800 / I)², worked by hand (computed)', () => {
     const band = tripUnitBand(tripUnitSchema.parse({ ...example, tolerance: noTolerance }));
     const table: Array<[number, number]> = [
       [1200, 160],
@@ -242,7 +242,7 @@ describe('tripUnit', () => {
       /longTime\.delay: expected a time greater than 0, got "0"$/,
     );
     expect(rejection({ ...example, shortTime: { pickup: -2, delay: 0.3 } })).toMatch(
-      /shortTime\.pickup: expected a value greater than 0, got "-2"$/,
+      /shortTime\.pickup: expected a value of at least 0\.05, got "-2"$/,
     );
     expect(rejection({ ...example, openingTime: 0.1, clearingTime: 0.05 })).toMatch(
       /characteristic\.openingTime: expected an opening time no later than the clearing time 0\.05 s, got "0\.1"$/,
