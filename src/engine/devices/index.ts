@@ -25,4 +25,12 @@ export { readCharacteristic, type ReadCharacteristicOptions } from './readCharac
 export { createRelaySchema, relayBand, relaySchema, RELAY_CURVES, type Relay } from './relay.ts';
 export { createThermalMagneticSchema, thermalMagneticBand, thermalMagneticSchema } from './thermalMagnetic.ts';
 export type { ThermalMagnetic } from './thermalMagnetic.ts';
-export { createTripUnitSchema, groundBandOf, tripUnitBand, tripUnitSchema, type TripUnit } from './tripUnit.ts';
+export {
+  createTripUnitSchema,
+  groundBandOf,
+  LONG_TIME_RAMPS,
+  longTimeRampBasis,
+  tripUnitBand,
+  tripUnitSchema,
+  type TripUnit,
+} from './tripUnit.ts';
