@@ -156,7 +156,10 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         range,
         worst,
         explanation: explain(interval, up, down, describeRange(range), check.rule, faultText),
-        suggestion: suggest(interval, up, down, check.rule),
+        suggestion:
+          pairCase.fault === 'ground-fault'
+            ? suggestGround(interval, up, down)
+            : suggest(interval, up, down, check.rule),
         basis: check.rule.basis,
         referenceVolts: pairCase.referenceVolts,
       });
@@ -237,6 +240,17 @@ function suggest(interval: OverlapInterval, up: string, down: string, rule: Marg
   }
   const needed = -worst.marginSeconds + (interval.status === 'thin margin' ? 0.1 : 0);
   return `Slow ${up} by at least ${significant(Math.max(needed, 0.01), 2)} s at ${formatAmps(worst.amps, 3)} (a higher time dial or delay band), or speed up ${down}${rule.timeRatio < 1 ? ' (a smaller downstream fuse)' : ''}.`;
+}
+
+// A ground-fault element has a pickup and a delay band (with I²t in or out), nothing more: propose only those.
+function suggestGround(interval: OverlapInterval, up: string, down: string): string {
+  const { worst } = interval;
+  if (interval.status === 'not provable from curves')
+    return `Confirm with tested selectivity data for ground faults between ${up} and ${down}, or give ${up}'s ground-fault element a longer delay band.`;
+  if (worst.downTime === Infinity)
+    return `Raise ${up}'s ground-fault pickup above the current ${down} carries, or give ${down} a ground-fault element of its own.`;
+  const needed = -worst.marginSeconds + (interval.status === 'thin margin' ? 0.1 : 0);
+  return `Lengthen ${up}'s ground-fault delay by at least ${significant(Math.max(needed, 0.01), 2)} s at ${formatAmps(worst.amps, 3)} (a longer delay band, or I²t in), or raise its ground-fault pickup; or give ${down} a faster ground-fault element.`;
 }
 
 function marginText(seconds: number): string {

@@ -255,6 +255,9 @@ export function createStudySchema(frequency = 60) {
         .default([])
         .meta({ description: 'transformers and cables whose withstand curves are drawn' }),
       motors: z.array(idField).default([]).meta({ description: 'motors whose starting curves are drawn' }),
+      groundFault: z.boolean().default(false).meta({
+        description: 'a ground-fault sheet: ground-fault elements drawn, ground-fault findings hatched',
+      }),
       currentRange: z.tuple([z.number().positive(), z.number().positive()]).optional(),
       timeRange: z.tuple([z.number().positive(), z.number().positive()]).optional(),
       notes: z.string().optional(),
