@@ -1,4 +1,5 @@
-import { bandOf, type Band } from './band.ts';
+import type { Band } from './band.ts';
+import { cachedBandOf } from './bandCache.ts';
 import { cableFindings } from './checks/cableProtection.ts';
 import type { CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
@@ -42,7 +43,8 @@ export interface Analysis {
 export function analyseStudy(study: Study): Analysis {
   const network = networkOf(study);
   const faults = faultLevelsOf(network);
-  const bands = new Map(study.devices.map((device) => [device.id, bandOf(device.characteristic)]));
+  // Equal characteristics share one band (a site's many identical breakers are built once).
+  const bands = new Map(study.devices.map((device) => [device.id, cachedBandOf(device.characteristic)]));
   const context: CheckContext = { network, faults, bands };
   const findings: Finding[] = [];
 

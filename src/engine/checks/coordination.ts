@@ -1,7 +1,9 @@
-import { fastestOf, groundFaultBandOf, scaleBand } from '../band.ts';
+import { fastestOf, scaleBand } from '../band.ts';
+import { cachedGroundBandOf } from '../bandCache.ts';
 import { isPhaseShifting, primaryConnectionOf, secondaryWindingOf, throughFaultOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { findOverlaps, type OverlapInterval } from '../overlap.ts';
+import { withLazyText } from '../lazyText.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
 import { capitalise, describeRange, nameOf, rangeOf, type CheckContext } from './context.ts';
@@ -111,9 +113,9 @@ export function checkPair(
     if (shifts % 2 === 1) cases.push(caseOf('line-to-line', 2 / Math.sqrt(3), through.lineToLine));
     // A ground-fault element above sees ground current the devices below clear with their phase
     // elements (or their own ground element); it does not cross a transformer.
-    const upGround = groundFaultBandOf(upstream.characteristic);
+    const upGround = cachedGroundBandOf(upstream.characteristic);
     if (upGround && between.length === 0 && through.lineToGround > 0) {
-      const downGround = groundFaultBandOf(downstream.characteristic);
+      const downGround = cachedGroundBandOf(downstream.characteristic);
       const up = fastestOf([bands.get(upstream.id)!, upGround]);
       const down = downGround ? fastestOf([downBand, downGround]) : downBand;
       cases.push({
@@ -146,7 +148,8 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       if (interval.status === 'selective' || isSliver(interval)) return;
       const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages);
       const { worst } = interval;
-      findings.push({
+      // The sentences are written when first read (a large study's findings are seldom all read).
+      const finding: Finding = {
         id: `coordination:${check.upstream}/${check.downstream}:${pairCase.fault}:${index}`,
         kind: 'coordination',
         severity: SEVERITY[interval.status],
@@ -155,14 +158,20 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         subjects: [check.upstream, check.downstream],
         range,
         worst,
-        explanation: explain(interval, up, down, describeRange(range), check.rule, faultText),
-        suggestion:
-          pairCase.fault === 'ground-fault'
-            ? suggestGround(interval, up, down)
-            : suggest(interval, up, down, check.rule),
+        explanation: '',
+        suggestion: '',
         basis: check.rule.basis,
         referenceVolts: pairCase.referenceVolts,
-      });
+      };
+      findings.push(
+        withLazyText(finding, {
+          explanation: () => explain(interval, up, down, describeRange(range), check.rule, faultText),
+          suggestion: () =>
+            pairCase.fault === 'ground-fault'
+              ? suggestGround(interval, up, down)
+              : suggest(interval, up, down, check.rule),
+        }),
+      );
     });
   }
   if (findings.length === 0) {
@@ -185,9 +194,13 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         subjects: [check.upstream, check.downstream],
         range,
         worst: least.worst,
-        explanation: `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
+        explanation: '',
         basis: check.rule.basis,
         referenceVolts: first.referenceVolts,
+      });
+      withLazyText(findings[0], {
+        explanation: () =>
+          `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
       });
     }
   }
