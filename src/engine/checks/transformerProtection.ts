@@ -66,7 +66,8 @@ export function transformerFindings(context: CheckContext, transformer: Transfor
     const clearsFrom = surelyClearsFrom(band, faultCase.toAmps, horizon);
     const from = withstand.minAmps;
     const to = Math.min(faultCase.toAmps, withstand.maxAmps);
-    const suffix = faultCase.shift === 1 ? '' : ` (${faultCase.label} fault: curve × ${faultCase.shift})`;
+    const suffix =
+      faultCase.shift === 1 ? '' : ` (${faultCase.label} fault: curve × ${significant(faultCase.shift, 3)})`;
     if (!(to > from)) continue;
     if (clearsFrom > from) {
       const range = rangeOf(from, Math.min(clearsFrom, to), volts, [transformer.secondary]);
