@@ -25,7 +25,7 @@ const HELP = `discern check <study.json> — every pair, transformer, cable, mot
   --all             list passing checks too (default: only what needs attention, then a count)
   --strict          also exit 1 on a thin margin or a region not provable from curves
 
-The last line counts each class for a review script:
+Without --json, the last line counts each class for a review script:
   counts: F fail, T thin margin, N not provable, W warning, I info, K ok
 
 Exit code: 0 when nothing fails (every pair selective or only thin / not provable from curves,
