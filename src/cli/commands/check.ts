@@ -91,7 +91,7 @@ export const checkCommand: Command = {
       );
     }
     const classes = findingClassesOf(analysis);
-    // The counts line ends the output so a review script reads it from the last line, JSON or not.
+    // The counts line ends the text output so a review script reads the last line; JSON stays pure JSON.
     if (!parsed.flags.has('json')) io.stdout(`${classesText(classes)}\n`);
     const doubtful = classes.thinMargin + classes.notProvable;
     return classes.fail > 0 || (parsed.flags.has('strict') && doubtful > 0) ? 1 : 0;
