@@ -157,7 +157,9 @@ describe('the workbench keeps the work', () => {
     const versions = page.getByTestId('recovery-version');
     await expect(versions.first().textContent()).resolves.toMatch(/unsaved changes/);
     await expect(versions.first().textContent()).resolves.toContain(demo.name);
-    await page.getByTestId('recovery-restore').first().click();
+    // Closing the offer without a choice keeps the work: the newest copy comes back.
+    await page.keyboard.press('Escape');
+    await expect(page.getByTestId('recovery-offer').count()).resolves.toBe(0);
     await page.getByTestId('tree-device-MAIN').click();
     await expect(page.getByTestId(delayField).inputValue()).resolves.toBe('0.25');
     // Replacing the study (a demo, after confirming the discard) takes the recovered banner away.
