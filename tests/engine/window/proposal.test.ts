@@ -1,0 +1,46 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { parseStudy, readStudy } from '../../../src/engine/study/index.ts';
+import { PROPOSAL_ORDER, proposeSettings, withSettingChanges } from '../../../src/engine/window/index.ts';
+
+const overlapText = readFileSync('demo/harrowmere-overlap.json', 'utf8');
+const overlap = parseStudy(overlapText);
+
+describe('proposeSettings', () => {
+  it('has the expected defaults: every adjustable device, loads first, fuses and breakers left alone, the rule stated', () => {
+    const proposal = proposeSettings(overlap);
+    expect(proposal.orderRule).toBe(PROPOSAL_ORDER);
+    expect(proposal.order).not.toContain('EM-BR');
+    expect(proposal.order.at(-1)).toBe('R-T1');
+    expect(proposal.order.indexOf('MCC-M1')).toBeLessThan(proposal.order.indexOf('FDR-MCC'));
+    expect(proposal.order.indexOf('FDR-MCC')).toBeLessThan(proposal.order.indexOf('MAIN'));
+    expect(proposal.changes.every((c) => c.from !== c.to)).toBe(true);
+  });
+
+  it('clears every coordination failure of the overlap demo, and the proposed file reads back to the same settings', () => {
+    const before = analyseStudy(overlap).findings.filter((f) => f.kind === 'coordination' && f.severity === 'fail');
+    expect(before.length).toBeGreaterThan(0);
+    const proposal = proposeSettings(overlap);
+    const after = analyseStudy(proposal.study).findings.filter((f) => f.severity === 'fail');
+    expect(after.map((f) => f.title)).toEqual([]);
+    expect(proposal.failsAfter).toBe(0);
+    expect(proposal.cleared.map((f) => f.id)).toEqual(expect.arrayContaining(before.map((f) => f.id)));
+
+    const written = withSettingChanges(JSON.parse(overlapText), proposal.changes);
+    const reread = readStudy(written);
+    expect(reread.problems).toEqual([]);
+    expect(reread.study!.devices.map((d) => d.characteristic)).toEqual(
+      proposal.study.devices.map((d) => d.characteristic),
+    );
+    // The input document is untouched.
+    expect(JSON.parse(overlapText)).toEqual(JSON.parse(readFileSync('demo/harrowmere-overlap.json', 'utf8')));
+  });
+
+  it('sets only the devices of one path when asked, keeping the device above fixed as a constraint', () => {
+    const view = overlap.views.find((v) => v.id === 'emergency')!;
+    const proposal = proposeSettings(overlap, { deviceIds: view.devices });
+    expect(new Set(proposal.changes.map((c) => c.deviceId))).toEqual(new Set(['FDR-EM', 'MAIN']));
+    expect(proposal.order).toEqual(['FDR-EM', 'MAIN']);
+  });
+});

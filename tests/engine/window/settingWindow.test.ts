@@ -1,0 +1,212 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { parseStudy } from '../../../src/engine/study/index.ts';
+import { settingWindowOf, type SettingRow } from '../../../src/engine/window/index.ts';
+import { failuresWith, workedStudy } from './fixtures.ts';
+
+const input = workedStudy();
+const study = parseStudy(input);
+
+/** The constraint kinds a binding names, as the checks' finding kinds. */
+const FINDING_KIND: Record<string, string> = {
+  'coordinate-below': 'coordination',
+  'coordinate-above': 'coordination',
+  'transformer-withstand': 'transformer-withstand',
+  'cable-withstand': 'cable-withstand',
+  inrush: 'transformer-inrush',
+  'motor-starting': 'motor-starting',
+  'nec-450.3': 'nec-450.3',
+  sensitivity: 'sensitivity',
+};
+
+/**
+ * The brute-force edge: the feasibility of a setting read on a fine log grid (0.02 % steps) across
+ * ±1.5 % of the window's edge by checking the whole study at every point; returns the first (or last)
+ * clean grid value.
+ */
+function bruteEdge(deviceId: string, row: SettingRow, edge: number, side: 'lower' | 'upper'): number {
+  const clean = (v: number) => failuresWith(input, deviceId, { [row.key]: v }).length === 0;
+  const step = 1.0002;
+  const from = Math.max(row.min, edge / 1.015);
+  const to = Math.min(row.max, edge * 1.015);
+  let found = NaN;
+  for (let v = from; v <= to; v *= step) {
+    const ok = clean(v);
+    if (side === 'lower' && ok) return v;
+    if (side === 'upper') {
+      if (ok) found = v;
+      else if (!Number.isNaN(found)) return found;
+    }
+  }
+  return found;
+}
+
+describe('settingWindowOf', () => {
+  it('has the expected defaults: every adjustable setting, every constraint with its source, two maps, a recommendation', () => {
+    const window = settingWindowOf(study, 'MAIN');
+    expect(window.adjustable).toBe(true);
+    expect(window.settings.map((s) => s.key)).toEqual([
+      'shortTime.delay',
+      'shortTime.pickup',
+      'longTime.delay',
+      'longTime.pickup',
+    ]);
+    expect(window.constraints.map((c) => c.id)).toEqual(
+      expect.arrayContaining(['below:FDR', 'above:R-T1', 'load', 'interrupting']),
+    );
+    for (const c of window.constraints) expect(c.source).not.toMatch(/from memory|REFERENCE/);
+    expect(window.maps.map((m) => m.label)).toEqual([
+      'long-time pickup × long-time delay',
+      'short-time pickup × short-time delay',
+    ]);
+    expect(window.exists).toBe(true);
+    expect(window.recommendation?.tieBreak).toMatch(/^Fastest first/);
+  });
+
+  it('a fuse or thermal-magnetic breaker has nothing to set; a device not in the study is an input error naming the field', () => {
+    expect(() => settingWindowOf(study, 'NOPE')).toThrow(/^device: expected one of R-T1, MAIN, FDR, got "NOPE"$/);
+  });
+
+  // IEEE 242 practice for the relay margin over a low-voltage breaker (the study's margin rule); the
+  // brute force checks the whole study at each grid point, independently of the window's bisection.
+  it.each([
+    ['R-T1', 'timeOvercurrent.timeDial'],
+    ['R-T1', 'timeOvercurrent.pickup'],
+    ['R-T1', 'instantaneous.pickup'],
+  ])('%s %s: every continuous edge lies within 0.1 percent of a brute-force fine grid', (deviceId, key) => {
+    const row = settingWindowOf(study, deviceId, { maps: false }).settings.find((s) => s.key === key)!;
+    expect(row.intervals.length).toBe(1);
+    const [interval] = row.intervals;
+    if (interval.lower.kind !== 'setting-range') {
+      const brute = bruteEdge(deviceId, row, interval.from, 'lower');
+      expect(Math.abs(brute / interval.from - 1)).toBeLessThan(1e-3);
+    }
+    if (interval.upper.kind !== 'setting-range') {
+      const brute = bruteEdge(deviceId, row, interval.to, 'upper');
+      expect(Math.abs(brute / interval.to - 1)).toBeLessThan(1e-3);
+    }
+  });
+
+  /**
+   * The one rule the checks do not hold: a pickup carries the load below. The main carries T1's rated
+   * current, 1500 kVA / (√3 · 480 V) = 1804 A (common practice); the feeder 125 % of the 100 hp
+   * motor's 124 A (NFPA 70 Table 430.250 at 460 V, from memory; NEC 430.22).
+   */
+  const carriesLoad = (deviceId: string, key: string, value: number) => {
+    if (key !== 'longTime.pickup') return true;
+    return deviceId === 'MAIN' ? value * 2000 >= 1_500_000 / (Math.sqrt(3) * 480) : value * 400 >= 1.25 * 124;
+  };
+
+  it.each([
+    ['MAIN', 'shortTime.delay'],
+    ['MAIN', 'shortTime.pickup'],
+    ['MAIN', 'longTime.pickup'],
+    ['FDR', 'longTime.pickup'],
+    ['FDR', 'instantaneous.pickup'],
+  ])('%s %s: the stepped window is exactly the steps the whole study checks clean on', (deviceId, key) => {
+    const row = settingWindowOf(study, deviceId, { maps: false }).settings.find((s) => s.key === key)!;
+    const inside = (v: number) => row.intervals.some((i) => v >= i.from - 1e-12 && v <= i.to + 1e-12);
+    for (const value of row.values!) {
+      const clean = failuresWith(input, deviceId, { [key]: value }).length === 0 && carriesLoad(deviceId, key, value);
+      expect(clean, `${key} = ${value}`).toBe(inside(value));
+    }
+  });
+
+  it('every edge of the 2-D map of the relay agrees with the whole study checked at and just beyond it', () => {
+    const map = settingWindowOf(study, 'R-T1').maps[0];
+    expect(map.label).toBe('pickup × time dial');
+    const open = map.columns.filter((c) => c.intervals.length > 0);
+    expect(open.length).toBeGreaterThan(3);
+    for (const column of open.filter((_, i) => i % 4 === 0)) {
+      const [interval] = column.intervals;
+      const at = (dial: number) =>
+        failuresWith(input, 'R-T1', { 'timeOvercurrent.pickup': column.x, 'timeOvercurrent.timeDial': dial });
+      expect(at(interval.from)).toEqual([]);
+      expect(at(interval.to)).toEqual([]);
+      if (interval.lower.kind !== 'setting-range') expect(at(interval.from * 0.999).length).toBeGreaterThan(0);
+      if (interval.upper.kind !== 'setting-range') expect(at(interval.to * 1.001).length).toBeGreaterThan(0);
+    }
+  });
+
+  describe('property: inside the window every constraint holds; just outside, the binding one fails', () => {
+    const rows = settingWindowOf(study, 'R-T1', { maps: false }).settings.filter((s) => s.intervals.length > 0);
+    for (const seed of [1, 7, 42]) {
+      it(`seed ${seed}`, () => {
+        fc.assert(
+          fc.property(
+            fc.integer({ min: 0, max: rows.length - 1 }),
+            fc.double({ min: 0, max: 1, noNaN: true }),
+            (index, t) => {
+              const row = rows[index];
+              const { from, to, lower, upper } = row.intervals[0];
+              const value = from * Math.pow(to / from, t);
+              expect(failuresWith(input, 'R-T1', { [row.key]: value })).toEqual([]);
+              for (const [binding, outside] of [
+                [lower, from * 0.998],
+                [upper, to * 1.002],
+              ] as const) {
+                if (binding.kind === 'setting-range') continue;
+                const failures = failuresWith(input, 'R-T1', { [row.key]: outside });
+                const subject = binding.id.split(':')[1];
+                expect(
+                  failures.some(
+                    (f) =>
+                      f.kind === FINDING_KIND[binding.kind] && (subject === undefined || f.subjects.includes(subject)),
+                  ),
+                  `${row.key} = ${outside} should break "${binding.label}"`,
+                ).toBe(true);
+              }
+            },
+          ),
+          { seed, numRuns: 12 },
+        );
+      });
+    }
+  });
+
+  it('the recommendation keeps every constraint, and its settings check clean in the whole study', () => {
+    for (const id of ['R-T1', 'MAIN', 'FDR']) {
+      const { recommendation } = settingWindowOf(study, id, { maps: false });
+      expect(recommendation, id).toBeDefined();
+      expect(recommendation!.margins.filter((m) => m.favours !== 'fixed' && !m.result.ok)).toEqual([]);
+      const changes = Object.fromEntries(
+        recommendation!.settings.filter((s) => s.to !== undefined).map((s) => [s.key, s.to!]),
+      );
+      expect(failuresWith(input, id, changes), id).toEqual([]);
+    }
+  });
+
+  it('names the conflict when no window exists, and the changes elsewhere that would open one', () => {
+    // A fast relay above (time dial 0.5) and a feeder below that waits 0.3 s: the main cannot fit between.
+    const tight = workedStudy();
+    const devices = tight.devices!;
+    devices[0] = {
+      ...devices[0],
+      characteristic: {
+        kind: 'relay',
+        ct: '100:5',
+        timeOvercurrent: { curve: 'ieee-extremely-inverse', pickup: 5, timeDial: 0.5 },
+        instantaneous: { pickup: 80 },
+        tolerance: { pickup: 5, time: 5 },
+      },
+    };
+    devices[2] = {
+      ...devices[2],
+      characteristic: {
+        kind: 'trip-unit',
+        sensor: 400,
+        longTime: { pickup: 1, delay: 4 },
+        shortTime: { pickup: 4, delay: 0.3 },
+      },
+    };
+    const window = settingWindowOf(parseStudy(tight), 'MAIN', { maps: false });
+    expect(window.exists).toBe(false);
+    expect(window.recommendation).toBeUndefined();
+    const { conflicts, explanation, remedies } = window.noWindow!;
+    expect(conflicts.map((c) => c.id)).toEqual(expect.arrayContaining(['below:FDR', 'above:R-T1']));
+    expect(explanation).toMatch(/^To coordinate with FDR below .*can no longer coordinate with R-T1 above/);
+    expect(remedies.map((r) => r.text)).toEqual(
+      expect.arrayContaining([expect.stringMatching(/^Speed up FDR /), expect.stringMatching(/^Slow R-T1 above/)]),
+    );
+  });
+});
