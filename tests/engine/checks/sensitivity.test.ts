@@ -140,4 +140,43 @@ describe('sensitivity to the minimum fault in a zone', () => {
     const main = sensitivityCasesOf(analysis, analysis.network.devices.get('MAIN')!, study.coordination.sensitivity);
     expect(main[1].groundElement).toBe(true);
   });
+
+  it('reflects a 120/240 V single-phase secondary fault: full winding by the voltage ratio, half winding at half of it', () => {
+    const input = {
+      discern: 1,
+      name: 'Pole-top unit',
+      source: { kind: 'utility', id: 'U', bus: 'MV', max: { available: '250 MVA', xr: 10 } },
+      buses: [
+        { id: 'MV', voltage: '12.47 kV' },
+        { id: 'LV', voltage: 240 },
+      ],
+      transformers: [
+        { id: 'T', from: 'MV', to: 'LV', rating: 50, primary: '12.47 kV', secondary: 240, impedance: 2.1, phases: 1 },
+      ],
+      devices: [
+        {
+          id: 'R',
+          feeds: 'T',
+          characteristic: {
+            kind: 'relay',
+            ct: '50:5',
+            timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 1, timeDial: 1 },
+          },
+        },
+      ],
+    } as unknown as StudyInput;
+    const study = parseStudy(input);
+    const analysis = analyseStudy(study);
+    const lv = analysis.faults.buses.get('LV')!.min;
+    const [full, half] = sensitivityCasesOf(
+      analysis,
+      analysis.network.devices.get('R')!,
+      study.coordination.sensitivity,
+    );
+    // Ampere-turn balance: I_pri = I_sec × 240/12 470 for the full winding, × 120/12 470 for a half winding.
+    assertInDelta(full.deviceAmps, (lv.lineToLine * 240) / 12_470, 1e-12);
+    assertInDelta(half.deviceAmps, (lv.lineToGround * 120) / 12_470, 1e-12);
+    const explanations = sensitivity(input).map((f) => f.explanation);
+    expect(explanations.join(' ')).toMatch(/full-winding at LV \(240 V\)/);
+  });
 });
