@@ -1,5 +1,6 @@
 import type { Analysis } from './analysis.ts';
 import { locationBusOf } from './network/index.ts';
+import { formatAmps, formatVolts } from './quantity/index.ts';
 
 /** One device's times at the probed current. */
 export interface ProbeReading {
@@ -11,6 +12,10 @@ export interface ProbeReading {
   /** Earliest operation and latest clearing at that current (s); `Infinity` where it does not operate / may not clear. */
   minTime: number;
   maxTime: number;
+  /** The largest fault current at the device's location (A at its own voltage); `Infinity` at an infinite bus. */
+  largestFault?: number;
+  /** True when the probed current is more than can flow at the device's location: its times are not read there. */
+  beyondFault?: boolean;
 }
 
 /** What the vertical readout on the sheet shows at one current (DESIGN §3 "probe"). */
@@ -26,13 +31,17 @@ export interface Probe {
    * negative when another device may operate before the first has cleared (not selective here).
    */
   margin?: number;
+  /** True when the current is beyond the largest fault on the sheet (nothing is compared). */
+  beyondFault?: boolean;
   /** One sentence for the readout, e.g. "FDR-MCC clears first, 0.21 s before MAIN may operate". */
   summary: string;
 }
 
 /**
  * Reads every device of a view at one current on the view's base: each device's minTime and maxTime,
- * which clears first and by how much before the next device may operate.
+ * which clears first and by how much before the next device may operate. A device whose location
+ * cannot carry that much current (beyond its largest fault) is read but left out of the comparison;
+ * beyond the largest fault on the sheet the summary says so instead of comparing times.
  *
  * @example probeAt(analysis, 'main-path', 20_000).first // 'FDR-MCC'
  */
@@ -42,9 +51,11 @@ export function probeAt(analysis: Analysis, viewId: string, amps: number): Probe
   const referenceVolts = view.referenceVoltage;
   const readings = view.devices.map((deviceId): ProbeReading => {
     const device = analysis.network.devices.get(deviceId)!;
-    const ownVolts = locationBusOf(analysis.network, device).voltage;
+    const bus = locationBusOf(analysis.network, device);
+    const ownVolts = bus.voltage;
     const ownAmps = (amps * referenceVolts) / ownVolts;
     const band = analysis.bands.get(deviceId)!;
+    const largestFault = analysis.faults.buses.get(bus.id)?.max.threePhase ?? Infinity;
     return {
       deviceId,
       name: device.name ?? deviceId,
@@ -52,11 +63,33 @@ export function probeAt(analysis: Analysis, viewId: string, amps: number): Probe
       ownVolts,
       minTime: band.minTime(ownAmps),
       maxTime: band.maxTime(ownAmps),
+      largestFault,
+      // A relative tolerance keeps a probe pinned exactly on the fault line on the near side of it.
+      beyondFault: ownAmps > largestFault * (1 + 1e-9),
     };
   });
-  const clearing = readings.filter((reading) => reading.maxTime < Infinity);
+  // Beyond the largest fault on the sheet no such current flows: say so rather than compare times. The
+  // largest is that of the devices on the sheet's own voltage, where it has any (a primary device's own
+  // bus fault, reflected, is a current no secondary fault ever draws through it).
+  const own = readings.filter((r) => Math.abs(r.ownVolts - referenceVolts) <= 1e-9 * referenceVolts);
+  const largest = (own.length > 0 ? own : readings).reduce<ProbeReading | undefined>(
+    (a, b) => (!a || (b.largestFault ?? 0) * b.ownVolts > (a.largestFault ?? 0) * a.ownVolts ? b : a),
+    undefined,
+  );
+  const largestAmps = largest ? ((largest.largestFault ?? Infinity) * largest.ownVolts) / referenceVolts : Infinity;
+  if (largest && amps > largestAmps * (1 + 1e-9)) {
+    return {
+      amps,
+      referenceVolts,
+      readings,
+      beyondFault: true,
+      summary: `Beyond the largest available fault on this sheet (${formatAmps(largest.largestFault ?? Infinity, 3)} at ${formatVolts(largest.ownVolts)}): no such current flows here.`,
+    };
+  }
+  const inReach = readings.filter((r) => !r.beyondFault);
+  const clearing = inReach.filter((reading) => reading.maxTime < Infinity);
   if (clearing.length === 0) {
-    const operating = readings.filter((reading) => reading.minTime < Infinity);
+    const operating = inReach.filter((reading) => reading.minTime < Infinity);
     return {
       amps,
       referenceVolts,
@@ -68,7 +101,7 @@ export function probeAt(analysis: Analysis, viewId: string, amps: number): Probe
     };
   }
   const first = clearing.reduce((a, b) => (b.maxTime < a.maxTime ? b : a));
-  const others = readings.filter((reading) => reading !== first);
+  const others = inReach.filter((reading) => reading !== first);
   const nextOperating = others.reduce<ProbeReading | undefined>(
     (a, b) => (!a || b.minTime < a.minTime ? b : a),
     undefined,

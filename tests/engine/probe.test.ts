@@ -38,4 +38,25 @@ describe('probeAt', () => {
   it('rejects an unknown view', () => {
     expect(() => probeAt(analysis, 'nowhere', 100)).toThrow(/no view "nowhere"/);
   });
+
+  it('says a current beyond the largest available fault on the sheet flows nowhere, instead of comparing times', () => {
+    const swbd = analysis.faults.buses.get('SWBD')!.max.threePhase;
+    const beyond = probeAt(analysis, 'service', swbd * 1.5);
+    expect(beyond.beyondFault).toBe(true);
+    expect(beyond.first).toBeUndefined();
+    expect(beyond.summary).toMatch(
+      /^Beyond the largest available fault on this sheet \([\d.]+ kA at 480 V\): no such current flows here\.$/,
+    );
+    expect(beyond.summary).not.toMatch(/not selective/);
+    expect(probeAt(analysis, 'service', swbd * 0.99).beyondFault).toBeUndefined();
+  });
+
+  it('leaves a device out of the comparison beyond the largest fault at its own location', () => {
+    const mcc = analysis.faults.buses.get('MCC')!.max.threePhase;
+    const swbd = analysis.faults.buses.get('SWBD')!.max.threePhase;
+    expect(swbd).toBeGreaterThan(mcc * 1.02);
+    const probe = probeAt(analysis, 'service', Math.sqrt(mcc * swbd));
+    expect(probe.readings.find((r) => r.deviceId === 'MCC-M1')!.beyondFault).toBe(true);
+    expect(probe.first).not.toBe('MCC-M1');
+  });
 });
