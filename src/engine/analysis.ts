@@ -1,5 +1,6 @@
 import type { Band } from './band.ts';
 import { cachedBandOf } from './bandCache.ts';
+import type { AnalysisMemo } from './incremental.ts';
 import { cableFindings } from './checks/cableProtection.ts';
 import type { CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
@@ -36,13 +37,15 @@ export interface Analysis {
  * band, every series pair (DESIGN §4), transformer through-fault and inrush protection, NEC 450.3
  * limits, cable short-circuit protection, motor starting, interrupting duty and equipment short-circuit
  * ratings (NFPA 70 110.9, 110.10) and sensitivity to the minimum fault in each zone. Pure: the result
- * depends only on `study`.
+ * depends only on `study`; a `memo` kept from the analysis before an edit (see `AnalysisMemo`) only
+ * saves the work of what the edit did not change.
  *
  * @example const { findings } = analyseStudy(parseStudy(text))
  */
-export function analyseStudy(study: Study): Analysis {
+export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
   const network = networkOf(study);
-  const faults = faultLevelsOf(network);
+  // With a memo (the workbench, edit after edit) unchanged fault levels and pairs are taken from it.
+  const faults = memo ? memo.faultsOf(network) : faultLevelsOf(network);
   // Equal characteristics share one band (a site's many identical breakers are built once).
   const bands = new Map(study.devices.map((device) => [device.id, cachedBandOf(device.characteristic)]));
   const context: CheckContext = { network, faults, bands };
@@ -50,7 +53,9 @@ export function analyseStudy(study: Study): Analysis {
 
   const pairs: PairCheck[] = [];
   for (const pair of seriesPairs(network)) {
-    const { check, findings: pairFindings } = checkPair(context, pair, study.coordination);
+    const { check, findings: pairFindings } = memo
+      ? memo.pair(context, pair, study.coordination)
+      : checkPair(context, pair, study.coordination);
     pairs.push(check);
     findings.push(...pairFindings);
   }
@@ -78,6 +83,7 @@ export function analyseStudy(study: Study): Analysis {
     );
   }
 
+  memo?.forgetUnused();
   const counts: Record<Severity, number> = { ok: 0, info: 0, warning: 0, fail: 0 };
   for (const finding of findings) counts[finding.severity]++;
   return { study, network, faults, bands, pairs, findings, counts };

@@ -1,0 +1,96 @@
+import { cachedGroundBandOf } from './bandCache.ts';
+import type { CheckContext } from './checks/context.ts';
+import { checkPair, type PairCheck } from './checks/coordination.ts';
+import type { Finding } from './checks/finding.ts';
+import { faultLevelsOf, type FaultLevels } from './fault/index.ts';
+import type { Network } from './network/index.ts';
+import type { CoordinationSettings, Device } from './study/index.ts';
+
+type PairResult = { check: PairCheck; findings: Finding[] };
+
+/**
+ * What one analysis of a study keeps for the next analysis of the same study after an edit, so that
+ * an edit costs what it changed: fault levels are worked out again only when the network changed
+ * (source, buses, transformers, cables, motors, or where a device sits), and a pair is checked again
+ * only when something it depends on changed (either device's bands, names or margin, the fault levels,
+ * the coordination settings). Unchanged pairs give back the very same result objects. The results are
+ * exactly those of a fresh analysis; pass one memo to `analyseStudy` edit after edit.
+ *
+ * @example const memo = new AnalysisMemo(); analyseStudy(study, memo); analyseStudy(edited, memo)
+ */
+export class AnalysisMemo {
+  #networkKey: string | undefined;
+  #faults: FaultLevels | undefined;
+  #settings: CoordinationSettings | undefined;
+  #settingsKey = '';
+  #pairs = new Map<string, { inputs: unknown[]; result: PairResult; used: number }>();
+  #generation = 0;
+  /** How many pair checks the last analysis ran, and how many it took from the memo. */
+  readonly lastRun = { pairsChecked: 0, pairsReused: 0, faultsReused: false };
+
+  /** The network's fault levels, the previous ones while the network is unchanged. */
+  faultsOf(network: Network): FaultLevels {
+    const { study } = network;
+    const key = JSON.stringify([
+      study.frequency,
+      study.source,
+      study.buses,
+      study.transformers,
+      study.cables,
+      study.motors,
+      study.devices.map((device) => device.feeds),
+    ]);
+    // A new analysis begins here: pairs not met by its end are forgotten.
+    this.#generation++;
+    this.lastRun.pairsChecked = 0;
+    this.lastRun.pairsReused = 0;
+    this.lastRun.faultsReused = key === this.#networkKey && this.#faults !== undefined;
+    if (!this.lastRun.faultsReused) {
+      this.#faults = faultLevelsOf(network);
+      this.#networkKey = key;
+    }
+    return this.#faults!;
+  }
+
+  /** `checkPair(context, pair, settings)`, or its previous result where none of its inputs changed. */
+  pair(
+    context: CheckContext,
+    pair: { upstream: Device; downstream: Device },
+    settings: CoordinationSettings,
+  ): PairResult {
+    if (settings !== this.#settings) {
+      this.#settings = settings;
+      this.#settingsKey = JSON.stringify(settings);
+    }
+    const { upstream, downstream } = pair;
+    const inputs = [
+      context.faults,
+      context.bands.get(upstream.id),
+      context.bands.get(downstream.id),
+      cachedGroundBandOf(upstream.characteristic),
+      cachedGroundBandOf(downstream.characteristic),
+      this.#settingsKey,
+      upstream.name,
+      downstream.name,
+      JSON.stringify(upstream.margin),
+      upstream.characteristic.kind,
+      downstream.characteristic.kind,
+    ];
+    const key = `${upstream.id}\u0000${downstream.id}`;
+    const known = this.#pairs.get(key);
+    if (known && known.inputs.every((value, i) => value === inputs[i])) {
+      known.used = this.#generation;
+      this.lastRun.pairsReused++;
+      return known.result;
+    }
+    const result = checkPair(context, pair, settings);
+    this.#pairs.set(key, { inputs, result, used: this.#generation });
+    this.lastRun.pairsChecked++;
+    return result;
+  }
+
+  /** Forgets the pairs the last analysis did not meet (removed devices, changed trees). */
+  forgetUnused(): void {
+    for (const [key, entry] of this.#pairs) if (entry.used !== this.#generation) this.#pairs.delete(key);
+  }
+}
