@@ -142,7 +142,7 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
     settings.arcingFactor === undefined
       ? 'bolted faults'
       : `arcing faults taken as ${significant(settings.arcingFactor * 100, 3)} % of the bolted fault (a user option; common practice, IEEE 1584 gives the method for the arcing current)`;
-  const basis = `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (common practice).`;
+  const basis = `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (${settings.maxTime === 2 ? 'common practice' : 'as set for this study'}).`;
   const describe = (c: SensitivityCase) => {
     const bus = network.buses.get(c.busId)!;
     const at = `${formatAmps(c.boltedAmps, 3)} ${faultName(c)} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
@@ -155,7 +155,8 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   };
   const rangeFor = (c: SensitivityCase) =>
     rangeOf(c.deviceAmps, c.deviceAmps, location.voltage, [network.buses.get(c.busId)!.voltage]);
-  const failing = cases.filter((c) => !(c.clearingTime <= settings.maxTime));
+  // A relative 1e-9 keeps a clearing time equal to the limit from failing on rounding.
+  const failing = cases.filter((c) => !(c.clearingTime <= settings.maxTime * (1 + 1e-9)));
   if (failing.length === 0) {
     const slowest = cases.reduce((a, b) => (b.clearingTime > a.clearingTime ? b : a));
     return [

@@ -70,6 +70,14 @@ describe('interrupting duty (NFPA 70 110.9) and equipment short-circuit rating (
     // Fuse at X/R 15: (1 + e^(−π/15)) / (1 + e^(−π/4.899)) = 1.186306.
     assertInDelta(dutyFactorOf('peak', 15, xrOfPowerFactor(0.2)), 1.1863057, 1e-6);
     expect(dutyFactorOf('peak', 4.8, mccb)).toBe(1);
+    // Continuous at the test X/R and rising with the system X/R.
+    assertInDelta(dutyFactorOf('peak', mccb * (1 + 1e-9), mccb), 1, 1e-8);
+    let previous = 1;
+    for (const xr of [5, 6, 8, 12, 20, 40, Infinity]) {
+      const factor = dutyFactorOf('peak', xr, mccb);
+      expect(factor).toBeGreaterThan(previous);
+      previous = factor;
+    }
     expect(dutyFactorOf('rms', 6.591, xrOfPowerFactor(0.15))).toBe(1);
     // All-reactance system: the limits 2·√2/(√2·(1 + e^(−π/X/R test))) and √3/√(1 + 2e^(−2π/X/R test)).
     assertInDelta(dutyFactorOf('peak', Infinity, mccb), 2 / (1 + Math.exp(-Math.PI / mccb)), 1e-12);

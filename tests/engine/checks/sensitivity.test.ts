@@ -117,6 +117,9 @@ describe('sensitivity to the minimum fault in a zone', () => {
     const slow = sensitivity(fused({ sensitivity: { maxTime: 0.3 } }));
     expect(slow.map((f) => `${f.id} ${f.severity}`)).toEqual(['sensitivity:F1:line-to-line warning']);
     expect(slow[0].explanation).toMatch(/may take 0\.333 s to clear, longer than the 0\.3 s allowed/);
+    expect(slow[0].basis).toMatch(/clearing within 0\.3 s \(as set for this study\)/);
+    // At the limit itself (1/3 s, the L-L clearing time) the device passes.
+    expect(sensitivity(fused({ sensitivity: { maxTime: 1 / 3 } }))[0].severity).toBe('ok');
     // Arcing factor 0.04: 692.8 A L-L and 800 A L-G, both below the 1000 A where total clearing starts.
     const never = sensitivity(fused({ sensitivity: { arcingFactor: 0.04 } }));
     expect(never.map((f) => `${f.id} ${f.severity}`)).toEqual([
