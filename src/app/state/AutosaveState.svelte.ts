@@ -81,8 +81,8 @@ export class AutosaveState {
   }
 
   /**
-   * Schedules keeping the document as it stands at the next idle moment (replacing a write not yet
-   * done). Call it from an `$effect` so it follows every edit; it does nothing while an offer waits.
+   * Schedules keeping the document as it stands at the next idle moment (a write not yet done
+   * takes this newer document instead). Call it from an `$effect` so it follows every edit; it does nothing while an offer waits.
    */
   request(): void {
     if (this.offer) return;
@@ -95,9 +95,10 @@ export class AutosaveState {
       problems: study.problems,
     };
     untrack(() => {
-      this.#cancel?.();
+      // A write already waiting takes the newer record: edits in a stream (a drag) are still kept
+      // every idle moment, not put off until the stream stops.
       this.#write = () => this.#keep(record);
-      this.#cancel = this.#schedule(() => this.flush());
+      this.#cancel ??= this.#schedule(() => this.flush());
     });
   }
 

@@ -81,6 +81,25 @@ describe('AutosaveState', () => {
     expect(kept.unsaved).toBe(true);
   });
 
+  it('a stream of edits (a drag) does not put the write off: the waiting write takes the newest edit', () => {
+    const storage = memoryStorage();
+    const study = new StudyState(demo);
+    let scheduled = 0;
+    const idle = heldScheduler();
+    const autosave = new AutosaveState(study, storage, (task) => (scheduled++, idle.schedule(task)), clock);
+    for (const amps of ['1600 A', '1700 A', '1800 A']) {
+      study.edit(sensor, amps, 'sensor of MAIN');
+      autosave.request();
+    }
+    expect(scheduled).toBe(1);
+    idle.run();
+    const [kept] = readKept(storage).versions;
+    expect((kept.document as StudyInput).devices![mainIndex].characteristic).toMatchObject({ sensor: '1800 A' });
+    study.edit(sensor, '1900 A', 'sensor of MAIN');
+    autosave.request();
+    expect(scheduled).toBe(2);
+  });
+
   it('flush() writes at once (the page is going away) and leaves nothing scheduled', () => {
     const storage = memoryStorage();
     const { study, autosave, idle } = startWith(storage);
