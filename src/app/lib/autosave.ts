@@ -231,9 +231,9 @@ export function nameOf(document: unknown): string {
 }
 
 /**
- * Which kept version to offer back on start, if any: the newest, when it holds work that no file
- * has (unsaved edits or problems) or a later write was refused. `undefined` when the newest kept
- * version is a clean copy of a file, which can simply be reopened.
+ * Whether kept work must be offered back on start: true when the newest kept version holds work
+ * that no file has (unsaved edits or problems) or a later write was refused; false when it is a
+ * clean copy of a file, which can simply be reopened, or when nothing is kept.
  *
  * @example needsOffer(readKept(localStorage)) // true after a reload with unsaved edits
  */
