@@ -16,6 +16,8 @@ const FLAGS = {
   'source-mva': 'value',
   'source-ka': 'value',
   'source-xr': 'value',
+  'primary-connection': 'value',
+  'secondary-winding': 'value',
   json: 'switch',
   help: 'switch',
 } as const;
@@ -31,6 +33,11 @@ const HELP = `discern transformer — full-load current and secondary bolted fau
   --source-mva <power>    available three-phase fault at the primary, MVA (default: infinite source)
   --source-ka <current>   or the same as a current, kA
   --source-xr <ratio>     source X/R (default: all reactance)
+  --primary-connection line-to-line|line-to-neutral
+                          single-phase units: primary across two lines (default) or line to neutral
+                          (then --primary is the winding voltage, e.g. 7.2 kV on a 12.47 kV system)
+  --secondary-winding centre-tapped|two-wire
+                          single-phase units: default centre-tapped for a 240 V secondary (120/240 V)
   --json                  print the result and its work as JSON
 
 Example: discern transformer --kva 1500 --primary "12.47 kV" --secondary 480 --impedance 5.75 --xr 6 --source-mva 250 --source-xr 12
@@ -70,6 +77,11 @@ export const transformerCommand: Command = {
       `  infinite source     ${formatAmps(result.faultAmps.infiniteBus)}`,
       `  with this source    ${formatAmps(result.faultAmps.secondary)}   X/R ${significant(result.xr, 4)}`,
       `  seen at the primary ${formatAmps(result.faultAmps.reflectedToPrimary)}`,
+      ...(result.faultAmps.lineToNeutral !== undefined
+        ? [
+            `  line to neutral     ${formatAmps(result.faultAmps.lineToNeutral)}   (half winding at ${formatVolts(input.secondary / 2)}; 1.5 × R and 1.2 × X, common practice)`,
+          ]
+        : []),
       '',
       'Work',
       formatWork(result.work),
@@ -128,12 +140,25 @@ function inputOf(parsed: ReturnType<typeof parseArgs>): TransformerCalculationIn
   const sourceXr = optional('source-xr');
   if (sourceXr !== undefined && !source)
     throw new InputError('--source-xr', expectedGot('--source-mva or --source-ka with it', `--source-xr ${sourceXr}`));
+  const connection = flagText(parsed, 'primary-connection');
+  if (connection !== undefined && connection !== 'line-to-line' && connection !== 'line-to-neutral')
+    throw new InputError('--primary-connection', expectedGot('line-to-line or line-to-neutral', connection));
+  const winding = flagText(parsed, 'secondary-winding');
+  if (winding !== undefined && winding !== 'centre-tapped' && winding !== 'two-wire')
+    throw new InputError('--secondary-winding', expectedGot('centre-tapped or two-wire', winding));
+  if ((connection !== undefined || winding !== undefined) && phasesText !== '1')
+    throw new InputError(
+      connection !== undefined ? '--primary-connection' : '--secondary-winding',
+      expectedGot('--phases 1 with it', `--phases ${phasesText}`),
+    );
   return {
     rating,
     primary,
     secondary,
     impedance,
     phases: phasesText === '1' ? 1 : 3,
+    ...(connection ? { primaryConnection: connection } : {}),
+    ...(winding ? { centreTapped: winding === 'centre-tapped' } : {}),
     xr: optional('xr'),
     source,
     sourceXr,

@@ -23,6 +23,14 @@ export interface TransformerCalculationInput {
   sourceXr?: number;
   /** Use 92.5 % of nameplate %Z (common practice, maximum duty). @default false */
   impedanceTolerance?: boolean;
+  /**
+   * Single-phase units: primary across two lines of the three-phase source, or line to neutral (the
+   * `primary` voltage is then the winding's, the source's line-to-line voltage √3 times it).
+   * @default 'line-to-line'
+   */
+  primaryConnection?: 'line-to-line' | 'line-to-neutral';
+  /** Single-phase units: a centre-tapped secondary (120/240 V). @default true for a 240 V secondary */
+  centreTapped?: boolean;
 }
 
 /** Result of the quick transformer calculation; amps are three-phase (or single-phase) bolted, symmetrical. */
@@ -35,6 +43,8 @@ export interface TransformerCalculation {
     secondary: number;
     /** `secondary` at the primary voltage (A). */
     reflectedToPrimary: number;
+    /** Centre-tapped single-phase units: the line-to-neutral (half-winding) fault at the secondary terminals (A). */
+    lineToNeutral?: number;
   };
   /** Per-unit impedances on the transformer base. */
   perUnit: { source: number; transformer: number; total: number };
@@ -54,6 +64,8 @@ export interface TransformerCalculation {
  */
 export function transformerCalculation(input: TransformerCalculationInput): TransformerCalculation {
   const { rating, primary, secondary, impedance, phases = 3, xr, source, sourceXr, impedanceTolerance = false } = input;
+  const toNeutral = phases === 1 && input.primaryConnection === 'line-to-neutral';
+  const centreTapped = phases === 1 && (input.centreTapped ?? Math.abs(secondary - 240) < 1);
   const work: WorkStep[] = [];
   const root = phases === 3 ? '1.7320508 × ' : '';
   const fla = (side: string, volts: number): number => {
@@ -96,27 +108,36 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
   let total = zT;
   let sourcePu = 0;
   if (source) {
-    const power = source.va ?? Math.sqrt(3) * primary * source.amps!;
+    const systemVolts = toNeutral ? Math.sqrt(3) * primary : primary;
+    const power = source.va ?? Math.sqrt(3) * systemVolts * source.amps!;
     if (source.amps !== undefined)
       work.push({
         label: 'source short-circuit power from its fault current',
         formula: 'S_sc = √3 · V_pri · I_sc',
-        substituted: `S_sc = 1.7320508 × ${num(primary)} V × ${num(source.amps)} A`,
+        substituted: `S_sc = 1.7320508 × ${num(systemVolts)} V × ${num(source.amps)} A`,
         value: power,
         unit: 'VA',
         source: 'S = √3 · V · I (IEEE 141)',
       });
-    const factor = phases === 3 ? 1 : 2;
+    // Loop of a single-phase unit: Z1 + Z2 across two lines; (Z1 + Z2 + Z0)/3 line to neutral on the
+    // winding's base, which with Z0 = Z1 is 3 · S_T / S_sc (symmetrical components, IEEE 399).
+    const factor = phases === 3 ? 1 : toNeutral ? 3 : 2;
     sourcePu = (factor * rating) / power;
     const zU = impedanceOfMagnitude(sourcePu, sourceXr);
     work.push(
       impedanceStep(
         'source impedance on the transformer base',
-        phases === 3 ? 'Z_U = S_T / S_sc' : 'Z_U = 2 · S_T / S_sc (line-to-line loop)',
-        `Z_U = ${factor === 2 ? '2 × ' : ''}${num(rating)} VA / ${num(power)} VA; ${sourceXr === undefined ? 'all reactance' : `X/R ${num(sourceXr)}`}`,
+        phases === 3
+          ? 'Z_U = S_T / S_sc'
+          : toNeutral
+            ? 'Z_U = 3 · S_T / S_sc (line-to-neutral loop, (Z1 + Z2 + Z0)/3 with Z0 = Z1)'
+            : 'Z_U = 2 · S_T / S_sc (line-to-line loop, Z1 + Z2)',
+        `Z_U = ${factor !== 1 ? `${factor} × ` : ''}${num(rating)} VA / ${num(power)} VA; ${sourceXr === undefined ? 'all reactance' : `X/R ${num(sourceXr)}`}`,
         zU,
         'pu',
-        'per-unit method (IEEE 141 / IEEE 399)',
+        toNeutral
+          ? 'symmetrical components (IEEE 399); source Z0 = Z1, common practice'
+          : 'per-unit method (IEEE 141 / IEEE 399)',
       ),
       impedanceStep(
         'transformer impedance split by its X/R',
@@ -158,9 +179,41 @@ export function transformerCalculation(input: TransformerCalculationInput): Tran
     unit: 'A',
     source: 'turns ratio',
   });
+  let lineToNeutral: number | undefined;
+  if (centreTapped) {
+    // Half winding on the full kVA at V/2: 1.5 × R and 1.2 × X of the full-winding values (common
+    // practice); the source keeps its per-unit value, referred by half the turns onto half the base voltage.
+    const zSource = { r: total.r - zT.r, x: total.x - zT.x };
+    const half = { r: 1.5 * zT.r, x: 1.2 * zT.x };
+    const loop = addImpedance(zSource, half);
+    lineToNeutral = rating / (secondary / 2) / magnitudeOf(loop);
+    work.push(
+      impedanceStep(
+        'half-winding loop for a line-to-neutral fault',
+        'Z = Z_U + 1.5 · R_T + j·1.2 · X_T',
+        `Z = (${formatImpedance(zSource)}) pu + (${formatImpedance(half)}) pu`,
+        loop,
+        'pu',
+        'half-winding 1.5 × R and 1.2 × X of full-winding values, common practice',
+      ),
+      {
+        label: 'line-to-neutral (half-winding) fault at the secondary terminals',
+        formula: 'I_LN = (S / (V/2)) / |Z|',
+        substituted: `I_LN = ${num(rating)} VA / ${num(secondary / 2)} V / ${num(magnitudeOf(loop))} pu`,
+        value: lineToNeutral,
+        unit: 'A',
+        source: 'per-unit method (IEEE 141 / IEEE 399)',
+      },
+    );
+  }
   return {
     fullLoadAmps: { primary: primaryFla, secondary: secondaryFla },
-    faultAmps: { infiniteBus, secondary: secondaryAmps, reflectedToPrimary },
+    faultAmps: {
+      infiniteBus,
+      secondary: secondaryAmps,
+      reflectedToPrimary,
+      ...(lineToNeutral ? { lineToNeutral } : {}),
+    },
     perUnit: { source: sourcePu, transformer: perUnit, total: magnitudeOf(total) },
     xr: xrOf(total),
     work,

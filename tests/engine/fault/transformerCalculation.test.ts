@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { transformerCalculation } from '../../../src/engine/fault/index.ts';
 import { assertInDelta } from '../../asserts.ts';
+import { abs, add, polar } from './perUnit.ts';
 
 const t750 = { rating: 750e3, primary: 4160, secondary: 480, impedance: 5.75, xr: 5 };
 
@@ -92,5 +93,25 @@ describe('transformerCalculation', () => {
       ),
       { numRuns: 300 },
     );
+  });
+
+  it('single-phase 50 kVA 2.1 %Z X/R 2, 250 MVA X/R 12: L-N half-winding fault by 1.5 × R and 1.2 × X (common practice), per-unit hand solution', () => {
+    // Per unit on 50 kVA: source loop Z1 + Z2 = 2 · S_T / S_sc across two lines, 3 · S_T / S_sc line to
+    // neutral with Z0 = Z1 (symmetrical components, IEEE 399); the half winding keeps the source per unit on the 120 V base.
+    const zs = polar(2 * (50e3 / 250e6), 12);
+    const zt = polar(0.021, 2);
+    const base = { rating: 50e3, primary: 12470, secondary: 240, impedance: 2.1, xr: 2, phases: 1 as const };
+    const r = transformerCalculation({ ...base, source: { va: 250e6 }, sourceXr: 12 });
+    assertInDelta(r.faultAmps.secondary, 50e3 / 240 / abs(add(zs, zt)), 1e-9);
+    assertInDelta(r.faultAmps.lineToNeutral!, 50e3 / 120 / abs(add(zs, [1.5 * zt[0], 1.2 * zt[1]])), 1e-9);
+    const ln = transformerCalculation({
+      ...base,
+      primary: 7200,
+      primaryConnection: 'line-to-neutral',
+      source: { va: 250e6 },
+      sourceXr: 12,
+    });
+    assertInDelta(ln.faultAmps.secondary, 50e3 / 240 / abs(add(polar(3 * (50e3 / 250e6), 12), zt)), 1e-9);
+    expect(transformerCalculation({ ...base, centreTapped: false }).faultAmps.lineToNeutral).toBeUndefined();
   });
 });
