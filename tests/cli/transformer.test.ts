@@ -93,6 +93,18 @@ describe('discern transformer', () => {
     assertInDelta(JSON.parse(stdout).fullLoadAmps.secondary, 208.333, 1e-5);
   });
 
+  it('--phases 1 on a 240 V secondary prints the line-to-neutral fault; the connection flags need --phases 1', async () => {
+    const single = ['--kva', '50', '--primary', '7.2 kV', '--secondary', '240', '--impedance', '2.1', '--phases', '1'];
+    const { stdout } = await run([...single, '--primary-connection', 'line-to-neutral']);
+    // Infinite source, all reactance: 50 kVA / 120 V / (1.2 × 0.021) = 16 534 A (half winding, common practice).
+    expect(stdout).toMatch(/^ {2}line to neutral +16\.53 kA/m);
+    const bad = await run([...single, '--secondary-winding', 'three-wire']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/^--secondary-winding: expected centre-tapped or two-wire, got "three-wire"\n$/);
+    const three = await run([...demoFlags, '--primary-connection', 'line-to-neutral']);
+    expect(three.stderr).toMatch(/^--primary-connection: expected --phases 1 with it/);
+  });
+
   it('--help prints the flags', async () => {
     const { code, stdout } = await run(['--help']);
     expect(code).toBe(0);
