@@ -1,4 +1,5 @@
-import { readFileSync, realpathSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { expectedGot, InputError } from '../engine/errors.ts';
 import type { Command, CommandIO } from './command.ts';
@@ -9,8 +10,39 @@ export const nodeIO: CommandIO = {
   stdout: (text) => void process.stdout.write(text),
   stderr: (text) => void process.stderr.write(text),
   readText: (path) => readFileSync(path, 'utf8'),
-  writeFile: (path, data) => writeFileSync(path, data),
+  writeFile: (path, data) => writeFileWhole(path, data),
 };
+
+/**
+ * Writes a figure or report whole or not at all: the parent folder is created when missing (the
+ * README's `--out out/service.pdf` on a fresh clone), the data goes to a temporary file beside the
+ * target and is renamed over it only when complete, so an existing file is never left half-written.
+ * Throws `InputError` naming the path when the file cannot be written.
+ *
+ * @example writeFileWhole('out/findings.md', markdown)
+ */
+export function writeFileWhole(path: string, data: string | Uint8Array): void {
+  const temporary = join(dirname(path), `.${basename(path)}.${process.pid}.partial`);
+  try {
+    makeFolders(dirname(path));
+    writeFileSync(temporary, data);
+    renameSync(temporary, path);
+  } catch (error) {
+    rmSync(temporary, { force: true });
+    const reason = (error as NodeJS.ErrnoException).code ?? 'an error';
+    throw new InputError(path, expectedGot('a file that can be written', `${reason} writing ${path}`));
+  }
+}
+
+/**
+ * Creates a folder and its missing parents, one level at a time (Node's recursive mkdir can spin on
+ * file systems that refuse folders, such as /proc).
+ */
+function makeFolders(folder: string): void {
+  const missing: string[] = [];
+  for (let at = folder; !existsSync(at) && dirname(at) !== at; at = dirname(at)) missing.push(at);
+  for (let i = missing.length - 1; i >= 0; i--) mkdirSync(missing[i]);
+}
 
 /** `discern --help`: the verbs and their summaries. @example io.stdout(usageOf(commands)) */
 export function usageOf(list: readonly Command[]): string {

@@ -40,8 +40,18 @@ export function svgOf(sheet: Drawing): string {
  * @example escapeXml('<script>"x" & \'y\'') // '&lt;script&gt;&quot;x&quot; &amp; &apos;y&apos;'
  */
 export function escapeXml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => ESCAPES[c]);
+  // Characters XML 1.0 forbids (C0 controls but tab and line breaks, lone surrogates, U+FFFE/U+FFFF)
+  // are dropped: the schema refuses them in names, and this keeps any other text from making the
+  // figure unreadable to XML parsers, resvg (PNG) and the PDF writer.
+  return text.replace(NOT_XML, '').replace(/[&<>"']/g, (c) => ESCAPES[c]);
 }
+
+// Characters XML 1.0 forbids.
+const NOT_XML = new RegExp(
+  // eslint-disable-next-line no-control-regex
+  '[\\u0000-\\u0008\\u000b\\u000c\\u000e-\\u001f\\ufffe\\uffff]|[\\ud800-\\udbff](?![\\udc00-\\udfff])|(?<![\\ud800-\\udbff])[\\udc00-\\udfff]',
+  'g',
+);
 
 const ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' };
 

@@ -68,6 +68,11 @@ describe('svgOf', () => {
       expect(id).not.toBeNull();
   });
 
+  it('escapeXml drops what XML 1.0 forbids: vertical tab, NUL, U+FFFE/U+FFFF, lone surrogates', () => {
+    expect(escapeXml('a\u000bb\u0000c\uFFFEd\uFFFFe\uD800f\tg')).toBe('abcdef\tg');
+    expect(escapeXml('\u{1F600}')).toBe('\u{1F600}');
+  });
+
   it('escapeXml escapes &, <, >, and both quotes', () => {
     expect(escapeXml('<a href="x">Tom & Jerry\'s</a>')).toBe(
       '&lt;a href=&quot;x&quot;&gt;Tom &amp; Jerry&apos;s&lt;/a&gt;',

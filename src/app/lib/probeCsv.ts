@@ -1,5 +1,6 @@
 import type { Probe } from '../../engine/probe.ts';
 import { significant } from '../../engine/quantity/index.ts';
+import { csvCell as safeCsvCell } from '../../engine/report/csv.ts';
 import { CAUTION } from './caution.ts';
 
 /**
@@ -42,9 +43,11 @@ export function probesCsv(probes: readonly Probe[]): string {
 }
 
 /**
- * Quotes a CSV cell when it holds a comma, quote or line break (RFC 4180).
+ * One CSV cell, quoted when it holds a comma, quote or line break (RFC 4180), with formula
+ * injection neutralised (a device id or name starting with `=`, `+`, `-`, `@`, tab or CR is
+ * prefixed with an apostrophe): the same rule as the findings CSV.
  * @example csvCell('a, b') // '"a, b"'
  */
 export function csvCell(value: string): string {
-  return /[",\n\r]/.test(value) ? `"${value.replace(/"/g, '""')}"` : value;
+  return safeCsvCell(value);
 }

@@ -24,8 +24,21 @@ export function csvReport(analysis: Analysis): string {
   return `${[COLUMNS.join(','), ...rows, `caution,,${quote(CAUTION)},,,,,`].join('\r\n')}\r\n`;
 }
 
-/** Quotes a cell when it holds a comma, quote or line break; neutralises a leading formula character. */
-function quote(cell: string): string {
-  const safe = /^([=+@]|-(?!\d))/.test(cell) ? `'${cell}` : cell;
+/**
+ * One CSV cell, safe to open in a spreadsheet: a cell starting with `=`, `+`, `-`, `@`, a tab or a
+ * carriage return gets a leading apostrophe so it is read as text, never as a formula (OWASP "CSV
+ * Injection"), including "-1+2"; only a cell that is wholly a plain number ("-0.25") is left as it
+ * is. Then quoted when it holds a comma, quote or line break (RFC 4180).
+ *
+ * @example csvCell('=HYPERLINK("x")') // '"\'=HYPERLINK(""x"")"'
+ * @example csvCell('-0.25') // '-0.25'
+ */
+export function csvCell(cell: string): string {
+  const safe = FORMULA_START.test(cell) && !PLAIN_NUMBER.test(cell) ? `'${cell}` : cell;
   return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
+
+const FORMULA_START = /^[=+\-@\t\r]/;
+const PLAIN_NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+const quote = csvCell;

@@ -39,7 +39,24 @@ export function markdownReport(analysis: Analysis): string {
   return `${lines.join('\n').trimEnd()}\n`;
 }
 
-/** Keeps user text from breaking the table or adding markup: pipes escaped, angle brackets as entities. */
-function escapeCell(text: string): string {
-  return text.replace(/\|/g, '\\|').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/\r?\n/g, ' ');
+/**
+ * Keeps user text from breaking the table or adding markup: HTML as entities (so no raw HTML and no
+ * `<http://…>` autolink), the brackets that open a link or image (`[x](javascript:…)`, `![](http://…)`)
+ * and the characters of emphasis, code spans, strikethrough and tables escaped with a backslash, a
+ * leading heading, quote or list marker escaped, line breaks and control characters as spaces.
+ *
+ * @example escapeCell('![x](http://a)') // '!\\[x\\](http://a)'
+ */
+export function escapeCell(text: string): string {
+  return (
+    text
+      .replace(/&/g, '&amp;')
+      .replace(/</g, '&lt;')
+      .replace(/>/g, '&gt;')
+      // eslint-disable-next-line no-control-regex
+      .replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]/g, ' ')
+      .replace(/[\\`*_[\]|~]/g, (c) => `\\${c}`)
+      // What opens a heading, quote or list only at the start of a line.
+      .replace(/^(\s*)([#>+-]|\d+\.)/, '$1\\$2')
+  );
 }

@@ -23,7 +23,7 @@ describe('probeCsv', () => {
     };
     const lines = probesCsv([probe]).trimEnd().split('\n');
     expect(lines[0]).toMatch(/^"# For review by a qualified engineer/);
-    expect(lines[2]).toBe('20000,480,MAIN,20000,480,0.35,0.45,yes,Infinity');
+    expect(lines[2]).toBe('20000,480,MAIN,20000,480,0.35,0.45,yes,no limit');
     expect(lines[3]).toBe('20000,480,R-T1,769.9,12470,,,,');
   });
 
@@ -32,5 +32,17 @@ describe('probeCsv', () => {
     expect(csvCell('a, b')).toBe('"a, b"');
     expect(csvCell('say "x"')).toBe('"say ""x"""');
     expect(csvCell('a\nb')).toBe('"a\nb"');
+  });
+
+  it.each([
+    ['=1+2', "'=1+2"],
+    ['+1+cmd', "'+1+cmd"],
+    ['-1+2', "'-1+2"],
+    ['@SUM(A1)', "'@SUM(A1)"],
+    ['\tcmd', "'\tcmd"],
+    ['\r=cmd', '"\'\r=cmd"'],
+    ['-0.25', '-0.25'],
+  ])('csvCell() neutralises formula injection (OWASP CSV Injection): %j', (cell, safe) => {
+    expect(csvCell(cell)).toBe(safe);
   });
 });

@@ -34,6 +34,23 @@ describe('reports', () => {
     expect(md).toContain('\\| 2000 A');
   });
 
+  it('markdownReport shows link and image syntax in names as typed, never as a link', () => {
+    const text = readFileSync('demo/harrowmere-overlap.json', 'utf8').replace(
+      '"Main 2000 A"',
+      '"![x](http://example.invalid/a.png) [y](javascript:alert(1)) <http://example.invalid>"',
+    );
+    const md = markdownReport(analyseStudy(parseStudy(text)));
+    expect(md).not.toMatch(/!\[x\]\(|[^\\]\[y\]\(|<http/);
+    expect(md).toContain('!\\[x\\](http://example.invalid/a.png)');
+  });
+
+  it('csvReport neutralises formula injection in names (OWASP CSV Injection)', () => {
+    const text = readFileSync('demo/harrowmere-overlap.json', 'utf8').replace('"Main 2000 A"', '"-1+2 main"');
+    const csv = csvReport(analyseStudy(parseStudy(text)));
+    expect(csv).not.toMatch(/(^|,)"?-1\+2/m);
+    expect(csv).toContain("'-1+2 main");
+  });
+
   it('csvReport quotes cells with commas and quotes (RFC 4180) and ends with the caution', () => {
     const csv = csvReport(overlap);
     const lines = csv.trimEnd().split('\r\n');
