@@ -191,7 +191,7 @@ export function tripUnitBand(unit: TripUnit): Band {
  * How the long-time function meets the short-time function in this trip unit, in words for the
  * sheet's legend and the report; undefined without a short-time function (nothing to meet).
  *
- * @example longTimeRampBasis(unit) // "long-time, short-time and instantaneous act independently; the first to act trips"
+ * @example longTimeRampBasis(unit) // "each function acts on its own; the first to act trips (…)"
  */
 export function longTimeRampBasis(unit: TripUnit): string | undefined {
   if (!unit.shortTime) return undefined;
