@@ -40,7 +40,7 @@ describe('discern faults', () => {
     const json = JSON.parse(stdout);
     const swbd = json.buses.find((b: { busId: string }) => b.busId === 'SWBD');
     expect(swbd.volts).toBe(480);
-    assertInDelta(swbd.max.threePhase - swbd.max.motorAmps, 28421.1, 1e-5); // REFERENCE §7.4 (computed)
+    assertInDelta(swbd.max.threePhase - swbd.max.motorAmps, 28421.1, 1e-5); // IEEE 141 / IEEE 399 per-unit method, hand calculation
     expect(swbd.reflected.map((r: { volts: number }) => r.volts)).toEqual([12470]);
     const ofc = json.buses.find((b: { busId: string }) => b.busId === 'OFC');
     expect(ofc.reflected.map((r: { volts: number }) => r.volts)).toEqual([480, 12470]);

@@ -29,7 +29,7 @@ describe('discern transformer', () => {
     expect(json.faultAmps.secondary).toBe(json.faultAmps.infiniteBus);
   });
 
-  it('--json gives FLA, infinite-bus, finite-source and reflected amps for the demo unit, REFERENCE §7.4 (computed)', async () => {
+  it('--json gives FLA, infinite-bus, finite-source and reflected amps for the demo unit, IEEE 141 / IEEE 399 per-unit method, hand calculation', async () => {
     const { code, stdout, stderr } = await run([
       ...demoFlags,
       '--xr',
@@ -52,7 +52,7 @@ describe('discern transformer', () => {
     expect(json.work[0]).toMatchObject({ label: expect.any(String), formula: expect.any(String), unit: 'A' });
   });
 
-  it('--source-ka reads a fault current: 34.6965 kA at 4.16 kV is 250 MVA, REFERENCE §7.2 (computed)', async () => {
+  it('--source-ka reads a fault current: 34.6965 kA at 4.16 kV is 250 MVA, IEEE 141 / IEEE 399 per-unit method, hand calculation', async () => {
     const { stdout } = await run([
       '--kva=750',
       '--primary=4160',

@@ -14,13 +14,13 @@ describe('asymmetryOf', () => {
     [4.9, 1.2469, 2.1591],
     [6.6, 1.3311, 2.2928],
     [15, 1.5217, 2.5612],
-  ])('X/R %d gives RMS %d and peak %d, REFERENCE §1.6 (computed)', (xr, rms, peak) => {
+  ])('X/R %d gives RMS %d and peak %d, R-L circuit asymmetry formula (textbook), hand calculation', (xr, rms, peak) => {
     assertInDelta(asymmetryOf(xr).rms, rms, 1e-4);
     assertInDelta(asymmetryOf(xr).peak, peak, 1e-4);
   });
 
-  it('the demo secondary at X/R 6.300 is 1.31825 × 28 421 A = 37 466 A, REFERENCE §7.4 (computed)', () => {
-    const xr = 0.06269693 / 0.00995121; // Z_tot of REFERENCE §7.4, X/R 6.300
+  it('the demo secondary at X/R 6.300 is 1.31825 × 28 421 A = 37 466 A, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
+    const xr = 0.06269693 / 0.00995121; // Z_tot of the 1500 kVA demo unit on 250 MVA, X/R 6.300
     assertInDelta(asymmetryOf(xr).rms, 1.31825, 1e-5);
     assertInDelta(asymmetryOf(xr).rms * 28421.1, 37466, 1e-4);
   });

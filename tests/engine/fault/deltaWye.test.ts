@@ -9,11 +9,11 @@ import { assertInDelta } from '../../asserts.ts';
 
 describe('delta–wye per-unit table', () => {
   it('has the expected defaults', () => {
-    // A three-phase fault is 1.0 pu everywhere, whatever the connection (REFERENCE §1.8 first row).
+    // A three-phase fault is 1.0 pu everywhere, whatever the connection (symmetrical components, IEEE 399).
     for (const row of Object.values(DELTA_WYE_TABLE)) expect(row.threePhase.primary).toEqual([1, 1, 1]);
   });
 
-  it('Δ–Yg rows match REFERENCE §1.8: L-L 1.0/0.5/0.5 on the primary, L-G 0.577 in two lines', () => {
+  it('Δ–Yg rows match symmetrical components (IEEE 399; the IEEE C37.91 shift-factor patterns): L-L 1.0/0.5/0.5 on the primary, L-G 0.577 in two lines', () => {
     const row = DELTA_WYE_TABLE['delta-wye'];
     assertInDelta(row.lineToLine.secondary[0], 0.866, 1e-3);
     expect(row.lineToLine.primary).toEqual([1, 0.5, 0.5]);
@@ -21,13 +21,13 @@ describe('delta–wye per-unit table', () => {
     expect(row.lineToGround.primary[2]).toBe(0);
   });
 
-  it('Δ–Δ L-L: winding 1.0 pu, primary lines 0.866, REFERENCE §1.8', () => {
+  it('Δ–Δ L-L: winding 1.0 pu, primary lines 0.866, symmetrical components (IEEE 399; the IEEE C37.91 shift-factor patterns)', () => {
     const row = DELTA_WYE_TABLE['delta-delta'].lineToLine;
     expect(row.winding).toBe(1);
     assertInDelta(row.primary[0], 0.866, 1e-3);
   });
 
-  it('unbalancedLineCurrents for 112.5 kVA 480Δ–208Y/120, REFERENCE §7.3 (computed)', () => {
+  it('unbalancedLineCurrents for 112.5 kVA 480Δ–208Y/120, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const ll = unbalancedLineCurrents('delta-wye', 'lineToLine', 8921.97, 208, 480);
     assertInDelta(ll.secondaryAmps[0], 7726.65, 1e-5);
     assertInDelta(ll.primaryAmps[0], 3866.18, 1e-5);
@@ -38,7 +38,7 @@ describe('delta–wye per-unit table', () => {
     expect(lg.primaryAmps[2]).toBe(0);
   });
 
-  it('unbalancedLineCurrents: 28 421 A secondary L-G on the demo transformer is 631.62 A on the primary, REFERENCE §7.4 (computed)', () => {
+  it('unbalancedLineCurrents: 28 421 A secondary L-G on the demo transformer is 631.62 A on the primary, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     assertInDelta(
       unbalancedLineCurrents('delta-wye', 'lineToGround', 28421.1, 480, 12470).primaryAmps[0],
       631.62,

@@ -12,7 +12,7 @@ const demoText = readFileSync('demo/harrowmere-selective.json', 'utf8');
 
 describe('faultLevelsOf', () => {
   it('has the expected defaults', () => {
-    // Minimum fault: conductors at operating temperature (common practice, REFERENCE §1.4); min source defaults to max.
+    // Minimum fault: conductors at operating temperature (common practice; NEC Ch. 9 Table 8 coefficients); min source defaults to max.
     expect(MINIMUM_FAULT_TEMPERATURE).toBe(90);
     const levels = levelsOf(case72Input());
     const lv = levels.buses.get('LV')!;
@@ -20,7 +20,7 @@ describe('faultLevelsOf', () => {
     expect(levels.diagnostics).toEqual([]);
   });
 
-  it('750 kVA secondary fault is 14 916.9 A, X/R 5.174, REFERENCE §7.2 (computed)', () => {
+  it('750 kVA secondary fault is 14 916.9 A, X/R 5.174, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const lv = levelsOf(case72Input()).buses.get('LV')!;
     assertInDelta(lv.max.threePhase, 14916.9, 1e-5);
     assertInDelta(lv.max.xr, 5.174, 1e-3);
@@ -29,7 +29,7 @@ describe('faultLevelsOf', () => {
     assertInDelta(at416.maxAmps, 1721.18, 1e-5);
   });
 
-  it('the panel after 100 ft of 2 × 500 kcmil is 13 052.5 A, X/R 4.148, REFERENCE §7.2 (computed)', () => {
+  it('the panel after 100 ft of 2 × 500 kcmil is 13 052.5 A, X/R 4.148, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const pnl = levelsOf(case72Input()).buses.get('PNL')!;
     assertInDelta(pnl.max.threePhase, 13052.5, 1e-5);
     assertInDelta(pnl.max.xr, 4.148, 1e-3);
@@ -37,7 +37,7 @@ describe('faultLevelsOf', () => {
     assertInDelta(pnl.max.impedance.x, 0.0206405, 1e-5);
   });
 
-  it('utility alone at the 4.16 kV bus is 34 696.5 A, REFERENCE §7.2 (computed)', () => {
+  it('utility alone at the 4.16 kV bus is 34 696.5 A, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     assertInDelta(levelsOf(case72Input()).buses.get('MV')!.max.threePhase, 34696.5, 1e-5);
   });
 
@@ -55,7 +55,7 @@ describe('faultLevelsOf', () => {
     expect(pnl.work.some((s) => /resistance at 90 °C/.test(s.label))).toBe(true);
   });
 
-  it('motors add 4 × 451 A ≈ 1804 A first-cycle at the 750 kVA secondary, REFERENCE §7.2 (computed, ±3 % for phase angle)', () => {
+  it('motors add 4 × 451 A ≈ 1804 A first-cycle at the 750 kVA secondary, IEEE 141 / IEEE 399 per-unit method, hand calculation, ±3 % for phase angle', () => {
     const input = case72Input();
     input.motors = [{ id: 'M', bus: 'LV', fullLoadAmps: 451 }];
     const lv = levelsOf(input).buses.get('LV')!;
@@ -64,7 +64,7 @@ describe('faultLevelsOf', () => {
     assertInDelta(lv.min.threePhase, 14916.9, 1e-5);
   });
 
-  it('the demo study: 28 421 A at the 1500 kVA secondary before motors, REFERENCE §7.4; motors add less than 4 × their FLA', () => {
+  it('the demo study: 28 421 A at the 1500 kVA secondary before motors, IEEE 141 / IEEE 399 per-unit method, hand calculation; motors add less than 4 × their FLA', () => {
     const study = parseStudy(demoText);
     const demo = faultLevelsOf(networkOf(study));
     const swbd = demo.buses.get('SWBD')!;
@@ -75,7 +75,7 @@ describe('faultLevelsOf', () => {
     const terminalSum = study.motors.reduce((sum, m) => sum + 4 * motorFullLoadAmps(m, 480), 0);
     expect(swbd.max.motorAmps).toBeGreaterThan(0);
     expect(swbd.max.motorAmps).toBeLessThan(terminalSum);
-    // MV bus: utility alone 11 574.8 A (REFERENCE §7.4) plus the motors seen through T1; minimum is 150 MVA alone.
+    // MV bus: utility alone 11 574.8 A (IEEE 141 / IEEE 399 per-unit method, hand calculation) plus the motors seen through T1; minimum is 150 MVA alone.
     const mv = demo.buses.get('MV')!;
     assertInDelta(mv.min.threePhase, (12470 / Math.sqrt(3)) * (150e6 / 12470 ** 2), 1e-9);
     expect(mv.max.threePhase).toBeGreaterThan(11574.8);
@@ -99,7 +99,7 @@ describe('faultLevelsOf', () => {
     input.source = { kind: 'infinite', id: 'U', bus: 'MV' };
     const levels = levelsOf(input);
     expect(levels.buses.get('MV')!.max.threePhase).toBe(Infinity);
-    assertInDelta(levels.buses.get('LV')!.max.threePhase, 15688.9, 1e-5); // infinite bus, REFERENCE §7.2
+    assertInDelta(levels.buses.get('LV')!.max.threePhase, 15688.9, 1e-5); // infinite bus, IEEE 141 / IEEE 399 per-unit method, hand calculation
     expect(levels.diagnostics[0]).toMatch(/^U: infinite source/);
   });
 

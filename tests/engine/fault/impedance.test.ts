@@ -15,18 +15,18 @@ import { assertInDelta } from '../../asserts.ts';
 describe('impedance arithmetic', () => {
   it('has the expected defaults', () => {
     expect(ZERO_IMPEDANCE).toEqual({ r: 0, x: 0 });
-    // No X/R given: all reactance (REFERENCE §1.3 "all-reactance when X/R is omitted").
+    // No X/R given: all reactance (common practice: all reactance when X/R is omitted).
     expect(impedanceOfMagnitude(0.003)).toEqual({ r: 0, x: 0.003 });
   });
 
-  it('impedanceOfMagnitude splits 0.003 pu at X/R 15 as REFERENCE §7.2 (computed)', () => {
+  it('impedanceOfMagnitude splits 0.003 pu at X/R 15 as IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const z = impedanceOfMagnitude(0.003, 15);
     assertInDelta(z.r, 0.00019956, 1e-4);
     assertInDelta(z.x, 0.00299336, 1e-5);
     assertInDelta(magnitudeOf(z), 0.003, 1e-12);
   });
 
-  it('addImpedance adds phasors: Z_U + Z_T of REFERENCE §7.4 (computed)', () => {
+  it('addImpedance adds phasors: Z_U + Z_T of IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const z = addImpedance({ r: 0.00049827, x: 0.00597927 }, { r: 0.00945294, x: 0.05671765 });
     assertInDelta(z.r, 0.00995121, 1e-6);
     assertInDelta(z.x, 0.06269692, 1e-6);
@@ -34,7 +34,7 @@ describe('impedance arithmetic', () => {
     assertInDelta(xrOf(z), 6.3, 1e-3);
   });
 
-  it('adding magnitudes instead of phasors gives a larger |Z|, REFERENCE §7.2 (computed)', () => {
+  it('adding magnitudes instead of phasors gives a larger |Z|, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const u = impedanceOfMagnitude(0.003, 15);
     const t = impedanceOfMagnitude(0.0575, 5);
     expect(magnitudeOf(addImpedance(u, t))).toBeLessThan(0.0605);

@@ -6,12 +6,12 @@ const base = { id: 'M', hp: undefined, rating: undefined, fullLoadAmps: undefine
 
 describe('motorImpedanceOf', () => {
   it('has the expected defaults', () => {
-    expect(DEFAULT_MOTOR_XR).toBe(6); // common practice for LV groups (REFERENCE §1.5: a few to ~10)
+    expect(DEFAULT_MOTOR_XR).toBe(6); // common practice for LV groups (a few to ~10)
     const { z } = motorImpedanceOf({ ...base, fullLoadAmps: 451 }, 480);
     assertInDelta(z.x / z.r, 6, 1e-12);
   });
 
-  it('4 × 451 A of motor load contributes 1804 A at 480 V, REFERENCE §7.2 (computed)', () => {
+  it('4 × 451 A of motor load contributes 1804 A at 480 V, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const { z, amps } = motorImpedanceOf({ ...base, fullLoadAmps: 451 }, 480);
     assertInDelta(amps, 1804, 1e-12);
     assertInDelta(480 / (Math.sqrt(3) * Math.hypot(z.r, z.x)), 1804, 1e-12);

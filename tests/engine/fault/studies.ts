@@ -1,13 +1,13 @@
 import { parseStudy, type Study, type StudyInput } from '../../../src/engine/study/index.ts';
 
 /**
- * REFERENCE §7.2 as a study (inputs invented there): 250 MVA X/R 15 at 4.16 kV, a 750 kVA
+ * A per-unit worked case as a study (inputs invented): 250 MVA X/R 15 at 4.16 kV, a 750 kVA
  * 4.16 kV–480 V 5.75 %Z X/R 5 transformer, and 100 ft of 2 sets 500 kcmil Cu in steel conduit to a panel.
  */
 export function case72Input(): StudyInput {
   return {
     discern: 1,
-    name: 'REFERENCE 7.2',
+    name: '750 kVA worked case',
     source: { kind: 'utility', id: 'U', bus: 'MV', max: { available: '250 MVA', xr: 15 } },
     buses: [
       { id: 'MV', voltage: '4.16 kV' },

@@ -15,7 +15,7 @@ describe('transformerCalculation', () => {
     expect(r.xr).toBe(Infinity);
   });
 
-  it('1500 kVA 480 V 5.75 %Z infinite source: 1804.22 A, 31 377.7 A; 33 921.9 A at −7.5 %, REFERENCE §7.1 (computed)', () => {
+  it('1500 kVA 480 V 5.75 %Z infinite source: 1804.22 A, 31 377.7 A; 33 921.9 A at −7.5 %, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const r = transformerCalculation({ rating: 1.5e6, primary: 12470, secondary: 480, impedance: 5.75 });
     assertInDelta(r.fullLoadAmps.secondary, 1804.22, 1e-6);
     assertInDelta(r.faultAmps.infiniteBus, 31377.7, 1e-5);
@@ -29,7 +29,7 @@ describe('transformerCalculation', () => {
     assertInDelta(t.faultAmps.infiniteBus, 33921.9, 1e-5);
   });
 
-  it('750 kVA with a 250 MVA X/R 15 source: 14 916.9 A, 1721.18 A at 4.16 kV, X/R 5.174, REFERENCE §7.2 (computed)', () => {
+  it('750 kVA with a 250 MVA X/R 15 source: 14 916.9 A, 1721.18 A at 4.16 kV, X/R 5.174, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const r = transformerCalculation({ ...t750, source: { va: 250e6 }, sourceXr: 15 });
     assertInDelta(r.fullLoadAmps.secondary, 902.11, 1e-5);
     assertInDelta(r.fullLoadAmps.primary, 104.09, 1e-5);
@@ -40,7 +40,7 @@ describe('transformerCalculation', () => {
     assertInDelta(r.xr, 5.174, 1e-3);
   });
 
-  it('112.5 kVA 480–208 V 3.5 %Z: 8921.97 A, 3866.18 A reflected, REFERENCE §7.3 (computed)', () => {
+  it('112.5 kVA 480–208 V 3.5 %Z: 8921.97 A, 3866.18 A reflected, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const r = transformerCalculation({ rating: 112.5e3, primary: 480, secondary: 208, impedance: 3.5 });
     assertInDelta(r.fullLoadAmps.secondary, 312.269, 1e-5);
     assertInDelta(r.fullLoadAmps.primary, 135.316, 1e-5);
@@ -48,7 +48,7 @@ describe('transformerCalculation', () => {
     assertInDelta(r.faultAmps.reflectedToPrimary, 3866.18, 1e-5);
   });
 
-  it('demo 1500 kVA, 250 MVA X/R 12 given as 11 574.8 A: 28 421.1 A and 1093.99 A, REFERENCE §7.4 (computed)', () => {
+  it('demo 1500 kVA, 250 MVA X/R 12 given as 11 574.8 A: 28 421.1 A and 1093.99 A, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const base = { rating: 1.5e6, primary: 12470, secondary: 480, impedance: 5.75, xr: 6, sourceXr: 12 };
     const byMva = transformerCalculation({ ...base, source: { va: 250e6 } });
     const byAmps = transformerCalculation({ ...base, source: { amps: 11574.8 } });
@@ -59,7 +59,7 @@ describe('transformerCalculation', () => {
     expect(byAmps.work.some((s) => s.formula === 'S_sc = √3 · V_pri · I_sc')).toBe(true);
   });
 
-  it('single-phase: FLA = S / V and infinite bus = FLA / Z_pu (REFERENCE §1.1, §1.2)', () => {
+  it('single-phase: FLA = S / V and infinite bus = FLA / Z_pu (textbook identities, IEEE 141)', () => {
     const r = transformerCalculation({ rating: 50e3, primary: 7200, secondary: 240, impedance: 2, phases: 1 });
     assertInDelta(r.fullLoadAmps.secondary, 208.333, 1e-5);
     assertInDelta(r.faultAmps.infiniteBus, 10416.7, 1e-5);

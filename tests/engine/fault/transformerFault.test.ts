@@ -11,11 +11,11 @@ const demo = faultLevelsOf(networkOf(parseStudy(readFileSync('demo/harrowmere-se
 
 describe('transformerFaultOf', () => {
   it('has the expected defaults', () => {
-    // No impedanceTolerance in the study: the infinite-bus value uses nameplate %Z (REFERENCE §7.1: 31 377.7 A).
+    // No impedanceTolerance in the study: the infinite-bus value uses nameplate %Z (1804.22 A / 0.0575 = 31 377.7 A, IEEE 141 infinite-bus identity).
     assertInDelta(demo.transformers.get('T1')!.infiniteBusAmps, 31377.7, 1e-5);
   });
 
-  it('demo 1500 kVA: FLA 1804.22 / 69.449 A, through-fault 1093.99 A at 12.47 kV, REFERENCE §7.4 (computed)', () => {
+  it('demo 1500 kVA: FLA 1804.22 / 69.449 A, through-fault 1093.99 A at 12.47 kV, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const t1 = demo.transformers.get('T1')!;
     assertInDelta(t1.fullLoadAmps.secondary, 1804.22, 1e-6);
     assertInDelta(t1.fullLoadAmps.primary, 69.449, 1e-5);
@@ -56,7 +56,7 @@ describe('transformerFaultOf', () => {
     assertInDelta(t.fullLoadAmps.secondary, 50e3 / 240, 1e-12);
   });
 
-  it('112.5 kVA 480–208Y/120 3.5 %Z: FLA 312.269 / 135.316 A and infinite bus 8921.97 A, REFERENCE §7.3 (computed)', () => {
+  it('112.5 kVA 480–208Y/120 3.5 %Z: FLA 312.269 / 135.316 A and infinite bus 8921.97 A, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const t2 = demo.transformers.get('T2')!;
     assertInDelta(t2.fullLoadAmps.secondary, 312.269, 1e-5);
     assertInDelta(t2.fullLoadAmps.primary, 135.316, 1e-5);

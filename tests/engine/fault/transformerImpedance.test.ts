@@ -16,23 +16,23 @@ describe('transformer impedance and full-load current', () => {
     expect(effectivePerUnit({ impedance: 5.75 }, true)).toBe(0.0575); // tolerance off unless asked
   });
 
-  it('fullLoadAmpsOf 1500 kVA at 480 V and 12.47 kV, REFERENCE §7.1/§7.4 (computed)', () => {
+  it('fullLoadAmpsOf 1500 kVA at 480 V and 12.47 kV, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     assertInDelta(fullLoadAmpsOf(1.5e6, 480, 3), 1804.22, 1e-6);
     assertInDelta(fullLoadAmpsOf(1.5e6, 12470, 3), 69.449, 1e-5);
   });
 
-  it('fullLoadAmpsOf single-phase is S / V, REFERENCE §1.1', () => {
+  it('fullLoadAmpsOf single-phase is S / V, textbook identity (IEEE 141)', () => {
     assertInDelta(fullLoadAmpsOf(50e3, 240, 1), 208.333, 1e-5);
   });
 
-  it('the −7.5 % option gives 0.0531875 pu and 33 921.9 A for 1500 kVA 480 V, REFERENCE §7.1 (computed)', () => {
+  it('the −7.5 % option gives 0.0531875 pu and 33 921.9 A for 1500 kVA 480 V, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const pu = effectivePerUnit({ impedance: 5.75, impedanceTolerance: true }, true);
     assertInDelta(pu, 0.0531875, 1e-12);
     assertInDelta(fullLoadAmpsOf(1.5e6, 480) / pu, 33921.9, 1e-5);
     expect(effectivePerUnit({ impedance: 5.75, impedanceTolerance: true }, false)).toBe(0.0575);
   });
 
-  it('transformerImpedanceOf on the 1.5 MVA base matches Z_T of REFERENCE §7.4 (computed)', () => {
+  it('transformerImpedanceOf on the 1.5 MVA base matches Z_T of IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     const { z, steps } = transformerImpedanceOf(t1500);
     const base = 480 ** 2 / 1.5e6;
     assertInDelta(z.r / base, 0.00945294, 1e-6);
