@@ -52,3 +52,63 @@ export function cachedGroundBandOf(characteristic: Characteristic): Band | undef
   groundByObject.set(characteristic, band);
   return band ?? undefined;
 }
+
+/**
+ * Each device's band by id, built only when first asked for (`get`): a sheet draws a few devices of
+ * a large study, and only theirs are built. `size`, `has` and iteration cover every device (iterating
+ * builds them all).
+ *
+ * @example lazyBandsOf(study.devices).get('MAIN')?.minTime(20_000)
+ */
+export function lazyBandsOf(devices: readonly { id: string; characteristic: Characteristic }[]): Map<string, Band> {
+  return new LazyBands(devices);
+}
+
+class LazyBands extends Map<string, Band> {
+  #devices: Map<string, Characteristic>;
+
+  constructor(devices: readonly { id: string; characteristic: Characteristic }[]) {
+    super();
+    this.#devices = new Map(devices.map((device) => [device.id, device.characteristic]));
+  }
+
+  override get(id: string): Band | undefined {
+    let band = super.get(id);
+    if (band) return band;
+    const characteristic = this.#devices?.get(id);
+    if (!characteristic) return undefined;
+    band = cachedBandOf(characteristic);
+    super.set(id, band);
+    return band;
+  }
+
+  override has(id: string): boolean {
+    return this.#devices.has(id);
+  }
+
+  override get size(): number {
+    return this.#devices?.size ?? 0;
+  }
+
+  override entries(): MapIterator<[string, Band]> {
+    for (const id of this.#devices.keys()) this.get(id);
+    return super.entries();
+  }
+
+  override keys(): MapIterator<string> {
+    return this.#devices.keys();
+  }
+
+  override values(): MapIterator<Band> {
+    for (const id of this.#devices.keys()) this.get(id);
+    return super.values();
+  }
+
+  override forEach(callback: (band: Band, id: string, map: Map<string, Band>) => void): void {
+    for (const [id, band] of this.entries()) callback(band, id, this);
+  }
+
+  override [Symbol.iterator](): MapIterator<[string, Band]> {
+    return this.entries();
+  }
+}

@@ -1,21 +1,16 @@
 import { untrack } from 'svelte';
 import type { Band } from '../../engine/band.ts';
-import { faultLevelsOf, type FaultLevels } from '../../engine/fault/index.ts';
+import type { FaultLevels } from '../../engine/fault/index.ts';
+import { lazyBandsOf } from '../../engine/bandCache.ts';
+import { AnalysisMemo } from '../../engine/incremental.ts';
 import { locationBusOf, type Network } from '../../engine/network/index.ts';
 import type { Analysis } from '../../engine/analysis.ts';
-import type { Finding, Severity } from '../../engine/checks/finding.ts';
-import type { PairCheck } from '../../engine/checks/coordination.ts';
+import type { Finding } from '../../engine/checks/finding.ts';
 import type { Work } from '../../engine/work.ts';
 import type { AnalyseReply, AnalyseRequest } from '../worker/protocol.ts';
 import type { StudyState } from './StudyState.svelte.ts';
-import { bandsOf, findingCountsOf, idSetOf } from '../lib/lookups.ts';
-
-/** What the checks sent back for one study. */
-interface CheckResults {
-  findings: Finding[];
-  pairs: PairCheck[];
-  counts: Record<Severity, number>;
-}
+import { findingCountsOf, idSetOf } from '../lib/lookups.ts';
+import { resultsWith, type CheckResults } from '../worker/changes.ts';
 
 /** Where the checks run: a Web Worker in the browser, or in-line where there is none. */
 export interface CheckRunner {
@@ -39,6 +34,8 @@ export class AnalysisState {
   #inFlight = false;
   #waiting: AnalyseRequest | undefined;
   #results: CheckResults | undefined = $state.raw();
+  // Fault levels are kept while an edit leaves the network as it was (a setting, a name).
+  #memo = new AnalysisMemo();
 
   /** The finding the user opened (highlighted on the sheet). */
   selectedFindingId: string | undefined = $state();
@@ -51,7 +48,9 @@ export class AnalysisState {
       const network = this.#study.network;
       if (!network) return undefined;
       try {
-        return { value: { network, faults: faultLevelsOf(network), bands: bandsOf(network.study) } };
+        // Bands are built when first drawn or probed: a sheet shows a few devices of a large study.
+        const faults = this.#memo.faultsOf(network);
+        return { value: { network, faults, bands: lazyBandsOf(network.study.devices) } };
       } catch (error) {
         return { error: (error as Error).message };
       }
@@ -151,6 +150,17 @@ export class AnalysisState {
       return;
     }
     this.error = undefined;
-    this.#results = { findings: reply.findings, pairs: reply.pairs, counts: reply.counts };
+    this.#results =
+      'changes' in reply
+        ? resultsWith(this.#results, reply.changes)
+        : resultsWith(undefined, {
+            findings: reply.findings.map((finding, i) => ({ key: `${i}`, finding })),
+            removed: [],
+            order: reply.findings.map((_, i) => `${i}`),
+            pairs: reply.pairs,
+            removedPairs: [],
+            pairOrder: reply.pairs.map((pair) => `${pair.upstream}/${pair.downstream}`),
+            counts: reply.counts,
+          });
   }
 }

@@ -1,6 +1,8 @@
-// Runs every check of a study off the main thread and posts the findings back as plain data.
+// Runs every check of a study off the main thread and posts back, as plain data, what changed.
 import { SCHEMA_SETTINGS } from '../lib/jitlessSchemas.ts';
 import { analyseStudy } from '../../engine/analysis.ts';
+import { AnalysisMemo } from '../../engine/incremental.ts';
+import { ChangeTracker } from './changes.ts';
 import type { AnalyseReply, AnalyseRequest } from './protocol.ts';
 
 const scope = self as unknown as {
@@ -10,11 +12,14 @@ const scope = self as unknown as {
 
 if (!SCHEMA_SETTINGS.jitless) throw new Error('zod settings: expected jitless parsing, got compiled parsers');
 
+const memo = new AnalysisMemo();
+const tracker = new ChangeTracker();
+
 scope.onmessage = ({ data }) => {
   const { seq, study } = data;
   try {
-    const { findings, pairs, counts } = analyseStudy(study);
-    scope.postMessage({ seq, ok: true, findings, pairs, counts });
+    // Only what the edit changed is worked out again, and only what changed is sent.
+    scope.postMessage({ seq, ok: true, changes: tracker.changesOf(analyseStudy(study, memo)) });
   } catch (error) {
     scope.postMessage({ seq, ok: false, message: (error as Error).message });
   }

@@ -1,6 +1,7 @@
 import type { Finding, Severity } from '../../engine/checks/finding.ts';
 import type { PairCheck } from '../../engine/checks/coordination.ts';
 import type { Study } from '../../engine/study/index.ts';
+import type { AnalysisChanges } from './changes.ts';
 
 /** Main thread → worker: analyse this parsed study (plain data; `seq` orders the replies). */
 export interface AnalyseRequest {
@@ -9,9 +10,11 @@ export interface AnalyseRequest {
 }
 
 /**
- * Worker → main thread: the checks' results as plain data. Bands hold closures and cannot cross
- * threads, so the main thread rebuilds the bands of the view it draws.
+ * Worker → main thread: the checks' results as plain data, either whole or as the changes since the
+ * previous reply (what the worker sends: an edit changes a handful of a large study's findings).
+ * Bands hold closures and cannot cross threads, so the main thread builds the bands of the view it draws.
  */
 export type AnalyseReply =
   | { seq: number; ok: true; findings: Finding[]; pairs: PairCheck[]; counts: Record<Severity, number> }
+  | { seq: number; ok: true; changes: AnalysisChanges }
   | { seq: number; ok: false; message: string };

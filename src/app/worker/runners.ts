@@ -1,4 +1,6 @@
 import { analyseStudy } from '../../engine/analysis.ts';
+import { AnalysisMemo } from '../../engine/incremental.ts';
+import { ChangeTracker } from './changes.ts';
 import type { CheckRunner } from '../state/AnalysisState.svelte.ts';
 import type { AnalyseReply, AnalyseRequest } from './protocol.ts';
 
@@ -23,12 +25,14 @@ export function workerRunner(): CheckRunner {
  * @example new AnalysisState(study, inlineRunner())
  */
 export function inlineRunner(): CheckRunner {
+  const memo = new AnalysisMemo();
+  const tracker = new ChangeTracker();
   const runner: CheckRunner = {
     post: (request: AnalyseRequest) =>
       setTimeout(() => {
         try {
-          const { findings, pairs, counts } = analyseStudy(request.study);
-          runner.onreply?.({ seq: request.seq, ok: true, findings, pairs, counts });
+          const changes = tracker.changesOf(analyseStudy(request.study, memo));
+          runner.onreply?.({ seq: request.seq, ok: true, changes });
         } catch (error) {
           runner.onreply?.({ seq: request.seq, ok: false, message: (error as Error).message });
         }

@@ -4,6 +4,7 @@ import { inlineRunner } from '../../../src/app/worker/runners.ts';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
 import type { AnalyseReply } from '../../../src/app/worker/protocol.ts';
+import { resultsWith } from '../../../src/app/worker/changes.ts';
 
 const study = parseStudy(readFileSync(new URL('../../../demo/harrowmere-overlap.json', import.meta.url), 'utf8'));
 
@@ -22,9 +23,14 @@ describe('runners', () => {
     const got = await reply;
     const expected = analyseStudy(study);
     expect(got.seq).toBe(7);
-    expect(got.ok && got.counts).toEqual(expected.counts);
+    if (!got.ok || !('changes' in got)) throw new Error('expected the changes since the previous reply');
+    expect(got.changes.counts).toEqual(expected.counts);
     // What crosses a thread must survive structured cloning: no closures in findings or pairs.
-    expect(got.ok && structuredClone(got.findings)).toEqual(expected.findings);
+    const results = resultsWith(undefined, structuredClone(got.changes));
+    expect(JSON.parse(JSON.stringify(results.findings))).toEqual(JSON.parse(JSON.stringify(expected.findings)));
+    expect(results.pairs.map((p) => `${p.upstream}/${p.downstream}`)).toEqual(
+      expected.pairs.map((p) => `${p.upstream}/${p.downstream}`),
+    );
   });
 
   it('inlineRunner() reports a failed run with its message', async () => {
