@@ -101,7 +101,7 @@ export function checkPair(
   const cases: PairCase[] = [];
   if (busFault.phases === 1) {
     const singles = between.filter((t) => t.phases === 1);
-    const fullShift = singles.reduce((k, t) => k * (isLineToNeutral(context, t) ? Math.sqrt(3) : 1), 1);
+    const fullShift = singlePhaseShift(context, between);
     cases.push(caseOf('single-phase', fullShift, through.threePhase));
     const centreTapped = singles.some((t) => secondaryWindingOf(t) === 'centre-tapped');
     if (through.lineToGround > 0 && busFault.system.includes('centre-tapped'))
@@ -268,6 +268,50 @@ function suggestGround(interval: OverlapInterval, up: string, down: string): str
 
 function marginText(seconds: number): string {
   return seconds === Infinity ? 'unlimited time' : `${significant(seconds, 3)} s`;
+}
+
+/**
+ * How much harder (per unit, on the sheet) the upstream device is hit than a device on a single-phase
+ * bus below, for a full-winding fault: the single-phase unit's primary current as a three-phase
+ * line-current pattern (across two lines: `I1 = −I2 = j/√3`; line to neutral, √3 times the bus-ratio
+ * current in one line: `I0 = I1 = I2 = 1/√3`), carried up through each three-phase transformer above
+ * it (Δ–Y and Y–Δ shift I1 by +30° and I2 by −30° and trap I0; Δ–Δ traps I0; Yg–Yg passes all), then
+ * the largest line current there (symmetrical components, IEEE 399).
+ */
+function singlePhaseShift(context: CheckContext, between: Transformer[]): number {
+  const top = between.findIndex((t) => t.phases === 1);
+  if (top < 0) return 1;
+  const unit = between[top];
+  const k = 1 / Math.sqrt(3);
+  let [i0, i1, i2]: [number, number][] = isLineToNeutral(context, unit)
+    ? [
+        [k, 0],
+        [k, 0],
+        [k, 0],
+      ]
+    : [
+        [0, 0],
+        [0, k],
+        [0, -k],
+      ];
+  const rotate = ([r, x]: [number, number], degrees: number): [number, number] => {
+    const a = (degrees * Math.PI) / 180;
+    return [r * Math.cos(a) - x * Math.sin(a), r * Math.sin(a) + x * Math.cos(a)];
+  };
+  for (const t of between.slice(0, top).reverse()) {
+    if (t.connection !== 'wye-wye') i0 = [0, 0];
+    if (isPhaseShifting(t.connection)) {
+      i1 = rotate(i1, 30);
+      i2 = rotate(i2, -30);
+    }
+  }
+  const line = (shift: number) => {
+    const a = rotate(i1, shift);
+    const b = rotate(i2, -shift);
+    return Math.hypot(i0[0] + a[0] + b[0], i0[1] + a[1] + b[1]);
+  };
+  const shift = Math.max(line(0), line(-120), line(120));
+  return Math.abs(shift - 1) < 1e-12 ? 1 : shift; // a plain ratio stays exactly 1 despite rounding
 }
 
 /** Whether a single-phase transformer's primary winding is connected line to neutral on a three-phase bus. */

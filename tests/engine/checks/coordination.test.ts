@@ -188,6 +188,29 @@ describe('checkPair below a single-phase transformer', () => {
 
   it('a unit connected line to neutral puts √3 times the bus-ratio current in its primary line', () => {
     const [pair] = analyseStudy(parseStudy(singlePhaseStudy('7.2 kV'))).pairs;
-    expect(pair.cases.map((c) => c.upstreamShift)).toEqual([Math.sqrt(3), Math.sqrt(3) / 2]);
+    assertInDelta(pair.cases[0].upstreamShift, Math.sqrt(3), 1e-12);
+    assertInDelta(pair.cases[1].upstreamShift, Math.sqrt(3) / 2, 1e-12);
+  });
+
+  it('through a Δ–Y unit above, a line-to-line single-phase load loads one line fully: 2/√3; line to neutral: 1 (symmetrical components, IEEE 399)', () => {
+    const chain = (primary: string): StudyInput => ({
+      ...singlePhaseStudy(primary),
+      buses: [
+        { id: 'MV', voltage: '12.47 kV' },
+        { id: 'LV', voltage: 480 },
+        { id: 'S', voltage: 240 },
+      ],
+      transformers: [
+        { id: 'T3', from: 'MV', to: 'LV', rating: '1500 kVA', primary: '12.47 kV', secondary: 480, impedance: 5.75 },
+        { id: 'T', from: 'LV', to: 'S', rating: '50 kVA', primary, secondary: 240, impedance: 2.1, xr: 2, phases: 1 },
+      ],
+      devices: singlePhaseStudy(primary).devices!.map((d) => (d.id === 'R' ? { ...d, feeds: 'T3' } : d)),
+    });
+    const across = analyseStudy(parseStudy(chain('480 V'))).pairs[0];
+    assertInDelta(across.cases[0].upstreamShift, 2 / Math.sqrt(3), 1e-12);
+    assertInDelta(across.cases[1].upstreamShift, 1 / Math.sqrt(3), 1e-12);
+    const toNeutral = analyseStudy(parseStudy(chain('277 V'))).pairs[0];
+    assertInDelta(toNeutral.cases[0].upstreamShift, 1, 1e-12);
+    assertInDelta(toNeutral.cases[1].upstreamShift, 0.5, 1e-12);
   });
 });
