@@ -107,23 +107,25 @@ export function recommendationOf(
     if (present && switchesOf(original).every((s) => switches[s.key] === s.current))
       starts.push(Object.fromEntries(specs.map((spec) => [spec.key, spec.current])));
     let failed: Attempt | undefined;
+    let found = false;
     for (const start of starts) {
       for (const strict of [true, false]) {
         const attempt = fastestPoint(trial, base, specs, lowers, uppers, strict, start, options.memo);
         if (!attempt.ok) {
-          if (start === slowest && !strict) failed = { switches, ...attempt };
-          if (attempt.blockedAtSlowest.length > 0) {
-            failed = { switches, ...attempt };
-            break;
-          }
+          if (start === slowest) failed = { switches, ...attempt };
+          // Blocked at the slowest setting: nothing lower can work. A strict attempt that asked for no
+          // full margin anywhere was already the plain one.
+          if (attempt.blockedAtSlowest.length > 0 || !attempt.askedClean) break;
           continue;
         }
         const clearing = clearingOf(trial, attempt.point!, range);
         if (!best || clearing < best.clearing - 1e-9)
           best = { device: attempt.point!, clearing, bindings: attempt.bindings };
+        found = true;
         break;
       }
-      if (failed?.blockedAtSlowest.length) break;
+      // The present setting is a second start only when the descent from the slowest found nothing.
+      if (found || failed?.blockedAtSlowest.length) break;
     }
     if (failed && (!best || failed.blockedAtSlowest.length > 0)) attempts.push(failed);
   }
@@ -195,15 +197,19 @@ function fastestPoint(
   blockedAtSlowest: Binding[];
   failedAtFastest: Binding[];
   holding: Binding[];
+  askedClean: boolean;
 } {
   const point: Record<string, number> = { ...start };
   const bindings = new Map<string, Binding>();
   const slowest = deviceWith(base, point);
   const atSlowest = lowers.map((c) => evaluateAt(trial, c, slowest, memo));
   const blockedAtSlowest = lowers.filter((_, i) => !atSlowest[i].ok).map(bindingOf);
-  if (blockedAtSlowest.length > 0) return { ok: false, bindings, blockedAtSlowest, failedAtFastest: [], holding: [] };
+  if (blockedAtSlowest.length > 0)
+    return { ok: false, bindings, blockedAtSlowest, failedAtFastest: [], holding: [], askedClean: false };
   // Require a full margin only where the slowest setting has one; the order adapts to fail fast.
-  const needsClean = new Map(lowers.map((c, i) => [c, strict && atSlowest[i].clean]));
+  // Only a coordination constraint can hold without a full margin (a thin one).
+  const needsClean = new Map(lowers.map((c, i) => [c, strict && atSlowest[i].clean && c.kind === 'coordinate-below']));
+  const askedClean = [...needsClean.values()].some(Boolean);
   const order = [...lowers];
   const failing = (device: Device): Constraint | undefined => {
     for (let i = 0; i < order.length; i++) {
@@ -235,7 +241,15 @@ function fastestPoint(
   const holding = [
     ...new Map([...bindings.values()].filter((b) => b.kind !== 'setting-range').map((b) => [b.id, b])).values(),
   ];
-  return { ok: failedAtFastest.length === 0, point: device, bindings, blockedAtSlowest: [], failedAtFastest, holding };
+  return {
+    ok: failedAtFastest.length === 0,
+    point: device,
+    bindings,
+    blockedAtSlowest: [],
+    failedAtFastest,
+    holding,
+    askedClean,
+  };
 }
 
 /** Rounds a continuous setting up to three significant figures (what a relay's keypad takes). */
