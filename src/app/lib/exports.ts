@@ -1,7 +1,8 @@
 import { downloadBlob } from './download.ts';
 
 /** What the Export menu offers. */
-export type ExportKind = 'svg' | 'png' | 'pdf' | 'findings-md' | 'findings-csv' | 'probes-csv' | 'study-json';
+export type ExportKind =
+  'svg' | 'png' | 'pdf' | 'findings-md' | 'findings-csv' | 'probes-csv' | 'study-json' | 'report-html';
 
 /**
  * Downloads a sheet's standalone SVG (the plot layer's `svgOf`, so it matches the CLI's figure).

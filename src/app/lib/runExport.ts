@@ -8,7 +8,8 @@ import { probesCsv } from './probeCsv.ts';
  * Carries out one choice of the Export menu: the current sheet as SVG, PNG or PDF (all from the plot
  * layer's SVG, so they match the command line's figure), the findings as Markdown or CSV (the
  * engine's reports, as the command line writes them), the pinned probes as CSV, or the study as JSON
- * (as written). Throws with a plain message when there is nothing to export yet.
+ * (as written), or the whole study report as one print-ready HTML page (the same report the command line
+ * writes). Throws with a plain message when there is nothing to export yet.
  *
  * @example await runExport('svg', context)
  */
@@ -32,6 +33,16 @@ export async function runExport(kind: ExportKind, context: StudyContext): Promis
       return downloadText(`${stem}-${view}-probes.csv`, probesCsv(sheet.pinned), 'text/csv');
     case 'study-json':
       return downloadText(`${stem}.json`, `${JSON.stringify(study.document, null, 2)}\n`, 'application/json');
+    case 'report-html': {
+      // The report's modules load only when a report is asked for, so the workbench starts light.
+      const { studyReportOf, htmlOfReport } = await import('../../report/index.ts');
+      const report = studyReportOf(checked(context));
+      return downloadText(
+        `${stem}-report.html`,
+        htmlOfReport(report, { paper: 'letter', orientation: 'portrait' }),
+        'text/html',
+      );
+    }
   }
 }
 
