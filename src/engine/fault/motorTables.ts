@@ -18,7 +18,10 @@ export interface MotorCurrentTable {
 
 const _ = NaN;
 
-/** NFPA 70 Table 430.250, three-phase induction motors (A). */
+/**
+ * NFPA 70 Table 430.250, three-phase induction motors (A). Some later printings list ½ hp at 230 V
+ * and 575 V as 2.1 A and 0.8 A and ¾ hp at 230 V as 3.1 A; check the edition adopted.
+ */
 export const TABLE_430_250: MotorCurrentTable = {
   table: '430.250',
   volts: [115, 200, 208, 230, 460, 575, 2300],

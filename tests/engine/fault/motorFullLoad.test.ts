@@ -29,7 +29,8 @@ describe('motorFullLoadOf', () => {
       [500, 480, 590],
       [500, 575, 472],
       [200, 208, 528],
-      [0.5, 480, 1.1], // ½ hp: another reproduction (a later edition?) prints 1.1 A too
+      [0.5, 480, 1.1], // ½ hp: another reproduction (a later printing) agrees at 460 V
+      [0.5, 240, 2.2], // that reproduction prints 2.1 A at 230 V: 2008 value kept, edition to check (from memory)
       [60, 2400, 16], // 2300 V column: row alignment from memory (values confirmed in order)
       [500, 2300, 118],
     ];
