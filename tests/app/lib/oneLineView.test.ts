@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import { placeAt, selectionOfPlace, viewBoxAround, zoomedBox } from '../../../src/app/lib/oneLineView.ts';
+import type { OneLinePlace } from '../../../src/plot/oneLine/index.ts';
+
+const places: OneLinePlace[] = [
+  {
+    id: 'SWBD',
+    type: 'bus',
+    symbol: { x: 10, y: 200, width: 400, height: 6 },
+    label: { x: 20, y: 180, width: 120, height: 14 },
+  },
+  {
+    id: 'MAIN',
+    type: 'device',
+    symbol: { x: 40, y: 150, width: 22, height: 22 },
+    label: { x: 75, y: 150, width: 90, height: 28 },
+  },
+];
+
+describe('oneLineView', () => {
+  it('has the expected defaults: a place selects its own kind and id', () => {
+    expect(selectionOfPlace(places[1])).toEqual({ kind: 'device', id: 'MAIN' });
+    expect(selectionOfPlace(places[0])).toEqual({ kind: 'bus', id: 'SWBD' });
+  });
+
+  it('placeAt finds a symbol before a bus bar, and a label by its box', () => {
+    expect(placeAt(places, { x: 50, y: 160 })?.id).toBe('MAIN');
+    expect(placeAt(places, { x: 100, y: 160 })?.id).toBe('MAIN');
+    expect(placeAt(places, { x: 300, y: 203 })?.id).toBe('SWBD');
+    expect(placeAt(places, { x: 600, y: 600 })).toBeUndefined();
+  });
+
+  it('zoomedBox keeps the point under the pointer fixed and stops at 20 ×', () => {
+    expect(zoomedBox({ x: 0, y: 0, width: 100, height: 50 }, { x: 50, y: 25 }, 0.5)).toEqual({
+      x: 25,
+      y: 12.5,
+      width: 50,
+      height: 25,
+    });
+    expect(zoomedBox({ x: 0, y: 0, width: 100, height: 50 }, { x: 0, y: 0 }, 1e-9).width).toBe(5);
+  });
+
+  it('viewBoxAround centres a target and keeps the size', () => {
+    expect(viewBoxAround({ x: 500, y: 300, width: 10, height: 10 }, { x: 0, y: 0, width: 200, height: 100 })).toEqual({
+      x: 405,
+      y: 255,
+      width: 200,
+      height: 100,
+    });
+  });
+});
