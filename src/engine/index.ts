@@ -11,3 +11,5 @@ export { CAUTION, CAUTIONS } from './caution.ts';
 export { InputError, expectedGot } from './errors.ts';
 export { formatWork } from './work.ts';
 export type { Work, WorkStep } from './work.ts';
+export { settingWindowOf, proposeSettings, withSettingChanges, TIE_BREAK, PROPOSAL_ORDER } from './window/index.ts';
+export type { SettingWindow, Proposal, Recommendation, Constraint, Binding, FeasibleMap } from './window/index.ts';
