@@ -19,18 +19,30 @@ export function nameOf(device: Device): string {
 
 /**
  * A current interval on the reference base, with the same interval at each other voltage given
- * (a current I at V_ref is I·V_ref/V at voltage V).
+ * (a current I at V_ref is I·V_ref/V at voltage V, times the `shifts` factor for that voltage where an
+ * unbalanced fault loads a line there more than the voltage ratio says, e.g. 2/√3 across a Δ–Y unit).
+ *
+ * @example rangeOf(9800, 14900, 480, [12470]).atVoltages[1].toAmps // 573.5 A at 12.47 kV
  */
-export function rangeOf(fromAmps: number, toAmps: number, referenceVolts: number, voltages: number[]): CurrentRange {
+export function rangeOf(
+  fromAmps: number,
+  toAmps: number,
+  referenceVolts: number,
+  voltages: number[],
+  shifts: ReadonlyMap<number, number> = new Map(),
+): CurrentRange {
   const distinct = [...new Set([referenceVolts, ...voltages])];
   return {
     fromAmps,
     toAmps,
-    atVoltages: distinct.map((volts) => ({
-      volts,
-      fromAmps: (fromAmps * referenceVolts) / volts,
-      toAmps: (toAmps * referenceVolts) / volts,
-    })),
+    atVoltages: distinct.map((volts) => {
+      const k = volts === referenceVolts ? 1 : (shifts.get(volts) ?? 1);
+      return {
+        volts,
+        fromAmps: (fromAmps * referenceVolts * k) / volts,
+        toAmps: (toAmps * referenceVolts * k) / volts,
+      };
+    }),
   };
 }
 

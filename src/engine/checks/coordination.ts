@@ -146,7 +146,13 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
     }[pairCase.fault];
     pairCase.intervals.forEach((interval, index) => {
       if (interval.status === 'selective' || isSliver(interval)) return;
-      const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages);
+      const range = rangeOf(
+        interval.fromAmps,
+        interval.toAmps,
+        pairCase.referenceVolts,
+        voltages,
+        new Map([[voltages[0], pairCase.upstreamShift]]),
+      );
       const { worst } = interval;
       // The sentences are written when first read (a large study's findings are seldom all read).
       const finding: Finding = {
