@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { faultLevelsOf, throughFaultOf } from '../../../src/engine/fault/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
@@ -118,5 +119,35 @@ describe('throughFaultOf', () => {
     const lineToLine = relay.cases.find((c) => c.fault === 'line-to-line')!;
     expect(lineToLine.upstreamShift).toBe(2 / Math.sqrt(3));
     assertInDelta(lineToLine.intervals.at(-1)!.toAmps, (Math.sqrt(3) / 2) * (ib / abs(add(zs, zt))), 1e-9);
+  });
+
+  it('never exceeds the bus total, and falls going up past motor buses (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 10, max: 2000, noNaN: true }),
+        fc.double({ min: 10, max: 2000, noNaN: true }),
+        fc.double({ min: 5, max: 1000, noNaN: true }),
+        (fla1, fla2, feet) => {
+          const input = motorStudy();
+          input.motors = [
+            { id: 'M1', bus: 'SWBD', fullLoadAmps: fla1 },
+            { id: 'M2', bus: 'MCC', fullLoadAmps: fla2 },
+          ];
+          input.cables![0].length = `${feet} ft`;
+          const net = networkOf(parseStudy(input));
+          const levels = faultLevelsOf(net);
+          const at = (id: string, bus: string) => throughFaultOf(net, levels, net.devices.get(id)!, bus);
+          const total = levels.buses.get('MCC')!.max;
+          const feeder = at('F', 'MCC');
+          const main = at('MAIN', 'MCC');
+          return (
+            feeder.threePhase <= total.threePhase * (1 + 1e-12) &&
+            main.threePhase <= feeder.threePhase * (1 + 1e-12) &&
+            feeder.lineToGround <= total.lineToGround * (1 + 1e-12)
+          );
+        },
+      ),
+      { numRuns: 100 },
+    );
   });
 });
