@@ -39,7 +39,7 @@ describe('the sheet and its links in Chromium', () => {
     await page.locator(`[data-finding-id="${target.id}"] button.head`).click();
     await expect(
       page
-        .locator(`[data-testid="sheet-svg"] rect.selected[data-role="region-overlap"][data-id="${target.id}"]`)
+        .locator(`[data-testid="sheet-svg"] .selected[data-role="region-overlap"][data-id="${target.id}"]`)
         .count(),
     ).resolves.toBe(1);
     for (const id of target.subjects) {
@@ -65,7 +65,7 @@ describe('the sheet and its links in Chromium', () => {
     const { page, context } = await bench.open();
     await page.locator('[data-testid="sheet-svg"] text[data-role="label"][data-id="MAIN"]').click();
     await expect(page.getByTestId('properties').textContent()).resolves.toMatch(/device MAIN/);
-    await expect(page.getByTestId('pinned-list').count()).resolves.toBe(0);
+    await expect(page.locator('[data-testid="pinned-list"] .pin').count()).resolves.toBe(0);
     await context.close();
   });
 
@@ -84,7 +84,7 @@ describe('the sheet and its links in Chromium', () => {
     await page.mouse.up();
     expect(Number(await pickup.inputValue())).toBeGreaterThan(Number(pickupBefore));
     expect(Number(await delay.inputValue())).toBeGreaterThan(Number(delayBefore));
-    await expect(page.getByTestId('pinned-list').count()).resolves.toBe(0);
+    await expect(page.locator('[data-testid="pinned-list"] .pin').count()).resolves.toBe(0);
     await page.getByTestId('undo').click();
     await expect(pickup.inputValue()).resolves.toBe(pickupBefore);
     await expect(delay.inputValue()).resolves.toBe(delayBefore);

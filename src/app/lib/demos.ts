@@ -8,10 +8,22 @@ export interface DemoStudy {
   document: StudyInput;
 }
 
-/** The study the workbench opens on: the fully selective Harrowmere scheme. */
+/**
+ * What each demo is called in the Study menu: what it shows, as the README's table says it, so the
+ * name is true of what opens (the selective scheme is selective between every series pair; its
+ * transformer-protection and sensitivity notes are part of the lesson).
+ */
+export const DEMO_NAMES: Record<string, string> = {
+  'harrowmere-selective.json': 'Selective settings: every series pair selective (protection notes to read)',
+  'harrowmere-overlap.json': 'Overlapping settings, each finding explained',
+  'harrowmere-fused.json': 'Fused primary: a transformer protection problem',
+  'harrowmere-full.json': 'The whole site: 25 devices, every path',
+};
+
+/** The study the workbench opens on: the Harrowmere scheme with selective settings. */
 export const DEFAULT_DEMO: DemoStudy = {
   fileName: 'harrowmere-selective.json',
-  name: selective.name,
+  name: DEMO_NAMES['harrowmere-selective.json'],
   document: selective as StudyInput,
 };
 
@@ -25,7 +37,10 @@ const modules = import.meta.glob<StudyInput>('../../../demo/*.json', { eager: tr
 export const DEMO_STUDIES: DemoStudy[] = [
   DEFAULT_DEMO,
   ...Object.entries(modules)
-    .map(([path, document]) => ({ fileName: path.split('/').pop()!, name: document.name, document }))
+    .map(([path, document]) => {
+      const fileName = path.split('/').pop()!;
+      return { fileName, name: DEMO_NAMES[fileName] ?? document.name, document };
+    })
     .filter((demo) => demo.fileName !== DEFAULT_DEMO.fileName)
     .sort((a, b) => a.fileName.localeCompare(b.fileName)),
 ];

@@ -26,17 +26,25 @@ export function newStudyDocument(): StudyInput {
 
 /**
  * A new view for one device: that device and every device above it on its way to the source,
- * drawn on the voltage of the device's own bus (written as the bus's voltage is written).
+ * drawn on the voltage of the device's own bus (written as the bus's voltage is written), with the
+ * withstand curves of the transformers and cables on that path and the starting curve of a motor
+ * the device feeds.
  * `undefined` when the device is not in the network.
  *
- * @example newViewOf(document, network, 'FDR-MCC') // { id: 'V2', referenceVoltage: 480, devices: ['MAIN', 'FDR-MCC'], … }
+ * @example newViewOf(document, network, 'FDR-MCC') // { id: 'V2', referenceVoltage: 480, devices: ['MAIN', 'FDR-MCC'], withstand: ['T1', 'C-MCC'], … }
  */
 export function newViewOf(document: StudyInput, network: Network, deviceId: string): ViewInput | undefined {
   const device = network.devices.get(deviceId);
   if (!device) return undefined;
-  const devices = pathTo(network, device.feeds)
+  const path = pathTo(network, device.feeds);
+  const devices = path
     .map((id) => network.deviceFeeding.get(id)?.id)
     .filter((id): id is string => id !== undefined);
+  // The path's transformers (withstand and inrush) and cables (damage), and a motor the device feeds
+  // (starting), drawn by default: what the devices of the sheet are there to protect or ride through.
+  const kindOf = (id: string) => network.elements.get(id)?.type;
+  const withstand = path.filter((id) => kindOf(id) === 'transformer' || kindOf(id) === 'cable');
+  const motors = path.filter((id) => kindOf(id) === 'motor');
   const bus = locationBusOf(network, device);
   const written = document.buses.find((b) => b.id === bus.id)?.voltage ?? bus.voltage;
   const taken = new Set((document.views ?? []).map((v) => v.id));
@@ -47,8 +55,8 @@ export function newViewOf(document: StudyInput, network: Network, deviceId: stri
     title: `${device.name ?? device.id} and the devices above it`,
     referenceVoltage: written,
     devices,
-    withstand: [],
-    motors: [],
+    withstand,
+    motors,
   };
 }
 

@@ -11,8 +11,14 @@ export interface GuideStep {
  *
  * @example sheetGuideOf({ bands: ['MAIN', 'FDR-MCC'], referenceVoltage: '480 V' })[0].title // 'The two axes'
  */
-export function sheetGuideOf(current: { bands: string[]; referenceVoltage: string }): GuideStep[] {
+export function sheetGuideOf(current: {
+  bands: string[];
+  referenceVoltage: string;
+  /** How each band is drawn on the current sheet, e.g. "MAIN: long dash", so the guide points at the drawing. */
+  codes?: string[];
+}): GuideStep[] {
   const bands = current.bands.length > 0 ? current.bands.join(', ') : 'the devices of the view';
+  const codes = current.codes && current.codes.length > 0 ? ` On this sheet: ${current.codes.join('; ')}.` : '';
   return [
     {
       title: 'The two axes',
@@ -26,7 +32,8 @@ export function sheetGuideOf(current: { bands: string[]; referenceVoltage: strin
       title: 'A band is what one device does',
       text: [
         `Each shaded band (${bands}) belongs to one protective device. Its left/lower edge is the earliest time the device may operate at that current (minimum melting for a fuse, the fast tolerance edge for a breaker or relay). Its right/upper edge is the latest time by which it will have cleared (total clearing, or the slow edge plus the breaker's interrupting time).`,
-        'Left of a band the device never operates: the current is below its pickup. Each band carries its name next to it, and a different outline pattern, so colour is never the only way to tell them apart.',
+        `Left of a band the device never operates: the current is below its pickup. Each band has its own colour and its own edge pattern (solid, long dash, short dash, dash-dot…) and its name is written beside it where it runs, so colour is never the only way to tell them apart.${codes}`,
+        'A name with a voltage in brackets, "(12.47 kV)", is a device on another voltage, drawn at its current × its voltage ÷ the reference voltage. Anything the plot has no room to name is listed in the key under the current axis.',
       ],
     },
     {
@@ -40,30 +47,32 @@ export function sheetGuideOf(current: { bands: string[]; referenceVoltage: strin
     {
       title: 'Fault lines: how much current can flow',
       text: [
-        'The vertical lines mark the largest fault current at a bus (and, where shown, the smallest). Nothing to the right of the maximum can flow there, so a band beyond it never matters for that bus.',
+        'The vertical grey lines mark the largest fault current at a bus (and, dash-dotted, the smallest). Each is named in the grey band above the plot, at the bus voltage and, when different, on the sheet’s voltage. A fault beyond the current axis is named at that end of the band with an arrow. Nothing to the right of the maximum can flow there, so a band beyond it never matters for that bus.',
+        'The probe says so when you point beyond the largest fault on the sheet: no such current flows there, so nothing is compared.',
         'Select a bus or a transformer in the System region to see the fault current worked out in the Work region, every formula and number shown.',
       ],
     },
     {
       title: 'Dashed curves: what equipment can withstand',
       text: [
-        'A dashed curve is a withstand ("damage") curve of a transformer or cable. The device protecting it should clear to the left of and below it at every current up to the fault level.',
-        'Markers show inrush (a transformer energising) and motor starting, which the devices must ride through: their bands should lie to the right of and above those points.',
+        'An evenly dashed curve is a withstand ("damage") curve of a transformer or cable, named beside it. The device protecting it should clear to the left of and below it at every current up to the fault level.',
+        'A dotted line is a motor’s starting curve; a circle marks transformer inrush and a diamond a motor’s locked rotor. The devices must ride through them: their bands should lie to the right of and above those marks.',
       ],
     },
     {
       title: 'Two bands in series: selective or not',
       text: [
         'For an upstream device and the one below it, selectivity means the downstream device has cleared before the upstream one can start to operate, with a margin (the coordination time interval).',
-        'Where the bands cross or come too close the sheet hatches the current range: dense cross-hatching is an overlap (both may operate), single hatching a thin margin.',
-        'Below about 0.01 s (one half-cycle) curves prove nothing: where two instantaneous or current-limiting devices both reach that region the range is hatched as not provable from curves — tested selectivity data or an I²t comparison decides there.',
+        'Where they conflict the sheet hatches only the area between the two edges in question — the upstream device’s earliest operation and the downstream device’s latest clearing — and writes the status and current range beside it: dense vermillion hatching rising to the right is an overlap (both may operate), heavier yellow hatching the other way a thin margin.',
+        'Below about 0.01 s (one half-cycle) curves prove nothing: where two instantaneous or current-limiting devices both reach that region it is cross-hatched in grey as not provable from curves — tested selectivity data or an I²t comparison decides there.',
+        'When a finding rests on a secondary line-to-line fault across a delta–wye transformer, the primary device’s band is drawn a second time, shifted by 2/√3, with “for a secondary L-L fault” in its name. Ground-fault findings are hatched on a ground-fault sheet, where the ground-fault elements are drawn.',
       ],
     },
     {
       title: 'The probe',
       text: [
         'Move the pointer across the sheet: the vertical line reads every device at that current — earliest operation, latest clearing — and says which clears first and by how much before the next may operate.',
-        'Click to pin a probe; pinned probes stay in the list below the sheet and can be exported as CSV. With the keyboard, focus the sheet and use the left and right arrow keys, Enter to pin.',
+        'Click to pin a probe; pinned probes stay in the row below the sheet and can be exported as CSV. With the keyboard, use “Skip to the sheet” (the first Tab stop) and the left and right arrow keys, Enter to pin.',
       ],
     },
     {

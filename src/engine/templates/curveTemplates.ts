@@ -23,6 +23,10 @@ export const curveTemplateFileSchema = z
             id: idField,
             label: z.string().min(1),
             note: z.string().optional(),
+            rating: z.string().optional().meta({
+              description:
+                'the device ampere rating a device made from the template gets, as a study writes it ("65 A")',
+            }),
             characteristic: characteristicSchema,
           })
           .strict(),

@@ -21,6 +21,16 @@ export const bandAreaDefaults = {
  */
 export const BAND_DASHES: readonly string[] = ['', '10 3', '3.5 2.5', '10 3 2.5 3', '16 3 2.5 3 2.5 3', '5.5 5.5'];
 
+/** What each of {@link BAND_DASHES} is called in plain words, for the reading guide. */
+export const BAND_DASH_NAMES: readonly string[] = [
+  'solid edges',
+  'long-dash edges',
+  'short-dash edges',
+  'dash-dot edges',
+  'dash-dot-dot edges',
+  'even-dash edges',
+];
+
 /** Options of the band mark. */
 export interface BandAreaOptions {
   /** Stroke and fill colour (an Okabe–Ito colour, by the band's order on the sheet). */

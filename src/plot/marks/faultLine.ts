@@ -87,7 +87,9 @@ export function faultLabelSlots(
   const [left, right] = scales.x.range;
   const gap = 8;
   const slots: FaultLabelSlot[] = [];
-  const sorted = [...faults].sort((a, b) => b.amps - a.amps);
+  // Lines on the axis first, highest current first; faults beyond the axis last, so they take rows no tick crosses.
+  const off = (f: SheetFaultLine) => (f.amps > high || f.amps < low ? 1 : 0);
+  const sorted = [...faults].sort((a, b) => off(a) - off(b) || b.amps - a.amps);
   const fits = (x: number, width: number, row: number, lineX: number | null) =>
     slots.every((o) => {
       if (o.row === row) return x + width + gap <= o.x || o.x + o.width + gap <= x;

@@ -2,7 +2,7 @@ export { gridX, gridY, halfCycleRule, gridDefaults } from './grid.ts';
 export type { GridOptions } from './grid.ts';
 export { axisX, axisY, plotFrame, axisDefaults } from './axis.ts';
 export type { AxisOptions } from './axis.ts';
-export { bandArea, bandAreaDefaults, BAND_DASHES } from './bandArea.ts';
+export { bandArea, bandAreaDefaults, BAND_DASHES, BAND_DASH_NAMES } from './bandArea.ts';
 export type { BandAreaOptions, BandAreaGeometry } from './bandArea.ts';
 export { withstandLine, projectPolyline, withstandLineDefaults } from './withstandLine.ts';
 export type { WithstandLineOptions, CurveGeometry } from './withstandLine.ts';

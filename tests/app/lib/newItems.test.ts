@@ -33,6 +33,14 @@ describe('newItems', () => {
     expect(newViewOf(demo, network, 'NOPE')).toBeUndefined();
   });
 
+  it('newViewOf() draws the path’s transformer and cable withstand curves and the motor’s starting by default', () => {
+    const view = newViewOf(demo, network, 'MCC-M1')!;
+    const kinds = (ids: string[]) => ids.map((id) => network.elements.get(id)!.type);
+    expect(view.withstand!.length).toBeGreaterThanOrEqual(2);
+    expect(new Set(kinds(view.withstand!))).toEqual(new Set(['transformer', 'cable']));
+    expect(view.motors).toEqual([demo.devices!.find((d) => d.id === 'MCC-M1')!.feeds]);
+  });
+
   it('freeIdOf() gives an id no item of the study has', () => {
     expect(freeIdOf(demo, 'C')).toBe('C-1');
     expect(freeIdOf({ ...demo, buses: [...demo.buses, { id: 'C-1', voltage: 480 }] }, 'C')).toBe('C-2');

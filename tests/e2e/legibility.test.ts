@@ -1,0 +1,141 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mkdirSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
+
+// Screenshots of the demo sheet at each size, for a person to look at (out/ is not committed).
+const SHOTS = fileURLToPath(new URL('../../out/screens/', import.meta.url));
+const SIZES = [
+  [1280, 800],
+  [1440, 900],
+  [1920, 1080],
+] as const;
+
+let bench: Workbench;
+beforeAll(async () => {
+  bench = await startWorkbench(4199);
+  mkdirSync(SHOTS, { recursive: true });
+});
+afterAll(async () => {
+  await bench?.close();
+});
+
+describe('a sheet and a workbench read at a glance, in Chromium', () => {
+  it('has the expected defaults: the first Tab stop skips to the sheet', async () => {
+    const { page, context } = await bench.open();
+    await page.keyboard.press('Tab');
+    await expect(page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).resolves.toBe(
+      'skip-to-sheet',
+    );
+    await page.keyboard.press('Enter');
+    await expect(page.evaluate(() => document.activeElement?.id)).resolves.toBe('sheet-frame');
+    await context.close();
+  });
+
+  it('the system tree is one tab stop, moved through with the arrow keys as an accessible tree', async () => {
+    const { page, context } = await bench.open();
+    const tree = page.locator('[role="tree"]');
+    await expect(tree.locator('[role="treeitem"][tabindex="0"]').count()).resolves.toBe(1);
+    expect(await tree.locator('[role="treeitem"]').count()).toBeGreaterThan(10);
+    // No other focusable thing inside the tree.
+    await expect(tree.locator('button:not([tabindex="-1"]), a, input').count()).resolves.toBe(0);
+    await tree.locator('[role="treeitem"][tabindex="0"]').focus();
+    const focused = () => page.evaluate(() => document.activeElement?.getAttribute('data-key'));
+    const first = await focused();
+    await page.keyboard.press('ArrowDown');
+    const second = await focused();
+    expect(second).not.toBe(first);
+    await page.keyboard.press('End');
+    const last = await focused();
+    await page.keyboard.press('Home');
+    await expect(focused()).resolves.toBe('source:UTIL');
+    expect(last).not.toBe('source:UTIL');
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('ArrowLeft');
+    await expect(page.evaluate(() => document.activeElement?.getAttribute('aria-level'))).resolves.toBe('2');
+    await page.keyboard.press('Enter');
+    await expect(page.getByTestId('properties').textContent()).resolves.toMatch(/bus/);
+    // Tab leaves the tree in one step.
+    await page.keyboard.press('Tab');
+    await expect(page.evaluate(() => document.activeElement?.closest('[role="tree"]') === null)).resolves.toBe(true);
+    // Items carry drawn symbols, not text tags.
+    await expect(tree.locator('svg.symbol').count()).resolves.toBeGreaterThan(10);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
+  for (const [width, height] of SIZES)
+    it(`at ${width} × ${height} the probe says so beyond the largest fault, its readout stays on the sheet, and pinning moves nothing`, async () => {
+      const { page, context } = await bench.open();
+      await page.setViewportSize({ width, height });
+      await settled(page);
+      await page.waitForTimeout(300);
+      const svg = page.getByTestId('sheet-svg');
+      await page.screenshot({ path: `${SHOTS}demo-${width}x${height}.png` });
+      const box = (await svg.boundingBox())!;
+      // Labels are whole: none ends in an ellipsis.
+      const labels = await svg.locator('text[data-role="label"]').allTextContents();
+      expect(labels.length).toBeGreaterThan(3);
+      for (const l of labels) expect(l).not.toMatch(/…$/);
+      // Near the right edge of the plot: beyond the switchboard's largest fault on the 480 V sheet.
+      const frame = await page.evaluate(() => {
+        const b = (
+          document.querySelector('[data-testid="sheet-svg"] [data-role="plot-frame"]') as SVGGraphicsElement
+        ).getBBox();
+        return { x: b.x, width: b.width };
+      });
+      const right = box.x + frame.x + frame.width - 4;
+      const y = box.y + box.height / 2;
+      await page.mouse.move(right, y);
+      const readout = page.getByTestId('probe-readout');
+      await readout.waitFor();
+      await expect(readout.getAttribute('data-beyond')).resolves.toBe('true');
+      await expect(page.getByTestId('probe-summary').textContent()).resolves.toMatch(
+        /^Beyond the largest available fault on this sheet/,
+      );
+      const readoutBox = (await page.getByTestId('readout-box').boundingBox())!;
+      expect(readoutBox.x + readoutBox.width).toBeLessThanOrEqual(box.x + box.width + 0.5);
+      expect(readoutBox.x).toBeGreaterThanOrEqual(box.x - 0.5);
+      // Pin in the middle of the sheet: the sheet does not move, and the pinned reading is the hover reading.
+      const mid = box.x + box.width * 0.55;
+      await page.mouse.move(mid, y);
+      const hover = await page.getByTestId('probe-summary').textContent();
+      const hoverAmps = await readout.getAttribute('data-amps');
+      await page.mouse.click(mid, y);
+      await page.locator('[data-testid="pinned-list"] .pin').first().waitFor();
+      const after = (await svg.boundingBox())!;
+      expect([after.x, after.y, after.width, after.height]).toEqual([box.x, box.y, box.width, box.height]);
+      await page.mouse.move(mid + 40, y);
+      await page.mouse.move(mid, y);
+      await expect(readout.getAttribute('data-amps')).resolves.toBe(hoverAmps);
+      await expect(page.locator('[data-testid="pinned-list"] .pin button').first().getAttribute('title')).resolves.toBe(
+        hover,
+      );
+      expect(pageErrors(page)).toEqual([]);
+      await context.close();
+    });
+
+  it('in large type the sheet’s labels are whole and apart', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('large-text').click();
+    await settled(page);
+    await page.waitForTimeout(300);
+    await page.screenshot({ path: `${SHOTS}demo-1280x800-large.png` });
+    const boxes = await page
+      .locator('[data-testid="sheet-svg"] rect[data-role="label-backdrop"]')
+      .evaluateAll((rects) =>
+        rects.map((r) => {
+          const b = (r as SVGGraphicsElement).getBBox();
+          return { x: b.x, y: b.y, width: b.width, height: b.height, id: r.getAttribute('data-id') };
+        }),
+      );
+    for (let i = 0; i < boxes.length; i++)
+      for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i], boxes[j]];
+        const apart = a.x + a.width <= b.x || b.x + b.width <= a.x || a.y + a.height <= b.y || b.y + b.height <= a.y;
+        expect(apart, JSON.stringify([a, b])).toBe(true);
+      }
+    await context.close();
+  });
+});
