@@ -37,9 +37,7 @@ export function newViewOf(document: StudyInput, network: Network, deviceId: stri
   const device = network.devices.get(deviceId);
   if (!device) return undefined;
   const path = pathTo(network, device.feeds);
-  const devices = path
-    .map((id) => network.deviceFeeding.get(id)?.id)
-    .filter((id): id is string => id !== undefined);
+  const devices = path.map((id) => network.deviceFeeding.get(id)?.id).filter((id): id is string => id !== undefined);
   // The path's transformers (withstand and inrush) and cables (damage), and a motor the device feeds
   // (starting), drawn by default: what the devices of the sheet are there to protect or ride through.
   const kindOf = (id: string) => network.elements.get(id)?.type;

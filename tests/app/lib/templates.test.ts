@@ -5,9 +5,7 @@ describe('templateChoices', () => {
   it('has the expected defaults: every template of curves/, each with its family', () => {
     const choices = templateChoices();
     expect(choices.length).toBeGreaterThan(10);
-    expect(new Set(choices.map((c) => c.family))).toEqual(
-      new Set(['relay', 'trip-unit', 'thermal-magnetic', 'fuse']),
-    );
+    expect(new Set(choices.map((c) => c.family))).toEqual(new Set(['relay', 'trip-unit', 'thermal-magnetic', 'fuse']));
   });
 
   it('carries each fuse and breaker template’s rating, the 65 A medium-voltage fuse included', () => {
