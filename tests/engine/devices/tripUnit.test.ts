@@ -105,6 +105,28 @@ describe('tripUnit', () => {
     assertInDelta(handOver.maxTime(3000), 30.72);
   });
 
+  it('tripUnitBand with odd settings, worked by hand: 1200 A sensor, 0.85 × I_n, 7 s, short-time 3.5 × at 0.17 s', () => {
+    // I_r = 0.85 · 1200 = 1020 A; the ramp passes 7 s at 6 · 1020 = 6120 A (fast 6.3 s, slow 8.4 s).
+    // Short-time 3.5 · 1020 = 3570 A: fast edge from 3213 A at 0.17 s, slow edge from 3927 A at 0.22 s.
+    const band = tripUnitBand(
+      tripUnitSchema.parse({
+        kind: 'trip-unit',
+        sensor: 1200,
+        longTime: { pickup: 0.85, delay: 7 },
+        shortTime: { pickup: 3.5, delay: 0.17 },
+      }),
+    );
+    assertInDelta(band.minTime(3212.9), 6.3 * (6120 / 3212.9) ** 2); // just below the fast short-time pickup: 22.86 s
+    assertInDelta(band.minTime(3213), 0.17);
+    assertInDelta(band.maxTime(3500), 25.683017, 1e-6); // 8.4 · (6120/3500)² = 8.4 · 3.0575020
+    assertInDelta(band.maxTime(3927 * (1 + 1e-9)), 0.22);
+    assertInDelta(band.maxTime(3926.9), 8.4 * (6120 / 3926.9) ** 2); // 20.40 s just below it
+    // Far up the ramp passes under the delay: fast edge at 6120 · √(6.3/0.17) = 37 256 A, slow at 37 816 A.
+    assertInDelta(band.minTime(37_000), 0.17);
+    assertInDelta(band.minTime(50_000), 0.0943851, 1e-6); // 6.3 · (6120/50 000)² = 6.3 · 0.01498176
+    assertInDelta(band.maxTime(50_000), 0.1258468, 1e-6); // 8.4 · 0.01498176
+  });
+
   describe('the long-time ramp below the short-time delay before the short-time pickup', () => {
     // 800 A sensor, long-time 1 × I_n, 0.5 s at 6 × I_r, short-time 10 × I_r, 0.4 s flat (invented settings).
     // Worked by hand with the I²t law t = t_LT · (6 · I_r / I)² and the common-practice tolerances:
