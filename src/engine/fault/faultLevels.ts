@@ -115,7 +115,13 @@ export function faultLevelsOf(network: Network): FaultLevels {
   const { study } = network;
   const source = study.source;
   const maxLevel = source.kind === 'utility' ? source.max : undefined;
-  const minLevel = source.kind === 'utility' ? (source.min ?? source.max) : undefined;
+  // A minimum level without zero-sequence ratios keeps the maximum's (the same network, weaker).
+  const minLevel =
+    source.kind === 'utility'
+      ? source.min
+        ? { ...source.min, x0x1: source.min.x0x1 ?? source.max.x0x1, r0r1: source.min.r0r1 ?? source.max.r0r1 }
+        : source.max
+      : undefined;
   const max = faultTreeOf(network, { kind: 'max', level: maxLevel, motors: true, temperature: 75, toleranced: true });
   const bare = faultTreeOf(network, { kind: 'max', level: maxLevel, motors: false, temperature: 75, toleranced: true });
   const min = faultTreeOf(network, {

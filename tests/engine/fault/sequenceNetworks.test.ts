@@ -80,6 +80,22 @@ describe('sequence-network reference: 1500 kVA Δ–Yg 12.47 kV–480 V, 250 MVA
     assertInDelta(lv.max.lineToGround, (3 * ib) / abs(add(z1, z1, scale(zs, 3), zt)), TOL);
   });
 
+  it('a minimum source without ratios keeps the maximum’s X0/X1 and R0/R1', () => {
+    const input = deltaWyeInput();
+    input.transformers![0].connection = 'wye-wye';
+    input.source = {
+      kind: 'utility',
+      id: 'U',
+      bus: 'MV',
+      max: { available: '250 MVA', xr: 12, x0x1: 3, r0r1: 3 },
+      min: { available: '100 MVA', xr: 12 },
+    };
+    const zsMin = polar(S / 100e6, 12);
+    const z1min = add(zsMin, zt);
+    const lv = levelsOf(input).buses.get('LV')!;
+    assertInDelta(lv.min.lineToGround, (3 * ib) / abs(add(z1min, z1min, scale(zsMin, 3), zt)), TOL);
+  });
+
   it('a resistance-grounded secondary (1.2 Ω) limits L-G to about the resistor current: I = 3/|2·Z1 + Z_T + 3·R_n|', () => {
     const input = deltaWyeInput();
     input.transformers![0].grounding = { kind: 'resistance', ohms: 1.2 };
