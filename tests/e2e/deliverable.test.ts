@@ -52,6 +52,21 @@ describe('the study deliverable in the workbench', () => {
     await context.close();
   });
 
+  it('adds a sheet for every protective path in one undoable step, and not twice', async () => {
+    const { context, page } = await bench.open();
+    const menu = page.getByTestId('view-menu');
+    const before = await menu.locator('option').count();
+    await page.getByTestId('sheets-for-paths').click();
+    await expect.poll(() => menu.locator('option').count()).toBeGreaterThan(before);
+    const after = await menu.locator('option').count();
+    await page.getByTestId('sheets-for-paths').click();
+    expect(await menu.locator('option').count()).toBe(after);
+    await page.getByTestId('undo').click();
+    await expect.poll(() => menu.locator('option').count()).toBe(before);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
   it('exports the whole study report as one print-ready page', async () => {
     const { context, page } = await bench.open();
     await settled(page);

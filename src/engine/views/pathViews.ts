@@ -17,7 +17,8 @@ export interface PathView {
  * device (one with no device below it) with every device above it up to the source, paths that share
  * all devices but the last merged onto one sheet, and on each sheet the withstand curves of the
  * transformers and cables the path runs through (with their inrush) and the starting curves of the
- * motors its load-side devices feed. Views whose id the study already uses are skipped. Iterative:
+ * motors its load-side devices feed. A path the study already shows with the same devices is skipped,
+ * and new ids never clash with the study's. Iterative:
  * linear in the devices times the depth of the tree.
  * @example pathViewsOf(networkOf(study)).map((view) => view.title) // ['MCC feeder 600 A and above', …]
  */
@@ -38,11 +39,13 @@ export function pathViewsOf(network: Network): PathView[] {
     groups.set(key, [...(groups.get(key) ?? []), device]);
   }
   const taken = new Set(study.views.map((view) => view.id));
+  const shown = new Set(study.views.map((view) => view.devices.join('\u0000')));
   const views: PathView[] = [];
   for (const [key, leaves] of groups) {
     const chain: Device[] = [];
     for (let up = above.get(leaves[0].id); up; up = above.get(up.id)) chain.unshift(up);
     const devices = [...chain, ...leaves];
+    if (shown.has(devices.map((device) => device.id).join('\u0000'))) continue;
     const elementIds = new Set(leaves.flatMap((leaf) => pathTo(network, leaf.feeds)));
     const withstand = [...elementIds].filter((id) => {
       const type = network.elements.get(id)?.type;
