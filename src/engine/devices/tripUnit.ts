@@ -143,6 +143,8 @@ export function tripUnitBand(unit: TripUnit): Band {
   const ratedAmps = longTime.pickup * sensor;
   const handOver = Boolean(shortTime) && unit.longTimeRamp === 'ends-at-short-time-pickup';
   const diagnostics = tripUnitDiagnostics(unit);
+  // The default needs no word; the hand-over is a choice the sheet and the findings should name.
+  if (handOver) diagnostics.push(longTimeRampBasis(unit)!);
   const edge = (side: -1 | 1) => {
     const pickupFactor = 1 + (side * tolerance.pickup) / 100;
     const longFactor = side < 0 ? 1 - tolerance.longTimeBelow / 100 : 1 + tolerance.longTimeAbove / 100;

@@ -180,6 +180,8 @@ describe('tripUnit', () => {
       const unit = { ...main, longTimeRamp: 'ends-at-short-time-pickup' as const };
       const band = tripUnitBand(unit);
       expect(longTimeRampBasis(unit)).toMatch(/ends at the short-time pickup/);
+      expect(band.diagnostics).toContain(longTimeRampBasis(unit)); // named among the band's notes
+      expect(tripUnitBand(main).diagnostics.join('\n')).not.toMatch(/short-time pickup/);
       // Fast edge: the ramp to 7200 A, then held at its 0.2 s there (the earliest the unit may act above it).
       assertInDelta(band.minTime(7000), 0.211592, 1e-5);
       assertInDelta(band.minTime(7200), 0.2);
