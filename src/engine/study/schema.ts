@@ -1,6 +1,18 @@
 import { z } from 'zod';
 import { createCharacteristicSchema } from '../devices/characteristic.ts';
-import { availableFaultField, idField, percentField, quantityField } from './fields.ts';
+import {
+  availableFaultField,
+  axisRangeField,
+  boundedNumber,
+  idField,
+  MAX_ELEMENTS,
+  MAX_VIEW_ITEMS,
+  nameField,
+  notesField,
+  percentField,
+  quantityField,
+  xrRatio,
+} from './fields.ts';
 
 /** A pair kind key: upstream family / downstream family. */
 const PAIR_KIND = /^(relay|trip-unit|thermal-magnetic|fuse)\/(relay|trip-unit|thermal-magnetic|fuse)$/;
@@ -23,15 +35,19 @@ export function createStudySchema(frequency = 60) {
   const sourceLevel = z
     .object({
       available: availableFaultField,
-      xr: z.number().positive().optional().meta({ description: 'X/R ratio at the source; omit for all-reactance' }),
-      x0x1: z.number().nonnegative().optional().meta({
-        description: 'zero-sequence X0/X1 of the source; default 1 (Z0 = Z1, a solidly grounded source)',
-      }),
-      r0r1: z
-        .number()
-        .nonnegative()
-        .optional()
-        .meta({ description: 'zero-sequence R0/R1 of the source; default: x0x1' }),
+      xr: xrRatio('X/R ratio at the source; omit for all-reactance').optional(),
+      x0x1: boundedNumber(
+        0,
+        100,
+        'zero-sequence X0/X1 of the source; default 1 (Z0 = Z1, a solidly grounded source)',
+        'published ratios stay below about 10',
+      ).optional(),
+      r0r1: boundedNumber(
+        0,
+        100,
+        'zero-sequence R0/R1 of the source; default: x0x1',
+        'published ratios stay below about 10',
+      ).optional(),
       lineToGround: availableFaultField.optional().meta({
         description: 'available line-to-ground fault at the source bus ("10 kA"); sets Z0 instead of x0x1/r0r1',
       }),
@@ -41,7 +57,12 @@ export function createStudySchema(frequency = 60) {
   const grounding = z
     .object({
       kind: z.enum(['solid', 'resistance', 'reactance', 'ungrounded']),
-      ohms: z.number().nonnegative().optional().meta({ description: 'neutral resistor or reactor (Ω)' }),
+      ohms: boundedNumber(
+        0,
+        100_000,
+        'neutral resistor or reactor (Ω)',
+        'neutral resistors run from a fraction of an ohm to a few kΩ',
+      ).optional(),
     })
     .strict()
     .refine((g) => g.kind === 'solid' || g.kind === 'ungrounded' || g.ohms !== undefined, {
@@ -67,7 +88,7 @@ export function createStudySchema(frequency = 60) {
   const bus = z
     .object({
       id: idField,
-      name: z.string().optional(),
+      name: nameField.optional(),
       voltage: voltage('nominal line-to-line voltage'),
       shortCircuitRating: quantityField('current', { min: 0, exclusiveMin: true }).optional().meta({
         description: 'equipment short-circuit rating of the bus (switchboard, panelboard, MCC), A symmetrical',
@@ -78,7 +99,7 @@ export function createStudySchema(frequency = 60) {
   const transformer = z
     .object({
       id: idField,
-      name: z.string().optional(),
+      name: nameField.optional(),
       from: idField.meta({ description: 'primary bus' }),
       to: idField.meta({ description: 'secondary bus' }),
       rating: quantityField('power', {
@@ -92,9 +113,11 @@ export function createStudySchema(frequency = 60) {
       impedance: percentField({
         min: 0,
         exclusiveMin: true,
-        description: 'nameplate impedance in percent on its own rating',
+        max: 25,
+        description:
+          'nameplate impedance in percent on its own rating, at most 25 % (nameplates run from about 1 % for small dry-types to about 20 % for the largest units; the IEEE C57.109 curves need at least 2 pu through-fault current)',
       }),
-      xr: z.number().positive().optional().meta({ description: 'X/R ratio; omit for all-reactance' }),
+      xr: xrRatio('X/R ratio; omit for all-reactance').optional(),
       connection: z
         .enum(['delta-wye', 'delta-delta', 'wye-wye', 'wye-delta'])
         .default('delta-wye')
@@ -110,10 +133,14 @@ export function createStudySchema(frequency = 60) {
       secondaryWinding: z.enum(['two-wire', 'centre-tapped']).optional().meta({
         description: 'single-phase units: default centre-tapped (120/240 V) for a 240 V secondary, else two-wire',
       }),
-      halfWinding: z.object({ r: z.number().positive(), x: z.number().positive() }).strict().optional().meta({
-        description:
-          'centre-tapped units: half-winding R and X as multiples of the full-winding per-unit values (default 1.5 and 1.2, common practice)',
-      }),
+      halfWinding: z
+        .object({ r: z.number().min(0.1).max(10), x: z.number().min(0.1).max(10) })
+        .strict()
+        .optional()
+        .meta({
+          description:
+            'centre-tapped units: half-winding R and X as multiples of the full-winding per-unit values (default 1.5 and 1.2, common practice)',
+        }),
       construction: z.enum(['liquid', 'dry']).default('liquid'),
       category: z
         .enum(['I', 'II', 'III', 'IV'])
@@ -137,10 +164,10 @@ export function createStudySchema(frequency = 60) {
   const cable = z
     .object({
       id: idField,
-      name: z.string().optional(),
+      name: nameField.optional(),
       from: idField,
       to: idField,
-      size: z.string().meta({ description: 'conductor size: "4/0", "500 kcmil", "12 AWG"' }),
+      size: z.string().max(40).meta({ description: 'conductor size: "4/0", "500 kcmil", "12 AWG"' }),
       material: z.enum(['copper', 'aluminium']).default('copper'),
       conduit: z.enum(['pvc', 'aluminium', 'steel']).default('steel'),
       insulation: z
@@ -148,19 +175,25 @@ export function createStudySchema(frequency = 60) {
         .default('xlpe')
         .meta({ description: 'sets the ICEA P-32-382 temperature limits' }),
       length: quantityField('length', { min: 0, exclusiveMin: true, description: 'one-way length (ft, or "30 m")' }),
-      sets: z.number().int().positive().default(1).meta({ description: 'parallel sets per phase' }),
-      resistance: z
+      sets: z
         .number()
-        .nonnegative()
-        .optional()
-        .meta({ description: 'ohms per 1000 ft per conductor; overrides NEC Table 9 (MV cables)' }),
+        .int()
+        .min(1)
+        .max(100)
+        .default(1)
+        .meta({ description: 'parallel sets per phase; range 1 to 100 (large services run about 20 sets)' }),
+      resistance: z.number().min(0).max(100).optional().meta({
+        description:
+          'ohms per 1000 ft per conductor; overrides NEC Table 9 (MV cables); range 0 to 100 (14 AWG copper is about 3)',
+      }),
       reactance: z
         .number()
-        .nonnegative()
+        .min(0)
+        .max(100)
         .optional()
-        .meta({ description: 'ohms per 1000 ft per conductor; overrides NEC Table 9' }),
+        .meta({ description: 'ohms per 1000 ft per conductor; overrides NEC Table 9; range 0 to 100' }),
       zeroSequence: z
-        .object({ resistance: z.number().nonnegative(), reactance: z.number().nonnegative() })
+        .object({ resistance: z.number().min(0).max(300), reactance: z.number().min(0).max(300) })
         .strict()
         .optional()
         .meta({ description: 'zero-sequence R0 and X0, ohms per 1000 ft; default 3 × Z1 (common practice)' }),
@@ -170,34 +203,41 @@ export function createStudySchema(frequency = 60) {
   const motor = z
     .object({
       id: idField,
-      name: z.string().optional(),
+      name: nameField.optional(),
       bus: idField,
-      hp: z.number().positive().optional().meta({ description: 'rated horsepower (or give rating)' }),
+      hp: boundedNumber(
+        0.01,
+        200_000,
+        'rated horsepower (or give rating)',
+        'from fractional-horsepower motors to beyond the largest built (about 100 000 hp)',
+      ).optional(),
       rating: quantityField('power', { plainUnit: 'kVA', min: 0, exclusiveMin: true }).optional(),
       fullLoadAmps: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
       phases: z
         .union([z.literal(1), z.literal(3)])
         .default(3)
         .meta({ description: 'three-phase (NFPA 70 Table 430.250) or single-phase (Table 430.248) motor' }),
-      contribution: z
-        .number()
-        .positive()
-        .default(4)
-        .meta({ description: 'first-cycle fault contribution as a multiple of FLA (common practice: 4)' }),
-      lockedRotor: z
-        .number()
-        .positive()
-        .default(6)
-        .meta({ description: 'locked-rotor current as a multiple of FLA (common practice: 6)' }),
+      contribution: boundedNumber(
+        0.1,
+        20,
+        'first-cycle fault contribution as a multiple of FLA (common practice: 4)',
+        'no motor feeds a fault with more than its locked-rotor current',
+      ).default(4),
+      lockedRotor: boundedNumber(
+        1,
+        30,
+        'locked-rotor current as a multiple of FLA (common practice: 6)',
+        'NEMA code letters stop at about 22 kVA/hp, some 25 × FLA',
+      ).default(6),
       accelerationTime: quantityField('time', { frequency, min: 0, exclusiveMin: true }).default(5),
-      xr: z.number().positive().optional(),
+      xr: xrRatio('X/R ratio of the motor; omit for the default').optional(),
     })
     .strict();
 
   const device = z
     .object({
       id: idField,
-      name: z.string().optional(),
+      name: nameField.optional(),
       feeds: idField.meta({
         description: 'the element just below the device: a transformer, cable, motor, or a bus (for a main)',
       }),
@@ -214,7 +254,8 @@ export function createStudySchema(frequency = 60) {
       }),
       interruptingTestXr: z
         .number()
-        .positive()
+        .min(0.1)
+        .max(1000)
         .optional()
         .meta({ description: 'X/R of the interrupting-rating test circuit from the listing; overrides the default' }),
       margin: quantityField('time', { frequency, min: 0 })
@@ -243,24 +284,36 @@ export function createStudySchema(frequency = 60) {
   const view = z
     .object({
       id: idField,
-      title: z.string().optional(),
+      title: nameField.optional(),
       referenceVoltage: voltage('voltage base of the sheet'),
-      devices: z.array(idField).min(1),
+      devices: z
+        .array(idField)
+        .min(1)
+        .max(MAX_VIEW_ITEMS)
+        .meta({
+          description: `devices whose bands are drawn, each once, at most ${MAX_VIEW_ITEMS} (more cannot be read)`,
+        }),
       faults: z
         .array(idField)
+        .max(MAX_VIEW_ITEMS)
         .optional()
         .meta({ description: 'buses whose fault currents are drawn; default: the buses of the devices shown' }),
       withstand: z
         .array(idField)
+        .max(MAX_VIEW_ITEMS)
         .default([])
         .meta({ description: 'transformers and cables whose withstand curves are drawn' }),
-      motors: z.array(idField).default([]).meta({ description: 'motors whose starting curves are drawn' }),
+      motors: z
+        .array(idField)
+        .max(MAX_VIEW_ITEMS)
+        .default([])
+        .meta({ description: 'motors whose starting curves are drawn' }),
       groundFault: z.boolean().default(false).meta({
         description: 'a ground-fault sheet: ground-fault elements drawn, ground-fault findings hatched',
       }),
-      currentRange: z.tuple([z.number().positive(), z.number().positive()]).optional(),
-      timeRange: z.tuple([z.number().positive(), z.number().positive()]).optional(),
-      notes: z.string().optional(),
+      currentRange: axisRangeField('A', 1e-3, 1e7, 'the span of the physical currents').optional(),
+      timeRange: axisRangeField('s', 1e-4, 1e5, 'a sheet runs from 0.01 s to 1000 s').optional(),
+      notes: notesField.optional(),
     })
     .strict();
 
@@ -325,36 +378,36 @@ export function createStudySchema(frequency = 60) {
 
   const revision = z
     .object({
-      revision: z.string().min(1).meta({ description: 'revision mark, e.g. "A" or "2"' }),
-      date: z.string().optional(),
-      by: z.string().optional(),
-      description: z.string().optional().meta({ description: 'what changed' }),
+      revision: nameField.min(1).meta({ description: 'revision mark, e.g. "A" or "2"' }),
+      date: nameField.optional(),
+      by: nameField.optional(),
+      description: notesField.optional().meta({ description: 'what changed' }),
     })
     .strict();
 
   return z
     .object({
       discern: z.literal(STUDY_VERSION).meta({ description: 'study file format version' }),
-      name: z.string().min(1),
-      description: z.string().optional(),
-      site: z.string().optional().meta({ description: 'where the system is: printed on every figure and report' }),
-      client: z.string().optional().meta({ description: 'for whom the study is made' }),
-      preparedBy: z.string().optional(),
-      checkedBy: z.string().optional(),
-      date: z.string().optional().meta({ description: 'the study date, printed as written (e.g. "2026-12-02")' }),
+      name: nameField.min(1),
+      description: notesField.optional(),
+      site: nameField.optional().meta({ description: 'where the system is: printed on every figure and report' }),
+      client: nameField.optional().meta({ description: 'for whom the study is made' }),
+      preparedBy: nameField.optional(),
+      checkedBy: nameField.optional(),
+      date: nameField.optional().meta({ description: 'the study date, printed as written (e.g. "2026-12-02")' }),
       revisions: z
         .array(revision)
         .default([])
         .meta({ description: 'revision log, oldest first; the last entry is the current revision' }),
-      notes: z.string().optional().meta({ description: 'study notes for the report cover' }),
+      notes: notesField.optional().meta({ description: 'study notes for the report cover' }),
       frequency: z.union([z.literal(50), z.literal(60)]).default(60),
       source,
-      buses: z.array(bus).min(1),
-      transformers: z.array(transformer).default([]),
-      cables: z.array(cable).default([]),
-      motors: z.array(motor).default([]),
-      devices: z.array(device).default([]),
-      views: z.array(view).default([]),
+      buses: z.array(bus).min(1).max(MAX_ELEMENTS),
+      transformers: z.array(transformer).max(MAX_ELEMENTS).default([]),
+      cables: z.array(cable).max(MAX_ELEMENTS).default([]),
+      motors: z.array(motor).max(MAX_ELEMENTS).default([]),
+      devices: z.array(device).max(MAX_ELEMENTS).default([]),
+      views: z.array(view).max(MAX_ELEMENTS).default([]),
       coordination,
     })
     .strict();
