@@ -218,7 +218,7 @@ function limitA(
  * What Note 1 of Table 450.3(A) (and of 450.3(B) for 125 %) permits above the computed limit:
  * - at the threshold voltage and below, the next higher standard rating of NFPA 70 240.6(A);
  * - above it, the next higher commercially available rating or setting: for an E-rated fuse the next
- *   rating of `E_RATINGS` (common practice); for a relay, whose pickup is continuously adjustable,
+ *   rating of the fuse's `availableRatings`, else of `E_RATINGS` (common practice); for a relay, whose pickup is continuously adjustable,
  *   the computed value itself; for any other device above 1000 V, the computed value (its available
  *   ratings are not known here).
  */
@@ -239,9 +239,10 @@ function allowanceOf(limit: Limit, limitAmps: number, device: Device, volts: num
     };
   }
   if (kind === 'fuse') {
-    const amps = nextERating(limitAmps);
+    const own = device.characteristic.availableRatings;
+    const amps = nextERating(limitAmps, own);
     if (amps === undefined) {
-      return { ...exact, text: `${exact.text}; no E rating in the common series reaches it` };
+      return { ...exact, text: `${exact.text}; no available rating of the fuse reaches it` };
     }
     return {
       amps,
@@ -249,7 +250,9 @@ function allowanceOf(limit: Limit, limitAmps: number, device: Device, volts: num
       step: {
         label: `next higher commercially available E rating (note 1, above ${threshold} V)`,
         substituted: `next E rating ≥ ${significant(limitAmps, 6)} A`,
-        source: 'Table 450.3(A) note 1; E-rating series of common practice (ANSI C37.46 fuses)',
+        source: own
+          ? "Table 450.3(A) note 1; the fuse family's ratings as entered"
+          : 'Table 450.3(A) note 1; E-rating series of common practice (ANSI C37.46 fuses)',
       },
     };
   }

@@ -7,10 +7,11 @@ import { isValidTable, pointTableSchema, tableElement, upperBelowLower } from '.
 const ampsTable = pointTableSchema({ current: 'a current in amperes', unit: ' A' });
 
 /**
- * Schema of a fuse characteristic (minimum-melting and total-clearing curves, as ANSI C37.41 and UL 248 publish them): `minimumMelting` and `totalClearing` as
- * `[amperes, seconds]` tables (≥ 2 points, current ascending, time strictly descending), total
+ * Schema of a fuse characteristic (minimum-melting and total-clearing curves, as ANSI C37.41 and
+ * UL 248 publish them): `minimumMelting` and `totalClearing` as `[amperes, seconds]` tables (≥ 2 points, current ascending, time strictly descending), total
  * clearing never earlier than minimum melting and starting at no lower current; optional
- * `currentLimitingFrom` (A); `illustrative` (invented data, not a product) and `label`.
+ * `currentLimitingFrom` (A), `availableRatings` (the family's ratings, for NEC 450.3(A) note 1);
+ * `illustrative` (invented data, not a product) and `label`.
  *
  * @example fuseSchema.parse({ kind: 'fuse', minimumMelting: [[200, 300], [2000, 0.01]],
  *   totalClearing: [[220, 300], [2000, 0.02]] })
@@ -27,9 +28,22 @@ export const fuseSchema = z
       exclusiveMin: true,
       description: 'current (A) from which the fuse is current-limiting',
     }).optional(),
+    availableRatings: z.array(z.number().positive()).min(1).optional().meta({
+      description:
+        'ampere (E) ratings the fuse family is made in, ascending: the next commercially available rating of NEC Table 450.3(A) note 1 above 1000 V; default a common E-rating series',
+    }),
   })
   .strict()
   .superRefine((fuse, ctx) => {
+    const ratings = fuse.availableRatings ?? [];
+    for (let i = 1; i < ratings.length; i++) {
+      if (!(ratings[i] > ratings[i - 1]))
+        ctx.addIssue({
+          code: 'custom',
+          path: ['availableRatings', i],
+          message: `expected a rating above the previous ${ratings[i - 1]} A, got "${ratings[i]}"`,
+        });
+    }
     if (!isValidTable(fuse.minimumMelting) || !isValidTable(fuse.totalClearing)) return;
     const problem = upperBelowLower(fuse.minimumMelting, fuse.totalClearing);
     if (!problem) return;

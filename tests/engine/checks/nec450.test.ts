@@ -140,6 +140,15 @@ describe('NFPA 70 Table 450.3(A) above 1000 V, as the table reads (from memory: 
     expect(primaryFinding(serviceStudy({ primary: eFuse, rating: 300 })).severity).toBe('fail');
   });
 
+  it('takes the next rating from the fuse family the user entered, when given', () => {
+    // The same 208.35 A limit against a family made in 200, 225 and 275 A: 225 A is the next available.
+    const family = { ...eFuse, availableRatings: [200, 225, 275] };
+    const at225 = primaryFinding(serviceStudy({ primary: family, rating: 225 }));
+    expect(at225.severity).toBe('ok');
+    expect(at225.work!.find((w) => /E rating/.test(w.label))!.source).toMatch(/the fuse family's ratings as entered/);
+    expect(primaryFinding(serviceStudy({ primary: family, rating: 250 })).severity).toBe('fail');
+  });
+
   it('reads 6 % in the ≤ 6 % row and 10 % in the 6–10 % row', () => {
     // ≤ 6 %: 600 %; over 6 % to 10 %: 400 % × 69.449 A = 277.80 A.
     expect(primaryFinding(serviceStudy({ impedance: 6, primary: relayWithPickup(20.8) })).severity).toBe('ok');

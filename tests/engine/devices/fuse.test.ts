@@ -136,6 +136,9 @@ describe('fuse', () => {
       /characteristic\.totalClearing: expected total clearing to start at or above the first minimum-melting current, got 150 A$/,
     );
     expect(rejection({ ...fuse, melting: [] })).toMatch(/characteristic: expected no field "melting" here, got one$/);
+    expect(rejection({ ...fuse, availableRatings: [100, 125, 125] })).toMatch(
+      /characteristic\.availableRatings\[2\]: expected a rating above the previous 125 A, got "125"$/,
+    );
   });
 
   it('fuseBand keeps the band contract over random valid tables', () => {
