@@ -1,4 +1,4 @@
-import type { PointsCsv } from '../../engine/devices/index.ts';
+import { parsePointsCsv, type PointsCsv } from '../../engine/devices/index.ts';
 
 type Table = [number, number][];
 
@@ -83,6 +83,78 @@ export function previewTablesOf(points: PointsCsv): { name: string; rows: Table 
     ...(points.minimum ? [{ name: 'minimum (fast edge)', rows: points.minimum as Table }] : []),
     ...(points.maximum ? [{ name: 'maximum (slow edge)', rows: points.maximum as Table }] : []),
   ];
+}
+
+/**
+ * Every problem in a CSV of points, not only the first: each row read on its own (a bad number, a
+ * missing field), then each row against the one before it on the same curve (currents rising, times
+ * falling), then the file as a whole; each message names its row as the file counts lines.
+ * An empty list means the file reads.
+ * @example pointsCsvProblems('200,300\nabc,1\n100,10') // ['row 2: expected a current …', 'row 3: expected a current above …']
+ */
+export function pointsCsvProblems(text: string): string[] {
+  const problems: string[] = [];
+  const rows: { row: number; line: string; curve: string }[] = [];
+  text.split(/\r?\n/).forEach((line, i) => {
+    const trimmed = line.trim();
+    if (trimmed === '' || trimmed.startsWith('#')) return;
+    const message = problemOf(line);
+    // A lone good row fails only for having one point; a header row has none.
+    if (message === undefined || /expected at least 2 points/.test(message))
+      rows.push({
+        row: i + 1,
+        line,
+        curve: trimmed.split(/[,;\t]/).length >= 3 ? trimmed.split(/[,;\t]/)[0].trim() : '',
+      });
+    else if (!/got no points$/.test(message)) problems.push(renumbered(message, i + 1));
+  });
+  const previous = new Map<string, { row: number; line: string }>();
+  for (const r of rows) {
+    const before = previous.get(r.curve);
+    const message = before ? problemOf(`${before.line}\n${r.line}`) : undefined;
+    if (message !== undefined && !/expected at least 2 points/.test(message)) problems.push(renumbered(message, r.row));
+    else previous.set(r.curve, r);
+  }
+  problems.sort((a, b) => rowOf(a) - rowOf(b));
+  if (problems.length === 0) {
+    const message = problemOf(text);
+    if (message !== undefined) problems.push(message);
+  }
+  return problems;
+}
+
+// Accepts CSV text; the reader's message about it, or undefined when it reads.
+function problemOf(text: string): string | undefined {
+  try {
+    parsePointsCsv(text);
+    return undefined;
+  } catch (error) {
+    return (error as Error).message;
+  }
+}
+
+// Accepts a message; the row it names (0 when none).
+function rowOf(message: string): number {
+  return Number(/^row (\d+):/.exec(message)?.[1] ?? 0);
+}
+
+// Accepts a reader's message about a piece of the file; the same naming the row's line in the whole file.
+function renumbered(message: string, row: number): string {
+  return message.replace(/^row \d+:/, `row ${row}:`);
+}
+
+/**
+ * The characteristic relabelled as the user's own once points are imported into it: the template's
+ * name and its "illustrative" mark no longer describe it.
+ * @example asOwnCurve({ kind: 'fuse', label: 'Illustrative … fuse', illustrative: true }, 'F1').label // 'F1: digitised points imported by the user'
+ */
+export function asOwnCurve(characteristic: Record<string, unknown>, deviceId: string): Record<string, unknown> {
+  const own: Record<string, unknown> = {
+    ...characteristic,
+    label: `${deviceId}: digitised points imported by the user`,
+  };
+  delete own.illustrative;
+  return own;
 }
 
 function setIn(object: Record<string, unknown>, path: string[], value: unknown): Record<string, unknown> {

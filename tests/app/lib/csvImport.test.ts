@@ -1,5 +1,11 @@
 import { describe, it, expect } from 'vitest';
-import { pointsTargetsOf, previewTablesOf, withPoints } from '../../../src/app/lib/csvImport.ts';
+import {
+  asOwnCurve,
+  pointsCsvProblems,
+  pointsTargetsOf,
+  previewTablesOf,
+  withPoints,
+} from '../../../src/app/lib/csvImport.ts';
 import { parsePointsCsv } from '../../../src/engine/devices/index.ts';
 
 // Invented, illustrative points (not a product).
@@ -53,5 +59,31 @@ describe('csvImport', () => {
       ['minimum (fast edge)', 2],
       ['maximum (slow edge)', 2],
     ]);
+  });
+});
+
+describe('pointsCsvProblems', () => {
+  it('lists every problem of a bad file, each with its row, in row order', () => {
+    expect(pointsCsvProblems('current,time\n200,300\nabc,1\n100,10\n300\n400,0.5\n500,1')).toEqual([
+      'row 3: expected a current in amperes greater than 0, got "abc"',
+      'row 4: expected a current above the previous point\'s 200, got "100"',
+      'row 5: expected 2 fields (current,time), got "300"',
+      'row 7: expected a time below the previous point\'s 0.5 s, got "1"',
+    ]);
+  });
+
+  it('finds nothing wrong with a good file of one or two curves', () => {
+    expect(pointsCsvProblems('current,time\n200,300\n2000,0.1')).toEqual([]);
+    expect(pointsCsvProblems('curve,current,time\nmin,200,300\nmax,250,400\nmin,2000,0.1\nmax,2500,0.2')).toEqual([]);
+  });
+});
+
+describe('asOwnCurve', () => {
+  it('relabels an imported curve as the user’s own and drops the illustrative mark', () => {
+    const own = asOwnCurve(
+      { kind: 'fuse', label: 'Illustrative fuse, 65 A', illustrative: true, minimumMelting: [] },
+      'F1',
+    );
+    expect(own).toEqual({ kind: 'fuse', label: 'F1: digitised points imported by the user', minimumMelting: [] });
   });
 });
