@@ -297,7 +297,9 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     let g0 = threshold >= 0 ? gOf(loUp, loDown) : NaN;
     let g1 = threshold >= 0 ? gOf(hiUp, hiDown) : NaN;
     let side = 0;
-    while (hi - lo > tolerance * lo) {
+    // Capped so that a degenerate bracket (a zero or denormal current) can never loop forever; the
+    // Illinois steps converge in a few dozen probes on any physical range.
+    for (let step = 0; step < 500 && hi - lo > tolerance * lo; step++) {
       let x: number;
       if (Number.isFinite(g0) && Number.isFinite(g1) && g0 !== g1) {
         x = x1 - (g1 * (x1 - x0)) / (g1 - g0);

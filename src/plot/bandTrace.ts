@@ -90,7 +90,9 @@ function bisect(above: (amps: number) => boolean, a: number, b: number): number 
   const atA = above(a);
   let lo = a;
   let hi = b;
-  while (hi / lo - 1 > 1e-12) {
+  // At most 200 halvings of the log-width: enough for any range of doubles, and bounded even for a
+  // degenerate bracket.
+  for (let step = 0; step < 200 && hi / lo - 1 > 1e-12; step++) {
     const mid = Math.sqrt(lo * hi);
     if (above(mid) === atA) lo = mid;
     else hi = mid;
