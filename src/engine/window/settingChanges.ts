@@ -16,7 +16,8 @@ export interface DocumentSettingChange {
  * @example withSettingChanges(document, [{ deviceId: 'MAIN', key: 'shortTime.delay', to: 0.3 }])
  */
 export function withSettingChanges<T>(document: T, changes: DocumentSettingChange[]): T {
-  const copy = structuredClone(document) as { devices?: { id: string; characteristic: Record<string, unknown> }[] };
+  // A JSON copy: the document is plain JSON by contract, and this also reads a reactive proxy of it.
+  const copy = JSON.parse(JSON.stringify(document)) as { devices?: { id: string; characteristic: Record<string, unknown> }[] };
   for (const change of changes) {
     const device = copy.devices?.find((d) => d.id === change.deviceId);
     if (!device) throw new RangeError(`no device "${change.deviceId}" in the document`);

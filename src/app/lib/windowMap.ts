@@ -1,0 +1,121 @@
+import type { FeasibleMap } from '../../engine/window/index.ts';
+
+/** A labelled run of one edge of the feasible map: consecutive columns bound by the same constraint. */
+export interface EdgeRun {
+  side: 'lower' | 'upper';
+  label: string;
+  /** Polyline points in pixels. */
+  points: [number, number][];
+  /** Where the label sits (pixels). */
+  at: [number, number];
+}
+
+/** The drawable geometry of a feasible map in a box of `width` × `height` pixels. */
+export interface WindowMapGeometry {
+  width: number;
+  height: number;
+  /** One rectangle per open column interval. */
+  cells: { x: number; y: number; width: number; height: number }[];
+  edges: EdgeRun[];
+  /** Axis ticks: value and pixel. */
+  xTicks: { value: number; px: number }[];
+  yTicks: { value: number; px: number }[];
+  /** Maps a setting pair to pixels and back (snapping to the settings' steps). */
+  toPixels(x: number, y: number): [number, number];
+  fromPixels(px: number, py: number): { x: number; y: number };
+}
+
+/** Margins of the plot box inside the drawing (pixels): room for ticks and axis titles. */
+export const MAP_PADDING = { left: 44, right: 10, top: 10, bottom: 30 };
+
+/**
+ * Lays out a feasible map for drawing: log scales on both settings, one rectangle per open interval
+ * of each column (half-way to its neighbours), the lower and upper edges as polylines split into runs
+ * by binding constraint, and the pixel ↔ setting conversion a click uses (snapped to the steps).
+ * Geometry only: the window itself comes from the engine.
+ *
+ * @example windowMapGeometry(window.maps[0], 420, 260).cells.length
+ */
+export function windowMapGeometry(map: FeasibleMap, width: number, height: number): WindowMapGeometry {
+  const { left, right, top, bottom } = MAP_PADDING;
+  const lx = (v: number) => Math.log(v);
+  const [x0, x1] = [lx(map.x.min), lx(map.x.max === map.x.min ? map.x.min * 1.01 : map.x.max)];
+  const [y0, y1] = [lx(map.y.min), lx(map.y.max === map.y.min ? map.y.min * 1.01 : map.y.max)];
+  const px = (v: number) => left + ((lx(v) - x0) / (x1 - x0)) * (width - left - right);
+  const py = (v: number) => height - bottom - ((lx(v) - y0) / (y1 - y0)) * (height - top - bottom);
+  const columns = map.columns;
+  const half = (i: number, side: -1 | 1) => {
+    const neighbour = columns[i + side];
+    const here = px(columns[i].x);
+    if (!neighbour) return side < 0 ? Math.max(left, here - 6) : Math.min(width - right, here + 6);
+    return (here + px(neighbour.x)) / 2;
+  };
+  const cells = columns.flatMap((c, i) =>
+    c.intervals.map((interval) => {
+      const xa = half(i, -1);
+      const xb = half(i, 1);
+      const ya = py(interval.to);
+      const yb = py(interval.from);
+      return { x: xa, y: ya, width: Math.max(1, xb - xa), height: Math.max(2, yb - ya) };
+    }),
+  );
+  const edges: EdgeRun[] = [];
+  for (const side of ['lower', 'upper'] as const) {
+    let run: EdgeRun | undefined;
+    let runId = '';
+    columns.forEach((c, i) => {
+      const interval = c.intervals[0];
+      if (!interval) {
+        run = undefined;
+        return;
+      }
+      const binding = side === 'lower' ? interval.lower : interval.upper;
+      const y = py(side === 'lower' ? interval.from : interval.to);
+      const points: [number, number][] = [
+        [half(i, -1), y],
+        [half(i, 1), y],
+      ];
+      if (run && runId === binding.id) run.points.push(...points);
+      else {
+        run = { side, label: binding.label, points, at: points[0] };
+        runId = binding.id;
+        edges.push(run);
+      }
+    });
+  }
+  for (const edge of edges) {
+    const mid = edge.points[Math.floor(edge.points.length / 2)];
+    edge.at = [mid[0], mid[1] + (edge.side === 'lower' ? 12 : -4)];
+  }
+  const ticksOf = (min: number, max: number, steps?: number[]) => {
+    const candidates = steps && steps.length <= 12 ? steps : niceLogTicks(min, max);
+    return candidates.filter((v) => v >= min * (1 - 1e-9) && v <= max * (1 + 1e-9));
+  };
+  const snap = (value: number, min: number, max: number, steps?: number[]) => {
+    const clamped = Math.min(max, Math.max(min, value));
+    if (!steps) return Number(clamped.toPrecision(3));
+    return steps.reduce((best, v) => (Math.abs(lx(v) - lx(clamped)) < Math.abs(lx(best) - lx(clamped)) ? v : best));
+  };
+  return {
+    width,
+    height,
+    cells,
+    edges,
+    xTicks: ticksOf(map.x.min, map.x.max, map.x.values).map((value) => ({ value, px: px(value) })),
+    yTicks: ticksOf(map.y.min, map.y.max, map.y.values).map((value) => ({ value, px: py(value) })),
+    toPixels: (x, y) => [px(x), py(y)],
+    fromPixels: (cx, cy) => {
+      const x = Math.exp(x0 + ((cx - left) / (width - left - right)) * (x1 - x0));
+      const y = Math.exp(y0 + ((height - bottom - cy) / (height - top - bottom)) * (y1 - y0));
+      return { x: snap(x, map.x.min, map.x.max, map.x.values), y: snap(y, map.y.min, map.y.max, map.y.values) };
+    },
+  };
+}
+
+/** 1, 2, 5 × 10ⁿ between `min` and `max`. */
+function niceLogTicks(min: number, max: number): number[] {
+  const ticks: number[] = [];
+  for (let e = Math.floor(Math.log10(min)); e <= Math.ceil(Math.log10(max)); e++)
+    for (const m of [1, 2, 5]) ticks.push(Number((m * Math.pow(10, e)).toPrecision(3)));
+  return ticks;
+}

@@ -1,0 +1,83 @@
+import { mkdirSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
+
+let bench: Workbench;
+beforeAll(async () => {
+  bench = await startWorkbench(4191);
+});
+afterAll(async () => {
+  await bench?.close();
+});
+
+describe('the Window panel in Chromium', () => {
+  it('has the expected defaults: a hint until a device is selected, then the map with its labelled edges and both marks', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('tab-window').click();
+    await expect(page.getByTestId('window-panel').textContent()).resolves.toMatch(/Select a device/);
+    await page.getByTestId('tree-device-MAIN').click();
+    await page.getByTestId('window-map').waitFor();
+    await page.getByTestId('window-map').scrollIntoViewIfNeeded();
+    const labels = await page.getByTestId('edge-label').allTextContents();
+    expect(labels.length).toBeGreaterThan(1);
+    expect(labels.join(' ')).toMatch(/coordinate with|carry|offered/);
+    await expect(page.getByTestId('map-current').count()).resolves.toBe(1);
+    await expect(page.getByTestId('map-recommended').count()).resolves.toBe(1);
+    mkdirSync('out', { recursive: true });
+    await page.screenshot({ path: 'out/window-panel.png' });
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
+  it('a click inside the map applies that setting as one undoable step, and the findings follow', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('tree-device-MAIN').click();
+    await page.getByTestId('tab-window').click();
+    await page.getByTestId('window-map').waitFor();
+    await page.getByTestId('window-map').scrollIntoViewIfNeeded();
+    const before = await page.getByTestId('map-current').getAttribute('cx');
+    const cells = page.locator('[data-testid="window-map"] rect.feasible');
+    const count = await cells.count();
+    expect(count).toBeGreaterThan(0);
+    const box = (await cells.nth(0).boundingBox())!;
+    await page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
+    await settled(page);
+    await page.waitForFunction(
+      (old) => document.querySelector('[data-testid="map-current"]')?.getAttribute('cx') !== old,
+      before,
+    );
+    await expect(page.getByTestId('window-status').textContent()).resolves.toMatch(/a window exists/);
+    await page.keyboard.press('Control+z');
+    await settled(page);
+    await page.waitForFunction(
+      (old) => document.querySelector('[data-testid="map-current"]')?.getAttribute('cx') === old,
+      before,
+    );
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
+  it('proposes settings for the overlap demo as a reviewable list; accepting applies them as one step and clears the failures', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('demo-menu').selectOption('harrowmere-overlap.json');
+    await settled(page);
+    await page.getByTestId('tab-window').click();
+    await page.getByTestId('propose-study').click();
+    await page.getByTestId('proposal').waitFor();
+    expect(await page.getByTestId('proposal-change').count()).toBeGreaterThan(3);
+    await expect(page.getByTestId('proposal').textContent()).resolves.toMatch(/failing findings \d+\s*→\s*0/);
+    const failsBefore = await page.locator('[data-testid="finding"].fail').count();
+    expect(failsBefore).toBeGreaterThan(0);
+    await page.getByTestId('proposal-accept').click();
+    await settled(page);
+    await page.waitForFunction(() => document.querySelectorAll('[data-testid="finding"].fail').length === 0);
+    await page.keyboard.press('Control+z');
+    await settled(page);
+    await page.waitForFunction(
+      (n) => document.querySelectorAll('[data-testid="finding"].fail').length === n,
+      failsBefore,
+    );
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+});
