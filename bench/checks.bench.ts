@@ -212,7 +212,7 @@ function casesOf(study: Study, label: string): PairCase[] {
     const between = transformersBetween(network, upBus.id, downBus.id);
     if (between.some((t) => t.connection === 'delta-wye')) {
       const options = { ...base, toAmps: fault.lineToLine };
-      cases.push({ name: `${name} line-to-line`, up: scaleBand(up, 0.866), down, options });
+      cases.push({ name: `${name} line-to-line`, up: scaleBand(up, Math.sqrt(3) / 2), down, options });
     }
     const upGround = groundFaultBandOf(upstream.characteristic);
     if (upGround && between.length === 0 && fault.lineToGround > 0) {

@@ -1,4 +1,4 @@
-import { bandOf, groundFaultBandOf, type Band } from './band.ts';
+import { bandOf, fastestOf, groundFaultBandOf, type Band } from './band.ts';
 import type { Characteristic } from './devices/characteristic.ts';
 
 /**
@@ -111,4 +111,19 @@ class LazyBands extends Map<string, Band> {
   override [Symbol.iterator](): MapIterator<[string, Band]> {
     return this.entries();
   }
+}
+
+const fastestPairs = new WeakMap<Band, WeakMap<Band, Band>>();
+
+/**
+ * `fastestOf([phase, ground])`, built once per pair of band objects (a device's phase band and its
+ * ground-fault band, met again in every pair the device is part of).
+ * @example cachedFastestOf(cachedBandOf(c), cachedGroundBandOf(c)!).minTime(1500)
+ */
+export function cachedFastestOf(phase: Band, ground: Band): Band {
+  let byGround = fastestPairs.get(phase);
+  if (!byGround) fastestPairs.set(phase, (byGround = new WeakMap()));
+  let band = byGround.get(ground);
+  if (!band) byGround.set(ground, (band = fastestOf([phase, ground])));
+  return band;
 }

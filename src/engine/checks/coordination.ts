@@ -1,5 +1,5 @@
-import { fastestOf, scaleBand } from '../band.ts';
-import { cachedGroundBandOf } from '../bandCache.ts';
+import { scaleBand } from '../band.ts';
+import { cachedFastestOf, cachedGroundBandOf } from '../bandCache.ts';
 import { isPhaseShifting, primaryConnectionOf, secondaryWindingOf, throughFaultOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { findOverlaps, type OverlapInterval } from '../overlap.ts';
@@ -116,8 +116,8 @@ export function checkPair(
     const upGround = cachedGroundBandOf(upstream.characteristic);
     if (upGround && between.length === 0 && through.lineToGround > 0) {
       const downGround = cachedGroundBandOf(downstream.characteristic);
-      const up = fastestOf([bands.get(upstream.id)!, upGround]);
-      const down = downGround ? fastestOf([downBand, downGround]) : downBand;
+      const up = cachedFastestOf(bands.get(upstream.id)!, upGround);
+      const down = downGround ? cachedFastestOf(downBand, downGround) : downBand;
       cases.push({
         fault: 'ground-fault',
         referenceVolts,
