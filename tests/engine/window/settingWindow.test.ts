@@ -67,6 +67,18 @@ describe('settingWindowOf', () => {
     expect(() => settingWindowOf(study, 'NOPE')).toThrow(/^device: expected one of R-T1, MAIN, FDR, got "NOPE"$/);
   });
 
+  it('uses the setting ranges a device declares in the study in place of the generic ones', () => {
+    const own = workedStudy();
+    own.devices![2] = { ...own.devices![2], adjustable: { 'longTime.delay': { values: [4, 8, 12] } } };
+    const row = settingWindowOf(parseStudy(own), 'FDR', { maps: false }).settings.find(
+      (s) => s.key === 'longTime.delay',
+    )!;
+    expect(row).toMatchObject({ values: [4, 8, 12], min: 4, max: 12, rangeSource: 'range given in the study' });
+    expect(() => parseStudy({ ...own, devices: [{ ...own.devices![2], adjustable: { delay: { max: 2 } } }] })).toThrow(
+      /adjustable/,
+    );
+  });
+
   // IEEE 242 practice for the relay margin over a low-voltage breaker (the study's margin rule); the
   // brute force checks the whole study at each grid point, independently of the window's bisection.
   it.each([
