@@ -46,7 +46,7 @@ export interface LayoutOptions {
   searchStep?: number;
   /** How far from its anchor (px) the fallback search looks for a free spot. @default 240 */
   searchRadius?: number;
-  /** How many labels may use the fallback search; later ones with no free candidate are unplaced. @default 80 */
+  /** How many labels may use the fallback search; later ones with no free candidate are unplaced. @default 40 */
   searchLimit?: number;
 }
 
@@ -68,7 +68,7 @@ export function placeLabels(
   options: LayoutOptions,
 ): { placed: LabelPlacement[]; unplaced: string[] } {
   const { bounds, obstacles = [], lines = [], lineOwners = [], lineCost = 4, gap = 1, searchStep = 6 } = options;
-  const { nearGap = 6, nearCost = 1, searchRadius = 240, searchLimit = 80 } = options;
+  const { nearGap = 6, nearCost = 1, searchRadius = 240, searchLimit = 40 } = options;
   const segments = new SegmentIndex(lines, lineOwners, CELL);
   const taken = new BoxIndex(CELL);
   for (const o of obstacles) taken.add(o);
@@ -78,13 +78,17 @@ export function placeLabels(
   let searches = 0;
 
   for (const request of requests) {
-    const lineCosts = (box: Box) =>
-      lineCost * segments.count(box) + nearCost * segments.count(grow(box, nearGap), request.id);
+    // The crossings' cost, counted only as far as `budget` (a box already dearer than the best is not counted out).
+    const lineCosts = (box: Box, budget = Infinity) => {
+      const crossing = lineCost * segments.count(box, undefined, budget / lineCost);
+      if (crossing >= budget) return crossing;
+      return crossing + nearCost * segments.count(grow(box, nearGap), request.id, (budget - crossing) / nearCost);
+    };
     let best: LabelCandidate | null = null;
     let bestCost = Infinity;
     for (const candidate of request.candidates) {
       if (candidate.cost >= bestCost || !free(candidate.box)) continue;
-      const cost = candidate.cost + lineCosts(candidate.box);
+      const cost = candidate.cost + lineCosts(candidate.box, bestCost - candidate.cost);
       if (cost < bestCost) [best, bestCost] = [candidate, cost];
     }
     let leader: LabelPlacement['leader'] = null;
@@ -166,7 +170,7 @@ function searchFree(
   step: number,
   radius: number,
   free: (box: Box) => boolean,
-  crossingCost: (box: Box) => number,
+  crossingCost: (box: Box, budget?: number) => number,
 ): LabelCandidate | null {
   const { width, height, anchor } = request;
   let best: LabelCandidate | null = null;
@@ -181,7 +185,7 @@ function searchFree(
       const distanceCost = Math.hypot(lx - anchor[0], ly - anchor[1]) / 10;
       if (best && distanceCost >= best.cost) continue;
       if (!free(box)) continue;
-      const cost = distanceCost + crossingCost(box);
+      const cost: number = distanceCost + crossingCost(box, best ? best.cost - distanceCost : Infinity);
       if (!best || cost < best.cost) best = { box, cost };
     }
   }
@@ -233,12 +237,16 @@ class SegmentIndex {
     this.#seen = new Int32Array(this.#segLine.length);
   }
 
-  /** Segments touching the box; with `notOwnedBy`, only those of lines that have an owner other than it. */
-  count(box: Box, notOwnedBy?: string): number {
+  /**
+   * Segments touching the box; with `notOwnedBy`, only those of lines that have an owner other than it.
+   * Stops counting once the count passes `limit`.
+   */
+  count(box: Box, notOwnedBy?: string, limit = Infinity): number {
     const query = ++this.#query;
     let count = 0;
     forCells(box.x, box.y, box.x + box.width, box.y + box.height, this.#cell, (key) => {
       for (const id of this.#cells.get(key) ?? []) {
+        if (count > limit) return true;
         if (this.#seen[id] === query) continue;
         this.#seen[id] = query;
         const l = this.#segLine[id];
@@ -250,6 +258,7 @@ class SegmentIndex {
         const i = this.#segAt[id];
         if (segmentCrossesBox(line[i], line[i + 1], line[i + 2], line[i + 3], box)) count++;
       }
+      return false;
     });
     return count;
   }
@@ -278,13 +287,20 @@ class BoxIndex {
   }
 }
 
-// Accepts a rectangle's corners; calls back with the key of every grid cell it touches.
-function forCells(x0: number, y0: number, x1: number, y1: number, cell: number, visit: (key: number) => void): void {
+// Accepts a rectangle's corners; calls back with the key of every grid cell it touches, until the callback returns true.
+function forCells(
+  x0: number,
+  y0: number,
+  x1: number,
+  y1: number,
+  cell: number,
+  visit: (key: number) => boolean | void,
+): void {
   const c0 = Math.floor(x0 / cell);
   const c1 = Math.floor(x1 / cell);
   const r0 = Math.floor(y0 / cell);
   const r1 = Math.floor(y1 / cell);
-  for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) visit((r + 4096) * 8192 + (c + 4096));
+  for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) if (visit((r + 4096) * 8192 + (c + 4096))) return;
 }
 
 // Accepts a box; the same box grown by `by` px on every side.
