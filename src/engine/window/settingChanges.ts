@@ -17,7 +17,9 @@ export interface DocumentSettingChange {
  */
 export function withSettingChanges<T>(document: T, changes: DocumentSettingChange[]): T {
   // A JSON copy: the document is plain JSON by contract, and this also reads a reactive proxy of it.
-  const copy = JSON.parse(JSON.stringify(document)) as { devices?: { id: string; characteristic: Record<string, unknown> }[] };
+  const copy = JSON.parse(JSON.stringify(document)) as {
+    devices?: { id: string; characteristic: Record<string, unknown> }[];
+  };
   for (const change of changes) {
     const device = copy.devices?.find((d) => d.id === change.deviceId);
     if (!device) throw new RangeError(`no device "${change.deviceId}" in the document`);
