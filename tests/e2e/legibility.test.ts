@@ -138,4 +138,37 @@ describe('a sheet and a workbench read at a glance, in Chromium', () => {
       }
     await context.close();
   });
+
+  it('point import lists every problem, says at which voltage the currents are, and makes the curve the user’s own', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('demo-menu').selectOption('harrowmere-fused.json');
+    await settled(page);
+    // A trip unit takes no point table: no import is offered.
+    await page.getByTestId('tree-device-MAIN').click();
+    await expect(page.getByTestId('csv-import-open').count()).resolves.toBe(0);
+    await page.getByTestId('tree-device-F-T1').click();
+    await page.getByTestId('csv-import-open').click();
+    await expect(page.getByTestId('csv-voltage').textContent()).resolves.toMatch(/amperes at 12\.47 kV/);
+    await page.getByTestId('csv-text').fill('current,time\n100,abc\n200,300\n150,10\n');
+    await expect(page.getByTestId('csv-problem-item').allTextContents()).resolves.toEqual([
+      'row 2: expected a time in seconds greater than 0, got "abc"',
+      'row 4: expected a current above the previous point\'s 200, got "150"',
+    ]);
+    await page.getByTestId('csv-text').fill('current,time\n150,300\n400,10\n2000,0.02\n');
+    await page.getByTestId('csv-apply').click();
+    await settled(page);
+    await expect(page.locator('[data-testid$="characteristic.label"]').inputValue()).resolves.toBe(
+      'F-T1: digitised points imported by the user',
+    );
+    await context.close();
+  });
+
+  it('a device made from the 65 A medium-voltage fuse template carries its rating', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('tree-transformer-T2').click();
+    await page.getByTestId('template-add').selectOption('fuse-illustrative-mv-power-65');
+    await page.getByTestId('tree-device-D-T2').waitFor();
+    await expect(page.locator('[data-testid$=".rating"]').first().inputValue()).resolves.toBe('65 A');
+    await context.close();
+  });
 });
