@@ -52,18 +52,27 @@ const VERBS: Array<{ verb: string; args: string[]; target: number; ok: number[] 
 let results: Measured[] | undefined;
 function measure(): Measured[] {
   if (results) return results;
-  const build = spawnSync('npm', ['run', '--silent', 'prepare'], { cwd: ROOT, encoding: 'utf8' });
-  if (build.status !== 0) throw new Error(`npm run prepare failed: ${build.stderr}`);
+  const prepare = () => {
+    const build = spawnSync('npm', ['run', '--silent', 'prepare'], { cwd: ROOT, encoding: 'utf8' });
+    if (build.status !== 0) throw new Error(`npm run prepare failed: ${build.stderr}`);
+  };
+  prepare();
   const times: number[][] = VERBS.map(() => []);
   for (let round = -1; round < ROUNDS; round++) {
     VERBS.forEach(({ verb, args, ok }, i) => {
-      const start = performance.now();
-      const run = spawnSync('npm', ['run', '--silent', 'discern', '--', ...args], { cwd: ROOT, encoding: 'utf8' });
-      const seconds = (performance.now() - start) / 1000;
-      if (!ok.includes(run.status ?? -1)) throw new Error(`discern ${verb} ended with ${run.status}: ${run.stderr}`);
-      if (run.stderr.includes('running the sources'))
-        throw new Error(`discern ${verb} ran the sources, not the bundle`);
-      if (round >= 0) times[i].push(seconds);
+      // A source edited meanwhile makes the command run the sources: rebuild and time it again.
+      for (let attempt = 0; ; attempt++) {
+        const start = performance.now();
+        const run = spawnSync('npm', ['run', '--silent', 'discern', '--', ...args], { cwd: ROOT, encoding: 'utf8' });
+        const seconds = (performance.now() - start) / 1000;
+        if (!ok.includes(run.status ?? -1)) throw new Error(`discern ${verb} ended with ${run.status}: ${run.stderr}`);
+        if (!run.stderr.includes('running the sources')) {
+          if (round >= 0) times[i].push(seconds);
+          break;
+        }
+        if (attempt === 3) throw new Error(`discern ${verb} kept running the sources: src/ changed as it ran`);
+        prepare();
+      }
     });
   }
   results = times.map((t) => medianOf(t, `${ROUNDS} new processes, verbs taking turns`));

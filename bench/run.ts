@@ -18,7 +18,16 @@ for (const file of modules) {
   const { benchmarks } = (await import(pathToFileURL(join(here, file)).href)) as { benchmarks: Benchmark[] };
   for (const bench of benchmarks) {
     if (only.length > 0 && !only.some((id) => bench.id.startsWith(id))) continue;
-    const { value, spread, detail } = await bench.run();
+    let measured;
+    try {
+      measured = await bench.run();
+    } catch (error) {
+      failed++;
+      rows.push([bench.id, bench.what, 'failed', '', '', 'NO', (error as Error).message.split('\n')[0]]);
+      console.error(`${bench.id} failed: ${(error as Error).message}`);
+      continue;
+    }
+    const { value, spread, detail } = measured;
     const ratio = value / bench.target;
     const holds = bench.higherIsBetter
       ? value >= bench.target
