@@ -1,4 +1,5 @@
 import { expectedGot, InputError } from '../engine/errors.ts';
+import { jsonTextProblem, withoutBom } from '../engine/study/jsonText.ts';
 import { readStudy, type Study } from '../engine/study/index.ts';
 import type { CommandIO } from './command.ts';
 
@@ -19,4 +20,28 @@ export function loadStudyFile(path: string | undefined, io: CommandIO, verb: str
   const { study, problems } = readStudy(text);
   if (!study) throw new InputError(problems[0].path, problems[0].message);
   return study;
+}
+
+/**
+ * Reads a JSON file by the same rules as a study (a byte-order mark dropped, syntax errors and
+ * repeated fields on one line naming the field path under `base`, with line:column) and returns the
+ * document. For verbs that read a file before knowing whether it is a study or a device.
+ *
+ * @example const document = readJsonFile('device.json', io.readText, 'device')
+ */
+export function readJsonFile(
+  path: string,
+  readText: CommandIO['readText'],
+  base: string,
+  expected = 'a readable file',
+): unknown {
+  let text: string;
+  try {
+    text = withoutBom(readText(path));
+  } catch {
+    throw new InputError(path, expectedGot(expected, path));
+  }
+  const problem = jsonTextProblem(text, /^\s*\{\s*"discern"/.test(text) ? 'study' : base);
+  if (problem) throw new InputError(problem.path, problem.message);
+  return JSON.parse(text);
 }

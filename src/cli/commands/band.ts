@@ -6,6 +6,7 @@ import { formatVolts, parseQuantity, significant } from '../../engine/quantity/i
 import { readStudy } from '../../engine/study/index.ts';
 import { flagText, parseArgs, requiredFlag } from '../args.ts';
 import type { Command } from '../command.ts';
+import { readJsonFile } from '../studyFile.ts';
 import { formatTable, tableAmps } from '../table.ts';
 
 const HELP = `discern band <device-or-study.json> [--device id] --amps 100,1000,… [--json]
@@ -99,18 +100,8 @@ function deviceOf(
   readText: (path: string) => string,
   deviceId: string | undefined,
 ): { id?: string; characteristic: Characteristic; volts?: number } {
-  let text: string;
-  try {
-    text = readText(path);
-  } catch {
-    throw new InputError(path, expectedGot('a readable device or study file', path));
-  }
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch (error) {
-    throw new InputError(path, `expected JSON text, got a syntax error (${(error as Error).message})`);
-  }
+  // The same reading rules as every study file (byte-order mark, one-line syntax errors, repeated fields).
+  const raw = readJsonFile(path, readText, 'device', 'a readable device or study file');
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
     throw new InputError(path, expectedGot('a JSON object', raw));
   }

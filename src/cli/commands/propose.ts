@@ -4,7 +4,7 @@ import { expectedGot, InputError } from '../../engine/errors.ts';
 import { proposeSettings, settingText, withSettingChanges, type Proposal } from '../../engine/window/index.ts';
 import { flagText, parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
-import { loadStudyFile } from '../studyFile.ts';
+import { loadStudyFile, readJsonFile } from '../studyFile.ts';
 import { formatTable } from '../table.ts';
 
 const HELP = `discern propose <study.json> [--view ID | --all] [--out proposed.json] — proposed settings
@@ -61,7 +61,7 @@ export const proposeCommand: Command = {
     }
     const proposal = proposeSettings(study, { deviceIds });
     if (out !== undefined) {
-      const document: unknown = JSON.parse(io.readText(path!));
+      const document = readJsonFile(path!, io.readText, 'study');
       const written = withSettingChanges(document, proposal.changes);
       io.writeFile(out, `${JSON.stringify(written, null, 2)}\n`);
     }
