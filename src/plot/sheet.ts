@@ -84,8 +84,9 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
     current: input.currentRange ?? inferCurrentRange(input),
     time: input.timeRange ?? DEFAULT_TIME_RANGE,
   };
+  const brief = resolved.studyDetails === 'brief';
   const strip = studyStrip(
-    { ...input, view: input.view, caution: input.caution },
+    { ...input, ...(brief ? { notes: undefined, caution: '' } : {}) },
     { x: margin, y: margin, width: width - 2 * margin, fontSize },
   );
   const across = frameOf(ranges, { strip: strip.height, faults: 0, key: 0 }, resolved);

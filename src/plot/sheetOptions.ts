@@ -12,6 +12,12 @@ export interface SheetOptions {
   fontSize?: number;
   /** Prefix of the ids the SVG defines (hatch patterns), so several sheets can share one page. @default 'tcc' */
   idPrefix?: string;
+  /**
+   * How much of the study strip a sheet prints: `'full'` (title, revision, date, details, notes and the
+   * caution, as every exported figure carries them) or `'brief'` (title, revision, date and details:
+   * for a page that prints the caution itself, so the plot keeps the room). @default 'full'
+   */
+  studyDetails?: 'full' | 'brief';
   /** CSS font list, DejaVu Sans first: the face text is measured in. @default 'DejaVu Sans, Arial, Helvetica, sans-serif' */
   fontFamily?: string;
 }
@@ -26,6 +32,7 @@ export const sheetDefaults: ResolvedSheetOptions = {
   margin: 16,
   fontSize: 11,
   idPrefix: 'tcc',
+  studyDetails: 'full',
   fontFamily: 'DejaVu Sans, Arial, Helvetica, sans-serif',
 };
 
@@ -43,6 +50,8 @@ export function resolveSheetOptions(options: SheetOptions = {}): ResolvedSheetOp
   within('options.fontSize', fontSize, 7, 24, 'a font size in px from 7 to 24');
   if (typeof idPrefix !== 'string' || !/^[A-Za-z][\w-]*$/.test(idPrefix))
     throw new InputError('options.idPrefix', expectedGot('a letter followed by letters, digits, "_" or "-"', idPrefix));
+  if (resolved.studyDetails !== 'full' && resolved.studyDetails !== 'brief')
+    throw new InputError('options.studyDetails', expectedGot('"full" or "brief"', resolved.studyDetails));
   if (typeof fontFamily !== 'string' || /[<>"&]/.test(fontFamily) || fontFamily.trim() === '')
     throw new InputError('options.fontFamily', expectedGot('a CSS font list without <, >, " or &', fontFamily));
   return resolved;

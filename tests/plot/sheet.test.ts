@@ -125,4 +125,14 @@ describe('sheetOf', () => {
     expect(new Set(dashes).size).toBe(dashes.length);
     for (const p of sheet.patterns) expect(colours).not.toContain(p.colour);
   });
+
+  it('sheetOf with brief study details leaves the caution to the page and gives the plot the room', () => {
+    const full = sheetOf(fixtureInput());
+    const brief = sheetOf(fixtureInput(), { studyDetails: 'brief' });
+    const roles = (sheet: typeof full) => sheet.layers.flatMap((l) => l.items).map((p) => p.role);
+    expect(roles(full)).toContain('caution');
+    expect(roles(brief)).not.toContain('caution');
+    expect(roles(brief)).toContain('sheet-title');
+    expect(brief.frame.top).toBeLessThan(full.frame.top);
+  });
 });

@@ -10,6 +10,7 @@ describe('resolveSheetOptions', () => {
       margin: 16,
       fontSize: 11,
       idPrefix: 'tcc',
+      studyDetails: 'full',
       fontFamily: 'DejaVu Sans, Arial, Helvetica, sans-serif',
     });
     expect(resolveSheetOptions({ width: 1200, height: undefined }).height).toBe(720);
@@ -21,6 +22,7 @@ describe('resolveSheetOptions', () => {
       [{ height: NaN }, /^options\.height: expected a height in px of at least 360, got "NaN"$/],
       [{ margin: -1 }, /^options\.margin: expected a margin in px from 0 to 100, got "-1"$/],
       [{ fontSize: 40 }, /^options\.fontSize: expected a font size in px from 7 to 24, got "40"$/],
+      [{ studyDetails: 'some' as 'full' }, /^options\.studyDetails: expected "full" or "brief", got "some"$/],
       [
         { idPrefix: '1 bad' },
         /^options\.idPrefix: expected a letter followed by letters, digits, "_" or "-", got "1 bad"$/,

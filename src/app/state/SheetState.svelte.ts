@@ -48,7 +48,14 @@ export class SheetState {
     const height = Math.max(360, this.height);
     try {
       return {
-        sheet: sheetOf(input, { width, height, fontSize: this.largeText ? 14 : 11, idPrefix: 'live' }),
+        // The page prints the caution in its footer, so the live sheet's strip leaves it to the exported figure.
+        sheet: sheetOf(input, {
+          width,
+          height,
+          fontSize: this.largeText ? 14 : 11,
+          idPrefix: 'live',
+          studyDetails: 'brief',
+        }),
       };
     } catch (error) {
       return { error: (error as Error).message };

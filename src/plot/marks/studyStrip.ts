@@ -31,7 +31,7 @@ export interface StudyStripFields {
   preparedBy?: string;
   checkedBy?: string;
   notes?: string;
-  /** The caution every figure carries (DESIGN §9). */
+  /** The caution every figure carries (DESIGN §9); left out when empty (a page that prints it itself). */
   caution: string;
 }
 
@@ -98,7 +98,8 @@ export function studyStrip(
     const kept = lines.length > noteLines ? [...lines.slice(0, noteLines - 1), `${lines[noteLines - 1]} …`] : lines;
     blocks.push(['strip-notes', kept, SHEET_COLOURS.text]);
   }
-  blocks.push(['caution', wrapText(fields.caution, textWidthMax, detailSize), SHEET_COLOURS.mutedText]);
+  if (fields.caution)
+    blocks.push(['caution', wrapText(fields.caution, textWidthMax, detailSize), SHEET_COLOURS.mutedText]);
   for (const [role, lines, fill] of blocks)
     for (const line of lines) {
       items.push(text(role, textX, baseline, line, detailSize, fill));
