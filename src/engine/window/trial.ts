@@ -1,4 +1,4 @@
-import { bandOf } from '../band.ts';
+import { cachedBandOf } from '../bandCache.ts';
 import { protectingDevice, type CheckContext } from '../checks/context.ts';
 import { faultLevelsOf } from '../fault/index.ts';
 import { networkOf, seriesPairs } from '../network/index.ts';
@@ -40,7 +40,7 @@ export interface ProtectedElements {
 export function trialOf(study: Study): Trial {
   const network = networkOf(study);
   const faults = faultLevelsOf(network);
-  const bands = new Map(study.devices.map((device) => [device.id, bandOf(device.characteristic)]));
+  const bands = new Map(study.devices.map((device) => [device.id, cachedBandOf(device.characteristic)]));
   const aboveOf = new Map<string, string>();
   const belowOf = new Map<string, string[]>();
   for (const { upstream, downstream } of seriesPairs(network)) {
@@ -80,7 +80,7 @@ export function trialOf(study: Study): Trial {
     place(device) {
       network.devices.set(device.id, device);
       network.deviceFeeding.set(device.feeds, device);
-      bands.set(device.id, bandOf(device.characteristic));
+      bands.set(device.id, cachedBandOf(device.characteristic));
     },
     deviceOf(id) {
       const device = network.devices.get(id);
