@@ -171,4 +171,15 @@ describe('a sheet and a workbench read at a glance, in Chromium', () => {
     await expect(page.locator('[data-testid$=".rating"]').first().inputValue()).resolves.toBe('65 A');
     await context.close();
   });
+
+  it('Tab out of a setting goes to the next setting', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('tree-device-MAIN').click();
+    const fields = page.locator('[data-testid="properties"] input[data-testid^="field-"]');
+    await fields.nth(1).focus();
+    const next = await fields.nth(2).getAttribute('data-testid');
+    await page.keyboard.press('Tab');
+    await expect(page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).resolves.toBe(next);
+    await context.close();
+  });
 });
