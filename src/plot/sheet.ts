@@ -17,7 +17,8 @@ import { curveColour, OKABE_ITO } from './palette.ts';
 import { drawWindowOf, scalesOf, type DrawWindow, type PlotFrame, type SheetScales } from './scales.ts';
 import { inferCurrentRange } from './currentRange.ts';
 import { frameOf, type SheetFrame } from './sheetFrame.ts';
-import { checkSheetInput, type RegionStatus, type SheetInput } from './sheetInput.ts';
+import { checkSheetInput, type RegionStatus, type SheetBand, type SheetInput } from './sheetInput.ts';
+import type { BandTrace } from './bandTrace.ts';
 import { resolveSheetOptions, type SheetOptions } from './sheetOptions.ts';
 import { textWidth } from './textWidth.ts';
 
@@ -130,6 +131,7 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
   // Stage 3: the plot with its labels, laid out once with no key; again with room for the key if some label found no place.
   const entries = legendEntriesOf(input, { colours, coincident: new Map(), dashes, patternIds, markerColours });
   let key = 0;
+  const traces = new Map<SheetBand, { key: string; trace: BandTrace | null }>();
   let plot = drawPlot(input, frameOf(ranges, { strip: strip.height, faults: faultBand, key }, resolved), {
     ranges,
     colours,
@@ -137,6 +139,7 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
     patternIds,
     markerColours,
     fontSize,
+    traces,
   });
   const keyWidth = width - 2 * margin;
   const keyEntriesOf = (p: DrawnPlot) => {
@@ -156,6 +159,7 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
       patternIds,
       markerColours,
       fontSize,
+      traces,
     });
     keyEntries = keyEntriesOf(plot);
   }
@@ -222,6 +226,7 @@ function drawPlot(
     patternIds: Map<RegionStatus, string>;
     markerColours: string[];
     fontSize: number;
+    traces: Map<SheetBand, { key: string; trace: BandTrace | null }>;
   },
 ): DrawnPlot {
   const { colours, dashes, patternIds, markerColours, fontSize } = codes;
@@ -250,7 +255,7 @@ function drawPlot(
   const coincident = new Map<string, boolean>();
   const curveSpecs: LabelSpec[] = [];
   for (const b of input.bands) {
-    const g = bandArea(b, scales, { colour: colours.get(b.id)!, dash: dashes.get(b.id) });
+    const g = bandArea(b, scales, { colour: colours.get(b.id)!, dash: dashes.get(b.id), traces: codes.traces });
     coincident.set(b.id, !g.items.some((p) => p.role === 'band-fill') && g.items.length > 0);
     fills.push(...g.items.filter((p) => p.role === 'band-fill'));
     edges.push(...g.items.filter((p) => p.role !== 'band-fill'));

@@ -47,7 +47,9 @@ describe('pdfOf', () => {
 
   it('pdfOfPages prints one page per entry, each with its placements', async () => {
     const page = [{ svg, x: 36, y: 36, width: 480, height: 360 }];
-    const pdf = text(await pdfOfPages([page, page, page], { paper: 'a4', orientation: 'portrait', date: '2026-12-02' }));
+    const pdf = text(
+      await pdfOfPages([page, page, page], { paper: 'a4', orientation: 'portrait', date: '2026-12-02' }),
+    );
     expect(pdf.match(/\/Type \/Page\b(?!s)/g)).toHaveLength(3);
     expect(pdf).toContain('/CreationDate (D:20261202');
   });

@@ -41,6 +41,8 @@ export interface BandAreaOptions {
   strokeWidth?: number;
   /** Opacity of the fill between the edges, 0–1. @default 0.13 */
   fillOpacity?: number;
+  /** Traces kept between layouts of one sheet, by band; a band traced for the same windows is not traced again. */
+  traces?: Map<SheetBand, { key: string; trace: BandTrace | null }>;
   /** Simplification tolerance in px. @default 0.1 */
   tolerance?: number;
 }
@@ -66,7 +68,15 @@ export function bandArea(sheetBand: SheetBand, scales: SheetScales, options: Ban
   const perDecade =
     Math.abs(scales.x.range[1] - scales.x.range[0]) / Math.log10(scales.x.domain[1] / scales.x.domain[0]);
   const to = Math.min(window.amps[1], sheetBand.toAmps ?? Infinity);
-  const trace = traceBand(sheetBand.band, { ...window, amps: [window.amps[0], to] }, Math.max(8, perDecade));
+  // The trace depends on the band, the current and time windows and the samples per decade, not on the
+  // plot's height: a sheet laid out twice (to make room for its key) samples each band once.
+  const key = `${window.amps[0]}|${to}|${window.seconds[0]}|${window.seconds[1]}|${Math.max(8, perDecade)}`;
+  const cached = options.traces?.get(sheetBand);
+  const trace =
+    cached && cached.key === key
+      ? cached.trace
+      : traceBand(sheetBand.band, { ...window, amps: [window.amps[0], to] }, Math.max(8, perDecade));
+  options.traces?.set(sheetBand, { key, trace });
   if (!trace) return { items: [], strokes: [] };
   const [bottom, top] = window.seconds;
   const first = trace.minTimes.findIndex((t) => t <= top);
