@@ -15,6 +15,7 @@ describe('marginRuleOf', () => {
       pairs: [],
       fuseRatio: 0.75,
       edition: '2023',
+      sensitivity: { maxTime: 2 },
     });
   });
 
