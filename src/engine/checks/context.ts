@@ -63,6 +63,8 @@ export function surelyClearsFrom(band: Band, limit: number, horizon = Infinity):
   const clears = (amps: number) => band.maxTime(amps) <= horizon;
   let lo = band.minAmps;
   if (clears(lo)) return lo;
+  // A band defined from 0 A would never double its way up: the schema forbids it, and this guards it.
+  if (!(lo > 0)) return Infinity;
   let hi = lo * 2;
   while (!clears(hi)) {
     if (hi > limit) return Infinity;

@@ -26,14 +26,14 @@ export function defaultMarginRule(up: Family, down: Family, fuseRatio = 0.75): M
       margin: 0.12,
       timeRatio: 1,
       basis:
-        '0.12 s relay over relay, downstream band includes its breaker time (IEEE 242 ch. 15 CTI less breaker time, digital relays; 0.22 s for electromechanical) (from memory)',
+        '0.12 s relay over relay, downstream band includes its breaker time (IEEE 242 ch. 15 coordination time interval less the breaker time, digital relays; 0.22 s for electromechanical; a default to check against the edition you work to, set in coordination.margins)',
     };
   }
   if (up === 'relay') {
     return {
       margin: 0.2,
       timeRatio: 1,
-      basis: `0.2 s relay over a ${down} band (IEEE 242 ch. 15, relay over fuse or LV breaker, from memory)`,
+      basis: `0.2 s relay over a ${down} band (IEEE 242 ch. 15, relay over fuse or LV breaker; a default to check against the edition you work to, set in coordination.margins)`,
     };
   }
   if (up === 'fuse' && down === 'fuse') {

@@ -1,4 +1,4 @@
-import { NEC_TABLE_9, parseConductorSize } from '../conductors/index.ts';
+import { NEC_TABLE_9, parseConductorSize, TABLE_9_SPAN } from '../conductors/index.ts';
 import { expectedGot, InputError } from '../errors.ts';
 import { networkOf, upstreamDeviceOf } from '../network/network.ts';
 import { formatSI } from '../quantity/format.ts';
@@ -113,11 +113,7 @@ export function structureProblems(study: Study): StudyProblem[] {
     try {
       const size = parseConductorSize(c.size, path);
       if ((c.resistance === undefined || c.reactance === undefined) && !NEC_TABLE_9[size])
-        problem(
-          path,
-          'a size in NEC Table 9 (12 AWG to 750 kcmil), or "resistance" and "reactance" per 1000 ft',
-          c.size,
-        );
+        problem(path, `a size in NEC Table 9 (${TABLE_9_SPAN}), or "resistance" and "reactance" per 1000 ft`, c.size);
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
       problems.push({ path, message: error.message.slice(path.length + 2) });

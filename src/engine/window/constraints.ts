@@ -13,7 +13,6 @@ import { inrushMarkersOf, type Marker } from '../withstand/index.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
 import type { Device } from '../study/index.ts';
 import { fullLoadOf } from './fullLoad.ts';
-import { publicBasis } from './publicBasis.ts';
 import type { Trial } from './trial.ts';
 
 /** What a constraint is about (DESIGN §3 "constraint"). */
@@ -291,7 +290,7 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
     id: `${which}:${other.id}`,
     kind: which === 'below' ? 'coordinate-below' : 'coordinate-above',
     label: `coordinate with ${nameOf(other)} ${which === 'below' ? 'below' : 'above'} (${separation})`,
-    source: publicBasis(rule.basis),
+    source: rule.basis,
     favours: which === 'below' ? 'slower' : 'faster',
     subjects: [other.id],
     rule,

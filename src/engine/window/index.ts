@@ -38,7 +38,6 @@ export { fullLoadOf } from './fullLoad.ts';
 export type { FullLoad } from './fullLoad.ts';
 export { trialOf } from './trial.ts';
 export type { Trial, ProtectedElements } from './trial.ts';
-export { publicBasis } from './publicBasis.ts';
 export { proposeSettings, PROPOSAL_ORDER } from './proposal.ts';
 export type { Proposal, ProposalOptions, DeviceProposal, SettingChange } from './proposal.ts';
 export { withSettingChanges } from './settingChanges.ts';

@@ -116,9 +116,7 @@ describe('readStudy', () => {
     const broken = demoText.replace('"voltage": 480', '"voltage": 480,,');
     const message = firstProblem(broken);
     expect(message).not.toContain('\n');
-    expect(message).toMatch(
-      /^study\.buses\[1\]: expected a field name in double quotes at line \d+:\d+, got ","$/,
-    );
+    expect(message).toMatch(/^study\.buses\[1\]: expected a field name in double quotes at line \d+:\d+, got ","$/);
   });
 
   it('refuses a field given twice in one object (JSON.parse would keep the last silently)', () => {
