@@ -1,4 +1,4 @@
-// P4 and P6 of DESIGN §7: the workbench's redraw and probe times in headless Chromium, and the size
+// P4 and P6 of DEVELOPERS.md, benchmarks: the workbench's redraw and probe times in headless Chromium, and the size
 // of what a browser downloads to start it.
 import { spawn, spawnSync } from 'node:child_process';
 import { readFileSync, readdirSync } from 'node:fs';

@@ -1,4 +1,4 @@
-// P1 (DESIGN §7): evaluate one band at 1,000 currents spread over its curve region — from the
+// P1 (DEVELOPERS.md, benchmarks): evaluate one band at 1,000 currents spread over its curve region — from the
 // band's lowest operating current to ten times it, where the formulas run — one row per family.
 // The families are timed in rounds, each round in a new random order, so no family's call site is
 // warmed for it alone; the figure is the median round, the spread that of all rounds.

@@ -1,10 +1,10 @@
 /**
- * One benchmark of DESIGN §7: what it measures, its target, and how to run it. `run` returns the
+ * One benchmark of DEVELOPERS.md, benchmarks: what it measures, its target, and how to run it. `run` returns the
  * measured figure in `unit` and the spread of the runs it came from; a lower figure is better unless
  * `higherIsBetter`.
  */
 export interface Benchmark {
-  /** DESIGN §7 id, e.g. 'P1'. */
+  /** DEVELOPERS.md, benchmarks id, e.g. 'P1'. */
   id: string;
   what: string;
   unit: string;

@@ -1,4 +1,4 @@
-// P2, P2e and P3 (DESIGN §7): the whole analysis of generated studies, from the study's text to every
+// P2, P2e and P3 (DEVELOPERS.md, benchmarks): the whole analysis of generated studies, from the study's text to every
 // finding; band evaluations per pair check against what the check needs; and the overlap finder's
 // edges against reference grids.
 import { GCProfiler } from 'node:v8';
@@ -244,7 +244,7 @@ function p3Cases(): PairCase[] {
   return [...demo, ...distinct];
 }
 
-/** The class the finder gives one current, re-stated independently from DESIGN §4 for the references. */
+/** The class the finder gives one current, re-stated independently from DEVELOPERS.md, bands and overlaps for the references. */
 function classAt(c: PairCase, amps: number): number {
   const { margin, timeRatio, thinMargin, horizon } = c.options;
   const never = (t: number) => (t > horizon ? Infinity : t);

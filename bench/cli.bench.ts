@@ -1,4 +1,4 @@
-// P5 (DESIGN §7): wall time of each command-line verb on the demo, run exactly as the README runs it
+// P5 (DEVELOPERS.md, benchmarks): wall time of each command-line verb on the demo, run exactly as the README runs it
 // (`npm run discern -- …`, which runs the bundle `npm install` builds). The bundle is rebuilt from
 // the sources first, so the figures are for the code as it is now. Every run is a new process; the
 // verbs take turns, round after round.

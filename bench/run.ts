@@ -1,5 +1,5 @@
 // `npm run bench`: runs every benchmark module in bench/ and prints each figure beside its target
-// (DESIGN §7), the ratio figure / target, and the spread (min / median / max) of the runs behind it.
+// (DEVELOPERS.md, benchmarks), the ratio figure / target, and the spread (min / median / max) of the runs behind it.
 // `npm run bench -- P1 P3` runs only those ids (a prefix matches: P2 also runs P2e).
 import { readdirSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';

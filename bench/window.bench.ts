@@ -1,4 +1,4 @@
-// P7 and P8 (DESIGN §7): one device's setting window in the 25-device demo, and proposals for a
+// P7 and P8 (DEVELOPERS.md, benchmarks): one device's setting window in the 25-device demo, and proposals for a
 // generated 2,000-device study.
 import { readFileSync } from 'node:fs';
 import { parseStudy, type Study } from '../src/engine/study/index.ts';

@@ -17,7 +17,7 @@ export interface CommandIO {
 
 /**
  * One `discern <verb>`: its name, a one-line summary for `discern --help`, its own help text, and
- * `run`, which resolves to the exit code (DESIGN §5: 0 done, 1 a check failed, 2 bad input). Bad input
+ * `run`, which resolves to the exit code (DEVELOPERS.md, command line: 0 done, 1 a check failed, 2 bad input). Bad input
  * is thrown as `InputError`; the dispatcher prints its one-line message and exits 2.
  *
  * @example const code = await transformerCommand.run(['--kva', '1500', ...], io)

@@ -14,7 +14,7 @@ import { faultLevelsOf, type FaultLevels } from './fault/index.ts';
 import { locationBusOf, networkOf, seriesPairs, type Network } from './network/index.ts';
 import type { Study } from './study/index.ts';
 
-/** Everything the checks found for one study (DESIGN §2: the data the plots and reports render). */
+/** Everything the checks found for one study (DEVELOPERS.md, data flow: the data the plots and reports render). */
 export interface Analysis {
   study: Study;
   network: Network;
@@ -34,7 +34,7 @@ export interface Analysis {
 
 /**
  * Runs every check on a study that `readStudy` accepted: fault levels at every bus, each device's
- * band, every series pair (DESIGN §4), transformer through-fault and inrush protection, NEC 450.3
+ * band, every series pair (DEVELOPERS.md, bands and overlaps), transformer through-fault and inrush protection, NEC 450.3
  * limits, cable short-circuit protection, motor starting, interrupting duty and equipment short-circuit
  * ratings (NFPA 70 110.9, 110.10) and sensitivity to the minimum fault in each zone. Pure: the result
  * depends only on `study`; a `memo` kept from the analysis before an edit (see `AnalysisMemo`) only

@@ -5,7 +5,7 @@ import { thermalMagneticBand } from './devices/thermalMagnetic.ts';
 import { groundBandOf, tripUnitBand } from './devices/tripUnit.ts';
 
 /**
- * A band: what one protective device does on a TCC sheet (DESIGN §3, §4).
+ * A band: what one protective device does on a TCC sheet (DEVELOPERS.md, names).
  *
  * For a current `amps` (RMS symmetrical, at the device's own voltage):
  * - `minTime(amps)` — the earliest time, in seconds, at which the device may operate
@@ -40,7 +40,7 @@ export interface Band {
   diagnostics: string[];
 }
 
-/** One half-cycle, rounded as practitioners draw it: below this a TCC proves nothing (REFERENCE §3.5). */
+/** One half-cycle, rounded as practitioners draw it: below this a TCC proves nothing (IEEE 242; the half-cycle limit, common practice). */
 export const HALF_CYCLE_SECONDS = 0.01;
 
 /**
@@ -63,8 +63,8 @@ export function evaluateBand(
 
 /**
  * A band scaled to another voltage base: a current that flows at `fromVolts` is drawn at
- * `I · fromVolts / toVolts` (REFERENCE §1.7), optionally multiplied by a fault-type factor
- * (REFERENCE §1.8, e.g. 1/0.866 = 1.155 for the primary device on a Δ–Yg secondary L-L fault).
+ * `I · fromVolts / toVolts` (voltage-ratio reflection, IEEE 242), optionally multiplied by a fault-type factor
+ * (IEEE C37.91 / IEEE C57.109 delta–wye shift factors, e.g. 1/0.866 = 1.155 for the primary device on a Δ–Yg secondary L-L fault).
  *
  * @example scaleBand(feederBand, 480 / 12470) // a 480 V feeder drawn on a 12.47 kV sheet
  */

@@ -1,5 +1,5 @@
 /**
- * The short caution every page, figure and report carries (DESIGN §9, REFERENCE §8).
+ * The short caution every page, figure and report carries (the cautions in README.md, the cautions of practice).
  * @example svg footer, report header, CLI output
  */
 export const CAUTION =

@@ -1,6 +1,6 @@
 import { HALF_CYCLE_SECONDS, type Band } from './band.ts';
 
-/** How a pair of bands relates over a current interval (DESIGN §4). */
+/** How a pair of bands relates over a current interval (DEVELOPERS.md, bands and overlaps). */
 export type IntervalStatus = 'selective' | 'thin margin' | 'overlap' | 'not provable from curves';
 
 /** The point of an interval where the upstream device comes closest to (or furthest inside) the downstream band. */
@@ -37,7 +37,7 @@ export interface OverlapOptions {
   margin?: number;
   /**
    * Fraction of the upstream earliest time that the downstream clearing time must stay under (the
-   * fuse–fuse "75 % rule", REFERENCE §4.3, is 0.75). @default 1
+   * fuse–fuse "75 % rule", common practice, is 0.75). @default 1
    */
   timeRatio?: number;
   /** A positive margin smaller than this (s) is a "thin margin". @default 0.1 */
@@ -71,7 +71,7 @@ const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not 
 
 /**
  * Finds, exactly, where an upstream band and a downstream band (on one voltage base) can and cannot be
- * told apart (DESIGN §4). The range is split at every breakpoint of both bands, each smooth segment is
+ * told apart (DEVELOPERS.md, bands and overlaps). The range is split at every breakpoint of both bands, each smooth segment is
  * sampled on a log grid (evaluated once), every local dip of the time ratio is probed at its
  * bottom, and every change of class is bracketed and refined to `tolerance`: at a
  * breakpoint in one step, elsewhere by Illinois regula falsi on the logarithm of the times, which

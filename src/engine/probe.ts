@@ -18,7 +18,7 @@ export interface ProbeReading {
   beyondFault?: boolean;
 }
 
-/** What the vertical readout on the sheet shows at one current (DESIGN §3 "probe"). */
+/** What the vertical readout on the sheet shows at one current (DEVELOPERS.md, names "probe"). */
 export interface Probe {
   /** The probed current on the view's reference voltage (A). */
   amps: number;

@@ -21,7 +21,7 @@ export interface SampledBand {
 const JUST_BELOW = 1 - 1e-9;
 
 /**
- * Samples a band for drawing (DESIGN §4): log-spaced currents from `fromAmps` to `toAmps` (both
+ * Samples a band for drawing (DEVELOPERS.md, bands and overlaps): log-spaced currents from `fromAmps` to `toAmps` (both
  * included), plus every breakpoint inside that range and a point just below each (1e-9 relative) so
  * a vertical edge is exact; sorted ascending, without duplicates. Throws `RangeError` on a bad range.
  *

@@ -1,5 +1,5 @@
 /**
- * One step of a worked calculation (DESIGN §3 "work"): what is computed, the formula, the formula
+ * One step of a worked calculation (DEVELOPERS.md, names "work"): what is computed, the formula, the formula
  * with the numbers put in, and the result with its unit — enough for a person to follow and check it.
  *
  * @example { label: 'secondary full-load current', formula: 'I = S / (√3 · V)',

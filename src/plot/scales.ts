@@ -104,7 +104,7 @@ export interface DrawWindow {
 
 /**
  * Where curves may be drawn: the whole current axis, and times from the half-cycle line (0.01 s,
- * REFERENCE §3.5: practitioners stop every curve there) or the axis bottom if higher, to the top.
+ * IEEE 242; the half-cycle limit, common practice: practitioners stop every curve there) or the axis bottom if higher, to the top.
  * @example drawWindowOf(scales).seconds // [0.01, 1000]
  */
 export function drawWindowOf(scales: SheetScales): DrawWindow {

@@ -21,9 +21,9 @@ import type {
 } from './sheetInput.ts';
 
 /**
- * Gathers what one view of an analysed study draws, all on the view's reference voltage (DESIGN §3):
+ * Gathers what one view of an analysed study draws, all on the view's reference voltage (DEVELOPERS.md, names):
  * each device's band scaled by `V_own / V_ref`, the transformer and cable withstand curves (with the
- * Δ–Yg secondary line-to-ground curve × 0.58 beside a transformer's three-phase curve, REFERENCE §1.8),
+ * Δ–Yg secondary line-to-ground curve × 0.58 beside a transformer's three-phase curve, IEEE C37.91 / IEEE C57.109 delta–wye shift factors),
  * inrush points, motor starting curves, each bus's maximum fault current as a line labelled at both
  * voltages, and the non-selective regions of the view's pairs, each hatched between the two edges in
  * conflict. Where a finding rests on a secondary line-to-line fault the upstream band is drawn again,

@@ -1,5 +1,5 @@
 // Serves the built workbench (dist/) with `vite preview` and drives it with Debian's Chromium
-// through playwright-core (TOOLCHAIN.md: spawn vite directly, never through npx; one browser per file).
+// through playwright-core (DEVELOPERS.md: spawn vite directly, never through npx; one browser per file).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';

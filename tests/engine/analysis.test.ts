@@ -40,7 +40,7 @@ describe('analyseStudy', () => {
     expect(failing('selective')).toEqual([]);
   });
 
-  it('checks pairs across the Δ–Y transformer for the secondary line-to-line case too (REFERENCE §1.8 item 1)', () => {
+  it('checks pairs across the Δ–Y transformer for the secondary line-to-line case too (IEEE C37.91 / IEEE C57.109 delta–wye shift factors item 1)', () => {
     const analysis = analyseStudy(parseStudy(demo('selective')));
     const primary = analysis.pairs.find((p) => p.upstream === 'R-T1')!;
     expect(primary.cases.map((c) => c.fault)).toEqual(['three-phase', 'line-to-line']);

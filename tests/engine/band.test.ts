@@ -65,7 +65,7 @@ describe('band', () => {
     }
   });
 
-  it('bandOf(relay) at 6000 A is the REFERENCE §7.5 IEEE VI TD 2 time plus the 5-cycle breaker (computed)', () => {
+  it('bandOf(relay) at 6000 A is the hand-worked IEEE C37.112 relay times IEEE VI TD 2 time plus the 5-cycle breaker (computed)', () => {
     const band = bandOf(characteristicSchema.parse(inputs.relay));
     assertInDelta(band.minTime(6000), 1.37816, 1e-5);
     assertInDelta(band.maxTime(6000), 1.37816 + 5 / 60, 1e-5);
@@ -78,7 +78,7 @@ describe('band', () => {
     expect([...maxTimes]).toEqual([Infinity, 120, 0.02]);
   });
 
-  it('scaleBand moves a bandOf result to another voltage base (REFERENCE §1.7)', () => {
+  it('scaleBand moves a bandOf result to another voltage base (voltage-ratio reflection, IEEE 242)', () => {
     const band = bandOf(characteristicSchema.parse(inputs['trip-unit']));
     const onPrimary = scaleBand(band, 480 / 12470);
     assertInDelta(onPrimary.minTime(1200 * (480 / 12470)), band.minTime(1200), 1e-12);

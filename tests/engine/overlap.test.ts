@@ -5,7 +5,7 @@ import { scaleBand } from '../../src/engine/band.ts';
 import { findOverlaps, type OverlapInterval } from '../../src/engine/overlap.ts';
 import { assertInDelta } from '../asserts.ts';
 
-/** An I²t ramp `t = k / I²` above `pickup`, as an LV long-time element draws (REFERENCE §3.2); one edge. */
+/** An I²t ramp `t = k / I²` above `pickup`, as an LV long-time element draws (IEEE 1015 trip-unit practice); one edge. */
 function ramp(k: number, pickup: number, spread = 1): Band {
   const time = (amps: number, scale: number) => (amps < pickup ? Infinity : (scale * k) / (amps * amps));
   return {
@@ -19,7 +19,7 @@ function ramp(k: number, pickup: number, spread = 1): Band {
   };
 }
 
-/** A definite-time element: nothing below `pickup`, then flat at `delay` (REFERENCE §2.3). */
+/** A definite-time element: nothing below `pickup`, then flat at `delay` (IEEE C37.112 definite-time practice). */
 function definite(pickup: number, delay: number, clearing = 0): Band {
   return {
     minTime: (amps) => (amps < pickup ? Infinity : delay),
@@ -86,7 +86,7 @@ describe('findOverlaps', () => {
   });
 
   it('matches the hand-solved overlap edge of two IEEE very-inverse relays', () => {
-    // Downstream VI 400 A TD 1; upstream VI 600 A TD 1.05; required 0.3 s (REFERENCE §7.5 pair, computed).
+    // Downstream VI 400 A TD 1; upstream VI 600 A TD 1.05; required 0.3 s (hand-worked IEEE C37.112 relay times pair, computed).
     // At 4000 A the least dial for 0.30 s is 1.04956, so TD 1.04 overlaps just above 4000 A somewhere and TD 1.05 does not at 4000 A.
     const up = veryInverse(600, 1.04956);
     const down = veryInverse(400, 1);

@@ -13,7 +13,7 @@ describe('probeAt', () => {
     expect(probe.readings.map((r) => r.deviceId)).toEqual(['R-T1', 'MAIN', 'FDR-MCC', 'MCC-M1']);
   });
 
-  it('reads each device at its own voltage: 10 kA at 480 V is 384.9 A at 12.47 kV (REFERENCE §1.7)', () => {
+  it('reads each device at its own voltage: 10 kA at 480 V is 384.9 A at 12.47 kV (voltage-ratio reflection, IEEE 242)', () => {
     const relay = probeAt(analysis, 'service', 10_000).readings[0];
     expect(relay.ownVolts).toBe(12_470);
     expect(relay.ownAmps).toBeCloseTo((10_000 * 480) / 12_470, 6);

@@ -2,7 +2,7 @@ import type { Band } from '../../src/engine/band.ts';
 import type { StartingCurve, WithstandCurve } from '../../src/engine/withstand/withstand.ts';
 import type { SheetInput } from '../../src/plot/sheetInput.ts';
 
-/** IEEE C37.112 very inverse, TD × (19.61 / (M² − 1) + 0.491) s (REFERENCE §2.1, constants confirmed). */
+/** IEEE C37.112 very inverse, TD × (19.61 / (M² − 1) + 0.491) s (IEEE C37.112, constants confirmed). */
 export function veryInverse(multiple: number, timeDial: number): number {
   return multiple <= 1 ? Infinity : timeDial * (19.61 / (multiple * multiple - 1) + 0.491);
 }
@@ -60,7 +60,7 @@ export function singleLineBand(): Band {
 }
 
 /**
- * C57.109 Category II thermal points of the 2500 kVA, 480 V example (REFERENCE §7.7, computed):
+ * C57.109 Category II thermal points of the 2500 kVA, 480 V example (hand-worked IEEE C57.109 Category II case, computed):
  * FLA 3007.03 A; 2, 3, 4.75, 6.3, 11.18 pu at 1800, 300, 60, 30, 10 s; the curve ends at 17.39 pu, 2 s.
  */
 export function transformerCurve(): WithstandCurve {
@@ -88,7 +88,7 @@ export function transformerCurve(): WithstandCurve {
   };
 }
 
-/** 100 hp, 460 V motor (REFERENCE §7.9): FLC 124 A, LRA 789.46 A to 5 s, 1.6 × LRA = 1263.1 A first cycle. */
+/** 100 hp, 460 V motor (hand-worked NFPA 70 Table 430.7(B) case): FLC 124 A, LRA 789.46 A to 5 s, 1.6 × LRA = 1263.1 A first cycle. */
 export function motorStart(): StartingCurve {
   return {
     elementId: 'M1',

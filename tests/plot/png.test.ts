@@ -7,7 +7,7 @@ import { darkPixels, decodePng } from './pngPixels.ts';
 
 const sheet = sheetOf(fixtureInput());
 const svg = svgOf(sheet);
-// The band of current tick labels just under the plot (TOOLCHAIN.md: text vanishes silently without fonts).
+// The band of current tick labels just under the plot (DEVELOPERS.md: text vanishes silently without fonts).
 const underAxis = {
   x: sheet.frame.left,
   y: sheet.frame.bottom + 8,

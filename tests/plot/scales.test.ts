@@ -47,7 +47,7 @@ describe('scalesOf', () => {
 });
 
 describe('drawWindowOf', () => {
-  it('drawWindowOf starts curves at the half-cycle line when the axis reaches below it (REFERENCE §3.5)', () => {
+  it('drawWindowOf starts curves at the half-cycle line when the axis reaches below it (IEEE 242; the half-cycle limit, common practice)', () => {
     const low = scalesOf({ current: [10, 1e5], time: [0.001, 1000] }, { left: 0, top: 0, right: 400, bottom: 600 });
     expect(drawWindowOf(low).seconds).toEqual([0.01, 1000]);
     expect(drawWindowOf(scales).seconds).toEqual([0.01, 1000]);

@@ -18,7 +18,7 @@ describe('viewInputOf', () => {
     expect(input.caution).toBe(CAUTION);
   });
 
-  it('draws a 480 V device on the 12.47 kV sheet at I · 480 / 12 470 (REFERENCE §1.7)', () => {
+  it('draws a 480 V device on the 12.47 kV sheet at I · 480 / 12 470 (voltage-ratio reflection, IEEE 242)', () => {
     const analysis = analysed('selective');
     const main = viewInputOf(analysis, 'primary').bands[1];
     const own = analysis.bands.get('MAIN')!;
@@ -33,7 +33,7 @@ describe('viewInputOf', () => {
     expect(swbd.ownVolts).toBe(480);
   });
 
-  it('adds the Δ–Yg secondary line-to-ground withstand curve, shifted by 1/√3 (REFERENCE §1.8 item 2), and the inrush points', () => {
+  it('adds the Δ–Yg secondary line-to-ground withstand curve, shifted by 1/√3 (IEEE C37.91 / IEEE C57.109 delta–wye shift factors item 2), and the inrush points', () => {
     const input = viewInputOf(analysed('selective'), 'primary');
     expect(input.withstand.map((w) => w.id)).toEqual(['T1', 'T1:shifted']);
     assertInDelta(input.withstand[1].scale / input.withstand[0].scale, 1 / Math.sqrt(3), 1e-3);

@@ -5,7 +5,7 @@ import { sheetOf } from '../../src/plot/sheet.ts';
 import { svgOf } from '../../src/plot/svg.ts';
 import { viewInputOf } from '../../src/plot/viewInput.ts';
 
-// Sheets of the shipped demo studies (DESIGN §8, invented site and illustrative curves), one per view worth reviewing.
+// Sheets of the shipped demo studies (the demo studies, invented site and illustrative curves), one per view worth reviewing.
 const analysed = new Map<string, ReturnType<typeof analyseStudy>>();
 
 function demoSheet(file: string, view: string): string {

@@ -6,8 +6,8 @@ import { fixtureInput } from '../plot/fixtures.ts';
 /** Named SVG sheets from the hand-built bands (IEEE C37.112 VI relay, I²t breaker line); each becomes `tests/output/<name>.svg`. */
 export const fixturePlots: Record<string, () => string> = {
   'fixture-relay-breaker': () => svgOf(sheetOf(fixtureInput())),
-  // The same devices on a 12.47 kV base: 480 V curves move left by 480 / 12 470 (REFERENCE §1.7) and the
-  // fault line reads 28.4 kA @ 480 V = 1.09 kA @ 12.47 kV (REFERENCE §7.4).
+  // The same devices on a 12.47 kV base: 480 V curves move left by 480 / 12 470 (voltage-ratio reflection, IEEE 242) and the
+  // fault line reads 28.4 kA @ 480 V = 1.09 kA @ 12.47 kV (hand-worked per-unit case (1500 kVA, 12.47 kV–480 V)).
   'fixture-primary-base': () => {
     const base = fixtureInput();
     const k = 480 / 12_470;
@@ -26,7 +26,5 @@ export const fixturePlots: Record<string, () => string> = {
     );
   },
   'fixture-small-sheet': () =>
-    svgOf(
-      sheetOf(fixtureInput({ timeRange: [0.001, 1000] }), { width: 640, height: 480, fontSize: 9 }),
-    ),
+    svgOf(sheetOf(fixtureInput({ timeRange: [0.001, 1000] }), { width: 640, height: 480, fontSize: 9 })),
 };

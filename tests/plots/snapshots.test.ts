@@ -4,7 +4,7 @@ import { demoPlots } from './demo.ts';
 import { fixturePlots } from './fixtures.ts';
 import { normaliseSvg } from './normalise.ts';
 
-// STYLE.md rule 13: each registered sheet is compared, normalised, with tests/output/<name>.svg.
+// DEVELOPERS.md rule 13: each registered sheet is compared, normalised, with tests/output/<name>.svg.
 // Regenerate with UPDATE_SNAPSHOTS=1 (or vitest -u) and review the change with git diff.
 const plots = { ...fixturePlots, ...demoPlots };
 const output = (name: string) => new URL(`../output/${name}.svg`, import.meta.url);

@@ -3,7 +3,7 @@ import type { StudyContext } from '../state/context.ts';
 import type { DocumentPath } from './documentPath.ts';
 import type { StudyInput } from '../../engine/study/index.ts';
 
-/** What `npm run bench` (DESIGN §7, P4) calls in the page: timings only, no access to anything else. */
+/** What `npm run bench` (DEVELOPERS.md, benchmarks, P4) calls in the page: timings only, no access to anything else. */
 export interface BenchHook {
   /**
    * Sets the field at `path` to each of `values` in turn and returns, for each, the milliseconds

@@ -1,5 +1,5 @@
 /**
- * The caution every page, figure and report carries (DESIGN §9), word for word.
+ * The caution every page, figure and report carries (the cautions in README.md), word for word.
  * @example `<p>{CAUTION}</p>`
  */
 export const CAUTION =

@@ -44,7 +44,7 @@ Example: discern transformer --kva 1500 --primary "12.47 kV" --secondary 480 --i
 `;
 
 /**
- * `discern transformer`: the quick calculation of DESIGN §5 — full-load amps on both sides, the
+ * `discern transformer`: the quick calculation of DEVELOPERS.md, command line — full-load amps on both sides, the
  * infinite-bus and finite-source secondary fault, its primary-reflected value, and the work.
  *
  * @example await transformerCommand.run(['--kva', '1500', '--primary', '12.47 kV', '--secondary', '480', '--impedance', '5.75'], io)

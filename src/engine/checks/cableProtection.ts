@@ -11,7 +11,7 @@ import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
 
 /**
  * Checks that the device nearest above a cable clears before the cable's ICEA P-32-382 short-circuit
- * limit (REFERENCE §5.6), from the current where the limit is 10 s up to the maximum fault at the
+ * limit (ICEA P-32-382), from the current where the limit is 10 s up to the maximum fault at the
  * cable's supply end (the largest current the cable can carry into a fault).
  *
  * @example cableFindings(context, cable)

@@ -44,7 +44,7 @@ const SEVERITY: Record<OverlapInterval['status'], Severity> = {
 };
 
 /**
- * Checks one upstream/downstream pair over the current range it can see (DESIGN §4): from the lowest
+ * Checks one upstream/downstream pair over the current range it can see (DEVELOPERS.md, bands and overlaps): from the lowest
  * current either device can operate up to the largest current that flows through both for a fault just
  * below the downstream device (`throughFaultOf`: the source side plus the motors whose contribution
  * passes through both), on the downstream device's voltage base.

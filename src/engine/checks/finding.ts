@@ -1,6 +1,6 @@
 import type { Work } from '../work.ts';
 
-/** What a check looked at (DESIGN §3 "finding"). */
+/** What a check looked at (DEVELOPERS.md, names "finding"). */
 export type FindingKind =
   | 'coordination'
   | 'transformer-withstand'

@@ -16,7 +16,7 @@ export interface MarginRule {
 const LV_BREAKER = new Set(['trip-unit', 'thermal-magnetic']);
 
 /**
- * Default margins by pair kind (REFERENCE §6.1). Every band already contains its own tolerance and
+ * Default margins by pair kind (IEEE 242 ch. 15). Every band already contains its own tolerance and
  * clearing time (a relay band's maxTime includes the breaker), so the margins below are what is left:
  * relay overtravel and setting error, not the downstream breaker time again.
  */
@@ -40,7 +40,7 @@ export function defaultMarginRule(up: Family, down: Family, fuseRatio = 0.75): M
     return {
       margin: 0,
       timeRatio: fuseRatio,
-      basis: `downstream total clearing ≤ ${fuseRatio * 100} % of upstream minimum melting (REFERENCE §4.3, common practice)`,
+      basis: `downstream total clearing ≤ ${fuseRatio * 100} % of upstream minimum melting (common practice)`,
     };
   }
   if (up === 'fuse' && down === 'relay') {

@@ -7,7 +7,7 @@ import { nameOf, protectingDevice, rangeOf, type CheckContext } from './context.
 import type { Finding } from './finding.ts';
 
 /**
- * Checks that a motor's start does not trip the device above it (REFERENCE §5.7): at every point of
+ * Checks that a motor's start does not trip the device above it (NFPA 70 Article 430): at every point of
  * the starting curve — full-load current at long times, locked-rotor current until the acceleration
  * time, the asymmetrical first-cycle point — the device's earliest operating time must be later.
  *

@@ -4,7 +4,7 @@ import type { WithstandCurve } from '../withstand/index.ts';
 /**
  * A withstand curve seen as the "upstream" side of the overlap finder: the equipment lasts until
  * `timeAt(I)`, so a device protects it where its clearing time stays below that. `scale` moves the
- * curve's currents onto the sheet's base (and applies a Δ–Y shift, REFERENCE §1.8).
+ * curve's currents onto the sheet's base (and applies a Δ–Y shift, IEEE C37.91 / IEEE C57.109 delta–wye shift factors).
  *
  * @example findOverlaps(withstandBandOf(curve, 480 / 12470), primaryFuseBand, { toAmps, halfCycle: 0 })
  */

@@ -54,7 +54,7 @@ export interface CompositeEdge {
 
 /**
  * Combines elements into one edge: at each current the device operates on the fastest element
- * (REFERENCE §2.3 "composite"), never faster than `floor` seconds, and `add` seconds are added
+ * (IEEE C37.112 definite-time practice "composite"), never faster than `floor` seconds, and `add` seconds are added
  * (the breaker interrupting time of a relay's clearing edge). Non-increasing if every element is.
  *
  * @example compositeEdge([definiteElement(600, 0.5), definiteElement(3000, 0.02)], 0.016, 0.083).time(4000) // 0.103 s
@@ -162,7 +162,7 @@ export function definiteElement(pickup: number, seconds: number): EdgeElement {
  * An I²t ramp `t = seconds · (throughAmps / I)²` from `pickup`, held flat at `seconds` above
  * `flatFrom` amps (`Infinity` for a ramp that never flattens, like a long-time delay).
  *
- * @example i2tElement(720, 10, 4800).time(2400) // 40 s (REFERENCE §7.6 long-time, tolerance-free)
+ * @example i2tElement(720, 10, 4800).time(2400) // 40 s (hand-worked trip-unit case long-time, tolerance-free)
  */
 export function i2tElement(pickup: number, seconds: number, throughAmps: number, flatFrom = Infinity): EdgeElement {
   const k = seconds * throughAmps * throughAmps;

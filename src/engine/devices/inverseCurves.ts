@@ -1,5 +1,5 @@
 /**
- * Constants of the standard inverse-time relay characteristics, as data (REFERENCE §2.1, §2.2).
+ * Constants of the standard inverse-time relay characteristics, as data (IEEE C37.112 and IEC 60255-151).
  * Every curve has the form `t = dial · (a / (M^p − 1) + b)` for `M = I / I_pickup > 1`, where the
  * dial is the IEEE time dial or the IEC time multiplier; `reset` is the electromechanical-reset
  * constant `t_r` of `t_reset = dial · t_r / (1 − M²)`, where the standard gives one.
@@ -12,7 +12,7 @@ export const INVERSE_CURVES = {
     b: 0.114,
     p: 0.02,
     reset: 4.85,
-    source: 'IEEE C37.112-1996 (a, b, p confirmed; t_r from memory), REFERENCE §2.1',
+    source: 'IEEE C37.112-1996 (a, b, p confirmed; t_r from memory), IEEE C37.112',
   },
   'ieee-very-inverse': {
     label: 'IEEE very inverse',
@@ -20,7 +20,7 @@ export const INVERSE_CURVES = {
     b: 0.491,
     p: 2,
     reset: 21.6,
-    source: 'IEEE C37.112-1996 (a, b, p confirmed; t_r from memory), REFERENCE §2.1',
+    source: 'IEEE C37.112-1996 (a, b, p confirmed; t_r from memory), IEEE C37.112',
   },
   'ieee-extremely-inverse': {
     label: 'IEEE extremely inverse',
@@ -28,7 +28,7 @@ export const INVERSE_CURVES = {
     b: 0.1217,
     p: 2,
     reset: 29.1,
-    source: 'IEEE C37.112-1996 (a, b, p confirmed; t_r from memory), REFERENCE §2.1',
+    source: 'IEEE C37.112-1996 (a, b, p confirmed; t_r from memory), IEEE C37.112',
   },
   'iec-standard-inverse': {
     label: 'IEC standard inverse (type A)',
@@ -36,7 +36,7 @@ export const INVERSE_CURVES = {
     b: 0,
     p: 0.02,
     reset: undefined,
-    source: 'IEC 60255-151 type A (confirmed), REFERENCE §2.2',
+    source: 'IEC 60255-151 type A (confirmed), IEC 60255-151',
   },
   'iec-very-inverse': {
     label: 'IEC very inverse (type B)',
@@ -44,7 +44,7 @@ export const INVERSE_CURVES = {
     b: 0,
     p: 1,
     reset: undefined,
-    source: 'IEC 60255-151 type B (confirmed), REFERENCE §2.2',
+    source: 'IEC 60255-151 type B (confirmed), IEC 60255-151',
   },
   'iec-extremely-inverse': {
     label: 'IEC extremely inverse (type C)',
@@ -52,7 +52,7 @@ export const INVERSE_CURVES = {
     b: 0,
     p: 2,
     reset: undefined,
-    source: 'IEC 60255-151 type C (confirmed), REFERENCE §2.2',
+    source: 'IEC 60255-151 type C (confirmed), IEC 60255-151',
   },
   'iec-long-time-inverse': {
     label: 'IEC long-time inverse',
@@ -60,7 +60,7 @@ export const INVERSE_CURVES = {
     b: 0,
     p: 1,
     reset: undefined,
-    source: 'IEC 60255-3 / BS 142 legacy long-time inverse (values confirmed, origin from memory), REFERENCE §2.2',
+    source: 'IEC 60255-3 / BS 142 legacy long-time inverse (values confirmed, origin from memory), IEC 60255-151',
   },
 } as const satisfies Record<string, InverseCurveConstants>;
 
@@ -85,7 +85,7 @@ export const INVERSE_CURVE_NAMES = Object.keys(INVERSE_CURVES) as InverseCurveNa
  * (IEEE) or time multiplier (IEC) `dial`. `Infinity` at and below pickup (`M ≤ 1`), never NaN;
  * at `M = Infinity` it is `dial · b`.
  *
- * @example inverseTime('ieee-very-inverse', 10, 2) // 1.37816 s (REFERENCE §7.5)
+ * @example inverseTime('ieee-very-inverse', 10, 2) // 1.37816 s (hand-worked IEEE C37.112 relay times)
  */
 export function inverseTime(curve: InverseCurveName, multiple: number, dial: number): number {
   const { a, b, p } = INVERSE_CURVES[curve];
@@ -111,14 +111,14 @@ export function inverseMultiple(curve: InverseCurveName, seconds: number, dial: 
 export interface ResetTimeOptions {
   /**
    * Reset constant `t_r` in seconds, overriding the curve's own; IEC curves have none in this table
-   * (REFERENCE §2.2 advises instantaneous reset unless the user sets one).
+   * (IEC 60255-151 advises instantaneous reset unless the user sets one).
    */
   resetConstant?: number;
 }
 
 /**
  * Reset time in seconds of an electromechanical-disk emulation after the current falls to `M < 1`
- * of pickup: `t_reset = dial · t_r / (1 − M²)` (IEEE C37.112, REFERENCE §2.1). Curves with no reset
+ * of pickup: `t_reset = dial · t_r / (1 − M²)` (IEEE C37.112, IEEE C37.112). Curves with no reset
  * constant reset instantaneously (0 s). Above pickup (`M ≥ 1`) the element does not reset: `Infinity`.
  *
  * @example resetTime('ieee-very-inverse', 0.5, 1) // 28.8 s

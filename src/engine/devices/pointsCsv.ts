@@ -1,7 +1,7 @@
 import { InputError } from '../errors.ts';
 import { pointProblem, type PointTable } from './pointTable.ts';
 
-/** The curves a CSV of digitised points can hold (REFERENCE §4.2). */
+/** The curves a CSV of digitised points can hold (log-log interpolation of digitised points, common practice). */
 export interface PointsCsv {
   /** Two-column files (`current,time`): the one curve. */
   points?: PointTable;

@@ -142,9 +142,9 @@ export const relaySchema = createRelaySchema(60);
 export type Relay = z.output<typeof relaySchema>;
 
 /**
- * The band of a relay and its breaker, in primary amperes (pickup × CT ratio, REFERENCE §2.4).
+ * The band of a relay and its breaker, in primary amperes (pickup × CT ratio, IEEE 242 CT and tap practice).
  * `minTime` uses the low pickup and time edges; `maxTime` the high edges plus the breaker
- * interrupting time (REFERENCE §2.3). The relay trips on its fastest element, never faster than
+ * interrupting time (IEEE C37.112 definite-time practice). The relay trips on its fastest element, never faster than
  * `operatingTime`. Inverse curves give `Infinity` at and below pickup; a definite-time or
  * instantaneous element operates from its pickup on.
  *
@@ -196,7 +196,7 @@ function overcurrentElement(
   const inverse = 1 / pickup;
   const { a, b, p } = INVERSE_CURVES[curve];
   // Inlined inverseTime with the constants bound: this closure runs once per current on every redraw
-  // (DESIGN §7 P1). For p = 0.02, expm1(p · ln m) is both faster than Math.pow and exact near m = 1.
+  // (DEVELOPERS.md, benchmarks P1). For p = 0.02, expm1(p · ln m) is both faster than Math.pow and exact near m = 1.
   const time =
     p === 2
       ? (amps: number) => {

@@ -8,7 +8,7 @@ const multiplesTable = pointTableSchema({ current: 'a multiple of the rating', u
 
 /**
  * Builds the thermal-magnetic breaker schema for a system frequency; `thermalMagneticSchema` is the
- * 60 Hz instance (REFERENCE §3.3). Fields: `rating` (A); `thermal.minimum` and `thermal.maximum`,
+ * 60 Hz instance (UL 489 thermal-magnetic practice). Fields: `rating` (A); `thermal.minimum` and `thermal.maximum`,
  * the band's edges as `[multiple of rating, seconds]` tables (a template supplies them; the study keeps
  * its own copy); `magnetic` with `pickup` (× rating) or `pickupAmps`, an optional adjustable `range`
  * (same terms as the pickup), and `tolerance` ± % (default 20, common practice); `openingTime`

@@ -7,7 +7,7 @@ export type Branch = { type: 'transformer'; item: Transformer } | { type: 'cable
 export type Element = { type: 'bus'; item: Bus } | Branch | { type: 'motor'; item: Motor };
 
 /**
- * The radial tree of a study, indexed for walking up and down (DESIGN §2). Built from a study that
+ * The radial tree of a study, indexed for walking up and down (DEVELOPERS.md, data flow). Built from a study that
  * `readStudy` accepted; it does not validate again.
  */
 export interface Network {
@@ -95,7 +95,7 @@ export function upstreamDeviceOf(network: Network, device: Device): Device | und
   return undefined;
 }
 
-/** Every series pair: each device with the nearest device above it (DESIGN §3 "pair"). */
+/** Every series pair: each device with the nearest device above it (DEVELOPERS.md, names "pair"). */
 export function seriesPairs(network: Network): { upstream: Device; downstream: Device }[] {
   const pairs: { upstream: Device; downstream: Device }[] = [];
   for (const downstream of network.study.devices) {

@@ -2,7 +2,7 @@ import type { z } from 'zod';
 import { quoteGot } from '../errors.ts';
 
 /**
- * One zod issue as the `expected …, got "…"` half of an error message (DESIGN §5). An unknown
+ * One zod issue as the `expected …, got "…"` half of an error message (DEVELOPERS.md, command line). An unknown
  * discriminator shows the value itself, not the whole object around it.
  *
  * @example issueMessage(issue) // 'expected a percentage greater than 0, got "-5"'

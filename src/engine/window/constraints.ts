@@ -15,7 +15,7 @@ import type { Device } from '../study/index.ts';
 import { fullLoadOf } from './fullLoad.ts';
 import type { Trial } from './trial.ts';
 
-/** What a constraint is about (DESIGN §3 "constraint"). */
+/** What a constraint is about (DEVELOPERS.md, names "constraint"). */
 export type ConstraintKind =
   | 'coordinate-below'
   | 'coordinate-above'
@@ -50,7 +50,7 @@ export interface ConstraintResult {
   text: string;
 }
 
-/** One reason a setting is allowed or not, with its source (DESIGN §3). */
+/** One reason a setting is allowed or not, with its source (DEVELOPERS.md, names). */
 export interface Constraint {
   /** Stable id: 'below:FDR-MCC', 'above:R-T1', 'withstand:T1', 'inrush:T1', 'load', 'sensitivity', … */
   id: string;

@@ -40,7 +40,7 @@ export interface DeviceProposal {
   noWindow?: NoWindow;
 }
 
-/** Settings for a path or a whole study, each inside its window, with the findings they clear or leave (DESIGN §3). */
+/** Settings for a path or a whole study, each inside its window, with the findings they clear or leave (DEVELOPERS.md, names). */
 export interface Proposal {
   /** Device ids in the order they were set. */
   order: string[];
@@ -71,7 +71,7 @@ export interface ProposalOptions {
 }
 
 /**
- * Proposes settings for a path or a whole study (DESIGN §3 "proposal"): from the loads toward the
+ * Proposes settings for a path or a whole study (DEVELOPERS.md, names "proposal"): from the loads toward the
  * source (`PROPOSAL_ORDER`), each adjustable device set to its fastest-clearing recommendation
  * (`TIE_BREAK`) given what is below it. Returns the changes with before/after values and the findings
  * they clear, leave or bring. Pure: the study is not touched.

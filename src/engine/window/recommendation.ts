@@ -40,7 +40,7 @@ export interface ConstraintMargin {
   result: ConstraintResult;
 }
 
-/** The fastest-clearing setting that keeps every margin (DESIGN §3 "proposal" for one device). */
+/** The fastest-clearing setting that keeps every margin (DEVELOPERS.md, names "proposal" for one device). */
 export interface Recommendation {
   /** The device with the recommended settings. */
   device: Device;

@@ -33,7 +33,7 @@ export interface SwitchRow extends SwitchSpec {
   feasible: boolean[];
 }
 
-/** The setting window of one device (DESIGN §3): what it may be set to, and why not otherwise. */
+/** The setting window of one device (DEVELOPERS.md, names): what it may be set to, and why not otherwise. */
 export interface SettingWindow {
   deviceId: string;
   deviceName: string;
@@ -67,7 +67,7 @@ export interface SettingWindowOptions {
 }
 
 /**
- * The setting window of one device, the rest of the study fixed (DESIGN §3): for each adjustable
+ * The setting window of one device, the rest of the study fixed (DEVELOPERS.md, names): for each adjustable
  * setting the feasible interval with the others held, each edge named by its binding constraint
  * (solved by bracketing and bisection on the checks themselves: `checkPair`, the withstand and
  * NEC 450.3 checks); for the main pair of settings a 2-D map; the fastest-clearing recommendation

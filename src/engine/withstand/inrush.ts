@@ -6,7 +6,7 @@ import { transformerRatedAmps } from './transformerRatedAmps.ts';
 import type { Marker } from './withstand.ts';
 
 /**
- * Magnetising-inrush rules of thumb (REFERENCE §5.5, common practice): multiples of the primary
+ * Magnetising-inrush rules of thumb (common practice): multiples of the primary
  * full-load current and the time they are drawn at.
  */
 export const INRUSH = {
@@ -39,7 +39,7 @@ export interface InrushOptions {
 }
 
 /**
- * The default 0.1 s inrush multiple for a rating: 8 × up to 3000 kVA, 12 × above (REFERENCE §5.5, common practice).
+ * The default 0.1 s inrush multiple for a rating: 8 × up to 3000 kVA, 12 × above (common practice).
  * @example inferInrushMultiple(2_500_000) // 8
  */
 export function inferInrushMultiple(ratingVa: number): number {
@@ -47,7 +47,7 @@ export function inferInrushMultiple(ratingVa: number): number {
 }
 
 /**
- * Transformer magnetising-inrush markers at the primary voltage (REFERENCE §5.5, common practice):
+ * Transformer magnetising-inrush markers at the primary voltage (common practice):
  * points the primary device must not operate at or below/left of. Real inrush depends on residual
  * flux, source strength and core steel; these are rules of thumb.
  *

@@ -2,7 +2,7 @@ import { InputError, expectedGot } from '../errors.ts';
 import { requireNumberAbove } from './inputs.ts';
 
 /**
- * Locked-rotor kVA per horsepower by code letter, `[low, high]`, NEC Table 430.7(B) (REFERENCE §5.7,
+ * Locked-rotor kVA per horsepower by code letter, `[low, high]`, NEC Table 430.7(B) (NFPA 70 Article 430,
  * from memory). Letter V has no upper value.
  */
 export const LOCKED_ROTOR_KVA_PER_HP: Readonly<Record<string, readonly [number, number]>> = {
@@ -33,7 +33,7 @@ export const LOCKED_ROTOR_KVA_PER_HP: Readonly<Record<string, readonly [number, 
  * Feed the result to `motorStartingOf` as `lockedRotorAmps`.
  *
  * @param volts line-to-line voltage (V).
- * @example lockedRotorAmpsFromCode('G', 100, 460) // 789.46 A (REFERENCE §7.9)
+ * @example lockedRotorAmpsFromCode('G', 100, 460) // 789.46 A (hand-worked NFPA 70 Table 430.7(B) case)
  */
 export function lockedRotorAmpsFromCode(
   letter: string,

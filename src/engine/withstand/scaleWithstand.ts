@@ -7,7 +7,7 @@ export interface ScaleWithstandOptions {
   /** The voltage base to draw the curve on (V): a current I at the curve's `volts` moves to `I · volts / toVolts`. */
   toVolts: number;
   /**
-   * Connection factor for unbalanced faults (REFERENCE §1.8): 0.58 for a Δ–Yg transformer's secondary
+   * Connection factor for unbalanced faults (IEEE C37.91 / IEEE C57.109 delta–wye shift factors): 0.58 for a Δ–Yg transformer's secondary
    * L-G fault seen by the primary device, 0.87 for a Δ–Δ secondary L-L fault.
    * @default 1; range > 0
    */
@@ -16,7 +16,7 @@ export interface ScaleWithstandOptions {
 
 /**
  * A withstand curve moved to another voltage base and, optionally, shifted by a connection factor,
- * so it can be compared with a device drawn on that base (REFERENCE §1.7–1.8).
+ * so it can be compared with a device drawn on that base (voltage-ratio reflection, IEEE 242).
  *
  * @example scaleWithstand(curve480V, { toVolts: 13_800, factor: 0.58 }) // for the 13.8 kV primary device, secondary L-G fault
  */

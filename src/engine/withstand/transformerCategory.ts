@@ -2,14 +2,13 @@ import type { Transformer } from '../study/index.ts';
 import { InputError, expectedGot } from '../errors.ts';
 import { elementPath, requireNumberAbove } from './inputs.ts';
 
-/** IEEE C57.12.00 through-fault category (REFERENCE §5.1), as the study schema spells it. */
+/** IEEE C57.12.00 through-fault category (IEEE C57.12.00), as the study schema spells it. */
 export type TransformerCategory = NonNullable<Transformer['category']>;
 
 const CATEGORIES: readonly string[] = ['I', 'II', 'III', 'IV'];
 
 /**
- * Upper kVA limit of Categories I, II and III by phase count, IEEE C57.12.00 (REFERENCE §5.1,
- * confirmed): single-phase 500 / 1667 / 10 000 kVA, three-phase 500 / 5000 / 30 000 kVA.
+ * Upper kVA limit of Categories I, II and III by phase count, IEEE C57.12.00 (confirmed): single-phase 500 / 1667 / 10 000 kVA, three-phase 500 / 5000 / 30 000 kVA.
  * Anything above the Category III limit is Category IV.
  */
 export const CATEGORY_LIMITS_KVA: Readonly<Record<1 | 3, readonly [number, number, number]>> = {
@@ -19,7 +18,7 @@ export const CATEGORY_LIMITS_KVA: Readonly<Record<1 | 3, readonly [number, numbe
 
 /**
  * The through-fault category of a transformer: the study's `category` when set, otherwise inferred
- * from its self-cooled rating and phase count by IEEE C57.12.00 (REFERENCE §5.1). Units below the
+ * from its self-cooled rating and phase count by IEEE C57.12.00. Units below the
  * table's smallest sizes (5 kVA single-phase, 15 kVA three-phase) are put in Category I.
  *
  * @param transformer `rating` in VA (self-cooled), `phases` 1 or 3, optional `category`.

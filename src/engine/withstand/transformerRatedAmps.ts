@@ -3,7 +3,7 @@ import { elementPath, requireNumberAbove } from './inputs.ts';
 
 /**
  * A transformer's rated (self-cooled) current in amps at `volts`: `S / (√3 · V)` for three-phase,
- * `S / V` for single-phase (REFERENCE §1.1, textbook identity). The per-unit base of its withstand curve.
+ * `S / V` for single-phase (IEEE 141 per-unit method, textbook identity). The per-unit base of its withstand curve.
  *
  * @param transformer `rating` in VA, `phases` 1 or 3.
  * @param volts the winding voltage (V), line-to-line for three-phase.

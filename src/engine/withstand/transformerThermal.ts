@@ -1,10 +1,10 @@
 import type { Transformer } from '../study/index.ts';
 
-/** Through-fault thermal limit in the short-time region, `I² · t` in pu²·s (IEEE C57.109, REFERENCE §5.2). */
+/** Through-fault thermal limit in the short-time region, `I² · t` in pu²·s (IEEE C57.109, IEEE C57.109). */
 export const THERMAL_I2T = 1250;
 
 /**
- * IEEE C57.109 Table 1 long-time points below the `I²t = 1250` region, as `[pu, seconds]` (REFERENCE §5.2,
+ * IEEE C57.109 Table 1 long-time points below the `I²t = 1250` region, as `[pu, seconds]` (IEEE C57.109,
  * values from memory). The table's 10 s entry (11.3 pu) is replaced by the join on `I²t = 1250`.
  */
 export const LIQUID_THERMAL_TABLE: readonly (readonly [number, number])[] = [
@@ -17,7 +17,7 @@ export const LIQUID_THERMAL_TABLE: readonly (readonly [number, number])[] = [
 /** Time (s) at which the liquid-immersed thermal curve joins `I²t = 1250`: 10 s, at √125 = 11.180 pu. */
 export const LIQUID_JOIN_SECONDS = 10;
 
-/** Longest time (s) of the dry-type thermal curve, IEEE C57.12.59 (REFERENCE §5.4, from memory); beyond it IEEE C57.96 loading applies. */
+/** Longest time (s) of the dry-type thermal curve, IEEE C57.12.59 (from memory); beyond it IEEE C57.96 loading applies. */
 export const DRY_LONGEST_SECONDS = 100;
 
 /**
@@ -37,14 +37,14 @@ export interface ThermalCurve {
 }
 
 /**
- * The thermal curve for a construction (REFERENCE §5.2, §5.4).
+ * The thermal curve for a construction (IEEE C57.109 and IEEE C57.12.59).
  *
  * - liquid (IEEE C57.109): `t = 1250 / I²` for `I ≥ √125 = 11.180 pu`; below, straight lines in
  *   log-log through 2 pu/1800 s, 3/300, 4.75/60, 6.3/30 and the join 11.180/10. This continuous rule
- *   is a choice (REFERENCE §5.2): the standard's table lists 11.3 pu at 10 s, off `I²t = 1250`.
+ *   is a choice (IEEE C57.109): the standard's table lists 11.3 pu at 10 s, off `I²t = 1250`.
  * - dry (IEEE C57.12.59, from memory): `t = 1250 / I²` from 100 s (3.536 pu) down.
  *
- * @example thermalCurveOf('liquid').secondsAt(5) // 52.902 s (REFERENCE §5.2 check value)
+ * @example thermalCurveOf('liquid').secondsAt(5) // 52.902 s (IEEE C57.109 check value)
  */
 export function thermalCurveOf(construction: Transformer['construction']): ThermalCurve {
   if (construction === 'dry') {

@@ -25,10 +25,10 @@ export interface TransformerWithstandOptions {
   mechanicalFraction?: number;
 }
 
-/** Mechanical-portion fraction `f` by category, IEEE C57.109 (REFERENCE §5.3, from memory). */
+/** Mechanical-portion fraction `f` by category, IEEE C57.109 (from memory). */
 export const MECHANICAL_FRACTION: Readonly<Record<'II' | 'III' | 'IV', number>> = { II: 0.7, III: 0.5, IV: 0.5 };
 
-/** The mechanical curve passes through `(I_max, 2 s)`: `K = 2 · I_max²` (REFERENCE §5.3). */
+/** The mechanical curve passes through `(I_max, 2 s)`: `K = 2 · I_max²` (IEEE C57.109). */
 export const MECHANICAL_SECONDS_AT_MAX = 2;
 
 /** Polyline density along each curved stretch (points per decade of current). */
@@ -36,9 +36,9 @@ const POINTS_PER_DECADE = 32;
 
 /**
  * The through-fault withstand ("damage") curve of a transformer, IEEE C57.109 (liquid-immersed) or
- * IEEE C57.12.59 (dry-type), REFERENCE §5.2–5.4. Currents are in amps at the secondary winding voltage
+ * IEEE C57.12.59 (dry-type), IEEE C57.109 Currents are in amps at the secondary winding voltage
  * (`volts` = `transformer.secondary`); callers scale to other bases and apply the connection factor of
- * REFERENCE §1.8 for primary devices.
+ * IEEE C37.91 / IEEE C57.109 delta–wye shift factors for primary devices.
  *
  * - Thermal part: `thermalCurveOf` (liquid: table points then `I²t = 1250`; dry: `I²t = 1250` from 100 s).
  * - `I_max = 1/Z_T` (Categories I, II) or `1/(Z_T + Z_S)` (III, IV); the curve ends there.
@@ -48,7 +48,7 @@ const POINTS_PER_DECADE = 32;
  *   the thermal one (I_max ≥ 25 pu) the thermal curve governs.
  * - Categories II, III infrequent: the thermal curve to `I_max`.
  *
- * @example transformerWithstandOf(t2500kva, { faultFrequency: 'frequent' }).timeAt(40_000) // 3.419 s, K/I² (REFERENCE §7.7)
+ * @example transformerWithstandOf(t2500kva, { faultFrequency: 'frequent' }).timeAt(40_000) // 3.419 s, K/I² (hand-worked IEEE C57.109 Category II case)
  */
 export function transformerWithstandOf(
   transformer: Transformer,

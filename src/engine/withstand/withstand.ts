@@ -27,7 +27,7 @@ export interface WithstandCurve {
   notes: string[];
 }
 
-/** A point or line on the sheet (DESIGN §3 "marker"). */
+/** A point or line on the sheet (DEVELOPERS.md, names "marker"). */
 export interface Marker {
   kind: 'inrush' | 'locked-rotor' | 'full-load' | 'fault';
   label: string;

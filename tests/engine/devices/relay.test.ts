@@ -41,18 +41,18 @@ describe('relay', () => {
     assertInDelta(relay.operatingTime, 0.02);
   });
 
-  it('relayBand is the CT 600:5, tap 5 A, IEEE VI TD 2 relay of REFERENCE §7.5 at 6000 A (computed)', () => {
+  it('relayBand is the CT 600:5, tap 5 A, IEEE VI TD 2 relay of hand-worked IEEE C37.112 relay times at 6000 A (computed)', () => {
     const band = bandOfInput(veryInverse);
     assertInDelta(band.minTime(6000), 1.37816, 1e-5); // 2 · (19.61/99 + 0.491), M = 10
     assertInDelta(band.maxTime(6000), 1.37816 + 5 / 60, 1e-5); // plus the 5-cycle breaker
-    expect(band.minAmps).toBe(600); // pickup 5 A × 120 (REFERENCE §2.4)
+    expect(band.minAmps).toBe(600); // pickup 5 A × 120 (IEEE 242 CT and tap practice)
     expect(band.minTime(600)).toBe(Infinity); // exactly at pickup the inverse curve never times out
     expect(band.minTime(599)).toBe(Infinity);
     expect([...band.breakpoints]).toEqual([600]);
     expect(band.currentLimitingFrom).toBe(Infinity);
   });
 
-  it('relayBand reproduces the REFERENCE §7.5 pair at 4000 A: downstream 400 A TD 1 vs upstream 600 A TD 2 (computed)', () => {
+  it('relayBand reproduces the hand-worked IEEE C37.112 relay times pair at 4000 A: downstream 400 A TD 1 vs upstream 600 A TD 2 (computed)', () => {
     const down = bandOfInput({
       ...veryInverse,
       ct: '400:5',
@@ -89,8 +89,8 @@ describe('relay', () => {
       ct: '300:1',
       timeOvercurrent: { curve: 'iec-standard-inverse', pickup: 1, timeMultiplier: 0.1, definiteTimeFrom: 20 },
     });
-    assertInDelta(band.minTime(3000), 0.29706, 2e-5); // M 10, REFERENCE §7.5
-    assertInDelta(band.minTime(6000), 0.226736, 1e-5); // M 20: 0.1 × 2.26736 (REFERENCE §2.2 table)
+    assertInDelta(band.minTime(3000), 0.29706, 2e-5); // M 10, hand-worked IEEE C37.112 relay times
+    assertInDelta(band.minTime(6000), 0.226736, 1e-5); // M 20: 0.1 × 2.26736 (IEC 60255-151 table)
     expect(band.minTime(60000)).toBe(band.minTime(6000));
     expect([...band.breakpoints]).toEqual([300, 6000]);
   });

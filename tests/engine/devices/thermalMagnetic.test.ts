@@ -41,9 +41,9 @@ function rejection(input: unknown): string {
 describe('thermalMagnetic', () => {
   it('has the expected defaults', () => {
     const parsed = thermalMagneticSchema.parse(breaker);
-    expect(parsed.magnetic.tolerance).toBe(20); // ±20 % (common practice, REFERENCE §3.3)
+    expect(parsed.magnetic.tolerance).toBe(20); // ±20 % (common practice, UL 489 thermal-magnetic practice)
     assertInDelta(parsed.openingTime, 0.5 / 60);
-    assertInDelta(parsed.clearingTime, 1 / 60); // ≤ 1 cycle (REFERENCE §3.3)
+    assertInDelta(parsed.clearingTime, 1 / 60); // ≤ 1 cycle (UL 489 thermal-magnetic practice)
     expect(parsed.currentLimiting).toBe(false);
     assertInDelta(createThermalMagneticSchema(50).parse(breaker).clearingTime, 0.02);
   });

@@ -9,7 +9,7 @@ import {
 } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 
-/** The Harrowmere network (invented, DESIGN §8), kept here so the network tests do not move with the demo files. */
+/** The Harrowmere network (invented, the demo studies), kept here so the network tests do not move with the demo files. */
 const demo: StudyInput = {
   discern: 1,
   name: 'Harrowmere network',

@@ -51,7 +51,7 @@ describe('curveTemplates', () => {
     }
   });
 
-  it('the trip-unit ranges match the usual ranges of REFERENCE §3.2 (common practice)', () => {
+  it('the trip-unit ranges match the usual ranges of IEEE 1015 trip-unit practice (common practice)', () => {
     const { ranges } = tripUnitSettingRanges;
     expect([ranges.longTimePickup.min, ranges.longTimePickup.max]).toEqual([0.4, 1]);
     expect([ranges.shortTimePickup.min, ranges.shortTimePickup.max]).toEqual([1.5, 10]);

@@ -34,5 +34,5 @@ export function motorOf(input: Partial<Input<'motors'>> = {}): Motor {
   return studySchema.shape.motors.unwrap().element.parse({ id: 'M1', bus: 'MCC', hp: 100, ...input });
 }
 
-/** The REFERENCE §7.7 unit: 2500 kVA, 13.8 kV–480 V, 5.75 %Z, liquid-immersed, Category II (invented). */
+/** The hand-worked IEEE C57.109 Category II case unit: 2500 kVA, 13.8 kV–480 V, 5.75 %Z, liquid-immersed, Category II (invented). */
 export const T2500 = { rating: 2500, primary: 13_800, secondary: 480, impedance: 5.75 } as const;

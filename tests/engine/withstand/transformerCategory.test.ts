@@ -4,14 +4,14 @@ import { transformerOf } from './fixtures.ts';
 
 describe('transformerCategoryOf', () => {
   it('has the expected defaults', () => {
-    // IEEE C57.12.00 category table, REFERENCE §5.1 (confirmed)
+    // IEEE C57.12.00 category table, IEEE C57.12.00 (confirmed)
     expect(CATEGORY_LIMITS_KVA[3]).toEqual([500, 5000, 30_000]);
     expect(CATEGORY_LIMITS_KVA[1]).toEqual([500, 1667, 10_000]);
     expect(transformerCategoryOf(transformerOf())).toBe('II');
   });
 
   it('transformerCategoryOf(three-phase) follows the C57.12.00 kVA ranges at every boundary', () => {
-    // IEEE C57.12.00, REFERENCE §5.1 (confirmed): I 15–500, II 501–5000, III 5001–30 000, IV above
+    // IEEE C57.12.00, IEEE C57.12.00 (confirmed): I 15–500, II 501–5000, III 5001–30 000, IV above
     const cases: [number, string][] = [
       [15, 'I'],
       [500, 'I'],
@@ -29,7 +29,7 @@ describe('transformerCategoryOf', () => {
   });
 
   it('transformerCategoryOf(single-phase) follows the C57.12.00 kVA ranges at every boundary', () => {
-    // IEEE C57.12.00, REFERENCE §5.1 (confirmed): I 5–500, II 501–1667, III 1668–10 000, IV above
+    // IEEE C57.12.00, IEEE C57.12.00 (confirmed): I 5–500, II 501–1667, III 1668–10 000, IV above
     const cases: [number, string][] = [
       [5, 'I'],
       [500, 'I'],

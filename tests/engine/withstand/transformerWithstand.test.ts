@@ -5,7 +5,7 @@ import type { WithstandCurve } from '../../../src/engine/withstand/withstand.ts'
 import { assertInDelta } from '../../asserts.ts';
 import { transformerOf } from './fixtures.ts';
 
-/** Rated current of the §7.7 unit at 480 V and 13.8 kV (REFERENCE §7.7, computed). */
+/** Rated current of the hand-worked Category II unit at 480 V and 13.8 kV (hand-worked IEEE C57.109 Category II case, computed). */
 const BASE_480 = 2_500_000 / (Math.sqrt(3) * 480);
 const TO_13_8_KV = 480 / 13_800;
 
@@ -28,11 +28,11 @@ describe('transformerWithstandOf', () => {
     expect(curve.notes.some((note) => /continuous rule is a choice/.test(note))).toBe(true);
   });
 
-  describe('REFERENCE §7.7: 2500 kVA, 13.8 kV–480 V, 5.75 %Z, Category II', () => {
-    // IEEE C57.109, REFERENCE §5.2–5.3 and §7.7 (computed); the thermal table points are C57.109 Table 1 (from memory)
+  describe('hand-worked IEEE C57.109 Category II case: 2500 kVA, 13.8 kV–480 V, 5.75 %Z, Category II', () => {
+    // IEEE C57.109 and the hand-worked Category II case (computed); the thermal table points are C57.109 Table 1 (from memory)
     const frequent = transformerWithstandOf(transformerOf({ faultFrequency: 'frequent' }));
     const infrequent = transformerWithstandOf(transformerOf({ faultFrequency: 'infrequent' }));
-    /** The §7.7 table's currents are at 13.8 kV; the curve is at 480 V. */
+    /** The hand-worked Category II table's currents are at 13.8 kV; the curve is at 480 V. */
     const at13kV = (curve: WithstandCurve, amps13kV: number) => curve.timeAt(amps13kV / TO_13_8_KV);
 
     it('transformerWithstandOf(Category II) passes the thermal table rows at 13.8 kV', () => {
@@ -41,8 +41,8 @@ describe('transformerWithstandOf', () => {
         assertInDelta(at13kV(curve, 313.777), 300, 1e-5);
         assertInDelta(at13kV(curve, 496.814), 60, 1e-5);
         assertInDelta(at13kV(curve, 658.932), 30, 1e-5);
-        assertInDelta(at13kV(curve, 1169.374), 10, 1e-5); // thermal join, §5.2 rule (table lists 11.3 pu)
-        assertInDelta(curve.timeAt(5 * BASE_480), 52.902, 1e-5); // REFERENCE §5.2 check value (computed)
+        assertInDelta(at13kV(curve, 1169.374), 10, 1e-5); // thermal join, IEEE C57.109 rule (table lists 11.3 pu)
+        assertInDelta(curve.timeAt(5 * BASE_480), 52.902, 1e-5); // IEEE C57.109 check value (computed)
         assertInDelta(curve.timeAt(8 * BASE_480), 18.985, 1e-4);
       }
     });
@@ -116,7 +116,7 @@ describe('transformerWithstandOf', () => {
   });
 
   it('transformerWithstandOf(Category III) uses I_max = 1/(Z_T + Z_S) and the mechanical curve from 0.5 · I_max', () => {
-    // REFERENCE §7.7 Category III example (computed): 10 MVA, Z_T 8 %, Z_S 1 % → I_max 11.1111 pu, K 246.914;
+    // hand-worked IEEE C57.109 Category II case Category III example (computed): 10 MVA, Z_T 8 %, Z_S 1 % → I_max 11.1111 pu, K 246.914;
     // at 0.5 · I_max = 5.5556 pu: mechanical 8.000 s, thermal 40.848 s. Voltages invented: 69 kV–13.8 kV.
     const unit = { rating: '10 MVA', primary: '69 kV', secondary: '13.8 kV', impedance: 8 };
     const base = 10e6 / (Math.sqrt(3) * 13_800);
@@ -142,7 +142,7 @@ describe('transformerWithstandOf', () => {
   });
 
   it('transformerWithstandOf(Category I) is one curve ending at I_max, whatever the fault frequency', () => {
-    // REFERENCE §7.7 Category I example (computed): 300 kVA, 4.5 % → I_max 22.222 pu, curve ends at 2.5313 s
+    // hand-worked IEEE C57.109 Category II case Category I example (computed): 300 kVA, 4.5 % → I_max 22.222 pu, curve ends at 2.5313 s
     const base = 300_000 / (Math.sqrt(3) * 480);
     for (const faultFrequency of ['frequent', 'infrequent'] as const) {
       const curve = transformerWithstandOf(transformerOf({ rating: 300, impedance: 4.5 }), { faultFrequency });
@@ -155,7 +155,7 @@ describe('transformerWithstandOf', () => {
   });
 
   it('transformerWithstandOf(Category I, Z_T < 4 %) continues I²t = 1250 below 2 s to I_max', () => {
-    // IEEE C57.109 Category I extension, REFERENCE §5.3 (from memory): 300 kVA, 3 % → I_max 33.333 pu, 1.125 s (computed)
+    // IEEE C57.109 Category I extension, IEEE C57.109 (from memory): 300 kVA, 3 % → I_max 33.333 pu, 1.125 s (computed)
     const curve = transformerWithstandOf(transformerOf({ rating: 300, impedance: 3 }));
     const base = 300_000 / (Math.sqrt(3) * 480);
     assertInDelta(curve.timeAt(30 * base), 1250 / 900, 1e-9);
@@ -164,7 +164,7 @@ describe('transformerWithstandOf', () => {
   });
 
   it('transformerWithstandOf(Category IV) always uses the frequent-fault construction with f = 0.5', () => {
-    // IEEE C57.109 Category IV, REFERENCE §5.3 (from memory); 40 MVA, 10 %, Z_S 0 → I_max 10 pu, step at 5 pu, 8 s
+    // IEEE C57.109 Category IV, IEEE C57.109 (from memory); 40 MVA, 10 %, Z_S 0 → I_max 10 pu, step at 5 pu, 8 s
     const curve = transformerWithstandOf(
       transformerOf({ rating: '40 MVA', primary: '115 kV', secondary: '13.8 kV', impedance: 10 }),
       {
@@ -187,11 +187,11 @@ describe('transformerWithstandOf', () => {
     const curve = transformerWithstandOf(transformerOf({ faultFrequency: 'frequent' }), { mechanicalFraction: 0.6 });
     const i = stepIndex(curve);
     assertInDelta(curve.amps[i] / BASE_480, 0.6 / 0.0575, 1e-12);
-    assertInDelta(curve.seconds[i + 1], 2 / 0.36, 1e-12); // t = 2 / f² at f · I_max (REFERENCE §5.3)
+    assertInDelta(curve.seconds[i + 1], 2 / 0.36, 1e-12); // t = 2 / f² at f · I_max (IEEE C57.109)
   });
 
   it('transformerWithstandOf(Category II, Z_T < 4 %, frequent) lets the thermal curve govern where the mechanical one lies above it', () => {
-    // K = 2 · I_max² ≥ 1250 once I_max ≥ 25 pu, so K/I² is above I²t = 1250 (REFERENCE §5.3, computed)
+    // K = 2 · I_max² ≥ 1250 once I_max ≥ 25 pu, so K/I² is above I²t = 1250 (IEEE C57.109, computed)
     const curve = transformerWithstandOf(transformerOf({ rating: 1000, impedance: 3.5, faultFrequency: 'frequent' }));
     const base = 1e6 / (Math.sqrt(3) * 480);
     expect(stepIndex(curve)).toBe(-1);
@@ -209,7 +209,7 @@ describe('transformerWithstandOf', () => {
 
   describe('dry-type (IEEE C57.12.59)', () => {
     it('transformerWithstandOf(dry) starts at 100 s, follows I²t = 1250 and asks to verify against C57.12.59', () => {
-      // REFERENCE §5.4 (from memory): thermal I²t = 1250 from 2 s to 100 s; mechanical fractions unconfirmed
+      // IEEE C57.12.59 (from memory): thermal I²t = 1250 from 2 s to 100 s; mechanical fractions unconfirmed
       const curve = transformerWithstandOf(
         transformerOf({ rating: 1000, construction: 'dry', faultFrequency: 'frequent' }),
       );

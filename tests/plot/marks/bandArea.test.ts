@@ -59,7 +59,7 @@ describe('bandArea', () => {
   });
 
   it('bandArea(relay) paths read back through the inverse scales give the IEEE VI times to 1 %', () => {
-    // IEEE C37.112 VI, TD 1 (REFERENCE §2.1): M = 2 → 7.02767 s, M = 5 → 1.30808 s, M = 10 → 0.68908 s.
+    // IEEE C37.112 VI, TD 1 (IEEE C37.112): M = 2 → 7.02767 s, M = 5 → 1.30808 s, M = 10 → 0.68908 s.
     const g = bandArea(sheetBand(relayBand()), scales, { colour: '#000000' });
     const min = g.items.find((p) => p.role === 'band-min')!.d;
     const max = g.items.find((p) => p.role === 'band-max')!.d;
@@ -104,7 +104,7 @@ describe('bandArea', () => {
   it('bandArea draws a band whose edges coincide as one line and no fill', () => {
     const g = bandArea(sheetBand(singleLineBand()), scales, { colour: '#009E73' });
     expect(g.items.map((p) => p.role)).toEqual(['band-line']);
-    // IEEE VI TD 2 at M = 5 (750 A): 2 × 1.30808 = 2.61616 s (REFERENCE §2.1, computed).
+    // IEEE VI TD 2 at M = 5 (750 A): 2 × 1.30808 = 2.61616 s (IEEE C37.112, computed).
     assertInDelta(timeFromPath(g.items[0].d, 750), 2.61616, 0.01);
   });
 
@@ -119,7 +119,7 @@ describe('bandArea', () => {
     expect(bandArea(sheetBand(relayBand()), off, { colour: '#000000' })).toEqual({ items: [], strokes: [] });
   });
 
-  it('bandArea(bandOf(relay)) reads back the REFERENCE §7.5 relay time through the drawn path', () => {
+  it('bandArea(bandOf(relay)) reads back the hand-worked IEEE C37.112 relay times relay time through the drawn path', () => {
     // CT 600:5, tap 5 A (600 A), IEEE VI, TD 2, fault 6000 A (M 10): 2 · (19.61/99 + 0.491) = 1.37816 s (computed),
     // plus 5 cycles (0.08333 s) of breaker time on the clearing edge.
     const relay = readCharacteristic({

@@ -10,7 +10,7 @@ import {
 import { pixelOf, scalesOf } from '../../../src/plot/scales.ts';
 
 const scales = scalesOf({ current: [10, 1e5], time: [0.01, 1000] }, { left: 100, top: 50, right: 700, bottom: 650 });
-// REFERENCE §7.4 (computed): 1500 kVA 12.47 kV–480 V, 250 MVA source: 28 421.1 A at 480 V = 1093.99 A at 12.47 kV.
+// hand-worked per-unit case (1500 kVA, 12.47 kV–480 V) (computed): 1500 kVA 12.47 kV–480 V, 250 MVA source: 28 421.1 A at 480 V = 1093.99 A at 12.47 kV.
 const swbd = { busId: 'SWBD', label: 'SWBD', amps: 1093.99, ownVolts: 480, ownAmps: 28_421.1, kind: 'max' as const };
 
 describe('faultLine', () => {
@@ -27,7 +27,7 @@ describe('faultLine', () => {
     expect([...items[0].points!]).toEqual([x, 650, x, 50]);
   });
 
-  it('faultLabel reads a secondary fault and its primary-reflected value together (REFERENCE §7.4)', () => {
+  it('faultLabel reads a secondary fault and its primary-reflected value together (hand-worked per-unit case (1500 kVA, 12.47 kV–480 V))', () => {
     expect(faultLabel(swbd, 12_470)).toBe('SWBD 28.4 kA @ 480 V = 1.09 kA @ 12.47 kV');
     expect(faultLabel({ ...swbd, amps: 28_421.1 }, 480)).toBe('SWBD 28.4 kA @ 480 V');
     expect(faultLabel({ ...swbd, amps: 850, ownAmps: 850, kind: 'min' }, 480)).toBe('SWBD min 850 A @ 480 V');

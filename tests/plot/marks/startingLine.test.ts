@@ -18,7 +18,7 @@ describe('startingLine', () => {
     expect(Math.max(...ys)).toBe(650);
   });
 
-  it('startingLine puts the locked-rotor current at its amps (REFERENCE §7.9: 789.46 A to 5 s)', () => {
+  it('startingLine puts the locked-rotor current at its amps (hand-worked NFPA 70 Table 430.7(B) case: 789.46 A to 5 s)', () => {
     const g = startingLine({ id: 'M1', label: 'M1', curve: motorStart(), scale: 1 }, scales, { colour: '#CC79A7' });
     const xs = [...g.items[0].points!].filter((_, k) => k % 2 === 0);
     expect(xs.some((x) => Math.abs(x - pixelOf(scales.x, 789.46)) < 1e-9)).toBe(true);

@@ -11,7 +11,7 @@ describe('withstandLine', () => {
     expect(withstandLineDefaults).toEqual({ strokeWidth: 1.6, dash: '7 4' });
   });
 
-  it('withstandLine draws the C57.109 points dashed and enters at the top of the sheet (REFERENCE §7.7)', () => {
+  it('withstandLine draws the C57.109 points dashed and enters at the top of the sheet (hand-worked IEEE C57.109 Category II case)', () => {
     const g = withstandLine({ id: 'TX1', label: 'TX1', curve: transformerCurve(), scale: 1 }, scales, {
       colour: '#009E73',
     });
@@ -30,7 +30,7 @@ describe('withstandLine', () => {
     const g = withstandLine({ id: 'TX1', label: 'TX1', curve: transformerCurve(), scale: 480 / 13_800 }, scales, {
       colour: '#000000',
     });
-    // REFERENCE §7.7: 17.39 pu = 52 296.2 A at 480 V = 1818.999 A at 13.8 kV, the curve's end at 2 s.
+    // hand-worked IEEE C57.109 Category II case: 17.39 pu = 52 296.2 A at 480 V = 1818.999 A at 13.8 kV, the curve's end at 2 s.
     const points = g.items[0].points!;
     assertInDelta(valueOf(scales.x, points.at(-2)!), 1818.999, 1e-4);
     assertInDelta(valueOf(scales.y, points.at(-1)!), 2, 1e-9);
