@@ -38,9 +38,7 @@ describe('the sheet and its links in Chromium', () => {
     )!;
     await page.locator(`[data-finding-id="${target.id}"] button.head`).click();
     await expect(
-      page
-        .locator(`[data-testid="sheet-svg"] .selected[data-role="region-overlap"][data-id="${target.id}"]`)
-        .count(),
+      page.locator(`[data-testid="sheet-svg"] .selected[data-role="region-overlap"][data-id="${target.id}"]`).count(),
     ).resolves.toBe(1);
     for (const id of target.subjects) {
       await expect(
