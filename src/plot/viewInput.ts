@@ -2,6 +2,7 @@ import { significant } from '../engine/quantity/format.ts';
 import type { Analysis } from '../engine/analysis.ts';
 import { fastestOf, groundFaultBandOf, scaleBand, type Band } from '../engine/band.ts';
 import { CAUTION } from '../engine/caution.ts';
+import { longTimeRampBasis } from '../engine/devices/index.ts';
 import { locationBusOf } from '../engine/network/index.ts';
 import {
   cableWithstandOf,
@@ -104,7 +105,13 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
       const c = element.item;
       const volts = network.buses.get(c.from)!.voltage;
       const curve = cableWithstandOf(c, { volts, conductorAreaCmil: conductorAreaCmil(c.size) });
-      withstand.push({ id: c.id, label: `${c.name ?? c.id} damage`, curve, scale: onSheet(volts) });
+      // ICEA P-32-382 is adiabatic: a short-circuit limit to 10 s, saying nothing of overload.
+      withstand.push({
+        id: c.id,
+        label: `${c.name ?? c.id} short-circuit limit (overload not covered)`,
+        curve,
+        scale: onSheet(volts),
+      });
     }
   }
 
@@ -141,17 +148,16 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     const { bus } = located.get(id)!;
     return (band: Band, shift = 1) => scaleBand(band, onSheet(bus.voltage) / shift);
   };
-  // The upstream current per downstream current of a pair's line-to-line case, as the pair check used it.
-  const shiftOf = (up: string, down: string) =>
-    analysis.pairs
-      .find((p) => p.upstream === up && p.downstream === down)
-      ?.cases.find((c) => c.fault === 'line-to-line')?.upstreamShift ?? 1;
+  // The upstream current per downstream current of a pair's fault case, as the pair check used it.
+  const shiftOf = (up: string, down: string, fault: string = 'line-to-line') =>
+    analysis.pairs.find((p) => p.upstream === up && p.downstream === down)?.cases.find((c) => c.fault === fault)
+      ?.upstreamShift ?? 1;
   const edgesOf = (up: string, down: string, fault: string): SheetRegion['edges'] => {
     const upDevice = network.devices.get(up)!;
     const downDevice = network.devices.get(down)!;
-    if (fault === 'line-to-line')
+    if (fault === 'line-to-line' || fault === 'single-phase' || fault === 'line-to-neutral')
       return {
-        upstream: onSheetBand(up)(bands.get(up)!, shiftOf(up, down)),
+        upstream: onSheetBand(up)(bands.get(up)!, shiftOf(up, down, fault)),
         downstream: onSheetBand(down)(bands.get(down)!),
       };
     if (fault === 'ground-fault') {
@@ -164,11 +170,12 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     return { upstream: onSheetBand(up)(bands.get(up)!), downstream: onSheetBand(down)(bands.get(down)!) };
   };
   const regions: SheetRegion[] = [];
-  const shifted = new Map<string, number>();
+  const shifted = new Map<string, { shift: number; fault: string }>();
   for (const f of analysis.findings) {
     if (f.kind !== 'coordination' || !f.range || !f.status || f.status === 'selective') continue;
     if (!f.subjects.every((id) => shown.has(id))) continue;
-    const fault = /:(three-phase|line-to-line|ground-fault):\d+$/.exec(f.id)?.[1] ?? 'three-phase';
+    const fault =
+      /:(three-phase|line-to-line|ground-fault|single-phase|line-to-neutral):\d+$/.exec(f.id)?.[1] ?? 'three-phase';
     if ((fault === 'ground-fault') !== ground) continue;
     const region: SheetRegion = {
       fromAmps: (f.range.fromAmps * f.referenceVolts) / ref,
@@ -180,14 +187,20 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     };
     if (!(region.toAmps > region.fromAmps)) continue;
     regions.push(region);
-    if (fault === 'line-to-line') shifted.set(f.subjects[0], shiftOf(f.subjects[0], f.subjects[1]));
+    if (fault === 'line-to-line' || fault === 'single-phase' || fault === 'line-to-neutral')
+      shifted.set(f.subjects[0], { shift: shiftOf(f.subjects[0], f.subjects[1], fault), fault });
   }
   // The finding rests on the upstream band shifted for a secondary line-to-line fault: draw that band too.
-  for (const [id, shift] of shifted) {
+  const faultWords: Record<string, string> = {
+    'line-to-line': 'a secondary L-L fault',
+    'single-phase': 'a single-phase secondary fault',
+    'line-to-neutral': 'a secondary line-to-neutral fault',
+  };
+  for (const [id, { shift, fault }] of shifted) {
     const { device, bus, toAmps } = located.get(id)!;
     sheetBands.push({
-      id: `${id}:line-to-line`,
-      label: `${device.name ?? id} for a secondary L-L fault (× ${significant(shift, 4)})`,
+      id: `${id}:${fault}`,
+      label: `${device.name ?? id} for ${faultWords[fault]} (× ${significant(shift, 4)})`,
       band: onSheetBand(id)(bands.get(id)!, shift),
       ownVolts: bus.voltage,
       toAmps,
@@ -204,7 +217,20 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     client: study.client,
     revision: study.revisions.at(-1)?.revision,
     date: study.date,
-    notes: view.notes,
+    // Say on the sheet how its trip units' long-time and short-time functions meet.
+    notes:
+      [
+        view.notes,
+        ...new Set(
+          view.devices.flatMap((id) => {
+            const c = network.devices.get(id)!.characteristic;
+            const basis = c.kind === 'trip-unit' ? longTimeRampBasis(c) : undefined;
+            return basis ? [`Trip units: ${basis}.`] : [];
+          }),
+        ),
+      ]
+        .filter(Boolean)
+        .join(' ') || undefined,
     referenceVolts: ref,
     bands: sheetBands,
     withstand,

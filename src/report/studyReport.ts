@@ -2,6 +2,7 @@ import type { Analysis } from '../engine/analysis.ts';
 import { CAUTIONS } from '../engine/caution.ts';
 import { formatAmps, formatVolts, significant } from '../engine/quantity/index.ts';
 import { findingRows } from '../engine/report/findingsTable.ts';
+import { settingsTableOf } from '../engine/report/settingsTable.ts';
 import { settingsText } from '../engine/report/settingsText.ts';
 import { locationBusOf } from '../engine/network/index.ts';
 import { formatWork } from '../engine/work.ts';
@@ -168,7 +169,23 @@ function settingsBlocks(analysis: Analysis): ReportBlock[] {
     `${locationBusOf(analysis.network, device).name ?? locationBusOf(analysis.network, device).id}`,
     settingsText(device.characteristic).join('; '),
   ]);
-  return [{ type: 'table', columns: ['device', 'location', 'settings'], rows }];
+  const windows = settingsTableOf(analysis.study);
+  return [
+    { type: 'table', columns: ['device', 'location', 'settings'], rows },
+    ...(windows.length === 0
+      ? []
+      : [
+          {
+            type: 'paragraph' as const,
+            text: 'Setting windows: each adjustable setting with the device’s other settings and the rest of the study held as they are, the window in which every constraint holds, the recommended value (the fastest-clearing setting that keeps every constraint) and the constraints that set the window’s edges.',
+          },
+          {
+            type: 'table' as const,
+            columns: ['device', 'setting', 'now', 'window', 'recommended', 'binding constraints'],
+            rows: windows.map((w) => [w.device, w.setting, w.current, w.window, w.recommended, w.binding]),
+          },
+        ]),
+  ];
 }
 
 // Accepts the analysis; one figure per view of the study.

@@ -185,7 +185,9 @@ describe('the workbench in Chromium', () => {
     await page
       .getByTestId('open-file')
       .setInputFiles({ name: 'x.json', mimeType: 'application/json', buffer: Buffer.from('{') });
-    await expect(refused.textContent()).resolves.toMatch(/study: expected JSON text, got a syntax error/);
+    await expect(refused.textContent()).resolves.toMatch(
+      /study: expected more JSON text at line 1:2, got the end of the text/,
+    );
     // A good file asks before it discards the unsaved edit; declining keeps the study.
     const asked: string[] = [];
     page.once('dialog', (dialog) => {

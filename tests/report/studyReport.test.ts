@@ -71,6 +71,10 @@ describe('studyReportOf', () => {
     if (settings.type !== 'table') throw new Error('no table');
     expect(settings.rows.map((r) => r[0])).toEqual(detailed.devices.map((d) => d.name ?? d.id));
     expect(settings.rows.find((r) => r[0] === 'Main 2000 A')![2]).toMatch(/long-time: pickup [\d.]+ × \([\d.]+ k?A\)/);
+    const windows = report.sections.find((s) => s.id === 'settings')!.blocks.filter((b) => b.type === 'table')[1];
+    if (windows?.type !== 'table') throw new Error('no settings-window table');
+    expect(windows.columns).toContain('binding constraints');
+    expect(windows.rows.some((r) => r[0] === 'Main 2000 A' && r[3] !== 'none')).toBe(true);
   });
 
   it('paginates with a contents page whose numbers point at each section, and a caution on every page', () => {

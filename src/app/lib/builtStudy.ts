@@ -1,14 +1,17 @@
-import { readStudy, type Study, type StudyInput, type StudyProblem } from '../../engine/study/index.ts';
+import {
+  readStudy,
+  type Study,
+  type StudyInput,
+  type StudyProblem,
+  type StudyReading,
+} from '../../engine/study/index.ts';
 import { networkOf, type Network } from '../../engine/network/index.ts';
 import { faultLevelsOf } from '../../engine/fault/index.ts';
 import { bandsOf } from './lookups.ts';
 import { systemRowsOf } from './systemTree.ts';
 
-/** A document as the engine reads it: the study when it is valid, and every problem. */
-export interface StudyReading {
-  study?: Study;
-  problems: StudyProblem[];
-}
+/** A document as the engine reads it: the study when it is valid, the document as parsed, and every problem. */
+export type { StudyReading };
 
 /** A document read and built all the way before it is shown: its reading and its radial tree. */
 export interface BuiltStudy {
@@ -77,7 +80,8 @@ export function builtStudyOf(input: unknown): BuildOutcome {
   const study = reading.study;
   if (!study)
     return { ok: false, problems: reading.problems, failed: reading.problems[0]?.message.startsWith(STOP) === true };
-  const document = (typeof input === 'string' ? documentOfText(input) : input) as StudyInput;
+  // From text, the document as the reader parsed it (byte-order mark and all handled once, there).
+  const document = (typeof input === 'string' ? reading.document : input) as StudyInput;
   try {
     const network = networkOf(study);
     systemRowsOf(network);

@@ -1,7 +1,7 @@
 import type { Study, StudyInput, StudyProblem } from '../../engine/study/index.ts';
 import type { Network } from '../../engine/network/index.ts';
 import { History } from './History.svelte.ts';
-import { builtStudyOf, documentOfText, networkOrUndefined, readingOf, type BuiltStudy } from '../lib/builtStudy.ts';
+import { builtStudyOf, networkOrUndefined, readingOf, type BuiltStudy } from '../lib/builtStudy.ts';
 import { removalOf, withoutRemoval } from '../lib/removal.ts';
 import { withItemAdded, withValueAt, withoutItemAt, valueAt, type DocumentPath } from '../lib/documentPath.ts';
 import { pathOfSelection, type Selection } from '../lib/selection.ts';
@@ -113,10 +113,10 @@ export class StudyState {
    * Returns true when opened.
    */
   open(text: string, fileName: string, options: { confirmDiscard?: () => boolean } = {}): boolean {
-    const document = documentOfText(text);
-    const built = builtStudyOf(document ?? text);
-    if (!built.ok || document === undefined) {
-      this.refused = { fileName, problems: built.ok ? [] : built.problems };
+    // Read from the text itself, by the command line's rules (byte-order mark, fields given twice, nesting).
+    const built = builtStudyOf(text);
+    if (!built.ok) {
+      this.refused = { fileName, problems: built.problems };
       return false;
     }
     // Only a good file can replace the study, so only then is there anything to confirm.

@@ -13,6 +13,6 @@ export type {
   Revision,
 } from './schema.ts';
 export { readStudy, parseStudy, formatProblem, formatPath } from './parse.ts';
-export type { StudyProblem } from './parse.ts';
+export type { StudyProblem, StudyReading } from './parse.ts';
 export { structureProblems } from './structure.ts';
 export { quantityField, percentField, availableFaultField, idField, positiveNumber } from './fields.ts';

@@ -56,14 +56,14 @@ describe('SheetState', () => {
     expect(sheet.figureSvg()).toBe(expected);
   });
 
-  it('error says why a view cannot be drawn, in the plot layer words, and the sheet is left out', () => {
+  it('an inverted current range is a problem of the study, naming the field, and the sheet keeps its last drawing', () => {
     const { sheet, study } = states();
+    const before = sheet.sheet;
     study.edit(['views', 0, 'currentRange'], [1000, 10], 'current range');
-    expect(study.problems).toEqual([]);
-    expect(sheet.sheet).toBeUndefined();
-    expect(sheet.error).toMatch(
-      /^sheet\.currentRange: expected two currents in amps with 0 < low < high, got \[1000,10\]$/,
-    );
+    expect(study.problems.map((p) => p.path)).toEqual(['study.views[0].currentRange[1]']);
+    expect(study.problems[0].message).toMatch(/^expected a value above 1000 A, got "10"$/);
+    expect(sheet.sheet).toBeDefined();
+    expect(sheet.sheet?.title).toBe(before?.title);
   });
 
   it('figureSvg() refuses plainly when the study has no view', () => {
