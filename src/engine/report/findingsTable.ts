@@ -64,7 +64,8 @@ export function worstText(finding: Finding): string {
       ? 'no operation'
       : worst.marginSeconds === -Infinity
         ? 'never clears'
-        : `${significant(worst.marginSeconds, 3)} s`;
+        : // A margin of a microsecond or less is an interval edge's rounding, not a margin: it reads 0.
+          `${significant(Math.abs(worst.marginSeconds) < 1e-6 ? 0 : worst.marginSeconds, 3)} s`;
   return `${margin} at ${formatAmps(worst.amps, 3)}`;
 }
 
