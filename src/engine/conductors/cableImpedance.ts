@@ -74,7 +74,7 @@ export function cableImpedanceOf(
           {
             label: `${cable.id} resistance at ${temperature} °C`,
             formula: `R_T = R_75 · (${TEMPERATURE_OFFSET[cable.material]} + T) / (${TEMPERATURE_OFFSET[cable.material] + TABLE_9_TEMPERATURE})`,
-            substituted: `R_T = ${r75} × (${TEMPERATURE_OFFSET[cable.material]} + ${temperature}) / ${TEMPERATURE_OFFSET[cable.material] + TABLE_9_TEMPERATURE}`,
+            substituted: `R_T = ${r75} Ω/1000 ft × (${TEMPERATURE_OFFSET[cable.material]} + ${temperature} °C) / ${TEMPERATURE_OFFSET[cable.material] + TABLE_9_TEMPERATURE} °C`,
             value: r,
             unit: 'Ω/1000 ft',
             source: 'NEC Ch. 9 Table 8 note coefficients; 90 °C for minimum fault, common practice',
@@ -84,7 +84,7 @@ export function cableImpedanceOf(
     {
       label: `${cable.id} impedance (${cable.size}, ${cable.sets} set${cable.sets > 1 ? 's' : ''}, ${round(feet)} ft)`,
       formula: 'Z = (R + jX) · L / 1000 / n',
-      substituted: `Z = (${round(r)} + j${round(x)}) × ${round(feet)} / 1000 / ${cable.sets} = ${formatImpedance(z)} Ω; |Z|`,
+      substituted: `Z = (${round(r)} + j${round(x)}) Ω/1000 ft × ${round(feet)} ft / 1000 / ${cable.sets} = ${formatImpedance(z)} Ω; |Z|`,
       value: Math.hypot(z.r, z.x),
       unit: 'Ω',
       source: per,
