@@ -5,6 +5,7 @@ import { parseStudy, type Study } from '../src/engine/study/index.ts';
 import { proposeSettings, settingWindowOf } from '../src/engine/window/index.ts';
 import type { Benchmark } from './benchmark.ts';
 import { radialStudy } from './radialStudy.ts';
+import { ROOT } from './root.ts';
 
 /** Wall times in ms of `repeats` runs after `warmup` untimed ones. */
 function runsMs(fn: () => void, repeats: number, warmup: number): number[] {
@@ -29,7 +30,7 @@ function measured(times: number[], detail: string) {
   return result;
 }
 
-const demo = (): Study => parseStudy(readFileSync(new URL('../demo/harrowmere-full.json', import.meta.url), 'utf8'));
+const demo = (): Study => parseStudy(readFileSync(`${ROOT}demo/harrowmere-full.json`, 'utf8'));
 
 export const benchmarks: Benchmark[] = [
   {
