@@ -1,0 +1,31 @@
+import type { GeneratorRating } from '../../../src/engine/generator/index.ts';
+
+/**
+ * An invented 500 kVA, 480 V standby generator with typical small-machine data (X″d 0.12, X′d 0.2, Xd 2.0 pu;
+ * T″d 0.015 s, T′d 0.4 s). Rated current 500 000 / (√3 × 480) = 601.4065 A.
+ */
+export function generatorOf(overrides: Partial<GeneratorRating> = {}): GeneratorRating {
+  return {
+    id: 'G1',
+    rating: 500e3,
+    voltage: 480,
+    powerFactor: 0.8,
+    xdSubtransient: 0.12,
+    xdTransient: 0.2,
+    xd: 2.0,
+    tdSubtransient: 0.015,
+    tdTransient: 0.4,
+    ...overrides,
+  };
+}
+
+/** Rated current of `generatorOf()` (A), I_r = S / (√3 · V). */
+export const RATED_AMPS = 500e3 / (Math.sqrt(3) * 480);
+
+/**
+ * The decrement's exponential form written out by hand (IEEE Std 551; standard machine theory), in per unit,
+ * for the checks to compare against: E·[(1/X″ − 1/X′)e^(−t/T″) + (1/X′ − 1/X)e^(−t/T′) + 1/X].
+ */
+export function decrementByHand(t: number, x2 = 0.12, x1 = 0.2, x = 2.0, t2 = 0.015, t1 = 0.4, e = 1): number {
+  return e * ((1 / x2 - 1 / x1) * Math.exp(-t / t2) + (1 / x1 - 1 / x) * Math.exp(-t / t1) + 1 / x);
+}

@@ -1,0 +1,135 @@
+import { describe, expect, it } from 'vitest';
+import { baseOhmsOf, generatorDecrement, ratedAmpsOf } from '../../../src/engine/generator/index.ts';
+import { assertInDelta } from '../../asserts.ts';
+import { RATED_AMPS, decrementByHand, generatorOf } from './fixtures.ts';
+
+describe('generatorDecrement', () => {
+  it('has the expected defaults', () => {
+    const decrement = generatorDecrement(generatorOf());
+    expect(decrement.generatorId).toBe('G1');
+    expect(decrement.volts).toBe(480);
+    assertInDelta(decrement.ratedAmps, 601.4065, 1e-6); // 500 kVA / (√3 × 480 V)
+    // Sampled from half a cycle at 60 Hz to 100 s, 20 points a decade.
+    assertInDelta(decrement.seconds[0], 1 / 120, 1e-12);
+    expect(decrement.seconds[decrement.seconds.length - 1]).toBe(100);
+    expect(decrement.seconds.length).toBe(Math.ceil(Math.log10(100 * 120) * 20) + 1);
+    expect(decrement.supported).toBe(false);
+    expect(decrement.notes.join('\n')).toMatch(/no load, rated voltage/);
+  });
+
+  describe('500 kVA 480 V machine, exponential form worked by hand (IEEE Std 551; standard machine theory)', () => {
+    const decrement = generatorDecrement(generatorOf());
+
+    it('at t = 0 the current is the subtransient E/X″d = 1/0.12 = 8.3333 pu = 5011.72 A', () => {
+      assertInDelta(decrement.perUnitAt(0), 1 / 0.12, 1e-12);
+      assertInDelta(decrement.ampsAt(0), 5011.72, 1e-6);
+      assertInDelta(decrement.initialAmps, RATED_AMPS / 0.12, 1e-12);
+    });
+
+    it('at t = T″d = 0.015 s: 3.3333·e^−1 + 4.5·e^−0.0375 + 0.5 = 6.06064 pu', () => {
+      assertInDelta(decrement.perUnitAt(0.015), 6.06064, 1e-5);
+      assertInDelta(decrement.perUnitAt(0.015), decrementByHand(0.015), 1e-12);
+    });
+
+    it('at t = T′d = 0.4 s: 2.15546 pu = 1296.31 A', () => {
+      assertInDelta(decrement.perUnitAt(0.4), 2.15546, 1e-5);
+      assertInDelta(decrement.ampsAt(0.4), 1296.31, 1e-5);
+    });
+
+    it('at t = 10 s the current has settled at E/Xd = 0.5 pu (no excitation support)', () => {
+      assertInDelta(decrement.perUnitAt(10), 0.5, 1e-9);
+      assertInDelta(decrement.sustainedAmps, RATED_AMPS / 2, 1e-12);
+    });
+
+    it('the sampled curve is the function at the sampled times and falls with time', () => {
+      decrement.seconds.forEach((t, i) => assertInDelta(decrement.amps[i], RATED_AMPS * decrementByHand(t), 1e-12));
+      for (let i = 1; i < decrement.amps.length; i++)
+        expect(decrement.amps[i]).toBeLessThanOrEqual(decrement.amps[i - 1]);
+    });
+  });
+
+  describe('excitation support (model: max(decaying term, sustained × rated))', () => {
+    const decrement = generatorDecrement(generatorOf({ sustained: 3 }));
+
+    it('holds 3 × rated = 1804.22 A once the decaying term falls below it', () => {
+      assertInDelta(decrement.perUnitAt(0.4), 3, 1e-12); // decaying term 2.155 pu < 3
+      assertInDelta(decrement.ampsAt(10), 3 * RATED_AMPS, 1e-12);
+      assertInDelta(decrement.sustainedAmps, 1804.22, 1e-6);
+      expect(decrement.supported).toBe(true);
+    });
+
+    it('leaves the current alone while the decaying term is higher (4.00885 pu at 0.1 s)', () => {
+      assertInDelta(decrement.perUnitAt(0.1), 4.00885, 1e-5);
+      assertInDelta(decrement.perUnitAt(0), 1 / 0.12, 1e-12);
+    });
+
+    it('behind an external impedance the floor is at most 1/|Ze| (rated terminal voltage, a simplification)', () => {
+      const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.5 } });
+      assertInDelta(far.perUnitAt(10), 2, 1e-12); // min(3, 1/0.5)
+    });
+  });
+
+  describe('fault behind an external impedance (Xe added to each reactance, time constants unchanged, common practice)', () => {
+    it('Xe = 0.1 pu: 1/0.22 = 4.54545 pu at t = 0 and 1/2.1 pu at 10 s', () => {
+      const decrement = generatorDecrement(generatorOf(), { external: { r: 0, x: 0.1 } });
+      assertInDelta(decrement.perUnitAt(0), 4.54545, 1e-5);
+      assertInDelta(decrement.perUnitAt(0.4), decrementByHand(0.4, 0.22, 0.3, 2.1), 1e-12);
+      assertInDelta(decrement.perUnitAt(0.4), 1.52727, 1e-5);
+      assertInDelta(decrement.perUnitAt(10), 1 / 2.1, 1e-9);
+    });
+
+    it('external resistance enters each magnitude: 1/|0.05 + j0.22| at t = 0', () => {
+      const decrement = generatorDecrement(generatorOf(), { external: { r: 0.05, x: 0.1 } });
+      assertInDelta(decrement.perUnitAt(0), 1 / Math.hypot(0.05, 0.22), 1e-12);
+    });
+
+    it('ohms become per unit on the generator base: 0.04608 Ω at 480 V, 500 kVA is 0.1 pu', () => {
+      assertInDelta(baseOhmsOf(generatorOf()), 0.4608, 1e-12); // 480² / 500 000
+      const decrement = generatorDecrement(generatorOf(), {
+        external: { r: 0, x: 0.04608 / baseOhmsOf(generatorOf()) },
+      });
+      assertInDelta(decrement.perUnitAt(0), 1 / 0.22, 1e-12);
+    });
+  });
+
+  it('a prefault internal voltage scales every term (E = 1.1 pu, loaded machine)', () => {
+    const decrement = generatorDecrement(generatorOf(), { internalVoltage: 1.1 });
+    assertInDelta(decrement.perUnitAt(0.4), 1.1 * decrementByHand(0.4), 1e-12);
+  });
+
+  it('rated current is S / (√3 · V)', () => {
+    assertInDelta(ratedAmpsOf({ rating: 2e6, voltage: 4160 }), 277.572, 1e-5); // textbook identity
+  });
+
+  describe('bad input names the field', () => {
+    it('rejects X′d below X″d', () => {
+      expect(() => generatorDecrement(generatorOf({ xdTransient: 0.1 }))).toThrow(
+        /^generators\.G1\.xdTransient: expected X′d of at least X″d \(0\.12\), got "0\.1"$/,
+      );
+    });
+    it('rejects Xd below X′d', () => {
+      expect(() => generatorDecrement(generatorOf({ xd: 0.15 }))).toThrow(
+        /^generators\.G1\.xd: expected Xd of at least X′d/,
+      );
+    });
+    it('rejects a rating that is not a positive number', () => {
+      expect(() => generatorDecrement(generatorOf({ rating: -5 }))).toThrow(
+        /^generators\.G1\.rating: expected a rating in VA greater than 0, got "-5"$/,
+      );
+    });
+    it('rejects T″d longer than T′d', () => {
+      expect(() => generatorDecrement(generatorOf({ tdSubtransient: 1 }))).toThrow(/^generators\.G1\.tdSubtransient: /);
+    });
+    it('rejects a power factor above 1', () => {
+      expect(() => generatorDecrement(generatorOf({ powerFactor: 1.2 }))).toThrow(/^generators\.G1\.powerFactor: /);
+    });
+    it('rejects a negative external reactance', () => {
+      expect(() => generatorDecrement(generatorOf(), { external: { r: 0, x: -0.1 } })).toThrow(
+        /^options\.external\.x: expected a reactance in pu of at least 0, got "-0\.1"$/,
+      );
+    });
+    it('rejects a negative time', () => {
+      expect(() => generatorDecrement(generatorOf()).ampsAt(-1)).toThrow(RangeError);
+    });
+  });
+});
