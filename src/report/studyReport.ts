@@ -100,7 +100,9 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
   const sourceText =
     source.kind === 'infinite'
       ? 'The source is taken as an infinite bus (no source impedance): the largest possible fault currents.'
-      : `The utility source is modelled by its available fault level at maximum${source.min ? ' and at minimum' : ' (no separate minimum was given, so the minimum equals the maximum)'}, with its X/R ratio.`;
+      : source.kind === 'generator'
+        ? `The source is generator ${source.id}, modelled at maximum by its subtransient reactance X″d and at minimum by its sustained current (IEEE Std 551).`
+        : `The utility source is modelled by its available fault level at maximum${source.min ? ' and at minimum' : ' (no separate minimum was given, so the minimum equals the maximum)'}, with its X/R ratio.`;
   const motors = study.motors.length;
   const margins = [...new Set(analysis.pairs.map((pair) => `${pair.kind}: ${pair.rule.basis}`))].sort();
   return [

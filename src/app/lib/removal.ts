@@ -33,7 +33,8 @@ type Item = { id?: unknown; from?: unknown; to?: unknown; bus?: unknown; feeds?:
  */
 export function removalOf(document: StudyInput, selection: Selection): Removal | undefined {
   const kind = selection.kind;
-  if (kind === 'source' || kind === 'view') return undefined;
+  // Switches and generators are deleted from the property editor's list, with no cascade.
+  if (kind === 'source' || kind === 'view' || kind === 'switch' || kind === 'generator') return undefined;
   const buses = listOf(document, 'buses');
   const transformers = listOf(document, 'transformers');
   const cables = listOf(document, 'cables');

@@ -1,7 +1,8 @@
 import type { DocumentPath } from './documentPath.ts';
 
 /** The kinds of item the System tree shows and the property editor edits. */
-export type ItemKind = 'source' | 'bus' | 'transformer' | 'cable' | 'motor' | 'device' | 'view';
+export type ItemKind =
+  'source' | 'bus' | 'transformer' | 'cable' | 'switch' | 'generator' | 'motor' | 'device' | 'view';
 
 /** What is selected: an item of the study by kind and id. */
 export interface Selection {
@@ -14,6 +15,8 @@ export const COLLECTION_OF: Record<Exclude<ItemKind, 'source'>, string> = {
   bus: 'buses',
   transformer: 'transformers',
   cable: 'cables',
+  switch: 'switches',
+  generator: 'generators',
   motor: 'motors',
   device: 'devices',
   view: 'views',

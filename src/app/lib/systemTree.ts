@@ -100,7 +100,9 @@ function branchNode(network: Network, branch: Branch): TreeNode {
   const detail =
     branch.type === 'transformer'
       ? `${formatSI(branch.item.rating, 'VA')}, ${formatVolts(branch.item.primary)}–${formatVolts(branch.item.secondary)}, ${branch.item.impedance} %Z`
-      : `${branch.item.sets > 1 ? `${branch.item.sets} × ` : ''}${branch.item.size} ${branch.item.material}, ${Math.round(branch.item.length / 0.3048)} ft`;
+      : branch.type === 'switch'
+        ? `${branch.item.switch.kind === 'transfer' ? 'transfer switch' : 'tie'}, closed from ${branch.item.from}`
+        : `${branch.item.sets > 1 ? `${branch.item.sets} × ` : ''}${branch.item.size} ${branch.item.material}, ${Math.round(branch.item.length / 0.3048)} ft`;
   return {
     kind: branch.type,
     id: item.id,

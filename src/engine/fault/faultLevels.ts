@@ -1,6 +1,7 @@
 import type { Network } from '../network/index.ts';
 import type { Work } from '../work.ts';
 import type { WorkStep } from '../work.ts';
+import { sourceLevelsOf } from './sourceLevels.ts';
 import { faultTreeOf, type FaultTree } from './faultTree.ts';
 import { faultSteps, singlePhaseSteps, stepsTo, zeroSequenceStepsTo } from './faultWork.ts';
 import { addImpedance, magnitudeOf, parallelImpedance, xrOf, type Impedance } from './impedance.ts';
@@ -114,14 +115,7 @@ export const MINIMUM_FAULT_TEMPERATURE = 90;
 export function faultLevelsOf(network: Network): FaultLevels {
   const { study } = network;
   const source = study.source;
-  const maxLevel = source.kind === 'utility' ? source.max : undefined;
-  // A minimum level without zero-sequence ratios keeps the maximum's (the same network, weaker).
-  const minLevel =
-    source.kind === 'utility'
-      ? source.min
-        ? { ...source.min, x0x1: source.min.x0x1 ?? source.max.x0x1, r0r1: source.min.r0r1 ?? source.max.r0r1 }
-        : source.max
-      : undefined;
+  const { max: maxLevel, min: minLevel, minPath } = sourceLevelsOf(source);
   const max = faultTreeOf(network, { kind: 'max', level: maxLevel, motors: true, temperature: 75, toleranced: true });
   const bare = faultTreeOf(network, { kind: 'max', level: maxLevel, motors: false, temperature: 75, toleranced: true });
   const min = faultTreeOf(network, {
@@ -132,12 +126,7 @@ export function faultLevelsOf(network: Network): FaultLevels {
     toleranced: false,
   });
   const zeroMax = zeroSequenceOf(network, max, maxLevel);
-  const zeroMin = zeroSequenceOf(
-    network,
-    min,
-    minLevel,
-    source.kind === 'utility' && source.min ? 'study.source.min' : 'study.source.max',
-  );
+  const zeroMin = zeroSequenceOf(network, min, minLevel, minPath);
   const singleMax = singlePhaseBusesOf(network, max, zeroMax, true);
   const singleMin = singlePhaseBusesOf(network, min, zeroMin, false);
 

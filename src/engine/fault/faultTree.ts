@@ -1,9 +1,10 @@
 import { cableImpedanceOf } from '../conductors/cableImpedance.ts';
-import type { Branch, Network } from '../network/index.ts';
+import { closedSwitchLinks, type Branch, type Network } from '../network/index.ts';
 import type { WorkStep } from '../work.ts';
 import { addImpedance, invertImpedance, parallelImpedance, ZERO_IMPEDANCE, type Impedance } from './impedance.ts';
 import { motorImpedanceOf } from './motorImpedance.ts';
 import { reflectImpedance } from './reflect.ts';
+import { sourceLevelsOf } from './sourceLevels.ts';
 import { sourceImpedanceOf, type SourceLevel } from './sourceImpedance.ts';
 import { transformerImpedanceOf } from './transformerImpedance.ts';
 
@@ -58,7 +59,7 @@ export function faultTreeOf(network: Network, condition: FaultCondition): FaultT
   // Element impedances for this condition.
   const root = study.source.bus;
   if (condition.level) {
-    const source = sourceImpedanceOf(condition.level, volts(root));
+    const source = sourceImpedanceOf(condition.level, volts(root), sourceLevelsOf(study.source).label);
     steps.set(study.source.id, source);
     branchZ.set(study.source.id, source.z);
   } else {
@@ -72,6 +73,20 @@ export function faultTreeOf(network: Network, condition: FaultCondition): FaultT
     branchZ.set(cable.id, result.z);
     steps.set(cable.id, result);
   });
+  for (const link of closedSwitchLinks(study.switches)) {
+    branchZ.set(link.id, ZERO_IMPEDANCE);
+    steps.set(link.id, {
+      steps: [
+        {
+          label: `${link.id}: closed switch from ${link.from} to ${link.to}, no impedance`,
+          formula: 'Z = 0',
+          substituted: 'Z = 0',
+          value: 0,
+          unit: 'Ω',
+        },
+      ],
+    });
+  }
   for (const t of study.transformers) {
     const result = transformerImpedanceOf(t, { toleranced: condition.toleranced });
     branchZ.set(t.id, result.z);

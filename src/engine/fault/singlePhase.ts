@@ -79,6 +79,10 @@ export function singlePhaseBusesOf(
     for (const branch of network.branchesFrom.get(busId) ?? []) {
       order.push(branch.item.to);
       const above = result.get(busId);
+      if (branch.type === 'switch') {
+        if (above) result.set(branch.item.to, above);
+        continue;
+      }
       if (branch.type === 'cable') {
         if (!above) continue;
         const loop = scaleImpedance(tree.branchZ.get(branch.item.id)!, 2);

@@ -22,7 +22,11 @@ export function sourcePowerOf(level: Pick<SourceLevel, 'available'>, volts: numb
  *
  * @example sourceImpedanceOf({ available: { va: 250e6 }, xr: 12 }, 480).z // { r: 7.6581e-5, x: 9.1897e-4 }
  */
-export function sourceImpedanceOf(level: SourceLevel, volts: number): { z: Impedance; readonly steps: WorkStep[] } {
+export function sourceImpedanceOf(
+  level: SourceLevel,
+  volts: number,
+  label = 'utility',
+): { z: Impedance; readonly steps: WorkStep[] } {
   const power = sourcePowerOf(level, volts);
   const magnitude = (volts * volts) / power;
   const z = impedanceOfMagnitude(magnitude, level.xr);
@@ -30,7 +34,7 @@ export function sourceImpedanceOf(level: SourceLevel, volts: number): { z: Imped
     const steps: WorkStep[] = [];
     if (level.available.amps !== undefined)
       steps.push({
-        label: 'utility short-circuit power from its fault current',
+        label: `${label} short-circuit power from its fault current`,
         formula: 'S_sc = √3 · V · I_sc',
         substituted: `S_sc = 1.7320508 × ${num(volts)} V × ${num(level.available.amps)} A`,
         value: sourcePowerOf(level, volts),
@@ -43,7 +47,7 @@ export function sourceImpedanceOf(level: SourceLevel, volts: number): { z: Imped
         : `R = |Z| / √(1 + ${num(level.xr)}²), X = ${num(level.xr)} · R`;
     steps.push(
       impedanceStep(
-        `utility impedance at ${num(volts)} V`,
+        `${label} impedance at ${num(volts)} V`,
         '|Z_U| = V² / S_sc',
         `|Z_U| = (${num(volts)} V)² / ${num(power)} VA = ${num(magnitude)} Ω; ${split}`,
         z,

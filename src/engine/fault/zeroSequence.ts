@@ -203,7 +203,7 @@ export function zeroSequenceOf(
   const volts = (busId: string) => network.buses.get(busId)!.voltage;
   const steps = new Map<string, WorkStep[]>();
   const root = study.source.bus;
-  const sourceGrounding = study.source.kind === 'utility' ? study.source.grounding : undefined;
+  const sourceGrounding = study.source.kind === 'infinite' ? undefined : study.source.grounding;
   const source = sourceZeroSequenceOf(
     level,
     tree.branchZ.get(study.source.id)!,
@@ -219,6 +219,10 @@ export function zeroSequenceOf(
       if (branch.type === 'transformer' && branch.item.phases === 1) continue;
       order.push(branch.item.to);
       const up = atBus.get(branch.item.from);
+      if (branch.type === 'switch') {
+        atBus.set(branch.item.to, up);
+        continue;
+      }
       if (branch.type === 'cable') {
         const cable = branch.item;
         const { z0, step } = cableZeroSequenceOf(cable, tree.branchZ.get(cable.id)!);

@@ -1,2 +1,2 @@
-export { networkOf, pathTo, locationBusOf, upstreamDeviceOf, seriesPairs, transformersBetween } from './network.ts';
-export type { Network, Branch, Element } from './network.ts';
+export { closedSwitchLinks, networkOf, pathTo, locationBusOf, upstreamDeviceOf, seriesPairs, transformersBetween } from './network.ts';
+export type { Network, Branch, Element, SwitchLink } from './network.ts';

@@ -1,9 +1,20 @@
-import type { Bus, Cable, Device, Motor, Study, Transformer } from '../study/index.ts';
+import type { Bus, Cable, Device, Motor, Study, Switch, Transformer } from '../study/index.ts';
+
+/** A closed switch as the network sees it: a connection of no impedance from one bus down to another. */
+export interface SwitchLink {
+  id: string;
+  name?: string;
+  from: string;
+  to: string;
+  /** The switch it comes from (a transfer switch links its normal or emergency side to its load bus). */
+  switch: Switch;
+}
 
 /** A branch of the radial tree: it carries current from its `from` bus down to its `to` bus. */
-export type Branch = { type: 'transformer'; item: Transformer } | { type: 'cable'; item: Cable };
+export type Branch =
+  { type: 'transformer'; item: Transformer } | { type: 'cable'; item: Cable } | { type: 'switch'; item: SwitchLink };
 
-/** Anything a device can feed: a bus (for a main), a branch, or a motor. */
+/** Anything in the tree: a bus, a branch (transformer, cable, closed switch), or a motor; devices feed all but switches. */
 export type Element = { type: 'bus'; item: Bus } | Branch | { type: 'motor'; item: Motor };
 
 /**
@@ -33,10 +44,11 @@ export function networkOf(study: Study): Network {
   for (const item of study.transformers) elements.set(item.id, { type: 'transformer', item });
   for (const item of study.cables) elements.set(item.id, { type: 'cable', item });
   for (const item of study.motors) elements.set(item.id, { type: 'motor', item });
+  for (const item of closedSwitchLinks(study.switches)) elements.set(item.id, { type: 'switch', item });
   const feederOf = new Map<string, Branch>();
   const branchesFrom = new Map<string, Branch[]>();
   for (const element of elements.values()) {
-    if (element.type !== 'transformer' && element.type !== 'cable') continue;
+    if (element.type !== 'transformer' && element.type !== 'cable' && element.type !== 'switch') continue;
     feederOf.set(element.item.to, element);
     branchesFrom.set(element.item.from, [...(branchesFrom.get(element.item.from) ?? []), element]);
   }
@@ -45,6 +57,21 @@ export function networkOf(study: Study): Network {
   const deviceFeeding = new Map(study.devices.map((device) => [device.feeds, device]));
   const devices = new Map(study.devices.map((device) => [device.id, device]));
   return { study, buses, elements, feederOf, branchesFrom, motorsOn, deviceFeeding, devices };
+}
+
+/**
+ * The connections the switches make in their present positions: a transfer switch links its
+ * `normal` side to its load bus (a study resolved for a scenario writes the chosen side as a closed
+ * tie), a tie links its two buses when `normally` closed.
+ */
+export function closedSwitchLinks(switches: readonly Switch[]): SwitchLink[] {
+  return switches.flatMap((item): SwitchLink[] => {
+    if (item.kind === 'transfer')
+      return [{ id: item.id, name: item.name, from: item.normal, to: item.to, switch: item }];
+    return item.normally === 'closed'
+      ? [{ id: item.id, name: item.name, from: item.from, to: item.to, switch: item }]
+      : [];
+  });
 }
 
 /**

@@ -11,6 +11,9 @@ export type {
   View,
   CoordinationSettings,
   Revision,
+  Generator,
+  Switch,
+  Scenario,
 } from './schema.ts';
 export { readStudy, parseStudy, formatProblem, formatPath } from './parse.ts';
 export type { StudyProblem, StudyReading } from './parse.ts';

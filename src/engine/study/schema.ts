@@ -71,6 +71,45 @@ export function createStudySchema(frequency = 60) {
     })
     .meta({ description: 'neutral grounding: solid, through a resistor or reactor of `ohms`, or ungrounded' });
 
+  const perUnit = (description: string, min: number, max: number, why: string) =>
+    boundedNumber(min, max, `${description}, per unit on the machine rating`, why);
+
+  /** A synchronous generator: its rating, reactances and time constants (IEEE Std 551, IEC 60909-0). */
+  const generatorFields = {
+    id: idField,
+    name: nameField.optional(),
+    bus: idField.meta({ description: 'the bus the generator feeds (its terminals)' }),
+    rating: quantityField('power', {
+      plainUnit: 'kVA',
+      min: 0,
+      exclusiveMin: true,
+      description: 'rated apparent power (kVA, or "2 MVA")',
+    }),
+    voltage: voltage('rated line-to-line voltage'),
+    powerFactor: boundedNumber(0.5, 1, 'rated power factor (0.8 for most standby sets)', 'between 0.5 and 1').default(
+      0.8,
+    ),
+    xdSubtransient: perUnit('subtransient reactance X″d', 0.01, 1, 'published X″d run from about 0.05 to 0.35 pu'),
+    xdTransient: perUnit('transient reactance X′d', 0.01, 2, 'published X′d run from about 0.1 to 0.5 pu'),
+    xd: perUnit('synchronous reactance Xd', 0.1, 10, 'published Xd run from about 0.5 to 4 pu'),
+    x0: perUnit('zero-sequence reactance X0', 0.001, 1, 'published X0 run from about 0.01 to 0.2 pu').optional(),
+    tdSubtransient: quantityField('time', { frequency, min: 0, exclusiveMin: true, max: 1 }).meta({
+      description: 'subtransient short-circuit time constant T″d, s (about 0.01 to 0.05 s)',
+    }),
+    tdTransient: quantityField('time', { frequency, min: 0, exclusiveMin: true, max: 20 }).meta({
+      description: 'transient short-circuit time constant T′d, s (about 0.1 to 2 s)',
+    }),
+    xr: xrRatio('X″d / Ra of the machine; omit for the default').optional(),
+    sustained: boundedNumber(
+      0.1,
+      10,
+      'excitation support: the short-circuit current it sustains, as a multiple of rated current (about 3 × for a permanent-magnet or auxiliary-winding exciter, common practice); omit when the current decays toward E/Xd',
+      'sustained fault currents run from below 1 × to about 4 × rated',
+    ).optional(),
+    grounding: grounding.default({ kind: 'solid' }).meta({ description: 'neutral grounding of the generator' }),
+  };
+  const generator = z.object(generatorFields).strict();
+
   const source = z.discriminatedUnion('kind', [
     z
       .object({
@@ -83,7 +122,56 @@ export function createStudySchema(frequency = 60) {
       })
       .strict(),
     z.object({ kind: z.literal('infinite'), id: idField, bus: idField }).strict(),
+    z.object({ kind: z.literal('generator'), ...generatorFields }).strict(),
   ]);
+
+  const switchDevice = z.discriminatedUnion('kind', [
+    z
+      .object({
+        kind: z.literal('transfer'),
+        id: idField,
+        name: nameField.optional(),
+        normal: idField.meta({ description: 'the bus on the normal side' }),
+        emergency: idField.meta({ description: 'the bus on the emergency (standby) side' }),
+        to: idField.meta({ description: 'the load bus the switch feeds from one side or the other' }),
+      })
+      .strict(),
+    z
+      .object({
+        kind: z.literal('tie'),
+        id: idField,
+        name: nameField.optional(),
+        from: idField,
+        to: idField,
+        normally: z
+          .enum(['open', 'closed'])
+          .default('open')
+          .meta({ description: 'position outside any scenario: open for a tie, closed for a bus coupler' }),
+      })
+      .strict(),
+  ]);
+
+  const scenario = z
+    .object({
+      id: idField,
+      name: nameField.optional(),
+      sources: z.array(idField).min(1).max(MAX_VIEW_ITEMS).optional().meta({
+        description: 'the sources in service (the utility source and generators by id); default: every source',
+      }),
+      switches: z
+        .record(idField, z.enum(['normal', 'emergency', 'open', 'closed']))
+        .default({})
+        .meta({
+          description:
+            'switch positions by id: "normal" or "emergency" for a transfer switch, "open" or "closed" for a tie; others stay in their normal position',
+        }),
+      outOfService: z
+        .array(idField)
+        .max(MAX_ELEMENTS)
+        .default([])
+        .meta({ description: 'transformers and cables switched out (e.g. one main of a main-tie-main)' }),
+    })
+    .strict();
 
   const bus = z
     .object({
@@ -261,6 +349,10 @@ export function createStudySchema(frequency = 60) {
       margin: quantityField('time', { frequency, min: 0 })
         .optional()
         .meta({ description: 'coordination margin required above the devices it backs up' }),
+      system: z.enum(['emergency', 'legally-required', 'critical-operations', 'elevator']).optional().meta({
+        description:
+          'part of a system whose overcurrent devices must be selectively coordinated (NFPA 70 700.32, 701.32, 708.54, 620.62)',
+      }),
       adjustable: z
         .record(
           z.string().regex(/^[a-zA-Z]+\.[a-zA-Z]+$/, 'expected a setting such as "timeOvercurrent.timeDial"'),
@@ -348,6 +440,10 @@ export function createStudySchema(frequency = 60) {
       fuseRatio: z.number().positive().max(1).default(0.75).meta({
         description: 'fuse/fuse: downstream total clearing must stay below this fraction of upstream minimum melting',
       }),
+      codeSelectivity: z.enum(['full-range', 'above-0.1-s']).default('full-range').meta({
+        description:
+          'what NFPA 70 selective coordination asks of marked systems: every current up to the available fault ("full-range"), or only where the devices take longer than 0.1 s ("above-0.1-s", which some authorities having jurisdiction accept); the authority having jurisdiction decides',
+      }),
       edition: z
         .enum(['2017', '2020', '2023'])
         .default('2023')
@@ -372,6 +468,7 @@ export function createStudySchema(frequency = 60) {
       margins: {},
       pairs: [],
       fuseRatio: 0.75,
+      codeSelectivity: 'full-range',
       edition: '2023',
       sensitivity: { maxTime: 2 },
     });
@@ -402,6 +499,20 @@ export function createStudySchema(frequency = 60) {
       notes: notesField.optional().meta({ description: 'study notes for the report cover' }),
       frequency: z.union([z.literal(50), z.literal(60)]).default(60),
       source,
+      generators: z
+        .array(generator)
+        .max(MAX_VIEW_ITEMS)
+        .default([])
+        .meta({ description: 'standby and other generators, each feeding its own bus when in service' }),
+      switches: z
+        .array(switchDevice)
+        .max(MAX_ELEMENTS)
+        .default([])
+        .meta({ description: 'transfer switches, ties and bus couplers (no impedance)' }),
+      scenarios: z.array(scenario).max(MAX_VIEW_ITEMS).default([]).meta({
+        description:
+          'operating scenarios, each fixing every switch and the sources in service so the network is radial; default: "normal" and, with generators and transfer switches, "on generator"',
+      }),
       buses: z.array(bus).min(1).max(MAX_ELEMENTS),
       transformers: z.array(transformer).max(MAX_ELEMENTS).default([]),
       cables: z.array(cable).max(MAX_ELEMENTS).default([]),
@@ -421,6 +532,9 @@ export type Study = z.output<typeof studySchema>;
 /** A study as written in a file, before parsing (numbers or text with units). */
 export type StudyInput = z.input<typeof studySchema>;
 export type Source = Study['source'];
+export type Generator = Study['generators'][number];
+export type Switch = Study['switches'][number];
+export type Scenario = Study['scenarios'][number];
 export type Bus = Study['buses'][number];
 export type Transformer = Study['transformers'][number];
 export type Cable = Study['cables'][number];

@@ -2,6 +2,9 @@ import { NEC_TABLE_9, parseConductorSize, TABLE_9_SPAN } from '../conductors/ind
 import { expectedGot, InputError } from '../errors.ts';
 import { networkOf, upstreamDeviceOf } from '../network/network.ts';
 import { formatSI } from '../quantity/format.ts';
+import { feedersIn } from '../scenario/connections.ts';
+import { scenarioPartsOf } from '../scenario/scenarioParts.ts';
+import { hasScenarios, scenarioLabel, scenariosOf } from '../scenario/scenarios.ts';
 import type { StudyProblem } from './parse.ts';
 import type { Study } from './schema.ts';
 
@@ -31,6 +34,8 @@ export function structureProblems(study: Study): StudyProblem[] {
     else kindOf.set(id, kind);
   };
   claim('study.source', study.source.id, 'source');
+  study.generators.forEach((g, i) => claim(`study.generators[${i}]`, g.id, 'generator'));
+  study.switches.forEach((w, i) => claim(`study.switches[${i}]`, w.id, 'switch'));
   study.buses.forEach((bus, i) => claim(`study.buses[${i}]`, bus.id, 'bus'));
   study.transformers.forEach((t, i) => claim(`study.transformers[${i}]`, t.id, 'transformer'));
   study.cables.forEach((c, i) => claim(`study.cables[${i}]`, c.id, 'cable'));
@@ -41,13 +46,16 @@ export function structureProblems(study: Study): StudyProblem[] {
     if (viewIds.has(v.id)) problem(`study.views[${i}].id`, 'a view id not already used', v.id);
     viewIds.add(v.id);
   });
+  const scenarioIds = new Set<string>();
+  study.scenarios.forEach((s, i) => {
+    if (scenarioIds.has(s.id)) problem(`study.scenarios[${i}].id`, 'a scenario id not already used', s.id);
+    scenarioIds.add(s.id);
+  });
 
-  // References and the tree: each bus but the source's is fed by exactly one branch.
+  // References: branches, switches and generators join buses; scenarios name what they switch.
   const voltageOf = new Map(study.buses.map((bus) => [bus.id, bus.voltage]));
   const isBus = (id: string) => kindOf.get(id) === 'bus';
   if (!isBus(study.source.bus)) problem('study.source.bus', 'the id of a bus', study.source.bus);
-  const feederOf = new Map<string, string>();
-  const childrenOf = new Map<string, string[]>();
   const branches = [
     ...study.transformers.map((t, i) => ({ item: t, path: `study.transformers[${i}]` })),
     ...study.cables.map((c, i) => ({ item: c, path: `study.cables[${i}]` })),
@@ -59,27 +67,81 @@ export function structureProblems(study: Study): StudyProblem[] {
     if (item.from === item.to) problem(`${path}.to`, 'a bus other than its "from" bus', item.to);
     else if (item.to === study.source.bus)
       problem(`${path}.to`, 'a bus below the source (the source bus is fed by the source)', item.to);
-    else if (feederOf.has(item.to))
-      problem(
-        `${path}.to`,
-        `a bus fed only once in a radial system (${feederOf.get(item.to)} already feeds it)`,
-        item.to,
-      );
-    else {
-      feederOf.set(item.to, item.id);
-      const children = childrenOf.get(item.from);
-      if (children) children.push(item.to);
-      else childrenOf.set(item.from, [item.to]);
-    }
   }
-  // Every bus reached from the source once; a bus in a loop is never reached (a depth-first walk
-  // with an explicit stack: any depth of tree).
+  study.generators.forEach((g, i) => {
+    const path = `study.generators[${i}]`;
+    if (!isBus(g.bus)) problem(`${path}.bus`, 'the id of a bus', g.bus);
+    else if (!matches(g.voltage, voltageOf.get(g.bus)!))
+      problem(`${path}.voltage`, `the voltage of bus ${g.bus} (${voltageOf.get(g.bus)} V)`, `${g.voltage} V`);
+  });
+  study.switches.forEach((w, i) => {
+    const path = `study.switches[${i}]`;
+    const ends = w.kind === 'transfer' ? (['normal', 'emergency', 'to'] as const) : (['from', 'to'] as const);
+    const ids = ends.map((end) => (w as Record<string, string>)[end]);
+    ends.forEach((end, k) => {
+      if (!isBus(ids[k])) problem(`${path}.${end}`, 'the id of a bus', ids[k]);
+    });
+    if (!ids.every(isBus)) return;
+    ends.forEach((end, k) => {
+      if (k > 0 && ids.indexOf(ids[k]) < k)
+        problem(`${path}.${end}`, "a bus other than the switch's other ends", ids[k]);
+      else if (k > 0 && !matches(voltageOf.get(ids[k])!, voltageOf.get(ids[0])!))
+        problem(`${path}.${end}`, `a bus at the voltage of ${ids[0]} (${voltageOf.get(ids[0])} V)`, ids[k]);
+    });
+    if (ids.at(-1) === study.source.bus)
+      problem(`${path}.to`, 'a bus below the source (the source bus is fed by the source)', ids.at(-1));
+  });
+  study.scenarios.forEach((s, i) => {
+    const path = `study.scenarios[${i}]`;
+    s.sources?.forEach((id, j) => {
+      const kind = kindOf.get(id);
+      if (kind !== 'source' && kind !== 'generator')
+        problem(`${path}.sources[${j}]`, 'the id of the source or of a generator', id);
+    });
+    for (const [id, position] of Object.entries(s.switches)) {
+      const item = study.switches.find((w) => w.id === id);
+      if (!item) problem(`${path}.switches.${id}`, 'the id of a switch', id);
+      else if (
+        item.kind === 'transfer'
+          ? position !== 'normal' && position !== 'emergency'
+          : position !== 'open' && position !== 'closed'
+      )
+        problem(
+          `${path}.switches.${id}`,
+          item.kind === 'transfer' ? '"normal" or "emergency" for a transfer switch' : '"open" or "closed" for a tie',
+          position,
+        );
+    }
+    s.outOfService.forEach((id, j) => {
+      const kind = kindOf.get(id);
+      if (kind !== 'transformer' && kind !== 'cable')
+        problem(`${path}.outOfService[${j}]`, 'the id of a transformer or cable', id);
+    });
+  });
+
+  // The tree, scenario by scenario: each bus energised at most once, every bus reached in some
+  // scenario (a depth-first walk with an explicit stack: any depth of tree).
+  const switched = hasScenarios(study);
   const reached = new Set<string>();
-  if (isBus(study.source.bus)) {
-    const stack = [study.source.bus];
+  const reported = new Set<string>();
+  for (const scenario of scenariosOf(study)) {
+    const { feederOf, doubles } = feedersIn(study, scenario);
+    for (const { first, second } of doubles) {
+      if (second.kind !== 'source' && second.to === study.source.bus && first.id === study.source.id) continue;
+      if (reported.has(second.path)) continue;
+      reported.add(second.path);
+      const where = switched ? `in scenario "${scenarioLabel(scenario)}"` : 'in a radial system';
+      problem(second.path, `a bus fed only once ${where} (${first.id} already feeds it)`, second.to);
+    }
+    const childrenOf = new Map<string, string[]>();
+    for (const c of feederOf.values())
+      if (c.from !== undefined) childrenOf.set(c.from, [...(childrenOf.get(c.from) ?? []), c.to]);
+    const stack = [...feederOf.values()].filter((c) => c.kind === 'source').map((c) => c.to);
+    const seen = new Set<string>();
     while (stack.length > 0) {
       const bus = stack.pop()!;
-      if (reached.has(bus)) continue;
+      if (seen.has(bus)) continue;
+      seen.add(bus);
       reached.add(bus);
       for (const child of childrenOf.get(bus) ?? []) stack.push(child);
     }
@@ -88,7 +150,9 @@ export function structureProblems(study: Study): StudyProblem[] {
     if (!reached.has(bus.id))
       problem(
         `study.buses[${i}]`,
-        'a bus connected to the source through transformers and cables (this one is an orphan or in a loop)',
+        switched
+          ? 'a bus connected to a source through transformers, cables and switches in some scenario (this one is an orphan or in a loop)'
+          : 'a bus connected to the source through transformers and cables (this one is an orphan or in a loop)',
         bus.id,
       );
   });
@@ -149,7 +213,7 @@ export function structureProblems(study: Study): StudyProblem[] {
   const fedBy = new Map<string, string>();
   study.devices.forEach((d, i) => {
     const kind = kindOf.get(d.feeds);
-    if (!kind || kind === 'device' || kind === 'source')
+    if (!kind || kind === 'device' || kind === 'source' || kind === 'generator' || kind === 'switch')
       problem(`study.devices[${i}].feeds`, 'the id of a bus, transformer, cable or motor', d.feeds);
     else if (fedBy.has(d.feeds))
       problem(
@@ -190,12 +254,18 @@ export function structureProblems(study: Study): StudyProblem[] {
   });
   if (problems.length > 0) return problems;
 
-  // Only now is the study a tree, so the network can be walked.
-  const network = networkOf(study);
+  // Only now is every scenario a forest of trees, so the networks can be walked: a per-pair margin
+  // names a device just above another in some scenario.
+  const networks = scenariosOf(study).flatMap((scenario) =>
+    scenarioPartsOf(study, scenario).map((part) => networkOf(part.study)),
+  );
   study.coordination.pairs.forEach((pair, i) => {
-    if (upstreamDeviceOf(network, network.devices.get(pair.downstream)!)?.id !== pair.upstream) {
+    const inSeries = networks.some((network) => {
+      const downstream = network.devices.get(pair.downstream);
+      return downstream !== undefined && upstreamDeviceOf(network, downstream)?.id === pair.upstream;
+    });
+    if (!inSeries)
       problem(`study.coordination.pairs[${i}].upstream`, `the device just above ${pair.downstream}`, pair.upstream);
-    }
   });
   return problems;
 }

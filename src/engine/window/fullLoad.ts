@@ -62,7 +62,7 @@ export function fullLoadOf(trial: Trial, device: Device): FullLoad | undefined {
       subjects.push(motor.id);
     }
     for (const branch of network.branchesFrom.get(busId) ?? []) {
-      if (branch.type === 'cable') stack.push(branch.item.to);
+      if (branch.type === 'cable' || branch.type === 'switch') stack.push(branch.item.to);
       else {
         transformersAmps += (transformerRatedAmps(branch.item, busVolts) * busVolts) / volts;
         subjects.push(branch.item.id);

@@ -16,6 +16,7 @@ import {
   findingMark,
   motorSymbol,
   sourceSymbol,
+  switchSymbol,
   symbolDefaults,
   transformerSymbol,
 } from './symbols.ts';
@@ -45,7 +46,7 @@ export interface OneLineOptions {
 /** Where an element landed, for hit-testing and tests: its symbol box and its label box. */
 export interface OneLinePlace {
   id: string;
-  type: 'source' | 'bus' | 'transformer' | 'cable' | 'motor' | 'device';
+  type: 'source' | 'bus' | 'transformer' | 'cable' | 'switch' | 'motor' | 'device';
   symbol: Box;
   label: Box;
 }
@@ -167,6 +168,7 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
     else if (element?.type === 'transformer')
       items.push(...transformerSymbol(x, elementY, element.item.connection, { dataId: drop.elementId }));
     else if (element?.type === 'cable') items.push(...cableSymbol(x, elementY, { dataId: drop.elementId }));
+    else if (element?.type === 'switch') items.push(...switchSymbol(x, elementY, { dataId: drop.elementId }));
     else if (element?.type === 'motor') items.push(...motorSymbol(x, elementY, { dataId: drop.elementId }));
     // A transformer's winding marks sit right of its circles: its label starts further right.
     const elementLabelX = labelX + (drop.kind === 'transformer' ? 12 : 0);
@@ -280,6 +282,11 @@ function elementLines(analysis: Analysis, drop: Omit<Drop, 'x' | 'width'>): stri
     const source = study.source;
     const bus = faults.buses.get(source.bus);
     if (source.kind === 'infinite') return [source.id, 'infinite bus'];
+    if (source.kind === 'generator')
+      return [
+        source.name ?? source.id,
+        `generator, ${significant(source.rating / 1000, 4)} kVA, X″d ${significant(source.xdSubtransient, 3)} pu`,
+      ];
     const amps = bus ? formatAmps(bus.max.threePhase) : '';
     return [source.id, `utility, ${amps} at ${formatVolts(network.buses.get(source.bus)!.voltage)}`];
   }
@@ -301,6 +308,13 @@ function elementLines(analysis: Analysis, drop: Omit<Drop, 'x' | 'width'>): stri
     return [
       c.name ?? c.id,
       `${c.sets > 1 ? `${c.sets} × ` : ''}${c.size} ${c.material === 'copper' ? 'Cu' : 'Al'}, ${feet} ft`,
+    ];
+  }
+  if (element.type === 'switch') {
+    const link = element.item;
+    return [
+      link.name ?? link.id,
+      link.switch.kind === 'transfer' ? `transfer switch, from ${link.from}` : 'tie, closed',
     ];
   }
   if (element.type === 'motor') {

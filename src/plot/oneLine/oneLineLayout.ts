@@ -9,7 +9,7 @@ import type { Device } from '../../engine/study/index.ts';
 export interface Drop {
   /** The element the run carries: a transformer, cable or motor id, or the source id for the top run. */
   elementId: string;
-  kind: 'source' | 'transformer' | 'cable' | 'motor';
+  kind: 'source' | 'transformer' | 'cable' | 'switch' | 'motor';
   /** The device whose `feeds` is the element. */
   feeder?: Device;
   /** The device whose `feeds` is the child bus (a main). */

@@ -138,6 +138,20 @@ export function cableSymbol(x: number, y: number, options: SymbolOptions): Primi
 }
 
 /**
+ * A closed switch (transfer switch or tie in its present position): a break in the run bridged by a
+ * blade, with a small circle at each contact (IEEE 315 / IEC 60617 style).
+ * @example switchSymbol(40, 100, { dataId: 'ATS' }).length // 2
+ */
+export function switchSymbol(x: number, y: number, options: SymbolOptions): Primitive[] {
+  const stroke = options.stroke ?? symbolDefaults.stroke;
+  const base = { stroke, strokeWidth: symbolDefaults.strokeWidth, role: 'one-line-branch', dataId: options.dataId };
+  return [
+    { type: 'path', d: circlePath(x, y - 7, 2) + circlePath(x, y + 7, 2), fill: '#ffffff', ...base },
+    { type: 'path', d: `M${fixed(x)},${fixed(y - 5)}L${fixed(x)},${fixed(y + 5)}`, fill: 'none', ...base },
+  ];
+}
+
+/**
  * A motor: a circle marked M at the end of its run.
  * @example motorSymbol(40, 100, { dataId: 'M1' }).length // 2
  */
@@ -170,10 +184,16 @@ export function motorSymbol(x: number, y: number, options: SymbolOptions): Primi
 }
 
 /**
- * The source: a circle holding a sine wave for a utility, or the infinity sign for an infinite bus.
+ * The source: a circle holding a sine wave for a utility, a "G" for a generator (IEEE 315 / IEC 60617
+ * rotating machine), or the infinity sign for an infinite bus.
  * @example sourceSymbol(40, 30, 'utility', { dataId: 'UTIL' }).length // 2
  */
-export function sourceSymbol(x: number, y: number, kind: 'utility' | 'infinite', options: SymbolOptions): Primitive[] {
+export function sourceSymbol(
+  x: number,
+  y: number,
+  kind: 'utility' | 'infinite' | 'generator',
+  options: SymbolOptions,
+): Primitive[] {
   const r = symbolDefaults.size / 2;
   const stroke = options.stroke ?? symbolDefaults.stroke;
   const base = { stroke, strokeWidth: symbolDefaults.strokeWidth, role: 'one-line-source', dataId: options.dataId };
@@ -189,7 +209,7 @@ export function sourceSymbol(x: number, y: number, kind: 'utility' | 'infinite',
           type: 'text',
           x,
           y: y + 4,
-          text: '∞',
+          text: kind === 'generator' ? 'G' : '∞',
           size: 12,
           anchor: 'middle',
           fill: stroke,
