@@ -1,5 +1,5 @@
 import type { Scenario, Study, Switch } from '../study/index.ts';
-import { scenarioLabel, sourcesInService } from './scenarios.ts';
+import { sourcesInService } from './scenarios.ts';
 
 /** One thing that energises a bus in a scenario: a source at its bus, or a branch or closed switch from a bus above. */
 export interface Connection {
