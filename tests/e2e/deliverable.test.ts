@@ -1,5 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
+import type { Page } from 'playwright-core';
+import { analyseStudy } from '../../src/engine/analysis.ts';
+import { parseStudy } from '../../src/engine/study/index.ts';
+import { pagePoints } from '../../src/plot/pdf.ts';
+import { reportPagesOf, studyReportOf } from '../../src/report/index.ts';
+import { mediaBoxesOf, toUnicodeOf } from '../pdfBytes.ts';
 import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
 
 let bench: Workbench;
@@ -79,4 +85,48 @@ describe('the study deliverable in the workbench', () => {
     expect(html).toContain('qualified engineer');
     await context.close();
   });
+
+  it('prints the sheet and the report to PDF on the chosen paper, with DejaVu Sans embedded so Ω and ≥ survive', async () => {
+    const { context, page } = await bench.open();
+    // The site is printed on every sheet and on the report.
+    await page.getByTestId('details-open').click();
+    const site = page.getByTestId('study-details').getByTestId('detail-site');
+    await site.fill('Bay 4: earth path 1.2 Ω, margin ≥ 0.3 s');
+    await site.press('Tab');
+    await page.keyboard.press('Escape');
+    await settled(page);
+    const document = JSON.parse((await downloaded(page, 'study-json')).toString('utf8'));
+    const rounded = ([width, height]: [number, number]) => [width, height].map((n) => Math.round(n * 100) / 100);
+
+    // The sheet on A3, in the usual orientation for a sheet (landscape, as `discern plot` prints).
+    await page.getByTestId('export-paper').selectOption('a3');
+    const sheet = await downloaded(page, 'pdf');
+    expect(sheet.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    expect(sheet.toString('latin1')).toContain('/FontFile2');
+    expect(mediaBoxesOf(sheet)).toEqual([rounded(pagePoints('a3', 'landscape'))]);
+    for (const char of 'Ω≥') expect(toUnicodeOf(sheet).has(char.codePointAt(0)!), `${char} in the sheet`).toBe(true);
+
+    // The report on A4 turned landscape: every page that size, as many pages as the command line lays out.
+    await page.getByTestId('export-paper').selectOption('a4');
+    await page.getByTestId('export-orientation').selectOption('landscape');
+    const report = await downloaded(page, 'report-pdf', /-report\.pdf$/);
+    expect(report.toString('latin1')).toContain('/FontFile2');
+    const expectedPages = reportPagesOf(studyReportOf(analyseStudy(parseStudy(document))), {
+      paper: 'a4',
+      orientation: 'landscape',
+    }).length;
+    expect(mediaBoxesOf(report)).toEqual(Array(expectedPages).fill(rounded(pagePoints('a4', 'landscape'))));
+    for (const char of 'Ω≥×') expect(toUnicodeOf(report).has(char.codePointAt(0)!), `${char} in the report`).toBe(true);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
 });
+
+// Accepts a page and a choice of the Export menu; the bytes of the file it downloads.
+async function downloaded(page: Page, kind: string, name?: RegExp): Promise<Buffer> {
+  const download = page.waitForEvent('download');
+  await page.getByTestId('export-menu').selectOption(kind);
+  const file = await download;
+  if (name) expect(file.suggestedFilename()).toMatch(name);
+  return readFileSync((await file.path())!);
+}

@@ -1,8 +1,54 @@
+import type { Paper } from '../../plot/pdf.ts';
+import type { StudyReport } from '../../report/studyReport.ts';
 import { downloadBlob } from './download.ts';
+import { loadPdfFonts } from './pdfFonts.ts';
 
-/** What the Export menu offers. */
-export type ExportKind =
-  'svg' | 'png' | 'pdf' | 'findings-md' | 'findings-csv' | 'probes-csv' | 'study-json' | 'report-html';
+/** A kind of file the Export menu writes. */
+export type ExportFormat =
+  'svg' | 'png' | 'pdf' | 'findings-md' | 'findings-csv' | 'probes-csv' | 'study-json' | 'report-html' | 'report-pdf';
+
+/**
+ * What the Export menu asks for: a kind of file, or a printable one (the sheet's PDF, the study
+ * report as PDF or print-ready HTML) with the paper it prints on. A printable kind asked for alone
+ * prints on the command line's default page.
+ */
+export type ExportKind = ExportFormat | PagedExport;
+
+/** A printable export with its page: `orientation` left out means the usual one for what is printed. */
+export interface PagedExport {
+  kind: 'pdf' | 'report-pdf' | 'report-html';
+  paper: Paper;
+  orientation?: Orientation;
+}
+
+/** Which way up a printed page is. */
+export type Orientation = 'landscape' | 'portrait';
+
+/** The page an export prints on: paper and orientation, as the command line's `--paper`/`--orientation`. */
+export interface ExportPage {
+  paper: Paper;
+  orientation: Orientation;
+}
+
+/** The papers a printable export offers, with the label the menu shows (ANSI and ISO 216 sizes). */
+export const EXPORT_PAPERS: readonly { paper: Paper; label: string }[] = [
+  { paper: 'letter', label: 'Letter' },
+  { paper: 'a4', label: 'A4' },
+  { paper: 'tabloid', label: 'Tabloid 11×17' },
+  { paper: 'a3', label: 'A3' },
+];
+
+/**
+ * The page an export prints on, with the command line's defaults for what is left out: Letter,
+ * landscape for a sheet (`discern plot`) and portrait for the study report (`discern report`).
+ * @example exportPageOf({ kind: 'report-pdf', paper: 'a4' }) // { paper: 'a4', orientation: 'portrait' }
+ */
+export function exportPageOf(request: ExportKind): ExportPage {
+  const kind = typeof request === 'string' ? request : request.kind;
+  const usual: Orientation = kind.startsWith('report-') ? 'portrait' : 'landscape';
+  if (typeof request === 'string') return { paper: 'letter', orientation: usual };
+  return { paper: request.paper, orientation: request.orientation ?? usual };
+}
 
 /**
  * Downloads a sheet's standalone SVG (the plot layer's `svgOf`, so it matches the CLI's figure).
@@ -41,30 +87,29 @@ export async function downloadPng(fileName: string, svg: string, scale = 2): Pro
 }
 
 /**
- * Writes a standalone SVG into a one-page PDF of the same proportions (jspdf + svg2pdf.js, loaded
- * only when a PDF is asked for so the workbench starts light).
- * @example await downloadPdf('sheet.pdf', svg)
+ * Prints a standalone SVG sheet to a one-page PDF on the chosen page with the plot layer's `pdfOf`
+ * (the command line's writer, so the same paper gives the same page) and downloads it. DejaVu Sans
+ * is embedded, so Ω, µ, ≥ and × print; the writer and the fonts load only when a PDF is asked for.
+ * @example await downloadPdf('sheet.pdf', svg, { paper: 'a4', orientation: 'landscape' })
  */
-export async function downloadPdf(fileName: string, svg: string): Promise<void> {
-  const [{ jsPDF }] = await Promise.all([import('jspdf'), import('svg2pdf.js')]);
-  const { width, height } = sizeOfSvg(svg);
-  const element = new DOMParser().parseFromString(svg, 'image/svg+xml').documentElement as unknown as SVGSVGElement;
-  // svg2pdf measures text with getBBox, which needs the element in the document.
-  const host = document.createElement('div');
-  host.style.cssText = 'position:fixed;left:-10000px;top:0;visibility:hidden';
-  host.append(element);
-  document.body.append(host);
-  try {
-    const doc = new jsPDF({
-      orientation: width >= height ? 'landscape' : 'portrait',
-      unit: 'pt',
-      format: [width, height],
-    });
-    await doc.svg(element, { x: 0, y: 0, width, height });
-    downloadBlob(fileName, doc.output('blob'));
-  } finally {
-    host.remove();
-  }
+export async function downloadPdf(fileName: string, svg: string, page: ExportPage): Promise<void> {
+  const [{ pdfOf }, fonts] = await Promise.all([import('../../plot/pdf.ts'), loadPdfFonts()]);
+  downloadBlob(fileName, pdfBlobOf(await pdfOf(svg, { ...page, fonts })));
+}
+
+/**
+ * Prints the study report to PDF on the chosen page with the report's `pdfOfReport` (as `discern
+ * report --out x.pdf` does) and downloads it, DejaVu Sans embedded.
+ * @example await downloadReportPdf('study-report.pdf', studyReportOf(analysis), { paper: 'letter', orientation: 'portrait' })
+ */
+export async function downloadReportPdf(fileName: string, report: StudyReport, page: ExportPage): Promise<void> {
+  const [{ pdfOfReport }, fonts] = await Promise.all([import('../../report/reportPdf.ts'), loadPdfFonts()]);
+  downloadBlob(fileName, pdfBlobOf(await pdfOfReport(report, page, { fonts })));
+}
+
+// Accepts a PDF's bytes; a Blob of them with the PDF media type.
+function pdfBlobOf(bytes: Uint8Array): Blob {
+  return new Blob([bytes as Uint8Array<ArrayBuffer>], { type: 'application/pdf' });
 }
 
 /**

@@ -29,8 +29,16 @@ export type { DemoStudy } from './demos.ts';
 export { formatDocumentPath, valueAt, withItemAdded, withValueAt, withoutItemAt } from './documentPath.ts';
 export type { DocumentPath } from './documentPath.ts';
 export { downloadBlob, downloadText, fileStemOf, readFileText } from './download.ts';
-export { downloadPdf, downloadPng, downloadSvg, sizeOfSvg } from './exports.ts';
-export type { ExportKind } from './exports.ts';
+export {
+  downloadPdf,
+  downloadPng,
+  downloadReportPdf,
+  downloadSvg,
+  EXPORT_PAPERS,
+  exportPageOf,
+  sizeOfSvg,
+} from './exports.ts';
+export type { ExportFormat, ExportKind, ExportPage, Orientation, PagedExport } from './exports.ts';
 export { fieldInfoAt, missingFieldsAt, schemaNodeAt, STUDY_JSON_SCHEMA } from './fieldInfo.ts';
 export type { FieldControl, FieldInfo, SchemaNode } from './fieldInfo.ts';
 export { fieldLabel } from './fieldLabel.ts';
@@ -41,6 +49,8 @@ export type { FindingCount } from './lookups.ts';
 export { newStudyDocument, newViewOf } from './newItems.ts';
 export { idleScheduler } from './idle.ts';
 export type { IdleHost, Scheduler } from './idle.ts';
+export { loadPdfFonts } from './pdfFonts.ts';
+export type { PdfFonts } from './pdfFonts.ts';
 export { csvCell, probesCsv } from './probeCsv.ts';
 export { alsoRemoved, removalOf, withoutRemoval } from './removal.ts';
 export type { RemovableKind, Removal } from './removal.ts';

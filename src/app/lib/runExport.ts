@@ -1,20 +1,22 @@
 import type { StudyContext } from '../state/context.ts';
 import { csvReport, markdownReport } from '../../engine/report/index.ts';
 import { downloadText, fileStemOf } from './download.ts';
-import { downloadPdf, downloadPng, downloadSvg, type ExportKind } from './exports.ts';
+import { downloadPdf, downloadPng, downloadReportPdf, downloadSvg, exportPageOf, type ExportKind } from './exports.ts';
 import { probesCsv } from './probeCsv.ts';
 
 /**
  * Carries out one choice of the Export menu: the current sheet as SVG, PNG or PDF (all from the plot
- * layer's SVG, so they match the command line's figure), the findings as Markdown or CSV (the
- * engine's reports, as the command line writes them), the pinned probes as CSV, or the study as JSON
- * (as written), or the whole study report as one print-ready HTML page (the same report the command line
- * writes). Throws with a plain message when there is nothing to export yet.
+ * layer's SVG, so they match the command line's figure; the PDF on the chosen paper), the findings as
+ * Markdown or CSV (the engine's reports, as the command line writes them), the pinned probes as CSV,
+ * the study as JSON (as written), or the whole study report as one print-ready HTML page or as a PDF,
+ * both on the chosen paper (the same report the command line writes). Throws with a plain message when
+ * there is nothing to export yet.
  *
- * @example await runExport('svg', context)
+ * @example await runExport({ kind: 'pdf', paper: 'a3' }, context)
  */
-export async function runExport(kind: ExportKind, context: StudyContext): Promise<void> {
+export async function runExport(request: ExportKind, context: StudyContext): Promise<void> {
   const { study, sheet } = context;
+  const kind = typeof request === 'string' ? request : request.kind;
   const stem = fileStemOf(study.document.name);
   const view = study.view?.id ?? 'sheet';
   switch (kind) {
@@ -23,7 +25,7 @@ export async function runExport(kind: ExportKind, context: StudyContext): Promis
     case 'png':
       return downloadPng(`${stem}-${view}.png`, sheet.figureSvg());
     case 'pdf':
-      return downloadPdf(`${stem}-${view}.pdf`, sheet.figureSvg());
+      return downloadPdf(`${stem}-${view}.pdf`, sheet.figureSvg(), exportPageOf(request));
     case 'findings-md':
       return downloadText(`${stem}-findings.md`, markdownReport(checked(context)), 'text/markdown');
     case 'findings-csv':
@@ -37,11 +39,11 @@ export async function runExport(kind: ExportKind, context: StudyContext): Promis
       // The report's modules load only when a report is asked for, so the workbench starts light.
       const { studyReportOf, htmlOfReport } = await import('../../report/index.ts');
       const report = studyReportOf(checked(context));
-      return downloadText(
-        `${stem}-report.html`,
-        htmlOfReport(report, { paper: 'letter', orientation: 'portrait' }),
-        'text/html',
-      );
+      return downloadText(`${stem}-report.html`, htmlOfReport(report, exportPageOf(request)), 'text/html');
+    }
+    case 'report-pdf': {
+      const { studyReportOf } = await import('../../report/studyReport.ts');
+      return downloadReportPdf(`${stem}-report.pdf`, studyReportOf(checked(context)), exportPageOf(request));
     }
   }
 }

@@ -1,0 +1,34 @@
+import regularUrl from '../assets/fonts/DejaVuSans.ttf?url';
+import boldUrl from '../assets/fonts/DejaVuSans-Bold.ttf?url';
+
+/** The DejaVu Sans faces a PDF export embeds, as TTF bytes (the shape `pdfOf`'s `fonts` option takes). */
+export interface PdfFonts {
+  regular: Uint8Array;
+  bold: Uint8Array;
+}
+
+let loading: Promise<PdfFonts> | undefined;
+
+/**
+ * Fetches the subset DejaVu Sans faces shipped with the workbench (`src/app/assets/fonts/`), once per
+ * page: only the URLs are in the start bundle, the bytes come when the first PDF is exported. A failed
+ * fetch is not kept, so the next export tries again.
+ * @example await pdfOf(svg, { paper: 'a4', fonts: await loadPdfFonts() })
+ */
+export function loadPdfFonts(): Promise<PdfFonts> {
+  loading ??= Promise.all([fetchFont(regularUrl), fetchFont(boldUrl)]).then(
+    ([regular, bold]) => ({ regular, bold }),
+    (error: unknown) => {
+      loading = undefined;
+      throw error;
+    },
+  );
+  return loading;
+}
+
+// Accepts the URL of a shipped font; its bytes, or an error naming the file and the HTTP status.
+async function fetchFont(url: string): Promise<Uint8Array> {
+  const response = await fetch(url);
+  if (!response.ok) throw new Error(`PDF font ${url}: expected the file, got HTTP ${response.status}`);
+  return new Uint8Array(await response.arrayBuffer());
+}
