@@ -12,6 +12,7 @@ import { sensitivityFindings } from './checks/sensitivity.ts';
 import { transformerFindings } from './checks/transformerProtection.ts';
 import { faultLevelsOf, type FaultLevels } from './fault/index.ts';
 import { locationBusOf, networkOf, seriesPairs, type Network } from './network/index.ts';
+import type { ScenarioResult } from './scenario/scenarioAnalysis.ts';
 import type { Study } from './study/index.ts';
 
 /** Everything the checks found for one study (DEVELOPERS.md, data flow: the data the plots and reports render). */
@@ -30,6 +31,8 @@ export interface Analysis {
   findings: Finding[];
   /** How many findings of each severity. */
   counts: Record<Severity, number>;
+  /** Every scenario's own results, for a study with generators, switches or scenarios (`analyseScenarios`). */
+  scenarios?: ScenarioResult[];
 }
 
 /**

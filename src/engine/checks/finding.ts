@@ -54,4 +54,6 @@ export interface Finding {
   referenceVolts: number;
   /** Optional worked steps behind the finding (code limits, ratings). */
   work?: Work;
+  /** The operating scenarios it holds in, for a study with more than one way to feed its loads. */
+  scenarios?: string[];
 }
