@@ -4,6 +4,7 @@ import type { AnalysisMemo } from './incremental.ts';
 import { cableFindings } from './checks/cableProtection.ts';
 import type { CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
+import { decrementFindings } from './checks/decrementCoordination.ts';
 import type { Finding, Severity } from './checks/finding.ts';
 import { busRatingFindings, interruptingFindings } from './checks/interruptingDuty.ts';
 import { motorFindings } from './checks/motorStarting.ts';
@@ -62,6 +63,7 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
     pairs.push(check);
     findings.push(...pairFindings);
   }
+  findings.push(...decrementFindings({ network, faults, bands, pairs, study }));
   for (const transformer of study.transformers)
     findings.push(...transformerFindings(context, transformer, study.coordination.horizon));
   for (const transformer of study.transformers)

@@ -11,6 +11,8 @@ export type FindingKind =
   | 'interrupting-duty'
   | 'short-circuit-rating'
   | 'sensitivity'
+  | 'code-selectivity'
+  | 'generator-decrement'
   | 'setting';
 
 /** How bad: `ok` passes, `info` is advice, `warning` a thin margin or an unprovable region, `fail` an overlap or a protection failure. */

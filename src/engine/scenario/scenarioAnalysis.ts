@@ -1,4 +1,5 @@
 import { analyseStudy, type Analysis } from '../analysis.ts';
+import { codeSelectivityFindings } from '../checks/codeSelectivity.ts';
 import type { Finding, Severity } from '../checks/finding.ts';
 import { expectedGot, InputError } from '../errors.ts';
 import type { Scenario, Study } from '../study/index.ts';
@@ -39,16 +40,23 @@ export interface ScenarioOptions {
 export function analyseScenarios(study: Study, options: ScenarioOptions = {}): Analysis {
   if (!hasScenarios(study)) {
     if (options.only !== undefined) scenarioNamed(study, options.only);
-    return analyseStudy(study);
+    const analysis = analyseStudy(study);
+    const code = codeSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }], { labelled: false });
+    return code.length === 0 ? analysis : withFindings(analysis, [...analysis.findings, ...code]);
   }
   const chosen = options.only === undefined ? scenariosOf(study) : [scenarioNamed(study, options.only)];
   const results = chosen.map((scenario) => scenarioResultOf(study, scenario));
-  const findings = mergedFindings(results);
-  const counts: Record<Severity, number> = { ok: 0, info: 0, warning: 0, fail: 0 };
-  for (const finding of findings) counts[finding.severity]++;
+  const findings = [...mergedFindings(results), ...codeSelectivityFindings(study, results)];
   const primary = results.find((r) => r.parts.length > 0)?.parts[0];
   if (!primary) throw new RangeError('no scenario energises anything');
-  return { ...primary, study, findings, counts, scenarios: results };
+  return { ...withFindings(primary, findings), study, scenarios: results };
+}
+
+// Accepts an analysis and its findings; the analysis with them and their counts.
+function withFindings(analysis: Analysis, findings: Finding[]): Analysis {
+  const counts: Record<Severity, number> = { ok: 0, info: 0, warning: 0, fail: 0 };
+  for (const finding of findings) counts[finding.severity]++;
+  return { ...analysis, findings, counts };
 }
 
 /** The scenario with this id or name; an `InputError` naming the choices otherwise. */

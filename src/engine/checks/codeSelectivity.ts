@@ -1,0 +1,118 @@
+import type { Analysis } from '../analysis.ts';
+import { formatAmps, formatVolts } from '../quantity/index.ts';
+import type { Device, Study } from '../study/index.ts';
+import { locationBusOf } from '../network/index.ts';
+import { nameOf } from './context.ts';
+import type { Finding } from './finding.ts';
+
+/** The NFPA 70 article that asks each kind of system for selective coordination. */
+export const SELECTIVITY_ARTICLE: Record<NonNullable<Device['system']>, { article: string; system: string }> = {
+  emergency: { article: '700.32', system: 'emergency system' },
+  'legally-required': { article: '701.32', system: 'legally required standby system' },
+  'critical-operations': { article: '708.54', system: 'critical operations power system' },
+  elevator: { article: '620.62', system: 'elevator feeders and branch circuits' },
+};
+
+/** Time below which the "above-0.1-s" option accepts two devices operating together (as some authorities do). */
+export const AHJ_SELECTIVITY_SECONDS = 0.1;
+
+/** What one scenario contributes: its label and its analysed trees. */
+export interface ScenarioPairs {
+  label: string;
+  parts: Analysis[];
+}
+
+/**
+ * The selective-coordination requirement of NFPA 70 for the devices the study marks as part of an
+ * emergency (700.32), legally required standby (701.32) or critical operations (708.54) system, or
+ * elevator circuits (620.62): each marked device with every supply-side device, in every scenario,
+ * over the full range of available fault currents. A chain of selective pairs is selective, so the
+ * marked device's pair and each pair above it up to the source are checked, every fault case, at
+ * the currents a fault in the marked device's zone drives through them (up to the largest fault at
+ * its bus, referred to each pair's voltage). An
+ * interval classed "overlap" or "not provable from curves" is not shown selective (a selectivity
+ * table from the manufacturers may show it is, but the curves cannot). With the study option
+ * `codeSelectivity: "above-0.1-s"` an interval is accepted where the downstream device clears within
+ * 0.1 s at its lowest current, as some authorities having jurisdiction accept; the authority having
+ * jurisdiction decides which reading applies. `labelled` lists the scenarios checked on each finding.
+ *
+ * @example codeSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }])
+ */
+export function codeSelectivityFindings(
+  study: Study,
+  scenarios: ScenarioPairs[],
+  { labelled = true }: { labelled?: boolean } = {},
+): Finding[] {
+  const option = study.coordination.codeSelectivity;
+  const findings: Finding[] = [];
+  for (const device of study.devices) {
+    if (!device.system) continue;
+    const { article, system } = SELECTIVITY_ARTICLE[device.system];
+    const problems: string[] = [];
+    const checked: string[] = [];
+    let referenceVolts = 0;
+    for (const scenario of scenarios)
+      for (const part of scenario.parts) {
+        if (!part.network.devices.has(device.id)) continue;
+        // The pair with the device just above, and every device above that in series (the supply side).
+        const chain = upstreamChain(part, device.id);
+        if (chain.length > 0) checked.push(scenario.label);
+        const here = locationBusOf(part.network, device);
+        const largest = part.faults.buses.get(here.id)?.max.largest ?? Infinity;
+        for (const pair of chain)
+          for (const fault of pair.cases) {
+            referenceVolts = fault.referenceVolts;
+            // Only the currents a fault in the marked device's zone drives through the pair.
+            const limit = (largest * here.voltage) / fault.referenceVolts;
+            for (const interval of fault.intervals) {
+              if (interval.status === 'selective' || interval.status === 'thin margin') continue;
+              if (interval.fromAmps > limit * (1 + 1e-9)) continue;
+              const lowest = part.bands.get(device.id)?.maxTime(interval.fromAmps) ?? Infinity;
+              if (option === 'above-0.1-s' && lowest <= AHJ_SELECTIVITY_SECONDS) continue;
+              problems.push(
+                `${scenario.label}: ${pair.upstreamName} and ${nameOf(device)} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
+              );
+            }
+          }
+      }
+    if (checked.length === 0) continue;
+    const scope =
+      option === 'above-0.1-s'
+        ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")'
+        : 'over the full range of available fault currents';
+    const authority =
+      'The authority having jurisdiction decides what selective coordination means where the work is done; some accept it above 0.1 s only.';
+    findings.push({
+      id: `code-selectivity:${device.id}`,
+      kind: 'code-selectivity',
+      severity: problems.length > 0 ? 'fail' : 'ok',
+      title: `${nameOf(device)}: NFPA 70 ${article} selective coordination (${system})`,
+      subjects: [device.id],
+      explanation:
+        problems.length > 0
+          ? `${nameOf(device)} is part of the ${system}, whose overcurrent devices must be selectively coordinated with every supply-side device ${scope}, in every scenario. Not shown: ${problems.join('; ')}. ${authority}`
+          : `${nameOf(device)} is part of the ${system}; it is selective with every supply-side device ${scope} in every scenario checked (${[...new Set(checked)].join(', ')}). ${authority}`,
+      suggestion:
+        problems.length > 0
+          ? "Separate the overlapping devices (raise or delay the upstream device, lower the downstream instantaneous), or show selectivity from the manufacturers' tested selectivity tables."
+          : undefined,
+      basis: `NFPA 70 (${study.coordination.edition}) ${article}`,
+      referenceVolts,
+      ...(labelled ? { scenarios: [...new Set(checked)] } : {}),
+    });
+  }
+  return findings;
+}
+
+// Accepts an analysed tree and a device; its pairs with each device above it, nearest first.
+function upstreamChain(part: Analysis, deviceId: string) {
+  const pairs: (Analysis['pairs'][number] & { upstreamName: string })[] = [];
+  let down = deviceId;
+  for (;;) {
+    const pair = part.pairs.find((p) => p.downstream === down);
+    if (!pair) return pairs;
+    const upstream = part.network.devices.get(pair.upstream)!;
+    pairs.push({ ...pair, upstreamName: nameOf(upstream) });
+    down = pair.upstream;
+  }
+}
