@@ -14,6 +14,7 @@ describe('marginRuleOf', () => {
       margins: {},
       pairs: [],
       fuseRatio: 0.75,
+      codeSelectivity: 'full-range',
       edition: '2023',
       sensitivity: { maxTime: 2 },
     });
