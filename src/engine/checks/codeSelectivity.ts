@@ -50,6 +50,7 @@ export function codeSelectivityFindings(
     const { article, system } = SELECTIVITY_ARTICLE[device.system];
     const problems: string[] = [];
     const checked: string[] = [];
+    const failing: string[] = [];
     let referenceVolts = 0;
     for (const scenario of scenarios)
       for (const part of scenario.parts) {
@@ -69,6 +70,7 @@ export function codeSelectivityFindings(
               if (interval.fromAmps > limit * (1 + 1e-9)) continue;
               const lowest = part.bands.get(device.id)?.maxTime(interval.fromAmps) ?? Infinity;
               if (option === 'above-0.1-s' && lowest <= AHJ_SELECTIVITY_SECONDS) continue;
+              failing.push(scenario.label);
               problems.push(
                 `${scenario.label}: ${pair.upstreamName} and ${nameOf(device)} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
               );
@@ -98,7 +100,8 @@ export function codeSelectivityFindings(
           : undefined,
       basis: `NFPA 70 (${study.coordination.edition}) ${article}`,
       referenceVolts,
-      ...(labelled ? { scenarios: [...new Set(checked)] } : {}),
+      // Where it holds: the scenarios that fail it, or every scenario checked.
+      ...(labelled ? { scenarios: [...new Set(failing.length > 0 ? failing : checked)] } : {}),
     });
   }
   return findings;

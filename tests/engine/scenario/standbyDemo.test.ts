@@ -1,0 +1,41 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
+import { parseStudy } from '../../../src/engine/study/index.ts';
+
+const demo = (name: string) => analyseScenarios(parseStudy(readFileSync(`demo/${name}.json`, 'utf8')));
+
+describe('the standby demos (invented site)', () => {
+  it('are analysed in the three scenarios they declare', () => {
+    expect(demo('harrowmere-standby').scenarios!.map((s) => s.label)).toEqual([
+      'Normal',
+      'On generator',
+      'Dock on the office feeder',
+    ]);
+  });
+
+  it('harrowmere-standby is selective in every scenario, the emergency chain by NFPA 70 700.32 included', () => {
+    const analysis = demo('harrowmere-standby');
+    expect(analysis.counts.fail).toBe(0);
+    const code = analysis.findings.filter((f) => f.kind === 'code-selectivity');
+    // The generator breaker has no supply-side device: nothing to be selective with.
+    expect(code.map((f) => `${f.subjects[0]} ${f.severity}`)).toEqual(['FDR-EM ok', 'EM-BR ok']);
+    expect(code.find((f) => f.subjects[0] === 'EM-BR')!.scenarios).toEqual([
+      'Normal',
+      'On generator',
+      'Dock on the office feeder',
+    ]);
+  });
+
+  it('harrowmere-standby-overlap is selective on the utility but not on the generator, and says why', () => {
+    const analysis = demo('harrowmere-standby-overlap');
+    const failing = analysis.findings.filter((f) => f.severity === 'fail');
+    expect(failing.map((f) => f.kind).sort()).toEqual(['code-selectivity', 'generator-decrement']);
+    for (const finding of failing) expect(finding.scenarios).toEqual(['On generator']);
+    const code = failing.find((f) => f.kind === 'code-selectivity')!;
+    expect(code.title).toMatch(/Exhaust fan breaker 50 A: NFPA 70 700\.32/);
+    expect(code.explanation).toMatch(/On generator: Generator breaker 600 A and Exhaust fan breaker 50 A/);
+    const onUtility = analysis.findings.filter((f) => f.scenarios?.includes('Normal'));
+    expect(onUtility.filter((f) => f.severity === 'fail')).toEqual([]);
+  });
+});
