@@ -11,6 +11,7 @@ import {
   transformerWithstandOf,
 } from '../engine/withstand/index.ts';
 import { conductorAreaCmil } from '../engine/conductors/index.ts';
+import { generatorDamageCurve, generatorDecrement } from '../engine/generator/index.ts';
 import type {
   SheetBand,
   SheetFaultLine,
@@ -82,8 +83,21 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
 
   const withstand: SheetWithstand[] = [];
   const markers: SheetMarker[] = [];
+  const starting: SheetStarting[] = [];
   for (const id of view.withstand) {
-    const element = network.elements.get(id)!;
+    const source = study.source;
+    if (source.kind === 'generator' && id === source.id) {
+      // The machine's damage curve, and its fault current against time at the terminals (the decrement).
+      const name = source.name ?? source.id;
+      const scale = onSheet(source.voltage);
+      withstand.push({ id, label: `${name} armature damage`, curve: generatorDamageCurve(source), scale });
+      const decrement = generatorDecrement(source, { frequency: study.frequency });
+      const curve = { ...decrement, elementId: id, label: `${name} decrement`, amps: decrement.amps };
+      starting.push({ id: `${id}:decrement`, label: `${name} fault current (decrement)`, curve, scale });
+      continue;
+    }
+    const element = network.elements.get(id);
+    if (!element) continue;
     if (element.type === 'transformer') {
       const t = element.item;
       const fault = faults.transformers.get(t.id)!;
@@ -115,13 +129,13 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     }
   }
 
-  const starting: SheetStarting[] = view.motors.map((id) => {
+  for (const id of view.motors) {
     const motor = network.elements.get(id)!.item as (typeof study.motors)[number];
     const volts = network.buses.get(motor.bus)!.voltage;
     const start = motorStartingOf(motor, volts);
     markers.push({ ...start.lockedRotor, scale: onSheet(volts) });
-    return { id, label: `${motor.name ?? id} starting`, curve: start.curve, scale: onSheet(volts) };
-  });
+    starting.push({ id, label: `${motor.name ?? id} starting`, curve: start.curve, scale: onSheet(volts) });
+  }
 
   const busIds = view.faults ?? [
     ...new Set(view.devices.map((id) => locationBusOf(network, network.devices.get(id)!).id)),

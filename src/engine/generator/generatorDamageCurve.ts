@@ -15,7 +15,7 @@ export const ARMATURE_THERMAL_CONSTANT = 37.5;
 export const ARMATURE_THERMAL_SECONDS = { shortest: 10, longest: 120 } as const;
 
 /** A withstand curve of a generator: the `WithstandCurve` shape with `kind: 'generator'`. */
-export type GeneratorWithstandCurve = Omit<WithstandCurve, 'kind'> & { kind: 'generator' };
+export type GeneratorWithstandCurve = WithstandCurve & { kind: 'generator' };
 
 /** One user-given damage point: current in A at the generator voltage, time in s. */
 export interface DamagePoint {

@@ -1,6 +1,6 @@
 import type { Scenario, Source, Study, Switch } from '../study/index.ts';
 import { feedersIn, type Connection } from './connections.ts';
-import { hasScenarios } from './scenarios.ts';
+import { hasScenarios, scenarioLabel } from './scenarios.ts';
 
 /** One source's radial tree in a scenario, as a study of its own that today's single-source analysis reads. */
 export interface ScenarioPart {
@@ -50,7 +50,8 @@ export function splitScenario(study: Study, scenario: Scenario): ScenarioPart[] 
         stack.push(child.to);
       }
     }
-    return { sourceId: root.id, study: partStudy(study, rootSource(study, root.id), buses, branches, links) };
+    const part = partStudy(study, rootSource(study, root.id), buses, branches, links, scenarioLabel(scenario));
+    return { sourceId: root.id, study: part };
   });
 }
 
@@ -61,13 +62,14 @@ function rootSource(study: Study, id: string): Source {
   return { kind: 'generator', ...generator };
 }
 
-// Accepts what one source reaches; the study restricted to it, in study order.
+// Accepts what one source reaches and the scenario's label; the study restricted to it, in study order.
 function partStudy(
   study: Study,
   source: Source,
   buses: Set<string>,
   branches: Set<string>,
   links: Connection[],
+  label: string,
 ): Study {
   const motors = study.motors.filter((m) => buses.has(m.bus));
   const fed = new Set<string>([...buses, ...branches, ...motors.map((m) => m.id)]);
@@ -87,9 +89,11 @@ function partStudy(
     return [
       {
         ...view,
+        // Each scenario's sheet says which scenario it draws.
+        title: `${view.title ?? view.id} — ${label}`,
         devices: shown,
         faults: view.faults?.filter((id) => buses.has(id)),
-        withstand: view.withstand.filter((id) => branches.has(id)),
+        withstand: view.withstand.filter((id) => branches.has(id) || id === source.id),
         motors: view.motors.filter((id) => fed.has(id)),
       },
     ];

@@ -390,11 +390,10 @@ export function createStudySchema(frequency = 60) {
         .max(MAX_VIEW_ITEMS)
         .optional()
         .meta({ description: 'buses whose fault currents are drawn; default: the buses of the devices shown' }),
-      withstand: z
-        .array(idField)
-        .max(MAX_VIEW_ITEMS)
-        .default([])
-        .meta({ description: 'transformers and cables whose withstand curves are drawn' }),
+      withstand: z.array(idField).max(MAX_VIEW_ITEMS).default([]).meta({
+        description:
+          'transformers and cables whose withstand curves are drawn, and generators whose damage and decrement curves are drawn',
+      }),
       motors: z
         .array(idField)
         .max(MAX_VIEW_ITEMS)

@@ -237,7 +237,12 @@ export function structureProblems(study: Study): StudyProblem[] {
     };
     list('devices', v.devices, ['device'], 'the id of a device');
     list('faults', v.faults, ['bus'], 'the id of a bus');
-    list('withstand', v.withstand, ['transformer', 'cable'], 'the id of a transformer or cable');
+    list(
+      'withstand',
+      v.withstand,
+      ['transformer', 'cable', 'generator'],
+      'the id of a transformer, cable or generator',
+    );
     list('motors', v.motors, ['motor'], 'the id of a motor');
   });
 

@@ -4,9 +4,9 @@
  * given by `volts`).
  */
 export interface WithstandCurve {
-  /** Id of the transformer or cable. */
+  /** Id of the transformer, cable or generator. */
   elementId: string;
-  kind: 'transformer' | 'cable';
+  kind: 'transformer' | 'cable' | 'generator';
   /** e.g. 'C57.109 Category II, frequent faults' or 'ICEA P-32-382, 4/0 Cu 90 to 250 °C'. */
   label: string;
   /** Voltage the currents are given at (V). */
