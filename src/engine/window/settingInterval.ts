@@ -1,6 +1,6 @@
 import type { Device } from '../study/index.ts';
 import type { Constraint, ConstraintKind } from './constraints.ts';
-import { deviceWith, settingValue, type SettingSpec } from './settings.ts';
+import { devicesAlong, settingValue, type SettingSpec } from './settings.ts';
 import { evaluateAt, type Memo } from './evaluation.ts';
 import { thresholdOf, type Threshold } from './threshold.ts';
 import type { Trial } from './trial.ts';
@@ -63,13 +63,14 @@ export function thresholdsOf(
   const { memo, known } = options;
   const thresholds = new Map<string, Threshold>();
   const current = settingValue(base, spec.key);
+  const at = devicesAlong(base, spec.key);
   for (const constraint of constraints) {
     if (constraint.favours === 'fixed') continue;
     const given = known?.get(constraint.id);
     thresholds.set(
       constraint.id,
       given ??
-        thresholdOf(spec, (value) => evaluateAt(trial, constraint, deviceWith(base, { [spec.key]: value }), memo).ok, {
+        thresholdOf(spec, (value) => evaluateAt(trial, constraint, at(value), memo).ok, {
           favours: constraint.favours,
           pivot:
             typeof current === 'number'

@@ -6,7 +6,7 @@ import { evaluateAt, type Memo } from './evaluation.ts';
 import { feasibleMapOf, type FeasibleMap } from './feasibleMap.ts';
 import { noWindowOf, type NoWindow } from './noWindow.ts';
 import { recommendationOf, type ConstraintMargin, type Recommendation } from './recommendation.ts';
-import { intervalOf, type Binding, type SettingInterval } from './settingInterval.ts';
+import { axisOf, thresholdsOf, type Binding, type SettingInterval } from './settingInterval.ts';
 import {
   adjustableSettingsOf,
   deviceWith,
@@ -16,6 +16,7 @@ import {
   type SettingSpec,
   type SwitchSpec,
 } from './settings.ts';
+import type { Threshold } from './threshold.ts';
 import { trialOf, type Trial } from './trial.ts';
 
 /** One adjustable setting's window: its range and the feasible interval(s) with the rest held. */
@@ -100,8 +101,12 @@ export function windowIn(trial: Trial, deviceId: string, options: SettingWindowO
   const present = marginsAt(trial, constraints);
   const currentHolds = present.every((m) => m.favours === 'fixed' || m.result.ok);
 
+  // Each row's thresholds by setting key: the maps start from the rows through the present setting.
+  const rows = new Map<string, Map<string, Threshold>>();
   const settings: SettingRow[] = specs.map((spec) => {
-    const axis = intervalOf(trial, device, spec, constraints, { memo });
+    const thresholds = thresholdsOf(trial, device, spec, constraints, { memo });
+    rows.set(spec.key, thresholds);
+    const axis = axisOf(spec, constraints, thresholds);
     const inside = axis.intervals.some((i) => spec.current >= i.from * (1 - 1e-9) && spec.current <= i.to * (1 + 1e-9));
     return { ...spec, ...axis, inside };
   });
@@ -122,7 +127,13 @@ export function windowIn(trial: Trial, deviceId: string, options: SettingWindowO
       if (!x || !y) continue;
       const row = settings.find((s) => s.key === pair.x)!;
       const edges = row.intervals.flatMap((i) => [i.from, i.to]);
-      maps.push(feasibleMapOf(trial, device, x, y, constraints, pair.label, edges, memo));
+      maps.push(
+        feasibleMapOf(trial, device, x, y, constraints, pair.label, {
+          extraColumns: edges,
+          memo,
+          rows: { x: rows.get(x.key)!, y: rows.get(y.key)! },
+        }),
+      );
     }
   }
 

@@ -274,6 +274,21 @@ export function deviceWith(device: Device, changes: Record<string, SettingValue>
   return characteristic === device.characteristic ? device : { ...device, characteristic };
 }
 
+/**
+ * The device with one setting at each value asked for, one object per value: the constraints that
+ * read the same trial setting then share it (and what is remembered of it).
+ *
+ * @example const at = devicesAlong(main, 'shortTime.delay'); at(0.3) === at(0.3) // true
+ */
+export function devicesAlong(device: Device, key: string): (value: number) => Device {
+  const devices = new Map<number, Device>();
+  return (value) => {
+    let found = devices.get(value);
+    if (!found) devices.set(value, (found = deviceWith(device, { [key]: value })));
+    return found;
+  };
+}
+
 /** A setting's value on a device (`undefined` when the element is absent). @example settingValue(main, 'longTime.pickup') // 1 */
 export function settingValue(device: Device, key: string): SettingValue | undefined {
   const c = device.characteristic as unknown as Record<string, Record<string, unknown> | undefined>;
