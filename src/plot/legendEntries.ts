@@ -1,5 +1,5 @@
 import { formatVolts } from '../engine/quantity/format.ts';
-import { faultLabel, faultLineDefaults } from './marks/faultLine.ts';
+import { faultDataId, faultLabel, faultLineDefaults } from './marks/faultLine.ts';
 import type { LegendEntry } from './marks/legend.ts';
 import { formatRange, overlapHatchDefaults } from './marks/overlapHatch.ts';
 import { startingLineDefaults } from './marks/startingLine.ts';
@@ -86,7 +86,7 @@ export function legendEntriesOf(input: SheetInput, codes: SheetCodes): LegendEnt
         width: faultLineDefaults.strokeWidth,
         ...(f.kind === 'min' ? { dash: faultLineDefaults.minDash } : {}),
       },
-      dataId: `${f.busId}:${f.kind}`,
+      dataId: faultDataId(f),
     });
   for (const r of input.regions)
     entries.push({

@@ -81,6 +81,11 @@ export interface SheetFaultLine {
   ownVolts: number;
   ownAmps: number;
   kind: 'max' | 'min';
+  /**
+   * The operating scenario (or scenarios, as one phrase) the level belongs to, for a sheet that shows
+   * the fault lines of several: it heads the line's label ("On generator: EMP 3.61 kA @ 480 V").
+   */
+  scenario?: string;
 }
 
 /** Status of a hatched region, as the overlap finder names it. */

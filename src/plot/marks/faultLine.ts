@@ -44,7 +44,7 @@ export function faultLine(fault: SheetFaultLine, scales: SheetScales, options: F
   const item: PathItem = {
     type: 'path',
     role: `fault-${fault.kind}`,
-    dataId: `${fault.busId}:${fault.kind}`,
+    dataId: faultDataId(fault),
     d: pathOf(points),
     points,
     stroke: colour,
@@ -114,10 +114,10 @@ export function faultLabelSlots(
     let slot: FaultLabelSlot | undefined;
     for (let row = 0; row <= faults.length && !slot; row++) {
       const x = places.find((p) => fits(p, width, row, lineX));
-      if (x !== undefined) slot = { dataId: `${fault.busId}:${fault.kind}`, text, x, width, row, lineX };
+      if (x !== undefined) slot = { dataId: faultDataId(fault), text, x, width, row, lineX };
     }
     const top = slots.reduce((m, o) => Math.max(m, o.row + 1), 0);
-    slots.push(slot ?? { dataId: `${fault.busId}:${fault.kind}`, text, x: places[0], width, row: top, lineX });
+    slots.push(slot ?? { dataId: faultDataId(fault), text, x: places[0], width, row: top, lineX });
   }
   return { slots, rows: slots.length ? Math.max(...slots.map((s) => s.row)) + 1 : 0 };
 }
@@ -192,12 +192,21 @@ export function faultLabelBand(
  * @example faultLabel({ busId: 'SWBD', label: 'SWBD', amps: 1093.99, ownVolts: 480, ownAmps: 28421.1, kind: 'max' }, 12470) // 'SWBD 28.4 kA @ 480 V = 1.09 kA @ 12.47 kV'
  */
 export function faultLabel(fault: SheetFaultLine, referenceVolts: number): string {
+  const scenario = fault.scenario ? `${fault.scenario}: ` : '';
   // A label that already states its current ("SWBD 28.4 kA @ 480 V …") is used as given.
-  if (/\d\s*k?A\s*@/.test(fault.label)) return fault.label;
+  if (/\d\s*k?A\s*@/.test(fault.label)) return `${scenario}${fault.label}`;
   const kind = fault.kind === 'min' ? 'min ' : '';
-  const own = `${fault.label} ${kind}${faultAmps(fault.ownAmps)} @ ${formatVolts(fault.ownVolts)}`;
+  const own = `${scenario}${fault.label} ${kind}${faultAmps(fault.ownAmps)} @ ${formatVolts(fault.ownVolts)}`;
   const sameBase = Math.abs(fault.ownVolts - referenceVolts) <= 1e-9 * referenceVolts;
   return sameBase ? own : `${own} = ${faultAmps(fault.amps)} @ ${formatVolts(referenceVolts)}`;
+}
+
+/**
+ * The id a fault line's drawing, label and key entry share: bus and kind, and its scenario when it names one.
+ * @example faultDataId({ busId: 'EMP', kind: 'max', scenario: 'On generator', … }) // 'EMP:max:On generator'
+ */
+export function faultDataId(fault: SheetFaultLine): string {
+  return `${fault.busId}:${fault.kind}${fault.scenario ? `:${fault.scenario}` : ''}`;
 }
 
 // Accepts amps; three significant figures, in kA from 1000 A up, as fault levels are quoted.
