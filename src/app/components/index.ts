@@ -6,6 +6,7 @@ export { default as ProbeReadout } from './ProbeReadout.svelte';
 export { default as ProblemsBar } from './ProblemsBar.svelte';
 export { default as PropertyEditor } from './PropertyEditor.svelte';
 export { default as RefusedFile } from './RefusedFile.svelte';
+export { default as ScenarioPicker } from './ScenarioPicker.svelte';
 export { default as Sheet } from './Sheet.svelte';
 export { default as SheetGuide } from './SheetGuide.svelte';
 export { default as SheetOverlay } from './SheetOverlay.svelte';

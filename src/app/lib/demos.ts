@@ -18,6 +18,8 @@ export const DEMO_NAMES: Record<string, string> = {
   'harrowmere-overlap.json': 'Overlapping settings, each finding explained',
   'harrowmere-fused.json': 'Fused primary: a transformer protection problem',
   'harrowmere-full.json': 'The whole site: 25 devices, every path',
+  'harrowmere-standby.json': 'Standby generator, transfer switch and tie: selective in every scenario',
+  'harrowmere-standby-overlap.json': 'Standby generator: selective on the utility, not on the generator',
 };
 
 /** The study the workbench opens on: the Harrowmere scheme with selective settings. */

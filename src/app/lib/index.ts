@@ -55,13 +55,24 @@ export { csvCell, probesCsv } from './probeCsv.ts';
 export { alsoRemoved, removalOf, withoutRemoval } from './removal.ts';
 export type { RemovableKind, Removal } from './removal.ts';
 export { runExport } from './runExport.ts';
+export { scenarioFaultLinesOf } from './scenarioFaultLines.ts';
+export { analysisOfPart, findingsIn, placeOfView, scenarioViewOf } from './scenarioParts.ts';
+export type { PartView, ScenarioView, ViewPlace } from './scenarioParts.ts';
 export { COLLECTION_OF, parseProblemPath, pathOfSelection, selectionOfPath } from './selection.ts';
 export type { ItemKind, Selection } from './selection.ts';
 export { sheetGuideOf } from './sheetGuide.ts';
 export type { GuideStep } from './sheetGuide.ts';
 export { scaleValue, stepValue } from './stepValue.ts';
 export type { StepOptions } from './stepValue.ts';
-export { flattenTree, rowsOf, systemRowsOf, systemTreeOf } from './systemTree.ts';
-export type { SystemRow, TreeNode } from './systemTree.ts';
+export {
+  darkItemsOf,
+  flattenTree,
+  rowsOf,
+  scenarioRowsOf,
+  switchText,
+  systemRowsOf,
+  systemTreeOf,
+} from './systemTree.ts';
+export type { DarkItem, SystemRow, SystemTreeOptions, TreeNode } from './systemTree.ts';
 export { freeDeviceId, templateChoices } from './templates.ts';
 export type { TemplateChoice } from './templates.ts';

@@ -1,4 +1,4 @@
-import type { OneLinePlace } from '../../plot/oneLine/index.ts';
+import type { OneLine, OneLinePlace } from '../../plot/oneLine/index.ts';
 import type { Selection } from './selection.ts';
 
 /** The part of the one-line diagram on screen, in diagram pixels. */
@@ -10,11 +10,43 @@ export interface ViewBox {
 }
 
 /**
- * The selection an element of the one-line diagram stands for (a device, bus, branch, motor or the source).
+ * The selection an element of the one-line diagram stands for (a device, bus, branch, motor or the
+ * source). A source other than the study's own (`sourceId`, when given) is one of its generators,
+ * at the root of a tree a scenario splits off.
  * @example selectionOfPlace({ id: 'T1', type: 'transformer', … }) // { kind: 'transformer', id: 'T1' }
  */
-export function selectionOfPlace(place: OneLinePlace): Selection {
+export function selectionOfPlace(place: OneLinePlace, sourceId?: string): Selection {
+  if (place.type === 'source' && sourceId !== undefined && place.id !== sourceId)
+    return { kind: 'generator', id: place.id };
   return { kind: place.type, id: place.id };
+}
+
+/** Several one-line diagrams drawn in a row: each with where it starts, the whole size, and every place moved into it. */
+export interface OneLineRow {
+  diagrams: { diagram: OneLine; x: number }[];
+  width: number;
+  height: number;
+  places: OneLinePlace[];
+}
+
+/**
+ * Diagrams set side by side, left to right with `gap` px between them (the trees a scenario
+ * energises, each drawn from its own source), with every element's place in the row's pixels.
+ * @example oneLineRowOf([utility, generator], 40).diagrams[1].x // utility.width + 40
+ */
+export function oneLineRowOf(diagrams: readonly OneLine[], gap: number): OneLineRow {
+  let x = 0;
+  const row: OneLineRow = { diagrams: [], width: 0, height: 0, places: [] };
+  for (const diagram of diagrams) {
+    row.diagrams.push({ diagram, x });
+    const moved = (b: ViewBox) => ({ ...b, x: b.x + x });
+    for (const place of diagram.places)
+      row.places.push({ ...place, symbol: moved(place.symbol), label: moved(place.label) });
+    row.height = Math.max(row.height, diagram.height);
+    row.width = x + diagram.width;
+    x += diagram.width + gap;
+  }
+  return row;
 }
 
 /**

@@ -1,6 +1,8 @@
 import type { Branch, Network } from '../../engine/network/index.ts';
-import type { Bus, Motor } from '../../engine/study/index.ts';
+import { switchPosition } from '../../engine/scenario/index.ts';
+import type { Bus, Motor, Scenario, Study, Switch } from '../../engine/study/index.ts';
 import { formatAmps, formatSI, formatVolts } from '../../engine/quantity/index.ts';
+import type { ScenarioView } from './scenarioParts.ts';
 import type { ItemKind } from './selection.ts';
 
 /** One row of the System tree: an element, the device feeding it (if any), and what hangs below. */
@@ -23,21 +25,34 @@ export interface SystemRow {
   depth: number;
 }
 
+/** Options of {@link systemTreeOf}. */
+export interface SystemTreeOptions {
+  /**
+   * The switches of the whole study and the scenario the tree is drawn in: each closed switch then
+   * reads as its position in that scenario (a tree split off for a scenario holds its switches as ties).
+   */
+  scenario?: { switches: readonly Switch[]; scenario: Scenario };
+}
+
 /**
- * The radial tree as rows, from the source down: each bus lists its branches (transformers and
- * cables, each with the bus it feeds) and its motors; each element carries the device feeding it.
- * Built with its own stack, so a study any number of levels deep builds (no call-stack limit).
+ * The radial tree as rows, from the source down: each bus lists its branches (transformers, cables
+ * and closed switches, each with the bus it feeds) and its motors; each element carries the device
+ * feeding it. A generator at the root is a `generator` item. Built with its own stack, so a study any
+ * number of levels deep builds (no call-stack limit).
  *
  * @example systemTreeOf(networkOf(study)) // { kind: 'source', id: 'UTIL', children: [{ kind: 'bus', id: 'MV', … }] }
  */
-export function systemTreeOf(network: Network): TreeNode {
+export function systemTreeOf(network: Network, options: SystemTreeOptions = {}): TreeNode {
   const { study } = network;
   const source = study.source;
   const sourceDetail =
     source.kind === 'utility'
       ? `utility, ${source.max.available.va !== undefined ? formatSI(source.max.available.va, 'VA') : formatAmps(source.max.available.amps ?? 0)} available`
-      : 'infinite bus';
-  const root: TreeNode = { kind: 'source', id: source.id, label: source.id, detail: sourceDetail, children: [] };
+      : source.kind === 'generator'
+        ? `generator, ${formatSI(source.rating, 'VA')}, ${formatVolts(source.voltage)}`
+        : 'infinite bus';
+  const kind: ItemKind = source.kind === 'generator' ? 'generator' : 'source';
+  const root: TreeNode = { kind, id: source.id, label: source.id, detail: sourceDetail, children: [] };
   // Each entry: a bus still to build, and the list its node goes into.
   const pending: { busId: string; into: TreeNode[] }[] = [{ busId: source.bus, into: root.children }];
   const built = new Set<string>();
@@ -49,7 +64,7 @@ export function systemTreeOf(network: Network): TreeNode {
     const node = busNode(network, bus);
     into.push(node);
     for (const branch of network.branchesFrom.get(busId) ?? []) {
-      const child = branchNode(network, branch);
+      const child = branchNode(network, branch, options);
       node.children.push(child);
       pending.push({ busId: branch.item.to, into: child.children });
     }
@@ -64,8 +79,75 @@ export function systemTreeOf(network: Network): TreeNode {
  *
  * @example systemRowsOf(network).map((r) => `${r.depth} ${r.node.id}`) // ['0 UTIL', '1 MV', '2 T1', '3 SWBD', …]
  */
-export function systemRowsOf(network: Network): SystemRow[] {
-  return rowsOf(systemTreeOf(network));
+export function systemRowsOf(network: Network, options: SystemTreeOptions = {}): SystemRow[] {
+  return rowsOf(systemTreeOf(network, options));
+}
+
+/**
+ * The rows of every tree a scenario energises, one after another (the study's own source first),
+ * each switch reading as its position in the scenario.
+ *
+ * @example scenarioRowsOf(study, scenarioViewOf(study, onGenerator)).map((r) => r.node.id)[0] // 'G1'
+ */
+export function scenarioRowsOf(study: Study, scenario: ScenarioView): SystemRow[] {
+  const options = { scenario: { switches: study.switches, scenario: scenario.scenario } };
+  return scenario.parts.flatMap((part) => systemRowsOf(part.network, options));
+}
+
+/** An item a scenario leaves out of its trees, for the tree's "not energised in this scenario" group. */
+export interface DarkItem {
+  kind: ItemKind;
+  id: string;
+  label: string;
+  detail: string;
+}
+
+/**
+ * What a scenario leaves out of its trees, in study order: the sources not in service, the buses no
+ * source reaches, the transformers and cables it takes out, and the switches open in it (a transfer
+ * switch's idle side is not listed: the switch is in a tree, on its other side).
+ *
+ * @example darkItemsOf(study, scenarioViewOf(study, onGenerator)).map((d) => d.id) // ['UTIL', 'MV', 'SWBD', …, 'TIE']
+ */
+export function darkItemsOf(study: Study, scenario: ScenarioView): DarkItem[] {
+  const { scenario: chosen, deEnergised } = scenario;
+  const inService = new Set(scenario.parts.map((part) => part.sourceId));
+  const dark = new Set(deEnergised);
+  const out = new Set(chosen.outOfService);
+  const items: DarkItem[] = [];
+  if (!inService.has(study.source.id))
+    items.push({ kind: 'source', id: study.source.id, label: study.source.id, detail: 'not in service' });
+  for (const g of study.generators)
+    if (!inService.has(g.id))
+      items.push({ kind: 'generator', id: g.id, label: g.name ?? g.id, detail: 'not in service' });
+  for (const bus of study.buses)
+    if (dark.has(bus.id))
+      items.push({
+        kind: 'bus',
+        id: bus.id,
+        label: bus.name ?? bus.id,
+        detail: `${formatVolts(bus.voltage)}, de-energised`,
+      });
+  for (const t of study.transformers)
+    if (out.has(t.id)) items.push({ kind: 'transformer', id: t.id, label: t.name ?? t.id, detail: 'out of service' });
+  for (const c of study.cables)
+    if (out.has(c.id)) items.push({ kind: 'cable', id: c.id, label: c.name ?? c.id, detail: 'out of service' });
+  for (const item of study.switches)
+    if (switchPosition(item, chosen) === 'open')
+      items.push({ kind: 'switch', id: item.id, label: item.name ?? item.id, detail: switchText(item, chosen) });
+  return items;
+}
+
+/**
+ * A switch's kind and its position in a scenario, as the tree prints it.
+ * @example switchText(ats, onGenerator) // 'transfer switch, on the emergency side (ATS-E)'
+ */
+export function switchText(item: Switch, scenario: Scenario): string {
+  const position = switchPosition(item, scenario);
+  if (item.kind === 'tie') return `tie, ${position}`;
+  if (position === 'normal' || position === 'emergency')
+    return `transfer switch, on the ${position} side (${item[position]})`;
+  return 'transfer switch, open';
 }
 
 /**
@@ -95,13 +177,17 @@ function busNode(network: Network, bus: Bus): TreeNode {
   };
 }
 
-function branchNode(network: Network, branch: Branch): TreeNode {
+function branchNode(network: Network, branch: Branch, options: SystemTreeOptions): TreeNode {
   const item = branch.item;
+  const original =
+    branch.type === 'switch' ? options.scenario?.switches.find((s) => s.id === branch.item.id) : undefined;
   const detail =
     branch.type === 'transformer'
       ? `${formatSI(branch.item.rating, 'VA')}, ${formatVolts(branch.item.primary)}–${formatVolts(branch.item.secondary)}, ${branch.item.impedance} %Z`
       : branch.type === 'switch'
-        ? `${branch.item.switch.kind === 'transfer' ? 'transfer switch' : 'tie'}, closed from ${branch.item.from}`
+        ? original && options.scenario
+          ? switchText(original, options.scenario.scenario)
+          : `${branch.item.switch.kind === 'transfer' ? 'transfer switch' : 'tie'}, closed from ${branch.item.from}`
         : `${branch.item.sets > 1 ? `${branch.item.sets} × ` : ''}${branch.item.size} ${branch.item.material}, ${Math.round(branch.item.length / 0.3048)} ft`;
   return {
     kind: branch.type,

@@ -11,6 +11,7 @@ import type { AnalyseReply, AnalyseRequest } from '../worker/protocol.ts';
 import type { StudyState } from './StudyState.svelte.ts';
 import { findingCountsOf, idSetOf } from '../lib/lookups.ts';
 import { resultsWith, type CheckResults } from '../worker/changes.ts';
+import { analysisOfPart, findingsIn, placeOfView, scenarioViewOf, type ScenarioView } from '../lib/scenarioParts.ts';
 
 /** Where the checks run: a Web Worker in the browser, or in-line where there is none. */
 export interface CheckRunner {
@@ -73,16 +74,36 @@ export class AnalysisState {
       counts: results?.counts ?? { ok: 0, info: 0, warning: 0, fail: 0 },
     };
   });
-  /** Findings as last received (they may trail the latest edit while `pending`). */
+  /** Findings as last received (they may trail the latest edit while `pending`), in every scenario. */
   readonly findings: Finding[] = $derived.by(() => this.#results?.findings ?? []);
+  // The chosen scenario's trees, built on the main thread like the fast half, or why they could not be.
+  readonly #scenario = $derived.by((): { value?: ScenarioView; error?: string } | undefined => {
+    const study = this.#study.study;
+    const scenario = this.#study.scenario;
+    if (!study || !scenario) return undefined;
+    try {
+      return { value: scenarioViewOf(study, scenario) };
+    } catch (error) {
+      return { error: (error as Error).message };
+    }
+  });
+  /** The chosen scenario's energised trees and dark buses; `undefined` for a study that cannot be switched. */
+  readonly scenario: ScenarioView | undefined = $derived.by(() => this.#scenario?.value);
+  /** Why the chosen scenario's trees could not be worked out, if they could not. */
+  readonly scenarioError: string | undefined = $derived.by(() => this.#scenario?.error);
+  /** The findings holding in the chosen scenario (every finding of a study that cannot be switched). */
+  readonly scenarioFindings: Finding[] = $derived.by(() => {
+    const scenario = this.scenario;
+    return scenario ? findingsIn(this.findings, scenario.label) : this.findings;
+  });
   /** True while the checks of the latest edit are still running. */
   readonly pending = $derived.by(() => this.#received < this.#sent);
   /** The finding the user opened. */
   readonly selectedFinding = $derived.by(() => this.findings.find((f) => f.id === this.selectedFindingId));
   /** Device ids the opened finding names (highlighted on the sheet and in the tree). */
   readonly highlighted = $derived.by(() => idSetOf(this.selectedFinding?.subjects ?? []));
-  /** Per device: how many findings naming it fail or warn. */
-  readonly findingCounts = $derived.by(() => findingCountsOf(this.findings));
+  /** Per device: how many findings naming it fail or warn (in the chosen scenario). */
+  readonly findingCounts = $derived.by(() => findingCountsOf(this.scenarioFindings));
 
   constructor(study: StudyState, runner: CheckRunner) {
     this.#study = study;
@@ -111,24 +132,51 @@ export class AnalysisState {
   }
 
   /**
-   * The worked calculation for a selected bus or transformer (or the bus a selected device sits on),
-   * with a heading; `undefined` when there is nothing to show.
+   * What a view draws from: for a study that cannot be switched, the whole analysis; else the tree of
+   * the chosen scenario holding most of the view's devices, with the findings holding in the
+   * scenario, and the view's devices that tree leaves out (`left`). No `analysis` when every device
+   * of the view is de-energised, or while the study cannot be analysed (`error` says why).
+   */
+  viewAnalysis(viewId: string): { analysis?: Analysis; left: string[]; error?: string } {
+    const error = this.baseError ?? this.scenarioError;
+    if (error) return { left: [], error };
+    const scenario = this.scenario;
+    if (!scenario) return { analysis: this.analysis, left: [] };
+    const view = this.#study.study?.views.find((v) => v.id === viewId);
+    if (!view) return { left: [] };
+    const { part, left } = placeOfView(scenario, viewId, view.devices);
+    return {
+      analysis: part && analysisOfPart(part, this.#results?.pairs ?? [], this.scenarioFindings),
+      left,
+    };
+  }
+
+  /**
+   * The worked calculation for a selected bus or transformer (or the bus a selected device or source
+   * sits on), with a heading, in the chosen scenario; `undefined` when there is nothing to show.
    */
   workFor(selection: { kind: string; id: string } | undefined): { title: string; work: Work } | undefined {
-    const base = this.base;
-    if (!base || !selection) return undefined;
-    if (selection.kind === 'transformer') {
-      const fault = base.faults.transformers.get(selection.id);
-      return fault && { title: `Transformer ${selection.id}: full-load and through-fault currents`, work: fault.work };
+    if (!selection) return undefined;
+    const trees = this.scenario?.parts ?? (this.base ? [this.base] : []);
+    for (const { network, faults } of trees) {
+      if (selection.kind === 'transformer') {
+        const fault = faults.transformers.get(selection.id);
+        if (fault)
+          return { title: `Transformer ${selection.id}: full-load and through-fault currents`, work: fault.work };
+        continue;
+      }
+      let busId = selection.kind === 'bus' ? selection.id : undefined;
+      if (selection.kind === 'device') {
+        const device = network.devices.get(selection.id);
+        if (device) busId = locationBusOf(network, device).id;
+      }
+      const source = network.study.source;
+      if ((selection.kind === 'source' || selection.kind === 'generator') && source.id === selection.id)
+        busId = source.bus;
+      const fault = busId ? faults.buses.get(busId) : undefined;
+      if (fault) return { title: `Bus ${busId}: available fault current`, work: fault.work };
     }
-    let busId = selection.kind === 'bus' ? selection.id : undefined;
-    if (selection.kind === 'device') {
-      const device = base.network.devices.get(selection.id);
-      if (device) busId = locationBusOf(base.network, device).id;
-    }
-    if (selection.kind === 'source') busId = base.network.study.source.bus;
-    const fault = busId ? base.faults.buses.get(busId) : undefined;
-    return fault && { title: `Bus ${busId}: available fault current`, work: fault.work };
+    return undefined;
   }
 
   #post(request: AnalyseRequest): void {

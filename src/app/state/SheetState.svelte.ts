@@ -7,6 +7,8 @@ import type { StudyState } from './StudyState.svelte.ts';
 import type { AnalysisState } from './AnalysisState.svelte.ts';
 import type { ProbeState } from './ProbeState.svelte.ts';
 import { lookupOf } from '../lib/lookups.ts';
+import { scenarioViewOf } from '../lib/scenarioParts.ts';
+import { scenarioFaultLinesOf } from '../lib/scenarioFaultLines.ts';
 
 /** The size exported figures are laid out at (px), the plot layer's default sheet. */
 export const FIGURE_SIZE = { width: 960, height: 720 } as const;
@@ -24,18 +26,50 @@ export class SheetState {
   height = $state(640);
   /** Larger type on the page and the sheet, for a projector. */
   largeText = $state(false);
+  /** For a study with scenarios: draw the maximum fault line of every scenario, each headed by its name. */
+  everyScenario = $state(false);
   #study: StudyState;
   #analysis: AnalysisState;
   #probe: ProbeState;
 
+  /** The view's devices the chosen scenario leaves off the sheet (de-energised, or on another source's tree). */
+  readonly left: string[] = $derived.by(() => {
+    const view = this.#study.view;
+    return view ? this.#analysis.viewAnalysis(view.id).left : [];
+  });
+  /** Set when the chosen scenario energises none of the view's devices: the sheet says so instead of drawing. */
+  readonly dark: string | undefined = $derived.by(() => {
+    const view = this.#study.view;
+    const scenario = this.#analysis.scenario;
+    if (!view || !scenario || this.input.input || this.input.error) return undefined;
+    return `Every device on this sheet is de-energised in the scenario "${scenario.label}".`;
+  });
   /** What the view draws, on its reference voltage (or the reason it cannot be drawn). */
   readonly input = $derived.by((): { input?: SheetInput; error?: string } => {
-    const analysis = this.#analysis.analysis;
     const view = this.#study.view;
     if (this.#analysis.baseError) return { error: this.#analysis.baseError };
-    if (!analysis || !view) return {};
+    if (!view) return {};
+    const { analysis, left, error } = this.#analysis.viewAnalysis(view.id);
+    if (error) return { error };
+    if (!analysis) return {};
     try {
-      return { input: viewInputOf(analysis, view.id) };
+      const input = viewInputOf(analysis, view.id);
+      const scenario = this.#analysis.scenario;
+      if (!scenario) return { input };
+      // The scenario names the sheet; devices it leaves out are listed in the notes an exported figure prints.
+      const notes = [
+        input.notes,
+        left.length > 0 ? `Not on this sheet in "${scenario.label}": ${left.join(', ')}.` : undefined,
+      ];
+      const faultLines = this.everyScenario ? this.#everyScenarioFaultLines(view) : input.faultLines;
+      return {
+        input: {
+          ...input,
+          title: `${input.title} — ${scenario.label}`,
+          notes: notes.filter(Boolean).join(' ') || undefined,
+          faultLines,
+        },
+      };
     } catch (error) {
       return { error: (error as Error).message };
     }
@@ -86,12 +120,24 @@ export class SheetState {
     this.#probe = probe;
   }
 
-  /** The engine's probe of the current view at `amps` (A at the reference voltage). */
+  /** The engine's probe of the current view at `amps` (A at the reference voltage), in the chosen scenario. */
   probeAt(amps: number | undefined): Probe | undefined {
-    const analysis = this.#analysis.analysis;
     const view = this.#study.view;
+    const analysis = view && this.#analysis.viewAnalysis(view.id).analysis;
     if (amps === undefined || !analysis || !view) return undefined;
     return probeAt(analysis, view.id, amps);
+  }
+
+  // Every scenario's maximum fault lines at the view's fault buses, each headed by its scenario.
+  #everyScenarioFaultLines(view: NonNullable<StudyState['view']>): SheetInput['faultLines'] {
+    const study = this.#study.study;
+    const network = this.#study.network;
+    if (!study || !network) return [];
+    return scenarioFaultLinesOf(
+      network,
+      view,
+      this.#study.scenarios.map((scenario) => scenarioViewOf(study, scenario)),
+    );
   }
 
   /** The current view as a standalone SVG at the figure size (throws when there is no sheet). */

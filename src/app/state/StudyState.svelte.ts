@@ -1,5 +1,6 @@
 import type { Study, StudyInput, StudyProblem } from '../../engine/study/index.ts';
 import type { Network } from '../../engine/network/index.ts';
+import { hasScenarios, scenariosOf } from '../../engine/scenario/index.ts';
 import { History } from './History.svelte.ts';
 import { builtStudyOf, networkOrUndefined, readingOf, type BuiltStudy } from '../lib/builtStudy.ts';
 import { removalOf, withoutRemoval } from '../lib/removal.ts';
@@ -31,6 +32,8 @@ export class StudyState {
   savedDocument: StudyInput = $state.raw() as StudyInput;
   /** The id of the view on the sheet. */
   viewId: string | undefined = $state();
+  /** The id of the operating scenario shown (the first when unset or no longer in the study). */
+  scenarioId: string | undefined = $state();
   /** The item whose properties are shown. */
   selection: Selection | undefined = $state();
   /** Problems of a file that was refused (the current study stays as it was). */
@@ -65,6 +68,13 @@ export class StudyState {
     const views = this.study?.views ?? [];
     return views.find((v) => v.id === this.viewId) ?? views[0];
   });
+  /** The study's operating scenarios, for a study with generators, switches or scenarios; else none. */
+  readonly scenarios = $derived.by(() => {
+    const study = this.study;
+    return study && hasScenarios(study) ? scenariosOf(study) : [];
+  });
+  /** The scenario shown in the tree, the sheet, the findings and the one-line diagram (none for a plain study). */
+  readonly scenario = $derived.by(() => this.scenarios.find((s) => s.id === this.scenarioId) ?? this.scenarios[0]);
   /** True when the document differs from the last file opened or saved. */
   readonly dirty = $derived.by(() => this.document !== this.savedDocument);
   /** Where the selected item sits in the document. */
@@ -173,6 +183,7 @@ export class StudyState {
     this.savedDocument = options.unsaved ? ({ ...document } as StudyInput) : document;
     this.fileName = fileName;
     this.viewId = options.viewId;
+    this.scenarioId = undefined;
     this.selection = undefined;
     this.refused = undefined;
     this.recovered = undefined;

@@ -1,6 +1,6 @@
-import { analyseStudy } from '../../engine/analysis.ts';
 import { AnalysisMemo } from '../../engine/incremental.ts';
 import { ChangeTracker } from './changes.ts';
+import { checksOf } from './checks.ts';
 import type { CheckRunner } from '../state/AnalysisState.svelte.ts';
 import type { AnalyseReply, AnalyseRequest } from './protocol.ts';
 
@@ -31,7 +31,7 @@ export function inlineRunner(): CheckRunner {
     post: (request: AnalyseRequest) =>
       setTimeout(() => {
         try {
-          const changes = tracker.changesOf(analyseStudy(request.study, memo));
+          const changes = tracker.changesOf(checksOf(request.study, memo));
           runner.onreply?.({ seq: request.seq, ok: true, changes });
         } catch (error) {
           runner.onreply?.({ seq: request.seq, ok: false, message: (error as Error).message });
