@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { placeAt, selectionOfPlace, viewBoxAround, zoomedBox } from '../../../src/app/lib/oneLineView.ts';
-import type { OneLinePlace } from '../../../src/plot/oneLine/index.ts';
+import { oneLineRowOf, placeAt, selectionOfPlace, viewBoxAround, zoomedBox } from '../../../src/app/lib/oneLineView.ts';
+import type { OneLine, OneLinePlace } from '../../../src/plot/oneLine/index.ts';
 
 const places: OneLinePlace[] = [
   {
@@ -47,5 +47,40 @@ describe('oneLineView', () => {
       width: 200,
       height: 100,
     });
+  });
+});
+
+describe('oneLineView with several trees', () => {
+  const diagram = (width: number, height: number, id: string): OneLine =>
+    ({
+      width,
+      height,
+      layers: [],
+      places: [
+        {
+          id,
+          type: 'source',
+          symbol: { x: 10, y: 20, width: 30, height: 30 },
+          label: { x: 45, y: 20, width: 50, height: 14 },
+        },
+      ],
+    }) as unknown as OneLine;
+
+  it('oneLineRowOf() sets diagrams left to right with a gap, moving every place with its diagram', () => {
+    const row = oneLineRowOf([diagram(300, 500, 'UTIL'), diagram(200, 700, 'G1')], 40);
+    expect(row.diagrams.map((d) => d.x)).toEqual([0, 340]);
+    expect([row.width, row.height]).toEqual([540, 700]);
+    expect(row.places.map((p) => [p.id, p.symbol.x, p.label.x])).toEqual([
+      ['UTIL', 10, 45],
+      ['G1', 350, 385],
+    ]);
+    expect(placeAt(row.places, { x: 360, y: 30 })?.id).toBe('G1');
+  });
+
+  it("selectionOfPlace() reads a source other than the study's own as a generator", () => {
+    const [place] = diagram(100, 100, 'G1').places;
+    expect(selectionOfPlace(place, 'UTIL')).toEqual({ kind: 'generator', id: 'G1' });
+    expect(selectionOfPlace({ ...place, id: 'UTIL' }, 'UTIL')).toEqual({ kind: 'source', id: 'UTIL' });
+    expect(selectionOfPlace(place)).toEqual({ kind: 'source', id: 'G1' });
   });
 });

@@ -1,6 +1,15 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { flattenTree, systemRowsOf, systemTreeOf } from '../../../src/app/lib/systemTree.ts';
+import {
+  darkItemsOf,
+  flattenTree,
+  scenarioRowsOf,
+  switchText,
+  systemRowsOf,
+  systemTreeOf,
+} from '../../../src/app/lib/systemTree.ts';
+import { scenarioViewOf } from '../../../src/app/lib/scenarioParts.ts';
+import { scenariosOf } from '../../../src/engine/scenario/index.ts';
 import { newStudyDocument } from '../../../src/app/lib/newItems.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
@@ -71,5 +80,60 @@ describe('systemTree', () => {
     const rows = systemRowsOf(networkOf(deep));
     expect(rows).toHaveLength(1 + 5001 + 5000);
     expect(rows.at(-1)).toMatchObject({ depth: 10_001, node: { kind: 'bus', id: 'B5000' } });
+  });
+});
+
+describe('systemTree in a scenario', () => {
+  const standby = parseStudy(
+    readFileSync(new URL('../../../demo/harrowmere-standby-overlap.json', import.meta.url), 'utf8'),
+  );
+  const [normal, onGenerator, tieClosed] = scenariosOf(standby);
+  const ats = standby.switches.find((s) => s.id === 'ATS')!;
+  const tie = standby.switches.find((s) => s.id === 'TIE')!;
+
+  it('switchText() says the kind of switch and its position in the scenario', () => {
+    expect(switchText(ats, normal)).toBe('transfer switch, on the normal side (ATS-N)');
+    expect(switchText(ats, onGenerator)).toBe('transfer switch, on the emergency side (ATS-E)');
+    expect(switchText(ats, { ...normal, switches: { ATS: 'open' } })).toBe('transfer switch, open');
+    expect(switchText(tie, normal)).toBe('tie, open');
+    expect(switchText(tie, tieClosed)).toBe('tie, closed');
+  });
+
+  it('scenarioRowsOf() draws the generator as the source of its tree, the transfer switch on its emergency side', () => {
+    const rows = scenarioRowsOf(standby, scenarioViewOf(standby, onGenerator));
+    expect(rows[0]).toMatchObject({ depth: 0, node: { kind: 'generator', id: 'G1' } });
+    expect(rows[0].node.detail).toBe('generator, 300 kVA, 480 V');
+    const atsRow = rows.find((r) => r.node.id === 'ATS')!;
+    expect(atsRow.node).toMatchObject({ kind: 'switch', detail: 'transfer switch, on the emergency side (ATS-E)' });
+    expect(rows.map((r) => r.node.id)).not.toContain('SWBD');
+  });
+
+  it('scenarioRowsOf() of the normal scenario is the utility tree, the transfer switch on its normal side', () => {
+    const rows = scenarioRowsOf(standby, scenarioViewOf(standby, normal));
+    expect(rows[0].node).toMatchObject({ kind: 'source', id: 'UTIL' });
+    expect(rows.find((r) => r.node.id === 'ATS')?.node.detail).toBe('transfer switch, on the normal side (ATS-N)');
+    expect(rows.map((r) => r.node.id)).not.toContain('G1');
+  });
+
+  it('darkItemsOf() lists the sources out of service, the dark buses, what is switched out and the open switches', () => {
+    const onGen = darkItemsOf(standby, scenarioViewOf(standby, onGenerator));
+    expect(onGen.map((d) => `${d.kind} ${d.id}`)).toEqual([
+      'source UTIL',
+      'bus MV',
+      'bus SWBD',
+      'bus MCC',
+      'bus DOCK',
+      'bus OFC-P',
+      'bus OFC',
+      'bus ATS-N',
+      'switch TIE',
+    ]);
+    const tied = darkItemsOf(standby, scenarioViewOf(standby, tieClosed));
+    expect(tied.map((d) => `${d.kind} ${d.id} ${d.detail}`)).toEqual([
+      'generator G1 not in service',
+      'bus GEN 480 V, de-energised',
+      'bus ATS-E 480 V, de-energised',
+      'cable C-DOCK out of service',
+    ]);
   });
 });
