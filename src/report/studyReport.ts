@@ -5,6 +5,7 @@ import { findingRows } from '../engine/report/findingsTable.ts';
 import { settingsTableOf } from '../engine/report/settingsTable.ts';
 import { settingsText } from '../engine/report/settingsText.ts';
 import { locationBusOf } from '../engine/network/index.ts';
+import { switchPosition } from '../engine/scenario/index.ts';
 import { formatWork } from '../engine/work.ts';
 import { oneLineOf } from '../plot/oneLine/index.ts';
 import { sheetOf } from '../plot/sheet.ts';
@@ -76,13 +77,11 @@ export function studyReportOf(analysis: Analysis, options: StudyReportOptions = 
       {
         id: 'one-line',
         title: 'One-line diagram',
-        blocks: [
-          {
-            type: 'figure',
-            caption: 'The system as modelled, with maximum and minimum fault currents',
-            drawing: oneLineOf(analysis),
-          },
-        ],
+        blocks: treesOf(analysis).map(({ label, tree }) => ({
+          type: 'figure',
+          caption: `The system as modelled${label ? ` ${label}` : ''}, with maximum and minimum fault currents`,
+          drawing: oneLineOf(tree),
+        })),
       },
       { id: 'faults', title: 'Fault currents', blocks: faultBlocks(analysis) },
       { id: 'settings', title: 'Device settings', blocks: settingsBlocks(analysis) },
@@ -130,11 +129,82 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
           { type: 'list' as const, items: margins },
         ]
       : []),
+    ...scenarioBlocks(analysis),
   ];
 }
 
-// Accepts the analysis; the table of fault currents at every bus.
+// Accepts the analysis; for a switched study, what each scenario is and how generators are modelled.
+function scenarioBlocks(analysis: Analysis): ReportBlock[] {
+  const { study, scenarios } = analysis;
+  if (!scenarios) return [];
+  const generators = study.generators.map(
+    (g) =>
+      `${g.name ?? g.id}: ${significant(g.rating / 1000, 4)} kVA at ${formatVolts(g.voltage)}, X″d ${significant(g.xdSubtransient, 3)}, X′d ${significant(g.xdTransient, 3)}, Xd ${significant(g.xd, 3)} pu, T″d ${significant(g.tdSubtransient, 3)} s, T′d ${significant(g.tdTransient, 3)} s${g.sustained ? `, excitation support ${significant(g.sustained, 3)} × rated` : ', no excitation support'}.`,
+  );
+  return [
+    {
+      type: 'paragraph',
+      text: `The system can be fed in ${scenarios.length} ways, each checked on its own: every fault level, pair and check below is worked out per scenario, and each finding says in which scenarios it holds.`,
+    },
+    {
+      type: 'table',
+      columns: ['scenario', 'sources in service', 'switches', 'not energised'],
+      rows: scenarios.map((s) => [
+        s.label,
+        s.sources.join(', '),
+        study.switches.map((w) => `${w.name ?? w.id}: ${switchPosition(w, s.scenario)}`).join('; ') || '—',
+        s.deEnergised.join(', ') || '—',
+      ]),
+    },
+    ...(generators.length > 0
+      ? [
+          {
+            type: 'paragraph' as const,
+            text: 'Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain (IEEE Std 551); on a generator, each pair is also checked on the decaying fault current, each device operating when the integral of 1 / t(I(t)) reaches 1 (the time-varying-current method of IEEE C37.112). The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.',
+          },
+          { type: 'list' as const, items: generators },
+        ]
+      : []),
+    ...(study.devices.some((d) => d.system)
+      ? [
+          {
+            type: 'paragraph' as const,
+            text: `Devices marked as part of an emergency, legally required standby or critical operations system, or elevator circuits, are checked for selective coordination with every supply-side device in every scenario (NFPA 70 700.32, 701.32, 708.54, 620.62), ${study.coordination.codeSelectivity === 'above-0.1-s' ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")' : 'over the full range of available fault currents'}. The authority having jurisdiction decides what the requirement means where the work is done.`,
+          },
+        ]
+      : []),
+  ];
+}
+
+/** Each energised tree the report draws and tabulates: the study itself, or every scenario's parts, labelled. */
+function treesOf(analysis: Analysis): { label?: string; tree: Analysis }[] {
+  if (!analysis.scenarios) return [{ tree: analysis }];
+  return analysis.scenarios.flatMap((s) =>
+    s.parts.map((tree) => ({
+      label: s.parts.length > 1 ? `in "${s.label}", fed from ${tree.study.source.id}` : `in "${s.label}"`,
+      tree,
+    })),
+  );
+}
+
+// Accepts the analysis; the table of fault currents at every bus, per scenario for a switched study.
 function faultBlocks(analysis: Analysis): ReportBlock[] {
+  const intro: ReportBlock = {
+    type: 'paragraph',
+    text: 'Symmetrical RMS currents at each bus, at the bus voltage. A line-to-ground value of 0 means the bus has no ground return (a delta or ungrounded system).',
+  };
+  if (!analysis.scenarios) return [intro, faultTable(analysis)];
+  return [
+    intro,
+    ...treesOf(analysis).flatMap(({ label, tree }): ReportBlock[] => [
+      { type: 'paragraph', text: `Fault currents ${label}:` },
+      faultTable(tree),
+    ]),
+  ];
+}
+
+// Accepts one energised tree; the table of its buses.
+function faultTable(analysis: Analysis): ReportBlock {
   const rows = analysis.study.buses.map((bus) => {
     const fault = analysis.faults.buses.get(bus.id)!;
     const amps = (value: number) => (Number.isFinite(value) ? formatAmps(value, 3) : 'no limit');
@@ -150,27 +220,26 @@ function faultBlocks(analysis: Analysis): ReportBlock[] {
       amps(fault.min.lineToGround),
     ];
   });
-  return [
-    {
-      type: 'paragraph',
-      text: 'Symmetrical RMS currents at each bus, at the bus voltage. A line-to-ground value of 0 means the bus has no ground return (a delta or ungrounded system).',
-    },
-    {
-      type: 'table',
-      columns: ['bus', 'voltage', '3φ max', 'L-L max', 'L-G max', 'X/R', '3φ min', 'L-L min', 'L-G min'],
-      rows,
-      numeric: [false, true, true, true, true, true, true, true, true],
-    },
-  ];
+  return {
+    type: 'table',
+    columns: ['bus', 'voltage', '3φ max', 'L-L max', 'L-G max', 'X/R', '3φ min', 'L-L min', 'L-G min'],
+    rows,
+    numeric: [false, true, true, true, true, true, true, true, true],
+  };
 }
 
 // Accepts the analysis; every device's settings with units.
 function settingsBlocks(analysis: Analysis): ReportBlock[] {
-  const rows = analysis.study.devices.map((device) => [
-    device.name ?? device.id,
-    `${locationBusOf(analysis.network, device).name ?? locationBusOf(analysis.network, device).id}`,
-    settingsText(device.characteristic).join('; '),
-  ]);
+  const trees = treesOf(analysis).map(({ tree }) => tree);
+  const rows = analysis.study.devices.map((device) => {
+    const network = trees.find((tree) => tree.network.devices.has(device.id))?.network;
+    const bus = network && locationBusOf(network, device);
+    return [
+      device.name ?? device.id,
+      bus ? (bus.name ?? bus.id) : 'not energised',
+      settingsText(device.characteristic).join('; '),
+    ];
+  });
   const windows = settingsTableOf(analysis.study);
   return [
     { type: 'table', columns: ['device', 'location', 'settings'], rows },
@@ -196,11 +265,16 @@ function sheetBlocks(analysis: Analysis): ReportBlock[] {
     return [
       { type: 'paragraph', text: 'The study has no time-current sheets. Add one per protective path (discern paths).' },
     ];
-  return analysis.study.views.map((view) => ({
-    type: 'figure',
-    caption: view.title ?? view.id,
-    drawing: sheetOf(viewInputOf(analysis, view.id), { idPrefix: `tcc-${view.id}` }),
-  }));
+  // A switched study draws each view in every scenario that energises its devices (titled with the scenario).
+  return treesOf(analysis).flatMap(({ tree }, index) =>
+    tree.study.views.map((view): ReportBlock => ({
+      type: 'figure',
+      caption: view.title ?? view.id,
+      drawing: sheetOf(viewInputOf(tree, view.id), {
+        idPrefix: analysis.scenarios ? `tcc-${index}-${view.id}` : `tcc-${view.id}`,
+      }),
+    })),
+  );
 }
 
 // Accepts the analysis; the findings table and each finding needing attention written out.
@@ -229,11 +303,13 @@ function findingBlocks(analysis: Analysis): ReportBlock[] {
   ];
 }
 
-// Accepts the analysis; each bus's worked calculation.
+// Accepts the analysis; each bus's worked calculation (in each scenario for a switched study).
 function workBlocks(analysis: Analysis): ReportBlock[] {
-  return analysis.study.buses.map((bus) => ({
-    type: 'work',
-    title: `${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`,
-    text: formatWork(analysis.faults.buses.get(bus.id)!.work),
-  }));
+  return treesOf(analysis).flatMap(({ label, tree }) =>
+    tree.study.buses.map((bus): ReportBlock => ({
+      type: 'work',
+      title: `${bus.name ?? bus.id} (${formatVolts(bus.voltage)})${label ? ` ${label}` : ''}`,
+      text: formatWork(tree.faults.buses.get(bus.id)!.work),
+    })),
+  );
 }

@@ -1,6 +1,7 @@
 import { CAUTION } from '../caution.ts';
 import { significant } from '../quantity/index.ts';
 import type { Study } from '../study/index.ts';
+import { treeHolding } from '../scenario/index.ts';
 import { settingText, settingWindowOf, type SettingWindow } from '../window/index.ts';
 import { csvCell } from './csv.ts';
 
@@ -28,13 +29,18 @@ export interface SettingsTableOptions {
 /**
  * The study report's settings table: for every adjustable setting of every device (or those given),
  * the present value, the setting window with the others held, the recommended value and the binding
- * constraints of the window's edges (`settingWindowOf`, without maps). Devices without settings are left out.
+ * constraints of the window's edges (`settingWindowOf`, without maps; in a switched study, in the first
+ * scenario that energises the device). Devices without settings are left out.
  *
  * @example settingsMarkdown(settingsTableOf(study))
  */
 export function settingsTableOf(study: Study, options: SettingsTableOptions = {}): SettingsTableRow[] {
   const { deviceIds = study.devices.map((d) => d.id) } = options;
-  return deviceIds.flatMap((id) => rowsOf(settingWindowOf(study, id, { maps: false, remedies: false })));
+  return deviceIds.flatMap((id) => {
+    // A switched study: the window in the first scenario that energises the device.
+    const tree = treeHolding(study, id);
+    return tree ? rowsOf(settingWindowOf(tree, id, { maps: false, remedies: false })) : [];
+  });
 }
 
 /** The rows of one device's window. @example rowsOf(settingWindowOf(study, 'MAIN')) */

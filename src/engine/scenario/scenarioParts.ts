@@ -1,6 +1,6 @@
 import type { Scenario, Source, Study, Switch } from '../study/index.ts';
 import { feedersIn, type Connection } from './connections.ts';
-import { hasScenarios, scenarioLabel } from './scenarios.ts';
+import { hasScenarios, scenarioLabel, scenariosOf } from './scenarios.ts';
 
 /** One source's radial tree in a scenario, as a study of its own that today's single-source analysis reads. */
 export interface ScenarioPart {
@@ -115,4 +115,20 @@ function partStudy(
       pairs: study.coordination.pairs.filter((p) => deviceIds.has(p.upstream) && deviceIds.has(p.downstream)),
     },
   };
+}
+
+/**
+ * The radial study in which a device is worked on alone (its setting window, its band's location):
+ * the study itself when it cannot be switched, else the part holding the device in `scenarioId`, or
+ * in the first scenario that energises it. `undefined` when no scenario energises it.
+ *
+ * @example settingWindowOf(treeHolding(study, 'EM-BR', 'on-generator')!, 'EM-BR')
+ */
+export function treeHolding(study: Study, deviceId: string, scenarioId?: string): Study | undefined {
+  if (!hasScenarios(study)) return study;
+  const scenarios = scenariosOf(study).filter((s) => scenarioId === undefined || s.id === scenarioId);
+  for (const scenario of scenarios)
+    for (const part of splitScenario(study, scenario))
+      if (part.study.devices.some((d) => d.id === deviceId)) return part.study;
+  return undefined;
 }
