@@ -56,7 +56,7 @@ export class SheetState {
       const input = viewInputOf(analysis, view.id);
       const scenario = this.#analysis.scenario;
       if (!scenario) return { input };
-      // The scenario names the sheet; devices it leaves out are listed in the notes an exported figure prints.
+      // The engine's part titles the view with its scenario; devices left out go in the notes a figure prints.
       const notes = [
         input.notes,
         left.length > 0 ? `Not on this sheet in "${scenario.label}": ${left.join(', ')}.` : undefined,
@@ -65,7 +65,6 @@ export class SheetState {
       return {
         input: {
           ...input,
-          title: `${input.title} — ${scenario.label}`,
           notes: notes.filter(Boolean).join(' ') || undefined,
           faultLines,
         },
