@@ -84,6 +84,24 @@ describe('operating scenarios in Chromium', () => {
     await context.close();
   });
 
+  it("the generator, its breaker's setting window and a proposal are reachable on the generator without a page error", async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('demo-menu').selectOption('harrowmere-standby-overlap.json');
+    await settled(page);
+    await page.getByTestId('scenario-menu').selectOption('on-generator');
+    await page.getByTestId('tree-generator-G1').click();
+    await expect(page.getByTestId('properties').textContent()).resolves.toMatch(/G1/);
+    await page.getByTestId('tree-switch-ATS').click();
+    await expect(page.getByTestId('properties').textContent()).resolves.toMatch(/ATS/);
+    await page.getByTestId('tree-device-GEN-CB').click();
+    await page.getByTestId('tab-window').click();
+    await expect(page.getByTestId('window-panel').textContent()).resolves.toMatch(/Generator breaker 600 A/);
+    await page.getByTestId('propose-study').click();
+    await page.locator('[data-testid="proposal"], [data-testid="proposal-error"]').first().waitFor();
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
   it('every scenario at once: all findings, and a fault line of each scenario on the sheet', async () => {
     const { page, context } = await bench.open();
     await page.getByTestId('demo-menu').selectOption('harrowmere-standby-overlap.json');
