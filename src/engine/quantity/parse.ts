@@ -1,7 +1,12 @@
 import { create, unitDependencies } from 'mathjs';
 
 /** Only the unit machinery of mathjs: user text is parsed as a value with a unit, never evaluated. */
-const math = create({ unitDependencies });
+let unitMath: ReturnType<typeof create> | undefined;
+/** mathjs, created on first use: a study written in the common units never needs it. */
+function math(): ReturnType<typeof create> {
+  unitMath ??= create({ unitDependencies });
+  return unitMath;
+}
 
 /** The physical dimensions discern accepts, each with the SI base unit the engine computes in. */
 export const DIMENSIONS = {
@@ -27,6 +32,22 @@ export interface ParseQuantityOptions {
 }
 
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+const NUMBER_AND_UNIT = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*([A-Za-z]+)$/;
+
+/**
+ * The units studies are written in, by dimension, each with the factor to SI that mathjs uses (its unit
+ * value times its prefix value, multiplied in that order, so the result is the same double). Text in
+ * these units is read without mathjs; anything else goes to mathjs. A test holds each entry to mathjs.
+ */
+export const COMMON_UNITS: Record<Dimension, Record<string, number>> = {
+  voltage: { V: 1, mV: 1 * 1e-3, kV: 1 * 1e3, MV: 1 * 1e6 },
+  current: { A: 1, mA: 1 * 1e-3, kA: 1 * 1e3, MA: 1 * 1e6 },
+  power: { VA: 1, kVA: 1 * 1e3, MVA: 1 * 1e6, GVA: 1 * 1e9 },
+  impedance: { ohm: 1, mohm: 1 * 1e-3, kohm: 1 * 1e3 },
+  length: { m: 1, mm: 1 * 1e-3, cm: 1 * 1e-2, km: 1 * 1e3, ft: 0.3048 * 1, in: 0.0254 * 1 },
+  time: { s: 1, ms: 1 * 1e-3, min: 60 * 1, h: 3600 * 1 },
+  frequency: { Hz: 1, kHz: 1 * 1e3 },
+};
 const CYCLES = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(cycles?|cyc|~)$/i;
 
 /**
@@ -51,7 +72,9 @@ function parseUnchecked(value: unknown, dimension: Dimension, options: ParseQuan
   const { plainUnit = plain, frequency = 60 } = options;
   if (typeof value === 'number') {
     if (!Number.isFinite(value)) throw new RangeError(`expected a finite ${dimension}`);
-    return value === 0 ? 0 : math.unit(value, plainUnit).toNumber(si);
+    if (value === 0) return 0;
+    const factor = COMMON_UNITS[dimension][plainUnit];
+    return factor === undefined ? math().unit(value, plainUnit).toNumber(si) : value * factor;
   }
   if (typeof value !== 'string') throw new TypeError(`expected a ${dimension} as a number or text with a unit`);
   const text = value.trim().replace(/Ω/g, 'ohm').replace(/µ/g, 'u');
@@ -61,13 +84,16 @@ function parseUnchecked(value: unknown, dimension: Dimension, options: ParseQuan
     if (dimension !== 'time') throw new RangeError(`expected a ${dimension}, not a time in cycles`);
     return Number(cycles[1]) / frequency;
   }
+  const written = NUMBER_AND_UNIT.exec(text);
+  const factor = written ? COMMON_UNITS[dimension][written[2]] : undefined;
+  if (written && factor !== undefined) return Number(written[1]) * factor;
   let unit;
   try {
-    unit = math.unit(text);
+    unit = math().unit(text);
   } catch {
     throw new RangeError(`expected a ${dimension} such as "${example(dimension)}"`);
   }
-  if (unit.value === null || !unit.equalBase(math.unit(1, si))) {
+  if (unit.value === null || !unit.equalBase(math().unit(1, si))) {
     throw new RangeError(`expected a ${dimension} such as "${example(dimension)}"`);
   }
   // Ratings and fault levels are apparent powers. A real power (W, hp) shares the dimension but is
