@@ -18,6 +18,19 @@ describe('checksOf', () => {
     expect(got.findings.every((f) => f.scenarios === undefined)).toBe(true);
   });
 
+  it("a study without scenarios marking an emergency device gets the code's selective-coordination finding", () => {
+    const study = read('harrowmere-selective.json');
+    const marked = {
+      ...study,
+      devices: study.devices.map((d) => (d.id === 'MAIN' ? { ...d, system: 'emergency' as const } : d)),
+    };
+    const got = checksOf(marked, new AnalysisMemo());
+    const expected = analyseScenarios(marked);
+    expect(got.findings).toEqual(expected.findings);
+    expect(got.findings.map((f) => f.id)).toContain('code-selectivity:MAIN');
+    expect(checksOf(study, new AnalysisMemo()).findings.map((f) => f.id)).not.toContain('code-selectivity:MAIN');
+  });
+
   it('a study with scenarios is checked in every scenario, each finding listing where it holds', () => {
     const study = read('harrowmere-standby-overlap.json');
     const got = checksOf(study, new AnalysisMemo());
