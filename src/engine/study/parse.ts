@@ -5,8 +5,8 @@ import { jsonTextProblem, MAX_NESTING, withoutBom } from './jsonText.ts';
 import { createStudySchema, studySchema, type Study } from './schema.ts';
 import { structureProblems } from './structure.ts';
 
-/** The 50 Hz schema (times in cycles read at 50 Hz), built once like the 60 Hz `studySchema`. */
-const STUDY_SCHEMA_50 = createStudySchema(50);
+/** The 50 Hz schema (times in cycles read at 50 Hz), built once, when the first 50 Hz study is read. */
+let studySchema50: ReturnType<typeof createStudySchema> | undefined;
 
 /** One thing wrong with a study file, located by its field path (`study.transformers[1].impedance`). */
 export interface StudyProblem {
@@ -48,7 +48,7 @@ export function readStudy(input: unknown): StudyReading {
     return { document: raw, problems: [{ path: 'study', message: `expected a JSON object, got ${quoteGot(raw)}` }] };
   }
   const frequency = (raw as { frequency?: unknown }).frequency;
-  const schema = frequency === 50 ? STUDY_SCHEMA_50 : studySchema;
+  const schema = frequency === 50 ? (studySchema50 ??= createStudySchema(50)) : studySchema;
   const parsed = schema.safeParse(raw, { reportInput: true });
   if (!parsed.success) return { document: raw, problems: parsed.error.issues.map(describeIssue) };
   const problems = structureProblems(parsed.data);
