@@ -70,7 +70,7 @@ export function evaluateAt(trial: Trial, constraint: Constraint, device: Device,
   const inPlace = trial.deviceOf(device.id);
   if (
     inPlace !== device &&
-    !(sameBesidesCharacteristic(inPlace, device) && characteristicText(inPlace.characteristic) === text)
+    !(characteristicText(inPlace.characteristic) === text && sameBesidesCharacteristic(inPlace, device))
   ) {
     let placed = placedByTrial.get(trial);
     if (!placed) placedByTrial.set(trial, (placed = new Map()));

@@ -5,6 +5,7 @@ import { pickupAmpsOf, type Constraint, type ConstraintResult } from './constrai
 import { bindingOf, rangeBinding, type Binding } from './settingInterval.ts';
 import {
   adjustableSettingsOf,
+  devicesAlong,
   deviceWith,
   settingValue,
   switchesOf,
@@ -224,7 +225,8 @@ function fastestPoint(
     return undefined;
   };
   for (const spec of specs) {
-    const at = (value: number) => deviceWith(base, { ...point, [spec.key]: value });
+    // Each probe changes one element of the point: the others stay shared (and their text with them).
+    const at = devicesAlong(deviceWith(base, point), spec.key);
     const threshold = thresholdOf(spec, (value) => failing(at(value)) === undefined, {
       hi: point[spec.key],
       favours: 'slower',

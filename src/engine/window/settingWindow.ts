@@ -98,7 +98,7 @@ export function windowIn(trial: Trial, deviceId: string, options: SettingWindowO
   const specs = adjustableSettingsOf(device, { overrides });
   // Only this device moves until the remedies: one memo of results serves rows, maps and the search.
   const memo: Memo = new Map();
-  const present = marginsAt(trial, constraints);
+  const present = marginsAt(trial, device, constraints, memo);
   const currentHolds = present.every((m) => m.favours === 'fixed' || m.result.ok);
 
   // Each row's thresholds by setting key: the maps start from the rows through the present setting.
@@ -167,14 +167,14 @@ export function overridesOf(device: Device): Record<string, SettingRangeOverride
   return (device as Device & { adjustable?: Record<string, SettingRangeOverride> }).adjustable;
 }
 
-/** Every constraint evaluated for the trial as it stands. */
-function marginsAt(trial: Trial, constraints: Constraint[]): ConstraintMargin[] {
+/** Every constraint evaluated with `device` in place (remembered: the rows start from the present setting). */
+function marginsAt(trial: Trial, device: Device, constraints: Constraint[], memo: Memo): ConstraintMargin[] {
   return constraints.map((c) => ({
     id: c.id,
     kind: c.kind,
     label: c.label,
     source: c.source,
     favours: c.favours,
-    result: c.evaluate(trial),
+    result: evaluateAt(trial, c, device, memo),
   }));
 }

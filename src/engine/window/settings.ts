@@ -260,11 +260,21 @@ export function characteristicWith(c: Characteristic, key: string, value: Settin
     delete rest.instantaneous;
     return rest as Characteristic;
   }
-  const [group, field] = key.split('.');
+  const [group, field] = pathOf(key);
   const record = c as unknown as Record<string, Record<string, unknown> | undefined>;
   const element = record[group];
   if (!element || typeof element !== 'object') return c;
   return { ...c, [group]: { ...element, [field]: value } } as Characteristic;
+}
+
+/** Each setting key split at its dots, once (a window changes a few keys many times). */
+const paths = new Map<string, string[]>();
+
+/** `key.split('.')`, remembered. */
+function pathOf(key: string): string[] {
+  let path = paths.get(key);
+  if (!path) paths.set(key, (path = key.split('.')));
+  return path;
 }
 
 /** The device with several settings changed (applied in order). @example deviceWith(main, { 'shortTime.delay': 0.3 }) */
