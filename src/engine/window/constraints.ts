@@ -3,7 +3,7 @@ import { cableFindings } from '../checks/cableProtection.ts';
 import { nameOf, protectingDevice } from '../checks/context.ts';
 import { checkPair } from '../checks/coordination.ts';
 import type { Finding } from '../checks/finding.ts';
-import type { MarginRule } from '../checks/margins.ts';
+import { marginRuleOf, type MarginRule } from '../checks/margins.ts';
 import { motorFindings } from '../checks/motorStarting.ts';
 import { nec450Findings } from '../checks/nec450.ts';
 import { sensitivityCasesOf } from '../checks/sensitivity.ts';
@@ -279,12 +279,18 @@ export function pickupAmpsOf(device: Device): number {
 /** A pair constraint; `which` says whether the window's device is the upper ('below' rows) or lower one. */
 function coordination(trial: Trial, upId: string, downId: string, which: 'below' | 'above'): Constraint {
   const other = trial.deviceOf(which === 'below' ? downId : upId);
-  const { check } = checkPair(
-    trial,
-    { upstream: trial.deviceOf(upId), downstream: trial.deviceOf(downId) },
+  const upstream = trial.deviceOf(upId);
+  // The pair's rule as `checkPair` finds it: it depends on the two families and the study, not the settings.
+  const rule = marginRuleOf(
+    upstream.characteristic.kind,
+    trial.deviceOf(downId).characteristic.kind,
     trial.settings,
+    upstream.margin,
+    {
+      upstream: upId,
+      downstream: downId,
+    },
   );
-  const rule = check.rule;
   const separation = rule.timeRatio < 1 ? `${rule.timeRatio * 100} % time ratio` : `${rule.margin} s margin`;
   return {
     id: `${which}:${other.id}`,
