@@ -102,6 +102,21 @@ describe('operating scenarios in Chromium', () => {
     await context.close();
   });
 
+  it('the study report of the standby demo is exported with a section per scenario', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('demo-menu').selectOption('harrowmere-standby-overlap.json');
+    await settled(page);
+    const download = page.waitForEvent('download');
+    await page.getByTestId('export-menu').selectOption('report-html');
+    const html = readFileSync((await (await download).path())!, 'utf8');
+    expect(html).toMatch(/^<!DOCTYPE html>/);
+    for (const text of ['Fault currents in &quot;On generator&quot;', 'Fault currents in &quot;Normal&quot;'])
+      expect(html).toContain(text);
+    await expect(page.getByTestId('notice').count()).resolves.toBe(0);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
   it('every scenario at once: all findings, and a fault line of each scenario on the sheet', async () => {
     const { page, context } = await bench.open();
     await page.getByTestId('demo-menu').selectOption('harrowmere-standby-overlap.json');

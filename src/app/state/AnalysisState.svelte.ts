@@ -11,7 +11,14 @@ import type { AnalyseReply, AnalyseRequest } from '../worker/protocol.ts';
 import type { StudyState } from './StudyState.svelte.ts';
 import { findingCountsOf, idSetOf } from '../lib/lookups.ts';
 import { resultsWith, type CheckResults } from '../worker/changes.ts';
-import { analysisOfPart, findingsIn, placeOfView, scenarioViewOf, type ScenarioView } from '../lib/scenarioParts.ts';
+import {
+  analysisOfPart,
+  findingsIn,
+  placeOfView,
+  scenarioViewOf,
+  withScenarioResults,
+  type ScenarioView,
+} from '../lib/scenarioParts.ts';
 
 /** Where the checks run: a Web Worker in the browser, or in-line where there is none. */
 export interface CheckRunner {
@@ -61,18 +68,21 @@ export class AnalysisState {
   readonly base = $derived.by(() => this.#fast?.value);
   /** Why the fault levels or bands of the current study could not be worked out, if they could not. */
   readonly baseError = $derived.by(() => this.#fast?.error);
-  /** The whole analysis: the fast half now, the checks' findings as last received. */
+  /**
+   * The whole analysis: the fast half now, the checks' findings as last received. For a switched
+   * study, every scenario's own results are worked out when first read (the study report reads them).
+   */
   readonly analysis: Analysis | undefined = $derived.by(() => {
     const base = this.base;
     if (!base) return undefined;
     const results = this.#results;
-    return {
+    return withScenarioResults({
       study: base.network.study,
       ...base,
       pairs: results?.pairs ?? [],
       findings: results?.findings ?? [],
       counts: results?.counts ?? { ok: 0, info: 0, warning: 0, fail: 0 },
-    };
+    });
   });
   /** Findings as last received (they may trail the latest edit while `pending`), in every scenario. */
   readonly findings: Finding[] = $derived.by(() => this.#results?.findings ?? []);
