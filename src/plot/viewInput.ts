@@ -189,7 +189,8 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     if (f.kind !== 'coordination' || !f.range || !f.status || f.status === 'selective') continue;
     if (!f.subjects.every((id) => shown.has(id))) continue;
     const fault =
-      /:(three-phase|line-to-line|ground-fault|single-phase|line-to-neutral):\d+$/.exec(f.id)?.[1] ?? 'three-phase';
+      /:(three-phase|line-to-line|ground-fault|single-phase|line-to-neutral):\d+(?:@[^:]+)?$/.exec(f.id)?.[1] ??
+      'three-phase';
     if ((fault === 'ground-fault') !== ground) continue;
     const region: SheetRegion = {
       fromAmps: (f.range.fromAmps * f.referenceVolts) / ref,
