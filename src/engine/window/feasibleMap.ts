@@ -83,11 +83,35 @@ export function feasibleMapOf(
   // One device per cell, shared by every constraint that reads it.
   const columnAt = devicesAlong(base, xSpec.key);
   const cells = sorted.map((x) => devicesAlong(columnAt(x), ySpec.key));
-  for (const constraint of constraints) {
-    if (constraint.favours === 'fixed') continue;
-    const found = columnThresholdsOf(trial, columnAt, cells, xSpec, sorted, ySpec, constraint, memo, rows);
-    found.forEach((threshold, i) => thresholds[i].set(constraint.id, threshold));
-  }
+  const active = constraints.filter((c) => c.favours !== 'fixed');
+  // A column where some constraint holds nowhere shows only the constraints that close it, so those
+  // are found first (one check per column at most), and the edges are solved in the open columns only.
+  const closed = active.map((c) => closedColumnsOf(trial, cells, xSpec, sorted, ySpec, c, memo, rows));
+  const open = sorted.map((_, i) => closed.every((columns) => !columns[i]));
+  let first = open.indexOf(true);
+  let last = open.lastIndexOf(true);
+  // Open columns that are not one run would mean the region is not monotone: solve every column.
+  if (first >= 0 && open.slice(first, last + 1).includes(false)) [first, last] = [0, sorted.length - 1];
+  active.forEach((constraint, k) => {
+    const found =
+      first < 0
+        ? []
+        : columnThresholdsOf(
+            trial,
+            columnAt,
+            cells.slice(first, last + 1),
+            xSpec,
+            sorted.slice(first, last + 1),
+            ySpec,
+            constraint,
+            memo,
+            rows,
+          );
+    sorted.forEach((_, i) => {
+      if (i >= first && i <= last) thresholds[i].set(constraint.id, found[i - first]);
+      else if (closed[k][i]) thresholds[i].set(constraint.id, { kind: 'nowhere' });
+    });
+  });
   const columns: MapColumn[] = sorted.map((x, i) => ({ x, ...axisOf(ySpec, constraints, thresholds[i]) }));
   trial.place(base);
   const here = columns.find((c) => c.x === xSpec.current)!;
@@ -181,7 +205,7 @@ function columnThresholdsOf(
     ranks[i] = rankOf(favours, steps, threshold);
   };
   const here = xs.indexOf(xSpec.current);
-  const column = rows?.y.get(constraint.id);
+  const column = here >= 0 ? rows?.y.get(constraint.id) : undefined;
   if (column) {
     found[here] = column;
     ranks[here] = rankOf(favours, steps, column);
@@ -198,6 +222,49 @@ function columnThresholdsOf(
   const anchors = [...new Set([0, ...(column ? [here] : []), last])];
   for (let k = 1; k < anchors.length; k++) between(anchors[k - 1], anchors[k]);
   return found as Threshold[];
+}
+
+/**
+ * The columns where a constraint holds nowhere: where it fails even at the end of the `y` range that
+ * meets it most easily. By the same monotony they are the lowest pickups for a constraint met by
+ * slower settings and the highest for one met by faster settings, so the boundary is bisected over
+ * the columns, from the rows' knowledge: a column where the present `y` holds is open.
+ */
+function closedColumnsOf(
+  trial: Trial,
+  cells: ((y: number) => Device)[],
+  xSpec: SettingSpec,
+  xs: number[],
+  ySpec: SettingSpec,
+  constraint: Constraint,
+  memo: Memo | undefined,
+  rows: MapRows | undefined,
+): boolean[] {
+  const slower = constraint.favours === 'slower';
+  const easiest = slower ? ySpec.max : ySpec.min;
+  const xRow = rows?.x.get(constraint.id);
+  const known = xs.map((x): boolean | undefined =>
+    xRow && holdsAt(xRow, x, xSpec.values !== undefined) ? false : undefined,
+  );
+  const here = xs.indexOf(xSpec.current);
+  const column = rows?.y.get(constraint.id);
+  if (column && here >= 0) known[here] = column.kind === 'nowhere';
+  const isClosed = (i: number) => known[i] ?? !evaluateAt(trial, constraint, cells[i](easiest), memo).ok;
+  // The first open column (slower) or the first closed one (faster), bounded by what is known.
+  let low = 0;
+  let high = xs.length;
+  known.forEach((isKnownClosed, i) => {
+    if (isKnownClosed === undefined) return;
+    if (isKnownClosed === slower) low = Math.max(low, i + 1);
+    else high = Math.min(high, i);
+  });
+  if (low > high) [low, high] = [0, xs.length];
+  while (low < high) {
+    const middle = (low + high) >> 1;
+    if (isClosed(middle) === slower) low = middle + 1;
+    else high = middle;
+  }
+  return xs.map((_, i) => (slower ? i < low : i >= low));
 }
 
 /**
