@@ -1,4 +1,7 @@
 import { analyseStudy } from '../analysis.ts';
+import { analyseScenarios } from '../scenario/scenarioAnalysis.ts';
+import { splitScenario } from '../scenario/scenarioParts.ts';
+import { hasScenarios, scenariosOf } from '../scenario/scenarios.ts';
 import { nameOf } from '../checks/context.ts';
 import type { Finding } from '../checks/finding.ts';
 import { pathTo } from '../network/index.ts';
@@ -79,6 +82,68 @@ export interface ProposalOptions {
  * @example proposeSettings(study).changes.map((c) => `${c.deviceId} ${c.key} ${c.from} → ${c.to}`)
  */
 export function proposeSettings(study: Study, options: ProposalOptions = {}): Proposal {
+  return hasScenarios(study) ? proposeAcrossScenarios(study, options) : proposeInTree(study, options);
+}
+
+/**
+ * Proposals for a switched study: scenario by scenario in the study's order, tree by tree, each
+ * device set in the first scenario that energises it and held as set in the later ones (which set
+ * only the devices they newly energise, e.g. a generator breaker after the loads it feeds). The
+ * findings before and after are every scenario's.
+ */
+function proposeAcrossScenarios(study: Study, options: ProposalOptions): Proposal {
+  const scope = new Set(options.deviceIds ?? study.devices.map((d) => d.id));
+  const settled = new Set<string>();
+  const parts: Proposal[] = [];
+  let proposed = study;
+  for (const scenario of scenariosOf(study))
+    for (const part of splitScenario(proposed, scenario)) {
+      const ids = part.study.devices.map((d) => d.id).filter((id) => scope.has(id) && !settled.has(id));
+      if (ids.length === 0) continue;
+      const proposal = proposeInTree(part.study, { deviceIds: ids, compare: false });
+      parts.push(proposal);
+      for (const id of ids) settled.add(id);
+      const set = new Map(proposal.study.devices.map((d) => [d.id, d]));
+      proposed = {
+        ...proposed,
+        devices: proposed.devices.map((d) => (settled.has(d.id) && set.has(d.id) ? set.get(d.id)! : d)),
+      };
+    }
+  const devices = parts.flatMap((p) => p.devices);
+  return {
+    order: parts.flatMap((p) => p.order),
+    orderRule: `${PROPOSAL_ORDER}; scenario by scenario, each device set in the first scenario that energises it`,
+    tieBreak: TIE_BREAK,
+    devices,
+    changes: devices.flatMap((d) => d.changes),
+    study: proposed,
+    ...(options.compare === false
+      ? { cleared: [], remaining: [], introduced: [], failsBefore: 0, failsAfter: 0 }
+      : compared(analyseScenarios(study).findings, analyseScenarios(proposed).findings)),
+  };
+}
+
+// Accepts the findings before and after; those cleared, remaining and introduced, and the failures.
+function compared(
+  beforeAll: Finding[],
+  afterAll: Finding[],
+): Pick<Proposal, 'cleared' | 'remaining' | 'introduced' | 'failsBefore' | 'failsAfter'> {
+  const attention = (f: Finding) => f.severity === 'fail' || f.severity === 'warning';
+  const before = beforeAll.filter(attention);
+  const after = afterAll.filter(attention);
+  const afterIds = new Set(after.map((f) => f.id));
+  const beforeIds = new Set(before.map((f) => f.id));
+  return {
+    cleared: before.filter((f) => !afterIds.has(f.id)),
+    remaining: after.filter((f) => beforeIds.has(f.id)),
+    introduced: after.filter((f) => !beforeIds.has(f.id)),
+    failsBefore: before.filter((f) => f.severity === 'fail').length,
+    failsAfter: after.filter((f) => f.severity === 'fail').length,
+  };
+}
+
+// Accepts one radial tree; the proposal for it (the method of `proposeSettings`).
+function proposeInTree(study: Study, options: ProposalOptions): Proposal {
   const { deviceIds, compare = true } = options;
   const trial = trialOf(study);
   const scope = new Set(deviceIds ?? study.devices.map((d) => d.id));
@@ -132,23 +197,9 @@ export function proposeSettings(study: Study, options: ProposalOptions = {}): Pr
   }
 
   const proposed: Study = { ...study, devices: study.devices.map((d) => trial.deviceOf(d.id)) };
-  let cleared: Finding[] = [];
-  let remaining: Finding[] = [];
-  let introduced: Finding[] = [];
-  let failsBefore = 0;
-  let failsAfter = 0;
-  if (compare) {
-    const attention = (f: Finding) => f.severity === 'fail' || f.severity === 'warning';
-    const before = analyseStudy(study).findings.filter(attention);
-    const after = analyseStudy(proposed).findings.filter(attention);
-    const afterIds = new Set(after.map((f) => f.id));
-    const beforeIds = new Set(before.map((f) => f.id));
-    cleared = before.filter((f) => !afterIds.has(f.id));
-    remaining = after.filter((f) => beforeIds.has(f.id));
-    introduced = after.filter((f) => !beforeIds.has(f.id));
-    failsBefore = before.filter((f) => f.severity === 'fail').length;
-    failsAfter = after.filter((f) => f.severity === 'fail').length;
-  }
+  const comparison = compare
+    ? compared(analyseStudy(study).findings, analyseStudy(proposed).findings)
+    : { cleared: [], remaining: [], introduced: [], failsBefore: 0, failsAfter: 0 };
   return {
     order,
     orderRule: PROPOSAL_ORDER,
@@ -156,10 +207,6 @@ export function proposeSettings(study: Study, options: ProposalOptions = {}): Pr
     devices,
     changes: devices.flatMap((d) => d.changes),
     study: proposed,
-    cleared,
-    remaining,
-    introduced,
-    failsBefore,
-    failsAfter,
+    ...comparison,
   };
 }

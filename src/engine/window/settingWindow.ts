@@ -1,4 +1,5 @@
 import { nameOf } from '../checks/context.ts';
+import { treeHolding } from '../scenario/scenarioParts.ts';
 import { expectedGot, InputError } from '../errors.ts';
 import type { Device, Study } from '../study/index.ts';
 import { constraintsOf, type Constraint } from './constraints.ts';
@@ -65,6 +66,11 @@ export interface SettingWindowOptions {
   includeAbove?: boolean;
   /** Search changes elsewhere that would open a window when none exists. @default true */
   remedies?: boolean;
+  /**
+   * For a switched study, the scenario (id) whose tree holding the device is searched.
+   * @default the first scenario that energises the device
+   */
+  scenario?: string;
 }
 
 /**
@@ -73,7 +79,9 @@ export interface SettingWindowOptions {
  * (solved by bracketing and bisection on the checks themselves: `checkPair`, the withstand and
  * NEC 450.3 checks); for the main pair of settings a 2-D map; the fastest-clearing recommendation
  * with its margins to every constraint; and, when no window exists, the conflict and the smallest
- * changes elsewhere that would open one. Throws `InputError` for an unknown device id.
+ * changes elsewhere that would open one. In a switched study the window is that of the device's tree
+ * in one scenario (`options.scenario`, else the first that energises it). Throws `InputError` for an
+ * unknown device id.
  *
  * @example settingWindowOf(study, 'MAIN').recommendation?.settings
  */
@@ -81,7 +89,14 @@ export function settingWindowOf(study: Study, deviceId: string, options: Setting
   if (!study.devices.some((d) => d.id === deviceId)) {
     throw new InputError('device', expectedGot(`one of ${study.devices.map((d) => d.id).join(', ')}`, deviceId));
   }
-  return windowIn(trialOf(study), deviceId, options);
+  // A switched study: the device's own radial tree in the chosen scenario.
+  const tree = treeHolding(study, deviceId, options.scenario);
+  if (!tree)
+    throw new InputError(
+      'device',
+      expectedGot(`a device energised in scenario "${options.scenario ?? 'any'}"`, deviceId),
+    );
+  return windowIn(trialOf(tree), deviceId, options);
 }
 
 /**
