@@ -89,7 +89,9 @@ describe('discern faults', () => {
       /^no\/such\/study\.json: expected a readable study file, got "no\/such\/study\.json"\n$/,
     );
     expect((await run([])).stderr).toMatch(/^faults: expected a study file, got nothing\n$/);
-    expect((await run([demo, '--csv'])).stderr).toMatch(/^--csv: expected one of --json, --help, got "--csv"\n$/);
+    expect((await run([demo, '--csv'])).stderr).toMatch(
+      /^--csv: expected one of --json, --scenario, --all-scenarios, --help, got "--csv"\n$/,
+    );
   });
 });
 

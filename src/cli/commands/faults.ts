@@ -3,15 +3,25 @@ import { expectedGot, InputError } from '../../engine/errors.ts';
 import { faultLevelsOf, type BusFault, type FaultLevels } from '../../engine/fault/index.ts';
 import { networkOf } from '../../engine/network/index.ts';
 import { significant } from '../../engine/quantity/index.ts';
-import type { Study } from '../../engine/study/index.ts';
+import { hasScenarios, scenarioLabel, scenarioPartsOf, scenariosOf } from '../../engine/scenario/index.ts';
+import type { Scenario, Study } from '../../engine/study/index.ts';
 import { parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
+import { scenarioFlag } from '../scenarioFlag.ts';
 import { loadStudyFile } from '../studyFile.ts';
 import { formatTable, tableAmps } from '../table.ts';
 
 const HELP = `discern faults <study.json> — bolted fault currents at every bus, maximum and minimum
 
-  --json   print every bus and transformer result, with its work, as JSON
+  --json             print every bus and transformer result, with its work, as JSON
+  --scenario NAME    one operating scenario only, by id or name (e.g. on-generator)
+  --all-scenarios    every scenario one after another (the default)
+
+A study with generators, switches or scenarios is worked out in every scenario, one after another,
+each under a heading naming it (so the largest duty and the smallest fault of every way the system
+is fed are both on the page); within a scenario each energised source's tree has its own table,
+headed "fed from G1 (generator)". --scenario prints one scenario only. With --json, the top-level
+buses are those of the first scenario's first tree and "scenarios" holds every scenario's trees.
 
 Maximum: maximum source, motors contributing (first cycle), cables at 75 °C.
 Minimum: minimum source, no motors, cable resistance at 90 °C.
@@ -35,7 +45,12 @@ export const faultsCommand: Command = {
   summary: 'fault currents at every bus of a study, maximum and minimum, and reflected values',
   help: HELP,
   async run(args, io) {
-    const parsed = parseArgs(args, { json: 'switch', help: 'switch' });
+    const parsed = parseArgs(args, {
+      json: 'switch',
+      scenario: 'value',
+      'all-scenarios': 'switch',
+      help: 'switch',
+    });
     if (parsed.flags.has('help')) {
       io.stdout(HELP);
       return 0;
@@ -43,13 +58,86 @@ export const faultsCommand: Command = {
     const [path, extra] = parsed.positionals;
     if (extra !== undefined) throw new InputError('faults', expectedGot('one study file', extra));
     const study = loadStudyFile(path, io, 'faults');
-    const levels = faultLevelsOf(networkOf(study));
-    io.stdout(parsed.flags.has('json') ? `${JSON.stringify(jsonOf(study, levels), null, 2)}\n` : textOf(study, levels));
+    const only = scenarioFlag(parsed, study);
+    if (!hasScenarios(study)) {
+      const levels = faultLevelsOf(networkOf(study));
+      io.stdout(
+        parsed.flags.has('json') ? `${JSON.stringify(jsonOf(study, levels), null, 2)}\n` : textOf(study, levels),
+      );
+      return 0;
+    }
+    const scenarios = (only ? [only] : scenariosOf(study)).map((scenario) => scenarioLevelsOf(study, scenario));
+    io.stdout(
+      parsed.flags.has('json')
+        ? `${JSON.stringify(scenariosJsonOf(study, scenarios), null, 2)}\n`
+        : scenariosTextOf(study, scenarios),
+    );
     return 0;
   },
 };
 
+/** One scenario's fault levels: each energised source's tree, the study's own source first. */
+interface ScenarioLevels {
+  scenario: Scenario;
+  trees: { study: Study; levels: FaultLevels }[];
+  deEnergised: string[];
+}
+
+// Accepts a study that can be switched and one of its scenarios; the fault levels of each tree.
+function scenarioLevelsOf(study: Study, scenario: Scenario): ScenarioLevels {
+  const parts = scenarioPartsOf(study, scenario);
+  parts.sort((a, b) => Number(b.sourceId === study.source.id) - Number(a.sourceId === study.source.id));
+  const trees = parts.map((part) => ({ study: part.study, levels: faultLevelsOf(networkOf(part.study)) }));
+  const energised = new Set(parts.flatMap((part) => part.study.buses.map((b) => b.id)));
+  return { scenario, trees, deEnergised: study.buses.filter((b) => !energised.has(b.id)).map((b) => b.id) };
+}
+
+// Accepts a tree's study; "fed from G1 (generator)".
+function fedFrom(tree: Study): string {
+  const { source } = tree;
+  return `fed from ${source.id} (${source.kind === 'generator' ? 'generator' : 'utility'})`;
+}
+
+function scenariosTextOf(study: Study, scenarios: ScenarioLevels[]): string {
+  const parts = [`${study.name}: bolted fault currents (symmetrical RMS), scenario by scenario`];
+  for (const { scenario, trees, deEnergised } of scenarios) {
+    parts.push('', `== Scenario: ${scenarioLabel(scenario)} (${scenario.id}) ==`);
+    if (deEnergised.length > 0) parts.push(`de-energised: ${deEnergised.join(', ')}`);
+    for (const tree of trees) parts.push('', `${fedFrom(tree.study)}:`, '', ...tablesOf(tree.study, tree.levels));
+  }
+  parts.push('', ...footer());
+  return parts.join('\n');
+}
+
+function scenariosJsonOf(study: Study, scenarios: ScenarioLevels[]) {
+  const first = scenarios[0].trees[0];
+  return {
+    ...jsonOf(study, first.levels),
+    scenarios: scenarios.map(({ scenario, trees, deEnergised }) => ({
+      id: scenario.id,
+      name: scenarioLabel(scenario),
+      deEnergised,
+      trees: trees.map((tree) => ({
+        source: tree.study.source.id,
+        kind: tree.study.source.kind === 'generator' ? 'generator' : 'utility',
+        ...levelsJson(tree.levels),
+      })),
+    })),
+  };
+}
+
 function textOf(study: Study, levels: FaultLevels): string {
+  return [
+    `${study.name}: bolted fault currents (symmetrical RMS)`,
+    '',
+    ...tablesOf(study, levels),
+    '',
+    ...footer(),
+  ].join('\n');
+}
+
+// Accepts one radial tree; the bus table, single-phase notes, transformer table and diagnostics as lines.
+function tablesOf(study: Study, levels: FaultLevels): string[] {
   const voltages = [...new Set(study.buses.map((b) => b.voltage))].sort((a, b) => b - a);
   const buses = [...levels.buses.values()];
   const headers = [
@@ -87,7 +175,7 @@ function textOf(study: Study, levels: FaultLevels): string {
     ];
   });
   const right = headers.map((_, c): 'left' | 'right' => (c === 0 || c === 2 ? 'left' : 'right'));
-  const parts = [`${study.name}: bolted fault currents (symmetrical RMS)`, '', formatTable(headers, rows, right)];
+  const parts = [formatTable(headers, rows, right)];
   const singles = buses.filter((b) => b.phases === 1);
   if (singles.length > 0)
     parts.push(
@@ -135,13 +223,16 @@ function textOf(study: Study, levels: FaultLevels): string {
     );
   }
   if (levels.diagnostics.length > 0) parts.push('', ...levels.diagnostics.map((d) => `note: ${d}`));
-  parts.push(
-    '',
+  return parts;
+}
+
+// The method note and the caution that end the text output.
+function footer(): string[] {
+  return [
     'Unbalanced faults by symmetrical components with Z2 = Z1 (IEEE 399). Without entered data: a solidly grounded source with Z0 = Z1, transformer Z0 = Z1, cable Z0 = 3 × Z1, half-winding 1.5 × R and 1.2 × X (common practice).',
     CAUTION,
     '',
-  );
-  return parts.join('\n');
+  ];
 }
 
 function reflectedCell(bus: BusFault, volts: number): string {
@@ -150,8 +241,11 @@ function reflectedCell(bus: BusFault, volts: number): string {
 }
 
 function jsonOf(study: Study, levels: FaultLevels) {
+  return { study: study.name, ...levelsJson(levels) };
+}
+
+function levelsJson(levels: FaultLevels) {
   return {
-    study: study.name,
     buses: [...levels.buses.values()],
     transformers: [...levels.transformers.values()],
     diagnostics: levels.diagnostics,

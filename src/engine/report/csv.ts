@@ -15,13 +15,16 @@ const COLUMNS: (keyof FindingRow)[] = [
 
 /**
  * The findings as CSV (RFC 4180 quoting), one row per finding, failures first; a first comment-free
- * line of headers and a last row carrying the caution, so the caution travels with the data.
+ * line of headers and a last row carrying the caution, so the caution travels with the data. A study
+ * with scenarios gets a last column, `scenarios`, listing where each finding holds ("Normal; On generator").
  *
  * @example writeFileSync('findings.csv', csvReport(analysis))
  */
 export function csvReport(analysis: Analysis): string {
-  const rows = findingRows(analysis).map((row) => COLUMNS.map((c) => quote(row[c])).join(','));
-  return `${[COLUMNS.join(','), ...rows, `caution,,${quote(CAUTION)},,,,,`].join('\r\n')}\r\n`;
+  const columns: (keyof FindingRow)[] = analysis.scenarios ? [...COLUMNS, 'scenarios'] : COLUMNS;
+  const rows = findingRows(analysis).map((row) => columns.map((c) => quote(row[c])).join(','));
+  const caution = ['caution', '', quote(CAUTION), ...columns.slice(3).map(() => '')].join(',');
+  return `${[columns.join(','), ...rows, caution].join('\r\n')}\r\n`;
 }
 
 /**

@@ -1,5 +1,5 @@
 import type { Analysis } from '../analysis.ts';
-import type { Finding } from '../checks/finding.ts';
+import type { Finding, Severity } from '../checks/finding.ts';
 import { formatAmps, formatVolts, significant } from '../quantity/index.ts';
 
 /** One row of the findings table, as plain text cells (shared by the CLI, Markdown and CSV). */
@@ -14,6 +14,13 @@ export interface FindingRow {
   explanation: string;
   suggestion: string;
   basis: string;
+  /** Every scenario the finding holds in, "Normal; On generator", or "" for a study without scenarios. */
+  scenarios: string;
+  /**
+   * The scenarios the finding holds in when that is not every scenario analysed ("On generator"),
+   * else "": what a table marks beside the title.
+   */
+  onlyIn: string;
 }
 
 /** Severity order for sorting and summaries: failures first. */
@@ -26,14 +33,19 @@ export const SEVERITY_ORDER = { fail: 0, warning: 1, info: 2, ok: 3 } as const;
  * @example findingRows(analysis).filter((row) => row.severity === 'fail')
  */
 export function findingRows(analysis: Analysis): FindingRow[] {
+  const analysed = scenarioLabelsOf(analysis);
   return [...analysis.findings]
     .map((finding, index) => ({ finding, index }))
     .sort((a, b) => SEVERITY_ORDER[a.finding.severity] - SEVERITY_ORDER[b.finding.severity] || a.index - b.index)
-    .map(({ finding }) => rowOf(finding));
+    .map(({ finding }) => rowOf(finding, analysed));
 }
 
-/** A finding as table cells. */
-export function rowOf(finding: Finding): FindingRow {
+/**
+ * A finding as table cells. `analysed` lists the labels of the scenarios analysed (none for a
+ * study without scenarios), so `onlyIn` can say when the finding holds in only some of them.
+ */
+export function rowOf(finding: Finding, analysed: readonly string[] = []): FindingRow {
+  const where = finding.scenarios ?? [];
   return {
     severity: finding.severity,
     kind: finding.kind,
@@ -43,7 +55,28 @@ export function rowOf(finding: Finding): FindingRow {
     explanation: finding.explanation,
     suggestion: finding.suggestion ?? '',
     basis: finding.basis ?? '',
+    scenarios: where.join('; '),
+    onlyIn: where.length > 0 && analysed.some((label) => !where.includes(label)) ? where.join('; ') : '',
   };
+}
+
+/** The labels of the scenarios an analysis covers, in order; [] for a study without scenarios. */
+export function scenarioLabelsOf(analysis: Analysis): string[] {
+  return analysis.scenarios?.map((s) => s.label) ?? [];
+}
+
+/**
+ * How many findings of each severity hold in each analysed scenario (a finding holding in two
+ * scenarios counts in both); [] for a study without scenarios.
+ *
+ * @example scenarioCountsOf(analysis)[1] // { label: 'On generator', counts: { ok: 20, info: 1, warning: 1, fail: 2 } }
+ */
+export function scenarioCountsOf(analysis: Analysis): { label: string; counts: Record<Severity, number> }[] {
+  return scenarioLabelsOf(analysis).map((label) => {
+    const counts: Record<Severity, number> = { ok: 0, info: 0, warning: 0, fail: 0 };
+    for (const finding of analysis.findings) if (finding.scenarios?.includes(label)) counts[finding.severity]++;
+    return { label, counts };
+  });
 }
 
 /** "A–B @ V" on the finding's reference voltage, a single current when the range is a point. */
@@ -71,7 +104,11 @@ export function worstText(finding: Finding): string {
 
 /** "3 fail, 2 warning, 1 info, 14 ok" */
 export function summaryText(analysis: Analysis): string {
-  const { counts } = analysis;
+  return countsText(analysis.counts);
+}
+
+/** "3 fail, 2 warning, 1 info, 14 ok" from counts by severity. */
+export function countsText(counts: Record<Severity, number>): string {
   return `${counts.fail} fail, ${counts.warning} warning, ${counts.info} info, ${counts.ok} ok`;
 }
 

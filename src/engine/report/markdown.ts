@@ -1,6 +1,13 @@
 import type { Analysis } from '../analysis.ts';
 import { CAUTION } from '../caution.ts';
-import { classesText, findingClassesOf, findingRows, summaryText } from './findingsTable.ts';
+import {
+  classesText,
+  countsText,
+  findingClassesOf,
+  findingRows,
+  scenarioCountsOf,
+  summaryText,
+} from './findingsTable.ts';
 
 /**
  * The findings report as Markdown: title block, caution, summary, a table of every finding (failures
@@ -11,6 +18,8 @@ import { classesText, findingClassesOf, findingRows, summaryText } from './findi
 export function markdownReport(analysis: Analysis): string {
   const { study } = analysis;
   const rows = findingRows(analysis);
+  // A study with scenarios gets a line naming them and a column saying where each finding holds.
+  const switched = analysis.scenarios !== undefined;
   const lines = [
     `# Coordination findings — ${escapeCell(study.name)}`,
     '',
@@ -24,19 +33,33 @@ export function markdownReport(analysis: Analysis): string {
     '',
     `\`${classesText(findingClassesOf(analysis))}\``,
     '',
-    '| severity | check | finding | current range | worst margin |',
-    '| --- | --- | --- | --- | --- |',
-    ...rows.map((r) => `| ${r.severity} | ${r.kind} | ${escapeCell(r.title)} | ${r.range} | ${r.worst} |`),
+    ...(switched ? [scenariosLine(analysis), ''] : []),
+    `| severity | check | finding | current range | worst margin |${switched ? ' scenarios |' : ''}`,
+    `| --- | --- | --- | --- | --- |${switched ? ' --- |' : ''}`,
+    ...rows.map(
+      (r) =>
+        `| ${r.severity} | ${r.kind} | ${escapeCell(r.title)} | ${r.range} | ${r.worst} |${switched ? ` ${escapeCell(r.scenarios)} |` : ''}`,
+    ),
     '',
     '## Details',
     '',
   ];
   for (const row of rows.filter((r) => r.severity !== 'ok')) {
     lines.push(`### ${row.severity}: ${escapeCell(row.title)}`, '', escapeCell(row.explanation), '');
+    if (row.onlyIn) lines.push(`*Holds in:* ${escapeCell(row.onlyIn)}`, '');
     if (row.suggestion) lines.push(`*Suggested direction:* ${escapeCell(row.suggestion)}`, '');
     if (row.basis) lines.push(`*Basis:* ${escapeCell(row.basis)}`, '');
   }
   return `${lines.join('\n').trimEnd()}\n`;
+}
+
+// Accepts an analysis with scenarios; the line naming each one analysed and its counts.
+function scenariosLine(analysis: Analysis): string {
+  const ids = new Map(analysis.scenarios!.map((s) => [s.label, s.scenario.id]));
+  const each = scenarioCountsOf(analysis).map(
+    ({ label, counts }) => `${escapeCell(label)} (\`${ids.get(label)}\`): ${countsText(counts)}`,
+  );
+  return `**Scenarios analysed:** ${each.join('; ')}.`;
 }
 
 /**
