@@ -1,10 +1,13 @@
-import { analyseStudy } from '../../engine/analysis.ts';
+import { analyseStudy, type Analysis } from '../../engine/analysis.ts';
 import { expectedGot, InputError } from '../../engine/errors.ts';
+import { hasScenarios, scenarioLabel, scenarioPartsOf, scenariosOf } from '../../engine/scenario/index.ts';
+import type { Scenario, Study } from '../../engine/study/index.ts';
 import { sheetOf } from '../../plot/sheet.ts';
 import { svgOf } from '../../plot/svg.ts';
 import { viewInputOf } from '../../plot/viewInput.ts';
 import { flagText, parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
+import { scenarioFlag } from '../scenarioFlag.ts';
 import { loadStudyFile } from '../studyFile.ts';
 
 const HELP = `discern plot <study.json> --out FILE — one view of a study as a TCC figure
@@ -15,6 +18,9 @@ const HELP = `discern plot <study.json> --out FILE — one view of a study as a 
   --height PX       sheet height in px (default 720; at least 360)
   --paper SIZE      PDF paper, letter or a4, printed landscape (default letter)
   --scale N         PNG pixels per sheet px (default 2)
+  --scenario NAME   the operating scenario to draw, by id or name (default: the first scenario in
+                    which the view's devices are energised); the sheet is the tree of the source
+                    feeding them, its title naming the scenario
 
 Every figure carries the caution line: for review by a qualified engineer.
 `;
@@ -37,6 +43,7 @@ export const plotCommand: Command = {
       height: 'value',
       paper: 'value',
       scale: 'value',
+      scenario: 'value',
       help: 'switch',
     });
     if (parsed.flags.has('help')) {
@@ -60,16 +67,40 @@ export const plotCommand: Command = {
     if (!study.views.some((view) => view.id === viewId)) {
       throw new InputError('--view', expectedGot(`one of ${study.views.map((v) => v.id).join(', ')}`, viewId));
     }
-    const sheet = sheetOf(viewInputOf(analyseStudy(study), viewId), { width, height, idPrefix: `tcc-${viewId}` });
+    const scenario = scenarioFlag(parsed, study);
+    const { analysis, label } = hasScenarios(study)
+      ? viewTreeOf(study, viewId, scenario)
+      : { analysis: analyseStudy(study), label: undefined };
+    const sheet = sheetOf(viewInputOf(analysis, viewId), { width, height, idPrefix: `tcc-${viewId}` });
     const svg = svgOf(sheet);
     // The PNG and PDF writers load native and large modules: only when asked for.
     if (format === 'svg') io.writeFile(out, svg);
     else if (format === 'png') io.writeFile(out, (await import('../../plot/png.ts')).pngOf(svg, { scale }));
     else io.writeFile(out, await (await import('../../plot/pdf.ts')).pdfOf(svg, { paper }));
-    io.stdout(`${viewId}: wrote ${out}\n`);
+    io.stdout(`${viewId}${label ? ` (${label})` : ''}: wrote ${out}\n`);
     return 0;
   },
 };
+
+/**
+ * The analysed tree that draws a view in a study that can be switched: in `scenario` (else the first
+ * scenario energising any of the view's devices), the source's tree holding most of them. A view
+ * de-energised in the scenario asked for is a one-line error naming `--scenario`.
+ */
+function viewTreeOf(study: Study, viewId: string, scenario?: Scenario): { analysis: Analysis; label: string } {
+  for (const candidate of scenario ? [scenario] : scenariosOf(study)) {
+    const shown = (tree: Study) => tree.views.find((view) => view.id === viewId)?.devices.length ?? 0;
+    const trees = scenarioPartsOf(study, candidate).map((part) => part.study);
+    const best = trees.reduce<Study | undefined>((a, b) => (shown(b) > (a ? shown(a) : 0) ? b : a), undefined);
+    if (best) return { analysis: analyseStudy(best), label: scenarioLabel(candidate) };
+  }
+  if (scenario)
+    throw new InputError(
+      '--scenario',
+      expectedGot(`a scenario in which view "${viewId}" has devices energised`, scenario.id),
+    );
+  throw new InputError('--view', expectedGot('a view with devices energised in some scenario', viewId));
+}
 
 /** A positive number flag, or undefined when absent. */
 function numberFlag(text: string | undefined, flag: string): number | undefined {

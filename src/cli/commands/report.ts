@@ -1,7 +1,8 @@
-import { analyseStudy } from '../../engine/analysis.ts';
 import { expectedGot, InputError } from '../../engine/errors.ts';
+import { analyseScenarios } from '../../engine/scenario/index.ts';
 import { flagText, parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
+import { scenarioFlag } from '../scenarioFlag.ts';
 import { loadStudyFile } from '../studyFile.ts';
 
 const HELP = `discern report <study.json> --out FILE — the whole coordination study report
@@ -12,14 +13,18 @@ const HELP = `discern report <study.json> --out FILE — the whole coordination 
   --orientation O     portrait or landscape (default portrait)
   --date TEXT         the date printed on the report (default: the study's date); the same study and
                       date give the same bytes
+  --scenario NAME     one operating scenario only, by id or name (default: every scenario)
+  --all-scenarios     every scenario (the default)
 
 Sections: cover (study details, revision log, cautions), contents, scope and method, one-line
 diagram, fault currents, device settings, every time-current sheet, findings, and the worked fault
-calculation of every bus.
+calculation of every bus. A study with generators, switches or scenarios gets a scenario table and
+its fault currents, sheets and findings worked out per scenario.
 `;
 
 /**
- * `discern report <study> --out study.pdf|html|md`: analyses the study and writes the deliverable.
+ * `discern report <study> --out study.pdf|html|md`: analyses the study (in every scenario, or the one
+ * `--scenario` names) and writes the deliverable.
  * @example await reportCommand.run(['demo/harrowmere-selective.json', '--out', 'out/study.pdf'], io)
  */
 export const reportCommand: Command = {
@@ -33,6 +38,8 @@ export const reportCommand: Command = {
       paper: 'value',
       orientation: 'value',
       date: 'value',
+      scenario: 'value',
+      'all-scenarios': 'switch',
       help: 'switch',
     });
     if (parsed.flags.has('help')) {
@@ -57,7 +64,8 @@ export const reportCommand: Command = {
     const study = loadStudyFile(path, io, 'report');
     // The report's modules (and the PDF writer) load only when asked for.
     const { studyReportOf, markdownOfReport, htmlOfReport, pdfOfReport } = await import('../../report/index.ts');
-    const report = studyReportOf(analyseStudy(study), { date });
+    const only = scenarioFlag(parsed, study)?.id;
+    const report = studyReportOf(analyseScenarios(study, { only }), { date });
     const setup = { paper, orientation } as const;
     if (format === 'pdf') {
       // A parseable ISO date also becomes the PDF's creation date; otherwise a fixed one.
