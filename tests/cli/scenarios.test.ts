@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { checkCommand, faultsCommand, plotCommand } from '../../src/cli/commands/index.ts';
+import { checkCommand, faultsCommand, plotCommand, reportCommand } from '../../src/cli/commands/index.ts';
 import { analyseStudy } from '../../src/engine/analysis.ts';
 import { jsonReport } from '../../src/engine/report/index.ts';
 import { analyseScenarios } from '../../src/engine/scenario/index.ts';
@@ -193,5 +193,15 @@ describe('discern plot in operating scenarios', () => {
       /^--scenario: expected a scenario in which view "service" has devices energised, got "on-generator"\n$/,
     );
     expect(dark.files.size).toBe(0);
+  });
+});
+
+describe('discern report in operating scenarios', () => {
+  it('--scenario on-generator works out the generator scenario only', async () => {
+    const { code, files } = await runVerb([standby, '--scenario', 'on-generator', '--out', 'r.md'], reportCommand);
+    expect(code).toBe(0);
+    const text = String(files.get('r.md'));
+    expect(text).toMatch(/\n### Emergency panel \(480 V\) in "On generator"\n/);
+    expect(text).not.toMatch(/ in "Normal"\n/);
   });
 });
