@@ -5,7 +5,7 @@ import { findingRows } from '../engine/report/findingsTable.ts';
 import { settingsTableOf } from '../engine/report/settingsTable.ts';
 import { settingsText } from '../engine/report/settingsText.ts';
 import { locationBusOf } from '../engine/network/index.ts';
-import { switchPosition } from '../engine/scenario/index.ts';
+import { scenariosOf, switchPosition } from '../engine/scenario/index.ts';
 import { formatWork } from '../engine/work.ts';
 import { oneLineOf } from '../plot/oneLine/index.ts';
 import { sheetOf } from '../plot/sheet.ts';
@@ -144,7 +144,10 @@ function scenarioBlocks(analysis: Analysis): ReportBlock[] {
   return [
     {
       type: 'paragraph',
-      text: `The system can be fed in ${scenarios.length} ways, each checked on its own: every fault level, pair and check below is worked out per scenario, and each finding says in which scenarios it holds.`,
+      text:
+        scenarios.length === 1
+          ? `This report checks the system in one operating scenario, "${scenarios[0].label}", of the ${scenariosOf(study).length} it can be fed in.`
+          : `The system can be fed in ${scenarios.length} ways, each checked on its own: every fault level, pair and check below is worked out per scenario, and each finding says in which scenarios it holds.`,
     },
     {
       type: 'table',

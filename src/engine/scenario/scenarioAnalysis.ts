@@ -48,7 +48,11 @@ export function analyseScenarios(study: Study, options: ScenarioOptions = {}): A
   const results = chosen.map((scenario) => scenarioResultOf(study, scenario));
   const findings = [...mergedFindings(results), ...codeSelectivityFindings(study, results)];
   const primary = results.find((r) => r.parts.length > 0)?.parts[0];
-  if (!primary) throw new RangeError('no scenario energises anything');
+  if (!primary)
+    throw new InputError(
+      'scenario',
+      expectedGot('a scenario with a source in service that energises a bus', options.only),
+    );
   return { ...withFindings(primary, findings), study, scenarios: results };
 }
 

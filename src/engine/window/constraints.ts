@@ -1,4 +1,5 @@
 import type { Band } from '../band.ts';
+import { AHJ_SELECTIVITY_SECONDS, SELECTIVITY_ARTICLE } from '../checks/codeSelectivity.ts';
 import { cableFindings } from '../checks/cableProtection.ts';
 import { nameOf, protectingDevice } from '../checks/context.ts';
 import { checkPair } from '../checks/coordination.ts';
@@ -292,11 +293,15 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
     },
   );
   const separation = rule.timeRatio < 1 ? `${rule.timeRatio * 100} % time ratio` : `${rule.margin} s margin`;
+  // A device of an emergency (or like) system must be shown selective: curves that cannot prove it do not do.
+  const system = trial.deviceOf(downId).system;
+  const code = system ? SELECTIVITY_ARTICLE[system].article : undefined;
+  const fullRange = trial.settings.codeSelectivity === 'full-range';
   return {
     id: `${which}:${other.id}`,
     kind: which === 'below' ? 'coordinate-below' : 'coordinate-above',
-    label: `coordinate with ${nameOf(other)} ${which === 'below' ? 'below' : 'above'} (${separation})`,
-    source: rule.basis,
+    label: `coordinate with ${nameOf(other)} ${which === 'below' ? 'below' : 'above'} (${separation}${code ? `; shown selective, NFPA 70 ${code}` : ''})`,
+    source: code ? `${rule.basis}; NFPA 70 ${code}` : rule.basis,
     favours: which === 'below' ? 'slower' : 'faster',
     subjects: [other.id],
     rule,
@@ -309,6 +314,10 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
       for (const pairCase of result.cases) {
         for (const interval of pairCase.intervals) {
           if (interval.status === 'overlap') ok = false;
+          if (code && interval.status === 'not provable from curves') {
+            const clears = t.bands.get(downId)?.maxTime(interval.fromAmps) ?? Infinity;
+            if (fullRange || clears > AHJ_SELECTIVITY_SECONDS) ok = false;
+          }
           // A sliver of thin margin (under 1 % wide) is a steep curve crossing, reported with its overlap.
           if (interval.status === 'thin margin' && interval.toAmps >= interval.fromAmps * 1.01) clean = false;
           if (interval.status !== 'not provable from curves' && interval.worst.marginSeconds < margin) {
