@@ -32,6 +32,17 @@ describe('discern plot', () => {
     expect(new TextDecoder().decode((pdf.files.get('out/x.pdf') as Uint8Array).slice(0, 5))).toBe('%PDF-');
   });
 
+  it('prints on the paper and orientation chosen, as the workbench does: A3 portrait is 297 × 420 mm (ISO 216)', async () => {
+    const pdf = await runVerb(
+      ['demo/harrowmere-selective.json', '--out', 'out/x.pdf', '--paper', 'a3', '--orientation', 'portrait'],
+      plotCommand,
+    );
+    const text = new TextDecoder('latin1').decode(pdf.files.get('out/x.pdf') as Uint8Array);
+    const [, width, height] = /\/MediaBox \[0 0 ([\d.]+) ([\d.]+)\]/.exec(text)!;
+    expect(Number(width)).toBeCloseTo((297 / 25.4) * 72, 0);
+    expect(Number(height)).toBeCloseTo((420 / 25.4) * 72, 0);
+  });
+
   it('exits 2 naming the flag for a bad format, view, size or paper', async () => {
     const cases: [string[], RegExp][] = [
       [['--out', 'x.gif'], /^--out: expected a file name ending \.svg, \.png or \.pdf, got "x\.gif"\n$/],
@@ -41,7 +52,8 @@ describe('discern plot', () => {
       ],
       [['--out', 'x.svg', '--width', '-3'], /^--width: expected a number greater than 0, got "-3"\n$/],
       [['--out', 'x.svg', '--width', '100'], /^options\.width: expected a width in px of at least 480, got "100"\n$/],
-      [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected "letter" or "a4", got "legal"\n$/],
+      [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected letter, a4, tabloid or a3, got "legal"\n$/],
+      [['--out', 'x.pdf', '--orientation', 'up'], /^--orientation: expected portrait or landscape, got "up"\n$/],
     ];
     for (const [args, message] of cases) {
       const { code, stderr } = await runVerb(['demo/harrowmere-selective.json', ...args], plotCommand);

@@ -16,7 +16,8 @@ const HELP = `discern plot <study.json> --out FILE — one view of a study as a 
   --view ID         which view (default: the study's first view)
   --width PX        sheet width in px (default 960; at least 480)
   --height PX       sheet height in px (default 720; at least 360)
-  --paper SIZE      PDF paper, letter or a4, printed landscape (default letter)
+  --paper SIZE      PDF paper: letter, a4, tabloid or a3 (default letter)
+  --orientation O   PDF page landscape or portrait (default landscape), as the workbench prints it
   --scale N         PNG pixels per sheet px (default 2)
   --scenario NAME   the operating scenario to draw, by id or name (default: the first scenario in
                     which the view's devices are energised); the sheet is the tree of the source
@@ -41,6 +42,7 @@ export const plotCommand: Command = {
       view: 'value',
       width: 'value',
       height: 'value',
+      orientation: 'value',
       paper: 'value',
       scale: 'value',
       scenario: 'value',
@@ -59,7 +61,11 @@ export const plotCommand: Command = {
     const height = numberFlag(flagText(parsed, 'height'), '--height');
     const scale = numberFlag(flagText(parsed, 'scale'), '--scale');
     const paper = flagText(parsed, 'paper') ?? 'letter';
-    if (paper !== 'letter' && paper !== 'a4') throw new InputError('--paper', expectedGot('"letter" or "a4"', paper));
+    if (paper !== 'letter' && paper !== 'a4' && paper !== 'tabloid' && paper !== 'a3')
+      throw new InputError('--paper', expectedGot('letter, a4, tabloid or a3', paper));
+    const orientation = flagText(parsed, 'orientation') ?? 'landscape';
+    if (orientation !== 'portrait' && orientation !== 'landscape')
+      throw new InputError('--orientation', expectedGot('portrait or landscape', orientation));
 
     const study = loadStudyFile(path, io, 'plot');
     const viewId = flagText(parsed, 'view') ?? study.views[0]?.id;
@@ -76,7 +82,7 @@ export const plotCommand: Command = {
     // The PNG and PDF writers load native and large modules: only when asked for.
     if (format === 'svg') io.writeFile(out, svg);
     else if (format === 'png') io.writeFile(out, (await import('../../plot/png.ts')).pngOf(svg, { scale }));
-    else io.writeFile(out, await (await import('../../plot/pdf.ts')).pdfOf(svg, { paper }));
+    else io.writeFile(out, await (await import('../../plot/pdf.ts')).pdfOf(svg, { paper, orientation }));
     io.stdout(`${viewId}${label ? ` (${label})` : ''}: wrote ${out}\n`);
     return 0;
   },
