@@ -1,2 +1,10 @@
-export { closedSwitchLinks, networkOf, pathTo, locationBusOf, upstreamDeviceOf, seriesPairs, transformersBetween } from './network.ts';
+export {
+  closedSwitchLinks,
+  networkOf,
+  pathTo,
+  locationBusOf,
+  upstreamDeviceOf,
+  seriesPairs,
+  transformersBetween,
+} from './network.ts';
 export type { Network, Branch, Element, SwitchLink } from './network.ts';
