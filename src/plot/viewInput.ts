@@ -90,7 +90,9 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
       // The machine's damage curve, and its fault current against time at the terminals (the decrement).
       const name = source.name ?? source.id;
       const scale = onSheet(source.voltage);
-      withstand.push({ id, label: `${name} armature damage`, curve: generatorDamageCurve(source), scale });
+      const points = source.damage?.map((p) => ({ amps: p.current, seconds: p.time }));
+      const damage = generatorDamageCurve(source, points ? { points } : {});
+      withstand.push({ id, label: `${name} ${points ? 'damage curve' : 'armature damage'}`, curve: damage, scale });
       const decrement = generatorDecrement(source, { frequency: study.frequency });
       const curve = { ...decrement, elementId: id, label: `${name} decrement`, amps: decrement.amps };
       starting.push({ id: `${id}:decrement`, label: `${name} fault current (decrement)`, curve, scale });

@@ -7,7 +7,9 @@ import { generatorPath, ratedAmpsOf, requireGeneratorRating, type GeneratorRatin
 /**
  * The armature short-time thermal constant: `(I² − 1) · t = 37.5`, I in per unit of rated current, t in s
  * (IEEE C50.13 armature short-time thermal capability, from memory; IEC 60034-1 clause 9.3.2's 1.5 × rated
- * for 30 s, also from memory, is one point of it: (1.5² − 1) × 30 = 37.5).
+ * for 30 s, also from memory, is one point of it: (1.5² − 1) × 30 = 37.5). A tabulated form recalled for the
+ * same capability (226 / 154 / 130 / 116 % at 10 / 30 / 60 / 120 s) works out nearer 41; the lower constant is
+ * kept as the conservative one. The machine's own data, given as damage points, replace it.
  */
 export const ARMATURE_THERMAL_CONSTANT = 37.5;
 

@@ -107,6 +107,22 @@ export function createStudySchema(frequency = 60) {
       'sustained fault currents run from below 1 × to about 4 × rated',
     ).optional(),
     grounding: grounding.default({ kind: 'solid' }).meta({ description: 'neutral grounding of the generator' }),
+    damage: z
+      .array(
+        z
+          .object({
+            current: quantityField('current', { min: 0, exclusiveMin: true }),
+            time: quantityField('time', { frequency, min: 0, exclusiveMin: true }),
+          })
+          .strict(),
+      )
+      .min(2)
+      .max(50)
+      .optional()
+      .meta({
+        description:
+          "the machine's thermal damage curve from its data, current rising and time falling; default: the IEEE C50.13 armature short-time capability",
+      }),
   };
   const generator = z.object(generatorFields).strict();
 

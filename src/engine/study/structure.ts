@@ -73,6 +73,15 @@ export function structureProblems(study: Study): StudyProblem[] {
     if (!isBus(g.bus)) problem(`${path}.bus`, 'the id of a bus', g.bus);
     else if (!matches(g.voltage, voltageOf.get(g.bus)!))
       problem(`${path}.voltage`, `the voltage of bus ${g.bus} (${voltageOf.get(g.bus)} V)`, `${g.voltage} V`);
+    g.damage?.forEach((point, k) => {
+      const before = g.damage![k - 1];
+      if (before && !(point.current > before.current && point.time < before.time))
+        problem(
+          `${path}.damage[${k}]`,
+          'a point at a higher current and a shorter time than the one before',
+          `${point.current} A, ${point.time} s`,
+        );
+    });
   });
   study.switches.forEach((w, i) => {
     const path = `study.switches[${i}]`;

@@ -147,3 +147,24 @@ describe('a transfer switch fed from the utility and a standby generator', () =>
     );
   });
 });
+
+describe("a generator's own damage curve", () => {
+  it('is read from the study, current rising and time falling', () => {
+    const input = twoSources();
+    (input.generators[0] as Record<string, unknown>).damage = [
+      { current: '1.2 kA', time: 60 },
+      { current: '2 kA', time: 10 },
+    ];
+    expect(readStudy(input).problems).toEqual([]);
+    (input.generators[0] as Record<string, unknown>).damage = [
+      { current: '2 kA', time: 60 },
+      { current: '1.2 kA', time: 10 },
+    ];
+    expect(readStudy(input).problems).toEqual([
+      {
+        path: 'study.generators[0].damage[1]',
+        message: 'expected a point at a higher current and a shorter time than the one before, got "1200 A, 10 s"',
+      },
+    ]);
+  });
+});
