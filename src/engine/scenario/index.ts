@@ -6,7 +6,7 @@ export {
   NORMAL_SCENARIO,
   GENERATOR_SCENARIO,
 } from './scenarios.ts';
-export { connectionsOf, feedersIn, switchPosition } from './connections.ts';
+export { connectionsOf, energisedTrees, feedersIn, switchPosition } from './connections.ts';
 export type { Connection, DoubleFeed } from './connections.ts';
 export { scenarioPartsOf, splitScenario, treeHolding } from './scenarioParts.ts';
 export type { ScenarioPart } from './scenarioParts.ts';

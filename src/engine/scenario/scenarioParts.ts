@@ -1,5 +1,5 @@
 import type { Scenario, Source, Study, Switch } from '../study/index.ts';
-import { feedersIn, type Connection } from './connections.ts';
+import { energisedTrees, feedersIn, type Connection } from './connections.ts';
 import { hasScenarios, scenarioLabel, scenariosOf } from './scenarios.ts';
 
 /** One source's radial tree in a scenario, as a study of its own that today's single-source analysis reads. */
@@ -29,27 +29,11 @@ export function scenarioPartsOf(study: Study, scenario: Scenario): ScenarioPart[
 
 /** `scenarioPartsOf` without the shortcut for a study that cannot be switched (its results must be the same). */
 export function splitScenario(study: Study, scenario: Scenario): ScenarioPart[] {
-  const { feederOf } = feedersIn(study, scenario);
-  const childrenOf = new Map<string, Connection[]>();
-  for (const connection of feederOf.values())
-    if (connection.from !== undefined)
-      childrenOf.set(connection.from, [...(childrenOf.get(connection.from) ?? []), connection]);
-  const roots = [...feederOf.values()].filter((c) => c.kind === 'source');
-  return roots.map((root) => {
-    const buses = new Set<string>();
-    const branches = new Set<string>();
-    const links: Connection[] = [];
-    const stack = [root.to];
-    while (stack.length > 0) {
-      const bus = stack.pop()!;
-      if (buses.has(bus)) continue;
-      buses.add(bus);
-      for (const child of childrenOf.get(bus) ?? []) {
-        if (child.kind === 'switch') links.push(child);
-        else branches.add(child.id);
-        stack.push(child.to);
-      }
-    }
+  return energisedTrees(feedersIn(study, scenario).feederOf).map((tree) => {
+    const [root, ...below] = tree;
+    const buses = new Set(tree.map((c) => c.to));
+    const branches = new Set(below.filter((c) => c.kind !== 'switch').map((c) => c.id));
+    const links = below.filter((c) => c.kind === 'switch');
     const part = partStudy(study, rootSource(study, root.id), buses, branches, links, scenarioLabel(scenario));
     return { sourceId: root.id, study: part };
   });

@@ -2,7 +2,7 @@ import { NEC_TABLE_9, parseConductorSize, TABLE_9_SPAN } from '../conductors/ind
 import { expectedGot, InputError } from '../errors.ts';
 import { networkOf, upstreamDeviceOf } from '../network/network.ts';
 import { formatSI } from '../quantity/format.ts';
-import { feedersIn } from '../scenario/connections.ts';
+import { energisedTrees, feedersIn } from '../scenario/connections.ts';
 import { scenarioPartsOf } from '../scenario/scenarioParts.ts';
 import { hasScenarios, scenarioLabel, scenariosOf } from '../scenario/scenarios.ts';
 import type { StudyProblem } from './parse.ts';
@@ -129,7 +129,7 @@ export function structureProblems(study: Study): StudyProblem[] {
   });
 
   // The tree, scenario by scenario: each bus energised at most once, every bus reached in some
-  // scenario (a depth-first walk with an explicit stack: any depth of tree).
+  // scenario (walked breadth first: any depth of tree).
   const switched = hasScenarios(study);
   const reached = new Set<string>();
   const reported = new Set<string>();
@@ -142,18 +142,7 @@ export function structureProblems(study: Study): StudyProblem[] {
       const where = switched ? `in scenario "${scenarioLabel(scenario)}"` : 'in a radial system';
       problem(second.path, `a bus fed only once ${where} (${first.id} already feeds it)`, second.to);
     }
-    const childrenOf = new Map<string, string[]>();
-    for (const c of feederOf.values())
-      if (c.from !== undefined) childrenOf.set(c.from, [...(childrenOf.get(c.from) ?? []), c.to]);
-    const stack = [...feederOf.values()].filter((c) => c.kind === 'source').map((c) => c.to);
-    const seen = new Set<string>();
-    while (stack.length > 0) {
-      const bus = stack.pop()!;
-      if (seen.has(bus)) continue;
-      seen.add(bus);
-      reached.add(bus);
-      for (const child of childrenOf.get(bus) ?? []) stack.push(child);
-    }
+    for (const tree of energisedTrees(feederOf)) for (const connection of tree) reached.add(connection.to);
   }
   study.buses.forEach((bus, i) => {
     if (!reached.has(bus.id))
