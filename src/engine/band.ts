@@ -23,6 +23,12 @@ export interface Band {
   /** Latest clearing time in seconds at `amps`; `Infinity` where the device may never clear. */
   maxTime(amps: number): number;
   /**
+   * Both edges at many currents at once, when the family has a batch form: sets `minTimes[i]` and
+   * `maxTimes[i]` to exactly the doubles `minTime(amps[i])` and `maxTime(amps[i])` return, for currents
+   * in any order. Optional; `evaluateBand` calls it when present and the two edges otherwise.
+   */
+  evaluateInto?(amps: Float64Array, minTimes: Float64Array, maxTimes: Float64Array): void;
+  /**
    * Currents (A, ascending, no duplicates) where either edge changes formula: pickups with their
    * tolerance edges, segment joins, tabulated points. Between two breakpoints both edges are smooth.
    */
@@ -53,6 +59,10 @@ export function evaluateBand(
   minTimes = new Float64Array(amps.length),
   maxTimes = new Float64Array(amps.length),
 ): { minTimes: Float64Array; maxTimes: Float64Array } {
+  if (band.evaluateInto) {
+    band.evaluateInto(amps, minTimes, maxTimes);
+    return { minTimes, maxTimes };
+  }
   const { minTime, maxTime } = band;
   for (let i = 0; i < amps.length; i++) {
     minTimes[i] = minTime(amps[i]);
@@ -70,11 +80,22 @@ export function evaluateBand(
  */
 export function scaleBand(band: Band, currentFactor: number): Band {
   if (currentFactor === 1) return band;
-  const { minTime, maxTime } = band;
+  const { minTime, maxTime, evaluateInto } = band;
   const inverse = 1 / currentFactor;
+  // Scratch for the currents at the band's own base, kept with the scaled band and grown when needed.
+  let ownAmps = new Float64Array(0);
   return {
     minTime: (amps) => minTime(amps * inverse),
     maxTime: (amps) => maxTime(amps * inverse),
+    evaluateInto:
+      evaluateInto &&
+      ((amps, minTimes, maxTimes) => {
+        const n = amps.length;
+        if (ownAmps.length < n) ownAmps = new Float64Array(n);
+        const scaled = ownAmps.length === n ? ownAmps : ownAmps.subarray(0, n);
+        for (let i = 0; i < n; i++) scaled[i] = amps[i] * inverse;
+        evaluateInto(scaled, minTimes, maxTimes);
+      }),
     breakpoints: band.breakpoints.map((amps) => amps * currentFactor),
     minAmps: band.minAmps * currentFactor,
     maxAmps: band.maxAmps * currentFactor,

@@ -1,4 +1,5 @@
 import type { Band } from '../band.ts';
+import { tableTimesInto, type TableShape } from './pointTable.ts';
 /**
  * One element of a device edge (a long-time ramp, a short-time delay, an instantaneous trip…): it
  * operates from `pickup` amps with a non-increasing time. Composite edges are built from these.
@@ -26,10 +27,11 @@ export interface EdgeElement {
 
 /**
  * The closed-form element formulas, as data: `flat` (a definite time), `i2t` (`k / I²`, held at `flat`
- * from `flatFrom` amps) and `inverse` (`dial · (a / (M^p − 1) + b)` with `M = I · inversePickup`, held
- * at `capTime` from the multiple `cap`).
+ * from `flatFrom` amps), `inverse` (`dial · (a / (M^p − 1) + b)` with `M = I · inversePickup`, held
+ * at `capTime` from the multiple `cap`) and `table` (a point table, log-log interpolated).
  */
 export type ElementShape =
+  | TableShape
   | { kind: 'flat'; seconds: number }
   | { kind: 'i2t'; k: number; flatFrom: number; flat: number }
   | {
@@ -46,6 +48,14 @@ export type ElementShape =
 /** A composite edge: its time function and the currents where it changes formula. */
 export interface CompositeEdge {
   time(amps: number): number;
+  /**
+   * `out[i] = time(amps[i])` for every `i`, the same doubles, one element at a time over the whole array.
+   * `logs` is scratch the length of `amps` holding `Math.log(amps[i])` or NaN where not yet taken; table
+   * elements fill it, so two edges of one band take each logarithm once.
+   */
+  timesInto(amps: Float64Array, out: Float64Array, logs: Float64Array): void;
+  /** Whether `timesInto` reads `logs` (the edge has a table element); otherwise any array will do. */
+  tabulated: boolean;
   /** Pickups, joins and element crossings, ascending and unique (A). */
   breakpoints: number[];
   /** Lowest current (A) at which the edge is finite. */
@@ -65,7 +75,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   // so the curved ones (a power or logarithm each) are skipped at high current.
   const ordered = [...elements].sort((x, y) => Number(x.reach !== undefined) - Number(y.reach !== undefined));
   const pickups = Float64Array.from(ordered, (element) => element.pickup);
-  const { kinds, params, others } = packed(ordered);
+  const { kinds, params, tables, others } = packed(ordered);
   // One function for every composite edge, with the formulas inline: the callers' call sites see a
   // single function, and no element closure is called except for tables.
   const time = (amps: number): number => {
@@ -101,6 +111,61 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
     }
     return (fastest > floor ? fastest : floor) + add;
   };
+  // The same arithmetic as `time`, column by column: each element runs once over the whole array
+  // where the fastest so far is still above the floor (the early exit of `time`), so the minimum of
+  // the same terms is taken and every result is the same double.
+  const bounds = Float64Array.of(floor, add);
+  const timesInto = (amps: Float64Array, out: Float64Array, logs: Float64Array): void => {
+    const n = amps.length;
+    // Read from a Float64Array so the loops see doubles, never a small integer in some closures.
+    const lowest = bounds[0];
+    const added = bounds[1];
+    out.fill(Infinity, 0, n);
+    for (let e = 0; e < count; e++) {
+      const pickup = pickups[e];
+      const at = e * STRIDE;
+      switch (kinds[e]) {
+        case FLAT: {
+          const seconds = params[at];
+          for (let i = 0; i < n; i++) {
+            if (out[i] > lowest && amps[i] >= pickup && seconds < out[i]) out[i] = seconds;
+          }
+          break;
+        }
+        case I2T: {
+          const k = params[at];
+          const flatFrom = params[at + 1];
+          const flat = params[at + 2];
+          for (let i = 0; i < n; i++) {
+            const a = amps[i];
+            if (!(out[i] > lowest && a >= pickup)) continue;
+            const t = a < flatFrom ? k / (a * a) : flat;
+            if (t < out[i]) out[i] = t;
+          }
+          break;
+        }
+        case INVERSE:
+          inverseTimesInto(params, at, pickup, lowest, amps, out);
+          break;
+        case TABLE:
+          // A table is Infinity below its first current, its pickup, so it needs no pickup test here.
+          tableTimesInto(tables[e]!, amps, logs, out, lowest);
+          break;
+        default: {
+          const time = others[e]!;
+          for (let i = 0; i < n; i++) {
+            if (!(out[i] > lowest && amps[i] >= pickup)) continue;
+            const t = time(amps[i]);
+            if (t < out[i]) out[i] = t;
+          }
+        }
+      }
+    }
+    for (let i = 0; i < n; i++) {
+      const fastest = out[i];
+      out[i] = (fastest > lowest ? fastest : lowest) + added;
+    }
+  };
   // Every flat level another element (or the floor) sits at is where a curved element may hand over.
   const levels = [floor, ...elements.flatMap((element) => element.levels)];
   const points: number[] = [];
@@ -114,24 +179,67 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
       if (Number.isFinite(amps) && Math.abs(time(amps) - at) <= 1e-9 * at) points.push(amps);
     }
   }
-  return { time, breakpoints: uniqueAscending(points), minAmps: Math.min(Infinity, ...pickups) };
+  return {
+    time,
+    timesInto,
+    tabulated: kinds.includes(TABLE),
+    breakpoints: uniqueAscending(points),
+    minAmps: Math.min(Infinity, ...pickups),
+  };
+}
+
+/** An inverse element's pass of `timesInto`, with its constants read once; the formula of `time`. */
+function inverseTimesInto(
+  params: Float64Array,
+  at: number,
+  pickup: number,
+  floor: number,
+  amps: Float64Array,
+  out: Float64Array,
+): void {
+  const inversePickup = params[at];
+  const dial = params[at + 1];
+  const a = params[at + 2];
+  const b = params[at + 3];
+  const p = params[at + 4];
+  const cap = params[at + 5];
+  const capTime = params[at + 6];
+  const n = amps.length;
+  for (let i = 0; i < n; i++) {
+    const current = amps[i];
+    if (!(out[i] > floor && current >= pickup)) continue;
+    const m = current * inversePickup;
+    const t =
+      m >= cap
+        ? capTime
+        : m > 1
+          ? dial * (a / (p === 2 ? m * m - 1 : p === 1 ? m - 1 : Math.expm1(p * Math.log(m))) + b)
+          : Infinity;
+    if (t < out[i]) out[i] = t;
+  }
 }
 
 const FLAT = 0;
 const I2T = 1;
 const INVERSE = 2;
 const OTHER = 3;
+const TABLE = 4;
 /** Parameters per element in the packed array. */
 const STRIDE = 7;
 
-/** Elements as kind codes and packed parameters; elements without a shape keep their `time`. */
+/**
+ * Elements as kind codes and packed parameters; tables keep their shape for `timesInto` (and their
+ * `time` for `time`), elements without a shape keep their `time`.
+ */
 function packed(elements: readonly EdgeElement[]) {
   const kinds = new Int8Array(elements.length);
   const params = new Float64Array(elements.length * STRIDE);
+  const tables: (TableShape | undefined)[] = [];
   const others: (((amps: number) => number) | undefined)[] = [];
   elements.forEach((element, i) => {
     const shape = element.shape;
     const at = i * STRIDE;
+    tables.push(undefined);
     others.push(undefined);
     if (shape?.kind === 'flat') {
       kinds[i] = FLAT;
@@ -142,12 +250,17 @@ function packed(elements: readonly EdgeElement[]) {
     } else if (shape?.kind === 'inverse') {
       kinds[i] = INVERSE;
       params.set([shape.inversePickup, shape.dial, shape.a, shape.b, shape.p, shape.cap, shape.capTime], at);
+    } else if (shape?.kind === 'table') {
+      // `time` calls the table's own closure, as before; `timesInto` walks the table with a cursor.
+      kinds[i] = TABLE;
+      tables[i] = shape;
+      others[i] = element.time;
     } else {
       kinds[i] = OTHER;
       others[i] = element.time;
     }
   });
-  return { kinds, params, others };
+  return { kinds, params, tables, others };
 }
 
 /**
@@ -202,9 +315,21 @@ export function bandOfEdges(
   currentLimitingFrom: number,
   diagnostics: string[],
 ): Band {
+  const tabulated = low.tabulated || high.tabulated;
+  // Scratch for the logarithms the two edges share, kept with the band and grown when needed.
+  let logs = new Float64Array(0);
   return {
     minTime: low.time,
     maxTime: high.time,
+    evaluateInto: (amps, minTimes, maxTimes) => {
+      const n = amps.length;
+      if (tabulated) {
+        if (logs.length < n) logs = new Float64Array(n);
+        logs.fill(NaN, 0, n);
+      }
+      low.timesInto(amps, minTimes, logs);
+      high.timesInto(amps, maxTimes, logs);
+    },
     breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
     minAmps: low.minAmps,
     maxAmps: Infinity,

@@ -2,7 +2,14 @@ import { z } from 'zod';
 import type { Band } from '../band.ts';
 import { nameField, quantityField } from '../study/fields.ts';
 import { uniqueAscending } from './composite.ts';
-import { isValidTable, pointTableSchema, tableElement, upperBelowLower } from './pointTable.ts';
+import {
+  isValidTable,
+  pointTableSchema,
+  tableElement,
+  tableTimesInto,
+  upperBelowLower,
+  type TableShape,
+} from './pointTable.ts';
 
 const ampsTable = pointTableSchema({ current: 'a current in amperes', unit: ' A' });
 
@@ -78,6 +85,10 @@ export function fuseBand(fuse: Fuse): Band {
   if (fuse.illustrative) diagnostics.push('illustrative curve, not a product: no selectivity claim may rest on it');
   const meltingTime = melting.time;
   const clearingTime = clearing.time;
+  const meltingTable = melting.shape as TableShape;
+  const clearingTable = clearing.shape as TableShape;
+  // Scratch for the logarithms both tables share, kept with the band and grown when needed.
+  let logs = new Float64Array(0);
   return {
     minTime: meltingTime,
     // The schema lets total clearing sit within a relative 1e-12 of minimum melting (the round trip
@@ -87,6 +98,18 @@ export function fuseBand(fuse: Fuse): Band {
       const clears = clearingTime(amps);
       const melts = meltingTime(amps);
       return clears >= melts ? clears : melts;
+    },
+    evaluateInto: (amps, minTimes, maxTimes) => {
+      const n = amps.length;
+      if (logs.length < n) logs = new Float64Array(n);
+      logs.fill(NaN, 0, n);
+      tableTimesInto(meltingTable, amps, logs, minTimes.fill(Infinity, 0, n), -Infinity);
+      tableTimesInto(clearingTable, amps, logs, maxTimes.fill(Infinity, 0, n), -Infinity);
+      for (let i = 0; i < n; i++) {
+        const clears = maxTimes[i];
+        const melts = minTimes[i];
+        maxTimes[i] = clears >= melts ? clears : melts;
+      }
     },
     breakpoints: Float64Array.from(uniqueAscending([...fuse.minimumMelting, ...fuse.totalClearing].map(([a]) => a))),
     minAmps: melting.pickup,

@@ -121,11 +121,66 @@ export function tableElement(points: PointTable, scale = 1): EdgeElement & { las
   return {
     pickup: first,
     time,
+    shape: { kind: 'table', logAmps, seconds, logSeconds, slopes, first, lastAmps, lastSeconds },
     joins: points.slice(1).map(([amps]) => amps * scale),
     levels: [lastSeconds],
     reach,
     lastAmps,
   };
+}
+
+/**
+ * A point table as data (see `tableElement`): the natural logarithms of its scaled currents and of its
+ * times, its times, the log-log slope of each segment, its first and last current (A) and last time (s).
+ */
+export interface TableShape {
+  kind: 'table';
+  logAmps: Float64Array;
+  seconds: Float64Array;
+  logSeconds: Float64Array;
+  slopes: Float64Array;
+  first: number;
+  lastAmps: number;
+  lastSeconds: number;
+}
+
+/**
+ * For every `i` where `out[i] > floor`, lowers `out[i]` to the table's time at `amps[i]` (exactly the
+ * double `tableElement(…).time` gives) if that is smaller. `logs[i]` holds `Math.log(amps[i])`, or NaN
+ * until first needed, when it is taken and kept. The segment is found by a cursor that moves from the
+ * previous current's segment, a step or two for ascending currents, to the same segment the binary
+ * search of `time` finds (the last one starting at or below the current's logarithm).
+ *
+ * @example tableTimesInto(shape, amps, logs.fill(NaN), out.fill(Infinity), -Infinity)
+ */
+export function tableTimesInto(
+  table: TableShape,
+  amps: Float64Array,
+  logs: Float64Array,
+  out: Float64Array,
+  floor: number,
+): void {
+  const { logAmps, seconds, logSeconds, slopes, first, lastAmps } = table;
+  const lastSegment = logAmps.length - 2;
+  // The last time read from the Float64Array (the same number) so the loop sees only doubles.
+  const lastSeconds = seconds[lastSegment + 1];
+  let k = 0;
+  for (let i = 0, n = amps.length; i < n; i++) {
+    if (!(out[i] > floor)) continue;
+    const current = amps[i];
+    let t: number;
+    if (current >= lastAmps) t = lastSeconds;
+    else if (!(current >= first)) t = Infinity;
+    else {
+      let x = logs[i];
+      if (x !== x) logs[i] = x = Math.log(current);
+      while (k < lastSegment && logAmps[k + 1] <= x) k++;
+      while (k > 0 && logAmps[k] > x) k--;
+      const dx = x - logAmps[k];
+      t = dx === 0 ? seconds[k] : Math.exp(logSeconds[k] + dx * slopes[k]);
+    }
+    if (t < out[i]) out[i] = t;
+  }
 }
 
 /**
