@@ -224,3 +224,69 @@ function deviceOf(network: Network, elementId: string): TreeNode['device'] {
 export function flattenTree(root: TreeNode): TreeNode[] {
   return rowsOf(root).map((row) => row.node);
 }
+
+/**
+ * `next` with each row that reads the same as the row of `previous` with its key (same depth, kind, id,
+ * label, detail and feeding device) replaced by that previous row, and `previous` itself when no row
+ * changed: an edit of a setting then hands the tree the rows it already drew, and a keyed list redraws
+ * nothing.
+ *
+ * @example keptRowsOf(systemRowsOf(networkOf(edited)), rows) === rows // true when only a setting changed
+ */
+export function keptRowsOf(next: SystemRow[], previous: readonly SystemRow[] | undefined): SystemRow[] {
+  if (!previous) return next;
+  const before = new Map(previous.map((row) => [rowKeyOf(row.node), row]));
+  let same = next.length === previous.length;
+  const kept = next.map((row, i) => {
+    const old = before.get(rowKeyOf(row.node));
+    const keep = old !== undefined && readsAlike(old, row);
+    if (!keep || previous[i] !== old) same = false;
+    return keep ? old : row;
+  });
+  return same ? (previous as SystemRow[]) : kept;
+}
+
+/**
+ * The key of a tree item, unique in the tree: its kind and id.
+ * @example rowKeyOf({ kind: 'bus', id: 'MCC' }) // 'bus:MCC'
+ */
+export function rowKeyOf(item: { kind: string; id: string }): string {
+  return `${item.kind}:${item.id}`;
+}
+
+/** One item of the tree as the keyboard moves through it: an element, or the device drawn above it on its row. */
+export interface TreeItem {
+  /** `rowKeyOf` of the item. */
+  key: string;
+  /** `rowKeyOf` of the row drawing it. */
+  rowKey: string;
+  /** 1 for the source, as `aria-level` counts. */
+  level: number;
+}
+
+/**
+ * The tree's items in reading order (a row's device before its element, on the same level).
+ * @example treeItemsOf(rows).slice(0, 2) // [{ key: 'source:UTIL', rowKey: 'source:UTIL', level: 1 }, { key: 'device:R-MV', … }]
+ */
+export function treeItemsOf(rows: readonly SystemRow[]): TreeItem[] {
+  const items: TreeItem[] = [];
+  for (const { node, depth } of rows) {
+    const rowKey = rowKeyOf(node);
+    if (node.device) items.push({ key: rowKeyOf({ kind: 'device', id: node.device.id }), rowKey, level: depth + 1 });
+    items.push({ key: rowKey, rowKey, level: depth + 1 });
+  }
+  return items;
+}
+
+// Two rows draw the same: same depth and the same words for the element and its device.
+function readsAlike(a: SystemRow, b: SystemRow): boolean {
+  const [x, y] = [a.node, b.node];
+  return (
+    a.depth === b.depth &&
+    x.label === y.label &&
+    x.detail === y.detail &&
+    x.device?.id === y.device?.id &&
+    x.device?.label === y.device?.label &&
+    x.device?.detail === y.device?.detail
+  );
+}

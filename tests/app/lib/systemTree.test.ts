@@ -3,10 +3,12 @@ import { readFileSync } from 'node:fs';
 import {
   darkItemsOf,
   flattenTree,
+  keptRowsOf,
   scenarioRowsOf,
   switchText,
   systemRowsOf,
   systemTreeOf,
+  treeItemsOf,
 } from '../../../src/app/lib/systemTree.ts';
 import { scenarioViewOf } from '../../../src/app/lib/scenarioParts.ts';
 import { scenariosOf } from '../../../src/engine/scenario/index.ts';
@@ -80,6 +82,43 @@ describe('systemTree', () => {
     const rows = systemRowsOf(networkOf(deep));
     expect(rows).toHaveLength(1 + 5001 + 5000);
     expect(rows.at(-1)).toMatchObject({ depth: 10_001, node: { kind: 'bus', id: 'B5000' } });
+  });
+});
+
+describe('systemTree rows kept across edits', () => {
+  const withMainPickup = (pickup: number) => {
+    const edited = structuredClone(demo);
+    const main = edited.devices!.find((d) => d.id === 'MAIN')!;
+    (main.characteristic as { longTime: { pickup: unknown } }).longTime.pickup = pickup;
+    return systemRowsOf(networkOf(parseStudy(edited)));
+  };
+
+  it('keptRowsOf() hands back the rows already drawn when an edit changes only a setting', () => {
+    const before = systemRowsOf(network);
+    const after = systemRowsOf(networkOf(parseStudy(demo)));
+    expect(after).not.toBe(before);
+    expect(keptRowsOf(after, before)).toBe(before);
+    expect(keptRowsOf(withMainPickup(0.9), before)).toBe(before);
+    expect(keptRowsOf(after, undefined)).toBe(after);
+  });
+
+  it('keptRowsOf() takes the new row where it reads differently, and keeps every other row', () => {
+    const before = systemRowsOf(network);
+    const edited = structuredClone(demo);
+    edited.buses = edited.buses!.map((b) => (b.id === 'MCC' ? { ...b, name: 'Motor control centre' } : b));
+    const kept = keptRowsOf(systemRowsOf(networkOf(parseStudy(edited))), before);
+    expect(kept).not.toBe(before);
+    const changed = kept.filter((row, i) => row !== before[i]);
+    expect(changed.map((r) => r.node.label)).toEqual(['Motor control centre']);
+  });
+
+  it('treeItemsOf() lists the device of a row before its element, on the same level', () => {
+    const rows = systemRowsOf(network);
+    const items = treeItemsOf(rows);
+    expect(items).toHaveLength(rows.length + rows.filter((r) => r.node.device).length);
+    const swbd = items.findIndex((item) => item.key === 'bus:SWBD');
+    expect(items[swbd - 1]).toEqual({ key: 'device:MAIN', rowKey: 'bus:SWBD', level: 4 });
+    expect(items[swbd]).toEqual({ key: 'bus:SWBD', rowKey: 'bus:SWBD', level: 4 });
   });
 });
 
