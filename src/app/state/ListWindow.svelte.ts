@@ -110,26 +110,28 @@ export class ListWindow {
    * @example await rows.reveal('bus:MCC'); list.querySelector('[data-key="bus:MCC"]')?.focus();
    */
   async reveal(key: string): Promise<void> {
-    const scroller = this.#scroller;
-    const at = this.keys.indexOf(key);
-    if (!scroller || at < 0) return;
-    const drawn = this.#list?.querySelector<HTMLElement>(`[data-window-key="${CSS.escape(key)}"]`);
-    if (drawn) {
-      drawn.scrollIntoView({ block: 'nearest' });
-      return;
+    const drawnRow = () => this.#list?.querySelector<HTMLElement>(`[data-window-key="${CSS.escape(key)}"]`);
+    // Rows not yet drawn are only guessed at, so the first jump may land short of the row: the rows it
+    // draws are measured, and the next jump lands closer.
+    for (let tries = 0; tries < 8; tries++) {
+      const row = drawnRow();
+      if (row) {
+        row.scrollIntoView({ block: 'nearest' });
+        return;
+      }
+      const scroller = this.#scroller;
+      const at = this.keys.indexOf(key);
+      if (!scroller || at < 0) return;
+      const offsets = this.#offsets;
+      const listTop = this.#listTopIn(scroller);
+      const rowTop = listTop + offsets[at];
+      const rowBottom = listTop + offsets[at + 1];
+      if (rowTop < scroller.scrollTop) scroller.scrollTop = rowTop;
+      else if (rowBottom > scroller.scrollTop + scroller.clientHeight)
+        scroller.scrollTop = rowBottom - scroller.clientHeight;
+      this.#top = scroller.scrollTop - listTop;
+      await tick();
     }
-    const offsets = this.#offsets;
-    const listTop = this.#listTopIn(scroller);
-    const rowTop = listTop + offsets[at];
-    const rowBottom = listTop + offsets[at + 1];
-    if (rowTop < scroller.scrollTop) scroller.scrollTop = rowTop;
-    else if (rowBottom > scroller.scrollTop + scroller.clientHeight)
-      scroller.scrollTop = rowBottom - scroller.clientHeight;
-    this.#top = scroller.scrollTop - listTop;
-    await tick();
-    this.#list?.querySelector<HTMLElement>(`[data-window-key="${CSS.escape(key)}"]`)?.scrollIntoView({
-      block: 'nearest',
-    });
   }
 
   // Where the list starts within its scroller's content (the scroller may hold a heading above it).
