@@ -2,14 +2,7 @@ import { z } from 'zod';
 import type { Band } from '../band.ts';
 import { nameField, quantityField } from '../study/fields.ts';
 import { uniqueAscending } from './composite.ts';
-import {
-  isValidTable,
-  pointTableSchema,
-  tableElement,
-  tableTimesInto,
-  upperBelowLower,
-  type TableShape,
-} from './pointTable.ts';
+import { isValidTable, pointTableSchema, tableElement, upperBelowLower, type TableShape } from './pointTable.ts';
 
 const ampsTable = pointTableSchema({ current: 'a current in amperes', unit: ' A' });
 
@@ -87,8 +80,6 @@ export function fuseBand(fuse: Fuse): Band {
   const clearingTime = clearing.time;
   const meltingTable = melting.shape as TableShape;
   const clearingTable = clearing.shape as TableShape;
-  // Scratch for the logarithms both tables share, kept with the band and grown when needed.
-  let logs = new Float64Array(0);
   return {
     minTime: meltingTime,
     // The schema lets total clearing sit within a relative 1e-12 of minimum melting (the round trip
@@ -99,22 +90,57 @@ export function fuseBand(fuse: Fuse): Band {
       const melts = meltingTime(amps);
       return clears >= melts ? clears : melts;
     },
-    evaluateInto: (amps, minTimes, maxTimes) => {
-      const n = amps.length;
-      if (logs.length < n) logs = new Float64Array(n);
-      logs.fill(NaN, 0, n);
-      tableTimesInto(meltingTable, amps, logs, minTimes.fill(Infinity, 0, n), -Infinity);
-      tableTimesInto(clearingTable, amps, logs, maxTimes.fill(Infinity, 0, n), -Infinity);
-      for (let i = 0; i < n; i++) {
-        const clears = maxTimes[i];
-        const melts = minTimes[i];
-        maxTimes[i] = clears >= melts ? clears : melts;
-      }
-    },
+    evaluateInto: (amps, minTimes, maxTimes) => fuseTimesInto(meltingTable, clearingTable, amps, minTimes, maxTimes),
     breakpoints: Float64Array.from(uniqueAscending([...fuse.minimumMelting, ...fuse.totalClearing].map(([a]) => a))),
     minAmps: melting.pickup,
     maxAmps: Math.max(melting.lastAmps, clearing.lastAmps),
     currentLimitingFrom: fuse.currentLimitingFrom ?? Infinity,
     diagnostics,
   };
+}
+
+/**
+ * Both edges of a fuse band at every current in one pass, the arithmetic of `tableElement`'s `time`
+ * (see `tableTimesInto`): one logarithm per current for the two tables, and a cursor per table that
+ * finds the segment the binary search of `time` finds; total clearing held at or above melting.
+ */
+function fuseTimesInto(
+  melting: TableShape,
+  clearing: TableShape,
+  amps: Float64Array,
+  minTimes: Float64Array,
+  maxTimes: Float64Array,
+): void {
+  const lastMelting = melting.logAmps.length - 2;
+  const lastClearing = clearing.logAmps.length - 2;
+  let km = 0;
+  let kc = 0;
+  for (let i = 0, n = amps.length; i < n; i++) {
+    const current = amps[i];
+    let x = NaN;
+    let melts: number;
+    if (current >= melting.lastAmps) melts = melting.seconds[lastMelting + 1];
+    else if (!(current >= melting.first)) melts = Infinity;
+    else {
+      x = Math.log(current);
+      const { logAmps, seconds, logSeconds, slopes } = melting;
+      while (km < lastMelting && logAmps[km + 1] <= x) km++;
+      while (km > 0 && logAmps[km] > x) km--;
+      const dx = x - logAmps[km];
+      melts = dx === 0 ? seconds[km] : Math.exp(logSeconds[km] + dx * slopes[km]);
+    }
+    let clears: number;
+    if (current >= clearing.lastAmps) clears = clearing.seconds[lastClearing + 1];
+    else if (!(current >= clearing.first)) clears = Infinity;
+    else {
+      if (x !== x) x = Math.log(current);
+      const { logAmps, seconds, logSeconds, slopes } = clearing;
+      while (kc < lastClearing && logAmps[kc + 1] <= x) kc++;
+      while (kc > 0 && logAmps[kc] > x) kc--;
+      const dx = x - logAmps[kc];
+      clears = dx === 0 ? seconds[kc] : Math.exp(logSeconds[kc] + dx * slopes[kc]);
+    }
+    minTimes[i] = melts;
+    maxTimes[i] = clears >= melts ? clears : melts;
+  }
 }
