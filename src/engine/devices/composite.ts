@@ -115,6 +115,9 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   // where the fastest so far is still above the floor (the early exit of `time`), so the minimum of
   // the same terms is taken and every result is the same double.
   const bounds = Float64Array.of(floor, add);
+  // The last element's pass also applies the floor and the added time, saving a pass, when it is a
+  // curved one (as it is in every family: flat elements come first); otherwise a pass of its own does.
+  const finishedBy = count > 0 && kinds[count - 1] !== FLAT && kinds[count - 1] !== OTHER ? count - 1 : -1;
   const timesInto = (amps: Float64Array, out: Float64Array, logs: Float64Array): void => {
     const n = amps.length;
     // Read from a Float64Array so the loops see doubles, never a small integer in some closures.
@@ -136,20 +139,24 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
           const k = params[at];
           const flatFrom = params[at + 1];
           const flat = params[at + 2];
+          const finish = e === finishedBy;
           for (let i = 0; i < n; i++) {
             const a = amps[i];
-            if (!(out[i] > lowest && a >= pickup)) continue;
-            const t = a < flatFrom ? k / (a * a) : flat;
-            if (t < out[i]) out[i] = t;
+            let fastest = out[i];
+            if (fastest > lowest && a >= pickup) {
+              const t = a < flatFrom ? k / (a * a) : flat;
+              if (t < fastest) fastest = t;
+            }
+            out[i] = finish ? (fastest > lowest ? fastest : lowest) + added : fastest;
           }
           break;
         }
         case INVERSE:
-          inverseTimesInto(params, at, pickup, lowest, amps, out);
+          inverseTimesInto(params, at, pickup, amps, out, bounds, e === finishedBy);
           break;
         case TABLE:
           // A table is Infinity below its first current, its pickup, so it needs no pickup test here.
-          tableTimesInto(tables[e]!, amps, logs, out, lowest);
+          tableTimesInto(tables[e]!, amps, logs, out, bounds, e === finishedBy);
           break;
         default: {
           const time = others[e]!;
@@ -161,6 +168,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
         }
       }
     }
+    if (finishedBy >= 0) return;
     for (let i = 0; i < n; i++) {
       const fastest = out[i];
       out[i] = (fastest > lowest ? fastest : lowest) + added;
@@ -188,15 +196,21 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   };
 }
 
-/** An inverse element's pass of `timesInto`, with its constants read once; the formula of `time`. */
+/**
+ * An inverse element's pass of `timesInto`, with its constants read once; the formula of `time`.
+ * `bounds` holds the edge's floor and added time; with `finish` they are applied too.
+ */
 function inverseTimesInto(
   params: Float64Array,
   at: number,
   pickup: number,
-  floor: number,
   amps: Float64Array,
   out: Float64Array,
+  bounds: Float64Array,
+  finish: boolean,
 ): void {
+  const floor = bounds[0];
+  const added = bounds[1];
   const inversePickup = params[at];
   const dial = params[at + 1];
   const a = params[at + 2];
@@ -207,15 +221,18 @@ function inverseTimesInto(
   const n = amps.length;
   for (let i = 0; i < n; i++) {
     const current = amps[i];
-    if (!(out[i] > floor && current >= pickup)) continue;
-    const m = current * inversePickup;
-    const t =
-      m >= cap
-        ? capTime
-        : m > 1
-          ? dial * (a / (p === 2 ? m * m - 1 : p === 1 ? m - 1 : Math.expm1(p * Math.log(m))) + b)
-          : Infinity;
-    if (t < out[i]) out[i] = t;
+    let fastest = out[i];
+    if (fastest > floor && current >= pickup) {
+      const m = current * inversePickup;
+      const t =
+        m >= cap
+          ? capTime
+          : m > 1
+            ? dial * (a / (p === 2 ? m * m - 1 : p === 1 ? m - 1 : Math.expm1(p * Math.log(m))) + b)
+            : Infinity;
+      if (t < fastest) fastest = t;
+    }
+    out[i] = finish ? (fastest > floor ? fastest : floor) + added : fastest;
   }
 }
 

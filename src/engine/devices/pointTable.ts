@@ -145,41 +145,48 @@ export interface TableShape {
 }
 
 /**
- * For every `i` where `out[i] > floor`, lowers `out[i]` to the table's time at `amps[i]` (exactly the
- * double `tableElement(…).time` gives) if that is smaller. `logs[i]` holds `Math.log(amps[i])`, or NaN
+ * For every `i` where `out[i]` is above the floor `bounds[0]`, lowers `out[i]` to the table's time at
+ * `amps[i]` (exactly the double `tableElement(…).time` gives) if that is smaller; with `finish`, then
+ * raises it to the floor and adds `bounds[1]` (the last pass of a composite edge). `logs[i]` holds `Math.log(amps[i])`, or NaN
  * until first needed, when it is taken and kept. The segment is found by a cursor that moves from the
  * previous current's segment, a step or two for ascending currents, to the same segment the binary
  * search of `time` finds (the last one starting at or below the current's logarithm).
  *
- * @example tableTimesInto(shape, amps, logs.fill(NaN), out.fill(Infinity), -Infinity)
+ * @example tableTimesInto(shape, amps, logs.fill(NaN), out.fill(Infinity), Float64Array.of(0, 0), true)
  */
 export function tableTimesInto(
   table: TableShape,
   amps: Float64Array,
   logs: Float64Array,
   out: Float64Array,
-  floor: number,
+  bounds: Float64Array,
+  finish: boolean,
 ): void {
+  const floor = bounds[0];
+  const added = bounds[1];
   const { logAmps, seconds, logSeconds, slopes, first, lastAmps } = table;
   const lastSegment = logAmps.length - 2;
   // The last time read from the Float64Array (the same number) so the loop sees only doubles.
   const lastSeconds = seconds[lastSegment + 1];
   let k = 0;
   for (let i = 0, n = amps.length; i < n; i++) {
-    if (!(out[i] > floor)) continue;
-    const current = amps[i];
-    let t: number;
-    if (current >= lastAmps) t = lastSeconds;
-    else if (!(current >= first)) t = Infinity;
-    else {
-      let x = logs[i];
-      if (x !== x) logs[i] = x = Math.log(current);
-      while (k < lastSegment && logAmps[k + 1] <= x) k++;
-      while (k > 0 && logAmps[k] > x) k--;
-      const dx = x - logAmps[k];
-      t = dx === 0 ? seconds[k] : Math.exp(logSeconds[k] + dx * slopes[k]);
+    let fastest = out[i];
+    if (fastest > floor) {
+      const current = amps[i];
+      let t: number;
+      if (current >= lastAmps) t = lastSeconds;
+      else if (!(current >= first)) t = Infinity;
+      else {
+        let x = logs[i];
+        if (x !== x) logs[i] = x = Math.log(current);
+        while (k < lastSegment && logAmps[k + 1] <= x) k++;
+        while (k > 0 && logAmps[k] > x) k--;
+        const dx = x - logAmps[k];
+        t = dx === 0 ? seconds[k] : Math.exp(logSeconds[k] + dx * slopes[k]);
+      }
+      if (t < fastest) fastest = t;
     }
-    if (t < out[i]) out[i] = t;
+    out[i] = finish ? (fastest > floor ? fastest : floor) + added : fastest;
   }
 }
 
