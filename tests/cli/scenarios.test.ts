@@ -1,6 +1,12 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { checkCommand, faultsCommand, plotCommand, reportCommand } from '../../src/cli/commands/index.ts';
+import {
+  checkCommand,
+  faultsCommand,
+  plotCommand,
+  reportCommand,
+  windowCommand,
+} from '../../src/cli/commands/index.ts';
 import { analyseStudy } from '../../src/engine/analysis.ts';
 import { jsonReport } from '../../src/engine/report/index.ts';
 import { analyseScenarios } from '../../src/engine/scenario/index.ts';
@@ -203,5 +209,27 @@ describe('discern report in operating scenarios', () => {
     const text = String(files.get('r.md'));
     expect(text).toMatch(/\n### Emergency panel \(480 V\) in "On generator"\n/);
     expect(text).not.toMatch(/ in "Normal"\n/);
+  });
+});
+
+describe('window in an operating scenario', () => {
+  it("works out the generator breaker's window on the generator's tree", async () => {
+    const { code, stdout } = await runVerb(
+      ['demo/harrowmere-standby-overlap.json', '--device', 'GEN-CB', '--scenario', 'on-generator'],
+      windowCommand,
+    );
+    expect(code).toBe(0);
+    expect(stdout).toMatch(
+      /coordinate with Exhaust fan breaker 50 A below \(0 s margin; shown selective, NFPA 70 700\.32\)/,
+    );
+  });
+
+  it('refuses a device the scenario does not energise, in one line', async () => {
+    const { code, stderr } = await runVerb(
+      ['demo/harrowmere-standby-overlap.json', '--device', 'MAIN', '--scenario', 'on-generator'],
+      windowCommand,
+    );
+    expect(code).toBe(2);
+    expect(stderr).toBe('device: expected a device energised in scenario "on-generator", got "MAIN"\n');
   });
 });

@@ -3,6 +3,7 @@ import { expectedGot, InputError } from '../../engine/errors.ts';
 import { significant } from '../../engine/quantity/index.ts';
 import { settingText, settingWindowOf, type SettingWindow } from '../../engine/window/index.ts';
 import { flagText, parseArgs } from '../args.ts';
+import { scenarioFlag } from '../scenarioFlag.ts';
 import type { Command } from '../command.ts';
 import { loadStudyFile } from '../studyFile.ts';
 import { formatTable } from '../table.ts';
@@ -10,6 +11,8 @@ import { formatTable } from '../table.ts';
 const HELP = `discern window <study.json> --device ID — what one device may be set to, and why
 
   --device ID       the device (its id in the study)
+  --scenario NAME   a study with operating scenarios: the window in that scenario's tree (default: the
+                    first scenario that energises the device)
   --json            print the window as JSON: each setting's intervals with their binding constraints,
                     the 2-D maps, every constraint with its margin, the recommendation or the conflict
 
@@ -31,7 +34,7 @@ export const windowCommand: Command = {
   summary: "a device's setting window: feasible settings, binding constraints, recommendation",
   help: HELP,
   async run(args, io) {
-    const parsed = parseArgs(args, { device: 'value', json: 'switch', help: 'switch' });
+    const parsed = parseArgs(args, { device: 'value', json: 'switch', help: 'switch', scenario: 'value' });
     if (parsed.flags.has('help')) {
       io.stdout(HELP);
       return 0;
@@ -44,7 +47,8 @@ export const windowCommand: Command = {
     if (!study.devices.some((d) => d.id === deviceId)) {
       throw new InputError('--device', expectedGot(`one of ${study.devices.map((d) => d.id).join(', ')}`, deviceId));
     }
-    const window = settingWindowOf(study, deviceId, { maps: parsed.flags.has('json') });
+    const scenario = scenarioFlag(parsed, study)?.id;
+    const window = settingWindowOf(study, deviceId, { maps: parsed.flags.has('json'), scenario });
     if (parsed.flags.has('json')) io.stdout(`${JSON.stringify(window, jsonValue, 2)}\n`);
     else io.stdout(`${windowText(window)}\n${CAUTION}\n`);
     return window.exists ? 0 : 1;
