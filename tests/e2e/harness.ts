@@ -67,6 +67,14 @@ export function pageErrors(page: Page): string[] {
 }
 
 /** Waits until the checks of the latest edit have come back from the worker. */
+/** Waits until the study named `name` is the one open (reading a chosen file takes a moment). */
+export async function studyOpened(page: Page, name: string): Promise<void> {
+  await page.waitForFunction(
+    (expected) => document.querySelector('[data-testid="study-name"]')?.textContent?.includes(expected) ?? false,
+    name,
+  );
+}
+
 export async function settled(page: Page): Promise<void> {
   await page.waitForFunction(() => !document.querySelector('[data-testid="findings-summary"] .pending'));
 }

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type { BrowserContext, Page } from 'playwright-core';
 import type { StudyInput } from '../../src/engine/study/index.ts';
-import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
+import { pageErrors, settled, startWorkbench, studyOpened, type Workbench } from './harness.ts';
 
 const demoPath = fileURLToPath(new URL('../../demo/harrowmere-selective.json', import.meta.url));
 const demo = JSON.parse(readFileSync(demoPath, 'utf8')) as StudyInput;
@@ -221,7 +221,7 @@ describe('the workbench keeps the work', () => {
       mimeType: 'application/json',
       buffer: Buffer.from(JSON.stringify(deep)),
     });
-    await expect(page.getByTestId('study-name').textContent()).resolves.toContain(deep.name);
+    await studyOpened(page, deep.name);
     // Every row is in the tree (the source, 201 buses, 200 cables); only those on screen are drawn, so
     // the deepest bus is reached from the keyboard.
     const tree = page.locator('[role="tree"]');

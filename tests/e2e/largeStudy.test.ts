@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { radialStudy } from '../../bench/radialStudy.ts';
-import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
+import { pageErrors, settled, startWorkbench, studyOpened, type Workbench } from './harness.ts';
 
 // A generated 500-device study (the benchmarks' generator): its tree and its findings are long lists,
 // drawn only where they are on screen.
@@ -21,7 +21,7 @@ async function openLarge(page: Page): Promise<void> {
     mimeType: 'application/json',
     buffer: Buffer.from(JSON.stringify(large)),
   });
-  await expect(page.getByTestId('study-name').textContent()).resolves.toContain(large.name);
+  await studyOpened(page, large.name);
   await settled(page);
 }
 
