@@ -1,6 +1,6 @@
 import type { Analysis } from './analysis.ts';
 import { locationBusOf } from './network/index.ts';
-import { formatAmps, formatVolts } from './quantity/index.ts';
+import { formatAmps, formatVolts } from './quantity/format.ts';
 
 /** One device's times at the probed current. */
 export interface ProbeReading {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { bandOf, type Band } from '../../src/engine/band.ts';
 import { characteristicSchema } from '../../src/engine/devices/characteristic.ts';
-import { RELAY_CURVES } from '../../src/engine/devices/relay.ts';
+import { RELAY_CURVES } from '../../src/engine/devices/relaySchema.ts';
 
 /** How far apart two times may be and still count as ordered: a relative 1e-12 (rounding where formulas meet). */
 const RELATIVE = 1e-12;

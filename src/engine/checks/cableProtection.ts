@@ -1,7 +1,7 @@
 import { scaleBand } from '../band.ts';
 import { locationBusOf } from '../network/index.ts';
 import { findOverlaps } from '../overlap.ts';
-import { formatAmps, formatSeconds } from '../quantity/index.ts';
+import { formatAmps, formatSeconds } from '../quantity/format.ts';
 import type { Cable } from '../study/index.ts';
 import { conductorAreaCmil } from '../conductors/index.ts';
 import { cableWithstandOf } from '../withstand/index.ts';

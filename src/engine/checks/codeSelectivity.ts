@@ -1,5 +1,5 @@
 import type { Analysis } from '../analysis.ts';
-import { formatAmps, formatVolts } from '../quantity/index.ts';
+import { formatAmps, formatVolts } from '../quantity/format.ts';
 import type { Device, Study } from '../study/index.ts';
 import { locationBusOf } from '../network/index.ts';
 import { nameOf } from './context.ts';

@@ -2,7 +2,7 @@ import type { Band } from '../band.ts';
 import type { FaultLevels } from '../fault/index.ts';
 import { pathTo, type Network } from '../network/index.ts';
 import type { Device } from '../study/index.ts';
-import { formatAmps, formatVolts } from '../quantity/index.ts';
+import { formatAmps, formatVolts } from '../quantity/format.ts';
 import type { CurrentRange } from './finding.ts';
 
 /** What every check reads: the tree, its fault levels and each device's band (at its own voltage). */

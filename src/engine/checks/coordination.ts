@@ -4,7 +4,7 @@ import { isPhaseShifting, primaryConnectionOf, secondaryWindingOf, throughFaultO
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { findOverlaps, type OverlapInterval } from '../overlap.ts';
 import { withLazyText } from '../lazyText.ts';
-import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
+import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
 import { capitalise, describeRange, nameOf, rangeOf, type CheckContext } from './context.ts';
 import type { Finding, Severity } from './finding.ts';

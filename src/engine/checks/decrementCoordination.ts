@@ -4,7 +4,7 @@ import { addImpedance, ZERO_IMPEDANCE, type Impedance } from '../fault/impedance
 import { reflectImpedance } from '../fault/reflect.ts';
 import { decrementOperatingTime, generatorDecrement, type GeneratorDecrement } from '../generator/index.ts';
 import { locationBusOf, pathTo, type Network } from '../network/index.ts';
-import { formatAmps, formatSeconds, formatVolts } from '../quantity/index.ts';
+import { formatAmps, formatSeconds, formatVolts } from '../quantity/format.ts';
 import type { Source } from '../study/index.ts';
 import { nameOf } from './context.ts';
 import type { Finding } from './finding.ts';

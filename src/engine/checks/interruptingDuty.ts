@@ -1,6 +1,6 @@
 import { asymmetryOf, type FaultLevel } from '../fault/index.ts';
 import { locationBusOf } from '../network/index.ts';
-import { formatAmps, formatVolts, significant } from '../quantity/index.ts';
+import { formatAmps, formatVolts, significant } from '../quantity/format.ts';
 import type { Bus, Device } from '../study/index.ts';
 import type { WorkStep } from '../work.ts';
 import { capitalise, nameOf, rangeOf, type CheckContext } from './context.ts';

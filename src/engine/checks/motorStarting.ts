@@ -1,6 +1,6 @@
 import { scaleBand } from '../band.ts';
 import { locationBusOf } from '../network/index.ts';
-import { formatAmps, formatSeconds } from '../quantity/index.ts';
+import { formatAmps, formatSeconds } from '../quantity/format.ts';
 import type { Motor } from '../study/index.ts';
 import { motorStartingOf } from '../withstand/index.ts';
 import { nameOf, protectingDevice, rangeOf, type CheckContext } from './context.ts';

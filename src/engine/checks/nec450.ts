@@ -1,5 +1,5 @@
 import { locationBusOf } from '../network/index.ts';
-import { formatAmps, significant } from '../quantity/index.ts';
+import { formatAmps, significant } from '../quantity/format.ts';
 import type { Device, Transformer } from '../study/index.ts';
 import { transformerRatedAmps } from '../withstand/index.ts';
 import type { WorkStep } from '../work.ts';

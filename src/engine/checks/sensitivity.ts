@@ -1,7 +1,7 @@
 import { fastestOf, groundFaultBandOf, type Band } from '../band.ts';
 import { DELTA_WYE_TABLE, secondaryWindingOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween, type Network } from '../network/index.ts';
-import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/index.ts';
+import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
 import { nameOf, rangeOf, type CheckContext } from './context.ts';
 import type { Finding } from './finding.ts';

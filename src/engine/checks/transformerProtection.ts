@@ -1,5 +1,5 @@
 import { findOverlaps } from '../overlap.ts';
-import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
+import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { Transformer } from '../study/index.ts';
 import { inrushMarkersOf, transformerRatedAmps, transformerWithstandOf } from '../withstand/index.ts';
 import {

@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { fuseSchema } from './fuse.ts';
-import { createRelaySchema } from './relay.ts';
-import { createThermalMagneticSchema } from './thermalMagnetic.ts';
-import { createTripUnitSchema } from './tripUnit.ts';
+import { fuseSchema } from './fuseSchema.ts';
+import { createRelaySchema } from './relaySchema.ts';
+import { createThermalMagneticSchema } from './thermalMagneticSchema.ts';
+import { createTripUnitSchema } from './tripUnitSchema.ts';
 
 /**
  * Builds the characteristic schema for a system frequency, so that times in cycles parse at it.

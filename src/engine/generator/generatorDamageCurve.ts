@@ -1,5 +1,5 @@
 import { InputError, expectedGot } from '../errors.ts';
-import { significant } from '../quantity/index.ts';
+import { significant } from '../quantity/format.ts';
 import { requireNumberAbove } from '../withstand/inputs.ts';
 import type { WithstandCurve } from '../withstand/withstand.ts';
 import { generatorPath, ratedAmpsOf, requireGeneratorRating, type GeneratorRating } from './rating.ts';

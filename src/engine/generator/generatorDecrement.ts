@@ -1,6 +1,6 @@
 import { InputError, expectedGot } from '../errors.ts';
 import { magnitudeOf, type Impedance } from '../fault/impedance.ts';
-import { significant } from '../quantity/index.ts';
+import { significant } from '../quantity/format.ts';
 import { requireNumberAbove } from '../withstand/inputs.ts';
 import { generatorPath, ratedAmpsOf, requireGeneratorRating, type GeneratorRating } from './rating.ts';
 

@@ -1,6 +1,6 @@
 import type { Analysis } from '../analysis.ts';
 import type { Finding, Severity } from '../checks/finding.ts';
-import { formatAmps, formatVolts, significant } from '../quantity/index.ts';
+import { formatAmps, formatVolts, significant } from '../quantity/format.ts';
 
 /** One row of the findings table, as plain text cells (shared by the CLI, Markdown and CSV). */
 export interface FindingRow {

@@ -1,5 +1,5 @@
 import { CAUTION } from '../caution.ts';
-import { significant } from '../quantity/index.ts';
+import { significant } from '../quantity/format.ts';
 import type { Study } from '../study/index.ts';
 import { treeHolding } from '../scenario/index.ts';
 import { settingText, settingWindowOf, type SettingWindow } from '../window/index.ts';

@@ -1,5 +1,5 @@
 import type { Characteristic } from '../devices/index.ts';
-import { formatAmps, significant } from '../quantity/index.ts';
+import { formatAmps, significant } from '../quantity/format.ts';
 
 /**
  * A device's settings in the trade's words, every value with its unit, one element per entry:

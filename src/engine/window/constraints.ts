@@ -11,7 +11,7 @@ import { sensitivityCasesOf } from '../checks/sensitivity.ts';
 import { transformerFindings } from '../checks/transformerProtection.ts';
 import { locationBusOf } from '../network/index.ts';
 import { inrushMarkersOf, type Marker } from '../withstand/index.ts';
-import { formatAmps, formatSeconds, significant } from '../quantity/index.ts';
+import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { Device } from '../study/index.ts';
 import { fullLoadOf } from './fullLoad.ts';
 import type { Trial } from './trial.ts';

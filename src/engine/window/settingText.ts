@@ -1,4 +1,4 @@
-import { significant } from '../quantity/index.ts';
+import { significant } from '../quantity/format.ts';
 import type { SettingValue } from './settings.ts';
 
 /**

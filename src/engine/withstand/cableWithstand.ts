@@ -1,6 +1,6 @@
 import { conductorAreaCmil } from '../conductors/index.ts';
 import { InputError, expectedGot } from '../errors.ts';
-import { significant } from '../quantity/index.ts';
+import { significant } from '../quantity/format.ts';
 import type { Cable } from '../study/index.ts';
 import { elementPath, requireNumberAbove } from './inputs.ts';
 import type { WithstandCurve } from './withstand.ts';

@@ -1,5 +1,5 @@
 import { InputError, expectedGot } from '../errors.ts';
-import { significant } from '../quantity/index.ts';
+import { significant } from '../quantity/format.ts';
 import type { Transformer } from '../study/index.ts';
 import { elementPath, requireNumberAbove } from './inputs.ts';
 import { transformerRatedAmps } from './transformerRatedAmps.ts';

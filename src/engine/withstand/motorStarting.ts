@@ -1,6 +1,6 @@
 import { InputError, expectedGot } from '../errors.ts';
 import { motorFullLoadOf } from '../fault/motorFullLoad.ts';
-import { significant } from '../quantity/index.ts';
+import { significant } from '../quantity/format.ts';
 import type { Motor } from '../study/index.ts';
 import { elementPath, requireNumberAbove } from './inputs.ts';
 import type { Marker, StartingCurve } from './withstand.ts';

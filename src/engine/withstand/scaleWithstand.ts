@@ -1,4 +1,4 @@
-import { significant } from '../quantity/index.ts';
+import { significant } from '../quantity/format.ts';
 import { requireNumberAbove } from './inputs.ts';
 import type { WithstandCurve } from './withstand.ts';
 

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { assertInDelta } from '../../asserts.ts';
 import { assertBandContract } from './bandInvariants.ts';
-import { fuseBand, fuseSchema } from '../../../src/engine/devices/fuse.ts';
+import { fuseBand } from '../../../src/engine/devices/fuse.ts';
+import { fuseSchema } from '../../../src/engine/devices/fuseSchema.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
 
 /** An invented fuse (illustrative, not a product). */

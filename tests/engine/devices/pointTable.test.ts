@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { assertInDelta } from '../../asserts.ts';
-import { pointTableSchema, tableElement, upperBelowLower } from '../../../src/engine/devices/pointTable.ts';
+import { tableElement, upperBelowLower } from '../../../src/engine/devices/pointTable.ts';
+import { pointTableSchema } from '../../../src/engine/devices/pointTableSchema.ts';
 
 describe('pointTable', () => {
   it('has the expected defaults', () => {

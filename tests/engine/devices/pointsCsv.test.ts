@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { parsePointsCsv } from '../../../src/engine/devices/pointsCsv.ts';
-import { fuseSchema } from '../../../src/engine/devices/fuse.ts';
+import { fuseSchema } from '../../../src/engine/devices/fuseSchema.ts';
 
 function rejection(text: string): string {
   try {

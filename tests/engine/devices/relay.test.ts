@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { assertInDelta } from '../../asserts.ts';
 import { assertBandContract } from './bandInvariants.ts';
-import { createRelaySchema, relayBand, relaySchema, RELAY_CURVES } from '../../../src/engine/devices/relay.ts';
+import { relayBand } from '../../../src/engine/devices/relay.ts';
+import { createRelaySchema, relaySchema, RELAY_CURVES } from '../../../src/engine/devices/relaySchema.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
 
 const veryInverse = {

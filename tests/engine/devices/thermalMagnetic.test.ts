@@ -3,11 +3,11 @@ import fc from 'fast-check';
 import { assertInDelta } from '../../asserts.ts';
 import { assertBandContract } from './bandInvariants.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
+import { thermalMagneticBand } from '../../../src/engine/devices/thermalMagnetic.ts';
 import {
   createThermalMagneticSchema,
-  thermalMagneticBand,
   thermalMagneticSchema,
-} from '../../../src/engine/devices/thermalMagnetic.ts';
+} from '../../../src/engine/devices/thermalMagneticSchema.ts';
 
 /** An invented 100 A breaker (illustrative, not a product): thermal band in multiples of the rating. */
 const breaker = {

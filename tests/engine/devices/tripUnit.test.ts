@@ -3,7 +3,8 @@ import fc from 'fast-check';
 import { assertInDelta } from '../../asserts.ts';
 import { assertBandContract } from './bandInvariants.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
-import { groundBandOf, longTimeRampBasis, tripUnitBand, tripUnitSchema } from '../../../src/engine/devices/tripUnit.ts';
+import { groundBandOf, longTimeRampBasis, tripUnitBand } from '../../../src/engine/devices/tripUnit.ts';
+import { tripUnitSchema } from '../../../src/engine/devices/tripUnitSchema.ts';
 import { findOverlaps } from '../../../src/engine/overlap.ts';
 
 /** Invented settings worked by hand: I_r = 800 A, 10 s at 6 × I_r; short-time 4 × I_r, I²t in through (10 × I_r, 0.3 s). */

@@ -1,0 +1,134 @@
+import { z } from 'zod';
+import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
+import { INVERSE_CURVE_NAMES } from './inverseCurves.ts';
+
+/** Curves of the time-overcurrent element: the standard inverse-time curves and definite time. */
+export const RELAY_CURVES = [...INVERSE_CURVE_NAMES, 'definite-time'] as const;
+
+/** A CT ratio written "600:5". */
+const RATIO = /^\s*(\d+(?:\.\d+)?)\s*:\s*(\d+(?:\.\d+)?)\s*$/;
+
+/**
+ * Builds the relay schema for a system frequency (times in cycles, such as the default breaker
+ * interrupting time "5 cycles", parse at it). `relaySchema` is the 60 Hz instance.
+ *
+ * Fields: `ct` ("600:5" or `{ primary, secondary }` in amperes); `timeOvercurrent` with `curve`,
+ * `pickup` (tap, secondary A), `timeDial` (IEEE), `timeMultiplier` (IEC) or `delay` (definite time),
+ * and `definiteTimeFrom` (IEC G_D as a multiple of pickup: the time is held above it); `instantaneous`
+ * with `pickup` (secondary A) and `delay`; `operatingTime`, the fastest the relay operates (default
+ * "1 cycle", common practice 0.016–0.025 s); `breakerTime`, the interrupting time added to the
+ * clearing edge (default "5 cycles"); `tolerance.pickup` and `tolerance.time` in percent (default 0).
+ *
+ * @example createRelaySchema(50).parse({ kind: 'relay', ct: '600:5', instantaneous: { pickup: 40 } })
+ */
+export function createRelaySchema(frequency = 60) {
+  const time = (description: string) => quantityField('time', { frequency, min: 0, description });
+  const secondaryAmps = (description: string) =>
+    quantityField('current', { min: 0, exclusiveMin: true, description: `${description} (secondary A)` });
+  const ct = z
+    .union([
+      z.string(),
+      z
+        .object({
+          primary: quantityField('current', { min: 0, exclusiveMin: true }),
+          secondary: quantityField('current', { min: 0, exclusiveMin: true }),
+        })
+        .strict(),
+    ])
+    .transform((value, ctx) => {
+      if (typeof value !== 'string') return value;
+      const match = RATIO.exec(value);
+      if (!match || !(Number(match[1]) > 0) || !(Number(match[2]) > 0)) {
+        ctx.addIssue({ code: 'custom', message: `expected a CT ratio such as "600:5", got ${JSON.stringify(value)}` });
+        return z.NEVER;
+      }
+      return { primary: Number(match[1]), secondary: Number(match[2]) };
+    })
+    .meta({ description: 'CT ratio: "600:5" or { primary, secondary } in amperes' });
+
+  const timeOvercurrent = z
+    .object({
+      curve: z.enum(RELAY_CURVES),
+      pickup: secondaryAmps('pickup (tap)'),
+      timeDial: boundedNumber(0.01, 100, 'time dial of an IEEE curve', 'relays offer about 0.05 to 15').optional(),
+      timeMultiplier: boundedNumber(
+        0.001,
+        100,
+        'time multiplier of an IEC curve',
+        'relays offer about 0.025 to 3.2',
+      ).optional(),
+      delay: time('delay of a definite-time element').optional(),
+      definiteTimeFrom: z
+        .number()
+        .gt(1)
+        .max(1000)
+        .optional()
+        .meta({ description: 'multiple of pickup above which the time is held (IEC G_D; common practice 20)' }),
+    })
+    .strict()
+    .superRefine((element, ctx) => {
+      const family = element.curve === 'definite-time' ? 'definite' : element.curve.slice(0, 4);
+      const wanted = { ieee: 'timeDial', 'iec-': 'timeMultiplier', definite: 'delay' }[family] as keyof typeof element;
+      const words = { timeDial: 'a time dial', timeMultiplier: 'a time multiplier', delay: 'a delay' };
+      for (const field of ['timeDial', 'timeMultiplier', 'delay'] as const) {
+        if (field === wanted && element[field] === undefined) {
+          ctx.addIssue({
+            code: 'custom',
+            path: [field],
+            message: `expected ${words[field]} for curve "${element.curve}", got nothing`,
+          });
+        } else if (field !== wanted && element[field] !== undefined) {
+          ctx.addIssue({
+            code: 'custom',
+            path: [field],
+            message: `expected no ${field} with curve "${element.curve}" (it takes ${String(wanted)}), got "${element[field]}"`,
+          });
+        }
+      }
+      if (family === 'definite' && element.definiteTimeFrom !== undefined) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['definiteTimeFrom'],
+          message: `expected no definiteTimeFrom on a definite-time curve, got "${element.definiteTimeFrom}"`,
+        });
+      }
+    });
+
+  return z
+    .object({
+      kind: z.literal('relay'),
+      label: nameField.optional(),
+      ct,
+      timeOvercurrent: timeOvercurrent.optional(),
+      instantaneous: z
+        .object({ pickup: secondaryAmps('instantaneous pickup'), delay: time('intentional delay').default(0) })
+        .strict()
+        .optional(),
+      operatingTime: time('fastest relay operating time; every element is floored to it').prefault('1 cycle'),
+      breakerTime: time('breaker interrupting time, added to the clearing edge').prefault('5 cycles'),
+      tolerance: z
+        .object({
+          pickup: percentField({ min: 0, max: 50, description: 'pickup tolerance ± %' }).default(0),
+          time: percentField({ min: 0, max: 50, description: 'operating time tolerance ± %' }).default(0),
+        })
+        .strict()
+        .prefault({}),
+    })
+    .strict()
+    .superRefine((relay, ctx) => {
+      if (!relay.timeOvercurrent && !relay.instantaneous) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['timeOvercurrent'],
+          message: 'expected a timeOvercurrent or an instantaneous element, got neither',
+        });
+      }
+    })
+    .meta({ description: 'protective relay with CT and breaker' });
+}
+
+/** Schema of a relay characteristic at 60 Hz (see `createRelaySchema`). */
+export const relaySchema = createRelaySchema(60);
+
+/** A parsed relay: currents in secondary amperes as set on the relay, times in seconds. */
+export type Relay = z.output<typeof relaySchema>;

@@ -1,0 +1,84 @@
+import { z } from 'zod';
+import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
+import { isValidTable, upperBelowLower } from './pointTable.ts';
+import { pointTableSchema } from './pointTableSchema.ts';
+
+const multiplesTable = pointTableSchema({ current: 'a multiple of the rating', unit: '×' });
+
+/**
+ * Builds the thermal-magnetic breaker schema for a system frequency; `thermalMagneticSchema` is the
+ * 60 Hz instance (UL 489 thermal-magnetic practice). Fields: `rating` (A); `thermal.minimum` and `thermal.maximum`,
+ * the band's edges as `[multiple of rating, seconds]` tables (a template supplies them; the study keeps
+ * its own copy); `magnetic` with `pickup` (× rating) or `pickupAmps`, an optional adjustable `range`
+ * (same terms as the pickup), and `tolerance` ± % (default 20, common practice); `openingTime`
+ * (default "0.5 cycles") and `clearingTime` (default "1 cycle"); `currentLimiting`/`currentLimitingFrom`;
+ * `illustrative` and `label` for invented curves.
+ *
+ * @example createThermalMagneticSchema().parse({ kind: 'thermal-magnetic', rating: 100,
+ *   thermal: { minimum: [[1.05, 7200], [10, 2]], maximum: [[1.3, 7200], [10, 5]] }, magnetic: { pickup: 10 } })
+ */
+export function createThermalMagneticSchema(frequency = 60) {
+  const time = (description: string) => quantityField('time', { frequency, min: 0, description });
+  return z
+    .object({
+      kind: z.literal('thermal-magnetic'),
+      label: nameField.optional(),
+      illustrative: z.boolean().default(false).meta({ description: 'invented curve data, not a product' }),
+      rating: quantityField('current', { min: 0, exclusiveMin: true, description: 'breaker rating (A)' }),
+      thermal: z
+        .object({ minimum: multiplesTable, maximum: multiplesTable })
+        .strict()
+        .superRefine(({ minimum, maximum }, ctx) => {
+          if (!isValidTable(minimum) || !isValidTable(maximum)) return;
+          const problem = upperBelowLower(minimum, maximum);
+          if (problem) {
+            ctx.addIssue({
+              code: 'custom',
+              path: ['maximum'],
+              message: `expected the maximum edge no earlier than the minimum edge, got ${Number(problem.upperSeconds.toPrecision(6))} s at ${problem.amps}× (minimum ${Number(problem.lowerSeconds.toPrecision(6))} s)`,
+            });
+          }
+        }),
+      magnetic: z
+        .object({
+          pickup: boundedNumber(0.5, 100, 'magnetic pickup × rating', 'breakers offer about 3 × to 20 ×').optional(),
+          pickupAmps: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+          range: z
+            .tuple([z.number().positive().max(1e7), z.number().positive().max(1e7)])
+            .optional()
+            .meta({ description: 'adjustable range [low, high] in the terms of the pickup; omit for a fixed trip' }),
+          tolerance: percentField({ min: 0, max: 90, description: 'pickup tolerance ± %' }).default(20),
+        })
+        .strict()
+        .superRefine((magnetic, ctx) => {
+          if ((magnetic.pickup === undefined) === (magnetic.pickupAmps === undefined)) {
+            ctx.addIssue({
+              code: 'custom',
+              path: ['pickup'],
+              message: `expected exactly one of pickup (× rating) or pickupAmps, got ${magnetic.pickup === undefined ? 'neither' : 'both'}`,
+            });
+          }
+        }),
+      openingTime: time('fastest magnetic operation').prefault('0.5 cycles'),
+      clearingTime: time('latest clearing at high current').prefault('1 cycle'),
+      currentLimiting: z.boolean().default(false),
+      currentLimitingFrom: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+    })
+    .strict()
+    .superRefine((breaker, ctx) => {
+      if (breaker.openingTime > breaker.clearingTime) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['openingTime'],
+          message: `expected an opening time no later than the clearing time ${breaker.clearingTime} s, got "${breaker.openingTime}"`,
+        });
+      }
+    })
+    .meta({ description: 'thermal-magnetic molded-case breaker' });
+}
+
+/** Schema of a thermal-magnetic characteristic at 60 Hz (see `createThermalMagneticSchema`). */
+export const thermalMagneticSchema = createThermalMagneticSchema(60);
+
+/** A parsed thermal-magnetic breaker: `rating` in amperes, tables in multiples of it, times in seconds. */
+export type ThermalMagnetic = z.output<typeof thermalMagneticSchema>;

@@ -1,0 +1,42 @@
+import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+const ROOT = resolve(import.meta.dirname, '../../..');
+
+/** Every source module the checks' worker loads, following value imports (type-only imports load nothing). */
+function modulesLoadedFrom(entry: string): Map<string, string[]> {
+  const loaded = new Map<string, string[]>();
+  const pending = [resolve(ROOT, entry)];
+  while (pending.length > 0) {
+    const file = pending.pop()!;
+    if (loaded.has(file)) continue;
+    const source = readFileSync(file, 'utf8');
+    const specifiers = [...source.matchAll(/^(?:import|export)\s+(?!type\b)[^;]*?from\s+'([^']+)'/gms)].map(
+      (m) => m[1],
+    );
+    loaded.set(file, specifiers);
+    for (const specifier of specifiers) if (specifier.startsWith('.')) pending.push(resolve(dirname(file), specifier));
+  }
+  return loaded;
+}
+
+describe("the checks' worker", () => {
+  // The page sends the worker parsed studies, so the study schemas and the unit library (mathjs) stay
+  // out of its download; each device family keeps its schema in a file of its own for this.
+  const loaded = modulesLoadedFrom('src/app/worker/analysis.worker.ts');
+  const importersOf = (name: string) =>
+    [...loaded].filter(([, specifiers]) => specifiers.includes(name)).map(([file]) => file.slice(ROOT.length + 1));
+
+  it('loads the engine checks and the band functions', () => {
+    const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
+    expect(files).toContain('src/engine/analysis.ts');
+    expect(files).toContain('src/engine/devices/relay.ts');
+  });
+
+  it('loads no unit parser and no schema', () => {
+    expect(importersOf('mathjs')).toEqual([]);
+    // Only the setting that keeps any schema from compiling code (the page's policy forbids it).
+    expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
+  });
+});
