@@ -65,32 +65,42 @@ const NUMBER_MAGNITUDE = { smallest: 1e-9, largest: 1e12 };
 
 /**
  * A number outside `NUMBER_MAGNITUDE`, or an object nested deeper than `MAX_NESTING`, in document
- * order of discovery (walked iteratively; a cycle ends at the nesting limit).
+ * order of discovery. The walk recurses at most `MAX_NESTING` levels (a cycle ends there) and keeps
+ * one path, extended and shortened as it goes, so a good document costs no allocation.
  */
 function documentProblem(input: unknown): StudyProblem | undefined {
-  const stack: { value: unknown; depth: number; path: PropertyKey[] }[] = [{ value: input, depth: 0, path: [] }];
-  while (stack.length > 0) {
-    const { value, depth, path } = stack.pop()!;
-    if (typeof value === 'number') {
-      const size = Math.abs(value);
-      if (value !== 0 && !(size >= NUMBER_MAGNITUDE.smallest && size <= NUMBER_MAGNITUDE.largest)) {
-        return {
-          path: formatPath(path),
-          message: `expected 0 or a number between ${NUMBER_MAGNITUDE.smallest} and ${NUMBER_MAGNITUDE.largest} in size, got ${quoteGot(value)}`,
-        };
-      }
-      continue;
+  return problemBelow(input, 0, []);
+}
+
+function problemBelow(value: unknown, depth: number, path: PropertyKey[]): StudyProblem | undefined {
+  if (typeof value === 'number') {
+    const size = Math.abs(value);
+    if (value === 0 || (size >= NUMBER_MAGNITUDE.smallest && size <= NUMBER_MAGNITUDE.largest)) return undefined;
+    return {
+      path: formatPath(path),
+      message: `expected 0 or a number between ${NUMBER_MAGNITUDE.smallest} and ${NUMBER_MAGNITUDE.largest} in size, got ${quoteGot(value)}`,
+    };
+  }
+  if (value === null || typeof value !== 'object') return undefined;
+  if (depth >= MAX_NESTING) {
+    return { path: formatPath(path), message: `expected at most ${MAX_NESTING} levels of nesting, got more` };
+  }
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      if (!(i in value)) continue;
+      path.push(i);
+      const problem = problemBelow(value[i], depth + 1, path);
+      path.pop();
+      if (problem) return problem;
     }
-    if (value === null || typeof value !== 'object') continue;
-    if (depth >= MAX_NESTING) {
-      return { path: formatPath(path), message: `expected at most ${MAX_NESTING} levels of nesting, got more` };
-    }
-    const entries = Object.entries(value);
-    for (let k = entries.length - 1; k >= 0; k--) {
-      const [key, child] = entries[k];
-      if (typeof child === 'number' || (child !== null && typeof child === 'object'))
-        stack.push({ value: child, depth: depth + 1, path: [...path, Array.isArray(value) ? Number(key) : key] });
-    }
+    return undefined;
+  }
+  for (const key in value) {
+    if (!Object.hasOwn(value, key)) continue;
+    path.push(key);
+    const problem = problemBelow((value as Record<string, unknown>)[key], depth + 1, path);
+    path.pop();
+    if (problem) return problem;
   }
   return undefined;
 }

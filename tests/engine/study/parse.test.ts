@@ -126,6 +126,22 @@ describe('readStudy', () => {
     );
   });
 
+  it('names the first out-of-range number deep in a document, and stops a cycle at the nesting limit', () => {
+    const document = JSON.parse(demoText) as { devices: { characteristic: Record<string, unknown> }[] };
+    document.devices[1].characteristic.extra = [
+      [1, 2],
+      [3, 1e-300],
+    ];
+    expect(readStudy(document).problems[0]).toEqual({
+      path: 'study.devices[1].characteristic.extra[1][1]',
+      message: 'expected 0 or a number between 1e-9 and 1000000000000 in size, got "1e-300"',
+    });
+    // A document built in memory can refer to itself; JSON text cannot.
+    const cyclic: Record<string, unknown> = { discern: 1 };
+    cyclic.self = cyclic;
+    expect(readStudy(cyclic).problems[0].message).toBe('expected at most 32 levels of nesting, got more');
+  });
+
   it.each([
     [
       'a denormal',
