@@ -61,14 +61,17 @@ export function jsonTextProblem(text: string, base = 'study'): JsonTextProblem |
     message: `expected ${expected} at line ${lineColumn(text, at)}, got ${got === undefined ? 'the end of the text' : quoteGot(got)}`,
   });
 
+  const length = text.length;
   for (;;) {
-    while (i < text.length && (text[i] === ' ' || text[i] === '\t' || text[i] === '\n' || text[i] === '\r')) i++;
-    if (i >= text.length) {
+    let code = text.charCodeAt(i);
+    // Space, tab, line feed, carriage return.
+    while (code === 0x20 || code === 0x09 || code === 0x0a || code === 0x0d) code = text.charCodeAt(++i);
+    if (i >= length) {
       if (frames.length === 0 && expect === 'after') return undefined;
       return fail(frames.length === 0 && expect === 'value' ? 'a JSON object' : 'more JSON text', i);
     }
     const c = text[i];
-    const top = frames.at(-1);
+    const top = frames[frames.length - 1];
     if (expect === 'value' || expect === 'first-value') {
       if (expect === 'first-value' && c === ']') {
         frames.pop();
@@ -102,7 +105,9 @@ export function jsonTextProblem(text: string, base = 'study'): JsonTextProblem |
       if (c !== '"') return fail('a field name in double quotes', i, snippet(text, i));
       const end = stringEnd(text, i);
       if (typeof end !== 'number') return fail(end.expected, end.at, text.slice(end.at, end.at + 1) || undefined);
-      const key = JSON.parse(text.slice(i, end)) as string;
+      // Only a name with an escape needs JSON's reading; most are their own text.
+      const written = text.slice(i + 1, end - 1);
+      const key = written.includes('\\') ? (JSON.parse(text.slice(i, end)) as string) : written;
       const object = top as Extract<Frame, { kind: 'object' }>;
       if (object.keys.has(key)) {
         return {
@@ -158,16 +163,17 @@ function stringEnd(text: string, start: number): number | { expected: string; at
 
 /** The index just past a number or literal starting at `start`, or undefined if there is none. */
 function tokenEnd(text: string, start: number): number | undefined {
-  for (const pattern of [NUMBER, LITERAL]) {
-    pattern.lastIndex = start;
-    if (pattern.test(text) && pattern.lastIndex > start) {
-      const end = pattern.lastIndex;
-      // "truex" or "12abc" are not tokens: the next character must end the token.
-      return end < text.length && /[\w.+-]/.test(text[end]) ? undefined : end;
-    }
-  }
-  return undefined;
+  const first = text.charCodeAt(start);
+  // A number starts with "-" or a digit; anything else may only be a literal.
+  const pattern = first === 0x2d || (first >= 0x30 && first <= 0x39) ? NUMBER : LITERAL;
+  pattern.lastIndex = start;
+  if (!pattern.test(text) || pattern.lastIndex === start) return undefined;
+  const end = pattern.lastIndex;
+  // "truex" or "12abc" are not tokens: the next character must end the token.
+  return end < text.length && WORD_CHARACTER.test(text[end]) ? undefined : end;
 }
+
+const WORD_CHARACTER = /[\w.+-]/;
 
 /** A short piece of the text at `at` for the message: the token or character found there. */
 function snippet(text: string, at: number): string {
