@@ -1,11 +1,6 @@
 import { defineConfig } from 'vitest/config';
 import type { Plugin } from 'vite';
 import { svelte } from '@sveltejs/vite-plugin-svelte';
-import { fileURLToPath } from 'node:url';
-
-// jspdf's helpers for HTML, raster SVG and PNG images (html2canvas, dompurify, canvg, fast-png) are never
-// used: the workbench writes sheets to PDF as vectors with svg2pdf.js, so a stub that throws replaces them.
-const absent = fileURLToPath(new URL('./src/app/lib/absentModule.ts', import.meta.url));
 
 /**
  * The built page keeps a stricter Content-Security-Policy than the dev server can: no inline styles
@@ -47,7 +42,6 @@ const DEV_POLICY = POLICY.replace("style-src 'self'", "style-src 'self' 'unsafe-
 
 export default defineConfig({
   plugins: [svelte(), strictBuildPolicy()],
-  resolve: { alias: { html2canvas: absent, dompurify: absent, canvg: absent, 'fast-png': absent } },
   build: { outDir: 'dist', target: 'es2022', chunkSizeWarningLimit: 800 },
   server: { headers: { 'Content-Security-Policy': DEV_POLICY } },
   preview: { headers: { 'Content-Security-Policy': POLICY } },

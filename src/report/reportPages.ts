@@ -2,7 +2,7 @@ import { CAUTION } from '../engine/caution.ts';
 import type { Primitive, TextItem } from '../plot/geometry.ts';
 import { SHEET_COLOURS } from '../plot/palette.ts';
 import { pagePoints, type PagePlacement, type Paper } from '../plot/pdf.ts';
-import { svgOf, type Drawing } from '../plot/svg.ts';
+import type { Drawing } from '../plot/svg.ts';
 import { textWidth, wrapText } from '../plot/textWidth.ts';
 import type { ReportBlock, StudyReport } from './studyReport.ts';
 
@@ -216,7 +216,7 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
         const fit = Math.min(box.width / block.drawing.width, box.height / block.drawing.height);
         const [w, h] = [block.drawing.width * fit, block.drawing.height * fit];
         pages[pages.length - 1].figure = {
-          svg: svgOf(block.drawing),
+          drawing: block.drawing,
           x: box.x + (box.width - w) / 2,
           y: box.y,
           width: w,

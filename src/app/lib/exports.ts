@@ -1,4 +1,5 @@
 import type { Paper } from '../../plot/pdf.ts';
+import type { Drawing } from '../../plot/svg.ts';
 import type { StudyReport } from '../../report/studyReport.ts';
 import { downloadBlob } from './download.ts';
 import { loadPdfFonts } from './pdfFonts.ts';
@@ -87,14 +88,15 @@ export async function downloadPng(fileName: string, svg: string, scale = 2): Pro
 }
 
 /**
- * Prints a standalone SVG sheet to a one-page PDF on the chosen page with the plot layer's `pdfOf`
- * (the command line's writer, so the same paper gives the same page) and downloads it. DejaVu Sans
- * is embedded, so Ω, µ, ≥ and × print; the writer and the fonts load only when a PDF is asked for.
- * @example await downloadPdf('sheet.pdf', svg, { paper: 'a4', orientation: 'landscape' })
+ * Prints a sheet (the drawing `svgOf` would write) to a one-page PDF on the chosen page with the plot
+ * layer's `pdfOf` (the command line's writer, so the same paper gives the same page) and downloads it.
+ * DejaVu Sans is embedded, so Ω, µ, ≥ and × print; the writer and the fonts load only when a PDF is
+ * asked for.
+ * @example await downloadPdf('sheet.pdf', sheet, { paper: 'a4', orientation: 'landscape' })
  */
-export async function downloadPdf(fileName: string, svg: string, page: ExportPage): Promise<void> {
+export async function downloadPdf(fileName: string, drawing: Drawing, page: ExportPage): Promise<void> {
   const [{ pdfOf }, fonts] = await Promise.all([import('../../plot/pdf.ts'), loadPdfFonts()]);
-  downloadBlob(fileName, pdfBlobOf(await pdfOf(svg, { ...page, fonts })));
+  downloadBlob(fileName, pdfBlobOf(await pdfOf(drawing, { ...page, fonts })));
 }
 
 /**

@@ -13,7 +13,7 @@ let loading: Promise<PdfFonts> | undefined;
  * Fetches the subset DejaVu Sans faces shipped with the workbench (`src/app/assets/fonts/`), once per
  * page: only the URLs are in the start bundle, the bytes come when the first PDF is exported. A failed
  * fetch is not kept, so the next export tries again.
- * @example await pdfOf(svg, { paper: 'a4', fonts: await loadPdfFonts() })
+ * @example await pdfOf(sheet, { paper: 'a4', fonts: await loadPdfFonts() })
  */
 export function loadPdfFonts(): Promise<PdfFonts> {
   loading ??= Promise.all([fetchFont(regularUrl), fetchFont(boldUrl)]).then(

@@ -1,4 +1,6 @@
 import type { StudyContext } from '../state/context.ts';
+import { FIGURE_SIZE } from '../state/SheetState.svelte.ts';
+import { sheetOf } from '../../plot/sheet.ts';
 import { csvReport, markdownReport } from '../../engine/report/index.ts';
 import { downloadText, fileStemOf } from './download.ts';
 import { downloadPdf, downloadPng, downloadReportPdf, downloadSvg, exportPageOf, type ExportKind } from './exports.ts';
@@ -6,7 +8,7 @@ import { probesCsv } from './probeCsv.ts';
 
 /**
  * Carries out one choice of the Export menu: the current sheet as SVG, PNG or PDF (all from the plot
- * layer's SVG, so they match the command line's figure; the PDF on the chosen paper), the findings as
+ * layer's sheet at the figure size, so they match the command line's figure; the PDF on the chosen paper), the findings as
  * Markdown or CSV (the engine's reports, as the command line writes them), the pinned probes as CSV,
  * the study as JSON (as written), or the whole study report as one print-ready HTML page or as a PDF,
  * both on the chosen paper (the same report the command line writes). Throws with a plain message when
@@ -25,7 +27,7 @@ export async function runExport(request: ExportKind, context: StudyContext): Pro
     case 'png':
       return downloadPng(`${stem}-${view}.png`, sheet.figureSvg());
     case 'pdf':
-      return downloadPdf(`${stem}-${view}.pdf`, sheet.figureSvg(), exportPageOf(request));
+      return downloadPdf(`${stem}-${view}.pdf`, figureSheetOf(context), exportPageOf(request));
     case 'findings-md':
       return downloadText(`${stem}-findings.md`, markdownReport(checked(context)), 'text/markdown');
     case 'findings-csv':
@@ -46,6 +48,13 @@ export async function runExport(request: ExportKind, context: StudyContext): Pro
       return downloadReportPdf(`${stem}-report.pdf`, studyReportOf(checked(context)), exportPageOf(request));
     }
   }
+}
+
+// The current view laid out at the figure size, as `figureSvg` lays it out (throws when there is no sheet).
+function figureSheetOf({ sheet }: StudyContext) {
+  const { input, error } = sheet.input;
+  if (!input) throw new Error(error ?? 'there is no sheet to export: the study has no view');
+  return sheetOf(input, { ...FIGURE_SIZE, idPrefix: 'tcc' });
 }
 
 // The analysis with the checks' findings; a report waits for them rather than leaving them out.

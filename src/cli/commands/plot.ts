@@ -28,7 +28,7 @@ Every figure carries the caution line: for review by a qualified engineer.
 
 /**
  * `discern plot <study> --out fig.svg|png|pdf`: analyses the study and writes one view as the same
- * figure the workbench exports (`viewInputOf` → `sheetOf` → `svgOf`, then resvg or jspdf).
+ * figure the workbench exports (`viewInputOf` → `sheetOf`, then `svgOf`, resvg's PNG or `pdfOf`).
  *
  * @example await plotCommand.run(['demo/harrowmere-selective.json', '--view', 'primary', '--out', 'out/primary.pdf'], io)
  */
@@ -78,11 +78,10 @@ export const plotCommand: Command = {
       ? viewTreeOf(study, viewId, scenario)
       : { analysis: analyseStudy(study), label: undefined };
     const sheet = sheetOf(viewInputOf(analysis, viewId), { width, height, idPrefix: `tcc-${viewId}` });
-    const svg = svgOf(sheet);
-    // The PNG and PDF writers load native and large modules: only when asked for.
-    if (format === 'svg') io.writeFile(out, svg);
-    else if (format === 'png') io.writeFile(out, (await import('../../plot/png.ts')).pngOf(svg, { scale }));
-    else io.writeFile(out, await (await import('../../plot/pdf.ts')).pdfOf(svg, { paper, orientation }));
+    // The PNG and PDF writers load a native module and the font reader: only when asked for.
+    if (format === 'svg') io.writeFile(out, svgOf(sheet));
+    else if (format === 'png') io.writeFile(out, (await import('../../plot/png.ts')).pngOf(svgOf(sheet), { scale }));
+    else io.writeFile(out, await (await import('../../plot/pdf.ts')).pdfOf(sheet, { paper, orientation }));
     io.stdout(`${viewId}${label ? ` (${label})` : ''}: wrote ${out}\n`);
     return 0;
   },
