@@ -1,12 +1,4 @@
-import { create, unitDependencies } from 'mathjs';
-
-/** Only the unit machinery of mathjs: user text is parsed as a value with a unit, never evaluated. */
-let unitMath: ReturnType<typeof create> | undefined;
-/** mathjs, created on first use: a study written in the common units never needs it. */
-function math(): ReturnType<typeof create> {
-  unitMath ??= create({ unitDependencies });
-  return unitMath;
-}
+import { unitLibrary } from './unitLibrary.ts';
 
 /** The physical dimensions discern accepts, each with the SI base unit the engine computes in. */
 export const DIMENSIONS = {
@@ -74,7 +66,7 @@ function parseUnchecked(value: unknown, dimension: Dimension, options: ParseQuan
     if (!Number.isFinite(value)) throw new RangeError(`expected a finite ${dimension}`);
     if (value === 0) return 0;
     const factor = COMMON_UNITS[dimension][plainUnit];
-    return factor === undefined ? math().unit(value, plainUnit).toNumber(si) : value * factor;
+    return factor === undefined ? unitLibrary().of(value, plainUnit).toNumber(si) : value * factor;
   }
   if (typeof value !== 'string') throw new TypeError(`expected a ${dimension} as a number or text with a unit`);
   const text = value.trim().replace(/Ω/g, 'ohm').replace(/µ/g, 'u');
@@ -89,11 +81,11 @@ function parseUnchecked(value: unknown, dimension: Dimension, options: ParseQuan
   if (written && factor !== undefined) return Number(written[1]) * factor;
   let unit;
   try {
-    unit = math().unit(text);
+    unit = unitLibrary().parse(text);
   } catch {
     throw new RangeError(`expected a ${dimension} such as "${example(dimension)}"`);
   }
-  if (unit.value === null || !unit.equalBase(math().unit(1, si))) {
+  if (unit.value === null || !unit.equalBase(unitLibrary().of(1, si))) {
     throw new RangeError(`expected a ${dimension} such as "${example(dimension)}"`);
   }
   // Ratings and fault levels are apparent powers. A real power (W, hp) shares the dimension but is
