@@ -1,6 +1,6 @@
 // Reads back what a PDF writer put in a file, for tests: the streams (Flate streams inflated), the
-// characters its ToUnicode maps name, and its pages' MediaBoxes. Enough for jsPDF's output, which
-// writes no object streams; not a general PDF parser.
+// characters its ToUnicode maps name, and its pages' MediaBoxes. Enough for our writer's output, which
+// has no object streams; not a general PDF parser.
 import { inflateSync } from 'node:zlib';
 
 /** Every stream of a PDF as Latin-1 text, inflated when its dictionary says FlateDecode. */

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { JSDOM } from 'jsdom';
 import { plotCommand } from '../../src/cli/commands/plot.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
+import { pagesOf, readPdf, textRunsOf } from '../plot/pdf/pdfReader.ts';
 import { runVerb } from './run.ts';
 
 describe('discern plot', () => {
@@ -30,6 +31,19 @@ describe('discern plot', () => {
       plotCommand,
     );
     expect(new TextDecoder().decode((pdf.files.get('out/x.pdf') as Uint8Array).slice(0, 5))).toBe('%PDF-');
+  });
+
+  it('prints the PDF from the sheet itself: one page whose text reads back as the sheet wrote it, caution included', async () => {
+    const { code, files } = await runVerb(['demo/harrowmere-selective.json', '--out', 'out/x.pdf'], plotCommand);
+    expect(code).toBe(0);
+    const file = readPdf(files.get('out/x.pdf') as Uint8Array);
+    const pages = pagesOf(file);
+    expect(pages).toHaveLength(1);
+    const runs = textRunsOf(file, pages[0]);
+    expect(runs).toContain('Time in seconds');
+    expect(runs.join(' ')).toContain(CAUTION.slice(0, 40));
+    // The y axis title is turned a quarter turn: its text matrix is [0 -1 -1 0 x y].
+    expect(pages[0].content).toMatch(/0 -1 -1 0 [\d.]+ [\d.]+ Tm <[0-9A-F]+> Tj/);
   });
 
   it('prints on the paper and orientation chosen, as the workbench does: A3 portrait is 297 × 420 mm (ISO 216)', async () => {

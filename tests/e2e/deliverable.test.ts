@@ -103,6 +103,8 @@ describe('the study deliverable in the workbench', () => {
     const sheet = await downloaded(page, 'pdf');
     expect(sheet.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     expect(sheet.toString('latin1')).toContain('/FontFile2');
+    // Written by the plot layer's own writer, as the command line's is.
+    expect(sheet.toString('latin1')).toContain('/Producer (discern)');
     expect(mediaBoxesOf(sheet)).toEqual([rounded(pagePoints('a3', 'landscape'))]);
     for (const char of 'Ω≥') expect(toUnicodeOf(sheet).has(char.codePointAt(0)!), `${char} in the sheet`).toBe(true);
 

@@ -16,7 +16,8 @@ export type PathStep =
  * @example pathStepsOf('M0,0L10,0Z') // [{ op: 'M', x: 0, y: 0 }, { op: 'L', x: 10, y: 0 }, { op: 'Z' }]
  */
 export function pathStepsOf(d: string): PathStep[] {
-  const tokens = d.match(/[MmLlHhVvCcSsQqTtAaZz]|[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?/g) ?? [];
+  // Any letter is a command, so an unknown one ends the path instead of being skipped.
+  const tokens = d.match(/[a-zA-Z]|[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?/g) ?? [];
   const steps: PathStep[] = [];
   // Path data must open with a move (SVG 1.1 §8.3.2); anything else draws nothing.
   if (tokens[0] !== 'M' && tokens[0] !== 'm') return steps;

@@ -96,3 +96,16 @@ export function widthsOf(w: string): Map<number, number> {
   }
   return widths;
 }
+
+/** The text runs a page draws, in order, each read back through its font's ToUnicode map. */
+export function textRunsOf(file: PdfFile, page: { body: string; content: string }): string[] {
+  const maps = new Map<string, Map<number, string>>();
+  return [...page.content.matchAll(/\/(F\d+) [\d.]+ Tf[^<]*?<([0-9A-F]*)> Tj/g)].map(([, name, hex]) => {
+    if (!maps.has(name)) {
+      const font = entry(file, page.body, name);
+      maps.set(name, toUnicodeMapOf(entry(file, font.body, 'ToUnicode').stream!.toString('latin1')));
+    }
+    const map = maps.get(name)!;
+    return (hex.match(/.{4}/g) ?? []).map((glyph) => map.get(Number.parseInt(glyph, 16)) ?? '\ufffd').join('');
+  });
+}
