@@ -1,6 +1,21 @@
-import { describe, it, expect } from 'vitest';
-import { EXPORT_PAPERS, exportPageOf, sizeOfSvg } from '../../../src/app/lib/exports.ts';
-import { PAPER_POINTS } from '../../../src/plot/pdf.ts';
+import { readFileSync } from 'node:fs';
+import { describe, it, expect, vi } from 'vitest';
+import { downloadBlob } from '../../../src/app/lib/download.ts';
+import { downloadPdf, EXPORT_PAPERS, exportPageOf, sizeOfSvg } from '../../../src/app/lib/exports.ts';
+import { PAPER_POINTS, pagePoints } from '../../../src/plot/pdf.ts';
+import { sheetOf } from '../../../src/plot/sheet.ts';
+import { fixtureInput } from '../../plot/fixtures.ts';
+import { pagesOf, readPdf, textRunsOf } from '../../plot/pdf/pdfReader.ts';
+
+// The faces the workbench ships, in place of fetching them; the download caught instead of clicked.
+const FONTS = new URL('../../../src/app/assets/fonts/', import.meta.url);
+vi.mock('../../../src/app/lib/pdfFonts.ts', () => ({
+  loadPdfFonts: async () => ({
+    regular: readFileSync(new URL('DejaVuSans.ttf', FONTS)),
+    bold: readFileSync(new URL('DejaVuSans-Bold.ttf', FONTS)),
+  }),
+}));
+vi.mock('../../../src/app/lib/download.ts', () => ({ downloadBlob: vi.fn() }));
 
 describe('exports', () => {
   it('has the expected defaults', () => {
@@ -36,5 +51,18 @@ describe('exports', () => {
     });
     // The menu offers every paper the PDF writer prints on, once each.
     expect(EXPORT_PAPERS.map((choice) => choice.paper).sort()).toEqual(Object.keys(PAPER_POINTS).sort());
+  });
+
+  it('downloadPdf() prints the sheet it is given on the chosen page, with the shipped faces, as application/pdf', async () => {
+    const sheet = sheetOf(fixtureInput({ notes: 'Earth fault path 1.2 Ω' }));
+    await downloadPdf('sheet.pdf', sheet, { paper: 'a3', orientation: 'portrait' });
+    const [name, blob] = vi.mocked(downloadBlob).mock.calls[0];
+    expect(name).toBe('sheet.pdf');
+    expect(blob.type).toBe('application/pdf');
+    const file = readPdf(new Uint8Array(await blob.arrayBuffer()));
+    const [page] = pagesOf(file);
+    const [width, height] = pagePoints('a3', 'portrait');
+    expect(page.body).toContain(`/MediaBox [0 0 ${width} ${height}]`);
+    expect(textRunsOf(file, page).join(' ')).toContain('Earth fault path 1.2 Ω');
   });
 });
