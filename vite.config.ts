@@ -2,6 +2,33 @@ import { defineConfig } from 'vitest/config';
 import type { Plugin } from 'vite';
 import { svelte } from '@sveltejs/vite-plugin-svelte';
 
+/** What the page's code says where the checks' worker script will be; the build writes its file name in. */
+const CHECKS_WORKER_PLACEHOLDER = './discern-checks-worker.js';
+
+/**
+ * The checks' worker is built as a second entry of the page's own build, not as a separate worker
+ * bundle, so the engine code both load (bands, fault levels, checks) sits in chunks they share and a
+ * browser downloads once. The page learns the worker entry's hashed file name here, once every chunk
+ * has its name (see `src/app/worker/runners.ts`).
+ */
+function checksWorkerEntry(): Plugin {
+  return {
+    name: 'discern-checks-worker-entry',
+    apply: 'build',
+    generateBundle(_, bundle) {
+      const worker = Object.values(bundle).find(
+        (file) => file.type === 'chunk' && file.isEntry && file.name === 'checks',
+      );
+      if (!worker) throw new Error('checks worker: expected an entry named "checks" in the build, got none');
+      const name = `./${worker.fileName.split('/').pop()}`;
+      for (const file of Object.values(bundle)) {
+        if (file.type === 'chunk' && file.code.includes(CHECKS_WORKER_PLACEHOLDER))
+          file.code = file.code.replaceAll(CHECKS_WORKER_PLACEHOLDER, name);
+      }
+    },
+  };
+}
+
 /**
  * The built page keeps a stricter Content-Security-Policy than the dev server can: no inline styles
  * (the dev server injects them for hot reload) and no WebSocket (hot reload's channel).
@@ -41,31 +68,15 @@ const DEV_POLICY = POLICY.replace("style-src 'self'", "style-src 'self' 'unsafe-
 );
 
 export default defineConfig({
-  plugins: [svelte(), strictBuildPolicy()],
-  build: { outDir: 'dist', target: 'es2022', chunkSizeWarningLimit: 800 },
+  plugins: [svelte(), strictBuildPolicy(), checksWorkerEntry()],
+  build: {
+    outDir: 'dist',
+    target: 'es2022',
+    chunkSizeWarningLimit: 800,
+    rolldownOptions: { input: { index: 'index.html', checks: 'src/app/worker/analysis.worker.ts' } },
+  },
   server: { headers: { 'Content-Security-Policy': DEV_POLICY } },
   preview: { headers: { 'Content-Security-Policy': POLICY } },
-  worker: {
-    format: 'es',
-    // The checks' worker gets parsed studies, so it needs no schema: the engine builds its zod schemas
-    // (and the unit parser) at module level, and these calls are marked pure so the worker drops them.
-    rolldownOptions: {
-      treeshake: {
-        manualPureFunctions: [
-          'z',
-          'create',
-          'createStudySchema',
-          'createCharacteristicSchema',
-          'createRelaySchema',
-          'createTripUnitSchema',
-          'createThermalMagneticSchema',
-          'quantityField',
-          'percentField',
-          'pointTableSchema',
-        ],
-      },
-    },
-  },
   test: {
     include: ['tests/**/*.test.ts'],
     environment: 'node',

@@ -9,7 +9,7 @@ import type { AnalyseReply, AnalyseRequest } from './protocol.ts';
  * @example new AnalysisState(study, workerRunner())
  */
 export function workerRunner(): CheckRunner {
-  const worker = new Worker(new URL('./analysis.worker.ts', import.meta.url), { type: 'module', name: 'checks' });
+  const worker = new Worker(checksWorkerUrl(), { type: 'module', name: 'checks' });
   const runner: CheckRunner = {
     post: (request) => worker.postMessage(request),
     onreply: undefined,
@@ -17,6 +17,17 @@ export function workerRunner(): CheckRunner {
   worker.onmessage = (event: MessageEvent<AnalyseReply>) => runner.onreply?.(event.data);
   worker.onerror = (event) => runner.onreply?.({ seq: -1, ok: false, message: event.message });
   return runner;
+}
+
+/**
+ * Where the worker's script is. The built page has it as the build's `checks` entry, beside the
+ * page's own chunks and sharing the engine's with them (the build writes its hashed name in for the
+ * placeholder; see `vite.config.ts`); the dev server serves the source module. The name is put
+ * together at run time so the bundler does not make a separate worker bundle of it.
+ */
+function checksWorkerUrl(): URL {
+  const source = ['.', 'analysis.worker.ts'].join('/');
+  return new URL(import.meta.env.DEV ? source : './discern-checks-worker.js', import.meta.url);
 }
 
 /**
