@@ -165,8 +165,16 @@ async function bundleSizes() {
   // Every asset counts: scripts, styles and the fonts a PDF export fetches.
   const assets = readdirSync(`${ROOT}dist/assets`).filter((f) => /\.(js|css|ttf|woff2?)$/.test(f));
   const gz = (file: string) => gzipSync(readFileSync(`${ROOT}dist/assets/${file}`), { level: 9 }).length;
-  // At start: the entry script and stylesheet named in index.html, and the checks' worker it starts at once.
-  const atStart = assets.filter((f) => html.includes(`/assets/${f}`) || f.startsWith('analysis.worker'));
+  // At start: the scripts and stylesheet named in index.html, and the checks' worker they start at once
+  // (an entry of the same build, named in the page's code as `new URL("./checks-….js", import.meta.url)`).
+  const named = assets.filter((f) => html.includes(`/assets/${f}`));
+  const workers = named
+    .filter((f) => f.endsWith('.js'))
+    .flatMap((f) => [
+      ...readFileSync(`${ROOT}dist/assets/${f}`, 'utf8').matchAll(/new URL\(\s*["'`]\.\/([\w.-]+\.js)["'`]/g),
+    ])
+    .map((match) => match[1]);
+  const atStart = assets.filter((f) => named.includes(f) || workers.includes(f));
   const onDemand = assets.filter((f) => !atStart.includes(f));
   const sum = (files: string[]) => files.reduce((total, f) => total + gz(f), 0);
   return { start: sum(atStart), onDemand: sum(onDemand), files: atStart };
