@@ -138,6 +138,16 @@ describe('pdfOf', () => {
     expect(id(first)).not.toBe(id(await pdfOf(sheet, { paper: 'a4' })));
   });
 
+  it('pdfOf titles the document with the drawing’s title, in UTF-16 so Ω survives', async () => {
+    const info = text(await pdfOf(drawing));
+    const title = /\/Title <FEFF([0-9A-F]*)>/.exec(info)![1];
+    const units = title.match(/.{4}/g)!.map((unit) => Number.parseInt(unit, 16));
+    expect(String.fromCharCode(...units)).toBe('Test drawing, R in Ω');
+    expect(text(await pdfOf(drawing, { title: 'Sheet V1' }))).toContain(
+      `/Title <FEFF${[...'Sheet V1'].map((c) => c.charCodeAt(0).toString(16).padStart(4, '0').toUpperCase()).join('')}>`,
+    );
+  });
+
   it('pdfOf writes a cross-reference table whose every offset points at its object', async () => {
     const file = readPdf(await pdfOf(sheet));
     expect(file.objects.size).toBeGreaterThan(8);
