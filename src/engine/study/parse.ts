@@ -6,7 +6,7 @@ import { createStudySchema, studySchema, type Study } from './schema.ts';
 import { structureProblems } from './structure.ts';
 
 /** The 50 Hz schema (times in cycles read at 50 Hz), built once, when the first 50 Hz study is read. */
-let studySchema50: ReturnType<typeof createStudySchema> | undefined;
+let studySchema50: typeof studySchema | undefined;
 
 /** One thing wrong with a study file, located by its field path (`study.transformers[1].impedance`). */
 export interface StudyProblem {
@@ -35,24 +35,46 @@ export interface StudyReading {
  * @example const { study, problems } = readStudy(await readFile('demo/selective.json', 'utf8'))
  */
 export function readStudy(input: unknown): StudyReading {
+  return readStudyParsed(input).reading;
+}
+
+/**
+ * `readStudy`, also giving the schema's output (`parsed`) whenever the schema accepts the document,
+ * whether or not the tree rules then pass: what `readStudyEdit` reuses for the items an edit left alone.
+ *
+ * @example const { reading, parsed } = readStudyParsed(document)
+ */
+export function readStudyParsed(input: unknown): { reading: StudyReading; parsed?: Study } {
   let raw = input;
   if (typeof input === 'string') {
     const text = withoutBom(input);
     const problem = jsonTextProblem(text);
-    if (problem) return { problems: [problem] };
+    if (problem) return { reading: { problems: [problem] } };
     raw = JSON.parse(text);
   }
   const problem = documentProblem(raw);
-  if (problem) return { document: raw, problems: [problem] };
+  if (problem) return { reading: { document: raw, problems: [problem] } };
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
-    return { document: raw, problems: [{ path: 'study', message: `expected a JSON object, got ${quoteGot(raw)}` }] };
+    return {
+      reading: {
+        document: raw,
+        problems: [{ path: 'study', message: `expected a JSON object, got ${quoteGot(raw)}` }],
+      },
+    };
   }
-  const frequency = (raw as { frequency?: unknown }).frequency;
-  const schema = frequency === 50 ? (studySchema50 ??= createStudySchema(50)) : studySchema;
-  const parsed = schema.safeParse(raw, { reportInput: true });
-  if (!parsed.success) return { document: raw, problems: parsed.error.issues.map(describeIssue) };
+  const parsed = studySchemaFor((raw as { frequency?: unknown }).frequency).safeParse(raw, { reportInput: true });
+  if (!parsed.success) return { reading: { document: raw, problems: parsed.error.issues.map(describeIssue) } };
   const problems = structureProblems(parsed.data);
-  return problems.length > 0 ? { document: raw, problems } : { study: parsed.data, document: raw, problems };
+  const reading = problems.length > 0 ? { document: raw, problems } : { study: parsed.data, document: raw, problems };
+  return { reading, parsed: parsed.data };
+}
+
+/**
+ * The schema a document's `frequency` calls for: the 50 Hz one for `50`, else the 60 Hz one.
+ * @example studySchemaFor(50).safeParse(document)
+ */
+export function studySchemaFor(frequency: unknown): typeof studySchema {
+  return frequency === 50 ? (studySchema50 ??= createStudySchema(50)) : studySchema;
 }
 
 /**
@@ -70,6 +92,16 @@ const NUMBER_MAGNITUDE = { smallest: 1e-9, largest: 1e12 };
  */
 function documentProblem(input: unknown): StudyProblem | undefined {
   return problemBelow(input, 0, []);
+}
+
+/**
+ * `documentProblem` of a part of a document: the value at `path` (object keys and array indexes from
+ * the top), walked as the whole document's walk would reach it, problems named by their full path.
+ *
+ * @example documentProblemAt(device, ['devices', 3]) // the first number out of range in devices[3]
+ */
+export function documentProblemAt(value: unknown, path: readonly PropertyKey[]): StudyProblem | undefined {
+  return problemBelow(value, path.length, [...path]);
 }
 
 function problemBelow(value: unknown, depth: number, path: PropertyKey[]): StudyProblem | undefined {
@@ -125,6 +157,7 @@ export function formatPath(path: readonly PropertyKey[]): string {
   return formatIssuePath('study', path);
 }
 
-function describeIssue(issue: z.core.$ZodIssue): StudyProblem {
+/** A zod issue as a problem of the study: its path as the user reads it and its one-line message. */
+export function describeIssue(issue: z.core.$ZodIssue): StudyProblem {
   return { path: formatPath(issue.path), message: issueMessage(issue) };
 }
