@@ -203,6 +203,25 @@ describe('pdfOf', () => {
       expect(got).toBeCloseTo(want, 5);
   });
 
+  it('pdfOf paints as SVG does when paint is left out: fill black, no stroke, a missing hatch unfilled', async () => {
+    const items: Primitive[] = [
+      { type: 'path', role: 'marker', d: 'M1,1L9,1L5,9Z' },
+      { type: 'path', role: 'region', d: 'M1,1L9,1L5,9Z', patternId: 'nowhere', stroke: '#0072B2' },
+      { type: 'rect', role: 'legend-swatch', x: 2, y: 2, width: 6, height: 4, patternId: 'h1', stroke: '#D55E00' },
+      { type: 'rect', role: 'empty', x: 2, y: 2, width: 0, height: 4, fill: '#000000' },
+      { type: 'path', role: 'unpainted', d: 'M0,0L5,5', fill: 'none', stroke: 'none' },
+    ];
+    const small: Drawing = { ...drawing, width: 10, height: 10, layers: [{ name: 'x', items }] };
+    const [{ content }] = pagesOf(readPdf(await pdfOf(small)));
+    const shapes = content.split('\nq\n').slice(1);
+    expect(shapes).toEqual([
+      '0 0 0 rg\n1 1 m 9 1 l 5 9 l h\nf\nQ',
+      '0 0.447 0.698 RG 1 w\n1 1 m 9 1 l 5 9 l h\nS\nQ',
+      // The last one closes the placement too.
+      '/Pattern cs /P1 scn\n0.835 0.369 0 RG 1 w\n2 2 6 4 re\nB\nQ\nQ',
+    ]);
+  });
+
   it('pdfOf anchors text by the face’s advance widths and turns a rotated label about its anchor', async () => {
     const file = readPdf(await pdfOf(drawing));
     const [{ content }] = pagesOf(file);
