@@ -27,6 +27,6 @@ export default defineConfig({
       'd3-path',
       'internmap',
     ],
-    external: ['@resvg/resvg-js', 'jspdf', 'svg2pdf.js', 'jsdom'],
+    external: ['@resvg/resvg-js'],
   },
 });
