@@ -1,6 +1,6 @@
 // Bundles the command line into one file (dist-cli/discern.js, built by `npm install` through `prepare`) so the installed `discern` starts fast: the engine's
-// TypeScript is compiled ahead and mathjs is cut down to its unit machinery. PNG and PDF writers stay
-// external and load only when a figure in those formats is asked for.
+// TypeScript is compiled ahead and mathjs is cut down to its unit machinery. The PNG renderer (a native
+// module) stays external, and it and the PDF writer load only when a figure in those formats is asked for.
 import { defineConfig } from 'vite';
 
 export default defineConfig({
