@@ -61,6 +61,9 @@ const NODE_FONT_DIR = '/usr/share/fonts/truetype/dejavu/';
 export async function pdfOf(drawing: Drawing, options: PdfOptions = {}): Promise<Uint8Array> {
   const { paper = 'letter', margin = 36, orientation = 'landscape' } = options;
   checkOptions(paper, margin, orientation);
+  for (const side of ['width', 'height'] as const)
+    if (!(drawing[side] > 0 && Number.isFinite(drawing[side])))
+      throw new RangeError(`drawing.${side}: expected a size in px greater than 0, got "${drawing[side]}"`);
   const [pageWidth, pageHeight] = pagePoints(paper, orientation);
   const fit = Math.min((pageWidth - 2 * margin) / drawing.width, (pageHeight - 2 * margin) / drawing.height);
   const [w, h] = [drawing.width * fit, drawing.height * fit];

@@ -121,6 +121,9 @@ describe('pdfOf', () => {
     await expect(pdfOf(sheet, { margin: -1 })).rejects.toThrow(
       /^options\.margin: expected points from 0 to 200, got "-1"$/,
     );
+    await expect(pdfOf({ ...drawing, height: 0 })).rejects.toThrow(
+      /^drawing\.height: expected a size in px greater than 0, got "0"$/,
+    );
     await expect(pdfOf(sheet, { date: 'soon' })).rejects.toThrow(/^options\.date: expected an ISO date, got "soon"$/);
     await expect(pdfOf(sheet, { fonts: { regular: new Uint8Array(40) } })).rejects.toThrow(
       /^options\.fonts: expected TrueType font bytes, got 40 bytes of something else$/,
