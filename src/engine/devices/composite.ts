@@ -27,23 +27,60 @@ export interface EdgeElement {
 
 /**
  * The closed-form element formulas, as data: `flat` (a definite time), `i2t` (`k / I²`, held at `flat`
- * from `flatFrom` amps), `inverse` (`dial · (a / (M^p − 1) + b)` with `M = I · inversePickup`, held
- * at `capTime` from the multiple `cap`) and `table` (a point table, log-log interpolated).
+ * from `flatFrom` amps), `inverse` (see `InverseShape`) and `table` (a point table, log-log interpolated).
  */
 export type ElementShape =
   | TableShape
+  | InverseShape
   | { kind: 'flat'; seconds: number }
-  | { kind: 'i2t'; k: number; flatFrom: number; flat: number }
-  | {
-      kind: 'inverse';
-      inversePickup: number;
-      dial: number;
-      a: number;
-      b: number;
-      p: number;
-      cap: number;
-      capTime: number;
-    };
+  | { kind: 'i2t'; k: number; flatFrom: number; flat: number };
+
+/**
+ * An inverse-time element: `dial · (a / (M^p − 1) + b)` with `M = I · inversePickup` (A⁻¹), `Infinity`
+ * for `M ≤ 1`, held at `capTime` (s) from the multiple `cap`. For an exponent other than 1 or 2,
+ * `M^p − 1` is taken from the power of the multiple of another pickup, `R = I · referenceInverse`:
+ * `M^p − 1 = (R^p − 1) · K + (K − 1)` with `K = (inversePickup / referenceInverse)^p`, so the two edges
+ * of a band with a pickup tolerance share one logarithm and one exponential per current.
+ * `referenceInverse` is the lowest pickup's (`R ≥ M`, so `R^p − 1` is never small where `M^p − 1` is
+ * not), or `inversePickup` itself, when the formula is the plain `expm1(p · ln M)`. Within a few ulp above
+ * the pickup, where rounding may leave `M^p − 1` at or below zero, the time is `Infinity`.
+ */
+export interface InverseShape {
+  kind: 'inverse';
+  inversePickup: number;
+  dial: number;
+  a: number;
+  b: number;
+  p: number;
+  cap: number;
+  capTime: number;
+  referenceInverse: number;
+}
+
+/**
+ * The time function of an inverse element (see `InverseShape`): the formula a composite edge computes inline.
+ * @example inverseShapeTime({ kind: 'inverse', inversePickup: 1 / 600, dial: 2, a: 19.61, b: 0.491, p: 2,
+ *   cap: Infinity, capTime: 0.982, referenceInverse: 1 / 600 })(6000) // 1.37816 s
+ */
+export function inverseShapeTime(shape: InverseShape): (amps: number) => number {
+  const { inversePickup, dial, a, b, p, cap, capTime, referenceInverse } = shape;
+  const [scale, scaleMinusOne] = powerScale(shape);
+  return (amps) => {
+    const m = amps * inversePickup;
+    if (m >= cap) return capTime;
+    if (!(m > 1)) return Infinity;
+    const q =
+      p === 2 ? m * m - 1 : p === 1 ? m - 1 : Math.expm1(p * Math.log(amps * referenceInverse)) * scale + scaleMinusOne;
+    return q > 0 ? dial * (a / q + b) : Infinity;
+  };
+}
+
+/** `K` and `K − 1` of an inverse shape (see `InverseShape`), `K − 1` without cancellation. */
+function powerScale({ inversePickup, referenceInverse, p }: InverseShape): [number, number] {
+  if (inversePickup === referenceInverse) return [1, 0];
+  const exponent = p * Math.log(inversePickup / referenceInverse);
+  return [Math.exp(exponent), Math.expm1(exponent)];
+}
 
 /** A composite edge: its time function and the currents where it changes formula. */
 export interface CompositeEdge {
@@ -51,11 +88,17 @@ export interface CompositeEdge {
   /**
    * `out[i] = time(amps[i])` for every `i`, the same doubles, one element at a time over the whole array.
    * `logs` is scratch the length of `amps` holding `Math.log(amps[i])` or NaN where not yet taken; table
-   * elements fill it, so two edges of one band take each logarithm once.
+   * elements fill it, so two edges of one band take each logarithm once. `powers` is the same for the
+   * `R^p − 1` of the edge's first inverse element with `p` other than 1 or 2 (see `InverseShape`).
    */
-  timesInto(amps: Float64Array, out: Float64Array, logs: Float64Array): void;
+  timesInto(amps: Float64Array, out: Float64Array, logs: Float64Array, powers: Float64Array): void;
   /** Whether `timesInto` reads `logs` (the edge has a table element); otherwise any array will do. */
   tabulated: boolean;
+  /**
+   * The reference and exponent of the powers `timesInto` keeps in `powers`, or undefined when it keeps
+   * none; two edges with the same may share the array.
+   */
+  power: { referenceInverse: number; p: number } | undefined;
   /** Pickups, joins and element crossings, ascending and unique (A). */
   breakpoints: number[];
   /** Lowest current (A) at which the edge is finite. */
@@ -76,6 +119,12 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   const ordered = [...elements].sort((x, y) => Number(x.reach !== undefined) - Number(y.reach !== undefined));
   const pickups = Float64Array.from(ordered, (element) => element.pickup);
   const { kinds, params, tables, others } = packed(ordered);
+  // The first inverse element with a transcendental power keeps its powers in the shared scratch.
+  let powerElement = -1;
+  for (let e = 0; e < count && powerElement < 0; e++) {
+    const p = params[e * STRIDE + 4];
+    if (kinds[e] === INVERSE && p !== 1 && p !== 2) powerElement = e;
+  }
   // One function for every composite edge, with the formulas inline: the callers' call sites see a
   // single function, and no element closure is called except for tables.
   const time = (amps: number): number => {
@@ -94,14 +143,17 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
         case INVERSE: {
           const m = amps * params[at];
           const p = params[at + 4];
-          t =
-            m >= params[at + 5]
-              ? params[at + 6]
-              : m > 1
-                ? params[at + 1] *
-                  (params[at + 2] / (p === 2 ? m * m - 1 : p === 1 ? m - 1 : Math.expm1(p * Math.log(m))) +
-                    params[at + 3])
-                : Infinity;
+          if (m >= params[at + 5]) t = params[at + 6];
+          else if (!(m > 1)) t = Infinity;
+          else {
+            const q =
+              p === 2
+                ? m * m - 1
+                : p === 1
+                  ? m - 1
+                  : Math.expm1(p * Math.log(amps * params[at + 7])) * params[at + 8] + params[at + 9];
+            t = q > 0 ? params[at + 1] * (params[at + 2] / q + params[at + 3]) : Infinity;
+          }
           break;
         }
         default:
@@ -118,7 +170,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   // The last element's pass also applies the floor and the added time, saving a pass, when it is a
   // curved one (as it is in every family: flat elements come first); otherwise a pass of its own does.
   const finishedBy = count > 0 && kinds[count - 1] !== FLAT && kinds[count - 1] !== OTHER ? count - 1 : -1;
-  const timesInto = (amps: Float64Array, out: Float64Array, logs: Float64Array): void => {
+  const timesInto = (amps: Float64Array, out: Float64Array, logs: Float64Array, powers: Float64Array): void => {
     const n = amps.length;
     // Read from a Float64Array so the loops see doubles, never a small integer in some closures.
     const lowest = bounds[0];
@@ -152,7 +204,16 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
           break;
         }
         case INVERSE:
-          inverseTimesInto(params, at, pickup, amps, out, bounds, e === finishedBy);
+          inverseTimesInto(
+            params,
+            at,
+            pickup,
+            amps,
+            out,
+            bounds,
+            e === finishedBy,
+            e === powerElement ? powers : undefined,
+          );
           break;
         case TABLE:
           // A table is Infinity below its first current, its pickup, so it needs no pickup test here.
@@ -191,6 +252,10 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
     time,
     timesInto,
     tabulated: kinds.includes(TABLE),
+    power:
+      powerElement < 0
+        ? undefined
+        : { referenceInverse: params[powerElement * STRIDE + 7], p: params[powerElement * STRIDE + 4] },
     breakpoints: uniqueAscending(points),
     minAmps: Math.min(Infinity, ...pickups),
   };
@@ -198,7 +263,8 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
 
 /**
  * An inverse element's pass of `timesInto`, with its constants read once; the formula of `time`.
- * `bounds` holds the edge's floor and added time; with `finish` they are applied too.
+ * `bounds` holds the edge's floor and added time; with `finish` they are applied too. With `powers`,
+ * each `R^p − 1` is read from it where already there (not NaN) and kept in it where taken.
  */
 function inverseTimesInto(
   params: Float64Array,
@@ -208,6 +274,7 @@ function inverseTimesInto(
   out: Float64Array,
   bounds: Float64Array,
   finish: boolean,
+  powers: Float64Array | undefined,
 ): void {
   const floor = bounds[0];
   const added = bounds[1];
@@ -218,18 +285,32 @@ function inverseTimesInto(
   const p = params[at + 4];
   const cap = params[at + 5];
   const capTime = params[at + 6];
+  const referenceInverse = params[at + 7];
+  const scale = params[at + 8];
+  const scaleMinusOne = params[at + 9];
   const n = amps.length;
   for (let i = 0; i < n; i++) {
     const current = amps[i];
     let fastest = out[i];
     if (fastest > floor && current >= pickup) {
       const m = current * inversePickup;
-      const t =
-        m >= cap
-          ? capTime
-          : m > 1
-            ? dial * (a / (p === 2 ? m * m - 1 : p === 1 ? m - 1 : Math.expm1(p * Math.log(m))) + b)
-            : Infinity;
+      let t: number;
+      if (m >= cap) t = capTime;
+      else if (!(m > 1)) t = Infinity;
+      else {
+        let q: number;
+        if (p === 2) q = m * m - 1;
+        else if (p === 1) q = m - 1;
+        else {
+          let power = powers === undefined ? NaN : powers[i];
+          if (power !== power) {
+            power = Math.expm1(p * Math.log(current * referenceInverse));
+            if (powers !== undefined) powers[i] = power;
+          }
+          q = power * scale + scaleMinusOne;
+        }
+        t = q > 0 ? dial * (a / q + b) : Infinity;
+      }
       if (t < fastest) fastest = t;
     }
     out[i] = finish ? (fastest > floor ? fastest : floor) + added : fastest;
@@ -242,7 +323,7 @@ const INVERSE = 2;
 const OTHER = 3;
 const TABLE = 4;
 /** Parameters per element in the packed array. */
-const STRIDE = 7;
+const STRIDE = 10;
 
 /**
  * Elements as kind codes and packed parameters; tables keep their shape for `timesInto` (and their
@@ -266,7 +347,8 @@ function packed(elements: readonly EdgeElement[]) {
       params.set([shape.k, shape.flatFrom, shape.flat], at);
     } else if (shape?.kind === 'inverse') {
       kinds[i] = INVERSE;
-      params.set([shape.inversePickup, shape.dial, shape.a, shape.b, shape.p, shape.cap, shape.capTime], at);
+      const { inversePickup, dial, a, b, p, cap, capTime, referenceInverse } = shape;
+      params.set([inversePickup, dial, a, b, p, cap, capTime, referenceInverse, ...powerScale(shape)], at);
     } else if (shape?.kind === 'table') {
       // `time` calls the table's own closure, as before; `timesInto` walks the table with a cursor.
       kinds[i] = TABLE;
@@ -333,8 +415,12 @@ export function bandOfEdges(
   diagnostics: string[],
 ): Band {
   const tabulated = low.tabulated || high.tabulated;
-  // Scratch for the logarithms the two edges share, kept with the band and grown when needed.
+  const powered = low.power !== undefined || high.power !== undefined;
+  // The edges share their powers when they take the same ones (a relay's two tolerance edges).
+  const sharedPowers = low.power?.referenceInverse === high.power?.referenceInverse && low.power?.p === high.power?.p;
+  // Scratch for the logarithms and powers the two edges share, kept with the band and grown when needed.
   let logs = new Float64Array(0);
+  let powers = new Float64Array(0);
   return {
     minTime: low.time,
     maxTime: high.time,
@@ -344,8 +430,13 @@ export function bandOfEdges(
         if (logs.length < n) logs = new Float64Array(n);
         logs.fill(NaN, 0, n);
       }
-      low.timesInto(amps, minTimes, logs);
-      high.timesInto(amps, maxTimes, logs);
+      if (powered) {
+        if (powers.length < n) powers = new Float64Array(n);
+        powers.fill(NaN, 0, n);
+      }
+      low.timesInto(amps, minTimes, logs, powers);
+      if (powered && !sharedPowers) powers.fill(NaN, 0, n);
+      high.timesInto(amps, maxTimes, logs, powers);
     },
     breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
     minAmps: low.minAmps,

@@ -1,5 +1,12 @@
 import type { Band } from '../band.ts';
-import { bandOfEdges, compositeEdge, definiteElement, type EdgeElement } from './composite.ts';
+import {
+  bandOfEdges,
+  compositeEdge,
+  definiteElement,
+  inverseShapeTime,
+  type EdgeElement,
+  type InverseShape,
+} from './composite.ts';
 import { INVERSE_CURVES, inverseMultiple, inverseTime, type InverseCurveName } from './inverseCurves.ts';
 import type { Relay } from './relaySchema.ts';
 
@@ -17,11 +24,15 @@ export function relayBand(relay: Relay): Band {
   const { ct, timeOvercurrent, instantaneous, operatingTime, breakerTime, tolerance } = relay;
   const ratio = ct.primary / ct.secondary;
   const diagnostics: string[] = [];
+  // Both edges' inverse elements take their powers from the multiple of the low edge's pickup, so they share them.
+  const lowestScale = ratio * (1 - tolerance.pickup / 100);
   const edge = (side: -1 | 1, add: number) => {
     const pickupFactor = 1 + (side * tolerance.pickup) / 100;
     const timeFactor = 1 + (side * tolerance.time) / 100;
     const elements: EdgeElement[] = [];
-    if (timeOvercurrent) elements.push(overcurrentElement(timeOvercurrent, ratio * pickupFactor, timeFactor));
+    if (timeOvercurrent) {
+      elements.push(overcurrentElement(timeOvercurrent, ratio * pickupFactor, timeFactor, lowestScale));
+    }
     if (instantaneous) {
       elements.push(definiteElement(instantaneous.pickup * ratio * pickupFactor, instantaneous.delay * timeFactor));
     }
@@ -43,11 +54,15 @@ export function relayBand(relay: Relay): Band {
   return bandOfEdges(low, high, Infinity, diagnostics);
 }
 
-/** The time-overcurrent element in primary amperes, with its pickup and time scaled by the edge factors. */
+/**
+ * The time-overcurrent element in primary amperes, with its pickup and time scaled by the edge factors;
+ * `referenceScale` scales the pickup whose multiple's power the element's own is taken from (`InverseShape`).
+ */
 function overcurrentElement(
   element: NonNullable<Relay['timeOvercurrent']>,
   pickupScale: number,
   timeFactor: number,
+  referenceScale: number,
 ): EdgeElement {
   const pickup = element.pickup * pickupScale;
   if (element.curve === 'definite-time') return definiteElement(pickup, (element.delay ?? 0) * timeFactor);
@@ -55,29 +70,14 @@ function overcurrentElement(
   const dial = (element.timeDial ?? element.timeMultiplier ?? 1) * timeFactor;
   const cap = element.definiteTimeFrom ?? Infinity;
   const capTime = inverseTime(curve, cap, dial);
-  const inverse = 1 / pickup;
   const { a, b, p } = INVERSE_CURVES[curve];
-  // Inlined inverseTime with the constants bound: this closure runs once per current on every redraw
-  // (DEVELOPERS.md, benchmarks P1). For p = 0.02, expm1(p · ln m) is both faster than Math.pow and exact near m = 1.
-  const time =
-    p === 2
-      ? (amps: number) => {
-          const m = amps * inverse;
-          return m >= cap ? capTime : m > 1 ? dial * (a / (m * m - 1) + b) : Infinity;
-        }
-      : p === 1
-        ? (amps: number) => {
-            const m = amps * inverse;
-            return m >= cap ? capTime : m > 1 ? dial * (a / (m - 1) + b) : Infinity;
-          }
-        : (amps: number) => {
-            const m = amps * inverse;
-            return m >= cap ? capTime : m > 1 ? dial * (a / Math.expm1(p * Math.log(m)) + b) : Infinity;
-          };
+  const inversePickup = 1 / pickup;
+  const referenceInverse = 1 / (element.pickup * referenceScale);
+  const shape: InverseShape = { kind: 'inverse', inversePickup, dial, a, b, p, cap, capTime, referenceInverse };
   return {
     pickup,
-    time,
-    shape: { kind: 'inverse', inversePickup: inverse, dial, a, b, p, cap, capTime },
+    time: inverseShapeTime(shape),
+    shape,
     joins: Number.isFinite(cap) ? [cap * pickup] : [],
     levels: Number.isFinite(cap) ? [capTime] : [],
     reach: (seconds) => {
