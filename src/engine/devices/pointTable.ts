@@ -19,7 +19,10 @@ export function pointProblem(
   i: number,
   { current, unit }: PointTableOptions,
 ): { column: 0 | 1; message: string } | undefined {
-  const [amps, seconds] = points[i];
+  // Read by index, not destructured: a table's every point is checked, and destructuring goes through
+  // an iterator per point.
+  const amps = points[i][0];
+  const seconds = points[i][1];
   if (!(amps > 0) || !Number.isFinite(amps)) {
     return { column: 0, message: `expected ${current} greater than 0, got "${amps}"` };
   }
@@ -27,7 +30,8 @@ export function pointProblem(
     return { column: 1, message: `expected a time in seconds greater than 0, got "${seconds}"` };
   }
   if (i === 0) return undefined;
-  const [previousAmps, previousSeconds] = points[i - 1];
+  const previousAmps = points[i - 1][0];
+  const previousSeconds = points[i - 1][1];
   if (!(amps > previousAmps)) {
     return {
       column: 0,
@@ -176,7 +180,9 @@ export function upperBelowLower(
   const high = tableElement(upper);
   if (high.pickup < low.pickup)
     return { amps: high.pickup, lowerSeconds: Infinity, upperSeconds: high.time(high.pickup) };
-  for (const amps of [...lower, ...upper].map(([a]) => a).sort((a, b) => a - b)) {
+  // Every tabulated current of both tables in ascending order: the two ascending columns merged.
+  for (let i = 0, j = 0; i < lower.length || j < upper.length;) {
+    const amps = j === upper.length || (i < lower.length && lower[i][0] <= upper[j][0]) ? lower[i++][0] : upper[j++][0];
     const lowerSeconds = low.time(amps);
     const upperSeconds = high.time(amps);
     // A relative slack of 1e-12 forgives the round trip through logarithms at shared points.
