@@ -53,34 +53,49 @@ function fuseTimesInto(
   minTimes: Float64Array,
   maxTimes: Float64Array,
 ): void {
-  const lastMelting = melting.logAmps.length - 2;
-  const lastClearing = clearing.logAmps.length - 2;
+  // Everything the loop reads, in locals: the two tables' columns, first and last points.
+  const {
+    logAmps: meltingLogs,
+    seconds: meltingSeconds,
+    logSeconds: meltingLogSeconds,
+    slopes: meltingSlopes,
+  } = melting;
+  const {
+    logAmps: clearingLogs,
+    seconds: clearingSeconds,
+    logSeconds: clearingLogSeconds,
+    slopes: clearingSlopes,
+  } = clearing;
+  const lastMelting = meltingLogs.length - 2;
+  const lastClearing = clearingLogs.length - 2;
+  const meltingFirst = melting.first;
+  const meltingLast = melting.lastAmps;
+  const meltingHeld = meltingSeconds[lastMelting + 1];
+  const clearingFirst = clearing.first;
+  const clearingLast = clearing.lastAmps;
+  const clearingHeld = clearingSeconds[lastClearing + 1];
   let km = 0;
   let kc = 0;
   for (let i = 0, n = amps.length; i < n; i++) {
     const current = amps[i];
-    let x = NaN;
-    let melts: number;
-    if (current >= melting.lastAmps) melts = melting.seconds[lastMelting + 1];
-    else if (!(current >= melting.first)) melts = Infinity;
-    else {
-      x = Math.log(current);
-      const { logAmps, seconds, logSeconds, slopes } = melting;
-      while (km < lastMelting && logAmps[km + 1] <= x) km++;
-      while (km > 0 && logAmps[km] > x) km--;
-      const dx = x - logAmps[km];
-      melts = dx === 0 ? seconds[km] : Math.exp(logSeconds[km] + dx * slopes[km]);
-    }
-    let clears: number;
-    if (current >= clearing.lastAmps) clears = clearing.seconds[lastClearing + 1];
-    else if (!(current >= clearing.first)) clears = Infinity;
-    else {
-      if (x !== x) x = Math.log(current);
-      const { logAmps, seconds, logSeconds, slopes } = clearing;
-      while (kc < lastClearing && logAmps[kc + 1] <= x) kc++;
-      while (kc > 0 && logAmps[kc] > x) kc--;
-      const dx = x - logAmps[kc];
-      clears = dx === 0 ? seconds[kc] : Math.exp(logSeconds[kc] + dx * slopes[kc]);
+    let melts = Infinity;
+    let clears = Infinity;
+    if (current >= meltingFirst || current >= clearingFirst) {
+      const x = Math.log(current);
+      if (current >= meltingLast) melts = meltingHeld;
+      else if (current >= meltingFirst) {
+        while (km < lastMelting && meltingLogs[km + 1] <= x) km++;
+        while (km > 0 && meltingLogs[km] > x) km--;
+        const dx = x - meltingLogs[km];
+        melts = dx === 0 ? meltingSeconds[km] : Math.exp(meltingLogSeconds[km] + dx * meltingSlopes[km]);
+      }
+      if (current >= clearingLast) clears = clearingHeld;
+      else if (current >= clearingFirst) {
+        while (kc < lastClearing && clearingLogs[kc + 1] <= x) kc++;
+        while (kc > 0 && clearingLogs[kc] > x) kc--;
+        const dx = x - clearingLogs[kc];
+        clears = dx === 0 ? clearingSeconds[kc] : Math.exp(clearingLogSeconds[kc] + dx * clearingSlopes[kc]);
+      }
     }
     minTimes[i] = melts;
     maxTimes[i] = clears >= melts ? clears : melts;
