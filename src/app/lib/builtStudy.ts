@@ -1,5 +1,7 @@
 import {
-  readStudy,
+  readEditableStudy,
+  readStudyEdit,
+  type EditableReading,
   type Study,
   type StudyInput,
   type StudyProblem,
@@ -11,12 +13,12 @@ import { bandsOf } from './lookups.ts';
 import { systemRowsOf } from './systemTree.ts';
 
 /** A document as the engine reads it: the study when it is valid, the document as parsed, and every problem. */
-export type { StudyReading };
+export type { StudyReading, EditableReading };
 
 /** A document read and built all the way before it is shown: its reading and its radial tree. */
 export interface BuiltStudy {
   document: StudyInput;
-  reading: StudyReading;
+  reading: EditableReading;
   network?: Network;
 }
 
@@ -36,9 +38,25 @@ export type BuildOutcome =
  *
  * @example readingOf({ discern: 1 }).problems[0].path // 'study.name'
  */
-export function readingOf(document: unknown): StudyReading {
+export function readingOf(document: unknown): EditableReading {
   try {
-    return readStudy(document);
+    return readEditableStudy(document);
+  } catch (error) {
+    return { problems: [stopped('read', error)] };
+  }
+}
+
+/**
+ * Reads an edited document with the engine's `readStudyEdit`, reusing what `previous` (the reading
+ * of the document before the edit) parsed for everything the edit left alone; the whole reading when
+ * there is no previous one. Like `readingOf`, it never throws.
+ *
+ * @example reading = editedReadingOf(reading, withValueAt(document, ['devices', 0, 'rating'], '800 A'))
+ */
+export function editedReadingOf(previous: EditableReading | undefined, document: unknown): EditableReading {
+  if (!previous) return readingOf(document);
+  try {
+    return readStudyEdit(previous, document);
   } catch (error) {
     return { problems: [stopped('read', error)] };
   }

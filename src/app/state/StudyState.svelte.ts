@@ -2,7 +2,13 @@ import type { Study, StudyInput, StudyProblem } from '../../engine/study/index.t
 import type { Network } from '../../engine/network/index.ts';
 import { hasScenarios, scenariosOf } from '../../engine/scenario/index.ts';
 import { History } from './History.svelte.ts';
-import { builtStudyOf, networkOrUndefined, readingOf, type BuiltStudy } from '../lib/builtStudy.ts';
+import {
+  builtStudyOf,
+  editedReadingOf,
+  networkOrUndefined,
+  type BuiltStudy,
+  type EditableReading,
+} from '../lib/builtStudy.ts';
 import { removalOf, withoutRemoval } from '../lib/removal.ts';
 import { withItemAdded, withValueAt, withoutItemAt, valueAt, type DocumentPath } from '../lib/documentPath.ts';
 import { pathOfSelection, type Selection } from '../lib/selection.ts';
@@ -43,13 +49,23 @@ export class StudyState {
   #lastGood: Study | undefined;
   /** The last study built whole before it was shown (a load reuses its reading and network). */
   #built: BuiltStudy | undefined;
+  /** The reading last made, which the next one reuses for what an edit left alone. */
+  #lastReading: EditableReading | undefined;
 
   /** The document being edited (file form). */
   readonly document = $derived.by(() => this.history.current);
-  /** The document read with the engine's schema and tree rules (never throws: a failure is a problem). */
-  readonly reading = $derived.by(() =>
-    this.#built?.document === this.document ? this.#built.reading : readingOf(this.document),
-  );
+  /**
+   * The document read with the engine's schema and tree rules (never throws: a failure is a problem).
+   * An edit (or an undo) is read from the reading before it: only the list items and fields it
+   * changed go through the schema again.
+   */
+  readonly reading = $derived.by(() => {
+    const document = this.document;
+    const reading =
+      this.#built?.document === document ? this.#built.reading : editedReadingOf(this.#lastReading, document);
+    this.#lastReading = reading;
+    return reading;
+  });
   /** Problems of the document as it stands (empty when it is valid). */
   readonly problems = $derived.by(() => this.reading.problems);
   /** The parsed study: the current document's, or the last valid one while it has problems. */
