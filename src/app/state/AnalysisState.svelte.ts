@@ -10,6 +10,8 @@ import type { Work } from '../../engine/work.ts';
 import type { AnalyseReply, AnalyseRequest } from '../worker/protocol.ts';
 import type { StudyState } from './StudyState.svelte.ts';
 import { findingCountsOf, idSetOf } from '../lib/lookups.ts';
+import { sameNetworkInputs } from '../lib/networkInputs.ts';
+import type { Study } from '../../engine/study/index.ts';
 import { resultsWith, type CheckResults } from '../worker/changes.ts';
 import {
   analysisOfPart,
@@ -44,6 +46,9 @@ export class AnalysisState {
   #results: CheckResults | undefined = $state.raw();
   // Fault levels are kept while an edit leaves the network as it was (a setting, a name).
   #memo = new AnalysisMemo();
+  // The study the fault levels were last worked out for: kept, without even asking the memo, while
+  // an edit leaves the network's parsed inputs as they were (a device setting).
+  #faultsFor: { study: Study; faults: FaultLevels } | undefined;
 
   /** The finding the user opened (highlighted on the sheet). */
   selectedFindingId: string | undefined = $state();
@@ -57,7 +62,10 @@ export class AnalysisState {
       if (!network) return undefined;
       try {
         // Bands are built when first drawn or probed: a sheet shows a few devices of a large study.
-        const faults = this.#memo.faultsOf(network);
+        const kept = this.#faultsFor;
+        const faults =
+          kept && sameNetworkInputs(kept.study, network.study) ? kept.faults : this.#memo.faultsOf(network);
+        this.#faultsFor = { study: network.study, faults };
         return { value: { network, faults, bands: lazyBandsOf(network.study.devices) } };
       } catch (error) {
         return { error: (error as Error).message };

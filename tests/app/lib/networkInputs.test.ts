@@ -1,0 +1,36 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { sameNetworkInputs } from '../../../src/app/lib/networkInputs.ts';
+import { readEditableStudy, readStudyEdit, type Study } from '../../../src/engine/study/index.ts';
+
+const document = JSON.parse(readFileSync('demo/harrowmere-full.json', 'utf8')) as {
+  devices: { feeds: string; rating?: string }[];
+  buses: { name?: string }[];
+};
+const reading = readEditableStudy(document);
+const study = reading.study!;
+const edited = (change: (copy: typeof document) => typeof document): Study =>
+  readStudyEdit(reading, change(document)).study!;
+
+describe('sameNetworkInputs', () => {
+  it('has the expected defaults: a study has its own network', () => {
+    expect(sameNetworkInputs(study, study)).toBe(true);
+  });
+
+  it('sameNetworkInputs() holds for an edit of a device setting', () => {
+    const next = edited((d) => ({
+      ...d,
+      devices: d.devices.map((x, i) => (i === 0 ? { ...x, rating: '1200 A' } : x)),
+    }));
+    expect(next.devices[0].rating).toBe(1200);
+    expect(sameNetworkInputs(study, next)).toBe(true);
+  });
+
+  it('sameNetworkInputs() fails for a device that feeds something else, or a bus edited', () => {
+    const moved = { ...study, devices: study.devices.map((d, i) => (i === 1 ? { ...d, feeds: 'elsewhere' } : d)) };
+    expect(sameNetworkInputs(study, moved)).toBe(false);
+    const bus = edited((d) => ({ ...d, buses: d.buses.map((b, i) => (i === 1 ? { ...b, name: 'Renamed bus' } : b)) }));
+    expect(sameNetworkInputs(study, bus)).toBe(false);
+    expect(sameNetworkInputs(study, { ...study, devices: study.devices.slice(1) })).toBe(false);
+  });
+});
