@@ -2,12 +2,19 @@ import type { Finding, Severity } from '../../engine/checks/finding.ts';
 import type { PairCheck } from '../../engine/checks/coordination.ts';
 import type { Study } from '../../engine/study/index.ts';
 import type { AnalysisChanges } from './changes.ts';
+import type { StudyDelta } from './studyDelta.ts';
 
 /** Main thread → worker: analyse this parsed study (plain data; `seq` orders the replies). */
 export interface AnalyseRequest {
   seq: number;
   study: Study;
 }
+
+/**
+ * What crosses to the worker: the first study whole, then each next one as its changes from the one
+ * before (the worker keeps the last study it was sent).
+ */
+export type WorkerRequest = AnalyseRequest | { seq: number; delta: StudyDelta };
 
 /**
  * Worker → main thread: the checks' results as plain data, either whole or as the changes since the

@@ -2,20 +2,33 @@ import { AnalysisMemo } from '../../engine/incremental.ts';
 import { ChangeTracker } from './changes.ts';
 import { checksOf } from './checks.ts';
 import type { CheckRunner } from '../state/AnalysisState.svelte.ts';
-import type { AnalyseReply, AnalyseRequest } from './protocol.ts';
+import type { AnalyseReply, AnalyseRequest, WorkerRequest } from './protocol.ts';
+import { studyDeltaOf } from './studyDelta.ts';
+import type { Study } from '../../engine/study/index.ts';
 
 /**
- * Runs the checks in a module Web Worker (the browser's way of keeping heavy work off the page).
+ * Runs the checks in a module Web Worker (the browser's way of keeping heavy work off the page). The
+ * first study crosses whole, each next one as its changes from the one before (`studyDeltaOf`): a
+ * setting edit copies one device across, not the study.
  * @example new AnalysisState(study, workerRunner())
  */
 export function workerRunner(): CheckRunner {
   const worker = new Worker(checksWorkerUrl(), { type: 'module', name: 'checks' });
+  let sent: Study | undefined;
   const runner: CheckRunner = {
-    post: (request) => worker.postMessage(request),
+    post: (request) => {
+      const message: WorkerRequest = sent ? { seq: request.seq, delta: studyDeltaOf(sent, request.study) } : request;
+      sent = request.study;
+      worker.postMessage(message);
+    },
     onreply: undefined,
   };
   worker.onmessage = (event: MessageEvent<AnalyseReply>) => runner.onreply?.(event.data);
-  worker.onerror = (event) => runner.onreply?.({ seq: -1, ok: false, message: event.message });
+  worker.onerror = (event) => {
+    // What the worker holds is unknown after an error: the next study crosses whole.
+    sent = undefined;
+    runner.onreply?.({ seq: -1, ok: false, message: event.message });
+  };
   return runner;
 }
 
