@@ -14,6 +14,14 @@ const byContent = new Map<string, Band>();
 const groundByContent = new Map<string, Band | null>();
 /** Distinct characteristics remembered by content before the memory starts afresh. */
 const CONTENT_LIMIT = 20_000;
+/** Each characteristic's content as text, written once for both its phase and its ground band. */
+const keys = new WeakMap<Characteristic, string>();
+
+function contentOf(characteristic: Characteristic): string {
+  let key = keys.get(characteristic);
+  if (key === undefined) keys.set(characteristic, (key = JSON.stringify(characteristic)));
+  return key;
+}
 
 /**
  * `bandOf(characteristic)`, built once per distinct characteristic.
@@ -22,7 +30,7 @@ const CONTENT_LIMIT = 20_000;
 export function cachedBandOf(characteristic: Characteristic): Band {
   let band = byObject.get(characteristic);
   if (band) return band;
-  const key = JSON.stringify(characteristic);
+  const key = contentOf(characteristic);
   band = byContent.get(key);
   if (!band) {
     band = bandOf(characteristic);
@@ -42,7 +50,7 @@ export function cachedGroundBandOf(characteristic: Characteristic): Band | undef
   if (characteristic.kind !== 'trip-unit' || !characteristic.ground) return undefined;
   let band = groundByObject.get(characteristic);
   if (band !== undefined) return band ?? undefined;
-  const key = JSON.stringify(characteristic);
+  const key = contentOf(characteristic);
   band = groundByContent.get(key);
   if (band === undefined) {
     band = groundFaultBandOf(characteristic) ?? null;
