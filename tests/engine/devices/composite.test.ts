@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { assertInDelta } from '../../asserts.ts';
-import { compositeEdge, definiteElement, i2tElement, uniqueAscending } from '../../../src/engine/devices/composite.ts';
+import {
+  compositeEdge,
+  definiteElement,
+  i2tElement,
+  inverseShapeTime,
+  uniqueAscending,
+} from '../../../src/engine/devices/composite.ts';
 
 describe('composite', () => {
   it('has the expected defaults', () => {
@@ -31,6 +37,25 @@ describe('composite', () => {
     expect(element.time(8000)).toBe(0.3);
     expect(element.time(1e9)).toBe(0.3);
     expect(element.joins).toEqual([8000]);
+  });
+
+  it('inverseShapeTime takes M^p − 1 from a lower pickup’s power up to rounding, and never a negative time', () => {
+    // IEEE moderately inverse, dial 3, pickup 630 A (600 A + 5 %), its power taken from 570 A (600 A − 5 %).
+    const [a, b, p, dial] = [0.0515, 0.114, 0.02, 3];
+    const base = { kind: 'inverse' as const, dial, a, b, p, cap: Infinity, capTime: dial * b };
+    const shared = inverseShapeTime({ ...base, inversePickup: 1 / 630, referenceInverse: 1 / 570 });
+    const own = inverseShapeTime({ ...base, inversePickup: 1 / 630, referenceInverse: 1 / 630 });
+    for (const amps of [631, 700, 1260, 6300, 63000]) {
+      // IEEE C37.112 eq. 1, t = dial · (a / (M^p − 1) + b), the plain way.
+      const plain = dial * (a / Math.expm1(p * Math.log(amps * (1 / 630))) + b);
+      assertInDelta(shared(amps), plain, 1e-12);
+      expect(own(amps)).toBe(plain);
+    }
+    expect(shared(630)).toBe(Infinity);
+    expect(shared(600)).toBe(Infinity);
+    // One ulp above the pickup rounding decides between a huge time and Infinity, never a negative one.
+    const justAbove = shared(630 * (1 + 2 ** -52));
+    expect(justAbove > 1e6).toBe(true);
   });
 
   it('uniqueAscending drops repeats, rounding twins and non-finite values', () => {
