@@ -1,4 +1,5 @@
-import { fastestOf, groundFaultBandOf, type Band } from '../band.ts';
+import type { Band } from '../band.ts';
+import { cachedFastestOf, cachedGroundBandOf } from '../bandCache.ts';
 import { DELTA_WYE_TABLE, secondaryWindingOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween, type Network } from '../network/index.ts';
 import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
@@ -91,7 +92,8 @@ export function sensitivityCasesOf(
   const factor = settings.arcingFactor ?? 1;
   const location = locationBusOf(network, device);
   const phaseBand = bands.get(device.id)!;
-  const groundBand = groundFaultBandOf(device.characteristic);
+  // Built once per characteristic and pair of bands, not once per device and zone bus.
+  const groundBand = cachedGroundBandOf(device.characteristic);
   const cases: SensitivityCase[] = [];
   for (const fault of ['line-to-line', 'line-to-ground'] as const) {
     let least: SensitivityCase | undefined;
@@ -105,7 +107,7 @@ export function sensitivityCasesOf(
       const deviceAmps = (boltedAmps * factor * shift * network.buses.get(busId)!.voltage) / location.voltage;
       if (!(deviceAmps > 0)) continue;
       const groundElement = fault === 'line-to-ground' && groundBand !== undefined && between.length === 0;
-      const band: Band = groundElement ? fastestOf([phaseBand, groundBand]) : phaseBand;
+      const band: Band = groundElement ? cachedFastestOf(phaseBand, groundBand) : phaseBand;
       const clearingTime = band.maxTime(deviceAmps);
       const acrossTransformer = between.length > 0;
       const candidate = { fault, busId, boltedAmps, deviceAmps, clearingTime, groundElement, acrossTransformer };
