@@ -1,7 +1,6 @@
 import { untrack } from 'svelte';
 import type { Band } from '../../engine/band.ts';
 import type { FaultLevels } from '../../engine/fault/index.ts';
-import { lazyBandsOf } from '../../engine/bandCache.ts';
 import { AnalysisMemo } from '../../engine/incremental.ts';
 import { locationBusOf, type Network } from '../../engine/network/index.ts';
 import type { Analysis } from '../../engine/analysis.ts';
@@ -9,7 +8,7 @@ import type { Finding } from '../../engine/checks/finding.ts';
 import type { Work } from '../../engine/work.ts';
 import type { AnalyseReply, AnalyseRequest } from '../worker/protocol.ts';
 import type { StudyState } from './StudyState.svelte.ts';
-import { findingCountsOf, idSetOf } from '../lib/lookups.ts';
+import { bandsByDevice, findingCountsOf, idSetOf } from '../lib/lookups.ts';
 import { sameNetworkInputs } from '../lib/networkInputs.ts';
 import type { Study } from '../../engine/study/index.ts';
 import { resultsWith, type CheckResults } from '../worker/changes.ts';
@@ -66,7 +65,7 @@ export class AnalysisState {
         const faults =
           kept && sameNetworkInputs(kept.study, network.study) ? kept.faults : this.#memo.faultsOf(network);
         this.#faultsFor = { study: network.study, faults };
-        return { value: { network, faults, bands: lazyBandsOf(network.study.devices) } };
+        return { value: { network, faults, bands: bandsByDevice(network.devices) } };
       } catch (error) {
         return { error: (error as Error).message };
       }

@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { bandsOf, findingCountsOf, idSetOf, lookupOf } from '../../../src/app/lib/lookups.ts';
+import { bandsByDevice, bandsOf, findingCountsOf, idSetOf, lookupOf } from '../../../src/app/lib/lookups.ts';
 import { bandOf } from '../../../src/engine/band.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
 
@@ -16,6 +16,22 @@ describe('lookups', () => {
     expect([...bands.keys()]).toEqual(study.devices.map((d) => d.id));
     const main = study.devices.find((d) => d.id === 'MAIN')!;
     expect(bands.get('MAIN')!.maxTime(20_000)).toBe(bandOf(main.characteristic).maxTime(20_000));
+  });
+
+  it('bandsByDevice() gives each device of a lookup its band when asked, and covers every device', () => {
+    const study = parseStudy(readFileSync(new URL('../../../demo/harrowmere-selective.json', import.meta.url), 'utf8'));
+    const devices = new Map(study.devices.map((d) => [d.id, d]));
+    const bands = bandsByDevice(devices);
+    expect(bands.size).toBe(study.devices.length);
+    expect(bands.has('MAIN')).toBe(true);
+    expect(bands.get('NOWHERE')).toBeUndefined();
+    expect([...bands.keys()]).toEqual(study.devices.map((d) => d.id));
+    const main = devices.get('MAIN')!;
+    expect(bands.get('MAIN')!.minTime(20_000)).toBe(bandOf(main.characteristic).minTime(20_000));
+    expect(bands.get('MAIN')).toBe(bands.get('MAIN'));
+    expect([...bands].map(([id, band]) => [id, band.maxTime(5_000)])).toEqual(
+      study.devices.map((d) => [d.id, bandOf(d.characteristic).maxTime(5_000)]),
+    );
   });
 
   it('findingCountsOf() counts, per device, all findings naming it and those that fail or warn', () => {
