@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { ChangeTracker, resultsWith } from '../../../src/app/worker/changes.ts';
+import fc from 'fast-check';
+import { ChangeTracker, resultsWith, sameJson } from '../../../src/app/worker/changes.ts';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { AnalysisMemo } from '../../../src/engine/incremental.ts';
 import type { Finding } from '../../../src/engine/checks/finding.ts';
@@ -62,5 +63,44 @@ describe('ChangeTracker and resultsWith', () => {
     expect(second.removed).toEqual(['a#1']);
     expect(second.findings).toEqual([]);
     expect(resultsWith(resultsWith(undefined, first), second).findings.map((f) => f.title)).toEqual(['one']);
+  });
+});
+
+describe('sameJson', () => {
+  /** JSON text with every object's keys sorted: equal exactly when two values read the same as JSON, in any key order. */
+  const canonical = (value: unknown) =>
+    JSON.stringify(value, (_, v: unknown) =>
+      v !== null && typeof v === 'object' && !Array.isArray(v)
+        ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)))
+        : v,
+    );
+  const value = fc.anything({
+    maxDepth: 3,
+    withNullPrototype: false,
+    withBoxedValues: false,
+    withMap: false,
+    withSet: false,
+    withTypedArray: false,
+    withDate: false,
+    withSparseArray: true,
+  });
+
+  it('sameJson() agrees with comparing the values written as JSON (property)', () => {
+    fc.assert(
+      fc.property(value, value, fc.boolean(), (a, b, twin) => {
+        const other = twin ? structuredClone(a) : b;
+        expect(sameJson(a, other)).toBe(canonical(a) === canonical(other));
+      }),
+      { numRuns: 2000, seed: 31 },
+    );
+  });
+
+  it('sameJson() reads undefined fields as absent, non-finite numbers as null, and ignores key order', () => {
+    expect(sameJson({ a: 1, b: undefined }, { a: 1 })).toBe(true);
+    expect(sameJson([Infinity, NaN], [null, null])).toBe(true);
+    expect(sameJson({ a: 1, b: 2 }, { b: 2, a: 1 })).toBe(true);
+    expect(sameJson({ a: 1 }, { a: 1, b: 0 })).toBe(false);
+    expect(sameJson([1, 2], [1, 2, 3])).toBe(false);
+    expect(sameJson({ a: [1, { b: 'x' }] }, { a: [1, { b: 'y' }] })).toBe(false);
   });
 });
