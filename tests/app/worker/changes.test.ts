@@ -98,6 +98,7 @@ describe('sameJson', () => {
   it('sameJson() reads undefined fields as absent, non-finite numbers as null, and ignores key order', () => {
     expect(sameJson({ a: 1, b: undefined }, { a: 1 })).toBe(true);
     expect(sameJson([Infinity, NaN], [null, null])).toBe(true);
+    expect(sameJson([undefined, 1], [null, 1])).toBe(true);
     expect(sameJson({ a: 1, b: 2 }, { b: 2, a: 1 })).toBe(true);
     expect(sameJson({ a: 1 }, { a: 1, b: 0 })).toBe(false);
     expect(sameJson([1, 2], [1, 2, 3])).toBe(false);
