@@ -102,6 +102,33 @@ export function findingCountsOf(findings: readonly Finding[]): ReadonlyMap<strin
 }
 
 /**
+ * `counts` (the `findingCountsOf` some findings) after `gone` left those findings and `added` joined
+ * them, without counting the rest again: a reply of the checks after an edit changes a handful of a
+ * large study's thousands of findings. A new map; the counts it is given are left as they were.
+ *
+ * @example counts = findingCountsWith(counts, [oldFinding], [newFinding])
+ */
+export function findingCountsWith(
+  counts: ReadonlyMap<string, FindingCount>,
+  gone: readonly Finding[],
+  added: readonly Finding[],
+): ReadonlyMap<string, FindingCount> {
+  const next = new Map(counts);
+  const change = (finding: Finding, step: 1 | -1) => {
+    const problem = finding.severity === 'fail' || finding.severity === 'warning' ? step : 0;
+    for (const id of finding.subjects) {
+      const count = next.get(id) ?? { all: 0, problems: 0 };
+      const all = count.all + step;
+      if (all === 0) next.delete(id);
+      else next.set(id, { all, problems: count.problems + problem });
+    }
+  };
+  for (const finding of gone) change(finding, -1);
+  for (const finding of added) change(finding, 1);
+  return next;
+}
+
+/**
  * A lookup from ids to a value, built once (curve colours by id, and the like).
  * @example lookupOf(sheet.curves, (c) => c.id, (c) => c.colour).get('MAIN') // '#E69F00'
  */

@@ -8,7 +8,7 @@ import type { Finding } from '../../engine/checks/finding.ts';
 import type { Work } from '../../engine/work.ts';
 import type { AnalyseReply, AnalyseRequest } from '../worker/protocol.ts';
 import type { StudyState } from './StudyState.svelte.ts';
-import { bandsByDevice, findingCountsOf, idSetOf } from '../lib/lookups.ts';
+import { bandsByDevice, findingCountsOf, findingCountsWith, idSetOf, type FindingCount } from '../lib/lookups.ts';
 import { sameNetworkInputs } from '../lib/networkInputs.ts';
 import type { Study } from '../../engine/study/index.ts';
 import { resultsWith, type CheckResults } from '../worker/changes.ts';
@@ -20,6 +20,9 @@ import {
   withScenarioResults,
   type ScenarioView,
 } from '../lib/scenarioParts.ts';
+
+/** The counts before any finding has arrived. */
+const NO_COUNTS: ReadonlyMap<string, FindingCount> = findingCountsOf([]);
 
 /** Where the checks run: a Web Worker in the browser, or in-line where there is none. */
 export interface CheckRunner {
@@ -43,6 +46,8 @@ export class AnalysisState {
   #inFlight = false;
   #waiting: AnalyseRequest | undefined;
   #results: CheckResults | undefined = $state.raw();
+  // Per device, the findings of `#results` naming it, kept up to date from each reply's changes.
+  #counts: ReadonlyMap<string, FindingCount> = $state.raw(NO_COUNTS);
   // Fault levels are kept while an edit leaves the network as it was (a setting, a name).
   #memo = new AnalysisMemo();
   // The study the fault levels were last worked out for: kept, without even asking the memo, while
@@ -120,7 +125,7 @@ export class AnalysisState {
   /** Device ids the opened finding names (highlighted on the sheet and in the tree). */
   readonly highlighted = $derived.by(() => idSetOf(this.selectedFinding?.subjects ?? []));
   /** Per device: how many findings naming it fail or warn (in the chosen scenario). */
-  readonly findingCounts = $derived.by(() => findingCountsOf(this.scenarioFindings));
+  readonly findingCounts = $derived.by(() => (this.scenario ? findingCountsOf(this.scenarioFindings) : this.#counts));
 
   constructor(study: StudyState, runner: CheckRunner) {
     this.#study = study;
@@ -215,7 +220,8 @@ export class AnalysisState {
       return;
     }
     this.error = undefined;
-    this.#results =
+    const previous = this.#results;
+    const results =
       'changes' in reply
         ? resultsWith(this.#results, reply.changes)
         : resultsWith(undefined, {
@@ -227,5 +233,16 @@ export class AnalysisState {
             pairOrder: reply.pairs.map((pair) => `${pair.upstream}/${pair.downstream}`),
             counts: reply.counts,
           });
+    this.#counts =
+      previous && 'changes' in reply
+        ? findingCountsWith(
+            this.#counts,
+            [...reply.changes.removed, ...reply.changes.findings.map(({ key }) => key)]
+              .map((key) => previous.byKey.get(key))
+              .filter((finding) => finding !== undefined),
+            reply.changes.findings.map(({ finding }) => finding),
+          )
+        : findingCountsOf(results.findings);
+    this.#results = results;
   }
 }

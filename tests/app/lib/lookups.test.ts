@@ -1,6 +1,15 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { bandsByDevice, bandsOf, findingCountsOf, idSetOf, lookupOf } from '../../../src/app/lib/lookups.ts';
+import fc from 'fast-check';
+import {
+  bandsByDevice,
+  bandsOf,
+  findingCountsOf,
+  findingCountsWith,
+  idSetOf,
+  lookupOf,
+} from '../../../src/app/lib/lookups.ts';
+import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { bandOf } from '../../../src/engine/band.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
 
@@ -31,6 +40,24 @@ describe('lookups', () => {
     expect(bands.get('MAIN')).toBe(bands.get('MAIN'));
     expect([...bands].map(([id, band]) => [id, band.maxTime(5_000)])).toEqual(
       study.devices.map((d) => [d.id, bandOf(d.characteristic).maxTime(5_000)]),
+    );
+  });
+
+  it('findingCountsWith() gives what counting the changed findings afresh gives (property, the full demo)', () => {
+    const study = parseStudy(readFileSync(new URL('../../../demo/harrowmere-full.json', import.meta.url), 'utf8'));
+    const findings = analyseStudy(study).findings;
+    const index = fc.nat({ max: findings.length - 1 });
+    fc.assert(
+      fc.property(fc.uniqueArray(index), fc.uniqueArray(index), fc.array(index), (base, gone, added) => {
+        const before = base.map((i) => findings[i]);
+        const leaving = gone.filter((i) => base.includes(i)).map((i) => findings[i]);
+        const joining = added.map((i) => findings[i]);
+        const after = [...before.filter((f) => !leaving.includes(f)), ...joining];
+        const counts = findingCountsOf(before);
+        expect(findingCountsWith(counts, leaving, joining)).toEqual(findingCountsOf(after));
+        expect(counts).toEqual(findingCountsOf(before));
+      }),
+      { numRuns: 200, seed: 7 },
     );
   });
 
