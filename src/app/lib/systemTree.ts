@@ -4,6 +4,7 @@ import type { Bus, Motor, Scenario, Study, Switch } from '../../engine/study/ind
 import { formatAmps, formatSI, formatVolts } from '../../engine/quantity/index.ts';
 import type { ScenarioView } from './scenarioParts.ts';
 import type { ItemKind } from './selection.ts';
+import { sameNetworkInputs } from './networkInputs.ts';
 
 /** One row of the System tree: an element, the device feeding it (if any), and what hangs below. */
 export interface TreeNode {
@@ -75,12 +76,48 @@ export function systemTreeOf(network: Network, options: SystemTreeOptions = {}):
 
 /**
  * The tree's rows in reading order (depth first) with their depth, for drawing the tree as one flat
- * list and for keyboard movement through it. Walks with its own stack (no depth limit).
+ * list and for keyboard movement through it. Walks with its own stack (no depth limit). Right after
+ * an edit that left the network's elements as they were (a device setting), it lays out only the
+ * rows of the devices the edit changed and hands back the earlier rows otherwise (the same array when
+ * no row reads differently); a row's `children` are then those of the layout it was first built in.
  *
  * @example systemRowsOf(network).map((r) => `${r.depth} ${r.node.id}`) // ['0 UTIL', '1 MV', '2 T1', '3 SWBD', …]
  */
 export function systemRowsOf(network: Network, options: SystemTreeOptions = {}): SystemRow[] {
-  return rowsOf(systemTreeOf(network, options));
+  if (options.scenario) return rowsOf(systemTreeOf(network, options));
+  const last = lastLaidOut;
+  const rows = last && sameNetworkInputs(last.network.study, network.study) ? withDevicesOf(network, last) : undefined;
+  lastLaidOut = { network, rows: rows ?? rowsOf(systemTreeOf(network)) };
+  return lastLaidOut.rows;
+}
+
+/**
+ * The last network `systemRowsOf` laid out (without a scenario) and its rows. An edit of a device's
+ * settings leaves the network's elements as they were, so the next network's rows are these with
+ * only the rows of changed devices read again: a setting edit in a large study lays out one row.
+ */
+let lastLaidOut: { network: Network; rows: SystemRow[] } | undefined;
+
+// Accepts a network with the same elements as `last.network` (sameNetworkInputs); `last.rows` with
+// each row whose device now reads differently replaced, or `last.rows` itself when none does.
+function withDevicesOf(network: Network, last: { network: Network; rows: SystemRow[] }): SystemRow[] {
+  const before = last.network.study.devices;
+  const changed = new Set<string>();
+  network.study.devices.forEach((device, i) => {
+    if (device !== before[i]) changed.add(device.id);
+  });
+  if (changed.size === 0) return last.rows;
+  let rows = last.rows;
+  last.rows.forEach((row, i) => {
+    const id = row.node.device?.id;
+    if (id === undefined || !changed.has(id)) return;
+    const device = deviceOf(network, row.node.id);
+    const next = { node: { ...row.node, device }, depth: row.depth };
+    if (readsAlike(row, next)) return;
+    if (rows === last.rows) rows = last.rows.slice();
+    rows[i] = next;
+  });
+  return rows;
 }
 
 /**
@@ -234,7 +271,7 @@ export function flattenTree(root: TreeNode): TreeNode[] {
  * @example keptRowsOf(systemRowsOf(networkOf(edited)), rows) === rows // true when only a setting changed
  */
 export function keptRowsOf(next: SystemRow[], previous: readonly SystemRow[] | undefined): SystemRow[] {
-  if (!previous) return next;
+  if (!previous || next === previous) return next;
   const before = new Map(previous.map((row) => [rowKeyOf(row.node), row]));
   let same = next.length === previous.length;
   const kept = next.map((row, i) => {

@@ -4,6 +4,7 @@ import {
   darkItemsOf,
   flattenTree,
   keptRowsOf,
+  rowsOf,
   scenarioRowsOf,
   switchText,
   systemRowsOf,
@@ -14,7 +15,8 @@ import { scenarioViewOf } from '../../../src/app/lib/scenarioParts.ts';
 import { scenariosOf } from '../../../src/engine/scenario/index.ts';
 import { newStudyDocument } from '../../../src/app/lib/newItems.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
-import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { parseStudy, readEditableStudy, readStudyEdit, type StudyInput } from '../../../src/engine/study/index.ts';
+import { withValueAt } from '../../../src/app/lib/documentPath.ts';
 
 const demo = JSON.parse(
   readFileSync(new URL('../../../demo/harrowmere-selective.json', import.meta.url), 'utf8'),
@@ -110,6 +112,29 @@ describe('systemTree rows kept across edits', () => {
     expect(kept).not.toBe(before);
     const changed = kept.filter((row, i) => row !== before[i]);
     expect(changed.map((r) => r.node.label)).toEqual(['Motor control centre']);
+  });
+
+  it('systemRowsOf() after an edit of a device setting hands back the rows it laid out before', () => {
+    const reading = readEditableStudy(demo);
+    const before = systemRowsOf(networkOf(reading.study!));
+    const index = demo.devices!.findIndex((d) => d.id === 'MAIN');
+    const edited = readStudyEdit(reading, withValueAt(demo, ['devices', index, 'name'], 'Main breaker'));
+    const named = systemRowsOf(networkOf(edited.study!));
+    const drawn = (rows: typeof before) =>
+      rows.map(({ node, depth }) => ({
+        depth,
+        id: node.id,
+        label: node.label,
+        detail: node.detail,
+        device: node.device,
+      }));
+    // Only the renamed device's row is new, and the rows read as a fresh layout of the edited study.
+    expect(named.filter((row, i) => row !== before[i]).map((r) => r.node.device?.label)).toEqual(['Main breaker']);
+    expect(drawn(named)).toEqual(drawn(rowsOf(systemTreeOf(networkOf(edited.study!)))));
+    // A setting the tree does not show changes no row.
+    const retuned = readStudyEdit(edited, withValueAt(edited.document, ['devices', index, 'margin'], '0.3 s'));
+    expect(retuned.study?.devices[index].margin).toBe(0.3);
+    expect(systemRowsOf(networkOf(retuned.study!))).toBe(named);
   });
 
   it('treeItemsOf() lists the device of a row before its element, on the same level', () => {
