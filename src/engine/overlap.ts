@@ -346,6 +346,7 @@ const scratch = {
   upTimes: new Float64Array(256),
   downTimes: new Float64Array(256),
   classes: new Int8Array(256),
+  inside: new Float64Array(64),
 };
 
 function ensure(name: 'upTimes' | 'downTimes', size: number): Float64Array {
@@ -371,11 +372,16 @@ function gridOf(
   samplesPerDecade: number,
   tolerance: number,
 ): { count: number } {
-  const inside: number[] = [from];
-  for (const amps of upBreakpoints) if (amps > from && amps < to) inside.push(amps);
-  for (const amps of downBreakpoints) if (amps > from && amps < to) inside.push(amps);
-  inside.push(to);
-  inside.sort((a, b) => a - b);
+  // The range's ends and the breakpoints inside it, sorted as numbers in place (a typed array sorts
+  // without a comparator call per step and allocates no list per pair).
+  const most = upBreakpoints.length + downBreakpoints.length + 2;
+  if (scratch.inside.length < most) scratch.inside = new Float64Array(2 * most);
+  let n = 0;
+  scratch.inside[n++] = from;
+  for (const amps of upBreakpoints) if (amps > from && amps < to) scratch.inside[n++] = amps;
+  for (const amps of downBreakpoints) if (amps > from && amps < to) scratch.inside[n++] = amps;
+  scratch.inside[n++] = to;
+  const inside = scratch.inside.subarray(0, n).sort();
   let size = 1;
   for (let k = 0; k + 1 < inside.length; k++) {
     const a = inside[k];
