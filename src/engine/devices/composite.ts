@@ -170,13 +170,31 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   // The last element's pass also applies the floor and the added time, saving a pass, when it is a
   // curved one (as it is in every family: flat elements come first); otherwise a pass of its own does.
   const finishedBy = count > 0 && kinds[count - 1] !== FLAT && kinds[count - 1] !== OTHER ? count - 1 : -1;
+  let flats = 0;
+  while (flats < count && kinds[flats] === FLAT) flats++;
   const timesInto = (amps: Float64Array, out: Float64Array, logs: Float64Array, powers: Float64Array): void => {
     const n = amps.length;
     // Read from a Float64Array so the loops see doubles, never a small integer in some closures.
     const lowest = bounds[0];
     const added = bounds[1];
-    out.fill(Infinity, 0, n);
-    for (let e = 0; e < count; e++) {
+    // One or two leading flat elements in one pass that also sets every current: the faster of those
+    // picked up. Taking one the early exit of `time` would skip changes nothing: the floor wins there.
+    if (flats === 1) {
+      const pickup = pickups[0];
+      const seconds = params[0];
+      for (let i = 0; i < n; i++) out[i] = amps[i] >= pickup ? seconds : Infinity;
+    } else if (flats === 2) {
+      const pickupA = pickups[0];
+      const secondsA = params[0];
+      const pickupB = pickups[1];
+      const secondsB = params[STRIDE];
+      for (let i = 0; i < n; i++) {
+        const current = amps[i];
+        const a = current >= pickupA ? secondsA : Infinity;
+        out[i] = current >= pickupB && secondsB < a ? secondsB : a;
+      }
+    } else out.fill(Infinity, 0, n);
+    for (let e = flats > 2 ? 0 : flats; e < count; e++) {
       const pickup = pickups[e];
       const at = e * STRIDE;
       switch (kinds[e]) {
