@@ -272,6 +272,8 @@ export function flattenTree(root: TreeNode): TreeNode[] {
  */
 export function keptRowsOf(next: SystemRow[], previous: readonly SystemRow[] | undefined): SystemRow[] {
   if (!previous || next === previous) return next;
+  // The very rows `previous` was made from: every row of `previous` already reads as its row of `next`.
+  if (keptFrom.get(previous) === next) return previous as SystemRow[];
   const before = new Map(previous.map((row) => [rowKeyOf(row.node), row]));
   let same = next.length === previous.length;
   const kept = next.map((row, i) => {
@@ -280,8 +282,13 @@ export function keptRowsOf(next: SystemRow[], previous: readonly SystemRow[] | u
     if (!keep || previous[i] !== old) same = false;
     return keep ? old : row;
   });
-  return same ? (previous as SystemRow[]) : kept;
+  const result = same ? (previous as SystemRow[]) : kept;
+  keptFrom.set(result, next);
+  return result;
 }
+
+/** For each array `keptRowsOf` returned, the rows it was made from (an unchanged layout is handed in again). */
+const keptFrom = new WeakMap<readonly SystemRow[], SystemRow[]>();
 
 /**
  * The key of a tree item, unique in the tree: its kind and id.

@@ -135,6 +135,10 @@ describe('systemTree rows kept across edits', () => {
     const retuned = readStudyEdit(edited, withValueAt(edited.document, ['devices', index, 'margin'], '0.3 s'));
     expect(retuned.study?.devices[index].margin).toBe(0.3);
     expect(systemRowsOf(networkOf(retuned.study!))).toBe(named);
+    // The rows drawn from a layout are handed back as they are when the same layout comes again.
+    const drawnRows = keptRowsOf(named, before);
+    expect(drawnRows).not.toBe(named);
+    expect(keptRowsOf(named, drawnRows)).toBe(drawnRows);
   });
 
   it('treeItemsOf() lists the device of a row before its element, on the same level', () => {
