@@ -1,3 +1,5 @@
+import { documentJsonOf } from './documentJson.ts';
+
 /** The part of the Web Storage API autosave needs (so tests can pass a plain object). */
 export interface StorageLike {
   getItem(key: string): string | null;
@@ -138,11 +140,11 @@ export class StudyKeeper {
     const storage = this.#storage;
     if (!storage) return { kept: false, reason: 'the browser offers no storage to this page', older: 'none' };
     const sequence = Math.max(...this.#sequences) + 1;
-    const text = JSON.stringify({
-      ...record,
-      problems: (record.problems ?? []).slice(0, KEPT_PROBLEMS),
-      sequence,
-    });
+    const { document, ...rest } = record;
+    // The document's text reuses what earlier keeps wrote of the list items an edit left alone.
+    const others = JSON.stringify({ ...rest, problems: (record.problems ?? []).slice(0, KEPT_PROBLEMS), sequence });
+    const documentText = documentJsonOf(document) as string | undefined;
+    const text = documentText === undefined ? others : `{"document":${documentText},${others.slice(1)}`;
     const slot = this.#oldestSlot();
     let dropped = 0;
     for (;;) {
