@@ -121,7 +121,10 @@ export class AnalysisState {
   /** True while the checks of the latest edit are still running. */
   readonly pending = $derived.by(() => this.#received < this.#sent);
   /** The finding the user opened. */
-  readonly selectedFinding = $derived.by(() => this.findings.find((f) => f.id === this.selectedFindingId));
+  readonly selectedFinding = $derived.by(() => {
+    const id = this.selectedFindingId;
+    return id === undefined ? undefined : this.findings.find((f) => f.id === id);
+  });
   /** Device ids the opened finding names (highlighted on the sheet and in the tree). */
   readonly highlighted = $derived.by(() => idSetOf(this.selectedFinding?.subjects ?? []));
   /** Per device: how many findings naming it fail or warn (in the chosen scenario). */

@@ -24,9 +24,19 @@ export interface ListWindowOptions {
  * @example const rows = new ListWindow(() => ['a', 'b'], { gap: 1 }); rows.range // { start: 0, end: 2, before: 0, after: 0 }
  */
 export class ListWindow {
-  /** The rows' keys, in list order. */
-  readonly keys: readonly string[] = $derived.by(() => this.#keysOf());
+  /**
+   * The rows' keys, in list order: the same array while they read the same, so a list redrawn with the
+   * same rows (a large study's findings after an edit changed a few of them) lays nothing out again.
+   */
+  readonly keys: readonly string[] = $derived.by(() => {
+    const next = this.#keysOf();
+    const previous = this.#lastKeys;
+    if (previous && previous.length === next.length && previous.every((key, i) => key === next[i])) return previous;
+    this.#lastKeys = next;
+    return next;
+  });
   #keysOf: () => readonly string[];
+  #lastKeys: readonly string[] | undefined;
   #top = $state(0);
   #height = $state(0);
   // Replaced whole when a height changes (never changed in place), so a plain Map is the state.
