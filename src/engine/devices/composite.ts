@@ -1,4 +1,5 @@
 import type { Band } from '../band.ts';
+import { areTwins, FLAT, I2T, INVERSE, OTHER, STRIDE, TABLE, twinTimesInto, type PackedEdge } from './packedEdge.ts';
 import { tableTimesInto, type TableShape } from './pointTable.ts';
 /**
  * One element of a device edge (a long-time ramp, a short-time delay, an instantaneous trip…): it
@@ -88,17 +89,13 @@ export interface CompositeEdge {
   /**
    * `out[i] = time(amps[i])` for every `i`, the same doubles, one element at a time over the whole array.
    * `logs` is scratch the length of `amps` holding `Math.log(amps[i])` or NaN where not yet taken; table
-   * elements fill it, so two edges of one band take each logarithm once. `powers` is the same for the
-   * `R^p − 1` of the edge's first inverse element with `p` other than 1 or 2 (see `InverseShape`).
+   * elements fill it, so two edges of one band take each logarithm once.
    */
-  timesInto(amps: Float64Array, out: Float64Array, logs: Float64Array, powers: Float64Array): void;
+  timesInto(amps: Float64Array, out: Float64Array, logs: Float64Array): void;
   /** Whether `timesInto` reads `logs` (the edge has a table element); otherwise any array will do. */
   tabulated: boolean;
-  /**
-   * The reference and exponent of the powers `timesInto` keeps in `powers`, or undefined when it keeps
-   * none; two edges with the same may share the array.
-   */
-  power: { referenceInverse: number; p: number } | undefined;
+  /** The elements as data, for evaluating two edges together (`twinTimesInto`). */
+  packed: PackedEdge;
   /** Pickups, joins and element crossings, ascending and unique (A). */
   breakpoints: number[];
   /** Lowest current (A) at which the edge is finite. */
@@ -119,12 +116,6 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   const ordered = [...elements].sort((x, y) => Number(x.reach !== undefined) - Number(y.reach !== undefined));
   const pickups = Float64Array.from(ordered, (element) => element.pickup);
   const { kinds, params, tables, others } = packed(ordered);
-  // The first inverse element with a transcendental power keeps its powers in the shared scratch.
-  let powerElement = -1;
-  for (let e = 0; e < count && powerElement < 0; e++) {
-    const p = params[e * STRIDE + 4];
-    if (kinds[e] === INVERSE && p !== 1 && p !== 2) powerElement = e;
-  }
   // One function for every composite edge, with the formulas inline: the callers' call sites see a
   // single function, and no element closure is called except for tables.
   const time = (amps: number): number => {
@@ -172,7 +163,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   const finishedBy = count > 0 && kinds[count - 1] !== FLAT && kinds[count - 1] !== OTHER ? count - 1 : -1;
   let flats = 0;
   while (flats < count && kinds[flats] === FLAT) flats++;
-  const timesInto = (amps: Float64Array, out: Float64Array, logs: Float64Array, powers: Float64Array): void => {
+  const timesInto = (amps: Float64Array, out: Float64Array, logs: Float64Array): void => {
     const n = amps.length;
     // Read from a Float64Array so the loops see doubles, never a small integer in some closures.
     const lowest = bounds[0];
@@ -222,16 +213,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
           break;
         }
         case INVERSE:
-          inverseTimesInto(
-            params,
-            at,
-            pickup,
-            amps,
-            out,
-            bounds,
-            e === finishedBy,
-            e === powerElement ? powers : undefined,
-          );
+          inverseTimesInto(params, at, pickup, amps, out, bounds, e === finishedBy);
           break;
         case TABLE:
           // A table is Infinity below its first current, its pickup, so it needs no pickup test here.
@@ -270,10 +252,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
     time,
     timesInto,
     tabulated: kinds.includes(TABLE),
-    power:
-      powerElement < 0
-        ? undefined
-        : { referenceInverse: params[powerElement * STRIDE + 7], p: params[powerElement * STRIDE + 4] },
+    packed: { count, kinds, params, pickups, tables, flats, finishedBy, bounds },
     breakpoints: uniqueAscending(points),
     minAmps: Math.min(Infinity, ...pickups),
   };
@@ -281,8 +260,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
 
 /**
  * An inverse element's pass of `timesInto`, with its constants read once; the formula of `time`.
- * `bounds` holds the edge's floor and added time; with `finish` they are applied too. With `powers`,
- * each `R^p − 1` is read from it where already there (not NaN) and kept in it where taken.
+ * `bounds` holds the edge's floor and added time; with `finish` they are applied too.
  */
 function inverseTimesInto(
   params: Float64Array,
@@ -292,7 +270,6 @@ function inverseTimesInto(
   out: Float64Array,
   bounds: Float64Array,
   finish: boolean,
-  powers: Float64Array | undefined,
 ): void {
   const floor = bounds[0];
   const added = bounds[1];
@@ -320,12 +297,7 @@ function inverseTimesInto(
         if (p === 2) q = m * m - 1;
         else if (p === 1) q = m - 1;
         else {
-          let power = powers === undefined ? NaN : powers[i];
-          if (power !== power) {
-            power = Math.expm1(p * Math.log(current * referenceInverse));
-            if (powers !== undefined) powers[i] = power;
-          }
-          q = power * scale + scaleMinusOne;
+          q = Math.expm1(p * Math.log(current * referenceInverse)) * scale + scaleMinusOne;
         }
         t = q > 0 ? dial * (a / q + b) : Infinity;
       }
@@ -334,14 +306,6 @@ function inverseTimesInto(
     out[i] = finish ? (fastest > floor ? fastest : floor) + added : fastest;
   }
 }
-
-const FLAT = 0;
-const I2T = 1;
-const INVERSE = 2;
-const OTHER = 3;
-const TABLE = 4;
-/** Parameters per element in the packed array. */
-const STRIDE = 10;
 
 /**
  * Elements as kind codes and packed parameters; tables keep their shape for `timesInto` (and their
@@ -432,29 +396,23 @@ export function bandOfEdges(
   currentLimitingFrom: number,
   diagnostics: string[],
 ): Band {
+  // Two edges built alike (every family's) are evaluated together, a pass per element for both.
+  const twins = areTwins(low.packed, high.packed);
   const tabulated = low.tabulated || high.tabulated;
-  const powered = low.power !== undefined || high.power !== undefined;
-  // The edges share their powers when they take the same ones (a relay's two tolerance edges).
-  const sharedPowers = low.power?.referenceInverse === high.power?.referenceInverse && low.power?.p === high.power?.p;
-  // Scratch for the logarithms and powers the two edges share, kept with the band and grown when needed.
+  // Scratch for the logarithms the two edges share otherwise, kept with the band and grown when needed.
   let logs = new Float64Array(0);
-  let powers = new Float64Array(0);
   return {
     minTime: low.time,
     maxTime: high.time,
     evaluateInto: (amps, minTimes, maxTimes) => {
+      if (twins) return twinTimesInto(low.packed, high.packed, amps, minTimes, maxTimes);
       const n = amps.length;
       if (tabulated) {
         if (logs.length < n) logs = new Float64Array(n);
         logs.fill(NaN, 0, n);
       }
-      if (powered) {
-        if (powers.length < n) powers = new Float64Array(n);
-        powers.fill(NaN, 0, n);
-      }
-      low.timesInto(amps, minTimes, logs, powers);
-      if (powered && !sharedPowers) powers.fill(NaN, 0, n);
-      high.timesInto(amps, maxTimes, logs, powers);
+      low.timesInto(amps, minTimes, logs);
+      high.timesInto(amps, maxTimes, logs);
     },
     breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
     minAmps: low.minAmps,

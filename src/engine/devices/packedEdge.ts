@@ -1,0 +1,287 @@
+import type { TableShape } from './pointTable.ts';
+
+/** Kind codes of a packed element (see `PackedEdge`). */
+export const FLAT = 0;
+export const I2T = 1;
+export const INVERSE = 2;
+export const OTHER = 3;
+export const TABLE = 4;
+/** Parameters per element in `PackedEdge.params`. */
+export const STRIDE = 10;
+
+/**
+ * A composite edge's elements as data for its batch form: kind codes and, `STRIDE` apart, parameters
+ * (flat: seconds; I²t: k, flatFrom, flat; inverse: inversePickup, dial, a, b, p, cap, capTime,
+ * referenceInverse, K, K − 1), in evaluation order: `flats` flat elements first, the one at
+ * `finishedBy` (or none, -1) applying `bounds` (floor, added time) in its pass.
+ */
+export interface PackedEdge {
+  count: number;
+  kinds: Int8Array;
+  params: Float64Array;
+  pickups: Float64Array;
+  tables: readonly (TableShape | undefined)[];
+  flats: number;
+  finishedBy: number;
+  bounds: Float64Array;
+}
+
+/**
+ * Whether two edges can be evaluated together by `twinTimesInto`: the same kinds of element in the
+ * same order, none without a formula, at most two flat elements (which lead) and a curved one last
+ * (a relay's, a trip unit's or a breaker's two tolerance edges).
+ */
+export function areTwins(low: PackedEdge, high: PackedEdge): boolean {
+  if (low.count !== high.count || low.count === 0 || low.flats > 2 || low.finishedBy !== low.count - 1) return false;
+  for (let e = 0; e < low.count; e++) {
+    if (low.kinds[e] !== high.kinds[e] || low.kinds[e] === OTHER) return false;
+  }
+  return true;
+}
+
+/**
+ * Both edges of a band at every current, element by element, each pass reading a current once for
+ * both edges: the arithmetic of each edge's `time`, so the same doubles. An inverse element takes its
+ * power once for both edges when they take it from the same pickup; two tables share the logarithm.
+ */
+export function twinTimesInto(
+  low: PackedEdge,
+  high: PackedEdge,
+  amps: Float64Array,
+  minTimes: Float64Array,
+  maxTimes: Float64Array,
+): void {
+  flatsInto(low, amps, minTimes);
+  flatsInto(high, amps, maxTimes);
+  for (let e = low.flats; e < low.count; e++) {
+    const finish = e === low.finishedBy;
+    switch (low.kinds[e]) {
+      case I2T:
+        i2tTwinInto(low, high, e, amps, minTimes, maxTimes, finish);
+        break;
+      case INVERSE:
+        inverseTwinInto(low, high, e, amps, minTimes, maxTimes, finish);
+        break;
+      case TABLE:
+        tableTwinInto(low.tables[e]!, high.tables[e]!, low.bounds, high.bounds, amps, minTimes, maxTimes, finish);
+    }
+  }
+}
+
+/** Sets every current from the edge's (up to two) leading flat elements: the faster of those picked up. */
+function flatsInto(edge: PackedEdge, amps: Float64Array, out: Float64Array): void {
+  const n = amps.length;
+  if (edge.flats === 0) {
+    out.fill(Infinity, 0, n);
+    return;
+  }
+  const pickupA = edge.pickups[0];
+  const secondsA = edge.params[0];
+  // A NaN pickup is never reached: one flat element acts as two.
+  const pickupB = edge.flats > 1 ? edge.pickups[1] : NaN;
+  const secondsB = edge.flats > 1 ? edge.params[STRIDE] : Infinity;
+  for (let i = 0; i < n; i++) {
+    const current = amps[i];
+    const a = current >= pickupA ? secondsA : Infinity;
+    out[i] = current >= pickupB && secondsB < a ? secondsB : a;
+  }
+}
+
+/** An I²t element's pass for both edges: `k / I²` from the pickup, flat from `flatFrom`. */
+function i2tTwinInto(
+  low: PackedEdge,
+  high: PackedEdge,
+  e: number,
+  amps: Float64Array,
+  minTimes: Float64Array,
+  maxTimes: Float64Array,
+  finish: boolean,
+): void {
+  const at = e * STRIDE;
+  const lowFloor = low.bounds[0];
+  // Not finishing, the clamp is -Infinity and nothing is added (x + 0 is x for every time): no branch.
+  const lowClamp = finish ? lowFloor : -Infinity;
+  const lowAdded = finish ? low.bounds[1] : 0;
+  const highFloor = high.bounds[0];
+  const highClamp = finish ? highFloor : -Infinity;
+  const highAdded = finish ? high.bounds[1] : 0;
+  const lowPickup = low.pickups[e];
+  const lowK = low.params[at];
+  const lowFlatFrom = low.params[at + 1];
+  const lowFlat = low.params[at + 2];
+  const highPickup = high.pickups[e];
+  const highK = high.params[at];
+  const highFlatFrom = high.params[at + 1];
+  const highFlat = high.params[at + 2];
+  for (let i = 0, n = amps.length; i < n; i++) {
+    const current = amps[i];
+    let lowest = minTimes[i];
+    if (lowest > lowFloor && current >= lowPickup) {
+      const t = current < lowFlatFrom ? lowK / (current * current) : lowFlat;
+      if (t < lowest) lowest = t;
+    }
+    let highest = maxTimes[i];
+    if (highest > highFloor && current >= highPickup) {
+      const t = current < highFlatFrom ? highK / (current * current) : highFlat;
+      if (t < highest) highest = t;
+    }
+    minTimes[i] = (lowest > lowClamp ? lowest : lowClamp) + lowAdded;
+    maxTimes[i] = (highest > highClamp ? highest : highClamp) + highAdded;
+  }
+}
+
+/**
+ * An inverse element's pass for both edges (`InverseShape`): where both take their power `R^p − 1`
+ * from the same pickup and exponent, it is taken once per current.
+ */
+function inverseTwinInto(
+  low: PackedEdge,
+  high: PackedEdge,
+  e: number,
+  amps: Float64Array,
+  minTimes: Float64Array,
+  maxTimes: Float64Array,
+  finish: boolean,
+): void {
+  const at = e * STRIDE;
+  const lowFloor = low.bounds[0];
+  // Not finishing, the clamp is -Infinity and nothing is added (x + 0 is x for every time): no branch.
+  const lowClamp = finish ? lowFloor : -Infinity;
+  const lowAdded = finish ? low.bounds[1] : 0;
+  const lowPickup = low.pickups[e];
+  const lowInverse = low.params[at];
+  const lowDial = low.params[at + 1];
+  const lowA = low.params[at + 2];
+  const lowB = low.params[at + 3];
+  const lowP = low.params[at + 4];
+  const lowCap = low.params[at + 5];
+  const lowCapTime = low.params[at + 6];
+  const lowReference = low.params[at + 7];
+  const lowScale = low.params[at + 8];
+  const lowScaleMinusOne = low.params[at + 9];
+  const highFloor = high.bounds[0];
+  const highClamp = finish ? highFloor : -Infinity;
+  const highAdded = finish ? high.bounds[1] : 0;
+  const highPickup = high.pickups[e];
+  const highInverse = high.params[at];
+  const highDial = high.params[at + 1];
+  const highA = high.params[at + 2];
+  const highB = high.params[at + 3];
+  const highP = high.params[at + 4];
+  const highCap = high.params[at + 5];
+  const highCapTime = high.params[at + 6];
+  const highReference = high.params[at + 7];
+  const highScale = high.params[at + 8];
+  const highScaleMinusOne = high.params[at + 9];
+  const shared = lowP === highP && lowReference === highReference;
+  for (let i = 0, n = amps.length; i < n; i++) {
+    const current = amps[i];
+    let power = NaN;
+    let lowest = minTimes[i];
+    if (lowest > lowFloor && current >= lowPickup) {
+      const m = current * lowInverse;
+      let t: number;
+      if (m >= lowCap) t = lowCapTime;
+      else if (!(m > 1)) t = Infinity;
+      else {
+        let q: number;
+        if (lowP === 2) q = m * m - 1;
+        else if (lowP === 1) q = m - 1;
+        else {
+          power = Math.expm1(lowP * Math.log(current * lowReference));
+          q = power * lowScale + lowScaleMinusOne;
+        }
+        t = q > 0 ? lowDial * (lowA / q + lowB) : Infinity;
+      }
+      if (t < lowest) lowest = t;
+    }
+    let highest = maxTimes[i];
+    if (highest > highFloor && current >= highPickup) {
+      const m = current * highInverse;
+      let t: number;
+      if (m >= highCap) t = highCapTime;
+      else if (!(m > 1)) t = Infinity;
+      else {
+        let q: number;
+        if (highP === 2) q = m * m - 1;
+        else if (highP === 1) q = m - 1;
+        else {
+          if (!(shared && power === power)) power = Math.expm1(highP * Math.log(current * highReference));
+          q = power * highScale + highScaleMinusOne;
+        }
+        t = q > 0 ? highDial * (highA / q + highB) : Infinity;
+      }
+      if (t < highest) highest = t;
+    }
+    minTimes[i] = (lowest > lowClamp ? lowest : lowClamp) + lowAdded;
+    maxTimes[i] = (highest > highClamp ? highest : highClamp) + highAdded;
+  }
+}
+
+/**
+ * Two tables' pass for both edges (see `tableTimesInto`): one logarithm per current for both, and a
+ * cursor per table. Each table is Infinity below its first current, its pickup.
+ */
+function tableTwinInto(
+  low: TableShape,
+  high: TableShape,
+  lowBounds: Float64Array,
+  highBounds: Float64Array,
+  amps: Float64Array,
+  minTimes: Float64Array,
+  maxTimes: Float64Array,
+  finish: boolean,
+): void {
+  const lowFloor = lowBounds[0];
+  const lowClamp = finish ? lowFloor : -Infinity;
+  const lowAdded = finish ? lowBounds[1] : 0;
+  const highFloor = highBounds[0];
+  const highClamp = finish ? highFloor : -Infinity;
+  const highAdded = finish ? highBounds[1] : 0;
+  const { logAmps: lowLogs, seconds: lowSeconds, logSeconds: lowLogSeconds, slopes: lowSlopes } = low;
+  const { logAmps: highLogs, seconds: highSeconds, logSeconds: highLogSeconds, slopes: highSlopes } = high;
+  const lowLast = lowLogs.length - 2;
+  const highLast = highLogs.length - 2;
+  const lowFirst = low.first;
+  const lowLastAmps = low.lastAmps;
+  const lowHeld = lowSeconds[lowLast + 1];
+  const highFirst = high.first;
+  const highLastAmps = high.lastAmps;
+  const highHeld = highSeconds[highLast + 1];
+  let kl = 0;
+  let kh = 0;
+  for (let i = 0, n = amps.length; i < n; i++) {
+    const current = amps[i];
+    let x = NaN;
+    let lowest = minTimes[i];
+    if (lowest > lowFloor) {
+      let t: number;
+      if (current >= lowLastAmps) t = lowHeld;
+      else if (!(current >= lowFirst)) t = Infinity;
+      else {
+        x = Math.log(current);
+        while (kl < lowLast && lowLogs[kl + 1] <= x) kl++;
+        while (kl > 0 && lowLogs[kl] > x) kl--;
+        const dx = x - lowLogs[kl];
+        t = dx === 0 ? lowSeconds[kl] : Math.exp(lowLogSeconds[kl] + dx * lowSlopes[kl]);
+      }
+      if (t < lowest) lowest = t;
+    }
+    let highest = maxTimes[i];
+    if (highest > highFloor) {
+      let t: number;
+      if (current >= highLastAmps) t = highHeld;
+      else if (!(current >= highFirst)) t = Infinity;
+      else {
+        if (x !== x) x = Math.log(current);
+        while (kh < highLast && highLogs[kh + 1] <= x) kh++;
+        while (kh > 0 && highLogs[kh] > x) kh--;
+        const dx = x - highLogs[kh];
+        t = dx === 0 ? highSeconds[kh] : Math.exp(highLogSeconds[kh] + dx * highSlopes[kh]);
+      }
+      if (t < highest) highest = t;
+    }
+    minTimes[i] = (lowest > lowClamp ? lowest : lowClamp) + lowAdded;
+    maxTimes[i] = (highest > highClamp ? highest : highClamp) + highAdded;
+  }
+}
