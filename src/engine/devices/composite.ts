@@ -163,6 +163,12 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
   const finishedBy = count > 0 && kinds[count - 1] !== FLAT && kinds[count - 1] !== OTHER ? count - 1 : -1;
   let flats = 0;
   while (flats < count && kinds[flats] === FLAT) flats++;
+  const leading = Float64Array.of(
+    flats > 0 ? pickups[0] : NaN,
+    flats > 0 ? params[0] : Infinity,
+    flats > 1 ? pickups[1] : NaN,
+    flats > 1 ? params[STRIDE] : Infinity,
+  );
   const timesInto = (amps: Float64Array, out: Float64Array, logs: Float64Array): void => {
     const n = amps.length;
     // Read from a Float64Array so the loops see doubles, never a small integer in some closures.
@@ -252,7 +258,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
     time,
     timesInto,
     tabulated: kinds.includes(TABLE),
-    packed: { count, kinds, params, pickups, tables, flats, finishedBy, bounds },
+    packed: { count, kinds, params, pickups, tables, flats, finishedBy, bounds, leading },
     breakpoints: uniqueAscending(points),
     minAmps: Math.min(Infinity, ...pickups),
   };

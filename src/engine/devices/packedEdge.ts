@@ -24,6 +24,8 @@ export interface PackedEdge {
   flats: number;
   finishedBy: number;
   bounds: Float64Array;
+  /** The first two flat elements' pickups and seconds, pickup NaN (never reached) where there is none. */
+  leading: Float64Array;
 }
 
 /**
@@ -51,39 +53,21 @@ export function twinTimesInto(
   minTimes: Float64Array,
   maxTimes: Float64Array,
 ): void {
-  flatsInto(low, amps, minTimes);
-  flatsInto(high, amps, maxTimes);
+  // The first curved element's pass starts each current from the leading flat elements (`seeded`),
+  // the others from the times so far.
   for (let e = low.flats; e < low.count; e++) {
     const finish = e === low.finishedBy;
+    const seeded = e === low.flats;
     switch (low.kinds[e]) {
       case I2T:
-        i2tTwinInto(low, high, e, amps, minTimes, maxTimes, finish);
+        i2tTwinInto(low, high, e, amps, minTimes, maxTimes, finish, seeded);
         break;
       case INVERSE:
-        inverseTwinInto(low, high, e, amps, minTimes, maxTimes, finish);
+        inverseTwinInto(low, high, e, amps, minTimes, maxTimes, finish, seeded);
         break;
       case TABLE:
-        tableTwinInto(low.tables[e]!, high.tables[e]!, low.bounds, high.bounds, amps, minTimes, maxTimes, finish);
+        tableTwinInto(low, high, e, amps, minTimes, maxTimes, finish, seeded);
     }
-  }
-}
-
-/** Sets every current from the edge's (up to two) leading flat elements: the faster of those picked up. */
-function flatsInto(edge: PackedEdge, amps: Float64Array, out: Float64Array): void {
-  const n = amps.length;
-  if (edge.flats === 0) {
-    out.fill(Infinity, 0, n);
-    return;
-  }
-  const pickupA = edge.pickups[0];
-  const secondsA = edge.params[0];
-  // A NaN pickup is never reached: one flat element acts as two.
-  const pickupB = edge.flats > 1 ? edge.pickups[1] : NaN;
-  const secondsB = edge.flats > 1 ? edge.params[STRIDE] : Infinity;
-  for (let i = 0; i < n; i++) {
-    const current = amps[i];
-    const a = current >= pickupA ? secondsA : Infinity;
-    out[i] = current >= pickupB && secondsB < a ? secondsB : a;
   }
 }
 
@@ -96,6 +80,7 @@ function i2tTwinInto(
   minTimes: Float64Array,
   maxTimes: Float64Array,
   finish: boolean,
+  seeded: boolean,
 ): void {
   const at = e * STRIDE;
   const lowFloor = low.bounds[0];
@@ -113,14 +98,33 @@ function i2tTwinInto(
   const highK = high.params[at];
   const highFlatFrom = high.params[at + 1];
   const highFlat = high.params[at + 2];
+  // Read once: whether each current starts from the leading flat elements, and those elements.
+  const fromFlats = seeded === true;
+  const lowPickupA = low.leading[0];
+  const lowSecondsA = low.leading[1];
+  const lowPickupB = low.leading[2];
+  const lowSecondsB = low.leading[3];
+  const highPickupA = high.leading[0];
+  const highSecondsA = high.leading[1];
+  const highPickupB = high.leading[2];
+  const highSecondsB = high.leading[3];
   for (let i = 0, n = amps.length; i < n; i++) {
     const current = amps[i];
-    let lowest = minTimes[i];
+    let lowest: number;
+    let highest: number;
+    if (fromFlats) {
+      lowest = current >= lowPickupA ? lowSecondsA : Infinity;
+      if (current >= lowPickupB && lowSecondsB < lowest) lowest = lowSecondsB;
+      highest = current >= highPickupA ? highSecondsA : Infinity;
+      if (current >= highPickupB && highSecondsB < highest) highest = highSecondsB;
+    } else {
+      lowest = minTimes[i];
+      highest = maxTimes[i];
+    }
     if (lowest > lowFloor && current >= lowPickup) {
       const t = current < lowFlatFrom ? lowK / (current * current) : lowFlat;
       if (t < lowest) lowest = t;
     }
-    let highest = maxTimes[i];
     if (highest > highFloor && current >= highPickup) {
       const t = current < highFlatFrom ? highK / (current * current) : highFlat;
       if (t < highest) highest = t;
@@ -142,6 +146,7 @@ function inverseTwinInto(
   minTimes: Float64Array,
   maxTimes: Float64Array,
   finish: boolean,
+  seeded: boolean,
 ): void {
   const at = e * STRIDE;
   const lowFloor = low.bounds[0];
@@ -174,10 +179,30 @@ function inverseTwinInto(
   const highScale = high.params[at + 8];
   const highScaleMinusOne = high.params[at + 9];
   const shared = lowP === highP && lowReference === highReference;
+  // Read once: whether each current starts from the leading flat elements, and those elements.
+  const fromFlats = seeded === true;
+  const lowPickupA = low.leading[0];
+  const lowSecondsA = low.leading[1];
+  const lowPickupB = low.leading[2];
+  const lowSecondsB = low.leading[3];
+  const highPickupA = high.leading[0];
+  const highSecondsA = high.leading[1];
+  const highPickupB = high.leading[2];
+  const highSecondsB = high.leading[3];
   for (let i = 0, n = amps.length; i < n; i++) {
     const current = amps[i];
     let power = NaN;
-    let lowest = minTimes[i];
+    let lowest: number;
+    let highest: number;
+    if (fromFlats) {
+      lowest = current >= lowPickupA ? lowSecondsA : Infinity;
+      if (current >= lowPickupB && lowSecondsB < lowest) lowest = lowSecondsB;
+      highest = current >= highPickupA ? highSecondsA : Infinity;
+      if (current >= highPickupB && highSecondsB < highest) highest = highSecondsB;
+    } else {
+      lowest = minTimes[i];
+      highest = maxTimes[i];
+    }
     if (lowest > lowFloor && current >= lowPickup) {
       const m = current * lowInverse;
       let t: number;
@@ -195,7 +220,6 @@ function inverseTwinInto(
       }
       if (t < lowest) lowest = t;
     }
-    let highest = maxTimes[i];
     if (highest > highFloor && current >= highPickup) {
       const m = current * highInverse;
       let t: number;
@@ -223,15 +247,19 @@ function inverseTwinInto(
  * cursor per table. Each table is Infinity below its first current, its pickup.
  */
 function tableTwinInto(
-  low: TableShape,
-  high: TableShape,
-  lowBounds: Float64Array,
-  highBounds: Float64Array,
+  lowEdge: PackedEdge,
+  highEdge: PackedEdge,
+  e: number,
   amps: Float64Array,
   minTimes: Float64Array,
   maxTimes: Float64Array,
   finish: boolean,
+  seeded: boolean,
 ): void {
+  const low = lowEdge.tables[e]!;
+  const high = highEdge.tables[e]!;
+  const lowBounds = lowEdge.bounds;
+  const highBounds = highEdge.bounds;
   const lowFloor = lowBounds[0];
   const lowClamp = finish ? lowFloor : -Infinity;
   const lowAdded = finish ? lowBounds[1] : 0;
@@ -250,10 +278,30 @@ function tableTwinInto(
   const highHeld = highSeconds[highLast + 1];
   let kl = 0;
   let kh = 0;
+  // Read once: whether each current starts from the leading flat elements, and those elements.
+  const fromFlats = seeded === true;
+  const lowPickupA = lowEdge.leading[0];
+  const lowSecondsA = lowEdge.leading[1];
+  const lowPickupB = lowEdge.leading[2];
+  const lowSecondsB = lowEdge.leading[3];
+  const highPickupA = highEdge.leading[0];
+  const highSecondsA = highEdge.leading[1];
+  const highPickupB = highEdge.leading[2];
+  const highSecondsB = highEdge.leading[3];
   for (let i = 0, n = amps.length; i < n; i++) {
     const current = amps[i];
     let x = NaN;
-    let lowest = minTimes[i];
+    let lowest: number;
+    let highest: number;
+    if (fromFlats) {
+      lowest = current >= lowPickupA ? lowSecondsA : Infinity;
+      if (current >= lowPickupB && lowSecondsB < lowest) lowest = lowSecondsB;
+      highest = current >= highPickupA ? highSecondsA : Infinity;
+      if (current >= highPickupB && highSecondsB < highest) highest = highSecondsB;
+    } else {
+      lowest = minTimes[i];
+      highest = maxTimes[i];
+    }
     if (lowest > lowFloor) {
       let t: number;
       if (current >= lowLastAmps) t = lowHeld;
@@ -267,7 +315,6 @@ function tableTwinInto(
       }
       if (t < lowest) lowest = t;
     }
-    let highest = maxTimes[i];
     if (highest > highFloor) {
       let t: number;
       if (current >= highLastAmps) t = highHeld;
