@@ -2,7 +2,7 @@ import type { Band } from './band.ts';
 import { cachedBandOf } from './bandCache.ts';
 import type { AnalysisMemo } from './incremental.ts';
 import { cableFindings } from './checks/cableProtection.ts';
-import type { CheckContext } from './checks/context.ts';
+import { protectingDevice, type CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
 import { decrementFindings } from './checks/decrementCoordination.ts';
 import type { Finding, Severity } from './checks/finding.ts';
@@ -64,16 +64,45 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
     findings.push(...pairFindings);
   }
   findings.push(...decrementFindings({ network, faults, bands, pairs, study }));
-  for (const transformer of study.transformers)
-    findings.push(...transformerFindings(context, transformer, study.coordination.horizon));
-  for (const transformer of study.transformers)
-    findings.push(...nec450Findings(context, transformer, study.coordination.edition));
-  for (const cable of study.cables) findings.push(...cableFindings(context, cable, study.coordination.horizon));
-  for (const motor of study.motors) findings.push(...motorFindings(context, motor));
+  // With a memo, each item's findings are taken from it while the fault levels (so the network), the
+  // item, the devices whose bands and names its check reads and its settings are the same objects.
+  const remembered = (key: string, inputs: unknown[], check: () => Finding[]) =>
+    memo ? memo.findings(key, [faults, ...inputs], check) : check();
+  const { horizon, edition, sensitivity } = study.coordination;
+  for (const transformer of study.transformers) {
+    const primary = protectingDevice(context, transformer.id);
+    findings.push(
+      ...remembered(`transformer:${transformer.id}`, [transformer, primary, horizon], () =>
+        transformerFindings(context, transformer, horizon),
+      ),
+    );
+  }
+  for (const transformer of study.transformers) {
+    const devices = [protectingDevice(context, transformer.id), network.deviceFeeding.get(transformer.to)];
+    findings.push(
+      ...remembered(`nec450:${transformer.id}`, [transformer, ...devices, edition], () =>
+        nec450Findings(context, transformer, edition),
+      ),
+    );
+  }
+  for (const cable of study.cables) {
+    const device = protectingDevice(context, cable.id);
+    findings.push(
+      ...remembered(`cable:${cable.id}`, [cable, device, horizon], () => cableFindings(context, cable, horizon)),
+    );
+  }
+  for (const motor of study.motors) {
+    const device = protectingDevice(context, motor.id);
+    findings.push(...remembered(`motor:${motor.id}`, [motor, device], () => motorFindings(context, motor)));
+  }
   for (const device of study.devices) findings.push(...interruptingFindings(context, device, study.frequency));
   for (const bus of study.buses) findings.push(...busRatingFindings(context, bus, study.frequency));
   for (const device of study.devices)
-    findings.push(...sensitivityFindings(context, device, study.coordination.sensitivity));
+    findings.push(
+      ...remembered(`sensitivity:${device.id}`, [device, sensitivity], () =>
+        sensitivityFindings(context, device, sensitivity),
+      ),
+    );
   for (const device of study.devices) {
     bands.get(device.id)!.diagnostics.forEach((message, index) =>
       findings.push({

@@ -3,8 +3,8 @@ import type { CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
 import type { Finding } from './checks/finding.ts';
 import { faultLevelsOf, type FaultLevels } from './fault/index.ts';
-import type { Network } from './network/index.ts';
-import type { CoordinationSettings, Device } from './study/index.ts';
+import { sameNetworkInputs, type Network } from './network/index.ts';
+import type { CoordinationSettings, Device, Study } from './study/index.ts';
 
 type PairResult = { check: PairCheck; findings: Finding[] };
 
@@ -13,24 +13,40 @@ type PairResult = { check: PairCheck; findings: Finding[] };
  * an edit costs what it changed: fault levels are worked out again only when the network changed
  * (source, buses, transformers, cables, motors, or where a device sits), and a pair is checked again
  * only when something it depends on changed (either device's bands, names or margin, the fault levels,
- * the coordination settings). Unchanged pairs give back the very same result objects. The results are
- * exactly those of a fresh analysis; pass one memo to `analyseStudy` edit after edit.
+ * the coordination settings); likewise each device's sensitivity and each transformer's, cable's and
+ * motor's findings (`findings`). Unchanged checks give back the very same result objects. The results
+ * are exactly those of a fresh analysis; pass one memo to `analyseStudy` edit after edit.
  *
  * @example const memo = new AnalysisMemo(); analyseStudy(study, memo); analyseStudy(edited, memo)
  */
 export class AnalysisMemo {
   #networkKey: string | undefined;
+  #networkStudy: Study | undefined;
   #faults: FaultLevels | undefined;
   #settings: CoordinationSettings | undefined;
   #settingsKey = '';
   #pairs = new Map<string, { inputs: unknown[]; result: PairResult; used: number }>();
+  #items = new Map<string, { inputs: readonly unknown[]; findings: Finding[]; used: number }>();
   #generation = 0;
   /** How many pair checks the last analysis ran, and how many it took from the memo. */
-  readonly lastRun = { pairsChecked: 0, pairsReused: 0, faultsReused: false };
+  readonly lastRun = { pairsChecked: 0, pairsReused: 0, faultsReused: false, itemsChecked: 0, itemsReused: 0 };
 
   /** The network's fault levels, the previous ones while the network is unchanged. */
   faultsOf(network: Network): FaultLevels {
     const { study } = network;
+    // A new analysis begins here: pairs and items not met by its end are forgotten.
+    this.#generation++;
+    this.lastRun.pairsChecked = 0;
+    this.lastRun.pairsReused = 0;
+    this.lastRun.itemsChecked = 0;
+    this.lastRun.itemsReused = 0;
+    // An edit that kept every network list (by identity) and every device's place keeps the network.
+    const previous = this.#networkStudy;
+    this.#networkStudy = study;
+    if (previous && this.#faults && sameNetworkInputs(previous, study)) {
+      this.lastRun.faultsReused = true;
+      return this.#faults;
+    }
     const key = JSON.stringify([
       study.frequency,
       study.source,
@@ -40,10 +56,6 @@ export class AnalysisMemo {
       study.motors,
       study.devices.map((device) => device.feeds),
     ]);
-    // A new analysis begins here: pairs not met by its end are forgotten.
-    this.#generation++;
-    this.lastRun.pairsChecked = 0;
-    this.lastRun.pairsReused = 0;
     this.lastRun.faultsReused = key === this.#networkKey && this.#faults !== undefined;
     if (!this.lastRun.faultsReused) {
       this.#faults = faultLevelsOf(network);
@@ -89,8 +101,28 @@ export class AnalysisMemo {
     return result;
   }
 
-  /** Forgets the pairs the last analysis did not meet (removed devices, changed trees). */
+  /**
+   * `check()`'s findings for one item (a device's sensitivity, a transformer, a cable, a motor), or
+   * the previous ones where none of `inputs` changed, compared by identity: the fault levels (kept
+   * only while the network is), the item, the devices whose bands and names the check reads, its
+   * settings. The caller names every input the check reads.
+   */
+  findings(key: string, inputs: readonly unknown[], check: () => Finding[]): Finding[] {
+    const known = this.#items.get(key);
+    if (known && known.inputs.length === inputs.length && known.inputs.every((value, i) => value === inputs[i])) {
+      known.used = this.#generation;
+      this.lastRun.itemsReused++;
+      return known.findings;
+    }
+    const findings = check();
+    this.#items.set(key, { inputs, findings, used: this.#generation });
+    this.lastRun.itemsChecked++;
+    return findings;
+  }
+
+  /** Forgets the pairs and items the last analysis did not meet (removed devices, changed trees). */
   forgetUnused(): void {
     for (const [key, entry] of this.#pairs) if (entry.used !== this.#generation) this.#pairs.delete(key);
+    for (const [key, entry] of this.#items) if (entry.used !== this.#generation) this.#items.delete(key);
   }
 }

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { analyseStudy } from '../../src/engine/analysis.ts';
 import { AnalysisMemo } from '../../src/engine/incremental.ts';
 import { networkOf, seriesPairs } from '../../src/engine/network/index.ts';
-import { parseStudy, type StudyInput } from '../../src/engine/study/index.ts';
+import { parseStudy, type Study, type StudyInput } from '../../src/engine/study/index.ts';
 
 const demo = (): StudyInput =>
   JSON.parse(readFileSync(new URL('../../demo/harrowmere-full.json', import.meta.url), 'utf8')) as StudyInput;
@@ -43,5 +43,53 @@ describe('AnalysisMemo', () => {
     edited.cables![0].length = '300 ft';
     expect(plain(edited, memo)).toEqual(plain(edited));
     expect(memo.lastRun.faultsReused).toBe(false);
+  });
+
+  // As the workbench edits: the parsed study copied along the edited path, every other object kept.
+  const withDevice = (
+    study: Study,
+    id: string,
+    change: (device: Study['devices'][number]) => Study['devices'][number],
+  ) => ({
+    ...study,
+    devices: study.devices.map((device) => (device.id === id ? change(device) : device)),
+  });
+  const plainOf = (study: Study, memo?: AnalysisMemo) => {
+    const analysis = analyseStudy(study, memo);
+    return JSON.parse(JSON.stringify({ findings: analysis.findings, pairs: analysis.pairs, counts: analysis.counts }));
+  };
+
+  it("keeps each item's findings whose inputs are the same objects, and agrees with a fresh analysis after each edit", () => {
+    const memo = new AnalysisMemo();
+    let study = parseStudy(demo());
+    plainOf(study, memo);
+    const edits: ((s: Study) => Study)[] = [
+      // A setting: only the edited device's own checks run again.
+      (s) =>
+        withDevice(s, 'FDR-DOCK', (d) => {
+          const unit = d.characteristic as Extract<typeof d.characteristic, { kind: 'trip-unit' }>;
+          return { ...d, characteristic: { ...unit, longTime: { ...unit.longTime!, delay: 6 } } };
+        }),
+      // A name: every sentence naming the device is written again.
+      (s) => ({ ...s, devices: s.devices.map((d) => ({ ...d, name: `${d.name ?? d.id} (renamed)` })) }),
+      // A cable: the network changed, so every check runs again.
+      (s) => ({ ...s, cables: s.cables.map((c, i) => (i === 0 ? { ...c, length: c.length * 2 } : c)) }),
+      // The sensitivity settings.
+      (s) => ({
+        ...s,
+        coordination: { ...s.coordination, sensitivity: { ...s.coordination.sensitivity, maxTime: 0.5 } },
+      }),
+    ];
+    const reused: number[] = [];
+    for (const edit of edits) {
+      study = edit(study);
+      expect(plainOf(study, memo)).toEqual(plainOf(study));
+      reused.push(memo.lastRun.itemsReused);
+    }
+    const items = study.devices.length + 2 * study.transformers.length + study.cables.length + study.motors.length;
+    // After the setting edit all but a few items are kept; after the renaming and the cable, none is.
+    expect(reused[0]).toBeGreaterThan(items - 6);
+    expect(reused.slice(1, 3)).toEqual([0, 0]);
+    expect(reused[3]).toBe(items - study.devices.length);
   });
 });

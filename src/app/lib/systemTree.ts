@@ -4,7 +4,7 @@ import type { Bus, Motor, Scenario, Study, Switch } from '../../engine/study/ind
 import { formatAmps, formatSI, formatVolts } from '../../engine/quantity/index.ts';
 import type { ScenarioView } from './scenarioParts.ts';
 import type { ItemKind } from './selection.ts';
-import { sameNetworkInputs } from './networkInputs.ts';
+import { sameNetworkInputs } from '../../engine/network/sameNetworkInputs.ts';
 
 /** One row of the System tree: an element, the device feeding it (if any), and what hangs below. */
 export interface TreeNode {

@@ -9,7 +9,7 @@ import type { Work } from '../../engine/work.ts';
 import type { AnalyseReply, AnalyseRequest } from '../worker/protocol.ts';
 import type { StudyState } from './StudyState.svelte.ts';
 import { bandsByDevice, findingCountsOf, findingCountsWith, idSetOf, type FindingCount } from '../lib/lookups.ts';
-import { sameNetworkInputs } from '../lib/networkInputs.ts';
+import { sameNetworkInputs } from '../../engine/network/sameNetworkInputs.ts';
 import type { Study } from '../../engine/study/index.ts';
 import { resultsWith, type CheckResults } from '../worker/changes.ts';
 import {

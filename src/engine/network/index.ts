@@ -8,3 +8,4 @@ export {
   transformersBetween,
 } from './network.ts';
 export type { Network, Branch, Element, SwitchLink } from './network.ts';
+export { sameNetworkInputs } from './sameNetworkInputs.ts';

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { sameNetworkInputs } from '../../../src/app/lib/networkInputs.ts';
+import { sameNetworkInputs } from '../../../src/engine/network/sameNetworkInputs.ts';
 import { readEditableStudy, readStudyEdit, type Study } from '../../../src/engine/study/index.ts';
 
 const document = JSON.parse(readFileSync('demo/harrowmere-full.json', 'utf8')) as {

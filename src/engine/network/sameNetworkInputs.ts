@@ -1,4 +1,4 @@
-import type { Study } from '../../engine/study/index.ts';
+import type { Study } from '../study/index.ts';
 
 /** The parts of a study the network and its fault levels are built from (devices aside). */
 const NETWORK_FIELDS = [
