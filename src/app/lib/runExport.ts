@@ -1,6 +1,4 @@
 import type { StudyContext } from '../state/context.ts';
-import { FIGURE_SIZE } from '../state/SheetState.svelte.ts';
-import { sheetOf } from '../../plot/sheet.ts';
 import { csvReport, markdownReport } from '../../engine/report/index.ts';
 import { downloadText, fileStemOf } from './download.ts';
 import { downloadPdf, downloadPng, downloadReportPdf, downloadSvg, exportPageOf, type ExportKind } from './exports.ts';
@@ -27,7 +25,7 @@ export async function runExport(request: ExportKind, context: StudyContext): Pro
     case 'png':
       return downloadPng(`${stem}-${view}.png`, sheet.figureSvg());
     case 'pdf':
-      return downloadPdf(`${stem}-${view}.pdf`, figureSheetOf(context), exportPageOf(request));
+      return downloadPdf(`${stem}-${view}.pdf`, sheet.figureSheet(), exportPageOf(request));
     case 'findings-md':
       return downloadText(`${stem}-findings.md`, markdownReport(checked(context)), 'text/markdown');
     case 'findings-csv':
@@ -48,13 +46,6 @@ export async function runExport(request: ExportKind, context: StudyContext): Pro
       return downloadReportPdf(`${stem}-report.pdf`, studyReportOf(checked(context)), exportPageOf(request));
     }
   }
-}
-
-// The current view laid out at the figure size, as `figureSvg` lays it out (throws when there is no sheet).
-function figureSheetOf({ sheet }: StudyContext) {
-  const { input, error } = sheet.input;
-  if (!input) throw new Error(error ?? 'there is no sheet to export: the study has no view');
-  return sheetOf(input, { ...FIGURE_SIZE, idPrefix: 'tcc' });
 }
 
 // The analysis with the checks' findings; a report waits for them rather than leaving them out.

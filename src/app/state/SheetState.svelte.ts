@@ -139,10 +139,15 @@ export class SheetState {
     );
   }
 
-  /** The current view as a standalone SVG at the figure size (throws when there is no sheet). */
-  figureSvg(): string {
+  /** The current view laid out at the figure size, as the command line's figure (throws when there is no sheet). */
+  figureSheet(): Sheet {
     const { input, error } = this.input;
     if (!input) throw new Error(error ?? 'there is no sheet to export: the study has no view');
-    return svgOf(sheetOf(input, { ...FIGURE_SIZE, idPrefix: 'tcc' }));
+    return sheetOf(input, { ...FIGURE_SIZE, idPrefix: 'tcc' });
+  }
+
+  /** The current view as a standalone SVG at the figure size (throws when there is no sheet). */
+  figureSvg(): string {
+    return svgOf(this.figureSheet());
   }
 }
