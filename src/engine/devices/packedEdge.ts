@@ -59,9 +59,13 @@ export function twinTimesInto(
     const finish = e === low.finishedBy;
     const seeded = e === low.flats;
     switch (low.kinds[e]) {
-      case I2T:
-        i2tTwinInto(low, high, e, amps, minTimes, maxTimes, finish, seeded);
+      case I2T: {
+        // Two I²t elements in a row (a trip unit's short-time and long-time ramps) share one pass.
+        const next = e + 1 < low.count && low.kinds[e + 1] === I2T ? e + 1 : -1;
+        i2tTwinInto(low, high, e, next, amps, minTimes, maxTimes, finish || next === low.finishedBy, seeded);
+        if (next > 0) e = next;
         break;
+      }
       case INVERSE:
         inverseTwinInto(low, high, e, amps, minTimes, maxTimes, finish, seeded);
         break;
@@ -71,11 +75,15 @@ export function twinTimesInto(
   }
 }
 
-/** An I²t element's pass for both edges: `k / I²` from the pickup, flat from `flatFrom`. */
+/**
+ * An I²t element's pass for both edges, `k / I²` from the pickup and flat from `flatFrom`, then the
+ * element at `next` (another I²t element, or none for -1) in the same pass.
+ */
 function i2tTwinInto(
   low: PackedEdge,
   high: PackedEdge,
   e: number,
+  next: number,
   amps: Float64Array,
   minTimes: Float64Array,
   maxTimes: Float64Array,
@@ -98,6 +106,16 @@ function i2tTwinInto(
   const highK = high.params[at];
   const highFlatFrom = high.params[at + 1];
   const highFlat = high.params[at + 2];
+  // The next element's constants; a NaN pickup, never reached, where there is none.
+  const then = next < 0 ? at : next * STRIDE;
+  const lowPickup2 = next < 0 ? NaN : low.pickups[next];
+  const lowK2 = low.params[then];
+  const lowFlatFrom2 = low.params[then + 1];
+  const lowFlat2 = low.params[then + 2];
+  const highPickup2 = next < 0 ? NaN : high.pickups[next];
+  const highK2 = high.params[then];
+  const highFlatFrom2 = high.params[then + 1];
+  const highFlat2 = high.params[then + 2];
   // Read once: whether each current starts from the leading flat elements, and those elements.
   const fromFlats = seeded === true;
   const lowPickupA = low.leading[0];
@@ -127,6 +145,14 @@ function i2tTwinInto(
     }
     if (highest > highFloor && current >= highPickup) {
       const t = current < highFlatFrom ? highK / (current * current) : highFlat;
+      if (t < highest) highest = t;
+    }
+    if (lowest > lowFloor && current >= lowPickup2) {
+      const t = current < lowFlatFrom2 ? lowK2 / (current * current) : lowFlat2;
+      if (t < lowest) lowest = t;
+    }
+    if (highest > highFloor && current >= highPickup2) {
+      const t = current < highFlatFrom2 ? highK2 / (current * current) : highFlat2;
       if (t < highest) highest = t;
     }
     minTimes[i] = (lowest > lowClamp ? lowest : lowClamp) + lowAdded;
