@@ -80,6 +80,18 @@ export function evaluateBand(
  */
 export function scaleBand(band: Band, currentFactor: number): Band {
   if (currentFactor === 1) return band;
+  // One scaled band per band and factor: bands are read-only, and a sheet drawn again after an edit
+  // meets the same objects for the devices the edit left alone (so their drawings can be kept).
+  let byFactor = scaledBands.get(band);
+  if (!byFactor) scaledBands.set(band, (byFactor = new Map()));
+  let scaled = byFactor.get(currentFactor);
+  if (!scaled) byFactor.set(currentFactor, (scaled = scaledBandOf(band, currentFactor)));
+  return scaled;
+}
+
+const scaledBands = new WeakMap<Band, Map<number, Band>>();
+
+function scaledBandOf(band: Band, currentFactor: number): Band {
   const { minTime, maxTime, evaluateInto } = band;
   const inverse = 1 / currentFactor;
   // Scratch for the currents at the band's own base, kept with the scaled band and grown when needed.

@@ -83,5 +83,9 @@ describe('band', () => {
     const onPrimary = scaleBand(band, 480 / 12470);
     assertInDelta(onPrimary.minTime(1200 * (480 / 12470)), band.minTime(1200), 1e-12);
     assertInDelta(onPrimary.minAmps, band.minAmps * (480 / 12470), 1e-12);
+    // One scaled band per band and factor, so what is drawn or checked of it can be kept.
+    expect(scaleBand(band, 480 / 12470)).toBe(onPrimary);
+    expect(scaleBand(band, 480 / 4160)).not.toBe(onPrimary);
+    expect(scaleBand(band, 1)).toBe(band);
   });
 });

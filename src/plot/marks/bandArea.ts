@@ -64,6 +64,27 @@ export interface BandAreaGeometry {
  */
 export function bandArea(sheetBand: SheetBand, scales: SheetScales, options: BandAreaOptions): BandAreaGeometry {
   const { colour, strokeWidth, fillOpacity, tolerance, dash = '' } = { ...bandAreaDefaults, ...options };
+  // A band drawn before with the same look on the same axes is drawn the same: the sheet after an
+  // edit of one device takes the other devices' drawings as they were (bands are read-only).
+  const { x, y } = scales;
+  const look = `${sheetBand.id}|${sheetBand.toAmps}|${x.domain}|${x.range}|${y.domain}|${y.range}|${colour}|${strokeWidth}|${fillOpacity}|${tolerance}|${dash}`;
+  const drawn = drawings.get(sheetBand.band) ?? [];
+  const known = drawn.find((entry) => entry.look === look);
+  if (known) return known.geometry;
+  const geometry = drawBandArea(sheetBand, scales, { ...options, colour, strokeWidth, fillOpacity, tolerance, dash });
+  // A few looks per band: the workbench's sheet, its layout with the key, an exported figure.
+  drawings.set(sheetBand.band, [{ look, geometry }, ...drawn.slice(0, 3)]);
+  return geometry;
+}
+
+const drawings = new WeakMap<SheetBand['band'], { look: string; geometry: BandAreaGeometry }[]>();
+
+function drawBandArea(
+  sheetBand: SheetBand,
+  scales: SheetScales,
+  options: BandAreaOptions & { strokeWidth: number; fillOpacity: number; tolerance: number; dash: string },
+): BandAreaGeometry {
+  const { colour, strokeWidth, fillOpacity, tolerance, dash } = options;
   const window = drawWindowOf(scales);
   const perDecade =
     Math.abs(scales.x.range[1] - scales.x.range[0]) / Math.log10(scales.x.domain[1] / scales.x.domain[0]);

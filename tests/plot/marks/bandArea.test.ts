@@ -133,4 +133,19 @@ describe('bandArea', () => {
     assertInDelta(timeFromPath(g.items.find((p) => p.role === 'band-min')!.d, 6000), 1.37816, 0.01);
     assertInDelta(timeFromPath(g.items.find((p) => p.role === 'band-max')!.d, 6000), 1.37816 + 5 / 60, 0.01);
   });
+
+  it('draws a band met again with the same look on the same axes as it was, and anew when any of them changes', () => {
+    const band = relayBand();
+    const first = bandArea(sheetBand(band), scales, { colour: '#0072B2' });
+    // A later sheet (after an edit of another device) meets the same band object: the same drawing.
+    expect(bandArea(sheetBand(band), scales, { colour: '#0072B2' })).toBe(first);
+    // Another colour, other axes or another end current is drawn again, and reads as drawn fresh.
+    const recoloured = bandArea(sheetBand(band), scales, { colour: '#D55E00' });
+    expect(recoloured).not.toBe(first);
+    expect(recoloured.items.map((p) => p.d)).toEqual(first.items.map((p) => p.d));
+    const wider = scalesOf({ current: [1, 1e6], time: [0.01, 1000] }, { left: 100, top: 50, right: 700, bottom: 650 });
+    expect(bandArea(sheetBand(band), wider, { colour: '#0072B2' }).items[0].d).not.toBe(first.items[0].d);
+    const shorter = bandArea({ ...sheetBand(band), toAmps: 2000 }, scales, { colour: '#0072B2' });
+    expect(shorter.items[0].d).not.toBe(first.items[0].d);
+  });
 });
