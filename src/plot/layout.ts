@@ -220,18 +220,30 @@ class SegmentIndex {
     this.#lines = lines;
     this.#owners = owners;
     this.#cell = cell;
+    // Every segment of a sheet's curves is indexed on each layout, so this loop allocates nothing per
+    // segment beyond its place in the cells' lists.
+    const cells = this.#cells;
     lines.forEach((line, l) => {
       for (let i = 0; i + 3 < line.length; i += 2) {
         const id = this.#segLine.length;
         this.#segLine.push(l);
         this.#segAt.push(i);
-        const [ax, ay, bx, by] = [line[i], line[i + 1], line[i + 2], line[i + 3]];
-        if (![ax, ay, bx, by].every(Number.isFinite)) continue;
-        forCells(Math.min(ax, bx), Math.min(ay, by), Math.max(ax, bx), Math.max(ay, by), cell, (key) => {
-          const list = this.#cells.get(key);
-          if (list) list.push(id);
-          else this.#cells.set(key, [id]);
-        });
+        const ax = line[i];
+        const ay = line[i + 1];
+        const bx = line[i + 2];
+        const by = line[i + 3];
+        if (!(Number.isFinite(ax) && Number.isFinite(ay) && Number.isFinite(bx) && Number.isFinite(by))) continue;
+        const c0 = Math.floor(Math.min(ax, bx) / cell);
+        const c1 = Math.floor(Math.max(ax, bx) / cell);
+        const r0 = Math.floor(Math.min(ay, by) / cell);
+        const r1 = Math.floor(Math.max(ay, by) / cell);
+        for (let r = r0; r <= r1; r++)
+          for (let c = c0; c <= c1; c++) {
+            const key = cellKey(r, c);
+            const list = cells.get(key);
+            if (list) list.push(id);
+            else cells.set(key, [id]);
+          }
       }
     });
     this.#seen = new Int32Array(this.#segLine.length);
@@ -300,7 +312,12 @@ function forCells(
   const c1 = Math.floor(x1 / cell);
   const r0 = Math.floor(y0 / cell);
   const r1 = Math.floor(y1 / cell);
-  for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) if (visit((r + 4096) * 8192 + (c + 4096))) return;
+  for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) if (visit(cellKey(r, c))) return;
+}
+
+// Accepts a grid cell's row and column; its key in a cell map.
+function cellKey(row: number, column: number): number {
+  return (row + 4096) * 8192 + (column + 4096);
 }
 
 // Accepts a box; the same box grown by `by` px on every side.
