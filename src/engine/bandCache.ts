@@ -63,29 +63,36 @@ export function cachedGroundBandOf(characteristic: Characteristic): Band | undef
 
 /**
  * Each device's band by id, built only when first asked for (`get`): a sheet draws a few devices of
- * a large study, and only theirs are built. `size`, `has` and iteration cover every device (iterating
- * builds them all).
+ * a large study, and only theirs are built. Given a lookup of devices by id that already exists (the
+ * network's `devices`), an edit of a large study costs no pass over its devices. Bands come from
+ * `cachedBandOf`, so a device an edit left alone gets its band back at once. `size`, `has` and `keys`
+ * cover every device; iterating builds them all, in the devices' order.
  *
  * @example lazyBandsOf(study.devices).get('MAIN')?.minTime(20_000)
  */
-export function lazyBandsOf(devices: readonly { id: string; characteristic: Characteristic }[]): Map<string, Band> {
-  return new LazyBands(devices);
+export function lazyBandsOf(
+  devices: readonly DeviceWithCharacteristic[] | ReadonlyMap<string, Pick<DeviceWithCharacteristic, 'characteristic'>>,
+): Map<string, Band> {
+  return new LazyBands('get' in devices ? devices : new Map(devices.map((device) => [device.id, device] as const)));
 }
 
-class LazyBands extends Map<string, Band> {
-  #devices: Map<string, Characteristic>;
+type DeviceWithCharacteristic = { id: string; characteristic: Characteristic };
 
-  constructor(devices: readonly { id: string; characteristic: Characteristic }[]) {
+class LazyBands extends Map<string, Band> {
+  #devices: ReadonlyMap<string, Pick<DeviceWithCharacteristic, 'characteristic'>>;
+
+  constructor(devices: ReadonlyMap<string, Pick<DeviceWithCharacteristic, 'characteristic'>>) {
     super();
-    this.#devices = new Map(devices.map((device) => [device.id, device.characteristic]));
+    this.#devices = devices;
   }
 
   override get(id: string): Band | undefined {
     let band = super.get(id);
     if (band) return band;
-    const characteristic = this.#devices?.get(id);
-    if (!characteristic) return undefined;
-    band = cachedBandOf(characteristic);
+    // The base constructor runs before the field is set (and may call `set`, never `get`).
+    const device = this.#devices?.get(id);
+    if (!device) return undefined;
+    band = cachedBandOf(device.characteristic);
     super.set(id, band);
     return band;
   }
@@ -98,9 +105,9 @@ class LazyBands extends Map<string, Band> {
     return this.#devices?.size ?? 0;
   }
 
+  // Iteration follows the devices' order, whichever bands were asked for first.
   override entries(): MapIterator<[string, Band]> {
-    for (const id of this.#devices.keys()) this.get(id);
-    return super.entries();
+    return this.#all().entries();
   }
 
   override keys(): MapIterator<string> {
@@ -108,8 +115,11 @@ class LazyBands extends Map<string, Band> {
   }
 
   override values(): MapIterator<Band> {
-    for (const id of this.#devices.keys()) this.get(id);
-    return super.values();
+    return this.#all().values();
+  }
+
+  #all(): Map<string, Band> {
+    return new Map(Array.from(this.#devices.keys(), (id) => [id, this.get(id)!]));
   }
 
   override forEach(callback: (band: Band, id: string, map: Map<string, Band>) => void): void {

@@ -1,5 +1,5 @@
 import { bandOf, type Band } from '../../engine/band.ts';
-import { cachedBandOf } from '../../engine/bandCache.ts';
+import { lazyBandsOf } from '../../engine/bandCache.ts';
 import type { Finding } from '../../engine/checks/finding.ts';
 import type { Device, Study } from '../../engine/study/index.ts';
 
@@ -14,68 +14,12 @@ export function bandsOf(study: Study): Map<string, Band> {
 
 /**
  * Each device's band by id, read through a lookup of devices by id that already exists (the
- * network's `devices`), built only when first asked for (`get`): an edit of a large study then costs
- * no pass over its devices, and a sheet builds the bands of the few devices it draws. Bands come from
- * the engine's `cachedBandOf`, so a device the edit left alone gets its band back at once. `size`,
- * `has` and `keys` cover every device; iterating builds them all, in the devices' order.
+ * network's `devices`) and built only when first asked for (the engine's `lazyBandsOf`).
  *
  * @example bandsByDevice(network.devices).get('MAIN')?.minTime(20_000)
  */
 export function bandsByDevice(devices: ReadonlyMap<string, Pick<Device, 'characteristic'>>): Map<string, Band> {
-  return new DeviceBands(devices);
-}
-
-class DeviceBands extends Map<string, Band> {
-  #devices: ReadonlyMap<string, Pick<Device, 'characteristic'>>;
-
-  constructor(devices: ReadonlyMap<string, Pick<Device, 'characteristic'>>) {
-    super();
-    this.#devices = devices;
-  }
-
-  override get(id: string): Band | undefined {
-    let band = super.get(id);
-    if (band) return band;
-    // The base constructor runs before the field is set (and may call `set`, never `get`).
-    const device = this.#devices?.get(id);
-    if (!device) return undefined;
-    band = cachedBandOf(device.characteristic);
-    super.set(id, band);
-    return band;
-  }
-
-  override has(id: string): boolean {
-    return this.#devices.has(id);
-  }
-
-  override get size(): number {
-    return this.#devices?.size ?? 0;
-  }
-
-  // Iteration follows the devices' order, whichever bands were asked for first.
-  override entries(): MapIterator<[string, Band]> {
-    return this.#all().entries();
-  }
-
-  override keys(): MapIterator<string> {
-    return this.#devices.keys();
-  }
-
-  override values(): MapIterator<Band> {
-    return this.#all().values();
-  }
-
-  #all(): Map<string, Band> {
-    return new Map(Array.from(this.#devices.keys(), (id) => [id, this.get(id)!]));
-  }
-
-  override forEach(callback: (band: Band, id: string, map: Map<string, Band>) => void): void {
-    for (const [id, band] of this.entries()) callback(band, id, this);
-  }
-
-  override [Symbol.iterator](): MapIterator<[string, Band]> {
-    return this.entries();
-  }
+  return lazyBandsOf(devices);
 }
 
 /** How many findings name a device: all of them, and those that fail or warn. */
