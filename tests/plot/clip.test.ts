@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { clipPolyline, segmentCrossesBox } from '../../src/plot/clip.ts';
 
@@ -34,5 +35,27 @@ describe('segmentCrossesBox', () => {
   it('segmentCrossesBox sees a diagonal through the box and misses one beside it', () => {
     expect(segmentCrossesBox(-5, -5, 15, 15, box)).toBe(true);
     expect(segmentCrossesBox(-5, 8, 8, 25, { x: 5, y: 0, width: 5, height: 5 })).toBe(false);
+  });
+});
+
+describe('segmentCrossesBox against clipPolyline', () => {
+  it('says a segment touches a box exactly when clipping it keeps a piece, or it is a point within reach', () => {
+    const box = { x: 0, y: 0, width: 10, height: 6 };
+    // Small whole numbers land on the box's edges and corners often; the others probe the rest.
+    const coordinate = fc.oneof(
+      fc.integer({ min: -3, max: 13 }),
+      fc.double({ min: -20, max: 20, noNaN: true }),
+      fc.constantFrom(Infinity, -Infinity, NaN),
+    );
+    fc.assert(
+      fc.property(coordinate, coordinate, coordinate, coordinate, (x0, y0, x1, y1) => {
+        const within =
+          !(Math.max(x0, x1) < box.x || Math.min(x0, x1) > box.x + box.width) &&
+          !(Math.max(y0, y1) < box.y || Math.min(y0, y1) > box.y + box.height);
+        const kept = clipPolyline([x0, y0, x1, y1], box).length > 0 || (x0 === x1 && y0 === y1);
+        expect(segmentCrossesBox(x0, y0, x1, y1, box)).toBe(within && kept);
+      }),
+      { numRuns: 5000 },
+    );
   });
 });
