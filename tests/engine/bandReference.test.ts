@@ -1,10 +1,9 @@
-import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { bandOf, evaluateBand, groundFaultBandOf, type Band } from '../../src/engine/band.ts';
 import { characteristicSchema, type Characteristic } from '../../src/engine/devices/characteristic.ts';
 import { INVERSE_CURVES, INVERSE_CURVE_NAMES } from '../../src/engine/devices/inverseCurves.ts';
-import { parseStudy } from '../../src/engine/study/parse.ts';
 import { curveTemplates } from '../../src/engine/templates/index.ts';
+import { shippedCharacteristics } from './shippedCharacteristics.ts';
 
 // Each band against a reference written here the plain way, one current at a time, straight from the
 // formulas the families document: IEEE C37.112 / IEC 60255-151 inverse curves, the trip-unit I²t and
@@ -131,15 +130,7 @@ function referenceEdges(characteristic: Characteristic): Edges {
 
 /** Every curve template, every device of the demo studies, and each relay curve with tolerance and cap. */
 function characteristics(): Array<[string, Characteristic]> {
-  const found: Array<[string, Characteristic]> = curveTemplates.map((template) => [
-    `template ${template.id}`,
-    template.characteristic,
-  ]);
-  const demo = new URL('../../demo/', import.meta.url);
-  for (const file of readdirSync(demo).filter((name) => name.endsWith('.json'))) {
-    const study = parseStudy(readFileSync(new URL(file, demo), 'utf8'));
-    for (const device of study.devices) found.push([`${file} ${device.id}`, device.characteristic]);
-  }
+  const found = shippedCharacteristics();
   for (const curve of INVERSE_CURVE_NAMES) {
     const dial = curve.startsWith('ieee') ? { timeDial: 3 } : { timeMultiplier: 0.3, definiteTimeFrom: 20 };
     found.push([

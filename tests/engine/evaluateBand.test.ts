@@ -1,26 +1,16 @@
-import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { bandOf, evaluateBand, fastestOf, groundFaultBandOf, scaleBand, type Band } from '../../src/engine/band.ts';
 import { characteristicSchema, type Characteristic } from '../../src/engine/devices/characteristic.ts';
 import { INVERSE_CURVE_NAMES } from '../../src/engine/devices/inverseCurves.ts';
-import { parseStudy } from '../../src/engine/study/parse.ts';
 import { curveTemplates } from '../../src/engine/templates/index.ts';
+import { shippedCharacteristics } from './shippedCharacteristics.ts';
 
 // The batch form of a band (`evaluateInto`) runs the same arithmetic as its two edges, a column at a time;
 // these checks hold it to the very same doubles (Object.is), the property that lets drawing use it.
 
-const demoDirectory = new URL('../../demo/', import.meta.url);
-
 /** Every curve template, every device of the demo studies, and each relay curve with tolerance, cap and delay. */
 function characteristics(): Array<[string, Characteristic]> {
-  const found: Array<[string, Characteristic]> = curveTemplates.map((template) => [
-    `template ${template.id}`,
-    template.characteristic,
-  ]);
-  for (const file of readdirSync(demoDirectory).filter((name) => name.endsWith('.json'))) {
-    const study = parseStudy(readFileSync(new URL(file, demoDirectory), 'utf8'));
-    for (const device of study.devices) found.push([`${file} ${device.id}`, device.characteristic]);
-  }
+  const found = shippedCharacteristics();
   for (const curve of INVERSE_CURVE_NAMES) {
     const dial = curve.startsWith('ieee') ? { timeDial: 3 } : { timeMultiplier: 0.3, definiteTimeFrom: 20 };
     found.push([
