@@ -16,11 +16,11 @@ export interface BenchHook {
   settingPaths(): { path: DocumentPath; value: number }[];
   /**
    * Sets the field at `path` to `value` as the property editor does and resolves, in milliseconds from
-   * the edit, when the next frame has been painted (`paint`: a task queued from the first animation
-   * frame after the DOM update) and when the checks' findings of the edit are on the page and painted
-   * (`findings`).
+   * the edit, when the page's work on it is done and laid out (`work`), when the next frame has been
+   * painted (`paint`: a task queued from the first animation frame after the DOM update) and when the
+   * checks' findings of the edit are on the page and painted (`findings`).
    */
-  measureEdit(path: DocumentPath, value: unknown): Promise<{ paint: number; findings: number }>;
+  measureEdit(path: DocumentPath, value: unknown): Promise<{ work: number; paint: number; findings: number }>;
   /** Opens a study document (a generated one), as opening a file does; resolves once its findings are in. */
   open(document: unknown): Promise<void>;
 }
@@ -71,12 +71,14 @@ export function installBenchHook(target: Window, context: StudyContext): void {
       const start = performance.now();
       study.edit(path, value, 'benchmark');
       flushSync();
+      layout();
+      const work = performance.now() - start;
       await afterPaint();
       const paint = performance.now() - start;
       await checksDone(() => analysis.pending);
       flushSync();
       await afterPaint();
-      return { paint, findings: performance.now() - start };
+      return { work, paint, findings: performance.now() - start };
     },
     async open(document) {
       study.load(document as StudyInput, 'generated.json');
