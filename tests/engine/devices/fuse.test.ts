@@ -65,6 +65,22 @@ describe('fuse', () => {
     expect([...band.breakpoints]).toEqual([200, 400, 1000, 4000]);
   });
 
+  it('fuseBand evaluates any number of currents in any order as its edges do, one call after another', () => {
+    const band = fuseBand(fuseSchema.parse(fuse));
+    // Short, long (past any scratch a shorter call left), then short again, each shuffled and with odd currents.
+    for (const length of [3, 5000, 2, 1200]) {
+      const amps = Float64Array.from({ length }, (_, i) => 150 * 40 ** (((i * 7919) % length) / length));
+      amps[0] = length === 2 ? NaN : 100;
+      const minTimes = new Float64Array(length);
+      const maxTimes = new Float64Array(length);
+      band.evaluateInto!(amps, minTimes, maxTimes);
+      amps.forEach((current, i) => {
+        expect(Object.is(minTimes[i], band.minTime(current)), `${current} A`).toBe(true);
+        expect(Object.is(maxTimes[i], band.maxTime(current)), `${current} A`).toBe(true);
+      });
+    }
+  });
+
   it('fuseBand carries currentLimitingFrom and notes an illustrative curve', () => {
     const band = fuseBand(fuseSchema.parse({ ...fuse, illustrative: true, currentLimitingFrom: '2 kA' }));
     expect(band.currentLimitingFrom).toBe(2000);
