@@ -1,5 +1,6 @@
 import type { Band } from '../band.ts';
 import { areTwins, FLAT, I2T, INVERSE, OTHER, STRIDE, TABLE, twinTimesInto, type PackedEdge } from './packedEdge.ts';
+import { expm1 } from './expm1.ts';
 import { tableTimesInto, type TableShape } from './pointTable.ts';
 /**
  * One element of a device edge (a long-time ramp, a short-time delay, an instantaneous trip…): it
@@ -71,7 +72,7 @@ export function inverseShapeTime(shape: InverseShape): (amps: number) => number 
     if (m >= cap) return capTime;
     if (!(m > 1)) return Infinity;
     const q =
-      p === 2 ? m * m - 1 : p === 1 ? m - 1 : Math.expm1(p * Math.log(amps * referenceInverse)) * scale + scaleMinusOne;
+      p === 2 ? m * m - 1 : p === 1 ? m - 1 : expm1(p * Math.log(amps * referenceInverse)) * scale + scaleMinusOne;
     return q > 0 ? dial * (a / q + b) : Infinity;
   };
 }
@@ -142,7 +143,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
                 ? m * m - 1
                 : p === 1
                   ? m - 1
-                  : Math.expm1(p * Math.log(amps * params[at + 7])) * params[at + 8] + params[at + 9];
+                  : expm1(p * Math.log(amps * params[at + 7])) * params[at + 8] + params[at + 9];
             t = q > 0 ? params[at + 1] * (params[at + 2] / q + params[at + 3]) : Infinity;
           }
           break;
@@ -303,7 +304,7 @@ function inverseTimesInto(
         if (p === 2) q = m * m - 1;
         else if (p === 1) q = m - 1;
         else {
-          q = Math.expm1(p * Math.log(current * referenceInverse)) * scale + scaleMinusOne;
+          q = expm1(p * Math.log(current * referenceInverse)) * scale + scaleMinusOne;
         }
         t = q > 0 ? dial * (a / q + b) : Infinity;
       }

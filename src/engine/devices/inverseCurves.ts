@@ -1,3 +1,5 @@
+import { expm1 } from './expm1.ts';
+
 /**
  * Constants of the standard inverse-time relay characteristics, as data (IEEE C37.112 and IEC 60255-151).
  * Every curve has the form `t = dial · (a / (M^p − 1) + b)` for `M = I / I_pickup > 1`, where the
@@ -135,5 +137,5 @@ export function resetTime(curve: InverseCurveName, multiple: number, timeDial: n
 function powMinusOne(multiple: number, p: number): number {
   if (p === 2) return multiple * multiple - 1;
   if (p === 1) return multiple - 1;
-  return Math.expm1(p * Math.log(multiple));
+  return expm1(p * Math.log(multiple));
 }

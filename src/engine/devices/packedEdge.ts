@@ -1,3 +1,4 @@
+import { expm1 } from './expm1.ts';
 import type { TableShape } from './pointTable.ts';
 
 /** Kind codes of a packed element (see `PackedEdge`). */
@@ -239,7 +240,7 @@ function inverseTwinInto(
         if (lowP === 2) q = m * m - 1;
         else if (lowP === 1) q = m - 1;
         else {
-          power = Math.expm1(lowP * Math.log(current * lowReference));
+          power = expm1(lowP * Math.log(current * lowReference));
           q = power * lowScale + lowScaleMinusOne;
         }
         t = q > 0 ? lowDial * (lowA / q + lowB) : Infinity;
@@ -256,7 +257,7 @@ function inverseTwinInto(
         if (highP === 2) q = m * m - 1;
         else if (highP === 1) q = m - 1;
         else {
-          if (!(shared && power === power)) power = Math.expm1(highP * Math.log(current * highReference));
+          if (!(shared && power === power)) power = expm1(highP * Math.log(current * highReference));
           q = power * highScale + highScaleMinusOne;
         }
         t = q > 0 ? highDial * (highA / q + highB) : Infinity;
