@@ -1,22 +1,57 @@
+/** Where an object made lazy keeps its builders, each replaced by its value once built. */
+const LAZY = Symbol('lazy fields');
+type LazyState = Record<string, unknown>;
+type WithState = { [LAZY]: LazyState };
+
 /**
- * Makes some string fields of `result` lazy: each is written by its builder the first time it is read,
- * then kept. A large study's analysis builds thousands of findings whose sentences are seldom all read
- * (the workbench shows a screenful, a report reads them once); the numbers stay eager. The fields keep
- * their place in `result`'s key order and stay enumerable, so `JSON.stringify`, structured cloning and
- * deep equality see plain strings; assigning one replaces it.
+ * One accessor per field name, shared by every lazy object: the state lives on the object, so making a
+ * field lazy allocates no closure, and objects made alike share their hidden class's transitions.
+ */
+const accessors = new Map<string, PropertyDescriptor>();
+function accessorOf(key: string): PropertyDescriptor {
+  let accessor = accessors.get(key);
+  if (!accessor) {
+    accessor = {
+      enumerable: true,
+      configurable: true,
+      get(this: WithState) {
+        const state = this[LAZY];
+        const value = state[key];
+        // A builder is the only function held; a built value (text, work steps) never is one.
+        return typeof value === 'function' ? (state[key] = (value as () => unknown)()) : value;
+      },
+      set(this: WithState, value: unknown) {
+        this[LAZY][key] = value;
+      },
+    };
+    accessors.set(key, accessor);
+  }
+  return accessor;
+}
+
+/**
+ * Makes fields of `result` lazy: each is built by its builder the first time it is read, then kept.
+ * A field already in `result` keeps its place in the key order; a new one is added last. The fields
+ * stay enumerable, so `JSON.stringify`, structured cloning and deep equality see plain values;
+ * assigning one replaces it. `builders` is kept (not copied) and holds each value once built.
+ *
+ * @example withLazyFields(bus, { work: () => stepsOf(bus) }) // bus.work is built on first read
+ */
+export function withLazyFields<T extends object>(result: T, builders: Record<string, () => unknown>): T {
+  const held = (result as Partial<WithState>)[LAZY];
+  if (held) Object.assign(held, builders);
+  else Object.defineProperty(result, LAZY, { value: builders, writable: true });
+  for (const key in builders) Object.defineProperty(result, key, accessorOf(key));
+  return result;
+}
+
+/**
+ * Makes some string fields of `result` lazy (see `withLazyFields`). A large study's analysis builds
+ * thousands of findings whose sentences are seldom all read (the workbench shows a screenful, a report
+ * reads them once); the numbers stay eager.
  *
  * @example const finding = withLazyText({ id: 'x', explanation: '' }, { explanation: () => explain(interval) })
  */
 export function withLazyText<T extends object>(result: T, builders: { [K in keyof T]?: () => string }): T {
-  for (const key of Object.keys(builders) as (keyof T & string)[]) {
-    const build = builders[key]!;
-    let text: string | undefined;
-    Object.defineProperty(result, key, {
-      enumerable: true,
-      configurable: true,
-      get: () => (text ??= build()),
-      set: (value: string) => void (text = value),
-    });
-  }
-  return result;
+  return withLazyFields(result, builders as Record<string, () => string>);
 }

@@ -1,3 +1,4 @@
+import { withLazyFields } from '../lazyText.ts';
 import type { WorkStep } from '../work.ts';
 import { formatImpedance, magnitudeOf, type Impedance } from './impedance.ts';
 
@@ -43,11 +44,7 @@ export function withLazy<T extends object, K extends string>(
   key: K,
   build: () => WorkStep[],
 ): T & { readonly [P in K]: WorkStep[] } {
-  let cached: WorkStep[] | undefined;
-  return Object.defineProperty(result, key, {
-    enumerable: true,
-    get: () => (cached ??= build()),
-  }) as T & { readonly [P in K]: WorkStep[] };
+  return withLazyFields(result, { [key]: build }) as T & { readonly [P in K]: WorkStep[] };
 }
 
 /** `withLazy(result, 'steps', build)`: an element's impedance steps. */

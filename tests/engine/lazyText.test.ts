@@ -1,0 +1,52 @@
+import { describe, expect, it } from 'vitest';
+import { withLazyFields, withLazyText } from '../../src/engine/lazyText.ts';
+
+describe('withLazyText', () => {
+  it('builds a sentence on first read only, and keeps it', () => {
+    let built = 0;
+    const finding = withLazyText(
+      { id: 'coordination:A/B', explanation: '' },
+      {
+        explanation: () => `built ${++built}`,
+      },
+    );
+    expect(built).toBe(0);
+    expect(finding.explanation).toBe('built 1');
+    expect(finding.explanation).toBe('built 1');
+    expect(built).toBe(1);
+  });
+
+  it('reads as plain data: key order, JSON, structured cloning and deep equality', () => {
+    const finding = withLazyText(
+      { id: 'x', explanation: '', suggestion: '', basis: 'IEEE 242' },
+      { explanation: () => 'because', suggestion: () => 'raise the dial' },
+    );
+    const plain = { id: 'x', explanation: 'because', suggestion: 'raise the dial', basis: 'IEEE 242' };
+    expect(Object.keys(finding)).toEqual(['id', 'explanation', 'suggestion', 'basis']);
+    expect(JSON.stringify(finding)).toBe(JSON.stringify(plain));
+    expect(structuredClone(finding)).toStrictEqual(plain);
+    expect(finding).toEqual(plain);
+  });
+
+  it('lets an assignment replace a sentence, built or not, on that object alone', () => {
+    const make = () => withLazyText({ explanation: '' }, { explanation: () => 'built' });
+    const [first, second] = [make(), make()];
+    first.explanation = 'edited';
+    expect(first.explanation).toBe('edited');
+    expect(second.explanation).toBe('built');
+  });
+});
+
+describe('withLazyFields', () => {
+  it('adds a new field last, and a second call on the same object keeps the first one lazy', () => {
+    let steps = 0;
+    const bus = withLazyFields(
+      withLazyFields({ busId: 'SWBD' } as Record<string, unknown>, { work: () => [++steps] }),
+      { steps: () => ['impedance'] },
+    );
+    expect(Object.keys(bus)).toEqual(['busId', 'work', 'steps']);
+    expect(steps).toBe(0);
+    expect(JSON.parse(JSON.stringify(bus))).toEqual({ busId: 'SWBD', work: [1], steps: ['impedance'] });
+    expect(bus.work).toBe(bus.work);
+  });
+});
