@@ -127,22 +127,26 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     if (needed === Infinity) return 0;
     return needed === 0 ? Infinity : (upTime * timeRatio) / needed;
   };
+  const marginOf = (upTime: number, downTime: number): number =>
+    upTime === Infinity ? Infinity : upTime * timeRatio - (downTime + margin);
   const pointOf = (amps: number, upTime: number, downTime: number): WorstPoint => ({
     amps,
     upTime,
     downTime,
-    marginSeconds: upTime === Infinity ? Infinity : upTime * timeRatio - (downTime + margin),
+    marginSeconds: marginOf(upTime, downTime),
     ratio: ratioOf(upTime, downTime),
   });
-  // The last evaluation, kept so that no current is evaluated twice.
-  let probeUp = 0;
-  let probeDown = 0;
+  // The last evaluation (upstream, downstream time), kept so that no current is evaluated twice; in
+  // a typed array, as a number changed in a closure's variable would be boxed at every probe.
+  const probed = scratch.probed;
   const probe = (amps: number): number => {
     const u = minTime(amps);
     const d = downSlow(amps);
-    probeUp = u > horizon ? Infinity : u;
-    probeDown = d > horizon ? Infinity : d;
-    return classOf(amps, probeUp, probeDown);
+    const up = u > horizon ? Infinity : u;
+    const down = d > horizon ? Infinity : d;
+    probed[0] = up;
+    probed[1] = down;
+    return classOf(amps, up, down);
   };
 
   // Stage 1: the grid — range ends, every breakpoint inside, and log-spaced samples between them —
@@ -170,8 +174,8 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   } else {
     for (let i = 0; i < count; i++) {
       classes[i] = probe(points[i]);
-      upTimes[i] = probeUp;
-      downTimes[i] = probeDown;
+      upTimes[i] = probed[0];
+      downTimes[i] = probed[1];
     }
   }
   count = probeDips(count);
@@ -181,35 +185,49 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   const intervals: OverlapInterval[] = [];
   let start = fromAmps;
   let current = classes[0];
-  let worst = pointOf(points[0], upTimes[0], downTimes[0]);
-  let worstRatio = worst.ratio;
-  let worstMargin = worst.marginSeconds;
+  // The interval's worst point so far, as numbers: its object is built once, when the interval closes.
+  let worstAmps = points[0];
+  let worstUp = upTimes[0];
+  let worstDown = downTimes[0];
+  let worstRatio = ratioOf(worstUp, worstDown);
+  let worstMargin = marginOf(worstUp, worstDown);
   for (let i = 1; i < count; i++) {
     let lo = points[i - 1];
     let loUp = upTimes[i - 1];
     let loDown = downTimes[i - 1];
     while (classes[i] !== current) {
       const edge = refineEdge(lo, loUp, loDown, points[i], upTimes[i], downTimes[i], current);
-      const last = pointOf(edge.lo, edge.loUp, edge.loDown);
-      if (last.ratio < worstRatio || (last.ratio === worstRatio && last.marginSeconds < worstMargin)) worst = last;
+      const lastRatio = ratioOf(edge.loUp, edge.loDown);
+      const lastMargin = marginOf(edge.loUp, edge.loDown);
+      if (lastRatio < worstRatio || (lastRatio === worstRatio && lastMargin < worstMargin)) {
+        worstAmps = edge.lo;
+        worstUp = edge.loUp;
+        worstDown = edge.loDown;
+      }
+      const worst = pointOf(worstAmps, worstUp, worstDown);
       intervals.push({ fromAmps: start, toAmps: edge.hi, status: STATUSES[current], worst });
       start = edge.hi;
       lo = edge.hi;
       loUp = edge.hiUp;
       loDown = edge.hiDown;
       current = edge.hiClass;
-      worst = pointOf(lo, loUp, loDown);
-      worstRatio = worst.ratio;
-      worstMargin = worst.marginSeconds;
+      worstAmps = lo;
+      worstUp = loUp;
+      worstDown = loDown;
+      worstRatio = ratioOf(loUp, loDown);
+      worstMargin = marginOf(loUp, loDown);
     }
     const ratio = ratioOf(upTimes[i], downTimes[i]);
     const slack = upTimes[i] * timeRatio - (downTimes[i] + margin);
     if (ratio < worstRatio || (ratio === worstRatio && slack < worstMargin)) {
-      worst = pointOf(points[i], upTimes[i], downTimes[i]);
+      worstAmps = points[i];
+      worstUp = upTimes[i];
+      worstDown = downTimes[i];
       worstRatio = ratio;
-      worstMargin = worst.marginSeconds;
+      worstMargin = marginOf(worstUp, worstDown);
     }
   }
+  const worst = pointOf(worstAmps, worstUp, worstDown);
   intervals.push({ fromAmps: start, toAmps, status: STATUSES[current], worst });
   return intervals;
 
@@ -220,7 +238,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
    * number of points.
    */
   function probeDips(size: number): number {
-    const dips: { amps: number; at: number; cls: number; up: number; down: number; ratio: number }[] = [];
+    const dips: { amps: number; at: number; cls: number; up: number; down: number }[] = [];
     let r0 = ratioOf(upTimes[0], downTimes[0]);
     let r1 = size > 1 ? ratioOf(upTimes[1], downTimes[1]) : Infinity;
     for (let i = 1; i + 1 < size; i++) {
@@ -229,12 +247,19 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
         // Golden-section search in log current between the neighbours, keeping the lowest probe.
         let xa = Math.log(points[i - 1]);
         let xb = Math.log(points[i + 1]);
-        let best: { amps: number; cls: number; up: number; down: number; ratio: number } | undefined;
+        // The lowest probe so far: current, class, upstream and downstream time, ratio (NaN: none yet).
+        const best = scratch.best.fill(NaN);
         const at = (x: number) => {
           const amps = Math.exp(x);
           const cls = probe(amps);
-          const ratio = ratioOf(probeUp, probeDown);
-          if (!best || ratio < best.ratio) best = { amps, cls, up: probeUp, down: probeDown, ratio };
+          const ratio = ratioOf(probed[0], probed[1]);
+          if (!(ratio >= best[4])) {
+            best[0] = amps;
+            best[1] = cls;
+            best[2] = probed[0];
+            best[3] = probed[1];
+            best[4] = ratio;
+          }
           return ratio;
         };
         let xc = xb - GOLDEN * (xb - xa);
@@ -256,8 +281,9 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
             fd = at(xd);
           }
         }
-        if (best && best.amps > points[i - 1] && best.amps < points[i + 1] && best.amps !== points[i]) {
-          dips.push({ ...best, at: best.amps < points[i] ? i : i + 1 });
+        const amps = best[0];
+        if (amps > points[i - 1] && amps < points[i + 1] && amps !== points[i]) {
+          dips.push({ amps, cls: best[1], up: best[2], down: best[3], at: amps < points[i] ? i : i + 1 });
         }
       }
       r0 = r1;
@@ -327,19 +353,19 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
       }
       const amps = Math.exp(x);
       const cls = probe(amps);
-      const g = threshold >= 0 ? gOf(probeUp, probeDown) : NaN;
+      const g = threshold >= 0 ? gOf(probed[0], probed[1]) : NaN;
       if (cls === from) {
         lo = amps;
-        loUp = probeUp;
-        loDown = probeDown;
+        loUp = probed[0];
+        loDown = probed[1];
         x0 = x;
         g0 = g;
         if (side === -1) g1 *= 0.5;
         side = -1;
       } else {
         hi = amps;
-        hiUp = probeUp;
-        hiDown = probeDown;
+        hiUp = probed[0];
+        hiDown = probed[1];
         hiClass = cls;
         x1 = x;
         g1 = g;
@@ -364,6 +390,8 @@ const scratch = {
   spareDown: new Float64Array(256),
   classes: new Int8Array(256),
   inside: new Float64Array(64),
+  probed: new Float64Array(2),
+  best: new Float64Array(5),
 };
 
 function ensure(name: 'upTimes' | 'downTimes' | 'spareUp' | 'spareDown', size: number): Float64Array {
