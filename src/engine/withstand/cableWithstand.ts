@@ -1,5 +1,6 @@
 import { conductorAreaCmil } from '../conductors/index.ts';
 import { InputError, expectedGot } from '../errors.ts';
+import { withLazyFields } from '../lazyText.ts';
 import { significant } from '../quantity/format.ts';
 import type { Cable } from '../study/index.ts';
 import { elementPath, requireNumberAbove } from './inputs.ts';
@@ -105,27 +106,33 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
 
   const sizeText = `${sets > 1 ? `${sets} × ` : ''}${cable.size}`;
   const temperatureText = `${t1} to ${t2} °C`;
-  return {
-    elementId: cable.id,
-    kind: 'cable',
-    label: `ICEA P-32-382 short-circuit limit, ${sizeText} ${conductor.symbol} ${temperatureText}`,
-    volts,
-    amps,
-    seconds,
-    timeAt(current) {
-      if (!(current >= lowestAmps)) return Infinity;
-      if (current >= highestAmps) return shortestSeconds;
-      return c * (area / current) ** 2;
+  // The notes are written when first read: a large study has thousands of cables, seldom all opened.
+  return withLazyFields(
+    {
+      elementId: cable.id,
+      kind: 'cable',
+      label: `ICEA P-32-382 short-circuit limit, ${sizeText} ${conductor.symbol} ${temperatureText}`,
+      volts,
+      amps,
+      seconds,
+      timeAt(current) {
+        if (!(current >= lowestAmps)) return Infinity;
+        if (current >= highestAmps) return shortestSeconds;
+        return c * (area / current) ** 2;
+      },
+      notes: [] as string[],
     },
-    notes: [
-      `ICEA P-32-382 conductor withstand: (I/A)²·t = K·log10[(T2 + λ)/(T1 + λ)], adiabatic (valid for short durations)`,
-      `${cable.material}: K = ${conductor.k}, λ = ${conductor.lambda} °C; ${cable.insulation}: T1 = ${t1} °C, T2 = ${t2} °C`,
-      `A = ${sets} × ${significant(perConductor, 7)} cmil = ${significant(area, 7)} cmil` +
-        (options.conductorAreaCmil === undefined ? ` (${cable.size}, NEC Chapter 9 Table 8)` : ' (area given)'),
-      `I = ${significant(c ** 0.5, 5)} · A / √t: ${significant(lowestAmps, 6)} A at ${longestSeconds} s to ` +
-        `${significant(highestAmps, 6)} A at ${shortestSeconds} s, at ${significant(volts, 6)} V`,
-      'conductor only: metallic shields and sheaths are rated by another method (ICEA P-45-482)',
-      CABLE_OVERLOAD_NOTE,
-    ],
-  };
+    {
+      notes: () => [
+        `ICEA P-32-382 conductor withstand: (I/A)²·t = K·log10[(T2 + λ)/(T1 + λ)], adiabatic (valid for short durations)`,
+        `${cable.material}: K = ${conductor.k}, λ = ${conductor.lambda} °C; ${cable.insulation}: T1 = ${t1} °C, T2 = ${t2} °C`,
+        `A = ${sets} × ${significant(perConductor, 7)} cmil = ${significant(area, 7)} cmil` +
+          (options.conductorAreaCmil === undefined ? ` (${cable.size}, NEC Chapter 9 Table 8)` : ' (area given)'),
+        `I = ${significant(c ** 0.5, 5)} · A / √t: ${significant(lowestAmps, 6)} A at ${longestSeconds} s to ` +
+          `${significant(highestAmps, 6)} A at ${shortestSeconds} s, at ${significant(volts, 6)} V`,
+        'conductor only: metallic shields and sheaths are rated by another method (ICEA P-45-482)',
+        CABLE_OVERLOAD_NOTE,
+      ],
+    },
+  );
 }

@@ -1,5 +1,6 @@
 import { InputError, expectedGot } from '../errors.ts';
 import { motorFullLoadOf } from '../fault/motorFullLoad.ts';
+import { withLazyFields } from '../lazyText.ts';
 import { significant } from '../quantity/format.ts';
 import type { Motor } from '../study/index.ts';
 import { elementPath, requireNumberAbove } from './inputs.ts';
@@ -96,25 +97,31 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
   const lraText = `${significant(lockedRotorAmps, 4)} A`;
   return {
     fullLoadAmps,
-    curve: {
-      elementId: motor.id,
-      label: `${name} starting: LRA ${lraText} for ${significant(accelerationTime, 3)} s`,
-      volts,
-      amps: Float64Array.from(distinct, ([a]) => a),
-      seconds: Float64Array.from(distinct, ([, t]) => t),
-      notes: [
-        `FLA ${significant(fullLoadAmps, 6)} A at ${significant(volts, 6)} V (${fullLoad.basis})` +
-          (serviceFactor === 1
-            ? ''
-            : `; running current × service factor ${serviceFactor} = ${significant(runningAmps, 6)} A`),
-        options.lockedRotorAmps === undefined
-          ? `LRA = ${motor.lockedRotor} × FLA = ${lraText} (common practice without data: about 6 × FLA)`
-          : `LRA ${lraText} given`,
-        `asymmetrical first-cycle current ${asymmetryFactor} × LRA = ${significant(asymmetricalAmps, 4)} A from ` +
-          `${STARTING_TIMES.halfCycle} s to ${asymmetricalUntil} s (common practice: 1.5–1.7 × LRA)`,
-        `acceleration time ${significant(accelerationTime, 3)} s, then the running current up to ${longestSeconds} s (common practice)`,
-      ],
-    },
+    // The notes are written when first read: a large study has thousands of motors, seldom all opened.
+    curve: withLazyFields(
+      {
+        elementId: motor.id,
+        label: `${name} starting: LRA ${lraText} for ${significant(accelerationTime, 3)} s`,
+        volts,
+        amps: Float64Array.from(distinct, ([a]) => a),
+        seconds: Float64Array.from(distinct, ([, t]) => t),
+        notes: [] as string[],
+      },
+      {
+        notes: () => [
+          `FLA ${significant(fullLoadAmps, 6)} A at ${significant(volts, 6)} V (${fullLoad.basis})` +
+            (serviceFactor === 1
+              ? ''
+              : `; running current × service factor ${serviceFactor} = ${significant(runningAmps, 6)} A`),
+          options.lockedRotorAmps === undefined
+            ? `LRA = ${motor.lockedRotor} × FLA = ${lraText} (common practice without data: about 6 × FLA)`
+            : `LRA ${lraText} given`,
+          `asymmetrical first-cycle current ${asymmetryFactor} × LRA = ${significant(asymmetricalAmps, 4)} A from ` +
+            `${STARTING_TIMES.halfCycle} s to ${asymmetricalUntil} s (common practice: 1.5–1.7 × LRA)`,
+          `acceleration time ${significant(accelerationTime, 3)} s, then the running current up to ${longestSeconds} s (common practice)`,
+        ],
+      },
+    ),
     lockedRotor: {
       kind: 'locked-rotor',
       label: `${name} locked rotor ${lraText} for ${significant(accelerationTime, 3)} s`,
