@@ -31,19 +31,19 @@ export function rangeOf(
   voltages: number[],
   shifts: ReadonlyMap<number, number> = new Map(),
 ): CurrentRange {
-  const distinct = [...new Set([referenceVolts, ...voltages])];
-  return {
-    fromAmps,
-    toAmps,
-    atVoltages: distinct.map((volts) => {
-      const k = volts === referenceVolts ? 1 : (shifts.get(volts) ?? 1);
-      return {
-        volts,
-        fromAmps: (fromAmps * referenceVolts * k) / volts,
-        toAmps: (toAmps * referenceVolts * k) / volts,
-      };
-    }),
-  };
+  // The reference voltage first, then each other voltage once, in order (a study has thousands of ranges).
+  const atVoltages: CurrentRange['atVoltages'] = [];
+  for (let i = -1; i < voltages.length; i++) {
+    const volts = i < 0 ? referenceVolts : voltages[i];
+    if (atVoltages.some((seen) => seen.volts === volts)) continue;
+    const k = volts === referenceVolts ? 1 : (shifts.get(volts) ?? 1);
+    atVoltages.push({
+      volts,
+      fromAmps: (fromAmps * referenceVolts * k) / volts,
+      toAmps: (toAmps * referenceVolts * k) / volts,
+    });
+  }
+  return { fromAmps, toAmps, atVoltages };
 }
 
 /** "between 9.8 kA and 14.9 kA at 480 V (340 A and 517 A at 12.47 kV)" */

@@ -144,40 +144,35 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       'single-phase': '',
       'line-to-neutral': ' for a line-to-neutral fault',
     }[pairCase.fault];
+    const shifts = new Map([[voltages[0], pairCase.upstreamShift]]);
     pairCase.intervals.forEach((interval, index) => {
       if (interval.status === 'selective' || isSliver(interval)) return;
-      const range = rangeOf(
-        interval.fromAmps,
-        interval.toAmps,
-        pairCase.referenceVolts,
-        voltages,
-        new Map([[voltages[0], pairCase.upstreamShift]]),
-      );
+      const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages, shifts);
       const { worst } = interval;
-      // The sentences are written when first read (a large study's findings are seldom all read).
-      const finding: Finding = {
-        id: `coordination:${check.upstream}/${check.downstream}:${pairCase.fault}:${index}`,
-        kind: 'coordination',
-        severity: SEVERITY[interval.status],
-        status: interval.status,
-        title: `${up} over ${down}: ${interval.status}${faultText}`,
-        subjects: [check.upstream, check.downstream],
-        range,
-        worst,
-        explanation: '',
-        suggestion: '',
-        basis: check.rule.basis,
-        referenceVolts: pairCase.referenceVolts,
-      };
-      findings.push(
-        withLazyText(finding, {
+      // The sentences are written when first read (a large study's findings are seldom all read); they
+      // are added in their place in the key order, after `worst`, so every finding has the same shape.
+      const finding = withLazyText(
+        {
+          id: `coordination:${check.upstream}/${check.downstream}:${pairCase.fault}:${index}`,
+          kind: 'coordination' as const,
+          severity: SEVERITY[interval.status],
+          status: interval.status,
+          title: `${up} over ${down}: ${interval.status}${faultText}`,
+          subjects: [check.upstream, check.downstream],
+          range,
+          worst,
+        } as Finding,
+        {
           explanation: () => explain(interval, up, down, describeRange(range), check.rule, faultText),
           suggestion: () =>
             pairCase.fault === 'ground-fault'
               ? suggestGround(interval, up, down)
               : suggest(interval, up, down, check.rule),
-        }),
+        },
       );
+      finding.basis = check.rule.basis;
+      finding.referenceVolts = pairCase.referenceVolts;
+      findings.push(finding);
     });
   }
   if (findings.length === 0) {
@@ -191,23 +186,25 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         first.referenceVolts,
         voltages,
       );
-      findings.push({
-        id: `coordination:${check.upstream}/${check.downstream}`,
-        kind: 'coordination',
-        severity: 'ok',
-        status: 'selective',
-        title: `${up} over ${down}: selective`,
-        subjects: [check.upstream, check.downstream],
-        range,
-        worst: least.worst,
-        explanation: '',
-        basis: check.rule.basis,
-        referenceVolts: first.referenceVolts,
-      });
-      withLazyText(findings[0], {
-        explanation: () =>
-          `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
-      });
+      const finding = withLazyText(
+        {
+          id: `coordination:${check.upstream}/${check.downstream}`,
+          kind: 'coordination' as const,
+          severity: 'ok' as const,
+          status: 'selective' as const,
+          title: `${up} over ${down}: selective`,
+          subjects: [check.upstream, check.downstream],
+          range,
+          worst: least.worst,
+        } as Finding,
+        {
+          explanation: () =>
+            `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
+        },
+      );
+      finding.basis = check.rule.basis;
+      finding.referenceVolts = first.referenceVolts;
+      findings.push(finding);
     }
   }
   return findings;

@@ -62,9 +62,19 @@ export function isValidTable(points: readonly (readonly [number, number])[]): bo
  */
 export function tableElement(points: PointTable, scale = 1): EdgeElement & { lastAmps: number } {
   const n = points.length;
-  const logAmps = Float64Array.from(points, ([amps]) => Math.log(amps * scale));
-  const seconds = Float64Array.from(points, ([, t]) => t);
-  const logSeconds = seconds.map(Math.log);
+  // Plain loops read each point by index: a mapping function that destructures a point goes through
+  // an iterator per point, and a study builds thousands of tables.
+  const logAmps = new Float64Array(n);
+  const seconds = new Float64Array(n);
+  const logSeconds = new Float64Array(n);
+  const joins: number[] = [];
+  for (let k = 0; k < n; k++) {
+    const amps = points[k][0] * scale;
+    logAmps[k] = Math.log(amps);
+    seconds[k] = points[k][1];
+    logSeconds[k] = Math.log(seconds[k]);
+    if (k > 0) joins.push(amps);
+  }
   const slopes = new Float64Array(n - 1);
   for (let k = 0; k < n - 1; k++) slopes[k] = (logSeconds[k + 1] - logSeconds[k]) / (logAmps[k + 1] - logAmps[k]);
   const first = points[0][0] * scale;
@@ -97,7 +107,7 @@ export function tableElement(points: PointTable, scale = 1): EdgeElement & { las
     pickup: first,
     time,
     shape: { kind: 'table', logAmps, seconds, logSeconds, slopes, first, lastAmps, lastSeconds },
-    joins: points.slice(1).map(([amps]) => amps * scale),
+    joins,
     levels: [lastSeconds],
     reach,
     lastAmps,
