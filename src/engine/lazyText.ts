@@ -46,12 +46,19 @@ export function withLazyFields<T extends object>(result: T, builders: Record<str
 }
 
 /**
- * Makes some string fields of `result` lazy (see `withLazyFields`). A large study's analysis builds
- * thousands of findings whose sentences are seldom all read (the workbench shows a screenful, a report
- * reads them once); the numbers stay eager.
+ * Makes some string fields of `result` lazy (see `withLazyFields`), then adds the fields of `after`,
+ * if given, behind them. A large study's analysis builds thousands of findings whose sentences are
+ * seldom all read (the workbench shows a screenful, a report reads them once); the numbers stay eager.
+ * Leaving the lazy fields out of `result` and giving the ones that follow them in `after` keeps the
+ * key order and gives every finding made alike one compact shape.
  *
- * @example const finding = withLazyText({ id: 'x', explanation: '' }, { explanation: () => explain(interval) })
+ * @example withLazyText<Finding>({ id: 'x' }, { explanation: () => explain(interval) }, { referenceVolts: 480 })
  */
-export function withLazyText<T extends object>(result: T, builders: { [K in keyof T]?: () => string }): T {
-  return withLazyFields(result, builders as Record<string, () => string>);
+export function withLazyText<T extends object>(
+  result: Partial<T>,
+  builders: { [K in keyof NoInfer<T>]?: () => string },
+  after?: NoInfer<Partial<T>>,
+): T {
+  withLazyFields(result, builders as Record<string, () => string>);
+  return (after ? Object.assign(result, after) : result) as T;
 }

@@ -1,3 +1,4 @@
+import { withLazyText } from '../lazyText.ts';
 import { scaleBand } from '../band.ts';
 import { locationBusOf } from '../network/index.ts';
 import { findOverlaps } from '../overlap.ts';
@@ -29,18 +30,25 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
   const toAmps = faults.buses.get(cable.from)!.max.threePhase;
   const from = withstand.minAmps;
   const deviceName = nameOf(device);
+  // The sentences and the basis are written when first read (a large study has thousands of cables).
+  const basis = () => curve.notes.join(' ');
   if (!(toAmps > from)) {
     return [
-      {
-        id: `cable-withstand:${cable.id}`,
-        kind: 'cable-withstand',
-        severity: 'ok',
-        title: `${name} can carry any fault here for 10 s`,
-        subjects: [device.id, cable.id],
-        explanation: `The largest fault at ${cable.from}, ${formatAmps(toAmps, 3)}, is below the current ${name} withstands for 10 s (${formatAmps(from, 3)}).`,
-        basis: curve.notes.join(' '),
-        referenceVolts: volts,
-      },
+      withLazyText<Finding>(
+        {
+          id: `cable-withstand:${cable.id}`,
+          kind: 'cable-withstand',
+          severity: 'ok',
+          title: `${name} can carry any fault here for 10 s`,
+          subjects: [device.id, cable.id],
+        },
+        {
+          explanation: () =>
+            `The largest fault at ${cable.from}, ${formatAmps(toAmps, 3)}, is below the current ${name} withstands for 10 s (${formatAmps(from, 3)}).`,
+          basis,
+        },
+        { referenceVolts: volts },
+      ),
     ];
   }
   const scaled = scaleBand(band, deviceVolts / volts);
@@ -50,34 +58,44 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
   if (failures.length === 0) {
     const least = intervals.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
     return [
-      {
-        id: `cable-withstand:${cable.id}`,
-        kind: 'cable-withstand',
-        severity: 'ok',
-        title: `${deviceName} protects ${name}`,
-        subjects: [device.id, cable.id],
-        range,
-        worst: least.worst,
-        explanation: `${capitalise(describeRange(range))} ${deviceName} clears before ${name} reaches its short-circuit limit (${curve.label}); closest at ${formatAmps(least.worst.amps, 3)}: ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
-        basis: curve.notes.join(' '),
-        referenceVolts: volts,
-      },
+      withLazyText<Finding>(
+        {
+          id: `cable-withstand:${cable.id}`,
+          kind: 'cable-withstand',
+          severity: 'ok',
+          title: `${deviceName} protects ${name}`,
+          subjects: [device.id, cable.id],
+          range,
+          worst: least.worst,
+        },
+        {
+          explanation: () =>
+            `${capitalise(describeRange(range))} ${deviceName} clears before ${name} reaches its short-circuit limit (${curve.label}); closest at ${formatAmps(least.worst.amps, 3)}: ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
+          basis,
+        },
+        { referenceVolts: volts },
+      ),
     ];
   }
   return failures.map((interval, index) => {
     const failed = rangeOf(interval.fromAmps, interval.toAmps, volts, []);
-    return {
-      id: `cable-withstand:${cable.id}:${index}`,
-      kind: 'cable-withstand',
-      severity: 'fail',
-      title: `${deviceName} does not protect ${name}`,
-      subjects: [device.id, cable.id],
-      range: failed,
-      worst: interval.worst,
-      explanation: `${capitalise(describeRange(failed))} ${name} reaches its short-circuit limit after ${formatSeconds(interval.worst.upTime)}, but ${deviceName} may take ${formatSeconds(interval.worst.downTime)} to clear (${curve.label}).`,
-      suggestion: `Use a faster device (lower instantaneous or short-time pickup) or a larger conductor.`,
-      basis: curve.notes.join(' '),
-      referenceVolts: volts,
-    };
+    return withLazyText<Finding>(
+      {
+        id: `cable-withstand:${cable.id}:${index}`,
+        kind: 'cable-withstand',
+        severity: 'fail',
+        title: `${deviceName} does not protect ${name}`,
+        subjects: [device.id, cable.id],
+        range: failed,
+        worst: interval.worst,
+      },
+      {
+        explanation: () =>
+          `${capitalise(describeRange(failed))} ${name} reaches its short-circuit limit after ${formatSeconds(interval.worst.upTime)}, but ${deviceName} may take ${formatSeconds(interval.worst.downTime)} to clear (${curve.label}).`,
+        suggestion: () => 'Use a faster device (lower instantaneous or short-time pickup) or a larger conductor.',
+        basis,
+      },
+      { referenceVolts: volts },
+    );
   });
 }

@@ -151,17 +151,17 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       const { worst } = interval;
       // The sentences are written when first read (a large study's findings are seldom all read); they
       // are added in their place in the key order, after `worst`, so every finding has the same shape.
-      const finding = withLazyText(
+      const finding = withLazyText<Finding>(
         {
           id: `coordination:${check.upstream}/${check.downstream}:${pairCase.fault}:${index}`,
-          kind: 'coordination' as const,
+          kind: 'coordination',
           severity: SEVERITY[interval.status],
           status: interval.status,
           title: `${up} over ${down}: ${interval.status}${faultText}`,
           subjects: [check.upstream, check.downstream],
           range,
           worst,
-        } as Finding,
+        },
         {
           explanation: () => explain(interval, up, down, describeRange(range), check.rule, faultText),
           suggestion: () =>
@@ -169,9 +169,8 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
               ? suggestGround(interval, up, down)
               : suggest(interval, up, down, check.rule),
         },
+        { basis: check.rule.basis, referenceVolts: pairCase.referenceVolts },
       );
-      finding.basis = check.rule.basis;
-      finding.referenceVolts = pairCase.referenceVolts;
       findings.push(finding);
     });
   }
@@ -186,24 +185,23 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         first.referenceVolts,
         voltages,
       );
-      const finding = withLazyText(
+      const finding = withLazyText<Finding>(
         {
           id: `coordination:${check.upstream}/${check.downstream}`,
-          kind: 'coordination' as const,
-          severity: 'ok' as const,
-          status: 'selective' as const,
+          kind: 'coordination',
+          severity: 'ok',
+          status: 'selective',
           title: `${up} over ${down}: selective`,
           subjects: [check.upstream, check.downstream],
           range,
           worst: least.worst,
-        } as Finding,
+        },
         {
           explanation: () =>
             `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
         },
+        { basis: check.rule.basis, referenceVolts: first.referenceVolts },
       );
-      finding.basis = check.rule.basis;
-      finding.referenceVolts = first.referenceVolts;
       findings.push(finding);
     }
   }

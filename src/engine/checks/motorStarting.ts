@@ -1,3 +1,4 @@
+import { withLazyText } from '../lazyText.ts';
 import { scaleBand } from '../band.ts';
 import { locationBusOf } from '../network/index.ts';
 import { formatAmps, formatSeconds } from '../quantity/format.ts';
@@ -29,32 +30,42 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
     if (operates <= seconds && (!worst || operates / seconds < worst.operates / worst.seconds))
       worst = { amps, seconds, operates };
   }
+  // The sentences and the basis are written when first read (a large study has thousands of motors).
+  const basis = () => starting.curve.notes.join(' ');
   if (!worst) {
     return [
+      withLazyText<Finding>(
+        {
+          id: `motor-starting:${motor.id}`,
+          kind: 'motor-starting',
+          severity: 'ok',
+          title: `${name} starts without tripping ${deviceName}`,
+          subjects: [device.id, motor.id],
+        },
+        { explanation: () => `${deviceName} stays above ${name}'s starting curve: ${starting.curve.label}.`, basis },
+        { referenceVolts: volts },
+      ),
+    ];
+  }
+  const { amps, seconds, operates } = worst;
+  return [
+    withLazyText<Finding>(
       {
         id: `motor-starting:${motor.id}`,
         kind: 'motor-starting',
-        severity: 'ok',
-        title: `${name} starts without tripping ${deviceName}`,
+        severity: 'fail',
+        title: `${deviceName} may trip while ${name} starts`,
         subjects: [device.id, motor.id],
-        explanation: `${deviceName} stays above ${name}'s starting curve: ${starting.curve.label}.`,
-        basis: starting.curve.notes.join(' '),
-        referenceVolts: volts,
+        range: rangeOf(amps, amps, volts, []),
       },
-    ];
-  }
-  return [
-    {
-      id: `motor-starting:${motor.id}`,
-      kind: 'motor-starting',
-      severity: 'fail',
-      title: `${deviceName} may trip while ${name} starts`,
-      subjects: [device.id, motor.id],
-      range: rangeOf(worst.amps, worst.amps, volts, []),
-      explanation: `While starting, ${name} draws ${formatAmps(worst.amps, 3)} for up to ${formatSeconds(worst.seconds)}, and ${deviceName} may operate after ${formatSeconds(worst.operates)}.`,
-      suggestion: `Raise ${deviceName}'s pickup or delay (or instantaneous setting) above the starting current, within NEC 430.52 limits.`,
-      basis: starting.curve.notes.join(' '),
-      referenceVolts: volts,
-    },
+      {
+        explanation: () =>
+          `While starting, ${name} draws ${formatAmps(amps, 3)} for up to ${formatSeconds(seconds)}, and ${deviceName} may operate after ${formatSeconds(operates)}.`,
+        suggestion: () =>
+          `Raise ${deviceName}'s pickup or delay (or instantaneous setting) above the starting current, within NEC 430.52 limits.`,
+        basis,
+      },
+      { referenceVolts: volts },
+    ),
   ];
 }
