@@ -1,7 +1,7 @@
 import type { z } from 'zod';
 import { InputError, quoteGot } from '../errors.ts';
 import { formatIssuePath, issueMessage } from './issueMessage.ts';
-import { jsonTextProblem, MAX_NESTING, withoutBom } from './jsonText.ts';
+import { fieldNamesIn, jsonTextProblem, MAX_NESTING, withoutBom } from './jsonText.ts';
 import { createStudySchema, studySchema, type Study } from './schema.ts';
 import { structureProblems } from './structure.ts';
 
@@ -46,13 +46,28 @@ export function readStudy(input: unknown): StudyReading {
  */
 export function readStudyParsed(input: unknown): { reading: StudyReading; parsed?: Study } {
   let raw = input;
+  let problem: StudyProblem | undefined;
   if (typeof input === 'string') {
+    // The built-in parser reads well-formed text fastest but names no field and keeps the last of a
+    // field given twice: the text's own check runs when it fails, when the document walk finds a
+    // problem (a text problem comes first), or when the text names more fields than the document holds.
     const text = withoutBom(input);
-    const problem = jsonTextProblem(text);
-    if (problem) return { reading: { problems: [problem] } };
-    raw = JSON.parse(text);
-  }
-  const problem = documentProblem(raw);
+    let parsed: { value: unknown } | undefined;
+    try {
+      parsed = { value: JSON.parse(text) };
+    } catch {
+      parsed = undefined;
+    }
+    const seen = { fields: 0 };
+    if (parsed) problem = problemBelow(parsed.value, 0, [], seen);
+    if (!parsed || problem || seen.fields !== fieldNamesIn(text)) {
+      const textProblem = jsonTextProblem(text);
+      if (textProblem) return { reading: { problems: [textProblem] } };
+    }
+    // The text check and the built-in parser agree on what is JSON (a property test holds them to it).
+    if (!parsed) return { reading: { problems: [{ path: 'study', message: 'expected well-formed JSON text' }] } };
+    raw = parsed.value;
+  } else problem = documentProblem(raw);
   if (problem) return { reading: { document: raw, problems: [problem] } };
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
     return {
@@ -104,7 +119,13 @@ export function documentProblemAt(value: unknown, path: readonly PropertyKey[]):
   return problemBelow(value, path.length, [...path]);
 }
 
-function problemBelow(value: unknown, depth: number, path: PropertyKey[]): StudyProblem | undefined {
+/** `seen.fields` counts the object fields the walk passes (all of them, when it finds no problem). */
+function problemBelow(
+  value: unknown,
+  depth: number,
+  path: PropertyKey[],
+  seen = { fields: 0 },
+): StudyProblem | undefined {
   if (typeof value === 'number') {
     const size = Math.abs(value);
     if (value === 0 || (size >= NUMBER_MAGNITUDE.smallest && size <= NUMBER_MAGNITUDE.largest)) return undefined;
@@ -121,7 +142,7 @@ function problemBelow(value: unknown, depth: number, path: PropertyKey[]): Study
     for (let i = 0; i < value.length; i++) {
       if (!(i in value)) continue;
       path.push(i);
-      const problem = problemBelow(value[i], depth + 1, path);
+      const problem = problemBelow(value[i], depth + 1, path, seen);
       path.pop();
       if (problem) return problem;
     }
@@ -129,8 +150,9 @@ function problemBelow(value: unknown, depth: number, path: PropertyKey[]): Study
   }
   for (const key in value) {
     if (!Object.hasOwn(value, key)) continue;
+    seen.fields++;
     path.push(key);
-    const problem = problemBelow((value as Record<string, unknown>)[key], depth + 1, path);
+    const problem = problemBelow((value as Record<string, unknown>)[key], depth + 1, path, seen);
     path.pop();
     if (problem) return problem;
   }

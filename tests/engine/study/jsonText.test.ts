@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { jsonTextProblem } from '../../../src/engine/study/jsonText.ts';
+import { fieldNamesIn, jsonTextProblem } from '../../../src/engine/study/jsonText.ts';
 
 const parses = (text: string) => {
   try {
@@ -45,6 +45,39 @@ describe('jsonTextProblem', () => {
         else if (!/"([^"\\]|\\.)*"\s*:/.test(text)) expect(problem).toBeUndefined();
       }),
       { numRuns: 2000 },
+    );
+  });
+});
+
+/** Every object field in a parsed JSON value. */
+const fieldsOf = (value: unknown): number =>
+  value === null || typeof value !== 'object'
+    ? 0
+    : Object.values(value).reduce<number>(
+        (sum, child) => sum + fieldsOf(child),
+        Array.isArray(value) ? 0 : Object.keys(value).length,
+      );
+
+describe('fieldNamesIn', () => {
+  it('counts field names, not strings that hold quotes, colons or backslashes', () => {
+    const text = String.raw`{"a": {"b": "c:"}, "d\\": ["e\\\":", "f"], "g" : 1}`;
+    expect(fieldsOf(JSON.parse(text))).toBe(4);
+    expect(fieldNamesIn(text)).toBe(4);
+    expect(fieldNamesIn('["a", "b"]')).toBe(0);
+  });
+
+  it('counts a field given twice twice: more names than the parsed document has fields', () => {
+    expect(fieldNamesIn('{"name": "a", "name": "b"}')).toBe(2);
+    expect(fieldsOf(JSON.parse('{"name": "a", "name": "b"}'))).toBe(1);
+  });
+
+  // JSON.stringify writes each field once, so the names in the text are the parsed value's fields.
+  it('agrees with the fields of every JSON value', () => {
+    fc.assert(
+      fc.property(fc.jsonValue(), (value) => {
+        expect(fieldNamesIn(JSON.stringify(value, null, 1))).toBe(fieldsOf(value));
+      }),
+      { numRuns: 500 },
     );
   });
 });
