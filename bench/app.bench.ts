@@ -76,12 +76,15 @@ function measure() {
       ],
       { cwd: ROOT, stdio: 'ignore' },
     );
-    const browser = await chromium.launch({
-      executablePath: '/usr/bin/chromium',
-      headless: true,
-      args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking'],
-    });
+    // The server is stopped however the run ends, also when the browser cannot start (else the
+    // benchmark process would wait for it forever).
+    let browser: Awaited<ReturnType<typeof chromium.launch>> | undefined;
     try {
+      browser = await chromium.launch({
+        executablePath: '/usr/bin/chromium',
+        headless: true,
+        args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking'],
+      });
       const url = `http://127.0.0.1:${PORT}/`;
       for (let i = 0; i < 100; i++) {
         try {
@@ -159,7 +162,7 @@ function measure() {
       );
       return { studies, probe: probeTimes.slice(5) };
     } finally {
-      await browser.close();
+      await browser?.close();
       server.kill();
     }
   })();
