@@ -4,6 +4,7 @@ import { DELTA_WYE_TABLE, secondaryWindingOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween, type Network } from '../network/index.ts';
 import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
+import { withLazyText } from '../lazyText.ts';
 import { nameOf, rangeOf, type CheckContext } from './context.ts';
 import type { Finding } from './finding.ts';
 
@@ -140,11 +141,13 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
     context.faults.buses.get(c.busId)!.phases === 1
       ? { 'line-to-line': 'full-winding', 'line-to-ground': 'line-to-neutral' }[c.fault]
       : c.fault;
-  const arcing =
+  const arcing = () =>
     settings.arcingFactor === undefined
       ? 'bolted faults'
       : `arcing faults taken as ${significant(settings.arcingFactor * 100, 3)} % of the bolted fault (a user option; common practice, IEEE 1584 gives the method for the arcing current)`;
-  const basis = `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (${settings.maxTime === 2 ? 'common practice' : 'as set for this study'}).`;
+  // The sentences and the basis are written when first read (a large study has thousands of devices).
+  const basis = () =>
+    `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing()}; clearing within ${formatSeconds(settings.maxTime)} (${settings.maxTime === 2 ? 'common practice' : 'as set for this study'}).`;
   const describe = (c: SensitivityCase) => {
     const bus = network.buses.get(c.busId)!;
     const at = `${formatAmps(c.boltedAmps, 3)} ${faultName(c)} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
@@ -162,37 +165,47 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   if (failing.length === 0) {
     const slowest = cases.reduce((a, b) => (b.clearingTime > a.clearingTime ? b : a));
     return [
-      {
-        id: `sensitivity:${device.id}`,
-        kind: 'sensitivity',
-        severity: 'ok',
-        title: `${name} sees the minimum faults in its zone`,
-        subjects: [device.id],
-        range: rangeFor(slowest),
-        explanation: `${cases.map((c) => `For ${describe(c)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
-        basis,
-        referenceVolts: location.voltage,
-      },
+      withLazyText<Finding>(
+        {
+          id: `sensitivity:${device.id}`,
+          kind: 'sensitivity',
+          severity: 'ok',
+          title: `${name} sees the minimum faults in its zone`,
+          subjects: [device.id],
+          range: rangeFor(slowest),
+        },
+        {
+          explanation: () =>
+            `${cases.map((c) => `For ${describe(c)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
+          basis,
+        },
+        { referenceVolts: location.voltage },
+      ),
     ];
   }
   return failing.map((c) => {
     const never = c.clearingTime === Infinity;
-    return {
-      id: `sensitivity:${device.id}:${c.fault}`,
-      kind: 'sensitivity',
-      severity: never ? 'fail' : 'warning',
-      title: never
-        ? `${name} may not operate for a minimum ${faultName(c)} fault`
-        : `${name} is slow for a minimum ${faultName(c)} fault`,
-      subjects: [device.id],
-      range: rangeFor(c),
-      explanation: never
-        ? `For ${describe(c)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
-        : `For ${describe(c)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
-      suggestion: remedyOf(device, c, settings.maxTime),
-      basis,
-      referenceVolts: location.voltage,
-    };
+    return withLazyText<Finding>(
+      {
+        id: `sensitivity:${device.id}:${c.fault}`,
+        kind: 'sensitivity',
+        severity: never ? 'fail' : 'warning',
+        title: never
+          ? `${name} may not operate for a minimum ${faultName(c)} fault`
+          : `${name} is slow for a minimum ${faultName(c)} fault`,
+        subjects: [device.id],
+        range: rangeFor(c),
+      },
+      {
+        explanation: () =>
+          never
+            ? `For ${describe(c)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
+            : `For ${describe(c)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
+        suggestion: () => remedyOf(device, c, settings.maxTime),
+        basis,
+      },
+      { referenceVolts: location.voltage },
+    );
   });
 }
 
