@@ -92,7 +92,9 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
     [runningAmps, longestSeconds],
   ];
   // A start shorter than 0.1 s leaves two equal points; keep one.
-  const distinct = points.filter(([a, t], i) => i === 0 || a !== points[i - 1][0] || t !== points[i - 1][1]);
+  const distinct = points.filter(
+    (point, i) => i === 0 || point[0] !== points[i - 1][0] || point[1] !== points[i - 1][1],
+  );
   const name = motor.name ?? motor.id;
   const lraText = `${significant(lockedRotorAmps, 4)} A`;
   return {
@@ -103,8 +105,9 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
         elementId: motor.id,
         label: `${name} starting: LRA ${lraText} for ${significant(accelerationTime, 3)} s`,
         volts,
-        amps: Float64Array.from(distinct, ([a]) => a),
-        seconds: Float64Array.from(distinct, ([, t]) => t),
+        // Read by index, not destructured: a study has thousands of motors.
+        amps: Float64Array.from(distinct, (point) => point[0]),
+        seconds: Float64Array.from(distinct, (point) => point[1]),
         notes: [] as string[],
       },
       {
