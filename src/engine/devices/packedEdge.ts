@@ -206,6 +206,10 @@ function inverseTwinInto(
   const highScale = high.params[at + 8];
   const highScaleMinusOne = high.params[at + 9];
   const shared = lowP === highP && lowReference === highReference;
+  // The low edge's logarithms (for a power other than 1 or 2) first, in a loop of their own: the loop
+  // below then makes no call, around which it would save and restore its many live numbers each time.
+  const logs = lowP !== 1 && lowP !== 2 ? logScratch(amps.length) : undefined;
+  if (logs) for (let i = 0, n = amps.length; i < n; i++) logs[i] = Math.log(amps[i] * lowReference);
   // Read once: whether each current starts from the leading flat elements, and those elements.
   const fromFlats = seeded === true;
   const lowPickupA = low.leading[0];
@@ -240,7 +244,7 @@ function inverseTwinInto(
         if (lowP === 2) q = m * m - 1;
         else if (lowP === 1) q = m - 1;
         else {
-          power = expm1(lowP * Math.log(current * lowReference));
+          power = expm1(lowP * logs![i]);
           q = power * lowScale + lowScaleMinusOne;
         }
         t = q > 0 ? lowDial * (lowA / q + lowB) : Infinity;
@@ -305,6 +309,9 @@ function tableTwinInto(
   const highHeld = highSeconds[highLast + 1];
   let kl = 0;
   let kh = 0;
+  // The logarithms first, in a loop of their own (see `inverseTwinInto`).
+  const logs = logScratch(amps.length);
+  for (let i = 0, n = amps.length; i < n; i++) logs[i] = Math.log(amps[i]);
   // Read once: whether each current starts from the leading flat elements, and those elements.
   const fromFlats = seeded === true;
   const lowPickupA = lowEdge.leading[0];
@@ -317,7 +324,7 @@ function tableTwinInto(
   const highSecondsB = highEdge.leading[3];
   for (let i = 0, n = amps.length; i < n; i++) {
     const current = amps[i];
-    let x = NaN;
+    const x = logs[i];
     let lowest: number;
     let highest: number;
     if (fromFlats) {
@@ -334,7 +341,6 @@ function tableTwinInto(
       if (current >= lowLastAmps) t = lowHeld;
       else if (!(current >= lowFirst)) t = Infinity;
       else {
-        x = Math.log(current);
         while (kl < lowLast && lowLogs[kl + 1] <= x) kl++;
         while (kl > 0 && lowLogs[kl] > x) kl--;
         const dx = x - lowLogs[kl];
@@ -347,7 +353,6 @@ function tableTwinInto(
       if (current >= highLastAmps) t = highHeld;
       else if (!(current >= highFirst)) t = Infinity;
       else {
-        if (x !== x) x = Math.log(current);
         while (kh < highLast && highLogs[kh + 1] <= x) kh++;
         while (kh > 0 && highLogs[kh] > x) kh--;
         const dx = x - highLogs[kh];
@@ -358,4 +363,11 @@ function tableTwinInto(
     minTimes[i] = (lowest > lowClamp ? lowest : lowClamp) + lowAdded;
     maxTimes[i] = (highest > highClamp ? highest : highClamp) + highAdded;
   }
+}
+
+/** Scratch for the passes' logarithms, grown as needed (bands are evaluated one at a time). */
+let scratchLogs = new Float64Array(256);
+function logScratch(length: number): Float64Array {
+  if (scratchLogs.length < length) scratchLogs = new Float64Array(2 * length);
+  return scratchLogs;
 }
