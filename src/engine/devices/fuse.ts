@@ -1,6 +1,7 @@
 import type { Band } from '../band.ts';
 import { uniqueAscending } from './composite.ts';
-import { tableElement, tableTimesAt, type TableShape } from './pointTable.ts';
+import { logarithmsOf } from './packedEdge.ts';
+import { tableElement, type TableShape } from './pointTable.ts';
 import type { Fuse } from './fuseSchema.ts';
 
 /**
@@ -41,18 +42,11 @@ export function fuseBand(fuse: Fuse): Band {
   };
 }
 
-/** Scratch for `fuseTimesInto`, grown as needed: bands are evaluated one at a time, so one set serves every fuse. */
-let scratch = scratchOf(0);
-
-function scratchOf(n: number) {
-  const column = () => new Float64Array(n);
-  return { at: new Int32Array(n), logs: column(), melts: column(), clears: column(), exponents: column() };
-}
-
 /**
- * Both edges of a fuse band at every current, the arithmetic of `tableElement`'s `time` (see
- * `tableTimesAt`): one logarithm per current for the two tables, in a loop of its own; total clearing
- * held at or above melting.
+ * Both edges of a fuse band at every current in one pass, the arithmetic of `tableElement`'s `time`
+ * (see `tableTimesInto`): one logarithm per current for the two tables (taken first, `logarithmsOf`),
+ * and a cursor per table that finds the segment the binary search of `time` finds; total clearing held
+ * at or above melting.
  */
 function fuseTimesInto(
   melting: TableShape,
@@ -61,25 +55,52 @@ function fuseTimesInto(
   minTimes: Float64Array,
   maxTimes: Float64Array,
 ): void {
-  const n = amps.length;
-  if (scratch.at.length < n) scratch = scratchOf(n);
-  const { at, logs, melts, clears, exponents } = scratch;
-  // Below both tables' first currents (or NaN) the fuse neither melts nor clears: no logarithm there.
-  const from = Math.min(melting.first, clearing.first);
-  let count = 0;
-  for (let i = 0; i < n; i++) if (amps[i] >= from) at[count++] = i;
-  for (let j = 0; j < count; j++) logs[j] = Math.log(amps[at[j]]);
-  tableTimesAt(melting, amps, at, count, logs, melts, exponents);
-  tableTimesAt(clearing, amps, at, count, logs, clears, exponents);
-  for (let i = 0; i < n; i++) {
-    // Assigned in a branch, not chosen by `?:` against Infinity, which V8 compiles to a much slower loop.
-    let melt = Infinity;
-    let clear = Infinity;
-    if (amps[i] >= from) {
-      melt = melts[i];
-      clear = clears[i];
+  // Everything the loop reads, in locals: the two tables' columns, first and last points.
+  const {
+    logAmps: meltingLogs,
+    seconds: meltingSeconds,
+    logSeconds: meltingLogSeconds,
+    slopes: meltingSlopes,
+  } = melting;
+  const {
+    logAmps: clearingLogs,
+    seconds: clearingSeconds,
+    logSeconds: clearingLogSeconds,
+    slopes: clearingSlopes,
+  } = clearing;
+  const lastMelting = meltingLogs.length - 2;
+  const lastClearing = clearingLogs.length - 2;
+  const meltingFirst = melting.first;
+  const meltingLast = melting.lastAmps;
+  const meltingHeld = meltingSeconds[lastMelting + 1];
+  const clearingFirst = clearing.first;
+  const clearingLast = clearing.lastAmps;
+  const clearingHeld = clearingSeconds[lastClearing + 1];
+  let km = 0;
+  let kc = 0;
+  const logs = logarithmsOf(amps, 1);
+  for (let i = 0, n = amps.length; i < n; i++) {
+    const current = amps[i];
+    let melts = Infinity;
+    let clears = Infinity;
+    if (current >= meltingFirst || current >= clearingFirst) {
+      const x = logs[i];
+      if (current >= meltingLast) melts = meltingHeld;
+      else if (current >= meltingFirst) {
+        while (km < lastMelting && meltingLogs[km + 1] <= x) km++;
+        while (km > 0 && meltingLogs[km] > x) km--;
+        const dx = x - meltingLogs[km];
+        melts = dx === 0 ? meltingSeconds[km] : Math.exp(meltingLogSeconds[km] + dx * meltingSlopes[km]);
+      }
+      if (current >= clearingLast) clears = clearingHeld;
+      else if (current >= clearingFirst) {
+        while (kc < lastClearing && clearingLogs[kc + 1] <= x) kc++;
+        while (kc > 0 && clearingLogs[kc] > x) kc--;
+        const dx = x - clearingLogs[kc];
+        clears = dx === 0 ? clearingSeconds[kc] : Math.exp(clearingLogSeconds[kc] + dx * clearingSlopes[kc]);
+      }
     }
-    minTimes[i] = melt;
-    maxTimes[i] = clear >= melt ? clear : melt;
+    minTimes[i] = melts;
+    maxTimes[i] = clears >= melts ? clears : melts;
   }
 }

@@ -206,10 +206,8 @@ function inverseTwinInto(
   const highScale = high.params[at + 8];
   const highScaleMinusOne = high.params[at + 9];
   const shared = lowP === highP && lowReference === highReference;
-  // The low edge's logarithms (for a power other than 1 or 2) first, in a loop of their own: the loop
-  // below then makes no call, around which it would save and restore its many live numbers each time.
-  const logs = lowP !== 1 && lowP !== 2 ? logScratch(amps.length) : undefined;
-  if (logs) for (let i = 0, n = amps.length; i < n; i++) logs[i] = Math.log(amps[i] * lowReference);
+  // The low edge's logarithms, for a power other than 1 or 2, in a loop of their own (`logarithmsOf`).
+  const logs = lowP !== 1 && lowP !== 2 ? logarithmsOf(amps, lowReference) : undefined;
   // Read once: whether each current starts from the leading flat elements, and those elements.
   const fromFlats = seeded === true;
   const lowPickupA = low.leading[0];
@@ -309,9 +307,8 @@ function tableTwinInto(
   const highHeld = highSeconds[highLast + 1];
   let kl = 0;
   let kh = 0;
-  // The logarithms first, in a loop of their own (see `inverseTwinInto`).
-  const logs = logScratch(amps.length);
-  for (let i = 0, n = amps.length; i < n; i++) logs[i] = Math.log(amps[i]);
+  // The logarithms in a loop of their own (`logarithmsOf`); ln(I · 1) is ln(I) exactly.
+  const logs = logarithmsOf(amps, 1);
   // Read once: whether each current starts from the leading flat elements, and those elements.
   const fromFlats = seeded === true;
   const lowPickupA = lowEdge.leading[0];
@@ -365,9 +362,20 @@ function tableTwinInto(
   }
 }
 
-/** Scratch for the passes' logarithms, grown as needed (bands are evaluated one at a time). */
+/** Scratch for `logarithmsOf`, grown as needed (bands are evaluated one at a time). */
 let scratchLogs = new Float64Array(256);
-function logScratch(length: number): Float64Array {
-  if (scratchLogs.length < length) scratchLogs = new Float64Array(2 * length);
-  return scratchLogs;
+
+/**
+ * `Math.log(amps[i] * factor)` for every current, in a scratch array the next call overwrites. A batch
+ * pass takes its logarithms here, in a loop of their own, so that its own loop makes no call, around
+ * which it would save and restore its many live numbers for every current (measured: P1 several µs
+ * faster per 1,000 currents).
+ *
+ * @example const logs = logarithmsOf(amps, 1 / pickup) // logs[i] = ln(amps[i] / pickup)
+ */
+export function logarithmsOf(amps: Float64Array, factor: number): Float64Array {
+  if (scratchLogs.length < amps.length) scratchLogs = new Float64Array(2 * amps.length);
+  const logs = scratchLogs;
+  for (let i = 0, n = amps.length; i < n; i++) logs[i] = Math.log(amps[i] * factor);
+  return logs;
 }

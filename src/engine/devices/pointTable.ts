@@ -176,49 +176,6 @@ export function tableTimesInto(
 }
 
 /**
- * `times[at[j]]` = the table's time at `amps[at[j]]` for every `j < count`, exactly the double
- * `tableElement(…).time` gives, where `logs[j]` holds `Math.log(amps[at[j]])`; `exponents` is scratch of
- * `count`. The segments (found by a cursor, as in `tableTimesInto`) come first and the exponentials
- * after, in a loop of their own, which runs faster than one where each exponential waits for a
- * logarithm and a search.
- */
-export function tableTimesAt(
-  table: TableShape,
-  amps: Float64Array,
-  at: Int32Array,
-  count: number,
-  logs: Float64Array,
-  times: Float64Array,
-  exponents: Float64Array,
-): void {
-  const { logAmps, seconds, logSeconds, slopes, first, lastAmps } = table;
-  const lastSegment = logAmps.length - 2;
-  const lastSeconds = seconds[lastSegment + 1];
-  let k = 0;
-  for (let j = 0; j < count; j++) {
-    const i = at[j];
-    const current = amps[i];
-    // NaN marks a time known without an exponential: held, Infinity below the first point, or a point's own.
-    let exponent = NaN;
-    if (current >= lastAmps) times[i] = lastSeconds;
-    else if (!(current >= first)) times[i] = Infinity;
-    else {
-      const x = logs[j];
-      while (k < lastSegment && logAmps[k + 1] <= x) k++;
-      while (k > 0 && logAmps[k] > x) k--;
-      const dx = x - logAmps[k];
-      if (dx === 0) times[i] = seconds[k];
-      else exponent = logSeconds[k] + dx * slopes[k];
-    }
-    exponents[j] = exponent;
-  }
-  for (let j = 0; j < count; j++) {
-    const exponent = exponents[j];
-    if (exponent === exponent) times[at[j]] = Math.exp(exponent);
-  }
-}
-
-/**
  * Where a slower table (`upper`, e.g. total clearing) is faster than `lower` (minimum melting), or
  * starts at a lower current, checked at every tabulated current of both (exact for log-log
  * interpolation, which is linear in between). Returns the first offending current, or undefined.
