@@ -99,9 +99,12 @@ function familyMix(study: Study): string {
 // ---------------------------------------------------------------------------------------------
 // P2e: band evaluations per pair check, counted by wrapping every band the checks are given.
 
-/** A band that counts every evaluation of either edge in `counter.calls`. */
+/**
+ * A band that counts every evaluation of either edge in `counter.calls`: one per edge call, and one per
+ * current for each edge a batch call is asked for.
+ */
 function counted(band: Band, counter: { calls: number }): Band {
-  const { minTime, maxTime } = band;
+  const { minTime, maxTime, evaluateInto } = band;
   return {
     ...band,
     minTime: (amps) => {
@@ -112,6 +115,12 @@ function counted(band: Band, counter: { calls: number }): Band {
       counter.calls++;
       return maxTime(amps);
     },
+    evaluateInto:
+      evaluateInto &&
+      ((amps, minTimes, maxTimes) => {
+        counter.calls += ((minTimes ? 1 : 0) + (maxTimes ? 1 : 0)) * amps.length;
+        evaluateInto(amps, minTimes, maxTimes);
+      }),
   };
 }
 

@@ -25,9 +25,11 @@ export interface Band {
   /**
    * Both edges at many currents at once, when the family has a batch form: sets `minTimes[i]` and
    * `maxTimes[i]` to exactly the doubles `minTime(amps[i])` and `maxTime(amps[i])` return, for currents
-   * in any order. Optional; `evaluateBand` calls it when present and the two edges otherwise.
+   * in any order. An edge given `undefined` is not asked for (the overlap finder compares one edge of
+   * each band) and need not be evaluated. Optional; `evaluateBand` calls it when present and the two
+   * edges otherwise.
    */
-  evaluateInto?(amps: Float64Array, minTimes: Float64Array, maxTimes: Float64Array): void;
+  evaluateInto?(amps: Float64Array, minTimes: Float64Array | undefined, maxTimes: Float64Array | undefined): void;
   /**
    * Currents (A, ascending, no duplicates) where either edge changes formula: pickups with their
    * tolerance edges, segment joins, tabulated points. Between two breakpoints both edges are smooth.
@@ -163,9 +165,24 @@ export function fastestOf(bands: Band[]): Band {
     return time;
   };
   const breakpoints = [...new Set(bands.flatMap((band) => [...band.breakpoints]))].sort((a, b) => a - b);
+  // The batch form, where every band has one: the first band's edges, lowered to each other band's
+  // (the same doubles as `smallest`, a minimum taken in any order). Scratch kept with the band.
+  let spareMin = new Float64Array(0);
+  let spareMax = new Float64Array(0);
+  const evaluateInto = (amps: Float64Array, minOut?: Float64Array, maxOut?: Float64Array) => {
+    const n = amps.length;
+    if (spareMin.length < n) [spareMin, spareMax] = [new Float64Array(n), new Float64Array(n)];
+    bands[0].evaluateInto!(amps, minOut, maxOut);
+    for (let b = 1; b < bands.length; b++) {
+      bands[b].evaluateInto!(amps, minOut && spareMin, maxOut && spareMax);
+      if (minOut) for (let i = 0; i < n; i++) if (spareMin[i] < minOut[i]) minOut[i] = spareMin[i];
+      if (maxOut) for (let i = 0; i < n; i++) if (spareMax[i] < maxOut[i]) maxOut[i] = spareMax[i];
+    }
+  };
   return {
     minTime: (amps) => smallest(minTimes, amps),
     maxTime: (amps) => smallest(maxTimes, amps),
+    evaluateInto: bands.every((band) => band.evaluateInto) ? evaluateInto : undefined,
     breakpoints: Float64Array.from(breakpoints),
     minAmps: Math.min(...bands.map((band) => band.minAmps)),
     maxAmps: Math.max(...bands.map((band) => band.maxAmps)),

@@ -159,11 +159,11 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   const downTimes = ensure('downTimes', count);
   const classes = ensureClasses(count);
   if (up.evaluateInto && down.evaluateInto) {
-    // Both bands over the whole grid in one call each (the same doubles as one current at a time, by
-    // the band contract); the edges the finder does not compare land in the spare arrays.
+    // The two edges the finder compares over the whole grid, one call each (the same doubles as one
+    // current at a time, by the band contract): the upstream earliest and the downstream latest.
     const amps = points.subarray(0, count);
-    up.evaluateInto(amps, upTimes, ensure('spareUp', count));
-    down.evaluateInto(amps, ensure('spareDown', count), downTimes);
+    up.evaluateInto(amps, upTimes, undefined);
+    down.evaluateInto(amps, undefined, downTimes);
     for (let i = 0; i < count; i++) {
       const u = upTimes[i] > horizon ? Infinity : upTimes[i];
       const d = downTimes[i] > horizon ? Infinity : downTimes[i];
@@ -386,15 +386,13 @@ const scratch = {
   points: new Float64Array(256),
   upTimes: new Float64Array(256),
   downTimes: new Float64Array(256),
-  spareUp: new Float64Array(256),
-  spareDown: new Float64Array(256),
   classes: new Int8Array(256),
   inside: new Float64Array(64),
   probed: new Float64Array(2),
   best: new Float64Array(5),
 };
 
-function ensure(name: 'upTimes' | 'downTimes' | 'spareUp' | 'spareDown', size: number): Float64Array {
+function ensure(name: 'upTimes' | 'downTimes', size: number): Float64Array {
   if (scratch[name].length < size) scratch[name] = new Float64Array(2 * size);
   return scratch[name];
 }

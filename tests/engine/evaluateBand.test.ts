@@ -66,14 +66,24 @@ function currentsFor(band: Band, seed: number): number[] {
   return amps;
 }
 
-/** The first current where `evaluateBand` differs from the band's own edges, or undefined. */
+/**
+ * The first current where `evaluateBand`, or the batch form asked for one edge alone (as the overlap
+ * finder asks), differs from the band's own edges, or undefined.
+ */
 function firstDifference(band: Band, amps: number[]): string | undefined {
   const currents = Float64Array.from(amps);
   const { minTimes, maxTimes } = evaluateBand(band, currents);
+  const minAlone = new Float64Array(currents.length).fill(-1);
+  const maxAlone = new Float64Array(currents.length).fill(-1);
+  band.evaluateInto?.(currents, minAlone, undefined);
+  band.evaluateInto?.(currents, undefined, maxAlone);
   for (let i = 0; i < currents.length; i++) {
     const [min, max] = [band.minTime(currents[i]), band.maxTime(currents[i])];
     if (!Object.is(minTimes[i], min) || !Object.is(maxTimes[i], max)) {
       return `at ${currents[i]} A: ${minTimes[i]} / ${maxTimes[i]} s against ${min} / ${max} s`;
+    }
+    if (band.evaluateInto && (!Object.is(minAlone[i], min) || !Object.is(maxAlone[i], max))) {
+      return `at ${currents[i]} A, one edge at a time: ${minAlone[i]} / ${maxAlone[i]} s against ${min} / ${max} s`;
     }
   }
   return undefined;
@@ -109,6 +119,7 @@ describe('evaluateBand', () => {
       if (ground) {
         expect(firstDifference(ground, currentsFor(ground, 11)), `${name}, ground`).toBeUndefined();
         const both = fastestOf([band, ground]);
+        expect(both.evaluateInto, `${name}, fastest has a batch form`).toBeDefined();
         expect(firstDifference(both, currentsFor(both, 13)), `${name}, fastest`).toBeUndefined();
       }
     }

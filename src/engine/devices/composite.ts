@@ -412,14 +412,14 @@ export function bandOfEdges(
     minTime: low.time,
     maxTime: high.time,
     evaluateInto: (amps, minTimes, maxTimes) => {
-      if (twins) return twinTimesInto(low.packed, high.packed, amps, minTimes, maxTimes);
+      if (twins && minTimes && maxTimes) return twinTimesInto(low.packed, high.packed, amps, minTimes, maxTimes);
       const n = amps.length;
       if (tabulated) {
         if (logs.length < n) logs = new Float64Array(n);
         logs.fill(NaN, 0, n);
       }
-      low.timesInto(amps, minTimes, logs);
-      high.timesInto(amps, maxTimes, logs);
+      if (minTimes) low.timesInto(amps, minTimes, logs);
+      if (maxTimes) high.timesInto(amps, maxTimes, logs);
     },
     breakpoints: Float64Array.from(uniqueAscending([...low.breakpoints, ...high.breakpoints])),
     minAmps: low.minAmps,

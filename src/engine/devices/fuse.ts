@@ -23,6 +23,7 @@ export function fuseBand(fuse: Fuse): Band {
   const clearingTime = clearing.time;
   const meltingTable = melting.shape as TableShape;
   const clearingTable = clearing.shape as TableShape;
+  let spare = new Float64Array(0);
   return {
     minTime: meltingTime,
     // The schema lets total clearing sit within a relative 1e-12 of minimum melting (the round trip
@@ -33,7 +34,13 @@ export function fuseBand(fuse: Fuse): Band {
       const melts = meltingTime(amps);
       return clears >= melts ? clears : melts;
     },
-    evaluateInto: (amps, minTimes, maxTimes) => fuseTimesInto(meltingTable, clearingTable, amps, minTimes, maxTimes),
+    // Both tables are read for either edge (clearing is held at or above melting): an edge not asked
+    // for is written to scratch.
+    evaluateInto: (amps, minTimes, maxTimes) => {
+      const n = amps.length;
+      if ((!minTimes || !maxTimes) && spare.length < n) spare = new Float64Array(n);
+      fuseTimesInto(meltingTable, clearingTable, amps, minTimes ?? spare, maxTimes ?? spare);
+    },
     breakpoints: Float64Array.from(uniqueAscending([...fuse.minimumMelting, ...fuse.totalClearing].map(([a]) => a))),
     minAmps: melting.pickup,
     maxAmps: Math.max(melting.lastAmps, clearing.lastAmps),
