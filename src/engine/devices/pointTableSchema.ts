@@ -12,8 +12,16 @@ const MAX_SECONDS = 1e5;
  *
  * @example pointTableSchema({ current: 'a current in amperes', unit: ' A' }).parse([[200, 300], [1000, 0.1]])
  */
-export function pointTableSchema({ current, unit }: PointTableOptions) {
-  return withPlainPath(
+export function pointTableSchema(options: PointTableOptions) {
+  return withPlainPath(zodPointTableSchema(options));
+}
+
+/**
+ * `pointTableSchema` as zod alone reads it, without the quicker reading of plain tables: the reference
+ * its every answer is held to.
+ */
+export function zodPointTableSchema({ current, unit }: PointTableOptions) {
+  return (
     z
       .array(z.tuple([z.number().max(MAX_AMPS), z.number().max(MAX_SECONDS)]))
       // At most 1e7 A (or ×) and 1e5 s, like every current and time in a study; 1000 points is far
@@ -29,7 +37,7 @@ export function pointTableSchema({ current, unit }: PointTableOptions) {
           if (problem) ctx.addIssue({ code: 'custom', path: [i, problem.column], message: problem.message });
         }
       })
-      .meta({ description: `[${current.replace(/^an? /, '')}, seconds] pairs, current ascending, time descending` }),
+      .meta({ description: `[${current.replace(/^an? /, '')}, seconds] pairs, current ascending, time descending` })
   );
 }
 
@@ -42,14 +50,24 @@ export function pointTableSchema({ current, unit }: PointTableOptions) {
  * most of the time spent checking a study's devices.
  */
 function withPlainPath<T extends z.ZodArray>(schema: T): T {
-  const read = schema._zod.parse;
-  schema._zod.parse = (payload, ctx) => {
+  let read = schema._zod.parse;
+  const readPlain: typeof read = (payload, ctx) => {
     const points = payload.value;
     const copy = Array.isArray(points) ? plainCopyOf(points) : undefined;
-    if (!copy) return read(payload, ctx);
-    payload.value = copy;
-    return payload;
+    if (copy) {
+      payload.value = copy;
+      return payload;
+    }
+    const result = read(payload, ctx);
+    // zod's reader may put another in its place on its first use (it removes a guard against cycles
+    // that this schema cannot have): take that one as zod's reading, and stay in front of it.
+    if (schema._zod.parse !== readPlain) {
+      read = schema._zod.parse;
+      schema._zod.parse = readPlain;
+    }
+    return result;
   };
+  schema._zod.parse = readPlain;
   return schema;
 }
 
