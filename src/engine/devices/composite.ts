@@ -1,6 +1,7 @@
 import type { Band } from '../band.ts';
 import { areTwins, FLAT, I2T, INVERSE, OTHER, STRIDE, TABLE, twinTimesInto, type PackedEdge } from './packedEdge.ts';
 import { expm1 } from './expm1.ts';
+import { logarithmsOf } from './logarithms.ts';
 import { tableTimesInto, type TableShape } from './pointTable.ts';
 /**
  * One element of a device edge (a long-time ramp, a short-time delay, an instantaneous trip…): it
@@ -89,8 +90,8 @@ export interface CompositeEdge {
   time(amps: number): number;
   /**
    * `out[i] = time(amps[i])` for every `i`, the same doubles, one element at a time over the whole array.
-   * `logs` is scratch the length of `amps` holding `Math.log(amps[i])` or NaN where not yet taken; table
-   * elements fill it, so two edges of one band take each logarithm once.
+   * `logs[i]` holds `Math.log(amps[i])` (`logarithmsOf`), read by table elements, so two edges of one band
+   * take each logarithm once.
    */
   timesInto(amps: Float64Array, out: Float64Array, logs: Float64Array): void;
   /** Whether `timesInto` reads `logs` (the edge has a table element); otherwise any array will do. */
@@ -406,18 +407,13 @@ export function bandOfEdges(
   // Two edges built alike (every family's) are evaluated together, a pass per element for both.
   const twins = areTwins(low.packed, high.packed);
   const tabulated = low.tabulated || high.tabulated;
-  // Scratch for the logarithms the two edges share otherwise, kept with the band and grown when needed.
-  let logs = new Float64Array(0);
   return {
     minTime: low.time,
     maxTime: high.time,
     evaluateInto: (amps, minTimes, maxTimes) => {
       if (twins && minTimes && maxTimes) return twinTimesInto(low.packed, high.packed, amps, minTimes, maxTimes);
-      const n = amps.length;
-      if (tabulated) {
-        if (logs.length < n) logs = new Float64Array(n);
-        logs.fill(NaN, 0, n);
-      }
+      // Without a table element no edge reads `logs`, and any array will do.
+      const logs = tabulated ? logarithmsOf(amps, 1) : amps;
       if (minTimes) low.timesInto(amps, minTimes, logs);
       if (maxTimes) high.timesInto(amps, maxTimes, logs);
     },

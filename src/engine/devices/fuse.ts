@@ -1,6 +1,6 @@
 import type { Band } from '../band.ts';
 import { uniqueAscending } from './composite.ts';
-import { logarithmsOf } from './packedEdge.ts';
+import { logarithmsOf } from './logarithms.ts';
 import { tableElement, type TableShape } from './pointTable.ts';
 import type { Fuse } from './fuseSchema.ts';
 

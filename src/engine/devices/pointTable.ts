@@ -132,12 +132,12 @@ export interface TableShape {
 /**
  * For every `i` where `out[i]` is above the floor `bounds[0]`, lowers `out[i]` to the table's time at
  * `amps[i]` (exactly the double `tableElement(…).time` gives) if that is smaller; with `finish`, then
- * raises it to the floor and adds `bounds[1]` (the last pass of a composite edge). `logs[i]` holds `Math.log(amps[i])`, or NaN
- * until first needed, when it is taken and kept. The segment is found by a cursor that moves from the
+ * raises it to the floor and adds `bounds[1]` (the last pass of a composite edge). `logs[i]` holds
+ * `Math.log(amps[i])` (`logarithmsOf`). The segment is found by a cursor that moves from the
  * previous current's segment, a step or two for ascending currents, to the same segment the binary
  * search of `time` finds (the last one starting at or below the current's logarithm).
  *
- * @example tableTimesInto(shape, amps, logs.fill(NaN), out.fill(Infinity), Float64Array.of(0, 0), true)
+ * @example tableTimesInto(shape, amps, logarithmsOf(amps, 1), out.fill(Infinity), Float64Array.of(0, 0), true)
  */
 export function tableTimesInto(
   table: TableShape,
@@ -162,8 +162,7 @@ export function tableTimesInto(
       if (current >= lastAmps) t = lastSeconds;
       else if (!(current >= first)) t = Infinity;
       else {
-        let x = logs[i];
-        if (x !== x) logs[i] = x = Math.log(current);
+        const x = logs[i];
         while (k < lastSegment && logAmps[k + 1] <= x) k++;
         while (k > 0 && logAmps[k] > x) k--;
         const dx = x - logAmps[k];
