@@ -1,4 +1,5 @@
 import { expm1 } from './expm1.ts';
+import { exponential } from './exponential.ts';
 import { logarithmsOf } from './logarithms.ts';
 import type { TableShape } from './pointTable.ts';
 
@@ -306,8 +307,19 @@ function tableTwinInto(
   const highFirst = high.first;
   const highLastAmps = high.lastAmps;
   const highHeld = highSeconds[highLast + 1];
+  // Each cursor's segment held in locals, as in `tableTimesInto`.
   let kl = 0;
+  let lowFrom = Infinity;
+  let lowTo = -Infinity;
+  let lowLogTime = 0;
+  let lowSlope = 0;
+  let lowTime = 0;
   let kh = 0;
+  let highFrom = Infinity;
+  let highTo = -Infinity;
+  let highLogTime = 0;
+  let highSlope = 0;
+  let highTime = 0;
   // The logarithms in a loop of their own (`logarithmsOf`); ln(I · 1) is ln(I) exactly.
   const logs = logarithmsOf(amps, 1);
   // Read once: whether each current starts from the leading flat elements, and those elements.
@@ -339,10 +351,17 @@ function tableTwinInto(
       if (current >= lowLastAmps) t = lowHeld;
       else if (!(current >= lowFirst)) t = Infinity;
       else {
-        while (kl < lowLast && lowLogs[kl + 1] <= x) kl++;
-        while (kl > 0 && lowLogs[kl] > x) kl--;
-        const dx = x - lowLogs[kl];
-        t = dx === 0 ? lowSeconds[kl] : Math.exp(lowLogSeconds[kl] + dx * lowSlopes[kl]);
+        if (!(x >= lowFrom && x < lowTo)) {
+          while (kl < lowLast && lowLogs[kl + 1] <= x) kl++;
+          while (kl > 0 && lowLogs[kl] > x) kl--;
+          lowFrom = lowLogs[kl];
+          lowTo = kl < lowLast ? lowLogs[kl + 1] : Infinity;
+          lowLogTime = lowLogSeconds[kl];
+          lowSlope = lowSlopes[kl];
+          lowTime = lowSeconds[kl];
+        }
+        const dx = x - lowFrom;
+        t = dx === 0 ? lowTime : exponential(lowLogTime + dx * lowSlope);
       }
       if (t < lowest) lowest = t;
     }
@@ -351,10 +370,17 @@ function tableTwinInto(
       if (current >= highLastAmps) t = highHeld;
       else if (!(current >= highFirst)) t = Infinity;
       else {
-        while (kh < highLast && highLogs[kh + 1] <= x) kh++;
-        while (kh > 0 && highLogs[kh] > x) kh--;
-        const dx = x - highLogs[kh];
-        t = dx === 0 ? highSeconds[kh] : Math.exp(highLogSeconds[kh] + dx * highSlopes[kh]);
+        if (!(x >= highFrom && x < highTo)) {
+          while (kh < highLast && highLogs[kh + 1] <= x) kh++;
+          while (kh > 0 && highLogs[kh] > x) kh--;
+          highFrom = highLogs[kh];
+          highTo = kh < highLast ? highLogs[kh + 1] : Infinity;
+          highLogTime = highLogSeconds[kh];
+          highSlope = highSlopes[kh];
+          highTime = highSeconds[kh];
+        }
+        const dx = x - highFrom;
+        t = dx === 0 ? highTime : exponential(highLogTime + dx * highSlope);
       }
       if (t < highest) highest = t;
     }

@@ -1,4 +1,5 @@
 import type { EdgeElement } from './composite.ts';
+import { exponential } from './exponential.ts';
 
 /** A digitised curve: `[current, seconds]` pairs, current ascending, time strictly descending. */
 export type PointTable = Array<[number, number]>;
@@ -94,7 +95,7 @@ export function tableElement(points: PointTable, scale = 1): EdgeElement & { las
     }
     const dx = x - logAmps[lo];
     // On a tabulated point return its time exactly, not through exp(log(t)).
-    return dx === 0 ? seconds[lo] : Math.exp(logSeconds[lo] + dx * slopes[lo]);
+    return dx === 0 ? seconds[lo] : exponential(logSeconds[lo] + dx * slopes[lo]);
   };
   const reach = (level: number): number => {
     const y = Math.log(level);
@@ -134,7 +135,8 @@ export interface TableShape {
  * `amps[i]` (exactly the double `tableElement(…).time` gives) if that is smaller; with `finish`, then
  * raises it to the floor and adds `bounds[1]` (the last pass of a composite edge). `logs[i]` holds
  * `Math.log(amps[i])` (`logarithmsOf`). The segment is found by a cursor that moves from the
- * previous current's segment, a step or two for ascending currents, to the same segment the binary
+ * previous current's segment (kept, with its constants, while currents stay within it), a step or two
+ * for ascending currents, to the same segment the binary
  * search of `time` finds (the last one starting at or below the current's logarithm).
  *
  * @example tableTimesInto(shape, amps, logarithmsOf(amps, 1), out.fill(Infinity), Float64Array.of(0, 0), true)
@@ -153,7 +155,14 @@ export function tableTimesInto(
   const lastSegment = logAmps.length - 2;
   // The last time read from the Float64Array (the same number) so the loop sees only doubles.
   const lastSeconds = seconds[lastSegment + 1];
+  // The cursor's segment held in locals (its first and next logarithm of current, logarithm of time,
+  // slope and time at the first), so a current in the same segment as the last reads no table.
   let k = 0;
+  let from = Infinity;
+  let to = -Infinity;
+  let logTime = 0;
+  let slope = 0;
+  let time = 0;
   for (let i = 0, n = amps.length; i < n; i++) {
     let fastest = out[i];
     if (fastest > floor) {
@@ -163,10 +172,17 @@ export function tableTimesInto(
       else if (!(current >= first)) t = Infinity;
       else {
         const x = logs[i];
-        while (k < lastSegment && logAmps[k + 1] <= x) k++;
-        while (k > 0 && logAmps[k] > x) k--;
-        const dx = x - logAmps[k];
-        t = dx === 0 ? seconds[k] : Math.exp(logSeconds[k] + dx * slopes[k]);
+        if (!(x >= from && x < to)) {
+          while (k < lastSegment && logAmps[k + 1] <= x) k++;
+          while (k > 0 && logAmps[k] > x) k--;
+          from = logAmps[k];
+          to = k < lastSegment ? logAmps[k + 1] : Infinity;
+          logTime = logSeconds[k];
+          slope = slopes[k];
+          time = seconds[k];
+        }
+        const dx = x - from;
+        t = dx === 0 ? time : exponential(logTime + dx * slope);
       }
       if (t < fastest) fastest = t;
     }
