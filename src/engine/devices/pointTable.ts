@@ -201,17 +201,38 @@ export function upperBelowLower(
   lower: PointTable,
   upper: PointTable,
 ): { amps: number; lowerSeconds: number; upperSeconds: number } | undefined {
-  const low = tableElement(lower);
-  const high = tableElement(upper);
-  if (high.pickup < low.pickup)
-    return { amps: high.pickup, lowerSeconds: Infinity, upperSeconds: high.time(high.pickup) };
+  // Read while the study is read, for every fuse and breaker: each table is interpolated where it is
+  // needed (`timeOnTable`) rather than built as an element.
+  if (upper[0][0] < lower[0][0]) return { amps: upper[0][0], lowerSeconds: Infinity, upperSeconds: upper[0][1] };
   // Every tabulated current of both tables in ascending order: the two ascending columns merged.
   for (let i = 0, j = 0; i < lower.length || j < upper.length;) {
     const amps = j === upper.length || (i < lower.length && lower[i][0] <= upper[j][0]) ? lower[i++][0] : upper[j++][0];
-    const lowerSeconds = low.time(amps);
-    const upperSeconds = high.time(amps);
+    const x = Math.log(amps);
+    const lowerSeconds = timeOnTable(lower, amps, x);
+    const upperSeconds = timeOnTable(upper, amps, x);
     // A relative slack of 1e-12 forgives the round trip through logarithms at shared points.
     if (upperSeconds < lowerSeconds * (1 - 1e-12)) return { amps, lowerSeconds, upperSeconds };
   }
   return undefined;
+}
+
+/**
+ * `tableElement(points).time(amps)`, the same double, for a table read once: `x` is `Math.log(amps)`.
+ * The segment is the last one whose first current's logarithm is at or below `x`, as the element's
+ * binary search finds it (a logarithm is monotone, so the currents themselves find it but for two
+ * currents whose logarithms are equal).
+ */
+function timeOnTable(points: PointTable, amps: number, x: number): number {
+  const last = points.length - 1;
+  if (amps >= points[last][0]) return points[last][1];
+  if (!(amps >= points[0][0])) return Infinity;
+  let k = 0;
+  while (k < last - 1 && points[k + 1][0] <= amps) k++;
+  while (k < last - 1 && Math.log(points[k + 1][0]) <= x) k++;
+  const logAmps = Math.log(points[k][0]);
+  const dx = x - logAmps;
+  if (dx === 0) return points[k][1];
+  const logSeconds = Math.log(points[k][1]);
+  const slope = (Math.log(points[k + 1][1]) - logSeconds) / (Math.log(points[k + 1][0]) - logAmps);
+  return exponential(logSeconds + dx * slope);
 }

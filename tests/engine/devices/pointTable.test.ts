@@ -58,6 +58,48 @@ describe('pointTable', () => {
     ).toBe(500);
   });
 
+  it('upperBelowLower reads each table as its element does, at every tabulated current', () => {
+    // Seeded random tables, often sharing currents and crossing: the answer, with its times, must be
+    // what the two built elements give at the merged currents.
+    let state = 97;
+    const random = () => (state = (state * 1103515245 + 12345) % 2147483648) / 2147483648;
+    const tableOf = (): Array<[number, number]> => {
+      const points: Array<[number, number]> = [];
+      let amps = 50 + Math.round(random() * 4) * 25;
+      let seconds = 100 + random() * 900;
+      for (let k = 0, n = 2 + Math.floor(random() * 8); k < n; k++) {
+        points.push([amps, seconds]);
+        amps *= random() < 0.3 ? 2 : 1 + random() * 3;
+        seconds /= 1.5 + random() * 20;
+      }
+      return points;
+    };
+    const byElements = (lower: Array<[number, number]>, upper: Array<[number, number]>) => {
+      const low = tableElement(lower);
+      const high = tableElement(upper);
+      if (high.pickup < low.pickup)
+        return { amps: high.pickup, lowerSeconds: Infinity, upperSeconds: high.time(high.pickup) };
+      const currents = [...lower, ...upper].map(([amps]) => amps).sort((a, b) => a - b);
+      for (const amps of currents) {
+        const lowerSeconds = low.time(amps);
+        const upperSeconds = high.time(amps);
+        if (upperSeconds < lowerSeconds * (1 - 1e-12)) return { amps, lowerSeconds, upperSeconds };
+      }
+      return undefined;
+    };
+    let found = 0;
+    for (let trial = 0; trial < 2000; trial++) {
+      const lower = tableOf();
+      const upper =
+        random() < 0.3 ? lower.map(([amps, seconds]): [number, number] => [amps, seconds * 1.2]) : tableOf();
+      const expected = byElements(lower, upper);
+      if (expected) found++;
+      expect(upperBelowLower(lower, upper), `trial ${trial}`).toEqual(expected);
+    }
+    expect(found).toBeGreaterThan(100);
+    expect(found).toBeLessThan(1900);
+  });
+
   it('pointTableSchema reads as the trade writes tables', () => {
     const schema = pointTableSchema({ current: 'a current in amperes', unit: ' A' });
     expect(schema.safeParse([[1, 2]]).error?.issues[0].message).toMatch(/^expected at least 2 points, got 1$/);
