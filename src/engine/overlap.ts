@@ -106,58 +106,24 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     return findOverlaps(up, down, { ...options, toAmps: 10 * largest });
   }
   if (!(fromAmps > 0) || !(toAmps > fromAmps)) return [];
-  const { minTime } = up;
-  const downSlow = down.maxTime;
-  const downFast = down.minTime;
-  const limitingFrom = Math.min(up.currentLimitingFrom, down.currentLimitingFrom);
-
-  const classOf = (amps: number, upTime: number, downTime: number): number => {
-    if (upTime === Infinity) return 0;
-    const limiting = amps >= limitingFrom && upTime < instantaneousRegion;
-    // Two instantaneous trips: the upstream band and the downstream band both reach the half-cycle,
-    // and the downstream device surely clears within the instantaneous region.
-    if (limiting || (upTime <= halfCycle && downTime <= instantaneousRegion && downFast(amps) <= halfCycle)) return 3;
-    const slack = upTime * timeRatio - (downTime + margin);
-    if (!(slack >= 0)) return 2;
-    return slack < thinMargin ? 1 : 0;
-  };
-  const ratioOf = (upTime: number, downTime: number): number => {
-    const needed = downTime + margin;
-    if (upTime === Infinity) return Infinity;
-    if (needed === Infinity) return 0;
-    return needed === 0 ? Infinity : (upTime * timeRatio) / needed;
-  };
-  const marginOf = (upTime: number, downTime: number): number =>
-    upTime === Infinity ? Infinity : upTime * timeRatio - (downTime + margin);
-  const pointOf = (amps: number, upTime: number, downTime: number): WorstPoint => ({
-    amps,
-    upTime,
-    downTime,
-    marginSeconds: marginOf(upTime, downTime),
-    ratio: ratioOf(upTime, downTime),
-  });
-  // The last evaluation (upstream, downstream time), kept so that no current is evaluated twice; in
-  // a typed array, as a number changed in a closure's variable would be boxed at every probe.
-  const probed = scratch.probed;
-  const probe = (amps: number): number => {
-    const u = minTime(amps);
-    const d = downSlow(amps);
-    const up = u > horizon ? Infinity : u;
-    const down = d > horizon ? Infinity : d;
-    probed[0] = up;
-    probed[1] = down;
-    return classOf(amps, up, down);
-  };
+  const pair = compared;
+  pair.upFast = up.minTime;
+  pair.downSlow = down.maxTime;
+  pair.downFast = down.minTime;
+  pair.margin = margin;
+  pair.timeRatio = timeRatio;
+  pair.thinMargin = thinMargin;
+  pair.halfCycle = halfCycle;
+  pair.instantaneousRegion = instantaneousRegion;
+  pair.horizon = horizon;
+  pair.tolerance = tolerance;
+  pair.limitingFrom = Math.min(up.currentLimitingFrom, down.currentLimitingFrom);
 
   // Stage 1: the grid — range ends, every breakpoint inside, and log-spaced samples between them —
   // evaluated once; each local dip of the time ratio is probed where a parabola through its three
   // samples bottoms out, so that a narrow dip cannot hide inside a cell.
-  const grid = gridOf(fromAmps, toAmps, up.breakpoints, down.breakpoints, samplesPerDecade, tolerance);
-  let count = grid.count;
-  const points = scratch.points;
-  const upTimes = ensure('upTimes', count);
-  const downTimes = ensure('downTimes', count);
-  const classes = ensureClasses(count);
+  let count = gridOf(fromAmps, toAmps, up.breakpoints, down.breakpoints, samplesPerDecade, tolerance);
+  const { points, upTimes, downTimes, classes, probed } = scratch;
   if (up.evaluateInto && down.evaluateInto) {
     // The two edges the finder compares over the whole grid, one call each (the same doubles as one
     // current at a time, by the band contract): the upstream earliest and the downstream latest.
@@ -183,6 +149,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   // Stage 2: refine every change of class (several may share one cell); collect the intervals, each
   // with its worst point.
   const intervals: OverlapInterval[] = [];
+  const edge = scratch.edge;
   let start = fromAmps;
   let current = classes[0];
   // The interval's worst point so far, as numbers: its object is built once, when the interval closes.
@@ -196,21 +163,21 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     let loUp = upTimes[i - 1];
     let loDown = downTimes[i - 1];
     while (classes[i] !== current) {
-      const edge = refineEdge(lo, loUp, loDown, points[i], upTimes[i], downTimes[i], current);
-      const lastRatio = ratioOf(edge.loUp, edge.loDown);
-      const lastMargin = marginOf(edge.loUp, edge.loDown);
+      refineEdge(lo, loUp, loDown, points[i], upTimes[i], downTimes[i], current);
+      const lastRatio = ratioOf(edge[LO_UP], edge[LO_DOWN]);
+      const lastMargin = marginOf(edge[LO_UP], edge[LO_DOWN]);
       if (lastRatio < worstRatio || (lastRatio === worstRatio && lastMargin < worstMargin)) {
-        worstAmps = edge.lo;
-        worstUp = edge.loUp;
-        worstDown = edge.loDown;
+        worstAmps = edge[LO];
+        worstUp = edge[LO_UP];
+        worstDown = edge[LO_DOWN];
       }
       const worst = pointOf(worstAmps, worstUp, worstDown);
-      intervals.push({ fromAmps: start, toAmps: edge.hi, status: STATUSES[current], worst });
-      start = edge.hi;
-      lo = edge.hi;
-      loUp = edge.hiUp;
-      loDown = edge.hiDown;
-      current = edge.hiClass;
+      intervals.push({ fromAmps: start, toAmps: edge[HI], status: STATUSES[current], worst });
+      start = edge[HI];
+      lo = edge[HI];
+      loUp = edge[HI_UP];
+      loDown = edge[HI_DOWN];
+      current = edge[HI_CLASS];
       worstAmps = lo;
       worstUp = loUp;
       worstDown = loDown;
@@ -230,151 +197,253 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   const worst = pointOf(worstAmps, worstUp, worstDown);
   intervals.push({ fromAmps: start, toAmps, status: STATUSES[current], worst });
   return intervals;
+}
 
-  /**
-   * Probes every interior local minimum of the time ratio that comes within twice the required time
-   * (only such a dip can cross a class edge unseen; one already inside an overlap cannot) at its
-   * bottom, found by golden-section search, and inserts that probe into the grid. Returns the new
-   * number of points.
-   */
-  function probeDips(size: number): number {
-    const dips: { amps: number; at: number; cls: number; up: number; down: number }[] = [];
-    let r0 = ratioOf(upTimes[0], downTimes[0]);
-    let r1 = size > 1 ? ratioOf(upTimes[1], downTimes[1]) : Infinity;
-    for (let i = 1; i + 1 < size; i++) {
-      const r2 = ratioOf(upTimes[i + 1], downTimes[i + 1]);
-      if (r1 < 2 && r1 < r0 && r1 <= r2 && classes[i] !== 2) {
-        // Golden-section search in log current between the neighbours, keeping the lowest probe.
-        let xa = Math.log(points[i - 1]);
-        let xb = Math.log(points[i + 1]);
-        // The lowest probe so far: current, class, upstream and downstream time, ratio (NaN: none yet).
-        const best = scratch.best.fill(NaN);
-        const at = (x: number) => {
-          const amps = Math.exp(x);
-          const cls = probe(amps);
-          const ratio = ratioOf(probed[0], probed[1]);
-          if (!(ratio >= best[4])) {
-            best[0] = amps;
-            best[1] = cls;
-            best[2] = probed[0];
-            best[3] = probed[1];
-            best[4] = ratio;
-          }
-          return ratio;
-        };
-        let xc = xb - GOLDEN * (xb - xa);
-        let xd = xa + GOLDEN * (xb - xa);
-        let fc = at(xc);
-        let fd = at(xd);
-        for (let step = 0; step < DIP_STEPS; step++) {
-          if (fc < fd) {
-            xb = xd;
-            xd = xc;
-            fd = fc;
-            xc = xb - GOLDEN * (xb - xa);
-            fc = at(xc);
-          } else {
-            xa = xc;
-            xc = xd;
-            fc = fd;
-            xd = xa + GOLDEN * (xb - xa);
-            fd = at(xd);
-          }
-        }
-        const amps = best[0];
-        if (amps > points[i - 1] && amps < points[i + 1] && amps !== points[i]) {
-          dips.push({ amps, cls: best[1], up: best[2], down: best[3], at: amps < points[i] ? i : i + 1 });
-        }
-      }
-      r0 = r1;
-      r1 = r2;
-    }
-    if (dips.length === 0) return size;
-    const total = size + dips.length;
-    if (points.length < total) throw new Error('overlap grid scratch too small'); // gridOf leaves room
-    // Insert from the last dip backwards, shifting the tail right once per dip.
-    let end = size;
-    for (let k = dips.length - 1; k >= 0; k--) {
-      const dip = dips[k];
-      for (let j = end; j > dip.at; j--) {
-        points[j + k] = points[j - 1];
-        upTimes[j + k] = upTimes[j - 1];
-        downTimes[j + k] = downTimes[j - 1];
-        classes[j + k] = classes[j - 1];
-      }
-      end = dip.at;
-      points[dip.at + k] = dip.amps;
-      upTimes[dip.at + k] = dip.up;
-      downTimes[dip.at + k] = dip.down;
-      classes[dip.at + k] = dip.cls;
-    }
-    return total;
-  }
+/**
+ * The pair being compared by the running `findOverlaps` call: its three edges and its settings. The
+ * finder's steps are module functions that read it here, not closures made per call: a closure's
+ * numbers live in a context object where each is boxed, so every call allocated its settings anew and
+ * every step read them through boxes (a study checks thousands of pairs). Set at the start of each
+ * call, before any step runs; a band never calls the finder.
+ */
+const compared = {
+  upFast: (amps: number): number => amps,
+  downSlow: (amps: number): number => amps,
+  downFast: (amps: number): number => amps,
+  margin: 0.5,
+  timeRatio: 0.5,
+  thinMargin: 0.5,
+  halfCycle: 0.5,
+  instantaneousRegion: 0.5,
+  horizon: 0.5,
+  tolerance: 0.5,
+  limitingFrom: 0.5,
+};
 
-  /**
-   * The edge where the class stops being `current`, between `lo` (of that class) and `hi` (not): the
-   * last current of the class and the first beyond it, `tolerance` apart. A crossing of the slack's threshold is solved by
-   * Illinois regula falsi on the logarithms (bands are nearly straight on log-log paper); anything
-   * else (a pickup or the horizon inside a cell) falls back to bisection.
-   */
-  function refineEdge(
-    lo: number,
-    loUp: number,
-    loDown: number,
-    hi: number,
-    hiUp: number,
-    hiDown: number,
-    from: number,
-  ) {
-    let hiClass = classOf(hi, hiUp, hiDown);
-    // The threshold the slack crosses, when the change is a smooth crossing of one.
-    const to = hiClass;
-    // Leaving or entering "selective" crosses the thin-margin line; anything else the zero line.
-    const smooth = from <= 2 && to <= 2 && loUp !== Infinity && hiUp !== Infinity;
-    const threshold = !smooth ? -1 : from === 0 || (from === 1 && to === 0) ? thinMargin : 0;
-    const gOf = (u: number, d: number) => Math.log(u * timeRatio) - Math.log(d + margin + threshold);
-    let x0 = Math.log(lo);
-    let x1 = Math.log(hi);
-    let g0 = threshold >= 0 ? gOf(loUp, loDown) : NaN;
-    let g1 = threshold >= 0 ? gOf(hiUp, hiDown) : NaN;
-    let side = 0;
-    // Capped so that a degenerate bracket (a zero or denormal current) can never loop forever; the
-    // Illinois steps converge in a few dozen probes on any physical range.
-    for (let step = 0; step < 500 && hi - lo > tolerance * lo; step++) {
-      let x: number;
-      if (Number.isFinite(g0) && Number.isFinite(g1) && g0 !== g1) {
-        x = x1 - (g1 * (x1 - x0)) / (g1 - g0);
-        // Keep the probe strictly inside, and close the bracket once the estimate is near an end.
-        const room = 0.25 * tolerance;
-        if (!(x > x0 + room)) x = x0 + room;
-        if (!(x < x1 - room)) x = x1 - room;
-      } else {
-        x = 0.5 * (x0 + x1);
+/** The class of a current (0 selective, 1 thin margin, 2 overlap, 3 not provable), from the two edges' times there. */
+function classOf(amps: number, upTime: number, downTime: number): number {
+  if (upTime === Infinity) return 0;
+  const pair = compared;
+  const limiting = amps >= pair.limitingFrom && upTime < pair.instantaneousRegion;
+  // Two instantaneous trips: the upstream band and the downstream band both reach the half-cycle,
+  // and the downstream device surely clears within the instantaneous region.
+  if (
+    limiting ||
+    (upTime <= pair.halfCycle && downTime <= pair.instantaneousRegion && pair.downFast(amps) <= pair.halfCycle)
+  )
+    return 3;
+  const slack = upTime * pair.timeRatio - (downTime + pair.margin);
+  if (!(slack >= 0)) return 2;
+  return slack < pair.thinMargin ? 1 : 0;
+}
+
+function ratioOf(upTime: number, downTime: number): number {
+  const needed = downTime + compared.margin;
+  if (upTime === Infinity) return Infinity;
+  if (needed === Infinity) return 0;
+  return needed === 0 ? Infinity : (upTime * compared.timeRatio) / needed;
+}
+
+function marginOf(upTime: number, downTime: number): number {
+  return upTime === Infinity ? Infinity : upTime * compared.timeRatio - (downTime + compared.margin);
+}
+
+function pointOf(amps: number, upTime: number, downTime: number): WorstPoint {
+  return {
+    amps,
+    upTime,
+    downTime,
+    marginSeconds: marginOf(upTime, downTime),
+    ratio: ratioOf(upTime, downTime),
+  };
+}
+
+/**
+ * The class at one current; its upstream and downstream times (past the horizon: never) are left in
+ * `scratch.probed`, a typed array, so no number is boxed per probe.
+ */
+function probe(amps: number): number {
+  const pair = compared;
+  const u = pair.upFast(amps);
+  const d = pair.downSlow(amps);
+  const up = u > pair.horizon ? Infinity : u;
+  const down = d > pair.horizon ? Infinity : d;
+  scratch.probed[0] = up;
+  scratch.probed[1] = down;
+  return classOf(amps, up, down);
+}
+
+/**
+ * Probes at `e^x` and keeps it in `scratch.best` (current, class, upstream and downstream time,
+ * ratio) if its ratio is the lowest so far; returns the ratio.
+ */
+function probeKeepingLowest(x: number): number {
+  const amps = Math.exp(x);
+  const cls = probe(amps);
+  const { probed, best } = scratch;
+  const ratio = ratioOf(probed[0], probed[1]);
+  if (!(ratio >= best[4])) {
+    best[0] = amps;
+    best[1] = cls;
+    best[2] = probed[0];
+    best[3] = probed[1];
+    best[4] = ratio;
+  }
+  return ratio;
+}
+
+/**
+ * Probes every interior local minimum of the time ratio that comes within twice the required time
+ * (only such a dip can cross a class edge unseen; one already inside an overlap cannot) at its
+ * bottom, found by golden-section search, and inserts that probe into the grid. Returns the new
+ * number of points.
+ */
+function probeDips(size: number): number {
+  const { points, upTimes, downTimes, classes } = scratch;
+  const dips: { amps: number; at: number; cls: number; up: number; down: number }[] = [];
+  let r0 = ratioOf(upTimes[0], downTimes[0]);
+  let r1 = size > 1 ? ratioOf(upTimes[1], downTimes[1]) : Infinity;
+  for (let i = 1; i + 1 < size; i++) {
+    const r2 = ratioOf(upTimes[i + 1], downTimes[i + 1]);
+    if (r1 < 2 && r1 < r0 && r1 <= r2 && classes[i] !== 2) {
+      // Golden-section search in log current between the neighbours, keeping the lowest probe
+      // (`scratch.best`, NaN: none yet).
+      let xa = Math.log(points[i - 1]);
+      let xb = Math.log(points[i + 1]);
+      const best = scratch.best.fill(NaN);
+      let xc = xb - GOLDEN * (xb - xa);
+      let xd = xa + GOLDEN * (xb - xa);
+      let fc = probeKeepingLowest(xc);
+      let fd = probeKeepingLowest(xd);
+      for (let step = 0; step < DIP_STEPS; step++) {
+        if (fc < fd) {
+          xb = xd;
+          xd = xc;
+          fd = fc;
+          xc = xb - GOLDEN * (xb - xa);
+          fc = probeKeepingLowest(xc);
+        } else {
+          xa = xc;
+          xc = xd;
+          fc = fd;
+          xd = xa + GOLDEN * (xb - xa);
+          fd = probeKeepingLowest(xd);
+        }
       }
-      const amps = Math.exp(x);
-      const cls = probe(amps);
-      const g = threshold >= 0 ? gOf(probed[0], probed[1]) : NaN;
-      if (cls === from) {
-        lo = amps;
-        loUp = probed[0];
-        loDown = probed[1];
-        x0 = x;
-        g0 = g;
-        if (side === -1) g1 *= 0.5;
-        side = -1;
-      } else {
-        hi = amps;
-        hiUp = probed[0];
-        hiDown = probed[1];
-        hiClass = cls;
-        x1 = x;
-        g1 = g;
-        if (side === 1) g0 *= 0.5;
-        side = 1;
+      const amps = best[0];
+      if (amps > points[i - 1] && amps < points[i + 1] && amps !== points[i]) {
+        dips.push({ amps, cls: best[1], up: best[2], down: best[3], at: amps < points[i] ? i : i + 1 });
       }
     }
-    return { lo, loUp, loDown, hi, hiUp, hiDown, hiClass };
+    r0 = r1;
+    r1 = r2;
   }
+  if (dips.length === 0) return size;
+  const total = size + dips.length;
+  if (points.length < total) throw new Error('overlap grid scratch too small'); // gridOf leaves room
+  // Insert from the last dip backwards, shifting the tail right once per dip.
+  let end = size;
+  for (let k = dips.length - 1; k >= 0; k--) {
+    const dip = dips[k];
+    for (let j = end; j > dip.at; j--) {
+      points[j + k] = points[j - 1];
+      upTimes[j + k] = upTimes[j - 1];
+      downTimes[j + k] = downTimes[j - 1];
+      classes[j + k] = classes[j - 1];
+    }
+    end = dip.at;
+    points[dip.at + k] = dip.amps;
+    upTimes[dip.at + k] = dip.up;
+    downTimes[dip.at + k] = dip.down;
+    classes[dip.at + k] = dip.cls;
+  }
+  return total;
+}
+
+/** Where `refineEdge` leaves an edge in `scratch.edge`: the last current of the class and the first beyond, each with its times, and the class beyond. */
+const LO = 0;
+const LO_UP = 1;
+const LO_DOWN = 2;
+const HI = 3;
+const HI_UP = 4;
+const HI_DOWN = 5;
+const HI_CLASS = 6;
+
+/** How far the slack is above `threshold`, on the logarithms (bands are nearly straight on log-log paper). */
+function aboveThreshold(upTime: number, downTime: number, threshold: number): number {
+  return Math.log(upTime * compared.timeRatio) - Math.log(downTime + compared.margin + threshold);
+}
+
+/**
+ * The edge where the class stops being `from`, between `lo` (of that class) and `hi` (not): the
+ * last current of the class and the first beyond it, `tolerance` apart, left in `scratch.edge`. A
+ * crossing of the slack's threshold is solved by Illinois regula falsi on the logarithms; anything
+ * else (a pickup or the horizon inside a cell) falls back to bisection.
+ */
+function refineEdge(
+  lo: number,
+  loUp: number,
+  loDown: number,
+  hi: number,
+  hiUp: number,
+  hiDown: number,
+  from: number,
+): void {
+  const { probed, edge } = scratch;
+  const tolerance = compared.tolerance;
+  let hiClass = classOf(hi, hiUp, hiDown);
+  // The threshold the slack crosses, when the change is a smooth crossing of one.
+  const to = hiClass;
+  // Leaving or entering "selective" crosses the thin-margin line; anything else the zero line.
+  const smooth = from <= 2 && to <= 2 && loUp !== Infinity && hiUp !== Infinity;
+  const threshold = !smooth ? -1 : from === 0 || (from === 1 && to === 0) ? compared.thinMargin : 0;
+  let x0 = Math.log(lo);
+  let x1 = Math.log(hi);
+  let g0 = threshold >= 0 ? aboveThreshold(loUp, loDown, threshold) : NaN;
+  let g1 = threshold >= 0 ? aboveThreshold(hiUp, hiDown, threshold) : NaN;
+  let side = 0;
+  // Capped so that a degenerate bracket (a zero or denormal current) can never loop forever; the
+  // Illinois steps converge in a few dozen probes on any physical range.
+  for (let step = 0; step < 500 && hi - lo > tolerance * lo; step++) {
+    let x: number;
+    if (Number.isFinite(g0) && Number.isFinite(g1) && g0 !== g1) {
+      x = x1 - (g1 * (x1 - x0)) / (g1 - g0);
+      // Keep the probe strictly inside, and close the bracket once the estimate is near an end.
+      const room = 0.25 * tolerance;
+      if (!(x > x0 + room)) x = x0 + room;
+      if (!(x < x1 - room)) x = x1 - room;
+    } else {
+      x = 0.5 * (x0 + x1);
+    }
+    const amps = Math.exp(x);
+    const cls = probe(amps);
+    const g = threshold >= 0 ? aboveThreshold(probed[0], probed[1], threshold) : NaN;
+    if (cls === from) {
+      lo = amps;
+      loUp = probed[0];
+      loDown = probed[1];
+      x0 = x;
+      g0 = g;
+      if (side === -1) g1 *= 0.5;
+      side = -1;
+    } else {
+      hi = amps;
+      hiUp = probed[0];
+      hiDown = probed[1];
+      hiClass = cls;
+      x1 = x;
+      g1 = g;
+      if (side === 1) g0 *= 0.5;
+      side = 1;
+    }
+  }
+  edge[LO] = lo;
+  edge[LO_UP] = loUp;
+  edge[LO_DOWN] = loDown;
+  edge[HI] = hi;
+  edge[HI_UP] = hiUp;
+  edge[HI_DOWN] = hiDown;
+  edge[HI_CLASS] = hiClass;
 }
 
 /**
@@ -390,6 +459,7 @@ const scratch = {
   inside: new Float64Array(64),
   probed: new Float64Array(2),
   best: new Float64Array(5),
+  edge: new Float64Array(7),
 };
 
 function ensure(name: 'upTimes' | 'downTimes', size: number): Float64Array {
@@ -414,7 +484,7 @@ function gridOf(
   downBreakpoints: Float64Array,
   samplesPerDecade: number,
   tolerance: number,
-): { count: number } {
+): number {
   // The range's ends and the breakpoints inside it, sorted as numbers in place (a typed array sorts
   // without a comparator call per step and allocates no list per pair).
   const most = upBreakpoints.length + downBreakpoints.length + 2;
@@ -452,5 +522,5 @@ function gridOf(
     if (b < to && below > points[count - 1]) points[count++] = below;
   }
   points[count++] = to;
-  return { count };
+  return count;
 }
