@@ -58,9 +58,11 @@ export function readStudyParsed(input: unknown): { reading: StudyReading; parsed
     } catch {
       parsed = undefined;
     }
-    const seen = { fields: 0 };
-    if (parsed) problem = problemBelow(parsed.value, 0, [], seen);
-    if (!parsed || problem || seen.fields !== fieldNamesIn(text)) {
+    // A sound document (the usual case) is walked once without keeping a path; a problem is then
+    // found again by the walk that names it.
+    const fields = parsed ? soundFieldCount(parsed.value, 0) : -1;
+    if (parsed && fields < 0) problem = problemBelow(parsed.value, 0, []);
+    if (!parsed || problem || fields !== fieldNamesIn(text)) {
       const textProblem = jsonTextProblem(text);
       if (textProblem) return { reading: { problems: [textProblem] } };
     }
@@ -117,6 +119,35 @@ function documentProblem(input: unknown): StudyProblem | undefined {
  */
 export function documentProblemAt(value: unknown, path: readonly PropertyKey[]): StudyProblem | undefined {
   return problemBelow(value, path.length, [...path]);
+}
+
+/**
+ * How many object fields a document parsed from JSON text holds, or -1 if `problemBelow` finds a
+ * problem in it: the same walk without a path (JSON text has no holes in its arrays and no inherited
+ * fields), for the sound document that is the usual case.
+ */
+function soundFieldCount(value: unknown, depth: number): number {
+  if (typeof value === 'number') {
+    const size = Math.abs(value);
+    return value === 0 || (size >= NUMBER_MAGNITUDE.smallest && size <= NUMBER_MAGNITUDE.largest) ? 0 : -1;
+  }
+  if (value === null || typeof value !== 'object') return 0;
+  if (depth >= MAX_NESTING) return -1;
+  let fields = 0;
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const below = soundFieldCount(value[i], depth + 1);
+      if (below < 0) return -1;
+      fields += below;
+    }
+    return fields;
+  }
+  for (const key in value) {
+    const below = soundFieldCount((value as Record<string, unknown>)[key], depth + 1);
+    if (below < 0) return -1;
+    fields += 1 + below;
+  }
+  return fields;
 }
 
 /** `seen.fields` counts the object fields the walk passes (all of them, when it finds no problem). */
