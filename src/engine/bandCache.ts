@@ -14,12 +14,19 @@ const byContent = new Map<string, Band>();
 const groundByContent = new Map<string, Band | null>();
 /** Distinct characteristics remembered by content before the memory starts afresh. */
 const CONTENT_LIMIT = 20_000;
-/** Each characteristic's content as text, written once for both its phase and its ground band. */
+/**
+ * The content as text of each characteristic with a ground-fault element, written once for both its
+ * phase and its ground band. Other keys are not kept: a study holds thousands, which the collector
+ * would copy while the analysis runs.
+ */
 const keys = new WeakMap<Characteristic, string>();
 
 function contentOf(characteristic: Characteristic): string {
   let key = keys.get(characteristic);
-  if (key === undefined) keys.set(characteristic, (key = JSON.stringify(characteristic)));
+  if (key === undefined) {
+    key = JSON.stringify(characteristic);
+    if (characteristic.kind === 'trip-unit' && characteristic.ground) keys.set(characteristic, key);
+  }
   return key;
 }
 

@@ -43,7 +43,9 @@ export function rangeOf(
       toAmps: (toAmps * referenceVolts * k) / volts,
     });
   }
-  return { fromAmps, toAmps, atVoltages };
+  // An exact-size copy: an array grown by `push` keeps room for 17 items, and a study keeps thousands
+  // of ranges, which the collector copies while the analysis runs.
+  return { fromAmps, toAmps, atVoltages: atVoltages.slice() };
 }
 
 /** "between 9.8 kA and 14.9 kA at 480 V (340 A and 517 A at 12.47 kV)" */

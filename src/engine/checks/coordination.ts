@@ -127,7 +127,8 @@ export function checkPair(
     }
   }
 
-  const check: PairCheck = { upstream: upstream.id, downstream: downstream.id, kind, rule, cases };
+  // The cases as an exact-size copy (an array grown by `push` keeps room for 17 items; a study keeps thousands).
+  const check: PairCheck = { upstream: upstream.id, downstream: downstream.id, kind, rule, cases: cases.slice() };
   return { check, findings: findingsOf(check, upstream, downstream, [upBus.voltage, referenceVolts]) };
 }
 
@@ -145,8 +146,11 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       'line-to-neutral': ' for a line-to-neutral fault',
     }[pairCase.fault];
     const shifts = new Map([[voltages[0], pairCase.upstreamShift]]);
-    pairCase.intervals.forEach((interval, index) => {
-      if (interval.status === 'selective' || isSliver(interval)) return;
+    // A loop, not a callback: the callback's context (with `findings`) would be kept by every
+    // finding's lazy sentences.
+    for (let index = 0; index < pairCase.intervals.length; index++) {
+      const interval = pairCase.intervals[index];
+      if (interval.status === 'selective' || isSliver(interval)) continue;
       const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages, shifts);
       const { worst } = interval;
       // The sentences are written when first read (a large study's findings are seldom all read); they
@@ -172,7 +176,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         { basis: check.rule.basis, referenceVolts: pairCase.referenceVolts },
       );
       findings.push(finding);
-    });
+    }
   }
   if (findings.length === 0) {
     const all = check.cases.flatMap((c) => c.intervals);
