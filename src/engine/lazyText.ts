@@ -57,18 +57,23 @@ function accessorOf(key: string): PropertyDescriptor {
 
 /**
  * Makes fields of `result` lazy: each is built by its builder the first time it is read, then kept.
- * A field already in `result` keeps its place in the key order; a new one is added last. The fields
- * stay enumerable, so `JSON.stringify`, structured cloning and deep equality see plain values;
- * assigning one replaces it. `builders` is kept (not copied) and holds each value once built.
+ * A field already in `result` keeps its place in the key order; a new one is added last. Leave a lazy
+ * field out of `result` where its place allows: turning a field that is there into an accessor turns
+ * the whole object into a slow dictionary (several times the memory). The fields stay enumerable, so
+ * `JSON.stringify`, structured cloning and deep equality see plain values; assigning one replaces it.
+ * `builders` is kept (not copied) and holds each value once built.
  *
  * @example withLazyFields(bus, { work: () => stepsOf(bus) }) // bus.work is built on first read
  */
-export function withLazyFields<T extends object>(result: T, builders: Record<string, () => unknown>): T {
+export function withLazyFields<T extends object, B extends Record<string, () => unknown>>(
+  result: T,
+  builders: B,
+): T & { [K in keyof B]: ReturnType<B[K]> } {
   const held = LazyFields.heldBy(result);
   if (held) Object.assign(held, builders);
   else LazyFields.stamp(result, builders);
   for (const key in builders) Object.defineProperty(result, key, accessorOf(key));
-  return result;
+  return result as T & { [K in keyof B]: ReturnType<B[K]> };
 }
 
 /**

@@ -107,7 +107,7 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
   const sizeText = `${sets > 1 ? `${sets} × ` : ''}${cable.size}`;
   const temperatureText = `${t1} to ${t2} °C`;
   // The notes are written when first read: a large study has thousands of cables, seldom all opened.
-  return withLazyFields(
+  const curve = withLazyFields(
     {
       elementId: cable.id,
       kind: 'cable',
@@ -120,8 +120,7 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
         if (current >= highestAmps) return shortestSeconds;
         return c * (area / current) ** 2;
       },
-      notes: [] as string[],
-    },
+    } satisfies Omit<WithstandCurve, 'notes'>,
     {
       notes: () => [
         `ICEA P-32-382 conductor withstand: (I/A)²·t = K·log10[(T2 + λ)/(T1 + λ)], adiabatic (valid for short durations)`,
@@ -135,4 +134,5 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
       ],
     },
   );
+  return curve;
 }

@@ -108,7 +108,6 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
         // Read by index, not destructured: a study has thousands of motors.
         amps: Float64Array.from(distinct, (point) => point[0]),
         seconds: Float64Array.from(distinct, (point) => point[1]),
-        notes: [] as string[],
       },
       {
         notes: () => [
