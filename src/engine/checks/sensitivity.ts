@@ -116,7 +116,8 @@ export function sensitivityCasesOf(
     }
     if (least) cases.push(least);
   }
-  return cases;
+  // An exact-size copy: a device's findings keep its cases, and an array grown by `push` keeps room for 17.
+  return cases.slice();
 }
 
 /**
