@@ -120,8 +120,8 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   pair.limitingFrom = Math.min(up.currentLimitingFrom, down.currentLimitingFrom);
 
   // Stage 1: the grid — range ends, every breakpoint inside, and log-spaced samples between them —
-  // evaluated once; each local dip of the time ratio is probed where a parabola through its three
-  // samples bottoms out, so that a narrow dip cannot hide inside a cell.
+  // evaluated once; each local dip of the time ratio is probed at its bottom (a golden-section search
+  // between its neighbours, `probeDips`), so that a narrow dip cannot hide inside a cell.
   let count = gridOf(fromAmps, toAmps, up.breakpoints, down.breakpoints, samplesPerDecade, tolerance);
   const { points, upTimes, downTimes, classes, probed } = scratch;
   if (up.evaluateInto && down.evaluateInto) {
