@@ -19,19 +19,20 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
   if (!device) return [];
   const volts = context.network.buses.get(motor.bus)!.voltage;
   const band = scaleBand(context.bands.get(device.id)!, locationBusOf(context.network, device).voltage / volts);
-  const starting = motorStartingOf(motor, volts);
+  // Only the curve is kept by the lazy sentences, not the whole start (a study has thousands of motors).
+  const curve = motorStartingOf(motor, volts).curve;
   const name = motor.name ?? motor.id;
   const deviceName = nameOf(device);
   let worst: { amps: number; seconds: number; operates: number } | undefined;
-  for (let i = 0; i < starting.curve.amps.length; i++) {
-    const amps = starting.curve.amps[i];
-    const seconds = starting.curve.seconds[i];
+  for (let i = 0; i < curve.amps.length; i++) {
+    const amps = curve.amps[i];
+    const seconds = curve.seconds[i];
     const operates = band.minTime(amps);
     if (operates <= seconds && (!worst || operates / seconds < worst.operates / worst.seconds))
       worst = { amps, seconds, operates };
   }
   // The sentences and the basis are written when first read (a large study has thousands of motors).
-  const basis = () => starting.curve.notes.join(' ');
+  const basis = () => curve.notes.join(' ');
   if (!worst) {
     return [
       withLazyText<Finding>(
@@ -42,7 +43,7 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
           title: `${name} starts without tripping ${deviceName}`,
           subjects: [device.id, motor.id],
         },
-        { explanation: () => `${deviceName} stays above ${name}'s starting curve: ${starting.curve.label}.`, basis },
+        { explanation: () => `${deviceName} stays above ${name}'s starting curve: ${curve.label}.`, basis },
         { referenceVolts: volts },
       ),
     ];

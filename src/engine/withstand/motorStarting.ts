@@ -91,10 +91,12 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
     [runningAmps, accelerationTime],
     [runningAmps, longestSeconds],
   ];
-  // A start shorter than 0.1 s leaves two equal points; keep one.
-  const distinct = points.filter(
-    (point, i) => i === 0 || point[0] !== points[i - 1][0] || point[1] !== points[i - 1][1],
-  );
+  // A start shorter than 0.1 s leaves two equal points; keep one. A loop, not a callback: a callback
+  // reading `points` would keep them, with every number here, for the lazy notes of every motor.
+  const distinct: [number, number][] = [points[0]];
+  for (let i = 1; i < points.length; i++) {
+    if (points[i][0] !== points[i - 1][0] || points[i][1] !== points[i - 1][1]) distinct.push(points[i]);
+  }
   const name = motor.name ?? motor.id;
   const lraText = `${significant(lockedRotorAmps, 4)} A`;
   return {
