@@ -10,11 +10,15 @@ import type { TripUnit } from './tripUnitSchema.ts';
  * even before the short-time pickup, the band follows the ramp down. Never faster than
  * `openingTime`, and cleared by `clearingTime` at the latest once any function acts at high current.
  *
- * With `longTimeRamp: 'ends-at-short-time-pickup'` the long-time function stops at the short-time
- * pickup (each edge at its own pickup tolerance). Where the ramp has already fallen below the
- * short-time delay there, a device would operate later above the pickup than just below it; the
- * band keeps its edges non-increasing and still bounds the device: the fast edge holds the ramp's
- * time at the pickup, the slow edge holds the short-time delay from where the ramp meets it.
+ * With `longTimeRamp: 'ends-at-short-time-pickup'` the long-time function stops at the unit's actual
+ * short-time pickup, which may lie anywhere in the pickup tolerance band [low, high]. Each edge bounds
+ * every unit in that band and stays non-increasing:
+ * - the fast edge follows the ramp up to the high pickup (a unit picking up there is still on its ramp)
+ *   and holds the ramp's time there above it; the short-time function acts from the low pickup;
+ * - the slow edge follows the ramp until it meets the short-time curve and holds that time up to where
+ *   the short-time function may act. Where the ramp lies below the short-time curve at the low pickup,
+ *   that is the curve from the low pickup (a unit picking up there leaves the ramp for a slower curve);
+ *   otherwise from the high pickup, as without the hand-over.
  *
  * @example tripUnitBand(tripUnitSchema.parse({ kind: 'trip-unit', sensor: 800,
  *   longTime: { pickup: 1, delay: 10 } })).maxTime(4800) // 12 s (10 s + 20 %)
@@ -36,21 +40,33 @@ export function tripUnitBand(unit: TripUnit): Band {
     let longFlatFrom = Infinity;
     if (shortTime) {
       const shortPickup = shortTime.pickup * ratedAmps * pickupFactor;
-      const short = delayedElement(shortTime, ratedAmps, shortPickup, bandDelay(unit, side, shortTime.delay));
-      elements.push(short);
+      const shortDelay = bandDelay(unit, side, shortTime.delay);
+      let short = delayedElement(shortTime, ratedAmps, shortPickup, shortDelay);
       if (handOver && shortPickup < instantaneousPickup) {
-        const rampAtPickup = longSeconds * (longThrough / shortPickup) ** 2;
+        const ramp = (amps: number) => longSeconds * (longThrough / amps) ** 2;
         const shortAtPickup = short.time(shortPickup);
-        // Fast edge: the ramp's time at the pickup is the earliest the device may act above it.
-        // Slow edge: the short-time time at the pickup is the latest it may take below it.
-        if (rampAtPickup >= shortAtPickup || side < 0) longFlatFrom = shortPickup;
-        else longFlatFrom = longThrough * Math.sqrt(longSeconds / shortAtPickup);
-        if (rampAtPickup < shortAtPickup && side < 0)
-          diagnostics.push(
-            `long-time ramp is at ${round(rampAtPickup)} s at the short-time pickup ${round(shortPickup)} A, ` +
-              `below the short-time ${round(shortAtPickup)} s: the band spans both there`,
-          );
+        if (side < 0) {
+          // A unit whose pickup is at the top of the band is still on its ramp up to there.
+          longFlatFrom = shortTime.pickup * ratedAmps * (1 + tolerance.pickup / 100);
+          if (ramp(shortPickup) < shortAtPickup)
+            diagnostics.push(
+              `long-time ramp is at ${round(ramp(shortPickup))} s at the short-time pickup ${round(shortPickup)} A, ` +
+                `below the short-time ${round(shortAtPickup)} s: the band spans both there`,
+            );
+        } else {
+          // A unit whose pickup is at the bottom of the band leaves its ramp there for the short-time
+          // curve, which (an I²t one) lies above that curve's time at the high pickup.
+          const lowPickup = shortTime.pickup * ratedAmps * (1 - tolerance.pickup / 100);
+          const fromLow = delayedElement(shortTime, ratedAmps, lowPickup, shortDelay);
+          const shortAtLow = fromLow.time(lowPickup);
+          if (ramp(lowPickup) < shortAtLow) {
+            short = fromLow;
+            longFlatFrom = longThrough * Math.sqrt(longSeconds / shortAtLow);
+          } else if (ramp(shortPickup) >= shortAtPickup) longFlatFrom = shortPickup;
+          else longFlatFrom = longThrough * Math.sqrt(longSeconds / shortAtPickup);
+        }
       }
+      elements.push(short);
     }
     elements.push(i2tElement(ratedAmps * pickupFactor, longSeconds, longThrough, longFlatFrom));
     if (instantaneous) {

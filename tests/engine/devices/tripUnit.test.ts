@@ -183,16 +183,96 @@ describe('tripUnit', () => {
       expect(longTimeRampBasis(unit)).toMatch(/ends at the short-time pickup/);
       expect(band.diagnostics).toContain(longTimeRampBasis(unit)); // named among the band's notes
       expect(tripUnitBand(main).diagnostics.join('\n')).not.toMatch(/short-time pickup/);
-      // Fast edge: the ramp to 7200 A, then held at its 0.2 s there (the earliest the unit may act above it).
+      // Fast edge: a unit whose short-time pickup is at the top of its band (8800 A) is still on its ramp
+      // up to there, so the ramp to 8800 A, then held at its 0.45 · (4800/8800)² = 0.133884 s.
       assertInDelta(band.minTime(7000), 0.211592, 1e-5);
       assertInDelta(band.minTime(7200), 0.2);
-      assertInDelta(band.minTime(10_000), 0.2);
+      assertInDelta(band.minTime(8000), fastRamp(8000)); // 0.162 s, not the 0.2 s held from 7200 A
+      assertInDelta(band.minTime(10_000), 0.133884, 1e-5);
       // Slow edge: the ramp to where it meets 0.45 s (5542.56 A), then the short-time delay.
       assertInDelta(band.maxTime(5000), slowRamp(5000));
       assertInDelta(band.maxTime(7000), 0.45);
       assertInDelta(band.maxTime(10_000), 0.45);
       expect(band.diagnostics.join('\n')).toMatch(/long-time ramp is at 0\.2 s at the short-time pickup 7200 A/);
       assertBandContract(band);
+    });
+
+    it('with an I²t short-time, bounds a unit that leaves its ramp at the bottom of the pickup band', () => {
+      // The same main with its short-time I²t in, through 10 × I_r = 8000 A (invented settings). Its
+      // slow short-time curve is 0.45 · (8000/I)² below 8000 A: 0.5556 s at 7200 A, above the slow
+      // ramp's 0.2667 s there. A unit picking up at 7200 A follows that curve above 7200 A, so the slow
+      // edge is the ramp to where it meets 0.5556 s (4800 · √(0.6/0.5556) = 4988.0 A), 0.5556 s to
+      // 7200 A, then the short-time curve: 0.512 s at 7500 A, where the curve from 8800 A would say 0.45 s.
+      const band = tripUnitBand({
+        ...main,
+        shortTime: { ...main.shortTime!, i2t: true },
+        longTimeRamp: 'ends-at-short-time-pickup',
+      });
+      const slowShort = (amps: number) => 0.45 * (8000 / amps) ** 2;
+      assertInDelta(band.maxTime(4900), slowRamp(4900));
+      assertInDelta(band.maxTime(6000), slowShort(7200));
+      assertInDelta(band.maxTime(7500), slowShort(7500));
+      assertInDelta(band.maxTime(7500), 0.512, 1e-3);
+      assertInDelta(band.maxTime(9000), 0.45);
+      // Never below the fast edge, which holds the fast ramp's 0.133884 s from 8800 A.
+      for (const amps of [5000, 7200, 7500, 8800, 9000, 20_000])
+        expect(band.minTime(amps)).toBeLessThanOrEqual(band.maxTime(amps));
+      assertBandContract(band);
+    });
+
+    it('keeps its edges ordered where the fast short-time curve meets the slow ramp (found by the property test)', () => {
+      // 100 A sensor, 0.4 × I_n, long-time 0.9615 s, short-time 1.5 × I_r I²t at 0.4154 s: the fast edge's
+      // short-time curve and the slow edge's held level met at 62.35 A, and the slow edge lay below.
+      const band = tripUnitBand(
+        tripUnitSchema.parse({
+          kind: 'trip-unit',
+          sensor: 100,
+          longTime: { pickup: 0.4, delay: 0.961538461555409 },
+          shortTime: { pickup: 1.5, delay: 0.4153846153923523, i2t: true },
+          longTimeRamp: 'ends-at-short-time-pickup',
+        }),
+      );
+      for (const amps of [50, 54, 58, 62.35382907251078, 64, 66, 100])
+        expect(band.minTime(amps)).toBeLessThanOrEqual(band.maxTime(amps));
+      assertBandContract(band);
+    });
+
+    it('with the hand-over, each edge bounds every unit whose short-time pickup lies in its tolerance band', () => {
+      // A unit of the band is the same settings with its short-time pickup anywhere in ±10 % and no pickup
+      // tolerance of its own: the band's fast edge is never slower, its slow edge never faster.
+      const settings = fc.record({
+        sensor: fc.integer({ min: 100, max: 5000 }),
+        pickup: fc.double({ min: 0.4, max: 1, noNaN: true }),
+        delay: fc.double({ min: 0.5, max: 30, noNaN: true }),
+        shortPickup: fc.double({ min: 1.5, max: 12, noNaN: true }),
+        shortDelay: fc.double({ min: 0.05, max: 0.5, noNaN: true }),
+        i2t: fc.boolean(),
+        i2tThrough: fc.double({ min: 2, max: 16, noNaN: true }),
+      });
+      fc.assert(
+        fc.property(settings, (t) => {
+          const unitWith = (shortPickup: number, pickupTolerance: number) =>
+            tripUnitSchema.parse({
+              kind: 'trip-unit',
+              sensor: t.sensor,
+              longTime: { pickup: t.pickup, delay: t.delay },
+              shortTime: { pickup: shortPickup, delay: t.shortDelay, i2t: t.i2t, i2tThrough: t.i2tThrough },
+              tolerance: { pickup: pickupTolerance },
+              longTimeRamp: 'ends-at-short-time-pickup',
+            });
+          const band = tripUnitBand(unitWith(t.shortPickup, 10));
+          const ratedAmps = t.pickup * t.sensor;
+          for (const factor of [0.9, 0.95, 1, 1.05, 1.1]) {
+            const unit = tripUnitBand(unitWith(t.shortPickup * factor, 0));
+            for (let k = 0; k <= 60; k++) {
+              const amps = 1.2 * ratedAmps * 40 ** (k / 60);
+              expect(band.minTime(amps)).toBeLessThanOrEqual(unit.minTime(amps) * (1 + 1e-9));
+              expect(band.maxTime(amps)).toBeGreaterThanOrEqual(unit.maxTime(amps) * (1 - 1e-9));
+            }
+          }
+        }),
+        { numRuns: 200 },
+      );
     });
 
     it('makes an upstream main overlap a feeder between about 5.9 and 7.3 kA', () => {
