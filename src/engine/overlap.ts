@@ -486,18 +486,29 @@ function gridOf(
   samplesPerDecade: number,
   tolerance: number,
 ): number {
-  // The range's ends and the breakpoints inside it, sorted as numbers in place (a typed array sorts
-  // without a comparator call per step and allocates no list per pair).
+  // The range's ends and the breakpoints inside it, ascending: the two bands' breakpoints are each
+  // ascending (the band contract), so they are merged in one pass, in place in scratch and without a
+  // call per pair; should either not be, the list is sorted as numbers instead.
   const most = upBreakpoints.length + downBreakpoints.length + 2;
   if (scratch.inside.length < most) scratch.inside = new Float64Array(2 * most);
+  const inside = scratch.inside;
   let n = 0;
-  scratch.inside[n++] = from;
-  for (const amps of upBreakpoints) if (amps > from && amps < to) scratch.inside[n++] = amps;
-  for (const amps of downBreakpoints) if (amps > from && amps < to) scratch.inside[n++] = amps;
-  scratch.inside[n++] = to;
-  const inside = scratch.inside.subarray(0, n).sort();
+  inside[n++] = from;
+  let i = 0;
+  let j = 0;
+  let ordered = true;
+  while (i < upBreakpoints.length || j < downBreakpoints.length) {
+    const fromUp = j >= downBreakpoints.length || (i < upBreakpoints.length && upBreakpoints[i] <= downBreakpoints[j]);
+    const amps = fromUp ? upBreakpoints[i++] : downBreakpoints[j++];
+    if (amps > from && amps < to) {
+      if (amps < inside[n - 1]) ordered = false;
+      inside[n++] = amps;
+    }
+  }
+  inside[n++] = to;
+  if (!ordered) inside.subarray(0, n).sort();
   let size = 1;
-  for (let k = 0; k + 1 < inside.length; k++) {
+  for (let k = 0; k + 1 < n; k++) {
     const a = inside[k];
     const b = inside[k + 1];
     if (b > a * (1 + 1e-12)) size += 1 + Math.max(MIN_CELLS, Math.ceil(samplesPerDecade * Math.log10(b / a)));
@@ -510,7 +521,7 @@ function gridOf(
   }
   const { points } = scratch;
   let count = 0;
-  for (let k = 0; k + 1 < inside.length; k++) {
+  for (let k = 0; k + 1 < n; k++) {
     const a = inside[k];
     const b = inside[k + 1];
     if (!(b > a * (1 + 1e-12))) continue;
