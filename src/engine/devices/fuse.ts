@@ -2,7 +2,7 @@ import type { Band } from '../band.ts';
 import { uniqueAscending } from './composite.ts';
 import { exponential } from './exponential.ts';
 import { logarithmsOf } from './logarithms.ts';
-import { tableElement, type TableShape } from './pointTable.ts';
+import { segmentAt, tableElement, type TableShape } from './pointTable.ts';
 import type { Fuse } from './fuseSchema.ts';
 
 /**
@@ -53,7 +53,7 @@ export function fuseBand(fuse: Fuse): Band {
 /**
  * Both edges of a fuse band at every current in one pass, the arithmetic of `tableElement`'s `time`
  * (see `tableTimesInto`): one logarithm per current for the two tables (taken first, `logarithmsOf`),
- * and a cursor per table that finds the segment the binary search of `time` finds; total clearing held
+ * and a cursor per table (`segmentAt`); total clearing held
  * at or above melting.
  */
 function fuseTimesInto(
@@ -109,8 +109,7 @@ function fuseTimesInto(
       if (current >= meltingLast) melts = meltingHeld;
       else if (current >= meltingFirst) {
         if (!(x >= meltingFrom && x < meltingTo)) {
-          while (km < lastMelting && meltingLogs[km + 1] <= x) km++;
-          while (km > 0 && meltingLogs[km] > x) km--;
+          km = segmentAt(meltingLogs, lastMelting, km, x);
           meltingFrom = meltingLogs[km];
           meltingTo = km < lastMelting ? meltingLogs[km + 1] : Infinity;
           meltingLogTime = meltingLogSeconds[km];
@@ -123,8 +122,7 @@ function fuseTimesInto(
       if (current >= clearingLast) clears = clearingHeld;
       else if (current >= clearingFirst) {
         if (!(x >= clearingFrom && x < clearingTo)) {
-          while (kc < lastClearing && clearingLogs[kc + 1] <= x) kc++;
-          while (kc > 0 && clearingLogs[kc] > x) kc--;
+          kc = segmentAt(clearingLogs, lastClearing, kc, x);
           clearingFrom = clearingLogs[kc];
           clearingTo = kc < lastClearing ? clearingLogs[kc + 1] : Infinity;
           clearingLogTime = clearingLogSeconds[kc];

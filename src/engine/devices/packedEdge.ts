@@ -1,7 +1,7 @@
 import { expm1 } from './expm1.ts';
 import { exponential } from './exponential.ts';
 import { logarithmsOf } from './logarithms.ts';
-import type { TableShape } from './pointTable.ts';
+import { segmentAt, type TableShape } from './pointTable.ts';
 
 /** Kind codes of a packed element (see `PackedEdge`). */
 export const FLAT = 0;
@@ -352,8 +352,7 @@ function tableTwinInto(
       else if (!(current >= lowFirst)) t = Infinity;
       else {
         if (!(x >= lowFrom && x < lowTo)) {
-          while (kl < lowLast && lowLogs[kl + 1] <= x) kl++;
-          while (kl > 0 && lowLogs[kl] > x) kl--;
+          kl = segmentAt(lowLogs, lowLast, kl, x);
           lowFrom = lowLogs[kl];
           lowTo = kl < lowLast ? lowLogs[kl + 1] : Infinity;
           lowLogTime = lowLogSeconds[kl];
@@ -371,8 +370,7 @@ function tableTwinInto(
       else if (!(current >= highFirst)) t = Infinity;
       else {
         if (!(x >= highFrom && x < highTo)) {
-          while (kh < highLast && highLogs[kh + 1] <= x) kh++;
-          while (kh > 0 && highLogs[kh] > x) kh--;
+          kh = segmentAt(highLogs, highLast, kh, x);
           highFrom = highLogs[kh];
           highTo = kh < highLast ? highLogs[kh + 1] : Infinity;
           highLogTime = highLogSeconds[kh];

@@ -134,10 +134,8 @@ export interface TableShape {
  * For every `i` where `out[i]` is above the floor `bounds[0]`, lowers `out[i]` to the table's time at
  * `amps[i]` (exactly the double `tableElement(…).time` gives) if that is smaller; with `finish`, then
  * raises it to the floor and adds `bounds[1]` (the last pass of a composite edge). `logs[i]` holds
- * `Math.log(amps[i])` (`logarithmsOf`). The segment is found by a cursor that moves from the
- * previous current's segment (kept, with its constants, while currents stay within it), a step or two
- * for ascending currents, to the same segment the binary
- * search of `time` finds (the last one starting at or below the current's logarithm).
+ * `Math.log(amps[i])` (`logarithmsOf`). The segment is found by a cursor (`segmentAt`), kept with its
+ * constants while the currents stay within it.
  *
  * @example tableTimesInto(shape, amps, logarithmsOf(amps, 1), out.fill(Infinity), Float64Array.of(0, 0), true)
  */
@@ -173,8 +171,7 @@ export function tableTimesInto(
       else {
         const x = logs[i];
         if (!(x >= from && x < to)) {
-          while (k < lastSegment && logAmps[k + 1] <= x) k++;
-          while (k > 0 && logAmps[k] > x) k--;
+          k = segmentAt(logAmps, lastSegment, k, x);
           from = logAmps[k];
           to = k < lastSegment ? logAmps[k + 1] : Infinity;
           logTime = logSeconds[k];
@@ -188,6 +185,19 @@ export function tableTimesInto(
     }
     out[i] = finish ? (fastest > floor ? fastest : floor) + added : fastest;
   }
+}
+
+/**
+ * Where a batch pass's cursor moves for logarithm of current `x`: from segment `k`, a step or two for
+ * ascending currents, to the segment the binary search of `tableElement(…).time` finds (the last one,
+ * at most `lastSegment`, whose first logarithm is at or below `x`).
+ *
+ * @example segmentAt(shape.logAmps, shape.logAmps.length - 2, 0, Math.log(450))
+ */
+export function segmentAt(logAmps: Float64Array, lastSegment: number, k: number, x: number): number {
+  while (k < lastSegment && logAmps[k + 1] <= x) k++;
+  while (k > 0 && logAmps[k] > x) k--;
+  return k;
 }
 
 /**
