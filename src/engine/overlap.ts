@@ -449,8 +449,8 @@ function refineEdge(
 
 /**
  * Scratch arrays the finder reuses from call to call (a study checks thousands of pairs): the grid's
- * currents and the edges' times and classes there. They are grown on
- * demand and never read beyond what the current call wrote.
+ * currents and the edges' times and classes there, grown together by `gridOf` (with room for the
+ * dips' probes), and never read beyond what the current call wrote.
  */
 const scratch = {
   points: new Float64Array(256),
@@ -463,20 +463,10 @@ const scratch = {
   edge: new Float64Array(7),
 };
 
-function ensure(name: 'upTimes' | 'downTimes', size: number): Float64Array {
-  if (scratch[name].length < size) scratch[name] = new Float64Array(2 * size);
-  return scratch[name];
-}
-
-function ensureClasses(size: number): Int8Array {
-  if (scratch.classes.length < size) scratch.classes = new Int8Array(2 * size);
-  return scratch.classes;
-}
-
 /**
  * Fills `scratch.points` with log-spaced currents from `from` to `to` with every breakpoint inside,
- * ascending and without duplicates ; each smooth segment gets
- * least `MIN_CELLS` cells and the point just below its top. Returns how many points there are.
+ * ascending and without duplicates; each smooth segment gets at least `MIN_CELLS` cells and the point
+ * just below its top. Returns how many points there are.
  */
 function gridOf(
   from: number,
@@ -515,9 +505,9 @@ function gridOf(
   }
   if (scratch.points.length < 2 * size) {
     scratch.points = new Float64Array(2 * size);
-    ensure('upTimes', 2 * size);
-    ensure('downTimes', 2 * size);
-    ensureClasses(2 * size);
+    scratch.upTimes = new Float64Array(2 * size);
+    scratch.downTimes = new Float64Array(2 * size);
+    scratch.classes = new Int8Array(2 * size);
   }
   const { points } = scratch;
   let count = 0;
