@@ -150,13 +150,8 @@ function soundFieldCount(value: unknown, depth: number): number {
   return fields;
 }
 
-/** `seen.fields` counts the object fields the walk passes (all of them, when it finds no problem). */
-function problemBelow(
-  value: unknown,
-  depth: number,
-  path: PropertyKey[],
-  seen = { fields: 0 },
-): StudyProblem | undefined {
+/** The walk of `documentProblem` below `value`, `depth` levels down, `path` naming where it is. */
+function problemBelow(value: unknown, depth: number, path: PropertyKey[]): StudyProblem | undefined {
   if (typeof value === 'number') {
     const size = Math.abs(value);
     if (value === 0 || (size >= NUMBER_MAGNITUDE.smallest && size <= NUMBER_MAGNITUDE.largest)) return undefined;
@@ -173,7 +168,7 @@ function problemBelow(
     for (let i = 0; i < value.length; i++) {
       if (!(i in value)) continue;
       path.push(i);
-      const problem = problemBelow(value[i], depth + 1, path, seen);
+      const problem = problemBelow(value[i], depth + 1, path);
       path.pop();
       if (problem) return problem;
     }
@@ -181,9 +176,8 @@ function problemBelow(
   }
   for (const key in value) {
     if (!Object.hasOwn(value, key)) continue;
-    seen.fields++;
     path.push(key);
-    const problem = problemBelow((value as Record<string, unknown>)[key], depth + 1, path, seen);
+    const problem = problemBelow((value as Record<string, unknown>)[key], depth + 1, path);
     path.pop();
     if (problem) return problem;
   }
