@@ -107,7 +107,7 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
   const sizeText = `${sets > 1 ? `${sets} × ` : ''}${cable.size}`;
   const temperatureText = `${t1} to ${t2} °C`;
   // The notes are written when first read: a large study has thousands of cables, seldom all opened.
-  const curve = withLazyFields(
+  return withLazyFields(
     {
       elementId: cable.id,
       kind: 'cable',
@@ -134,5 +134,4 @@ export function cableWithstandOf(cable: Cable, options: CableWithstandOptions): 
       ],
     },
   );
-  return curve;
 }
