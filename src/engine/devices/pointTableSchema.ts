@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { NOT_PLAIN, withPlainReading } from '../study/plainReading.ts';
 import { pointProblem, type PointTableOptions } from './pointTable.ts';
 
 /** The largest current (A, or multiple of the rating) and time (s) a point may hold, as elsewhere in a study. */
@@ -13,7 +14,9 @@ const MAX_SECONDS = 1e5;
  * @example pointTableSchema({ current: 'a current in amperes', unit: ' A' }).parse([[200, 300], [1000, 0.1]])
  */
 export function pointTableSchema(options: PointTableOptions) {
-  return withPlainPath(zodPointTableSchema(options));
+  return withPlainReading(withPlainPath(zodPointTableSchema(options)), (points) =>
+    Array.isArray(points) ? (plainCopyOf(points) ?? NOT_PLAIN) : NOT_PLAIN,
+  );
 }
 
 /**

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { parsePercent, parseQuantity, type Dimension } from '../quantity/index.ts';
 import { quoteGot } from '../errors.ts';
+import { NOT_PLAIN, withPlainReading, type PlainReader } from './plainReading.ts';
 
 /** Limits a parsed field must respect; each gives the phrase used in the error. */
 export interface FieldLimits {
@@ -82,29 +83,50 @@ function rangeText(dimension: Dimension): string {
  */
 export function quantityField(dimension: Dimension, options: QuantityFieldOptions = {}) {
   const { plainUnit, frequency, description, ...limits } = options;
-  return z
-    .union([z.number(), z.string()])
-    .transform((value, ctx) => {
-      let parsed: number;
-      try {
-        parsed = parseQuantity(value, dimension, { plainUnit, frequency });
-      } catch (error) {
-        ctx.addIssue({ code: 'custom', message: `${(error as Error).message}, got ${quoteGot(value)}`, input: value });
-        return z.NEVER;
-      }
-      // A plain number's size was already bounded when the document was read (readStudy); text with a
-      // unit ("1e-310 A") is bounded here, in its dimension's SI range.
-      const problem =
-        limitProblem(parsed, limits) ?? physicalProblem(parsed, dimension, { smallest: typeof value === 'string' });
-      if (problem) {
-        ctx.addIssue({ code: 'custom', message: `expected a ${dimension} ${problem}, got ${quoteGot(value)}` });
-        return z.NEVER;
-      }
-      return parsed;
-    })
-    .meta({
-      description: `${description ?? `${dimension}: a number in ${plainUnit ?? 'SI units'} or text with a unit`}; range: ${PHYSICAL_RANGES[dimension].why}`,
-    });
+  const read = (value: number | string): number | string => {
+    let parsed: number;
+    try {
+      parsed = parseQuantity(value, dimension, { plainUnit, frequency });
+    } catch (error) {
+      return `${(error as Error).message}, got ${quoteGot(value)}`;
+    }
+    // A plain number's size was already bounded when the document was read (readStudy); text with a
+    // unit ("1e-310 A") is bounded here, in its dimension's SI range.
+    const problem =
+      limitProblem(parsed, limits) ?? physicalProblem(parsed, dimension, { smallest: typeof value === 'string' });
+    return problem ? `expected a ${dimension} ${problem}, got ${quoteGot(value)}` : parsed;
+  };
+  return withPlainReading(
+    z
+      .union([z.number(), z.string()])
+      .transform(reportedBy(read))
+      .meta({
+        description: `${description ?? `${dimension}: a number in ${plainUnit ?? 'SI units'} or text with a unit`}; range: ${PHYSICAL_RANGES[dimension].why}`,
+      }),
+    plainReadingOf(read),
+  );
+}
+
+/**
+ * The transform of a field helper from its reading (`read`: the parsed value, or the message saying
+ * what is wrong), so that zod's reading and the plain one (`plainReadingOf`) are the same function.
+ */
+function reportedBy<T>(read: (value: number | string) => T | string) {
+  return (value: number | string, ctx: z.RefinementCtx): T => {
+    const parsed = read(value);
+    if (typeof parsed !== 'string') return parsed;
+    ctx.addIssue({ code: 'custom', message: parsed, input: value });
+    return z.NEVER;
+  };
+}
+
+/** The plain reading of a `union([number, string])` field read by `read`: a finite number or any text. */
+function plainReadingOf(read: (value: number | string) => unknown): PlainReader {
+  return (value) => {
+    if (!(typeof value === 'string' || (typeof value === 'number' && Number.isFinite(value)))) return NOT_PLAIN;
+    const parsed = read(value);
+    return typeof parsed === 'string' ? NOT_PLAIN : parsed;
+  };
 }
 
 /**
@@ -116,26 +138,25 @@ export function percentField(limits: FieldLimits & { description?: string } = {}
   // Percentages are bounded like every number: at most 100 % unless the field says less (a study
   // file's denormals are refused before any field is read, see readStudy).
   const rest = { ...given, max: Math.min(given.max ?? 100, 100) };
-  return z
-    .union([z.number(), z.string()])
-    .transform((value, ctx) => {
-      let parsed: number;
-      try {
-        parsed = parsePercent(value);
-      } catch (error) {
-        ctx.addIssue({ code: 'custom', message: `${(error as Error).message}, got ${quoteGot(value)}` });
-        return z.NEVER;
-      }
-      const problem = limitProblem(parsed, rest);
-      if (problem) {
-        ctx.addIssue({ code: 'custom', message: `expected a percentage ${problem}, got ${quoteGot(value)}` });
-        return z.NEVER;
-      }
-      return parsed;
-    })
-    .meta({
-      description: `${description ?? 'percentage: a number or text such as "5.75 %"'}; range: ${rest.min ?? 0} % to ${rest.max} %`,
-    });
+  const read = (value: number | string): number | string => {
+    let parsed: number;
+    try {
+      parsed = parsePercent(value);
+    } catch (error) {
+      return `${(error as Error).message}, got ${quoteGot(value)}`;
+    }
+    const problem = limitProblem(parsed, rest);
+    return problem ? `expected a percentage ${problem}, got ${quoteGot(value)}` : parsed;
+  };
+  return withPlainReading(
+    z
+      .union([z.number(), z.string()])
+      .transform(reportedBy(read))
+      .meta({
+        description: `${description ?? 'percentage: a number or text such as "5.75 %"'}; range: ${rest.min ?? 0} % to ${rest.max} %`,
+      }),
+    plainReadingOf(read),
+  );
 }
 
 /** A plain positive number (ratios, multiples, time dials). */

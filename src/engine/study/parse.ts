@@ -2,6 +2,7 @@ import type { z } from 'zod';
 import { InputError, quoteGot } from '../errors.ts';
 import { formatIssuePath, issueMessage } from './issueMessage.ts';
 import { fieldNamesIn, jsonTextProblem, MAX_NESTING, withoutBom } from './jsonText.ts';
+import { NOT_PLAIN, plainReaderOf } from './plainReading.ts';
 import { createStudySchema, studySchema, type Study } from './schema.ts';
 import { structureProblems } from './structure.ts';
 
@@ -79,11 +80,19 @@ export function readStudyParsed(input: unknown): { reading: StudyReading; parsed
       },
     };
   }
-  const parsed = studySchemaFor((raw as { frequency?: unknown }).frequency).safeParse(raw, { reportInput: true });
-  if (!parsed.success) return { reading: { document: raw, problems: parsed.error.issues.map(describeIssue) } };
-  const problems = structureProblems(parsed.data);
-  const reading = problems.length > 0 ? { document: raw, problems } : { study: parsed.data, document: raw, problems };
-  return { reading, parsed: parsed.data };
+  const schema = studySchemaFor((raw as { frequency?: unknown }).frequency);
+  // A sound document is read without zod's bookkeeping; zod reads any other, to name its problems.
+  const plain = plainReaderOf(schema)(raw);
+  let study: Study;
+  if (plain !== NOT_PLAIN) study = plain as Study;
+  else {
+    const parsed = schema.safeParse(raw, { reportInput: true });
+    if (!parsed.success) return { reading: { document: raw, problems: parsed.error.issues.map(describeIssue) } };
+    study = parsed.data;
+  }
+  const problems = structureProblems(study);
+  const reading = problems.length > 0 ? { document: raw, problems } : { study, document: raw, problems };
+  return { reading, parsed: study };
 }
 
 /**

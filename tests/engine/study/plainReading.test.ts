@@ -1,0 +1,131 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { z } from 'zod';
+import { radialStudy } from '../../../bench/radialStudy.ts';
+import { characteristicSchema } from '../../../src/engine/devices/characteristic.ts';
+import { quantityField, textField } from '../../../src/engine/study/fields.ts';
+import { NOT_PLAIN, plainReaderOf } from '../../../src/engine/study/plainReading.ts';
+import { createStudySchema, studySchema } from '../../../src/engine/study/schema.ts';
+import { hostileStudies } from '../../fuzz/hostileStudies.ts';
+
+/**
+ * The plain reading must give what zod gives, to the key order, whenever it gives anything, and must
+ * give up whenever zod finds a problem: the study reader trusts it in place of zod.
+ */
+function expectSameReading(schema: z.ZodType, document: unknown): 'plain' | 'zod' {
+  const plain = plainReaderOf(schema)(structuredClone(document));
+  const read = schema.safeParse(structuredClone(document));
+  if (plain === NOT_PLAIN) return 'zod';
+  expect(read.success, read.error?.message).toBe(true);
+  expect(plain).toStrictEqual(read.data);
+  expect(JSON.stringify(plain)).toBe(JSON.stringify(read.data));
+  return 'plain';
+}
+
+const studies = readdirSync('demo')
+  .map((name) => `demo/${name}`)
+  .concat(readdirSync('tests/fixtures/studies').map((name) => `tests/fixtures/studies/${name}`));
+
+describe('plain reading of a study', () => {
+  it.each(studies)('reads %s exactly as zod does, without zod', (path) => {
+    const document = JSON.parse(readFileSync(path, 'utf8'));
+    expect(expectSameReading(studySchema, document)).toBe('plain');
+  });
+
+  it('reads generated studies of every device family exactly as zod does', () => {
+    for (const devices of [25, 300]) expect(expectSameReading(studySchema, radialStudy(devices))).toBe('plain');
+  });
+
+  it('reads a 50 Hz study with the 50 Hz schema (times in cycles at 50 Hz)', () => {
+    const document = { ...JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8')), frequency: 50 };
+    expect(expectSameReading(createStudySchema(50), document)).toBe('plain');
+  });
+
+  it('gives up on every broken or hostile study that zod refuses, and agrees on the rest', () => {
+    const outcomes = { plain: 0, zod: 0 };
+    for (const { text } of hostileStudies(20261203, 600)) {
+      let document: unknown;
+      try {
+        document = JSON.parse(text.replace(/^\uFEFF/, ''));
+      } catch {
+        continue;
+      }
+      if (document === null || typeof document !== 'object') continue;
+      outcomes[expectSameReading(studySchema, document)]++;
+    }
+    // Both kinds of case occur: mutants zod accepts (a renamed id, a moved device) and ones it refuses.
+    expect(outcomes.plain).toBeGreaterThan(50);
+    expect(outcomes.zod).toBeGreaterThan(50);
+  });
+});
+
+describe('plain reading of fields', () => {
+  const voltage = quantityField('voltage', { min: 0, exclusiveMin: true });
+
+  it('reads a quantity given as a number or as text with a unit, as the field does', () => {
+    for (const value of [480, '12.47 kV', '480 V', 0.48e3]) expect(expectSameReading(voltage, value)).toBe('plain');
+  });
+
+  it.each([0, -480, '12 furlongs', '', Number.NaN, Infinity, null, true, [480]])(
+    'leaves the quantity %s to zod, which refuses it',
+    (value) => {
+      expect(plainReaderOf(voltage)(value)).toBe(NOT_PLAIN);
+      expect(voltage.safeParse(value).success).toBe(false);
+    },
+  );
+
+  it('leaves a name over its length, or with a control character, to zod', () => {
+    const name = textField(5, 'name');
+    expect(expectSameReading(name, 'Main')).toBe('plain');
+    expect(plainReaderOf(name)('Main breaker')).toBe(NOT_PLAIN);
+    expect(plainReaderOf(name)('Ma\u0007n')).toBe(NOT_PLAIN);
+  });
+
+  it('fills defaults and leaves out absent optional fields, as zod does', () => {
+    const schema = z
+      .object({
+        required: z.number().min(1),
+        optional: z.number().optional(),
+        defaulted: z.enum(['a', 'b']).default('a'),
+        optionalDefault: z.number().default(3).optional(),
+        list: z.array(z.number().max(10)).default([]),
+        // Absent allowed, but a value kept only when there is one (an optional input, no optional output).
+        piped: z
+          .number()
+          .optional()
+          .transform((value) => value),
+      })
+      .strict();
+    expect(expectSameReading(schema, { required: 2 })).toBe('plain');
+    expect(expectSameReading(schema, { required: 2, optional: 1, defaulted: 'b', list: [1, 2] })).toBe('plain');
+    expect(plainReaderOf(schema)({ required: 0 })).toBe(NOT_PLAIN);
+    expect(plainReaderOf(schema)({ required: 2, extra: 1 })).toBe(NOT_PLAIN);
+    expect(plainReaderOf(schema)({ optional: 1 })).toBe(NOT_PLAIN);
+    expect(plainReaderOf(schema)({ required: 2, list: [11] })).toBe(NOT_PLAIN);
+  });
+});
+
+describe('plain reading of characteristic files', () => {
+  // Every characteristic the project ships (the illustrative curves and the templates' settings).
+  const characteristics = readdirSync('curves').flatMap((name) => {
+    const file = JSON.parse(readFileSync(`curves/${name}`, 'utf8')) as Record<string, unknown>;
+    const found: unknown[] = [];
+    const walk = (value: unknown) => {
+      if (Array.isArray(value)) value.forEach(walk);
+      else if (value && typeof value === 'object') {
+        if ('kind' in value && characteristicSchema.safeParse(value).success) found.push(value);
+        else Object.values(value).forEach(walk);
+      }
+    };
+    walk(file);
+    return found.map((characteristic) => [name, characteristic] as const);
+  });
+
+  it('finds characteristics in the shipped curve files', () => {
+    expect(characteristics.length).toBeGreaterThan(3);
+  });
+
+  it.each(characteristics)('reads a characteristic of %s exactly as zod does', (_name, characteristic) => {
+    expect(expectSameReading(characteristicSchema, characteristic)).toBe('plain');
+  });
+});
