@@ -91,6 +91,12 @@ function typeReader(schema: z.core.$ZodType, def: AnyDef): PlainReader | undefin
     }
     case 'default':
       return defaultReader(def as unknown as z.core.$ZodDefaultDef);
+    case 'prefault': {
+      // A prefault is read like any value given: zod puts it in place of absence and reads it.
+      const prefault = def as unknown as z.core.$ZodPrefaultDef;
+      const inner = plainReaderOf(prefault.innerType);
+      return (value) => inner(value === undefined ? prefault.defaultValue : value);
+    }
     case 'array':
       return arrayReader(plainReaderOf((def as unknown as z.core.$ZodArrayDef).element));
     case 'object':

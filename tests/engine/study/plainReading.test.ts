@@ -81,7 +81,7 @@ describe('plain reading of fields', () => {
     expect(plainReaderOf(name)('Ma\u0007n')).toBe(NOT_PLAIN);
   });
 
-  it('fills defaults and leaves out absent optional fields, as zod does', () => {
+  it('fills defaults and prefaults and leaves out absent optional fields, as zod does', () => {
     const schema = z
       .object({
         required: z.number().min(1),
@@ -89,6 +89,8 @@ describe('plain reading of fields', () => {
         defaulted: z.enum(['a', 'b']).default('a'),
         optionalDefault: z.number().default(3).optional(),
         list: z.array(z.number().max(10)).default([]),
+        // A prefault is read as if given: "3 cycles" becomes 0.05 s.
+        prefaulted: quantityField('time').prefault('3 cycles'),
         // Absent allowed, but a value kept only when there is one (an optional input, no optional output).
         piped: z
           .number()
@@ -97,6 +99,7 @@ describe('plain reading of fields', () => {
       })
       .strict();
     expect(expectSameReading(schema, { required: 2 })).toBe('plain');
+    expect(plainReaderOf(schema)({ required: 2 })).toMatchObject({ prefaulted: 0.05 });
     expect(expectSameReading(schema, { required: 2, optional: 1, defaulted: 'b', list: [1, 2] })).toBe('plain');
     expect(plainReaderOf(schema)({ required: 0 })).toBe(NOT_PLAIN);
     expect(plainReaderOf(schema)({ required: 2, extra: 1 })).toBe(NOT_PLAIN);
