@@ -17,6 +17,8 @@ export function nameOf(device: Device): string {
   return device.name ?? device.id;
 }
 
+const NO_SHIFTS: ReadonlyMap<number, number> = new Map();
+
 /**
  * A current interval on the reference base, with the same interval at each other voltage given
  * (a current I at V_ref is I·V_ref/V at voltage V, times the `shifts` factor for that voltage where an
@@ -29,7 +31,7 @@ export function rangeOf(
   toAmps: number,
   referenceVolts: number,
   voltages: number[],
-  shifts: ReadonlyMap<number, number> = new Map(),
+  shifts: ReadonlyMap<number, number> = NO_SHIFTS,
 ): CurrentRange {
   // The reference voltage first, then each other voltage once, in order (a study has thousands of ranges).
   const atVoltages: CurrentRange['atVoltages'] = [];

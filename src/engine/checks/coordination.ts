@@ -132,25 +132,29 @@ export function checkPair(
   return { check, findings: findingsOf(check, upstream, downstream, [upBus.voltage, referenceVolts]) };
 }
 
+/** How a finding's title names its fault case. */
+const FAULT_TEXT: Record<PairCase['fault'], string> = {
+  'three-phase': '',
+  'line-to-line': ' for a secondary line-to-line fault',
+  'ground-fault': ' for a ground fault',
+  'single-phase': '',
+  'line-to-neutral': ' for a line-to-neutral fault',
+};
+
 /** One finding per interval that is not selective, or one "selective" finding for a clean pair. */
 function findingsOf(check: PairCheck, upstream: Device, downstream: Device, voltages: number[]): Finding[] {
   const findings: Finding[] = [];
   const up = nameOf(upstream);
   const down = nameOf(downstream);
   for (const pairCase of check.cases) {
-    const faultText = {
-      'three-phase': '',
-      'line-to-line': ' for a secondary line-to-line fault',
-      'ground-fault': ' for a ground fault',
-      'single-phase': '',
-      'line-to-neutral': ' for a line-to-neutral fault',
-    }[pairCase.fault];
-    const shifts = new Map([[voltages[0], pairCase.upstreamShift]]);
+    const faultText = FAULT_TEXT[pairCase.fault];
+    let shifts: Map<number, number> | undefined;
     // A loop, not a callback: the callback's context (with `findings`) would be kept by every
     // finding's lazy sentences.
     for (let index = 0; index < pairCase.intervals.length; index++) {
       const interval = pairCase.intervals[index];
       if (interval.status === 'selective' || isSliver(interval)) continue;
+      shifts ??= new Map([[voltages[0], pairCase.upstreamShift]]);
       const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages, shifts);
       const { worst } = interval;
       // The sentences are written when first read (a large study's findings are seldom all read); they

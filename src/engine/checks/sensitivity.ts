@@ -96,9 +96,10 @@ export function sensitivityCasesOf(
   // Built once per characteristic and pair of bands, not once per device and zone bus.
   const groundBand = cachedGroundBandOf(device.characteristic);
   const cases: SensitivityCase[] = [];
+  const zone = zoneBusesOf(network, device);
   for (const fault of ['line-to-line', 'line-to-ground'] as const) {
     let least: SensitivityCase | undefined;
-    for (const busId of zoneBusesOf(network, device)) {
+    for (const busId of zone) {
       const level = faults.buses.get(busId)!.min;
       const boltedAmps = fault === 'line-to-line' ? level.lineToLine : level.lineToGround;
       if (!(boltedAmps > 0)) continue;

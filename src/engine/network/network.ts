@@ -134,6 +134,8 @@ export function seriesPairs(network: Network): { upstream: Device; downstream: D
 
 /** The transformers crossed going from bus `from` up or down to bus `to`, in order (for reflection). */
 export function transformersBetween(network: Network, from: string, to: string): Transformer[] {
+  // Most pairs and zones lie on one bus: no path to walk.
+  if (from === to) return [];
   const up = pathTo(network, from);
   const down = pathTo(network, to);
   let common = 0;
