@@ -131,9 +131,9 @@ export function zeroSequenceStepsTo(
   chain.forEach((branch, i) => {
     if (branch.type === 'transformer' && branch.item.connection !== 'wye-wye') first = i;
   });
-  if (first < 0) steps.push(...tag(name, zero.steps.get(network.study.source.id) ?? []));
+  if (first < 0) steps.push(...tag(name, zero.steps.get(network.study.source.id)?.steps ?? []));
   for (const branch of chain.slice(Math.max(first, 0))) {
-    steps.push(...tag(name, zero.steps.get(branch.item.id) ?? []));
+    steps.push(...tag(name, zero.steps.get(branch.item.id)?.steps ?? []));
     const z0 = zero.atBus.get(branch.item.to);
     if (branch.type === 'cable' && z0)
       steps.push(

@@ -13,7 +13,7 @@ import {
 import { reflectImpedance } from './reflect.ts';
 import type { SourceLevel } from './sourceImpedance.ts';
 import type { FaultTree } from './faultTree.ts';
-import { impedanceStep, num } from './workSteps.ts';
+import { impedanceStep, num, withLazySteps } from './workSteps.ts';
 
 /** A neutral grounding as entered on a source or transformer secondary. */
 export type Grounding = Transformer['grounding'];
@@ -139,30 +139,30 @@ function groundingStep(what: string, z0: Impedance, zn: Impedance, total: Impeda
  *
  * @example cableZeroSequenceOf(cable, { r: 0.00145, x: 0.0024 }) // { r: 0.00435, x: 0.0072 }
  */
-export function cableZeroSequenceOf(cable: Cable, z1: Impedance): { z0: Impedance; step: WorkStep } {
+export function cableZeroSequenceOf(cable: Cable, z1: Impedance): { z0: Impedance; readonly steps: WorkStep[] } {
+  // The step is written when first read: a study has thousands of cables, and work is read for a few.
   if (cable.zeroSequence) {
+    const { resistance, reactance } = cable.zeroSequence;
     const feet = cable.length / 0.3048;
     const z0 = {
-      r: (cable.zeroSequence.resistance * feet) / 1000 / cable.sets,
-      x: (cable.zeroSequence.reactance * feet) / 1000 / cable.sets,
+      r: (resistance * feet) / 1000 / cable.sets,
+      x: (reactance * feet) / 1000 / cable.sets,
     };
-    return {
-      z0,
-      step: impedanceStep(
+    return withLazySteps({ z0 }, () => [
+      impedanceStep(
         `${cable.id} zero-sequence impedance`,
         'Z0 = (R0 + jX0) · L / 1000 / n',
-        `Z0 = (${num(cable.zeroSequence.resistance)} + j${num(cable.zeroSequence.reactance)}) Ω/1000 ft × ${num(feet)} ft / 1000 / ${cable.sets}`,
+        `Z0 = (${num(resistance)} + j${num(reactance)}) Ω/1000 ft × ${num(feet)} ft / 1000 / ${cable.sets}`,
         z0,
         'Ω',
         'cable data',
       ),
-    };
+    ]);
   }
   const k = CABLE_ZERO_SEQUENCE_MULTIPLE[cable.conduit];
   const z0 = scaleImpedance(z1, k);
-  return {
-    z0,
-    step: impedanceStep(
+  return withLazySteps({ z0 }, () => [
+    impedanceStep(
       `${cable.id} zero-sequence impedance (no R0/X0 entered)`,
       `Z0 = ${k} · Z1`,
       `Z0 = ${k} × (${formatImpedance(z1)}) Ω`,
@@ -170,15 +170,15 @@ export function cableZeroSequenceOf(cable: Cable, z1: Impedance): { z0: Impedanc
       'Ω',
       `Z0 ≈ ${k} × Z1 for cable in ${cable.conduit} conduit, common practice`,
     ),
-  };
+  ]);
 }
 
 /** The zero-sequence network at each three-phase bus for one condition. */
 export interface ZeroSequenceNetwork {
   /** Zero-sequence Thevenin impedance at each bus (Ω at its voltage); undefined where no path reaches it. */
   atBus: Map<string, Impedance | undefined>;
-  /** The steps that produce each element's own zero-sequence impedance, by element id. */
-  steps: Map<string, WorkStep[]>;
+  /** The steps that produce each element's own zero-sequence impedance, by element id (written when first read). */
+  steps: Map<string, { readonly steps: WorkStep[] }>;
 }
 
 /**
@@ -201,7 +201,7 @@ export function zeroSequenceOf(
 ): ZeroSequenceNetwork {
   const study: Study = network.study;
   const volts = (busId: string) => network.buses.get(busId)!.voltage;
-  const steps = new Map<string, WorkStep[]>();
+  const steps = new Map<string, { readonly steps: WorkStep[] }>();
   const root = study.source.bus;
   const sourceGrounding = study.source.kind === 'infinite' ? undefined : study.source.grounding;
   const source = sourceZeroSequenceOf(
@@ -211,7 +211,7 @@ export function zeroSequenceOf(
     sourceGrounding,
     levelPath,
   );
-  steps.set(study.source.id, source.steps);
+  steps.set(study.source.id, { steps: source.steps });
   const atBus = new Map<string, Impedance | undefined>([[root, source.z0]]);
   const order = [root];
   for (let i = 0; i < order.length; i++)
@@ -225,9 +225,9 @@ export function zeroSequenceOf(
       }
       if (branch.type === 'cable') {
         const cable = branch.item;
-        const { z0, step } = cableZeroSequenceOf(cable, tree.branchZ.get(cable.id)!);
-        steps.set(cable.id, [step]);
-        atBus.set(cable.to, up && addImpedance(up, z0));
+        const own = cableZeroSequenceOf(cable, tree.branchZ.get(cable.id)!);
+        steps.set(cable.id, own);
+        atBus.set(cable.to, up && addImpedance(up, own.z0));
         continue;
       }
       const t = branch.item;
@@ -268,7 +268,7 @@ export function zeroSequenceOf(
           if (zn.r !== 0 || zn.x !== 0) own.push(groundingStep(t.id, base, zn, z0));
         }
       }
-      steps.set(t.id, own);
+      steps.set(t.id, { steps: own });
       atBus.set(t.to, z0);
     }
   return { atBus, steps };
