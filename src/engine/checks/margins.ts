@@ -74,12 +74,14 @@ export function marginRuleOf(
   pair?: { upstream: string; downstream: string },
 ): MarginRule {
   const base = defaultMarginRule(up, down, settings.fuseRatio);
+  // Rules are written out, not `{ ...base, margin }`: V8 gives each object made so a hidden class of its own.
+  const { timeRatio } = base;
   const own = pair && settings.pairs.find((p) => p.upstream === pair.upstream && p.downstream === pair.downstream);
-  if (own) return { ...base, margin: own.margin, basis: `${own.margin} s set in the study for this pair` };
+  if (own) return { margin: own.margin, timeRatio, basis: `${own.margin} s set in the study for this pair` };
   if (deviceMargin !== undefined)
-    return { ...base, margin: deviceMargin, basis: `${deviceMargin} s set on the upstream device` };
+    return { margin: deviceMargin, timeRatio, basis: `${deviceMargin} s set on the upstream device` };
   const studyMargin = settings.margins[`${up}/${down}`];
   if (studyMargin !== undefined)
-    return { ...base, margin: studyMargin, basis: `${studyMargin} s set in the study for ${up}/${down} pairs` };
+    return { margin: studyMargin, timeRatio, basis: `${studyMargin} s set in the study for ${up}/${down} pairs` };
   return base;
 }

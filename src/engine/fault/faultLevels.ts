@@ -159,8 +159,16 @@ export function faultLevelsOf(network: Network): FaultLevels {
         ...tagged('minimum', singleLow.steps),
         ...singlePhaseSteps('minimum', singleLow, minAt),
       ];
-      const levels = { busId, volts, phases: 1 as const, system: single.system, max: maxAt, min: minAt };
-      buses.set(busId, withLazyWork({ ...levels, reflected: reflectedAt(reflected, maxAt, minAt) }, work));
+      const fault = {
+        busId,
+        volts,
+        phases: 1 as const,
+        system: single.system,
+        max: maxAt,
+        min: minAt,
+        reflected: reflectedAt(reflected, maxAt, minAt),
+      };
+      buses.set(busId, withLazyWork(fault, work));
       continue;
     }
     const noMotors = levelAt(network, bare, busId, zeroMax.atBus.get(busId), 0);
@@ -174,8 +182,18 @@ export function faultLevelsOf(network: Network): FaultLevels {
       ...zeroSequenceStepsTo(network, zeroMin, busId, 'minimum'),
       ...faultSteps('minimum', volts, min, network, busId, minAt),
     ];
-    const levels = { busId, volts, phases: 3 as const, system: 'three-phase', max: maxAt, min: minAt };
-    buses.set(busId, withLazyWork({ ...levels, reflected: reflectedAt(reflected, maxAt, minAt) }, work));
+    // A literal, not `{ ...levels, reflected }`: V8 gives each object made by spreading and adding a
+    // field a hidden class of its own, and every check reads these.
+    const fault = {
+      busId,
+      volts,
+      phases: 3 as const,
+      system: 'three-phase',
+      max: maxAt,
+      min: minAt,
+      reflected: reflectedAt(reflected, maxAt, minAt),
+    };
+    buses.set(busId, withLazyWork(fault, work));
   }
 
   const transformers = new Map(
