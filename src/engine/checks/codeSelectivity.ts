@@ -115,7 +115,8 @@ function upstreamChain(part: Analysis, deviceId: string) {
     const pair = part.pairs.find((p) => p.downstream === down);
     if (!pair) return pairs;
     const upstream = part.network.devices.get(pair.upstream)!;
-    pairs.push({ ...pair, upstreamName: nameOf(upstream) });
+    // `Object.assign`, not a spread followed by a new field (which gives each object a hidden class of its own in V8).
+    pairs.push(Object.assign({}, pair, { upstreamName: nameOf(upstream) }));
     down = pair.upstream;
   }
 }

@@ -177,9 +177,10 @@ export function dutyCasesOf(level: FaultLevel, phases: 1 | 3, basis: RatingBasis
   if (level.lineToGround > 0 && !Number.isNaN(level.lineToGroundXr))
     faults.push({ fault: names[1], symmetricalAmps: level.lineToGround, xr: level.lineToGroundXr });
   return faults
-    .map((fault) => {
-      const factor = dutyFactorOf(basis.compare, fault.xr, basis.testXr);
-      return { ...fault, factor, dutyAmps: factor * fault.symmetricalAmps };
+    .map(({ fault, symmetricalAmps, xr }) => {
+      const factor = dutyFactorOf(basis.compare, xr, basis.testXr);
+      // Written out: a spread followed by new fields gives each object a hidden class of its own (V8).
+      return { fault, symmetricalAmps, xr, factor, dutyAmps: factor * symmetricalAmps };
     })
     .sort((a, b) => b.dutyAmps - a.dutyAmps);
 }

@@ -102,7 +102,8 @@ function mergedFindings(results: ScenarioResult[]): Finding[] {
         const seen = idsUsed.get(finding.id) ?? 0;
         idsUsed.set(finding.id, seen + 1);
         const id = seen === 0 ? finding.id : `${finding.id}@${result.scenario.id}`;
-        byReading.set(reading, { ...finding, id, scenarios: [result.label] });
+        // `Object.assign`, not a spread followed by a new field (which gives each object a hidden class of its own in V8).
+        byReading.set(reading, Object.assign({}, finding, { id, scenarios: [result.label] }));
       }
   return [...byReading.values()];
 }
