@@ -136,13 +136,37 @@ export function seriesPairs(network: Network): { upstream: Device; downstream: D
 export function transformersBetween(network: Network, from: string, to: string): Transformer[] {
   // Most pairs and zones lie on one bus: no path to walk.
   if (from === to) return [];
-  const up = pathTo(network, from);
-  const down = pathTo(network, to);
-  let common = 0;
-  while (common < up.length && common < down.length && up[common] === down[common]) common++;
-  const crossed = [...up.slice(common).reverse(), ...down.slice(common)];
-  return crossed.flatMap((id) => {
-    const element = network.elements.get(id);
-    return element?.type === 'transformer' ? [element.item] : [];
-  });
+  // Both buses climb toward the source, the lower one first, until they meet: the transformers
+  // crossed going up from `from`, then those coming down to `to` (no path is built: a study asks
+  // this for every pair and zone).
+  const upward: Transformer[] = [];
+  const downward: Transformer[] = [];
+  let a = from;
+  let b = to;
+  let aDepth = depthOf(network, a);
+  let bDepth = depthOf(network, b);
+  // Buses of separate trees (each its own source) meet nowhere: every transformer above each counts.
+  while (a !== b && (aDepth > 0 || bDepth > 0)) {
+    if (aDepth >= bDepth) {
+      const feeder = network.feederOf.get(a)!;
+      if (feeder.type === 'transformer') upward.push(feeder.item);
+      a = feeder.item.from;
+      aDepth--;
+    } else {
+      const feeder = network.feederOf.get(b)!;
+      if (feeder.type === 'transformer') downward.push(feeder.item);
+      b = feeder.item.from;
+      bDepth--;
+    }
+  }
+  for (let i = downward.length - 1; i >= 0; i--) upward.push(downward[i]);
+  return upward;
+}
+
+/** How many branches lie between a bus and the source bus. */
+function depthOf(network: Network, busId: string): number {
+  if (!network.buses.has(busId)) throw new RangeError(`no bus "${busId}" in the network`);
+  let depth = 0;
+  for (let feeder = network.feederOf.get(busId); feeder; feeder = network.feederOf.get(feeder.item.from)) depth++;
+  return depth;
 }

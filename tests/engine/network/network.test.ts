@@ -8,6 +8,7 @@ import {
   upstreamDeviceOf,
 } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { radialStudy } from '../../../bench/radialStudy.ts';
 
 /** The Harrowmere network (invented, the demo studies), kept here so the network tests do not move with the demo files. */
 const demo: StudyInput = {
@@ -64,6 +65,30 @@ describe('networkOf', () => {
     expect(transformersBetween(network, 'MV', 'OFC').map((t) => t.id)).toEqual(['T1', 'T2']);
     expect(transformersBetween(network, 'MCC', 'DOCK')).toEqual([]);
     expect(transformersBetween(network, 'MCC', 'OFC').map((t) => t.id)).toEqual(['T2']);
+    expect(() => transformersBetween(network, 'MCC', 'NOWHERE')).toThrow(/no bus "NOWHERE"/);
+  });
+
+  it('transformersBetween agrees with the two paths from the source on every pair of buses', () => {
+    // The paths' reference: below their last shared element, up one path and down the other.
+    const byPaths = (from: string, to: string) => {
+      const up = pathTo(generatedNetwork, from);
+      const down = pathTo(generatedNetwork, to);
+      let common = 0;
+      while (common < up.length && common < down.length && up[common] === down[common]) common++;
+      return [...up.slice(common).reverse(), ...down.slice(common)].filter(
+        (id) => generatedNetwork.elements.get(id)?.type === 'transformer',
+      );
+    };
+    const generatedNetwork = networkOf(parseStudy(radialStudy(300)));
+    const buses = [...generatedNetwork.buses.keys()];
+    let crossing = 0;
+    for (const from of buses)
+      for (const to of buses) {
+        const ids = transformersBetween(generatedNetwork, from, to).map((t) => t.id);
+        expect(ids).toEqual(byPaths(from, to));
+        if (ids.length > 1) crossing++;
+      }
+    expect(crossing).toBeGreaterThan(0);
   });
 });
 
