@@ -158,7 +158,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
     for (let index = 0; index < pairCase.intervals.length; index++) {
       const interval = pairCase.intervals[index];
       if (interval.status === 'selective' || isSliver(interval)) continue;
-      shifts ??= new Map([[voltages[0], pairCase.upstreamShift]]);
+      shifts ??= new Map<number, number>().set(voltages[0], pairCase.upstreamShift);
       const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages, shifts);
       const { worst } = interval;
       // The sentences are written when first read (a large study's findings are seldom all read); they

@@ -138,28 +138,9 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   const location = locationBusOf(network, device);
   const cases = sensitivityCasesOf(context, device, settings);
   if (cases.length === 0) return [];
-  // Below a single-phase transformer the faults are the full-winding and line-to-neutral ones.
-  const faultName = (c: SensitivityCase) =>
-    context.faults.buses.get(c.busId)!.phases === 1
-      ? { 'line-to-line': 'full-winding', 'line-to-ground': 'line-to-neutral' }[c.fault]
-      : c.fault;
-  const arcing = () =>
-    settings.arcingFactor === undefined
-      ? 'bolted faults'
-      : `arcing faults taken as ${significant(settings.arcingFactor * 100, 3)} % of the bolted fault (a user option; common practice, IEEE 1584 gives the method for the arcing current)`;
-  // The sentences and the basis are written when first read (a large study has thousands of devices).
-  const basis = () =>
-    `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing()}; clearing within ${formatSeconds(settings.maxTime)} (${settings.maxTime === 2 ? 'common practice' : 'as set for this study'}).`;
-  const describe = (c: SensitivityCase) => {
-    const bus = network.buses.get(c.busId)!;
-    const at = `${formatAmps(c.boltedAmps, 3)} ${faultName(c)} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
-    const arcingText = settings.arcingFactor === undefined ? '' : ' as an arcing fault';
-    const through =
-      c.deviceAmps === c.boltedAmps
-        ? ''
-        : `, ${formatAmps(c.deviceAmps, 4)} through ${name} at ${formatVolts(location.voltage)}${arcingText}`;
-    return `${at}${through}${c.groundElement ? ', ground-fault element included' : ''}`;
-  };
+  // The sentences and the basis are written when first read (a large study has thousands of devices);
+  // the helpers they call are module functions, so a finding keeps only what its sentences read.
+  const seen = { context, name, location, settings };
   const rangeFor = (c: SensitivityCase) =>
     rangeOf(c.deviceAmps, c.deviceAmps, location.voltage, [network.buses.get(c.busId)!.voltage]);
   // A relative 1e-9 keeps a clearing time equal to the limit from failing on rounding.
@@ -178,8 +159,8 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
         },
         {
           explanation: () =>
-            `${cases.map((c) => `For ${describe(c)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
-          basis,
+            `${cases.map((c) => `For ${describeCase(seen, c)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
+          basis: () => basisOf(settings),
         },
         { referenceVolts: location.voltage },
       ),
@@ -193,22 +174,54 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
         kind: 'sensitivity',
         severity: never ? 'fail' : 'warning',
         title: never
-          ? `${name} may not operate for a minimum ${faultName(c)} fault`
-          : `${name} is slow for a minimum ${faultName(c)} fault`,
+          ? `${name} may not operate for a minimum ${faultNameOf(context, c)} fault`
+          : `${name} is slow for a minimum ${faultNameOf(context, c)} fault`,
         subjects: [device.id],
         range: rangeFor(c),
       },
       {
         explanation: () =>
           never
-            ? `For ${describe(c)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
-            : `For ${describe(c)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
+            ? `For ${describeCase(seen, c)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
+            : `For ${describeCase(seen, c)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
         suggestion: () => remedyOf(device, c, settings.maxTime),
-        basis,
+        basis: () => basisOf(settings),
       },
       { referenceVolts: location.voltage },
     );
   });
+}
+
+/** The fault's name; below a single-phase transformer the faults are the full-winding and line-to-neutral ones. */
+function faultNameOf(context: CheckContext, c: SensitivityCase): string {
+  return context.faults.buses.get(c.busId)!.phases === 1
+    ? { 'line-to-line': 'full-winding', 'line-to-ground': 'line-to-neutral' }[c.fault]
+    : c.fault;
+}
+
+/** The finding's basis line: the minimum-fault assumptions and the time allowed. */
+function basisOf(settings: SensitivitySettings): string {
+  const arcing =
+    settings.arcingFactor === undefined
+      ? 'bolted faults'
+      : `arcing faults taken as ${significant(settings.arcingFactor * 100, 3)} % of the bolted fault (a user option; common practice, IEEE 1584 gives the method for the arcing current)`;
+  return `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (${settings.maxTime === 2 ? 'common practice' : 'as set for this study'}).`;
+}
+
+/** One case in words: the bolted fault at its bus, and the current through the device where that differs. */
+function describeCase(
+  seen: { context: CheckContext; name: string; location: { voltage: number }; settings: SensitivitySettings },
+  c: SensitivityCase,
+): string {
+  const { context, name, location, settings } = seen;
+  const bus = context.network.buses.get(c.busId)!;
+  const at = `${formatAmps(c.boltedAmps, 3)} ${faultNameOf(context, c)} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
+  const arcingText = settings.arcingFactor === undefined ? '' : ' as an arcing fault';
+  const through =
+    c.deviceAmps === c.boltedAmps
+      ? ''
+      : `, ${formatAmps(c.deviceAmps, 4)} through ${name} at ${formatVolts(location.voltage)}${arcingText}`;
+  return `${at}${through}${c.groundElement ? ', ground-fault element included' : ''}`;
 }
 
 /** What to change so the device clears the case in time. */
