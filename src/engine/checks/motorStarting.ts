@@ -19,8 +19,8 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
   if (!device) return [];
   const volts = context.network.buses.get(motor.bus)!.voltage;
   const band = scaleBand(context.bands.get(device.id)!, locationBusOf(context.network, device).voltage / volts);
-  // Only the curve is kept by the lazy sentences, not the whole start (a study has thousands of motors).
   const curve = motorStartingOf(motor, volts).curve;
+  const { label } = curve;
   const name = motor.name ?? motor.id;
   const deviceName = nameOf(device);
   let worst: { amps: number; seconds: number; operates: number } | undefined;
@@ -31,8 +31,10 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
     if (operates <= seconds && (!worst || operates / seconds < worst.operates / worst.seconds))
       worst = { amps, seconds, operates };
   }
-  // The sentences and the basis are written when first read (a large study has thousands of motors).
-  const basis = () => curve.notes.join(' ');
+  // The sentences and the basis are written when first read (a large study has thousands of motors);
+  // they keep the curve's label and the motor, and the basis works the start out again when read, so
+  // a finding does not keep the whole curve.
+  const basis = () => motorStartingOf(motor, volts).curve.notes.join(' ');
   if (!worst) {
     return [
       withLazyText<Finding>(
@@ -43,7 +45,7 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
           title: `${name} starts without tripping ${deviceName}`,
           subjects: [device.id, motor.id],
         },
-        { explanation: () => `${deviceName} stays above ${name}'s starting curve: ${curve.label}.`, basis },
+        { explanation: () => `${deviceName} stays above ${name}'s starting curve: ${label}.`, basis },
         { referenceVolts: volts },
       ),
     ];
