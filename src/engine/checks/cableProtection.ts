@@ -24,14 +24,18 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
   const volts = network.buses.get(cable.from)!.voltage;
   if (!device) return [];
   const deviceVolts = locationBusOf(network, device).voltage;
-  const curve = cableWithstandOf(cable, { volts, conductorAreaCmil: conductorAreaCmil(cable.size) });
+  const withstandOf = () => cableWithstandOf(cable, { volts, conductorAreaCmil: conductorAreaCmil(cable.size) });
+  const curve = withstandOf();
+  const { label } = curve;
   const band = bands.get(device.id)!;
   const withstand = withstandBandOf(curve, 1);
   const toAmps = faults.buses.get(cable.from)!.max.threePhase;
   const from = withstand.minAmps;
   const deviceName = nameOf(device);
-  // The sentences and the basis are written when first read (a large study has thousands of cables).
-  const basis = () => curve.notes.join(' ');
+  // The sentences and the basis are written when first read (a large study has thousands of cables);
+  // they keep the curve's label, and the basis works the curve out again when read, so a finding does
+  // not keep the whole curve.
+  const basis = () => withstandOf().notes.join(' ');
   if (!(toAmps > from)) {
     return [
       withLazyText<Finding>(
@@ -70,7 +74,7 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
         },
         {
           explanation: () =>
-            `${capitalise(describeRange(range))} ${deviceName} clears before ${name} reaches its short-circuit limit (${curve.label}); closest at ${formatAmps(least.worst.amps, 3)}: ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
+            `${capitalise(describeRange(range))} ${deviceName} clears before ${name} reaches its short-circuit limit (${label}); closest at ${formatAmps(least.worst.amps, 3)}: ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
           basis,
         },
         { referenceVolts: volts },
@@ -91,7 +95,7 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
       },
       {
         explanation: () =>
-          `${capitalise(describeRange(failed))} ${name} reaches its short-circuit limit after ${formatSeconds(interval.worst.upTime)}, but ${deviceName} may take ${formatSeconds(interval.worst.downTime)} to clear (${curve.label}).`,
+          `${capitalise(describeRange(failed))} ${name} reaches its short-circuit limit after ${formatSeconds(interval.worst.upTime)}, but ${deviceName} may take ${formatSeconds(interval.worst.downTime)} to clear (${label}).`,
         suggestion: () => 'Use a faster device (lower instantaneous or short-time pickup) or a larger conductor.',
         basis,
       },
