@@ -55,7 +55,9 @@ type CheckDef = z.core.$ZodCheckDef & Record<string, unknown>;
 function compile(schema: z.core.$ZodType): PlainReader {
   const def = schema._zod.def as AnyDef;
   const own = declared.get(def);
-  const read = own ?? (def.coerce ? undefined : typeReader(schema, def));
+  // A schema that is its own check (a string or number format: z.email(), z.int()) is zod's to read.
+  const selfChecked = schema._zod.traits.has('$ZodCheck');
+  const read = own ?? (def.coerce || selfChecked ? undefined : typeReader(schema, def));
   if (!read) return zodReading(schema);
   const checks = (def.checks ?? []) as Check[];
   return checks.length === 0 ? read : withChecks(read, checks, def.type);
@@ -74,8 +76,7 @@ function typeReader(schema: z.core.$ZodType, def: AnyDef): PlainReader | undefin
     case 'number':
       return (value) => (typeof value === 'number' && Number.isFinite(value) ? value : NOT_PLAIN);
     case 'string':
-      // A string format (email, uuid…) is its own check: zod reads it.
-      return def.format === undefined ? (value) => (typeof value === 'string' ? value : NOT_PLAIN) : undefined;
+      return (value) => (typeof value === 'string' ? value : NOT_PLAIN);
     case 'boolean':
       return (value) => (typeof value === 'boolean' ? value : NOT_PLAIN);
     case 'enum':

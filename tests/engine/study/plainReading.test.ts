@@ -81,6 +81,13 @@ describe('plain reading of fields', () => {
     expect(plainReaderOf(name)('Ma\u0007n')).toBe(NOT_PLAIN);
   });
 
+  it('leaves a schema that is its own check (a number or string format) to zod', () => {
+    expect(plainReaderOf(z.int())(1.5)).toBe(NOT_PLAIN);
+    expect(z.int().safeParse(1.5).success).toBe(false);
+    expect(plainReaderOf(z.email())('not an address')).toBe(NOT_PLAIN);
+    expect(expectSameReading(z.int(), 3)).toBe('plain');
+  });
+
   it('fills defaults and prefaults and leaves out absent optional fields, as zod does', () => {
     const schema = z
       .object({
