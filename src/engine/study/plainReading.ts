@@ -190,8 +190,8 @@ function objectReader(def: z.core.$ZodObjectDef): PlainReader | undefined {
 function unionReader(def: z.core.$ZodDiscriminatedUnionDef): PlainReader | undefined {
   const options = def.options as z.core.$ZodType[];
   if (def.discriminator === undefined) {
-    // A union of literals (`1 | 3`) is a set of values; any other union is zod's.
-    if (!options.every((option) => option._zod.def.type === 'literal')) return undefined;
+    // A union of literals (`1 | 3`) is a set of values; any other union (or an exclusive one) is zod's.
+    if (def.inclusive === false || !options.every((option) => option._zod.def.type === 'literal')) return undefined;
     const values = new Set(options.flatMap((option) => [...option._zod.values!]));
     return (value) => (values.has(value as never) ? value : NOT_PLAIN);
   }

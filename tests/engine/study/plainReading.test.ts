@@ -88,6 +88,13 @@ describe('plain reading of fields', () => {
     expect(expectSameReading(z.int(), 3)).toBe('plain');
   });
 
+  it('reads a union of literals as a set of values, and leaves an exclusive union to zod', () => {
+    expect(expectSameReading(z.union([z.literal(1), z.literal(3)]), 3)).toBe('plain');
+    expect(plainReaderOf(z.union([z.literal(1), z.literal(3)]))(2)).toBe(NOT_PLAIN);
+    // Both options match 1, which an exclusive union refuses.
+    expect(plainReaderOf(z.xor([z.literal(1), z.literal(1)]))(1)).toBe(NOT_PLAIN);
+  });
+
   it('fills defaults and prefaults and leaves out absent optional fields, as zod does', () => {
     const schema = z
       .object({
