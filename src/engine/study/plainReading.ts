@@ -216,9 +216,9 @@ function unionReader(def: z.core.$ZodDiscriminatedUnionDef): PlainReader | undef
 function withChecks(read: PlainReader, checks: Check[], type: string): PlainReader {
   const steps = checks.map((check) => checkStep(check, type));
   return (value) => {
-    let read_ = read(value);
-    for (let i = 0; i < steps.length && read_ !== NOT_PLAIN; i++) read_ = steps[i](read_);
-    return read_;
+    let result = read(value);
+    for (let i = 0; i < steps.length && result !== NOT_PLAIN; i++) result = steps[i](result);
+    return result;
   };
 }
 
