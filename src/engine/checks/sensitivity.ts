@@ -140,7 +140,6 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   if (cases.length === 0) return [];
   // The sentences and the basis are written when first read (a large study has thousands of devices);
   // the helpers they call are module functions, so a finding keeps only what its sentences read.
-  const seen = { context, name, location, settings };
   const rangeFor = (c: SensitivityCase) =>
     rangeOf(c.deviceAmps, c.deviceAmps, location.voltage, [network.buses.get(c.busId)!.voltage]);
   // A relative 1e-9 keeps a clearing time equal to the limit from failing on rounding.
@@ -159,7 +158,7 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
         },
         {
           explanation: () =>
-            `${cases.map((c) => `For ${describeCase(seen, c)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
+            `${cases.map((c) => `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
           basis: () => basisOf(settings),
         },
         { referenceVolts: location.voltage },
@@ -182,8 +181,8 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
       {
         explanation: () =>
           never
-            ? `For ${describeCase(seen, c)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
-            : `For ${describeCase(seen, c)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
+            ? `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
+            : `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
         suggestion: () => remedyOf(device, c, settings.maxTime),
         basis: () => basisOf(settings),
       },
@@ -208,19 +207,21 @@ function basisOf(settings: SensitivitySettings): string {
   return `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (${settings.maxTime === 2 ? 'common practice' : 'as set for this study'}).`;
 }
 
-/** One case in words: the bolted fault at its bus, and the current through the device where that differs. */
+/** One case in words: the bolted fault at its bus, and the current through the device (at `volts`) where that differs. */
 function describeCase(
-  seen: { context: CheckContext; name: string; location: { voltage: number }; settings: SensitivitySettings },
+  context: CheckContext,
   c: SensitivityCase,
+  name: string,
+  volts: number,
+  settings: SensitivitySettings,
 ): string {
-  const { context, name, location, settings } = seen;
   const bus = context.network.buses.get(c.busId)!;
   const at = `${formatAmps(c.boltedAmps, 3)} ${faultNameOf(context, c)} at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)})`;
   const arcingText = settings.arcingFactor === undefined ? '' : ' as an arcing fault';
   const through =
     c.deviceAmps === c.boltedAmps
       ? ''
-      : `, ${formatAmps(c.deviceAmps, 4)} through ${name} at ${formatVolts(location.voltage)}${arcingText}`;
+      : `, ${formatAmps(c.deviceAmps, 4)} through ${name} at ${formatVolts(volts)}${arcingText}`;
   return `${at}${through}${c.groundElement ? ', ground-fault element included' : ''}`;
 }
 
