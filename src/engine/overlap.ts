@@ -497,12 +497,9 @@ function gridOf(
   }
   inside[n++] = to;
   if (!ordered) inside.subarray(0, n).sort();
-  let size = 1;
-  for (let k = 0; k + 1 < n; k++) {
-    const a = inside[k];
-    const b = inside[k + 1];
-    if (b > a * (1 + 1e-12)) size += 1 + Math.max(MIN_CELLS, Math.ceil(samplesPerDecade * Math.log10(b / a)));
-  }
+  // At most: per segment its cells (under samplesPerDecade · its decades + 1) and the point below its
+  // top, and the top; with room to spare for rounding, and twice that for the dips probed later.
+  const size = 3 * n + Math.ceil(samplesPerDecade * Math.log10(to / from));
   if (scratch.points.length < 2 * size) {
     scratch.points = new Float64Array(2 * size);
     scratch.upTimes = new Float64Array(2 * size);
