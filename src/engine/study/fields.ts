@@ -120,11 +120,24 @@ function reportedBy<T>(read: (value: number | string) => T | string) {
   };
 }
 
-/** The plain reading of a `union([number, string])` field read by `read`: a finite number or any text. */
+/** How many distinct values a field's plain reading remembers (a study repeats its settings). */
+const REMEMBERED_VALUES = 512;
+
+/**
+ * The plain reading of a `union([number, string])` field read by `read`: a finite number or any text.
+ * `read` gives a number or a message for each value, always the same, so the reading of each value
+ * is remembered: a study repeats its ratings, delays and lengths thousands of times, and reading one
+ * ("3 cycles", "40 ft") costs a unit lookup and a range check.
+ */
 function plainReadingOf(read: (value: number | string) => unknown): PlainReader {
+  const readings = new Map<number | string, unknown>();
   return (value) => {
     if (!(typeof value === 'string' || (typeof value === 'number' && Number.isFinite(value)))) return NOT_PLAIN;
-    const parsed = read(value);
+    let parsed = readings.get(value);
+    if (parsed === undefined) {
+      parsed = read(value);
+      if (readings.size < REMEMBERED_VALUES) readings.set(value, parsed);
+    }
     return typeof parsed === 'string' ? NOT_PLAIN : parsed;
   };
 }

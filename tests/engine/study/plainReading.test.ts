@@ -51,6 +51,20 @@ describe('plain reading of fields', () => {
     },
   );
 
+  it('reads a value it has read before the same way, refused or not', () => {
+    // The field remembers each value's reading: the second reading must be the first.
+    const time = quantityField('time', { max: 10 });
+    for (let round = 0; round < 2; round++) {
+      expect(plainReaderOf(time)('3 cycles')).toBeCloseTo(0.05, 15);
+      expect(plainReaderOf(time)(-0)).toBe(0);
+      expect(plainReaderOf(time)('11 s')).toBe(NOT_PLAIN);
+      expect(plainReaderOf(time)(12)).toBe(NOT_PLAIN);
+    }
+    // Past what it remembers, a value is still read, only not kept.
+    for (let seconds = 1; seconds < 600; seconds++)
+      expect(plainReaderOf(time)(`${seconds / 100} s`)).toBe(seconds / 100);
+  });
+
   it('leaves a name over its length, or with a control character, to zod', () => {
     const name = textField(5, 'name');
     expect(expectSameReading(name, 'Main')).toBe('plain');
