@@ -56,10 +56,13 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
   const findings: Finding[] = [];
 
   const pairs: PairCheck[] = [];
+  // A panel's identical feeders ask the finder the same question of its main: this analysis answers
+  // each once. The answers are kept for the pair checks alone, not by the findings' context.
+  const pairContext: CheckContext = { network, faults, bands, overlaps: new Map() };
   for (const pair of seriesPairs(network)) {
     const { check, findings: pairFindings } = memo
-      ? memo.pair(context, pair, study.coordination)
-      : checkPair(context, pair, study.coordination);
+      ? memo.pair(pairContext, pair, study.coordination)
+      : checkPair(pairContext, pair, study.coordination);
     pairs.push(check);
     findings.push(...pairFindings);
   }

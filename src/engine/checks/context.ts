@@ -1,5 +1,6 @@
 import type { Band } from '../band.ts';
 import type { FaultLevels } from '../fault/index.ts';
+import type { OverlapMemo } from '../overlapMemo.ts';
 import { pathTo, type Network } from '../network/index.ts';
 import type { Device } from '../study/index.ts';
 import { formatAmps, formatVolts } from '../quantity/format.ts';
@@ -10,6 +11,8 @@ export interface CheckContext {
   network: Network;
   faults: FaultLevels;
   bands: Map<string, Band>;
+  /** Where the pair checks of one analysis keep the finder's answers, to ask each question once. */
+  overlaps?: OverlapMemo;
 }
 
 /** A device's name for sentences: its name, else its id. */

@@ -1,8 +1,9 @@
-import { scaleBand } from '../band.ts';
+import { scaleBand, type Band } from '../band.ts';
 import { cachedFastestOf, cachedGroundBandOf } from '../bandCache.ts';
 import { isPhaseShifting, primaryConnectionOf, secondaryWindingOf, throughFaultOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { findOverlaps, type OverlapInterval, type OverlapOptions } from '../overlap.ts';
+import { rememberedOverlaps } from '../overlapMemo.ts';
 import { withLazyText } from '../lazyText.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
@@ -96,7 +97,8 @@ export function checkPair(
     fault,
     referenceVolts,
     upstreamShift,
-    intervals: findOverlaps(
+    intervals: overlapsIn(
+      context,
       upstreamShift === 1 ? upBand : scaleBand(upBand, 1 / upstreamShift),
       downBand,
       optionsUpTo(toAmps),
@@ -126,7 +128,7 @@ export function checkPair(
         fault: 'ground-fault',
         referenceVolts,
         upstreamShift: 1,
-        intervals: findOverlaps(up, down, optionsUpTo(through.lineToGround)),
+        intervals: overlapsIn(context, up, down, optionsUpTo(through.lineToGround)),
       });
     }
   }
@@ -134,6 +136,11 @@ export function checkPair(
   // The cases as an exact-size copy (an array grown by `push` keeps room for 17 items; a study keeps thousands).
   const check: PairCheck = { upstream: upstream.id, downstream: downstream.id, kind, rule, cases: cases.slice() };
   return { check, findings: findingsOf(check, upstream, downstream, [upBus.voltage, referenceVolts]) };
+}
+
+/** The finder's answer, given once per question where the context keeps them (`CheckContext.overlaps`). */
+function overlapsIn(context: CheckContext, up: Band, down: Band, options: OverlapOptions): OverlapInterval[] {
+  return context.overlaps ? rememberedOverlaps(context.overlaps, up, down, options) : findOverlaps(up, down, options);
 }
 
 /** How a finding's title names its fault case. */
