@@ -5,8 +5,9 @@ import type { Characteristic } from './devices/characteristic.ts';
  * Bands remembered by the characteristic they come from. A band depends on its characteristic alone,
  * so one built for an equal characteristic serves again: the same object (an unchanged device of an
  * edited study keeps its parsed characteristic) is found by identity, an equal one (a site's many
- * identical breakers) by its content. Results are exactly what `bandOf` returns; only the work is
- * saved. Bands are read-only by the `Band` contract, so sharing one between devices is safe.
+ * identical breakers) by comparing it with the last few kinds given, else by its content as text.
+ * Results are exactly what `bandOf` returns; only the work is saved. Bands are read-only by the
+ * `Band` contract, so sharing one between devices is safe.
  */
 const byObject = new WeakMap<Characteristic, Band>();
 const groundByObject = new WeakMap<Characteristic, Band | null>();
@@ -20,6 +21,52 @@ const CONTENT_LIMIT = 20_000;
  * would copy while the analysis runs.
  */
 const keys = new WeakMap<Characteristic, string>();
+
+/**
+ * The characteristics last given whose bands are known, the latest first: a study's devices come in
+ * few kinds, and comparing a characteristic with these field by field is a few times quicker than
+ * writing its content out as text (the numbers of its point tables, above all).
+ */
+const recent: Characteristic[] = [];
+const RECENT_LIMIT = 16;
+
+/** A recent characteristic with the same content as `characteristic`, moved to the front; or undefined. */
+function recentTwinOf(characteristic: Characteristic): Characteristic | undefined {
+  for (let i = 0; i < recent.length; i++) {
+    const twin = recent[i];
+    if (sameContent(twin, characteristic)) {
+      recent.copyWithin(1, 0, i);
+      recent[0] = twin;
+      return twin;
+    }
+  }
+  return undefined;
+}
+
+function rememberRecent(characteristic: Characteristic): void {
+  recent.unshift(characteristic);
+  if (recent.length > RECENT_LIMIT) recent.pop();
+}
+
+/** Whether two parsed values hold the same content: the same fields (in any order), items and values. */
+function sameContent(a: unknown, b: unknown): boolean {
+  if (a === b) return true;
+  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return Object.is(a, b);
+  if (Array.isArray(a) || Array.isArray(b)) {
+    if (!Array.isArray(a) || !Array.isArray(b) || a.length !== b.length) return false;
+    for (let i = 0; i < a.length; i++) if (!sameContent(a[i], b[i])) return false;
+    return true;
+  }
+  const x = a as Record<string, unknown>;
+  const y = b as Record<string, unknown>;
+  let fields = 0;
+  for (const key in x) {
+    if (!Object.hasOwn(y, key) || !sameContent(x[key], y[key])) return false;
+    fields++;
+  }
+  for (const key in y) if (Object.hasOwn(y, key)) fields--;
+  return fields === 0;
+}
 
 function contentOf(characteristic: Characteristic): string {
   let key = keys.get(characteristic);
@@ -37,12 +84,17 @@ function contentOf(characteristic: Characteristic): string {
 export function cachedBandOf(characteristic: Characteristic): Band {
   let band = byObject.get(characteristic);
   if (band) return band;
-  const key = contentOf(characteristic);
-  band = byContent.get(key);
+  const twin = recentTwinOf(characteristic);
+  band = twin && byObject.get(twin);
   if (!band) {
-    band = bandOf(characteristic);
-    if (byContent.size >= CONTENT_LIMIT) byContent.clear();
-    byContent.set(key, band);
+    const key = contentOf(characteristic);
+    band = byContent.get(key);
+    if (!band) {
+      band = bandOf(characteristic);
+      if (byContent.size >= CONTENT_LIMIT) byContent.clear();
+      byContent.set(key, band);
+    }
+    rememberRecent(characteristic);
   }
   byObject.set(characteristic, band);
   return band;
@@ -57,12 +109,17 @@ export function cachedGroundBandOf(characteristic: Characteristic): Band | undef
   if (characteristic.kind !== 'trip-unit' || !characteristic.ground) return undefined;
   let band = groundByObject.get(characteristic);
   if (band !== undefined) return band ?? undefined;
-  const key = contentOf(characteristic);
-  band = groundByContent.get(key);
+  const twin = recentTwinOf(characteristic);
+  band = twin && groundByObject.get(twin);
   if (band === undefined) {
-    band = groundFaultBandOf(characteristic) ?? null;
-    if (groundByContent.size >= CONTENT_LIMIT) groundByContent.clear();
-    groundByContent.set(key, band);
+    const key = contentOf(characteristic);
+    band = groundByContent.get(key);
+    if (band === undefined) {
+      band = groundFaultBandOf(characteristic) ?? null;
+      if (groundByContent.size >= CONTENT_LIMIT) groundByContent.clear();
+      groundByContent.set(key, band);
+    }
+    if (twin) groundByObject.set(twin, band);
   }
   groundByObject.set(characteristic, band);
   return band ?? undefined;

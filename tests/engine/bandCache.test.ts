@@ -24,6 +24,48 @@ describe('bandCache', () => {
     expect(currents.map(band.maxTime)).toEqual(currents.map(fresh.maxTime));
   });
 
+  it('tells equal characteristics from ones that differ in a single value, however the file orders their fields', () => {
+    // Illustrative fuse tables (invented): the second differs from the first in one time only.
+    const fuse = (lastTime: number, reversed = false) => {
+      const fields = {
+        kind: 'fuse',
+        label: 'Illustrative 100 A fuse (illustrative, not a product)',
+        illustrative: true,
+        minimumMelting: [
+          [150, 300],
+          [500, 10],
+          [2000, lastTime],
+        ],
+        totalClearing: [
+          [150, 330],
+          [500, 12],
+          [2000, 0.05],
+        ],
+      };
+      const ordered = reversed ? Object.fromEntries(Object.entries(fields).reverse()) : fields;
+      return characteristicSchema.parse(ordered);
+    };
+    const band = cachedBandOf(fuse(0.02));
+    expect(cachedBandOf(fuse(0.02, true))).toBe(band);
+    const other = cachedBandOf(fuse(0.03));
+    expect(other).not.toBe(band);
+    expect(other.minTime(2000)).toBe(0.03);
+    expect(band.minTime(2000)).toBe(0.02);
+    // Many kinds seen since: an equal characteristic still finds its band (by its content as text).
+    for (let pickup = 1; pickup <= 40; pickup++)
+      cachedBandOf(
+        characteristicSchema.parse({ kind: 'trip-unit', sensor: 100 * pickup, longTime: { pickup: 1, delay: 4 } }),
+      );
+    expect(cachedBandOf(fuse(0.02))).toBe(band);
+  });
+
+  it('gives a ground-fault band once per content, to a twin read later too', () => {
+    const first = cachedGroundBandOf(unit())!;
+    expect(cachedGroundBandOf(unit())).toBe(first);
+    const other = characteristicSchema.parse({ ...unit(), ground: { pickup: 0.6, delay: 0.2 } });
+    expect(cachedGroundBandOf(other)).not.toBe(first);
+  });
+
   it('gives the ground-fault band of a trip unit with one, and none otherwise', () => {
     const ground = cachedGroundBandOf(unit())!;
     expect(currents.map(ground.minTime)).toEqual(currents.map(groundFaultBandOf(unit())!.minTime));
