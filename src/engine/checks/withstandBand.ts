@@ -15,12 +15,25 @@ export function withstandBandOf(curve: WithstandCurve, scale: number): Band {
   return {
     minTime: time,
     maxTime: time,
-    breakpoints: Float64Array.from(new Set(curve.amps)).map((amps) => amps * scale),
+    breakpoints: scaledCurrentsOf(curve.amps, scale),
     minAmps: curve.amps[0] * scale,
     maxAmps: curve.amps[curve.amps.length - 1] * scale,
     currentLimitingFrom: Infinity,
     diagnostics: [],
   };
+}
+
+/**
+ * Each current of a curve once, times `scale`: the curve's currents never fall (a vertical step repeats
+ * one), so a repeat is always the current before it. A loop, not a set and a mapping: a study builds a
+ * withstand band for every cable and transformer.
+ */
+function scaledCurrentsOf(amps: Float64Array, scale: number): Float64Array {
+  let distinct = 0;
+  for (let i = 0; i < amps.length; i++) if (i === 0 || amps[i] !== amps[i - 1]) distinct++;
+  const scaled = new Float64Array(distinct);
+  for (let i = 0, k = 0; i < amps.length; i++) if (i === 0 || amps[i] !== amps[i - 1]) scaled[k++] = amps[i] * scale;
+  return scaled;
 }
 
 /** Finder options that turn off the half-cycle rules, which do not apply to equipment limits. */

@@ -97,6 +97,13 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
   for (let i = 1; i < points.length; i++) {
     if (points[i][0] !== points[i - 1][0] || points[i][1] !== points[i - 1][1]) distinct.push(points[i]);
   }
+  // Plain loops: `Float64Array.from` with a mapping calls it through the iterator, point by point.
+  const amps = new Float64Array(distinct.length);
+  const seconds = new Float64Array(distinct.length);
+  for (let i = 0; i < distinct.length; i++) {
+    amps[i] = distinct[i][0];
+    seconds[i] = distinct[i][1];
+  }
   const name = motor.name ?? motor.id;
   const lraText = `${significant(lockedRotorAmps, 4)} A`;
   return {
@@ -108,8 +115,8 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
         label: `${name} starting: LRA ${lraText} for ${significant(accelerationTime, 3)} s`,
         volts,
         // Read by index, not destructured: a study has thousands of motors.
-        amps: Float64Array.from(distinct, (point) => point[0]),
-        seconds: Float64Array.from(distinct, (point) => point[1]),
+        amps,
+        seconds,
       },
       {
         notes: () => [
