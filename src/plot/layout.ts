@@ -89,7 +89,10 @@ export function placeLabels(
     for (const candidate of request.candidates) {
       if (candidate.cost >= bestCost || !free(candidate.box)) continue;
       const cost = candidate.cost + lineCosts(candidate.box, bestCost - candidate.cost);
-      if (cost < bestCost) [best, bestCost] = [candidate, cost];
+      if (cost < bestCost) {
+        best = candidate;
+        bestCost = cost;
+      }
     }
     let leader: LabelPlacement['leader'] = null;
     // The wider search is bounded in reach and in count, so a crowded sheet stays quick; the rest go to the key.
@@ -114,23 +117,29 @@ export function placeLabels(
  * @example candidatesAround([100, 100], 40, 12, 3)[0].box // { x: 103, y: 85, width: 40, height: 12 }
  */
 export function candidatesAround(
-  [x, y]: [number, number],
+  anchor: readonly [number, number],
   width: number,
   height: number,
   gap: number,
   baseCost = 0,
 ): LabelCandidate[] {
-  const places: [number, number, number][] = [
-    [x + gap, y - gap - height, 0],
-    [x + gap, y - height / 2, 0.4],
-    [x - width / 2, y - gap - height, 0.8],
-    [x + gap, y + gap, 1],
-    [x - gap - width, y - gap - height, 1.2],
-    [x - gap - width, y - height / 2, 1.5],
-    [x - width / 2, y + gap, 1.5],
-    [x - gap - width, y + gap, 2],
+  // Written out, with no list of places to read back: a sheet asks for two dozen sets per curve.
+  const x = anchor[0];
+  const y = anchor[1];
+  const candidate = (left: number, top: number, cost: number): LabelCandidate => ({
+    box: { x: left, y: top, width, height },
+    cost: cost + baseCost,
+  });
+  return [
+    candidate(x + gap, y - gap - height, 0),
+    candidate(x + gap, y - height / 2, 0.4),
+    candidate(x - width / 2, y - gap - height, 0.8),
+    candidate(x + gap, y + gap, 1),
+    candidate(x - gap - width, y - gap - height, 1.2),
+    candidate(x - gap - width, y - height / 2, 1.5),
+    candidate(x - width / 2, y + gap, 1.5),
+    candidate(x - gap - width, y + gap, 2),
   ];
-  return places.map(([bx, by, cost]) => ({ box: { x: bx, y: by, width, height }, cost: cost + baseCost }));
 }
 
 /**
@@ -204,34 +213,40 @@ function nearestPoint([x, y]: [number, number], box: Box): [number, number] {
 }
 
 // Accepts curve lines and their owners; answers how many segments touch a box, through a grid of cells.
+// A layout asks this of every candidate box of every label (a sheet's curve label has 192), so the
+// loops below call no function per cell and allocate nothing per query.
 class SegmentIndex {
   readonly #cells = new Map<number, number[]>();
-  readonly #lines: Float64Array[];
   readonly #owners: (string | undefined)[];
-  /** Each segment's line and its first point's offset in that line. */
-  readonly #segLine: number[] = [];
-  readonly #segAt: number[] = [];
+  /** Each segment's line, and its end points (x0, y0, x1, y1) four apart. */
+  readonly #segLine: Int32Array;
+  readonly #ends: Float64Array;
   /** Per segment, the last query that counted it, so a segment in several cells counts once. */
-  #seen: Int32Array;
+  readonly #seen: Int32Array;
   #query = 0;
   readonly #cell: number;
 
   constructor(lines: Float64Array[], owners: (string | undefined)[], cell: number) {
-    this.#lines = lines;
     this.#owners = owners;
     this.#cell = cell;
-    // Every segment of a sheet's curves is indexed on each layout, so this loop allocates nothing per
-    // segment beyond its place in the cells' lists.
+    let segments = 0;
+    for (const line of lines) segments += Math.max(0, (line.length >> 1) - 1);
+    const segLine = (this.#segLine = new Int32Array(segments));
+    const ends = (this.#ends = new Float64Array(4 * segments));
+    this.#seen = new Int32Array(segments);
     const cells = this.#cells;
+    let id = 0;
     lines.forEach((line, l) => {
-      for (let i = 0; i + 3 < line.length; i += 2) {
-        const id = this.#segLine.length;
-        this.#segLine.push(l);
-        this.#segAt.push(i);
+      for (let i = 0; i + 3 < line.length; i += 2, id++) {
+        segLine[id] = l;
         const ax = line[i];
         const ay = line[i + 1];
         const bx = line[i + 2];
         const by = line[i + 3];
+        ends[4 * id] = ax;
+        ends[4 * id + 1] = ay;
+        ends[4 * id + 2] = bx;
+        ends[4 * id + 3] = by;
         if (!(Number.isFinite(ax) && Number.isFinite(ay) && Number.isFinite(bx) && Number.isFinite(by))) continue;
         const c0 = Math.floor(Math.min(ax, bx) / cell);
         const c1 = Math.floor(Math.max(ax, bx) / cell);
@@ -246,7 +261,6 @@ class SegmentIndex {
           }
       }
     });
-    this.#seen = new Int32Array(this.#segLine.length);
   }
 
   /**
@@ -255,23 +269,32 @@ class SegmentIndex {
    */
   count(box: Box, notOwnedBy?: string, limit = Infinity): number {
     const query = ++this.#query;
+    const cells = this.#cells;
+    const seen = this.#seen;
+    const ends = this.#ends;
+    const cell = this.#cell;
+    const c0 = Math.floor(box.x / cell);
+    const c1 = Math.floor((box.x + box.width) / cell);
+    const r0 = Math.floor(box.y / cell);
+    const r1 = Math.floor((box.y + box.height) / cell);
     let count = 0;
-    forCells(box.x, box.y, box.x + box.width, box.y + box.height, this.#cell, (key) => {
-      for (const id of this.#cells.get(key) ?? []) {
-        if (count > limit) return true;
-        if (this.#seen[id] === query) continue;
-        this.#seen[id] = query;
-        const l = this.#segLine[id];
-        if (notOwnedBy !== undefined) {
-          const owner = this.#owners[l];
-          if (owner === undefined || owner === notOwnedBy) continue;
+    for (let r = r0; r <= r1; r++)
+      for (let c = c0; c <= c1; c++) {
+        const list = cells.get(cellKey(r, c));
+        if (list === undefined) continue;
+        for (let k = 0; k < list.length; k++) {
+          if (count > limit) return count;
+          const id = list[k];
+          if (seen[id] === query) continue;
+          seen[id] = query;
+          if (notOwnedBy !== undefined) {
+            const owner = this.#owners[this.#segLine[id]];
+            if (owner === undefined || owner === notOwnedBy) continue;
+          }
+          const at = 4 * id;
+          if (segmentCrossesBox(ends[at], ends[at + 1], ends[at + 2], ends[at + 3], box)) count++;
         }
-        const line = this.#lines[l];
-        const i = this.#segAt[id];
-        if (segmentCrossesBox(line[i], line[i + 1], line[i + 2], line[i + 3], box)) count++;
       }
-      return false;
-    });
     return count;
   }
 }
@@ -284,35 +307,33 @@ class BoxIndex {
     this.#cell = cell;
   }
   add(box: Box): void {
-    forCells(box.x, box.y, box.x + box.width, box.y + box.height, this.#cell, (key) => {
-      const list = this.#cells.get(key);
-      if (list) list.push(box);
-      else this.#cells.set(key, [box]);
-    });
+    const cell = this.#cell;
+    const c0 = Math.floor(box.x / cell);
+    const c1 = Math.floor((box.x + box.width) / cell);
+    const r0 = Math.floor(box.y / cell);
+    const r1 = Math.floor((box.y + box.height) / cell);
+    for (let r = r0; r <= r1; r++)
+      for (let c = c0; c <= c1; c++) {
+        const key = cellKey(r, c);
+        const list = this.#cells.get(key);
+        if (list) list.push(box);
+        else this.#cells.set(key, [box]);
+      }
   }
   overlaps(box: Box): boolean {
-    let hit = false;
-    forCells(box.x, box.y, box.x + box.width, box.y + box.height, this.#cell, (key) => {
-      if (!hit) hit = (this.#cells.get(key) ?? []).some((b) => boxesOverlap(box, b));
-    });
-    return hit;
+    const cell = this.#cell;
+    const c0 = Math.floor(box.x / cell);
+    const c1 = Math.floor((box.x + box.width) / cell);
+    const r0 = Math.floor(box.y / cell);
+    const r1 = Math.floor((box.y + box.height) / cell);
+    for (let r = r0; r <= r1; r++)
+      for (let c = c0; c <= c1; c++) {
+        const list = this.#cells.get(cellKey(r, c));
+        if (list === undefined) continue;
+        for (let k = 0; k < list.length; k++) if (boxesOverlap(box, list[k])) return true;
+      }
+    return false;
   }
-}
-
-// Accepts a rectangle's corners; calls back with the key of every grid cell it touches, until the callback returns true.
-function forCells(
-  x0: number,
-  y0: number,
-  x1: number,
-  y1: number,
-  cell: number,
-  visit: (key: number) => boolean | void,
-): void {
-  const c0 = Math.floor(x0 / cell);
-  const c1 = Math.floor(x1 / cell);
-  const r0 = Math.floor(y0 / cell);
-  const r1 = Math.floor(y1 / cell);
-  for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) if (visit(cellKey(r, c))) return;
 }
 
 // Accepts a grid cell's row and column; its key in a cell map.

@@ -1,6 +1,6 @@
 import { formatVolts } from '../engine/quantity/format.ts';
 import type { Box, HatchPattern, Layer, Primitive, TextItem } from './geometry.ts';
-import { candidatesAround, placeLabels, pointsAlong, type LabelPlacement } from './layout.ts';
+import { candidatesAround, placeLabels, pointsAlong, type LabelCandidate, type LabelPlacement } from './layout.ts';
 import { legendEntriesOf } from './legendEntries.ts';
 import { axisX, axisY, plotFrame } from './marks/axis.ts';
 import { BAND_DASHES, bandArea } from './marks/bandArea.ts';
@@ -349,10 +349,11 @@ function curveLabel(id: string, label: string, colour: string, strokes: Float64A
   const anchors = pointsAlong(line, count);
   const middle = (count - 1) / 2;
   // Prefer the middle of the curve a little (its ends crowd into pickups and the sheet's edges), and a label close to it.
-  const candidates = anchors.flatMap((a, k) => [
-    ...candidatesAround(a, width, height, 3, Math.abs(k - middle) * 0.08),
-    ...candidatesAround(a, width, height, 14, 1.5 + Math.abs(k - middle) * 0.08),
-  ]);
+  const candidates: LabelCandidate[] = [];
+  anchors.forEach((a, k) => {
+    candidates.push(...candidatesAround(a, width, height, 3, Math.abs(k - middle) * 0.08));
+    candidates.push(...candidatesAround(a, width, height, 14, 1.5 + Math.abs(k - middle) * 0.08));
+  });
   return {
     id,
     dataId: id,
