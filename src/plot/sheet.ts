@@ -313,7 +313,7 @@ function drawPlot(
 
   const currentTitle = `Current in amperes at ${formatVolts(input.referenceVolts)}`;
   const layers: Layer[] = [
-    { name: 'grid', items: [...gridX(scales, {}), ...gridY(scales, {})] },
+    { name: 'grid', items: gridAndAxesOf(scales, fontSize, currentTitle).grid },
     { name: 'band-fills', items: fills },
     { name: 'regions', items: regionItems },
     { name: 'half-cycle', items: halfCycle },
@@ -321,13 +321,7 @@ function drawPlot(
     { name: 'fault-lines', items: faultItems },
     { name: 'markers', items: markerItems },
     { name: 'frame', items: [plotFrame(scales)] },
-    {
-      name: 'axes',
-      items: [
-        ...axisX(scales, { title: currentTitle, fontSize }),
-        ...axisY(scales, { title: 'Time in seconds', fontSize }),
-      ],
-    },
+    { name: 'axes', items: gridAndAxesOf(scales, fontSize, currentTitle).axes },
     { name: 'labels', items: labelLayer },
   ];
   return {
@@ -364,6 +358,31 @@ function curveLabel(id: string, label: string, colour: string, strokes: Float64A
     anchor: anchors[Math.floor(anchors.length / 2)] ?? [0, 0],
     candidates,
   };
+}
+
+/**
+ * The grid and axes of the last few sheets' scales. An edit draws its sheet again at the same scales,
+ * and these were a sixth of drawing it. The items are shared by the sheets drawn at those scales,
+ * read-only as every primitive of a sheet is.
+ */
+const gridsAndAxes = new Map<string, { grid: Primitive[]; axes: Primitive[] }>();
+const GRIDS_KEPT = 8;
+
+function gridAndAxesOf(scales: SheetScales, fontSize: number, currentTitle: string) {
+  const key = `${scales.x.domain}|${scales.x.range}|${scales.y.domain}|${scales.y.range}|${fontSize}|${currentTitle}`;
+  let marks = gridsAndAxes.get(key);
+  if (!marks) {
+    marks = {
+      grid: [...gridX(scales, {}), ...gridY(scales, {})],
+      axes: [
+        ...axisX(scales, { title: currentTitle, fontSize }),
+        ...axisY(scales, { title: 'Time in seconds', fontSize }),
+      ],
+    };
+    if (gridsAndAxes.size >= GRIDS_KEPT) gridsAndAxes.delete(gridsAndAxes.keys().next().value!);
+    gridsAndAxes.set(key, marks);
+  }
+  return marks;
 }
 
 // Accepts one unrotated line of text; the box its glyphs take.
