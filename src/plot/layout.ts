@@ -69,7 +69,8 @@ export function placeLabels(
 ): { placed: LabelPlacement[]; unplaced: string[] } {
   const { bounds, obstacles = [], lines = [], lineOwners = [], lineCost = 4, gap = 1, searchStep = 6 } = options;
   const { nearGap = 6, nearCost = 1, searchRadius = 240, searchLimit = 40 } = options;
-  const segments = new SegmentIndex(lines, lineOwners, CELL);
+  // Every box counted lies inside the bounds, grown by `nearGap` for the near count; a cell more to spare.
+  const segments = new SegmentIndex(lines, lineOwners, CELL, grow(bounds, nearGap + CELL));
   const taken = new BoxIndex(CELL);
   for (const o of obstacles) taken.add(o);
   const placed: LabelPlacement[] = [];
@@ -212,11 +213,13 @@ function nearestPoint([x, y]: [number, number], box: Box): [number, number] {
   return [Math.min(Math.max(x, box.x), box.x + box.width), Math.min(Math.max(y, box.y), box.y + box.height)];
 }
 
-// Accepts curve lines and their owners; answers how many segments touch a box, through a grid of cells.
-// A layout asks this of every candidate box of every label (a sheet's curve label has 192), so the
-// loops below call no function per cell and allocate nothing per query.
+// Accepts curve lines and their owners; answers how many segments touch a box, through a grid of cells
+// over `area`, which every box asked about lies within (segments outside it are never counted). A
+// layout asks this of every candidate box of every label (a sheet's curve label has 192), so the loops
+// below call no function per cell and allocate nothing per query.
 class SegmentIndex {
-  readonly #cells = new Map<number, number[]>();
+  /** Each cell's segments, row by row over the area. */
+  readonly #cells: (number[] | undefined)[];
   readonly #owners: (string | undefined)[];
   /** Each segment's line, and its end points (x0, y0, x1, y1) four apart. */
   readonly #segLine: Int32Array;
@@ -225,16 +228,25 @@ class SegmentIndex {
   readonly #seen: Int32Array;
   #query = 0;
   readonly #cell: number;
+  /** The area's first and last column and row of cells. */
+  readonly #columns: [number, number];
+  readonly #rows: [number, number];
 
-  constructor(lines: Float64Array[], owners: (string | undefined)[], cell: number) {
+  constructor(lines: Float64Array[], owners: (string | undefined)[], cell: number, area: Box) {
     this.#owners = owners;
     this.#cell = cell;
+    const [firstColumn, lastColumn] = (this.#columns = [
+      Math.floor(area.x / cell),
+      Math.floor((area.x + area.width) / cell),
+    ]);
+    const [firstRow, lastRow] = (this.#rows = [Math.floor(area.y / cell), Math.floor((area.y + area.height) / cell)]);
+    const width = lastColumn - firstColumn + 1;
+    const cells = (this.#cells = new Array<number[] | undefined>(width * (lastRow - firstRow + 1)));
     let segments = 0;
     for (const line of lines) segments += Math.max(0, (line.length >> 1) - 1);
     const segLine = (this.#segLine = new Int32Array(segments));
     const ends = (this.#ends = new Float64Array(4 * segments));
     this.#seen = new Int32Array(segments);
-    const cells = this.#cells;
     let id = 0;
     lines.forEach((line, l) => {
       for (let i = 0; i + 3 < line.length; i += 2, id++) {
@@ -248,16 +260,16 @@ class SegmentIndex {
         ends[4 * id + 2] = bx;
         ends[4 * id + 3] = by;
         if (!(Number.isFinite(ax) && Number.isFinite(ay) && Number.isFinite(bx) && Number.isFinite(by))) continue;
-        const c0 = Math.floor(Math.min(ax, bx) / cell);
-        const c1 = Math.floor(Math.max(ax, bx) / cell);
-        const r0 = Math.floor(Math.min(ay, by) / cell);
-        const r1 = Math.floor(Math.max(ay, by) / cell);
+        const c0 = Math.max(firstColumn, Math.floor(Math.min(ax, bx) / cell));
+        const c1 = Math.min(lastColumn, Math.floor(Math.max(ax, bx) / cell));
+        const r0 = Math.max(firstRow, Math.floor(Math.min(ay, by) / cell));
+        const r1 = Math.min(lastRow, Math.floor(Math.max(ay, by) / cell));
         for (let r = r0; r <= r1; r++)
           for (let c = c0; c <= c1; c++) {
-            const key = cellKey(r, c);
-            const list = cells.get(key);
+            const at = (r - firstRow) * width + (c - firstColumn);
+            const list = cells[at];
             if (list) list.push(id);
-            else cells.set(key, [id]);
+            else cells[at] = [id];
           }
       }
     });
@@ -273,14 +285,17 @@ class SegmentIndex {
     const seen = this.#seen;
     const ends = this.#ends;
     const cell = this.#cell;
-    const c0 = Math.floor(box.x / cell);
-    const c1 = Math.floor((box.x + box.width) / cell);
-    const r0 = Math.floor(box.y / cell);
-    const r1 = Math.floor((box.y + box.height) / cell);
+    const [firstColumn, lastColumn] = this.#columns;
+    const [firstRow, lastRow] = this.#rows;
+    const width = lastColumn - firstColumn + 1;
+    const c0 = Math.max(firstColumn, Math.floor(box.x / cell));
+    const c1 = Math.min(lastColumn, Math.floor((box.x + box.width) / cell));
+    const r0 = Math.max(firstRow, Math.floor(box.y / cell));
+    const r1 = Math.min(lastRow, Math.floor((box.y + box.height) / cell));
     let count = 0;
     for (let r = r0; r <= r1; r++)
       for (let c = c0; c <= c1; c++) {
-        const list = cells.get(cellKey(r, c));
+        const list = cells[(r - firstRow) * width + (c - firstColumn)];
         if (list === undefined) continue;
         for (let k = 0; k < list.length; k++) {
           if (count > limit) return count;
