@@ -1,5 +1,6 @@
 import { significant } from '../engine/quantity/format.ts';
 import type { Analysis } from '../engine/analysis.ts';
+import type { Finding } from '../engine/checks/finding.ts';
 import { fastestOf, groundFaultBandOf, scaleBand, type Band } from '../engine/band.ts';
 import { CAUTION } from '../engine/caution.ts';
 import { longTimeRampBasis } from '../engine/devices/index.ts';
@@ -21,6 +22,37 @@ import type {
   SheetStarting,
   SheetWithstand,
 } from './sheetInput.ts';
+
+/** A finding that may be hatched on a sheet, and its place in the study's findings. */
+type Hatchable = { at: number; finding: Finding };
+
+/**
+ * The coordination findings a sheet may hatch (a current range and a status other than selective), by
+ * their first subject (the upstream device; "" for none), for each list of findings. The workbench
+ * draws its sheet again at every edit with the findings last received, and a report draws every view
+ * with one list: each list is gone through once, not at every drawing (a large study has thousands).
+ */
+const hatchableByList = new WeakMap<readonly Finding[], Map<string, Hatchable[]>>();
+
+/** The findings of `findings` a sheet of the devices `shown` may hatch, in their order. */
+function hatchableOnSheet(findings: readonly Finding[], shown: ReadonlySet<string>): Finding[] {
+  let byUpstream = hatchableByList.get(findings);
+  if (!byUpstream) {
+    byUpstream = new Map();
+    findings.forEach((finding, at) => {
+      if (finding.kind !== 'coordination' || !finding.range || !finding.status || finding.status === 'selective')
+        return;
+      const upstream = finding.subjects[0] ?? '';
+      let list = byUpstream!.get(upstream);
+      if (!list) byUpstream!.set(upstream, (list = []));
+      list.push({ at, finding });
+    });
+    hatchableByList.set(findings, byUpstream);
+  }
+  const found = [...(byUpstream.get('') ?? [])];
+  for (const id of shown) if (id !== '') found.push(...(byUpstream.get(id) ?? []));
+  return found.sort((a, b) => a.at - b.at).map(({ finding }) => finding);
+}
 
 /**
  * Gathers what one view of an analysed study draws, all on the view's reference voltage (DEVELOPERS.md, names):
@@ -187,9 +219,8 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   };
   const regions: SheetRegion[] = [];
   const shifted = new Map<string, { shift: number; fault: string }>();
-  for (const f of analysis.findings) {
-    if (f.kind !== 'coordination' || !f.range || !f.status || f.status === 'selective') continue;
-    if (!f.subjects.every((id) => shown.has(id))) continue;
+  for (const f of hatchableOnSheet(analysis.findings, shown)) {
+    if (!f.range || !f.status || f.status === 'selective' || !f.subjects.every((id) => shown.has(id))) continue;
     const fault =
       /:(three-phase|line-to-line|ground-fault|single-phase|line-to-neutral):\d+(?:@[^:]+)?$/.exec(f.id)?.[1] ??
       'three-phase';
