@@ -45,8 +45,9 @@ function accessorOf(key: string): PropertyDescriptor {
       get(this: object) {
         const state = LazyFields.of(this);
         const value = state[key];
-        // A builder is the only function held; a built value (text, work steps) never is one.
-        return typeof value === 'function' ? (state[key] = (value as () => unknown)()) : value;
+        // A builder is the only function held; a built value (text, work steps) never is one. It is
+        // given the object, so one builder can serve many objects (each keeps its own value).
+        return typeof value === 'function' ? (state[key] = (value as (target: object) => unknown)(this)) : value;
       },
       set(this: object, value: unknown) {
         LazyFields.of(this)[key] = value;
@@ -58,7 +59,8 @@ function accessorOf(key: string): PropertyDescriptor {
 }
 
 /**
- * Makes fields of `result` lazy: each is built by its builder the first time it is read, then kept.
+ * Makes fields of `result` lazy: each is built by its builder, given `result`, the first time it is
+ * read, then kept.
  * A field already in `result` keeps its place in the key order; a new one is added last. Leave a lazy
  * field out of `result` where its place allows: turning a field that is there into an accessor turns
  * the whole object into a slow dictionary (several times the memory). The fields stay enumerable, so
@@ -67,7 +69,7 @@ function accessorOf(key: string): PropertyDescriptor {
  *
  * @example withLazyFields(bus, { work: () => stepsOf(bus) }) // bus.work is built on first read
  */
-export function withLazyFields<T extends object, B extends Record<string, () => unknown>>(
+export function withLazyFields<T extends object, B extends Record<string, (target: T) => unknown>>(
   result: T,
   builders: B,
 ): T & { [K in keyof B]: ReturnType<B[K]> } {
@@ -89,9 +91,9 @@ export function withLazyFields<T extends object, B extends Record<string, () => 
  */
 export function withLazyText<T extends object>(
   result: Partial<T>,
-  builders: { [K in keyof NoInfer<T>]?: () => string },
+  builders: { [K in keyof NoInfer<T>]?: (target: NoInfer<T>) => string },
   after?: NoInfer<Partial<T>>,
 ): T {
-  withLazyFields(result, builders as Record<string, () => string>);
+  withLazyFields(result, builders as Record<string, (target: Partial<T>) => string>);
   return (after ? Object.assign(result, after) : result) as T;
 }

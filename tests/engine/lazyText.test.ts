@@ -35,6 +35,14 @@ describe('withLazyText', () => {
     expect(first.explanation).toBe('edited');
     expect(second.explanation).toBe('built');
   });
+
+  it('gives a builder the object it builds for, so one builder serves many findings', () => {
+    type Titled = { title: string; explanation: string };
+    const explanation = (finding: Titled) => `${finding.title}: the upstream device may open first.`;
+    const [a, b] = ['MAIN over F1', 'MAIN over F2'].map((title) => withLazyText<Titled>({ title }, { explanation }));
+    expect(b.explanation).toBe('MAIN over F2: the upstream device may open first.');
+    expect(a.explanation).toBe('MAIN over F1: the upstream device may open first.');
+  });
 });
 
 describe('withLazyFields', () => {

@@ -160,8 +160,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
   for (const pairCase of check.cases) {
     const faultText = FAULT_TEXT[pairCase.fault];
     let shifts: Map<number, number> | undefined;
-    // A loop, not a callback: the callback's context (with `findings`) would be kept by every
-    // finding's lazy sentences.
+    let sentences: ReturnType<typeof caseSentences> | undefined;
     for (let index = 0; index < pairCase.intervals.length; index++) {
       const interval = pairCase.intervals[index];
       if (interval.status === 'selective' || isSliver(interval)) continue;
@@ -170,6 +169,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       const { worst } = interval;
       // The sentences are written when first read (a large study's findings are seldom all read); they
       // are added in their place in the key order, after `worst`, so every finding has the same shape.
+      sentences ??= caseSentences(up, down, check.rule, pairCase.fault, faultText);
       const finding = withLazyText<Finding>(
         {
           id: `coordination:${check.upstream}/${check.downstream}:${pairCase.fault}:${index}`,
@@ -181,13 +181,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
           range,
           worst,
         },
-        {
-          explanation: () => explain(interval, up, down, describeRange(range), check.rule, faultText),
-          suggestion: () =>
-            pairCase.fault === 'ground-fault'
-              ? suggestGround(interval, up, down)
-              : suggest(interval, up, down, check.rule),
-        },
+        { explanation: sentences.explanation, suggestion: sentences.suggestion },
         { basis: check.rule.basis, referenceVolts: pairCase.referenceVolts },
       );
       findings.push(finding);
@@ -227,6 +221,28 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
   return findings;
 }
 
+/** What a finding's sentences read of its interval: the status, the worst point and where it ends. */
+type IntervalFacts = Pick<OverlapInterval, 'status' | 'worst' | 'toAmps'>;
+
+/**
+ * The sentence builders of one case's findings, each writing from the finding it is given (its status,
+ * worst point and range, the interval's own): two closures per case, where one pair per finding, with
+ * the interval they held, was a tenth of what an analysis keeps.
+ */
+function caseSentences(up: string, down: string, rule: MarginRule, fault: PairCase['fault'], faultText: string) {
+  const factsOf = (finding: Finding): IntervalFacts => ({
+    status: finding.status!,
+    worst: finding.worst!,
+    toAmps: finding.range!.toAmps,
+  });
+  return {
+    explanation: (finding: Finding) =>
+      explain(factsOf(finding), up, down, describeRange(finding.range!), rule, faultText),
+    suggestion: (finding: Finding) =>
+      fault === 'ground-fault' ? suggestGround(factsOf(finding), up, down) : suggest(factsOf(finding), up, down, rule),
+  };
+}
+
 /**
  * A thin-margin interval narrower than 1 % in current is the crossing of a steep curve through the
  * thin band on its way into or out of an overlap; it is reported with that overlap, not on its own.
@@ -236,7 +252,7 @@ function isSliver(interval: OverlapInterval): boolean {
 }
 
 function explain(
-  interval: OverlapInterval,
+  interval: IntervalFacts,
   up: string,
   down: string,
   where: string,
@@ -260,7 +276,7 @@ function explain(
   }
 }
 
-function suggest(interval: OverlapInterval, up: string, down: string, rule: MarginRule): string {
+function suggest(interval: IntervalFacts, up: string, down: string, rule: MarginRule): string {
   const { worst } = interval;
   if (interval.status === 'not provable from curves') {
     return `Confirm with the manufacturers' tested selectivity tables for ${up} above ${down}, or compare let-through and melting I²t.`;
@@ -276,7 +292,7 @@ function suggest(interval: OverlapInterval, up: string, down: string, rule: Marg
 }
 
 // A ground-fault element has a pickup and a delay band (with I²t in or out), nothing more: propose only those.
-function suggestGround(interval: OverlapInterval, up: string, down: string): string {
+function suggestGround(interval: IntervalFacts, up: string, down: string): string {
   const { worst } = interval;
   if (interval.status === 'not provable from curves')
     return `Confirm with tested selectivity data for ground faults between ${up} and ${down}, or give ${up}'s ground-fault element a longer delay band.`;
