@@ -106,13 +106,15 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
   }
   const name = motor.name ?? motor.id;
   const lraText = `${significant(lockedRotorAmps, 4)} A`;
+  // Written once for both labels (and the notes): a study has thousands of motors.
+  const accelerationText = `${significant(accelerationTime, 3)} s`;
   return {
     fullLoadAmps,
     // The notes are written when first read: a large study has thousands of motors, seldom all opened.
     curve: withLazyFields(
       {
         elementId: motor.id,
-        label: `${name} starting: LRA ${lraText} for ${significant(accelerationTime, 3)} s`,
+        label: `${name} starting: LRA ${lraText} for ${accelerationText}`,
         volts,
         // Read by index, not destructured: a study has thousands of motors.
         amps,
@@ -129,13 +131,13 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
             : `LRA ${lraText} given`,
           `asymmetrical first-cycle current ${asymmetryFactor} × LRA = ${significant(asymmetricalAmps, 4)} A from ` +
             `${STARTING_TIMES.halfCycle} s to ${asymmetricalUntil} s (common practice: 1.5–1.7 × LRA)`,
-          `acceleration time ${significant(accelerationTime, 3)} s, then the running current up to ${longestSeconds} s (common practice)`,
+          `acceleration time ${accelerationText}, then the running current up to ${longestSeconds} s (common practice)`,
         ],
       },
     ),
     lockedRotor: {
       kind: 'locked-rotor',
-      label: `${name} locked rotor ${lraText} for ${significant(accelerationTime, 3)} s`,
+      label: `${name} locked rotor ${lraText} for ${accelerationText}`,
       volts,
       amps: lockedRotorAmps,
       seconds: accelerationTime,
