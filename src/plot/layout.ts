@@ -288,10 +288,11 @@ class SegmentIndex {
     const [firstColumn, lastColumn] = this.#columns;
     const [firstRow, lastRow] = this.#rows;
     const width = lastColumn - firstColumn + 1;
-    const c0 = Math.max(firstColumn, Math.floor(box.x / cell));
-    const c1 = Math.min(lastColumn, Math.floor((box.x + box.width) / cell));
-    const r0 = Math.max(firstRow, Math.floor(box.y / cell));
-    const r1 = Math.min(lastRow, Math.floor((box.y + box.height) / cell));
+    const span = cellsTouched(box, cell);
+    const c0 = Math.max(firstColumn, span[0]);
+    const c1 = Math.min(lastColumn, span[1]);
+    const r0 = Math.max(firstRow, span[2]);
+    const r1 = Math.min(lastRow, span[3]);
     let count = 0;
     for (let r = r0; r <= r1; r++)
       for (let c = c0; c <= c1; c++) {
@@ -322,11 +323,11 @@ class BoxIndex {
     this.#cell = cell;
   }
   add(box: Box): void {
-    const cell = this.#cell;
-    const c0 = Math.floor(box.x / cell);
-    const c1 = Math.floor((box.x + box.width) / cell);
-    const r0 = Math.floor(box.y / cell);
-    const r1 = Math.floor((box.y + box.height) / cell);
+    const span = cellsTouched(box, this.#cell);
+    const c0 = span[0];
+    const c1 = span[1];
+    const r0 = span[2];
+    const r1 = span[3];
     for (let r = r0; r <= r1; r++)
       for (let c = c0; c <= c1; c++) {
         const key = cellKey(r, c);
@@ -336,11 +337,11 @@ class BoxIndex {
       }
   }
   overlaps(box: Box): boolean {
-    const cell = this.#cell;
-    const c0 = Math.floor(box.x / cell);
-    const c1 = Math.floor((box.x + box.width) / cell);
-    const r0 = Math.floor(box.y / cell);
-    const r1 = Math.floor((box.y + box.height) / cell);
+    const span = cellsTouched(box, this.#cell);
+    const c0 = span[0];
+    const c1 = span[1];
+    const r0 = span[2];
+    const r1 = span[3];
     for (let r = r0; r <= r1; r++)
       for (let c = c0; c <= c1; c++) {
         const list = this.#cells.get(cellKey(r, c));
@@ -349,6 +350,19 @@ class BoxIndex {
       }
     return false;
   }
+}
+
+/** The first and last column and row of the cells a box touches, as `cellsTouched` last wrote them. */
+const touched = new Float64Array(4);
+
+// Accepts a box and the cells' side; the first and last column and row of the cells it touches, in a
+// scratch array the next call overwrites (a layout asks this of every candidate box).
+function cellsTouched(box: Box, cell: number): Float64Array {
+  touched[0] = Math.floor(box.x / cell);
+  touched[1] = Math.floor((box.x + box.width) / cell);
+  touched[2] = Math.floor(box.y / cell);
+  touched[3] = Math.floor((box.y + box.height) / cell);
+  return touched;
 }
 
 // Accepts a grid cell's row and column; its key in a cell map.
