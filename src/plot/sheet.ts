@@ -312,8 +312,9 @@ function drawPlot(
   const labelLayer = placed.flatMap((p) => labelItems(byId.get(p.id)!, p, {}));
 
   const currentTitle = `Current in amperes at ${formatVolts(input.referenceVolts)}`;
+  const { grid, axes } = gridAndAxesOf(scales, fontSize, currentTitle);
   const layers: Layer[] = [
-    { name: 'grid', items: gridAndAxesOf(scales, fontSize, currentTitle).grid },
+    { name: 'grid', items: grid },
     { name: 'band-fills', items: fills },
     { name: 'regions', items: regionItems },
     { name: 'half-cycle', items: halfCycle },
@@ -321,7 +322,7 @@ function drawPlot(
     { name: 'fault-lines', items: faultItems },
     { name: 'markers', items: markerItems },
     { name: 'frame', items: [plotFrame(scales)] },
-    { name: 'axes', items: gridAndAxesOf(scales, fontSize, currentTitle).axes },
+    { name: 'axes', items: axes },
     { name: 'labels', items: labelLayer },
   ];
   return {
