@@ -48,6 +48,20 @@ describe('viewInputOf', () => {
     expect(regions.map((r) => r.status)).toContain('overlap');
   });
 
+  it('hatches the findings it is given, in their order, when the same study is drawn again with other findings', () => {
+    const analysis = analysed('overlap');
+    const all = viewInputOf(analysis, 'service').regions.map((r) => r.findingId);
+    expect(all.length).toBeGreaterThan(1);
+    // The workbench draws again with the findings of the latest run: here, all but the first one hatched.
+    const fewer = analysis.findings.filter((f) => f.id !== all[0]);
+    expect(viewInputOf({ ...analysis, findings: fewer }, 'service').regions.map((r) => r.findingId)).toEqual(
+      all.slice(1),
+    );
+    expect(viewInputOf(analysis, 'service').regions.map((r) => r.findingId)).toEqual(all);
+    const order = new Map(analysis.findings.map((f, i) => [f.id, i]));
+    expect(all.map((id) => order.get(id)!)).toEqual([...all.map((id) => order.get(id)!)].sort((a, b) => a - b));
+  });
+
   it('rejects an unknown view, listing the views', () => {
     expect(() => viewInputOf(analysed('selective'), 'nowhere')).toThrow(
       /no view "nowhere" in the study \(views: service, primary, office, emergency\)/,
