@@ -23,25 +23,31 @@ import type {
   SheetWithstand,
 } from './sheetInput.ts';
 
-/** A finding that may be hatched on a sheet, and its place in the study's findings. */
-type Hatchable = { at: number; finding: Finding };
+/** A coordination finding a sheet may hatch: it has a current range and a status other than selective. */
+type Hatchable = Finding & {
+  range: NonNullable<Finding['range']>;
+  status: Exclude<Finding['status'], 'selective' | undefined>;
+};
+
+function isHatchable(finding: Finding): finding is Hatchable {
+  return finding.kind === 'coordination' && !!finding.range && !!finding.status && finding.status !== 'selective';
+}
 
 /**
- * The coordination findings a sheet may hatch (a current range and a status other than selective), by
- * their first subject (the upstream device; "" for none), for each list of findings. The workbench
- * draws its sheet again at every edit with the findings last received, and a report draws every view
- * with one list: each list is gone through once, not at every drawing (a large study has thousands).
+ * The findings a sheet may hatch, with their places in the list, by their first subject (the upstream
+ * device; "" for none), for each list of findings. The workbench draws its sheet again at every edit
+ * with the findings last received, and a report draws every view with one list: each list is gone
+ * through once, not at every drawing (a large study has thousands).
  */
-const hatchableByList = new WeakMap<readonly Finding[], Map<string, Hatchable[]>>();
+const hatchableByList = new WeakMap<readonly Finding[], Map<string, { at: number; finding: Hatchable }[]>>();
 
 /** The findings of `findings` a sheet of the devices `shown` may hatch, in their order. */
-function hatchableOnSheet(findings: readonly Finding[], shown: ReadonlySet<string>): Finding[] {
+function hatchableOnSheet(findings: readonly Finding[], shown: ReadonlySet<string>): Hatchable[] {
   let byUpstream = hatchableByList.get(findings);
   if (!byUpstream) {
     byUpstream = new Map();
     findings.forEach((finding, at) => {
-      if (finding.kind !== 'coordination' || !finding.range || !finding.status || finding.status === 'selective')
-        return;
+      if (!isHatchable(finding)) return;
       const upstream = finding.subjects[0] ?? '';
       let list = byUpstream!.get(upstream);
       if (!list) byUpstream!.set(upstream, (list = []));
@@ -220,7 +226,7 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   const regions: SheetRegion[] = [];
   const shifted = new Map<string, { shift: number; fault: string }>();
   for (const f of hatchableOnSheet(analysis.findings, shown)) {
-    if (!f.range || !f.status || f.status === 'selective' || !f.subjects.every((id) => shown.has(id))) continue;
+    if (!f.subjects.every((id) => shown.has(id))) continue;
     const fault =
       /:(three-phase|line-to-line|ground-fault|single-phase|line-to-neutral):\d+(?:@[^:]+)?$/.exec(f.id)?.[1] ??
       'three-phase';
