@@ -117,7 +117,8 @@ export function faultLevelsOf(network: Network): FaultLevels {
   const source = study.source;
   const { max: maxLevel, min: minLevel, minPath } = sourceLevelsOf(source);
   const max = faultTreeOf(network, { kind: 'max', level: maxLevel, motors: true, temperature: 75, toleranced: true });
-  const bare = faultTreeOf(network, { kind: 'max', level: maxLevel, motors: false, temperature: 75, toleranced: true });
+  // The maximum fault without motors, for the motors' share: the same elements as `max`, taken from it.
+  const bare = faultTreeOf(network, { ...max.condition, motors: false }, max);
   const min = faultTreeOf(network, {
     kind: 'min',
     level: minLevel,

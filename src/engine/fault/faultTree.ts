@@ -30,6 +30,8 @@ export interface FaultCondition {
  * bus with the branch's own subtree removed.
  */
 export interface FaultTree {
+  /** The condition the tree was reduced for. */
+  condition: FaultCondition;
   order: string[];
   toward: Map<string, Impedance>;
   below: Map<string, Impedance | undefined>;
@@ -45,52 +47,29 @@ export interface FaultTree {
 /**
  * Reduces the radial tree for one condition in two passes (a Thevenin reduction): leaves to source,
  * gathering motor branches; then source to leaves, putting each bus's source path in parallel with
- * the motor branches hanging elsewhere. Linear in the number of elements.
+ * the motor branches hanging elsewhere. Linear in the number of elements. `elementsFrom`, a tree
+ * reduced with the same source level, conductor temperature and tolerance, lends its element
+ * impedances and their steps (the maximum fault without motors takes those of the maximum fault).
  *
  * @example faultTreeOf(network, { kind: 'max', level: study.source.max, motors: true, temperature: 75, toleranced: true }).toward.get('SWBD')
  */
-export function faultTreeOf(network: Network, condition: FaultCondition): FaultTree {
+export function faultTreeOf(network: Network, condition: FaultCondition, elementsFrom?: FaultTree): FaultTree {
   const { study } = network;
   const volts = (busId: string) => network.buses.get(busId)!.voltage;
   const steps = new Map<string, { readonly steps: WorkStep[] }>();
   const branchZ = new Map<string, Impedance>();
   const motorZ = new Map<string, Impedance>();
 
-  // Element impedances for this condition.
+  // Element impedances for this condition: taken from a tree with the same source, conductor
+  // temperature and tolerance where one is given (the maximum fault without motors), else computed.
   const root = study.source.bus;
-  if (condition.level) {
-    const source = sourceImpedanceOf(condition.level, volts(root), sourceLevelsOf(study.source).label);
-    steps.set(study.source.id, source);
-    branchZ.set(study.source.id, source.z);
+  if (elementsFrom && sameElements(elementsFrom.condition, condition)) {
+    for (const [id, z] of elementsFrom.branchZ) {
+      branchZ.set(id, z);
+      steps.set(id, elementsFrom.steps.get(id)!);
+    }
   } else {
-    branchZ.set(study.source.id, ZERO_IMPEDANCE);
-    steps.set(study.source.id, {
-      steps: [{ label: 'infinite source', formula: 'Z_U = 0', substituted: 'Z_U = 0', value: 0, unit: 'Ω' }],
-    });
-  }
-  study.cables.forEach((cable, i) => {
-    const result = cableImpedanceOf(cable, { temperature: condition.temperature, path: `study.cables[${i}]` });
-    branchZ.set(cable.id, result.z);
-    steps.set(cable.id, result);
-  });
-  for (const link of closedSwitchLinks(study.switches)) {
-    branchZ.set(link.id, ZERO_IMPEDANCE);
-    steps.set(link.id, {
-      steps: [
-        {
-          label: `${link.id}: closed switch from ${link.from} to ${link.to}, no impedance`,
-          formula: 'Z = 0',
-          substituted: 'Z = 0',
-          value: 0,
-          unit: 'Ω',
-        },
-      ],
-    });
-  }
-  for (const t of study.transformers) {
-    const result = transformerImpedanceOf(t, { toleranced: condition.toleranced });
-    branchZ.set(t.id, result.z);
-    steps.set(t.id, result);
+    elementImpedances(network, condition, branchZ, steps);
   }
   if (condition.motors)
     for (const motor of study.motors) {
@@ -143,7 +122,61 @@ export function faultTreeOf(network: Network, condition: FaultCondition): FaultT
       );
     }
   }
-  return { order, toward, below, behind, branchZ, steps, motorZ };
+  return { condition, order, toward, below, behind, branchZ, steps, motorZ };
+}
+
+/** The source's, cables', closed links' and transformers' own impedances for a condition, with their steps. */
+function elementImpedances(
+  network: Network,
+  condition: FaultCondition,
+  branchZ: Map<string, Impedance>,
+  steps: Map<string, { readonly steps: WorkStep[] }>,
+): void {
+  const { study } = network;
+  const root = study.source.bus;
+  if (condition.level) {
+    const source = sourceImpedanceOf(
+      condition.level,
+      network.buses.get(root)!.voltage,
+      sourceLevelsOf(study.source).label,
+    );
+    steps.set(study.source.id, source);
+    branchZ.set(study.source.id, source.z);
+  } else {
+    branchZ.set(study.source.id, ZERO_IMPEDANCE);
+    steps.set(study.source.id, {
+      steps: [{ label: 'infinite source', formula: 'Z_U = 0', substituted: 'Z_U = 0', value: 0, unit: 'Ω' }],
+    });
+  }
+  study.cables.forEach((cable, i) => {
+    const result = cableImpedanceOf(cable, { temperature: condition.temperature, path: `study.cables[${i}]` });
+    branchZ.set(cable.id, result.z);
+    steps.set(cable.id, result);
+  });
+  for (const link of closedSwitchLinks(study.switches)) {
+    branchZ.set(link.id, ZERO_IMPEDANCE);
+    steps.set(link.id, {
+      steps: [
+        {
+          label: `${link.id}: closed switch from ${link.from} to ${link.to}, no impedance`,
+          formula: 'Z = 0',
+          substituted: 'Z = 0',
+          value: 0,
+          unit: 'Ω',
+        },
+      ],
+    });
+  }
+  for (const t of study.transformers) {
+    const result = transformerImpedanceOf(t, { toleranced: condition.toleranced });
+    branchZ.set(t.id, result.z);
+    steps.set(t.id, result);
+  }
+}
+
+/** Whether two conditions give every element but the motors the same impedance. */
+function sameElements(a: FaultCondition, b: FaultCondition): boolean {
+  return a.level === b.level && a.temperature === b.temperature && a.toleranced === b.toleranced;
 }
 
 /** A branch's series impedance plus what hangs below it, referred to the branch's `from` bus. */

@@ -122,4 +122,22 @@ describe('faultTreeOf', () => {
       { numRuns: 60 },
     );
   });
+
+  it('takes the element impedances of a tree with the same source, temperature and tolerance, and no others', () => {
+    const s = study(case72Input());
+    const network = networkOf(s);
+    const level = s.source.kind === 'utility' ? s.source.max : undefined;
+    const max = faultTreeOf(network, { kind: 'max', level, motors: true, temperature: 75, toleranced: true });
+    const withoutMotors = { ...max.condition, motors: false };
+    const taken = faultTreeOf(network, withoutMotors, max);
+    const computed = faultTreeOf(network, withoutMotors);
+    expect(taken.toward).toEqual(computed.toward);
+    expect(taken.below).toEqual(computed.below);
+    expect(taken.branchZ).toEqual(computed.branchZ);
+    expect([...taken.steps.keys()]).toEqual([...computed.steps.keys()]);
+    expect(taken.branchZ.get('C')).toBe(max.branchZ.get('C'));
+    // At 90 °C the cables' resistance differs, so nothing is taken from the 75 °C tree.
+    const hot = faultTreeOf(network, { ...withoutMotors, temperature: 90 }, max);
+    expect(hot.branchZ.get('C')!.r).toBeGreaterThan(max.branchZ.get('C')!.r);
+  });
 });
