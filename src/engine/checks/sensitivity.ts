@@ -138,8 +138,9 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   const location = locationBusOf(network, device);
   const cases = sensitivityCasesOf(context, device, settings);
   if (cases.length === 0) return [];
-  // The sentences and the basis are written when first read (a large study has thousands of devices);
-  // the helpers they call are module functions, so a finding keeps only what its sentences read.
+  // The sentences are written when first read (a large study has thousands of devices); the helpers
+  // they call are module functions, so a finding keeps only what its sentences read. The basis is one
+  // line per study, shared.
   const rangeFor = (c: SensitivityCase) =>
     rangeOf(c.deviceAmps, c.deviceAmps, location.voltage, [network.buses.get(c.busId)!.voltage]);
   // A relative 1e-9 keeps a clearing time equal to the limit from failing on rounding.
@@ -159,9 +160,8 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
         {
           explanation: () =>
             `${cases.map((c) => `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
-          basis: () => basisOf(settings),
         },
-        { referenceVolts: location.voltage },
+        { basis: basisOf(settings), referenceVolts: location.voltage },
       ),
     ];
   }
@@ -184,9 +184,8 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
             ? `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
             : `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
         suggestion: () => remedyOf(device, c, settings.maxTime),
-        basis: () => basisOf(settings),
       },
-      { referenceVolts: location.voltage },
+      { basis: basisOf(settings), referenceVolts: location.voltage },
     );
   });
 }
@@ -200,6 +199,15 @@ function faultNameOf(context: CheckContext, c: SensitivityCase): string {
 
 /** The finding's basis line: the minimum-fault assumptions and the time allowed. */
 function basisOf(settings: SensitivitySettings): string {
+  let basis = bases.get(settings);
+  if (basis === undefined) bases.set(settings, (basis = basisText(settings)));
+  return basis;
+}
+
+/** Each study's basis, written once: it is the same for every device the check looks at. */
+const bases = new WeakMap<SensitivitySettings, string>();
+
+function basisText(settings: SensitivitySettings): string {
   const arcing =
     settings.arcingFactor === undefined
       ? 'bolted faults'
