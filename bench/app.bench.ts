@@ -216,9 +216,13 @@ export const benchmarks: Benchmark[] = [
     unit: 'ms',
     target: 50,
     async run() {
-      const { longTasks } = (await measure()).studies[1];
+      const { studies } = await measure();
+      const { longTasks } = studies[1];
       const longest = Math.max(0, ...longTasks);
-      return single(longest, `${longTasks.length} tasks over 50 ms`);
+      // The 2,000-device study is edited in the same page: its long tasks are told too (no target).
+      const large = studies[2].longTasks;
+      const largeText = large.length > 0 ? `longest ${Math.max(...large).toFixed(0)} ms` : 'none';
+      return single(longest, `${longTasks.length} tasks over 50 ms; at 2,000 devices ${large.length} (${largeText})`);
     },
   },
   ...[
