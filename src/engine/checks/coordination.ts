@@ -234,17 +234,17 @@ type IntervalFacts = Pick<OverlapInterval, 'status' | 'worst' | 'toAmps'>;
  * the interval they held, was a tenth of what an analysis keeps.
  */
 function caseSentences(up: string, down: string, rule: MarginRule, fault: PairCase['fault'], faultText: string) {
-  const factsOf = (finding: Finding): IntervalFacts => ({
-    status: finding.status!,
-    worst: finding.worst!,
-    toAmps: finding.range!.toAmps,
-  });
   return {
     explanation: (finding: Finding) =>
       explain(factsOf(finding), up, down, describeRange(finding.range!), rule, faultText),
     suggestion: (finding: Finding) =>
       fault === 'ground-fault' ? suggestGround(factsOf(finding), up, down) : suggest(factsOf(finding), up, down, rule),
   };
+}
+
+/** A finding's interval facts, read from the finding itself. */
+function factsOf(finding: Finding): IntervalFacts {
+  return { status: finding.status!, worst: finding.worst!, toAmps: finding.range!.toAmps };
 }
 
 /**
