@@ -3,10 +3,10 @@ import { cachedFastestOf, cachedGroundBandOf } from '../bandCache.ts';
 import { DELTA_WYE_TABLE, secondaryWindingOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween, type Network } from '../network/index.ts';
 import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
-import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
+import type { Bus, CoordinationSettings, Device, Transformer } from '../study/index.ts';
 import { withLazyText } from '../lazyText.ts';
 import { nameOf, rangeOf, type CheckContext } from './context.ts';
-import type { Finding } from './finding.ts';
+import type { CurrentRange, Finding } from './finding.ts';
 
 /** The sensitivity options of a study (`coordination.sensitivity`). */
 export type SensitivitySettings = CoordinationSettings['sensitivity'];
@@ -140,9 +140,8 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   if (cases.length === 0) return [];
   // The sentences are written when first read (a large study has thousands of devices); the helpers
   // they call are module functions, so a finding keeps only what its sentences read. The basis is one
-  // line per study, shared.
-  const rangeFor = (c: SensitivityCase) =>
-    rangeOf(c.deviceAmps, c.deviceAmps, location.voltage, [network.buses.get(c.busId)!.voltage]);
+  // line per study, shared; a case's range is worked out by a module function too.
+
   // A relative 1e-9 keeps a clearing time equal to the limit from failing on rounding.
   const failing = cases.filter((c) => !(c.clearingTime <= settings.maxTime * (1 + 1e-9)));
   if (failing.length === 0) {
@@ -155,7 +154,7 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
           severity: 'ok',
           title: `${name} sees the minimum faults in its zone`,
           subjects: [device.id],
-          range: rangeFor(slowest),
+          range: caseRange(network, location, slowest),
         },
         {
           explanation: () =>
@@ -176,7 +175,7 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
           ? `${name} may not operate for a minimum ${faultNameOf(context, c)} fault`
           : `${name} is slow for a minimum ${faultNameOf(context, c)} fault`,
         subjects: [device.id],
-        range: rangeFor(c),
+        range: caseRange(network, location, c),
       },
       {
         explanation: () =>
@@ -188,6 +187,11 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
       { basis: basisOf(settings), referenceVolts: location.voltage },
     );
   });
+}
+
+/** Where a case sits on the current axis: the current through the device, also at the faulted bus's voltage. */
+function caseRange(network: Network, location: Bus, c: SensitivityCase): CurrentRange {
+  return rangeOf(c.deviceAmps, c.deviceAmps, location.voltage, [network.buses.get(c.busId)!.voltage]);
 }
 
 /** The fault's name; below a single-phase transformer the faults are the full-winding and line-to-neutral ones. */
