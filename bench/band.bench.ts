@@ -29,7 +29,11 @@ interface ArithmeticFloor {
   loop(amps: Float64Array, minTimes: Float64Array, maxTimes: Float64Array): void;
 }
 
-/** One logarithm and one `expm1` per current (`M^p − 1` of a small exponent), then both edges' formula. */
+/**
+ * One logarithm and one `expm1` per current (`M^p − 1` of a small exponent), then both edges' formula:
+ * the MI row's relay (IEEE C37.112 MI: a = 0.0515 s, b = 0.114 s, p = 0.02) from its lower pickup edge,
+ * 570 A (600 A − 5 %), time dial 3 ∓ 5 %, the upper edge's power taken from the lower one's.
+ */
 const logAndExpm1: ArithmeticFloor = {
   what: 'Math.log and Math.expm1',
   loop(amps, minTimes, maxTimes) {
