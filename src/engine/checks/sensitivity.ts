@@ -138,12 +138,11 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
   const location = locationBusOf(network, device);
   const cases = sensitivityCasesOf(context, device, settings);
   if (cases.length === 0) return [];
-  // The sentences are written when first read (a large study has thousands of devices); the helpers
-  // they call are module functions, so a finding keeps only what its sentences read. The basis is one
-  // line per study, shared; a case's range is worked out by a module function too.
-
   // A relative 1e-9 keeps a clearing time equal to the limit from failing on rounding.
   const failing = cases.filter((c) => !(c.clearingTime <= settings.maxTime * (1 + 1e-9)));
+  // The sentences are written when first read (a large study has thousands of devices); the helpers
+  // they call are module functions, so a finding keeps only what its sentences read. The basis is one
+  // line per study, shared.
   if (failing.length === 0) {
     const slowest = cases.reduce((a, b) => (b.clearingTime > a.clearingTime ? b : a));
     return [
