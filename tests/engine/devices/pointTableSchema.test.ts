@@ -26,6 +26,28 @@ describe('pointTableSchema', () => {
     expect(read[0]).not.toBe(table[0]);
   });
 
+  // A study's breakers and fuses of one kind carry one digitised curve: read once, held once.
+  it('gives back one array for tables equal point for point, and its own for any other', () => {
+    const fuseCurve = () => [
+      [200, 300],
+      [600, 10],
+      [2000, 0.1],
+    ];
+    const first = schema.parse(fuseCurve());
+    const second = schema.parse(fuseCurve());
+    expect(second).toBe(first);
+
+    const lastTimeDiffers = fuseCurve();
+    lastTimeDiffers[2][1] = 0.1 * (1 + 1e-15);
+    const other = schema.parse(lastTimeDiffers);
+    expect(other).not.toBe(first);
+    expect(other).toEqual(lastTimeDiffers);
+
+    const longer = [...fuseCurve(), [5000, 0.01]];
+    expect(schema.parse(longer)).not.toBe(first);
+    expect(schema.parse(fuseCurve())).toBe(first);
+  });
+
   it('answers every table, good or bad, exactly as zod alone does', () => {
     const number = fc.oneof(
       fc.double({ min: 1e-3, max: 2e7, noNaN: true }),
