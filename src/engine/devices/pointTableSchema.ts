@@ -118,8 +118,9 @@ function holdsTable(points: unknown[], table: [number, number][]): boolean {
   for (let i = 0; i < points.length; i++) {
     const point = points[i];
     if (!Array.isArray(point) || point.length !== 2) return false;
-    const [amps, seconds] = table[i];
-    if (!Object.is(point[0], amps) || !Object.is(point[1], seconds)) return false;
+    // Read by index: taking the pair apart by destructuring builds an iterator for every point.
+    const tablePoint = table[i];
+    if (!Object.is(point[0], tablePoint[0]) || !Object.is(point[1], tablePoint[1])) return false;
   }
   return true;
 }
