@@ -1,5 +1,6 @@
 import { expectedGot, InputError } from '../engine/errors.ts';
 import { parsePercent, parseQuantity, type Dimension } from '../engine/quantity/index.ts';
+import { NUMBER_MAGNITUDE } from '../engine/study/parse.ts';
 
 /** The flags a verb accepts: each takes a value (`'value'`) or stands alone (`'switch'`). */
 export type FlagSpec = Readonly<Record<string, 'value' | 'switch'>>;
@@ -83,6 +84,18 @@ export function quantityFlag(text: string, name: string, dimension: Dimension, p
     throw new InputError(`--${name}`, expectedGot(expected, text));
   }
   if (!(value > 0)) throw new InputError(`--${name}`, expectedGot(expected, text));
+  return withinMagnitude(value, name, text);
+}
+
+/**
+ * `value` when it is within the sizes every number of a study keeps to (1e-9 to 1e12, here in the
+ * flag's SI unit): a denormal voltage or an overflowed rating would otherwise carry Infinity into the
+ * results.
+ */
+function withinMagnitude(value: number, name: string, text: string): number {
+  const { smallest, largest } = NUMBER_MAGNITUDE;
+  if (value < smallest || value > largest)
+    throw new InputError(`--${name}`, expectedGot(`a number between ${smallest} and ${largest} in size`, text));
   return value;
 }
 
@@ -97,12 +110,12 @@ export function percentFlag(text: string, name: string, max = 100): number {
   }
   if (!(value > 0)) throw new InputError(`--${name}`, expectedGot(expected, text));
   if (!(value <= max)) throw new InputError(`--${name}`, expectedGot(`a percentage of at most ${max}`, text));
-  return value;
+  return withinMagnitude(value, name, text);
 }
 
 /** A plain number greater than 0 (ratios such as X/R). @example positiveFlag('6', 'xr') // 6 */
 export function positiveFlag(text: string, name: string, expected = 'a number greater than 0'): number {
   const value = /^\s*[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?\s*$/.test(text) ? Number(text) : NaN;
   if (!(value > 0) || !Number.isFinite(value)) throw new InputError(`--${name}`, expectedGot(expected, text));
-  return value;
+  return withinMagnitude(value, name, text);
 }

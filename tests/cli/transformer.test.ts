@@ -120,6 +120,17 @@ describe('discern transformer', () => {
     ],
     [['--kva', '0'], /^--kva: expected a rating greater than 0 such as "1500" or "1\.5 MVA", got "0"\n$/],
     [['--phases', '2'], /^--phases: expected 1 or 3, got "2"\n$/],
+    // Numbers a study would refuse (a denormal, an overflowing size) are refused here too: they carry
+    // Infinity into the fault current.
+    [
+      ['--secondary', '1e-310'],
+      /^--secondary: expected a number between 1e-9 and 1000000000000 in size, got "1e-310"\n$/,
+    ],
+    [
+      ['--impedance', '5e-324'],
+      /^--impedance: expected a number between 1e-9 and 1000000000000 in size, got "5e-324"\n$/,
+    ],
+    [['--xr', '1e13'], /^--xr: expected a number between 1e-9 and 1000000000000 in size, got "1e13"\n$/],
     [['--xr', 'high'], /^--xr: expected an X\/R ratio greater than 0, got "high"\n$/],
     [
       ['--source-mva', '250', '--source-ka', '11'],

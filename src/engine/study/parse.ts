@@ -109,7 +109,7 @@ export function studySchemaFor(frequency: unknown): typeof studySchema {
  * MVA, ft, s, %, multiples), needs more; the bound keeps denormals (1e-310), overflowed JSON numbers
  * (1e400 reads as Infinity) and 1e308 out before any field's own range is even asked.
  */
-const NUMBER_MAGNITUDE = { smallest: 1e-9, largest: 1e12 };
+export const NUMBER_MAGNITUDE = { smallest: 1e-9, largest: 1e12 };
 
 /**
  * A number outside `NUMBER_MAGNITUDE`, or an object nested deeper than `MAX_NESTING`, in document
