@@ -5,13 +5,13 @@ import type { CommandIO } from '../../src/cli/command.ts';
 
 const fixtures = 'tests/fixtures/devices';
 
-async function run(args: string[]) {
+async function run(args: string[], readText: CommandIO['readText'] = (path) => readFileSync(path, 'utf8')) {
   const out: string[] = [];
   const err: string[] = [];
   const io: CommandIO = {
     stdout: (text) => void out.push(text),
     stderr: (text) => void err.push(text),
-    readText: (path) => readFileSync(path, 'utf8'),
+    readText,
     writeFile: () => undefined,
   };
   try {
@@ -101,6 +101,20 @@ describe('discern band', () => {
     for (const [args, message] of cases) {
       const { code, stderr } = await run(args);
       expect(code, args.join(' ')).toBe(2);
+      expect(stderr).toMatch(message);
+    }
+  });
+
+  it('band names a file that is not a JSON object as the study when --device picks from it, else as the device', async () => {
+    const cases: Array<[string, string[], RegExp]> = [
+      ['', ['--device', 'MAIN'], /^study: expected a JSON object at line 1:1, got the end of the text\n$/],
+      ['', [], /^device: expected a JSON object at line 1:1, got the end of the text\n$/],
+      ['3', ['--device', 'MAIN'], /^study: expected a JSON object, got "3"\n$/],
+      ['[]', [], /^device: expected a JSON object, got \[\]\n$/],
+    ];
+    for (const [text, flags, message] of cases) {
+      const { code, stderr } = await run(['given.json', ...flags, '--amps', '100'], () => text);
+      expect(code, JSON.stringify(text)).toBe(2);
       expect(stderr).toMatch(message);
     }
   });

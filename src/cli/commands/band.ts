@@ -101,9 +101,11 @@ function deviceOf(
   deviceId: string | undefined,
 ): { id?: string; characteristic: Characteristic; volts?: number } {
   // The same reading rules as every study file (byte-order mark, one-line syntax errors, repeated fields).
-  const raw = readJsonFile(path, readText, 'device', 'a readable device or study file');
+  // With `--device` the file must be a study, and its problems are named as a study's.
+  const field = deviceId === undefined ? 'device' : 'study';
+  const raw = readJsonFile(path, readText, field, 'a readable device or study file');
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
-    throw new InputError(path, expectedGot('a JSON object', raw));
+    throw new InputError(field, expectedGot('a JSON object', raw));
   }
   const record = raw as Record<string, unknown>;
   if ('discern' in record) {
