@@ -61,7 +61,7 @@ export interface OverlapOptions {
   tolerance?: number;
 }
 
-/** Golden-section steps spent on each dip of the time ratio (its bottom to 0.2 % of a cell). */
+/** Golden-section steps spent on each dip or peak of the time ratio (its turn to 0.2 % of a cell). */
 const DIP_STEPS = 10;
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
 /** Cells of the grid in each smooth segment, however short (its ends and the point just below its top are always evaluated). */
@@ -72,8 +72,8 @@ const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not 
 /**
  * Finds, exactly, where an upstream band and a downstream band (on one voltage base) can and cannot be
  * told apart (DEVELOPERS.md, bands and overlaps). The range is split at every breakpoint of both bands, each smooth segment is
- * sampled on a log grid (evaluated once), every local dip of the time ratio is probed at its
- * bottom, and every change of class is bracketed and refined to `tolerance`: at a
+ * sampled on a log grid (evaluated once), every local dip or peak of the time ratio is probed at
+ * its turn, so is every cell where an edge's time jumps from never (a pickup, the horizon), and every change of class is bracketed and refined to `tolerance`: at a
  * breakpoint in one step, elsewhere by Illinois regula falsi on the logarithm of the times, which
  * needs a handful of evaluations where bisection needs twenty.
  *
@@ -120,8 +120,10 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   pair.limitingFrom = Math.min(up.currentLimitingFrom, down.currentLimitingFrom);
 
   // Stage 1: the grid — range ends, every breakpoint inside, and log-spaced samples between them —
-  // evaluated once; each local dip of the time ratio is probed at its bottom (a golden-section search
-  // between its neighbours, `probeDips`), so that a narrow dip cannot hide inside a cell.
+  // evaluated once; where an edge's time jumps from never inside a cell the class just past the jump
+  // is probed (`probeHorizonCrossings`), and each local dip or peak of the time ratio at its turn (a
+  // golden-section search between its neighbours, `probeDipsAndPeaks`), so that a narrow class cannot
+  // hide inside a cell.
   let count = gridOf(fromAmps, toAmps, up.breakpoints, down.breakpoints, samplesPerDecade, tolerance);
   const { points, upTimes, downTimes, classes, probed } = scratch;
   if (up.evaluateInto && down.evaluateInto) {
@@ -144,7 +146,8 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
       downTimes[i] = probed[1];
     }
   }
-  count = probeDips(count);
+  count = probeHorizonCrossings(count);
+  count = probeDipsAndPeaks(count);
 
   // Stage 2: refine every change of class (several may share one cell); collect the intervals, each
   // with its worst point.
@@ -276,59 +279,66 @@ function probe(amps: number): number {
 
 /**
  * Probes at `e^x` and keeps it in `scratch.best` (current, class, upstream and downstream time,
- * ratio) if its ratio is the lowest so far; returns the ratio.
+ * `sign` × ratio) if `sign` × its ratio is the lowest so far (`sign` 1 seeks a dip, −1 a peak);
+ * returns `sign` × the ratio.
  */
-function probeKeepingLowest(x: number): number {
+function probeKeepingLowest(x: number, sign: number): number {
   const amps = Math.exp(x);
   const cls = probe(amps);
   const { probed, best } = scratch;
-  const ratio = ratioOf(probed[0], probed[1]);
-  if (!(ratio >= best[4])) {
+  const value = sign * ratioOf(probed[0], probed[1]);
+  if (!(value >= best[4])) {
     best[0] = amps;
     best[1] = cls;
     best[2] = probed[0];
     best[3] = probed[1];
-    best[4] = ratio;
+    best[4] = value;
   }
-  return ratio;
+  return value;
 }
 
 /**
- * Probes every interior local minimum of the time ratio that comes within twice the required time
- * (only such a dip can cross a class edge unseen; one already inside an overlap cannot) at its
- * bottom, found by golden-section search, and inserts that probe into the grid. Returns the new
- * number of points.
+ * Probes every interior local minimum of the time ratio outside an overlap that comes within twice
+ * the required time (such a dip may cross a line below it unseen), and every interior local maximum
+ * inside an overlap or a thin margin that comes within half of it (such a peak may cross a line above
+ * it), at its turn, found by golden-section search, and inserts that probe into the grid. Returns the
+ * new number of points.
  */
-function probeDips(size: number): number {
+function probeDipsAndPeaks(size: number): number {
   const { points, upTimes, downTimes, classes } = scratch;
-  const dips: { amps: number; at: number; cls: number; up: number; down: number }[] = [];
+  const dips: Probe[] = [];
   let r0 = ratioOf(upTimes[0], downTimes[0]);
   let r1 = size > 1 ? ratioOf(upTimes[1], downTimes[1]) : Infinity;
   for (let i = 1; i + 1 < size; i++) {
     const r2 = ratioOf(upTimes[i + 1], downTimes[i + 1]);
-    if (r1 < 2 && r1 < r0 && r1 <= r2 && classes[i] !== 2) {
-      // Golden-section search in log current between the neighbours, keeping the lowest probe
-      // (`scratch.best`, NaN: none yet).
+    // A dip outside an overlap may reach a line below it; a peak inside an overlap or a thin margin
+    // may reach one above it.
+    const dip = r1 < 2 && r1 < r0 && r1 <= r2 && classes[i] !== 2;
+    const peak = !dip && r1 > 0.5 && r1 > r0 && r1 >= r2 && (classes[i] === 1 || classes[i] === 2);
+    if (dip || peak) {
+      const sign = dip ? 1 : -1;
+      // Golden-section search in log current between the neighbours, keeping the lowest (or highest)
+      // probe (`scratch.best`, NaN: none yet).
       let xa = Math.log(points[i - 1]);
       let xb = Math.log(points[i + 1]);
       const best = scratch.best.fill(NaN);
       let xc = xb - GOLDEN * (xb - xa);
       let xd = xa + GOLDEN * (xb - xa);
-      let fc = probeKeepingLowest(xc);
-      let fd = probeKeepingLowest(xd);
+      let fc = probeKeepingLowest(xc, sign);
+      let fd = probeKeepingLowest(xd, sign);
       for (let step = 0; step < DIP_STEPS; step++) {
         if (fc < fd) {
           xb = xd;
           xd = xc;
           fd = fc;
           xc = xb - GOLDEN * (xb - xa);
-          fc = probeKeepingLowest(xc);
+          fc = probeKeepingLowest(xc, sign);
         } else {
           xa = xc;
           xc = xd;
           fc = fd;
           xd = xa + GOLDEN * (xb - xa);
-          fd = probeKeepingLowest(xd);
+          fd = probeKeepingLowest(xd, sign);
         }
       }
       const amps = best[0];
@@ -339,26 +349,128 @@ function probeDips(size: number): number {
     r0 = r1;
     r1 = r2;
   }
-  if (dips.length === 0) return size;
-  const total = size + dips.length;
+  return insertProbes(size, dips);
+}
+
+/** A probe to insert into the grid: its current, the index it goes before, its class and its times. */
+interface Probe {
+  amps: number;
+  at: number;
+  cls: number;
+  up: number;
+  down: number;
+}
+
+/** Inserts `probes` (ascending, each before its `at`) into the grid of `size` points; returns the new size. */
+function insertProbes(size: number, probes: Probe[]): number {
+  if (probes.length === 0) return size;
+  const { points, upTimes, downTimes, classes } = scratch;
+  const total = size + probes.length;
   if (points.length < total) throw new Error('overlap grid scratch too small'); // gridOf leaves room
-  // Insert from the last dip backwards, shifting the tail right once per dip.
+  // Insert from the last probe backwards, shifting the tail right once per probe.
   let end = size;
-  for (let k = dips.length - 1; k >= 0; k--) {
-    const dip = dips[k];
-    for (let j = end; j > dip.at; j--) {
+  for (let k = probes.length - 1; k >= 0; k--) {
+    const probe = probes[k];
+    for (let j = end; j > probe.at; j--) {
       points[j + k] = points[j - 1];
       upTimes[j + k] = upTimes[j - 1];
       downTimes[j + k] = downTimes[j - 1];
       classes[j + k] = classes[j - 1];
     }
-    end = dip.at;
-    points[dip.at + k] = dip.amps;
-    upTimes[dip.at + k] = dip.up;
-    downTimes[dip.at + k] = dip.down;
-    classes[dip.at + k] = dip.cls;
+    end = probe.at;
+    points[probe.at + k] = probe.amps;
+    upTimes[probe.at + k] = probe.up;
+    downTimes[probe.at + k] = probe.down;
+    classes[probe.at + k] = probe.cls;
   }
   return total;
+}
+
+/**
+ * Where an edge's time falls to the horizon inside a cell, its time jumps from never to the horizon,
+ * and a class can change there and back unseen by the cell's ends. Two such cells can hide one:
+ * - both edges reach the horizon in the cell: between the upstream crossing and the downstream one
+ *   (if the upstream comes first) the upstream device operates on a current the downstream one
+ *   carries beyond the horizon, an overlap;
+ * - the upstream edge reaches it where the downstream time is already close to the horizon: just past
+ *   the crossing the slack is at its least.
+ * In each, the crossing is found (`horizonCrossing`) and a probe just beyond it (or, for the first, just
+ * before the downstream crossing) is inserted into the grid, so the refinement sees the class there.
+ * Elsewhere a crossing hides nothing: the side beyond the horizon is selective (upstream never) or an
+ * overlap that runs on past the crossing (downstream never). Returns the new number of points.
+ */
+function probeHorizonCrossings(size: number): number {
+  const { points, upTimes, downTimes, probed } = scratch;
+  const pair = compared;
+  const probes: Probe[] = [];
+  for (let i = 0; i + 1 < size; i++) {
+    const upCrosses = upTimes[i] === Infinity && upTimes[i + 1] !== Infinity;
+    if (!upCrosses) continue;
+    const downCrosses = downTimes[i] === Infinity && downTimes[i + 1] !== Infinity;
+    let amps: number;
+    if (downCrosses) {
+      // The last current where the downstream edge is beyond the horizon.
+      horizonCrossing(pair.downSlow, points[i], points[i + 1]);
+      amps = scratch.crossing[0];
+    } else {
+      // With the downstream edge beyond the horizon across the cell, all past the crossing is an
+      // overlap, seen at the cell's end. Else the slack anywhere past it is at least the upstream time
+      // at the cell's end less the downstream time at its start: nothing to see unless that is thin.
+      if (downTimes[i + 1] === Infinity) continue;
+      const leastSlack = upTimes[i + 1] * pair.timeRatio - (downTimes[i] + pair.margin);
+      if (leastSlack >= pair.thinMargin) continue;
+      horizonCrossing(pair.upFast, points[i], points[i + 1]);
+      amps = scratch.crossing[1];
+    }
+    if (!(amps > points[i] && amps < points[i + 1])) continue;
+    const cls = probe(amps);
+    probes.push({ amps, at: i + 1, cls, up: probed[0], down: probed[1] });
+  }
+  return insertProbes(size, probes);
+}
+
+/**
+ * The current where `time` (non-increasing) falls to the horizon between `lo` (beyond it) and `hi`
+ * (within it), to the finder's tolerance: the last current beyond and the first within, left in
+ * `scratch.crossing`. Illinois regula falsi on the logarithm of the time, bisection while an end is
+ * infinite (below a pickup).
+ */
+function horizonCrossing(time: (amps: number) => number, lo: number, hi: number): void {
+  const pair = compared;
+  const logHorizon = Math.log(pair.horizon);
+  let x0 = Math.log(lo);
+  let x1 = Math.log(hi);
+  let g0 = Math.log(time(lo)) - logHorizon;
+  let g1 = Math.log(time(hi)) - logHorizon;
+  let side = 0;
+  for (let step = 0; step < 500 && hi - lo > pair.tolerance * lo; step++) {
+    let x: number;
+    if (Number.isFinite(g0) && Number.isFinite(g1) && g0 !== g1) {
+      x = x1 - (g1 * (x1 - x0)) / (g1 - g0);
+      const room = 0.25 * pair.tolerance;
+      if (!(x > x0 + room)) x = x0 + room;
+      if (!(x < x1 - room)) x = x1 - room;
+    } else {
+      x = 0.5 * (x0 + x1);
+    }
+    const amps = Math.exp(x);
+    const g = Math.log(time(amps)) - logHorizon;
+    if (g > 0) {
+      lo = amps;
+      x0 = x;
+      g0 = g;
+      if (side === -1) g1 *= 0.5;
+      side = -1;
+    } else {
+      hi = amps;
+      x1 = x;
+      g1 = g;
+      if (side === 1) g0 *= 0.5;
+      side = 1;
+    }
+  }
+  scratch.crossing[0] = lo;
+  scratch.crossing[1] = hi;
 }
 
 /** Where `refineEdge` leaves an edge in `scratch.edge`: the last current of the class and the first beyond, each with its times, and the class beyond. */
@@ -461,6 +573,7 @@ const scratch = {
   probed: new Float64Array(2),
   best: new Float64Array(5),
   edge: new Float64Array(7),
+  crossing: new Float64Array(2),
 };
 
 /**
