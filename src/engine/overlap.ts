@@ -387,40 +387,43 @@ function insertProbes(size: number, probes: Probe[]): number {
 }
 
 /**
- * Where an edge's time falls to the horizon inside a cell, its time jumps from never to the horizon,
- * and a class can change there and back unseen by the cell's ends. Two such cells can hide one:
- * - both edges reach the horizon in the cell: between the upstream crossing and the downstream one
- *   (if the upstream comes first) the upstream device operates on a current the downstream one
- *   carries beyond the horizon, an overlap;
- * - the upstream edge reaches it where the downstream time is already close to the horizon: just past
- *   the crossing the slack is at its least.
- * In each, the crossing is found (`horizonCrossing`) and a probe just beyond it (or, for the first, just
- * before the downstream crossing) is inserted into the grid, so the refinement sees the class there.
- * Elsewhere a crossing hides nothing: the side beyond the horizon is selective (upstream never) or an
- * overlap that runs on past the crossing (downstream never). Returns the new number of points.
+ * Where the upstream time jumps from never inside a cell (it falls to the horizon there, or the cell
+ * starts at its pickup), a class can begin and end unseen by the cell's ends:
+ * - where the downstream time also falls to the horizon in the cell, after the upstream one: between
+ *   the two the upstream device operates on a current the downstream one carries beyond the horizon,
+ *   an overlap;
+ * - where the downstream time is close to the upstream one: just past the jump the slack may be thin
+ *   or negative.
+ * In each, the jump is found (`horizonCrossing`) and a probe just past it (for the first, just before
+ * the downstream crossing) is inserted into the grid, so the refinement sees the class there.
+ * Elsewhere a jump hides nothing: before it the upstream device never operates (selective), and a
+ * downstream time beyond the horizon across the cell makes all past it an overlap, seen at the
+ * cell's end. Returns the new number of points.
  */
 function probeHorizonCrossings(size: number): number {
-  const { points, upTimes, downTimes, probed } = scratch;
+  const { points, upTimes, downTimes, probed, crossing } = scratch;
   const pair = compared;
   const probes: Probe[] = [];
   for (let i = 0; i + 1 < size; i++) {
     const upCrosses = upTimes[i] === Infinity && upTimes[i + 1] !== Infinity;
     if (!upCrosses) continue;
-    const downCrosses = downTimes[i] === Infinity && downTimes[i + 1] !== Infinity;
-    let amps: number;
-    if (downCrosses) {
-      // The last current where the downstream edge is beyond the horizon.
+    // With the downstream edge beyond the horizon across the cell, all past the upstream crossing is
+    // an overlap, seen at the cell's end.
+    if (downTimes[i + 1] === Infinity) continue;
+    let amps = NaN;
+    if (downTimes[i] === Infinity) {
+      // Both cross: probe the last current where the downstream edge is beyond the horizon. Where that
+      // is the cell's start (a pickup), the downstream edge is within the horizon all along the cell.
       horizonCrossing(pair.downSlow, points[i], points[i + 1]);
-      amps = scratch.crossing[0];
-    } else {
-      // With the downstream edge beyond the horizon across the cell, all past the crossing is an
-      // overlap, seen at the cell's end. Else the slack anywhere past it is at least the upstream time
-      // at the cell's end less the downstream time at its start: nothing to see unless that is thin.
-      if (downTimes[i + 1] === Infinity) continue;
+      if (crossing[0] > points[i]) amps = crossing[0];
+    }
+    if (Number.isNaN(amps)) {
+      // The slack anywhere past the upstream crossing is at least the upstream time at the cell's end
+      // less the downstream time at its start: nothing to see unless that is thin.
       const leastSlack = upTimes[i + 1] * pair.timeRatio - (downTimes[i] + pair.margin);
       if (leastSlack >= pair.thinMargin) continue;
       horizonCrossing(pair.upFast, points[i], points[i + 1]);
-      amps = scratch.crossing[1];
+      amps = crossing[1];
     }
     if (!(amps > points[i] && amps < points[i + 1])) continue;
     const cls = probe(amps);
@@ -440,6 +443,13 @@ function horizonCrossing(time: (amps: number) => number, lo: number, hi: number)
   const logHorizon = Math.log(pair.horizon);
   let x0 = Math.log(lo);
   let x1 = Math.log(hi);
+  // Most often the jump is the pickup itself, at the cell's start: one probe just past it tells.
+  const past = lo * (1 + 0.5 * pair.tolerance);
+  if (time(past) <= pair.horizon) {
+    scratch.crossing[0] = lo;
+    scratch.crossing[1] = past;
+    return;
+  }
   let g0 = Math.log(time(lo)) - logHorizon;
   let g1 = Math.log(time(hi)) - logHorizon;
   let side = 0;
