@@ -91,6 +91,14 @@ export const tripUnit = fc
     ),
     instantaneous: fc.option(fc.double({ min: 2, max: 15, noNaN: true }), { nil: undefined }),
     longTimeRamp: fc.constantFrom('independent', 'ends-at-short-time-pickup'),
+    ground: fc.option(
+      fc.record({
+        pickup: fc.double({ min: 0.2, max: 1, noNaN: true }),
+        delay: fc.double({ min: 0.1, max: 0.5, noNaN: true }),
+        i2t: fc.boolean(),
+      }),
+      { nil: undefined },
+    ),
   })
   .map((t) => ({
     kind: 'trip-unit',
@@ -99,6 +107,7 @@ export const tripUnit = fc
     shortTime: t.shortTime,
     instantaneous: t.instantaneous === undefined ? undefined : { pickup: t.instantaneous },
     longTimeRamp: t.longTimeRamp,
+    ground: t.ground,
   }));
 
 /** Each family's arbitrary characteristic, by its `kind`. */

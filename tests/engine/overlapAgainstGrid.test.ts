@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { bandOf, HALF_CYCLE_SECONDS, scaleBand, type Band } from '../../src/engine/band.ts';
+import {
+  bandOf,
+  fastestOf,
+  groundFaultBandOf,
+  HALF_CYCLE_SECONDS,
+  scaleBand,
+  type Band,
+} from '../../src/engine/band.ts';
 import { characteristicSchema } from '../../src/engine/devices/characteristic.ts';
 import { findOverlaps, type OverlapInterval, type OverlapOptions } from '../../src/engine/overlap.ts';
 import { characteristicArbitraries } from './characteristicArbitraries.ts';
@@ -44,7 +51,8 @@ function disagreements(up: Band, down: Band, options: OverlapOptions & { margin:
   const intervals = findOverlaps(up, down, options);
   const from = intervals[0].fromAmps;
   const to = options.toAmps;
-  const edges = intervals.slice(1).map((interval) => interval.fromAmps);
+  // Every edge the finder gives, the range's ends among them (a class may start right at a pickup).
+  const edges = [...intervals.map((interval) => interval.fromAmps), to];
   const nearEdge = (amps: number) => edges.some((edge) => Math.abs(amps / edge - 1) < NEAR_EDGE);
   // 200 samples per decade, and a hair either side of each band's breakpoints, where the curves jump.
   const steps = Math.ceil(200 * Math.log10(to / from));
@@ -65,17 +73,26 @@ function disagreements(up: Band, down: Band, options: OverlapOptions & { margin:
   return problems;
 }
 
-/** A pair as a study would give it: each characteristic read by the schema, the upstream band moved onto the downstream base. */
-function pairOf(upInput: unknown, downInput: unknown, pickupRatio: number) {
-  const down = bandOf(characteristicSchema.parse(downInput));
-  const upOwn = bandOf(characteristicSchema.parse(upInput));
+/**
+ * A pair as a study would give it: each characteristic read by the schema, the upstream band moved onto
+ * the downstream base; for a ground fault, as the pair check builds that case, each device's phase and
+ * ground-fault elements together (operating on the fastest).
+ */
+function pairOf(upInput: unknown, downInput: unknown, pickupRatio: number, groundFault = false) {
+  const bandsOf = (input: unknown) => {
+    const characteristic = characteristicSchema.parse(input);
+    const ground = groundFault ? groundFaultBandOf(characteristic) : undefined;
+    return ground ? fastestOf([bandOf(characteristic), ground]) : bandOf(characteristic);
+  };
+  const down = bandsOf(downInput);
+  const upOwn = bandsOf(upInput);
   return { up: scaleBand(upOwn, (pickupRatio * down.minAmps) / upOwn.minAmps), down };
 }
 
 const anyCharacteristic = fc.oneof(...Object.values(characteristicArbitraries));
 
 describe('findOverlaps against the rule applied current by current', () => {
-  it('gives every current of the range the class the rule gives it, for any pair of devices (property)', () => {
+  it('gives every current of the range the class the rule gives it, for any pair of devices, phase or ground fault (property)', () => {
     fc.assert(
       fc.property(
         anyCharacteristic,
@@ -85,8 +102,9 @@ describe('findOverlaps against the rule applied current by current', () => {
         fc.double({ min: 2, max: 300, noNaN: true }),
         fc.constantFrom(0, 0.2, 0.3),
         fc.constantFrom(1, 0.75),
-        (upInput, downInput, pickupRatio, faultMultiple, margin, timeRatio) => {
-          const { up, down } = pairOf(upInput, downInput, pickupRatio);
+        fc.boolean(),
+        (upInput, downInput, pickupRatio, faultMultiple, margin, timeRatio, groundFault) => {
+          const { up, down } = pairOf(upInput, downInput, pickupRatio, groundFault);
           const options = { toAmps: down.minAmps * faultMultiple, margin, timeRatio };
           expect(disagreements(up, down, options)).toEqual([]);
         },
