@@ -433,6 +433,20 @@ function probeHorizonCrossings(size: number): number {
 }
 
 /**
+ * The next probe (log current) of a bracket from `x0` to `x1` whose function is `g0` and `g1` at its
+ * ends: the regula falsi estimate, kept strictly inside so that the bracket closes once the estimate is
+ * near an end; the midpoint while an end is infinite or the two are equal.
+ */
+function nextProbe(x0: number, x1: number, g0: number, g1: number, tolerance: number): number {
+  if (!(Number.isFinite(g0) && Number.isFinite(g1) && g0 !== g1)) return 0.5 * (x0 + x1);
+  let x = x1 - (g1 * (x1 - x0)) / (g1 - g0);
+  const room = 0.25 * tolerance;
+  if (!(x > x0 + room)) x = x0 + room;
+  if (!(x < x1 - room)) x = x1 - room;
+  return x;
+}
+
+/**
  * The current where `time` (non-increasing) falls to the horizon between `lo` (beyond it) and `hi`
  * (within it), to the finder's tolerance: the last current beyond and the first within, left in
  * `scratch.crossing`. Illinois regula falsi on the logarithm of the time, bisection while an end is
@@ -454,15 +468,7 @@ function horizonCrossing(time: (amps: number) => number, lo: number, hi: number)
   let g1 = Math.log(time(hi)) - logHorizon;
   let side = 0;
   for (let step = 0; step < 500 && hi - lo > pair.tolerance * lo; step++) {
-    let x: number;
-    if (Number.isFinite(g0) && Number.isFinite(g1) && g0 !== g1) {
-      x = x1 - (g1 * (x1 - x0)) / (g1 - g0);
-      const room = 0.25 * pair.tolerance;
-      if (!(x > x0 + room)) x = x0 + room;
-      if (!(x < x1 - room)) x = x1 - room;
-    } else {
-      x = 0.5 * (x0 + x1);
-    }
+    const x = nextProbe(x0, x1, g0, g1, pair.tolerance);
     const amps = Math.exp(x);
     const g = Math.log(time(amps)) - logHorizon;
     if (g > 0) {
@@ -528,16 +534,7 @@ function refineEdge(
   // Capped so that a degenerate bracket (a zero or denormal current) can never loop forever; the
   // Illinois steps converge in a few dozen probes on any physical range.
   for (let step = 0; step < 500 && hi - lo > tolerance * lo; step++) {
-    let x: number;
-    if (Number.isFinite(g0) && Number.isFinite(g1) && g0 !== g1) {
-      x = x1 - (g1 * (x1 - x0)) / (g1 - g0);
-      // Keep the probe strictly inside, and close the bracket once the estimate is near an end.
-      const room = 0.25 * tolerance;
-      if (!(x > x0 + room)) x = x0 + room;
-      if (!(x < x1 - room)) x = x1 - room;
-    } else {
-      x = 0.5 * (x0 + x1);
-    }
+    const x = nextProbe(x0, x1, g0, g1, tolerance);
     const amps = Math.exp(x);
     const cls = probe(amps);
     const g = threshold >= 0 ? aboveThreshold(probed[0], probed[1], threshold) : NaN;
