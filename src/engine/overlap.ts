@@ -62,7 +62,7 @@ export interface OverlapOptions {
 }
 
 /** Golden-section steps spent on each dip or peak of the time ratio (its turn to 0.2 % of a cell). */
-const DIP_STEPS = 10;
+const TURN_STEPS = 10;
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
 /** Cells of the grid in each smooth segment, however short (its ends and the point just below its top are always evaluated). */
 const MIN_CELLS = 1;
@@ -71,11 +71,12 @@ const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not 
 
 /**
  * Finds, exactly, where an upstream band and a downstream band (on one voltage base) can and cannot be
- * told apart (DEVELOPERS.md, bands and overlaps). The range is split at every breakpoint of both bands, each smooth segment is
- * sampled on a log grid (evaluated once), every local dip or peak of the time ratio is probed at
- * its turn, so is every cell where an edge's time jumps from never (a pickup, the horizon), and every change of class is bracketed and refined to `tolerance`: at a
- * breakpoint in one step, elsewhere by Illinois regula falsi on the logarithm of the times, which
- * needs a handful of evaluations where bisection needs twenty.
+ * told apart (DEVELOPERS.md, bands and overlaps). The range is split at every breakpoint of both
+ * bands, each smooth segment is sampled on a log grid (evaluated once), the class just past every
+ * jump of the upstream time from never inside a cell (a pickup, the horizon) is probed, so is every
+ * local dip or peak of the time ratio at its turn, and every change of class is bracketed and refined
+ * to `tolerance`: at a breakpoint in one step, elsewhere by Illinois regula falsi on the logarithm of
+ * the times, which needs a handful of evaluations where bisection needs twenty.
  *
  * At each current: `overlap` where `up.minTime · timeRatio < down.maxTime + margin` (so also where the
  * upstream device operates on a current the downstream one carries indefinitely); `thin margin` where the
@@ -121,7 +122,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
 
   // Stage 1: the grid — range ends, every breakpoint inside, and log-spaced samples between them —
   // evaluated once; where an edge's time jumps from never inside a cell the class just past the jump
-  // is probed (`probeHorizonCrossings`), and each local dip or peak of the time ratio at its turn (a
+  // is probed (`probeJumpsFromNever`), and each local dip or peak of the time ratio at its turn (a
   // golden-section search between its neighbours, `probeDipsAndPeaks`), so that a narrow class cannot
   // hide inside a cell.
   let count = gridOf(fromAmps, toAmps, up.breakpoints, down.breakpoints, samplesPerDecade, tolerance);
@@ -146,7 +147,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
       downTimes[i] = probed[1];
     }
   }
-  count = probeHorizonCrossings(count);
+  count = probeJumpsFromNever(count);
   count = probeDipsAndPeaks(count);
 
   // Stage 2: refine every change of class (several may share one cell); collect the intervals, each
@@ -306,7 +307,7 @@ function probeKeepingLowest(x: number, sign: number): number {
  */
 function probeDipsAndPeaks(size: number): number {
   const { points, upTimes, downTimes, classes } = scratch;
-  const dips: Probe[] = [];
+  const turns: Probe[] = [];
   let r0 = ratioOf(upTimes[0], downTimes[0]);
   let r1 = size > 1 ? ratioOf(upTimes[1], downTimes[1]) : Infinity;
   for (let i = 1; i + 1 < size; i++) {
@@ -326,7 +327,7 @@ function probeDipsAndPeaks(size: number): number {
       let xd = xa + GOLDEN * (xb - xa);
       let fc = probeKeepingLowest(xc, sign);
       let fd = probeKeepingLowest(xd, sign);
-      for (let step = 0; step < DIP_STEPS; step++) {
+      for (let step = 0; step < TURN_STEPS; step++) {
         if (fc < fd) {
           xb = xd;
           xd = xc;
@@ -343,13 +344,13 @@ function probeDipsAndPeaks(size: number): number {
       }
       const amps = best[0];
       if (amps > points[i - 1] && amps < points[i + 1] && amps !== points[i]) {
-        dips.push({ amps, cls: best[1], up: best[2], down: best[3], at: amps < points[i] ? i : i + 1 });
+        turns.push({ amps, cls: best[1], up: best[2], down: best[3], at: amps < points[i] ? i : i + 1 });
       }
     }
     r0 = r1;
     r1 = r2;
   }
-  return insertProbes(size, dips);
+  return insertProbes(size, turns);
 }
 
 /** A probe to insert into the grid: its current, the index it goes before, its class and its times. */
@@ -400,7 +401,7 @@ function insertProbes(size: number, probes: Probe[]): number {
  * downstream time beyond the horizon across the cell makes all past it an overlap, seen at the
  * cell's end. Returns the new number of points.
  */
-function probeHorizonCrossings(size: number): number {
+function probeJumpsFromNever(size: number): number {
   const { points, upTimes, downTimes, probed, crossing } = scratch;
   const pair = compared;
   const probes: Probe[] = [];
@@ -569,7 +570,7 @@ function refineEdge(
 /**
  * Scratch arrays the finder reuses from call to call (a study checks thousands of pairs): the grid's
  * currents and the edges' times and classes there, grown together by `gridOf` (with room for the
- * dips' probes), and never read beyond what the current call wrote.
+ * probes of dips, peaks and jumps), and never read beyond what the current call wrote.
  */
 const scratch = {
   points: new Float64Array(256),
@@ -618,7 +619,7 @@ function gridOf(
   inside[n++] = to;
   if (!ordered) inside.subarray(0, n).sort();
   // At most: per segment its cells (under samplesPerDecade · its decades + 1) and the point below its
-  // top, and the top; with room to spare for rounding, and twice that for the dips probed later.
+  // top, and the top; with room to spare for rounding, and twice that for the probes inserted later.
   const size = 3 * n + Math.ceil(samplesPerDecade * Math.log10(to / from));
   if (scratch.points.length < 2 * size) {
     scratch.points = new Float64Array(2 * size);
