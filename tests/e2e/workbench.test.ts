@@ -181,13 +181,13 @@ describe('the workbench in Chromium', () => {
     await expect(page.getByTestId('study-name').textContent()).resolves.toContain(demo.name);
     await expect(page.getByTestId(delayField).inputValue()).resolves.toBe('0.3');
     await expect(page.getByTestId('undo').isEnabled()).resolves.toBe(true);
-    // Text that is not JSON at all is refused the same way.
+    // Text that is not JSON at all is refused the same way (the notice is rewritten in place: poll it).
     await page
       .getByTestId('open-file')
       .setInputFiles({ name: 'x.json', mimeType: 'application/json', buffer: Buffer.from('{') });
-    await expect(refused.textContent()).resolves.toMatch(
-      /study: expected more JSON text at line 1:2, got the end of the text/,
-    );
+    await expect
+      .poll(() => refused.textContent())
+      .toMatch(/study: expected more JSON text at line 1:2, got the end of the text/);
     // A good file asks before it discards the unsaved edit; declining keeps the study.
     const asked: string[] = [];
     page.once('dialog', (dialog) => {
