@@ -48,6 +48,26 @@ export const thermalMagnetic = fc
     magnetic: { pickup: t.pickup, tolerance: t.tolerance },
   }));
 
+/**
+ * A relay's time-overcurrent element from one draw: `dial` is the IEEE time dial, a fifteenth of it the
+ * IEC time multiplier, a tenth of it a definite-time delay (s); `cap` the multiple where the curve turns flat.
+ */
+export function timeOvercurrentOf(r: {
+  curve: (typeof RELAY_CURVES)[number];
+  pickup: number;
+  dial: number;
+  cap?: number;
+}) {
+  return r.curve === 'definite-time'
+    ? { curve: r.curve, pickup: r.pickup, delay: r.dial / 10 }
+    : {
+        curve: r.curve,
+        pickup: r.pickup,
+        [r.curve.startsWith('ieee') ? 'timeDial' : 'timeMultiplier']: r.curve.startsWith('ieee') ? r.dial : r.dial / 15,
+        definiteTimeFrom: r.cap,
+      };
+}
+
 export const relay = fc
   .record({
     curve: fc.constantFrom(...RELAY_CURVES),
@@ -61,17 +81,7 @@ export const relay = fc
   .map((r) => ({
     kind: 'relay',
     ct: { primary: r.primary, secondary: 5 },
-    timeOvercurrent:
-      r.curve === 'definite-time'
-        ? { curve: r.curve, pickup: r.pickup, delay: r.dial / 10 }
-        : {
-            curve: r.curve,
-            pickup: r.pickup,
-            [r.curve.startsWith('ieee') ? 'timeDial' : 'timeMultiplier']: r.curve.startsWith('ieee')
-              ? r.dial
-              : r.dial / 15,
-            definiteTimeFrom: r.cap,
-          },
+    timeOvercurrent: timeOvercurrentOf(r),
     instantaneous: r.instantaneous === undefined ? undefined : { pickup: r.instantaneous },
     tolerance: { pickup: r.tolerance, time: r.tolerance },
   }));

@@ -5,6 +5,7 @@ import { assertBandContract } from './bandInvariants.ts';
 import { relayBand } from '../../../src/engine/devices/relay.ts';
 import { createRelaySchema, relaySchema, RELAY_CURVES } from '../../../src/engine/devices/relaySchema.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
+import { timeOvercurrentOf } from '../characteristicArbitraries.ts';
 
 const veryInverse = {
   kind: 'relay',
@@ -170,21 +171,10 @@ describe('relay', () => {
   type RelayDraw = typeof relayInput extends fc.Arbitrary<infer T> ? T : never;
 
   function relayOf(r: RelayDraw, scale = 1) {
-    const element =
-      r.curve === 'definite-time'
-        ? { curve: r.curve, pickup: r.pickup, delay: r.dial / 10 }
-        : {
-            curve: r.curve,
-            pickup: r.pickup,
-            [r.curve.startsWith('ieee') ? 'timeDial' : 'timeMultiplier']: r.curve.startsWith('ieee')
-              ? r.dial
-              : r.dial / 15,
-            definiteTimeFrom: r.cap,
-          };
     return relaySchema.parse({
       kind: 'relay',
       ct: { primary: r.primary * scale, secondary: r.secondary },
-      timeOvercurrent: element,
+      timeOvercurrent: timeOvercurrentOf(r),
       instantaneous:
         r.instantaneous === undefined ? undefined : { pickup: r.instantaneous, delay: r.instantaneousDelay },
       tolerance: { pickup: r.pickupTolerance, time: r.timeTolerance },
