@@ -1,6 +1,6 @@
 import { expectedGot, InputError } from '../engine/errors.ts';
 import { parsePercent, parseQuantity, type Dimension } from '../engine/quantity/index.ts';
-import { NUMBER_MAGNITUDE } from '../engine/study/parse.ts';
+import { NUMBER_MAGNITUDE } from '../engine/study/fields.ts';
 
 /** The flags a verb accepts: each takes a value (`'value'`) or stands alone (`'switch'`). */
 export type FlagSpec = Readonly<Record<string, 'value' | 'switch'>>;

@@ -187,6 +187,14 @@ const MUTATIONS: Record<string, Mutation> = {
     ]);
     setAt(doc, leaf.path, replacement);
   },
+  'CT ratio out of range'(doc, random) {
+    const relays = (doc.devices as Record<string, Json>[])
+      .map((device) => device.characteristic as Record<string, Json>)
+      .filter((characteristic) => typeof characteristic?.ct === 'string');
+    if (relays.length === 0) return;
+    // Digits alone, so the ratio's own pattern matches: four hundred of them read as Infinity.
+    pick(random, relays).ct = pick(random, [`1${'0'.repeat(400)}:5`, '0.0000000001:5', '600:0.000001', '600:0']);
+  },
   'cable loop with per-pair margins'(doc, random) {
     const buses = ids(doc, 'buses');
     (doc.cables as Json[]).push({

@@ -1,5 +1,13 @@
 import { z } from 'zod';
-import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
+import { quoteGot } from '../errors.ts';
+import {
+  boundedNumber,
+  nameField,
+  outsidePhysicalRange,
+  percentField,
+  PHYSICAL_RANGES,
+  quantityField,
+} from '../study/fields.ts';
 import { INVERSE_CURVE_NAMES } from './inverseCurves.ts';
 
 /** Curves of the time-overcurrent element: the standard inverse-time curves and definite time. */
@@ -38,11 +46,15 @@ export function createRelaySchema(frequency = 60) {
     .transform((value, ctx) => {
       if (typeof value !== 'string') return value;
       const match = RATIO.exec(value);
-      if (!match || !(Number(match[1]) > 0) || !(Number(match[2]) > 0)) {
-        ctx.addIssue({ code: 'custom', message: `expected a CT ratio such as "600:5", got ${JSON.stringify(value)}` });
+      const sides = match ? [Number(match[1]), Number(match[2])] : [];
+      if (!match || sides.some((amps) => !(amps > 0) || outsidePhysicalRange(amps, 'current'))) {
+        ctx.addIssue({
+          code: 'custom',
+          message: `expected a CT ratio such as "600:5", each side a current between ${PHYSICAL_RANGES.current.smallest} A and ${PHYSICAL_RANGES.current.largest} A, got ${quoteGot(value)}`,
+        });
         return z.NEVER;
       }
-      return { primary: Number(match[1]), secondary: Number(match[2]) };
+      return { primary: sides[0], secondary: sides[1] };
     })
     .meta({ description: 'CT ratio: "600:5" or { primary, secondary } in amperes' });
 

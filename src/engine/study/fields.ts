@@ -60,6 +60,15 @@ export const PHYSICAL_RANGES: Record<Dimension, { smallest: number; largest: num
   frequency: { smallest: 1, largest: 1e3, unit: 'Hz', why: 'from 1 Hz to 1 kHz' },
 };
 
+/**
+ * Every plain number in a study, in whatever unit its field reads it, is 0 or between these in
+ * magnitude. No physical quantity of a power system, in the units the study format uses (V, A, kVA,
+ * MVA, ft, s, %, multiples), needs more; the bound keeps denormals (1e-310), overflowed JSON numbers
+ * (1e400 reads as Infinity) and 1e308 out before any field's own range is even asked. A percentage
+ * written as text ("1e-310 %") keeps to the same bound.
+ */
+export const NUMBER_MAGNITUDE = { smallest: 1e-9, largest: 1e12 };
+
 export interface QuantityFieldOptions extends FieldLimits {
   /** Unit of a bare number, e.g. 'kVA'. @default the dimension's plain unit (DIMENSIONS) */
   plainUnit?: string;
@@ -148,8 +157,9 @@ function plainReadingOf(read: (value: number | string) => unknown): PlainReader 
  */
 export function percentField(limits: FieldLimits & { description?: string } = {}) {
   const { description, ...given } = limits;
-  // Percentages are bounded like every number: at most 100 % unless the field says less (a study
-  // file's denormals are refused before any field is read, see readStudy).
+  // Percentages are bounded like every number: at most 100 % unless the field says less, and 0 or at
+  // least NUMBER_MAGNITUDE.smallest in size (a bare number's denormal is refused before any field is
+  // read, see readStudy; text such as "1e-310 %" is refused here).
   const rest = { ...given, max: Math.min(given.max ?? 100, 100) };
   const read = (value: number | string): number | string => {
     let parsed: number;
@@ -158,7 +168,11 @@ export function percentField(limits: FieldLimits & { description?: string } = {}
     } catch (error) {
       return `${(error as Error).message}, got ${quoteGot(value)}`;
     }
-    const problem = limitProblem(parsed, rest);
+    const problem =
+      limitProblem(parsed, rest) ??
+      (typeof value === 'string' && parsed !== 0 && Math.abs(parsed) < NUMBER_MAGNITUDE.smallest
+        ? `of 0 or at least ${NUMBER_MAGNITUDE.smallest} in size`
+        : undefined);
     return problem ? `expected a percentage ${problem}, got ${quoteGot(value)}` : parsed;
   };
   return withPlainReading(
@@ -278,6 +292,14 @@ export const idField = z
   .string()
   .regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'expected an id of letters, digits, ".", "_" or "-"')
   .meta({ description: 'identifier, unique in the study' });
+
+/**
+ * Whether a number other than 0 lies outside its dimension's physical range (`PHYSICAL_RANGES`), for
+ * numbers a field reads out of its own text, such as the two sides of a CT ratio "600:5".
+ */
+export function outsidePhysicalRange(value: number, dimension: Dimension): boolean {
+  return physicalProblem(value, dimension) !== undefined;
+}
 
 /** A value other than 0 outside the dimension's physical range. */
 function physicalProblem(value: number, dimension: Dimension, check = { smallest: true }): string | undefined {

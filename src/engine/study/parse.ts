@@ -3,6 +3,7 @@ import { InputError, quoteGot } from '../errors.ts';
 import { formatIssuePath, issueMessage } from './issueMessage.ts';
 import { fieldNamesIn, jsonTextProblem, MAX_NESTING, withoutBom } from './jsonText.ts';
 import { NOT_PLAIN, plainReaderOf } from './plainReading.ts';
+import { NUMBER_MAGNITUDE } from './fields.ts';
 import { createStudySchema, studySchema, type Study } from './schema.ts';
 import { structureProblems } from './structure.ts';
 
@@ -102,14 +103,6 @@ export function readStudyParsed(input: unknown): { reading: StudyReading; parsed
 export function studySchemaFor(frequency: unknown): typeof studySchema {
   return frequency === 50 ? (studySchema50 ??= createStudySchema(50)) : studySchema;
 }
-
-/**
- * Every plain number in a study, in whatever unit its field reads it, is 0 or between these in
- * magnitude. No physical quantity of a power system, in the units the study format uses (V, A, kVA,
- * MVA, ft, s, %, multiples), needs more; the bound keeps denormals (1e-310), overflowed JSON numbers
- * (1e400 reads as Infinity) and 1e308 out before any field's own range is even asked.
- */
-export const NUMBER_MAGNITUDE = { smallest: 1e-9, largest: 1e12 };
 
 /**
  * A number outside `NUMBER_MAGNITUDE`, or an object nested deeper than `MAX_NESTING`, in document

@@ -69,6 +69,10 @@ export function transformerWithstandOf(
   const usesSource = category === 'III' || category === 'IV';
   const maxPu = 1 / (zT + (usesSource ? sourceImpedancePu : 0));
   const thermal = thermalCurveOf(transformer.construction);
+  // A denormal impedance (1e-310 %) gives an infinite through-fault current: no curve ends there.
+  if (maxPu === Infinity) {
+    throw new InputError(`${path}.impedance`, expectedGot('a percentage of at least 1e-9', transformer.impedance));
+  }
   if (!(maxPu > thermal.lowestPu)) {
     throw new InputError(
       `${path}.impedance`,

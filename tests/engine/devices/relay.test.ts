@@ -128,8 +128,15 @@ describe('relay', () => {
 
   it('relaySchema rejects bad settings with the field path', () => {
     expect(rejection({ ...veryInverse, ct: '600/5' })).toMatch(
-      /^study\.devices\[0\]\.characteristic\.ct: expected a CT ratio such as "600:5", got "600\/5"$/,
+      /^study\.devices\[0\]\.characteristic\.ct: expected a CT ratio such as "600:5", each side a current between 0\.001 A and 10000000 A, got "600\/5"$/,
     );
+    // Each side is a current, held to the physical range of every current in a study: a primary of
+    // four hundred digits reads as Infinity, and 1e-10 A is no CT.
+    expect(rejection({ ...veryInverse, ct: `1${'0'.repeat(400)}:5` })).toMatch(
+      /characteristic\.ct: expected a CT ratio/,
+    );
+    expect(rejection({ ...veryInverse, ct: '0.0000000001:5' })).toMatch(/characteristic\.ct: expected a CT ratio/);
+    expect(rejection({ ...veryInverse, ct: '600:0.000001' })).toMatch(/characteristic\.ct: expected a CT ratio/);
     expect(rejection({ ...veryInverse, timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 5 } })).toMatch(
       /^study\.devices\[0\]\.characteristic\.timeOvercurrent\.timeDial: expected a time dial for curve "ieee-very-inverse", got nothing$/,
     );

@@ -179,6 +179,15 @@ describe('readStudy', () => {
     );
   });
 
+  it('refuses a denormal transformer impedance written as text, as it refuses a denormal number', () => {
+    // "1e-310 %" once passed "greater than 0" and gave an infinite bus of Infinity amperes.
+    const input = demo();
+    input.transformers![0].impedance = '1e-310 %';
+    expect(firstProblem(input)).toMatch(
+      /^study\.transformers\[0\]\.impedance: expected a percentage of 0 or at least 1e-9 in size, got "1e-310 %"$/,
+    );
+  });
+
   it('refuses a minimum source stronger than the maximum', () => {
     const input = demo();
     if (input.source.kind !== 'utility') throw new Error('the demo has a utility source');

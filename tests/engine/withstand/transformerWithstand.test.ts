@@ -252,6 +252,12 @@ describe('transformerWithstandOf', () => {
       );
     });
 
+    it('transformerWithstandOf rejects a denormal impedance, whose through-fault current is infinite', () => {
+      expect(() => transformerWithstandOf({ ...transformerOf(), impedance: 1e-310 })).toThrow(
+        /^transformers\.T1\.impedance: expected a percentage of at least 1e-9, got "1e-310"$/,
+      );
+    });
+
     it('transformerWithstandOf rejects an impedance so large the curve would end before it starts', () => {
       expect(() => transformerWithstandOf({ ...transformerOf(), impedance: 60 })).toThrow(
         /^transformers\.T1\.impedance: expected a percentage giving a maximum through-fault current above 2 pu, got "60"$/,
