@@ -1,3 +1,6 @@
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { JSDOM } from 'jsdom';
 import { plotCommand } from '../../src/cli/commands/plot.ts';
@@ -65,7 +68,8 @@ describe('discern plot', () => {
         /^--view: expected one of service, primary, office, emergency, got "nowhere"\n$/,
       ],
       [['--out', 'x.svg', '--width', '-3'], /^--width: expected a number greater than 0, got "-3"\n$/],
-      [['--out', 'x.svg', '--width', '100'], /^options\.width: expected a width in px of at least 480, got "100"\n$/],
+      [['--out', 'x.svg', '--width', '100'], /^--width: expected a width in px of at least 480, got "100"\n$/],
+      [['--out', 'x.svg', '--height', '99999'], /^--height: expected a height in px of at least 360, got "99999"\n$/],
       [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected letter, a4, tabloid or a3, got "legal"\n$/],
       [['--out', 'x.pdf', '--orientation', 'up'], /^--orientation: expected portrait or landscape, got "up"\n$/],
     ];
@@ -74,5 +78,14 @@ describe('discern plot', () => {
       expect(code).toBe(2);
       expect(stderr).toMatch(message);
     }
+  });
+
+  it('exits 2 naming study.views for a study with no view to plot', async () => {
+    const study = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8'));
+    const path = join(mkdtempSync(join(tmpdir(), 'discern-plot-')), 'no-views.json');
+    writeFileSync(path, JSON.stringify({ ...study, views: [] }));
+    const { code, stderr } = await runVerb([path, '--out', 'x.svg'], plotCommand);
+    expect(code).toBe(2);
+    expect(stderr).toBe('study.views: expected at least one view to plot, got "none"\n');
   });
 });

@@ -3,6 +3,7 @@ import { expectedGot, InputError } from '../../engine/errors.ts';
 import { hasScenarios, scenarioLabel, scenarioPartsOf, scenariosOf } from '../../engine/scenario/index.ts';
 import type { Scenario, Study } from '../../engine/study/index.ts';
 import { sheetOf } from '../../plot/sheet.ts';
+import { resolveSheetOptions } from '../../plot/sheetOptions.ts';
 import { svgOf } from '../../plot/svg.ts';
 import { viewInputOf } from '../../plot/viewInput.ts';
 import { flagText, parseArgs } from '../args.ts';
@@ -59,6 +60,7 @@ export const plotCommand: Command = {
     if (!out || !format) throw new InputError('--out', expectedGot('a file name ending .svg, .png or .pdf', out));
     const width = numberFlag(flagText(parsed, 'width'), '--width');
     const height = numberFlag(flagText(parsed, 'height'), '--height');
+    sheetSizeOf(width, height);
     const scale = numberFlag(flagText(parsed, 'scale'), '--scale');
     const paper = flagText(parsed, 'paper') ?? 'letter';
     if (paper !== 'letter' && paper !== 'a4' && paper !== 'tabloid' && paper !== 'a3')
@@ -69,7 +71,7 @@ export const plotCommand: Command = {
 
     const study = loadStudyFile(path, io, 'plot');
     const viewId = flagText(parsed, 'view') ?? study.views[0]?.id;
-    if (!viewId) throw new InputError(`${path}: study.views`, expectedGot('at least one view to plot', 'none'));
+    if (!viewId) throw new InputError('study.views', expectedGot('at least one view to plot', 'none'));
     if (!study.views.some((view) => view.id === viewId)) {
       throw new InputError('--view', expectedGot(`one of ${study.views.map((v) => v.id).join(', ')}`, viewId));
     }
@@ -86,6 +88,17 @@ export const plotCommand: Command = {
     return 0;
   },
 };
+
+/** Checks `--width` and `--height` against the sheet's own bounds before the study is read, naming the flag. */
+function sheetSizeOf(width: number | undefined, height: number | undefined): void {
+  try {
+    resolveSheetOptions({ width, height });
+  } catch (error) {
+    if (!(error instanceof InputError)) throw error;
+    const flag = error.path === 'options.width' ? '--width' : '--height';
+    throw new InputError(flag, error.message.slice(error.path.length + 2));
+  }
+}
 
 /**
  * The analysed tree that draws a view in a study that can be switched: in `scenario` (else the first
