@@ -81,11 +81,19 @@ describe('discern band', () => {
       ],
       [
         [`${fixtures}/feeder-relay.json`, '--amps', '100,abc'],
-        /^--amps: expected currents in amperes greater than 0 separated by commas, got "abc"\n$/,
+        /^--amps: expected currents between 0\.001 A and 10000000 A separated by commas, got "abc"\n$/,
       ],
       [
         [`${fixtures}/feeder-relay.json`, '--amps', '-5'],
-        /^--amps: expected currents in amperes greater than 0 separated by commas, got "-5"\n$/,
+        /^--amps: expected currents between 0\.001 A and 10000000 A separated by commas, got "-5"\n$/,
+      ],
+      [
+        [`${fixtures}/feeder-relay.json`, '--amps', '100,1e-310'],
+        /^--amps: expected currents between 0\.001 A and 10000000 A separated by commas, got "1e-310"\n$/,
+      ],
+      [
+        [`${fixtures}/feeder-relay.json`, '--amps', '20 MA'],
+        /^--amps: expected currents between 0\.001 A and 10000000 A separated by commas, got "20 MA"\n$/,
       ],
       [[`${fixtures}/feeder-relay.json`], /^--amps: expected currents in amperes separated by commas, got nothing\n$/],
       [

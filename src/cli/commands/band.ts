@@ -3,6 +3,7 @@ import { readCharacteristic, type Characteristic } from '../../engine/devices/in
 import { expectedGot, InputError } from '../../engine/errors.ts';
 import { locationBusOf, networkOf } from '../../engine/network/index.ts';
 import { formatVolts, parseQuantity, significant } from '../../engine/quantity/index.ts';
+import { outsidePhysicalRange, PHYSICAL_RANGES } from '../../engine/study/fields.ts';
 import { readStudy } from '../../engine/study/index.ts';
 import { flagText, parseArgs, requiredFlag } from '../args.ts';
 import type { Command } from '../command.ts';
@@ -79,14 +80,17 @@ export const bandCommand: Command = {
 /** The `--amps` list: each a current greater than 0, a plain number in amperes or text with a unit. */
 function ampsOf(text: string): number[] {
   return text.split(',').map((part) => {
-    const expected = 'currents in amperes greater than 0 separated by commas';
+    // A current the study itself could hold (from 1 mA to 10 MA): 1e-310 A printed as 0 A.
+    const { smallest, largest } = PHYSICAL_RANGES.current;
+    const expected = `currents between ${smallest} A and ${largest} A separated by commas`;
     let value: number;
     try {
       value = parseQuantity(part.trim(), 'current');
     } catch {
       throw new InputError('--amps', expectedGot(expected, part.trim()));
     }
-    if (!(value > 0)) throw new InputError('--amps', expectedGot(expected, part.trim()));
+    if (!(value > 0) || outsidePhysicalRange(value, 'current'))
+      throw new InputError('--amps', expectedGot(expected, part.trim()));
     return value;
   });
 }
