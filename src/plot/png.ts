@@ -1,4 +1,5 @@
 import { Resvg } from '@resvg/resvg-js';
+import { PNG_SCALE } from './sheetOptions.ts';
 
 /** The DejaVu faces a PNG is set in (Debian `fonts-dejavu-core`); named so output never depends on what else is installed. */
 export const DEJAVU_FONT_FILES = [
@@ -22,8 +23,10 @@ export interface PngOptions {
  */
 export function pngOf(svg: string, options: PngOptions = {}): Uint8Array {
   const { scale = 2, fontFiles = DEJAVU_FONT_FILES } = options;
-  if (!(Number.isFinite(scale) && scale >= 0.1 && scale <= 10))
-    throw new RangeError(`options.scale: expected a zoom from 0.1 to 10, got "${scale}"`);
+  if (!(Number.isFinite(scale) && scale >= PNG_SCALE.smallest && scale <= PNG_SCALE.largest))
+    throw new RangeError(
+      `options.scale: expected a zoom from ${PNG_SCALE.smallest} to ${PNG_SCALE.largest}, got "${scale}"`,
+    );
   const resvg = new Resvg(svg, {
     font: { loadSystemFonts: false, fontFiles: [...fontFiles], defaultFontFamily: 'DejaVu Sans' },
     fitTo: { mode: 'zoom', value: scale },

@@ -22,6 +22,9 @@ export interface SheetOptions {
   fontFamily?: string;
 }
 
+/** The zoom a PNG may be rendered at, in image pixels per sheet px: enough for print, small enough to fit memory. */
+export const PNG_SCALE = { smallest: 0.1, largest: 10 };
+
 /** The options with every default filled in. */
 export type ResolvedSheetOptions = Required<SheetOptions>;
 

@@ -3,7 +3,7 @@ import { expectedGot, InputError } from '../../engine/errors.ts';
 import { hasScenarios, scenarioLabel, scenarioPartsOf, scenariosOf } from '../../engine/scenario/index.ts';
 import type { Scenario, Study } from '../../engine/study/index.ts';
 import { sheetOf } from '../../plot/sheet.ts';
-import { resolveSheetOptions } from '../../plot/sheetOptions.ts';
+import { PNG_SCALE, resolveSheetOptions } from '../../plot/sheetOptions.ts';
 import { svgOf } from '../../plot/svg.ts';
 import { viewInputOf } from '../../plot/viewInput.ts';
 import { flagText, parseArgs } from '../args.ts';
@@ -19,7 +19,7 @@ const HELP = `discern plot <study.json> --out FILE — one view of a study as a 
   --height PX       sheet height in px (default 720; at least 360)
   --paper SIZE      PDF paper: letter, a4, tabloid or a3 (default letter)
   --orientation O   PDF page landscape or portrait (default landscape), as the workbench prints it
-  --scale N         PNG pixels per sheet px (default 2)
+  --scale N         PNG pixels per sheet px, 0.1 to 10 (default 2)
   --scenario NAME   the operating scenario to draw, by id or name (default: the first scenario in
                     which the view's devices are energised); the sheet is the tree of the source
                     feeding them, its title naming the scenario
@@ -62,6 +62,8 @@ export const plotCommand: Command = {
     const height = numberFlag(flagText(parsed, 'height'), '--height');
     sheetSizeOf(width, height);
     const scale = numberFlag(flagText(parsed, 'scale'), '--scale');
+    if (scale !== undefined && !(scale >= PNG_SCALE.smallest && scale <= PNG_SCALE.largest))
+      throw new InputError('--scale', expectedGot(`a zoom from ${PNG_SCALE.smallest} to ${PNG_SCALE.largest}`, scale));
     const paper = flagText(parsed, 'paper') ?? 'letter';
     if (paper !== 'letter' && paper !== 'a4' && paper !== 'tabloid' && paper !== 'a3')
       throw new InputError('--paper', expectedGot('letter, a4, tabloid or a3', paper));
