@@ -9,6 +9,7 @@ import {
   cableWithstandOf,
   inrushMarkersOf,
   motorStartingOf,
+  throughFaultReachOf,
   transformerWithstandOf,
 } from '../engine/withstand/index.ts';
 import { conductorAreaCmil } from '../engine/conductors/index.ts';
@@ -141,10 +142,15 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     if (element.type === 'transformer') {
       const t = element.item;
       const fault = faults.transformers.get(t.id)!;
-      const curve = transformerWithstandOf(t, { sourceImpedancePu: fault.sourceImpedancePu });
       const name = t.name ?? t.id;
-      withstand.push({ id: t.id, label: `${name} through-fault`, curve, scale: onSheet(t.secondary) });
-      if (fault.factors.withstandShift !== 1) {
+      const reach = throughFaultReachOf(t, fault.sourceImpedancePu);
+      // A source too weak to drive a through-fault onto the curve leaves no curve to draw (the check says so).
+      const curve =
+        reach.maxPu > reach.lowestPu
+          ? transformerWithstandOf(t, { sourceImpedancePu: fault.sourceImpedancePu })
+          : undefined;
+      if (curve) withstand.push({ id: t.id, label: `${name} through-fault`, curve, scale: onSheet(t.secondary) });
+      if (curve && fault.factors.withstandShift !== 1) {
         const shift = fault.factors.withstandShift;
         const which = t.connection === 'delta-wye' ? 'secondary L-G' : 'secondary L-L';
         withstand.push({

@@ -187,6 +187,16 @@ const MUTATIONS: Record<string, Mutation> = {
     ]);
     setAt(doc, leaf.path, replacement);
   },
+  'quantity at the edge of its range'(doc, random) {
+    // Values the study accepts, at the ends of each dimension's physical range (1 V and 2 MV, 1 mA and
+    // 10 MA, 1 mm and 1000 km, 1 µs and 100 000 s...): accepted, so they must be analysed and drawn.
+    const quantities = leaves(doc).filter((l) => typeof l.value === 'string' && /^\d.*[a-zA-Z%]$/.test(l.value));
+    if (quantities.length === 0) return;
+    const leaf = pick(random, quantities);
+    const unit = /^[\d.eE+-]+\s*(.*)$/.exec(leaf.value as string)?.[1] ?? '';
+    const ends = EDGE_VALUES.find(([units]) => units.test(unit))?.[1];
+    if (ends) setAt(doc, leaf.path, pick(random, ends));
+  },
   'CT ratio out of range'(doc, random) {
     const relays = (doc.devices as Record<string, Json>[])
       .map((device) => device.characteristic as Record<string, Json>)
@@ -307,6 +317,16 @@ const MUTATIONS: Record<string, Mutation> = {
     }
   },
 };
+
+/** The smallest and largest value a study accepts for each unit, by the unit a demo writes. */
+const EDGE_VALUES: Array<[RegExp, string[]]> = [
+  [/^k?V$/, ['1 V', '2 MV']],
+  [/^k?A$/, ['0.001 A', '10 MA']],
+  [/^[kM]?VA$/, ['1 VA', '1000000 MVA']],
+  [/^(ft|m)$/, ['1 mm', '1000 km']],
+  [/^(s|cycles)$/, ['0.000001 s', '100000 s']],
+  [/^%$/, ['0.000000001 %', '100 %']],
+];
 
 const SIMPLE = [
   'delete a field',

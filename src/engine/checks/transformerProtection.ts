@@ -1,7 +1,12 @@
 import { findOverlaps } from '../overlap.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
-import type { Transformer } from '../study/index.ts';
-import { inrushMarkersOf, transformerRatedAmps, transformerWithstandOf } from '../withstand/index.ts';
+import type { Device, Transformer } from '../study/index.ts';
+import {
+  inrushMarkersOf,
+  throughFaultReachOf,
+  transformerRatedAmps,
+  transformerWithstandOf,
+} from '../withstand/index.ts';
 import {
   capitalise,
   describeRange,
@@ -44,11 +49,55 @@ export function transformerFindings(context: CheckContext, transformer: Transfor
     ];
   }
   const band = context.bands.get(device.id)!;
+  const findings = throughFaultFindings(context, transformer, device, horizon);
+  const deviceName = nameOf(device);
+
+  // Inrush: the device must not operate at or below/left of each inrush point.
+  for (const marker of inrushMarkersOf(transformer)) {
+    const operates = band.minTime(marker.amps);
+    const ok = operates > marker.seconds!;
+    findings.push({
+      id: `transformer-inrush:${transformer.id}:${marker.seconds}`,
+      kind: 'transformer-inrush',
+      severity: ok ? 'ok' : 'fail',
+      title: ok ? `${deviceName} rides through ${name}'s inrush` : `${deviceName} may trip on ${name}'s inrush`,
+      subjects: [device.id, transformer.id],
+      range: rangeOf(marker.amps, marker.amps, volts, []),
+      explanation: `${marker.label}: ${formatAmps(marker.amps, 3)} for ${formatSeconds(marker.seconds!)}. ${deviceName} ${
+        operates === Infinity ? 'does not operate at that current' : `may operate after ${formatSeconds(operates)}`
+      }${ok ? ', later than the inrush lasts.' : ', before the inrush has decayed.'}`,
+      suggestion: ok
+        ? undefined
+        : `Raise ${deviceName}'s instantaneous pickup or its time delay above ${formatAmps(marker.amps, 3)} at ${significant(marker.seconds!)} s.`,
+      basis: 'inrush points (8–12 × rated for 0.1 s, 25 × for 0.01 s) are common practice',
+      referenceVolts: volts,
+    });
+  }
+  return findings;
+}
+
+/**
+ * The primary device against the transformer's through-fault curve, for the three-phase fault and (Δ–Y,
+ * Δ–Δ) the shifted unbalanced case: where it is not sure to clear, where it clears below the curve, and
+ * where it does not. A source so weak that the transformer never carries a through-fault current the
+ * curve covers gives one note instead.
+ */
+function throughFaultFindings(
+  context: CheckContext,
+  transformer: Transformer,
+  device: Device,
+  horizon: number,
+): Finding[] {
+  const band = context.bands.get(device.id)!;
   const fault = context.faults.transformers.get(transformer.id)!;
+  const reach = throughFaultReachOf(transformer, fault.sourceImpedancePu);
+  if (!(reach.maxPu > reach.lowestPu)) return [weakSourceFinding(transformer, device, reach)];
   const curve = transformerWithstandOf(transformer, { sourceImpedancePu: fault.sourceImpedancePu });
   const toPrimary = transformer.secondary / transformer.primary;
   const findings: Finding[] = [];
   const deviceName = nameOf(device);
+  const name = transformer.name ?? transformer.id;
+  const volts = transformer.primary;
 
   const cases = [{ label: 'three-phase', shift: 1, toAmps: fault.reflectedToPrimary }];
   if (fault.factors.withstandShift !== 1) {
@@ -129,27 +178,23 @@ export function transformerFindings(context: CheckContext, transformer: Transfor
       });
     });
   }
-
-  // Inrush: the device must not operate at or below/left of each inrush point.
-  for (const marker of inrushMarkersOf(transformer)) {
-    const operates = band.minTime(marker.amps);
-    const ok = operates > marker.seconds!;
-    findings.push({
-      id: `transformer-inrush:${transformer.id}:${marker.seconds}`,
-      kind: 'transformer-inrush',
-      severity: ok ? 'ok' : 'fail',
-      title: ok ? `${deviceName} rides through ${name}'s inrush` : `${deviceName} may trip on ${name}'s inrush`,
-      subjects: [device.id, transformer.id],
-      range: rangeOf(marker.amps, marker.amps, volts, []),
-      explanation: `${marker.label}: ${formatAmps(marker.amps, 3)} for ${formatSeconds(marker.seconds!)}. ${deviceName} ${
-        operates === Infinity ? 'does not operate at that current' : `may operate after ${formatSeconds(operates)}`
-      }${ok ? ', later than the inrush lasts.' : ', before the inrush has decayed.'}`,
-      suggestion: ok
-        ? undefined
-        : `Raise ${deviceName}'s instantaneous pickup or its time delay above ${formatAmps(marker.amps, 3)} at ${significant(marker.seconds!)} s.`,
-      basis: 'inrush points (8–12 × rated for 0.1 s, 25 × for 0.01 s) are common practice',
-      referenceVolts: volts,
-    });
-  }
   return findings;
+}
+
+/** A note that no through-fault reaches the transformer's curve: the source limits it below where the curve starts. */
+function weakSourceFinding(
+  transformer: Transformer,
+  device: Device,
+  reach: { maxPu: number; lowestPu: number },
+): Finding {
+  const name = transformer.name ?? transformer.id;
+  return {
+    id: `transformer-withstand:${transformer.id}:weak-source`,
+    kind: 'transformer-withstand',
+    severity: 'info',
+    title: `${name}'s through-fault curve is not reached: the source limits its fault current`,
+    subjects: [device.id, transformer.id],
+    explanation: `With the source's impedance added to its own ${significant(transformer.impedance, 3)} %, ${name} carries at most ${significant(reach.maxPu, 3)} times its rated current on a secondary fault, below the ${significant(reach.lowestPu, 3)} times rated current where its through-fault curve starts (IEEE C57.109: Categories III and IV take the source impedance into the largest through-fault current). ${nameOf(device)} is therefore not checked against the curve (its NEC 450.3 limits still are).`,
+    referenceVolts: transformer.primary,
+  };
 }

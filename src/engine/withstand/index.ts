@@ -10,7 +10,12 @@ export {
   DRY_LONGEST_SECONDS,
 } from './transformerThermal.ts';
 export type { ThermalCurve } from './transformerThermal.ts';
-export { transformerWithstandOf, MECHANICAL_FRACTION, MECHANICAL_SECONDS_AT_MAX } from './transformerWithstand.ts';
+export {
+  transformerWithstandOf,
+  throughFaultReachOf,
+  MECHANICAL_FRACTION,
+  MECHANICAL_SECONDS_AT_MAX,
+} from './transformerWithstand.ts';
 export type { TransformerWithstandOptions } from './transformerWithstand.ts';
 export {
   CABLE_OVERLOAD_NOTE,

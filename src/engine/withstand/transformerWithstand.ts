@@ -67,13 +67,13 @@ export function transformerWithstandOf(
   const baseAmps = transformerRatedAmps(transformer, volts);
   const zT = requireNumberAbove(`${path}.impedance`, transformer.impedance, 0, 'a percentage') / 100;
   const usesSource = category === 'III' || category === 'IV';
-  const maxPu = 1 / (zT + (usesSource ? sourceImpedancePu : 0));
+  const { maxPu, lowestPu } = throughFaultReachOf(transformer, sourceImpedancePu);
   const thermal = thermalCurveOf(transformer.construction);
   // A denormal impedance (1e-310 %) gives an infinite through-fault current: no curve ends there.
   if (maxPu === Infinity) {
     throw new InputError(`${path}.impedance`, expectedGot('a percentage of at least 1e-9', transformer.impedance));
   }
-  if (!(maxPu > thermal.lowestPu)) {
+  if (!(maxPu > lowestPu)) {
     throw new InputError(
       `${path}.impedance`,
       expectedGot(
@@ -143,6 +143,25 @@ export function transformerWithstandOf(
       thermalRule: thermal.rule,
     }),
   };
+}
+
+/**
+ * How far a transformer's through-fault duty reaches, per unit of its rated current: `maxPu`, the largest
+ * through-fault current (`1/Z_T`, or `1/(Z_T + Z_S)` for Categories III and IV, IEEE C57.109), and
+ * `lowestPu`, where its through-fault curve starts. A source so weak that `maxPu` is not above
+ * `lowestPu` leaves no through-fault the curve covers (check `throughFaultReachOf(t, zs).maxPu > lowestPu`
+ * before `transformerWithstandOf`).
+ *
+ * @example throughFaultReachOf(tenMvaLiquid, 0.667) // { maxPu: 1.36, lowestPu: 2 }: a 15 MVA source feeding a 10 MVA, 7 % unit
+ */
+export function throughFaultReachOf(
+  transformer: Transformer,
+  sourceImpedancePu = 0,
+): { maxPu: number; lowestPu: number } {
+  const category = transformerCategoryOf(transformer);
+  const usesSource = category === 'III' || category === 'IV';
+  const maxPu = 1 / (transformer.impedance / 100 + (usesSource ? sourceImpedancePu : 0));
+  return { maxPu, lowestPu: thermalCurveOf(transformer.construction).lowestPu };
 }
 
 interface PolylineFacts {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { viewInputOf } from '../../../src/plot/viewInput.ts';
 import { assertInDelta } from '../../asserts.ts';
 import { abs, add, baseAmps3, baseOhms, polar, scale } from '../fault/perUnit.ts';
 import { deltaWyeInput } from '../fault/sequenceReference.ts';
@@ -48,5 +49,21 @@ describe('transformerFindings', () => {
     const lg = (3 * baseAmps3(S, 480)) / abs(add(z1, z1, zt, scale([1.2 / baseOhms(S, 480), 0], 3)));
     assertInDelta(analysis.faults.buses.get('LV')!.max.lineToGround, lg, 1e-9);
     expect(analysis.findings.some((f) => f.id.includes('secondary line-to-ground'))).toBe(false);
+  });
+
+  it('a source too weak to drive a through-fault onto the curve gives a note, not a refused study, and no curve on the sheet', () => {
+    // A 10 MVA, 7 % unit (Category III, IEEE C57.109) on a 15 MVA source: Z_S = 10/15 pu on the unit's base,
+    // I_max = 1/(0.07 + 0.667) = 1.36 pu, below the 2 pu where the liquid-immersed curve starts.
+    const input = protectedUnit();
+    input.source = { kind: 'utility', id: 'U', bus: 'MV', max: { available: '15 MVA', xr: 12 } };
+    Object.assign(input.transformers![0], { rating: '10 MVA', impedance: '7 %' });
+    input.views = [
+      { id: 'unit', title: 'Primary relay and unit', referenceVoltage: 480, devices: ['R'], withstand: ['T'] },
+    ];
+    const analysis = analyseStudy(parseStudy(input));
+    const notes = analysis.findings.filter((f) => f.kind === 'transformer-withstand');
+    expect(notes.map((f) => [f.severity, f.id])).toEqual([['info', 'transformer-withstand:T:weak-source']]);
+    expect(notes[0].explanation).toMatch(/at most 1\.36 times its rated current .* below the 2 times rated current/);
+    expect(viewInputOf(analysis, 'unit').withstand).toEqual([]);
   });
 });
