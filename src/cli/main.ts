@@ -106,4 +106,12 @@ function isEntry(): boolean {
   return real === fileURLToPath(import.meta.url) || /[\\/]bin[\\/]discern\.js$/.test(real);
 }
 
-if (isEntry()) process.exitCode = await runCli(process.argv.slice(2), nodeIO);
+if (isEntry()) {
+  // A reader that stops early (`discern check study.json | head`) closes the pipe: end quietly, as other
+  // command-line tools do, not with a stack trace.
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code !== 'EPIPE') throw error;
+    process.exit(process.exitCode ?? 0);
+  });
+  process.exitCode = await runCli(process.argv.slice(2), nodeIO);
+}

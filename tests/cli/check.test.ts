@@ -1,3 +1,4 @@
+import { spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { checkCommand } from '../../src/cli/commands/check.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
@@ -54,6 +55,17 @@ describe('discern check', () => {
     const { code, stdout } = spawnDiscern(['check', 'tests/fixtures/studies/interrupting-duty.json', '--strict']);
     expect(code).toBe(1);
     expect(stdout.trimEnd().split('\n').at(-1)).toMatch(/^counts: 1 fail, /);
+  });
+
+  it('ends quietly when the reader closes the pipe early (`discern check … | head`)', () => {
+    // 200 kB of findings, more than a pipe holds: the writes meet a closed pipe once `head` has its bytes.
+    const piped = spawnSync(
+      'bash',
+      ['-c', 'node_modules/.bin/tsx src/cli/main.ts check demo/harrowmere-full.json --json --all | head -c 30'],
+      { encoding: 'utf8' },
+    );
+    expect(piped.stdout).toMatch(/^\{\n {2}"study": "Harrowmere/);
+    expect(piped.stderr).toBe('');
   });
 
   it('ends with one line counting each class, and exits 1 under --strict on thin margins or unprovable regions', async () => {
