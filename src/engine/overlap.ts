@@ -287,7 +287,7 @@ function probeKeepingLowest(x: number, sign: number): number {
   const amps = Math.exp(x);
   const cls = probe(amps);
   const { probed, best } = scratch;
-  const value = sign * ratioOf(probed[0], probed[1]);
+  const value = sign * marginOf(probed[0], probed[1]);
   if (!(value >= best[4])) {
     best[0] = amps;
     best[1] = cls;
@@ -299,23 +299,28 @@ function probeKeepingLowest(x: number, sign: number): number {
 }
 
 /**
- * Probes every interior local minimum of the time ratio outside an overlap that comes within twice
- * the required time (such a dip may cross a line below it unseen), and every interior local maximum
- * inside an overlap or a thin margin that comes within half of it (such a peak may cross a line above
- * it), at its turn, found by golden-section search, and inserts that probe into the grid. Returns the
- * new number of points.
+ * Probes every interior local minimum of the slack outside an overlap that comes within the required
+ * time of the line below it (such a dip may cross that line unseen), and every interior local maximum
+ * inside a thin margin, or inside an overlap within half the required time of the line (such a peak
+ * may cross a line above it), at its turn, found by golden-section search, and inserts that probe into
+ * the grid. Returns the new number of points.
  */
 function probeDipsAndPeaks(size: number): number {
   const { points, upTimes, downTimes, classes } = scratch;
   const turns: Probe[] = [];
-  let r0 = ratioOf(upTimes[0], downTimes[0]);
-  let r1 = size > 1 ? ratioOf(upTimes[1], downTimes[1]) : Infinity;
+  // The slack, not the time ratio: both lines are lines of the slack (0 for an overlap, `thinMargin` for a
+  // thin margin), and the ratio turns at other currents than the slack does.
+  let s0 = marginOf(upTimes[0], downTimes[0]);
+  let s1 = size > 1 ? marginOf(upTimes[1], downTimes[1]) : Infinity;
   for (let i = 1; i + 1 < size; i++) {
-    const r2 = ratioOf(upTimes[i + 1], downTimes[i + 1]);
-    // A dip outside an overlap may reach a line below it; a peak inside an overlap or a thin margin
-    // may reach one above it.
-    const dip = r1 < 2 && r1 < r0 && r1 <= r2 && classes[i] !== 2;
-    const peak = !dip && r1 > 0.5 && r1 > r0 && r1 >= r2 && (classes[i] === 1 || classes[i] === 2);
+    const s2 = marginOf(upTimes[i + 1], downTimes[i + 1]);
+    const cls = classes[i];
+    const needed = downTimes[i] + compared.margin;
+    // A dip outside an overlap that comes within the needed time of the line below it may cross it; so
+    // may a peak inside a thin margin, or inside an overlap within half the needed time of the line.
+    const lineBelow = cls === 0 ? compared.thinMargin : 0;
+    const dip = cls !== 2 && s1 < s0 && s1 <= s2 && s1 - lineBelow < needed;
+    const peak = !dip && s1 > s0 && s1 >= s2 && (cls === 1 || (cls === 2 && s1 > -needed / 2));
     if (dip || peak) {
       const sign = dip ? 1 : -1;
       // Golden-section search in log current between the neighbours, keeping the lowest (or highest)
@@ -347,8 +352,8 @@ function probeDipsAndPeaks(size: number): number {
         turns.push({ amps, cls: best[1], up: best[2], down: best[3], at: amps < points[i] ? i : i + 1 });
       }
     }
-    r0 = r1;
-    r1 = r2;
+    s0 = s1;
+    s1 = s2;
   }
   return insertProbes(size, turns);
 }

@@ -154,4 +154,60 @@ describe('findOverlaps against the rule applied current by current', () => {
     expect(intervals.map((i) => i.status)).toContain('thin margin');
     expect(disagreements(up, down, options)).toEqual([]);
   });
+
+  // Two pairs where the slack rises above the thin-margin line while the time ratio does not turn there:
+  // the finder searched the ratio's turns, and reported a thin margin across a selective window.
+  it('finds the selective window where the slack, not the time ratio, peaks above the thin-margin line', () => {
+    // Upstream IEEE very inverse against downstream IEC standard inverse (IEEE C37.112, IEC 60255-151),
+    // 0.2 s margin, upstream times at 75 %: the slack peaks at 0.101 s near 489.5 A.
+    const { up, down } = pairOf(
+      {
+        kind: 'relay',
+        ct: { primary: 50, secondary: 5 },
+        timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 0.5, timeDial: 0.31592747532233284 },
+        tolerance: { pickup: 9, time: 9 },
+      },
+      {
+        kind: 'relay',
+        ct: { primary: 3612, secondary: 5 },
+        timeOvercurrent: { curve: 'iec-standard-inverse', pickup: 0.5, timeMultiplier: 0.006666666666666667 },
+        tolerance: { pickup: 10, time: 10 },
+      },
+      0.5,
+    );
+    const options = { toAmps: 3.2136604623582983 * down.minAmps, margin: 0.2, timeRatio: 0.75 };
+    const intervals = findOverlaps(up, down, options);
+    const window = intervals.find((i) => i.status === 'selective' && i.fromAmps > 400)!;
+    expect(window.fromAmps).toBeLessThan(489.5);
+    expect(window.toAmps).toBeGreaterThan(489.6);
+    expect(disagreements(up, down, options)).toEqual([]);
+  });
+
+  it('finds the selective window at the kink where a ground-fault element gives way to the phase element', () => {
+    // Ground-fault case of two LSI trip units with ground-fault elements: the upstream time is its ground
+    // element's 0.209 s until its phase elements fall below it near 824 A, a turn of the slack that is no
+    // breakpoint of either band.
+    const { up, down } = pairOf(
+      {
+        kind: 'trip-unit',
+        sensor: 100,
+        longTime: { pickup: 0.4, delay: 0.5 },
+        shortTime: { pickup: 1.5, delay: 0.05, i2t: true },
+        ground: { pickup: 0.24384963025451287, delay: 0.2090103451979938 },
+      },
+      {
+        kind: 'trip-unit',
+        sensor: 100,
+        longTime: { pickup: 0.8297177581530792, delay: 0.5 },
+        shortTime: { pickup: 1.5, delay: 0.056142974221504965, i2t: true },
+        ground: { pickup: 0.21171778834540866, delay: 0.1 },
+      },
+      4.85103388342185,
+      true,
+    );
+    const options = { toAmps: 43.664517961315404 * down.minAmps, margin: 0, timeRatio: 1 };
+    const intervals = findOverlaps(up, down, options);
+    expect(intervals.some((i) => i.status === 'selective' && i.fromAmps < 823 && i.toAmps > 824)).toBe(true);
+    expect(disagreements(up, down, options)).toEqual([]);
+  });
 });
