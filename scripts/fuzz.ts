@@ -10,12 +10,13 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { hostileStudies, seededRandom } from '../tests/fuzz/hostileStudies.ts';
+import { echoedWords, firstNonsense } from '../tests/fuzz/outcome.ts';
 
 const HANG_SECONDS = 10;
 /** The command line is bundled once, like the installed `discern`, so start-up does not count as a hang. */
 const BUNDLE = 'node_modules/.cache/discern-fuzz';
 const NONSENSE = /\bNaN\b|-?Infinity|\bundefined\b/;
-const FIELD_ERROR = /^(study(?:[.[][^:\n]*)?|--[a-z-]+): expected [^\n]*$/;
+const FIELD_ERROR = /^(study(?:[.[](?:"[^"\n]*"|[^:\n])*)?|--[a-z-]+): expected [^\n]*$/;
 
 const argv = process.argv.slice(2);
 const option = (name: string, fallback: number) => {
@@ -29,8 +30,8 @@ const parallel = option('jobs', 2);
 interface Run {
   label: string;
   args: string[];
-  /** Text of the study itself that may be printed back (a bus named "Infinity"): not nonsense of ours. */
-  echoes?: string[];
+  /** Words of `NONSENSE` the study itself holds (a bus named "Infinity"): printed back, they are not ours. */
+  echoed?: Set<string>;
 }
 
 /** Runs the CLI once; resolves to what it printed and how it ended. */
@@ -56,14 +57,13 @@ function runOnce(
 }
 
 /** What is wrong with one run, if anything. */
-function problemOf(result: Awaited<ReturnType<typeof runOnce>>, echoes: string[] = []): string | undefined {
+function problemOf(result: Awaited<ReturnType<typeof runOnce>>, echoed = new Set<string>()): string | undefined {
   if (result.hung) return `hang: no answer within ${HANG_SECONDS} s`;
   if (result.signal || result.code === null || ![0, 1, 2].includes(result.code))
     return `crash: exit ${result.code ?? result.signal}: ${result.stderr.trim().split('\n').slice(-3).join(' / ')}`;
-  const printed = echoes.reduce((text, echo) => text.replaceAll(echo, ''), result.stdout);
-  const nonsense = NONSENSE.exec(printed);
+  const nonsense = firstNonsense(result.stdout, echoed, NONSENSE);
   if (nonsense)
-    return `"${nonsense[0]}" in the output: …${printed.slice(Math.max(0, nonsense.index - 60), nonsense.index + 20)}…`;
+    return `"${nonsense[0]}" in the output: …${result.stdout.slice(Math.max(0, nonsense.index - 60), nonsense.index + 20)}…`;
   if (result.code === 2) {
     const message = result.stderr.trimEnd();
     if (message.includes('\n')) return `error on more than one line: ${message.slice(0, 200)}`;
@@ -109,7 +109,7 @@ for (const hostile of hostileStudies(seed, count)) {
   writeFileSync(file, hostile.text);
   const device = /"id": "((?:MAIN|FDR|R-|MCC|EM|OFC|F)[\w.-]*)"/.exec(hostile.text)?.[1] ?? 'MAIN';
   const label = `#${hostile.index} ${hostile.mutation} (${hostile.base})`;
-  const echoes = [...hostile.text.matchAll(/"([^"\\]*)"/g)].map((m) => m[1]).filter((text) => NONSENSE.test(text));
+  const echoed = echoedWords(hostile.text, NONSENSE);
   const figure = join(folder, `case-${hostile.index}.${['svg', 'png', 'pdf'][hostile.index % 3]}`);
   const caseRuns: Run[] = [
     { label: `${label}: check`, args: ['check', file, '--report', join(folder, `case-${hostile.index}.md`)] },
@@ -125,7 +125,7 @@ for (const hostile of hostileStudies(seed, count)) {
       { label: `${label}: propose`, args: ['propose', file, '--out', join(folder, `proposed-${hostile.index}.json`)] },
       { label: `${label}: paths`, args: ['paths', file, '--out', join(folder, `paths-${hostile.index}.json`)] },
     );
-  runs.push(...caseRuns.map((run) => ({ ...run, echoes })));
+  runs.push(...caseRuns.map((run) => ({ ...run, echoed })));
 }
 
 let failures = 0;
@@ -134,7 +134,7 @@ const started = Date.now();
 async function worker(): Promise<void> {
   while (next < runs.length) {
     const run = runs[next++];
-    const problem = problemOf(await runOnce(run.args), run.echoes);
+    const problem = problemOf(await runOnce(run.args), run.echoed);
     if (problem) {
       failures++;
       console.log(`FAIL seed ${seed} ${run.label}: ${problem}`);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readStudy } from '../../src/engine/study/index.ts';
 import { hostileStudies } from './hostileStudies.ts';
-import { outcomeOf, outcomeProblem } from './outcome.ts';
+import { echoedWords, outcomeOf, outcomeProblem } from './outcome.ts';
 
 /** Fixed so the suite is deterministic; `npm run fuzz -- --seed N` explores others out of process. */
 const SEED = 20_261_202;
@@ -24,7 +24,7 @@ describe('hostile studies', () => {
       for (const hostile of cases) {
         const outcome = outcomeOf(hostile.text);
         kinds[outcome.kind]++;
-        const problem = outcomeProblem(outcome);
+        const problem = outcomeProblem(outcome, echoedWords(hostile.text));
         if (problem) failures.push(`#${hostile.index} ${hostile.mutation} (${hostile.base}): ${problem}`);
       }
       expect(failures.slice(0, 10)).toEqual([]);

@@ -13,8 +13,32 @@ export type Outcome =
 /** Words that must never stand where a number belongs in anything printed or drawn. */
 export const NONSENSE = /\bNaN\b|-?Infinity|\bundefined\b|\bnull\b/;
 
-/** A one-line message naming a field path of the study: `study.buses[1].voltage: expected …`. */
-export const FIELD_MESSAGE = /^study(?:[.[][^:\n]*)?: expected [^\n]*$/;
+/**
+ * A one-line message naming a field path of the study: `study.buses[1].voltage: expected …`; a quoted
+ * field name may hold a colon (`study.motors[0]["name: "]`, from broken JSON).
+ */
+export const FIELD_MESSAGE = /^study(?:[.[](?:"[^"\n]*"|[^:\n])*)?: expected [^\n]*$/;
+
+/**
+ * The words of `nonsense` that a study's own strings hold (a bus named "Infinity"): printed back they
+ * are the user's text, not a number gone wrong, so its output is not faulted for them.
+ *
+ * @example echoedWords('{"name": "Infinity"}') // Set { 'Infinity' }
+ */
+export function echoedWords(text: string, nonsense = NONSENSE): Set<string> {
+  const words = new Set<string>();
+  const word = new RegExp(nonsense.source, 'g');
+  for (const [, value] of text.matchAll(/"((?:[^"\\]|\\.)*)"/g))
+    for (const [found] of value.matchAll(word)) words.add(found);
+  return words;
+}
+
+/** The first word of `nonsense` in `output` that is not one the study itself holds, or undefined. */
+export function firstNonsense(output: string, echoed: Set<string>, nonsense = NONSENSE): RegExpExecArray | undefined {
+  for (const match of output.matchAll(new RegExp(nonsense.source, 'g')))
+    if (!echoed.has(match[0])) return match as RegExpExecArray;
+  return undefined;
+}
 
 /**
  * Reads a study text the way every verb does, then, when it is accepted, analyses it, writes the
@@ -38,14 +62,14 @@ export function outcomeOf(text: string): Outcome {
 }
 
 /** What is wrong with an outcome, if anything (undefined when it is a clean refusal or a clean result). */
-export function outcomeProblem(outcome: Outcome): string | undefined {
+export function outcomeProblem(outcome: Outcome, echoed = new Set<string>()): string | undefined {
   if (outcome.kind === 'crashed') return `crashed: ${outcome.message.slice(0, 300)}`;
   if (outcome.kind === 'refused') {
     return FIELD_MESSAGE.test(outcome.message)
       ? undefined
       : `message without a field path: ${outcome.message.slice(0, 300)}`;
   }
-  const nonsense = NONSENSE.exec(outcome.output);
+  const nonsense = firstNonsense(outcome.output, echoed);
   if (!nonsense) return undefined;
   const around = outcome.output.slice(Math.max(0, nonsense.index - 80), nonsense.index + 40);
   return `"${nonsense[0]}" in the output: …${around}…`;
