@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { analyseStudy } from '../../src/engine/analysis.ts';
@@ -91,5 +92,63 @@ describe('AnalysisMemo', () => {
     expect(reused[0]).toBeGreaterThan(items - 6);
     expect(reused.slice(1, 3)).toEqual([0, 0]);
     expect(reused[3]).toBe(items - study.devices.length);
+  });
+
+  /** Every number of a characteristic, as [object, key] pairs, in a fixed order. */
+  const numbersIn = (value: object): [Record<string, number>, string][] =>
+    Object.entries(value).flatMap(([key, field]) =>
+      typeof field === 'number'
+        ? [[value as Record<string, number>, key] as [Record<string, number>, string]]
+        : field && typeof field === 'object' && !Array.isArray(field)
+          ? numbersIn(field)
+          : [],
+    );
+  /** The item at `i` (wrapped) of a list replaced by `change(item)`, every other item kept. */
+  const replaced = <T>(list: T[], i: number, change: (item: T) => T) =>
+    list.map((item, j) => (j === i % list.length ? change(item) : item));
+  // Edits as the workbench makes them: `i` picks the item, `x` in [0, 1) the new value.
+  const EDITS: Array<(s: Study, i: number, x: number) => Study> = [
+    (s, i, x) => ({
+      ...s,
+      devices: replaced(s.devices, i, (d) => {
+        const characteristic = structuredClone(d.characteristic);
+        const numbers = numbersIn(characteristic);
+        const [object, key] = numbers[Math.floor(x * numbers.length)];
+        object[key] *= 0.7 + 0.6 * x;
+        return { ...d, characteristic };
+      }),
+    }),
+    (s, i, x) => ({ ...s, devices: replaced(s.devices, i, (d) => ({ ...d, name: `device ${x}` })) }),
+    (s, i, x) => ({ ...s, devices: replaced(s.devices, i, (d) => ({ ...d, margin: x < 0.5 ? 0.1 : 0.3 })) }),
+    (s, i, x) => ({ ...s, buses: replaced(s.buses, i, (b) => ({ ...b, name: `bus ${x}` })) }),
+    (s, i, x) => ({ ...s, transformers: replaced(s.transformers, i, (t) => ({ ...t, impedance: 4 + 3 * x })) }),
+    (s, i, x) => ({ ...s, cables: replaced(s.cables, i, (c) => ({ ...c, length: c.length * (0.5 + x) })) }),
+    (s, i, x) => ({ ...s, motors: replaced(s.motors, i, (m) => ({ ...m, name: `motor ${x}` })) }),
+    (s, _i, x) => ({
+      ...s,
+      coordination: { ...s.coordination, sensitivity: { ...s.coordination.sensitivity, maxTime: 0.5 + 4 * x } },
+    }),
+  ];
+
+  it('agrees with a fresh analysis after any sequence of edits (property)', () => {
+    const base = parseStudy(demo());
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.nat(EDITS.length - 1), fc.nat(), fc.double({ min: 0, max: 0.999, noNaN: true })), {
+          minLength: 1,
+          maxLength: 4,
+        }),
+        (edits) => {
+          const memo = new AnalysisMemo();
+          let study = base;
+          plainOf(study, memo);
+          for (const [edit, i, x] of edits) {
+            study = EDITS[edit](study, i, x);
+            expect(plainOf(study, memo)).toEqual(plainOf(study));
+          }
+        },
+      ),
+      { numRuns: 12 },
+    );
   });
 });
