@@ -191,36 +191,36 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       findings.push(finding);
     }
   }
-  if (findings.length === 0) {
+  // The range told is the first case's that has one: a three-phase fault may stay below both pickups where
+  // the ground-fault elements still see a ground fault.
+  const first = check.cases.find((c) => c.intervals.length > 0);
+  if (findings.length === 0 && first) {
     const all = check.cases.flatMap((c) => c.intervals);
-    const first = check.cases[0];
-    if (all.length > 0) {
-      const least = all.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
-      const range = rangeOf(
-        all[0].fromAmps,
-        first.intervals[first.intervals.length - 1].toAmps,
-        first.referenceVolts,
-        voltages,
-      );
-      const finding = withLazyText<Finding>(
-        {
-          id: ['coordination:', check.upstream, '/', check.downstream].join(''),
-          kind: 'coordination',
-          severity: 'ok',
-          status: 'selective',
-          title: [up, ' over ', down, ': selective'].join(''),
-          subjects,
-          range,
-          worst: least.worst,
-        },
-        {
-          explanation: () =>
-            `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
-        },
-        { basis: check.rule.basis, referenceVolts: first.referenceVolts },
-      );
-      findings.push(finding);
-    }
+    const least = all.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
+    const range = rangeOf(
+      first.intervals[0].fromAmps,
+      first.intervals[first.intervals.length - 1].toAmps,
+      first.referenceVolts,
+      voltages,
+    );
+    const finding = withLazyText<Finding>(
+      {
+        id: ['coordination:', check.upstream, '/', check.downstream].join(''),
+        kind: 'coordination',
+        severity: 'ok',
+        status: 'selective',
+        title: [up, ' over ', down, ': selective'].join(''),
+        subjects,
+        range,
+        worst: least.worst,
+      },
+      {
+        explanation: () =>
+          `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
+      },
+      { basis: check.rule.basis, referenceVolts: first.referenceVolts },
+    );
+    findings.push(finding);
   }
   return findings;
 }

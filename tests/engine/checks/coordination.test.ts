@@ -135,6 +135,34 @@ describe('checkPair for a ground fault', () => {
     assertInDelta(intervals[2].toAmps, 2400 * Math.sqrt(30), 1e-5);
   });
 
+  it('a source so weak that no three-phase fault reaches a phase pickup still checks the ground-fault case', () => {
+    // 300 A available: below both long-time pickups (400 A and 2000 A, less 10 %), above the feeder's
+    // ground-fault pickup (120 A less 10 %). The pair's one finding spans the ground-fault case (it used
+    // to throw, reading the empty three-phase case).
+    const study = groundStudy();
+    study.source = { kind: 'utility', id: 'U', bus: 'A', max: { available: '300 A' } };
+    study.devices![0].characteristic = {
+      kind: 'trip-unit',
+      sensor: 2000,
+      longTime: { pickup: 1, delay: 10 },
+      ground: { pickup: 0.2, delay: 0.5 },
+    };
+    study.devices![1].characteristic = {
+      kind: 'trip-unit',
+      sensor: 400,
+      longTime: { pickup: 1, delay: 10 },
+      ground: { pickup: 0.3, delay: 0.1 },
+    };
+    const analysis = analyseStudy(parseStudy(study));
+    expect(analysis.pairs[0].cases.map((c) => [c.fault, c.intervals.length > 0])).toEqual([
+      ['three-phase', false],
+      ['ground-fault', true],
+    ]);
+    const [finding] = analysis.findings.filter((f) => f.kind === 'coordination');
+    expect([finding.severity, finding.title]).toEqual(['ok', 'MAIN over FDR: selective']);
+    assertInDelta(finding.range!.fromAmps, 108, 1e-9);
+  });
+
   it('says the overlap is for a ground fault', () => {
     const finding = analyseStudy(parseStudy(groundStudy())).findings.find((f) => f.status === 'overlap')!;
     expect(finding.title).toBe('MAIN over FDR: overlap for a ground fault');
