@@ -35,7 +35,7 @@ type Json = null | boolean | number | string | Json[] | { [key: string]: Json };
 type Doc = { [key: string]: Json };
 type Random = () => number;
 
-const DEMOS = ['selective', 'overlap', 'fused', 'full'].map((name) => ({
+const DEMOS = ['selective', 'overlap', 'fused', 'full', 'standby', 'standby-overlap'].map((name) => ({
   name,
   doc: JSON.parse(readFileSync(`demo/harrowmere-${name}.json`, 'utf8')) as Doc,
 }));

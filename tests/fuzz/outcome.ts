@@ -1,6 +1,6 @@
-import { analyseStudy } from '../../src/engine/analysis.ts';
 import { InputError } from '../../src/engine/errors.ts';
 import { csvReport, markdownReport } from '../../src/engine/report/index.ts';
+import { analyseScenarios } from '../../src/engine/scenario/index.ts';
 import { formatProblem, readStudy } from '../../src/engine/study/index.ts';
 import { sheetOf } from '../../src/plot/sheet.ts';
 import { svgOf } from '../../src/plot/svg.ts';
@@ -41,8 +41,9 @@ export function firstNonsense(output: string, echoed: Set<string>, nonsense = NO
 }
 
 /**
- * Reads a study text the way every verb does, then, when it is accepted, analyses it, writes the
- * Markdown and CSV reports and draws the first view (geometry and SVG). An `InputError` thrown after
+ * Reads a study text the way every verb does, then, when it is accepted, analyses it (in every scenario
+ * when it can be switched), writes the Markdown and CSV reports and, for a study that cannot be
+ * switched, draws the first view (geometry and SVG). An `InputError` thrown after
  * loading counts as refused (its message is checked like any other); anything else thrown is a crash.
  *
  * @example outcomeOf(readFileSync('demo/harrowmere-selective.json', 'utf8')).kind // 'analysed'
@@ -51,8 +52,9 @@ export function outcomeOf(text: string): Outcome {
   const { study, problems } = readStudy(text);
   if (!study) return { kind: 'refused', message: formatProblem(problems[0]) };
   try {
-    const analysis = analyseStudy(study);
-    const view = study.views[0];
+    const analysis = analyseScenarios(study);
+    // A study that can be switched is drawn a scenario at a time (`discern plot --scenario`).
+    const view = analysis.scenarios ? undefined : study.views[0];
     const svg = view ? svgOf(sheetOf(viewInputOf(analysis, view.id))) : '';
     return { kind: 'analysed', output: `${markdownReport(analysis)}\n${csvReport(analysis)}\n${svg}` };
   } catch (error) {
