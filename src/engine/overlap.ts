@@ -61,7 +61,7 @@ export interface OverlapOptions {
   tolerance?: number;
 }
 
-/** Golden-section steps spent on each dip or peak of the time ratio (its turn to 0.2 % of a cell). */
+/** Golden-section steps spent on each dip or peak of the slack (its turn to 0.2 % of a cell). */
 const TURN_STEPS = 10;
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
 /** Cells of the grid in each smooth segment, however short (its ends and the point just below its top are always evaluated). */
@@ -74,8 +74,8 @@ const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not 
  * told apart (DEVELOPERS.md, bands and overlaps). The range is split at every breakpoint of both
  * bands, each smooth segment is sampled on a log grid (evaluated once), the class just past every
  * jump of the upstream time from never inside a cell (a pickup, the horizon) is probed, so is every
- * local dip or peak of the time ratio at its turn, and every change of class is bracketed and refined
- * to `tolerance`: at a breakpoint in one step, elsewhere by Illinois regula falsi on the logarithm of
+ * local dip or peak of the slack (`up.minTime · timeRatio − down.maxTime − margin`) at its turn, and
+ * every change of class is bracketed and refined to `tolerance`: at a breakpoint in one step, elsewhere by Illinois regula falsi on the logarithm of
  * the times, which needs a handful of evaluations where bisection needs twenty.
  *
  * At each current: `overlap` where `up.minTime · timeRatio < down.maxTime + margin` (so also where the
@@ -122,7 +122,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
 
   // Stage 1: the grid — range ends, every breakpoint inside, and log-spaced samples between them —
   // evaluated once; where an edge's time jumps from never inside a cell the class just past the jump
-  // is probed (`probeJumpsFromNever`), and each local dip or peak of the time ratio at its turn (a
+  // is probed (`probeJumpsFromNever`), and each local dip or peak of the slack at its turn (a
   // golden-section search between its neighbours, `probeDipsAndPeaks`), so that a narrow class cannot
   // hide inside a cell.
   let count = gridOf(fromAmps, toAmps, up.breakpoints, down.breakpoints, samplesPerDecade, tolerance);
@@ -280,8 +280,8 @@ function probe(amps: number): number {
 
 /**
  * Probes at `e^x` and keeps it in `scratch.best` (current, class, upstream and downstream time,
- * `sign` × ratio) if `sign` × its ratio is the lowest so far (`sign` 1 seeks a dip, −1 a peak);
- * returns `sign` × the ratio.
+ * `sign` × slack) if `sign` × its slack is the lowest so far (`sign` 1 seeks a dip, −1 a peak);
+ * returns `sign` × the slack.
  */
 function probeKeepingLowest(x: number, sign: number): number {
   const amps = Math.exp(x);
