@@ -75,8 +75,9 @@ const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not 
  * bands, each smooth segment is sampled on a log grid (evaluated once), the class just past every
  * jump of the upstream time from never inside a cell (a pickup, the horizon) is probed, so is every
  * local dip or peak of the slack (`up.minTime · timeRatio − down.maxTime − margin`) at its turn, and
- * every change of class is bracketed and refined to `tolerance`: at a breakpoint in one step, elsewhere by Illinois regula falsi on the logarithm of
- * the times, which needs a handful of evaluations where bisection needs twenty.
+ * every change of class is bracketed and refined to `tolerance`: at a breakpoint in one step, elsewhere
+ * by Illinois regula falsi on the logarithm of the times, which needs a handful of evaluations where
+ * bisection needs twenty.
  *
  * At each current: `overlap` where `up.minTime · timeRatio < down.maxTime + margin` (so also where the
  * upstream device operates on a current the downstream one carries indefinitely); `thin margin` where the
