@@ -5,6 +5,7 @@ import { cableFindings } from './checks/cableProtection.ts';
 import { protectingDevice, type CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
 import { decrementFindings } from './checks/decrementCoordination.ts';
+import { expectedGot, InputError } from './errors.ts';
 import type { Finding, Severity } from './checks/finding.ts';
 import { busRatingFindings, interruptingFindings } from './checks/interruptingDuty.ts';
 import { motorFindings } from './checks/motorStarting.ts';
@@ -37,12 +38,14 @@ export interface Analysis {
 }
 
 /**
- * Runs every check on a study that `readStudy` accepted: fault levels at every bus, each device's
- * band, every series pair (DEVELOPERS.md, bands and overlaps), transformer through-fault and inrush protection, NEC 450.3
- * limits, cable short-circuit protection, motor starting, interrupting duty and equipment short-circuit
- * ratings (NFPA 70 110.9, 110.10) and sensitivity to the minimum fault in each zone. Pure: the result
- * depends only on `study`; a `memo` kept from the analysis before an edit (see `AnalysisMemo`) only
- * saves the work of what the edit did not change.
+ * Runs every check on a radial study that `readStudy` accepted, every bus fed by its source (a study
+ * that can be switched, with a bus fed only in some scenarios, goes through `analyseScenarios`): fault
+ * levels at every bus, each device's band, every series pair (DEVELOPERS.md, bands and overlaps),
+ * transformer through-fault and inrush protection, NEC 450.3 limits, cable short-circuit protection,
+ * motor starting, interrupting duty and equipment short-circuit ratings (NFPA 70 110.9, 110.10) and
+ * sensitivity to the minimum fault in each zone. Pure: the result depends only on `study`; a `memo`
+ * kept from the analysis before an edit (see `AnalysisMemo`) only saves the work of what the edit did
+ * not change.
  *
  * @example const { findings } = analyseStudy(parseStudy(text))
  */
@@ -50,6 +53,15 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
   const network = networkOf(study);
   // With a memo (the workbench, edit after edit) unchanged fault levels and pairs are taken from it.
   const faults = memo ? memo.faultsOf(network) : faultLevelsOf(network);
+  // A bus no source feeds (behind an open switch, or a standby generator's) has no fault level: such a
+  // study is worked out a scenario at a time, each scenario's trees radial (`analyseScenarios`).
+  const unfed = study.buses.find((bus) => !faults.buses.has(bus.id));
+  if (unfed) {
+    throw new InputError(
+      `study.buses`,
+      expectedGot('every bus fed by the source (a study that can be switched goes through analyseScenarios)', unfed.id),
+    );
+  }
   // Equal characteristics share one band (a site's many identical breakers are built once).
   const bands = new Map(study.devices.map((device) => [device.id, cachedBandOf(device.characteristic)]));
   const context: CheckContext = { network, faults, bands };

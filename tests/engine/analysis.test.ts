@@ -36,6 +36,14 @@ describe('analyseStudy', () => {
     );
   });
 
+  it('refuses a study with a bus no source feeds, naming the way such a study is analysed', () => {
+    // The standby demo's generator bus is fed only in the scenarios that run the generator.
+    const standby = parseStudy(readFileSync('demo/harrowmere-standby.json', 'utf8'));
+    expect(() => analyseStudy(standby)).toThrow(
+      /^study\.buses: expected every bus fed by the source \(a study that can be switched goes through analyseScenarios\), got "GEN"$/,
+    );
+  });
+
   it('finds nothing failing in the selective demo, as its description claims', () => {
     expect(failing('selective')).toEqual([]);
   });
