@@ -3,7 +3,10 @@ import { HALF_CYCLE_SECONDS, type Band } from './band.ts';
 /** How a pair of bands relates over a current interval (DEVELOPERS.md, bands and overlaps). */
 export type IntervalStatus = 'selective' | 'thin margin' | 'overlap' | 'not provable from curves';
 
-/** The point of an interval where the upstream device comes closest to (or furthest inside) the downstream band. */
+/**
+ * The point of an interval where the upstream device comes closest to (or furthest inside) the downstream
+ * band: the least time ratio, and among equal ratios (two I²t curves keep one) the least slack.
+ */
 export interface WorstPoint {
   /** Current in amps (on the bands' common base). */
   amps: number;
@@ -64,6 +67,8 @@ export interface OverlapOptions {
 /** Golden-section steps spent on each dip or peak of the slack (its turn to 0.2 % of a cell). */
 const TURN_STEPS = 10;
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
+/** Time ratios within this relative difference are one ratio when the worst point is chosen. */
+const RATIO_TIE = 1e-9;
 /** Cells of the grid in each smooth segment, however short (its ends and the point just below its top are always evaluated). */
 const MIN_CELLS = 1;
 
@@ -171,7 +176,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
       refineEdge(lo, loUp, loDown, points[i], upTimes[i], downTimes[i], current);
       const lastRatio = ratioOf(edge[LO_UP], edge[LO_DOWN]);
       const lastMargin = marginOf(edge[LO_UP], edge[LO_DOWN]);
-      if (lastRatio < worstRatio || (lastRatio === worstRatio && lastMargin < worstMargin)) {
+      if (isWorse(lastRatio, lastMargin, worstRatio, worstMargin)) {
         worstAmps = edge[LO];
         worstUp = edge[LO_UP];
         worstDown = edge[LO_DOWN];
@@ -191,7 +196,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     }
     const ratio = ratioOf(upTimes[i], downTimes[i]);
     const slack = upTimes[i] * timeRatio - (downTimes[i] + margin);
-    if (ratio < worstRatio || (ratio === worstRatio && slack < worstMargin)) {
+    if (isWorse(ratio, slack, worstRatio, worstMargin)) {
       worstAmps = points[i];
       worstUp = upTimes[i];
       worstDown = downTimes[i];
@@ -203,6 +208,15 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
   intervals.push({ fromAmps: start, toAmps, status: STATUSES[current], worst });
   // An exact-size copy (an array grown by `push` keeps room for 17 items): a study keeps thousands.
   return intervals.slice();
+}
+
+/**
+ * Whether a point (its time ratio and slack) is worse than the interval's worst so far: a lower ratio,
+ * or, where the ratios agree to a relative 1e-9 (two I²t curves keep a constant ratio, and rounding
+ * alone then picks among their points), less slack, the closest the curves come in seconds.
+ */
+function isWorse(ratio: number, slack: number, worstRatio: number, worstSlack: number): boolean {
+  return ratio < worstRatio * (1 - RATIO_TIE) || (ratio <= worstRatio * (1 + RATIO_TIE) && slack < worstSlack);
 }
 
 /**

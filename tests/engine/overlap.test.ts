@@ -54,6 +54,15 @@ function statuses(intervals: OverlapInterval[]): string[] {
 }
 
 describe('findOverlaps', () => {
+  it('where two I²t ramps keep one time ratio, the worst point is their closest approach in seconds', () => {
+    // t_up = 2.9e6 / I², t_down = 1.3e6 / I² above 200 A: the ratio is 2.9 / 1.3 everywhere (to rounding, which
+    // alone used to pick among the points), the slack 1.6e6 / I² least at the top, 1.6e6 / 3000² = 0.178 s.
+    const intervals = findOverlaps(ramp(2.9e6, 200), ramp(1.3e6, 200), { toAmps: 3000 });
+    expect(statuses(intervals)).toEqual(['selective']);
+    expect(intervals[0].worst.amps).toBe(3000);
+    assertInDelta(intervals[0].worst.marginSeconds, 1.6e6 / 3000 ** 2, 1e-12);
+  });
+
   it('has the expected defaults: no margin, ratio 1, thin below 0.1 s, range from the lowest pickup', () => {
     const intervals = findOverlaps(definite(500, 1), ramp(1e6, 100), { toAmps: 10_000 });
     expect(intervals[0].fromAmps).toBe(100);
