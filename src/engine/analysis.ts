@@ -58,7 +58,7 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
   const unfed = study.buses.find((bus) => !faults.buses.has(bus.id));
   if (unfed) {
     throw new InputError(
-      `study.buses`,
+      'study.buses',
       expectedGot('every bus fed by the source (a study that can be switched goes through analyseScenarios)', unfed.id),
     );
   }

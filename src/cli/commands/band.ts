@@ -77,12 +77,12 @@ export const bandCommand: Command = {
   },
 };
 
-/** The `--amps` list: each a current greater than 0, a plain number in amperes or text with a unit. */
+/** The `--amps` list: each a current, a plain number in amperes or text with a unit. */
 function ampsOf(text: string): number[] {
+  // Each a current a study could hold (1 mA to 10 MA): a denormal such as 1e-310 A would print as 0 A.
+  const { smallest, largest } = PHYSICAL_RANGES.current;
+  const expected = `currents between ${smallest} A and ${largest} A separated by commas`;
   return text.split(',').map((part) => {
-    // A current the study itself could hold (from 1 mA to 10 MA): 1e-310 A printed as 0 A.
-    const { smallest, largest } = PHYSICAL_RANGES.current;
-    const expected = `currents between ${smallest} A and ${largest} A separated by commas`;
     let value: number;
     try {
       value = parseQuantity(part.trim(), 'current');
