@@ -10,13 +10,13 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { hostileStudies, seededRandom } from '../tests/fuzz/hostileStudies.ts';
-import { echoedWords, firstNonsense } from '../tests/fuzz/outcome.ts';
+import { echoedWords, firstNonsense, STUDY_PATH } from '../tests/fuzz/outcome.ts';
 
 const HANG_SECONDS = 10;
 /** The command line is bundled once, like the installed `discern`, so start-up does not count as a hang. */
 const BUNDLE = 'node_modules/.cache/discern-fuzz';
 const NONSENSE = /\bNaN\b|-?Infinity|\bundefined\b/;
-const FIELD_ERROR = /^(study(?:[.[](?:"[^"\n]*"|[^:\n])*)?|--[a-z-]+): expected [^\n]*$/;
+const FIELD_ERROR = new RegExp(String.raw`^(${STUDY_PATH}|--[a-z-]+): expected [^\n]*$`);
 
 const argv = process.argv.slice(2);
 const option = (name: string, fallback: number) => {

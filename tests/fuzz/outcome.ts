@@ -14,10 +14,13 @@ export type Outcome =
 export const NONSENSE = /\bNaN\b|-?Infinity|\bundefined\b|\bnull\b/;
 
 /**
- * A one-line message naming a field path of the study: `study.buses[1].voltage: expected …`; a quoted
- * field name may hold a colon (`study.motors[0]["name: "]`, from broken JSON).
+ * A field path of the study, as a regular expression's source: `study.buses[1].voltage`; a quoted field
+ * name may hold a colon (`study.motors[0]["name: "]`, from broken JSON).
  */
-export const FIELD_MESSAGE = /^study(?:[.[](?:"[^"\n]*"|[^:\n])*)?: expected [^\n]*$/;
+export const STUDY_PATH = String.raw`study(?:[.[](?:"[^"\n]*"|[^:\n])*)?`;
+
+/** A one-line message naming a field path of the study: `study.buses[1].voltage: expected …`. */
+export const FIELD_MESSAGE = new RegExp(String.raw`^${STUDY_PATH}: expected [^\n]*$`);
 
 /**
  * The words of `nonsense` that a study's own strings hold (a bus named "Infinity"): printed back they
