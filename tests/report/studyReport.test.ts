@@ -32,11 +32,6 @@ const detailed = demo('harrowmere-selective', (raw) => {
     { revision: 'B', date: '2026-12-02', by: 'discern demo', description: 'main short-time delay raised' },
   ];
 });
-function text(report: ReturnType<typeof studyReportOf>, index: number): string {
-  const pages = reportPagesOf(report, { paper: 'letter', orientation: 'portrait' });
-  const items = pages[index].drawing.layers.flatMap((layer) => layer.items);
-  return items.flatMap((item) => (item.type === 'text' ? [item.text] : [])).join('\n');
-}
 
 describe('studyReportOf', () => {
   it('has the expected defaults: the sections in the order a study is read', () => {
@@ -79,8 +74,14 @@ describe('studyReportOf', () => {
 
   it('paginates with a contents page whose numbers point at each section, and a caution on every page', () => {
     const report = studyReportOf(analyseStudy(detailed));
+    // A4 here, so the contents page and the pages it points at are laid out on the same paper.
     const pages = reportPagesOf(report, { paper: 'a4', orientation: 'portrait' });
-    const contents = text(report, 1);
+    const textOf = (index: number) =>
+      pages[index].drawing.layers
+        .flatMap((layer) => layer.items)
+        .flatMap((item) => (item.type === 'text' ? [item.text] : []))
+        .join('\n');
+    const contents = textOf(1);
     report.sections.forEach((section, i) => {
       const match = new RegExp(`^(\\d+)$`, 'm');
       expect(contents).toContain(`${i + 1}. ${section.title}`);
@@ -90,7 +91,7 @@ describe('studyReportOf', () => {
       item.type === 'text' && /^\d+$/.test(item.text) ? [Number(item.text)] : [],
     );
     expect(numbers).toHaveLength(report.sections.length);
-    numbers.forEach((page, i) => expect(text(report, page - 1)).toContain(`${i + 1}. ${report.sections[i].title}`));
+    numbers.forEach((page, i) => expect(textOf(page - 1)).toContain(`${i + 1}. ${report.sections[i].title}`));
     pages.forEach((page, i) => {
       const words = page.drawing.layers[0].items.flatMap((item) => (item.type === 'text' ? [item.text] : []));
       expect(words.join(' ')).toContain(CAUTION.slice(0, 30));
