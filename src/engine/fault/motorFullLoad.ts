@@ -53,7 +53,13 @@ export function motorFullLoadOf(motor: MotorFullLoadInput, volts: number): Motor
  * @example motorFullLoadAmps({ hp: 100 }, 460) // 124 A (NFPA 70 Table 430.250)
  */
 export function motorFullLoadAmps(motor: MotorFullLoadInput, volts: number): number {
-  return motorFullLoadOf(motor, volts).amps;
+  // The same order as `motorFullLoadOf`, without writing its basis (the load check asks for every
+  // motor below every feeder).
+  if (motor.fullLoadAmps !== undefined) return motor.fullLoadAmps;
+  const divisor = motor.phases === 1 ? volts : Math.sqrt(3) * volts;
+  if (motor.rating !== undefined) return motor.rating / divisor;
+  const hp = motor.hp ?? 0;
+  return tableFullLoadAmps(hp, volts, motor.phases ?? 3)?.amps ?? (hp * 1000) / divisor;
 }
 
 /**

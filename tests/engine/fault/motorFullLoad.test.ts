@@ -99,6 +99,25 @@ describe('motorFullLoadOf', () => {
     expect(motorFullLoadOf({ rating: 150e3, hp: 150 }, 480).basis).toBe('S / (√3 · V) from 150 kVA');
   });
 
+  it('gives motorFullLoadAmps the same current as motorFullLoadOf, source by source', () => {
+    const motors = [
+      { fullLoadAmps: 77, rating: 150e3, hp: 100 },
+      { rating: 150e3, hp: 100 },
+      { rating: 12e3, phases: 1 as const },
+      { hp: 100 },
+      { hp: 12 },
+      { hp: 0.333 },
+      { hp: 3, phases: 1 as const },
+      { hp: 5000 },
+      {},
+    ];
+    for (const motor of motors)
+      for (const volts of [120, 208, 240, 480, 600, 4160, 13800])
+        expect(motorFullLoadAmps(motor, volts), `${JSON.stringify(motor)} at ${volts} V`).toBe(
+          motorFullLoadOf(motor, volts).amps,
+        );
+  });
+
   it('keeps the tables in ascending horsepower and falling current with voltage', () => {
     for (const table of [TABLE_430_250, TABLE_430_248]) {
       table.rows.forEach(([hp, amps], i) => {
