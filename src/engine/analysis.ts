@@ -8,6 +8,7 @@ import { decrementFindings } from './checks/decrementCoordination.ts';
 import { expectedGot, InputError } from './errors.ts';
 import type { Finding, Severity } from './checks/finding.ts';
 import { busRatingFindings, interruptingFindings } from './checks/interruptingDuty.ts';
+import { loadFindings } from './checks/loadCarrying.ts';
 import { motorFindings } from './checks/motorStarting.ts';
 import { nec450Findings } from './checks/nec450.ts';
 import { sensitivityFindings } from './checks/sensitivity.ts';
@@ -27,8 +28,8 @@ export interface Analysis {
   /** Every series pair, with its classified current intervals. */
   pairs: PairCheck[];
   /**
-   * Findings in the order: pairs (top down), transformers, code limits, cables, motors, interrupting
-   * duty, equipment short-circuit ratings, sensitivity, settings.
+   * Findings in the order: pairs (top down), transformers, code limits, cables, motors, loads carried,
+   * interrupting duty, equipment short-circuit ratings, sensitivity, settings.
    */
   findings: Finding[];
   /** How many findings of each severity. */
@@ -42,8 +43,8 @@ export interface Analysis {
  * that can be switched, with a bus fed only in some scenarios, goes through `analyseScenarios`): fault
  * levels at every bus, each device's band, every series pair (DEVELOPERS.md, bands and overlaps),
  * transformer through-fault and inrush protection, NEC 450.3 limits, cable short-circuit protection,
- * motor starting, interrupting duty and equipment short-circuit ratings (NFPA 70 110.9, 110.10) and
- * sensitivity to the minimum fault in each zone. Pure: the result depends only on `study`; a `memo`
+ * motor starting, each pickup against the load it feeds, interrupting duty and equipment short-circuit
+ * ratings (NFPA 70 110.9, 110.10) and sensitivity to the minimum fault in each zone. Pure: the result depends only on `study`; a `memo`
  * kept from the analysis before an edit (see `AnalysisMemo`) only saves the work of what the edit did
  * not change.
  *
@@ -110,6 +111,8 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
     const device = protectingDevice(context, motor.id);
     findings.push(...remembered(`motor:${motor.id}`, [motor, device], () => motorFindings(context, motor)));
   }
+  for (const device of study.devices)
+    findings.push(...remembered(`load:${device.id}`, [device], () => loadFindings(network, device)));
   for (const device of study.devices) findings.push(...interruptingFindings(context, device, study.frequency));
   for (const bus of study.buses) findings.push(...busRatingFindings(context, bus, study.frequency));
   for (const device of study.devices)

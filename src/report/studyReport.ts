@@ -121,6 +121,7 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
         'Withstand curves: IEEE C57.109 (liquid-immersed) and IEEE C57.12.59 (dry-type) transformer through-fault curves; ICEA P-32-382 conductor short-circuit limits; transformer magnetising inrush at 8–12 × full-load current for 0.1 s (common practice).',
         `Coordination: every series pair is checked over the currents both devices can see, up to the maximum fault at the downstream device, with the required margins below; below one half-cycle (${significant(study.coordination.halfCycle, 3)} s) curves cannot prove selectivity, and such regions are reported as not provable from curves.`,
         `Code limits: NFPA 70 (${study.coordination.edition} edition) 450.3 for transformer overcurrent protection.`,
+        'Load: each pickup is checked against the load it feeds: a transformer’s rated current for its primary device and its secondary main (common practice), 125 % of a motor’s full-load current (NFPA 70 430.22), for a feeder 125 % of the largest motor below plus the others’ (430.24) and the rated current of the transformers below. A pickup below it is a warning: where the load never runs all at once, a lower setting may be meant.',
       ],
     },
     ...(margins.length > 0

@@ -28,6 +28,7 @@ describe('analyseStudy', () => {
       'nec-450.3',
       'cable-withstand',
       'motor-starting',
+      'carry-load',
     ]) {
       expect(kinds).toContain(kind);
     }

@@ -8,6 +8,7 @@ export type FindingKind =
   | 'nec-450.3'
   | 'cable-withstand'
   | 'motor-starting'
+  | 'carry-load'
   | 'interrupting-duty'
   | 'short-circuit-rating'
   | 'sensitivity'

@@ -5,6 +5,7 @@ import { nameOf, protectingDevice } from '../checks/context.ts';
 import { checkPair } from '../checks/coordination.ts';
 import type { Finding } from '../checks/finding.ts';
 import { marginRuleOf, type MarginRule } from '../checks/margins.ts';
+import { carriesLoad, fullLoadOf, pickupAmpsOf } from '../checks/loadBelow.ts';
 import { motorFindings } from '../checks/motorStarting.ts';
 import { nec450Findings } from '../checks/nec450.ts';
 import { sensitivityCasesOf } from '../checks/sensitivity.ts';
@@ -12,8 +13,6 @@ import { transformerFindings } from '../checks/transformerProtection.ts';
 import { locationBusOf } from '../network/index.ts';
 import { inrushMarkersOf, type Marker } from '../withstand/index.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
-import type { Device } from '../study/index.ts';
-import { fullLoadOf } from './fullLoad.ts';
 import type { Trial } from './trial.ts';
 
 /** What a constraint is about (DEVELOPERS.md, names "constraint"). */
@@ -159,7 +158,7 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
     });
   }
 
-  const load = fullLoadOf(trial, device);
+  const load = fullLoadOf(trial.network, device);
   if (load) {
     constraints.push({
       id: 'load',
@@ -170,13 +169,13 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
       subjects: load.subjects,
       evaluate: (t) => {
         const pickup = pickupAmpsOf(t.deviceOf(deviceId));
-        const margin = pickup - load.requiredAmps;
-        // A relative tolerance keeps a pickup set exactly at the requirement on the right side of it.
-        const ok = margin >= -1e-9 * load.requiredAmps;
+        if (pickup === undefined)
+          return { ok: true, clean: true, margin: Infinity, unit: 'A', text: 'no rating given' };
+        const ok = carriesLoad(pickup, load.requiredAmps);
         return {
           ok,
           clean: ok,
-          margin,
+          margin: pickup - load.requiredAmps,
           unit: 'A',
           text: `pickup ${formatAmps(pickup, 3)} against ${formatAmps(load.requiredAmps, 3)}`,
         };
@@ -260,21 +259,6 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
     },
   });
   return constraints;
-}
-
-/** The nominal (lowest-element) pickup of a device in amperes at its own voltage, as the load rule compares it. */
-export function pickupAmpsOf(device: Device): number {
-  const c = device.characteristic;
-  switch (c.kind) {
-    case 'trip-unit':
-      return c.longTime.pickup * c.sensor;
-    case 'relay':
-      return ((c.timeOvercurrent?.pickup ?? c.instantaneous?.pickup ?? 0) * c.ct.primary) / c.ct.secondary;
-    case 'thermal-magnetic':
-      return c.rating;
-    case 'fuse':
-      return device.rating ?? 0;
-  }
 }
 
 /** A pair constraint; `which` says whether the window's device is the upper ('below' rows) or lower one. */

@@ -1,6 +1,6 @@
 export { settingWindowOf, windowIn, overridesOf } from './settingWindow.ts';
 export type { SettingWindow, SettingWindowOptions, SettingRow, SwitchRow } from './settingWindow.ts';
-export { constraintsOf, pickupAmpsOf } from './constraints.ts';
+export { constraintsOf } from './constraints.ts';
 export type { Constraint, ConstraintKind, ConstraintResult, ConstraintsOptions, Favours } from './constraints.ts';
 export { recommendationOf, TIE_BREAK } from './recommendation.ts';
 export type {
@@ -34,8 +34,6 @@ export type {
   AdjustableSettingsOptions,
 } from './settings.ts';
 export { settingText, changesText } from './settingText.ts';
-export { fullLoadOf } from './fullLoad.ts';
-export type { FullLoad } from './fullLoad.ts';
 export { trialOf } from './trial.ts';
 export type { Trial, ProtectedElements } from './trial.ts';
 export { proposeSettings, PROPOSAL_ORDER } from './proposal.ts';

@@ -1,7 +1,8 @@
 import { locationBusOf } from '../network/index.ts';
 import { evaluateAt, type Memo } from './evaluation.ts';
 import type { Device } from '../study/index.ts';
-import { pickupAmpsOf, type Constraint, type ConstraintResult } from './constraints.ts';
+import { pickupAmpsOf } from '../checks/loadBelow.ts';
+import type { Constraint, ConstraintResult } from './constraints.ts';
 import { bindingOf, rangeBinding, type Binding } from './settingInterval.ts';
 import {
   adjustableSettingsOf,
@@ -263,7 +264,7 @@ function roundUp(value: number): number {
 /** From the present pickup to the largest fault where the device sits (A): the range the clearing score averages over. */
 function clearingRangeOf(trial: Trial, device: Device): [number, number] {
   const to = trial.faults.buses.get(locationBusOf(trial.network, device).id)!.max.largest;
-  const from = Math.max(pickupAmpsOf(device), 1e-3);
+  const from = Math.max(pickupAmpsOf(device) ?? 0, 1e-3);
   return [from, Math.max(to, from * 10)];
 }
 

@@ -68,7 +68,8 @@ export function workedStudy(): StudyInput {
 /**
  * The failing findings about a device once one setting is changed in the file and the whole study is
  * checked again: the independent reading the window must agree with (interrupting duty aside, which
- * is reported rather than set).
+ * is reported rather than set). A pickup below the load it feeds is only a warning in the check, but
+ * a bound of the window, so it counts here.
  */
 export function failuresWith(input: StudyInput, deviceId: string, changes: Record<string, SettingValue>) {
   const changed = withSettingChanges(
@@ -76,6 +77,9 @@ export function failuresWith(input: StudyInput, deviceId: string, changes: Recor
     Object.entries(changes).map(([key, to]) => ({ deviceId, key, to })),
   );
   return analyseStudy(parseStudy(changed)).findings.filter(
-    (f) => f.severity === 'fail' && f.subjects.includes(deviceId) && f.kind !== 'interrupting-duty',
+    (f) =>
+      (f.severity === 'fail' || (f.kind === 'carry-load' && f.severity === 'warning')) &&
+      f.subjects.includes(deviceId) &&
+      f.kind !== 'interrupting-duty',
   );
 }
