@@ -1,6 +1,7 @@
 import type { Band } from './band.ts';
 import { cachedBandOf } from './bandCache.ts';
 import type { AnalysisMemo } from './incremental.ts';
+import { cableAmpacityFindings } from './checks/cableAmpacity.ts';
 import { cableFindings } from './checks/cableProtection.ts';
 import { protectingDevice, type CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
@@ -28,7 +29,8 @@ export interface Analysis {
   /** Every series pair, with its classified current intervals. */
   pairs: PairCheck[];
   /**
-   * Findings in the order: pairs (top down), transformers, code limits, cables, motors, loads carried,
+   * Findings in the order: pairs (top down), transformers, code limits, cables (short circuit, then
+   * ampacity), motors, loads carried,
    * interrupting duty, equipment short-circuit ratings, sensitivity, settings.
    */
   findings: Finding[];
@@ -42,9 +44,10 @@ export interface Analysis {
  * Runs every check on a radial study that `readStudy` accepted, every bus fed by its source (a study
  * that can be switched, with a bus fed only in some scenarios, goes through `analyseScenarios`): fault
  * levels at every bus, each device's band, every series pair (DEVELOPERS.md, bands and overlaps),
- * transformer through-fault and inrush protection, NEC 450.3 limits, cable short-circuit protection,
- * motor starting, each pickup against the load it feeds, interrupting duty and equipment short-circuit
- * ratings (NFPA 70 110.9, 110.10) and sensitivity to the minimum fault in each zone. Pure: the result depends only on `study`; a `memo`
+ * transformer through-fault and inrush protection, NEC 450.3 limits, cable short-circuit and overload
+ * protection (ICEA P-32-382, NEC 240.4), motor starting, each pickup against the load it feeds,
+ * interrupting duty and equipment short-circuit ratings (NFPA 70 110.9, 110.10) and sensitivity to the
+ * minimum fault in each zone. Pure: the result depends only on `study`; a `memo`
  * kept from the analysis before an edit (see `AnalysisMemo`) only saves the work of what the edit did
  * not change.
  *
@@ -106,6 +109,7 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
     findings.push(
       ...remembered(`cable:${cable.id}`, [cable, device, horizon], () => cableFindings(context, cable, horizon)),
     );
+    findings.push(...remembered(`ampacity:${cable.id}`, [cable, device], () => cableAmpacityFindings(context, cable)));
   }
   for (const motor of study.motors) {
     const device = protectingDevice(context, motor.id);

@@ -87,8 +87,10 @@ describe('AnalysisMemo', () => {
       expect(plainOf(study, memo)).toEqual(plainOf(study));
       reused.push(memo.lastRun.itemsReused);
     }
-    // Per device its sensitivity and its load; per transformer its protection and NEC 450.3.
-    const items = 2 * study.devices.length + 2 * study.transformers.length + study.cables.length + study.motors.length;
+    // Per device its sensitivity and its load; per transformer its protection and NEC 450.3; per cable
+    // its short-circuit limit and its ampacity.
+    const items =
+      2 * study.devices.length + 2 * study.transformers.length + 2 * study.cables.length + study.motors.length;
     // After the setting edit all but a few items are kept; after the renaming and the cable, none is.
     expect(reused[0]).toBeGreaterThan(items - 6);
     expect(reused.slice(1, 3)).toEqual([0, 0]);

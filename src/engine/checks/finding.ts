@@ -7,6 +7,7 @@ export type FindingKind =
   | 'transformer-inrush'
   | 'nec-450.3'
   | 'cable-withstand'
+  | 'cable-ampacity'
   | 'motor-starting'
   | 'carry-load'
   | 'interrupting-duty'

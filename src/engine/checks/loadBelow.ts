@@ -41,26 +41,41 @@ export function fullLoadOf(network: Network, device: Device): FullLoad | undefin
       subjects: [element.item.id],
     };
   }
-  // A cable, or a bus fed by a cable: walk down to the loads, stopping at transformers.
+  // A cable, or a bus fed by a cable: the loads below its far end.
+  return loadBelowBus(network, element.type === 'cable' ? element.item.to : element.item.id, volts);
+}
+
+/**
+ * The loads below a bus, walking down cables and closed switches and stopping at transformers: 125 %
+ * of the largest motor's full-load current plus the others' (NEC 430.24; 430.22 for one motor) plus
+ * the rated current of each transformer, in amperes at `volts`. `undefined` when nothing below is a
+ * known load. `motors` counts the motors, for the rules that hold motor circuits apart (NEC 240.4(G)).
+ *
+ * @example loadBelowBus(network, 'MCC', 480)?.requiredAmps // 531
+ */
+export function loadBelowBus(
+  network: Network,
+  busId: string,
+  volts: number,
+): (FullLoad & { motors: number }) | undefined {
   let motors = 0;
   let motorsAmps = 0;
   let largest = 0;
   const transformers: string[] = [];
   let transformersAmps = 0;
   const subjects: string[] = [];
-  const start = element.type === 'cable' ? element.item.to : element.item.id;
-  const stack = [start];
+  const stack = [busId];
   while (stack.length > 0) {
-    const busId = stack.pop()!;
-    const busVolts = network.buses.get(busId)!.voltage;
-    for (const motor of network.motorsOn.get(busId) ?? []) {
+    const at = stack.pop()!;
+    const busVolts = network.buses.get(at)!.voltage;
+    for (const motor of network.motorsOn.get(at) ?? []) {
       const amps = (motorFullLoadAmps(motor, busVolts) * busVolts) / volts;
       motors++;
       motorsAmps += amps;
       if (amps > largest) largest = amps;
       subjects.push(motor.id);
     }
-    for (const branch of network.branchesFrom.get(busId) ?? []) {
+    for (const branch of network.branchesFrom.get(at) ?? []) {
       if (branch.type === 'cable' || branch.type === 'switch') stack.push(branch.item.to);
       else {
         transformersAmps += (transformerRatedAmps(branch.item, busVolts) * busVolts) / volts;
@@ -88,6 +103,7 @@ export function fullLoadOf(network: Network, device: Device): FullLoad | undefin
       .filter(Boolean)
       .join('; '),
     subjects,
+    motors,
   };
 }
 

@@ -286,6 +286,10 @@ export function createStudySchema(frequency = 60) {
         .max(100)
         .default(1)
         .meta({ description: 'parallel sets per phase; range 1 to 100 (large services run about 20 sets)' }),
+      ampacity: quantityField('current', { min: 0, exclusiveMin: true }).optional().meta({
+        description:
+          'ampacity of one conductor as installed, A; overrides NFPA 70 Table 310.16 at 75 °C (another ambient, more conductors, 60 °C terminations)',
+      }),
       resistance: z.number().min(0).max(100).optional().meta({
         description:
           'ohms per 1000 ft per conductor; overrides NEC Table 9 (MV cables); range 0 to 100 (14 AWG copper is about 3)',

@@ -1,5 +1,6 @@
 import type { Band } from '../band.ts';
 import { AHJ_SELECTIVITY_SECONDS, SELECTIVITY_ARTICLE } from '../checks/codeSelectivity.ts';
+import { cableAmpacityFindings } from '../checks/cableAmpacity.ts';
 import { cableFindings } from '../checks/cableProtection.ts';
 import { nameOf, protectingDevice } from '../checks/context.ts';
 import { checkPair } from '../checks/coordination.ts';
@@ -21,6 +22,7 @@ export type ConstraintKind =
   | 'coordinate-above'
   | 'transformer-withstand'
   | 'cable-withstand'
+  | 'cable-ampacity'
   | 'inrush'
   | 'motor-starting'
   | 'carry-load'
@@ -139,6 +141,23 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
       favours: 'faster',
       subjects: [cable.id],
       evaluate: (t) => withstandResult(cableFindings(t, cable, horizon)),
+    });
+  }
+  for (const cable of protects.cables) {
+    const name = cable.name ?? cable.id;
+    constraints.push({
+      id: `ampacity:${cable.id}`,
+      kind: 'cable-ampacity',
+      label: `protect ${name} at its ampacity`,
+      source: 'NFPA 70 240.4, Table 310.16',
+      // The rating NEC 240.4 compares is a setting only for a relay without a rating (its pickup).
+      favours: device.rating === undefined && device.characteristic.kind === 'relay' ? 'faster' : 'fixed',
+      subjects: [cable.id],
+      evaluate: (t) => {
+        const finding = cableAmpacityFindings(t, cable)[0];
+        const ok = finding?.severity !== 'fail';
+        return { ok, clean: ok, margin: ok ? 0 : -1, unit: 'A', text: finding?.explanation ?? 'nothing to compare' };
+      },
     });
   }
   for (const motor of protects.motors) {

@@ -207,6 +207,13 @@ function remediesFor(
           verified: false,
         },
       ];
+    case 'cable-ampacity':
+      return [
+        {
+          text: `Use a larger conductor or more parallel sets below ${name} (or a smaller CT ratio), so it can be set within NEC 240.4 while it waits for the devices below.`,
+          verified: false,
+        },
+      ];
     case 'nec-450.3':
       return [
         {

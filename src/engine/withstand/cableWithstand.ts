@@ -34,7 +34,7 @@ export const ICEA_LONGEST_SECONDS = 10;
 
 /** What the cable curve leaves out, in words for the sheet, the findings and the report. */
 export const CABLE_OVERLOAD_NOTE =
-  'short-circuit limit only: the overload region beyond 10 s is not covered (check the ampacity and overload protection, NFPA 70 240.4)';
+  'short-circuit limit only: the overload region beyond 10 s is not covered (overload protection is checked against the ampacity, NFPA 70 240.4, at 1000 V and below)';
 
 /** Options of `cableWithstandOf`. */
 export interface CableWithstandOptions {

@@ -18,6 +18,7 @@ const FINDING_KIND: Record<string, string> = {
   'nec-450.3': 'nec-450.3',
   sensitivity: 'sensitivity',
   'carry-load': 'carry-load',
+  'cable-ampacity': 'cable-ampacity',
 };
 
 /**
