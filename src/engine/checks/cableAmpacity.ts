@@ -112,7 +112,7 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
           : {
               suggestion: () =>
                 carries
-                  ? `Use a larger conductor or more parallel sets for ${name}, or a device rated ${formatAmps(allowed, 3)} or less (within the coordination above and below).`
+                  ? `Use a larger conductor or more parallel sets for ${name}, or a device rated ${formatAmps(allowed, 3)} or less (within the coordination above and below).${device.characteristic.kind === 'trip-unit' && device.rating === undefined ? ` Where access to ${deviceName}'s long-time setting is restricted (NFPA 70 240.6(C)), give its rating as that setting.` : ''}`
                   : `Use a larger conductor or more parallel sets for ${name}, to carry at least ${formatAmps(needed, 3)}.`,
             }),
         basis: () => `${conductors}: ${source}; NFPA 70 240.4${motors > 0 ? `; ${load!.source}` : ''}.`,

@@ -84,6 +84,21 @@ describe('cableAmpacityFindings', () => {
     expect(over.suggestion).toMatch(/a device rated 250 A or less/);
   });
 
+  it("compares a trip unit's sensor rating unless its rating is given, as 240.6(B) and (C) read", () => {
+    // A 300 A sensor set at 0.8 (240 A) on 4/0 copper: the sensor is above 250 A; with access to the
+    // setting restricted the rating is the setting, 240 A.
+    const input = feederStudy({ size: '4/0', rating: 300 });
+    const device = input.devices![0] as { rating?: number; characteristic: { longTime: { pickup: number } } };
+    device.characteristic.longTime.pickup = 0.8;
+    delete device.rating;
+    const sensor = ampacityFinding(input)!;
+    expect(sensor.severity).toBe('fail');
+    expect(sensor.explanation).toMatch(/maximum long-time setting \(sensor rating, NEC 240\.6\(B\)\), 300 A/);
+    expect(sensor.suggestion).toMatch(/access to FDR's long-time setting is restricted \(NFPA 70 240\.6\(C\)\)/);
+    device.rating = 240;
+    expect(ampacityFinding(input)!.severity).toBe('ok');
+  });
+
   it('allows no more than the ampacity above 800 A: 3 × 500 kcmil, 1140 A, on 1200 A fails, 4 sets pass (NFPA 70 240.4(C))', () => {
     const three = ampacityFinding(feederStudy({ size: '500 kcmil', sets: 3, rating: 1200 }))!;
     expect(three.severity).toBe('fail');
