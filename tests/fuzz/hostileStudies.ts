@@ -197,6 +197,12 @@ const MUTATIONS: Record<string, Mutation> = {
     const ends = EDGE_VALUES.find(([units]) => units.test(unit))?.[1];
     if (ends) setAt(doc, leaf.path, pick(random, ends));
   },
+  'cable with its own ampacity'(doc, random) {
+    const cables = (doc.cables ?? []) as Record<string, Json>[];
+    if (cables.length === 0) return;
+    // Accepted values at both ends, a plain number, and ones the study must refuse by name.
+    pick(random, cables).ampacity = pick(random, ['0.001 A', '10 MA', '300 A', 1, 0, -5, '1e400 A', '5 kV'] as Json[]);
+  },
   'CT ratio out of range'(doc, random) {
     const relays = (doc.devices as Record<string, Json>[])
       .map((device) => device.characteristic as Record<string, Json>)
