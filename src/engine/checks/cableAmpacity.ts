@@ -56,66 +56,60 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
     ];
   }
   const ampacity = perConductor * cable.sets;
-  const conductors = `${cable.sets > 1 ? `${cable.sets} × ` : ''}${cable.size} ${cable.material}`;
-  const source =
-    cable.ampacity === undefined
-      ? `${formatAmps(perConductor, 3)} per conductor at 75 °C, NFPA 70 Table 310.16`
-      : `${formatAmps(perConductor, 3)} per conductor as given`;
   const load = loadBelowBus(network, cable.to, volts);
   const motors = load?.motors ?? 0;
-
   // The conductors against the motor load below (Article 430).
   const carries = motors === 0 || ampacity >= load!.requiredAmps * (1 - 1e-9);
-  const loadSentence =
-    motors === 0
-      ? ''
-      : `${name} (${conductors}, ${formatAmps(ampacity, 3)}) ${carries ? 'carries' : 'is below'} the ${formatAmps(load!.requiredAmps, 3)} its load needs: ${load!.label}.`;
-
   // The device against the conductors (240.4), except a motor branch circuit (240.4(G), 430.52).
   const branchCircuit =
     motors === 1 && load!.subjects.length === 1 && protectingDevice(context, load!.subjects[0])?.id === device.id;
   const rating = branchCircuit ? undefined : ratingOf(device);
-  let protects = true;
-  let deviceSentence = '';
-  let allowed = ampacity;
-  if (rating) {
-    const size = parseConductorSize(cable.size);
-    const small = cable.sets === 1 ? SMALL_CONDUCTOR_LIMIT[cable.material][size] : undefined;
-    const next = nextStandardRating(ampacity, device.characteristic.kind === 'fuse');
-    allowed = Math.min(next <= NEXT_HIGHER_UP_TO ? next : ampacity, small ?? Infinity);
-    const rule =
-      small !== undefined && small <= allowed
-        ? `240.4(D) limits ${size} ${cable.material} to ${formatAmps(small, 3)}`
-        : next <= NEXT_HIGHER_UP_TO
-          ? `240.4(B) allows the next standard rating at or above it, ${formatAmps(next, 3)}`
-          : 'above 800 A, 240.4(C) allows no more than the ampacity';
-    protects = rating.amps <= allowed * (1 + 1e-9);
-    deviceSentence = `${deviceName}'s ${rating.what}, ${formatAmps(rating.amps, 3)}, ${protects ? 'is within' : 'is above'} what ${name} may be protected at: ${conductors} carries ${formatAmps(ampacity, 3)}, and ${rule}.${protects || motors === 0 ? '' : ' Above a feeder to motors, NFPA 70 430.62 may allow it (240.4(G)): check the feeder against it.'}`;
-  } else if (branchCircuit) {
-    deviceSentence = `A motor branch circuit's device is sized by NFPA 70 430.52, not by the conductors' ampacity (240.4(G)).`;
-  }
-  if (!loadSentence && !deviceSentence) return [];
+  if (motors === 0 && !rating) return [];
+  const size = parseConductorSize(cable.size);
+  const small = cable.sets === 1 ? SMALL_CONDUCTOR_LIMIT[cable.material][size] : undefined;
+  const next = nextStandardRating(ampacity, device.characteristic.kind === 'fuse');
+  const allowed = Math.min(next <= NEXT_HIGHER_UP_TO ? next : ampacity, small ?? Infinity);
+  const protects = !rating || rating.amps <= allowed * (1 + 1e-9);
   const severity = !carries || (!protects && motors === 0) ? 'fail' : !protects ? 'warning' : 'ok';
   const title = !carries
     ? `${name} is too small for the load it feeds`
     : !protects
       ? `${deviceName} is rated above ${name}'s ampacity`
       : `${name} is protected at its ampacity`;
-  const needed = carries ? 0 : load!.requiredAmps;
+
+  // The sentences are written when first read (a large study has thousands of cables).
+  const conductors = () => `${cable.sets > 1 ? `${cable.sets} × ` : ''}${cable.size} ${cable.material}`;
+  const loadSentence = () =>
+    `${name} (${conductors()}, ${formatAmps(ampacity, 3)}) ${carries ? 'carries' : 'is below'} the ${formatAmps(load!.requiredAmps, 3)} its load needs: ${load!.label}.`;
+  const rule = () =>
+    small !== undefined && small <= allowed
+      ? `240.4(D) limits ${size} ${cable.material} to ${formatAmps(small, 3)}`
+      : next <= NEXT_HIGHER_UP_TO
+        ? `240.4(B) allows the next standard rating at or above it, ${formatAmps(next, 3)}`
+        : 'above 800 A, 240.4(C) allows no more than the ampacity';
+  const deviceSentence = () =>
+    rating
+      ? `${deviceName}'s ${rating.what}, ${formatAmps(rating.amps, 3)}, ${protects ? 'is within' : 'is above'} what ${name} may be protected at: ${conductors()} carries ${formatAmps(ampacity, 3)}, and ${rule()}.${protects || motors === 0 ? '' : ' Above a feeder to motors, NFPA 70 430.62 may allow it (240.4(G)): check the feeder against it.'}`
+      : branchCircuit
+        ? `A motor branch circuit's device is sized by NFPA 70 430.52, not by the conductors' ampacity (240.4(G)).`
+        : '';
+  const source =
+    cable.ampacity === undefined ? 'per conductor at 75 °C, NFPA 70 Table 310.16' : 'per conductor as given';
   return [
     withLazyText<Finding>(
       { id, kind: 'cable-ampacity', severity, title, subjects },
       {
-        explanation: () => [loadSentence, deviceSentence].filter(Boolean).join(' '),
+        explanation: () => [motors > 0 ? loadSentence() : '', deviceSentence()].filter(Boolean).join(' '),
         ...(severity === 'ok'
           ? {}
           : {
               suggestion: () =>
                 carries
                   ? `Use a larger conductor or more parallel sets for ${name}, or a device rated ${formatAmps(allowed, 3)} or less (within the coordination above and below).${device.characteristic.kind === 'trip-unit' && device.rating === undefined ? ` Where access to ${deviceName}'s long-time setting is restricted (NFPA 70 240.6(C)), give its rating as that setting.` : ''}`
-                  : `Use a larger conductor or more parallel sets for ${name}, to carry at least ${formatAmps(needed, 3)}.`,
+                  : `Use a larger conductor or more parallel sets for ${name}, to carry at least ${formatAmps(load!.requiredAmps, 3)}.`,
             }),
-        basis: () => `${conductors}: ${source}; NFPA 70 240.4${motors > 0 ? `; ${load!.source}` : ''}.`,
+        basis: () =>
+          `${conductors()}: ${formatAmps(perConductor, 3)} ${source}; NFPA 70 240.4${motors > 0 ? `; ${load!.source}` : ''}.`,
       },
       { referenceVolts: volts },
     ),
