@@ -1,6 +1,7 @@
 import type { Band } from '../band.ts';
 import { AHJ_SELECTIVITY_SECONDS, SELECTIVITY_ARTICLE } from '../checks/codeSelectivity.ts';
 import { cableAmpacityFindings } from '../checks/cableAmpacity.ts';
+import { ratingOf } from '../checks/deviceRating.ts';
 import { cableFindings } from '../checks/cableProtection.ts';
 import { nameOf, protectingDevice } from '../checks/context.ts';
 import { checkPair } from '../checks/coordination.ts';
@@ -145,6 +146,9 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
   }
   for (const cable of protects.cables) {
     const name = cable.name ?? cable.id;
+    // The check reads nothing of the trial but the device's rating: a trial with the same rating (every
+    // trial but a relay's pickup) has the same result, worked out once.
+    let last: { amps: number | undefined; result: ConstraintResult } | undefined;
     constraints.push({
       id: `ampacity:${cable.id}`,
       kind: 'cable-ampacity',
@@ -154,9 +158,13 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
       favours: device.rating === undefined && device.characteristic.kind === 'relay' ? 'faster' : 'fixed',
       subjects: [cable.id],
       evaluate: (t) => {
+        const amps = ratingOf(t.deviceOf(deviceId))?.amps;
+        if (last && last.amps === amps) return last.result;
         const finding = cableAmpacityFindings(t, cable)[0];
         const ok = finding?.severity !== 'fail';
-        return { ok, clean: ok, margin: ok ? 0 : -1, unit: 'A', text: finding?.explanation ?? 'nothing to compare' };
+        const text = finding?.explanation ?? 'nothing to compare';
+        last = { amps, result: { ok, clean: ok, margin: ok ? 0 : -1, unit: 'A', text } };
+        return last.result;
       },
     });
   }
