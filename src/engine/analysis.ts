@@ -30,8 +30,8 @@ export interface Analysis {
   pairs: PairCheck[];
   /**
    * Findings in the order: pairs (top down), transformers, code limits, cables (short circuit, then
-   * ampacity), motors, loads carried,
-   * interrupting duty, equipment short-circuit ratings, sensitivity, settings.
+   * ampacity), motors, loads carried, interrupting duty, equipment short-circuit ratings, sensitivity,
+   * settings.
    */
   findings: Finding[];
   /** How many findings of each severity. */
@@ -47,9 +47,8 @@ export interface Analysis {
  * transformer through-fault and inrush protection, NEC 450.3 limits, cable short-circuit and overload
  * protection (ICEA P-32-382, NEC 240.4), motor starting, each pickup against the load it feeds,
  * interrupting duty and equipment short-circuit ratings (NFPA 70 110.9, 110.10) and sensitivity to the
- * minimum fault in each zone. Pure: the result depends only on `study`; a `memo`
- * kept from the analysis before an edit (see `AnalysisMemo`) only saves the work of what the edit did
- * not change.
+ * minimum fault in each zone. Pure: the result depends only on `study`; a `memo` kept from the
+ * analysis before an edit (see `AnalysisMemo`) only saves the work of what the edit did not change.
  *
  * @example const { findings } = analyseStudy(parseStudy(text))
  */

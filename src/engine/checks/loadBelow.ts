@@ -7,7 +7,7 @@ import { transformerRatedAmps } from '../withstand/index.ts';
 export interface FullLoad {
   /** The lowest pickup (A at the device's voltage) that carries the load. */
   requiredAmps: number;
-  /** Words: "Service transformer's rated current 1804 A". */
+  /** Words: "Service transformer's rated current", "2 motors below (125 % of the largest plus the rest)". */
   label: string;
   source: string;
   subjects: string[];
@@ -15,11 +15,10 @@ export interface FullLoad {
 
 /**
  * The load below a device, which its pickup must carry: the setting window's "carry load" bound and
- * the load check read it alike. A device feeding a transformer, or
- * the main on a transformer's secondary, carries the transformer's rated current (100 %, common
- * practice). Otherwise the motors and transformers below it, up to the next transformer: 125 % of the
- * largest motor's full-load current plus the others' (NEC 430.24) plus the rated current of each
- * transformer below. `undefined` when nothing below is a known load.
+ * the load check read it alike. A device feeding a transformer, or the main on a transformer's
+ * secondary, carries the transformer's rated current (100 %, common practice); a device feeding a
+ * motor 125 % of its full-load current (NEC 430.22); any other the loads below it (`loadBelowBus`).
+ * `undefined` when nothing below is a known load.
  *
  * @example fullLoadOf(network, mccFeeder) // { requiredAmps: 451, label: '2 motors below (125 % of the largest plus the rest)', … }
  */
