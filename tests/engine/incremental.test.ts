@@ -127,6 +127,10 @@ describe('AnalysisMemo', () => {
     (s, i, x) => ({ ...s, transformers: replaced(s.transformers, i, (t) => ({ ...t, impedance: 4 + 3 * x })) }),
     (s, i, x) => ({ ...s, cables: replaced(s.cables, i, (c) => ({ ...c, length: c.length * (0.5 + x) })) }),
     (s, i, x) => ({ ...s, motors: replaced(s.motors, i, (m) => ({ ...m, name: `motor ${x}` })) }),
+    // What the load and ampacity checks read: a device's rating, a cable's ampacity, a motor's size.
+    (s, i, x) => ({ ...s, devices: replaced(s.devices, i, (d) => ({ ...d, rating: 50 + 1000 * x })) }),
+    (s, i, x) => ({ ...s, cables: replaced(s.cables, i, (c) => ({ ...c, ampacity: 100 + 400 * x })) }),
+    (s, i, x) => ({ ...s, motors: replaced(s.motors, i, (m) => ({ ...m, hp: 5 + 200 * x })) }),
     (s, _i, x) => ({
       ...s,
       coordination: { ...s.coordination, sensitivity: { ...s.coordination.sensitivity, maxTime: 0.5 + 4 * x } },
