@@ -1,5 +1,6 @@
 import { parseConductorSize, tableAmpacity } from '../conductors/index.ts';
 import { withLazyText } from '../lazyText.ts';
+import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { formatAmps } from '../quantity/format.ts';
 import type { Cable } from '../study/index.ts';
 import { nameOf, protectingDevice, type CheckContext } from './context.ts';
@@ -28,8 +29,9 @@ const NEXT_HIGHER_UP_TO = 800;
  *   less (240.4(B)); 14–10 AWG keep the limits of 240.4(D). A motor branch circuit (one motor below,
  *   no device between) is left to 430.52 (240.4(G)); above a feeder to motors a rating beyond the
  *   limit is a warning, since 430.62 may allow it.
- * Cables above 1000 V (240 Part IX) and devices without a rating are not compared; a size the table
- * does not list gives an info finding asking for the ampacity.
+ * Cables above 1000 V (240 Part IX), devices without a rating and a device across a transformer
+ * (secondary conductors, 240.21(C)) are not compared; a size the table does not list gives an info
+ * finding asking for the ampacity.
  *
  * @example cableAmpacityFindings(context, officeFeeder)[0].severity // 'fail' for 4/0 copper on a 300 A breaker
  */
@@ -60,10 +62,16 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
   const motors = load?.motors ?? 0;
   // The conductors against the motor load below (Article 430).
   const carries = motors === 0 || ampacity >= load!.requiredAmps * (1 - 1e-9);
+  // Conductors on a transformer's secondary protected only on its primary are secondary conductors
+  // (240.21(C), 240.4(F)), not compared with a rating at another voltage.
+  const secondary = transformersBetween(network, locationBusOf(network, device).id, cable.from).length > 0;
   // The device against the conductors (240.4), except a motor branch circuit (240.4(G), 430.52).
   const branchCircuit =
-    motors === 1 && load!.subjects.length === 1 && protectingDevice(context, load!.subjects[0])?.id === device.id;
-  const rating = branchCircuit ? undefined : ratingOf(device);
+    !secondary &&
+    motors === 1 &&
+    load!.subjects.length === 1 &&
+    protectingDevice(context, load!.subjects[0])?.id === device.id;
+  const rating = branchCircuit || secondary ? undefined : ratingOf(device);
   if (motors === 0 && !rating) return [];
   const size = parseConductorSize(cable.size);
   const small = cable.sets === 1 ? SMALL_CONDUCTOR_LIMIT[cable.material][size] : undefined;
@@ -92,7 +100,9 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
       ? `${deviceName}'s ${rating.what}, ${formatAmps(rating.amps, 3)}, ${protects ? 'is within' : 'is above'} what ${name} may be protected at: ${conductors()} carries ${formatAmps(ampacity, 3)}, and ${rule()}.${protects || motors === 0 ? '' : ' Above a feeder to motors, NFPA 70 430.62 may allow it (240.4(G)): check the feeder against it.'}`
       : branchCircuit
         ? `A motor branch circuit's device is sized by NFPA 70 430.52, not by the conductors' ampacity (240.4(G)).`
-        : '';
+        : secondary
+          ? `${name} is protected only on the primary of a transformer above it: NFPA 70 240.21(C) governs its overcurrent protection, not compared here.`
+          : '';
   const source =
     cable.ampacity === undefined ? 'per conductor at 75 °C, NFPA 70 Table 310.16' : 'per conductor as given';
   return [

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { tableAmpacity } from '../../../src/engine/conductors/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { workedStudy } from '../window/fixtures.ts';
 
 /**
  * A 480 V switchboard feeding a panel through one cable, its breaker rated `rating` (invented data).
@@ -139,6 +140,19 @@ describe('cableAmpacityFindings', () => {
     expect(feeder.severity).toBe('warning');
     expect(feeder.explanation).toMatch(/carries the 279 A its load needs/);
     expect(feeder.explanation).toMatch(/430\.62 may allow it/);
+  });
+
+  it("leaves conductors protected only on a transformer's primary to 240.21(C), still holding them to their motor load", () => {
+    // The worked study without its main and feeder: the panel cable's nearest device is the 12.47 kV relay.
+    const input = workedStudy();
+    input.devices = input.devices!.filter((d) => d.id === 'R-T1');
+    const finding = ampacityFinding(input)!;
+    expect(finding.subjects).toEqual(['R-T1', 'C-F']);
+    expect(finding.severity).toBe('ok');
+    expect(finding.explanation).toMatch(/carries the 155 A its load needs/);
+    expect(finding.explanation).toMatch(/NFPA 70 240\.21\(C\) governs/);
+    input.motors = [];
+    expect(ampacityFinding(input)).toBeUndefined();
   });
 
   it('checks nothing above 1000 V, and asks for the ampacity of a size the table does not list', () => {
