@@ -78,7 +78,7 @@ export function sheetGuideOf(current: {
     {
       title: 'Findings',
       text: [
-        'The Findings region lists every check: pairs, transformer protection, NEC 450.3 limits, cables, motors. Open a finding to read its explanation and what to change; its current range is highlighted on the sheet and its devices are marked.',
+        'The Findings region lists every check: pairs, transformer protection, NEC 450.3 limits, cables and their ampacity, motors, the load each device feeds. Open a finding to read its explanation and what to change; its current range is highlighted on the sheet and its devices are marked.',
         'Select a device in the tree to list only the findings that name it.',
       ],
     },
