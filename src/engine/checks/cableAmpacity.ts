@@ -1,4 +1,4 @@
-import { parseConductorSize, tableAmpacity } from '../conductors/index.ts';
+import { cableAmpacityOf, parseConductorSize } from '../conductors/index.ts';
 import { withLazyText } from '../lazyText.ts';
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { formatAmps } from '../quantity/format.ts';
@@ -44,8 +44,8 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
   const deviceName = nameOf(device);
   const id = `cable-ampacity:${cable.id}`;
   const subjects = [device.id, cable.id];
-  const perConductor = cable.ampacity ?? tableAmpacity(cable.size, cable.material);
-  if (perConductor === undefined) {
+  const ampacity = cableAmpacityOf(cable);
+  if (ampacity === undefined) {
     return [
       withLazyText<Finding>(
         { id, kind: 'cable-ampacity', severity: 'info', title: `${name}: no ampacity to check`, subjects },
@@ -57,7 +57,6 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
       ),
     ];
   }
-  const ampacity = perConductor * cable.sets;
   const load = loadBelowBus(network, cable.to, volts);
   const motors = load?.motors ?? 0;
   // The conductors against the motor load below (Article 430).
@@ -119,7 +118,7 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
                   : `Use a larger conductor or more parallel sets for ${name}, to carry at least ${formatAmps(load!.requiredAmps, 3)}.`,
             }),
         basis: () =>
-          `${conductors()}: ${formatAmps(perConductor, 3)} ${source}; NFPA 70 240.4${motors > 0 ? `; ${load!.source}` : ''}.`,
+          `${conductors()}: ${formatAmps(ampacity / cable.sets, 3)} ${source}; NFPA 70 240.4${motors > 0 ? `; ${load!.source}` : ''}.`,
       },
       { referenceVolts: volts },
     ),

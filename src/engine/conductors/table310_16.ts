@@ -83,3 +83,21 @@ export const TABLE_310_16_75C: Readonly<Record<'copper' | 'aluminium', Readonly<
 export function tableAmpacity(size: string, material: 'copper' | 'aluminium', path = 'size'): number | undefined {
   return TABLE_310_16_75C[material][parseConductorSize(size, path)];
 }
+
+/**
+ * The ampacity of a cable's conductors, the current its overload protection is held to (NFPA 70 240.4):
+ * the cable's own `ampacity` per conductor where given (another ambient, more current-carrying
+ * conductors, 60 °C terminations), else Table 310.16 at 75 °C, times its parallel sets; `undefined` for
+ * a size the table does not list in that material.
+ *
+ * @example cableAmpacityOf({ size: '250 kcmil', material: 'copper', sets: 2 }) // 510
+ */
+export function cableAmpacityOf(cable: {
+  size: string;
+  material: 'copper' | 'aluminium';
+  sets: number;
+  ampacity?: number;
+}): number | undefined {
+  const perConductor = cable.ampacity ?? tableAmpacity(cable.size, cable.material);
+  return perConductor === undefined ? undefined : perConductor * cable.sets;
+}

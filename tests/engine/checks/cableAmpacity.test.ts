@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
-import { tableAmpacity } from '../../../src/engine/conductors/index.ts';
+import { cableAmpacityOf, tableAmpacity } from '../../../src/engine/conductors/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { workedStudy } from '../window/fixtures.ts';
 
@@ -72,6 +72,13 @@ describe('cableAmpacityFindings', () => {
     expect(tableAmpacity('4/0', 'aluminium')).toBe(180);
     expect(tableAmpacity('500 kcmil', 'aluminium')).toBe(310);
     expect(tableAmpacity('14 AWG', 'aluminium')).toBeUndefined();
+  });
+
+  it('a cable carries its sets times one conductor’s ampacity, the table’s or the one it is given (NFPA 70 310.10(G), conductors in parallel; from memory)', () => {
+    expect(cableAmpacityOf({ size: '500 kcmil', material: 'copper', sets: 2 })).toBe(760);
+    expect(cableAmpacityOf({ size: '250 kcmil', material: 'copper', sets: 1 })).toBe(255);
+    expect(cableAmpacityOf({ size: '500 kcmil', material: 'copper', sets: 3, ampacity: 300 })).toBe(900);
+    expect(cableAmpacityOf({ size: '14 AWG', material: 'aluminium', sets: 1 })).toBeUndefined();
   });
 
   it('allows the next standard rating above the ampacity up to 800 A: 4/0 copper, 230 A, on 250 A but not 300 A (NFPA 70 240.4(B), 240.6(A))', () => {
