@@ -1,4 +1,4 @@
-import { significant } from '../engine/quantity/format.ts';
+import { formatAmps, significant } from '../engine/quantity/format.ts';
 import type { Analysis } from '../engine/analysis.ts';
 import type { Finding } from '../engine/checks/finding.ts';
 import { fastestOf, groundFaultBandOf, scaleBand, type Band } from '../engine/band.ts';
@@ -12,7 +12,7 @@ import {
   throughFaultReachOf,
   transformerWithstandOf,
 } from '../engine/withstand/index.ts';
-import { conductorAreaCmil } from '../engine/conductors/index.ts';
+import { cableAmpacityOf, conductorAreaCmil } from '../engine/conductors/index.ts';
 import { generatorDamageCurve, generatorDecrement } from '../engine/generator/index.ts';
 import type {
   SheetBand,
@@ -165,13 +165,24 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
       const c = element.item;
       const volts = network.buses.get(c.from)!.voltage;
       const curve = cableWithstandOf(c, { volts, conductorAreaCmil: conductorAreaCmil(c.size) });
-      // ICEA P-32-382 is adiabatic: a short-circuit limit to 10 s, saying nothing of overload.
+      // ICEA P-32-382 is adiabatic: a short-circuit limit to 10 s, saying nothing of overload; the
+      // ampacity, drawn as a line, is the overload limit the ampacity check holds the device above to.
       withstand.push({
         id: c.id,
         label: `${c.name ?? c.id} short-circuit limit (overload not covered)`,
         curve,
         scale: onSheet(volts),
       });
+      const ampacity = volts <= 1000 ? cableAmpacityOf(c) : undefined;
+      if (ampacity !== undefined)
+        markers.push({
+          kind: 'ampacity',
+          label: `${c.name ?? c.id} ampacity ${formatAmps(ampacity, 3)} (${c.ampacity === undefined ? 'NFPA 70 Table 310.16, 75 °C' : 'as given'}${c.sets > 1 ? `, ${c.sets} sets` : ''})`,
+          volts,
+          amps: ampacity,
+          elementId: c.id,
+          scale: onSheet(volts),
+        });
     }
   }
 

@@ -41,6 +41,38 @@ describe('viewInputOf', () => {
     expect(input.markers.filter((m) => m.kind === 'inrush')).toHaveLength(1);
   });
 
+  it('marks a cable’s ampacity as a line: 2 sets of 500 kcmil copper carry 2 × 380 A (NFPA 70 Table 310.16, 75 °C)', () => {
+    const input = viewInputOf(analysed('selective'), 'service');
+    const lines = input.markers.filter((m) => m.kind === 'ampacity');
+    expect(lines.map((m) => [m.elementId, m.amps, m.seconds, m.scale])).toEqual([['C-MCC', 760, undefined, 1]]);
+    expect(lines[0].label).toBe('MCC feeder cable ampacity 760 A (NFPA 70 Table 310.16, 75 °C, 2 sets)');
+  });
+
+  it('marks the ampacity a cable is given, and none on a cable above 1000 V (NFPA 70 240.4 is for 1000 V and less)', () => {
+    const document = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8'));
+    document.cables.find((c: { id: string }) => c.id === 'C-MCC').ampacity = 300;
+    // A 12.47 kV cable between the service bus and the transformer, drawn on the primary sheet.
+    document.buses.push({ id: 'MV-T1', voltage: '12.47 kV' });
+    document.cables.push({
+      id: 'C-MV',
+      from: 'MV',
+      to: 'MV-T1',
+      size: '500 kcmil',
+      length: '200 ft',
+      material: 'copper',
+    });
+    document.transformers.find((t: { id: string }) => t.id === 'T1').from = 'MV-T1';
+    document.views.find((v: { id: string }) => v.id === 'primary').withstand.push('C-MV');
+    const analysis = analyseStudy(parseStudy(document));
+    const service = viewInputOf(analysis, 'service').markers.filter((m) => m.kind === 'ampacity');
+    expect(service.map((m) => [m.amps, m.label])).toEqual([
+      [600, 'MCC feeder cable ampacity 600 A (as given, 2 sets)'],
+    ]);
+    const primary = viewInputOf(analysis, 'primary');
+    expect(primary.withstand.map((w) => w.id)).toContain('C-MV');
+    expect(primary.markers.filter((m) => m.kind === 'ampacity')).toEqual([]);
+  });
+
   it('hatches the overlaps of the view’s pairs on the view’s base', () => {
     const regions = viewInputOf(analysed('overlap'), 'service').regions;
     expect(regions.length).toBeGreaterThan(0);

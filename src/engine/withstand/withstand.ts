@@ -29,7 +29,8 @@ export interface WithstandCurve {
 
 /** A point or line on the sheet (DEVELOPERS.md, names "marker"). */
 export interface Marker {
-  kind: 'inrush' | 'locked-rotor' | 'full-load' | 'fault';
+  /** `ampacity`: a cable's ampacity, the current its overload protection is held to (a vertical line). */
+  kind: 'inrush' | 'locked-rotor' | 'full-load' | 'fault' | 'ampacity';
   label: string;
   /** Voltage the current is given at (V). */
   volts: number;

@@ -111,5 +111,7 @@ export function symbolPath(kind: Marker['kind'], x: number, y: number, r: number
       return pathOf([x, y - r, x + r, y + r * 0.8, x - r, y + r * 0.8], true);
     case 'fault':
       return `${pathOf([x - r, y - r, x + r, y + r])}${pathOf([x - r, y + r, x + r, y - r])}`;
+    case 'ampacity':
+      return pathOf([x, y - r, x, y + r]);
   }
 }

@@ -30,8 +30,10 @@ describe('marker', () => {
   it('symbolPath gives each kind its own shape', () => {
     expect(symbolPath('locked-rotor', 10, 10, 4)).toBe('M10,6L14,10L10,14L6,10Z');
     expect(
-      new Set(['inrush', 'locked-rotor', 'full-load', 'fault'].map((k) => symbolPath(k as 'fault', 10, 10, 4))).size,
-    ).toBe(4);
+      new Set(
+        ['inrush', 'locked-rotor', 'full-load', 'fault', 'ampacity'].map((k) => symbolPath(k as 'fault', 10, 10, 4)),
+      ).size,
+    ).toBe(5);
   });
 
   it('marker without a time is a dotted vertical line, and nothing off the sheet', () => {
