@@ -1,4 +1,4 @@
-import { formatAmps, significant } from '../engine/quantity/format.ts';
+import { formatAmps, formatVolts, significant } from '../engine/quantity/format.ts';
 import type { Analysis } from '../engine/analysis.ts';
 import type { Finding } from '../engine/checks/finding.ts';
 import { fastestOf, groundFaultBandOf, scaleBand, type Band } from '../engine/band.ts';
@@ -10,6 +10,7 @@ import {
   inrushMarkersOf,
   motorStartingOf,
   throughFaultReachOf,
+  transformerRatedAmps,
   transformerWithstandOf,
 } from '../engine/withstand/index.ts';
 import { cableAmpacityOf, conductorAreaCmil } from '../engine/conductors/index.ts';
@@ -160,6 +161,15 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
           scale: onSheet(t.secondary) * shift,
         });
       }
+      // Its rated current, the base of its withstand curve and inrush, which the device feeding it carries.
+      markers.push({
+        kind: 'full-load',
+        label: `${name} full-load current (${formatAmps(transformerRatedAmps(t, t.primary), 4)} at ${formatVolts(t.primary)})`,
+        volts: t.primary,
+        amps: transformerRatedAmps(t, t.primary),
+        elementId: t.id,
+        scale: onSheet(t.primary),
+      });
       for (const marker of inrushMarkersOf(t)) markers.push({ ...marker, scale: onSheet(t.primary) });
     } else if (element.type === 'cable') {
       const c = element.item;

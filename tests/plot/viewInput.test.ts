@@ -41,6 +41,17 @@ describe('viewInputOf', () => {
     expect(input.markers.filter((m) => m.kind === 'inrush')).toHaveLength(1);
   });
 
+  it('marks a transformer’s full-load current as a line: 1500 kVA at 12.47 kV is 69.45 A, S / (√3 · V) (IEEE 141 per-unit base)', () => {
+    const analysis = analysed('selective');
+    const [primary] = viewInputOf(analysis, 'primary').markers.filter((m) => m.kind === 'full-load');
+    assertInDelta(primary.amps, 1_500_000 / (Math.sqrt(3) * 12_470), 1e-9);
+    expect([primary.elementId, primary.seconds, primary.scale]).toEqual(['T1', undefined, 1]);
+    expect(primary.label).toBe('Service transformer full-load current (69.45 A at 12.47 kV)');
+    // The same line on the 480 V sheet stands at the secondary's full-load current.
+    const service = viewInputOf(analysis, 'service').markers.find((m) => m.kind === 'full-load')!;
+    assertInDelta(service.amps * service.scale, 1_500_000 / (Math.sqrt(3) * 480), 1e-6);
+  });
+
   it('marks a cable’s ampacity as a line: 2 sets of 500 kcmil copper carry 2 × 380 A (NFPA 70 Table 310.16, 75 °C)', () => {
     const input = viewInputOf(analysed('selective'), 'service');
     const lines = input.markers.filter((m) => m.kind === 'ampacity');

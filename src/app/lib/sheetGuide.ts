@@ -57,7 +57,7 @@ export function sheetGuideOf(current: {
       text: [
         'An evenly dashed curve is a withstand ("damage") curve of a transformer or cable, named beside it. The device protecting it should clear to the left of and below it at every current up to the fault level.',
         'A dotted line is a motor’s starting curve; a circle marks transformer inrush and a diamond a motor’s locked rotor. The devices must ride through them: their bands should lie to the right of and above those marks.',
-        'A thin dotted vertical line in a cable’s colour marks its ampacity (NFPA 70 Table 310.16 at 75 °C, or the ampacity the cable is given): the device above it should be rated no higher, but for the next standard rating NFPA 70 240.4(B) allows — the cable’s ampacity finding says which.',
+        'A thin dotted vertical line marks a transformer’s full-load current, in its colour; one in a cable’s colour marks the cable’s ampacity (NFPA 70 Table 310.16 at 75 °C, or the ampacity the cable is given): the device above it should be rated no higher, but for the next standard rating NFPA 70 240.4(B) allows — the cable’s ampacity finding says which.',
       ],
     },
     {
