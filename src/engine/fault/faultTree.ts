@@ -1,7 +1,7 @@
 import { cableImpedanceOf } from '../conductors/cableImpedance.ts';
 import { closedSwitchLinks, type Branch, type Network } from '../network/index.ts';
 import type { WorkStep } from '../work.ts';
-import { addImpedance, invertImpedance, parallelImpedance, ZERO_IMPEDANCE, type Impedance } from './impedance.ts';
+import { addImpedance, invertImpedance, ZERO_IMPEDANCE, type Impedance } from './impedance.ts';
 import { motorImpedanceOf } from './motorImpedance.ts';
 import { reflectImpedance } from './reflect.ts';
 import { sourceLevelsOf } from './sourceLevels.ts';
@@ -86,10 +86,16 @@ export function faultTreeOf(network: Network, condition: FaultCondition, element
   // Leaves to source: the motors at and below each bus, as one branch seen from it.
   const below = new Map<string, Impedance | undefined>();
   const feeding = new Map<string, Impedance | undefined>();
-  const motorsAt = (busId: string) => (network.motorsOn.get(busId) ?? []).map((m) => motorZ.get(m.id));
+  // The motors on a bus and the branches below it in parallel, summed as `parallelImpedance` sums
+  // them (motors first, then branches), without a list of terms per bus: a study has thousands.
+  const sum = new ParallelSum();
+  const addBusTerms = (bus: string, branches: readonly Branch[]) => {
+    for (const motor of network.motorsOn.get(bus) ?? []) sum.add(motorZ.get(motor.id));
+    for (const branch of branches) sum.add(feeding.get(branch.item.id));
+  };
   for (let i = order.length - 1; i >= 0; i--) {
     const bus = order[i];
-    const branches = network.branchesFrom.get(bus) ?? [];
+    const branches = network.branchesFrom.get(bus) ?? NO_BRANCHES;
     for (const branch of branches) {
       // A single-phase transformer's load side is not a balanced source: its motors feed no three-phase fault.
       const child = isSinglePhase(branch) ? undefined : below.get(branch.item.to);
@@ -98,7 +104,9 @@ export function faultTreeOf(network: Network, condition: FaultCondition, element
         child && seenFromParent(branch, addImpedance(branchZ.get(branch.item.id)!, child), volts),
       );
     }
-    below.set(bus, parallelImpedance(...motorsAt(bus), ...branches.map((b) => feeding.get(b.item.id))));
+    sum.clear();
+    addBusTerms(bus, branches);
+    below.set(bus, sum.impedance());
   }
 
   // Source to leaves: everything but a branch's own subtree, seen from its `from` bus.
@@ -106,8 +114,11 @@ export function faultTreeOf(network: Network, condition: FaultCondition, element
   const behind = new Map<string, Impedance>();
   for (const bus of order) {
     const up = toward.get(bus)!;
-    const branches = network.branchesFrom.get(bus) ?? [];
-    const all = admittanceOf(parallelImpedance(up, ...motorsAt(bus), ...branches.map((b) => feeding.get(b.item.id))));
+    const branches = network.branchesFrom.get(bus) ?? NO_BRANCHES;
+    sum.clear();
+    sum.add(up);
+    addBusTerms(bus, branches);
+    const all = admittanceOf(sum.impedance());
     for (const branch of branches) {
       const own = admittanceOf(feeding.get(branch.item.id));
       const rest = up.r === 0 && up.x === 0 ? ZERO_IMPEDANCE : invertImpedance({ r: all.r - own.r, x: all.x - own.x });
@@ -187,6 +198,46 @@ function seenFromParent(branch: Branch, z: Impedance, volts: (busId: string) => 
 /** Whether a branch is a single-phase transformer (its load side is computed as single-phase loops). */
 export function isSinglePhase(branch: Branch): boolean {
   return branch.type === 'transformer' && branch.item.phases === 1;
+}
+
+const NO_BRANCHES: readonly Branch[] = [];
+
+/**
+ * `parallelImpedance` of terms given one at a time: the same sum in the same order, so the same
+ * result to the last bit, without gathering the terms in a list first.
+ */
+class ParallelSum {
+  #g = 0;
+  #b = 0;
+  #any = false;
+  #zero = false;
+
+  clear(): void {
+    this.#g = 0;
+    this.#b = 0;
+    this.#any = false;
+    this.#zero = false;
+  }
+
+  /** Adds a term; `undefined` is an open circuit, skipped. */
+  add(term: Impedance | undefined): void {
+    if (!term || this.#zero) return;
+    if (term.r === 0 && term.x === 0) {
+      this.#zero = true;
+      return;
+    }
+    // As `invertImpedance`, which gives an infinite admittance where r² + x² underflows to zero.
+    const d = term.r * term.r + term.x * term.x;
+    this.#g += d === 0 ? Infinity : term.r / d;
+    this.#b += d === 0 ? Infinity : -term.x / d;
+    this.#any = true;
+  }
+
+  /** The terms in parallel; zero if one is zero, `undefined` with none. */
+  impedance(): Impedance | undefined {
+    if (this.#zero) return ZERO_IMPEDANCE;
+    return this.#any ? invertImpedance({ r: this.#g, x: this.#b }) : undefined;
+  }
 }
 
 /** Admittance of an impedance; zero for an open circuit (undefined). */
