@@ -166,7 +166,8 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
     for (let index = 0; index < pairCase.intervals.length; index++) {
       const interval = pairCase.intervals[index];
       if (interval.status === 'selective' || isSliver(interval)) continue;
-      shifts ??= new Map<number, number>().set(voltages[0], pairCase.upstreamShift);
+      // The upstream device's shift, where it has one: most cases have none, and need no map.
+      if (pairCase.upstreamShift !== 1) shifts ??= new Map([[voltages[0], pairCase.upstreamShift]]);
       const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages, shifts);
       const { worst } = interval;
       // The sentences are written when first read (a large study's findings are seldom all read); they
