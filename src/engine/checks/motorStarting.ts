@@ -3,7 +3,7 @@ import { scaleBand } from '../band.ts';
 import { locationBusOf } from '../network/index.ts';
 import { formatAmps, formatSeconds } from '../quantity/format.ts';
 import type { Motor } from '../study/index.ts';
-import { motorStartingOf } from '../withstand/index.ts';
+import { motorStartingOf, startingPointsOf } from '../withstand/index.ts';
 import { nameOf, protectingDevice, rangeOf, type CheckContext } from './context.ts';
 import type { Finding } from './finding.ts';
 
@@ -19,8 +19,8 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
   if (!device) return [];
   const volts = context.network.buses.get(motor.bus)!.voltage;
   const band = scaleBand(context.bands.get(device.id)!, locationBusOf(context.network, device).voltage / volts);
-  const curve = motorStartingOf(motor, volts).curve;
-  const { label } = curve;
+  // The curve's points alone: its words are written when a sentence is read.
+  const curve = startingPointsOf(motor, volts);
   const name = motor.name ?? motor.id;
   const deviceName = nameOf(device);
   let worst: { amps: number; seconds: number; operates: number } | undefined;
@@ -31,9 +31,9 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
     if (operates <= seconds && (!worst || operates / seconds < worst.operates / worst.seconds))
       worst = { amps, seconds, operates };
   }
-  // The sentences and the basis are written when first read (a large study has thousands of motors);
-  // they keep the curve's label and the motor, and the basis works the start out again when read, so
-  // a finding does not keep the whole curve.
+  // The sentences and the basis are written when first read (a large study has thousands of motors):
+  // they keep the motor, and work the start out again with its words when read, so a finding does not
+  // keep the curve.
   const basis = () => motorStartingOf(motor, volts).curve.notes.join(' ');
   if (!worst) {
     return [
@@ -45,7 +45,11 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
           title: `${name} starts without tripping ${deviceName}`,
           subjects: [device.id, motor.id],
         },
-        { explanation: () => `${deviceName} stays above ${name}'s starting curve: ${label}.`, basis },
+        {
+          explanation: () =>
+            `${deviceName} stays above ${name}'s starting curve: ${motorStartingOf(motor, volts).curve.label}.`,
+          basis,
+        },
         { referenceVolts: volts },
       ),
     ];

@@ -29,6 +29,6 @@ export { scaleWithstand } from './scaleWithstand.ts';
 export type { ScaleWithstandOptions } from './scaleWithstand.ts';
 export { inrushMarkersOf, inferInrushMultiple, INRUSH } from './inrush.ts';
 export type { InrushOptions } from './inrush.ts';
-export { motorStartingOf, STARTING_TIMES } from './motorStarting.ts';
+export { motorStartingOf, startingPointsOf, STARTING_TIMES, type StartingPoints } from './motorStarting.ts';
 export type { MotorStartingOptions, MotorStarting } from './motorStarting.ts';
 export { lockedRotorAmpsFromCode, LOCKED_ROTOR_KVA_PER_HP } from './lockedRotorCode.ts';

@@ -1,5 +1,5 @@
 import { InputError, expectedGot } from '../errors.ts';
-import { motorFullLoadOf } from '../fault/motorFullLoad.ts';
+import { motorFullLoadAmps, motorFullLoadOf } from '../fault/motorFullLoad.ts';
 import { withLazyFields } from '../lazyText.ts';
 import { significant } from '../quantity/format.ts';
 import type { Motor } from '../study/index.ts';
@@ -42,13 +42,80 @@ export interface MotorStarting {
  * @example motorStartingOf(motor100hp, 460, { lockedRotorAmps: 789.46 }).lockedRotor.amps // 789.46
  */
 export function motorStartingOf(motor: Motor, volts: number, options: MotorStartingOptions = {}): MotorStarting {
+  const { serviceFactor = 1, asymmetryFactor = 1.6, longestSeconds = STARTING_TIMES.longest } = options;
+  const points = startingPointsOf(motor, volts, options);
+  const { fullLoadAmps, lockedRotorAmps, accelerationTime, amps, seconds } = points;
+  const runningAmps = fullLoadAmps * serviceFactor;
+  const asymmetricalAmps = asymmetryFactor * lockedRotorAmps;
+  const asymmetricalUntil = Math.min(STARTING_TIMES.asymmetricalUntil, accelerationTime);
+  const name = motor.name ?? motor.id;
+  const lraText = `${significant(lockedRotorAmps, 4)} A`;
+  // Written once for both labels (and the notes): a study has thousands of motors.
+  const accelerationText = `${significant(accelerationTime, 3)} s`;
+  return {
+    fullLoadAmps,
+    // The notes are written when first read: a large study has thousands of motors, seldom all opened.
+    curve: withLazyFields(
+      {
+        elementId: motor.id,
+        label: `${name} starting: LRA ${lraText} for ${accelerationText}`,
+        volts,
+        // Read by index, not destructured: a study has thousands of motors.
+        amps,
+        seconds,
+      },
+      {
+        notes: () => [
+          `FLA ${significant(fullLoadAmps, 6)} A at ${significant(volts, 6)} V (${motorFullLoadOf(motor, volts).basis})` +
+            (serviceFactor === 1
+              ? ''
+              : `; running current × service factor ${serviceFactor} = ${significant(runningAmps, 6)} A`),
+          options.lockedRotorAmps === undefined
+            ? `LRA = ${motor.lockedRotor} × FLA = ${lraText} (common practice without data: about 6 × FLA)`
+            : `LRA ${lraText} given`,
+          `asymmetrical first-cycle current ${asymmetryFactor} × LRA = ${significant(asymmetricalAmps, 4)} A from ` +
+            `${STARTING_TIMES.halfCycle} s to ${asymmetricalUntil} s (common practice: 1.5–1.7 × LRA)`,
+          `acceleration time ${accelerationText}, then the running current up to ${longestSeconds} s (common practice)`,
+        ],
+      },
+    ),
+    lockedRotor: {
+      kind: 'locked-rotor',
+      label: `${name} locked rotor ${lraText} for ${accelerationText}`,
+      volts,
+      amps: lockedRotorAmps,
+      seconds: accelerationTime,
+      elementId: motor.id,
+    },
+  };
+}
+
+/** The currents and times of a motor's starting curve, with the currents they come from. */
+export interface StartingPoints {
+  /** Full-load current (A) at the bus voltage, before the service factor. */
+  fullLoadAmps: number;
+  lockedRotorAmps: number;
+  /** s */
+  accelerationTime: number;
+  /** The curve's currents (A), in the order of time. */
+  amps: Float64Array;
+  /** The curve's times (s). */
+  seconds: Float64Array;
+}
+
+/**
+ * The points of `motorStartingOf`'s curve alone, checked as it checks them, without its words: what the
+ * motor-starting check compares with the device above (a study has thousands of motors).
+ *
+ * @example startingPointsOf(motor100hp, 460, { lockedRotorAmps: 789.46 }).amps[0] // 1263.1 A, 1.6 × LRA
+ */
+export function startingPointsOf(motor: Motor, volts: number, options: MotorStartingOptions = {}): StartingPoints {
   const path = elementPath('motors', motor.id);
   const { serviceFactor = 1, asymmetryFactor = 1.6, longestSeconds = STARTING_TIMES.longest } = options;
   requireNumberAbove('volts', volts, 0, 'a voltage in V');
   requireNumberAbove('options.serviceFactor', serviceFactor, 1, 'a service factor', true);
   requireNumberAbove('options.asymmetryFactor', asymmetryFactor, 1, 'a multiple of locked-rotor current', true);
-  const fullLoad = motorFullLoadOf(motor, volts);
-  const fullLoadAmps = fullLoad.amps;
+  const fullLoadAmps = motorFullLoadAmps(motor, volts);
   if (!(fullLoadAmps > 0 && Number.isFinite(fullLoadAmps))) {
     throw new InputError(
       `${path}.fullLoadAmps`,
@@ -83,65 +150,27 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
   const asymmetricalAmps = asymmetryFactor * lockedRotorAmps;
   const asymmetricalUntil = Math.min(STARTING_TIMES.asymmetricalUntil, accelerationTime);
 
-  const points: [number, number][] = [
-    [asymmetricalAmps, STARTING_TIMES.halfCycle],
-    [asymmetricalAmps, asymmetricalUntil],
-    [lockedRotorAmps, asymmetricalUntil],
-    [lockedRotorAmps, accelerationTime],
-    [runningAmps, accelerationTime],
-    [runningAmps, longestSeconds],
+  const stepAmps = [asymmetricalAmps, asymmetricalAmps, lockedRotorAmps, lockedRotorAmps, runningAmps, runningAmps];
+  const stepSeconds = [
+    STARTING_TIMES.halfCycle,
+    asymmetricalUntil,
+    asymmetricalUntil,
+    accelerationTime,
+    accelerationTime,
+    longestSeconds,
   ];
-  // A start shorter than 0.1 s leaves two equal points; keep one. A loop, not a callback: a callback
-  // reading `points` would keep them, with every number here, for the lazy notes of every motor.
-  const distinct: [number, number][] = [points[0]];
-  for (let i = 1; i < points.length; i++) {
-    if (points[i][0] !== points[i - 1][0] || points[i][1] !== points[i - 1][1]) distinct.push(points[i]);
+  // A start shorter than 0.1 s leaves two equal points; keep one.
+  const same = (i: number) => stepAmps[i] === stepAmps[i - 1] && stepSeconds[i] === stepSeconds[i - 1];
+  let count = 1;
+  for (let i = 1; i < stepAmps.length; i++) if (!same(i)) count++;
+  const amps = new Float64Array(count);
+  const seconds = new Float64Array(count);
+  amps[0] = stepAmps[0];
+  seconds[0] = stepSeconds[0];
+  for (let i = 1, k = 1; i < stepAmps.length; i++) {
+    if (same(i)) continue;
+    amps[k] = stepAmps[i];
+    seconds[k++] = stepSeconds[i];
   }
-  // Plain loops: `Float64Array.from` with a mapping calls it through the iterator, point by point.
-  const amps = new Float64Array(distinct.length);
-  const seconds = new Float64Array(distinct.length);
-  for (let i = 0; i < distinct.length; i++) {
-    amps[i] = distinct[i][0];
-    seconds[i] = distinct[i][1];
-  }
-  const name = motor.name ?? motor.id;
-  const lraText = `${significant(lockedRotorAmps, 4)} A`;
-  // Written once for both labels (and the notes): a study has thousands of motors.
-  const accelerationText = `${significant(accelerationTime, 3)} s`;
-  return {
-    fullLoadAmps,
-    // The notes are written when first read: a large study has thousands of motors, seldom all opened.
-    curve: withLazyFields(
-      {
-        elementId: motor.id,
-        label: `${name} starting: LRA ${lraText} for ${accelerationText}`,
-        volts,
-        // Read by index, not destructured: a study has thousands of motors.
-        amps,
-        seconds,
-      },
-      {
-        notes: () => [
-          `FLA ${significant(fullLoadAmps, 6)} A at ${significant(volts, 6)} V (${fullLoad.basis})` +
-            (serviceFactor === 1
-              ? ''
-              : `; running current × service factor ${serviceFactor} = ${significant(runningAmps, 6)} A`),
-          options.lockedRotorAmps === undefined
-            ? `LRA = ${motor.lockedRotor} × FLA = ${lraText} (common practice without data: about 6 × FLA)`
-            : `LRA ${lraText} given`,
-          `asymmetrical first-cycle current ${asymmetryFactor} × LRA = ${significant(asymmetricalAmps, 4)} A from ` +
-            `${STARTING_TIMES.halfCycle} s to ${asymmetricalUntil} s (common practice: 1.5–1.7 × LRA)`,
-          `acceleration time ${accelerationText}, then the running current up to ${longestSeconds} s (common practice)`,
-        ],
-      },
-    ),
-    lockedRotor: {
-      kind: 'locked-rotor',
-      label: `${name} locked rotor ${lraText} for ${accelerationText}`,
-      volts,
-      amps: lockedRotorAmps,
-      seconds: accelerationTime,
-      elementId: motor.id,
-    },
-  };
+  return { fullLoadAmps, lockedRotorAmps, accelerationTime, amps, seconds };
 }

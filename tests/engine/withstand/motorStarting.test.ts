@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import { lockedRotorAmpsFromCode } from '../../../src/engine/withstand/lockedRotorCode.ts';
-import { motorStartingOf, STARTING_TIMES } from '../../../src/engine/withstand/motorStarting.ts';
+import { motorStartingOf, startingPointsOf, STARTING_TIMES } from '../../../src/engine/withstand/motorStarting.ts';
 import { assertInDelta } from '../../asserts.ts';
 import { motorOf } from './fixtures.ts';
 
@@ -56,6 +56,15 @@ describe('motorStartingOf', () => {
     const { curve } = motorStartingOf(motorOf({ fullLoadAmps: 10, accelerationTime: 0.05 }), 480);
     expect(Array.from(curve.seconds)).toEqual([0.01, 0.05, 0.05, 0.05, 1000]);
     expect(Array.from(curve.amps)).toEqual([96, 96, 60, 10, 10]);
+  });
+
+  it('startingPointsOf gives the motor check the drawn curve’s points, without its words', () => {
+    for (const motor of [motorOf(), motorOf({ fullLoadAmps: 10, accelerationTime: 0.05 }), motorOf({ hp: 7.5 })]) {
+      const { curve, lockedRotor, fullLoadAmps } = motorStartingOf(motor, 480);
+      const points = startingPointsOf(motor, 480);
+      expect([points.amps, points.seconds, points.fullLoadAmps]).toEqual([curve.amps, curve.seconds, fullLoadAmps]);
+      expect([points.lockedRotorAmps, points.accelerationTime]).toEqual([lockedRotor.amps, lockedRotor.seconds]);
+    }
   });
 
   it('motorStartingOf falls in current as time rises, for any motor (property)', () => {
