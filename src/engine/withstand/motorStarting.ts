@@ -43,8 +43,7 @@ export interface MotorStarting {
  */
 export function motorStartingOf(motor: Motor, volts: number, options: MotorStartingOptions = {}): MotorStarting {
   const { serviceFactor = 1, asymmetryFactor = 1.6, longestSeconds = STARTING_TIMES.longest } = options;
-  const points = startingPointsOf(motor, volts, options);
-  const { fullLoadAmps, lockedRotorAmps, accelerationTime, amps, seconds } = points;
+  const { fullLoadAmps, lockedRotorAmps, accelerationTime, amps, seconds } = startingPointsOf(motor, volts, options);
   const runningAmps = fullLoadAmps * serviceFactor;
   const asymmetricalAmps = asymmetryFactor * lockedRotorAmps;
   const asymmetricalUntil = Math.min(STARTING_TIMES.asymmetricalUntil, accelerationTime);
