@@ -162,11 +162,12 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
         });
       }
       // Its rated current, the base of its withstand curve and inrush, which the device feeding it carries.
+      const fullLoadAmps = transformerRatedAmps(t, t.primary);
       markers.push({
         kind: 'full-load',
-        label: `${name} full-load current (${formatAmps(transformerRatedAmps(t, t.primary), 4)} at ${formatVolts(t.primary)})`,
+        label: `${name} full-load current (${formatAmps(fullLoadAmps, 4)} at ${formatVolts(t.primary)})`,
         volts: t.primary,
-        amps: transformerRatedAmps(t, t.primary),
+        amps: fullLoadAmps,
         elementId: t.id,
         scale: onSheet(t.primary),
       });
@@ -175,8 +176,8 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
       const c = element.item;
       const volts = network.buses.get(c.from)!.voltage;
       const curve = cableWithstandOf(c, { volts, conductorAreaCmil: conductorAreaCmil(c.size) });
-      // ICEA P-32-382 is adiabatic: a short-circuit limit to 10 s, saying nothing of overload; the
-      // ampacity, drawn as a line, is the overload limit the ampacity check holds the device above to.
+      // ICEA P-32-382 is adiabatic: a short-circuit limit to 10 s, saying nothing of overload. The
+      // cable's ampacity, drawn as a line, is its limit for overload (NFPA 70 240.4, 1000 V and less).
       withstand.push({
         id: c.id,
         label: `${c.name ?? c.id} short-circuit limit (overload not covered)`,
