@@ -1,7 +1,7 @@
 import { cableImpedanceOf } from '../conductors/cableImpedance.ts';
 import { closedSwitchLinks, type Branch, type Network } from '../network/index.ts';
 import type { WorkStep } from '../work.ts';
-import { addImpedance, invertImpedance, ZERO_IMPEDANCE, type Impedance } from './impedance.ts';
+import { addImpedance, invertImpedance, ParallelSum, ZERO_IMPEDANCE, type Impedance } from './impedance.ts';
 import { motorImpedanceOf } from './motorImpedance.ts';
 import { reflectImpedance } from './reflect.ts';
 import { sourceLevelsOf } from './sourceLevels.ts';
@@ -86,8 +86,8 @@ export function faultTreeOf(network: Network, condition: FaultCondition, element
   // Leaves to source: the motors at and below each bus, as one branch seen from it.
   const below = new Map<string, Impedance | undefined>();
   const feeding = new Map<string, Impedance | undefined>();
-  // The motors on a bus and the branches below it in parallel, summed as `parallelImpedance` sums
-  // them (motors first, then branches), without a list of terms per bus: a study has thousands.
+  // The motors on a bus and the branches below it in parallel (motors first, then branches), summed
+  // term by term without a list of terms per bus: a study has thousands.
   const sum = new ParallelSum();
   const addBusTerms = (bus: string, branches: readonly Branch[]) => {
     for (const motor of network.motorsOn.get(bus) ?? []) sum.add(motorZ.get(motor.id));
@@ -201,44 +201,6 @@ export function isSinglePhase(branch: Branch): boolean {
 }
 
 const NO_BRANCHES: readonly Branch[] = [];
-
-/**
- * `parallelImpedance` of terms given one at a time: the same sum in the same order, so the same
- * result to the last bit, without gathering the terms in a list first.
- */
-class ParallelSum {
-  #g = 0;
-  #b = 0;
-  #any = false;
-  #zero = false;
-
-  clear(): void {
-    this.#g = 0;
-    this.#b = 0;
-    this.#any = false;
-    this.#zero = false;
-  }
-
-  /** Adds a term; `undefined` is an open circuit, skipped. */
-  add(term: Impedance | undefined): void {
-    if (!term || this.#zero) return;
-    if (term.r === 0 && term.x === 0) {
-      this.#zero = true;
-      return;
-    }
-    // As `invertImpedance`, which gives an infinite admittance where r² + x² underflows to zero.
-    const d = term.r * term.r + term.x * term.x;
-    this.#g += d === 0 ? Infinity : term.r / d;
-    this.#b += d === 0 ? Infinity : -term.x / d;
-    this.#any = true;
-  }
-
-  /** The terms in parallel; zero if one is zero, `undefined` with none. */
-  impedance(): Impedance | undefined {
-    if (this.#zero) return ZERO_IMPEDANCE;
-    return this.#any ? invertImpedance({ r: this.#g, x: this.#b }) : undefined;
-  }
-}
 
 /** Admittance of an impedance; zero for an open circuit (undefined). */
 function admittanceOf(z: Impedance | undefined): Impedance {

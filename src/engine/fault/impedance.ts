@@ -66,18 +66,50 @@ export function invertImpedance(z: Impedance): Impedance {
  * @example parallelImpedance({ r: 0, x: 2 }, { r: 0, x: 2 }) // { r: 0, x: 1 }
  */
 export function parallelImpedance(...terms: (Impedance | undefined)[]): Impedance | undefined {
-  let g = 0;
-  let b = 0;
-  let any = false;
-  for (const term of terms) {
-    if (!term) continue;
-    if (term.r === 0 && term.x === 0) return ZERO_IMPEDANCE;
-    const y = invertImpedance(term);
-    g += y.r;
-    b += y.x;
-    any = true;
+  const sum = new ParallelSum();
+  for (const term of terms) sum.add(term);
+  return sum.impedance();
+}
+
+/**
+ * Impedances in parallel, `1 / Σ(1/zᵢ)`, given one term at a time (no list of terms is gathered):
+ * `undefined` terms are open circuits and are skipped; a zero impedance makes the result zero; with no
+ * terms the result is `undefined`. `clear` starts a new sum.
+ *
+ * @example const sum = new ParallelSum(); sum.add({ r: 0, x: 2 }); sum.add({ r: 0, x: 2 }); sum.impedance() // { r: 0, x: 1 }
+ */
+export class ParallelSum {
+  #g = 0;
+  #b = 0;
+  #any = false;
+  #zero = false;
+
+  clear(): void {
+    this.#g = 0;
+    this.#b = 0;
+    this.#any = false;
+    this.#zero = false;
   }
-  return any ? invertImpedance({ r: g, x: b }) : undefined;
+
+  /** Adds a term; `undefined` is an open circuit, skipped. */
+  add(term: Impedance | undefined): void {
+    if (!term || this.#zero) return;
+    if (term.r === 0 && term.x === 0) {
+      this.#zero = true;
+      return;
+    }
+    // As `invertImpedance`, which gives an infinite admittance where r² + x² underflows to zero.
+    const d = term.r * term.r + term.x * term.x;
+    this.#g += d === 0 ? Infinity : term.r / d;
+    this.#b += d === 0 ? Infinity : -term.x / d;
+    this.#any = true;
+  }
+
+  /** The terms in parallel; zero if one is zero, `undefined` with none. */
+  impedance(): Impedance | undefined {
+    if (this.#zero) return ZERO_IMPEDANCE;
+    return this.#any ? invertImpedance({ r: this.#g, x: this.#b }) : undefined;
+  }
 }
 
 /** Renders `r + jx` for work steps, six significant figures. @example formatImpedance({ r: 0.00995121, x: 0.0626969 }) // "0.00995121 + j0.0626969" */
