@@ -42,11 +42,19 @@ export interface MotorStarting {
  * @example motorStartingOf(motor100hp, 460, { lockedRotorAmps: 789.46 }).lockedRotor.amps // 789.46
  */
 export function motorStartingOf(motor: Motor, volts: number, options: MotorStartingOptions = {}): MotorStarting {
-  const { serviceFactor = 1, asymmetryFactor = 1.6, longestSeconds = STARTING_TIMES.longest } = options;
-  const { fullLoadAmps, lockedRotorAmps, accelerationTime, amps, seconds } = startingPointsOf(motor, volts, options);
-  const runningAmps = fullLoadAmps * serviceFactor;
-  const asymmetricalAmps = asymmetryFactor * lockedRotorAmps;
-  const asymmetricalUntil = Math.min(STARTING_TIMES.asymmetricalUntil, accelerationTime);
+  const {
+    serviceFactor,
+    asymmetryFactor,
+    longestSeconds,
+    fullLoadAmps,
+    runningAmps,
+    lockedRotorAmps,
+    asymmetricalAmps,
+    asymmetricalUntil,
+    accelerationTime,
+    amps,
+    seconds,
+  } = startingPointsOf(motor, volts, options);
   const name = motor.name ?? motor.id;
   const lraText = `${significant(lockedRotorAmps, 4)} A`;
   // Written once for both labels (and the notes): a study has thousands of motors.
@@ -89,11 +97,20 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
   };
 }
 
-/** The currents and times of a motor's starting curve, with the currents they come from. */
+/** The currents and times of a motor's starting curve, with the currents and options they come from. */
 export interface StartingPoints {
+  /** The options as used, defaults filled in. */
+  serviceFactor: number;
+  asymmetryFactor: number;
+  longestSeconds: number;
   /** Full-load current (A) at the bus voltage, before the service factor. */
   fullLoadAmps: number;
+  /** `fullLoadAmps × serviceFactor` (A). */
+  runningAmps: number;
   lockedRotorAmps: number;
+  /** `asymmetryFactor × lockedRotorAmps` (A), until `asymmetricalUntil` (s). */
+  asymmetricalAmps: number;
+  asymmetricalUntil: number;
   /** s */
   accelerationTime: number;
   /** The curve's currents (A), in the order of time. */
@@ -171,5 +188,17 @@ export function startingPointsOf(motor: Motor, volts: number, options: MotorStar
     amps[k] = stepAmps[i];
     seconds[k++] = stepSeconds[i];
   }
-  return { fullLoadAmps, lockedRotorAmps, accelerationTime, amps, seconds };
+  return {
+    serviceFactor,
+    asymmetryFactor,
+    longestSeconds,
+    fullLoadAmps,
+    runningAmps,
+    lockedRotorAmps,
+    asymmetricalAmps,
+    asymmetricalUntil,
+    accelerationTime,
+    amps,
+    seconds,
+  };
 }
