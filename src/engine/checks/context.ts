@@ -93,6 +93,9 @@ export function capitalise(text: string): string {
 
 /** The device feeding the element, or the nearest one above it on the way to the source. */
 export function protectingDevice(context: CheckContext, elementId: string): Device | undefined {
+  const { protectors } = context.network;
+  const known = protectors.get(elementId);
+  if (known !== undefined || protectors.has(elementId)) return known;
   const path = pathTo(context.network, elementId);
   for (let i = path.length - 1; i >= 0; i--) {
     const device = context.network.deviceFeeding.get(path[i]);

@@ -6,6 +6,7 @@ import {
   seriesPairs,
   transformersBetween,
   upstreamDeviceOf,
+  type Network,
 } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { radialStudy } from '../../../bench/radialStudy.ts';
@@ -92,6 +93,74 @@ describe('networkOf', () => {
   });
 });
 
+describe("the tree's facts, worked out once", () => {
+  // The reference: the path from the source, walked for each element as the checks once did.
+  const generatedNetwork = networkOf(parseStudy(radialStudy(300)));
+  const byPath = (target: Network, elementId: string) => {
+    const path = pathTo(target, elementId);
+    const device = path.findLast((id) => target.deviceFeeding.has(id));
+    return device === undefined ? undefined : target.deviceFeeding.get(device);
+  };
+
+  it('gives every element the protecting device and location bus its path from the source gives', () => {
+    let elements = 0;
+    for (const [id, element] of generatedNetwork.elements) {
+      expect(generatedNetwork.protectors.get(id)).toBe(byPath(generatedNetwork, id));
+      expect(generatedNetwork.protectors.has(id)).toBe(true);
+      const bus = element.type === 'bus' ? id : element.type === 'motor' ? element.item.bus : element.item.from;
+      expect(generatedNetwork.locations.get(id)!.id).toBe(bus);
+      elements++;
+    }
+    expect(elements).toBeGreaterThan(300);
+    for (const device of generatedNetwork.study.devices) {
+      const path = pathTo(generatedNetwork, device.feeds);
+      const above = path.slice(0, -1).findLast((id) => generatedNetwork.deviceFeeding.has(id));
+      expect(upstreamDeviceOf(generatedNetwork, device)?.id).toBe(
+        above === undefined ? undefined : generatedNetwork.deviceFeeding.get(above)!.id,
+      );
+    }
+  });
+
+  it('takes a part with a top bus of its own as a tree of its own, and leaves out a loop (studies the tree rules refuse)', () => {
+    // An island: bus ISLAND fed from bus ISLAND-TOP, which nothing feeds.
+    const study = parseStudy(demo);
+    const islandTop = { ...study.buses[1], id: 'ISLAND-TOP' };
+    const island = { ...study.buses[1], id: 'ISLAND' };
+    const link = { ...study.cables[0], id: 'C-ISLAND', from: 'ISLAND-TOP', to: 'ISLAND' };
+    const feeder = { ...study.devices[0], id: 'B-ISLAND', feeds: 'C-ISLAND' };
+    const below = { ...study.devices[0], id: 'B-BELOW', feeds: 'ISLAND' };
+    const withIsland = networkOf({
+      ...study,
+      buses: [...study.buses, islandTop, island],
+      cables: [...study.cables, link],
+      devices: [...study.devices, feeder, below],
+    });
+    // ISLAND-TOP has no feeder, so it tops a tree of its own, as the walkers climb it.
+    expect(withIsland.depths.get('ISLAND')).toBe(1);
+    expect(withIsland.protectors.get('C-ISLAND')?.id).toBe('B-ISLAND');
+    expect(withIsland.protectors.get('ISLAND')?.id).toBe('B-BELOW');
+    expect(byPath(withIsland, 'ISLAND')?.id).toBe('B-BELOW');
+    expect(upstreamDeviceOf(withIsland, below)?.id).toBe('B-ISLAND');
+    expect(locationBusOf(withIsland, below).id).toBe('ISLAND');
+    expect(transformersBetween(withIsland, 'ISLAND', 'MV')).toEqual([]);
+    // Two buses feeding each other top no tree: no fact is worked out for them.
+    const loopA = { ...study.buses[1], id: 'LOOP-A' };
+    const loopB = { ...study.buses[1], id: 'LOOP-B' };
+    const withLoop = networkOf({
+      ...study,
+      buses: [...study.buses, loopA, loopB],
+      cables: [
+        ...study.cables,
+        { ...study.cables[0], id: 'C-AB', from: 'LOOP-A', to: 'LOOP-B' },
+        { ...study.cables[0], id: 'C-BA', from: 'LOOP-B', to: 'LOOP-A' },
+      ],
+    });
+    expect(['LOOP-A', 'LOOP-B', 'C-AB', 'C-BA'].filter((id) => withLoop.protectors.has(id))).toEqual([]);
+    expect(withLoop.depths.has('LOOP-A')).toBe(false);
+    expect(withLoop.depths.get('MCC')).toBe(2);
+  });
+});
+
 describe('series pairs', () => {
   const devices = [
     { id: 'R-MAIN', feeds: 'T1' },
@@ -101,12 +170,7 @@ describe('series pairs', () => {
     { id: 'B-OFC2', feeds: 'T2' },
     { id: 'OL-1', feeds: 'M-COMP1' },
   ];
-  const fake = {
-    ...network,
-    study: { ...network.study, devices: devices as never },
-    deviceFeeding: new Map(devices.map((d) => [d.feeds, d as never])),
-    devices: new Map(devices.map((d) => [d.id, d as never])),
-  };
+  const fake = networkOf({ ...network.study, devices: devices as never });
 
   it('seriesPairs pairs each device with the nearest device above it', () => {
     const pairs = seriesPairs(fake).map(
