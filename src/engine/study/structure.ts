@@ -255,10 +255,10 @@ export function structureProblems(study: Study): StudyProblem[] {
       problem(`${path}`, 'each pair once', `${pair.upstream} above ${pair.downstream}`);
     pairSeen.add(`${pair.upstream}\n${pair.downstream}`);
   });
-  if (problems.length > 0) return problems;
+  if (problems.length > 0 || study.coordination.pairs.length === 0) return problems;
 
   // Only now is every scenario a forest of trees, so the networks can be walked: a per-pair margin
-  // names a device just above another in some scenario.
+  // names a device just above another in some scenario (a study without one builds no network here).
   const networks = scenariosOf(study).flatMap((scenario) =>
     scenarioPartsOf(study, scenario).map((part) => networkOf(part.study)),
   );
