@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { nameField, quantityField } from '../study/fields.ts';
-import { isValidTable, upperBelowLower } from './pointTable.ts';
-import { pointTableSchema } from './pointTableSchema.ts';
+import { isValidTable } from './pointTable.ts';
+import { pointTableSchema, upperBelowLowerOnce } from './pointTableSchema.ts';
 
 const ampsTable = pointTableSchema({ current: 'a current in amperes', unit: ' A' });
 
@@ -44,7 +44,7 @@ export const fuseSchema = z
         });
     }
     if (!isValidTable(fuse.minimumMelting) || !isValidTable(fuse.totalClearing)) return;
-    const problem = upperBelowLower(fuse.minimumMelting, fuse.totalClearing);
+    const problem = upperBelowLowerOnce(fuse.minimumMelting, fuse.totalClearing);
     if (!problem) return;
     const at = `${Number(problem.amps.toPrecision(6))} A`;
     ctx.addIssue({

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { NOT_PLAIN, withPlainReading } from '../study/plainReading.ts';
-import { pointProblem, type PointTableOptions } from './pointTable.ts';
+import { pointProblem, upperBelowLower, type PointTable, type PointTableOptions } from './pointTable.ts';
 
 /** The largest current (A, or multiple of the rating) and time (s) a point may hold, as elsewhere in a study. */
 const MAX_AMPS = 1e7;
@@ -111,6 +111,24 @@ function plainCopyOf(points: unknown[]): [number, number][] | undefined {
   recentTables.unshift(copy);
   if (recentTables.length > RECENT_TABLES) recentTables.pop();
   return copy;
+}
+
+/** What `upperBelowLower` found for each pair of tables checked, by the tables themselves. */
+const checkedPairs = new WeakMap<PointTable, WeakMap<PointTable, ReturnType<typeof upperBelowLower> | null>>();
+
+/**
+ * `upperBelowLower(lower, upper)`, worked out once per pair of tables: a study's devices of one kind
+ * share their tables as read (`plainCopyOf`), so a 2,000-device study checks a few pairs, not one per
+ * fuse and breaker. Tables as read are never written to, so an answer stays true of its pair.
+ *
+ * @example upperBelowLowerOnce(fuse.minimumMelting, fuse.totalClearing) // undefined for a sound fuse
+ */
+export function upperBelowLowerOnce(lower: PointTable, upper: PointTable): ReturnType<typeof upperBelowLower> {
+  let byUpper = checkedPairs.get(lower);
+  if (!byUpper) checkedPairs.set(lower, (byUpper = new WeakMap()));
+  let problem = byUpper.get(upper);
+  if (problem === undefined) byUpper.set(upper, (problem = upperBelowLower(lower, upper) ?? null));
+  return problem ?? undefined;
 }
 
 /** Whether each of `points` is a pair holding the same two numbers as `table`'s point there (0 and −0 told apart). */

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
-import { isValidTable, upperBelowLower } from './pointTable.ts';
-import { pointTableSchema } from './pointTableSchema.ts';
+import { isValidTable } from './pointTable.ts';
+import { pointTableSchema, upperBelowLowerOnce } from './pointTableSchema.ts';
 
 const multiplesTable = pointTableSchema({ current: 'a multiple of the rating', unit: '×' });
 
@@ -30,7 +30,7 @@ export function createThermalMagneticSchema(frequency = 60) {
         .strict()
         .superRefine(({ minimum, maximum }, ctx) => {
           if (!isValidTable(minimum) || !isValidTable(maximum)) return;
-          const problem = upperBelowLower(minimum, maximum);
+          const problem = upperBelowLowerOnce(minimum, maximum);
           if (problem) {
             ctx.addIssue({
               code: 'custom',

@@ -1,6 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { pointTableSchema, zodPointTableSchema } from '../../../src/engine/devices/pointTableSchema.ts';
+import { upperBelowLower } from '../../../src/engine/devices/pointTable.ts';
+import {
+  pointTableSchema,
+  upperBelowLowerOnce,
+  zodPointTableSchema,
+} from '../../../src/engine/devices/pointTableSchema.ts';
 
 const options = { current: 'a current in amperes', unit: ' A' };
 const schema = pointTableSchema(options);
@@ -98,6 +103,34 @@ describe('pointTableSchema', () => {
     }
     for (const table of tables) {
       expect(answerOf(schema.safeParse(table)), JSON.stringify(table)).toEqual(answerOf(zodAlone.safeParse(table)));
+    }
+  });
+});
+
+describe('upperBelowLowerOnce', () => {
+  // A fuse's two tables as read: a total-clearing curve that dips under minimum melting at 600 A.
+  const melting = schema.parse([
+    [200, 300],
+    [600, 10],
+    [2000, 0.1],
+  ]) as [number, number][];
+  const clearing = schema.parse([
+    [200, 400],
+    [600, 8],
+    [2000, 0.2],
+  ]) as [number, number][];
+  const sound = schema.parse([
+    [200, 400],
+    [600, 12],
+    [2000, 0.2],
+  ]) as [number, number][];
+
+  it('answers each pair of tables as upperBelowLower does, asked again and again, either way round', () => {
+    for (let i = 0; i < 3; i++) {
+      expect(upperBelowLowerOnce(melting, clearing)).toEqual(upperBelowLower(melting, clearing));
+      expect(upperBelowLowerOnce(melting, clearing)).toEqual({ amps: 600, lowerSeconds: 10, upperSeconds: 8 });
+      expect(upperBelowLowerOnce(melting, sound)).toBeUndefined();
+      expect(upperBelowLowerOnce(clearing, melting)).toEqual(upperBelowLower(clearing, melting));
     }
   });
 });
