@@ -1,5 +1,6 @@
 import { bandOf, fastestOf, groundFaultBandOf, type Band } from './band.ts';
 import type { Characteristic } from './devices/characteristic.ts';
+import { sameContent } from './sameContent.ts';
 
 /**
  * Bands remembered by the characteristic they come from. A band depends on its characteristic alone,
@@ -46,26 +47,6 @@ function recentTwinOf(characteristic: Characteristic): Characteristic | undefine
 function rememberRecent(characteristic: Characteristic): void {
   recent.unshift(characteristic);
   if (recent.length > RECENT_LIMIT) recent.pop();
-}
-
-/** Whether two parsed values hold the same content: the same fields (in any order), items and values. */
-function sameContent(a: unknown, b: unknown): boolean {
-  if (a === b) return true;
-  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return Object.is(a, b);
-  if (Array.isArray(a) || Array.isArray(b)) {
-    if (!Array.isArray(a) || !Array.isArray(b) || a.length !== b.length) return false;
-    for (let i = 0; i < a.length; i++) if (!sameContent(a[i], b[i])) return false;
-    return true;
-  }
-  const x = a as Record<string, unknown>;
-  const y = b as Record<string, unknown>;
-  let fields = 0;
-  for (const key in x) {
-    if (!Object.hasOwn(y, key) || !sameContent(x[key], y[key])) return false;
-    fields++;
-  }
-  for (const key in y) if (Object.hasOwn(y, key)) fields--;
-  return fields === 0;
 }
 
 function contentOf(characteristic: Characteristic): string {
