@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { withSharedReadings } from '../study/plainReading.ts';
 import { fuseSchema } from './fuseSchema.ts';
 import { createRelaySchema } from './relaySchema.ts';
 import { createThermalMagneticSchema } from './thermalMagneticSchema.ts';
@@ -12,12 +13,15 @@ import { createTripUnitSchema } from './tripUnitSchema.ts';
  * @example createCharacteristicSchema(50).parse({ kind: 'relay', ct: '600:5', instantaneous: { pickup: 40 } })
  */
 export function createCharacteristicSchema(frequency = 60) {
-  return z.discriminatedUnion('kind', [
-    createRelaySchema(frequency),
-    createTripUnitSchema(frequency),
-    createThermalMagneticSchema(frequency),
-    fuseSchema,
-  ]);
+  // Devices set alike share one reading of their characteristic (see `withSharedReadings`).
+  return withSharedReadings(
+    z.discriminatedUnion('kind', [
+      createRelaySchema(frequency),
+      createTripUnitSchema(frequency),
+      createThermalMagneticSchema(frequency),
+      fuseSchema,
+    ]),
+  );
 }
 
 /**

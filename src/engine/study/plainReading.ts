@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { sameContent } from '../sameContent.ts';
 
 /** What a plain reader returns when zod must read the value itself (to name a problem, or a form it does not take). */
 export const NOT_PLAIN: unique symbol = Symbol('not plain');
@@ -41,8 +42,25 @@ export function withPlainReading<T extends z.core.$ZodType>(schema: T, read: Pla
   return schema;
 }
 
+/**
+ * Lets values of a schema that hold the same content share one reading: a site's many breakers and
+ * fuses of one kind, set alike, carry equal characteristics, and each is read once, not once per
+ * device (with every unit, check and default), and the study holds it once. The plain reader keeps
+ * the last few values it read, as copies of its own (a caller changing its document later changes
+ * nothing here), with their readings; a value with the same content as one of them (`sameContent`)
+ * is given that reading again. A parsed study is read, never written to, so sharing is safe, as it is
+ * for the point tables (`pointTableSchema`). zod alone gives each reading its own objects.
+ *
+ * @example withSharedReadings(z.discriminatedUnion('kind', [relay, tripUnit, breaker, fuse]))
+ */
+export function withSharedReadings<T extends z.core.$ZodType>(schema: T): T {
+  sharing.add(schema._zod.def);
+  return schema;
+}
+
 const compiled = new WeakMap<z.core.$ZodType, PlainReader>();
 const declared = new WeakMap<object, PlainReader>();
+const sharing = new WeakSet<object>();
 
 /** The context zod's `safeParse` gives a schema: synchronous, forward. */
 const CONTEXT = { async: false } as z.core.ParseContext<z.core.$ZodIssue>;
@@ -60,7 +78,55 @@ function compile(schema: z.core.$ZodType): PlainReader {
   const read = own ?? (def.coerce || selfChecked ? undefined : typeReader(schema, def));
   if (!read) return zodReading(schema);
   const checks = (def.checks ?? []) as Check[];
-  return checks.length === 0 ? read : withChecks(read, checks, def.type);
+  const checked = checks.length === 0 ? read : withChecks(read, checks, def.type);
+  return sharing.has(def) ? sharedReader(checked) : checked;
+}
+
+/** Values whose readings a sharing reader keeps: a study's few kinds of device, and more. */
+const RECENT_READINGS = 16;
+
+/** `read`, giving a value with the same content as a recent one that recent value's reading (see `withSharedReadings`). */
+function sharedReader(read: PlainReader): PlainReader {
+  const recent: { value: unknown; reading: unknown }[] = [];
+  return (value) => {
+    for (let i = 0; i < recent.length; i++) {
+      const entry = recent[i];
+      if (!sameContent(entry.value, value)) continue;
+      recent.copyWithin(1, 0, i);
+      recent[0] = entry;
+      return entry.reading;
+    }
+    const reading = read(value);
+    const copy = reading === NOT_PLAIN ? NOT_PLAIN : copyOfPlain(value);
+    if (copy !== NOT_PLAIN) {
+      recent.unshift({ value: copy, reading });
+      if (recent.length > RECENT_READINGS) recent.pop();
+    }
+    return reading;
+  };
+}
+
+/** A deep copy of a value made of plain objects, arrays, strings, numbers, booleans and null; else `NOT_PLAIN`. */
+function copyOfPlain(value: unknown): unknown {
+  if (value === null || typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean')
+    return value;
+  if (Array.isArray(value)) {
+    const copy = new Array(value.length);
+    for (let i = 0; i < value.length; i++) if ((copy[i] = copyOfPlain(value[i])) === NOT_PLAIN) return NOT_PLAIN;
+    return copy;
+  }
+  if (typeof value !== 'object') return NOT_PLAIN;
+  const prototype = Object.getPrototypeOf(value);
+  if (prototype !== Object.prototype && prototype !== null) return NOT_PLAIN;
+  const copy: Record<string, unknown> = {};
+  for (const key of Object.keys(value)) {
+    // A field named `__proto__` would set the copy's prototype, not a field: such a value is not kept.
+    if (key === '__proto__') return NOT_PLAIN;
+    const item = copyOfPlain((value as Record<string, unknown>)[key]);
+    if (item === NOT_PLAIN) return NOT_PLAIN;
+    copy[key] = item;
+  }
+  return copy;
 }
 
 /** zod's own reading of one value, as its object reader does for each field. */

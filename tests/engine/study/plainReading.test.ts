@@ -2,7 +2,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { radialStudy } from '../../../bench/radialStudy.ts';
-import { characteristicSchema } from '../../../src/engine/devices/characteristic.ts';
+import { characteristicSchema, createCharacteristicSchema } from '../../../src/engine/devices/characteristic.ts';
 import { quantityField, textField } from '../../../src/engine/study/fields.ts';
 import { NOT_PLAIN, plainReaderOf } from '../../../src/engine/study/plainReading.ts';
 import { createStudySchema, studySchema } from '../../../src/engine/study/schema.ts';
@@ -110,6 +110,45 @@ describe('plain reading of fields', () => {
     expect(plainReaderOf(schema)({ required: 2, extra: 1 })).toBe(NOT_PLAIN);
     expect(plainReaderOf(schema)({ optional: 1 })).toBe(NOT_PLAIN);
     expect(plainReaderOf(schema)({ required: 2, list: [11] })).toBe(NOT_PLAIN);
+  });
+});
+
+describe('shared readings of characteristics', () => {
+  const read = plainReaderOf(characteristicSchema);
+  const breaker = () => ({
+    kind: 'trip-unit',
+    sensor: 800,
+    longTime: { pickup: 1, delay: 4 },
+    shortTime: { pickup: 6, delay: '12 cycles', i2t: true },
+  });
+
+  it("gives devices set alike one reading, whatever their fields' order, and any other device its own", () => {
+    const first = read(breaker());
+    const { sensor, ...rest } = breaker();
+    expect(read({ ...rest, sensor })).toBe(first);
+    expect(first).toStrictEqual(characteristicSchema.parse(breaker()));
+
+    const otherDelay = { ...breaker(), longTime: { pickup: 1, delay: 4.0000001 } };
+    expect(read(otherDelay)).not.toBe(first);
+    expect(read(otherDelay)).toStrictEqual(characteristicSchema.parse(otherDelay));
+    expect(read({ ...breaker(), label: 'Feeder' })).not.toBe(first);
+  });
+
+  it('reads a document changed in place after an earlier reading as it now is', () => {
+    const document = breaker();
+    const before = read(document) as { longTime: { pickup: number } };
+    document.longTime.pickup = 0.8;
+    const after = read(document) as { longTime: { pickup: number } };
+    expect(after.longTime.pickup).toBe(0.8);
+    expect(before.longTime.pickup).toBe(1);
+    expect(read(breaker())).toBe(before);
+  });
+
+  it("reads times in cycles at each schema's own frequency", () => {
+    const at60 = read(breaker()) as { shortTime: { delay: number } };
+    const at50 = plainReaderOf(createCharacteristicSchema(50))(breaker()) as { shortTime: { delay: number } };
+    expect(at60.shortTime.delay).toBeCloseTo(0.2, 12);
+    expect(at50.shortTime.delay).toBeCloseTo(0.24, 12);
   });
 });
 
