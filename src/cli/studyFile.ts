@@ -1,6 +1,6 @@
 import { expectedGot, InputError } from '../engine/errors.ts';
 import { jsonTextProblem, withoutBom } from '../engine/study/jsonText.ts';
-import { readStudy, type Study } from '../engine/study/index.ts';
+import { parseStudy, type Study } from '../engine/study/index.ts';
 import type { CommandIO } from './command.ts';
 
 /**
@@ -17,9 +17,7 @@ export function loadStudyFile(path: string | undefined, io: CommandIO, verb: str
   } catch {
     throw new InputError(path, expectedGot('a readable study file', path));
   }
-  const { study, problems } = readStudy(text);
-  if (!study) throw new InputError(problems[0].path, problems[0].message);
-  return study;
+  return parseStudy(text);
 }
 
 /**

@@ -43,10 +43,11 @@ export function readStudy(input: unknown): StudyReading {
 /**
  * `readStudy`, also giving the schema's output (`parsed`) whenever the schema accepts the document,
  * whether or not the tree rules then pass: what `readStudyEdit` reuses for the items an edit left alone.
+ * With `keepDocument` false, a reading of text whose schema reading succeeds gives no `document` back.
  *
  * @example const { reading, parsed } = readStudyParsed(document)
  */
-export function readStudyParsed(input: unknown): { reading: StudyReading; parsed?: Study } {
+export function readStudyParsed(input: unknown, keepDocument = true): { reading: StudyReading; parsed?: Study } {
   let raw = input;
   let problem: StudyProblem | undefined;
   if (typeof input === 'string') {
@@ -71,6 +72,7 @@ export function readStudyParsed(input: unknown): { reading: StudyReading; parsed
     // The text check and the built-in parser agree on what is JSON (a property test holds them to it).
     if (!parsed) return { reading: { problems: [{ path: 'study', message: 'expected well-formed JSON text' }] } };
     raw = parsed.value;
+    parsed = undefined;
   } else problem = documentProblem(raw);
   if (problem) return { reading: { document: raw, problems: [problem] } };
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
@@ -91,8 +93,12 @@ export function readStudyParsed(input: unknown): { reading: StudyReading; parsed
     if (!parsed.success) return { reading: { document: raw, problems: parsed.error.issues.map(describeIssue) } };
     study = parsed.data;
   }
+  // Text read for its study alone lets its document go before the tree rules run: a large study's
+  // document is larger than its study, and the collector would copy it while they run.
+  const document = keepDocument || typeof input !== 'string' ? raw : undefined;
+  raw = undefined;
   const problems = structureProblems(study);
-  const reading = problems.length > 0 ? { document: raw, problems } : { study, document: raw, problems };
+  const reading = problems.length > 0 ? { document, problems } : { study, document, problems };
   return { reading, parsed: study };
 }
 
@@ -191,7 +197,7 @@ function problemBelow(value: unknown, depth: number, path: PropertyKey[]): Study
  * @example const study = parseStudy(text)
  */
 export function parseStudy(input: unknown): Study {
-  const { study, problems } = readStudy(input);
+  const { study, problems } = readStudyParsed(input, false).reading;
   if (!study) throw new InputError(problems[0].path, problems[0].message);
   return study;
 }

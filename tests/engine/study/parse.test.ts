@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseStudy, readStudy, formatProblem, type StudyInput } from '../../../src/engine/study/index.ts';
+import { readStudyParsed } from '../../../src/engine/study/parse.ts';
 
 const demoText = readFileSync('demo/harrowmere-selective.json', 'utf8');
 const demo = () => JSON.parse(demoText) as StudyInput & Record<string, unknown>;
@@ -259,6 +260,21 @@ describe('readStudy', () => {
     }
     input.coordination = { pairs: [{ upstream: 'MAIN', downstream: 'FDR-EM', margin: 0.2 }] };
     expect(readStudy(input).problems).toEqual([]);
+  });
+
+  it('gives the document back unless asked not to, with the same study and problems either way', () => {
+    const kept = readStudyParsed(demoText);
+    const dropped = readStudyParsed(demoText, false);
+    expect(kept.reading.document).toEqual(demo());
+    expect(dropped.reading.document).toBeUndefined();
+    expect(dropped.reading.study).toEqual(kept.reading.study);
+    // A document given as an object is the caller's own, and is given back.
+    const document = demo();
+    expect(readStudyParsed(document, false).reading.document).toBe(document);
+    // A study the tree rules refuse: the same problems.
+    const orphan = JSON.stringify({ ...demo(), buses: [...demo().buses, { id: 'ORPHAN', voltage: 480 }] });
+    expect(readStudyParsed(orphan, false).reading.problems).toEqual(readStudy(orphan).problems);
+    expect(readStudyParsed(orphan, false).reading.problems[0].path).toBe(`study.buses[${demo().buses.length}]`);
   });
 
   it('parseStudy throws the first problem as an InputError with its path', () => {
