@@ -3,9 +3,10 @@ import { withLazyText } from '../lazyText.ts';
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { formatAmps } from '../quantity/format.ts';
 import type { Cable } from '../study/index.ts';
-import { nameOf, protectingDevice, type CheckContext } from './context.ts';
+import { cableSubjectOf, nameOf, protectingDevice, type CheckContext } from './context.ts';
 import { ratingOf } from './deviceRating.ts';
 import type { Finding } from './finding.ts';
+import { sentencesOf, sharedSentencesOf, type Rerun, type SharedSentences } from './sharedSentences.ts';
 import { loadBelowBus } from './loadBelow.ts';
 import { nextStandardRating } from './standardRatings.ts';
 
@@ -36,6 +37,17 @@ const NEXT_HIGHER_UP_TO = 800;
  * @example cableAmpacityFindings(context, officeFeeder)[0].severity // 'fail' for 4/0 copper on a 300 A breaker
  */
 export function cableAmpacityFindings(context: CheckContext, cable: Cable): Finding[] {
+  // The analysis's findings share their sentence builders, where the cable is the network's own.
+  const own = context.network.elements.get(cable.id)?.item === cable;
+  return ampacityFindings(context, cable, own ? sharedSentencesOf(context, undefined, ampacityAgain) : undefined);
+}
+
+/** `ampacityFindings` again for a finding's cable, each finding writing its own sentences. */
+const ampacityAgain: Rerun<CheckContext, undefined> = (finding, context) =>
+  ampacityFindings(context, cableSubjectOf(context, finding));
+
+/** `cableAmpacityFindings`, its findings given `shared` sentence builders, else their own. */
+function ampacityFindings(context: CheckContext, cable: Cable, shared?: SharedSentences): Finding[] {
   const { network } = context;
   const volts = network.buses.get(cable.from)!.voltage;
   const device = protectingDevice(context, cable.id);
@@ -49,10 +61,10 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
     return [
       withLazyText<Finding>(
         { id, kind: 'cable-ampacity', severity: 'info', title: `${name}: no ampacity to check`, subjects },
-        {
+        sentencesOf(shared, {
           explanation: () =>
             `NFPA 70 Table 310.16 lists no ${cable.material} conductor of ${cable.size}: give ${name}'s ampacity to check its load and overload protection (NFPA 70 240.4).`,
-        },
+        }),
         { referenceVolts: volts },
       ),
     ];
@@ -107,7 +119,7 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
   return [
     withLazyText<Finding>(
       { id, kind: 'cable-ampacity', severity, title, subjects },
-      {
+      sentencesOf(shared, {
         explanation: () => [motors > 0 ? loadSentence() : '', deviceSentence()].filter(Boolean).join(' '),
         ...(severity === 'ok'
           ? {}
@@ -119,7 +131,7 @@ export function cableAmpacityFindings(context: CheckContext, cable: Cable): Find
             }),
         basis: () =>
           `${conductors()}: ${formatAmps(ampacity / cable.sets, 3)} ${source}; NFPA 70 240.4${motors > 0 ? `; ${load!.source}` : ''}.`,
-      },
+      }),
       { referenceVolts: volts },
     ),
   ];

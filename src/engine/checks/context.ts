@@ -2,9 +2,9 @@ import type { Band } from '../band.ts';
 import type { FaultLevels } from '../fault/index.ts';
 import type { OverlapMemo } from '../overlapMemo.ts';
 import { pathTo, type Network } from '../network/index.ts';
-import type { Device } from '../study/index.ts';
+import type { Cable, Device, Motor } from '../study/index.ts';
 import { formatAmps, formatVolts } from '../quantity/format.ts';
-import type { CurrentRange } from './finding.ts';
+import type { CurrentRange, Finding } from './finding.ts';
 
 /** What every check reads: the tree, its fault levels and each device's band (at its own voltage). */
 export interface CheckContext {
@@ -89,6 +89,20 @@ export function surelyClearsFrom(band: Band, limit: number, horizon = Infinity):
 /** Starts a sentence with a capital letter. */
 export function capitalise(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+/** The cable a cable check's finding is about: the subject after its device (`subjects[1]`). */
+export function cableSubjectOf(context: CheckContext, finding: Finding): Cable {
+  const element = context.network.elements.get(finding.subjects[1]);
+  if (element?.type !== 'cable') throw new RangeError(`${finding.id}: its second subject is not a cable`);
+  return element.item;
+}
+
+/** The motor a motor check's finding is about: the subject after its device (`subjects[1]`). */
+export function motorSubjectOf(context: CheckContext, finding: Finding): Motor {
+  const element = context.network.elements.get(finding.subjects[1]);
+  if (element?.type !== 'motor') throw new RangeError(`${finding.id}: its second subject is not a motor`);
+  return element.item;
 }
 
 /** The device feeding the element, or the nearest one above it on the way to the source. */

@@ -4,6 +4,7 @@ import { formatAmps } from '../quantity/format.ts';
 import type { Device } from '../study/index.ts';
 import { capitalise, nameOf } from './context.ts';
 import type { Finding } from './finding.ts';
+import { sentencesOf, sharedSentencesOf, type Rerun, type SharedSentences } from './sharedSentences.ts';
 import { carriesLoad, fullLoadOf, pickupAmpsOf } from './loadBelow.ts';
 
 /**
@@ -18,6 +19,17 @@ import { carriesLoad, fullLoadOf, pickupAmpsOf } from './loadBelow.ts';
  * @example loadFindings(network, mccFeeder)[0].severity // 'warning' when its pickup is below 451 A
  */
 export function loadFindings(network: Network, device: Device): Finding[] {
+  // The analysis's findings share their sentence builders, where the device is the network's own.
+  const own = network.devices.get(device.id) === device;
+  return carryingFindings(network, device, own ? sharedSentencesOf(network, undefined, carryingAgain) : undefined);
+}
+
+/** `carryingFindings` again for a finding's device, each finding writing its own sentences. */
+const carryingAgain: Rerun<Network, undefined> = (finding, network) =>
+  carryingFindings(network, network.devices.get(finding.subjects[0])!);
+
+/** `loadFindings`, its findings given `shared` sentence builders, else their own. */
+function carryingFindings(network: Network, device: Device, shared?: SharedSentences): Finding[] {
   const load = fullLoadOf(network, device);
   const pickup = pickupAmpsOf(device);
   if (!load || pickup === undefined) return [];
@@ -31,11 +43,11 @@ export function loadFindings(network: Network, device: Device): Finding[] {
     return [
       withLazyText<Finding>(
         { id, kind: 'carry-load', severity: 'ok', title: `${name} carries the load it feeds`, subjects },
-        {
+        sentencesOf(shared, {
           explanation: () =>
             `${name}'s pickup, ${formatAmps(pickup, 3)}, is at least the ${formatAmps(required, 3)} its load needs: ${load.label}.`,
           basis,
-        },
+        }),
         { referenceVolts },
       ),
     ];
@@ -43,13 +55,13 @@ export function loadFindings(network: Network, device: Device): Finding[] {
   return [
     withLazyText<Finding>(
       { id, kind: 'carry-load', severity: 'warning', title: `${name}'s pickup is below the load it feeds`, subjects },
-      {
+      sentencesOf(shared, {
         explanation: () =>
           `${name}'s pickup, ${formatAmps(pickup, 3)}, is below the ${formatAmps(required, 3)} its load needs, ${load.label}: it may operate on load current in normal service, with no fault.`,
         suggestion: () =>
           `Raise ${name}'s pickup (or rating) to at least ${formatAmps(required, 3)}, within the limits of the devices above it; if the load below never runs all at once, record why the lower setting is meant.`,
         basis,
-      },
+      }),
       { referenceVolts },
     ),
   ];

@@ -4,8 +4,9 @@ import { locationBusOf } from '../network/index.ts';
 import { formatAmps, formatSeconds } from '../quantity/format.ts';
 import type { Motor } from '../study/index.ts';
 import { motorStartingOf, startingPointsOf } from '../withstand/index.ts';
-import { nameOf, protectingDevice, rangeOf, type CheckContext } from './context.ts';
+import { motorSubjectOf, nameOf, protectingDevice, rangeOf, type CheckContext } from './context.ts';
 import type { Finding } from './finding.ts';
+import { sentencesOf, sharedSentencesOf, type Rerun, type SharedSentences } from './sharedSentences.ts';
 
 /**
  * Checks that a motor's start does not trip the device above it (NFPA 70 Article 430): at every point of
@@ -15,6 +16,17 @@ import type { Finding } from './finding.ts';
  * @example motorFindings(context, compressor)
  */
 export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
+  // The analysis's findings share their sentence builders, where the motor is the network's own.
+  const own = context.network.elements.get(motor.id)?.item === motor;
+  return startingFindings(context, motor, own ? sharedSentencesOf(context, undefined, startingAgain) : undefined);
+}
+
+/** `startingFindings` again for a finding's motor, each finding writing its own sentences. */
+const startingAgain: Rerun<CheckContext, undefined> = (finding, context) =>
+  startingFindings(context, motorSubjectOf(context, finding));
+
+/** `motorFindings`, its findings given `shared` sentence builders, else their own. */
+function startingFindings(context: CheckContext, motor: Motor, shared?: SharedSentences): Finding[] {
   const device = protectingDevice(context, motor.id);
   if (!device) return [];
   const volts = context.network.buses.get(motor.bus)!.voltage;
@@ -45,11 +57,11 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
           title: `${name} starts without tripping ${deviceName}`,
           subjects: [device.id, motor.id],
         },
-        {
+        sentencesOf(shared, {
           explanation: () =>
             `${deviceName} stays above ${name}'s starting curve: ${motorStartingOf(motor, volts).curve.label}.`,
           basis,
-        },
+        }),
         { referenceVolts: volts },
       ),
     ];
@@ -65,13 +77,13 @@ export function motorFindings(context: CheckContext, motor: Motor): Finding[] {
         subjects: [device.id, motor.id],
         range: rangeOf(amps, amps, volts, []),
       },
-      {
+      sentencesOf(shared, {
         explanation: () =>
           `While starting, ${name} draws ${formatAmps(amps, 3)} for up to ${formatSeconds(seconds)}, and ${deviceName} may operate after ${formatSeconds(operates)}.`,
         suggestion: () =>
           `Raise ${deviceName}'s pickup or delay (or instantaneous setting) above the starting current, within NEC 430.52 limits.`,
         basis,
-      },
+      }),
       { referenceVolts: volts },
     ),
   ];

@@ -7,6 +7,7 @@ import type { Bus, CoordinationSettings, Device, Transformer } from '../study/in
 import { withLazyText } from '../lazyText.ts';
 import { nameOf, rangeOf, type CheckContext } from './context.ts';
 import type { CurrentRange, Finding } from './finding.ts';
+import { sentencesOf, sharedSentencesOf, type Rerun, type SharedSentences } from './sharedSentences.ts';
 
 /** The sensitivity options of a study (`coordination.sensitivity`). */
 export type SensitivitySettings = CoordinationSettings['sensitivity'];
@@ -133,6 +134,22 @@ export function sensitivityCasesOf(
  * @example sensitivityFindings(context, feeder, study.coordination.sensitivity)
  */
 export function sensitivityFindings(context: CheckContext, device: Device, settings: SensitivitySettings): Finding[] {
+  // The analysis's findings share their sentence builders, where the device is the network's own.
+  const own = context.network.devices.get(device.id) === device;
+  return zoneFindings(context, device, settings, own ? sharedSentencesOf(context, settings, zoneAgain) : undefined);
+}
+
+/** `zoneFindings` again for a finding's device, each finding writing its own sentences. */
+const zoneAgain: Rerun<CheckContext, SensitivitySettings> = (finding, context, settings) =>
+  zoneFindings(context, context.network.devices.get(finding.subjects[0])!, settings);
+
+/** `sensitivityFindings`, its findings given `shared` sentence builders, else their own. */
+function zoneFindings(
+  context: CheckContext,
+  device: Device,
+  settings: SensitivitySettings,
+  shared?: SharedSentences,
+): Finding[] {
   const { network } = context;
   const name = nameOf(device);
   const location = locationBusOf(network, device);
@@ -155,10 +172,10 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
           subjects: [device.id],
           range: caseRange(network, location, slowest),
         },
-        {
+        sentencesOf(shared, {
           explanation: () =>
             `${cases.map((c) => `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
-        },
+        }),
         { basis: basisOf(settings), referenceVolts: location.voltage },
       ),
     ];
@@ -176,13 +193,13 @@ export function sensitivityFindings(context: CheckContext, device: Device, setti
         subjects: [device.id],
         range: caseRange(network, location, c),
       },
-      {
+      sentencesOf(shared, {
         explanation: () =>
           never
             ? `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`
             : `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
         suggestion: () => remedyOf(device, c, settings.maxTime),
-      },
+      }),
       { basis: basisOf(settings), referenceVolts: location.voltage },
     );
   });
