@@ -118,7 +118,7 @@ export function faultLevelsOf(network: Network): FaultLevels {
   const { max: maxLevel, min: minLevel, minPath } = sourceLevelsOf(source);
   const max = faultTreeOf(network, { kind: 'max', level: maxLevel, motors: true, temperature: 75, toleranced: true });
   // The maximum fault without motors, for the motors' share: the same elements as `max`, taken from it.
-  const bare = faultTreeOf(network, { ...max.condition, motors: false }, max);
+  const withoutMotors = threePhaseAmpsOf(network, faultTreeOf(network, { ...max.condition, motors: false }, max));
   const min = faultTreeOf(network, {
     kind: 'min',
     level: minLevel,
@@ -172,8 +172,7 @@ export function faultLevelsOf(network: Network): FaultLevels {
       buses.set(busId, withLazyWork(fault, work));
       continue;
     }
-    const noMotors = levelAt(network, bare, busId, zeroMax.atBus.get(busId), 0);
-    const maxAt = levelAt(network, max, busId, zeroMax.atBus.get(busId), noMotors.threePhase);
+    const maxAt = levelAt(network, max, busId, zeroMax.atBus.get(busId), withoutMotors.get(busId)!);
     const minAt = levelAt(network, min, busId, zeroMin.atBus.get(busId), 0);
     const work = () => [
       ...stepsTo(network, max, busId, 'maximum'),
@@ -267,6 +266,19 @@ function singlePhaseLevel(bus: SinglePhaseBus): FaultLevel {
     impedance: bus.lineToLine.z,
     zeroSequence: bus.lineToGround?.z,
   };
+}
+
+/**
+ * The three-phase fault at each bus of a tree (A), as `levelAt` works it out: for the motors' share,
+ * from the tree without motors, which need not be kept.
+ */
+function threePhaseAmpsOf(network: Network, tree: FaultTree): Map<string, number> {
+  const amps = new Map<string, number>();
+  for (const busId of tree.order) {
+    const z = parallelImpedance(tree.toward.get(busId)!, tree.below.get(busId))!;
+    amps.set(busId, ampsOf(network.buses.get(busId)!.voltage / Math.sqrt(3), z));
+  }
+  return amps;
 }
 
 /** One condition's fault level at a three-phase bus. */
