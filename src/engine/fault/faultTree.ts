@@ -1,5 +1,6 @@
 import { cableImpedanceOf } from '../conductors/cableImpedance.ts';
 import { closedSwitchLinks, type Branch, type Network } from '../network/index.ts';
+import type { Cable } from '../study/index.ts';
 import type { WorkStep } from '../work.ts';
 import { addImpedance, invertImpedance, ParallelSum, ZERO_IMPEDANCE, type Impedance } from './impedance.ts';
 import { motorImpedanceOf } from './motorImpedance.ts';
@@ -38,10 +39,19 @@ export interface FaultTree {
   behind: Map<string, Impedance>;
   /** Series impedance of each branch: cables in ohms, transformers in ohms at the secondary. */
   branchZ: Map<string, Impedance>;
-  /** The steps that produce each element's own impedance (source, branch, motor), by id; written when read. */
-  steps: Map<string, { readonly steps: WorkStep[] }>;
+  /** The steps that produce each element's own impedance (source, branch, motor), by id; worked out when read. */
+  steps: ElementSteps;
   /** Motor first-cycle impedance by motor id (when the condition counts motors). */
   motorZ: Map<string, Impedance>;
+}
+
+/**
+ * The steps behind the own impedance of each element of a tree, by id (the source, a branch, a motor
+ * where the condition counts motors): worked out again when read, not kept, since a study has
+ * thousands of elements whose steps are seldom opened.
+ */
+export interface ElementSteps {
+  get(id: string): { readonly steps: WorkStep[] } | undefined;
 }
 
 /**
@@ -56,7 +66,7 @@ export interface FaultTree {
 export function faultTreeOf(network: Network, condition: FaultCondition, elementsFrom?: FaultTree): FaultTree {
   const { study } = network;
   const volts = (busId: string) => network.buses.get(busId)!.voltage;
-  const steps = new Map<string, { readonly steps: WorkStep[] }>();
+  const steps: ElementSteps = { get: (id) => elementStepsOf(network, condition, id) };
   const branchZ = new Map<string, Impedance>();
   const motorZ = new Map<string, Impedance>();
 
@@ -64,19 +74,12 @@ export function faultTreeOf(network: Network, condition: FaultCondition, element
   // temperature and tolerance where one is given (the maximum fault without motors), else computed.
   const root = study.source.bus;
   if (elementsFrom && sameElements(elementsFrom.condition, condition)) {
-    for (const [id, z] of elementsFrom.branchZ) {
-      branchZ.set(id, z);
-      steps.set(id, elementsFrom.steps.get(id)!);
-    }
+    for (const [id, z] of elementsFrom.branchZ) branchZ.set(id, z);
   } else {
-    elementImpedances(network, condition, branchZ, steps);
+    elementImpedances(network, condition, branchZ);
   }
   if (condition.motors)
-    for (const motor of study.motors) {
-      const result = motorImpedanceOf(motor, volts(motor.bus));
-      motorZ.set(motor.id, result.z);
-      steps.set(motor.id, result);
-    }
+    for (const motor of study.motors) motorZ.set(motor.id, motorImpedanceOf(motor, volts(motor.bus)).z);
 
   // Breadth-first order from the source bus.
   const order = [root];
@@ -136,53 +139,63 @@ export function faultTreeOf(network: Network, condition: FaultCondition, element
   return { condition, order, toward, below, behind, branchZ, steps, motorZ };
 }
 
-/** The source's, cables', closed links' and transformers' own impedances for a condition, with their steps. */
-function elementImpedances(
+/** The source's, cables', closed links' and transformers' own impedances for a condition. */
+function elementImpedances(network: Network, condition: FaultCondition, branchZ: Map<string, Impedance>): void {
+  const { study } = network;
+  branchZ.set(study.source.id, sourceOf(network, condition).z);
+  study.cables.forEach((cable, i) => branchZ.set(cable.id, cableOf(cable, i, condition).z));
+  for (const link of closedSwitchLinks(study.switches)) branchZ.set(link.id, ZERO_IMPEDANCE);
+  for (const t of study.transformers)
+    branchZ.set(t.id, transformerImpedanceOf(t, { toleranced: condition.toleranced }).z);
+}
+
+/** The steps behind one element's own impedance in a tree for `condition` (see `ElementSteps`). */
+function elementStepsOf(
   network: Network,
   condition: FaultCondition,
-  branchZ: Map<string, Impedance>,
-  steps: Map<string, { readonly steps: WorkStep[] }>,
-): void {
+  id: string,
+): { readonly steps: WorkStep[] } | undefined {
   const { study } = network;
-  const root = study.source.bus;
-  if (condition.level) {
-    const source = sourceImpedanceOf(
-      condition.level,
-      network.buses.get(root)!.voltage,
-      sourceLevelsOf(study.source).label,
-    );
-    steps.set(study.source.id, source);
-    branchZ.set(study.source.id, source.z);
-  } else {
-    branchZ.set(study.source.id, ZERO_IMPEDANCE);
-    steps.set(study.source.id, {
-      steps: [{ label: 'infinite source', formula: 'Z_U = 0', substituted: 'Z_U = 0', value: 0, unit: 'Ω' }],
-    });
+  if (id === study.source.id) return sourceOf(network, condition);
+  const element = network.elements.get(id);
+  switch (element?.type) {
+    case 'cable':
+      return cableOf(element.item, study.cables.indexOf(element.item), condition);
+    case 'transformer':
+      return transformerImpedanceOf(element.item, { toleranced: condition.toleranced });
+    case 'switch': {
+      const link = element.item;
+      const step = {
+        label: `${link.id}: closed switch from ${link.from} to ${link.to}, no impedance`,
+        formula: 'Z = 0',
+        substituted: 'Z = 0',
+        value: 0,
+        unit: 'Ω',
+      };
+      return { steps: [step] };
+    }
+    case 'motor':
+      return condition.motors
+        ? motorImpedanceOf(element.item, network.buses.get(element.item.bus)!.voltage)
+        : undefined;
+    default:
+      return undefined;
   }
-  study.cables.forEach((cable, i) => {
-    const result = cableImpedanceOf(cable, { temperature: condition.temperature, path: `study.cables[${i}]` });
-    branchZ.set(cable.id, result.z);
-    steps.set(cable.id, result);
-  });
-  for (const link of closedSwitchLinks(study.switches)) {
-    branchZ.set(link.id, ZERO_IMPEDANCE);
-    steps.set(link.id, {
-      steps: [
-        {
-          label: `${link.id}: closed switch from ${link.from} to ${link.to}, no impedance`,
-          formula: 'Z = 0',
-          substituted: 'Z = 0',
-          value: 0,
-          unit: 'Ω',
-        },
-      ],
-    });
+}
+
+/** The source's impedance for a condition, with its steps: none for an infinite source. */
+function sourceOf(network: Network, condition: FaultCondition): { z: Impedance; readonly steps: WorkStep[] } {
+  const { source } = network.study;
+  if (!condition.level) {
+    const step = { label: 'infinite source', formula: 'Z_U = 0', substituted: 'Z_U = 0', value: 0, unit: 'Ω' };
+    return { z: ZERO_IMPEDANCE, steps: [step] };
   }
-  for (const t of study.transformers) {
-    const result = transformerImpedanceOf(t, { toleranced: condition.toleranced });
-    branchZ.set(t.id, result.z);
-    steps.set(t.id, result);
-  }
+  return sourceImpedanceOf(condition.level, network.buses.get(source.bus)!.voltage, sourceLevelsOf(source).label);
+}
+
+/** A cable's impedance at the condition's conductor temperature, with its steps (`index` names it in messages). */
+function cableOf(cable: Cable, index: number, condition: FaultCondition): { z: Impedance; readonly steps: WorkStep[] } {
+  return cableImpedanceOf(cable, { temperature: condition.temperature, path: `study.cables[${index}]` });
 }
 
 /** Whether two conditions give every element but the motors the same impedance. */

@@ -3,7 +3,8 @@ import fc from 'fast-check';
 import { faultLevelsOf, faultTreeOf, motorImpedanceOf } from '../../../src/engine/fault/index.ts';
 import { cableImpedanceOf } from '../../../src/engine/conductors/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
-import type { StudyInput } from '../../../src/engine/study/index.ts';
+import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { radialStudy } from '../../../bench/radialStudy.ts';
 import { assertInDelta } from '../../asserts.ts';
 import { case72Input, study } from './studies.ts';
 
@@ -134,10 +135,25 @@ describe('faultTreeOf', () => {
     expect(taken.toward).toEqual(computed.toward);
     expect(taken.below).toEqual(computed.below);
     expect(taken.branchZ).toEqual(computed.branchZ);
-    expect([...taken.steps.keys()]).toEqual([...computed.steps.keys()]);
+    for (const id of computed.branchZ.keys()) expect(taken.steps.get(id)!.steps).toEqual(computed.steps.get(id)!.steps);
+    expect(max.steps.get('NO-SUCH-ELEMENT')).toBeUndefined();
     expect(taken.branchZ.get('C')).toBe(max.branchZ.get('C'));
     // At 90 °C the cables' resistance differs, so nothing is taken from the 75 °C tree.
     const hot = faultTreeOf(network, { ...withoutMotors, temperature: 90 }, max);
     expect(hot.branchZ.get('C')!.r).toBeGreaterThan(max.branchZ.get('C')!.r);
+  });
+
+  it("works out a motor's steps where the condition counts motors, and gives none where it does not", () => {
+    const generated = parseStudy(radialStudy(25));
+    const network = networkOf(generated);
+    const level = generated.source.kind === 'utility' ? generated.source.max : undefined;
+    const max = faultTreeOf(network, { kind: 'max', level, motors: true, temperature: 75, toleranced: true });
+    const bare = faultTreeOf(network, { ...max.condition, motors: false }, max);
+    const motor = generated.motors[0];
+    // The first step is the motor's own full-load current; the same steps each time they are read.
+    expect(max.steps.get(motor.id)!.steps[0].label).toMatch(new RegExp(motor.id));
+    expect(max.steps.get(motor.id)!.steps).toEqual(max.steps.get(motor.id)!.steps);
+    expect(max.motorZ.get(motor.id)).toEqual(motorImpedanceOf(motor, 480).z);
+    expect(bare.steps.get(motor.id)).toBeUndefined();
   });
 });
