@@ -157,12 +157,13 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
   const findings: Finding[] = [];
   const up = nameOf(upstream);
   const down = nameOf(downstream);
-  // One list of subjects for the pair's findings (findings are read-only data).
+  // One list of subjects for the pair's findings (findings are read-only data), by which their
+  // sentences find the pair.
   const subjects = [check.upstream, check.downstream];
+  pairOfSubjects.set(subjects, { check, up, down });
   for (const pairCase of check.cases) {
     const faultText = FAULT_TEXT[pairCase.fault];
     let shifts: Map<number, number> | undefined;
-    let sentences: ReturnType<typeof caseSentences> | undefined;
     for (let index = 0; index < pairCase.intervals.length; index++) {
       const interval = pairCase.intervals[index];
       if (interval.status === 'selective' || isSliver(interval)) continue;
@@ -172,7 +173,6 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       const { worst } = interval;
       // The sentences are written when first read (a large study's findings are seldom all read); they
       // are added in their place in the key order, after `worst`, so every finding has the same shape.
-      sentences ??= caseSentences(up, down, check.rule, pairCase.fault, faultText);
       // The id and title are joined into flat strings: a template literal keeps one object per piece
       // (a tenth of what a large analysis keeps, all of it copied by the collector).
       const finding = withLazyText<Finding>(
@@ -186,7 +186,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
           range,
           worst,
         },
-        { explanation: sentences.explanation, suggestion: sentences.suggestion },
+        { explanation: explanationOf, suggestion: suggestionOf },
         { basis: check.rule.basis, referenceVolts: pairCase.referenceVolts },
       );
       findings.push(finding);
@@ -215,10 +215,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         range,
         worst: least.worst,
       },
-      {
-        explanation: () =>
-          `${capitalise(describeRange(range))} ${up} always waits for ${down}: the least separation is ${marginText(least.worst.marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(least.worst.amps, 3)}.`,
-      },
+      { explanation: selectiveExplanationOf },
       { basis: check.rule.basis, referenceVolts: first.referenceVolts },
     );
     findings.push(finding);
@@ -229,18 +226,46 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
 /** What a finding's sentences read of its interval: the status, the worst point and where it ends. */
 type IntervalFacts = Pick<OverlapInterval, 'status' | 'worst' | 'toAmps'>;
 
+/** What a pair's findings' sentences read of it: the check, and the two devices' names. */
+interface PairSentenceFacts {
+  check: PairCheck;
+  up: string;
+  down: string;
+}
+
 /**
- * The sentence builders of one case's findings, each writing from the finding it is given (its status,
- * worst point and range, the interval's own): two closures per case, where one pair per finding, with
- * the interval they held, was a tenth of what an analysis keeps.
+ * Each pair's facts, by the subjects list its findings share: the sentence builders are module
+ * functions shared by every coordination finding, and read the pair from here when first asked (a
+ * closure or two per fault case, with what they held, was a tenth of what a large study's analysis
+ * keeps). Kept as long as the findings are.
  */
-function caseSentences(up: string, down: string, rule: MarginRule, fault: PairCase['fault'], faultText: string) {
-  return {
-    explanation: (finding: Finding) =>
-      explain(factsOf(finding), up, down, describeRange(finding.range!), rule, faultText),
-    suggestion: (finding: Finding) =>
-      fault === 'ground-fault' ? suggestGround(factsOf(finding), up, down) : suggest(factsOf(finding), up, down, rule),
-  };
+const pairOfSubjects = new WeakMap<readonly string[], PairSentenceFacts>();
+
+/** The explanation of a finding on an interval that is not selective. */
+function explanationOf(finding: Finding): string {
+  const { check, up, down } = pairOfSubjects.get(finding.subjects)!;
+  const fault = faultOfFinding(finding);
+  return explain(factsOf(finding), up, down, describeRange(finding.range!), check.rule, FAULT_TEXT[fault]);
+}
+
+/** The suggestion of a finding on an interval that is not selective. */
+function suggestionOf(finding: Finding): string {
+  const { check, up, down } = pairOfSubjects.get(finding.subjects)!;
+  return faultOfFinding(finding) === 'ground-fault'
+    ? suggestGround(factsOf(finding), up, down)
+    : suggest(factsOf(finding), up, down, check.rule);
+}
+
+/** The explanation of a selective pair's one finding: the least separation, at its worst point. */
+function selectiveExplanationOf(finding: Finding): string {
+  const { check, up, down } = pairOfSubjects.get(finding.subjects)!;
+  const { marginSeconds, amps } = finding.worst!;
+  return `${capitalise(describeRange(finding.range!))} ${up} always waits for ${down}: the least separation is ${marginText(marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(amps, 3)}.`;
+}
+
+/** The fault case a finding on an interval is about, as its id names it (`coordination:UP/DOWN:fault:index`; ids hold no colon). */
+function faultOfFinding(finding: Finding): PairFault {
+  return finding.id.split(':')[2] as PairFault;
 }
 
 /** A finding's interval facts, read from the finding itself. */
