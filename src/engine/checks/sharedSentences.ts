@@ -28,7 +28,7 @@ const sharing = new WeakMap<object, Map<Rerun<never, never>, Map<unknown, Shared
  * workbench reads a screenful, a report each once. Checks are pure functions, so the twin's sentence
  * is the finding's own.
  *
- * @example explanation: shared?.explanation ?? (() => sentenceOf(cable))
+ * @example const shared = sharedSentencesOf(context, undefined, ampacityAgain) // then sentencesOf(shared, { … })
  */
 export function sharedSentencesOf<O extends object, S>(owner: O, settings: S, rerun: Rerun<O, S>): SharedSentences {
   let byCheck = sharing.get(owner);
