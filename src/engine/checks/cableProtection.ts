@@ -1,12 +1,20 @@
 import { withLazyText } from '../lazyText.ts';
-import { scaleBand } from '../band.ts';
+import { scaleBand, type Band } from '../band.ts';
 import { locationBusOf } from '../network/index.ts';
 import { findOverlaps } from '../overlap.ts';
 import { formatAmps, formatSeconds } from '../quantity/format.ts';
-import type { Cable } from '../study/index.ts';
+import type { Cable, Device } from '../study/index.ts';
 import { conductorAreaCmil } from '../conductors/index.ts';
-import { cableWithstandOf } from '../withstand/index.ts';
-import { capitalise, describeRange, nameOf, protectingDevice, rangeOf, type CheckContext } from './context.ts';
+import { cableWithstandOf, type WithstandCurve } from '../withstand/index.ts';
+import {
+  cableSubjectOf,
+  capitalise,
+  describeRange,
+  nameOf,
+  protectingDevice,
+  rangeOf,
+  type CheckContext,
+} from './context.ts';
 import type { Finding } from './finding.ts';
 import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
 
@@ -18,24 +26,15 @@ import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
  * @example cableFindings(context, cable)
  */
 export function cableFindings(context: CheckContext, cable: Cable, horizon = 1000): Finding[] {
-  const { network, faults, bands } = context;
-  const device = protectingDevice(context, cable.id);
-  const name = cable.name ?? cable.id;
-  const volts = network.buses.get(cable.from)!.voltage;
-  if (!device) return [];
-  const deviceVolts = locationBusOf(network, device).voltage;
-  const withstandOf = () => cableWithstandOf(cable, { volts, conductorAreaCmil: conductorAreaCmil(cable.size) });
-  const curve = withstandOf();
-  const { label } = curve;
-  const band = bands.get(device.id)!;
-  const withstand = withstandBandOf(curve, 1);
-  const toAmps = faults.buses.get(cable.from)!.max.threePhase;
-  const from = withstand.minAmps;
-  const deviceName = nameOf(device);
-  // The sentences and the basis are written when first read (a large study has thousands of cables);
-  // they keep the curve's label, and the basis works the curve out again when read, so a finding does
-  // not keep the whole curve.
-  const basis = () => withstandOf().notes.join(' ');
+  const facts = withstandFactsOf(context, cable);
+  if (!facts) return [];
+  const { device, name, volts, deviceVolts, withstand, toAmps, from, deviceName } = facts;
+  // The sentences and the basis are written when first read (a large study has thousands of cables),
+  // from the cable's facts worked out again (the curve, not the overlap search): the analysis's
+  // findings share one set of builders where the cable is the network's own, so a finding keeps
+  // neither the curve nor a closure.
+  const own = context.network.elements.get(cable.id)?.item === cable;
+  const sentences = own ? sharedSentencesOf(context) : sentencesFrom(() => facts);
   if (!(toAmps > from)) {
     return [
       withLazyText<Finding>(
@@ -46,19 +45,14 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
           title: `${name} can carry any fault here for 10 s`,
           subjects: [device.id, cable.id],
         },
-        {
-          explanation: () =>
-            `The largest fault at ${cable.from}, ${formatAmps(toAmps, 3)}, is below the current ${name} withstands for 10 s (${formatAmps(from, 3)}).`,
-          basis,
-        },
+        { explanation: sentences.belowLimit, basis: sentences.basis },
         { referenceVolts: volts },
       ),
     ];
   }
-  const scaled = scaleBand(band, deviceVolts / volts);
+  const scaled = scaleBand(context.bands.get(device.id)!, deviceVolts / volts);
   const intervals = findOverlaps(withstand, scaled, { fromAmps: from, toAmps, horizon, ...PROTECTION_FINDER });
   const failures = intervals.filter((interval) => interval.status === 'overlap');
-  const range = rangeOf(from, toAmps, volts, []);
   if (failures.length === 0) {
     const least = intervals.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
     return [
@@ -69,37 +63,108 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
           severity: 'ok',
           title: `${deviceName} protects ${name}`,
           subjects: [device.id, cable.id],
-          range,
+          range: rangeOf(from, toAmps, volts, []),
           worst: least.worst,
         },
-        {
-          explanation: () =>
-            `${capitalise(describeRange(range))} ${deviceName} clears before ${name} reaches its short-circuit limit (${label}); closest at ${formatAmps(least.worst.amps, 3)}: ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
-          basis,
-        },
+        { explanation: sentences.protects, basis: sentences.basis },
         { referenceVolts: volts },
       ),
     ];
   }
-  return failures.map((interval, index) => {
-    const failed = rangeOf(interval.fromAmps, interval.toAmps, volts, []);
-    return withLazyText<Finding>(
+  return failures.map((interval, index) =>
+    withLazyText<Finding>(
       {
         id: `cable-withstand:${cable.id}:${index}`,
         kind: 'cable-withstand',
         severity: 'fail',
         title: `${deviceName} does not protect ${name}`,
         subjects: [device.id, cable.id],
-        range: failed,
+        range: rangeOf(interval.fromAmps, interval.toAmps, volts, []),
         worst: interval.worst,
       },
-      {
-        explanation: () =>
-          `${capitalise(describeRange(failed))} ${name} reaches its short-circuit limit after ${formatSeconds(interval.worst.upTime)}, but ${deviceName} may take ${formatSeconds(interval.worst.downTime)} to clear (${label}).`,
-        suggestion: () => 'Use a faster device (lower instantaneous or short-time pickup) or a larger conductor.',
-        basis,
-      },
+      { explanation: sentences.fails, suggestion: sentences.suggestion, basis: sentences.basis },
       { referenceVolts: volts },
-    );
-  });
+    ),
+  );
 }
+
+/** What the check and its sentences read of a cable: its protecting device, names, voltages, curve and current span. */
+interface WithstandFacts {
+  cable: Cable;
+  device: Device;
+  name: string;
+  deviceName: string;
+  volts: number;
+  deviceVolts: number;
+  curve: WithstandCurve;
+  withstand: Band;
+  /** The largest fault at the cable's supply end (A). */
+  toAmps: number;
+  /** The current the cable withstands for 10 s (A), where its limit starts. */
+  from: number;
+}
+
+/** A cable's facts for the check; undefined where no device protects it. */
+function withstandFactsOf(context: CheckContext, cable: Cable): WithstandFacts | undefined {
+  const { network, faults } = context;
+  const device = protectingDevice(context, cable.id);
+  if (!device) return undefined;
+  const volts = network.buses.get(cable.from)!.voltage;
+  const curve = cableWithstandOf(cable, { volts, conductorAreaCmil: conductorAreaCmil(cable.size) });
+  const withstand = withstandBandOf(curve, 1);
+  return {
+    cable,
+    device,
+    name: cable.name ?? cable.id,
+    deviceName: nameOf(device),
+    volts,
+    deviceVolts: locationBusOf(network, device).voltage,
+    curve,
+    withstand,
+    toAmps: faults.buses.get(cable.from)!.max.threePhase,
+    from: withstand.minAmps,
+  };
+}
+
+/** The sentence builders of the check's findings, each writing from the finding and its cable's facts. */
+interface WithstandSentences {
+  belowLimit: (finding: Finding) => string;
+  protects: (finding: Finding) => string;
+  fails: (finding: Finding) => string;
+  suggestion: (finding: Finding) => string;
+  basis: (finding: Finding) => string;
+}
+
+/** Builders taking a finding's cable's facts from `factsOf`. */
+function sentencesFrom(factsOf: (finding: Finding) => WithstandFacts): WithstandSentences {
+  return {
+    belowLimit: (finding) => {
+      const { cable, name, toAmps, from } = factsOf(finding);
+      return `The largest fault at ${cable.from}, ${formatAmps(toAmps, 3)}, is below the current ${name} withstands for 10 s (${formatAmps(from, 3)}).`;
+    },
+    protects: (finding) => {
+      const { name, deviceName, curve } = factsOf(finding);
+      const worst = finding.worst!;
+      return `${capitalise(describeRange(finding.range!))} ${deviceName} clears before ${name} reaches its short-circuit limit (${curve.label}); closest at ${formatAmps(worst.amps, 3)}: ${formatSeconds(worst.downTime)} against ${formatSeconds(worst.upTime)}.`;
+    },
+    fails: (finding) => {
+      const { name, deviceName, curve } = factsOf(finding);
+      const worst = finding.worst!;
+      return `${capitalise(describeRange(finding.range!))} ${name} reaches its short-circuit limit after ${formatSeconds(worst.upTime)}, but ${deviceName} may take ${formatSeconds(worst.downTime)} to clear (${curve.label}).`;
+    },
+    suggestion: () => 'Use a faster device (lower instantaneous or short-time pickup) or a larger conductor.',
+    basis: (finding) => factsOf(finding).curve.notes.join(' '),
+  };
+}
+
+/** The builders an analysis's cable findings share: each works its cable's facts out again when read. */
+function sharedSentencesOf(context: CheckContext): WithstandSentences {
+  let sentences = shared.get(context);
+  if (!sentences) {
+    sentences = sentencesFrom((finding) => withstandFactsOf(context, cableSubjectOf(context, finding))!);
+    shared.set(context, sentences);
+  }
+  return sentences;
+}
+
+const shared = new WeakMap<CheckContext, WithstandSentences>();

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { radialStudy } from '../../../bench/radialStudy.ts';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { cableAmpacityFindings } from '../../../src/engine/checks/cableAmpacity.ts';
+import { cableFindings } from '../../../src/engine/checks/cableProtection.ts';
 import type { CheckContext } from '../../../src/engine/checks/context.ts';
 import type { Finding } from '../../../src/engine/checks/finding.ts';
 import { loadFindings } from '../../../src/engine/checks/loadCarrying.ts';
@@ -24,7 +25,7 @@ describe('shared sentence builders', () => {
   it.each(Object.entries(studies))('write what each finding would write itself, in %s', (_name, study) => {
     const { network, faults, bands } = analyseStudy(study);
     const context: CheckContext = { network, faults, bands };
-    const { sensitivity } = study.coordination;
+    const { horizon, sensitivity } = study.coordination;
     let compared = 0;
     const same = (shared: Finding[], own: Finding[]) => {
       expect(said(shared)).toEqual(said(own));
@@ -32,6 +33,7 @@ describe('shared sentence builders', () => {
     };
     // Read in an order of their own: later findings first, then the first one again.
     for (const cable of [...study.cables].reverse()) {
+      same(cableFindings(context, cable, horizon), cableFindings(context, { ...cable }, horizon));
       same(cableAmpacityFindings(context, cable), cableAmpacityFindings(context, { ...cable }));
     }
     for (const motor of study.motors) same(motorFindings(context, motor), motorFindings(context, { ...motor }));
