@@ -145,6 +145,26 @@ export function faultLevelsOf(network: Network): FaultLevels {
     if (singleMax.has(motor.bus))
       diagnostics.push(`${motor.id}: motors on single-phase bus ${motor.bus} are not counted as fault sources`);
 
+  // Each bus's work is written when first read, by one builder for all buses, which reads the bus from
+  // the fault it is given (a closure per bus, with what it held, was a fifth of what the levels keep).
+  const threePhaseWork = (fault: Omit<BusFault, 'work'>) => [
+    ...stepsTo(network, max, fault.busId, 'maximum'),
+    ...zeroSequenceStepsTo(network, zeroMax, fault.busId, 'maximum'),
+    ...faultSteps('maximum', fault.volts, max, network, fault.busId, fault.max),
+    ...stepsTo(network, min, fault.busId, 'minimum'),
+    ...zeroSequenceStepsTo(network, zeroMin, fault.busId, 'minimum'),
+    ...faultSteps('minimum', fault.volts, min, network, fault.busId, fault.min),
+  ];
+  const singlePhaseWork = (fault: Omit<BusFault, 'work'>) => {
+    const single = singleMax.get(fault.busId)!;
+    const singleLow = singleMin.get(fault.busId)!;
+    return [
+      ...tagged('maximum', single.steps),
+      ...singlePhaseSteps('maximum', single, fault.max),
+      ...tagged('minimum', singleLow.steps),
+      ...singlePhaseSteps('minimum', singleLow, fault.min),
+    ];
+  };
   const buses = new Map<string, BusFault>();
   for (const busId of max.order) {
     const volts = network.buses.get(busId)!.voltage;
@@ -154,12 +174,6 @@ export function faultLevelsOf(network: Network): FaultLevels {
       const singleLow = singleMin.get(busId)!;
       const maxAt = singlePhaseLevel(single);
       const minAt = singlePhaseLevel(singleLow);
-      const work = () => [
-        ...tagged('maximum', single.steps),
-        ...singlePhaseSteps('maximum', single, maxAt),
-        ...tagged('minimum', singleLow.steps),
-        ...singlePhaseSteps('minimum', singleLow, minAt),
-      ];
       const fault = {
         busId,
         volts,
@@ -169,19 +183,11 @@ export function faultLevelsOf(network: Network): FaultLevels {
         min: minAt,
         reflected: reflectedAt(reflected, maxAt, minAt),
       };
-      buses.set(busId, withLazyWork(fault, work));
+      buses.set(busId, withLazyWork(fault, singlePhaseWork));
       continue;
     }
     const maxAt = levelAt(network, max, busId, zeroMax.atBus.get(busId), withoutMotors.get(busId)!);
     const minAt = levelAt(network, min, busId, zeroMin.atBus.get(busId), 0);
-    const work = () => [
-      ...stepsTo(network, max, busId, 'maximum'),
-      ...zeroSequenceStepsTo(network, zeroMax, busId, 'maximum'),
-      ...faultSteps('maximum', volts, max, network, busId, maxAt),
-      ...stepsTo(network, min, busId, 'minimum'),
-      ...zeroSequenceStepsTo(network, zeroMin, busId, 'minimum'),
-      ...faultSteps('minimum', volts, min, network, busId, minAt),
-    ];
     // A literal, not `{ ...levels, reflected }`: V8 gives each object made by spreading and adding a
     // field a hidden class of its own, and every check reads these.
     const fault = {
@@ -193,7 +199,7 @@ export function faultLevelsOf(network: Network): FaultLevels {
       min: minAt,
       reflected: reflectedAt(reflected, maxAt, minAt),
     };
-    buses.set(busId, withLazyWork(fault, work));
+    buses.set(busId, withLazyWork(fault, threePhaseWork));
   }
 
   const transformers = new Map(

@@ -35,24 +35,25 @@ export function impedanceStep(
 /**
  * Adds the property `key` to `result`, holding work steps that are written only when first read,
  * then kept. Large studies compute thousands of elements whose work is seldom opened; the numbers
- * stay eager. The property is enumerable, so `JSON.stringify` writes it like any other field.
+ * stay eager. `build` is given `result`, so one builder can serve many results. The property is
+ * enumerable, so `JSON.stringify` writes it like any other field.
  *
  * @example const bus = withLazy({ busId: 'SWBD' }, 'work', () => steps) // bus.work is built on first read
  */
 export function withLazy<T extends object, K extends string>(
   result: T,
   key: K,
-  build: () => WorkStep[],
+  build: (result: T) => WorkStep[],
 ): T & { readonly [P in K]: WorkStep[] } {
   return withLazyFields(result, { [key]: build }) as T & { readonly [P in K]: WorkStep[] };
 }
 
 /** `withLazy(result, 'steps', build)`: an element's impedance steps. */
-export function withLazySteps<T extends object>(result: T, build: () => WorkStep[]) {
+export function withLazySteps<T extends object>(result: T, build: (result: T) => WorkStep[]) {
   return withLazy(result, 'steps', build);
 }
 
 /** `withLazy(result, 'work', build)`: a bus's or transformer's worked calculation. */
-export function withLazyWork<T extends object>(result: T, build: () => WorkStep[]) {
+export function withLazyWork<T extends object>(result: T, build: (result: T) => WorkStep[]) {
   return withLazy(result, 'work', build);
 }
