@@ -34,7 +34,7 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
   // findings share one set of builders where the cable is the network's own, so a finding keeps
   // neither the curve nor a closure.
   const own = context.network.elements.get(cable.id)?.item === cable;
-  const sentences = own ? sharedSentencesOf(context) : sentencesFrom(() => facts);
+  const sentences = own ? sharedWithstandSentencesOf(context) : sentencesFrom(() => facts);
   if (!(toAmps > from)) {
     return [
       withLazyText<Finding>(
@@ -158,13 +158,13 @@ function sentencesFrom(factsOf: (finding: Finding) => WithstandFacts): Withstand
 }
 
 /** The builders an analysis's cable findings share: each works its cable's facts out again when read. */
-function sharedSentencesOf(context: CheckContext): WithstandSentences {
-  let sentences = shared.get(context);
+function sharedWithstandSentencesOf(context: CheckContext): WithstandSentences {
+  let sentences = withstandSentences.get(context);
   if (!sentences) {
     sentences = sentencesFrom((finding) => withstandFactsOf(context, cableSubjectOf(context, finding))!);
-    shared.set(context, sentences);
+    withstandSentences.set(context, sentences);
   }
   return sentences;
 }
 
-const shared = new WeakMap<CheckContext, WithstandSentences>();
+const withstandSentences = new WeakMap<CheckContext, WithstandSentences>();
