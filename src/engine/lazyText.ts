@@ -81,9 +81,9 @@ export function withLazyFields<T extends object, B extends Record<string, (targe
 }
 
 /**
- * Makes some string fields of `result` lazy (see `withLazyFields`), then adds the fields of `after`,
- * if given, behind them. A large study's analysis builds thousands of findings whose sentences are
- * seldom all read (the workbench shows a screenful, a report reads them once); the numbers stay eager.
+ * Makes some fields of `result` lazy (see `withLazyFields`), then adds the fields of `after`, if
+ * given, behind them. A large study's analysis builds thousands of findings whose sentences and
+ * ranges are seldom all read (the workbench shows a screenful, a report reads them once).
  * Leaving the lazy fields out of `result` and giving the ones that follow them in `after` keeps the
  * key order and gives every finding made alike one compact shape.
  *
@@ -91,9 +91,9 @@ export function withLazyFields<T extends object, B extends Record<string, (targe
  */
 export function withLazyText<T extends object>(
   result: Partial<T>,
-  builders: { [K in keyof NoInfer<T>]?: (target: NoInfer<T>) => string },
+  builders: { [K in keyof NoInfer<T>]?: (target: NoInfer<T>) => NoInfer<T>[K] },
   after?: NoInfer<Partial<T>>,
 ): T {
-  withLazyFields(result, builders as Record<string, (target: Partial<T>) => string>);
+  withLazyFields(result, builders as Record<string, (target: Partial<T>) => unknown>);
   return (after ? Object.assign(result, after) : result) as T;
 }

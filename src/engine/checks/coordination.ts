@@ -2,13 +2,13 @@ import { scaleBand, type Band } from '../band.ts';
 import { cachedFastestOf, cachedGroundBandOf } from '../bandCache.ts';
 import { isPhaseShifting, primaryConnectionOf, secondaryWindingOf, throughFaultOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween } from '../network/index.ts';
-import { findOverlaps, type OverlapInterval, type OverlapOptions } from '../overlap.ts';
+import { findOverlaps, type OverlapInterval, type OverlapOptions, type WorstPoint } from '../overlap.ts';
 import { rememberedOverlaps } from '../overlapMemo.ts';
 import { withLazyText } from '../lazyText.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
 import { capitalise, describeRange, nameOf, rangeOf, type CheckContext } from './context.ts';
-import type { Finding, Severity } from './finding.ts';
+import type { CurrentRange, Finding, Severity } from './finding.ts';
 import { marginRuleOf, type MarginRule } from './margins.ts';
 
 /**
@@ -160,21 +160,16 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
   // One list of subjects for the pair's findings (findings are read-only data), by which their
   // sentences find the pair.
   const subjects = [check.upstream, check.downstream];
-  pairOfSubjects.set(subjects, { check, up, down });
+  pairOfSubjects.set(subjects, { check, up, down, voltages });
   for (const pairCase of check.cases) {
     const faultText = FAULT_TEXT[pairCase.fault];
-    let shifts: Map<number, number> | undefined;
     for (let index = 0; index < pairCase.intervals.length; index++) {
       const interval = pairCase.intervals[index];
       if (interval.status === 'selective' || isSliver(interval)) continue;
-      // The upstream device's shift, where it has one: most cases have none, and need no map.
-      if (pairCase.upstreamShift !== 1) shifts ??= new Map([[voltages[0], pairCase.upstreamShift]]);
-      const range = rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages, shifts);
-      const { worst } = interval;
-      // The sentences are written when first read (a large study's findings are seldom all read); they
-      // are added in their place in the key order, after `worst`, so every finding has the same shape.
-      // The id and title are joined into flat strings: a template literal keeps one object per piece
-      // (a tenth of what a large analysis keeps, all of it copied by the collector).
+      // The range, the worst point and the sentences are made when first read, from the pair's check
+      // (a large study's findings are seldom all read, and a range at each voltage was half of what a
+      // finding kept); they come in their place in the key order, so every finding has the same shape.
+      // The id and title are joined into flat strings: a template literal keeps one object per piece.
       const finding = withLazyText<Finding>(
         {
           id: ['coordination:', check.upstream, '/', check.downstream, ':', pairCase.fault, ':', index].join(''),
@@ -183,10 +178,8 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
           status: interval.status,
           title: [up, ' over ', down, ': ', interval.status, faultText].join(''),
           subjects,
-          range,
-          worst,
         },
-        { explanation: explanationOf, suggestion: suggestionOf },
+        { range: rangeOfFinding, worst: worstOfFinding, explanation: explanationOf, suggestion: suggestionOf },
         { basis: check.rule.basis, referenceVolts: pairCase.referenceVolts },
       );
       findings.push(finding);
@@ -196,14 +189,6 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
   // the ground-fault elements still see a ground fault.
   const first = check.cases.find((c) => c.intervals.length > 0);
   if (findings.length === 0 && first) {
-    const all = check.cases.flatMap((c) => c.intervals);
-    const least = all.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
-    const range = rangeOf(
-      first.intervals[0].fromAmps,
-      first.intervals[first.intervals.length - 1].toAmps,
-      first.referenceVolts,
-      voltages,
-    );
     const finding = withLazyText<Finding>(
       {
         id: ['coordination:', check.upstream, '/', check.downstream].join(''),
@@ -212,10 +197,8 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         status: 'selective',
         title: [up, ' over ', down, ': selective'].join(''),
         subjects,
-        range,
-        worst: least.worst,
       },
-      { explanation: selectiveExplanationOf },
+      { range: selectiveRangeOf, worst: leastWorstOf, explanation: selectiveExplanationOf },
       { basis: check.rule.basis, referenceVolts: first.referenceVolts },
     );
     findings.push(finding);
@@ -226,11 +209,12 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
 /** What a finding's sentences read of its interval: the status, the worst point and where it ends. */
 type IntervalFacts = Pick<OverlapInterval, 'status' | 'worst' | 'toAmps'>;
 
-/** What a pair's findings' sentences read of it: the check, and the two devices' names. */
+/** What a pair's findings read of it: the check, the two devices' names and their voltages (upstream first). */
 interface PairSentenceFacts {
   check: PairCheck;
   up: string;
   down: string;
+  voltages: number[];
 }
 
 /**
@@ -241,19 +225,57 @@ interface PairSentenceFacts {
  */
 const pairOfSubjects = new WeakMap<readonly string[], PairSentenceFacts>();
 
+/**
+ * The fault case and interval a finding that is not selective is about, as its id names them
+ * (`coordination:UP/DOWN:fault:index`; ids hold no colon).
+ */
+function caseOfFinding(finding: Finding): { pairCase: PairCase; interval: OverlapInterval } {
+  const { check } = pairOfSubjects.get(finding.subjects)!;
+  const [, , fault, index] = finding.id.split(':');
+  const pairCase = check.cases.find((c) => c.fault === fault)!;
+  return { pairCase, interval: pairCase.intervals[Number(index)] };
+}
+
+/** The interval's currents at the sheet's voltage and at each device's own (the upstream one's shifted for its case). */
+function rangeOfFinding(finding: Finding): CurrentRange {
+  const { voltages } = pairOfSubjects.get(finding.subjects)!;
+  const { pairCase, interval } = caseOfFinding(finding);
+  // The upstream device's shift, where it has one: most cases have none, and need no map.
+  const shifts = pairCase.upstreamShift === 1 ? undefined : new Map([[voltages[0], pairCase.upstreamShift]]);
+  return rangeOf(interval.fromAmps, interval.toAmps, pairCase.referenceVolts, voltages, shifts);
+}
+
+function worstOfFinding(finding: Finding): WorstPoint {
+  return caseOfFinding(finding).interval.worst;
+}
+
 /** The explanation of a finding on an interval that is not selective. */
 function explanationOf(finding: Finding): string {
   const { check, up, down } = pairOfSubjects.get(finding.subjects)!;
-  const fault = faultOfFinding(finding);
-  return explain(factsOf(finding), up, down, describeRange(finding.range!), check.rule, FAULT_TEXT[fault]);
+  const { pairCase, interval } = caseOfFinding(finding);
+  return explain(interval, up, down, describeRange(finding.range!), check.rule, FAULT_TEXT[pairCase.fault]);
 }
 
 /** The suggestion of a finding on an interval that is not selective. */
 function suggestionOf(finding: Finding): string {
   const { check, up, down } = pairOfSubjects.get(finding.subjects)!;
-  return faultOfFinding(finding) === 'ground-fault'
-    ? suggestGround(factsOf(finding), up, down)
-    : suggest(factsOf(finding), up, down, check.rule);
+  const { pairCase, interval } = caseOfFinding(finding);
+  return pairCase.fault === 'ground-fault' ? suggestGround(interval, up, down) : suggest(interval, up, down, check.rule);
+}
+
+/** A selective pair's range: the first case that has intervals, from its first to its last. */
+function selectiveRangeOf(finding: Finding): CurrentRange {
+  const { check, voltages } = pairOfSubjects.get(finding.subjects)!;
+  const first = check.cases.find((c) => c.intervals.length > 0)!;
+  const { intervals } = first;
+  return rangeOf(intervals[0].fromAmps, intervals[intervals.length - 1].toAmps, first.referenceVolts, voltages);
+}
+
+/** A selective pair's least separation over every case. */
+function leastWorstOf(finding: Finding): WorstPoint {
+  const { check } = pairOfSubjects.get(finding.subjects)!;
+  const all = check.cases.flatMap((c) => c.intervals);
+  return all.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a)).worst;
 }
 
 /** The explanation of a selective pair's one finding: the least separation, at its worst point. */
@@ -261,16 +283,6 @@ function selectiveExplanationOf(finding: Finding): string {
   const { check, up, down } = pairOfSubjects.get(finding.subjects)!;
   const { marginSeconds, amps } = finding.worst!;
   return `${capitalise(describeRange(finding.range!))} ${up} always waits for ${down}: the least separation is ${marginText(marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(amps, 3)}.`;
-}
-
-/** The fault case a finding on an interval is about, as its id names it (`coordination:UP/DOWN:fault:index`; ids hold no colon). */
-function faultOfFinding(finding: Finding): PairFault {
-  return finding.id.split(':')[2] as PairFault;
-}
-
-/** A finding's interval facts, read from the finding itself. */
-function factsOf(finding: Finding): IntervalFacts {
-  return { status: finding.status!, worst: finding.worst!, toAmps: finding.range!.toAmps };
 }
 
 /**

@@ -214,6 +214,38 @@ describe('checkPair below a single-phase transformer', () => {
     assertInDelta(pair.cases[1].intervals.at(-1)!.toAmps, bus.max.lineToGround, 1e-12);
   });
 
+  it('gives each finding its interval’s currents at both voltages, the primary’s shifted for its fault case, and its worst point', () => {
+    // The primary sees half of a line-to-neutral fault (half the turns): 0.5 × 240 / 12 470 of the secondary amps.
+    const analysis = analyseStudy(parseStudy(singlePhaseStudy('12.47 kV')));
+    const [pair] = analysis.pairs;
+    const findings = analysis.findings.filter((f) => f.kind === 'coordination');
+    expect(new Set(findings.map((f) => f.id.split(':')[2]))).toEqual(new Set(['single-phase', 'line-to-neutral']));
+    for (const finding of findings) {
+      const [, , fault, index] = finding.id.split(':');
+      const pairCase = pair.cases.find((c) => c.fault === fault)!;
+      const interval = pairCase.intervals[Number(index)];
+      expect(finding.worst).toBe(interval.worst);
+      const [secondary, primary] = finding.range!.atVoltages;
+      expect([secondary.volts, primary.volts]).toEqual([240, 12_470]);
+      assertInDelta(secondary.fromAmps, interval.fromAmps, 1e-12);
+      assertInDelta(primary.toAmps, (interval.toAmps * 240 * pairCase.upstreamShift) / 12_470, 1e-12);
+    }
+    expect(Object.keys(findings[0])).toEqual([
+      'id',
+      'kind',
+      'severity',
+      'status',
+      'title',
+      'subjects',
+      'range',
+      'worst',
+      'explanation',
+      'suggestion',
+      'basis',
+      'referenceVolts',
+    ]);
+  });
+
   it('a unit connected line to neutral puts √3 times the bus-ratio current in its primary line', () => {
     const [pair] = analyseStudy(parseStudy(singlePhaseStudy('7.2 kV'))).pairs;
     assertInDelta(pair.cases[0].upstreamShift, Math.sqrt(3), 1e-12);
