@@ -29,6 +29,34 @@ class LazyFields extends Stamped {
   static of(target: object): LazyState {
     return (target as LazyFields).#state;
   }
+  /** The object's state to write to: its own, made from the shared builders it was given before its first write. */
+  static writable(target: object): LazyState {
+    const state = (target as LazyFields).#state;
+    if (!(state instanceof SharedBuilders)) return state;
+    return ((target as LazyFields).#state = { ...state });
+  }
+}
+
+/**
+ * Builders that many objects share (`sharedBuilders`): an object keeps the shared set, not a copy of
+ * its own, until it first builds or is given a value (most of a large analysis's findings never are).
+ */
+class SharedBuilders {
+  constructor(builders: LazyState) {
+    Object.assign(this, builders);
+    Object.freeze(this);
+  }
+}
+
+/**
+ * One set of builders for many objects made alike (module functions that find what they need from
+ * the object they are given). Each object gets a copy of its own only when a field is first built or
+ * assigned, so objects whose lazy fields are never read keep no state of their own.
+ *
+ * @example const SENTENCES = sharedBuilders({ explanation: explanationOf }) // then withLazyText(finding, SENTENCES)
+ */
+export function sharedBuilders<B extends Record<string, (target: never) => unknown>>(builders: B): Readonly<B> {
+  return new SharedBuilders(builders) as unknown as Readonly<B>;
 }
 
 /**
@@ -43,14 +71,17 @@ function accessorOf(key: string): PropertyDescriptor {
       enumerable: true,
       configurable: true,
       get(this: object) {
-        const state = LazyFields.of(this);
-        const value = state[key];
+        const value = LazyFields.of(this)[key];
         // A builder is the only function held; a built value (text, work steps) never is one. It is
-        // given the object, so one builder can serve many objects (each keeps its own value).
-        return typeof value === 'function' ? (state[key] = (value as (target: object) => unknown)(this)) : value;
+        // given the object, so one builder can serve many objects (each keeps its own value). The
+        // state is looked up again after building: a builder may read another lazy field first.
+        if (typeof value !== 'function') return value;
+        const built = (value as (target: object) => unknown)(this);
+        LazyFields.writable(this)[key] = built;
+        return built;
       },
       set(this: object, value: unknown) {
-        LazyFields.of(this)[key] = value;
+        LazyFields.writable(this)[key] = value;
       },
     };
     accessors.set(key, accessor);
@@ -65,7 +96,8 @@ function accessorOf(key: string): PropertyDescriptor {
  * field out of `result` where its place allows: turning a field that is there into an accessor turns
  * the whole object into a slow dictionary (several times the memory). The fields stay enumerable, so
  * `JSON.stringify`, structured cloning and deep equality see plain values; assigning one replaces it.
- * `builders` is kept (not copied) and holds each value once built.
+ * `builders` is kept (not copied) and holds each value once built; builders made by `sharedBuilders`
+ * are shared, and copied for the object when it first builds a value.
  *
  * @example withLazyFields(bus, { work: () => stepsOf(bus) }) // bus.work is built on first read
  */
@@ -73,8 +105,7 @@ export function withLazyFields<T extends object, B extends Record<string, (targe
   result: T,
   builders: B,
 ): T & { [K in keyof B]: ReturnType<B[K]> } {
-  const held = LazyFields.heldBy(result);
-  if (held) Object.assign(held, builders);
+  if (LazyFields.heldBy(result)) Object.assign(LazyFields.writable(result), builders);
   else LazyFields.stamp(result, builders);
   for (const key in builders) Object.defineProperty(result, key, accessorOf(key));
   return result as T & { [K in keyof B]: ReturnType<B[K]> };

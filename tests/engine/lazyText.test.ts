@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { withLazyFields, withLazyText } from '../../src/engine/lazyText.ts';
+import { sharedBuilders, withLazyFields, withLazyText } from '../../src/engine/lazyText.ts';
 
 describe('withLazyText', () => {
   it('builds a sentence on first read only, and keeps it', () => {
@@ -56,5 +56,40 @@ describe('withLazyFields', () => {
     expect(steps).toBe(0);
     expect(JSON.parse(JSON.stringify(bus))).toEqual({ busId: 'SWBD', work: [1], steps: ['impedance'] });
     expect(bus.work).toBe(bus.work);
+  });
+});
+
+describe('sharedBuilders', () => {
+  type Interval = { id: string; range: string; explanation: string };
+  const FIELDS = sharedBuilders({
+    range: (finding: Interval) => `range of ${finding.id}`,
+    // Reads another lazy field of the same object first.
+    explanation: (finding: Interval) => `${finding.id} over ${finding.range}`,
+  });
+  const make = (id: string) => withLazyText<Interval>({ id }, FIELDS);
+
+  it('serves many objects, each keeping its own values, whichever field is read first', () => {
+    const [a, b] = [make('A'), make('B')];
+    expect(b.explanation).toBe('B over range of B');
+    expect(a.range).toBe('range of A');
+    expect(a.explanation).toBe('A over range of A');
+    expect(make('C')).toEqual({ id: 'C', range: 'range of C', explanation: 'C over range of C' });
+  });
+
+  it('lets an assignment change one object alone, and leaves the shared set as it was', () => {
+    const [a, b] = [make('A'), make('B')];
+    a.explanation = 'edited';
+    expect(a.explanation).toBe('edited');
+    expect(b.explanation).toBe('B over range of B');
+    expect(Object.isFrozen(FIELDS)).toBe(true);
+    expect(typeof FIELDS.explanation).toBe('function');
+  });
+
+  it('adds more fields to an object made with shared builders without changing the others', () => {
+    const [a, b] = [make('A'), make('B')];
+    withLazyFields(a, { work: () => ['step'] });
+    expect(Object.keys(a)).toEqual(['id', 'range', 'explanation', 'work']);
+    expect(Object.keys(b)).toEqual(['id', 'range', 'explanation']);
+    expect(b.explanation).toBe('B over range of B');
   });
 });

@@ -4,7 +4,7 @@ import { isPhaseShifting, primaryConnectionOf, secondaryWindingOf, throughFaultO
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { findOverlaps, type OverlapInterval, type OverlapOptions, type WorstPoint } from '../overlap.ts';
 import { rememberedOverlaps } from '../overlapMemo.ts';
-import { withLazyText } from '../lazyText.ts';
+import { sharedBuilders, withLazyText } from '../lazyText.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
 import { capitalise, describeRange, nameOf, rangeOf, type CheckContext } from './context.ts';
@@ -179,7 +179,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
           title: [up, ' over ', down, ': ', interval.status, faultText].join(''),
           subjects,
         },
-        { range: rangeOfFinding, worst: worstOfFinding, explanation: explanationOf, suggestion: suggestionOf },
+        INTERVAL_FIELDS,
         { basis: check.rule.basis, referenceVolts: pairCase.referenceVolts },
       );
       findings.push(finding);
@@ -198,7 +198,7 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
         title: [up, ' over ', down, ': selective'].join(''),
         subjects,
       },
-      { range: selectiveRangeOf, worst: leastWorstOf, explanation: selectiveExplanationOf },
+      SELECTIVE_FIELDS,
       { basis: check.rule.basis, referenceVolts: first.referenceVolts },
     );
     findings.push(finding);
@@ -260,7 +260,9 @@ function explanationOf(finding: Finding): string {
 function suggestionOf(finding: Finding): string {
   const { check, up, down } = pairOfSubjects.get(finding.subjects)!;
   const { pairCase, interval } = caseOfFinding(finding);
-  return pairCase.fault === 'ground-fault' ? suggestGround(interval, up, down) : suggest(interval, up, down, check.rule);
+  return pairCase.fault === 'ground-fault'
+    ? suggestGround(interval, up, down)
+    : suggest(interval, up, down, check.rule);
 }
 
 /** A selective pair's range: the first case that has intervals, from its first to its last. */
@@ -284,6 +286,19 @@ function selectiveExplanationOf(finding: Finding): string {
   const { marginSeconds, amps } = finding.worst!;
   return `${capitalise(describeRange(finding.range!))} ${up} always waits for ${down}: the least separation is ${marginText(marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(amps, 3)}.`;
 }
+
+/** What every coordination finding makes when first read, shared by them all (`sharedBuilders`). */
+const INTERVAL_FIELDS = sharedBuilders({
+  range: rangeOfFinding,
+  worst: worstOfFinding,
+  explanation: explanationOf,
+  suggestion: suggestionOf,
+});
+const SELECTIVE_FIELDS = sharedBuilders({
+  range: selectiveRangeOf,
+  worst: leastWorstOf,
+  explanation: selectiveExplanationOf,
+});
 
 /**
  * A thin-margin interval narrower than 1 % in current is the crossing of a steep curve through the

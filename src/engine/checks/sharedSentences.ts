@@ -1,3 +1,4 @@
+import { sharedBuilders } from '../lazyText.ts';
 import type { Finding } from './finding.ts';
 
 /**
@@ -57,7 +58,9 @@ export function sharedSentencesOf<O extends object, S>(owner: O, settings: S, re
 
 /**
  * The builders to give a finding: `own` (closures over what the check has at hand) where there are no
- * shared builders, else the shared builders of the same names, and `own` is let go.
+ * shared builders, else the shared builders of the same names, one set for every finding given the
+ * same names (`sharedBuilders`: a finding whose sentences are never read keeps no state of its own),
+ * and `own` is let go.
  *
  * @example withLazyText<Finding>(finding, sentencesOf(shared, { explanation: () => sentence }))
  */
@@ -66,7 +69,23 @@ export function sentencesOf<B extends Partial<Record<keyof SharedSentences, (fin
   own: B,
 ): B {
   if (!shared) return own;
-  const chosen: Partial<SharedSentences> = {};
-  for (const key of Object.keys(own) as (keyof SharedSentences)[]) chosen[key] = shared[key];
+  // The names as a bit each, to find the set without allocating.
+  let names = 0;
+  for (const key in own) names |= NAME_BITS[key as keyof SharedSentences];
+  let sets = subsets.get(shared);
+  if (!sets) subsets.set(shared, (sets = []));
+  let chosen = sets[names];
+  if (!chosen) {
+    const picked: Partial<SharedSentences> = {};
+    // In the usual order of a finding's sentences, which every check gives them in.
+    for (const key of ['explanation', 'suggestion', 'basis'] as const)
+      if (names & NAME_BITS[key]) picked[key] = shared[key];
+    sets[names] = chosen = sharedBuilders(picked as Record<string, (finding: Finding) => string>);
+  }
   return chosen as B;
 }
+
+const NAME_BITS: Record<keyof SharedSentences, number> = { explanation: 1, suggestion: 2, basis: 4 };
+
+/** Each shared set's subsets given to findings, by their names' bits. */
+const subsets = new WeakMap<SharedSentences, Readonly<Record<string, (finding: Finding) => string>>[]>();
