@@ -157,9 +157,9 @@ function zoneFindings(
   if (cases.length === 0) return [];
   // A relative 1e-9 keeps a clearing time equal to the limit from failing on rounding.
   const failing = cases.filter((c) => !(c.clearingTime <= settings.maxTime * (1 + 1e-9)));
-  // The sentences are written when first read (a large study has thousands of devices); the helpers
-  // they call are module functions, so a finding keeps only what its sentences read. The basis is one
-  // line per study, shared.
+  // The range and the sentences are made when first read (a large study has thousands of devices);
+  // the helpers they call are module functions, so a finding keeps only what they read. The basis is
+  // one line per study, shared.
   if (failing.length === 0) {
     const slowest = cases.reduce((a, b) => (b.clearingTime > a.clearingTime ? b : a));
     return [
@@ -170,9 +170,9 @@ function zoneFindings(
           severity: 'ok',
           title: `${name} sees the minimum faults in its zone`,
           subjects: [device.id],
-          range: caseRange(network, location, slowest),
         },
         sentencesOf(shared, {
+          range: () => caseRange(network, location, slowest),
           explanation: () =>
             `${cases.map((c) => `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
         }),
@@ -191,9 +191,9 @@ function zoneFindings(
           ? `${name} may not operate for a minimum ${faultNameOf(context, c)} fault`
           : `${name} is slow for a minimum ${faultNameOf(context, c)} fault`,
         subjects: [device.id],
-        range: caseRange(network, location, c),
       },
       sentencesOf(shared, {
+        range: () => caseRange(network, location, c),
         explanation: () =>
           never
             ? `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} may never clear: the current is below what its curve surely trips on, so a fault at the far end of its zone could persist.`

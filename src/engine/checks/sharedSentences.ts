@@ -1,5 +1,5 @@
 import { sharedBuilders } from '../lazyText.ts';
-import type { Finding } from './finding.ts';
+import type { CurrentRange, Finding } from './finding.ts';
 
 /**
  * A check run again for the item a finding is about, with what it reads (`owner`) and its settings,
@@ -7,8 +7,9 @@ import type { Finding } from './finding.ts';
  */
 export type Rerun<O extends object, S> = (finding: Finding, owner: O, settings: S) => Finding[];
 
-/** The sentence builders one check shares among the findings it makes in one analysis. */
+/** The builders one check shares among the findings it makes in one analysis: the range and the sentences. */
 export interface SharedSentences {
+  range: (finding: Finding) => CurrentRange;
   explanation: (finding: Finding) => string;
   suggestion: (finding: Finding) => string;
   basis: (finding: Finding) => string;
@@ -19,7 +20,7 @@ const sharing = new WeakMap<object, Map<Rerun<never, never>, Map<unknown, Shared
 
 /**
  * Sentence builders for a check's findings, shared by every finding it makes from the same `owner`
- * (what it reads: the analysis's context, or its network) and `settings`. When a finding's sentence is
+ * (what it reads: the analysis's context, or its network) and `settings`. When a finding's range or sentence is
  * first read, `rerun` runs the check again on the finding's item, writing its own sentences, and the
  * sentence is read from the finding there with the same id (its twin). A finding given these keeps no
  * closure of its own, nor the facts its sentences are written from: in a large study those closures
@@ -47,6 +48,7 @@ export function sharedSentencesOf<O extends object, S>(owner: O, settings: S, re
       return twin;
     };
     shared = {
+      range: (finding) => twinOf(finding).range!,
       explanation: (finding) => twinOf(finding).explanation,
       suggestion: (finding) => twinOf(finding).suggestion!,
       basis: (finding) => twinOf(finding).basis!,
@@ -64,10 +66,7 @@ export function sharedSentencesOf<O extends object, S>(owner: O, settings: S, re
  *
  * @example withLazyText<Finding>(finding, sentencesOf(shared, { explanation: () => sentence }))
  */
-export function sentencesOf<B extends Partial<Record<keyof SharedSentences, (finding: Finding) => string>>>(
-  shared: SharedSentences | undefined,
-  own: B,
-): B {
+export function sentencesOf<B extends Partial<SharedSentences>>(shared: SharedSentences | undefined, own: B): B {
   if (!shared) return own;
   // The names as a bit each, to find the set without allocating.
   let names = 0;
@@ -77,15 +76,15 @@ export function sentencesOf<B extends Partial<Record<keyof SharedSentences, (fin
   let chosen = sets[names];
   if (!chosen) {
     const picked: Partial<SharedSentences> = {};
-    // In the usual order of a finding's sentences, which every check gives them in.
-    for (const key of ['explanation', 'suggestion', 'basis'] as const)
-      if (names & NAME_BITS[key]) picked[key] = shared[key];
-    sets[names] = chosen = sharedBuilders(picked as Record<string, (finding: Finding) => string>);
+    // In the usual order of a finding's fields, which every check gives them in.
+    for (const key of FIELD_ORDER) if (names & NAME_BITS[key]) (picked as Record<string, unknown>)[key] = shared[key];
+    sets[names] = chosen = sharedBuilders(picked as Record<string, (finding: Finding) => unknown>);
   }
   return chosen as B;
 }
 
-const NAME_BITS: Record<keyof SharedSentences, number> = { explanation: 1, suggestion: 2, basis: 4 };
+const FIELD_ORDER = ['range', 'explanation', 'suggestion', 'basis'] as const;
+const NAME_BITS: Record<keyof SharedSentences, number> = { range: 1, explanation: 2, suggestion: 4, basis: 8 };
 
 /** Each shared set's subsets given to findings, by their names' bits. */
-const subsets = new WeakMap<SharedSentences, Readonly<Record<string, (finding: Finding) => string>>[]>();
+const subsets = new WeakMap<SharedSentences, Readonly<Record<string, (finding: Finding) => unknown>>[]>();

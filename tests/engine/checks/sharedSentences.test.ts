@@ -44,13 +44,13 @@ describe('shared sentence builders', () => {
     expect(compared).toBeGreaterThan(20);
   });
 
-  it("reads each sentence of an analysis's findings, in any order, as the finding's own", () => {
+  it("reads each sentence and range of an analysis's findings, in any order, as the finding's own", () => {
     const study = studies['a generated 300-device study'];
     const first = analyseStudy(study).findings;
     const second = analyseStudy(study).findings;
     // One analysis's findings read back to front and basis first, the other's front to back.
-    const backwards = [...first].reverse().map((f) => [f.basis, f.suggestion, f.explanation]);
-    expect(backwards.reverse()).toEqual(second.map((f) => [f.basis, f.suggestion, f.explanation]));
+    const backwards = [...first].reverse().map((f) => [f.basis, f.suggestion, f.explanation, f.range]);
+    expect(backwards.reverse()).toEqual(second.map((f) => [f.basis, f.suggestion, f.explanation, f.range]));
     expect(first.every((f) => f.explanation.length > 0)).toBe(true);
   });
 });
