@@ -56,7 +56,16 @@ export function parseQuantity(value: unknown, dimension: Dimension, options: Par
   const parsed = parseUnchecked(value, dimension, options);
   // "1e400 MVA" or 1e308 MVA overflow to Infinity on the way to SI units: refuse, never compute with it.
   if (!Number.isFinite(parsed)) throw new RangeError(`expected a finite ${dimension}`);
-  return parsed;
+  return asSmallInteger(parsed);
+}
+
+/**
+ * A whole number as a small integer (`480`, not the float `480.0` that `0.48 × 1000` gives): the same
+ * value, which V8 keeps unboxed, where a float it keeps boxed (16 bytes) in every object field that
+ * holds it, and an analysis keeps a bus's voltage in thousands of results. −0 stays −0.
+ */
+function asSmallInteger(value: number): number {
+  return (value | 0) === value && !Object.is(value, -0) ? value | 0 : value;
 }
 
 function parseUnchecked(value: unknown, dimension: Dimension, options: ParseQuantityOptions): number {
