@@ -157,8 +157,8 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
   const findings: Finding[] = [];
   const up = nameOf(upstream);
   const down = nameOf(downstream);
-  // One list of subjects for the pair's findings (findings are read-only data), by which their
-  // sentences find the pair.
+  // One list of subjects for the pair's findings (findings are read-only data), by which their range,
+  // worst point and sentences find the pair.
   const subjects = [check.upstream, check.downstream];
   pairOfSubjects.set(subjects, { check, up, down, voltages });
   for (const pairCase of check.cases) {

@@ -19,10 +19,10 @@ export interface SharedSentences {
 const sharing = new WeakMap<object, Map<Rerun<never, never>, Map<unknown, SharedSentences>>>();
 
 /**
- * Sentence builders for a check's findings, shared by every finding it makes from the same `owner`
- * (what it reads: the analysis's context, or its network) and `settings`. When a finding's range or sentence is
- * first read, `rerun` runs the check again on the finding's item, writing its own sentences, and the
- * sentence is read from the finding there with the same id (its twin). A finding given these keeps no
+ * Range and sentence builders for a check's findings, shared by every finding it makes from the same
+ * `owner` (what it reads: the analysis's context, or its network) and `settings`. When a finding's range
+ * or sentence is first read, `rerun` runs the check again on the finding's item, writing its own, and
+ * the field is read from the finding there with the same id (its twin). A finding given these keeps no
  * closure of its own, nor the facts its sentences are written from: in a large study those closures
  * kept more than the findings themselves (from a third to a kilobyte per cable, motor or load
  * finding), and the collector copies what an analysis keeps while it runs. Reading costs the item's
