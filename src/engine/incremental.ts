@@ -17,6 +17,12 @@ type PairResult = { check: PairCheck; findings: Finding[] };
  * motor's findings (`findings`). Unchanged checks give back the very same result objects. The results
  * are exactly those of a fresh analysis; pass one memo to `analyseStudy` edit after edit.
  *
+ * A finding given back keeps the analysis that made it (its network and bands, about 0.9 MB at 2,000
+ * devices) until its sentences and range are read, since they are written from it (`sharedSentences.ts`).
+ * The workbench's worker reads every finding it sends, so it keeps none: its heap stays flat edit after
+ * edit (measured: 40 setting edits of a 2,000-device study, 65.1 to 65.3 MB). A caller that never reads
+ * the findings keeps one such analysis per edit that made a finding still given back.
+ *
  * @example const memo = new AnalysisMemo(); analyseStudy(study, memo); analyseStudy(edited, memo)
  */
 export class AnalysisMemo {
