@@ -1,3 +1,5 @@
+import { availableParallelism } from 'node:os';
+
 /**
  * One benchmark of DEVELOPERS.md, benchmarks: what it measures, its target, and how to run it. `run` returns the
  * measured figure in `unit` and the spread of the runs it came from; a lower figure is better unless
@@ -69,4 +71,13 @@ export function medianMs(fn: () => void, repeats = 50, warmup = 5): number {
 export function medianOf(values: readonly number[], detail?: string): Measured {
   const spread = spreadOf(values);
   return { value: spread.median, spread, detail };
+}
+
+/**
+ * The cores this process may run on, in words for a figure's detail: "on one core" when the runner
+ * pinned it (`taskset`), as P2 and P8 are specified.
+ */
+export function coresText(): string {
+  const cores = availableParallelism();
+  return cores === 1 ? 'on one core' : `on ${cores} cores`;
 }

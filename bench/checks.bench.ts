@@ -12,7 +12,7 @@ import { faultLevelsOf } from '../src/engine/fault/index.ts';
 import { locationBusOf, networkOf, seriesPairs, transformersBetween } from '../src/engine/network/index.ts';
 import { findOverlaps, type OverlapOptions } from '../src/engine/overlap.ts';
 import { parseStudy, type Study } from '../src/engine/study/index.ts';
-import { medianOf, spreadOf, type Benchmark, type Measured } from './benchmark.ts';
+import { coresText, medianOf, spreadOf, type Benchmark, type Measured } from './benchmark.ts';
 import { radialStudy } from './radialStudy.ts';
 import { ROOT } from './root.ts';
 
@@ -76,7 +76,7 @@ function measureP2() {
   const smallSpread = spreadOf(smallMs);
   const mix = `${study.devices.length} devices (${familyMix(study)}), ${study.transformers.length} transformers, ${study.motors.length} motors`;
   p2 = {
-    small: medianOf(smallMs, `${mix}; ${ROUNDS} runs alternating with 8,000; ${memoryText}`),
+    small: medianOf(smallMs, `${mix}; ${ROUNDS} runs alternating with 8,000, ${coresText()}; ${memoryText}`),
     large: medianOf(largeMs),
     ratio: {
       value: largeSpread.median / smallSpread.median,

@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { parseStudy, type Study } from '../src/engine/study/index.ts';
 import { proposeSettings, settingWindowOf } from '../src/engine/window/index.ts';
-import type { Benchmark } from './benchmark.ts';
+import { coresText, type Benchmark } from './benchmark.ts';
 import { radialStudy } from './radialStudy.ts';
 import { ROOT } from './root.ts';
 
@@ -67,7 +67,7 @@ export const benchmarks: Benchmark[] = [
         3,
         1,
       );
-      return measured(times, `${devices} adjustable devices set, ${changes} setting changes`);
+      return measured(times, `${devices} adjustable devices set, ${changes} setting changes, ${coresText()}`);
     },
   },
 ];
