@@ -107,9 +107,10 @@ export function motorSubjectOf(context: CheckContext, finding: Finding): Motor {
 
 /** The device feeding the element, or the nearest one above it on the way to the source. */
 export function protectingDevice(context: CheckContext, elementId: string): Device | undefined {
-  const { protectors } = context.network;
+  const { protectors, devices } = context.network;
   const known = protectors.get(elementId);
-  if (known !== undefined || protectors.has(elementId)) return known;
+  if (known !== undefined) return devices.get(known);
+  if (protectors.has(elementId)) return undefined;
   const path = pathTo(context.network, elementId);
   for (let i = path.length - 1; i >= 0; i--) {
     const device = context.network.deviceFeeding.get(path[i]);

@@ -38,13 +38,15 @@ export interface Network {
    * What the checks ask of the tree for every device, cable and zone, worked out once (walking up the
    * tree for each was about a sixth of the map reads of a large study's analysis): each bus's depth (branches
    * between it and its tree's source), each element's location bus (where a device feeding it sits)
-   * and its protecting device (the nearest device feeding it or an element above it; `undefined` where
-   * none does). Elements no source reaches (a study the tree rules have not passed) are left out, and
-   * the walkers below then climb the tree as before.
+   * and its protecting device's id (the nearest device feeding it or an element above it; `undefined`
+   * where none does). Elements no source reaches (a study the tree rules have not passed) are left out,
+   * and the walkers below then climb the tree as before. The protectors are kept by id and looked up in
+   * `devices`, so that a device put in place of another of its id (the setting window's trials) is
+   * the one found.
    */
   depths: Map<string, number>;
   locations: Map<string, Bus>;
-  protectors: Map<string, Device | undefined>;
+  protectors: Map<string, string | undefined>;
 }
 
 /** Builds the indexed tree. @example const network = networkOf(study) */
@@ -83,12 +85,12 @@ function treeFactsOf(
   const { buses, feederOf, branchesFrom, motorsOn, deviceFeeding } = tree;
   const depths = new Map<string, number>();
   const locations = new Map<string, Bus>();
-  const protectors = new Map<string, Device | undefined>();
+  const protectors = new Map<string, string | undefined>();
   const order: Bus[] = [];
   for (const bus of buses.values())
     if (!feederOf.has(bus.id)) {
       depths.set(bus.id, 0);
-      protectors.set(bus.id, deviceFeeding.get(bus.id));
+      protectors.set(bus.id, deviceFeeding.get(bus.id)?.id);
       order.push(bus);
     }
   for (let i = 0; i < order.length; i++) {
@@ -98,16 +100,16 @@ function treeFactsOf(
     locations.set(bus.id, bus);
     for (const motor of motorsOn.get(bus.id) ?? []) {
       locations.set(motor.id, bus);
-      protectors.set(motor.id, deviceFeeding.get(motor.id) ?? above);
+      protectors.set(motor.id, deviceFeeding.get(motor.id)?.id ?? above);
     }
     for (const branch of branchesFrom.get(bus.id) ?? []) {
-      const atBranch = deviceFeeding.get(branch.item.id) ?? above;
+      const atBranch = deviceFeeding.get(branch.item.id)?.id ?? above;
       locations.set(branch.item.id, bus);
       protectors.set(branch.item.id, atBranch);
       const below = buses.get(branch.item.to);
       if (!below || feederOf.get(below.id) !== branch || depths.has(below.id)) continue;
       depths.set(below.id, depth + 1);
-      protectors.set(below.id, deviceFeeding.get(below.id) ?? atBranch);
+      protectors.set(below.id, deviceFeeding.get(below.id)?.id ?? atBranch);
       order.push(below);
     }
   }
@@ -181,7 +183,8 @@ export function upstreamDeviceOf(network: Network, device: Device): Device | und
         : element.type === 'motor'
           ? element.item.bus
           : element.item.from;
-    return parent === undefined ? undefined : network.protectors.get(parent);
+    const above = parent === undefined ? undefined : network.protectors.get(parent);
+    return above === undefined ? undefined : network.devices.get(above);
   }
   const path = pathTo(network, device.feeds);
   for (let i = path.length - 2; i >= 0; i--) {
