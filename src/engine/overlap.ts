@@ -55,7 +55,10 @@ export interface OverlapOptions {
   instantaneousRegion?: number;
   /**
    * Times beyond this (s) count as never: a TCC sheet ends at about 1000 s, and an inverse curve's
-   * thousands of seconds just above pickup prove nothing about coordination. @default 1000
+   * thousands of seconds just above pickup prove nothing about coordination. Not so for the upstream
+   * device where the downstream one never clears at all (below its pickup): however long the upstream
+   * device takes there, it operates on a current the downstream one carries indefinitely, an overlap
+   * (an upstream pickup below the downstream one). @default 1000
    */
   horizon?: number;
   /** Log-grid density on each smooth segment. @default 12 */
@@ -140,7 +143,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     up.evaluateInto(amps, upTimes, undefined);
     down.evaluateInto(amps, undefined, downTimes);
     for (let i = 0; i < count; i++) {
-      const u = upTimes[i] > horizon ? Infinity : upTimes[i];
+      const u = upTimes[i] > horizon && downTimes[i] !== Infinity ? Infinity : upTimes[i];
       const d = downTimes[i] > horizon ? Infinity : downTimes[i];
       upTimes[i] = u;
       downTimes[i] = d;
@@ -176,7 +179,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
       refineEdge(lo, loUp, loDown, points[i], upTimes[i], downTimes[i], current);
       const lastRatio = ratioOf(edge[LO_UP], edge[LO_DOWN]);
       const lastMargin = marginOf(edge[LO_UP], edge[LO_DOWN]);
-      if (isWorse(lastRatio, lastMargin, worstRatio, worstMargin)) {
+      if (isWorse(lastRatio, lastMargin, edge[LO_UP], worstRatio, worstMargin, worstUp)) {
         worstAmps = edge[LO];
         worstUp = edge[LO_UP];
         worstDown = edge[LO_DOWN];
@@ -196,7 +199,7 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     }
     const ratio = ratioOf(upTimes[i], downTimes[i]);
     const slack = upTimes[i] * timeRatio - (downTimes[i] + margin);
-    if (isWorse(ratio, slack, worstRatio, worstMargin)) {
+    if (isWorse(ratio, slack, upTimes[i], worstRatio, worstMargin, worstUp)) {
       worstAmps = points[i];
       worstUp = upTimes[i];
       worstDown = downTimes[i];
@@ -211,12 +214,23 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
 }
 
 /**
- * Whether a point (its time ratio and slack) is worse than the interval's worst so far: a lower ratio,
- * or, where the ratios agree to a relative 1e-9 (two I²t curves keep a constant ratio, and rounding
- * alone then picks among their points), less slack, the closest the curves come in seconds.
+ * Whether a point (its time ratio, slack and upstream time) is worse than the interval's worst so far:
+ * a lower ratio, or, where the ratios agree to a relative 1e-9 (two I²t curves keep a constant ratio,
+ * and rounding alone then picks among their points), less slack, the closest the curves come in
+ * seconds; where the downstream device never clears at either (no slack at all), the sooner the
+ * upstream device operates.
  */
-function isWorse(ratio: number, slack: number, worstRatio: number, worstSlack: number): boolean {
-  return ratio < worstRatio * (1 - RATIO_TIE) || (ratio <= worstRatio * (1 + RATIO_TIE) && slack < worstSlack);
+function isWorse(
+  ratio: number,
+  slack: number,
+  upTime: number,
+  worstRatio: number,
+  worstSlack: number,
+  worstUp: number,
+): boolean {
+  if (ratio < worstRatio * (1 - RATIO_TIE)) return true;
+  if (!(ratio <= worstRatio * (1 + RATIO_TIE))) return false;
+  return slack < worstSlack || (slack === -Infinity && worstSlack === -Infinity && upTime < worstUp);
 }
 
 /**
@@ -279,14 +293,15 @@ function pointOf(amps: number, upTime: number, downTime: number): WorstPoint {
 }
 
 /**
- * The class at one current; its upstream and downstream times (past the horizon: never) are left in
+ * The class at one current; its upstream and downstream times (past the horizon: never, the upstream
+ * one only where the downstream device clears at all, see `OverlapOptions.horizon`) are left in
  * `scratch.probed`, a typed array, so no number is boxed per probe.
  */
 function probe(amps: number): number {
   const pair = compared;
   const u = pair.upFast(amps);
   const d = pair.downSlow(amps);
-  const up = u > pair.horizon ? Infinity : u;
+  const up = u > pair.horizon && d !== Infinity ? Infinity : u;
   const down = d > pair.horizon ? Infinity : d;
   scratch.probed[0] = up;
   scratch.probed[1] = down;

@@ -94,6 +94,23 @@ describe('findOverlaps', () => {
     expect(intervals[0].worst.ratio).toBe(0);
   });
 
+  it('calls an upstream pickup below the downstream one an overlap however slow the upstream device is there', () => {
+    // Very inverse, 96 A upstream at dial 15 over 100 A downstream at dial 1: at 99 A the upstream takes
+    // 15 · (19.61 / (1.03125² − 1) + 0.491) = 4641 s (IEEE C37.112 Table 1), beyond the 1000 s sheet,
+    // yet the downstream relay never operates there. The overlap runs to the downstream pickup, and its
+    // worst point is where the upstream relay operates soonest.
+    // (At 96 A itself the upstream relay never operates: a selective sliver of the tolerance's width.)
+    const intervals = findOverlaps(veryInverse(96, 15), veryInverse(100, 1), { toAmps: 5000 });
+    expect(statuses(intervals)).toEqual(['selective', 'overlap', 'selective']);
+    const [, overlap, above] = intervals;
+    assertInDelta(overlap.fromAmps, 96, 1e-5);
+    assertInDelta(overlap.toAmps, 100, 1e-6);
+    assertInDelta(overlap.worst.amps, 100, 1e-6);
+    assertInDelta(overlap.worst.upTime, 15 * (19.61 / ((100 / 96) ** 2 - 1) + 0.491), 1e-5);
+    // Where the downstream relay does operate, beyond the horizon both count as never.
+    assertInDelta(above.fromAmps, 100, 1e-6);
+  });
+
   it('matches the hand-solved overlap edge of two IEEE very-inverse relays', () => {
     // Downstream VI 400 A TD 1; upstream VI 600 A TD 1.05; required 0.3 s (hand-worked IEEE C37.112 relay times pair, computed).
     // At 4000 A the least dial for 0.30 s is 1.04956, so TD 1.04 overlaps just above 4000 A somewhere and TD 1.05 does not at 4000 A.

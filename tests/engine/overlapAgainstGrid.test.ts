@@ -25,7 +25,10 @@ const NEAR_EDGE = 1e-5;
  */
 function classAt(up: Band, down: Band, amps: number, margin: number, timeRatio: number): number {
   const never = (t: number) => (t > HORIZON ? Infinity : t);
-  const upTime = never(up.minTime(amps));
+  const downClears = down.maxTime(amps) !== Infinity;
+  // Beyond the horizon the upstream time counts as never only where the downstream device clears at
+  // all: below the downstream pickup the upstream device, however slow, trips first.
+  const upTime = downClears ? never(up.minTime(amps)) : up.minTime(amps);
   if (upTime === Infinity) return 0;
   const downTime = never(down.maxTime(amps));
   const limiting = amps >= Math.min(up.currentLimitingFrom, down.currentLimitingFrom) && upTime < INSTANTANEOUS_REGION;
@@ -127,10 +130,12 @@ describe('findOverlaps against the rule applied current by current', () => {
       0.9165762874219899,
     );
     const intervals = findOverlaps(up, down, { toAmps: 10, margin: 0 });
-    expect(intervals.map((i) => i.status)).toEqual(['selective', 'overlap', 'selective']);
-    // The downstream edge reaches 1000 s where 0.1 · (0.0515 / (M^0.02 − 1) + 0.114) = 1000.
+    // The upstream element picks up below the downstream relay: an overlap from its pickup, however
+    // slow it is there, until the downstream edge reaches 1000 s, where
+    // 0.1 · (0.0515 / (M^0.02 − 1) + 0.114) = 1000.
+    expect(intervals.map((i) => i.status)).toEqual(['overlap', 'selective']);
     const m = Math.pow(1 + 0.0515 / (1000 / 0.1 - 0.114), 1 / 0.02);
-    expect(intervals[1].toAmps / (5 * m) - 1).toBeLessThan(1e-5);
+    expect(intervals[0].toAmps / (5 * m) - 1).toBeLessThan(1e-5);
     expect(disagreements(up, down, { toAmps: 10, margin: 0, timeRatio: 1 })).toEqual([]);
   });
 

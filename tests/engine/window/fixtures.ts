@@ -36,7 +36,7 @@ export function workedStudy(): StudyInput {
         characteristic: {
           kind: 'relay',
           ct: '100:5',
-          timeOvercurrent: { curve: 'ieee-extremely-inverse', pickup: 5, timeDial: 6 },
+          timeOvercurrent: { curve: 'ieee-extremely-inverse', pickup: 5.5, timeDial: 6 },
           instantaneous: { pickup: 80 },
           tolerance: { pickup: 5, time: 5 },
         },
