@@ -121,7 +121,8 @@ function withstandFactsOf(context: CheckContext, cable: Cable): WithstandFacts |
     deviceVolts: locationBusOf(network, device).voltage,
     curve,
     withstand,
-    toAmps: faults.buses.get(cable.from)!.max.threePhase,
+    // A ground fault's current runs in the faulted conductor, and may exceed the three-phase current.
+    toAmps: faults.buses.get(cable.from)!.max.largest,
     from: withstand.minAmps,
   };
 }

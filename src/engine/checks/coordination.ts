@@ -55,7 +55,9 @@ const SEVERITY: Record<OverlapInterval['status'], Severity> = {
  *   so the upstream device sees exactly 2/√3 times the downstream per-unit current (symmetrical
  *   components; the IEEE C37.91 / C57.109 shift factor); an even number of 30° shifts cancels. Where the
  *   upstream device has a ground-fault element and no transformer lies between them, the ground-fault
- *   case up to the line-to-ground current through both (zero-sequence network).
+ *   case up to the line-to-ground current through both (zero-sequence network); elsewhere, with no
+ *   Δ–Y unit between them, the ground-fault case from the three-phase current up to the line-to-ground
+ *   one where that is larger (the phase elements carry it).
  * - Single-phase bus: the full-winding fault, the upstream device across a single-phase transformer
  *   connected line to neutral seeing √3 times (its winding is at V_LL/√3); and on a centre-tapped
  *   secondary the line-to-neutral fault, of which a device above the transformer sees half (half the turns).
@@ -93,6 +95,15 @@ export function checkPair(
     horizon: settings.horizon,
     toAmps,
   });
+  const optionsBetween = (fromAmps: number, toAmps: number): OverlapOptions => ({
+    fromAmps,
+    margin: rule.margin,
+    timeRatio: rule.timeRatio,
+    thinMargin: settings.thinMargin,
+    halfCycle: settings.halfCycle,
+    horizon: settings.horizon,
+    toAmps,
+  });
   const caseOf = (fault: PairFault, upstreamShift: number, toAmps: number): PairCase => ({
     fault,
     referenceVolts,
@@ -120,15 +131,29 @@ export function checkPair(
     // A ground-fault element above sees ground current the devices below clear with their phase
     // elements (or their own ground element); it does not cross a transformer.
     const upGround = cachedGroundBandOf(upstream.characteristic);
+    const downGround = cachedGroundBandOf(downstream.characteristic);
+    const down = downGround ? cachedFastestOf(downBand, downGround) : downBand;
     if (upGround && between.length === 0 && through.lineToGround > 0) {
-      const downGround = cachedGroundBandOf(downstream.characteristic);
       const up = cachedFastestOf(bands.get(upstream.id)!, upGround);
-      const down = downGround ? cachedFastestOf(downBand, downGround) : downBand;
       cases.push({
         fault: 'ground-fault',
         referenceVolts,
         upstreamShift: 1,
         intervals: overlapsIn(context, up, down, optionsUpTo(through.lineToGround)),
+      });
+    } else if (shifts === 0 && through.lineToGround > through.threePhase) {
+      // The faulted line carries the whole line-to-ground current, and so does every phase element on
+      // the way up where no Δ–Y unit splits it (a Yg–Yg unit passes it on; symmetrical components):
+      // where it exceeds the three-phase current (a solidly grounded wye close to its transformer),
+      // the pair is checked from the one up to the other too. The upstream ground element, if any,
+      // counted as seeing it (the cautious side where a wye-wye unit lies between).
+      const phaseUp = upGround ? cachedFastestOf(bands.get(upstream.id)!, upGround) : bands.get(upstream.id)!;
+      const up = upBus.voltage === referenceVolts ? phaseUp : scaleBand(phaseUp, upBus.voltage / referenceVolts);
+      cases.push({
+        fault: 'ground-fault',
+        referenceVolts,
+        upstreamShift: 1,
+        intervals: overlapsIn(context, up, down, optionsBetween(through.threePhase, through.lineToGround)),
       });
     }
   }

@@ -163,6 +163,33 @@ describe('checkPair for a ground fault', () => {
     assertInDelta(finding.range!.fromAmps, 108, 1e-9);
   });
 
+  it('checks phase elements up to a line-to-ground current larger than the three-phase one', () => {
+    // The utility gives 20 kA three-phase and 24 kA line to ground at A (a zero-sequence impedance below
+    // the positive: I_LG = 3E / (2·Z1 + Z0) > E / Z1; symmetrical components, IEEE Std 399). The faulted
+    // line carries all of it through both phase-only devices. The main's instantaneous trip, 12 × 2000 A
+    // less 10 % = 21.6 kA (common practice tolerance), is beyond every three-phase fault but not every
+    // ground fault, where the feeder still takes 12 · (2400 / I)² ≥ 0.12 s (computed).
+    const study = pairStudy();
+    study.source = { kind: 'utility', id: 'U', bus: 'A', max: { available: '20 kA', lineToGround: '24 kA' } };
+    study.devices![0].characteristic = {
+      kind: 'trip-unit',
+      sensor: 2000,
+      longTime: { pickup: 1, delay: 10 },
+      instantaneous: { pickup: 12 },
+    };
+    const analysis = analyseStudy(parseStudy(study));
+    const [pair] = analysis.pairs;
+    expect(pair.cases.map((c) => c.fault)).toEqual(['three-phase', 'ground-fault']);
+    expect(pair.cases[0].intervals.every((i) => i.status === 'selective')).toBe(true);
+    const ground = pair.cases[1].intervals;
+    assertInDelta(ground[0].fromAmps, 20_000, 1e-9);
+    expect(ground.map((i) => i.status)).toEqual(['selective', 'overlap']);
+    assertInDelta(ground[1].fromAmps, 21_600, 1e-5);
+    assertInDelta(ground[1].toAmps, 24_000, 1e-9);
+    const overlap = analysis.findings.find((f) => f.status === 'overlap')!;
+    expect(overlap.title).toBe('UP over DOWN: overlap for a ground fault');
+  });
+
   it('says the overlap is for a ground fault', () => {
     const finding = analyseStudy(parseStudy(groundStudy())).findings.find((f) => f.status === 'overlap')!;
     expect(finding.title).toBe('MAIN over FDR: overlap for a ground fault');
