@@ -4,10 +4,11 @@ import { addImpedance, ZERO_IMPEDANCE, type Impedance } from '../fault/impedance
 import { reflectImpedance } from '../fault/reflect.ts';
 import { decrementOperatingTime, generatorDecrement, type GeneratorDecrement } from '../generator/index.ts';
 import { locationBusOf, pathTo, type Network } from '../network/index.ts';
-import { formatAmps, formatSeconds, formatVolts } from '../quantity/format.ts';
+import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
 import type { Source } from '../study/index.ts';
 import { nameOf } from './context.ts';
 import type { Finding } from './finding.ts';
+import type { MarginRule } from './margins.ts';
 
 type Generator = Extract<Source, { kind: 'generator' }>;
 
@@ -21,9 +22,11 @@ type AnalysedTree = Pick<Analysis, 'study' | 'network' | 'faults' | 'bands' | 'p
  * decrement behind the impedance of the path (`generatorDecrement`, IEEE Std 551): the downstream
  * device's latest clearing and the upstream device's earliest operation are each found by
  * integrating 1 / t(I(t)) to 1 over the decaying current (`decrementOperatingTime`, the
- * time-varying-current method of IEEE C37.112), and the difference must meet the pair's required
- * margin. A downstream device that never operates on the decaying current fails. Motor contribution
- * is left out (it decays within a few cycles). Findings only for a tree whose source is a generator.
+ * time-varying-current method of IEEE C37.112), and the two must meet the pair's rule as the overlap
+ * finder applies it: `opens × timeRatio ≥ clears + margin` (for a fuse pair the downstream total
+ * clearing within 75 % of the upstream minimum melting, common practice). A downstream device that
+ * never operates on the decaying current fails. Motor contribution is left out (it decays within a few
+ * cycles). Findings only for a tree whose source is a generator.
  *
  * @example decrementFindings(analysisOfGeneratorTree)
  */
@@ -44,8 +47,10 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     const upBand = scaleBand(analysis.bands.get(up.id)!, locationBusOf(network, up).voltage / bus.voltage);
     const clears = decrementOperatingTime((amps) => downBand.maxTime(amps), current);
     const opens = decrementOperatingTime((amps) => upBand.minTime(amps), current);
-    const margin = opens - clears;
-    const ok = Number.isFinite(clears) && margin >= pair.rule.margin;
+    const { rule } = pair;
+    // The finder's slack and ratio (`up.minTime · timeRatio` against `down.maxTime + margin`).
+    const slack = opens === Infinity ? Infinity : opens * rule.timeRatio - (clears + rule.margin);
+    const ok = Number.isFinite(clears) && slack >= 0;
     const initial = formatAmps(current(0), 3);
     const sustained = formatAmps(decrement.sustainedAmps * toBus, 3);
     const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${initial} falling to ${sustained}`;
@@ -57,7 +62,7 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       subjects: [up.id, down.id],
       explanation: !Number.isFinite(clears)
         ? `For ${at}, ${nameOf(down)} never clears: the current decays below what it needs before it can operate.`
-        : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)} and ${nameOf(up)} can operate from ${Number.isFinite(opens) ? formatSeconds(opens) : 'never'}: a margin of ${Number.isFinite(margin) ? formatSeconds(margin) : 'no limit'} against the required ${formatSeconds(pair.rule.margin)}.`,
+        : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)} and ${nameOf(up)} can operate from ${Number.isFinite(opens) ? formatSeconds(opens) : 'never'}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}.`,
       suggestion: ok
         ? undefined
         : Number.isFinite(clears)
@@ -66,11 +71,27 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       basis: `generator decrement (IEEE Std 551) with time-varying-current integration (IEEE C37.112); ${pair.rule.basis}`,
       referenceVolts: bus.voltage,
       worst: Number.isFinite(clears)
-        ? { amps: current(clears), marginSeconds: margin, ratio: opens / clears, upTime: opens, downTime: clears }
+        ? {
+            amps: current(clears),
+            marginSeconds: slack,
+            ratio: opens === Infinity ? Infinity : (opens * rule.timeRatio) / (clears + rule.margin),
+            upTime: opens,
+            downTime: clears,
+          }
         : undefined,
     });
   }
   return findings;
+}
+
+// Accepts the two times (s), the pair's rule and the two names; the separation against the rule, in words.
+function separationText(clears: number, opens: number, rule: MarginRule, down: string, up: string): string {
+  if (rule.timeRatio === 1)
+    return `a margin of ${Number.isFinite(opens) ? formatSeconds(opens - clears) : 'no limit'} against the required ${formatSeconds(rule.margin)}`;
+  const needed =
+    rule.margin > 0 ? `${down}'s clearing plus the required ${formatSeconds(rule.margin)}` : `${down}'s clearing`;
+  const share = Number.isFinite(opens) ? `${significant((100 * (clears + rule.margin)) / opens, 3)} %` : 'none';
+  return `${needed} is ${share} of ${up}'s earliest operation, against at most ${significant(rule.timeRatio * 100, 3)} % required`;
 }
 
 // Accepts a generator tree and a bus; the decrement for a fault there, behind the path's impedance in per unit on the machine base.

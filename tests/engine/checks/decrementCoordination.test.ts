@@ -1,0 +1,115 @@
+import { describe, expect, it } from 'vitest';
+import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { assertInDelta } from '../../asserts.ts';
+
+/**
+ * A 500 kVA, 480 V generator feeding a fuse UP, a cable and a fuse DOWN below it. X″d = X′d = Xd = 0.25 pu
+ * makes the decrement flat, so a bolted fault at the generator bus holds I = I_r / 0.25 =
+ * 500 000 / (√3 × 480) / 0.25 = 2405.626 A (computed) and each operating time is the curve's time at that
+ * current. DOWN total clearing is the straight log-log line t = 9·10⁶ / I² (100 s at 300 A, 0.01 s at 30 kA):
+ * 1.555 21 s at 2405.626 A (computed). UP minimum melting is `k` times DOWN's total clearing at every current.
+ * Invented curves.
+ */
+function fusePair(k: number): StudyInput {
+  return {
+    discern: 1,
+    name: 'fuses on a standby generator',
+    source: {
+      kind: 'generator',
+      id: 'G1',
+      bus: 'GEN',
+      rating: '500 kVA',
+      voltage: 480,
+      xdSubtransient: 0.25,
+      xdTransient: 0.25,
+      xd: 0.25,
+      tdSubtransient: 0.015,
+      tdTransient: 0.4,
+    },
+    buses: [
+      { id: 'GEN', voltage: 480 },
+      { id: 'PNL', voltage: 480 },
+    ],
+    cables: [{ id: 'C1', from: 'GEN', to: 'PNL', size: '4/0', length: '50 ft' }],
+    devices: [
+      {
+        id: 'UP',
+        feeds: 'GEN',
+        characteristic: {
+          kind: 'fuse',
+          illustrative: true,
+          minimumMelting: [
+            [300, 100 * k],
+            [30_000, 0.01 * k],
+          ],
+          totalClearing: [
+            [300, 150 * k],
+            [30_000, 0.015 * k],
+          ],
+        },
+      },
+      {
+        id: 'DOWN',
+        feeds: 'C1',
+        characteristic: {
+          kind: 'fuse',
+          illustrative: true,
+          minimumMelting: [
+            [250, 100],
+            [25_000, 0.01],
+          ],
+          totalClearing: [
+            [300, 100],
+            [30_000, 0.01],
+          ],
+        },
+      },
+    ],
+  };
+}
+
+const AMPS = 500e3 / (Math.sqrt(3) * 480) / 0.25;
+const CLEARS = 9e6 / AMPS ** 2;
+const decrement = (k: number) =>
+  analyseStudy(parseStudy(fusePair(k))).findings.find((f) => f.id === 'decrement:UP/DOWN')!;
+
+describe('decrementFindings', () => {
+  it('has the expected defaults: a fuse pair is held to the 75 % rule on the generator current too', () => {
+    const finding = decrement(1.5);
+    expect(finding.kind).toBe('generator-decrement');
+    expect(finding.basis).toMatch(/downstream total clearing ≤ 75 % of upstream minimum melting \(common practice\)/);
+    assertInDelta(finding.worst!.amps, AMPS, 1e-6);
+    assertInDelta(finding.worst!.downTime, CLEARS, 1e-6);
+    assertInDelta(finding.worst!.upTime, 1.5 * CLEARS, 1e-6);
+  });
+
+  it('fails a fuse pair whose downstream clearing is 83 % of the upstream melting (75 % rule, common practice)', () => {
+    // UP melts in 1.2 × 1.555 21 = 1.866 25 s; DOWN clears in 1.555 21 s = 83.3 % of it, over 75 %:
+    // not selective, though UP still melts 0.311 s after DOWN has cleared.
+    const finding = decrement(1.2);
+    expect(finding.severity).toBe('fail');
+    expect(finding.title).toBe("UP over DOWN on the generator's decaying current: margin not met");
+    expect(finding.explanation).toMatch(
+      /DOWN clears by 1\.56 s and UP can operate from 1\.87 s: DOWN's clearing is 83\.3 % of UP's earliest operation, against at most 75 % required\.$/,
+    );
+    // The finder's bookkeeping: slack 0.75 × 1.866 25 − 1.555 21 = −0.155 52 s, ratio 0.75 × 1.2 = 0.9.
+    assertInDelta(finding.worst!.marginSeconds, 0.75 * 1.2 * CLEARS - CLEARS, 1e-6);
+    assertInDelta(finding.worst!.ratio, 0.9, 1e-6);
+  });
+
+  it('passes a fuse pair whose downstream clearing is 67 % of the upstream melting', () => {
+    // UP melts in 1.5 × 1.555 21 = 2.332 82 s; DOWN clears in 66.7 % of it, within 75 %.
+    const finding = decrement(1.5);
+    expect(finding.severity).toBe('ok');
+    expect(finding.explanation).toMatch(/DOWN's clearing is 66\.7 % of UP's earliest operation, against at most 75 %/);
+    assertInDelta(finding.worst!.marginSeconds, 0.75 * 1.5 * CLEARS - CLEARS, 1e-6);
+    assertInDelta(finding.worst!.ratio, 1.125, 1e-6);
+  });
+
+  it('agrees with the pair finder at the same current: both fail the 83 % pair', () => {
+    const analysis = analyseStudy(parseStudy(fusePair(1.2)));
+    const coordination = analysis.findings.filter((f) => f.kind === 'coordination' && f.subjects[0] === 'UP');
+    expect(coordination.some((f) => f.severity === 'fail')).toBe(true);
+  });
+});
