@@ -185,6 +185,38 @@ export function dutyCasesOf(level: FaultLevel, phases: 1 | 3, basis: RatingBasis
     .sort((a, b) => b.dutyAmps - a.dutyAmps);
 }
 
+/** What a device's interrupting rating is held to: the bus it sits at, the rating's test basis and the largest duty. */
+export interface InterruptingDuty {
+  /** The interrupting rating (A). */
+  rating: number;
+  /** The bus taken as the device's line terminals. */
+  bus: Bus;
+  basis: RatingBasis;
+  /** The largest X/R-corrected bolted fault at the bus (`dutyCasesOf`). */
+  worst: DutyCase;
+}
+
+/**
+ * The duty NFPA 70 110.9 holds a device's interrupting rating to: the largest bolted fault at the bus
+ * where it sits, multiplied up for X/R above its rating's test X/R (`ratingBasisOf`, `dutyCasesOf`).
+ * `undefined` for a device without an interrupting rating. A fault unbounded by an infinite source has
+ * an infinite `worst.symmetricalAmps`.
+ *
+ * @example interruptingDutyOf(context, fdrMcc, 60)?.worst.dutyAmps
+ */
+export function interruptingDutyOf(
+  context: Pick<CheckContext, 'network' | 'faults'>,
+  device: Device,
+  frequency = 60,
+): InterruptingDuty | undefined {
+  const rating = device.interruptingRating;
+  if (rating === undefined) return undefined;
+  const bus = locationBusOf(context.network, device);
+  const construction = inferConstruction(device, bus.voltage);
+  const basis = ratingBasisOf(construction, rating, frequency, device.interruptingTestXr);
+  return { rating, bus, basis, worst: worstDutyAt(context, bus, basis) };
+}
+
 /**
  * NFPA 70 110.9: a device with an interrupting rating must interrupt the maximum fault at its line
  * terminals. The line terminals are taken at the bus where the device sits (the bolted fault there,
@@ -195,11 +227,9 @@ export function dutyCasesOf(level: FaultLevel, phases: 1 | 3, basis: RatingBasis
  * @example interruptingFindings(context, main, 60)
  */
 export function interruptingFindings(context: CheckContext, device: Device, frequency = 60): Finding[] {
-  const rating = device.interruptingRating;
-  if (rating === undefined) return [];
-  const bus = locationBusOf(context.network, device);
-  const construction = inferConstruction(device, bus.voltage);
-  const basis = ratingBasisOf(construction, rating, frequency, device.interruptingTestXr);
+  const duty = interruptingDutyOf(context, device, frequency);
+  if (duty === undefined) return [];
+  const { rating, bus, basis } = duty;
   return [
     dutyFinding(context, {
       id: `interrupting-duty:${device.id}`,
@@ -263,8 +293,7 @@ interface DutySubject {
 function dutyFinding(context: CheckContext, subject: DutySubject): Finding {
   const { bus, basis, rating } = subject;
   const busName = bus.name ?? bus.id;
-  const fault = context.faults.buses.get(bus.id)!;
-  const [worst] = dutyCasesOf(fault.max, fault.phases, basis);
+  const worst = worstDutyAt(context, bus, basis);
   const common = {
     id: subject.id,
     kind: subject.kind,
@@ -307,6 +336,12 @@ function dutyFinding(context: CheckContext, subject: DutySubject): Finding {
     explanation: `${situation} ${capitalise(subject.what)}, ${formatAmps(rating, 3)}, meets it (${significant((100 * worst.dutyAmps) / rating, 3)} % used).`,
     work,
   };
+}
+
+/** The largest duty case at a bus for a rating basis, from its maximum fault level. */
+function worstDutyAt(context: Pick<CheckContext, 'faults'>, bus: Bus, basis: RatingBasis): DutyCase {
+  const fault = context.faults.buses.get(bus.id)!;
+  return dutyCasesOf(fault.max, fault.phases, basis)[0];
 }
 
 /** The worked steps behind a duty finding. */

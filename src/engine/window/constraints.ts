@@ -6,6 +6,7 @@ import { cableFindings } from '../checks/cableProtection.ts';
 import { nameOf, protectingDevice } from '../checks/context.ts';
 import { checkPair } from '../checks/coordination.ts';
 import type { Finding } from '../checks/finding.ts';
+import { interruptingDutyOf } from '../checks/interruptingDuty.ts';
 import { marginRuleOf, type MarginRule } from '../checks/margins.ts';
 import { carriesLoad, fullLoadOf, pickupAmpsOf } from '../checks/loadBelow.ts';
 import { motorFindings } from '../checks/motorStarting.ts';
@@ -137,7 +138,7 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
     constraints.push({
       id: `withstand:${cable.id}`,
       kind: 'cable-withstand',
-      label: `clear below ${name}'s short-circuit limit up to ${formatAmps(trial.faults.buses.get(cable.from)!.max.threePhase, 3)}`,
+      label: `clear below ${name}'s short-circuit limit up to ${formatAmps(trial.faults.buses.get(cable.from)!.max.largest, 3)}`,
       source: 'ICEA P-32-382',
       favours: 'faster',
       subjects: [cable.id],
@@ -269,20 +270,36 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
     });
   }
 
-  const duty = trial.faults.buses.get(locationBusOf(trial.network, device).id)!.max.largest;
+  // The duty the NFPA 70 110.9 check holds the rating to: the largest fault where it sits, multiplied
+  // up for X/R above the rating's test X/R. Without a rating there is no test X/R: the symmetrical fault.
+  const present = interruptingDutyOf(trial, device, trial.study.frequency);
+  const fault = trial.faults.buses.get(locationBusOf(trial.network, device).id)!.max;
   constraints.push({
     id: 'interrupting',
     kind: 'interrupting-duty',
-    label: `interrupt ${formatAmps(duty, 3)}, the largest fault where it sits`,
-    source: 'NFPA 70 110.9',
+    label: present
+      ? `interrupt ${formatAmps(present.worst.dutyAmps, 3)}, the largest fault where it sits corrected for X/R`
+      : `interrupt ${formatAmps(fault.largest, 3)}, the largest symmetrical fault where it sits`,
+    source: present ? `NFPA 70 110.9; ${present.basis.source}` : 'NFPA 70 110.9',
     favours: 'fixed',
     subjects: [],
     evaluate: (t) => {
-      const rating = t.deviceOf(deviceId).interruptingRating;
-      if (rating === undefined)
+      const duty = interruptingDutyOf(t, t.deviceOf(deviceId), t.study.frequency);
+      if (duty === undefined)
         return { ok: true, clean: true, margin: Infinity, unit: 'A', text: 'no interrupting rating given' };
-      const ok = rating >= duty;
-      return { ok, clean: ok, margin: rating - duty, unit: 'A', text: `rated ${formatAmps(rating, 3)}` };
+      const { rating, worst } = duty;
+      const rated = `rated ${formatAmps(rating, 3)}`;
+      // As the check: an infinite source leaves the duty unbounded, a warning rather than a failure.
+      if (!Number.isFinite(worst.symmetricalAmps))
+        return { ok: true, clean: false, margin: -Infinity, unit: 'A', text: `${rated}; the fault here is unbounded` };
+      const ok = !(worst.dutyAmps > rating);
+      return {
+        ok,
+        clean: ok,
+        margin: rating - worst.dutyAmps,
+        unit: 'A',
+        text: `${rated}, duty ${formatAmps(worst.dutyAmps, 3)}`,
+      };
     },
   });
   return constraints;

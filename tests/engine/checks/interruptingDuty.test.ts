@@ -5,6 +5,7 @@ import {
   dutyCasesOf,
   dutyFactorOf,
   inferConstruction,
+  interruptingDutyOf,
   ratingBasisOf,
   ul489PowerFactor,
   xrOfPowerFactor,
@@ -117,6 +118,18 @@ describe('interrupting duty (NFPA 70 110.9) and equipment short-circuit rating (
     expect(swbd.severity).toBe('ok');
     assertInDelta(swbd.range!.fromAmps, 49_380.596, 1e-6);
     expect(swbd.basis).toMatch(/^NFPA 70 110\.10; equipment short-circuit test taken as that of a UL 489 breaker/);
+  });
+
+  it('interruptingDutyOf gives the duty the 110.9 finding is worked from, and nothing without a rating', () => {
+    const study = parseStudy(fixture());
+    const analysis = analyseStudy(study);
+    const device = (id: string) => study.devices.find((d) => d.id === id)!;
+    // The 10 kA MCCB and the 65 kA LVPCB of the two tests above: 64 817.9 A and 46 756.0 A (python3).
+    assertInDelta(interruptingDutyOf(analysis, device('FDR-PNL'), 60)!.worst.dutyAmps, 64_817.938, 1e-6);
+    const process = interruptingDutyOf(analysis, device('FDR-PNL2'), 60)!;
+    expect(process.basis.compare).toBe('rms');
+    assertInDelta(process.worst.dutyAmps, 46_756.043, 1e-6);
+    expect(interruptingDutyOf(analysis, { ...device('FDR-PNL'), interruptingRating: undefined }, 60)).toBeUndefined();
   });
 
   it('fails equipment rated below the duty, warns where the source is infinite, and skips what has no rating', () => {
