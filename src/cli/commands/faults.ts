@@ -27,7 +27,8 @@ Maximum: maximum source, motors contributing (first cycle), cables at 75 °C.
 Minimum: minimum source, no motors, cable resistance at 90 °C.
 Line-to-line and line-to-ground come from the sequence networks (Z2 = Z1): source Z0 as entered (else
 Z0 = Z1, solidly grounded), transformer connection and neutral grounding, cable Z0 as entered (else 3 × Z1).
-Each bus's current is also shown at the voltage levels it flows through on its way to the source.
+"at … kV" shows what a fault at the bus draws through the nearest transformer fed at that voltage, as
+its line current there: motors on the bus's side of that transformer feed the fault without passing it.
 Single-phase buses (below a single-phase transformer) show the full-winding fault as L-L and the
 line-to-neutral (half-winding) fault as L-G; they have no three-phase fault.
 `;
@@ -35,7 +36,7 @@ line-to-neutral (half-winding) fault as L-G; they have no three-phase fault.
 /**
  * `discern faults <study>`: a table of every bus (nominal voltage; three- or single-phase; max and min
  * three-phase, line-to-line and line-to-ground; X/R of the three-phase and line-to-ground faults; motor
- * contribution; the current at the voltage levels it flows through toward the source), then each
+ * contribution; what a fault there draws through the transformers above it, at their primary voltages), then each
  * transformer's secondary fault and its primary-side line currents.
  *
  * @example await faultsCommand.run(['demo/harrowmere-selective.json'], io)

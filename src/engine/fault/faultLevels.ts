@@ -4,7 +4,15 @@ import type { WorkStep } from '../work.ts';
 import { sourceLevelsOf } from './sourceLevels.ts';
 import { faultTreeOf, type FaultTree } from './faultTree.ts';
 import { faultSteps, singlePhaseSteps, stepsTo, zeroSequenceStepsTo } from './faultWork.ts';
-import { addImpedance, magnitudeOf, parallelImpedance, xrOf, type Impedance } from './impedance.ts';
+import {
+  addImpedance,
+  divideComplex,
+  magnitudeOf,
+  multiplyComplex,
+  parallelImpedance,
+  xrOf,
+  type Impedance,
+} from './impedance.ts';
 import { primaryConnectionOf, singlePhaseBusesOf, type SinglePhaseBus } from './singlePhase.ts';
 import { transformerFaultOf } from './transformerFault.ts';
 import { withLazyWork } from './workSteps.ts';
@@ -60,8 +68,10 @@ export interface BusFault {
   max: FaultLevel;
   min: FaultLevel;
   /**
-   * The max/min three-phase (single-phase: full-winding) current reflected to the voltage levels where
-   * that current flows: the buses on the bus's path to the source (A at each entry's `volts`).
+   * For each voltage level on the bus's path to the source, the max/min current a fault at the bus draws
+   * through the nearest transformer fed at that level, as a line current there (A at each entry's
+   * `volts`): the three-phase (single-phase: full-winding) fault less what motors on the far side of that
+   * transformer feed, which never passes through it.
    */
   reflected: { volts: number; maxAmps: number; minAmps: number }[];
   work: Work;
@@ -115,7 +125,7 @@ export const MINIMUM_FAULT_TEMPERATURE = 90;
 export function faultLevelsOf(network: Network): FaultLevels {
   const { study } = network;
   const source = study.source;
-  const { max: maxLevel, min: minLevel, minPath } = sourceLevelsOf(source);
+  const { max: maxLevel, min: minLevel, minPath, minKeepsMaxZ0 } = sourceLevelsOf(source);
   const max = faultTreeOf(network, { kind: 'max', level: maxLevel, motors: true, temperature: 75, toleranced: true });
   // The maximum fault without motors, for the motors' share: the same elements as `max`, taken from it.
   const withoutMotors = threePhaseAmpsOf(network, faultTreeOf(network, { ...max.condition, motors: false }, max));
@@ -127,7 +137,8 @@ export function faultLevelsOf(network: Network): FaultLevels {
     toleranced: false,
   });
   const zeroMax = zeroSequenceOf(network, max, maxLevel);
-  const zeroMin = zeroSequenceOf(network, min, minLevel, minPath);
+  const keptZ0 = minKeepsMaxZ0 ? zeroMax.atBus.get(source.bus) : undefined;
+  const zeroMin = zeroSequenceOf(network, min, minLevel, minPath, keptZ0);
   const singleMax = singlePhaseBusesOf(network, max, zeroMax, true);
   const singleMin = singlePhaseBusesOf(network, min, zeroMin, false);
 
@@ -168,7 +179,6 @@ export function faultLevelsOf(network: Network): FaultLevels {
   const buses = new Map<string, BusFault>();
   for (const busId of max.order) {
     const volts = network.buses.get(busId)!.voltage;
-    const reflected = reflectionsOf(network, busId);
     const single = singleMax.get(busId);
     if (single) {
       const singleLow = singleMin.get(busId)!;
@@ -181,7 +191,7 @@ export function faultLevelsOf(network: Network): FaultLevels {
         system: single.system,
         max: maxAt,
         min: minAt,
-        reflected: reflectedAt(reflected, maxAt, minAt),
+        reflected: reflectedOf(network, { max, min }, singleMax, busId, maxAt, minAt),
       };
       buses.set(busId, withLazyWork(fault, singlePhaseWork));
       continue;
@@ -197,7 +207,7 @@ export function faultLevelsOf(network: Network): FaultLevels {
       system: 'three-phase',
       max: maxAt,
       min: minAt,
-      reflected: reflectedAt(reflected, maxAt, minAt),
+      reflected: reflectedOf(network, { max, min }, singleMax, busId, maxAt, minAt),
     };
     buses.set(busId, withLazyWork(fault, threePhaseWork));
   }
@@ -214,41 +224,78 @@ function tagged(name: string, steps: WorkStep[]): WorkStep[] {
 }
 
 /**
- * For each voltage level on the bus's path to the source (its own excepted), the factor that carries a
- * current at the bus to the line current there: `V_bus / V_winding` at each transformer crossed, the
- * winding voltage being the line-to-neutral voltage for a single-phase unit connected line to neutral.
+ * The current a fault at `busId` draws through each transformer on its path to the source, at the
+ * transformer's primary (one entry per voltage, the nearest transformer's; the bus's own voltage
+ * excepted). Motors are parallel sources at their buses (IEEE 399 / IEEE 141), so on a three-phase bus
+ * it starts from the current arriving from the feeder, `E / Z_toward`, not the bus total, and at each
+ * bus above keeps the share `Z_behind / Z_toward` that comes from that bus's own feeder (current
+ * division in the positive-sequence network); on a single-phase bus from the whole loop current. The
+ * balanced line current then moves by `V_bus / V_winding` at each transformer crossed, the winding
+ * voltage being the line-to-neutral voltage for a single-phase unit connected line to neutral.
  */
-function reflectionsOf(network: Network, busId: string): { volts: number; factor: number }[] {
-  const out: { volts: number; factor: number }[] = [];
+function reflectedOf(
+  network: Network,
+  trees: { max: FaultTree; min: FaultTree },
+  singlePhase: ReadonlyMap<string, unknown>,
+  busId: string,
+  max: FaultLevel,
+  min: FaultLevel,
+): BusFault['reflected'] {
+  const out: BusFault['reflected'] = [];
   const own = network.buses.get(busId)!.voltage;
+  const single = singlePhase.has(busId);
+  const arriving = (tree: FaultTree, level: FaultLevel) =>
+    single ? level.threePhase : ampsOf(own / Math.sqrt(3), tree.toward.get(busId)!);
+  const maxArriving = arriving(trees.max, max);
+  const minArriving = arriving(trees.min, min);
+  let maxShare: Impedance = ONE;
+  let minShare: Impedance = ONE;
+  let toNeutral = false;
   let factor = 1;
   for (let feeder = network.feederOf.get(busId); feeder; feeder = network.feederOf.get(feeder.item.from)) {
-    if (feeder.type !== 'transformer') continue;
-    const from = network.buses.get(feeder.item.from)!.voltage;
-    const to = network.buses.get(feeder.item.to)!.voltage;
-    const t = feeder.item;
-    const toNeutral =
-      t.phases === 1 && !isSinglePhaseBus(network, t.from) && primaryConnectionOf(t, from) === 'line-to-neutral';
-    const winding = toNeutral ? from / Math.sqrt(3) : from;
-    factor *= to / winding;
-    if (from !== own && !out.some((r) => r.volts === from)) out.push({ volts: from, factor });
+    const from = feeder.item.from;
+    const threePhaseFrom = !singlePhase.has(from);
+    if (feeder.type === 'transformer') {
+      const t = feeder.item;
+      const fromVolts = network.buses.get(from)!.voltage;
+      // A single-phase unit on a three-phase bus: its primary winding may sit line to neutral.
+      const lineToNeutral = t.phases === 1 && threePhaseFrom && primaryConnectionOf(t, fromVolts) === 'line-to-neutral';
+      toNeutral ||= lineToNeutral;
+      factor *= network.buses.get(t.to)!.voltage / (lineToNeutral ? fromVolts / Math.sqrt(3) : fromVolts);
+      if (fromVolts !== own && !out.some((r) => r.volts === fromVolts))
+        out.push({
+          volts: fromVolts,
+          maxAmps: maxArriving * phaseShare(maxShare, toNeutral) * factor,
+          minAmps: minArriving * phaseShare(minShare, toNeutral) * factor,
+        });
+    }
+    // Motors feed no fault below a single-phase transformer, so the current divides only on three-phase buses.
+    if (threePhaseFrom) {
+      maxShare = shareAbove(trees.max, feeder.item.id, from, maxShare);
+      minShare = shareAbove(trees.min, feeder.item.id, from, minShare);
+    }
   }
   return out;
 }
 
-/** Whether a bus lies below a single-phase transformer. */
-function isSinglePhaseBus(network: Network, busId: string): boolean {
-  for (let feeder = network.feederOf.get(busId); feeder; feeder = network.feederOf.get(feeder.item.from))
-    if (feeder.type === 'transformer' && feeder.item.phases === 1) return true;
-  return false;
+const ONE: Impedance = Object.freeze({ r: 1, x: 0 });
+
+/** The share of a branch's fault current that reaches its `from` bus through that bus's own feeder. */
+function shareAbove(tree: FaultTree, branchId: string, from: string, share: Impedance): Impedance {
+  const toward = tree.toward.get(from)!;
+  // An infinite source supplies the whole current.
+  if (toward.r === 0 && toward.x === 0) return share;
+  return multiplyComplex(share, divideComplex(tree.behind.get(branchId)!, toward));
 }
 
-function reflectedAt(reflections: { volts: number; factor: number }[], max: FaultLevel, min: FaultLevel) {
-  return reflections.map(({ volts, factor }) => ({
-    volts,
-    maxAmps: max.threePhase * factor,
-    minAmps: min.threePhase * factor,
-  }));
+/**
+ * The line current in a feeder as a fraction of the fault's, from its positive-sequence share `c`:
+ * `|c|` for a three-phase fault and a primary across two lines (Z2 = Z1, so the negative sequence divides
+ * as the positive); `|2·c + 1| / 3` for a primary line to neutral, whose zero sequence (a third of the
+ * line current) all comes from above, since motors carry none (symmetrical components, IEEE 399).
+ */
+function phaseShare(c: Impedance, toNeutral: boolean): number {
+  return toNeutral ? magnitudeOf({ r: 2 * c.r + 1, x: 2 * c.x }) / 3 : magnitudeOf(c);
 }
 
 /** Amps from a voltage and a loop or Thevenin impedance; unbounded for a zero impedance. */

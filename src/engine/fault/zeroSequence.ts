@@ -45,10 +45,13 @@ export function neutralImpedanceOf(grounding: Grounding | undefined): Impedance 
 }
 
 /**
- * The source's zero-sequence impedance in ohms at its bus, neutral grounding (`3·Zn`) included;
- * `undefined` for an ungrounded source. With a line-to-ground level given, `|2·Z1 + Z0| = √3·V / I_LG`
- * and Z0 is taken at Z1's angle (common practice); else `Z0 = R0/R1 · R1 + j · X0/X1 · X1`, both ratios 1
- * by default: a solidly grounded source with Z0 = Z1 (common practice for a utility with no data).
+ * The source's zero-sequence impedance in ohms at its bus, neutral grounding included; `undefined` for
+ * an ungrounded source. With a line-to-ground level given, `|2·Z1 + Z0| = √3·V / I_LG` and Z0 is taken
+ * at Z1's angle (common practice); that level is the current available at the bus, so it already holds
+ * the neutral grounding and `3·Zn` is not added again. `kept`, the Z0 another condition's level fixed
+ * (the maximum's, for a minimum without zero-sequence data), is taken as it is, for the same reason.
+ * Else `Z0 = R0/R1 · R1 + j · X0/X1 · X1 + 3·Zn`, both ratios 1 by default: a solidly grounded source
+ * with Z0 = Z1 (common practice for a utility with no data).
  *
  * @example sourceZeroSequenceOf({ available: { va: 250e6 }, xr: 12 }, { r: 0.0000511, x: 0.000613 }, 480, { kind: 'solid' })
  */
@@ -58,6 +61,7 @@ export function sourceZeroSequenceOf(
   volts: number,
   grounding: Grounding | undefined,
   path = 'study.source.max',
+  kept?: Impedance,
 ): { z0: Impedance | undefined; steps: WorkStep[] } {
   const zn = neutralImpedanceOf(grounding);
   if (!zn)
@@ -74,7 +78,19 @@ export function sourceZeroSequenceOf(
       ],
     };
   const steps: WorkStep[] = [];
-  let z0: Impedance;
+  if (kept) {
+    steps.push(
+      impedanceStep(
+        `source zero-sequence impedance at ${num(volts)} V, kept from the maximum's line-to-ground level`,
+        'Z0_min = Z0_max',
+        `Z0 = (${formatImpedance(kept)}) Ω`,
+        kept,
+        'Ω',
+        'the zero-sequence path of a utility source does not change with the system behind its grounded transformers (IEEE 399 short-circuit chapter; IEEE 142)',
+      ),
+    );
+    return { z0: kept, steps };
+  }
   if (level?.lineToGround) {
     const amps = level.lineToGround.amps ?? level.lineToGround.va! / (Math.sqrt(3) * volts);
     const loop = (Math.sqrt(3) * volts) / amps;
@@ -85,10 +101,10 @@ export function sourceZeroSequenceOf(
         `${path}.lineToGround`,
         expectedGot('a line-to-ground level at most 1.5 times the three-phase level', `${num(amps)} A`),
       );
-    z0 = m1 === 0 ? { r: 0, x: m0 } : scaleImpedance(z1, m0 / m1);
+    const z0 = m1 === 0 ? { r: 0, x: m0 } : scaleImpedance(z1, m0 / m1);
     steps.push(
       impedanceStep(
-        `source zero-sequence impedance from its line-to-ground level at ${num(volts)} V`,
+        `source zero-sequence impedance from its line-to-ground level at ${num(volts)} V (neutral grounding included)`,
         '|Z0| = √3 · V / I_LG − 2·|Z1|, at the angle of Z1',
         `|Z0| = 1.7320508 × ${num(volts)} V / ${num(amps)} A − 2 × ${num(m1)} Ω`,
         z0,
@@ -96,29 +112,28 @@ export function sourceZeroSequenceOf(
         'symmetrical components, I_LG = 3·V_LN / |Z1 + Z2 + Z0| (IEEE 399 short-circuit chapter); Z0 angle common practice',
       ),
     );
-  } else {
-    const x0x1 = level?.x0x1 ?? 1;
-    const r0r1 = level?.r0r1 ?? level?.x0x1 ?? 1;
-    z0 = { r: z1.r * r0r1, x: z1.x * x0x1 };
-    steps.push(
-      impedanceStep(
-        `source zero-sequence impedance at ${num(volts)} V`,
-        'Z0 = (R0/R1)·R1 + j(X0/X1)·X1',
-        `Z0 = ${num(r0r1)} × ${num(z1.r)} Ω + j${num(x0x1)} × ${num(z1.x)} Ω`,
-        z0,
-        'Ω',
-        level?.x0x1 === undefined && level?.r0r1 === undefined
-          ? 'no zero-sequence data: Z0 = Z1, a solidly grounded source (common practice)'
-          : 'entered ratios',
-      ),
-    );
+    // The available line-to-ground current already flows through the neutral grounding: no 3·Zn on top.
+    return { z0, steps };
   }
-  if (zn.r !== 0 || zn.x !== 0) {
-    const total = addImpedance(z0, scaleImpedance(zn, 3));
-    steps.push(groundingStep('source', z0, zn, total));
-    z0 = total;
-  }
-  return { z0, steps };
+  const x0x1 = level?.x0x1 ?? 1;
+  const r0r1 = level?.r0r1 ?? level?.x0x1 ?? 1;
+  const z0 = { r: z1.r * r0r1, x: z1.x * x0x1 };
+  steps.push(
+    impedanceStep(
+      `source zero-sequence impedance at ${num(volts)} V`,
+      'Z0 = (R0/R1)·R1 + j(X0/X1)·X1',
+      `Z0 = ${num(r0r1)} × ${num(z1.r)} Ω + j${num(x0x1)} × ${num(z1.x)} Ω`,
+      z0,
+      'Ω',
+      level?.x0x1 === undefined && level?.r0r1 === undefined
+        ? 'no zero-sequence data: Z0 = Z1, a solidly grounded source (common practice)'
+        : 'entered ratios',
+    ),
+  );
+  if (zn.r === 0 && zn.x === 0) return { z0, steps };
+  const total = addImpedance(z0, scaleImpedance(zn, 3));
+  steps.push(groundingStep('source', z0, zn, total));
+  return { z0: total, steps };
 }
 
 /** The work step adding `3·Zn` to a zero-sequence impedance. */
@@ -184,7 +199,7 @@ export interface ZeroSequenceNetwork {
 /**
  * The zero-sequence Thevenin impedance at every three-phase bus (symmetrical components, IEEE 399
  * short-circuit chapter; transformer zero-sequence connections per IEEE C57.12.00 / IEEE 142 practice):
- * the source's Z0 (with 3·Zn) at its bus; a cable adds its Z0; a Δ–Yg transformer starts a new path
+ * the source's Z0 (`sourceZeroSequenceOf`, or `keptSourceZ0` where given) at its bus; a cable adds its Z0; a Δ–Yg transformer starts a new path
  * at its secondary, `Z0_T + 3·Zn` (the delta traps zero sequence, so nothing upstream is seen); a
  * Yg–Yg transformer passes the primary network through, `Z0_up·(V_s/V_p)² + Z0_T + 3·Zn`; Δ–Δ and Y–Δ
  * secondaries have none. Transformers take `Z0_T = Z1_T` (common practice for three-legged core and
@@ -198,6 +213,7 @@ export function zeroSequenceOf(
   tree: FaultTree,
   level: SourceLevel | undefined,
   levelPath = 'study.source.max',
+  keptSourceZ0?: Impedance,
 ): ZeroSequenceNetwork {
   const study: Study = network.study;
   const volts = (busId: string) => network.buses.get(busId)!.voltage;
@@ -210,6 +226,7 @@ export function zeroSequenceOf(
     volts(root),
     sourceGrounding,
     levelPath,
+    keptSourceZ0,
   );
   steps.set(study.source.id, { steps: source.steps });
   const atBus = new Map<string, Impedance | undefined>([[root, source.z0]]);

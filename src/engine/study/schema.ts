@@ -49,7 +49,8 @@ export function createStudySchema(frequency = 60) {
         'published ratios stay below about 10',
       ).optional(),
       lineToGround: availableFaultField.optional().meta({
-        description: 'available line-to-ground fault at the source bus ("10 kA"); sets Z0 instead of x0x1/r0r1',
+        description:
+          'available line-to-ground fault at the source bus ("10 kA"), its neutral grounding included; sets Z0 instead of x0x1/r0r1',
       }),
     })
     .strict();

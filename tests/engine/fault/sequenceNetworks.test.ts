@@ -1,9 +1,10 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { faultLevelsOf } from '../../../src/engine/fault/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
-import { abs, add, baseAmps3, baseOhms, polar, scale, type C } from './perUnit.ts';
+import { abs, add, baseAmps3, baseOhms, div, par, polar, scale, type C } from './perUnit.ts';
 import { deltaWyeInput, singlePhaseInput } from './sequenceReference.ts';
 
 // Reference solutions worked by hand in per unit on the transformer's base (IEEE 141 / IEEE 399 per-unit
@@ -72,6 +73,20 @@ describe('sequence-network reference: 1500 kVA Δ–Yg 12.47 kV–480 V, 250 MVA
     );
   });
 
+  it('a source line-to-ground level through a 6 Ω neutral resistor at 4.16 kV (400 A) comes back as 400 A at the source bus', () => {
+    const input = deltaWyeInput();
+    input.buses![0].voltage = '4.16 kV';
+    input.transformers![0].primary = '4.16 kV';
+    input.source = {
+      kind: 'utility',
+      id: 'U',
+      bus: 'MV',
+      max: { available: '12 kA', xr: 10, lineToGround: '400 A' },
+      grounding: { kind: 'resistance', ohms: 6 },
+    };
+    assertInDelta(levelsOf(input).buses.get('MV')!.max.lineToGround, 400, TOL);
+  });
+
   it('Yg–Yg passes the source zero sequence through: X0/X1 = R0/R1 = 3 at the source', () => {
     const input = deltaWyeInput();
     input.transformers![0].connection = 'wye-wye';
@@ -94,6 +109,97 @@ describe('sequence-network reference: 1500 kVA Δ–Yg 12.47 kV–480 V, 250 MVA
     const z1min = add(zsMin, zt);
     const lv = levelsOf(input).buses.get('LV')!;
     assertInDelta(lv.min.lineToGround, (3 * ib) / abs(add(z1min, z1min, scale(zsMin, 3), zt)), TOL);
+  });
+
+  it('a minimum source without an X/R takes the maximum’s: 100 MVA under 250 MVA X/R 12 is X/R 12 too', () => {
+    const input = deltaWyeInput();
+    input.source = {
+      kind: 'utility',
+      id: 'U',
+      bus: 'MV',
+      max: { available: '250 MVA', xr: 12 },
+      min: { available: '100 MVA' },
+    };
+    const levels = levelsOf(input);
+    assertInDelta(levels.buses.get('MV')!.min.xr, 12, TOL);
+    // At the secondary: 1 / |Z_U,min + Z_T| with Z_U,min = 1.5 / 100 pu at X/R 12, not all reactance.
+    assertInDelta(levels.buses.get('LV')!.min.threePhase, ib / abs(add(polar(S / 100e6, 12), zt)), TOL);
+  });
+
+  it('a minimum source without zero-sequence data keeps the Z0 the maximum’s line-to-ground level fixes, in ohms: 8 kA under 12 kA / 5 kA gives 4390.2 A', () => {
+    // At 12.47 kV, X/R 10: |Z1,max| = 0.599948 Ω, |Z0| = √3 · 12 470 V / 5000 A − 2 × 0.599948 Ω = 3.119845 Ω;
+    // |Z1,min| = 0.899922 Ω, so I_LG,min = √3 · 12 470 V / (2 × 0.899922 + 3.119845) Ω (hand calculation,
+    // symmetrical components, IEEE 399 short-circuit chapter).
+    const input = deltaWyeInput();
+    input.transformers![0].connection = 'wye-wye';
+    input.source = {
+      kind: 'utility',
+      id: 'U',
+      bus: 'MV',
+      max: { available: '12 kA', xr: 10, lineToGround: '5 kA' },
+      min: { available: '8 kA', xr: 10 },
+    };
+    const levels = levelsOf(input);
+    const v = 12470;
+    const z1max = polar(v / (Math.sqrt(3) * 12000), 10);
+    const z1min = polar(v / (Math.sqrt(3) * 8000), 10);
+    const z0 = polar((Math.sqrt(3) * v) / 5000 - 2 * abs(z1max), 10);
+    const mv = levels.buses.get('MV')!;
+    assertInDelta(mv.max.lineToGround, 5000, TOL);
+    assertInDelta(mv.min.lineToGround, (Math.sqrt(3) * v) / abs(add(z1min, z1min, z0)), TOL);
+    assertInDelta(mv.min.lineToGround, 4390.24, 1e-6);
+    // Through the Yg–Yg unit the kept Z0 reaches the panel: every minimum stays below its maximum.
+    for (const bus of levels.buses.values()) expect(bus.min.lineToGround).toBeLessThan(bus.max.lineToGround);
+  });
+
+  it('a minimum line-to-ground fault never exceeds the maximum at the same bus (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 2000, max: 40000, noNaN: true }),
+        fc.double({ min: 0.1, max: 1.45, noNaN: true }),
+        fc.double({ min: 0.05, max: 1, noNaN: true }),
+        fc.double({ min: 1, max: 30, noNaN: true }),
+        (amps, groundShare, weaken, xr) => {
+          const input = deltaWyeInput();
+          input.transformers![0].connection = 'wye-wye';
+          input.source = {
+            kind: 'utility',
+            id: 'U',
+            bus: 'MV',
+            max: { available: `${amps} A`, xr, lineToGround: `${amps * groundShare} A` },
+            min: { available: `${amps * weaken} A` },
+          };
+          const levels = levelsOf(input);
+          return [...levels.buses.values()].every((b) => b.min.lineToGround <= b.max.lineToGround * (1 + 1e-12));
+        },
+      ),
+      { numRuns: 100 },
+    );
+  });
+
+  it('a fault at the panel draws through the transformer only the source side’s share: a motor on the 480 V bus feeds it without passing the transformer', () => {
+    // 451 A FLA at 4 × (common practice), X/R 6, on LV; 200 A FLA on the panel. Current division in the
+    // positive-sequence network (IEEE 399 / IEEE 141: motors are parallel sources at their buses).
+    const input = deltaWyeInput();
+    input.motors = [
+      { id: 'M1', bus: 'LV', fullLoadAmps: 451 },
+      { id: 'M2', bus: 'PNL', fullLoadAmps: 200 },
+    ];
+    const levels = levelsOf(input);
+    const motor = (fla: number) => polar(480 / (Math.sqrt(3) * 4 * fla) / baseOhms(S, 480), 6);
+    const zm1 = motor(451);
+    const toward = add(par(z1, zm1), zc); // M2 is at the fault: it feeds the bus, not the cable
+    const arriving = ib / abs(toward);
+    const throughT = arriving * abs(div(zm1, add(z1, zm1)));
+    const pnl = levels.buses.get('PNL')!;
+    assertInDelta(pnl.max.threePhase, ib / abs(par(toward, motor(200))), TOL);
+    assertInDelta(pnl.reflected.find((r) => r.volts === 12470)!.maxAmps, (throughT * 480) / 12470, TOL);
+    expect(pnl.reflected[0].maxAmps).toBeLessThan((pnl.max.threePhase * 480) / 12470);
+    // At the secondary itself the figure is the transformer's own through-fault; the minimum has no motors.
+    const lv = levels.buses.get('LV')!;
+    assertInDelta(lv.reflected[0].maxAmps, levels.transformers.get('T')!.reflectedToPrimary, TOL);
+    assertInDelta(lv.reflected[0].maxAmps, (ib / abs(z1)) * (480 / 12470), TOL);
+    assertInDelta(pnl.reflected[0].minAmps, (pnl.min.threePhase * 480) / 12470, TOL);
   });
 
   it('a resistance-grounded secondary (1.2 Ω) limits L-G to about the resistor current: I = 3/|2·Z1 + Z_T + 3·R_n|', () => {

@@ -48,6 +48,23 @@ describe('zero-sequence elements', () => {
     assertInDelta(z0!.x / z0!.r, 12, 1e-12);
   });
 
+  it('source: a line-to-ground level is the current available at the bus, grounding included, so 3·Zn is not added again', () => {
+    // 4.16 kV, 6 Ω neutral resistor, 400 A available line to ground: |2·Z1 + Z0| = √3 · 4160 V / 400 A = 18.0133 Ω
+    // (symmetrical components, IEEE 399 short-circuit chapter), not that plus 3 × 6 Ω.
+    const z1 = { r: 0.0199, x: 0.199 };
+    const level = { available: { amps: 12000 }, xr: 10, lineToGround: { amps: 400 } };
+    const { z0, steps } = sourceZeroSequenceOf(level, z1, 4160, { kind: 'resistance', ohms: 6 });
+    const loop = { r: 2 * z1.r + z0!.r, x: 2 * z1.x + z0!.x };
+    assertInDelta(Math.hypot(loop.r, loop.x), (Math.sqrt(3) * 4160) / 400, 1e-12);
+    expect(steps.some((s) => /3·Zn/.test(s.formula))).toBe(false);
+    // Without the level, the resistor is added three times to the source's own Z0 = Z1.
+    const ratios = sourceZeroSequenceOf({ ...level, lineToGround: undefined }, z1, 4160, {
+      kind: 'resistance',
+      ohms: 6,
+    });
+    assertInDelta(ratios.z0!.r, z1.r + 18, 1e-12);
+  });
+
   it('cable: entered R0/X0 per 1000 ft over the length and sets, else the multiple of Z1', () => {
     const cable = parseStudy(deltaWyeInput()).cables[0];
     const z1 = { r: 0.00145, x: 0.0024 };
