@@ -102,14 +102,19 @@ function thermalMagneticEdges(breaker: Extract<Characteristic, { kind: 'thermal-
   const maximum = interpolated(thermal.maximum, rating);
   const edge = (thermalTime: (amps: number) => number, pickup: number, seconds: number) => (amps: number) =>
     fastest([thermalTime(amps), amps >= pickup ? seconds : Infinity], seconds);
+  // Past the minimum table's last point the fast edge takes the magnetic trip, if that is higher.
+  const minimumEnd = thermal.minimum[thermal.minimum.length - 1][0] * rating;
   return {
-    min: edge(minimum, magneticAmps * (1 - magnetic.tolerance / 100), openingTime),
+    min: edge(minimum, Math.min(magneticAmps * (1 - magnetic.tolerance / 100), minimumEnd), openingTime),
     max: edge(maximum, magneticAmps * (1 + magnetic.tolerance / 100), clearingTime),
   };
 }
 
 function fuseEdges(fuse: Extract<Characteristic, { kind: 'fuse' }>): Edges {
-  const melting = interpolated(fuse.minimumMelting);
+  const table = interpolated(fuse.minimumMelting);
+  // Past its last point the melting edge is the half-cycle (0.01 s), unless already below it.
+  const [lastAmps, lastSeconds] = fuse.minimumMelting[fuse.minimumMelting.length - 1];
+  const melting = (amps: number) => (amps > lastAmps ? Math.min(lastSeconds, 0.01) : table(amps));
   const clearing = interpolated(fuse.totalClearing);
   // A fuse never clears before it melts.
   return { min: melting, max: (amps) => Math.max(clearing(amps), melting(amps)) };

@@ -1,4 +1,4 @@
-import type { Band } from '../band.ts';
+import { HALF_CYCLE_SECONDS, type Band } from '../band.ts';
 import { uniqueAscending } from './composite.ts';
 import { exponential } from './exponential.ts';
 import { logarithmsOf } from './logarithms.ts';
@@ -9,8 +9,11 @@ import type { Fuse } from './fuseSchema.ts';
  * The band of a fuse: `minTime` is the minimum-melting curve, `maxTime` the total-clearing curve,
  * each interpolated linearly in log-log space between its points (common practice for digitised curves).
  * - Below a table's first current its edge is `Infinity` (the fuse does not melt / may never clear).
- * - Beyond a table's last current its edge holds the last tabulated time; the curves are not
- *   extrapolated, and `maxAmps` is the last tabulated current of the two tables.
+ * - The curves are not extrapolated past their last points. Beyond its last current the
+ *   total-clearing edge holds its last time (the fuse clears no later: the cautious side for a fuse
+ *   below another device), while past its last current the minimum-melting edge is the half-cycle, or
+ *   its last time if already below that: past its data a fuse is not known to wait, the cautious side
+ *   for a fuse above another device. `maxAmps` is the last tabulated current of the two tables.
  * Breakpoints are every tabulated current.
  *
  * @example fuseBand(fuse).minTime(100) // Infinity below the first minimum-melting point
@@ -20,7 +23,10 @@ export function fuseBand(fuse: Fuse): Band {
   const clearing = tableElement(fuse.totalClearing);
   const diagnostics: string[] = [];
   if (fuse.illustrative) diagnostics.push('illustrative curve, not a product: no selectivity claim may rest on it');
-  const meltingTime = melting.time;
+  const meltingLast = melting.lastAmps;
+  const meltingBeyond = beyondLastMelting(fuse.minimumMelting);
+  const tableMelting = melting.time;
+  const meltingTime = (amps: number) => (amps > meltingLast ? meltingBeyond : tableMelting(amps));
   const clearingTime = clearing.time;
   const meltingTable = melting.shape as TableShape;
   const clearingTable = clearing.shape as TableShape;
@@ -40,7 +46,7 @@ export function fuseBand(fuse: Fuse): Band {
     evaluateInto: (amps, minTimes, maxTimes) => {
       const n = amps.length;
       if ((!minTimes || !maxTimes) && spare.length < n) spare = new Float64Array(n);
-      fuseTimesInto(meltingTable, clearingTable, amps, minTimes ?? spare, maxTimes ?? spare);
+      fuseTimesInto(meltingTable, meltingBeyond, clearingTable, amps, minTimes ?? spare, maxTimes ?? spare);
     },
     breakpoints: Float64Array.from(uniqueAscending([...fuse.minimumMelting, ...fuse.totalClearing].map(([a]) => a))),
     minAmps: melting.pickup,
@@ -50,14 +56,21 @@ export function fuseBand(fuse: Fuse): Band {
   };
 }
 
+/** The minimum-melting edge past the table's last point: its last time, at most the half-cycle. */
+function beyondLastMelting(points: Fuse['minimumMelting']): number {
+  const lastSeconds = points[points.length - 1][1];
+  return lastSeconds < HALF_CYCLE_SECONDS ? lastSeconds : HALF_CYCLE_SECONDS;
+}
+
 /**
  * Both edges of a fuse band at every current in one pass, the arithmetic of `tableElement`'s `time`
  * (see `tableTimesInto`): one logarithm per current for the two tables (taken first, `logarithmsOf`),
- * and a cursor per table (`segmentAt`); total clearing held
- * at or above melting.
+ * and a cursor per table (`segmentAt`); total clearing held at or above melting, and minimum melting
+ * `meltingBeyond` past its last point (see `fuseBand`).
  */
 function fuseTimesInto(
   melting: TableShape,
+  meltingBeyond: number,
   clearing: TableShape,
   amps: Float64Array,
   minTimes: Float64Array,
@@ -106,7 +119,7 @@ function fuseTimesInto(
     let clears = Infinity;
     if (current >= meltingFirst || current >= clearingFirst) {
       const x = logs[i];
-      if (current >= meltingLast) melts = meltingHeld;
+      if (current >= meltingLast) melts = current > meltingLast ? meltingBeyond : meltingHeld;
       else if (current >= meltingFirst) {
         if (!(x >= meltingFrom && x < meltingTo)) {
           km = segmentAt(meltingLogs, lastMelting, km, x);

@@ -7,20 +7,21 @@ import type { ThermalMagnetic } from './thermalMagneticSchema.ts';
  * The band of a thermal-magnetic breaker in amperes: the thermal tables scaled by the rating
  * (log-log interpolated, `Infinity` below each table's first current, held beyond its last), and
  * the magnetic trip, vertical at pickup × (1 ∓ tolerance) down to `openingTime` (fast edge) and
- * `clearingTime` (slow edge). Both edges are floored to those times.
+ * `clearingTime` (slow edge); the fast edge drops there from the minimum table's last point where
+ * that comes first (with a diagnostic). Both edges are floored to those times.
  *
  * @example thermalMagneticBand(breaker).minTime(2000) // 0.00833 s for a 100 A breaker, magnetic 10×
  */
 export function thermalMagneticBand(breaker: ThermalMagnetic): Band {
   const { rating, thermal, magnetic, openingTime, clearingTime } = breaker;
   const magneticAmps = magnetic.pickupAmps ?? (magnetic.pickup ?? 10) * rating;
-  const low = compositeEdge(
-    [
-      tableElement(thermal.minimum, rating),
-      definiteElement(magneticAmps * (1 - magnetic.tolerance / 100), openingTime),
-    ],
-    openingTime,
-  );
+  const minimum = tableElement(thermal.minimum, rating);
+  // Past the minimum table's last point the breaker is not known to wait (the curve is not
+  // extrapolated): where the table stops short of the magnetic trip's lower edge, the fast edge takes
+  // the magnetic opening time from that point, the cautious side for a breaker above another device.
+  const magneticLow = magneticAmps * (1 - magnetic.tolerance / 100);
+  const fastFrom = Math.min(magneticLow, minimum.lastAmps);
+  const low = compositeEdge([minimum, definiteElement(fastFrom, openingTime)], openingTime);
   const high = compositeEdge(
     [
       tableElement(thermal.maximum, rating),
@@ -30,6 +31,11 @@ export function thermalMagneticBand(breaker: ThermalMagnetic): Band {
   );
   const diagnostics: string[] = [];
   if (breaker.illustrative) diagnostics.push('illustrative curve, not a product: no selectivity claim may rest on it');
+  if (fastFrom < magneticLow) {
+    diagnostics.push(
+      `the minimum thermal curve ends at ${Number((minimum.lastAmps / rating).toPrecision(4))}× rating, below the magnetic trip's lower edge at ${Number((magneticLow / rating).toPrecision(4))}×: the band takes the magnetic trip from its last point (digitise the curve up to the magnetic trip)`,
+    );
+  }
   const setting = magnetic.pickupAmps ?? magnetic.pickup ?? 0;
   if (magnetic.range && (setting < magnetic.range[0] || setting > magnetic.range[1])) {
     diagnostics.push(

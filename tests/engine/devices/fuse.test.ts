@@ -65,6 +65,25 @@ describe('fuse', () => {
     expect([...band.breakpoints]).toEqual([200, 400, 1000, 4000]);
   });
 
+  it('fuseBand does not extend a melting curve that ends above the half-cycle: past it the fuse is not known to wait', () => {
+    // Melting digitised only down to 0.1 s at 4000 A: beyond, the fuse may melt in any time up to that,
+    // so the fast edge is taken at the half-cycle (0.01 s, below which curves prove nothing); the clearing
+    // edge holds its last time, which the fuse does not exceed.
+    const short = {
+      ...fuse,
+      minimumMelting: [...fuse.minimumMelting.slice(0, 3), [4000, 0.1]],
+      totalClearing: [...fuse.totalClearing.slice(0, 3), [4000, 0.13]],
+    };
+    const band = fuseBand(fuseSchema.parse(short));
+    expect(band.minTime(4000)).toBe(0.1);
+    expect(band.minTime(4001)).toBe(0.01);
+    expect(band.maxTime(4001)).toBe(0.13);
+    const times = new Float64Array(3);
+    band.evaluateInto!(new Float64Array([3999, 4000, 4001]), times, undefined);
+    expect(times[1]).toBe(0.1);
+    expect(times[2]).toBe(0.01);
+  });
+
   it('fuseBand evaluates any number of currents in any order as its edges do, one call after another', () => {
     const band = fuseBand(fuseSchema.parse(fuse));
     // Short, long (past any scratch a shorter call left), then short again, each shuffled and with odd currents.

@@ -73,12 +73,28 @@ describe('thermalMagnetic', () => {
     const band = thermalMagneticBand(
       thermalMagneticSchema.parse({
         ...breaker,
+        thermal: {
+          minimum: [...breaker.thermal.minimum, [15, 0.6]],
+          maximum: [...breaker.thermal.maximum, [15, 3]],
+        },
         magnetic: { pickupAmps: '1.5 kA', range: [500, 1000], tolerance: 10 },
       }),
     );
     assertInDelta(band.minTime(1350), 0.5 / 60);
-    expect(band.minTime(1349)).toBeGreaterThan(1);
+    expect(band.minTime(1349)).toBeGreaterThan(0.6);
     expect(band.diagnostics.join('\n')).toMatch(/magnetic pickup 1500 is outside its adjustable range 500–1000/);
+  });
+
+  it('thermalMagneticBand does not extend a minimum thermal curve that ends below the magnetic trip', () => {
+    // The table stops at 10 × (1.2 s); the magnetic trip at 15 × ± 20 % starts at 12 ×. Between them the
+    // breaker is not known to wait: the fast edge takes the magnetic opening time (0.5 cycle) from 10 ×.
+    const band = thermalMagneticBand(thermalMagneticSchema.parse({ ...breaker, magnetic: { pickup: 15 } }));
+    assertInDelta(band.minTime(999.999), 1.2, 1e-5);
+    assertInDelta(band.minTime(1000), 0.5 / 60);
+    expect(band.maxTime(1100)).toBe(6);
+    expect(band.diagnostics.join('\n')).toMatch(
+      /minimum thermal curve ends at 10× rating, below the magnetic trip's lower edge at 12×/,
+    );
   });
 
   it('thermalMagneticBand is current limiting from the magnetic slow edge when flagged', () => {
