@@ -2,6 +2,7 @@ import type { Analysis } from '../analysis.ts';
 import { formatAmps, formatVolts } from '../quantity/format.ts';
 import type { Device, Study } from '../study/index.ts';
 import { locationBusOf } from '../network/index.ts';
+import { illustrativeSentence, isIllustrative } from './coordination.ts';
 import { nameOf } from './context.ts';
 import type { Finding } from './finding.ts';
 
@@ -51,6 +52,8 @@ export function codeSelectivityFindings(
     const problems: string[] = [];
     const checked: string[] = [];
     const failing: string[] = [];
+    // The devices whose illustrative curves the verdict would rest on.
+    const illustrative = new Set<string>();
     let referenceVolts = 0;
     for (const scenario of scenarios)
       for (const part of scenario.parts) {
@@ -58,6 +61,10 @@ export function codeSelectivityFindings(
         // The pair with the device just above, and every device above that in series (the supply side).
         const chain = upstreamChain(part, device.id);
         if (chain.length > 0) checked.push(scenario.label);
+        for (const id of [device.id, ...chain.map((pair) => pair.upstream)]) {
+          const each = part.network.devices.get(id)!;
+          if (isIllustrative(each)) illustrative.add(nameOf(each));
+        }
         const here = locationBusOf(part.network, device);
         const largest = part.faults.buses.get(here.id)?.max.largest ?? Infinity;
         for (const pair of chain)
@@ -87,13 +94,14 @@ export function codeSelectivityFindings(
     findings.push({
       id: `code-selectivity:${device.id}`,
       kind: 'code-selectivity',
-      severity: problems.length > 0 ? 'fail' : 'ok',
+      // Shown on illustrative curves only, the requirement is not shown met: a warning, not an ok.
+      severity: problems.length > 0 ? 'fail' : illustrative.size > 0 ? 'warning' : 'ok',
       title: `${nameOf(device)}: NFPA 70 ${article} selective coordination (${system})`,
       subjects: [device.id],
       explanation:
         problems.length > 0
           ? `${nameOf(device)} is part of the ${system}, whose overcurrent devices must be selectively coordinated with every supply-side device ${scope}, in every scenario. Not shown: ${problems.join('; ')}. ${authority}`
-          : `${nameOf(device)} is part of the ${system}; it is selective with every supply-side device ${scope} in every scenario checked (${[...new Set(checked)].join(', ')}). ${authority}`,
+          : `${nameOf(device)} is part of the ${system}; ${illustrative.size > 0 ? 'on its curves ' : ''}it is selective with every supply-side device ${scope} in every scenario checked (${[...new Set(checked)].join(', ')}).${illustrative.size > 0 ? ` ${illustrativeSentence([...illustrative])}` : ''} ${authority}`,
       suggestion:
         problems.length > 0
           ? "Separate the overlapping devices (raise or delay the upstream device, lower the downstream instantaneous), or show selectivity from the manufacturers' tested selectivity tables."

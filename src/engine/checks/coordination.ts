@@ -185,7 +185,14 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
   // One list of subjects for the pair's findings (findings are read-only data), by which their range,
   // worst point and sentences find the pair.
   const subjects = [check.upstream, check.downstream];
-  pairOfSubjects.set(subjects, { check, up, down, voltages });
+  const illustrative = [upstream, downstream].filter(isIllustrative).map(nameOf);
+  pairOfSubjects.set(subjects, {
+    check,
+    up,
+    down,
+    voltages,
+    illustrative: illustrative.length > 0 ? illustrative : NONE,
+  });
   for (const pairCase of check.cases) {
     const faultText = FAULT_TEXT[pairCase.fault];
     for (let index = 0; index < pairCase.intervals.length; index++) {
@@ -218,9 +225,11 @@ function findingsOf(check: PairCheck, upstream: Device, downstream: Device, volt
       {
         id: ['coordination:', check.upstream, '/', check.downstream].join(''),
         kind: 'coordination',
-        severity: 'ok',
+        // A selective pair on an illustrative curve is told, not claimed (a curve of invented data says
+        // nothing of a product): an info, not an ok.
+        severity: illustrative.length > 0 ? 'info' : 'ok',
         status: 'selective',
-        title: [up, ' over ', down, ': selective'].join(''),
+        title: [up, ' over ', down, ': selective', illustrative.length > 0 ? ' on illustrative curves' : ''].join(''),
         subjects,
       },
       SELECTIVE_FIELDS,
@@ -240,6 +249,16 @@ interface PairSentenceFacts {
   up: string;
   down: string;
   voltages: number[];
+  /** The names of the pair's devices whose curves are illustrative (invented data). */
+  illustrative: readonly string[];
+}
+
+const NONE: readonly string[] = [];
+
+/** Whether a device's curve is marked illustrative: invented data, on which no selectivity claim may rest. */
+export function isIllustrative(device: Device): boolean {
+  const { characteristic } = device;
+  return (characteristic.kind === 'fuse' || characteristic.kind === 'thermal-magnetic') && characteristic.illustrative;
 }
 
 /**
@@ -307,9 +326,15 @@ function leastWorstOf(finding: Finding): WorstPoint {
 
 /** The explanation of a selective pair's one finding: the least separation, at its worst point. */
 function selectiveExplanationOf(finding: Finding): string {
-  const { check, up, down } = pairOfSubjects.get(finding.subjects)!;
+  const { check, up, down, illustrative } = pairOfSubjects.get(finding.subjects)!;
   const { marginSeconds, amps } = finding.worst!;
-  return `${capitalise(describeRange(finding.range!))} ${up} always waits for ${down}: the least separation is ${marginText(marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(amps, 3)}.`;
+  const waits = `${capitalise(describeRange(finding.range!))} ${up} always waits for ${down}: the least separation is ${marginText(marginSeconds)} beyond the required ${check.rule.margin} s, at ${formatAmps(amps, 3)}.`;
+  return illustrative.length === 0 ? waits : `${waits} ${illustrativeSentence(illustrative)}`;
+}
+
+/** Why a result on illustrative curves is no claim, naming the devices. */
+export function illustrativeSentence(names: readonly string[]): string {
+  return `The curve${names.length > 1 ? 's' : ''} of ${names.join(' and ')} ${names.length > 1 ? 'are' : 'is'} illustrative (invented data, not a product), so this is no claim of selectivity: digitise the manufacturer's published curves to make one.`;
 }
 
 /** What every coordination finding makes when first read, shared by them all (`sharedBuilders`). */

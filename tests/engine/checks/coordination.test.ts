@@ -84,6 +84,42 @@ describe('checkPair', () => {
   });
 });
 
+describe('checkPair on an illustrative curve', () => {
+  it('tells a selective pair on an invented curve as an info, not an ok, and says why', () => {
+    // An illustrative thermal-magnetic breaker (invented data) below the relay delayed 5 s: the curves
+    // are apart, but a curve of no product proves nothing of one.
+    const study = pairStudy({ relayDelay: 5 });
+    study.devices![1].characteristic = {
+      kind: 'thermal-magnetic',
+      illustrative: true,
+      rating: 100,
+      thermal: {
+        minimum: [
+          [1.05, 3600],
+          [10, 1],
+        ],
+        maximum: [
+          [1.35, 3600],
+          [10, 3],
+        ],
+      },
+      magnetic: { pickup: 10 },
+    };
+    const [finding] = analyseStudy(parseStudy(study)).findings.filter((f) => f.kind === 'coordination');
+    expect([finding.severity, finding.status, finding.title]).toEqual([
+      'info',
+      'selective',
+      'UP over DOWN: selective on illustrative curves',
+    ]);
+    expect(finding.explanation).toMatch(
+      /The curve of DOWN is illustrative \(invented data, not a product\), so this is no claim of selectivity/,
+    );
+    study.devices![1].characteristic = { ...study.devices![1].characteristic, illustrative: false };
+    const [claimed] = analyseStudy(parseStudy(study)).findings.filter((f) => f.kind === 'coordination');
+    expect([claimed.severity, claimed.title]).toEqual(['ok', 'UP over DOWN: selective']);
+  });
+});
+
 describe('checkPair at an infinite bus', () => {
   it('checks a finite range and finds the same edges', () => {
     const study = { ...pairStudy(), source: { kind: 'infinite' as const, id: 'U', bus: 'A' } };

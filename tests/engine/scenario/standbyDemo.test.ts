@@ -18,8 +18,12 @@ describe('the standby demos (invented site)', () => {
     const analysis = demo('harrowmere-standby');
     expect(analysis.counts.fail).toBe(0);
     const code = analysis.findings.filter((f) => f.kind === 'code-selectivity');
-    // The generator breaker has no supply-side device: nothing to be selective with.
-    expect(code.map((f) => `${f.subjects[0]} ${f.severity}`)).toEqual(['FDR-EM ok', 'EM-BR ok']);
+    // The generator breaker has no supply-side device: nothing to be selective with. The branch
+    // breaker's curve is illustrative: selective on its curves, which shows nothing of a product.
+    expect(code.map((f) => `${f.subjects[0]} ${f.severity}`)).toEqual(['FDR-EM ok', 'EM-BR warning']);
+    expect(code[1].explanation).toMatch(
+      /on its curves it is selective .* is illustrative \(invented data, not a product\)/,
+    );
     expect(code.find((f) => f.subjects[0] === 'EM-BR')!.scenarios).toEqual([
       'Normal',
       'On generator',
