@@ -43,14 +43,24 @@ export function defaultMarginRule(up: Family, down: Family, fuseRatio = 0.75): M
       basis: `downstream total clearing ≤ ${fuseRatio * 100} % of upstream minimum melting (common practice)`,
     };
   }
+  // A fuse's minimum-melting curve is drawn at 25 °C with no load; a loaded fuse melts sooner. Above a
+  // relay or a breaker its melting time is taken at the same fraction as for a fuse below it.
+  const preload = `upstream minimum melting taken at ${fuseRatio * 100} % for preloading (common practice)`;
   if (up === 'fuse' && down === 'relay') {
     return {
       margin: 0.1,
-      timeRatio: 1,
-      basis: '0.1 s fuse minimum melting over relay plus breaker time (common practice)',
+      timeRatio: fuseRatio,
+      basis: `0.1 s fuse minimum melting over relay plus breaker time, ${preload}`,
     };
   }
-  if ((LV_BREAKER.has(up) || up === 'fuse') && (LV_BREAKER.has(down) || down === 'fuse')) {
+  if (up === 'fuse' && LV_BREAKER.has(down)) {
+    return {
+      margin: 0,
+      timeRatio: fuseRatio,
+      basis: `no overlap of the bands, the breaker's including tolerance and clearing time; ${preload}`,
+    };
+  }
+  if (LV_BREAKER.has(up) && (LV_BREAKER.has(down) || down === 'fuse')) {
     return {
       margin: 0,
       timeRatio: 1,

@@ -458,7 +458,8 @@ export function createStudySchema(frequency = 60) {
         .default([])
         .meta({ description: 'required margin for one series pair, overriding every other rule' }),
       fuseRatio: z.number().positive().max(1).default(0.75).meta({
-        description: 'fuse/fuse: downstream total clearing must stay below this fraction of upstream minimum melting',
+        description:
+          'the fraction of an upstream fuse minimum melting the downstream device must clear within (preloading): fuse/fuse, and fuse over a relay or LV breaker',
       }),
       codeSelectivity: z.enum(['full-range', 'above-0.1-s']).default('full-range').meta({
         description:

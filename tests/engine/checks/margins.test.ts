@@ -28,6 +28,14 @@ describe('marginRuleOf', () => {
     expect(defaultMarginRule('fuse', 'fuse')).toMatchObject({ margin: 0, timeRatio: 0.75 });
   });
 
+  it('takes a fuse above a relay or an LV breaker at the same fraction of its minimum melting, for preloading (common practice)', () => {
+    // A fuse's minimum-melting curve is drawn at 25 °C and no load; a loaded fuse melts sooner.
+    expect(defaultMarginRule('fuse', 'relay')).toMatchObject({ margin: 0.1, timeRatio: 0.75 });
+    expect(defaultMarginRule('fuse', 'trip-unit')).toMatchObject({ margin: 0, timeRatio: 0.75 });
+    expect(defaultMarginRule('fuse', 'thermal-magnetic', 0.9)).toMatchObject({ margin: 0, timeRatio: 0.9 });
+    expect(defaultMarginRule('fuse', 'trip-unit').basis).toMatch(/75 % for preloading/);
+  });
+
   it('asks LV breaker bands only not to overlap, since each includes tolerance and clearing (common practice)', () => {
     expect(defaultMarginRule('trip-unit', 'thermal-magnetic')).toMatchObject({ margin: 0, timeRatio: 1 });
     expect(defaultMarginRule('thermal-magnetic', 'fuse')).toMatchObject({ margin: 0, timeRatio: 1 });
