@@ -48,6 +48,13 @@ export function relayBand(relay: Relay): Band {
   if (multiplier !== undefined && (multiplier < 0.025 || multiplier > 1.2)) {
     diagnostics.push(`time multiplier ${multiplier} is outside the usual 0.025–1.2 (common practice)`);
   }
+  // IEC 60255-151 bounds the dependent-time range at G_D, above which a relay holds its time; without
+  // it the curve keeps falling to the operating-time floor, which flatters the relay below another.
+  if (timeOvercurrent?.curve.startsWith('iec') && timeOvercurrent.definiteTimeFrom === undefined) {
+    diagnostics.push(
+      'no definite-time threshold G_D (definiteTimeFrom) given for the IEC curve: it keeps falling at high multiples; set the one in the relay manual (often 20 × pickup, from memory)',
+    );
+  }
   if (timeOvercurrent && instantaneous && instantaneous.pickup <= timeOvercurrent.pickup) {
     diagnostics.push('instantaneous pickup is at or below the time-overcurrent pickup: the inverse curve never acts');
   }

@@ -108,6 +108,8 @@ describe('relay', () => {
     expect(band.breakpoints.length).toBe(2);
     assertInDelta(band.breakpoints[1], knee, 1e-9);
     assertInDelta(band.minTime(knee * 2), 1 / 60);
+    // IEC 60255-151 ends the dependent-time range at G_D: without it given, the note says so.
+    expect(band.diagnostics.join('\n')).toMatch(/no definite-time threshold G_D \(definiteTimeFrom\)/);
   });
 
   it('relayBand of a definite-time element is vertical at pickup then flat', () => {
