@@ -75,11 +75,15 @@ export function codeSelectivityFindings(
             for (const interval of fault.intervals) {
               if (interval.status === 'selective' || interval.status === 'thin margin') continue;
               if (interval.fromAmps > limit * (1 + 1e-9)) continue;
-              const lowest = part.bands.get(device.id)?.maxTime(interval.fromAmps) ?? Infinity;
+              // The marked device's clearing time at the lowest current of the interval, that current
+              // taken at the marked device's own voltage (the pair may sit across a transformer).
+              const atDevice = (interval.fromAmps * fault.referenceVolts) / here.voltage;
+              const lowest = part.bands.get(device.id)?.maxTime(atDevice) ?? Infinity;
               if (option === 'above-0.1-s' && lowest <= AHJ_SELECTIVITY_SECONDS) continue;
               failing.push(scenario.label);
+              const below = pair.downstream === device.id ? '' : ` (on the supply side of ${nameOf(device)})`;
               problems.push(
-                `${scenario.label}: ${pair.upstreamName} and ${nameOf(device)} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
+                `${scenario.label}: ${pair.upstreamName} and ${pair.downstreamName}${below} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(Math.min(interval.toAmps, limit), 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
               );
             }
           }
@@ -117,14 +121,15 @@ export function codeSelectivityFindings(
 
 // Accepts an analysed tree and a device; its pairs with each device above it, nearest first.
 function upstreamChain(part: Analysis, deviceId: string) {
-  const pairs: (Analysis['pairs'][number] & { upstreamName: string })[] = [];
+  const pairs: (Analysis['pairs'][number] & { upstreamName: string; downstreamName: string })[] = [];
   let down = deviceId;
   for (;;) {
     const pair = part.pairs.find((p) => p.downstream === down);
     if (!pair) return pairs;
     const upstream = part.network.devices.get(pair.upstream)!;
     // `Object.assign`, not a spread followed by a new field (which gives each object a hidden class of its own in V8).
-    pairs.push(Object.assign({}, pair, { upstreamName: nameOf(upstream) }));
+    const downstreamName = nameOf(part.network.devices.get(pair.downstream)!);
+    pairs.push(Object.assign({}, pair, { upstreamName: nameOf(upstream), downstreamName }));
     down = pair.upstream;
   }
 }

@@ -1,0 +1,70 @@
+import { describe, expect, it } from 'vitest';
+import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
+import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+
+const tripUnit = (sensor: number, shortOrInstantaneous: Record<string, unknown>) => ({
+  kind: 'trip-unit',
+  sensor,
+  longTime: { pickup: 1, delay: 10 },
+  ...shortOrInstantaneous,
+});
+
+/**
+ * A 480 V service: breaker A (instantaneous at 4 × 2000 A) feeds breaker B (short-time 0.5 s), which feeds
+ * a 1000 kVA 480–4160 V unit; relay C at 4160 V, on the emergency system, feeds a cable. A over B
+ * overlaps from 7.2 kA (A's instantaneous less 10 %). Invented settings.
+ */
+function stepUpStudy(codeSelectivity?: 'above-0.1-s'): StudyInput {
+  return {
+    discern: 1,
+    name: 'step-up emergency feeder',
+    ...(codeSelectivity ? { coordination: { codeSelectivity } } : {}),
+    source: { kind: 'utility', id: 'U', bus: 'LV0', max: { available: '30 kA' } },
+    buses: [
+      { id: 'LV0', voltage: 480 },
+      { id: 'LV', voltage: 480 },
+      { id: 'MV', voltage: 4160 },
+      { id: 'LOAD', voltage: 4160 },
+    ],
+    cables: [
+      { id: 'C1', from: 'LV0', to: 'LV', size: '500 kcmil', length: 20 },
+      { id: 'C2', from: 'MV', to: 'LOAD', size: '2 AWG', length: 100 },
+    ],
+    transformers: [
+      { id: 'T', from: 'LV', to: 'MV', rating: '1000 kVA', primary: 480, secondary: 4160, impedance: '5.75 %' },
+    ],
+    devices: [
+      { id: 'A', feeds: 'C1', characteristic: tripUnit(2000, { instantaneous: { pickup: 4 } }) },
+      { id: 'B', feeds: 'T', characteristic: tripUnit(1600, { shortTime: { pickup: 4, delay: 0.5 } }) },
+      {
+        id: 'C',
+        feeds: 'C2',
+        system: 'emergency',
+        characteristic: {
+          kind: 'relay',
+          ct: '100:5',
+          timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 4, timeDial: 0.3 },
+          instantaneous: { pickup: 60 },
+        },
+      },
+    ],
+  };
+}
+
+describe('NFPA 70 700.32 selective coordination', () => {
+  it('names the pair that overlaps on the supply side of the marked device, up to the currents its zone drives', () => {
+    const code = analyseScenarios(parseStudy(stepUpStudy())).findings.find((f) => f.kind === 'code-selectivity')!;
+    expect(code.severity).toBe('fail');
+    expect(code.explanation).toMatch(/Normal: A and B \(on the supply side of C\) overlap from 7200 A to /);
+  });
+
+  it('with "above-0.1-s", reads the marked device at its own voltage: C takes over 0.1 s at what 7.2 kA at 480 V is at 4160 V', () => {
+    // 7200 A at 480 V is 831 A at 4160 V, where relay C (IEEE very inverse, 80 A, dial 0.3; IEEE C37.112)
+    // takes 0.3 · (19.61 / (10.38² − 1) + 0.491) = 0.20 s before its breaker: a fault there lasts longer
+    // than 0.1 s, so the overlap counts. Read as 7200 A on C's own base it would clear within 0.1 s.
+    const code = analyseScenarios(parseStudy(stepUpStudy('above-0.1-s'))).findings.find(
+      (f) => f.kind === 'code-selectivity',
+    )!;
+    expect(code.severity).toBe('fail');
+  });
+});
