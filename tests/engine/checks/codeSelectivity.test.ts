@@ -3,7 +3,7 @@ import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 
 const tripUnit = (sensor: number, shortOrInstantaneous: Record<string, unknown>) => ({
-  kind: 'trip-unit',
+  kind: 'trip-unit' as const,
   sensor,
   longTime: { pickup: 1, delay: 10 },
   ...shortOrInstantaneous,
