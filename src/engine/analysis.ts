@@ -6,6 +6,7 @@ import { cableFindings } from './checks/cableProtection.ts';
 import { protectingDevice, type CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
 import { decrementFindings } from './checks/decrementCoordination.ts';
+import { generatorDevicesOf, generatorFindings } from './checks/generatorProtection.ts';
 import { expectedGot, InputError } from './errors.ts';
 import type { Finding, Severity } from './checks/finding.ts';
 import { busRatingFindings, interruptingFindings } from './checks/interruptingDuty.ts';
@@ -29,9 +30,10 @@ export interface Analysis {
   /** Every series pair, with its classified current intervals. */
   pairs: PairCheck[];
   /**
-   * Findings in the order: pairs (top down), transformers, code limits, cables (short circuit, then
-   * ampacity), motors, loads carried, interrupting duty, equipment short-circuit ratings, sensitivity,
-   * settings.
+   * Findings in the order: pairs (top down), the pairs on a generator's decaying current, the generator
+   * against its damage curve, transformers, code limits, cables (short circuit, then ampacity), motors,
+   * loads carried, interrupting duty, equipment short-circuit ratings, sensitivity, settings (the two
+   * generator checks only in a tree whose source is a generator).
    */
   findings: Finding[];
   /** How many findings of each severity. */
@@ -44,10 +46,11 @@ export interface Analysis {
  * Runs every check on a radial study that `readStudy` accepted, every bus fed by its source (a study
  * that can be switched, with a bus fed only in some scenarios, goes through `analyseScenarios`): fault
  * levels at every bus, each device's band, every series pair (DEVELOPERS.md, bands and overlaps),
- * transformer through-fault and inrush protection, NEC 450.3 limits, cable short-circuit and overload
- * protection (ICEA P-32-382, NEC 240.4), motor starting, each pickup against the load it feeds,
- * interrupting duty and equipment short-circuit ratings (NFPA 70 110.9, 110.10) and sensitivity to the
- * minimum fault in each zone. Pure: the result depends only on `study`; a `memo` kept from the
+ * on a generator the pairs on its decaying current and its breaker against its damage curve (NFPA 70
+ * 445.12(A), IEEE C50.13), transformer through-fault and inrush protection, NEC 450.3 limits, cable
+ * short-circuit and overload protection (ICEA P-32-382, NEC 240.4), motor starting, each pickup against
+ * the load it feeds, interrupting duty and equipment short-circuit ratings (NFPA 70 110.9, 110.10) and
+ * sensitivity to the minimum fault in each zone. Pure: the result depends only on `study`; a `memo` kept from the
  * analysis before an edit (see `AnalysisMemo`) only saves the work of what the edit did not change.
  *
  * @example const { findings } = analyseStudy(parseStudy(text))
@@ -87,6 +90,16 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
   const remembered = (key: string, inputs: unknown[], check: () => Finding[]) =>
     memo ? memo.findings(key, [faults, ...inputs], check) : check();
   const { horizon, edition, sensitivity } = study.coordination;
+  const { source } = study;
+  if (source.kind === 'generator') {
+    // The check reads the bands of the devices nearest the generator, whichever they are.
+    const nearest = generatorDevicesOf(network);
+    findings.push(
+      ...remembered(`generator:${source.id}`, [source, horizon, ...nearest], () =>
+        generatorFindings(context, source, horizon),
+      ),
+    );
+  }
   for (const transformer of study.transformers) {
     const primary = protectingDevice(context, transformer.id);
     findings.push(

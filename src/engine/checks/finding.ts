@@ -15,6 +15,7 @@ export type FindingKind =
   | 'sensitivity'
   | 'code-selectivity'
   | 'generator-decrement'
+  | 'generator-withstand'
   | 'setting';
 
 /** How bad: `ok` passes, `info` is advice, `warning` a thin margin or an unprovable region, `fail` an overlap or a protection failure. */

@@ -3,6 +3,7 @@ export type { PairCheck, PairCase, PairFault } from './coordination.ts';
 export { transformerFindings } from './transformerProtection.ts';
 export { nec450Findings } from './nec450.ts';
 export { cableFindings } from './cableProtection.ts';
+export { generatorFindings, generatorDevicesOf } from './generatorProtection.ts';
 export { cableAmpacityFindings } from './cableAmpacity.ts';
 export { motorFindings } from './motorStarting.ts';
 export { loadFindings } from './loadCarrying.ts';

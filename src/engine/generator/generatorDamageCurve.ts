@@ -39,9 +39,11 @@ export interface GeneratorDamageCurveOptions {
 
 /**
  * A generator's armature short-time thermal capability as a withstand curve:
- * `I = I_r · √(1 + 37.5 / t)` from 120 s (1.146 × rated) to 10 s (2.179 × rated), or the user's damage points.
- * Like the other withstand curves, `timeAt` is `Infinity` below the lowest current and holds the last point's
- * time beyond the highest (the curve says nothing shorter than 10 s).
+ * `I = I_r · √(1 + 37.5 / t)`, drawn from 120 s (1.146 × rated) to 10 s (2.179 × rated), or the user's damage
+ * points. `timeAt` is `Infinity` below the lowest current. Beyond the highest it does not hold the last
+ * time, as the transformer and cable curves do, since a generator's fault current runs well past 2.18 × rated:
+ * the armature curve goes on by its own formula (1.56 s at 5 × rated), and given points go on at constant
+ * I²t from the last one (adiabatic heating, common practice), each shorter than a held time would be.
  *
  * @example generatorDamageCurve(g500kVA).timeAt(1.5 * 601.4065) // 30 s
  */
@@ -76,12 +78,11 @@ export function generatorDamageCurve(
     seconds,
     timeAt(current) {
       if (!(current >= lowestAmps)) return Infinity;
-      if (current >= highestAmps) return shortest;
       const perUnit = current / ratedAmps;
       return Math.min(longest, c / (perUnit * perUnit - 1));
     },
     notes: [
-      '(I² − 1)·t = 37.5, I in per unit of rated current, 10 s ≤ t ≤ 120 s (IEEE C50.13 armature short-time thermal capability, from memory)',
+      '(I² − 1)·t = 37.5, I in per unit of rated current, stated for 10 s ≤ t ≤ 120 s and read by the same formula at higher currents (IEEE C50.13 armature short-time thermal capability, from memory)',
       'cross-check: 1.5 × rated for 30 s (IEC 60034-1 clause 9.3.2, from memory) lies on the curve',
       `I_r = ${significant(ratedAmps, 6)} A at ${significant(machine.voltage, 6)} V; ` +
         `${significant(lowestAmps, 6)} A at ${longest} s to ${significant(highestAmps, 6)} A at ${shortest} s`,
@@ -121,7 +122,7 @@ function fromPoints(id: string, name: string, volts: number, points: DamagePoint
     seconds,
     timeAt(current) {
       if (!(current >= amps[0])) return Infinity;
-      if (current >= amps[last]) return seconds[last];
+      if (current >= amps[last]) return seconds[last] * (amps[last] / current) ** 2;
       let i = 1;
       while (amps[i] < current) i++;
       // Straight line in log-log between the bracketing points.
@@ -129,7 +130,7 @@ function fromPoints(id: string, name: string, volts: number, points: DamagePoint
       return seconds[i - 1] * (seconds[i] / seconds[i - 1]) ** f;
     },
     notes: [
-      `damage curve through ${sorted.length} given points, straight in log-log between them`,
+      `damage curve through ${sorted.length} given points, straight in log-log between them, constant I²t beyond the last (common practice)`,
       `${significant(amps[0], 6)} A at ${significant(seconds[0], 6)} s to ${significant(amps[last], 6)} A at ${significant(seconds[last], 6)} s, at ${significant(volts, 6)} V`,
     ],
   };

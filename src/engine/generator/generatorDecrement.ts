@@ -38,7 +38,7 @@ export interface GeneratorDecrement {
   ratedAmps: number;
   /** Current at t = 0, E / |Z″| (A): the subtransient current. */
   initialAmps: number;
-  /** Current the decrement settles to (A): E / |Zd|, or the excitation support where that is higher. */
+  /** Current the decrement settles to (A): E / |Zd|, or the excitation support's floor where that is higher. */
   sustainedAmps: number;
   /** True when the excitation support sets `sustainedAmps`. */
   supported: boolean;
@@ -63,10 +63,13 @@ export interface GeneratorDecrement {
  * Behind an external impedance `Ze = Re + jXe` each `1/X` becomes `1/|Re + j(X + Xe)|`, with the time
  * constants unchanged (an approximation, common practice: strictly they shorten toward the open-circuit
  * values as Xe grows). The armature resistance only sets the dc time constant, which this symmetrical
- * (ac) decrement leaves out, so it is neglected here. With excitation support the current never falls below
- * `sustained × I_r` (model: `max(decaying term, floor)`); behind an external impedance the floor is at most
- * the current rated terminal voltage drives through it, `1 / |Ze|` pu (a simplification: the voltage
- * regulator holds the terminals no higher than rated). The manufacturer's decrement curve governs.
+ * (ac) decrement leaves out, so it is neglected here. With excitation support `k` (the sustained multiple at
+ * the terminals) the current never falls below a floor (model: `max(decaying term, floor)`): the field at
+ * ceiling holds an internal voltage of `k · Xd`, which drives `k · Xd / |Re + j(Xd + Xe)|` through the
+ * synchronous reactance and the external impedance, the same sum as the `E/Xd` term (IEEE Std 551-2006,
+ * synchronous generator decrement, from memory); and no more than rated terminal voltage drives through
+ * `Ze`, `1 / |Ze|` (a simplification: the voltage regulator holds the terminals no higher than rated). The
+ * floor is the smaller. The manufacturer's decrement curve governs.
  *
  * @example generatorDecrement(g500kVA, {}).perUnitAt(0) // 1 / 0.12 = 8.3333
  */
@@ -89,12 +92,11 @@ export function generatorDecrement(gen: GeneratorRating, options: GeneratorDecre
   const yTransient = behind(machine.xdTransient);
   const ySynchronous = behind(machine.xd);
   const externalMagnitude = magnitudeOf({ r: re, x: xe });
+  // At the terminals both bounds give k; behind Ze the ceiling voltage k·Xd also drops across Xd.
   const floor =
     machine.sustained === undefined
       ? 0
-      : externalMagnitude === 0
-        ? machine.sustained
-        : Math.min(machine.sustained, 1 / externalMagnitude);
+      : Math.min(machine.sustained * machine.xd * ySynchronous, 1 / externalMagnitude);
 
   const { tdSubtransient, tdTransient } = machine;
   const perUnitAt = (seconds: number): number => {

@@ -3,8 +3,10 @@ import { AHJ_SELECTIVITY_SECONDS, SELECTIVITY_ARTICLE } from '../checks/codeSele
 import { cableAmpacityFindings } from '../checks/cableAmpacity.ts';
 import { ratingOf } from '../checks/deviceRating.ts';
 import { cableFindings } from '../checks/cableProtection.ts';
+import { generatorDevicesOf, generatorFindings } from '../checks/generatorProtection.ts';
 import { nameOf, protectingDevice } from '../checks/context.ts';
 import { checkPair } from '../checks/coordination.ts';
+import { decrementFindings } from '../checks/decrementCoordination.ts';
 import type { Finding } from '../checks/finding.ts';
 import { interruptingDutyOf } from '../checks/interruptingDuty.ts';
 import { marginRuleOf, type MarginRule } from '../checks/margins.ts';
@@ -24,6 +26,7 @@ export type ConstraintKind =
   | 'coordinate-above'
   | 'transformer-withstand'
   | 'cable-withstand'
+  | 'generator-withstand'
   | 'cable-ampacity'
   | 'inrush'
   | 'motor-starting'
@@ -56,7 +59,10 @@ export interface ConstraintResult {
 
 /** One reason a setting is allowed or not, with its source (DEVELOPERS.md, names). */
 export interface Constraint {
-  /** Stable id: 'below:FDR-MCC', 'above:R-T1', 'withstand:T1', 'inrush:T1', 'load', 'sensitivity', … */
+  /**
+   * Stable id: 'below:FDR-MCC', 'above:R-T1', 'decrement-below:FDR-1', 'withstand:T1', 'withstand:G1',
+   * 'inrush:T1', 'load', 'sensitivity', …
+   */
   id: string;
   kind: ConstraintKind;
   /** Plain words: "coordinate with MCC feeder 600 A below (0 s margin)". */
@@ -84,9 +90,10 @@ export interface ConstraintsOptions {
 
 /**
  * Every constraint on one device's settings, the rest of the trial fixed: coordinate with each
- * device below and the one above (the study's margin rules, IEEE 242 practice), clear below the
- * withstand curves of the transformers and cables it protects up to their maximum fault (IEEE
- * C57.109, ICEA P-32-382), ride through transformer inrush and motor starting, carry the load below,
+ * device below and the one above (the study's margin rules, IEEE 242 practice) and, fed by a
+ * generator, also on its decaying current (`decrementFindings`); clear below the withstand curves of
+ * the transformers and cables it protects up to their maximum fault (IEEE C57.109, ICEA P-32-382) and,
+ * nearest a generator, below the generator's damage curve (NFPA 70 445.12(A)); ride through transformer inrush and motor starting, carry the load below,
  * stay within NEC 450.3, operate on the minimum fault at the end of its zone, and (reported only)
  * interrupt the maximum fault where it sits.
  *
@@ -100,6 +107,13 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
     constraints.push(coordination(trial, deviceId, belowId, 'below'));
   const aboveId = trial.aboveOf.get(deviceId);
   if (aboveId && includeAbove) constraints.push(coordination(trial, aboveId, deviceId, 'above'));
+  const source = trial.study.source;
+  if (source.kind === 'generator') {
+    // The full check also holds each pair of a generator's tree to its decaying current.
+    for (const belowId of trial.belowOf.get(deviceId) ?? [])
+      constraints.push(decrement(trial, deviceId, belowId, 'below'));
+    if (aboveId && includeAbove) constraints.push(decrement(trial, aboveId, deviceId, 'above'));
+  }
 
   const protects = trial.protects.get(deviceId) ?? { transformers: [], cables: [], motors: [] };
   const horizon = trial.settings.horizon;
@@ -143,6 +157,23 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
       favours: 'faster',
       subjects: [cable.id],
       evaluate: (t) => withstandResult(cableFindings(t, cable, horizon)),
+    });
+  }
+  if (source.kind === 'generator' && generatorDevicesOf(trial.network).some((d) => d.id === deviceId)) {
+    constraints.push({
+      id: `withstand:${source.id}`,
+      kind: 'generator-withstand',
+      label: `clear below ${source.name ?? source.id}'s damage curve up to ${formatAmps(trial.faults.buses.get(source.bus)!.max.largest, 3)}`,
+      source: 'NFPA 70 445.12(A); IEEE C50.13',
+      favours: 'faster',
+      subjects: [source.id],
+      // The check warns, not fails (NFPA 70 445.12(A) also accepts a machine's inherent protection): a
+      // setting that leaves the armature unprotected is allowed but not clean.
+      evaluate: (t) => {
+        const findings = generatorFindings(t, source, horizon).filter((f) => f.subjects[0] === deviceId);
+        const result = withstandResult(findings);
+        return { ...result, ok: true, clean: findings.every((f) => f.severity === 'ok') };
+      },
     });
   }
   for (const cable of protects.cables) {
@@ -361,6 +392,41 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
             ? `operates where ${nameOf(t.deviceOf(downId))} never clears (${formatAmps(at, 3)})`
             : `${significant(margin, 3)} s at ${formatAmps(at, 3)}`;
       return { ok, clean: ok && clean, margin, unit: 's', text };
+    },
+  };
+}
+
+/**
+ * A pair on a generator's decaying current, as `decrementFindings` checks it (IEEE Std 551 decrement,
+ * IEEE C37.112 integration); `which` as in `coordination`. The rule is read from the trial's settings
+ * at each evaluation, as the check reads the study's.
+ */
+function decrement(trial: Trial, upId: string, downId: string, which: 'below' | 'above'): Constraint {
+  const other = trial.deviceOf(which === 'below' ? downId : upId);
+  return {
+    id: `decrement-${which}:${other.id}`,
+    kind: which === 'below' ? 'coordinate-below' : 'coordinate-above',
+    label: `coordinate with ${nameOf(other)} ${which} on the generator's decaying current`,
+    source: 'generator decrement (IEEE Std 551) with time-varying-current integration (IEEE C37.112)',
+    favours: which === 'below' ? 'slower' : 'faster',
+    subjects: [other.id],
+    evaluate: (t) => {
+      const up = t.deviceOf(upId);
+      const ids = { upstream: upId, downstream: downId };
+      const rule = marginRuleOf(
+        up.characteristic.kind,
+        t.deviceOf(downId).characteristic.kind,
+        t.settings,
+        up.margin,
+        ids,
+      );
+      const [finding] = decrementFindings({ ...t, pairs: [{ ...ids, kind: '', rule, cases: [] }] });
+      const ok = finding.severity !== 'fail';
+      const worst = finding.worst;
+      const text = worst
+        ? `${formatSeconds(worst.marginSeconds)} at ${formatAmps(worst.amps, 3)} on the decaying current`
+        : finding.explanation;
+      return { ok, clean: ok, margin: worst?.marginSeconds ?? -Infinity, unit: 's', text };
     },
   };
 }

@@ -42,11 +42,15 @@ describe('generatorDamageCurve', () => {
       });
     });
 
-    it('is Infinity below its 120 s current and holds 10 s beyond its 10 s current', () => {
+    it('is Infinity below its 120 s current', () => {
       expect(curve.timeAt(1.1 * RATED_AMPS)).toBe(Infinity);
       expect(curve.timeAt(0)).toBe(Infinity);
       expect(curve.timeAt(Number.NaN)).toBe(Infinity);
-      expect(curve.timeAt(10 * RATED_AMPS)).toBe(10);
+    });
+
+    it('goes on by its formula past its 10 s current, not held at 10 s: 37.5 / (5² − 1) = 1.5625 s at 5 × rated', () => {
+      assertInDelta(curve.timeAt(5 * RATED_AMPS), 1.5625, 1e-12);
+      assertInDelta(curve.timeAt(10 * RATED_AMPS), 37.5 / 99, 1e-12);
     });
 
     it('notes say where the curve comes from', () => {
@@ -75,9 +79,9 @@ describe('generatorDamageCurve', () => {
       assertInDelta(curve.timeAt(Math.SQRT2 * 1000), Math.sqrt(100 * 20), 1e-12);
     });
 
-    it('is Infinity below the lowest point and holds the last time beyond the highest', () => {
+    it('is Infinity below the lowest point and goes on at constant I²t beyond the highest (common practice)', () => {
       expect(curve.timeAt(999)).toBe(Infinity);
-      expect(curve.timeAt(60_000)).toBe(2);
+      assertInDelta(curve.timeAt(60_000), 2 * (6000 / 60_000) ** 2, 1e-12); // 0.02 s, not a held 2 s
     });
 
     it('rejects times that do not fall as currents rise, naming the field', () => {

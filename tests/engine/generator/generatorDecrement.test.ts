@@ -63,9 +63,18 @@ describe('generatorDecrement', () => {
       assertInDelta(decrement.perUnitAt(0), 1 / 0.12, 1e-12);
     });
 
+    it('behind Ze the field at ceiling (E = k·Xd = 6 pu) drives 6 / |j(2 + 0.2)| = 2.72727 pu, not k = 3 (IEEE Std 551, from memory)', () => {
+      const behind = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.2 } });
+      assertInDelta(behind.perUnitAt(10), 6 / 2.2, 1e-12); // min(2.72727, 1/0.2 = 5)
+      assertInDelta(behind.sustainedAmps, (6 / 2.2) * RATED_AMPS, 1e-12);
+      // Resistance adds in the magnitude: 6 / |0.16 + j2.12| = 2.82216 pu.
+      const lossy = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0.16, x: 0.12 } });
+      assertInDelta(lossy.perUnitAt(10), 2.82216, 1e-5);
+    });
+
     it('behind an external impedance the floor is at most 1/|Ze| (rated terminal voltage, a simplification)', () => {
       const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.5 } });
-      assertInDelta(far.perUnitAt(10), 2, 1e-12); // min(3, 1/0.5)
+      assertInDelta(far.perUnitAt(10), 2, 1e-12); // min(6 / 2.5 = 2.4, 1/0.5)
     });
   });
 

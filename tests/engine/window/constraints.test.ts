@@ -80,3 +80,117 @@ describe('constraintsOf: interrupting duty', () => {
     expect(result).toMatchObject({ ok: true, text: 'no interrupting rating given' });
   });
 });
+
+/**
+ * An invented 500 kVA, 480 V standby generator (X″d 0.12, X′d 0.2, Xd 2.0 pu, excitation support 3 × rated)
+ * whose breaker GEN-CB (800 A sensor, long-time 0.75 × = 600 A, about rated current, delay 1 s at 6 ×;
+ * short-time 2 × at 0.2 s) feeds a panel whose 100 A feeder FDR has an instantaneous trip at 10 ×.
+ * `genInstantaneous` adds an instantaneous trip to GEN-CB (× sensor). Invented settings.
+ */
+function generatorTree(genInstantaneous?: number, shortTimePickup = 2): StudyInput {
+  return {
+    discern: 1,
+    name: 'standby generator, breaker and feeder',
+    source: {
+      kind: 'generator',
+      id: 'G1',
+      name: 'Standby generator',
+      bus: 'GEN',
+      rating: '500 kVA',
+      voltage: 480,
+      xdSubtransient: 0.12,
+      xdTransient: 0.2,
+      xd: 2,
+      tdSubtransient: 0.015,
+      tdTransient: 0.4,
+      sustained: 3,
+    },
+    buses: [
+      { id: 'GEN', voltage: 480 },
+      { id: 'PNL', voltage: 480 },
+      { id: 'LOAD', voltage: 480 },
+    ],
+    cables: [
+      { id: 'C1', from: 'GEN', to: 'PNL', size: '500 kcmil', length: '50 ft' },
+      { id: 'C2', from: 'PNL', to: 'LOAD', size: '1/0', length: '100 ft' },
+    ],
+    devices: [
+      {
+        id: 'GEN-CB',
+        feeds: 'C1',
+        characteristic: {
+          kind: 'trip-unit',
+          sensor: 800,
+          longTime: { pickup: 0.75, delay: 1 },
+          shortTime: { pickup: shortTimePickup, delay: 0.2 },
+          ...(genInstantaneous ? { instantaneous: { pickup: genInstantaneous } } : {}),
+        },
+      },
+      {
+        id: 'FDR',
+        feeds: 'C2',
+        characteristic: {
+          kind: 'trip-unit',
+          sensor: 100,
+          longTime: { pickup: 1, delay: 4 },
+          instantaneous: { pickup: 10 },
+        },
+      },
+    ],
+  };
+}
+
+describe('constraintsOf: a generator-fed tree', () => {
+  const constraintOf = (input: StudyInput, deviceId: string, id: string) => {
+    const trial = trialOf(parseStudy(input));
+    const constraint = constraintsOf(trial, deviceId).find((c) => c.id === id);
+    return { constraint, result: constraint?.evaluate(trial) };
+  };
+  const severityOf = (input: StudyInput, id: string) =>
+    analyseStudy(parseStudy(input)).findings.find((f) => f.id === id)?.severity;
+
+  it('holds each pair to the decrement check too: slower for the device above, faster for the one below', () => {
+    const above = constraintOf(generatorTree(), 'GEN-CB', 'decrement-below:FDR').constraint!;
+    expect([above.kind, above.favours, above.subjects]).toEqual(['coordinate-below', 'slower', ['FDR']]);
+    expect(above.source).toMatch(/IEEE Std 551.*IEEE C37\.112/);
+    const below = constraintOf(generatorTree(), 'FDR', 'decrement-above:GEN-CB').constraint!;
+    expect([below.kind, below.favours, below.subjects]).toEqual(['coordinate-above', 'faster', ['GEN-CB']]);
+  });
+
+  it('an instantaneous trip at 3 × 800 A on GEN-CB operates within half a cycle on the 4.8 kA falling current, before FDR clears (0.05 s): fails as the check does', () => {
+    const { result } = constraintOf(generatorTree(3), 'GEN-CB', 'decrement-below:FDR');
+    expect(severityOf(generatorTree(3), 'decrement:GEN-CB/FDR')).toBe('fail');
+    expect(result!.ok).toBe(false);
+    expect(result!.margin).toBeLessThan(0);
+  });
+
+  it('with short-time delay 0.2 s alone GEN-CB waits for FDR on the decaying current: holds as the check does', () => {
+    const { result } = constraintOf(generatorTree(), 'GEN-CB', 'decrement-below:FDR');
+    expect(severityOf(generatorTree(), 'decrement:GEN-CB/FDR')).toBe('ok');
+    expect(result!.ok).toBe(true);
+    expect(result!.margin).toBeGreaterThan(0);
+  });
+
+  it('holds the generator breaker below the armature damage curve (NFPA 70 445.12(A)), favouring faster, as the check does', () => {
+    const ok = constraintOf(generatorTree(), 'GEN-CB', 'withstand:G1');
+    expect([ok.constraint!.kind, ok.constraint!.favours]).toEqual(['generator-withstand', 'faster']);
+    expect(severityOf(generatorTree(), 'generator-withstand:G1:GEN-CB')).toBe('ok');
+    expect([ok.result!.ok, ok.result!.clean]).toEqual([true, true]);
+    // Short-time pickup 6 × 600 A: the long-time band alone up to 3.6 kA, past the armature's 37.5 / (I² − 1).
+    // The check warns (the machine's inherent protection may cover it, NFPA 70 445.12(A)): allowed, not clean.
+    const slow = constraintOf(generatorTree(undefined, 6), 'GEN-CB', 'withstand:G1');
+    expect(severityOf(generatorTree(undefined, 6), 'generator-withstand:G1:GEN-CB:0')).toBe('warning');
+    expect([slow.result!.ok, slow.result!.clean]).toEqual([true, false]);
+    expect(slow.result!.margin).toBeLessThan(0);
+  });
+
+  it('gives neither to a device not nearest the generator, nor on a utility-fed tree', () => {
+    expect(constraintOf(generatorTree(), 'FDR', 'withstand:G1').constraint).toBeUndefined();
+    const utility = {
+      ...generatorTree(),
+      source: { kind: 'utility', id: 'U', bus: 'GEN', max: { available: '20 kA' } },
+    };
+    const ids = constraintsOf(trialOf(parseStudy(utility as StudyInput)), 'GEN-CB').map((c) => c.id);
+    expect(ids.filter((id) => id.startsWith('decrement') || id === 'withstand:G1')).toEqual([]);
+  });
+});
