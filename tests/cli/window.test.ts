@@ -1,3 +1,6 @@
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { windowCommand } from '../../src/cli/commands/window.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
@@ -36,6 +39,19 @@ describe('discern window', () => {
     expect(stdout).toMatch(/^No setting keeps every constraint\.$/m);
     expect(stdout).toMatch(/coordinate with Exhaust fan breaker 50 A below/);
     expect(stdout).toMatch(/^What would open a window:$/m);
+  });
+
+  it('exits 0 with a recommendation when the present setting fails but its own row shows a window', async () => {
+    // The full demo with the service relay's time dial turned down to 2: it no longer waits for the main.
+    const full = JSON.parse(readFileSync('demo/harrowmere-full.json', 'utf8'));
+    full.devices.find((d: { id: string }) => d.id === 'R-T1').characteristic.timeOvercurrent.timeDial = 2;
+    const path = join(mkdtempSync(join(tmpdir(), 'discern-window-')), 'fast-relay.json');
+    writeFileSync(path, JSON.stringify(full));
+    const { code, stdout } = await runVerb([path, '--device', 'R-T1'], windowCommand);
+    expect(stdout).toMatch(/^time dial\s+2 \(outside\)\s+4\.\d+–10\.\d+\s/m);
+    expect(stdout).not.toMatch(/No setting keeps every constraint/);
+    expect(stdout).toMatch(/^Recommended:$/m);
+    expect(code).toBe(0);
   });
 
   it('exits 2 with one line naming the flag for an unknown or missing device', async () => {

@@ -75,10 +75,7 @@ export function feasibleMapOf(
   options: FeasibleMapOptions = {},
 ): FeasibleMap {
   const { extraColumns = [], memo, rows } = options;
-  const xs = new Set<number>(xSpec.values ?? logSpaced(xSpec.min, xSpec.max, 41));
-  xs.add(xSpec.current);
-  for (const x of extraColumns) if (x >= xSpec.min && x <= xSpec.max) xs.add(x);
-  const sorted = [...xs].sort((a, b) => a - b);
+  const sorted = mapColumnsOf(xSpec, extraColumns);
   const thresholds = sorted.map(() => new Map<string, Threshold>());
   // One device per cell, shared by every constraint that reads it.
   const columnAt = devicesAlong(base, xSpec.key);
@@ -132,6 +129,19 @@ export function feasibleMapOf(
     columns,
     current: { x: xSpec.current, y: ySpec.current, inside },
   };
+}
+
+/**
+ * The pickups a map has a column at, ascending: every step of a stepped setting, or 41 log-spaced
+ * values of a continuous one; with the present value and `extraColumns` inside the range.
+ *
+ * @example mapColumnsOf(longTimePickup) // [0.4, 0.45, …, 1]
+ */
+export function mapColumnsOf(xSpec: SettingSpec, extraColumns: number[] = []): number[] {
+  const xs = new Set<number>(xSpec.values ?? logSpaced(xSpec.min, xSpec.max, 41));
+  xs.add(xSpec.current);
+  for (const x of extraColumns) if (x >= xSpec.min && x <= xSpec.max) xs.add(x);
+  return [...xs].sort((a, b) => a - b);
 }
 
 /**

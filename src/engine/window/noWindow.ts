@@ -5,7 +5,7 @@ import { recommendationOf, type Attempt } from './recommendation.ts';
 import type { Binding } from './settingInterval.ts';
 import { adjustableSettingsOf, type SettingValue } from './settings.ts';
 import { changesText } from './settingText.ts';
-import { windowIn } from './settingWindow.ts';
+import { overridesOf, windowIn } from './settingWindow.ts';
 import type { Trial } from './trial.ts';
 
 /** A change elsewhere that would open a window, in words a new engineer follows. */
@@ -99,9 +99,11 @@ function remediesFor(
 ): Remedy[] {
   const name = nameOf(device);
   const constraint = constraints.find((c) => c.id === conflict.id);
+  // The same search as the window's own, with the device's own ranges: a remedy opens a window exactly
+  // when the window would then say one exists.
   const opens = () => {
     const fresh = constraintsOf(trial, device.id, { includeAbove });
-    return recommendationOf(trial, device.id, fresh, {}).recommendation !== undefined;
+    return recommendationOf(trial, device.id, fresh, { overrides: overridesOf(device) }).recommendation !== undefined;
   };
   switch (conflict.kind) {
     case 'coordinate-below': {

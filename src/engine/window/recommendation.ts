@@ -3,11 +3,13 @@ import { evaluateAt, type Memo } from './evaluation.ts';
 import type { Device } from '../study/index.ts';
 import { pickupAmpsOf } from '../checks/loadBelow.ts';
 import type { Constraint, ConstraintResult } from './constraints.ts';
-import { bindingOf, rangeBinding, type Binding } from './settingInterval.ts';
+import { mapColumnsOf, type FeasibleMap } from './feasibleMap.ts';
+import { bindingOf, rangeBinding, type Binding, type SettingAxis } from './settingInterval.ts';
 import {
   adjustableSettingsOf,
   devicesAlong,
   deviceWith,
+  mainPairsOf,
   settingValue,
   switchesOf,
   type SettingRangeOverride,
@@ -19,7 +21,7 @@ import type { Trial } from './trial.ts';
 
 /** How the recommendation chooses among the settings that keep every margin (stated with every result). */
 export const TIE_BREAK =
-  'Fastest first: every setting starts at its slowest; then, in the order instantaneous, short-time delay, short-time pickup, long-time delay (or time dial), long-time pickup, ground-fault delay, ground-fault pickup, each is lowered to the lowest step that still waits for every device below and rides through inrush, motor starting and load, keeping a full margin (no thin margin) wherever the slowest setting has one. Continuous relay settings are rounded up to three significant figures. Between on/off choices (instantaneous trip, I²t in/out) the one that clears faster on average over the device’s current range wins; on a tie, the present choice.';
+  'Fastest first: every setting starts at its slowest (and, with the present on/off choices, also at the present setting); then, in the order instantaneous, short-time delay, short-time pickup, long-time delay (or time dial), long-time pickup, ground-fault delay, ground-fault pickup, each is lowered to the lowest step that still waits for every device below and rides through inrush, motor starting and load, keeping a full margin (no thin margin) wherever its start has one; a start that ends with full margins is taken before one that needs a thin margin. When no start ends keeping every constraint, the descent starts again from each setting the window shows keeping every constraint: each on/off state, each setting at the top of its own interval, then each open cell of the pickup × time maps at its lowest time. Continuous relay settings are rounded up to three significant figures. Between on/off choices (instantaneous trip, I²t in/out) the one with the fewest thin margins wins, then the one that clears faster on average over the device’s current range; on a tie, the present choice.';
 
 /** One setting of the recommendation, before and after, with what stopped it going lower. */
 export interface RecommendedSetting {
@@ -72,16 +74,37 @@ export interface Attempt {
 /** Options of `recommendationOf`. */
 export interface RecommendationOptions {
   overrides?: Record<string, SettingRangeOverride>;
-  /** Results already known for this state of the rest of the study. */
+  /** Results already known for this state of the rest of the study. @default a memo of its own */
   memo?: Memo;
+  /** Each setting's window with the others held at the present setting, by key, when already solved. */
+  rows?: Map<string, SettingAxis>;
+  /** The maps of the main pairs through the present setting, when already drawn. */
+  maps?: FeasibleMap[];
+}
+
+/** A setting the search ended at, with what held each setting there. */
+interface Candidate {
+  device: Device;
+  bindings: Map<string, Binding>;
+  clearing: number;
+}
+
+/** A starting point of the descent: a state of every switch and a value of every numeric setting. */
+interface Start {
+  switches: Record<string, boolean>;
+  values: Record<string, number>;
 }
 
 /**
  * Searches a device's settings for the fastest-clearing one that keeps every constraint (`TIE_BREAK`
  * says how), trying each on/off combination. Exact at its ends: with every setting at its slowest,
  * a slower-favoured constraint that still fails cannot be met at all; with every setting as low as
- * the devices below allow, a faster-favoured constraint that fails names a conflict. Leaves the trial
- * as it found it.
+ * the devices below allow, a faster-favoured constraint that fails names a conflict. One descent finds
+ * one trade-off between the constraints below and above, so when none from the slowest or present
+ * setting works, it descends again from every setting the window shows keeping every constraint: each
+ * on/off state with the rest as they are, each setting's interval with the others held, and each open
+ * cell of the maps of the main pairs. No recommendation means none of those exists. Leaves the trial as
+ * it found it.
  *
  * @example recommendationOf(trial, 'MAIN', constraintsOf(trial, 'MAIN')).recommendation?.settings
  */
@@ -91,46 +114,92 @@ export function recommendationOf(
   constraints: Constraint[],
   options: RecommendationOptions = {},
 ): { recommendation?: Recommendation; attempts: Attempt[] } {
+  // Only this device moves during the search, so a memo of its own is valid throughout.
+  const { memo = new Map() } = options;
   const original = trial.deviceOf(deviceId);
   const lowers = constraints.filter((c) => c.favours === 'slower');
   const uppers = constraints.filter((c) => c.favours === 'faster');
   const attempts: Attempt[] = [];
-  let best: { device: Device; clearing: number; bindings: Map<string, Binding> } | undefined;
+  const candidates: Candidate[] = [];
   const range = clearingRangeOf(trial, original);
+  const candidateOf = (device: Device, bindings: Map<string, Binding>): Candidate => ({
+    device,
+    bindings,
+    clearing: clearingOf(trial, device, range),
+  });
+  const isPresent = (switches: Record<string, boolean>) =>
+    switchesOf(original).every((s) => switches[s.key] === s.current);
+  // The combinations where no constraint fails with every setting at its slowest; in the others no
+  // setting can work, as every constraint is monotone in every setting.
+  const open: Record<string, boolean>[] = [];
 
-  const present = switchesOf(original).every((s) => s.current === settingValue(original, s.key));
+  // First, in each on/off combination, the descent from the slowest setting (and in the present
+  // combination from the present setting too), a full margin asked of every start before a thin one.
   for (const switches of combinationsOf(original)) {
     const base = deviceWith(original, switches);
     const specs = adjustableSettingsOf(base, options);
-    const slowest: Record<string, number> = Object.fromEntries(specs.map((spec) => [spec.key, spec.max]));
-    // Descending from the slowest setting finds the fastest one the devices below allow; descending from
-    // the present setting (where it already keeps every constraint) can never end worse than it.
+    const slowest = Object.fromEntries(specs.map((spec) => [spec.key, spec.max]));
     const starts = [slowest];
-    if (present && switchesOf(original).every((s) => switches[s.key] === s.current))
-      starts.push(Object.fromEntries(specs.map((spec) => [spec.key, spec.current])));
-    let failed: Attempt | undefined;
-    let found = false;
-    for (const start of starts) {
-      for (const strict of [true, false]) {
-        const attempt = fastestPoint(trial, base, specs, lowers, uppers, strict, start, options.memo);
-        if (!attempt.ok) {
-          if (start === slowest) failed = { switches, ...attempt };
-          // Blocked at the slowest setting: nothing lower can work. A strict attempt that asked for no
-          // full margin anywhere was already the plain one.
-          if (attempt.blockedAtSlowest.length > 0 || !attempt.askedClean) break;
-          continue;
-        }
-        const clearing = clearingOf(trial, attempt.point!, range);
-        if (!best || clearing < best.clearing - 1e-9)
-          best = { device: attempt.point!, clearing, bindings: attempt.bindings };
-        found = true;
-        break;
-      }
-      // The present setting is a second start only when the descent from the slowest found nothing.
-      if (found || failed?.blockedAtSlowest.length) break;
-    }
-    if (failed && (!best || failed.blockedAtSlowest.length > 0)) attempts.push(failed);
+    if (isPresent(switches)) starts.push(Object.fromEntries(specs.map((spec) => [spec.key, spec.current])));
+    const { found, failed } = descentOf(trial, base, specs, lowers, uppers, starts, memo);
+    if (found) candidates.push(candidateOf(found.point!, found.bindings));
+    if (!failed?.blockedAtSlowest.length) open.push(switches);
+    if (failed && (candidates.length === 0 || failed.blockedAtSlowest.length > 0))
+      attempts.push({ switches, ...failed });
   }
+
+  // Then, when none was found, from every setting the window itself shows keeping every constraint.
+  if (candidates.length === 0 && open.length > 0) {
+    const tried = new Set<string>();
+    const fromStart = (start: Start): Candidate | undefined => {
+      const key = JSON.stringify(start);
+      if (tried.has(key)) return undefined;
+      tried.add(key);
+      const base = deviceWith(original, start.switches);
+      const device = deviceWith(base, start.values);
+      if (!constraints.every((c) => c.favours === 'fixed' || evaluateAt(trial, c, device, memo).ok)) return undefined;
+      const { found } = descentOf(
+        trial,
+        base,
+        adjustableSettingsOf(base, options),
+        lowers,
+        uppers,
+        [start.values],
+        memo,
+      );
+      // A start that keeps every constraint is itself a setting, should a descent from it fail.
+      return found ? candidateOf(found.point!, found.bindings) : candidateOf(device, new Map());
+    };
+    const presentOpen = isPresent(open[0]);
+    for (const start of windowStartsOf(trial, original, lowers, uppers, open, presentOpen, options, memo)) {
+      const found = fromStart(start);
+      if (found) candidates.push(found);
+    }
+    // The cells of the maps last, and only until one works (there may be a hundred).
+    if (candidates.length === 0 && presentOpen)
+      for (const start of mapStartsOf(trial, original, lowers, open[0], options, memo)) {
+        const found = fromStart(start);
+        if (found) {
+          candidates.push(found);
+          break;
+        }
+      }
+  }
+
+  // A full margin first (the fewest thin ones), then the fastest clearing; on a tie the earlier found.
+  const thin = (device: Device) =>
+    candidates.length < 2
+      ? 0
+      : constraints.filter((c) => {
+          if (c.favours === 'fixed') return false;
+          const r = evaluateAt(trial, c, device, memo);
+          return r.ok && !r.clean;
+        }).length;
+  const ranked = candidates.map((c) => ({ ...c, thin: thin(c.device) }));
+  const best = ranked.reduce<(typeof ranked)[number] | undefined>(
+    (a, b) => (!a || b.thin < a.thin || (b.thin === a.thin && b.clearing < a.clearing - 1e-9) ? b : a),
+    undefined,
+  );
 
   let recommendation: Recommendation | undefined;
   if (best) {
@@ -140,7 +209,7 @@ export function recommendationOf(
       label: c.label,
       source: c.source,
       favours: c.favours,
-      result: evaluateAt(trial, c, best!.device, options.memo),
+      result: evaluateAt(trial, c, best.device, memo),
     }));
     const rows: RecommendedSetting[] = [
       ...switchesOf(original).map((s) => ({
@@ -148,15 +217,15 @@ export function recommendationOf(
         label: s.label,
         unit: '',
         from: settingValue(original, s.key),
-        to: settingValue(best!.device, s.key),
+        to: settingValue(best.device, s.key),
       })),
       ...adjustableSettingsOf(original, options).map((spec) => ({
         key: spec.key,
         label: spec.label,
         unit: spec.unit,
         from: spec.current,
-        to: settingValue(best!.device, spec.key),
-        binding: best!.bindings.get(spec.key),
+        to: settingValue(best.device, spec.key),
+        binding: best.bindings.get(spec.key),
       })),
     ];
     recommendation = {
@@ -172,6 +241,161 @@ export function recommendationOf(
   return { recommendation, attempts };
 }
 
+/**
+ * The descents from several starts of one on/off combination: with a full margin asked first (from
+ * every start in turn), then without. The first that ends keeping every constraint is `found`;
+ * `failed` is the last failure from the first start (the slowest, for the no-window explanation).
+ */
+function descentOf(
+  trial: Trial,
+  base: Device,
+  specs: SettingSpec[],
+  lowers: Constraint[],
+  uppers: Constraint[],
+  starts: Record<string, number>[],
+  memo: Memo,
+): { found?: Descent; failed?: Omit<Attempt, 'switches'> } {
+  let failed: Omit<Attempt, 'switches'> | undefined;
+  // Starts whose strict descent already was the plain one (it asked for no full margin) or was blocked.
+  const done = new Set<number>();
+  for (const strict of [true, false]) {
+    for (let i = 0; i < starts.length; i++) {
+      if (done.has(i)) continue;
+      const attempt = fastestPoint(trial, base, specs, lowers, uppers, strict, starts[i], memo);
+      if (attempt.ok) return { found: attempt, failed };
+      if (i === 0) failed = attempt;
+      // Blocked at the slowest setting: nothing lower can work, from any start.
+      if (i === 0 && attempt.blockedAtSlowest.length > 0) return { failed };
+      if (attempt.blockedAtSlowest.length > 0 || !attempt.askedClean) done.add(i);
+    }
+  }
+  return { failed };
+}
+
+/**
+ * Starts the window shows keeping every constraint, with the rest held as it is: the present numeric
+ * settings under each other on/off combination (the switch rows), and each setting at the top of its
+ * own interval (the setting rows), where the constraints below it keep the most margin and the
+ * descent the most room. A start is only offered; the caller checks it holds.
+ */
+function windowStartsOf(
+  trial: Trial,
+  device: Device,
+  lowers: Constraint[],
+  uppers: Constraint[],
+  combinations: Record<string, boolean>[],
+  presentOpen: boolean,
+  options: RecommendationOptions,
+  memo: Memo,
+): Start[] {
+  const specs = adjustableSettingsOf(device, options);
+  const present = Object.fromEntries(specs.map((spec) => [spec.key, spec.current]));
+  const switches = combinations[0];
+  // The present numeric settings under the present switches were a start already.
+  const starts: Start[] = combinations
+    .slice(presentOpen ? 1 : 0)
+    .map((combination) => ({ switches: combination, values: present }));
+  if (!presentOpen) return starts;
+  for (const spec of specs) {
+    const intervals = options.rows?.get(spec.key)?.intervals ?? intervalsOf(trial, device, spec, lowers, uppers, memo);
+    for (const { from, to } of intervals) {
+      const top = spec.values ? to : roundDown(to);
+      starts.push({ switches, values: { ...present, [spec.key]: top >= from ? top : to } });
+    }
+  }
+  trial.place(device);
+  return starts;
+}
+
+/**
+ * One setting's interval with the others held (as `intervalOf` finds it, but with one bisection on all
+ * the slower-favoured constraints at once and one on all the faster-favoured ones): none when the
+ * faster-favoured ones fail where the slower-favoured ones begin to hold.
+ */
+function intervalsOf(
+  trial: Trial,
+  device: Device,
+  spec: SettingSpec,
+  lowers: Constraint[],
+  uppers: Constraint[],
+  memo: Memo,
+): { from: number; to: number }[] {
+  const at = devicesAlong(device, spec.key);
+  const all = (constraints: Constraint[]) => (value: number) =>
+    constraints.every((c) => evaluateAt(trial, c, at(value), memo).ok);
+  const lower = thresholdOf(spec, all(lowers), { favours: 'slower' });
+  if (lower.kind === 'nowhere') return [];
+  const from = lower.kind === 'from' ? lower.value : spec.min;
+  const upper = thresholdOf(spec, all(uppers), { favours: 'faster', lo: from });
+  if (upper.kind === 'nowhere') return [];
+  return [{ from, to: upper.kind === 'upTo' ? upper.value : spec.max }];
+}
+
+/**
+ * Each open cell of the maps of the main pairs (each pickup column, the rest held as it is), at the
+ * lowest time setting that holds there: read from the maps when drawn, else solved column by column.
+ */
+function* mapStartsOf(
+  trial: Trial,
+  device: Device,
+  lowers: Constraint[],
+  switches: Record<string, boolean>,
+  options: RecommendationOptions,
+  memo: Memo,
+): Generator<Start> {
+  const specs = adjustableSettingsOf(device, options);
+  const present = Object.fromEntries(specs.map((spec) => [spec.key, spec.current]));
+  if (options.maps) {
+    for (const map of options.maps)
+      for (const column of map.columns)
+        for (const interval of column.intervals)
+          yield {
+            switches,
+            values: { ...present, [map.x.key]: column.x, [map.y.key]: lowestOf(map.y, interval.from, interval.to) },
+          };
+    return;
+  }
+  // Solved one column at a time, as the search asks: it stops at the first that works.
+  for (const pair of mainPairsOf(device)) {
+    const x = specs.find((spec) => spec.key === pair.x);
+    const y = specs.find((spec) => spec.key === pair.y);
+    if (!x || !y) continue;
+    const edges = options.rows?.get(x.key)?.intervals.flatMap((i) => [i.from, i.to]);
+    for (const column of mapColumnsOf(x, edges)) {
+      const values = { ...present, [x.key]: column };
+      const low = lowestHolding(trial, device, y, values, lowers, memo);
+      if (low !== undefined) yield { switches, values: { ...values, [y.key]: low } };
+    }
+  }
+}
+
+/**
+ * The lowest value of one setting, the others at `values`, at which every slower-favoured constraint
+ * holds (none when there is none): where a column of a map opens, if the faster-favoured constraints
+ * hold there too.
+ */
+function lowestHolding(
+  trial: Trial,
+  device: Device,
+  spec: SettingSpec,
+  values: Record<string, number>,
+  lowers: Constraint[],
+  memo: Memo,
+): number | undefined {
+  const at = devicesAlong(deviceWith(device, values), spec.key);
+  const holds = (value: number) => lowers.every((c) => evaluateAt(trial, c, at(value), memo).ok);
+  const threshold = thresholdOf(spec, holds, { favours: 'slower' });
+  if (threshold.kind === 'nowhere') return undefined;
+  return lowestOf(spec, threshold.kind === 'from' ? threshold.value : spec.min, spec.max);
+}
+
+/** The bottom of an interval, a continuous setting rounded up to three significant figures where that stays inside. */
+function lowestOf(spec: Pick<SettingSpec, 'values'>, from: number, to: number): number {
+  if (spec.values) return from;
+  const rounded = roundUp(from);
+  return rounded <= to ? rounded : from;
+}
+
 /** The on/off combinations of a device, the present one first. */
 function combinationsOf(device: Device): Record<string, boolean>[] {
   let combos: Record<string, boolean>[] = [{}];
@@ -182,7 +406,19 @@ function combinationsOf(device: Device): Record<string, boolean>[] {
   return combos;
 }
 
-/** The greedy descent from the slowest setting; see `recommendationOf`. */
+/** What one descent ended at: the point and what held it, or why it fails. */
+interface Descent {
+  ok: boolean;
+  point?: Device;
+  bindings: Map<string, Binding>;
+  blockedAtSlowest: Binding[];
+  failedAtFastest: Binding[];
+  holding: Binding[];
+  /** A full margin was asked of some constraint (a strict descent that was not the plain one). */
+  askedClean: boolean;
+}
+
+/** The greedy descent from one start (the slowest setting, say); see `recommendationOf`. */
 function fastestPoint(
   trial: Trial,
   base: Device,
@@ -192,15 +428,7 @@ function fastestPoint(
   strict: boolean,
   start: Record<string, number>,
   memo?: Memo,
-): {
-  ok: boolean;
-  point?: Device;
-  bindings: Map<string, Binding>;
-  blockedAtSlowest: Binding[];
-  failedAtFastest: Binding[];
-  holding: Binding[];
-  askedClean: boolean;
-} {
+): Descent {
   const point: Record<string, number> = { ...start };
   const bindings = new Map<string, Binding>();
   const slowest = deviceWith(base, point);
@@ -259,6 +487,12 @@ function fastestPoint(
 function roundUp(value: number): number {
   const digits = Math.pow(10, Math.floor(Math.log10(value)) - 2);
   return Number((Math.ceil(value / digits - 1e-9) * digits).toPrecision(3));
+}
+
+/** Rounds a continuous setting down to three significant figures. */
+function roundDown(value: number): number {
+  const digits = Math.pow(10, Math.floor(Math.log10(value)) - 2);
+  return Number((Math.floor(value / digits + 1e-9) * digits).toPrecision(3));
 }
 
 /** From the present pickup to the largest fault where the device sits (A): the range the clearing score averages over. */

@@ -154,9 +154,15 @@ export function windowIn(trial: Trial, deviceId: string, options: SettingWindowO
 
   const { recommendation, attempts } =
     specs.length > 0
-      ? recommendationOf(trial, deviceId, constraints, { overrides, memo })
+      ? recommendationOf(trial, deviceId, constraints, {
+          overrides,
+          memo,
+          rows: new Map(settings.map((row) => [row.key, row])),
+          maps: withMaps ? maps : undefined,
+        })
       : { recommendation: undefined, attempts: [] };
   const adjustable = specs.length > 0;
+  // The search tries every setting the rows, switches and maps show keeping every constraint.
   const exists = adjustable ? recommendation !== undefined : currentHolds;
   const noWindow =
     !exists && adjustable ? noWindowOf(trial, deviceId, constraints, attempts, { remedies, includeAbove }) : undefined;

@@ -56,11 +56,15 @@ const TRIP_UNIT = tripUnitRanges.ranges;
 const TRIP_UNIT_SOURCE = 'generic trip-unit range (common practice)';
 const RELAY_SOURCE = 'usual digital relay range, continuous (common practice)';
 
-/** Values from `min` to `max` in `step`s, rounded so that 0.1 + 0.2 stays 0.3. */
+/**
+ * Values from `min` in `step`s up to `max` and never past it (a range whose span is not a whole
+ * number of steps ends at the last step below `max`), rounded so that 0.1 + 0.2 stays 0.3.
+ */
 function stepsOf(min: number, max: number, step: number): number[] {
   const values: number[] = [];
-  const count = Math.round((max - min) / step);
-  for (let k = 0; k <= count; k++) values.push(Number((min + k * step).toPrecision(12)));
+  // The tolerance keeps a span of exactly n steps at n despite rounding (0.45 / 0.05 = 8.999…).
+  const count = Math.floor((max - min) / step + 1e-9);
+  for (let k = 0; k <= count; k++) values.push(Math.min(Number((min + k * step).toPrecision(12)), max));
   return values;
 }
 
@@ -70,11 +74,18 @@ function specOf(
   label: string,
   unit: string,
   current: number,
-  range: { min: number; max: number; step?: number; values?: number[] },
+  range: { min: number; max: number; step?: number; values?: number[]; above?: number },
   rangeSource: string,
   ampsPerUnit?: number,
 ): SettingSpec {
   let values = range.values ?? (range.step ? stepsOf(range.min, range.max, range.step) : undefined);
+  const { above } = range;
+  if (above !== undefined) {
+    // Only values strictly above the bound (as the study schema reads it: `value - above > 0`); a
+    // continuous range starts 1 % above it, at three significant figures.
+    if (values) values = values.filter((v) => v - above > 0);
+    else if (range.min - above <= 0) range = { ...range, min: Number((above * 1.01).toPrecision(3)) };
+  }
   if (values && !values.some((v) => Math.abs(v - current) <= 1e-9 * Math.max(1, Math.abs(current)))) {
     values = [...values, current];
   }
@@ -103,7 +114,7 @@ export function adjustableSettingsOf(device: Device, options: AdjustableSettings
     label: string,
     unit: string,
     current: number,
-    range: { min: number; max: number; step?: number },
+    range: { min: number; max: number; step?: number; above?: number },
     source: string,
     ampsPerUnit?: number,
   ) => {
@@ -113,6 +124,12 @@ export function adjustableSettingsOf(device: Device, options: AdjustableSettings
   };
   if (c.kind === 'trip-unit') {
     const ratedAmps = c.longTime.pickup * c.sensor;
+    // A delay must stay above the band drawn below it (the trip-unit schema's rule), so it is offered from
+    // the first step above that band.
+    const delayRange = (range: { min: number; max: number; step: number }) => ({
+      ...range,
+      above: c.tolerance.shortTimeBelow,
+    });
     if (c.instantaneous) {
       add(
         'instantaneous.pickup',
@@ -125,7 +142,14 @@ export function adjustableSettingsOf(device: Device, options: AdjustableSettings
       );
     }
     if (c.shortTime) {
-      add('shortTime.delay', 'short-time delay', 's', c.shortTime.delay, TRIP_UNIT.shortTimeDelay, TRIP_UNIT_SOURCE);
+      add(
+        'shortTime.delay',
+        'short-time delay',
+        's',
+        c.shortTime.delay,
+        delayRange(TRIP_UNIT.shortTimeDelay),
+        TRIP_UNIT_SOURCE,
+      );
       add(
         'shortTime.pickup',
         'short-time pickup',
@@ -154,7 +178,14 @@ export function adjustableSettingsOf(device: Device, options: AdjustableSettings
       c.sensor,
     );
     if (c.ground) {
-      add('ground.delay', 'ground-fault delay', 's', c.ground.delay, TRIP_UNIT.groundDelay, TRIP_UNIT_SOURCE);
+      add(
+        'ground.delay',
+        'ground-fault delay',
+        's',
+        c.ground.delay,
+        delayRange(TRIP_UNIT.groundDelay),
+        TRIP_UNIT_SOURCE,
+      );
       add(
         'ground.pickup',
         'ground-fault pickup',

@@ -37,6 +37,19 @@ describe('proposeSettings', () => {
     expect(JSON.parse(overlapText)).toEqual(JSON.parse(readFileSync('demo/harrowmere-overlap.json', 'utf8')));
   });
 
+  // A trip unit whose published band runs 0.05 s below each set delay cannot be set to a 0.05 s delay:
+  // the schema rejects it, so the proposal must not write it.
+  it('writes only delays above the band below them, so the proposed file reads back without problems', () => {
+    const input = JSON.parse(readFileSync('demo/harrowmere-full.json', 'utf8'));
+    const feeder = input.devices.find((d: { id: string }) => d.id === 'FDR-EM');
+    feeder.characteristic.tolerance = { shortTimeBelow: 0.05 };
+    const proposal = proposeSettings(parseStudy(input));
+    const delays = proposal.changes.filter((c) => c.deviceId === 'FDR-EM' && c.key === 'shortTime.delay');
+    for (const c of delays) expect(c.to as number).toBeGreaterThan(0.05);
+    const reread = readStudy(withSettingChanges(input, proposal.changes));
+    expect(reread.problems).toEqual([]);
+  });
+
   it('sets only the devices of one path when asked, keeping the device above fixed as a constraint', () => {
     const view = overlap.views.find((v) => v.id === 'emergency')!;
     const proposal = proposeSettings(overlap, { deviceIds: view.devices });

@@ -1,7 +1,13 @@
+import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { parseStudy } from '../../../src/engine/study/index.ts';
-import { settingWindowOf, type SettingRow } from '../../../src/engine/window/index.ts';
+import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import {
+  settingWindowOf,
+  withSettingChanges,
+  type SettingRow,
+  type SettingWindow,
+} from '../../../src/engine/window/index.ts';
 import { failuresWith, workedStudy } from './fixtures.ts';
 
 const input = workedStudy();
@@ -41,6 +47,48 @@ function bruteEdge(deviceId: string, row: SettingRow, edge: number, side: 'lower
     }
   }
   return found;
+}
+
+/** Whether the window's own rows, switch entries or map cells show a setting that keeps every constraint. */
+function showsOne(window: SettingWindow): boolean {
+  return (
+    window.settings.some((row) => row.intervals.length > 0) ||
+    window.switches.some((row) => row.feasible.some(Boolean)) ||
+    window.maps.some((map) => map.columns.some((column) => column.intervals.length > 0))
+  );
+}
+
+/** The recommended settings as changes to the study file. */
+function changesOf(window: SettingWindow) {
+  return Object.fromEntries(
+    window.recommendation!.settings.filter((s) => s.to !== undefined).map((s) => [s.key, s.to!]),
+  );
+}
+
+/** A fast relay above (time dial 0.5) and a feeder below that waits 0.3 s: the main cannot fit between. */
+function tightStudy(): StudyInput {
+  const tight = workedStudy();
+  const devices = tight.devices!;
+  devices[0] = {
+    ...devices[0],
+    characteristic: {
+      kind: 'relay',
+      ct: '100:5',
+      timeOvercurrent: { curve: 'ieee-extremely-inverse', pickup: 5, timeDial: 0.5 },
+      instantaneous: { pickup: 80 },
+      tolerance: { pickup: 5, time: 5 },
+    },
+  };
+  devices[2] = {
+    ...devices[2],
+    characteristic: {
+      kind: 'trip-unit',
+      sensor: 400,
+      longTime: { pickup: 1, delay: 4 },
+      shortTime: { pickup: 4, delay: 0.3 },
+    },
+  };
+  return tight;
 }
 
 describe('settingWindowOf', () => {
@@ -180,29 +228,81 @@ describe('settingWindowOf', () => {
     }
   });
 
-  it('names the conflict when no window exists, and the changes elsewhere that would open one', () => {
-    // A fast relay above (time dial 0.5) and a feeder below that waits 0.3 s: the main cannot fit between.
-    const tight = workedStudy();
-    const devices = tight.devices!;
-    devices[0] = {
-      ...devices[0],
+  // A relay set too fast (time dial 2) fails to wait for the main below; one step of the search from
+  // its slowest setting lowers the instantaneous first and then cannot keep the transformer's
+  // through-fault curve (IEEE C57.109 frequent-fault curve). Yet the time-dial row, the rest held,
+  // shows dials from about 4.2 to 10.7 that keep both.
+  it('a relay set too fast still has a window when its own time-dial row shows one', () => {
+    const fast = workedStudy();
+    const relay = fast.devices![0];
+    fast.devices![0] = {
+      ...relay,
       characteristic: {
         kind: 'relay',
         ct: '100:5',
-        timeOvercurrent: { curve: 'ieee-extremely-inverse', pickup: 5, timeDial: 0.5 },
+        timeOvercurrent: { curve: 'ieee-extremely-inverse', pickup: 5.5, timeDial: 2 },
         instantaneous: { pickup: 80 },
         tolerance: { pickup: 5, time: 5 },
       },
     };
-    devices[2] = {
-      ...devices[2],
-      characteristic: {
-        kind: 'trip-unit',
-        sensor: 400,
-        longTime: { pickup: 1, delay: 4 },
-        shortTime: { pickup: 4, delay: 0.3 },
-      },
-    };
+    const window = settingWindowOf(parseStudy(fast), 'R-T1', { maps: false });
+    expect(window.currentHolds).toBe(false);
+    const dial = window.settings.find((s) => s.key === 'timeOvercurrent.timeDial')!;
+    expect(dial.intervals).toHaveLength(1);
+    expect(dial.intervals[0].from).toBeCloseTo(4.2, 1);
+    expect(window.exists).toBe(true);
+    expect(window.noWindow).toBeUndefined();
+    expect(window.recommendation!.margins.filter((m) => m.favours !== 'fixed' && !m.result.ok)).toEqual([]);
+    expect(failuresWith(fast, 'R-T1', changesOf(window))).toEqual([]);
+  });
+
+  it('with the relay set anywhere along its time dial, its rows show a window and the window exists', () => {
+    for (const timeDial of [0.5, 1, 2, 3, 6, 9, 12]) {
+      const variant = workedStudy();
+      const characteristic = variant.devices![0].characteristic as { timeOvercurrent: { timeDial: number } };
+      characteristic.timeOvercurrent.timeDial = timeDial;
+      const window = settingWindowOf(parseStudy(variant), 'R-T1', { remedies: false });
+      expect(showsOne(window), `time dial ${timeDial}`).toBe(true);
+      expect(window.exists, `time dial ${timeDial}`).toBe(true);
+      expect(window.recommendation, `time dial ${timeDial}`).toBeDefined();
+    }
+  });
+
+  // The full demo with an instantaneous trip on the 2000 A main at 12 × I_n: the emergency feeder can no
+  // longer fit under it by changing one setting alone, but its long-time map has open cells (a lower
+  // long-time pickup with a shorter delay). The search starts from one and finds a setting.
+  it('a window exists when only a cell of the pickup × time map shows one', () => {
+    const full = JSON.parse(readFileSync('demo/harrowmere-full.json', 'utf8')) as StudyInput;
+    const main = full.devices!.find((d) => d.id === 'MAIN')!;
+    main.characteristic = { ...main.characteristic, instantaneous: { pickup: 12 } } as typeof main.characteristic;
+    const window = settingWindowOf(parseStudy(full), 'FDR-EM');
+    expect(window.settings.every((row) => row.intervals.length === 0)).toBe(true);
+    expect(window.switches.every((row) => !row.feasible.some(Boolean))).toBe(true);
+    expect(window.maps[0].columns.some((column) => column.intervals.length > 0)).toBe(true);
+    expect(window.exists).toBe(true);
+    expect(window.recommendation!.margins.filter((m) => m.favours !== 'fixed' && !m.result.ok)).toEqual([]);
+    expect(failuresWith(full, 'FDR-EM', changesOf(window))).toEqual([]);
+    // The same answer without drawing the maps: the search solves the cells it needs itself.
+    expect(settingWindowOf(parseStudy(full), 'FDR-EM', { maps: false }).exists).toBe(true);
+  });
+
+  // The emergency feeder of the full demo waits for its 50 A branch breakers with a full margin today.
+  // Switching I²t in and lowering every setting would clear faster on average, but only 0.002 s clear of
+  // the branch breakers and thin against the main above: the recommendation keeps a full margin instead
+  // (a coordination margin is a minimum to keep, not a target to spend; common practice).
+  it('never trades a setting with full margins for one with thin margins', () => {
+    const full = parseStudy(readFileSync('demo/harrowmere-full.json', 'utf8'));
+    const window = settingWindowOf(full, 'FDR-EM', { maps: false });
+    const thin = (margins: SettingWindow['constraints']) =>
+      margins.filter((m) => m.favours !== 'fixed' && m.result.ok && !m.result.clean).map((m) => m.id);
+    expect(window.currentHolds).toBe(true);
+    expect(thin(window.constraints)).toEqual([]);
+    expect(thin(window.recommendation!.margins)).toEqual([]);
+    expect(window.recommendation!.settings.find((s) => s.key === 'shortTime.i2t')!.to).toBe(false);
+  });
+
+  it('names the conflict when no window exists, and the changes elsewhere that would open one', () => {
+    const tight = tightStudy();
     const window = settingWindowOf(parseStudy(tight), 'MAIN', { maps: false });
     expect(window.exists).toBe(false);
     expect(window.recommendation).toBeUndefined();
@@ -212,5 +312,18 @@ describe('settingWindowOf', () => {
     expect(remedies.map((r) => r.text)).toEqual(
       expect.arrayContaining([expect.stringMatching(/^Speed up FDR /), expect.stringMatching(/^Slow R-T1 above/)]),
     );
+  });
+
+  it('each remedy with its changes, applied to the study, opens a window exactly when it says it does', () => {
+    const tight = tightStudy();
+    const { remedies } = settingWindowOf(parseStudy(tight), 'MAIN', { maps: false }).noWindow!;
+    const tried = remedies.filter((r) => r.changes);
+    expect(tried.map((r) => r.text)).toEqual(expect.arrayContaining([expect.stringMatching(/^Slow R-T1 above/)]));
+    for (const remedy of tried) {
+      const changes = remedy.changes!.map(({ deviceId, key, to }) => ({ deviceId, key, to }));
+      const changed = parseStudy(withSettingChanges(tight, changes));
+      const window = settingWindowOf(changed, 'MAIN', { maps: false, remedies: false });
+      expect(window.exists, remedy.text).toBe(remedy.verified);
+    }
   });
 });
