@@ -242,13 +242,15 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
         upstream: onSheetBand(up)(bands.get(up)!, shiftOf(up, down, fault)),
         downstream: onSheetBand(down)(bands.get(down)!),
       };
-    if (fault === 'ground-fault') {
-      const withGround = (d: typeof upDevice) => {
-        const element = groundFaultBandOf(d.characteristic);
-        return element ? fastestOf([bands.get(d.id)!, element]) : bands.get(d.id)!;
-      };
+    const withGround = (d: typeof upDevice) => {
+      const element = groundFaultBandOf(d.characteristic);
+      return element ? fastestOf([bands.get(d.id)!, element]) : bands.get(d.id)!;
+    };
+    if (fault === 'ground-fault')
       return { upstream: onSheetBand(up)(withGround(upDevice)), downstream: onSheetBand(down)(withGround(downDevice)) };
-    }
+    // A line-to-ground fault above the three-phase current: the upstream phase elements against all below.
+    if (fault === 'line-to-ground')
+      return { upstream: onSheetBand(up)(bands.get(up)!), downstream: onSheetBand(down)(withGround(downDevice)) };
     return { upstream: onSheetBand(up)(bands.get(up)!), downstream: onSheetBand(down)(bands.get(down)!) };
   };
   const regions: SheetRegion[] = [];
@@ -256,8 +258,9 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   for (const f of hatchableOnSheet(analysis.findings, shown)) {
     if (!f.subjects.every((id) => shown.has(id))) continue;
     const fault =
-      /:(three-phase|line-to-line|ground-fault|single-phase|line-to-neutral):\d+(?:@[^:]+)?$/.exec(f.id)?.[1] ??
-      'three-phase';
+      /:(three-phase|line-to-line|ground-fault|line-to-ground|single-phase|line-to-neutral):\d+(?:@[^:]+)?$/.exec(
+        f.id,
+      )?.[1] ?? 'three-phase';
     if ((fault === 'ground-fault') !== ground) continue;
     const region: SheetRegion = {
       fromAmps: (f.range.fromAmps * f.referenceVolts) / ref,

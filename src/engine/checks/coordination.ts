@@ -16,7 +16,8 @@ import { marginRuleOf, type MarginRule } from './margins.ts';
  * Y–Δ transformer) and ground faults; on a single-phase bus the full-winding fault and the
  * line-to-neutral (half-winding) fault of a centre-tapped secondary.
  */
-export type PairFault = 'three-phase' | 'line-to-line' | 'ground-fault' | 'single-phase' | 'line-to-neutral';
+export type PairFault =
+  'three-phase' | 'line-to-line' | 'ground-fault' | 'line-to-ground' | 'single-phase' | 'line-to-neutral';
 
 /** One fault case of a pair, on the downstream device's voltage base. */
 export interface PairCase {
@@ -146,11 +147,12 @@ export function checkPair(
       // the way up where no Δ–Y unit splits it (a Yg–Yg unit passes it on; symmetrical components):
       // where it exceeds the three-phase current (a solidly grounded wye close to its transformer),
       // the pair is checked from the one up to the other too. The upstream ground element, if any,
-      // counted as seeing it (the cautious side where a wye-wye unit lies between).
+      // counted as seeing it (the cautious side where a wye-wye unit lies between): a ground-fault case;
+      // else a line-to-ground case of the phase elements.
       const phaseUp = upGround ? cachedFastestOf(bands.get(upstream.id)!, upGround) : bands.get(upstream.id)!;
       const up = upBus.voltage === referenceVolts ? phaseUp : scaleBand(phaseUp, upBus.voltage / referenceVolts);
       cases.push({
-        fault: 'ground-fault',
+        fault: upGround ? 'ground-fault' : 'line-to-ground',
         referenceVolts,
         upstreamShift: 1,
         intervals: overlapsIn(context, up, down, optionsBetween(through.threePhase, through.lineToGround)),
@@ -173,6 +175,7 @@ const FAULT_TEXT: Record<PairCase['fault'], string> = {
   'three-phase': '',
   'line-to-line': ' for a secondary line-to-line fault',
   'ground-fault': ' for a ground fault',
+  'line-to-ground': ' for a line-to-ground fault',
   'single-phase': '',
   'line-to-neutral': ' for a line-to-neutral fault',
 };
@@ -306,7 +309,7 @@ function suggestionOf(finding: Finding): string {
   const { pairCase, interval } = caseOfFinding(finding);
   return pairCase.fault === 'ground-fault'
     ? suggestGround(interval, up, down)
-    : suggest(interval, up, down, check.rule);
+    : suggest(interval, up, down, check.rule, check.kind);
 }
 
 /** A selective pair's range: the first case that has intervals, from its first to its last. */
@@ -383,19 +386,28 @@ function explain(
   }
 }
 
-function suggest(interval: IntervalFacts, up: string, down: string, rule: MarginRule): string {
+function suggest(interval: IntervalFacts, up: string, down: string, rule: MarginRule, kind: string): string {
+  const [upKind, downKind] = kind.split('/');
   const { worst } = interval;
   if (interval.status === 'not provable from curves') {
     return `Confirm with the manufacturers' tested selectivity tables for ${up} above ${down}, or compare let-through and melting I²t.`;
   }
   if (worst.downTime === Infinity) {
-    return `Raise the pickup of ${up} above the highest pickup edge of ${down}, or lower ${down}'s pickup.`;
+    return upKind === 'fuse'
+      ? `Use a larger fuse for ${up}, one that does not melt below the highest pickup edge of ${down}, or lower ${down}'s pickup.`
+      : `Raise the pickup of ${up} above the highest pickup edge of ${down}, or lower ${down}'s pickup.`;
+  }
+  if (worst.upTime < 0.1 && upKind === 'fuse') {
+    return `Use a larger fuse for ${up}, one that melts later than ${down} clears up to ${formatAmps(interval.toAmps, 3)}, or give ${down} a faster trip there.`;
   }
   if (worst.upTime < 0.1) {
     return `Raise ${up}'s instantaneous pickup above ${formatAmps(interval.toAmps, 3)} (the fault current here), or give ${up} a short-time delay instead of an instantaneous trip.`;
   }
-  const needed = -worst.marginSeconds + (interval.status === 'thin margin' ? 0.1 : 0);
-  return `Slow ${up} by at least ${significant(Math.max(needed, 0.01), 2)} s at ${formatAmps(worst.amps, 3)} (a higher time dial or delay band), or speed up ${down}${rule.timeRatio < 1 ? ' (a smaller downstream fuse)' : ''}.`;
+  // The slack is the upstream time times the ratio less the rest: the upstream time itself must rise by
+  // the shortfall over the ratio.
+  const needed = (-worst.marginSeconds + (interval.status === 'thin margin' ? 0.1 : 0)) / rule.timeRatio;
+  const slower = upKind === 'fuse' ? 'a larger fuse' : 'a higher time dial or delay band';
+  return `Slow ${up} by at least ${significant(Math.max(needed, 0.01), 2)} s at ${formatAmps(worst.amps, 3)} (${slower}), or speed up ${down}${downKind === 'fuse' ? ' (a smaller fuse)' : ''}.`;
 }
 
 // A ground-fault element has a pickup and a delay band (with I²t in or out), nothing more: propose only those.

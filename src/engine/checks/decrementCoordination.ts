@@ -7,6 +7,7 @@ import { locationBusOf, pathTo, type Network } from '../network/index.ts';
 import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
 import type { Source } from '../study/index.ts';
 import { nameOf } from './context.ts';
+import { illustrativeSentence, isIllustrative } from './coordination.ts';
 import type { Finding } from './finding.ts';
 import type { MarginRule } from './margins.ts';
 
@@ -54,15 +55,18 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     const initial = formatAmps(current(0), 3);
     const sustained = formatAmps(decrement.sustainedAmps * toBus, 3);
     const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${initial} falling to ${sustained}`;
+    // As the pair check: selective on an illustrative curve is told (info), not claimed.
+    const illustrative = [up, down].filter(isIllustrative).map(nameOf);
+    const told = ok && illustrative.length > 0;
     findings.push({
       id: `decrement:${up.id}/${down.id}`,
       kind: 'generator-decrement',
-      severity: ok ? 'ok' : 'fail',
-      title: `${nameOf(up)} over ${nameOf(down)} on the generator's decaying current: ${ok ? 'selective' : Number.isFinite(clears) ? 'margin not met' : 'downstream never clears'}`,
+      severity: !ok ? 'fail' : told ? 'info' : 'ok',
+      title: `${nameOf(up)} over ${nameOf(down)} on the generator's decaying current: ${ok ? `selective${told ? ' on illustrative curves' : ''}` : Number.isFinite(clears) ? 'margin not met' : 'downstream never clears'}`,
       subjects: [up.id, down.id],
       explanation: !Number.isFinite(clears)
         ? `For ${at}, ${nameOf(down)} never clears: the current decays below what it needs before it can operate.`
-        : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)} and ${nameOf(up)} can operate from ${Number.isFinite(opens) ? formatSeconds(opens) : 'never'}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}.`,
+        : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : 'does not operate on the decaying current'}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
       suggestion: ok
         ? undefined
         : Number.isFinite(clears)
@@ -84,13 +88,13 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
   return findings;
 }
 
-// Accepts the two times (s), the pair's rule and the two names; the separation against the rule, in words.
+// Accepts the two times (s, both finite), the pair's rule and the two names; the separation against the rule, in words.
 function separationText(clears: number, opens: number, rule: MarginRule, down: string, up: string): string {
   if (rule.timeRatio === 1)
-    return `a margin of ${Number.isFinite(opens) ? formatSeconds(opens - clears) : 'no limit'} against the required ${formatSeconds(rule.margin)}`;
+    return `a margin of ${formatSeconds(opens - clears)} against the required ${formatSeconds(rule.margin)}`;
   const needed =
     rule.margin > 0 ? `${down}'s clearing plus the required ${formatSeconds(rule.margin)}` : `${down}'s clearing`;
-  const share = Number.isFinite(opens) ? `${significant((100 * (clears + rule.margin)) / opens, 3)} %` : 'none';
+  const share = `${significant((100 * (clears + rule.margin)) / opens, 3)} %`;
   return `${needed} is ${share} of ${up}'s earliest operation, against at most ${significant(rule.timeRatio * 100, 3)} % required`;
 }
 

@@ -42,7 +42,7 @@ export function generatorFindings(context: CheckContext, generator: Generator, h
         severity: 'warning',
         title: `${name} has no overcurrent device`,
         subjects: [generator.id],
-        explanation: `No device in this tree lies between ${name} and a fault, so nothing protects its armature.`,
+        explanation: `No device at ${name}'s bus lies between it and a fault, so nothing protects its armature (a device further down protects only what lies below it).`,
         suggestion: `Add the generator breaker (${CODE}).`,
         referenceVolts: volts,
       },
@@ -130,11 +130,15 @@ export function generatorFindings(context: CheckContext, generator: Generator, h
 }
 
 /**
- * The devices nearest a tree's source, in study order: those with no device above them. Fed by a
- * generator, its breaker (or each feeder breaker on a generator bus with no main).
+ * The devices at the generator's own bus with no device above them, in study order: its breaker (or
+ * each feeder breaker on a generator bus with no main). A device further down protects only what lies
+ * below it, not the machine: with none at its bus, the machine has no overcurrent device.
  *
  * @example generatorDevicesOf(network).map((d) => d.id) // ['GEN-CB']
  */
 export function generatorDevicesOf(network: Network): Device[] {
-  return [...network.devices.values()].filter((device) => !upstreamDeviceOf(network, device));
+  const bus = network.study.source.bus;
+  return [...network.devices.values()].filter(
+    (device) => locationBusOf(network, device).id === bus && !upstreamDeviceOf(network, device),
+  );
 }

@@ -351,7 +351,9 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
       downstream: downId,
     },
   );
-  const separation = rule.timeRatio < 1 ? `${rule.timeRatio * 100} % time ratio` : `${rule.margin} s margin`;
+  const ratio = `${rule.timeRatio * 100} % time ratio`;
+  const separation =
+    rule.timeRatio === 1 ? `${rule.margin} s margin` : rule.margin > 0 ? `${rule.margin} s margin, ${ratio}` : ratio;
   // A device of an emergency (or like) system must be shown selective: curves that cannot prove it do not do.
   const system = trial.deviceOf(downId).system;
   const code = system ? SELECTIVITY_ARTICLE[system].article : undefined;

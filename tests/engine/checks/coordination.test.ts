@@ -84,6 +84,47 @@ describe('checkPair', () => {
   });
 });
 
+describe('checkPair with a fuse above a breaker', () => {
+  /** An invented 200 A fuse over the 400 A feeder, melting in `fastest` s at 20 kA. */
+  function fuseOver(fastest: number): StudyInput {
+    const study = pairStudy();
+    study.devices![0].characteristic = {
+      kind: 'fuse',
+      minimumMelting: [
+        [1200, 100],
+        [3000, 5],
+        [20000, fastest],
+      ],
+      totalClearing: [
+        [1200, 130],
+        [3000, 6.5],
+        [20000, fastest * 1.5],
+      ],
+    };
+    return study;
+  }
+
+  it('asks the fuse to melt later by the shortfall over its 75 % ratio (preloading, common practice)', () => {
+    // The feeder's long-time band (12 · (2400 / I)² s at most) outlasts 75 % of the fuse's melting time
+    // up to 20 kA. Raising the melting time by the slack's shortfall divided by 0.75 brings 0.75 · t_melt
+    // up to the feeder's clearing time.
+    const overlap = analyseStudy(parseStudy(fuseOver(0.2))).findings.find((f) => f.status === 'overlap')!;
+    const { upTime, downTime, marginSeconds } = overlap.worst!;
+    expect(upTime).toBeGreaterThanOrEqual(0.1);
+    assertInDelta(marginSeconds, 0.75 * upTime - downTime, 1e-9);
+    const needed = Number((-marginSeconds / 0.75).toPrecision(2));
+    expect(overlap.suggestion).toMatch(
+      new RegExp(`^Slow UP by at least ${needed} s at .* \\(a larger fuse\\), or speed up DOWN\\.$`),
+    );
+  });
+
+  it('asks for a larger fuse, not an instantaneous setting it does not have, where it melts within 0.1 s', () => {
+    const overlap = analyseStudy(parseStudy(fuseOver(0.01))).findings.find((f) => f.status === 'overlap')!;
+    expect(overlap.worst!.upTime).toBeLessThan(0.1);
+    expect(overlap.suggestion).toMatch(/^Use a larger fuse for UP, one that melts later than DOWN clears up to 20 kA/);
+  });
+});
+
 describe('checkPair on an illustrative curve', () => {
   it('tells a selective pair on an invented curve as an info, not an ok, and says why', () => {
     // An illustrative thermal-magnetic breaker (invented data) below the relay delayed 5 s: the curves
@@ -215,7 +256,7 @@ describe('checkPair for a ground fault', () => {
     };
     const analysis = analyseStudy(parseStudy(study));
     const [pair] = analysis.pairs;
-    expect(pair.cases.map((c) => c.fault)).toEqual(['three-phase', 'ground-fault']);
+    expect(pair.cases.map((c) => c.fault)).toEqual(['three-phase', 'line-to-ground']);
     expect(pair.cases[0].intervals.every((i) => i.status === 'selective')).toBe(true);
     const ground = pair.cases[1].intervals;
     assertInDelta(ground[0].fromAmps, 20_000, 1e-9);
@@ -223,7 +264,9 @@ describe('checkPair for a ground fault', () => {
     assertInDelta(ground[1].fromAmps, 21_600, 1e-5);
     assertInDelta(ground[1].toAmps, 24_000, 1e-9);
     const overlap = analysis.findings.find((f) => f.status === 'overlap')!;
-    expect(overlap.title).toBe('UP over DOWN: overlap for a ground fault');
+    expect(overlap.title).toBe('UP over DOWN: overlap for a line-to-ground fault');
+    // The main has no ground-fault element: the advice is about its instantaneous trip.
+    expect(overlap.suggestion).toMatch(/^Raise UP's instantaneous pickup above 24 kA/);
   });
 
   it('says the overlap is for a ground fault', () => {

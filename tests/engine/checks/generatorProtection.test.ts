@@ -122,6 +122,17 @@ describe('generatorFindings (NFPA 70 445.12(A); IEEE C50.13 armature capability,
     expect(none.suggestion).toMatch(/NFPA 70 445\.12\(A\)/);
   });
 
+  it('does not take a device further down for the generator breaker: a panel breaker protects only what lies below it', () => {
+    // The one device sits at the panel, behind 50 ft of cable: a fault on that cable reaches the machine
+    // through no device at all.
+    const input = standby(1, 2);
+    input.buses = [...input.buses!, { id: 'LOAD', voltage: 480 }];
+    input.cables = [...input.cables!, { id: 'C2', from: 'PNL', to: 'LOAD', size: '2 AWG', length: '50 ft' }];
+    input.devices = [{ ...input.devices![0], id: 'PNL-CB', name: 'Panel breaker', feeds: 'C2' }];
+    const [finding] = generatorFindingsOf(input);
+    expect([finding.severity, finding.title]).toEqual(['warning', 'Standby generator has no overcurrent device']);
+  });
+
   it('with a memo, an edited breaker gives the new finding (the check reads the breaker nearest the generator)', () => {
     const memo = new AnalysisMemo();
     const severities = (study: Study) =>

@@ -24,6 +24,12 @@ describe('the standby demos (invented site)', () => {
     expect(generator.map((f) => `${f.severity} ${f.subjects.join('/')} ${f.scenarios}`)).toContain(
       'warning GEN-CB/G1 On generator',
     );
+    // The generator breaker over the illustrative fan breaker on the decaying current: told, not claimed.
+    const decaying = analysis.findings.find((f) => f.id === 'decrement:GEN-CB/EM-BR')!;
+    expect([decaying.severity, decaying.title]).toEqual([
+      'info',
+      "Generator breaker 600 A over Exhaust fan breaker 50 A on the generator's decaying current: selective on illustrative curves",
+    ]);
     const code = analysis.findings.filter((f) => f.kind === 'code-selectivity');
     // The generator breaker has no supply-side device: nothing to be selective with. The branch
     // breaker's curve is illustrative: selective on its curves, which shows nothing of a product.

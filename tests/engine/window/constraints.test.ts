@@ -194,3 +194,42 @@ describe('constraintsOf: a generator-fed tree', () => {
     expect(ids.filter((id) => id.startsWith('decrement') || id === 'withstand:G1')).toEqual([]);
   });
 });
+
+describe('a fuse above a relay', () => {
+  it('labels the coordination constraint with both the margin and the fuse ratio (preloading, common practice)', () => {
+    // A 200 A fuse (invented points) feeding a cable whose relay (CT 100:5, definite time) is below it.
+    const study = feederStudy('65 kA');
+    study.buses = [...study.buses!, { id: 'LOAD', voltage: 480 }];
+    study.cables = [...study.cables!, { id: 'C2', from: 'PNL', to: 'LOAD', size: '2 AWG', length: '50 ft' }];
+    study.devices = [
+      {
+        id: 'F',
+        feeds: 'C1',
+        characteristic: {
+          kind: 'fuse',
+          minimumMelting: [
+            [400, 300],
+            [2000, 1],
+            [10000, 0.01],
+          ],
+          totalClearing: [
+            [400, 400],
+            [2000, 1.5],
+            [10000, 0.02],
+          ],
+        },
+      },
+      {
+        id: 'R',
+        feeds: 'C2',
+        characteristic: {
+          kind: 'relay',
+          ct: '100:5',
+          timeOvercurrent: { curve: 'definite-time', pickup: 5, delay: 0.3 },
+        },
+      },
+    ];
+    const constraint = constraintsOf(trialOf(parseStudy(study)), 'R').find((c) => c.id === 'above:F')!;
+    expect(constraint.label).toMatch(/\(0\.1 s margin, 75 % time ratio\)/);
+  });
+});
