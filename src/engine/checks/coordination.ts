@@ -88,15 +88,8 @@ export function checkPair(
   const between = transformersBetween(network, upBus.id, downBus.id);
   // Written out, not spread from a shared object: V8 gives each object made by `{ ...base, toAmps }` a
   // hidden class of its own, which made every read of the options in the finder a slow generic one.
-  const optionsUpTo = (toAmps: number): OverlapOptions => ({
-    margin: rule.margin,
-    timeRatio: rule.timeRatio,
-    thinMargin: settings.thinMargin,
-    halfCycle: settings.halfCycle,
-    horizon: settings.horizon,
-    toAmps,
-  });
-  const optionsBetween = (fromAmps: number, toAmps: number): OverlapOptions => ({
+  // (`fromAmps` undefined: the finder's default, the lowest current either device operates at.)
+  const optionsBetween = (fromAmps: number | undefined, toAmps: number): OverlapOptions => ({
     fromAmps,
     margin: rule.margin,
     timeRatio: rule.timeRatio,
@@ -105,6 +98,7 @@ export function checkPair(
     horizon: settings.horizon,
     toAmps,
   });
+  const optionsUpTo = (toAmps: number) => optionsBetween(undefined, toAmps);
   const caseOf = (fault: PairFault, upstreamShift: number, toAmps: number): PairCase => ({
     fault,
     referenceVolts,
