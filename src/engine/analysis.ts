@@ -96,7 +96,7 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
     const nearest = generatorDevicesOf(network);
     findings.push(
       ...remembered(`generator:${source.id}`, [source, horizon, ...nearest], () =>
-        generatorFindings(context, source, horizon),
+        generatorFindings(context, source, horizon, nearest),
       ),
     );
   }

@@ -126,15 +126,19 @@ export function checkPair(
     // A ground-fault element above sees ground current the devices below clear with their phase
     // elements (or their own ground element); it does not cross a transformer.
     const upGround = cachedGroundBandOf(upstream.characteristic);
-    const downGround = cachedGroundBandOf(downstream.characteristic);
-    const down = downGround ? cachedFastestOf(downBand, downGround) : downBand;
+    // The downstream device on a ground fault: its own ground element too, if it has one (read only
+    // for the pairs that have a ground-fault case, not for every pair).
+    const downOnGround = () => {
+      const downGround = cachedGroundBandOf(downstream.characteristic);
+      return downGround ? cachedFastestOf(downBand, downGround) : downBand;
+    };
     if (upGround && between.length === 0 && through.lineToGround > 0) {
       const up = cachedFastestOf(bands.get(upstream.id)!, upGround);
       cases.push({
         fault: 'ground-fault',
         referenceVolts,
         upstreamShift: 1,
-        intervals: overlapsIn(context, up, down, optionsUpTo(through.lineToGround)),
+        intervals: overlapsIn(context, up, downOnGround(), optionsUpTo(through.lineToGround)),
       });
     } else if (shifts === 0 && through.lineToGround > through.threePhase) {
       // The faulted line carries the whole line-to-ground current, and so does every phase element on
@@ -149,7 +153,7 @@ export function checkPair(
         fault: upGround ? 'ground-fault' : 'line-to-ground',
         referenceVolts,
         upstreamShift: 1,
-        intervals: overlapsIn(context, up, down, optionsBetween(through.threePhase, through.lineToGround)),
+        intervals: overlapsIn(context, up, downOnGround(), optionsBetween(through.threePhase, through.lineToGround)),
       });
     }
   }

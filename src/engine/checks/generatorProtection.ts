@@ -17,8 +17,8 @@ const INHERENT =
   'Unless the machine is protected by its inherent design or its own protection, as NFPA 70 445.12(A) also allows: confirm from its documentation.';
 
 /**
- * Checks that the device nearest a generator (its breaker: a device of the generator's tree with no
- * device above it; each one where several feeders leave the generator bus) clears before the
+ * Checks that the device nearest a generator (`devices`, by default `generatorDevicesOf`: its breaker
+ * at its bus, or each feeder breaker where several leave the generator bus) clears before the
  * generator's damage curve, `generatorDamageCurve` (IEEE C50.13 armature short-time thermal capability
  * with IEC 60034-1's 1.5 × rated for 30 s on it, or the machine's own damage points), from where the curve
  * starts up to the largest fault at the generator bus (the most the machine delivers), both at constant
@@ -29,11 +29,15 @@ const INHERENT =
  *
  * @example generatorFindings(context, standbyGenerator)
  */
-export function generatorFindings(context: CheckContext, generator: Generator, horizon = 1000): Finding[] {
+export function generatorFindings(
+  context: CheckContext,
+  generator: Generator,
+  horizon = 1000,
+  devices = generatorDevicesOf(context.network),
+): Finding[] {
   const { network, faults } = context;
   const name = generator.name ?? generator.id;
   const volts = network.buses.get(generator.bus)!.voltage;
-  const devices = generatorDevicesOf(network);
   if (devices.length === 0) {
     return [
       {
