@@ -23,7 +23,7 @@ export interface PdfOptions {
    * DejaVu Sans regular and bold TTF bytes to embed, so "Ω", "µ" and "≥" print. In Node they are
    * read from `/usr/share/fonts/truetype/dejavu/` when omitted; in the browser pass them (e.g. fetched
    * from the app's assets), or the text falls back to Helvetica, which lacks those glyphs (they are
-   * spelled out: "Ohm", ">=").
+   * spelled out: "Ohm", ">="). Without a bold face, bold text is the regular face filled and stroked.
    */
   fonts?: { regular: Uint8Array; bold?: Uint8Array };
   /**

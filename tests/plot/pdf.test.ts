@@ -265,6 +265,19 @@ describe('pdfOf', () => {
     expect(new Set(boldMap.values())).toEqual(new Set([...'µs ≥0.3']));
   });
 
+  it('pdfOf with the regular face alone draws bold text as that face filled and stroked, embedding one face', async () => {
+    const file = readPdf(await pdfOf(drawing, { fonts: { regular: REGULAR } }));
+    const [{ content }] = pagesOf(file);
+    expect(text(await pdfOf(drawing, { fonts: { regular: REGULAR } }))).not.toContain('DejaVuSans-Bold');
+    // The 9 px bold run: render mode 2 (fill, then stroke) at 0.065 em in its own colour, inside q … Q.
+    expect(content).toMatch(
+      /q 0\.302 0\.302 0\.302 RG 0\.585 w 1 j 2 Tr\nBT \/F1 9 Tf 0\.302 0\.302 0\.302 rg [-\d. ]+ Tm <[0-9A-F]+> Tj ET\nQ/,
+    );
+    // The regular runs are filled only.
+    expect(content.match(/ Tr\b/g)).toHaveLength(1);
+    expect(content.match(/BT \/F1 /g)).toHaveLength(3);
+  });
+
   it('pdfOf falls back to Helvetica in WinAnsi, symbols spelled out, when no face can be embedded', async () => {
     // In a browser with no faces passed, Node's font folder is not read.
     vi.stubGlobal('window', {});

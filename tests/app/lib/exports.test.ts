@@ -7,13 +7,10 @@ import { sheetOf } from '../../../src/plot/sheet.ts';
 import { fixtureInput } from '../../plot/fixtures.ts';
 import { pagesOf, readPdf, textRunsOf } from '../../plot/pdf/pdfReader.ts';
 
-// The faces the workbench ships, in place of fetching them; the download caught instead of clicked.
+// The face the workbench ships, in place of fetching it; the download caught instead of clicked.
 const FONTS = new URL('../../../src/app/assets/fonts/', import.meta.url);
 vi.mock('../../../src/app/lib/pdfFonts.ts', () => ({
-  loadPdfFonts: async () => ({
-    regular: readFileSync(new URL('DejaVuSans.ttf', FONTS)),
-    bold: readFileSync(new URL('DejaVuSans-Bold.ttf', FONTS)),
-  }),
+  loadPdfFonts: async () => ({ regular: readFileSync(new URL('DejaVuSans.ttf', FONTS)) }),
 }));
 vi.mock('../../../src/app/lib/download.ts', () => ({ downloadBlob: vi.fn() }));
 

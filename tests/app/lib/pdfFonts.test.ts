@@ -9,10 +9,7 @@ import { mediaBoxesOf, pdfStreamsOf, toUnicodeOf } from '../../pdfBytes.ts';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const FONT_DIR = `${ROOT}src/app/assets/fonts/`;
-const faces = {
-  regular: readFileSync(`${FONT_DIR}DejaVuSans.ttf`),
-  bold: readFileSync(`${FONT_DIR}DejaVuSans-Bold.ttf`),
-};
+const faces = { regular: readFileSync(`${FONT_DIR}DejaVuSans.ttf`) };
 
 // The symbols the sheets and the report are known to print, beside printable ASCII and Latin-1.
 const REQUIRED = 'Ω≥≤×−√°Δµ²³½';
@@ -22,16 +19,18 @@ afterEach(() => {
 });
 
 describe('pdfFonts', () => {
-  it('has the expected defaults: two small DejaVu Sans faces with their licence beside them', () => {
+  it('has the expected defaults: one small DejaVu Sans face, its licence beside it, and no bold face to download', () => {
     for (const [face, bytes] of Object.entries(faces)) {
-      // Fetched on the first PDF export, so kept small (the full faces are 740 kB and 690 kB).
+      // Fetched on the first PDF export, so kept small (the full face is 740 kB).
       expect(bytes.length, face).toBeLessThan(60_000);
       expect(bytes.readUInt32BE(0), `${face}: a TrueType file`).toBe(0x00010000);
     }
     expect(readFileSync(`${FONT_DIR}LICENSE.txt`, 'utf8')).toMatch(/Bitstream Vera Fonts Copyright[\s\S]*Arev Fonts/);
+    // Bold text is the regular face stroked (src/plot/pdf/pageContent.ts).
+    expect(readdirSync(FONT_DIR).filter((name) => name.endsWith('.ttf'))).toEqual(['DejaVuSans.ttf']);
   });
 
-  it('the subset faces hold a glyph for ASCII, Latin-1 and every character the plot, report and engine code writes', () => {
+  it('the subset face holds a glyph for ASCII, Latin-1 and every character the plot, report and engine code writes', () => {
     const wanted = new Set<string>(REQUIRED);
     for (let code = 0x20; code <= 0x7e; code++) wanted.add(String.fromCodePoint(code));
     for (let code = 0xa0; code <= 0xff; code++) wanted.add(String.fromCodePoint(code));
@@ -58,7 +57,7 @@ describe('pdfFonts', () => {
     expect([...subset].every((code) => full.has(code))).toBe(true);
   });
 
-  it('pdfOf embeds the shipped faces so Ω, ≥ and µ print, on the page asked for', async () => {
+  it('pdfOf embeds the shipped face so Ω, ≥ and µ print, on the page asked for', async () => {
     const sheet = sheetOf(fixtureInput({ notes: 'Earth fault path 1.2 Ω; margin ≥ 0.3 s; 50 µs' }));
     const pdf = await pdfOf(sheet, { paper: 'a3', orientation: 'portrait', fonts: faces });
     const text = Buffer.from(pdf).toString('latin1');
@@ -70,7 +69,7 @@ describe('pdfFonts', () => {
     expect(pdfStreamsOf(pdf).length).toBeGreaterThan(2);
   });
 
-  it('loadPdfFonts fetches both faces once, and tries again after a failed fetch', async () => {
+  it('loadPdfFonts fetches the face once, and tries again after a failed fetch', async () => {
     const fetched: string[] = [];
     let answer = 404;
     vi.stubGlobal('fetch', async (url: string) => {
@@ -78,13 +77,11 @@ describe('pdfFonts', () => {
       if (answer !== 200) return new Response(null, { status: answer });
       return new Response(readFileSync(`${ROOT}${url.replace(/^\//, '').replace(/\?.*$/, '')}`));
     });
-    await expect(loadPdfFonts()).rejects.toThrow(
-      /^PDF font \S*DejaVuSans(-Bold)?\.ttf: expected the file, got HTTP 404$/,
-    );
+    await expect(loadPdfFonts()).rejects.toThrow(/^PDF font \S*DejaVuSans\.ttf: expected the file, got HTTP 404$/);
     answer = 200;
     const fonts = await loadPdfFonts();
     expect(Buffer.from(fonts.regular).equals(faces.regular)).toBe(true);
-    expect(Buffer.from(fonts.bold).equals(faces.bold)).toBe(true);
+    expect(Object.keys(fonts)).toEqual(['regular']);
     const count = fetched.length;
     expect(await loadPdfFonts()).toBe(fonts);
     expect(fetched.length).toBe(count);
