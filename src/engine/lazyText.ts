@@ -1,19 +1,15 @@
+import { Stamped } from './hiddenSlot.ts';
+
 type LazyState = Record<string, unknown>;
 
 /**
  * Where an object made lazy keeps its builders, each replaced by its value once built: a private field
- * stamped on the object itself (a base class whose constructor returns the object it is given makes
- * `new` add the field to that object). The field is invisible to keys, JSON, cloning and deep equality,
- * and adding it is a plain store, where defining a hidden property cost a runtime call per object
- * (measured: half of making a finding lazy). A proxy does not carry private fields, so a lazy field is
+ * stamped on the object itself (`Stamped` makes `new` add the field to the object it is given). The
+ * field is invisible to keys, JSON, cloning and deep equality, and adding it is a plain store, where
+ * defining a hidden property cost a runtime call per object (measured: half of making a finding lazy). A proxy does not carry private fields, so a lazy field is
  * read on the object itself, never through a deep reactive proxy (the workbench keeps results in
  * `$state.raw`; structured cloning, as to and from the worker, reads the values first).
  */
-class Stamped {
-  constructor(target: object) {
-    return target;
-  }
-}
 class LazyFields extends Stamped {
   #state: LazyState;
   private constructor(target: object, state: LazyState) {

@@ -4,6 +4,7 @@ import { isPhaseShifting, primaryConnectionOf, secondaryWindingOf, throughFaultO
 import { locationBusOf, transformersBetween } from '../network/index.ts';
 import { findOverlaps, type OverlapInterval, type OverlapOptions, type WorstPoint } from '../overlap.ts';
 import { rememberedOverlaps } from '../overlapMemo.ts';
+import { hiddenSlot } from '../hiddenSlot.ts';
 import { sharedBuilders, withLazyText } from '../lazyText.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { CoordinationSettings, Device, Transformer } from '../study/index.ts';
@@ -268,7 +269,7 @@ export function isIllustrative(device: Device): boolean {
  * closure or two per fault case, with what they held, was a tenth of what a large study's analysis
  * keeps). Kept as long as the findings are.
  */
-const pairOfSubjects = new WeakMap<readonly string[], PairSentenceFacts>();
+const pairOfSubjects = hiddenSlot<PairSentenceFacts>();
 
 /**
  * The fault case and interval a finding that is not selective is about, as its id names them
