@@ -76,6 +76,10 @@ const RATIO_TIE = 1e-9;
 const MIN_CELLS = 1;
 
 const STATUSES: IntervalStatus[] = ['selective', 'thin margin', 'overlap', 'not provable from curves'];
+/** How far past its largest breakpoint an infinite bus's pair is checked at most: 10⁴ ×. */
+const INFINITE_BUS_REACH = 1e4;
+/** A band edge whose time changes by no more than this fraction over a decade is flat there. */
+const FLAT = 1e-6;
 
 /**
  * Finds, exactly, where an upstream band and a downstream band (on one voltage base) can and cannot be
@@ -109,11 +113,16 @@ export function findOverlaps(up: Band, down: Band, options: OverlapOptions): Ove
     samplesPerDecade = 12,
     tolerance = 1e-6,
   } = options;
-  // An infinite bus has no top current; beyond their last breakpoints both bands are flat, so ten
-  // times the largest one shows every change there is.
+  // An infinite bus has no top current. Past their last breakpoints the bands change only as their
+  // curves run on: a flat element not at all, an inverse curve with no definite-time floor for decades
+  // (an extremely inverse relay over a very inverse one crosses it well past ten times its pickup). So
+  // the range runs on by decades until both deciding edges are flat or below the half-cycle over the
+  // last one, and at most to 10⁴ × the largest breakpoint, beyond any fault a real system delivers.
   if (toAmps === Infinity) {
     const largest = Math.max(fromAmps, ...up.breakpoints, ...down.breakpoints);
-    return findOverlaps(up, down, { ...options, toAmps: 10 * largest });
+    let top = 10 * largest;
+    while (top < INFINITE_BUS_REACH * largest && !settledAbove(up, down, top, halfCycle)) top *= 10;
+    return findOverlaps(up, down, { ...options, toAmps: top });
   }
   if (!(fromAmps > 0) || !(toAmps > fromAmps)) return [];
   const pair = compared;
@@ -231,6 +240,17 @@ function isWorse(
   if (ratio < worstRatio * (1 - RATIO_TIE)) return true;
   if (!(ratio <= worstRatio * (1 + RATIO_TIE))) return false;
   return slack < worstSlack || (slack === -Infinity && worstSlack === -Infinity && upTime < worstUp);
+}
+
+/**
+ * Whether nothing can change above `amps`: over the decade from it, the upstream device's fast edge and
+ * the downstream device's slow edge are each flat, or at or below the half-cycle at both ends.
+ */
+function settledAbove(up: Band, down: Band, amps: number, halfCycle: number): boolean {
+  return [up.minTime, down.maxTime].every((time) => {
+    const [here, tenfold] = [time(amps), time(10 * amps)];
+    return here === tenfold || Math.abs(here - tenfold) <= FLAT * here || (here <= halfCycle && tenfold <= halfCycle);
+  });
 }
 
 /**

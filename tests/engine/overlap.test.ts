@@ -49,6 +49,15 @@ function veryInverse(pickup: number, dial: number, breaker = 0): Band {
   };
 }
 
+/** IEEE C37.112 extremely inverse (A 28.2, p 2, B 0.1217) at `pickup` primary amps and time dial `dial`. */
+function extremelyInverse(pickup: number, dial: number): Band {
+  const time = (amps: number) => {
+    const m = amps / pickup;
+    return m <= 1 ? Infinity : dial * (28.2 / (m * m - 1) + 0.1217);
+  };
+  return { ...veryInverse(pickup, dial), minTime: time, maxTime: time };
+}
+
 function statuses(intervals: OverlapInterval[]): string[] {
   return intervals.map((interval) => interval.status);
 }
@@ -224,9 +233,23 @@ describe('findOverlaps', () => {
 });
 
 describe('findOverlaps at an infinite bus', () => {
-  it('checks up to ten times the largest breakpoint when the fault current is unbounded', () => {
+  it('checks by decades past the largest breakpoint until both edges are flat or below the half-cycle', () => {
+    // The I²t ramp reads 0.04 s at 5 kA (still falling) and 0.0004 s at 50 kA, below the half-cycle: 50 kA is the top.
     const intervals = findOverlaps(definite(500, 0.5), ramp(1e6, 100), { toAmps: Infinity, margin: 0.1 });
-    expect(intervals.at(-1)!.toAmps).toBe(5000);
+    expect(intervals.at(-1)!.toAmps).toBe(50_000);
     expect(intervals.map((interval) => interval.status)).toEqual(['selective', 'overlap', 'thin margin', 'selective']);
+    // Two flat elements settle at once: ten times the largest breakpoint.
+    expect(findOverlaps(definite(800, 0.4), definite(200, 0.1), { toAmps: Infinity }).at(-1)!.toAmps).toBe(8000);
+  });
+
+  it('finds an extremely inverse relay crossing a very inverse one well past ten times their pickup', () => {
+    // IEEE C37.112 EI (A 28.2, p 2, B 0.1217) at dial 2.5 over VI (A 19.61, p 2, B 0.491) at dial 1, both 100 A:
+    // selective at 10 × pickup (1.016 s over 0.689 s), then the EI runs below the VI where
+    // 2.5·(28.2u + 0.1217) = 19.61u + 0.491 with u = 1/(M² − 1): u = 0.18675 / 50.89, M = 16.54, I = 1654 A.
+    const intervals = findOverlaps(extremelyInverse(100, 2.5), veryInverse(100, 1), { toAmps: Infinity });
+    expect(statuses(intervals)).toEqual(['selective', 'thin margin', 'overlap']);
+    assertInDelta(intervals[2].fromAmps, 100 * Math.sqrt(1 + 50.89 / 0.18675), 1e-6);
+    // Inverse curves never flatten: the range ends at 10⁴ × the largest breakpoint.
+    expect(intervals[2].toAmps).toBe(1e6);
   });
 });
