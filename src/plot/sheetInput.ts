@@ -82,6 +82,12 @@ export interface SheetFaultLine {
   ownAmps: number;
   kind: 'max' | 'min';
   /**
+   * How a bus at another voltage gives the sheet's current, where it is not plainly the voltage ratio
+   * ("through T1": the current flowing through that transformer), or what a ratio leaves out ("by the
+   * voltage ratio; T1's primary lines carry 641 A"); the label says it after the sheet's current.
+   */
+  reflection?: string;
+  /**
    * The operating scenario (or scenarios, as one phrase) the level belongs to, for a sheet that shows
    * the fault lines of several: it heads the line's label ("On generator: EMP 3.61 kA @ 480 V").
    */
@@ -98,6 +104,12 @@ export interface SheetRegion {
   status: RegionStatus;
   label: string;
   findingId: string;
+  /**
+   * A few words on which fault the region is, where its currents are not the ones a reader would
+   * assume ("secondary L-L": the fault's currents by the voltage ratio, the upstream band shifted);
+   * the region's label on the plot ends with them.
+   */
+  fault?: string;
   /**
    * The two edges in conflict, on the sheet's base: the upstream device's band (its `minTime`, the
    * earliest operation) and the downstream device's (its `maxTime`, the latest clearing). When given,

@@ -3,6 +3,7 @@ import type { Analysis } from '../engine/analysis.ts';
 import type { Finding } from '../engine/checks/finding.ts';
 import { fastestOf, groundFaultBandOf, scaleBand, type Band } from '../engine/band.ts';
 import { CAUTION } from '../engine/caution.ts';
+import { busFaultLineOf } from './busFaultLine.ts';
 import { longTimeRampBasis } from '../engine/devices/index.ts';
 import { locationBusOf } from '../engine/network/index.ts';
 import {
@@ -62,12 +63,19 @@ function hatchableOnSheet(findings: readonly Finding[], shown: ReadonlySet<strin
   return found.sort((a, b) => a.at - b.at).map(({ finding }) => finding);
 }
 
+/** The few words a region on a shifted upstream band ends its plot label with. */
+const SHIFTED_FAULT_WORDS: Record<string, string> = {
+  'line-to-line': 'secondary L-L',
+  'single-phase': 'single-phase secondary',
+  'line-to-neutral': 'secondary L-N',
+};
+
 /**
  * Gathers what one view of an analysed study draws, all on the view's reference voltage (DEVELOPERS.md, names):
  * each device's band scaled by `V_own / V_ref`, the transformer and cable withstand curves (with the
  * Δ–Yg secondary line-to-ground curve × 0.58 beside a transformer's three-phase curve, IEEE C37.91 / IEEE C57.109 delta–wye shift factors),
  * inrush points, motor starting curves, each bus's maximum fault current as a line labelled at both
- * voltages, and the non-selective regions of the view's pairs, each hatched between the two edges in
+ * voltages (at a transformer's primary voltage, the current through it: `busFaultLineOf`), and the non-selective regions of the view's pairs, each hatched between the two edges in
  * conflict. Where a finding rests on a secondary line-to-line fault the upstream band is drawn again,
  * shifted as the pair check shifted it (2/√3 across a Δ–Y transformer). A ground-fault view (`groundFault`) adds each ground-fault element's band, draws the
  * line-to-ground fault currents and hatches the ground-fault findings, which other views leave out.
@@ -208,21 +216,10 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   const busIds = view.faults ?? [
     ...new Set(view.devices.map((id) => locationBusOf(network, network.devices.get(id)!).id)),
   ];
-  const faultLines: SheetFaultLine[] = busIds
-    .map((busId) => {
-      const bus = network.buses.get(busId)!;
-      const level = faults.buses.get(busId)!.max;
-      const ownAmps = ground ? level.lineToGround : level.threePhase;
-      return {
-        busId,
-        label: ground ? `${busId} L-G` : busId,
-        amps: ownAmps * onSheet(bus.voltage),
-        ownVolts: bus.voltage,
-        ownAmps,
-        kind: 'max' as const,
-      };
-    })
-    .filter((f) => Number.isFinite(f.ownAmps) && f.ownAmps > 0);
+  const faultLines: SheetFaultLine[] = busIds.flatMap((busId) => {
+    const line = busFaultLineOf(network, faults, busId, ref, ground);
+    return line ? [line] : [];
+  });
 
   // Findings of the view's pairs, each hatched between its two edges; ground-fault ones only on a ground-fault view.
   const shown = new Set(view.devices);
@@ -262,18 +259,26 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
         f.id,
       )?.[1] ?? 'three-phase';
     if ((fault === 'ground-fault') !== ground) continue;
+    const isShifted = fault === 'line-to-line' || fault === 'single-phase' || fault === 'line-to-neutral';
+    const shift = isShifted ? shiftOf(f.subjects[0], f.subjects[1], fault) : 1;
+    const upName = network.devices.get(f.subjects[0])?.name ?? f.subjects[0];
     const region: SheetRegion = {
       fromAmps: (f.range.fromAmps * f.referenceVolts) / ref,
       toAmps: (f.range.toAmps * f.referenceVolts) / ref,
       status: f.status,
-      label: f.title,
+      // The region spans the fault's own currents by the voltage ratio; the finding's text also gives
+      // them as the upstream device carries them, shifted: say so, or the two ranges seem to disagree.
+      label:
+        shift === 1
+          ? f.title
+          : `${f.title} (the fault's current by the voltage ratio; ${upName} carries × ${significant(shift, 4)} of it)`,
+      ...(shift === 1 ? {} : { fault: SHIFTED_FAULT_WORDS[fault] }),
       findingId: f.id,
       edges: edgesOf(f.subjects[0], f.subjects[1], fault),
     };
     if (!(region.toAmps > region.fromAmps)) continue;
     regions.push(region);
-    if (fault === 'line-to-line' || fault === 'single-phase' || fault === 'line-to-neutral')
-      shifted.set(f.subjects[0], { shift: shiftOf(f.subjects[0], f.subjects[1], fault), fault });
+    if (isShifted) shifted.set(f.subjects[0], { shift, fault });
   }
   // The finding rests on the upstream band shifted for a secondary line-to-line fault: draw that band too.
   const faultWords: Record<string, string> = {

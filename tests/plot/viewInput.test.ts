@@ -2,8 +2,10 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../src/engine/analysis.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
+import { formatAmps } from '../../src/engine/quantity/format.ts';
 import { parseStudy } from '../../src/engine/study/index.ts';
 import { inferCurrentRange } from '../../src/plot/currentRange.ts';
+import { faultLabel } from '../../src/plot/marks/faultLine.ts';
 import { viewInputOf } from '../../src/plot/viewInput.ts';
 import { assertInDelta } from '../asserts.ts';
 
@@ -26,11 +28,35 @@ describe('viewInputOf', () => {
     expect(main.band.maxTime((20_000 * 480) / 12_470)).toBe(own.maxTime(20_000));
   });
 
-  it('labels the secondary fault with its primary-reflected value: 480/12 470 of the SWBD current', () => {
+  it('draws a secondary fault on the primary sheet at the current through the transformer: the SWBD total less its motors, × 480/12 470', () => {
     const analysis = analysed('selective');
     const swbd = viewInputOf(analysis, 'primary').faultLines[1];
-    assertInDelta(swbd.amps, (analysis.faults.buses.get('SWBD')!.max.threePhase * 480) / 12_470, 1e-12);
-    expect(swbd.ownVolts).toBe(480);
+    const fault = analysis.faults.buses.get('SWBD')!;
+    // The motors at 480 V feed the fault without passing through T1 (IEEE 399 current division): the
+    // line is the transformer's own reflected through-fault, the current R-T1 and the main carry.
+    assertInDelta(swbd.amps, analysis.faults.transformers.get('T1')!.reflectedToPrimary, 1e-12);
+    expect(swbd.amps).toBeLessThan((fault.max.threePhase * 480) / 12_470);
+    expect([swbd.ownVolts, swbd.ownAmps, swbd.reflection]).toEqual([
+      480,
+      fault.max.threePhase,
+      'through Service transformer',
+    ]);
+    expect(faultLabel(swbd, 12_470)).toBe('SWBD 30 kA @ 480 V → 1.09 kA @ 12.47 kV (through Service transformer)');
+  });
+
+  it("draws a secondary line-to-ground fault by the voltage ratio and names the Δ–Y primary's line current beside it", () => {
+    const analysis = analysed('selective');
+    const study = structuredClone(analysis.study);
+    study.views.push({ ...study.views.find((v) => v.id === 'primary')!, id: 'primary-ground', groundFault: true });
+    const ground = viewInputOf(analyseStudy(study), 'primary-ground').faultLines.find((f) => f.busId === 'SWBD')!;
+    const fault = analysis.faults.buses.get('SWBD')!;
+    assertInDelta(ground.amps, (fault.max.lineToGround * 480) / 12_470, 1e-12);
+    // The worst primary line of T1 (Δ–Yg) for that fault, from the fault engine: about 1/√3 of the ratio.
+    const worst = Math.max(...analysis.faults.transformers.get('T1')!.unbalanced.lineToGround.primaryLineAmps);
+    expect(worst / ground.amps).toBeCloseTo(1 / Math.sqrt(3), 1);
+    expect(faultLabel(ground, 12_470)).toBe(
+      `SWBD L-G 30.4 kA @ 480 V = 1.17 kA @ 12.47 kV (by the voltage ratio; Service transformer's primary lines carry ${formatAmps(worst, 3)})`,
+    );
   });
 
   it('adds the Δ–Yg secondary line-to-ground withstand curve, shifted by 1/√3 (IEEE C37.91 / IEEE C57.109 delta–wye shift factors item 2), and the inrush points', () => {
@@ -140,5 +166,19 @@ describe('viewInputOf', () => {
     assertInDelta(shifted.band.minTime(1000), plain.band.minTime(1000 * (2 / Math.sqrt(3))), 1e-9);
     expect(input.regions.some((r) => r.findingId.includes(':line-to-line:'))).toBe(true);
     expect(viewInputOf(analysed('selective'), 'office').bands.some((b) => b.id.endsWith(':line-to-line'))).toBe(false);
+  });
+
+  it("says a region of a secondary line-to-line fault spans the fault's currents by the voltage ratio, the upstream device carrying × 1.155", () => {
+    const analysis = analysed('fused');
+    const input = viewInputOf(analysis, 'office');
+    const region = input.regions.find((r) => r.findingId.includes(':line-to-line:'))!;
+    const finding = analysis.findings.find((f) => f.id === region.findingId)!;
+    // The finding's range at 208 V by the voltage ratio: what the plot hatches, on its 480 V base.
+    assertInDelta(region.fromAmps, (finding.range!.fromAmps * finding.referenceVolts!) / 480, 1e-12);
+    expect(region.fault).toBe('secondary L-L');
+    expect(region.label).toMatch(/\(the fault's current by the voltage ratio; .+ carries × 1\.155 of it\)$/);
+    expect(input.regions.filter((r) => r.findingId.includes(':three-phase:')).every((r) => r.fault === undefined)).toBe(
+      true,
+    );
   });
 });

@@ -187,9 +187,11 @@ export function faultLabelBand(
 
 /**
  * The text of a fault line's label: bus, "min" for a minimum level, the current at the bus's own
- * voltage and, if the sheet is on another base, "= the current drawn @ the sheet's voltage". A
- * `label` that already states a current ("… 28.4 kA @ 480 V") is taken as the whole text.
- * @example faultLabel({ busId: 'SWBD', label: 'SWBD', amps: 1093.99, ownVolts: 480, ownAmps: 28421.1, kind: 'max' }, 12470) // 'SWBD 28.4 kA @ 480 V = 1.09 kA @ 12.47 kV'
+ * voltage and, if the sheet is on another base, the current drawn @ the sheet's voltage: "= …" by the
+ * voltage ratio, "→ … (through T1)" where it is the current through a transformer, with any
+ * `reflection` note in brackets. A `label` that already states a current ("… 28.4 kA @ 480 V") is
+ * taken as the whole text.
+ * @example faultLabel({ busId: 'SWBD', label: 'SWBD', amps: 1094, ownVolts: 480, ownAmps: 29977, kind: 'max', reflection: 'through T1' }, 12470) // 'SWBD 30 kA @ 480 V → 1.09 kA @ 12.47 kV (through T1)'
  */
 export function faultLabel(fault: SheetFaultLine, referenceVolts: number): string {
   const scenario = fault.scenario ? `${fault.scenario}: ` : '';
@@ -198,7 +200,10 @@ export function faultLabel(fault: SheetFaultLine, referenceVolts: number): strin
   const kind = fault.kind === 'min' ? 'min ' : '';
   const own = `${scenario}${fault.label} ${kind}${faultAmps(fault.ownAmps)} @ ${formatVolts(fault.ownVolts)}`;
   const sameBase = Math.abs(fault.ownVolts - referenceVolts) <= 1e-9 * referenceVolts;
-  return sameBase ? own : `${own} = ${faultAmps(fault.amps)} @ ${formatVolts(referenceVolts)}`;
+  if (sameBase) return own;
+  const drawn = `${faultAmps(fault.amps)} @ ${formatVolts(referenceVolts)}`;
+  if (!fault.reflection) return `${own} = ${drawn}`;
+  return `${own} ${fault.reflection.startsWith('through') ? '→' : '='} ${drawn} (${fault.reflection})`;
 }
 
 /**

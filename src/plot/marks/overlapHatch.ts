@@ -117,7 +117,7 @@ export function overlapHatch(
   ];
 
   // Stage 3: the label, beside the region's middle line, the crossing end (the lowest current) first.
-  const text = `${region.status} ${formatRange(region.fromAmps, region.toAmps)}`;
+  const text = `${region.status} ${formatRange(region.fromAmps, region.toAmps)}${region.fault ? `, ${region.fault}` : ''}`;
   const size = fontSize * 0.9;
   const { width, height } = labelSize(text, size, 'bold');
   const anchors = [0, 0.25, 0.5, 0.75, 1].map((f): [number, number] => {

@@ -38,7 +38,10 @@ describe('scenarioFaultLinesOf', () => {
     const base = { ...view('emergency'), faults: ['EMP'], referenceVoltage: 12_470 };
     const [line] = scenarioFaultLinesOf(network, base, scenarios);
     expect(line.ownVolts).toBe(480);
-    expect(line.amps).toBeCloseTo((line.ownAmps * 480) / 12_470, 9);
+    // On the primary's voltage, the current through the transformer above EMP, as the view's own lines.
+    const through = scenarios[0].parts[0].faults.buses.get('EMP')!.reflected.find((r) => r.volts === 12_470)!;
+    expect(line.amps).toBeCloseTo(through.maxAmps, 9);
+    expect(line.reflection).toMatch(/^through /);
     const [ground] = scenarioFaultLinesOf(network, { ...base, groundFault: true }, scenarios);
     expect(ground.label).toBe('EMP L-G');
     expect(ground.ownAmps).toBe(scenarios[0].parts[0].faults.buses.get('EMP')!.max.lineToGround);
