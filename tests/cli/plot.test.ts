@@ -8,6 +8,8 @@ import { CAUTION } from '../../src/engine/caution.ts';
 import { pagesOf, readPdf, textRunsOf } from '../plot/pdf/pdfReader.ts';
 import { runVerb } from './run.ts';
 
+const standby = 'demo/harrowmere-standby.json';
+
 describe('discern plot', () => {
   it('has the expected defaults: the first view, as a standalone SVG carrying the caution', async () => {
     const { code, stdout, files } = await runVerb(
@@ -78,6 +80,45 @@ describe('discern plot', () => {
       const { code, stderr } = await runVerb(['demo/harrowmere-selective.json', ...args], plotCommand);
       expect(code).toBe(2);
       expect(stderr).toMatch(message);
+    }
+  });
+
+  it('notes on standard error, exit 0, a curve the figure leaves undrawn: the generator cable short-circuit limit lies off the axes', async () => {
+    const { code, stdout, stderr, files } = await runVerb(
+      [standby, '--scenario', 'on-generator', '--view', 'emergency-generator', '--out', 'out/g.svg'],
+      plotCommand,
+    );
+    expect(code).toBe(0);
+    expect(stdout).toBe('emergency-generator (On generator): wrote out/g.svg\n');
+    const notes = stderr.split('\n').filter(Boolean);
+    expect(notes.every((line) => line.startsWith('note: '))).toBe(true);
+    const undrawn = notes.find((line) => /short-circuit limit/.test(line));
+    expect(undrawn).toMatch(/^note: Generator cable short-circuit limit .* is not drawn$/);
+    // The figure itself names it nowhere: the note is the reader's only word of it.
+    expect(String(files.get('out/g.svg'))).not.toContain('short-circuit limit');
+  });
+
+  it("names on standard error, in SVG, PNG and PDF alike, each curve a small figure's key counts but cannot name", async () => {
+    const small = [standby, '--scenario', 'on-generator', '--view', 'emergency-generator', '--width', '480'];
+    const runs = await Promise.all(
+      ['out/s.svg', 'out/s.png', 'out/s.pdf'].map((out) =>
+        runVerb([...small, '--height', '360', '--out', out, '--scale', '1'], plotCommand),
+      ),
+    );
+    const [svgRun] = runs;
+    const svg = String(svgRun.files.get('out/s.svg'));
+    const more = /\+ (\d+) more curves? not named in this key/.exec(svg);
+    expect(more, 'the key ends with a count of what it leaves out').not.toBeNull();
+    expect(svg).not.toMatch(/drawing notes/);
+    const unnamed = svgRun.stderr.split('\n').filter((line) => /has no room on the plot or in its key/.test(line));
+    expect(unnamed).toHaveLength(Number(more![1]));
+    for (const line of unnamed) {
+      const name = /^note: "(.*)" has no room/.exec(line)![1];
+      expect(svg).not.toContain(name);
+    }
+    for (const run of runs) {
+      expect(run.code).toBe(0);
+      expect(run.stderr).toBe(svgRun.stderr);
     }
   });
 

@@ -24,7 +24,9 @@ const HELP = `discern plot <study.json> --out FILE — one view of a study as a 
                     which the view's devices are energised); the sheet is the tree of the source
                     feeding them, its title naming the scenario
 
-Every figure carries the caution line: for review by a qualified engineer.
+Every figure carries the caution line: for review by a qualified engineer. What the sheet leaves
+undrawn (outside its ranges) or unnamed (no room on the plot or in its key) is told on standard
+error after the file is written, one "note: …" line each; the exit code stays 0.
 `;
 
 /**
@@ -87,6 +89,8 @@ export const plotCommand: Command = {
     else if (format === 'png') io.writeFile(out, (await import('../../plot/png.ts')).pngOf(svgOf(sheet), { scale }));
     else io.writeFile(out, await (await import('../../plot/pdf.ts')).pdfOf(sheet, { paper, orientation }));
     io.stdout(`${viewId}${label ? ` (${label})` : ''}: wrote ${out}\n`);
+    // The figure cannot say what it left undrawn or unnamed; the workbench lists these beside the sheet.
+    for (const note of sheet.diagnostics) io.stderr(`note: ${oneLine(note)}\n`);
     return 0;
   },
 };
@@ -120,6 +124,11 @@ function viewTreeOf(study: Study, viewId: string, scenario?: Scenario): { analys
       expectedGot(`a scenario in which view "${viewId}" has devices energised`, scenario.id),
     );
   throw new InputError('--view', expectedGot('a view with devices energised in some scenario', viewId));
+}
+
+/** A drawing note on one line: a device name from the study may hold a line break. */
+function oneLine(note: string): string {
+  return note.replace(/\s*[\r\n]+\s*/g, ' ');
 }
 
 /** A positive number flag, or undefined when absent. */

@@ -55,7 +55,8 @@ export interface LegendGeometry {
  * The key under the plot, cut to what the plot could not label: a heading, then each entry (a
  * sample of its curve's code — fill and edges, dash, hatch or symbol — and its whole text) set
  * left to right and wrapped into rows across the width. Entries beyond `maxHeight` are counted in a
- * closing "+ n more …" line, never dropped unsaid. No entries, no key (height 0).
+ * closing "+ n more curves not named in this key" line, worded to fit the width, never dropped unsaid.
+ * No entries, no key (height 0).
  * @example legend(entries, { box, fontSize: 11 }).shown // entries.length when all fit
  */
 export function legend(entries: LegendEntry[], options: LegendOptions): LegendGeometry {
@@ -98,13 +99,14 @@ export function legend(entries: LegendEntry[], options: LegendOptions): LegendGe
   }
   if (shown < entries.length) {
     row += 1;
+    const moreSize = fontSize * 0.9;
     items.push(
       text(
         'legend-more',
         box.x,
         box.y + row * step + step * 0.8,
-        `+ ${entries.length - shown} more, named in the sheet's drawing notes (enlarge the sheet to show them here)`,
-        fontSize * 0.9,
+        moreLineOf(entries.slice(shown), box.width, moreSize),
+        moreSize,
         'normal',
         SHEET_COLOURS.mutedText,
       ),
@@ -208,6 +210,20 @@ function swatchItems(entry: LegendEntry, x: number, y: number, width: number): P
         },
       ];
   }
+}
+
+// Accepts the entries the key has no room for, the width and the size; the longest closing line that fits.
+// It names no notes: an exported figure carries none, and the workbench lists them beside the sheet anyway.
+function moreLineOf(left: LegendEntry[], width: number, size: number): string {
+  const n = left.length;
+  const curves = left.every((e) => e.swatch.kind === 'band' || e.swatch.kind === 'line');
+  const noun = curves ? (n === 1 ? 'curve' : 'curves') : n === 1 ? 'item' : 'items';
+  const wordings = [
+    `+ ${n} more ${noun} not named in this key; enlarge the sheet to name ${n === 1 ? 'it' : 'them'} here`,
+    `+ ${n} more ${noun} not named in this key`,
+    `+ ${n} more`,
+  ];
+  return wordings.find((line) => textWidth(line, size) <= width) ?? wordings[wordings.length - 1];
 }
 
 // Accepts a role, a baseline position and the text; one left-aligned line.
