@@ -1,16 +1,18 @@
-import { existsSync, mkdirSync, readFileSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { readFileSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { expectedGot, InputError } from '../engine/errors.ts';
 import type { Command, CommandIO } from './command.ts';
 import { commands } from './commands/index.ts';
+import { makeFolders, writeAllWhole, type WholeWritingIO } from './writeAll.ts';
 
-/** The process's streams and file system as a `CommandIO`. */
-export const nodeIO: CommandIO = {
+/** The process's streams and file system as a `CommandIO`, writing several files all or nothing. */
+export const nodeIO: WholeWritingIO = {
   stdout: (text) => void process.stdout.write(text),
   stderr: (text) => void process.stderr.write(text),
   readText: (path) => readFileSync(path, 'utf8'),
   writeFile: (path, data) => writeFileWhole(path, data),
+  writeAll: (outputs) => writeAllWhole(outputs),
 };
 
 /**
@@ -32,16 +34,6 @@ export function writeFileWhole(path: string, data: string | Uint8Array): void {
     const reason = (error as NodeJS.ErrnoException).code ?? 'an error';
     throw new InputError(path, expectedGot('a file that can be written', `${reason} writing ${path}`));
   }
-}
-
-/**
- * Creates a folder and its missing parents, one level at a time (Node's recursive mkdir can spin on
- * file systems that refuse folders, such as /proc).
- */
-function makeFolders(folder: string): void {
-  const missing: string[] = [];
-  for (let at = folder; !existsSync(at) && dirname(at) !== at; at = dirname(at)) missing.push(at);
-  for (let i = missing.length - 1; i >= 0; i--) mkdirSync(missing[i]);
 }
 
 /** `discern --help`: the verbs and their summaries. @example io.stdout(usageOf(commands)) */

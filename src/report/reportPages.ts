@@ -77,30 +77,42 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
     }
   };
 
-  // Cover: title, study details, revision log, notes and the cautions.
+  // Cover: title, study details, revision log, notes and the cautions. Every line asks for room first, so
+  // a long description or revision log runs on to further pages (running head and footer included)
+  // rather than printing over the footer or pushing the cautions off the page.
   newPage();
   y = top + 60;
-  for (const row of wrapText(report.title, contentWidth, 20, 'bold')) line(row, margin, 20, 'bold');
+  paragraph(report.title, margin, contentWidth, 20, 'bold');
   y += 16;
   const labelWidth = 90;
+  const detailStep = 11 * lineHeight;
   for (const [label, value] of report.details) {
     const rows = wrapText(value, contentWidth - labelWidth, 11);
-    page.push(textItem(label, margin, y + 11, 11, 'bold', SHEET_COLOURS.mutedText));
-    for (const row of rows) line(row, margin + labelWidth, 11);
+    (rows.length > 0 ? rows : ['']).forEach((row, i) => {
+      room(detailStep);
+      // The label goes beside the value's first row, on whichever page that row lands.
+      if (i === 0) page.push(textItem(label, margin, y + 11, 11, 'bold', SHEET_COLOURS.mutedText));
+      line(row, margin + labelWidth, 11);
+    });
     y += 3;
   }
-  if (report.revisions.length > 0) {
+  // A cover heading keeps its first line with it: room for both, or both go to the next page.
+  const coverHeading = (text: string, next: number) => {
     y += 12;
-    line('Revision log', margin, 11, 'bold');
+    room(detailStep + next);
+    line(text, margin, 11, 'bold');
+  };
+  if (report.revisions.length > 0) {
+    // The table itself asks for room for its header and two rows (small text, 4 pt padding).
+    coverHeading('Revision log', 3 * pageDefaults.small * lineHeight + 4);
     table(['revision', 'date', 'by', 'what changed'], report.revisions);
   }
   if (report.notes) {
-    y += 12;
-    line('Notes', margin, 11, 'bold');
+    coverHeading('Notes', body * lineHeight);
     paragraph(report.notes);
   }
-  y += 16;
-  line('Cautions', margin, 11, 'bold');
+  y += 4;
+  coverHeading('Cautions', body * lineHeight);
   for (const caution of report.cautions) bullet(caution);
 
   // Contents: filled in once the sections are laid out and their first pages are known.

@@ -1,9 +1,12 @@
-import { readFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { pathsCommand } from '../../src/cli/commands/paths.ts';
 import { reportCommand } from '../../src/cli/commands/report.ts';
+import { nodeIO, runCli } from '../../src/cli/main.ts';
 import { readStudy } from '../../src/engine/study/index.ts';
-import { runVerb } from './run.ts';
+import { memoryIO, runVerb } from './run.ts';
 
 describe('discern report', () => {
   it('has the expected defaults: Markdown with its figures written beside it', async () => {
@@ -31,6 +34,30 @@ describe('discern report', () => {
     expect(html).toMatch(/^<!DOCTYPE html>/);
     expect(html).toContain('@page { size: 1190.55pt 841.89pt;');
     expect(html).not.toMatch(/<script/i);
+  });
+
+  it('leaves the last good report and every figure as they were when one figure cannot be written', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'discern-report-'));
+    try {
+      writeFileSync(join(folder, 'keep-figure-1.svg'), 'ORIGINAL');
+      writeFileSync(join(folder, 'keep.md'), 'LAST GOOD REPORT');
+      // A folder where the third figure goes: its write fails after the first two are made.
+      mkdirSync(join(folder, 'keep-figure-3.svg'));
+      const before = readdirSync(folder).sort();
+      // The command line's own file writing, with the streams caught.
+      const io = { ...memoryIO(), writeFile: nodeIO.writeFile, writeAll: nodeIO.writeAll };
+      const code = await runCli(['report', 'demo/harrowmere-selective.json', '--out', join(folder, 'keep.md')], io);
+      expect(code).toBe(2);
+      expect(io.err.join('')).toMatch(
+        /^[^\n]*keep-figure-3\.svg: expected a file that can be written, got "EISDIR[^\n]*\n$/,
+      );
+      expect(readFileSync(join(folder, 'keep-figure-1.svg'), 'utf8')).toBe('ORIGINAL');
+      expect(readFileSync(join(folder, 'keep.md'), 'utf8')).toBe('LAST GOOD REPORT');
+      // No new figure and no temporary is left beside them.
+      expect(readdirSync(folder).sort()).toEqual(before);
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
   });
 
   it('refuses a bad paper, orientation or output with a one-line message naming the flag', async () => {

@@ -4,6 +4,7 @@ import { flagText, parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
 import { scenarioFlag } from '../scenarioFlag.ts';
 import { loadStudyFile } from '../studyFile.ts';
+import { type Output, writeOutputs } from '../writeAll.ts';
 
 const HELP = `discern report <study.json> --out FILE — the whole coordination study report
 
@@ -67,18 +68,22 @@ export const reportCommand: Command = {
     const only = scenarioFlag(parsed, study)?.id;
     const report = studyReportOf(analyseScenarios(study, { only }), { date });
     const setup = { paper, orientation } as const;
+    const outputs: Output[] = [];
     if (format === 'pdf') {
       // A parseable ISO date also becomes the PDF's creation date; otherwise a fixed one.
       const created = date !== undefined && !Number.isNaN(Date.parse(date)) ? date : undefined;
-      io.writeFile(out, await pdfOfReport(report, setup, { date: created }));
-    } else if (format === 'html') io.writeFile(out, htmlOfReport(report, setup));
+      outputs.push({ path: out, data: await pdfOfReport(report, setup, { date: created }) });
+    } else if (format === 'html') outputs.push({ path: out, data: htmlOfReport(report, setup) });
     else {
       const stem = out.replace(/^.*[\\/]/, '').replace(/\.md$/i, '');
       const { text, figures } = markdownOfReport(report, stem);
       const folder = out.slice(0, out.length - out.replace(/^.*[\\/]/, '').length);
-      for (const figure of figures) io.writeFile(`${folder}${figure.name}`, figure.svg);
-      io.writeFile(out, text);
+      for (const figure of figures) outputs.push({ path: `${folder}${figure.name}`, data: figure.svg });
+      outputs.push({ path: out, data: text });
     }
+    // Everything is made before anything is written, and written all or nothing: a failed figure must
+    // not leave the old report pointing at new figures, nor replace any figure of the last good report.
+    writeOutputs(io, outputs);
     io.stdout(`${study.name}: wrote ${out}\n`);
     return 0;
   },
