@@ -86,11 +86,12 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
     time: input.timeRange ?? DEFAULT_TIME_RANGE,
   };
   const brief = resolved.studyDetails === 'brief';
-  const strip = studyStrip(
-    { ...input, ...(brief ? { notes: undefined, caution: '' } : {}) },
-    { x: margin, y: margin, width: width - 2 * margin, fontSize },
-  );
-  const across = frameOf(ranges, { strip: strip.height, faults: 0, key: 0 }, resolved);
+  const stripWith = (parts: Partial<SheetInput>) =>
+    studyStrip({ ...input, ...parts }, { x: margin, y: margin, width: width - 2 * margin, fontSize });
+  const fullStrip = stripWith(brief ? { notes: undefined, caution: '' } : {});
+  // A short sheet may leave out its notes before its plot drops below its minimum height; never the caution.
+  const briefStrip = brief ? fullStrip : stripWith({ notes: undefined });
+  const across = frameOf(ranges, { strip: fullStrip.height, faults: 0, key: 0 }, resolved);
   const faultSlots = faultLabelSlots(input.faultLines, scalesOf(ranges, across.plot), {
     fontSize,
     referenceVolts: input.referenceVolts,
@@ -131,8 +132,10 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
   // Stage 3: the plot with its labels, laid out once with no key; again with room for the key if some label found no place.
   const entries = legendEntriesOf(input, { colours, coincident: new Map(), dashes, patternIds, markerColours });
   let key = 0;
+  let keyLeast = 0;
+  const bands = () => ({ strip: fullStrip.height, stripBrief: briefStrip.height, faults: faultBand, key, keyLeast });
   const traces = new Map<SheetBand, { key: string; trace: BandTrace | null }>();
-  let plot = drawPlot(input, frameOf(ranges, { strip: strip.height, faults: faultBand, key }, resolved), {
+  let plot = drawPlot(input, frameOf(ranges, bands(), resolved), {
     ranges,
     colours,
     dashes,
@@ -152,7 +155,9 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
   if (keyEntries.length > 0) {
     // The key may take up to a quarter of the sheet; what does not fit even then is counted and named in the notes.
     key = Math.min(legendHeight(keyEntries, keyWidth, fontSize), resolved.height / 4);
-    plot = drawPlot(input, frameOf(ranges, { strip: strip.height, faults: faultBand, key }, resolved), {
+    // Its least: the heading and the "+ n more" line.
+    keyLeast = legend(keyEntries, { box: { x: 0, y: 0, width: keyWidth }, fontSize, maxHeight: 0 }).height;
+    plot = drawPlot(input, frameOf(ranges, bands(), resolved), {
       ranges,
       colours,
       dashes,
@@ -167,9 +172,12 @@ export function sheetOf(input: SheetInput, options: SheetOptions = {}): Sheet {
   const diagnostics = [...plot.diagnostics];
   const keyGeometry = legend(keyEntries, {
     box: { x: margin, y: frame.keyTop, width: keyWidth },
-    maxHeight: key,
+    maxHeight: frame.keyHeight,
     fontSize,
   });
+  const strip = frame.stripBrief ? briefStrip : fullStrip;
+  if (frame.stripBrief && briefStrip.height < fullStrip.height)
+    diagnostics.push('The study strip leaves out its notes to keep the plot readable; enlarge the sheet to show them');
   for (const e of keyEntries.slice(keyGeometry.shown))
     diagnostics.push(`"${e.text}" has no room on the plot or in its key; enlarge the sheet to see it named there`);
   void entries;

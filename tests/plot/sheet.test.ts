@@ -1,7 +1,11 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { analyseStudy } from '../../src/engine/analysis.ts';
+import { parseStudy } from '../../src/engine/study/index.ts';
 import { boxesOverlap, boxInside } from '../../src/plot/geometry.ts';
 import { DEFAULT_TIME_RANGE, sheetOf } from '../../src/plot/sheet.ts';
 import { textWidth } from '../../src/plot/textWidth.ts';
+import { viewInputOf } from '../../src/plot/viewInput.ts';
 import { fixtureInput } from './fixtures.ts';
 
 describe('sheetOf', () => {
@@ -134,5 +138,21 @@ describe('sheetOf', () => {
     expect(roles(brief)).not.toContain('caution');
     expect(roles(brief)).toContain('sheet-title');
     expect(brief.frame.top).toBeLessThan(full.frame.top);
+  });
+
+  it('sheetOf at the smallest size keeps a readable plot, and keeps the caution while it drops the notes', () => {
+    // The demo's service sheet at 480 × 360: its strip and key left the plot 6.7 px tall.
+    const analysis = analyseStudy(parseStudy(readFileSync('demo/harrowmere-overlap.json', 'utf8')));
+    const sheet = sheetOf(viewInputOf(analysis, 'service'), { width: 480, height: 360 });
+    expect(sheet.frame.bottom - sheet.frame.top).toBeGreaterThan(80);
+    const roles = sheet.layers.flatMap((l) => l.items).map((p) => p.role);
+    expect(roles).toContain('caution');
+    expect(sheet.diagnostics).toContain(
+      'The study strip leaves out its notes to keep the plot readable; enlarge the sheet to show them',
+    );
+    // At the default size nothing is left out.
+    expect(sheetOf(viewInputOf(analysis, 'service')).diagnostics.some((d) => d.startsWith('The study strip'))).toBe(
+      false,
+    );
   });
 });
