@@ -1,8 +1,9 @@
 import type { Analysis } from '../engine/analysis.ts';
 import { CAUTIONS } from '../engine/caution.ts';
 import { formatAmps, formatVolts, significant } from '../engine/quantity/index.ts';
-import { findingRows } from '../engine/report/findingsTable.ts';
-import { settingsTableOf } from '../engine/report/settingsTable.ts';
+import type { Finding, Severity } from '../engine/checks/finding.ts';
+import { findingRows, scenarioCountsOf } from '../engine/report/findingsTable.ts';
+import { RECOMMENDATION_NOTE, settingsTableOf } from '../engine/report/settingsTable.ts';
 import { settingsText } from '../engine/report/settingsText.ts';
 import { locationBusOf } from '../engine/network/index.ts';
 import { scenariosOf, switchPosition } from '../engine/scenario/index.ts';
@@ -77,10 +78,10 @@ export function studyReportOf(analysis: Analysis, options: StudyReportOptions = 
       {
         id: 'one-line',
         title: 'One-line diagram',
-        blocks: treesOf(analysis).map(({ label, tree }) => ({
+        blocks: treesOf(analysis).map(({ label, scenario, tree }) => ({
           type: 'figure',
           caption: `The system as modelled${label ? ` ${label}` : ''}, with maximum and minimum fault currents`,
-          drawing: oneLineOf(tree),
+          drawing: oneLineOf(scenario === undefined ? tree : withFindingsIn(tree, analysis.findings, scenario)),
         })),
       },
       { id: 'faults', title: 'Fault currents', blocks: faultBlocks(analysis) },
@@ -181,15 +182,32 @@ function scenarioBlocks(analysis: Analysis): ReportBlock[] {
   ];
 }
 
-/** Each energised tree the report draws and tabulates: the study itself, or every scenario's parts, labelled. */
-function treesOf(analysis: Analysis): { label?: string; tree: Analysis }[] {
+/**
+ * Each energised tree the report draws and tabulates: the study itself, or every scenario's parts,
+ * labelled, with the label of their scenario as its findings name it.
+ */
+function treesOf(analysis: Analysis): { label?: string; scenario?: string; tree: Analysis }[] {
   if (!analysis.scenarios) return [{ tree: analysis }];
   return analysis.scenarios.flatMap((s) =>
     s.parts.map((tree) => ({
       label: s.parts.length > 1 ? `in "${s.label}", fed from ${tree.study.source.id}` : `in "${s.label}"`,
+      scenario: s.label,
       tree,
     })),
   );
+}
+
+/**
+ * One scenario's tree with the merged findings that hold in that scenario, in place of the tree's own:
+ * the NFPA 70 selective-coordination findings are worked out across scenarios after the trees'
+ * findings are merged, so only the merged list has them. Findings about devices of another tree of the
+ * same scenario mark nothing on this one.
+ */
+function withFindingsIn(tree: Analysis, merged: readonly Finding[], scenario: string): Analysis {
+  const findings = merged.filter((f) => f.scenarios?.includes(scenario));
+  const counts: Record<Severity, number> = { ok: 0, info: 0, warning: 0, fail: 0 };
+  for (const finding of findings) counts[finding.severity]++;
+  return { ...tree, findings, counts };
 }
 
 // Accepts the analysis; the table of fault currents at every bus, per scenario for a switched study.
@@ -245,7 +263,15 @@ function settingsBlocks(analysis: Analysis): ReportBlock[] {
       settingsText(device.characteristic).join('; '),
     ];
   });
-  const windows = settingsTableOf(analysis.study);
+  // The windows in the scenarios the report covers (every one, or the one chosen), each row naming its own.
+  const windows = settingsTableOf(analysis.study, { scenarios: analysis.scenarios?.map((s) => s.scenario.id) });
+  const switched = windows.some((w) => w.scenarios);
+  // One line per device (and scenario) whose recommendation misses a constraint, not one per setting.
+  const notKept = [
+    ...new Set(
+      windows.filter((w) => w.notKept).map((w) => `${w.device}${switched ? ` (${w.scenarios})` : ''}: ${w.notKept}`),
+    ),
+  ];
   return [
     { type: 'table', columns: ['device', 'location', 'settings'], rows },
     ...(windows.length === 0
@@ -253,13 +279,33 @@ function settingsBlocks(analysis: Analysis): ReportBlock[] {
       : [
           {
             type: 'paragraph' as const,
-            text: 'Setting windows: each adjustable setting with the device’s other settings and the rest of the study held as they are, the window in which every constraint holds, the recommended value (the fastest-clearing setting that keeps every constraint) and the constraints that set the window’s edges.',
+            text: `Setting windows: each adjustable setting with the device’s other settings and the rest of the study held as they are, the window in which no constraint fails, the recommended value and the constraints that set the window’s edges${switched ? ', in each scenario that energises the device (a row that reads the same in several scenarios names them all)' : ''}. ${RECOMMENDATION_NOTE} Every constraint not kept at a recommended setting is listed after the table, with its margin.`,
           },
           {
             type: 'table' as const,
-            columns: ['device', 'setting', 'now', 'window', 'recommended', 'binding constraints'],
-            rows: windows.map((w) => [w.device, w.setting, w.current, w.window, w.recommended, w.binding]),
+            columns: [
+              'device',
+              'setting',
+              'now',
+              'window',
+              'recommended',
+              'binding constraints',
+              ...(switched ? ['scenarios'] : []),
+            ],
+            rows: windows.map((w) => [
+              w.device,
+              w.setting,
+              w.current,
+              w.window,
+              w.recommended,
+              w.binding,
+              ...(switched ? [w.scenarios] : []),
+            ]),
           },
+          notKept.length === 0
+            ? { type: 'paragraph' as const, text: 'Every recommendation keeps every constraint.' }
+            : { type: 'paragraph' as const, text: 'Constraints not kept at the recommended setting:' },
+          ...(notKept.length === 0 ? [] : [{ type: 'list' as const, items: notKept }]),
         ]),
   ];
 }
@@ -282,25 +328,37 @@ function sheetBlocks(analysis: Analysis): ReportBlock[] {
   );
 }
 
-// Accepts the analysis; the findings table and each finding needing attention written out.
+// Accepts the analysis; the findings table and each finding needing attention written out, with the
+// scenarios each holds in for a switched study (the labels `check` prints).
 function findingBlocks(analysis: Analysis): ReportBlock[] {
   const rows = findingRows(analysis);
   const { counts } = analysis;
+  const switched = analysis.scenarios !== undefined;
   const attention = rows.filter((row) => row.severity === 'fail' || row.severity === 'warning');
+  const countsText = (c: Record<Severity, number>) =>
+    `${c.fail} failing, ${c.warning} warning${c.warning === 1 ? '' : 's'}, ${c.info} note${c.info === 1 ? '' : 's'} and ${c.ok} passing check${c.ok === 1 ? '' : 's'}`;
+  const perScenario = scenarioCountsOf(analysis).map(({ label, counts: c }) => `${label}: ${countsText(c)}.`);
   return [
-    {
-      type: 'paragraph',
-      text: `${counts.fail} failing, ${counts.warning} warnings, ${counts.info} notes and ${counts.ok} passing checks.`,
-    },
+    { type: 'paragraph', text: `${countsText(counts)}.` },
+    ...(perScenario.length > 1
+      ? [
+          {
+            type: 'paragraph' as const,
+            text: 'By scenario (a finding holding in several scenarios counts in each):',
+          },
+          { type: 'list' as const, items: perScenario },
+        ]
+      : []),
     {
       type: 'table',
-      columns: ['severity', 'finding', 'current range', 'worst margin'],
-      rows: rows.map((row) => [row.severity, row.title, row.range, row.worst]),
+      columns: ['severity', 'finding', 'current range', 'worst margin', ...(switched ? ['scenarios'] : [])],
+      rows: rows.map((row) => [row.severity, row.title, row.range, row.worst, ...(switched ? [row.scenarios] : [])]),
     },
     ...attention.map((row): ReportBlock => ({
       type: 'list',
       items: [
         `${row.severity}: ${row.title}. ${row.explanation}`,
+        ...(switched ? [`Holds in: ${row.scenarios}`] : []),
         ...(row.suggestion ? [`Suggested direction: ${row.suggestion}`] : []),
         ...(row.basis ? [`Basis: ${row.basis}`] : []),
       ],

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { formatAmps } from '../../src/engine/quantity/index.ts';
+import { formatAmps, significant } from '../../src/engine/quantity/index.ts';
+import { settingWindowOf } from '../../src/engine/window/index.ts';
 import { analyseScenarios } from '../../src/engine/scenario/index.ts';
 import { parseStudy } from '../../src/engine/study/index.ts';
 import { studyReportOf, type ReportBlock } from '../../src/report/studyReport.ts';
@@ -55,5 +56,114 @@ describe('the report of a study with scenarios (standby demo)', () => {
       'Emergency chain at 480 V — On generator',
       'Emergency chain at 480 V — Dock on the office feeder',
     ]);
+  });
+});
+
+type Table = Extract<ReportBlock, { type: 'table' }>;
+const overlapStudy = parseStudy(readFileSync('demo/harrowmere-standby-overlap.json', 'utf8'));
+const overlap = analyseScenarios(overlapStudy);
+const overlapReport = studyReportOf(overlap, { date: '2026-12-03' });
+const blocksOf = (id: string, of = overlapReport) => of.sections.find((s) => s.id === id)!.blocks;
+const tableWith = (blocks: ReportBlock[], column: string) =>
+  blocks.find((b): b is Table => b.type === 'table' && b.columns.includes(column))!;
+
+describe('the findings of a study with scenarios say where each holds (standby overlap demo)', () => {
+  it("tells the fan breaker's two interrupting-duty rows apart by a scenarios column: 16.1 kA on the utility, 3970 A on the generator", () => {
+    const table = tableWith(blocksOf('findings'), 'worst margin');
+    expect(table.columns).toEqual(['severity', 'finding', 'current range', 'worst margin', 'scenarios']);
+    const duty = table.rows.filter((r) => r[1].startsWith('Exhaust fan breaker 50 A: rated 22 kA, duty'));
+    const where = (title: string) => overlap.findings.find((f) => f.title === title)!.scenarios!.join('; ');
+    expect(duty.map((r) => [r[1], r[4]])).toEqual(duty.map((r) => [r[1], where(r[1])]));
+    expect(duty.find((r) => r[1].endsWith('duty 3970 A'))![4]).toBe('On generator');
+    expect(duty.find((r) => r[1].endsWith('duty 16.1 kA'))![4]).toBe('Normal; Dock on the office feeder');
+  });
+
+  it('says the NFPA 70 700.32 failure of the fan breaker holds only on the generator, in its written-out entry', () => {
+    const entry = blocksOf('findings').find(
+      (b) => b.type === 'list' && b.items[0].startsWith('fail: Exhaust fan breaker 50 A: NFPA 70 700.32'),
+    );
+    expect(entry).toMatchObject({ items: expect.arrayContaining(['Holds in: On generator']) });
+  });
+
+  it('counts the findings of each scenario: a finding holding in two scenarios counts in both', () => {
+    const list = blocksOf('findings').find((b) => b.type === 'list' && b.items[0].startsWith('Normal: '));
+    if (list?.type !== 'list') throw new Error('no per-scenario counts');
+    const counted = list.items.map((item) => {
+      const [, label, fail, warning] = /^(.+): (\d+) failing, (\d+) warnings?, /.exec(item)!;
+      return { label, fail: Number(fail), warning: Number(warning) };
+    });
+    expect(counted).toEqual(
+      overlap.scenarios!.map(({ label }) => {
+        const here = overlap.findings.filter((f) => f.scenarios!.includes(label));
+        const n = (severity: string) => here.filter((f) => f.severity === severity).length;
+        return { label, fail: n('fail'), warning: n('warning') };
+      }),
+    );
+    expect(counted[1]).toMatchObject({ label: 'On generator', fail: 2 });
+  });
+});
+
+describe('the one-line diagrams of a study with scenarios', () => {
+  it("mark the exhaust fan breaker's NFPA 70 700.32 warning (illustrative curves) in every scenario it holds in (standby demo)", () => {
+    const standby = analyseScenarios(parseStudy(readFileSync('demo/harrowmere-standby.json', 'utf8')));
+    const code = standby.findings.find((f) => f.id === 'code-selectivity:EM-BR')!;
+    expect(code).toMatchObject({ severity: 'warning', subjects: ['EM-BR'] });
+    // The finding is added after the scenarios' own findings are merged: no tree's own list has it.
+    expect(standby.scenarios!.flatMap((s) => s.parts).some((p) => p.findings.some((f) => f.id === code.id))).toBe(
+      false,
+    );
+    const figures = blocksOf('one-line', studyReportOf(standby)).filter((b) => b.type === 'figure');
+    expect(figures).toHaveLength(code.scenarios!.length);
+    for (const figure of figures) {
+      const marks = figure.drawing.layers.find((layer) => layer.name === 'findings')!.items;
+      expect(
+        marks.some((m) => m.dataId === 'EM-BR' && m.type === 'text' && m.text === '?'),
+        figure.caption,
+      ).toBe(true);
+    }
+  });
+});
+
+describe('the setting windows of a study with scenarios', () => {
+  it("works Main's short-time pickup out in each scenario: its window opens lower with the dock on the office feeder", () => {
+    const table = tableWith(blocksOf('settings'), 'binding constraints');
+    expect(table.columns.at(-1)).toBe('scenarios');
+    const rows = table.rows.filter((r) => r[0] === 'Main 2000 A' && r[1] === 'short-time pickup');
+    // The lower edge of the window as the engine's `window --scenario` works it out.
+    const windowIn = (scenario: string) =>
+      significant(
+        settingWindowOf(overlapStudy, 'MAIN', { scenario, maps: false, remedies: false }).settings.find(
+          (s) => s.label === 'short-time pickup',
+        )!.intervals[0].from,
+        4,
+      );
+    expect(windowIn('normal')).not.toBe(windowIn('tie-closed'));
+    expect(rows.map((r) => r.at(-1))).toEqual(['Normal', 'Dock on the office feeder']);
+    expect(rows[0][3].startsWith(`${windowIn('normal')}–`)).toBe(true);
+    expect(rows[1][3].startsWith(`${windowIn('tie-closed')}–`)).toBe(true);
+  });
+
+  it('with --scenario on-generator, leaves out the T1 primary relay the generator does not energise and names the scenario in each row', () => {
+    const onGenerator = studyReportOf(analyseScenarios(overlapStudy, { only: 'on-generator' }));
+    const blocks = blocksOf('settings', onGenerator);
+    expect(tableWith(blocks, 'location').rows.find((r) => r[0] === 'T1 primary relay')![1]).toBe('not energised');
+    const windows = tableWith(blocks, 'binding constraints');
+    expect(windows.rows.map((r) => r[0])).not.toContain('T1 primary relay');
+    expect(new Set(windows.rows.map((r) => r[0]))).toEqual(new Set(['Generator breaker 600 A']));
+    expect(new Set(windows.rows.map((r) => r.at(-1)))).toEqual(new Set(['On generator']));
+  });
+
+  it("does not say a recommendation keeps every constraint, and lists the generator breaker's damage curve it misses", () => {
+    const blocks = blocksOf('settings');
+    const text = blocks.flatMap((b) => (b.type === 'paragraph' ? [b.text] : [])).join('\n');
+    expect(text).not.toMatch(/setting that keeps every constraint/);
+    const missed = settingWindowOf(overlapStudy, 'GEN-CB', { scenario: 'on-generator' })
+      .recommendation!.margins.filter((m) => m.result.margin < 0)
+      .map((m) => m.label);
+    expect(missed).toContainEqual(expect.stringMatching(/^clear below Standby generator .*'s damage curve/));
+    const item = blocks
+      .flatMap((b) => (b.type === 'list' ? b.items : []))
+      .find((i) => i.startsWith('Generator breaker 600 A (On generator): '))!;
+    for (const label of missed) expect(item).toContain(label);
   });
 });

@@ -1,8 +1,8 @@
 import { CAUTION } from '../caution.ts';
 import { significant } from '../quantity/format.ts';
 import type { Study } from '../study/index.ts';
-import { treeHolding } from '../scenario/index.ts';
-import { settingText, settingWindowOf, type SettingWindow } from '../window/index.ts';
+import { hasScenarios, scenarioLabel, scenariosOf, treeHolding } from '../scenario/index.ts';
+import { settingText, settingWindowOf, type ConstraintMargin, type SettingWindow } from '../window/index.ts';
 import { csvCell } from './csv.ts';
 
 /** One row of the settings table: a device's setting now, its window, the recommendation and what binds it. */
@@ -18,35 +18,85 @@ export interface SettingsTableRow {
   recommended: string;
   /** The constraints at the window's lower and upper edges, or what closes it. */
   binding: string;
+  /**
+   * The constraints the device's recommended setting does not keep, with their margins, "; "-joined
+   * ("clear below G1's damage curve up to 3740 A — -24.4 s at 891 A"); "" when it keeps every one or
+   * there is no recommendation. The same on every row of one device in one scenario.
+   */
+  notKept: string;
+  /**
+   * The scenarios whose windows the row reads, "; "-joined with the labels `check` prints
+   * ("Normal; Dock on the office feeder"); "" for a study without scenarios.
+   */
+  scenarios: string;
 }
 
 /** Options of `settingsTableOf`. */
 export interface SettingsTableOptions {
   /** The devices to list (ids). @default every adjustable device of the study */
   deviceIds?: string[];
+  /**
+   * For a study with scenarios, the scenarios (ids) whose windows are worked out: each device in every
+   * one of them that energises it. Ignored for a study without scenarios.
+   * @default the first scenario that energises each device
+   */
+  scenarios?: string[];
 }
 
 /**
  * The study report's settings table: for every adjustable setting of every device (or those given),
- * the present value, the setting window with the others held, the recommended value and the binding
- * constraints of the window's edges (`settingWindowOf`, without maps; in a switched study, in the first
- * scenario that energises the device). Devices without settings are left out.
+ * the present value, the setting window with the others held, the recommended value, the binding
+ * constraints of the window's edges and the constraints the recommendation does not keep
+ * (`settingWindowOf`, without maps). In a switched study each device's window is worked out in each
+ * scenario of `options.scenarios` that energises it (by default the first that does), and a row that
+ * reads the same in several scenarios is given once, naming them all. Devices without settings are
+ * left out.
  *
- * @example settingsMarkdown(settingsTableOf(study))
+ * @example settingsMarkdown(settingsTableOf(study, { scenarios: ['on-generator'] }))
  */
 export function settingsTableOf(study: Study, options: SettingsTableOptions = {}): SettingsTableRow[] {
-  const { deviceIds = study.devices.map((d) => d.id) } = options;
+  const { deviceIds = study.devices.map((d) => d.id), scenarios: chosen } = options;
+  const windowOf = (tree: Study, id: string) => settingWindowOf(tree, id, { maps: false, remedies: false });
+  if (!hasScenarios(study)) return deviceIds.flatMap((id) => rowsOf(windowOf(study, id)));
+  const scenarios = scenariosOf(study).filter((s) => chosen === undefined || chosen.includes(s.id));
   return deviceIds.flatMap((id) => {
-    // A switched study: the window in the first scenario that energises the device.
-    const tree = treeHolding(study, id);
-    return tree ? rowsOf(settingWindowOf(tree, id, { maps: false, remedies: false })) : [];
+    const readings: { label: string; rows: SettingsTableRow[] }[] = [];
+    for (const scenario of scenarios) {
+      const tree = treeHolding(study, id, scenario.id);
+      if (!tree) continue;
+      readings.push({ label: scenarioLabel(scenario), rows: rowsOf(windowOf(tree, id)) });
+      // Without a choice, the first scenario that energises the device (as `window` without --scenario).
+      if (chosen === undefined) break;
+    }
+    return mergedRows(readings);
   });
+}
+
+// Accepts one device's rows in each scenario, in scenario order; each distinct row once, naming every
+// scenario it reads the same in, ordered by setting (a setting's readings in scenario order).
+function mergedRows(readings: { label: string; rows: SettingsTableRow[] }[]): SettingsTableRow[] {
+  const merged = new Map<string, SettingsTableRow & { labels: string[] }>();
+  const order = new Map<string, number>();
+  for (const { label, rows } of readings)
+    for (const row of rows) {
+      if (!order.has(row.setting)) order.set(row.setting, order.size);
+      const key = [row.setting, row.current, row.window, row.recommended, row.binding, row.notKept].join('\n');
+      const known = merged.get(key);
+      if (known) known.labels.push(label);
+      else merged.set(key, { ...row, labels: [label] });
+    }
+  return [...merged.values()]
+    .sort((a, b) => order.get(a.setting)! - order.get(b.setting)!)
+    .map(({ labels, ...row }) => ({ ...row, scenarios: labels.join('; ') }));
 }
 
 /** The rows of one device's window. @example rowsOf(settingWindowOf(study, 'MAIN')) */
 export function rowsOf(window: SettingWindow): SettingsTableRow[] {
   if (!window.adjustable) return [];
   const recommended = new Map(window.recommendation?.settings.map((s) => [s.key, s]) ?? []);
+  const notKept = notKeptOf(window.recommendation?.margins ?? [])
+    .map((m) => `${m.label} — ${m.result.text}`)
+    .join('; ');
   const switchRows = window.switches.map((s) => ({
     deviceId: window.deviceId,
     device: window.deviceName,
@@ -59,6 +109,8 @@ export function rowsOf(window: SettingWindow): SettingsTableRow[] {
         .join(', ') || 'none',
     recommended: recommended.has(s.key) ? settingText(s.key, recommended.get(s.key)!.to) : '—',
     binding: '',
+    notKept,
+    scenarios: '',
   }));
   const settingRows = window.settings.map((s) => {
     const interval = s.intervals[0];
@@ -74,19 +126,53 @@ export function rowsOf(window: SettingWindow): SettingsTableRow[] {
       binding: interval
         ? `from: ${interval.lower.label}; up to: ${interval.upper.label}`
         : `closed by: ${s.blocked.map((b) => b.label).join('; ')}`,
+      notKept,
+      scenarios: '',
     };
   });
   return [...switchRows, ...settingRows];
 }
 
-const HEADERS = ['device', 'setting', 'now', 'window (others held)', 'recommended', 'binding constraints'];
-const cellsOf = (row: SettingsTableRow) => [
+/**
+ * The constraints a setting does not keep, from its margins: those that fail, and those that hold with
+ * a negative margin. The recommendation search only refuses failures, and a few checks warn rather
+ * than fail (a generator's damage curve, clearing the minimum fault within the time allowed), so a
+ * recommendation can miss them; constraints no setting changes (interrupting duty) are kept or not
+ * whatever the setting.
+ *
+ * @example notKeptOf(settingWindowOf(study, 'GEN-CB').recommendation!.margins).map((m) => m.label)
+ */
+export function notKeptOf(margins: readonly ConstraintMargin[]): ConstraintMargin[] {
+  return margins.filter((m) => !m.result.ok || m.result.margin < 0);
+}
+
+/**
+ * What the recommended value is and what it can still miss, for every table of setting windows to
+ * state; each table then says where it names the constraints not kept.
+ */
+export const RECOMMENDATION_NOTE =
+  'The recommended value is the fastest-clearing setting found at which no constraint the settings can change fails: it does not overlap the devices below or above, and keeps the withstand, inrush, motor-starting, load and code limits. Bounds the checks only warn about, such as a generator’s damage curve or clearing the minimum fault in the zone within the time allowed, can still be missed at it, as can limits no setting changes (interrupting duty).';
+
+const HEADERS = [
+  'device',
+  'setting',
+  'now',
+  'window (others held)',
+  'recommended',
+  'binding constraints',
+  'not kept at the recommendation',
+];
+// A study with scenarios adds a last column naming the scenarios each row reads.
+const headersOf = (rows: SettingsTableRow[]) => (rows.some((r) => r.scenarios) ? [...HEADERS, 'scenarios'] : HEADERS);
+const cellsOf = (row: SettingsTableRow, headers: string[]) => [
   row.device,
   row.setting,
   row.current,
   row.window,
   row.recommended,
   row.binding,
+  row.notKept,
+  ...(headers.length > HEADERS.length ? [row.scenarios] : []),
 ];
 
 /**
@@ -95,14 +181,15 @@ const cellsOf = (row: SettingsTableRow) => [
  */
 export function settingsMarkdown(rows: SettingsTableRow[]): string {
   const escape = (cell: string) => cell.replace(/\|/g, '\\|');
+  const headers = headersOf(rows);
   const lines = [
     '## Settings',
     '',
-    'Each setting with the device’s other settings and the rest of the study held as they are; the recommended value is the fastest-clearing setting that keeps every constraint.',
+    `Each setting with the device’s other settings and the rest of the study held as they are. ${RECOMMENDATION_NOTE} Every constraint not kept at the recommended setting is named, with its margin, in the column “not kept at the recommendation”.`,
     '',
-    `| ${HEADERS.join(' | ')} |`,
-    `| ${HEADERS.map(() => '---').join(' | ')} |`,
-    ...rows.map((row) => `| ${cellsOf(row).map(escape).join(' | ')} |`),
+    `| ${headers.join(' | ')} |`,
+    `| ${headers.map(() => '---').join(' | ')} |`,
+    ...rows.map((row) => `| ${cellsOf(row, headers).map(escape).join(' | ')} |`),
     '',
     `_${CAUTION}_`,
     '',
@@ -115,10 +202,11 @@ export function settingsMarkdown(rows: SettingsTableRow[]): string {
  * @example settingsCsv(settingsTableOf(study)).split('\r\n')[0] // 'device,setting,now,…'
  */
 export function settingsCsv(rows: SettingsTableRow[]): string {
+  const headers = headersOf(rows);
   const lines = [
-    HEADERS.map(csvCell).join(','),
-    ...rows.map((row) => cellsOf(row).map(csvCell).join(',')),
-    `caution,${csvCell(CAUTION)},,,,`,
+    headers.map(csvCell).join(','),
+    ...rows.map((row) => cellsOf(row, headers).map(csvCell).join(',')),
+    `caution,${csvCell(CAUTION)}${','.repeat(headers.length - 2)}`,
   ];
   return `${lines.join('\r\n')}\r\n`;
 }

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { CAUTION } from '../../../src/engine/caution.ts';
 import { settingsCsv, settingsMarkdown, settingsTableOf } from '../../../src/engine/report/settingsTable.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
+import { settingWindowOf } from '../../../src/engine/window/index.ts';
 
 const study = parseStudy(readFileSync('demo/harrowmere-overlap.json', 'utf8'));
 
@@ -35,7 +36,37 @@ describe('settingsTableOf', () => {
     );
     expect(md).toContain(CAUTION);
     const csv = settingsCsv(rows);
-    expect(csv.split('\r\n')[0]).toBe('device,setting,now,window (others held),recommended,binding constraints');
+    expect(csv.split('\r\n')[0]).toBe(
+      'device,setting,now,window (others held),recommended,binding constraints,not kept at the recommendation',
+    );
     expect(csv).toContain(CAUTION);
+  });
+});
+
+describe('settingsTableOf in a study with scenarios (standby overlap demo)', () => {
+  const standby = parseStudy(readFileSync('demo/harrowmere-standby-overlap.json', 'utf8'));
+
+  it('works windows out only in the scenarios asked for, naming the scenario: on the generator, no T1 primary relay', () => {
+    const rows = settingsTableOf(standby, { scenarios: ['on-generator'] });
+    expect(new Set(rows.map((r) => r.deviceId))).toEqual(new Set(['GEN-CB']));
+    expect(new Set(rows.map((r) => r.scenarios))).toEqual(new Set(['On generator']));
+    // Without a choice, the first scenario that energises each device, still named.
+    expect(settingsTableOf(standby, { deviceIds: ['R-T1'] }).every((r) => r.scenarios === 'Normal')).toBe(true);
+  });
+
+  it("names the generator breaker's damage curve, which its recommendation misses by a negative margin, in every row and the Markdown", () => {
+    const margins = settingWindowOf(standby, 'GEN-CB', { scenario: 'on-generator' }).recommendation!.margins;
+    const damage = margins.find((m) => m.kind === 'generator-withstand')!;
+    // The check only warns: the search accepts the setting, though it clears above the curve.
+    expect(damage.result).toMatchObject({ ok: true });
+    expect(damage.result.margin).toBeLessThan(0);
+    const rows = settingsTableOf(standby, { deviceIds: ['GEN-CB'], scenarios: ['on-generator'] });
+    for (const row of rows) expect(row.notKept).toContain(`${damage.label} — ${damage.result.text}`);
+    // A constraint kept with room is not named.
+    const kept = margins.find((m) => m.result.ok && m.result.margin > 0)!;
+    expect(rows[0].notKept).not.toContain(kept.label);
+    const md = settingsMarkdown(rows);
+    expect(md).not.toMatch(/setting that keeps every constraint/);
+    expect(md).toMatch(/\| not kept at the recommendation \| scenarios \|\n/);
   });
 });
