@@ -54,6 +54,19 @@ describe('discern window', () => {
     expect(code).toBe(0);
   });
 
+  it("marks a bound the checks only warn about 'warn' where it is missed: the generator breaker and the machine's damage curve", async () => {
+    const { code, stdout } = await runVerb(
+      ['demo/harrowmere-standby.json', '--device', 'GEN-CB', '--scenario', 'on-generator'],
+      windowCommand,
+    );
+    expect(code).toBe(0);
+    // NFPA 70 445.12(A) accepts the machine's inherent protection, so the damage curve is a warning, not a failure.
+    const damage = stdout.split('\n').filter((line) => line.includes('damage curve'));
+    expect(damage.length).toBeGreaterThanOrEqual(2);
+    for (const line of damage) expect(line).toMatch(/^warn\s/);
+    expect(stdout).toContain('warn: a bound the checks only warn about, missed here');
+  });
+
   it('exits 2 with one line naming the flag for an unknown or missing device', async () => {
     const unknown = await runVerb(['demo/harrowmere-overlap.json', '--device', 'X'], windowCommand);
     expect(unknown.code).toBe(2);

@@ -55,6 +55,15 @@ export const windowCommand: Command = {
   },
 };
 
+/**
+ * A constraint's state in words: FAIL where it fails, warn where it holds with a negative margin (a
+ * generator's damage curve, the minimum fault's clearing time: bounds the checks only warn about, which
+ * the recommendation may miss), else ok.
+ */
+function statusOf(result: { ok: boolean; margin: number }): string {
+  return !result.ok ? 'FAIL' : result.margin < 0 ? 'warn' : 'ok';
+}
+
 /** JSON has no Infinity: unbounded margins print as the strings "Infinity" / "-Infinity". */
 function jsonValue(_key: string, value: unknown): unknown {
   if (typeof value === 'number' && !Number.isFinite(value)) return String(value);
@@ -100,13 +109,13 @@ function windowText(window: SettingWindow): string {
     formatTable(
       ['', 'constraint', 'margin', 'source'],
       window.constraints.map((c) => [
-        c.favours === 'fixed' ? (c.result.ok ? 'ok*' : 'FAIL*') : c.result.ok ? 'ok' : 'FAIL',
+        `${statusOf(c.result)}${c.favours === 'fixed' ? '*' : ''}`,
         c.label,
         c.result.text,
         c.source,
       ]),
     ),
-    '(* reported, not a setting)',
+    '(* reported, not a setting; warn: a bound the checks only warn about, missed here)',
     '',
   );
   const rec = window.recommendation;
@@ -125,8 +134,8 @@ function windowText(window: SettingWindow): string {
       '',
       'Margins at the recommended setting:',
       formatTable(
-        ['constraint', 'margin'],
-        rec.margins.filter((m) => m.favours !== 'fixed').map((m) => [m.label, m.result.text]),
+        ['', 'constraint', 'margin'],
+        rec.margins.filter((m) => m.favours !== 'fixed').map((m) => [statusOf(m.result), m.label, m.result.text]),
       ),
       '',
       `How ties are broken: ${rec.tieBreak}`,
