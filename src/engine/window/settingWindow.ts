@@ -50,7 +50,11 @@ export interface SettingWindow {
   currentHolds: boolean;
   /** The 2-D map of each main pair of settings (pickup × time). */
   maps: FeasibleMap[];
-  /** The fastest-clearing setting that keeps every constraint, when one exists. */
+  /**
+   * The fastest-clearing setting that keeps every constraint, when one exists. "Keeps" is "does not
+   * fail": a bound the checks only warn about (a generator's damage curve, the minimum fault's clearing
+   * time) may still be missed there, with a negative margin in `recommendation.margins`.
+   */
   recommendation?: Recommendation;
   /** Why no setting works, and what elsewhere would open a window. */
   noWindow?: NoWindow;
