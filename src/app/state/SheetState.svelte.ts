@@ -49,26 +49,16 @@ export class SheetState {
     const view = this.#study.view;
     if (this.#analysis.baseError) return { error: this.#analysis.baseError };
     if (!view) return {};
-    const { analysis, left, error } = this.#analysis.viewAnalysis(view.id);
+    const { analysis, error } = this.#analysis.viewAnalysis(view.id);
     if (error) return { error };
     if (!analysis) return {};
     try {
       const input = viewInputOf(analysis, view.id);
       const scenario = this.#analysis.scenario;
       if (!scenario) return { input };
-      // The engine's part titles the view with its scenario; devices left out go in the notes a figure prints.
-      const notes = [
-        input.notes,
-        left.length > 0 ? `Not on this sheet in "${scenario.label}": ${left.join(', ')}.` : undefined,
-      ];
+      // The engine's part titles the view with its scenario and names in its notes what it leaves out.
       const faultLines = this.everyScenario ? this.#everyScenarioFaultLines(view) : input.faultLines;
-      return {
-        input: {
-          ...input,
-          notes: notes.filter(Boolean).join(' ') || undefined,
-          faultLines,
-        },
-      };
+      return { input: { ...input, faultLines } };
     } catch (error) {
       return { error: (error as Error).message };
     }

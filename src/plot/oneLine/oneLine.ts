@@ -2,13 +2,14 @@ import type { Analysis } from '../../engine/analysis.ts';
 import { CAUTION } from '../../engine/caution.ts';
 import type { Severity } from '../../engine/checks/finding.ts';
 import { formatAmps, formatVolts, significant } from '../../engine/quantity/index.ts';
+import { switchSettingsOf, type SwitchSetting } from '../../engine/scenario/index.ts';
 import type { Device } from '../../engine/study/index.ts';
 import type { Box, Primitive, TextItem } from '../geometry.ts';
 import { OKABE_ITO, SHEET_COLOURS } from '../palette.ts';
 import { fixed } from '../precision.ts';
 import type { Drawing } from '../svg.ts';
 import { textWidth, wrapText } from '../textWidth.ts';
-import { layoutOneLine, type Drop } from './oneLineLayout.ts';
+import { layoutOneLine, type Drop, type OpenSwitch } from './oneLineLayout.ts';
 import {
   busSymbol,
   cableSymbol,
@@ -18,6 +19,7 @@ import {
   sourceSymbol,
   switchSymbol,
   symbolDefaults,
+  transferSwitchSymbol,
   transformerSymbol,
 } from './symbols.ts';
 
@@ -61,7 +63,10 @@ export interface OneLine extends Drawing {
  * symbol of our own drawing for each source, bus, transformer (with its winding connection), cable,
  * motor and protective device, each labelled with its name and key rating, each bus with its maximum
  * and minimum three-phase fault current, and the elements a failing or warning finding concerns
- * marked with a shape as well as a colour. Pure: same analysis, same diagram.
+ * marked with a shape as well as a colour. Switches are drawn as a scenario's part sets them
+ * (`switchSettingsOf`): a transfer switch on the side it is on, a closed tie closed, and an open tie
+ * or a transfer switch's idle side as an open switch under the bus it hangs from, labelled with the
+ * bus across it. Pure: same analysis, same diagram.
  * @example svgOf(oneLineOf(analyseStudy(study)))
  */
 export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): OneLine {
@@ -73,18 +78,28 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
   const levelHeight = 3 * row + busRow + 12;
 
   const severityOf = worstSeverities(findings);
+  const switches = switchesOf(analysis);
   const labelsOf = (drop: Omit<Drop, 'x' | 'width'>) => ({
     feeder: drop.feeder ? deviceLines(drop.feeder) : [],
-    element: elementLines(analysis, drop),
+    element: elementLines(analysis, drop, switches.settingOf),
     main: drop.main ? deviceLines(drop.main) : [],
     bus: drop.childBus ? busLines(analysis, drop.childBus) : [],
   });
   const widest = (lines: string[]) => lines.reduce((w, line) => Math.max(w, textWidth(line, fontSize)), 0);
-  const layout = layoutOneLine(network, (drop) => {
-    const labels = labelsOf(drop);
-    const labelWidth = Math.max(widest(labels.feeder), widest(labels.element), widest(labels.main), widest(labels.bus));
-    return gutter + labelGap + symbolDefaults.size / 2 + labelWidth + columnPadding;
-  });
+  const layout = layoutOneLine(
+    network,
+    (drop) => {
+      const labels = labelsOf(drop);
+      const labelWidth = Math.max(
+        widest(labels.feeder),
+        widest(labels.element),
+        widest(labels.main),
+        widest(labels.bus),
+      );
+      return gutter + labelGap + symbolDefaults.size / 2 + labelWidth + columnPadding;
+    },
+    { open: switches.open },
+  );
 
   const items: Primitive[] = [];
   const marks: Primitive[] = [];
@@ -135,7 +150,8 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
     const barY = drop.childBus ? y0 + 3 * row + busRow : undefined;
     const labels = labelsOf(drop);
     const labelX = x + symbolDefaults.size / 2 + labelGap;
-    const endY = barY ?? rows[1] - symbolDefaults.size / 2;
+    // A run ends at its bus bar, at the top of its motor, or at an open switch's upper contact.
+    const endY = barY ?? rows[1] - (drop.open ? 9 : symbolDefaults.size / 2);
     const startY = drop.kind === 'source' ? rows[1] : y0 - 12;
     items.push({
       type: 'path',
@@ -149,7 +165,8 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
     if (drop.kind !== 'source') {
       const parentBus = drop.kind === 'motor' ? network.elements.get(drop.elementId)!.item : undefined;
       const busId =
-        parentBus && 'bus' in parentBus ? parentBus.bus : network.feederOf.get(drop.childBus ?? '')?.item.from;
+        drop.open?.bus ??
+        (parentBus && 'bus' in parentBus ? parentBus.bus : network.feederOf.get(drop.childBus ?? '')?.item.from);
       if (busId !== undefined) childLines.set(busId, [...(childLines.get(busId) ?? []), x]);
     }
     for (const [device, y, lines] of [
@@ -168,7 +185,24 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
     else if (element?.type === 'transformer')
       items.push(...transformerSymbol(x, elementY, element.item.connection, { dataId: drop.elementId }));
     else if (element?.type === 'cable') items.push(...cableSymbol(x, elementY, { dataId: drop.elementId }));
-    else if (element?.type === 'switch') items.push(...switchSymbol(x, elementY, { dataId: drop.elementId }));
+    else if (drop.open) {
+      items.push(...switchSymbol(x, elementY, { dataId: drop.elementId, open: true }));
+      // A short lead below the open contact: the way on to the bus across, not drawn here.
+      items.push({
+        type: 'path',
+        d: `M${fixed(x)},${fixed(elementY + 9)}L${fixed(x)},${fixed(elementY + 16)}`,
+        fill: 'none',
+        stroke: symbolDefaults.stroke,
+        strokeWidth: symbolDefaults.strokeWidth,
+        role: 'one-line-run',
+        dataId: drop.elementId,
+      });
+    } else if (element?.type === 'switch')
+      items.push(
+        ...(switches.settingOf.get(drop.elementId)?.switch.kind === 'transfer'
+          ? transferSwitchSymbol(x, elementY, { dataId: drop.elementId })
+          : switchSymbol(x, elementY, { dataId: drop.elementId })),
+      );
     else if (element?.type === 'motor') items.push(...motorSymbol(x, elementY, { dataId: drop.elementId }));
     // A transformer's winding marks sit right of its circles: its label starts further right.
     const elementLabelX = labelX + (drop.kind === 'transformer' ? 12 : 0);
@@ -275,9 +309,38 @@ function deviceLines(device: Device): string[] {
   return [device.name ?? device.id, device.rating ? `${kind}, ${significant(device.rating, 4)} A` : kind];
 }
 
+// Accepts the analysis; each switch as its scenario sets it, and those connecting nothing drawn, each under a drawn bus.
+function switchesOf(analysis: Analysis): { settingOf: Map<string, SwitchSetting>; open: OpenSwitch[] } {
+  const { study, network } = analysis;
+  // A study not split by scenario: each switch in its normal position, as its network links it.
+  const settings =
+    switchSettingsOf(study) ??
+    study.switches.map((item) => ({ switch: item, position: item.kind === 'transfer' ? 'normal' : item.normally }));
+  const open: OpenSwitch[] = [];
+  for (const { switch: item } of settings) {
+    if (network.elements.has(item.id)) continue;
+    // An open tie hangs from its `from` bus where that is drawn; a transfer switch from its side that is.
+    const [ends, across] =
+      item.kind === 'tie' ? [[item.from, item.to], undefined] : [[item.normal, item.emergency], item.to];
+    const bus = ends.find((id) => network.buses.has(id));
+    if (bus !== undefined) open.push({ id: item.id, bus, across: across ?? ends.find((id) => id !== bus)! });
+  }
+  return { settingOf: new Map(settings.map((setting) => [setting.switch.id, setting])), open };
+}
+
 // Accepts a run; its element's name and key ratings.
-function elementLines(analysis: Analysis, drop: Omit<Drop, 'x' | 'width'>): string[] {
+function elementLines(
+  analysis: Analysis,
+  drop: Omit<Drop, 'x' | 'width'>,
+  settingOf: Map<string, SwitchSetting>,
+): string[] {
   const { study, network, faults } = analysis;
+  if (drop.open) {
+    const { switch: item, position } = settingOf.get(drop.elementId)!;
+    if (item.kind === 'tie') return [item.name ?? item.id, `tie, open, to ${drop.open.across}`];
+    const side = drop.open.bus === item.normal ? 'normal' : 'emergency';
+    return [item.name ?? item.id, `transfer switch on ${position}, ${side} side open`];
+  }
   if (drop.kind === 'source') {
     const source = study.source;
     const bus = faults.buses.get(source.bus);
@@ -311,10 +374,12 @@ function elementLines(analysis: Analysis, drop: Omit<Drop, 'x' | 'width'>): stri
     ];
   }
   if (element.type === 'switch') {
+    // The part's network holds every closed switch as a tie; the study's own switch says what it is.
     const link = element.item;
+    const setting = settingOf.get(link.id);
     return [
       link.name ?? link.id,
-      link.switch.kind === 'transfer' ? `transfer switch, from ${link.from}` : 'tie, closed',
+      setting?.switch.kind === 'transfer' ? `transfer switch on ${setting.position}, from ${link.from}` : 'tie, closed',
     ];
   }
   if (element.type === 'motor') {

@@ -137,17 +137,47 @@ export function cableSymbol(x: number, y: number, options: SymbolOptions): Primi
   ];
 }
 
+/** Options of {@link switchSymbol}. */
+export interface SwitchSymbolOptions extends SymbolOptions {
+  /** Draw the blade swung away from the lower contact: the switch connects nothing. @default false */
+  open?: boolean;
+}
+
 /**
- * A closed switch (transfer switch or tie in its present position): a break in the run bridged by a
- * blade, with a small circle at each contact (IEEE 315 / IEC 60617 style).
- * @example switchSymbol(40, 100, { dataId: 'ATS' }).length // 2
+ * A tie: a break in the run with a small circle at each contact and the blade hinged at the upper
+ * contact, bridging the break when closed and swung clear of the lower contact when open (IEEE 315 /
+ * IEC 60617 style).
+ * @example switchSymbol(40, 100, { dataId: 'TIE', open: true }).length // 2
  */
-export function switchSymbol(x: number, y: number, options: SymbolOptions): Primitive[] {
+export function switchSymbol(x: number, y: number, options: SwitchSymbolOptions): Primitive[] {
   const stroke = options.stroke ?? symbolDefaults.stroke;
   const base = { stroke, strokeWidth: symbolDefaults.strokeWidth, role: 'one-line-branch', dataId: options.dataId };
+  const blade = options.open ? `L${fixed(x + 8)},${fixed(y + 4)}` : `L${fixed(x)},${fixed(y + 5)}`;
   return [
     { type: 'path', d: circlePath(x, y - 7, 2) + circlePath(x, y + 7, 2), fill: '#ffffff', ...base },
-    { type: 'path', d: `M${fixed(x)},${fixed(y - 5)}L${fixed(x)},${fixed(y + 5)}`, fill: 'none', ...base },
+    { type: 'path', d: `M${fixed(x)},${fixed(y - 5)}${blade}`, fill: 'none', ...base },
+  ];
+}
+
+/**
+ * A transfer switch: the load contact below, a contact for each side above (the side in use on the
+ * run, the idle side set off to the right with a short lead), and the blade from the load contact
+ * to the side in use.
+ * @example transferSwitchSymbol(40, 100, { dataId: 'ATS' }).length // 3
+ */
+export function transferSwitchSymbol(x: number, y: number, options: SymbolOptions): Primitive[] {
+  const stroke = options.stroke ?? symbolDefaults.stroke;
+  const base = { stroke, strokeWidth: symbolDefaults.strokeWidth, role: 'one-line-branch', dataId: options.dataId };
+  const idle = x + 9;
+  return [
+    { type: 'path', d: `M${fixed(idle)},${fixed(y - 9)}L${fixed(idle)},${fixed(y - 14)}`, fill: 'none', ...base },
+    {
+      type: 'path',
+      d: circlePath(x, y - 7, 2) + circlePath(idle, y - 7, 2) + circlePath(x, y + 7, 2),
+      fill: '#ffffff',
+      ...base,
+    },
+    { type: 'path', d: `M${fixed(x)},${fixed(y + 5)}L${fixed(x)},${fixed(y - 5)}`, fill: 'none', ...base },
   ];
 }
 

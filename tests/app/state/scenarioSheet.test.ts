@@ -84,7 +84,10 @@ describe('the sheet, the findings and the tree in a scenario', () => {
     study.scenarioId = 'on-generator';
     expect(sheet.input.input?.bands.map((b) => b.id)).toEqual(['EM-BR']);
     expect(sheet.left).toEqual(['MAIN', 'FDR-EM']);
-    expect(sheet.input.input?.notes).toMatch(/Not on this sheet in "On generator": MAIN, FDR-EM\./);
+    // Said once, by the engine's part of the scenario: names, and the cable with the devices.
+    expect(sheet.input.input?.notes).toBe(
+      'Not energised in "On generator", so not drawn: Main 2000 A, Emergency feeder, Emergency feeder cable.',
+    );
   });
 
   it('findings in a scenario are those holding in it; opening another study goes back to the first scenario', () => {

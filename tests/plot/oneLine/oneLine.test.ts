@@ -1,15 +1,40 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { analyseStudy, type Analysis } from '../../../src/engine/analysis.ts';
+import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { readStudy, type Study } from '../../../src/engine/study/index.ts';
 import { boxesOverlap } from '../../../src/plot/geometry.ts';
-import { oneLineDefaults, oneLineOf } from '../../../src/plot/oneLine/index.ts';
+import { oneLineDefaults, oneLineOf, type OneLine } from '../../../src/plot/oneLine/index.ts';
 import { svgOf } from '../../../src/plot/svg.ts';
 
 function demo(name: string): Study {
   const { study, problems } = readStudy(readFileSync(`demo/${name}.json`, 'utf8'));
   if (!study) throw new Error(problems.map((p) => `${p.path}: ${p.message}`).join('; '));
   return study;
+}
+
+// Accepts a demo with scenarios; each scenario's energised trees, analysed, by scenario label.
+function scenarioTrees(name: string): Map<string, Analysis[]> {
+  const { scenarios } = analyseScenarios(demo(name));
+  return new Map(scenarios!.map((s) => [s.label, s.parts]));
+}
+
+// Accepts a diagram and an element id; the two lines of its label, as drawn.
+function labelOf(diagram: OneLine, id: string): string[] {
+  return diagram.layers
+    .find((layer) => layer.name === 'diagram')!
+    .items.flatMap((item) =>
+      item.type === 'text' && item.dataId === id && item.role === 'one-line-label' ? [item.text] : [],
+    );
+}
+
+// Accepts a diagram and an element id; the path data of its symbol's strokes.
+function symbolPaths(diagram: OneLine, id: string): string[] {
+  return diagram.layers
+    .find((layer) => layer.name === 'diagram')!
+    .items.flatMap((item) =>
+      item.type === 'path' && item.dataId === id && item.role === 'one-line-branch' ? [item.d] : [],
+    );
 }
 
 describe('oneLineOf', () => {
@@ -49,6 +74,87 @@ describe('oneLineOf', () => {
       }
     });
   }
+
+  for (const name of ['harrowmere-standby', 'harrowmere-standby-overlap'])
+    it(`draws every element of each scenario's trees of ${name} once, its switches too, and no two symbols or labels overlap`, () => {
+      for (const [label, trees] of scenarioTrees(name))
+        for (const tree of trees) {
+          const { study } = tree;
+          const diagram = oneLineOf(tree);
+          const switches = label === 'On generator' ? ['ATS'] : ['ATS', 'TIE'];
+          expect(diagram.places.map((place) => place.id).sort(), label).toEqual(
+            [
+              study.source.id,
+              ...study.buses.map((b) => b.id),
+              ...study.transformers.map((t) => t.id),
+              ...study.cables.map((c) => c.id),
+              ...study.motors.map((m) => m.id),
+              ...study.devices.map((d) => d.id),
+              ...switches,
+            ].sort(),
+          );
+          const boxes = diagram.places.flatMap((place) => [
+            place.label,
+            ...(place.type === 'bus' ? [] : [place.symbol]),
+          ]);
+          for (let i = 0; i < boxes.length; i++)
+            for (let j = i + 1; j < boxes.length; j++) expect(boxesOverlap(boxes[i], boxes[j]), label).toBe(false);
+        }
+    });
+
+  it('draws the transfer switch as one, on normal in "Normal" and on emergency "On generator", not as a closed tie', () => {
+    const trees = scenarioTrees('harrowmere-standby');
+    const normal = oneLineOf(trees.get('Normal')![0]);
+    const generator = oneLineOf(trees.get('On generator')![0]);
+    expect(labelOf(normal, 'ATS')).toEqual(['Emergency transfer switch', 'transfer switch on normal, from ATS-N']);
+    expect(labelOf(generator, 'ATS')).toEqual([
+      'Emergency transfer switch',
+      'transfer switch on emergency, from ATS-E',
+    ]);
+    // Three contacts (load, side in use, idle side) where a tie has two, and the idle side's lead.
+    expect(symbolPaths(normal, 'ATS').join('').match(/A/g)).toHaveLength(6);
+    expect(symbolPaths(normal, 'ATS')).toHaveLength(3);
+  });
+
+  it('draws the normally open tie open under the office primary in "Normal", and closed with the dock on the office feeder', () => {
+    const trees = scenarioTrees('harrowmere-standby');
+    const normal = oneLineOf(trees.get('Normal')![0]);
+    expect(labelOf(normal, 'TIE')).toEqual(['Dock–office tie (normally open)', 'tie, open, to DOCK']);
+    // The blade, hinged at the upper contact, swings 8 px clear of the run: M x,y−5 L x+8,y+4.
+    const [, blade] = symbolPaths(normal, 'TIE');
+    const [x0, y0, x1, y1] = blade.match(/-?[\d.]+/g)!.map(Number);
+    expect([x1 - x0, y1 - y0]).toEqual([8, 9]);
+    // It hangs from the office transformer primary bus, whose bar spans its run.
+    const bar = normal.places.find((p) => p.id === 'OFC-P')!.symbol;
+    const tie = normal.places.find((p) => p.id === 'TIE')!.symbol;
+    expect(tie.x + tie.width / 2).toBeGreaterThan(bar.x);
+    expect(tie.x + tie.width / 2).toBeLessThan(bar.x + bar.width);
+    expect(tie.y).toBeGreaterThan(bar.y);
+
+    const tied = oneLineOf(trees.get('Dock on the office feeder')![0]);
+    expect(labelOf(tied, 'TIE')).toEqual(['Dock–office tie (normally open)', 'tie, closed']);
+    const [, closedBlade] = symbolPaths(tied, 'TIE');
+    const [cx0, , cx1] = closedBlade.match(/-?[\d.]+/g)!.map(Number);
+    expect(cx1).toBe(cx0);
+  });
+
+  it("draws a transfer switch's idle side open on the tree that feeds it: both sources in, ATS on emergency", () => {
+    const study = demo('harrowmere-standby');
+    const both = { id: 'both', name: 'Both', sources: ['UTIL', 'G1'], switches: { ATS: 'emergency' as const } };
+    const [utility, generator] = analyseScenarios({
+      ...study,
+      scenarios: [{ ...both, outOfService: [] }],
+    }).scenarios![0].parts.map((tree) => oneLineOf(tree));
+    // The utility still reaches ATS-N, whose contact the switch has left.
+    expect(labelOf(utility, 'ATS')).toEqual([
+      'Emergency transfer switch',
+      'transfer switch on emergency, normal side open',
+    ]);
+    expect(labelOf(generator, 'ATS')).toEqual([
+      'Emergency transfer switch',
+      'transfer switch on emergency, from ATS-E',
+    ]);
+  });
 
   it('labels each bus with its maximum and minimum three-phase fault', () => {
     const analysis = analyseStudy(demo('harrowmere-selective'));
