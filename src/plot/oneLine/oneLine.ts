@@ -13,6 +13,7 @@ import { layoutOneLine, type Drop, type OpenSwitch } from './oneLineLayout.ts';
 import {
   busSymbol,
   cableSymbol,
+  continuationLink,
   deviceSymbol,
   findingMark,
   motorSymbol,
@@ -36,6 +37,14 @@ export const oneLineDefaults = {
   margin: 24,
   /** px of the header strip (study name, caution). */
   header: 58,
+  /**
+   * px: the widest a diagram is drawn before a bus with many branches goes on under a continuation bar.
+   * Twice the printable width of Letter landscape (696 pt between the report's 48-pt margins), so a
+   * diagram at the limit prints its 11-px labels at 5.5 pt across that page. Not narrower: every row
+   * wrapped adds height, and a portrait page then shrinks a large study by its height instead (the
+   * whole-site demo prints at 3.4 pt on Letter portrait at this width, 2.7 pt at 946 px).
+   */
+  maxWidth: 1400,
   fontFamily: 'DejaVu Sans, Arial, Helvetica, sans-serif',
 } as const;
 
@@ -55,7 +64,10 @@ export interface OneLinePlace {
 
 /** A one-line diagram: a drawing `svgOf` writes, plus where each element is. */
 export interface OneLine extends Drawing {
+  /** Each element once, where it is drawn. */
   places: OneLinePlace[];
+  /** Each continuation bar of a bus too wide for one row: its bar and label, under the bus's id. */
+  continuations: OneLinePlace[];
 }
 
 /**
@@ -66,20 +78,27 @@ export interface OneLine extends Drawing {
  * marked with a shape as well as a colour. Switches are drawn as a scenario's part sets them
  * (`switchSettingsOf`): a transfer switch on the side it is on, a closed tie closed, and an open tie
  * or a transfer switch's idle side as an open switch under the bus it hangs from, labelled with the
- * bus across it. Pure: same analysis, same diagram.
+ * bus across it. A bus whose branches side by side would make the diagram wider than
+ * `oneLineDefaults.maxWidth` goes on under a bar of its own below, labelled as the same bus continued and
+ * linked to it by a dashed line. Pure: same analysis, same diagram.
  * @example svgOf(oneLineOf(analyseStudy(study)))
  */
 export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): OneLine {
   const { study, network, findings } = analysis;
-  const { fontSize, lineHeight, gutter, labelGap, columnPadding, margin, header, fontFamily } = oneLineDefaults;
+  const { fontSize, lineHeight, gutter, labelGap, columnPadding, margin, header, maxWidth, fontFamily } =
+    oneLineDefaults;
   const step = fontSize * lineHeight;
   const row = Math.max(3 * step, symbolDefaults.size + 10);
   const busRow = 2 * step + 8;
   const levelHeight = 3 * row + busRow + 12;
+  // A continuation bar's label sits over it (busRow), the bar 12 px above its runs, and 16 px clear of the row above.
+  const continuedHeight = busRow + 12 + 16;
+  // The link between a bus's bars runs down its own line; its branches start clear of it and of their finding marks.
+  const linkLane = gutter + 8;
 
   const severityOf = worstSeverities(findings);
   const switches = switchesOf(analysis);
-  const labelsOf = (drop: Omit<Drop, 'x' | 'width'>) => ({
+  const labelsOf = (drop: Omit<Drop, 'x' | 'width' | 'top' | 'barRow'>) => ({
     feeder: drop.feeder ? deviceLines(drop.feeder) : [],
     element: elementLines(analysis, drop, switches.settingOf),
     main: drop.main ? deviceLines(drop.main) : [],
@@ -98,7 +117,19 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
       );
       return gutter + labelGap + symbolDefaults.size / 2 + labelWidth + columnPadding;
     },
-    { open: switches.open },
+    {
+      open: switches.open,
+      maxWidth: maxWidth - 2 * margin,
+      linkLane,
+      measureContinued: (drop) => {
+        const lines = continuedLines(analysis, drop.childBus!, 999, 999, 999);
+        return gutter + 8 + textWidth(lines[0], fontSize, 'bold') + widest(lines.slice(1)) + columnPadding;
+      },
+      levelHeight,
+      // A motor's run: its feeder and the motor, whose label reaches a little below the circle.
+      leafHeight: 2 * row + 8,
+      continuedHeight,
+    },
   );
 
   const items: Primitive[] = [];
@@ -106,9 +137,9 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
   const places: OneLinePlace[] = [];
   const left = margin;
   const top = margin + header;
-  // The bar of the buses at each depth; a run starts just under its parent's bar.
-  const barYAt = (depth: number) => top + 3 * row + busRow + depth * levelHeight;
-  const runTop = (drop: Drop) => (drop.kind === 'source' ? top : barYAt(drop.depth - 1) + 12);
+  // A run starts just under the bar it hangs from; its own bar closes its level.
+  const runTop = (drop: Drop) => top + drop.top;
+  const barYOf = (drop: Drop) => runTop(drop) + 3 * row + busRow;
   const lineX = (drop: Drop) => left + drop.x + gutter;
   const mark = (id: string, x: number, y: number) => {
     const severity = severityOf.get(id);
@@ -147,7 +178,7 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
     const x = lineX(drop);
     const y0 = runTop(drop);
     const rows = [y0 + row / 2, y0 + row * 1.5, y0 + row * 2.5];
-    const barY = drop.childBus ? y0 + 3 * row + busRow : undefined;
+    const barY = drop.childBus ? barYOf(drop) : undefined;
     const labels = labelsOf(drop);
     const labelX = x + symbolDefaults.size / 2 + labelGap;
     // A run ends at its bus bar, at the top of its motor, or at an open switch's upper contact.
@@ -167,7 +198,10 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
       const busId =
         drop.open?.bus ??
         (parentBus && 'bus' in parentBus ? parentBus.bus : network.feederOf.get(drop.childBus ?? '')?.item.from);
-      if (busId !== undefined) childLines.set(busId, [...(childLines.get(busId) ?? []), x]);
+      if (busId !== undefined) {
+        const bar = barKey(busId, drop.barRow);
+        childLines.set(bar, [...(childLines.get(bar) ?? []), x]);
+      }
     }
     for (const [device, y, lines] of [
       [drop.feeder, rows[0], labels.feeder],
@@ -216,21 +250,37 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
     }
   }
   // Bus bars span the runs hanging from them (at least their label's width).
+  const barOf = (busId: string, barRow: number, x: number, barY: number, label: Box): Box => {
+    const xs = childLines.get(barKey(busId, barRow)) ?? [];
+    const x2 = Math.max(x + 40, label.x + label.width, ...xs);
+    items.push(...busSymbol(x - 6, x2 + 6, barY, { dataId: busId }));
+    return { x: x - 6, y: barY - 3, width: x2 - x + 12, height: 6 };
+  };
   for (const drop of layout.drops) {
     if (drop.childBus === undefined) continue;
-    const x = lineX(drop);
-    const barY = barYAt(drop.depth);
     const place = places.find((p) => p.id === drop.childBus)!;
-    const xs = childLines.get(drop.childBus) ?? [];
-    const x2 = Math.max(x + 40, place.label.x + place.label.width, ...xs);
-    items.push(...busSymbol(x - 6, x2 + 6, barY, { dataId: drop.childBus }));
-    place.symbol = { x: x - 6, y: barY - 3, width: x2 - x + 12, height: 6 };
+    place.symbol = barOf(drop.childBus, 0, lineX(drop), barYOf(drop), place.label);
   }
+  // A bus continued below: the same bar again over each later row, labelled as continued, linked down the bus's line.
+  const continuations: OneLinePlace[] = [];
+  const continuedBars = new Map<Drop, number[]>();
+  for (const continued of layout.continuations) {
+    const { busDrop, barRow, first, of, runs } = continued;
+    const busId = busDrop.childBus!;
+    const x = lineX(busDrop);
+    const barY = top + continued.top - 12;
+    const lines = continuedLines(analysis, busId, first, first + runs.length - 1, of);
+    const label = text(lines, x + 8, barY - busRow / 2 - 2, busId, 'one-line-continued-label');
+    continuations.push({ id: busId, type: 'bus', symbol: barOf(busId, barRow, x, barY, label), label });
+    continuedBars.set(busDrop, [...(continuedBars.get(busDrop) ?? []), barY]);
+  }
+  for (const [busDrop, barYs] of continuedBars)
+    items.push(...continuationLink(lineX(busDrop), barYOf(busDrop), barYs, { dataId: busDrop.childBus! }));
 
   const width = Math.max(left + layout.width + margin, 640);
   // The deepest runs end at a motor or a bus bar; leave room under either, then the caution.
   const bottom = layout.drops.reduce(
-    (most, drop) => Math.max(most, drop.childBus ? barYAt(drop.depth) : runTop(drop) + 2 * row),
+    (most, drop) => Math.max(most, drop.childBus ? barYOf(drop) : runTop(drop) + 2 * row),
     0,
   );
   const height = bottom + margin + 40;
@@ -285,7 +335,20 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
       { name: 'findings', items: marks },
     ],
     places,
+    continuations,
   };
+}
+
+// Accepts a bus id and the row of its branches a bar carries; the key its runs' lines are gathered under.
+function barKey(busId: string, barRow: number): string {
+  return `${barRow}:${busId}`;
+}
+
+// Accepts a bus id and the branches a continuation bar carries; its label: the bus named as continued, and which branches.
+function continuedLines(analysis: Analysis, busId: string, first: number, last: number, of: number): string[] {
+  const bus = analysis.network.buses.get(busId)!;
+  const branches = first === last ? `branch ${first} of ${of}` : `branches ${first}–${last} of ${of}`;
+  return [`${bus.name ?? bus.id}, ${formatVolts(bus.voltage)} (continued)`, branches];
 }
 
 // Accepts the findings; the worst failing or warning severity per element or device id.
@@ -331,7 +394,7 @@ function switchesOf(analysis: Analysis): { settingOf: Map<string, SwitchSetting>
 // Accepts a run; its element's name and key ratings.
 function elementLines(
   analysis: Analysis,
-  drop: Omit<Drop, 'x' | 'width'>,
+  drop: Omit<Drop, 'x' | 'width' | 'top' | 'barRow'>,
   settingOf: Map<string, SwitchSetting>,
 ): string[] {
   const { study, network, faults } = analysis;

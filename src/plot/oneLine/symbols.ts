@@ -268,6 +268,40 @@ export function busSymbol(x1: number, x2: number, y: number, options: SymbolOpti
 }
 
 /**
+ * The link from a bus's bar to the bars continuing it below: a dashed line down the bus's own line from
+ * its bar (at `fromY`) to the last continuation bar, with an arrowhead landing on each continuation bar,
+ * so the eye follows the bus from one row of branches to the next.
+ * @example continuationLink(40, 200, [400, 600], { dataId: 'SWBD' }).length // 3
+ */
+export function continuationLink(
+  x: number,
+  fromY: number,
+  barYs: readonly number[],
+  options: SymbolOptions,
+): Primitive[] {
+  const stroke = options.stroke ?? symbolDefaults.stroke;
+  const base = { stroke, role: 'one-line-continuation', dataId: options.dataId };
+  const lastY = barYs.reduce((most, y) => Math.max(most, y), fromY);
+  return [
+    {
+      type: 'path',
+      d: `M${fixed(x)},${fixed(fromY + 2)}L${fixed(x)},${fixed(lastY - 4)}`,
+      fill: 'none',
+      strokeWidth: symbolDefaults.strokeWidth,
+      dash: '5 3',
+      ...base,
+    },
+    ...barYs.map((y): Primitive => ({
+      type: 'path',
+      d: `M${fixed(x - 4)},${fixed(y - 11)}L${fixed(x + 4)},${fixed(y - 11)}L${fixed(x)},${fixed(y - 2)}Z`,
+      fill: stroke,
+      strokeWidth: 1,
+      ...base,
+    })),
+  ];
+}
+
+/**
  * A finding mark beside a symbol, shaped by severity so colour is never the only code: a filled
  * triangle with "!" for a failure, an open diamond for a warning.
  * @example findingMark('fail', 60, 100, 'T1', '#D55E00').length // 2

@@ -6,6 +6,8 @@ import { readStudy, type Study } from '../../../src/engine/study/index.ts';
 import { boxesOverlap } from '../../../src/plot/geometry.ts';
 import { oneLineDefaults, oneLineOf, type OneLine } from '../../../src/plot/oneLine/index.ts';
 import { svgOf } from '../../../src/plot/svg.ts';
+import { reportPagesOf } from '../../../src/report/reportPages.ts';
+import { studyReportOf } from '../../../src/report/studyReport.ts';
 
 function demo(name: string): Study {
   const { study, problems } = readStudy(readFileSync(`demo/${name}.json`, 'utf8'));
@@ -19,13 +21,11 @@ function scenarioTrees(name: string): Map<string, Analysis[]> {
   return new Map(scenarios!.map((s) => [s.label, s.parts]));
 }
 
-// Accepts a diagram and an element id; the two lines of its label, as drawn.
-function labelOf(diagram: OneLine, id: string): string[] {
+// Accepts a diagram, an element id and a label's role; the lines of its label, as drawn.
+function labelOf(diagram: OneLine, id: string, role = 'one-line-label'): string[] {
   return diagram.layers
     .find((layer) => layer.name === 'diagram')!
-    .items.flatMap((item) =>
-      item.type === 'text' && item.dataId === id && item.role === 'one-line-label' ? [item.text] : [],
-    );
+    .items.flatMap((item) => (item.type === 'text' && item.dataId === id && item.role === role ? [item.text] : []));
 }
 
 // Accepts a diagram and an element id; the path data of its symbol's strokes.
@@ -41,10 +41,11 @@ describe('oneLineOf', () => {
   it('has the expected defaults', () => {
     expect(oneLineDefaults.fontSize).toBe(11);
     expect(oneLineDefaults.fontFamily).toMatch(/^DejaVu Sans/);
+    expect(oneLineDefaults.maxWidth).toBe(1400);
   });
 
   for (const name of ['harrowmere-full', 'harrowmere-selective', 'harrowmere-overlap']) {
-    it(`draws every element of ${name} once, and no two symbols or labels overlap`, () => {
+    it(`draws every element of ${name} once, within the widest a diagram may be, and no two symbols or labels overlap, continuation bars' too`, () => {
       const study = demo(name);
       const diagram = oneLineOf(analyseStudy(study));
       const ids = diagram.places.map((place) => place.id).sort();
@@ -57,10 +58,14 @@ describe('oneLineOf', () => {
         ...study.devices.map((d) => d.id),
       ].sort();
       expect(ids).toEqual(expected);
-      const boxes = diagram.places.flatMap((place) => [
-        { id: place.id, what: 'label', box: place.label },
-        ...(place.type === 'bus' ? [] : [{ id: place.id, what: 'symbol', box: place.symbol }]),
-      ]);
+      expect(diagram.width).toBeLessThanOrEqual(oneLineDefaults.maxWidth);
+      const boxes = [
+        ...diagram.places.flatMap((place) => [
+          { id: place.id, what: 'label', box: place.label },
+          ...(place.type === 'bus' ? [] : [{ id: place.id, what: 'symbol', box: place.symbol }]),
+        ]),
+        ...diagram.continuations.map((place) => ({ id: place.id, what: 'continued label', box: place.label })),
+      ];
       const clashes: string[] = [];
       for (let i = 0; i < boxes.length; i++)
         for (let j = i + 1; j < boxes.length; j++)
@@ -101,6 +106,69 @@ describe('oneLineOf', () => {
             for (let j = i + 1; j < boxes.length; j++) expect(boxesOverlap(boxes[i], boxes[j]), label).toBe(false);
         }
     });
+
+  it("continues the whole-site demo's wide buses on bars of their own, 4386 px wide before, each bar labelled and linked", () => {
+    const analysis = analyseStudy(demo('harrowmere-full'));
+    const diagram = oneLineOf(analysis);
+    expect(diagram.width).toBeLessThanOrEqual(oneLineDefaults.maxWidth);
+    // The switchboard's four feeders, the MCC's eight motors and the dock panel's six do not fit one row.
+    const continued = (id: string) => diagram.continuations.filter((place) => place.id === id);
+    expect(continued('SWBD').length).toBeGreaterThan(0);
+    expect(continued('MCC').length).toBeGreaterThan(0);
+    expect(continued('DOCK').length).toBeGreaterThan(0);
+    expect(labelOf(diagram, 'SWBD', 'one-line-continued-label')[0]).toBe('480 V main switchboard, 480 V (continued)');
+    const items = diagram.layers.find((layer) => layer.name === 'diagram')!.items;
+    for (const place of diagram.continuations) {
+      const bar = diagram.places.find((p) => p.id === place.id)!.symbol;
+      // Below its bus's own bar, starting where it starts, and reached by the dashed link down its left end.
+      expect(place.symbol.y).toBeGreaterThan(bar.y);
+      expect(place.symbol.x).toBe(bar.x);
+      const link = items.find(
+        (item) => item.type === 'path' && item.role === 'one-line-continuation' && item.dataId === place.id,
+      ) as { d: string; dash?: string };
+      const [x, y0, , y1] = link.d.match(/-?[\d.]+/g)!.map(Number);
+      expect(link.dash).toBeDefined();
+      expect(x).toBeCloseTo(bar.x + 6, 2);
+      expect(y0).toBeLessThanOrEqual(bar.y + bar.height);
+      expect(y1).toBeGreaterThanOrEqual(place.symbol.y - 12);
+    }
+    // Every branch's run starts on a bar of the bus it hangs from (its own or a continuation), within the bar.
+    const { study } = analysis;
+    const parentOf = new Map<string, string>([
+      ...study.transformers.map((t): [string, string] => [t.id, t.from]),
+      ...study.cables.map((c): [string, string] => [c.id, c.from]),
+      ...study.motors.map((m): [string, string] => [m.id, m.bus]),
+    ]);
+    for (const [id, busId] of parentOf) {
+      const run = items.find((item) => item.type === 'path' && item.role === 'one-line-run' && item.dataId === id) as {
+        d: string;
+      };
+      const [x, top] = run.d.match(/-?[\d.]+/g)!.map(Number);
+      const bars = [diagram.places.find((p) => p.id === busId)!, ...continued(busId)].map((p) => p.symbol);
+      expect(
+        bars.some((bar) => Math.abs(bar.y + bar.height / 2 - top) < 0.01 && x >= bar.x && x <= bar.x + bar.width),
+        `${id} on ${busId}`,
+      ).toBe(true);
+    }
+  });
+
+  it('prints the whole-site one-line at 3.4 pt or more on a Letter portrait report page, where in one row it printed at 1.3 pt', () => {
+    const analysis = analyseStudy(demo('harrowmere-full'));
+    const pages = reportPagesOf(studyReportOf(analysis), { paper: 'letter', orientation: 'portrait' });
+    const placed = pages.flatMap((page) =>
+      page.figure?.drawing.title?.endsWith('one-line diagram') ? [page.figure] : [],
+    );
+    expect(placed).toHaveLength(1);
+    const [{ drawing, width }] = placed;
+    expect(oneLineDefaults.fontSize * (width / drawing.width)).toBeGreaterThanOrEqual(3.4);
+  });
+
+  it('draws a diagram that fits, the selective demo, in one row per bus with no continuation bar', () => {
+    const diagram = oneLineOf(analyseStudy(demo('harrowmere-selective')));
+    expect(diagram.continuations).toEqual([]);
+    const items = diagram.layers.find((layer) => layer.name === 'diagram')!.items;
+    expect(items.some((item) => item.role === 'one-line-continuation')).toBe(false);
+  });
 
   it('draws the transfer switch as one, on normal in "Normal" and on emergency "On generator", not as a closed tie', () => {
     const trees = scenarioTrees('harrowmere-standby');
