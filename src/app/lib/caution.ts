@@ -1,7 +1,6 @@
 /**
- * The caution every page, figure and report carries (the cautions in README.md), word for word.
+ * The caution every page, figure and report carries: the engine's own line (`src/engine/caution.ts`),
+ * so the workbench's page and its exported figures and reports say the same words.
  * @example `<p>{CAUTION}</p>`
  */
-export const CAUTION =
-  'For review by a qualified engineer. Local codes, the AHJ and licensed practice govern; ' +
-  "manufacturers' published curves and tested data govern over generic curves. Not an arc-flash study.";
+export { CAUTION } from '../../engine/caution.ts';
