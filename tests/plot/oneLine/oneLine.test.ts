@@ -37,6 +37,18 @@ function symbolPaths(diagram: OneLine, id: string): string[] {
     );
 }
 
+/** The ids of everything a one-line diagram draws of a study: its source, buses, branches, motors and devices. */
+function elementIdsOf(study: Study): string[] {
+  return [
+    study.source.id,
+    ...study.buses.map((b) => b.id),
+    ...study.transformers.map((t) => t.id),
+    ...study.cables.map((c) => c.id),
+    ...study.motors.map((m) => m.id),
+    ...study.devices.map((d) => d.id),
+  ];
+}
+
 describe('oneLineOf', () => {
   it('has the expected defaults', () => {
     expect(oneLineDefaults.fontSize).toBe(11);
@@ -49,15 +61,7 @@ describe('oneLineOf', () => {
       const study = demo(name);
       const diagram = oneLineOf(analyseStudy(study));
       const ids = diagram.places.map((place) => place.id).sort();
-      const expected = [
-        study.source.id,
-        ...study.buses.map((b) => b.id),
-        ...study.transformers.map((t) => t.id),
-        ...study.cables.map((c) => c.id),
-        ...study.motors.map((m) => m.id),
-        ...study.devices.map((d) => d.id),
-      ].sort();
-      expect(ids).toEqual(expected);
+      expect(ids).toEqual(elementIdsOf(study).sort());
       expect(diagram.width).toBeLessThanOrEqual(oneLineDefaults.maxWidth);
       const boxes = [
         ...diagram.places.flatMap((place) => [
@@ -88,15 +92,7 @@ describe('oneLineOf', () => {
           const diagram = oneLineOf(tree);
           const switches = label === 'On generator' ? ['ATS'] : ['ATS', 'TIE'];
           expect(diagram.places.map((place) => place.id).sort(), label).toEqual(
-            [
-              study.source.id,
-              ...study.buses.map((b) => b.id),
-              ...study.transformers.map((t) => t.id),
-              ...study.cables.map((c) => c.id),
-              ...study.motors.map((m) => m.id),
-              ...study.devices.map((d) => d.id),
-              ...switches,
-            ].sort(),
+            [...elementIdsOf(study), ...switches].sort(),
           );
           const boxes = diagram.places.flatMap((place) => [
             place.label,
