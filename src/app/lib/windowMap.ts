@@ -1,4 +1,5 @@
 import type { FeasibleMap } from '../../engine/window/index.ts';
+import { textWidth } from '../../plot/textWidth.ts';
 
 /** A labelled run of one edge of the feasible map: consecutive columns bound by the same constraint. */
 export interface EdgeRun {
@@ -6,8 +7,40 @@ export interface EdgeRun {
   label: string;
   /** Polyline points in pixels. */
   points: [number, number][];
-  /** Where the label sits (pixels). */
+  /** Where the label sits (pixels): the anchor point of {@link EdgeRun.shown}, inside the plot box. */
   at: [number, number];
+  /** Which end of the shown text `at` is. */
+  anchor: LabelAnchor;
+  /** The label as drawn: `label`, or its start and an ellipsis where the box has no room for it. */
+  shown: string;
+}
+
+/** An SVG `text-anchor`. */
+export type LabelAnchor = 'start' | 'middle' | 'end';
+
+/** The plot box of a drawing (pixels). */
+export interface PlotBox {
+  left: number;
+  right: number;
+  top: number;
+  bottom: number;
+}
+
+/** Options of {@link edgeLabelPlacement}. */
+export interface EdgeLabelOptions {
+  /** The box the label must stay inside (pixels). */
+  box: PlotBox;
+  /** Font size, px. @default EDGE_LABEL_SIZE */
+  size?: number;
+  /** Gap kept between the text and the box's sides, px. @default 2 */
+  inset?: number;
+}
+
+/** Where an edge label is drawn: anchor point, text-anchor, and the (perhaps shortened) text. */
+export interface EdgeLabelPlacement {
+  at: [number, number];
+  anchor: LabelAnchor;
+  shown: string;
 }
 
 /** The drawable geometry of a feasible map in a box of `width` × `height` pixels. */
@@ -27,6 +60,9 @@ export interface WindowMapGeometry {
 
 /** Margins of the plot box inside the drawing (pixels): room for ticks and axis titles. */
 export const MAP_PADDING = { left: 44, right: 10, top: 10, bottom: 30 };
+
+/** Font size of the edge labels, px. */
+export const EDGE_LABEL_SIZE = 8;
 
 /**
  * Lays out a feasible map for drawing: log scales on both settings, one rectangle per open interval
@@ -77,16 +113,14 @@ export function windowMapGeometry(map: FeasibleMap, width: number, height: numbe
       ];
       if (run && runId === binding.id) run.points.push(...points);
       else {
-        run = { side, label: binding.label, points, at: points[0] };
+        run = { side, label: binding.label, points, at: points[0], anchor: 'middle', shown: binding.label };
         runId = binding.id;
         edges.push(run);
       }
     });
   }
-  for (const edge of edges) {
-    const mid = edge.points[Math.floor(edge.points.length / 2)];
-    edge.at = [mid[0], mid[1] + (edge.side === 'lower' ? 12 : -4)];
-  }
+  const box = { left, right: width - right, top, bottom: height - bottom };
+  for (const edge of edges) Object.assign(edge, edgeLabelPlacement(edge, { box }));
   const ticksOf = (min: number, max: number, steps?: number[]) => {
     const candidates = steps && steps.length <= 12 ? steps : niceLogTicks(min, max);
     return candidates.filter((v) => v >= min * (1 - 1e-9) && v <= max * (1 + 1e-9));
@@ -110,6 +144,54 @@ export function windowMapGeometry(map: FeasibleMap, width: number, height: numbe
       return { x: snap(x, map.x.min, map.x.max, map.x.values), y: snap(y, map.y.min, map.y.max, map.y.values) };
     },
   };
+}
+
+/**
+ * Places an edge's label wholly inside the plot box, so it never runs off the map or onto the tick
+ * labels beside it: centred under a lower edge's middle (above an upper edge's), moved to the
+ * other side of the line when that side has no room, end-anchored at the right side or
+ * start-anchored at the left when centring would cross it, and cut to its start and an ellipsis
+ * when it is wider than the box (the caller keeps the full label for a tooltip).
+ *
+ * @example edgeLabelPlacement(edge, { box: { left: 44, right: 430, top: 10, bottom: 220 } }).anchor // 'end'
+ */
+export function edgeLabelPlacement(
+  edge: Pick<EdgeRun, 'side' | 'label' | 'points'>,
+  options: EdgeLabelOptions,
+): EdgeLabelPlacement {
+  const { box, size = EDGE_LABEL_SIZE, inset = 2 } = options;
+  const [midX, lineY] = edge.points[Math.floor(edge.points.length / 2)];
+  const shown = shortenedTo(edge.label, box.right - box.left - 2 * inset, size);
+  const half = textWidth(shown, size) / 2;
+  // A horizontal label is centred on the run unless that would cross a side of the box.
+  const [x, anchor]: [number, LabelAnchor] =
+    midX + half > box.right - inset
+      ? [box.right - inset, 'end']
+      : midX - half < box.left + inset
+        ? [box.left + inset, 'start']
+        : [midX, 'middle'];
+  // The baseline: the text's ascent above it and descent below it (DejaVu Sans, about 0.76 and 0.24 em).
+  const ascent = 0.76 * size;
+  const descent = 0.24 * size;
+  const below = lineY + 4 + ascent;
+  const above = lineY - 4 - descent;
+  const fitsBelow = below + descent <= box.bottom - inset;
+  const fitsAbove = above - ascent >= box.top + inset;
+  const preferred =
+    edge.side === 'lower' ? (fitsBelow || !fitsAbove ? below : above) : fitsAbove || !fitsBelow ? above : below;
+  const y = Math.min(box.bottom - inset - descent, Math.max(box.top + inset + ascent, preferred));
+  return { at: [x, y], anchor, shown };
+}
+
+/** `text` whole when it is at most `room` px wide at `size`, else its longest start that fits with an ellipsis. */
+function shortenedTo(text: string, room: number, size: number): string {
+  if (textWidth(text, size) <= room) return text;
+  const chars = Array.from(text);
+  for (let n = chars.length - 1; n > 0; n--) {
+    const cut = `${chars.slice(0, n).join('').trimEnd()}…`;
+    if (textWidth(cut, size) <= room) return cut;
+  }
+  return '…';
 }
 
 /** 1, 2, 5 × 10ⁿ between `min` and `max`. */

@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { MAP_PADDING, windowMapGeometry } from '../../../src/app/lib/windowMap.ts';
+import {
+  EDGE_LABEL_SIZE,
+  MAP_PADDING,
+  edgeLabelPlacement,
+  windowMapGeometry,
+  type EdgeLabelPlacement,
+  type PlotBox,
+} from '../../../src/app/lib/windowMap.ts';
 import type { FeasibleMap } from '../../../src/engine/window/index.ts';
+import { textWidth } from '../../../src/plot/textWidth.ts';
 
 const binding = (id: string) => ({ id, kind: 'coordinate-below' as const, label: id, source: 'common practice' });
 const map: FeasibleMap = {
@@ -39,5 +47,95 @@ describe('windowMapGeometry', () => {
     expect(g.toPixels(10, 15)).toEqual([400 - MAP_PADDING.right, MAP_PADDING.top]);
     const [px, py] = g.toPixels(3.3, 4.4);
     expect(g.fromPixels(px, py)).toEqual({ x: 3.3, y: 5 });
+  });
+});
+
+// The plot box of the Window panel's 440 × 250 map.
+const box: PlotBox = { left: 44, right: 430, top: 10, bottom: 220 };
+
+/** The horizontal extent of a placed label's text. */
+function extentOf({ at: [x], anchor, shown }: EdgeLabelPlacement): [number, number] {
+  const w = textWidth(shown, EDGE_LABEL_SIZE);
+  const start = anchor === 'start' ? x : anchor === 'end' ? x - w : x - w / 2;
+  return [start, start + w];
+}
+
+describe('edgeLabelPlacement', () => {
+  it('centres a short label under the middle of a lower edge', () => {
+    const edge = { side: 'lower' as const, label: 'load', points: [[200, 100] as [number, number]] };
+    const placed = edgeLabelPlacement(edge, { box });
+    expect(placed).toEqual({ at: [200, 100 + 4 + 0.76 * 8], anchor: 'middle', shown: 'load' });
+  });
+
+  it('ends a label that would cross the right side at the right side, inside the box', () => {
+    // "coordinate with T1 primary relay" is about 133 px at 8 px; centred at 400 it would end near 466.
+    const edge = {
+      side: 'upper' as const,
+      label: 'coordinate with T1 primary relay',
+      points: [[380, 60] as [number, number], [420, 60] as [number, number]],
+    };
+    const placed = edgeLabelPlacement(edge, { box });
+    expect(placed.anchor).toBe('end');
+    expect(placed.at[0]).toBe(428);
+    expect(placed.shown).toBe(edge.label);
+    const [start, end] = extentOf(placed);
+    expect(start).toBeGreaterThan(box.left);
+    expect(end).toBeLessThanOrEqual(box.right);
+  });
+
+  it('starts a label that would cross the left side at the left side, clear of the tick labels left of it', () => {
+    const edge = { side: 'lower' as const, label: 'lowest long-time delay', points: [[50, 100] as [number, number]] };
+    const placed = edgeLabelPlacement(edge, { box });
+    expect(placed.anchor).toBe('start');
+    expect(placed.at[0]).toBe(46);
+  });
+
+  it('shortens a label wider than the box to its start and an ellipsis that fit', () => {
+    const label = 'coordinate with MCC feeder 600 A below (0 s at 10 kA, 0.1 s above the band, per the study)'.repeat(
+      2,
+    );
+    const placed = edgeLabelPlacement({ side: 'lower', label, points: [[230, 100]] }, { box });
+    expect(placed.shown).toMatch(/^coordinate with MCC feeder 600 A below .*…$/);
+    expect(label.startsWith(placed.shown.slice(0, -1))).toBe(true);
+    const [start, end] = extentOf(placed);
+    expect(start).toBeGreaterThanOrEqual(box.left);
+    expect(end).toBeLessThanOrEqual(box.right);
+    expect(end - start).toBeGreaterThan(box.right - box.left - 20);
+  });
+
+  it('puts a lower edge’s label above the line when the edge lies on the bottom, off the x tick labels', () => {
+    const placed = edgeLabelPlacement({ side: 'lower', label: 'load', points: [[200, 220]] }, { box });
+    expect(placed.at[1]).toBe(220 - 4 - 0.24 * 8);
+  });
+
+  it('puts an upper edge’s label below the line when the edge lies on the top', () => {
+    const placed = edgeLabelPlacement({ side: 'upper', label: 'withstand', points: [[200, 10]] }, { box });
+    expect(placed.at[1]).toBe(10 + 4 + 0.76 * 8);
+  });
+});
+
+describe('windowMapGeometry edge labels', () => {
+  it('keeps every label, long or short, inside the plot box with its full text', () => {
+    const long = (id: string) => binding(`coordinate with ${id} below (0 s margin up to 109 kA)`);
+    const wide: FeasibleMap = {
+      ...map,
+      columns: map.columns.map((c) => ({
+        ...c,
+        intervals: c.intervals.map((i) => ({ ...i, lower: long(i.lower.id), upper: long('T1 primary relay') })),
+      })),
+    };
+    const g = windowMapGeometry(wide, 440, 250);
+    expect(g.edges.map((e) => e.label)).toEqual([
+      'coordinate with below:A below (0 s margin up to 109 kA)',
+      'coordinate with below:B below (0 s margin up to 109 kA)',
+      'coordinate with T1 primary relay below (0 s margin up to 109 kA)',
+    ]);
+    for (const edge of g.edges) {
+      const [start, end] = extentOf(edge);
+      expect(start).toBeGreaterThanOrEqual(MAP_PADDING.left);
+      expect(end).toBeLessThanOrEqual(440 - MAP_PADDING.right);
+      expect(edge.at[1]).toBeGreaterThan(MAP_PADDING.top);
+      expect(edge.at[1]).toBeLessThan(250 - MAP_PADDING.bottom);
+    }
   });
 });
