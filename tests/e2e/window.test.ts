@@ -4,7 +4,7 @@ import { pageErrors, settled, startWorkbench, type Workbench } from './harness.t
 
 let bench: Workbench;
 beforeAll(async () => {
-  bench = await startWorkbench(4191);
+  bench = await startWorkbench(4195);
 });
 afterAll(async () => {
   await bench?.close();
