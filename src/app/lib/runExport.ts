@@ -3,6 +3,7 @@ import { csvReport, markdownReport } from '../../engine/report/index.ts';
 import { downloadText, fileStemOf } from './download.ts';
 import { downloadPdf, downloadPng, downloadReportPdf, downloadSvg, exportPageOf, type ExportKind } from './exports.ts';
 import { probesCsv } from './probeCsv.ts';
+import { exportRefusalOf } from './problemNotes.ts';
 
 /**
  * Carries out one choice of the Export menu: the current sheet as SVG, PNG or PDF (all from the plot
@@ -10,13 +11,16 @@ import { probesCsv } from './probeCsv.ts';
  * Markdown or CSV (the engine's reports, as the command line writes them), the pinned probes as CSV,
  * the study as JSON (as written), or the whole study report as one print-ready HTML page or as a PDF,
  * both on the chosen paper (the same report the command line writes). Throws with a plain message when
- * there is nothing to export yet.
+ * there is nothing to export yet, or when the study has problems and the export would show the last
+ * valid study instead of the one being edited.
  *
  * @example await runExport({ kind: 'pdf', paper: 'a3' }, context)
  */
 export async function runExport(request: ExportKind, context: StudyContext): Promise<void> {
   const { study, sheet } = context;
   const kind = typeof request === 'string' ? request : request.kind;
+  const refusal = exportRefusalOf(kind, study.problems);
+  if (refusal) throw new Error(refusal);
   const stem = fileStemOf(study.document.name);
   const view = study.view?.id ?? 'sheet';
   switch (kind) {
