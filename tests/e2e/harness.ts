@@ -25,6 +25,13 @@ export interface Workbench {
   close(): Promise<void>;
 }
 
+/** The screen sizes the workbench is held to: a laptop, a common office monitor, a full-HD one (px). */
+export const SCREEN_SIZES = [
+  [1280, 800],
+  [1440, 900],
+  [1920, 1080],
+] as const;
+
 /**
  * Starts `vite preview` on `port` and launches Chromium. Fails at once, saying why, when dist/ has
  * not been built (`npm test` builds it first).

@@ -1,15 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
+import { pageErrors, SCREEN_SIZES as SIZES, settled, startWorkbench, type Workbench } from './harness.ts';
 
 // Screenshots of the demo sheet at each size, for a person to look at (out/ is not committed).
 const SHOTS = fileURLToPath(new URL('../../out/screens/', import.meta.url));
-const SIZES = [
-  [1280, 800],
-  [1440, 900],
-  [1920, 1080],
-] as const;
 
 let bench: Workbench;
 beforeAll(async () => {

@@ -1,14 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
+import { pageErrors, SCREEN_SIZES as SIZES, settled, startWorkbench, type Workbench } from './harness.ts';
 
 // What an engineer reads off the workbench is drawn whole: the probe readout's clearing times and
 // the setting-window map's edge labels.
-const SIZES = [
-  [1280, 800],
-  [1440, 900],
-  [1920, 1080],
-] as const;
 
 let bench: Workbench;
 beforeAll(async () => {
