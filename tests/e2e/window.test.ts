@@ -29,6 +29,23 @@ describe('the Window panel in Chromium', () => {
     await context.close();
   });
 
+  it("names what the recommendation still misses: on the generator, the breaker against the machine's damage curve", async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('demo-menu').selectOption('harrowmere-standby.json');
+    await settled(page);
+    await page.getByTestId('scenario-menu').selectOption('on-generator');
+    await settled(page);
+    await page.getByTestId('tree-device-GEN-CB').click();
+    await page.getByTestId('tab-window').click();
+    // NFPA 70 445.12(A) accepts the machine's inherent protection: the checks warn, and the window says so.
+    await page.getByTestId('window-missed').waitFor();
+    await expect(page.getByTestId('window-missed').textContent()).resolves.toMatch(
+      /^\s*Not kept at the recommendation: clear below .+ damage curve .+ s at .+ A\)/,
+    );
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
   it('a click inside the map applies that setting as one undoable step, and the findings follow', async () => {
     const { page, context } = await bench.open();
     await page.getByTestId('tree-device-MAIN').click();

@@ -2,7 +2,7 @@ import { CAUTION } from '../caution.ts';
 import { significant } from '../quantity/format.ts';
 import type { Study } from '../study/index.ts';
 import { hasScenarios, scenarioLabel, scenariosOf, treeHolding } from '../scenario/index.ts';
-import { settingText, settingWindowOf, type ConstraintMargin, type SettingWindow } from '../window/index.ts';
+import { notKeptOf, settingText, settingWindowOf, type SettingWindow } from '../window/index.ts';
 import { csvCell } from './csv.ts';
 
 /** One row of the settings table: a device's setting now, its window, the recommendation and what binds it. */
@@ -133,18 +133,6 @@ export function rowsOf(window: SettingWindow): SettingsTableRow[] {
   return [...switchRows, ...settingRows];
 }
 
-/**
- * The constraints a setting does not keep, from its margins: those that fail, and those that hold with
- * a negative margin. The recommendation search only refuses failures, and a few checks warn rather
- * than fail (a generator's damage curve, clearing the minimum fault within the time allowed), so a
- * recommendation can miss them; constraints no setting changes (interrupting duty) are kept or not
- * whatever the setting.
- *
- * @example notKeptOf(settingWindowOf(study, 'GEN-CB').recommendation!.margins).map((m) => m.label)
- */
-export function notKeptOf(margins: readonly ConstraintMargin[]): ConstraintMargin[] {
-  return margins.filter((m) => !m.result.ok || m.result.margin < 0);
-}
 
 /**
  * What the recommended value is and what it can still miss, for every table of setting windows to

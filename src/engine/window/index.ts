@@ -2,7 +2,7 @@ export { settingWindowOf, windowIn, overridesOf } from './settingWindow.ts';
 export type { SettingWindow, SettingWindowOptions, SettingRow, SwitchRow } from './settingWindow.ts';
 export { constraintsOf } from './constraints.ts';
 export type { Constraint, ConstraintKind, ConstraintResult, ConstraintsOptions, Favours } from './constraints.ts';
-export { recommendationOf, TIE_BREAK } from './recommendation.ts';
+export { notKeptOf, recommendationOf, TIE_BREAK } from './recommendation.ts';
 export type {
   Recommendation,
   RecommendedSetting,

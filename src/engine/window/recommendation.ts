@@ -44,6 +44,19 @@ export interface ConstraintMargin {
   result: ConstraintResult;
 }
 
+/**
+ * The constraints a setting does not keep, from its margins: those that fail, and those that hold with
+ * a negative margin. The recommendation search only refuses failures, and a few checks warn rather
+ * than fail (a generator's damage curve, clearing the minimum fault within the time allowed), so a
+ * recommendation can miss them; constraints no setting changes (interrupting duty) are kept or not
+ * whatever the setting.
+ *
+ * @example notKeptOf(settingWindowOf(study, 'GEN-CB').recommendation!.margins).map((m) => m.label)
+ */
+export function notKeptOf(margins: readonly ConstraintMargin[]): ConstraintMargin[] {
+  return margins.filter((m) => !m.result.ok || m.result.margin < 0);
+}
+
 /** The fastest-clearing setting that keeps every margin (DEVELOPERS.md, names "proposal" for one device). */
 export interface Recommendation {
   /** The device with the recommended settings. */
