@@ -133,7 +133,6 @@ export function rowsOf(window: SettingWindow): SettingsTableRow[] {
   return [...switchRows, ...settingRows];
 }
 
-
 /**
  * What the recommended value is and what it can still miss, for every table of setting windows to
  * state; each table then says where it names the constraints not kept.
