@@ -18,12 +18,40 @@ const CURVE_NAMES: Record<string, 'minimum' | 'maximum'> = {
   max: 'maximum',
 };
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+/** A field that starts as a number does: such a row is data, never a header, whatever follows. */
+const STARTS_AS_NUMBER = /^[+-]?(\d|\.\d)/;
+
+/** The units a header may give a column, with the factor to amperes (or multiples) and to seconds. */
+const CURRENT_UNITS: Record<string, number> = {
+  a: 1,
+  amp: 1,
+  amps: 1,
+  ampere: 1,
+  amperes: 1,
+  ka: 1000,
+  x: 1,
+  '×': 1,
+  multiple: 1,
+  multiples: 1,
+  pu: 1,
+};
+const TIME_UNITS: Record<string, number> = {
+  s: 1,
+  sec: 1,
+  second: 1,
+  seconds: 1,
+  ms: 1e-3,
+  millisecond: 1e-3,
+  milliseconds: 1e-3,
+};
 
 /**
  * Reads digitised curve points from CSV text: rows of `current,time` (amperes, seconds), or
  * `curve,current,time` with curve `minimum-melting`/`total-clearing` (fuses) or `min`/`max` (a
- * thermal band, currents then in multiples of the rating). A header row is optional; `#` starts a
- * comment; blank lines are skipped; fields may be separated by commas, semicolons or tabs. Each
+ * thermal band, currents then in multiples of the rating). A header row is optional, and the units it
+ * gives are used: kA or A (or multiples) for current, ms or s for time ("current (kA),time (ms)"); a unit
+ * it gives that is not one of these is refused. `#` starts a comment; blank lines are skipped; lines may
+ * end in LF, CR LF or CR; fields may be separated by commas, semicolons or tabs. Each
  * curve must have current ascending and time strictly descending. A bad row throws an `InputError`
  * naming its line: `row 7: expected a current in amperes greater than 0, got "abc"`.
  *
@@ -34,15 +62,28 @@ export function parsePointsCsv(text: string): PointsCsv {
   const rows: Record<'points' | 'minimum' | 'maximum', number[]> = { points: [], minimum: [], maximum: [] };
   let columns: 2 | 3 | undefined;
   let seenData = false;
-  text.split(/\r?\n/).forEach((line, index) => {
+  let scale = { current: 1, time: 1 };
+  text.split(/\r\n|\r|\n/).forEach((line, index) => {
     const row = `row ${index + 1}`;
     const content = line.replace(/#.*$/, '').trim();
     if (content === '') return;
     const fields = content.split(/\s*[,;\t]\s*/);
-    if (!seenData && !fields.some((field) => NUMBER.test(field)) && fields.length >= 2 && fields.length <= 3) {
-      // A header names its columns; only the first non-comment row may be one.
+    if (
+      !seenData &&
+      !fields.some((field) => STARTS_AS_NUMBER.test(field)) &&
+      fields.length >= 2 &&
+      fields.length <= 3
+    ) {
+      // A header names its columns; only the first non-comment row may be one. Units it gives are
+      // used, and one it gives that is not understood is refused: a file in kA or ms read as A or s
+      // would be a thousand times off.
       seenData = true;
       columns = fields.length as 2 | 3;
+      const [currentName, timeName] = fields.slice(columns - 2);
+      scale = {
+        current: unitFactor(currentName, CURRENT_UNITS, row, 'A, kA or multiples (×)'),
+        time: unitFactor(timeName, TIME_UNITS, row, 's or ms'),
+      };
       return;
     }
     seenData = true;
@@ -71,7 +112,7 @@ export function parsePointsCsv(text: string): PointsCsv {
       throw new InputError(row, `expected a time in seconds greater than 0, got ${JSON.stringify(timeText)}`);
     }
     const table = (result[curve] ??= []);
-    table.push([Number(currentText), Number(timeText)]);
+    table.push([Number(currentText) * scale.current, Number(timeText) * scale.time]);
     rows[curve].push(index + 1);
     const problem = pointProblem(table, table.length - 1, { current, unit: '' });
     if (problem) throw new InputError(row, problem.message);
@@ -87,3 +128,28 @@ export function parsePointsCsv(text: string): PointsCsv {
   }
   return result;
 }
+
+/**
+ * The factor a header field's unit gives its column: from a unit in brackets ("current (kA)", "time [ms]",
+ * "current (A rms)", "current (× In)") or a last word ("time ms", "current_kA", "t/ms"); 1 where the field
+ * names no unit ("current", "time"). A unit in brackets that is not one of `units`, or a last word that
+ * is a unit of another scale (cycles, µs, minutes, mA), is refused.
+ */
+function unitFactor(field: string, units: Record<string, number>, row: string, expected: string): number {
+  const name = field.toLowerCase().trim();
+  const bracketed = /[([]\s*(?:in\s+)?([^)\]]*?)\s*[)\]]/.exec(name)?.[1];
+  const words = name.split(/[\s_/]+/).filter(Boolean);
+  const unit = bracketed ?? (words.length > 1 ? words[words.length - 1] : undefined);
+  if (unit === undefined) return 1;
+  const bare = unit.replace(/\b(rms|sym|symmetrical)\b/g, '').replace(/[\s.]+/g, '');
+  const factor = units[bare] ?? (units === CURRENT_UNITS && MULTIPLES.test(bare) ? 1 : undefined);
+  if (factor !== undefined) return factor;
+  if (bracketed !== undefined || OTHER_UNITS.test(bare))
+    throw new InputError(row, `expected a column in ${expected}, got ${JSON.stringify(field)}`);
+  return 1;
+}
+
+/** Multiples of a rating, however written: "×", "x In", "× Ir", "multiples of rating", "times rating", "pu". */
+const MULTIPLES = /^([x×]|multiples?|times|pu)/;
+/** Last words of a header that are units of another scale: refused, not ignored. */
+const OTHER_UNITS = /^(cycles?|cyc|~|[µu]s|min|minutes?|h|hours?|ma|milliamps?|kiloamps?|kiloamperes?|ma)$/;

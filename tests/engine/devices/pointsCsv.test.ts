@@ -69,4 +69,45 @@ describe('pointsCsv', () => {
       /^row 1: expected rows of current,time or curve,current,time, got no points$/,
     );
   });
+
+  it('parsePointsCsv reads the units a header gives, in kA or ms, so a file is never read a thousand times off', () => {
+    // 0.2 kA at 300,000 ms is 200 A at 300 s; 2 kA at 10 ms is 2000 A at 0.01 s.
+    expect(parsePointsCsv('current (kA),time (ms)\n0.2,300000\n2,10').points).toEqual([
+      [200, 300],
+      [2000, 0.01],
+    ]);
+    expect(parsePointsCsv('current_A,time ms\n200,300000\n2000,10').points).toEqual([
+      [200, 300],
+      [2000, 0.01],
+    ]);
+    // Amperes rms, seconds, and multiples of a rating (a thermal band) are read as they are.
+    expect(parsePointsCsv('current (A rms),time [s]\n200,300\n2000,0.01').points).toEqual([
+      [200, 300],
+      [2000, 0.01],
+    ]);
+    expect(parsePointsCsv('curve,current (× In),time (s)\nmin,1.1,300\nmin,10,1').minimum).toEqual([
+      [1.1, 300],
+      [10, 1],
+    ]);
+  });
+
+  it('parsePointsCsv refuses a unit it does not read, and never takes a row of numbers with units for a header', () => {
+    expect(rejection('current (A),time (cycles)\n200,30\n2000,1')).toMatch(
+      /^row 1: expected a column in s or ms, got "time \(cycles\)"$/,
+    );
+    expect(rejection('current (mA),time\n200,300\n2000,0.01')).toMatch(
+      /^row 1: expected a column in A, kA or multiples \(×\), got "current \(mA\)"$/,
+    );
+    // The first point, written with its units, is not dropped as a header: it is refused, naming it.
+    expect(rejection('200 A,300 s\n2000,0.01\n3000,0.005')).toMatch(
+      /^row 1: expected a current in amperes greater than 0, got "200 A"$/,
+    );
+  });
+
+  it('parsePointsCsv splits lines ended by CR alone, as older spreadsheet exports write them', () => {
+    expect(parsePointsCsv('current,time\r200,300\r2000,0.01').points).toEqual([
+      [200, 300],
+      [2000, 0.01],
+    ]);
+  });
 });
