@@ -175,7 +175,7 @@ describe('the workbench in Chromium', () => {
     const refused = page.getByTestId('refused');
     await refused.waitFor();
     await expect(refused.textContent()).resolves.toMatch(
-      /study\.transformers\[0\]\.impedance: expected a percentage greater than 0, got "-5"/,
+      /study\.transformers\[0\]\.impedance: expected a percentage of at least 0\.5, got "-5"/,
     );
     await expect(page.getByTestId('study-name').textContent()).resolves.toContain(demo.name);
     await expect(page.getByTestId(delayField).inputValue()).resolves.toBe('0.3');

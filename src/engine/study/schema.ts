@@ -216,11 +216,12 @@ export function createStudySchema(frequency = 60) {
       primary: voltage('rated primary voltage'),
       secondary: voltage('rated secondary voltage'),
       impedance: percentField({
-        min: 0,
-        exclusiveMin: true,
+        // At least 0.5 %: a per-unit figure typed as a percentage ("0.0575" for 5.75 %) would give a
+        // hundred times the fault current, and minimum-fault checks would pass that should not.
+        min: 0.5,
         max: 25,
         description:
-          'nameplate impedance in percent on its own rating, at most 25 % (nameplates run from about 1 % for small dry-types to about 20 % for the largest units; the IEEE C57.109 curves need at least 2 pu through-fault current)',
+          'nameplate impedance in percent on its own rating, from 0.5 % to 25 % (nameplates run from about 1 % for small dry-types to about 20 % for the largest units; a per-unit 0.0575 is written 5.75 %; the IEEE C57.109 curves need at least 2 pu through-fault current)',
       }),
       xr: xrRatio('X/R ratio; omit for all-reactance').optional(),
       connection: z

@@ -55,7 +55,7 @@ describe('StudyState', () => {
     expect(state.open(bad, 'bad.json')).toBe(false);
     expect(state.refused?.fileName).toBe('bad.json');
     expect(state.refused?.problems.map((p) => `${p.path}: ${p.message}`)).toContain(
-      'study.transformers[0].impedance: expected a percentage greater than 0, got "-5"',
+      'study.transformers[0].impedance: expected a percentage of at least 0.5, got "-5"',
     );
     expect(state.valueAt(sensor)).toBe(1600);
     expect(state.history.canUndo).toBe(true);

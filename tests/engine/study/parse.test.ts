@@ -90,7 +90,16 @@ describe('readStudy', () => {
     const negative = demo();
     negative.transformers![1].impedance = '-5';
     expect(firstProblem(negative)).toMatch(
-      /^study\.transformers\[1\]\.impedance: expected a percentage greater than 0, got "-5"$/,
+      /^study\.transformers\[1\]\.impedance: expected a percentage of at least 0\.5, got "-5"$/,
+    );
+  });
+
+  it('refuses a per-unit transformer impedance written where a percentage goes: 0.0575 is not 5.75 %', () => {
+    // Read as 0.0575 %, it gave the demo's switchboard 276 kA where 5.75 % gives 30 kA.
+    const input = demo();
+    input.transformers![0].impedance = 0.0575;
+    expect(firstProblem(input)).toMatch(
+      /^study\.transformers\[0\]\.impedance: expected a percentage of at least 0\.5, got "0\.0575"$/,
     );
   });
 
@@ -185,7 +194,7 @@ describe('readStudy', () => {
     const input = demo();
     input.transformers![0].impedance = '1e-310 %';
     expect(firstProblem(input)).toMatch(
-      /^study\.transformers\[0\]\.impedance: expected a percentage of 0 or at least 1e-9 in size, got "1e-310 %"$/,
+      /^study\.transformers\[0\]\.impedance: expected a percentage .*, got "1e-310 %"$/,
     );
   });
 
