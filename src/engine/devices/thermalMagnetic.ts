@@ -3,6 +3,9 @@ import { bandOfEdges, compositeEdge, definiteElement } from './composite.ts';
 import { tableElement } from './pointTable.ts';
 import type { ThermalMagnetic } from './thermalMagneticSchema.ts';
 
+/** A thermal table's first multiple of rating above which it is reported as likely entered in amperes. */
+const THERMAL_START_LIMIT = 2;
+
 /**
  * The band of a thermal-magnetic breaker in amperes: the thermal tables scaled by the rating
  * (log-log interpolated, `Infinity` below each table's first current, held beyond its last), and
@@ -34,6 +37,15 @@ export function thermalMagneticBand(breaker: ThermalMagnetic): Band {
   if (fastFrom < magneticLow) {
     diagnostics.push(
       `the minimum thermal curve ends at ${Number((minimum.lastAmps / rating).toPrecision(4))}× rating, below the magnetic trip's lower edge at ${Number((magneticLow / rating).toPrecision(4))}×: the band takes the magnetic trip from its last point (digitise the curve up to the magnetic trip)`,
+    );
+  }
+  // A thermal element picks up near 1.05–1.35 × rating (common practice); a table starting far above
+  // that was most likely entered in amperes where multiples of the rating belong, and would leave the
+  // breaker with no overload trip at all.
+  const thermalStart = Math.min(thermal.minimum[0][0], thermal.maximum[0][0]);
+  if (thermalStart > THERMAL_START_LIMIT) {
+    diagnostics.push(
+      `the thermal curve starts at ${Number(thermalStart.toPrecision(4))}× rating (${Number((thermalStart * rating).toPrecision(4))} A): its currents are multiples of the rating, not amperes, and a thermal element picks up near 1.05–1.35×; check the table`,
     );
   }
   const setting = magnetic.pickupAmps ?? magnetic.pickup ?? 0;

@@ -97,6 +97,24 @@ describe('thermalMagnetic', () => {
     );
   });
 
+  it('thermalMagneticBand notes a thermal table that starts far above pickup, as one entered in amperes would', () => {
+    // The 100 A breaker's table typed in amperes (105 A … 1000 A) reads as 105 × … 1000 × rating: no overload trip at 200 A.
+    const inAmps = {
+      ...breaker,
+      thermal: {
+        minimum: breaker.thermal.minimum.map(([m, t]) => [m * 100, t]),
+        maximum: breaker.thermal.maximum.map(([m, t]) => [m * 100, t]),
+      },
+    };
+    const band = thermalMagneticBand(thermalMagneticSchema.parse(inAmps));
+    expect(band.minTime(200)).toBe(Infinity);
+    expect(band.diagnostics.join('\n')).toMatch(
+      /the thermal curve starts at 105× rating \(10500 A\): its currents are multiples of the rating, not amperes/,
+    );
+    // A table in multiples says nothing of the kind.
+    expect(thermalMagneticBand(thermalMagneticSchema.parse(breaker)).diagnostics.join('\n')).not.toMatch(/starts at/);
+  });
+
   it('thermalMagneticBand is current limiting from the magnetic slow edge when flagged', () => {
     const band = thermalMagneticBand(thermalMagneticSchema.parse({ ...breaker, currentLimiting: true }));
     assertInDelta(band.currentLimitingFrom, 1200);
