@@ -114,6 +114,11 @@ describe('discern transformer', () => {
   it.each([
     [['--impedance', '-5'], /^--impedance: expected a percentage greater than 0, got "-5"\n$/],
     [['--impedance', 'lots'], /^--impedance: expected a percentage greater than 0, got "lots"\n$/],
+    // A per-unit impedance where a percentage goes, refused as a study refuses it.
+    [
+      ['--impedance', '0.0575'],
+      /^--impedance: expected a percentage of at least 0\.5 \(a per-unit 0\.0575 is 5\.75\), got "0\.0575"\n$/,
+    ],
     [
       ['--primary', '4.16 kA'],
       /^--primary: expected a voltage greater than 0 such as "480" or "12\.47 kV", got "4\.16 kA"\n$/,

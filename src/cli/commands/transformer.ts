@@ -22,6 +22,8 @@ const FLAGS = {
   help: 'switch',
 } as const;
 
+/** The least nameplate impedance taken, as a study's transformer takes it (%). */
+const MIN_IMPEDANCE_PERCENT = 0.5;
 const HELP = `discern transformer — full-load current and secondary bolted fault of one transformer
 
   --kva <rating>          rating; a plain number is kVA ("1500", "1.5 MVA")
@@ -112,7 +114,14 @@ function inputOf(parsed: ReturnType<typeof parseArgs>): TransformerCalculationIn
     );
   const primary = voltage('primary');
   const secondary = voltage('secondary');
-  const impedance = percentFlag(requiredFlag(parsed, 'impedance', 'a percentage such as "5.75"'), 'impedance');
+  const impedanceText = requiredFlag(parsed, 'impedance', 'a percentage such as "5.75"');
+  const impedance = percentFlag(impedanceText, 'impedance');
+  // As a study's transformer: a per-unit 0.0575 read as 0.0575 % would give a hundred times the fault current.
+  if (impedance < MIN_IMPEDANCE_PERCENT)
+    throw new InputError(
+      '--impedance',
+      expectedGot(`a percentage of at least ${MIN_IMPEDANCE_PERCENT} (a per-unit 0.0575 is 5.75)`, impedanceText),
+    );
   const phasesText = flagText(parsed, 'phases') ?? '3';
   if (phasesText !== '1' && phasesText !== '3') throw new InputError('--phases', expectedGot('1 or 3', phasesText));
   const optional = (name: 'xr' | 'source-xr') => {
