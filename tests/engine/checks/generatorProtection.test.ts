@@ -4,9 +4,7 @@ import { generatorFindings } from '../../../src/engine/checks/index.ts';
 import { AnalysisMemo } from '../../../src/engine/incremental.ts';
 import { parseStudy, type Study, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
-
-/** Rated current of the 500 kVA, 480 V machine: 500 000 / (√3 × 480) = 601.4065 A. */
-const RATED = 500e3 / (Math.sqrt(3) * 480);
+import { RATED_AMPS as RATED, standbySource } from '../generator/fixtures.ts';
 
 /**
  * An invented 500 kVA, 480 V standby generator (X″d 0.12, X′d 0.2, Xd 2.0 pu) whose breaker, an 800 A
@@ -18,20 +16,7 @@ function standby(longDelay: number, shortPickup: number, longPickup = 0.75): Stu
   return {
     discern: 1,
     name: 'standby generator and its breaker',
-    source: {
-      kind: 'generator',
-      id: 'G1',
-      name: 'Standby generator',
-      bus: 'GEN',
-      rating: '500 kVA',
-      voltage: 480,
-      xdSubtransient: 0.12,
-      xdTransient: 0.2,
-      xd: 2,
-      tdSubtransient: 0.015,
-      tdTransient: 0.4,
-      sustained: 3,
-    },
+    source: standbySource(),
     buses: [
       { id: 'GEN', voltage: 480 },
       { id: 'PNL', voltage: 480 },

@@ -1,4 +1,5 @@
 import type { GeneratorRating } from '../../../src/engine/generator/index.ts';
+import type { StudyInput } from '../../../src/engine/study/index.ts';
 
 /**
  * An invented 500 kVA, 480 V standby generator with typical small-machine data (X″d 0.12, X′d 0.2, Xd 2.0 pu;
@@ -28,4 +29,25 @@ export const RATED_AMPS = 500e3 / (Math.sqrt(3) * 480);
  */
 export function decrementByHand(t: number, x2 = 0.12, x1 = 0.2, x = 2.0, t2 = 0.015, t1 = 0.4, e = 1): number {
   return e * ((1 / x2 - 1 / x1) * Math.exp(-t / t2) + (1 / x1 - 1 / x) * Math.exp(-t / t1) + 1 / x);
+}
+
+/**
+ * The same machine as a study's source "Standby generator" on bus GEN, with excitation support holding
+ * 3 × rated current (a fresh object each call, for a test to change).
+ */
+export function standbySource(): Extract<StudyInput['source'], { kind: 'generator' }> {
+  return {
+    kind: 'generator',
+    id: 'G1',
+    name: 'Standby generator',
+    bus: 'GEN',
+    rating: '500 kVA',
+    voltage: 480,
+    xdSubtransient: 0.12,
+    xdTransient: 0.2,
+    xd: 2,
+    tdSubtransient: 0.015,
+    tdTransient: 0.4,
+    sustained: 3,
+  };
 }

@@ -3,6 +3,7 @@ import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { constraintsOf, trialOf } from '../../../src/engine/window/index.ts';
 import { assertInDelta } from '../../asserts.ts';
+import { standbySource } from '../generator/fixtures.ts';
 
 /**
  * A 480 V switchboard with 30 kA available at X/R 10 and a moulded-case feeder breaker on it with the
@@ -91,20 +92,7 @@ function generatorTree(genInstantaneous?: number, shortTimePickup = 2): StudyInp
   return {
     discern: 1,
     name: 'standby generator, breaker and feeder',
-    source: {
-      kind: 'generator',
-      id: 'G1',
-      name: 'Standby generator',
-      bus: 'GEN',
-      rating: '500 kVA',
-      voltage: 480,
-      xdSubtransient: 0.12,
-      xdTransient: 0.2,
-      xd: 2,
-      tdSubtransient: 0.015,
-      tdTransient: 0.4,
-      sustained: 3,
-    },
+    source: standbySource(),
     buses: [
       { id: 'GEN', voltage: 480 },
       { id: 'PNL', voltage: 480 },
