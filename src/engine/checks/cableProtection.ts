@@ -1,7 +1,6 @@
 import { withLazyText } from '../lazyText.ts';
 import { scaleBand, type Band } from '../band.ts';
 import { locationBusOf } from '../network/index.ts';
-import { findOverlaps } from '../overlap.ts';
 import { formatAmps, formatSeconds } from '../quantity/format.ts';
 import type { Cable, Device } from '../study/index.ts';
 import { conductorAreaCmil } from '../conductors/index.ts';
@@ -16,7 +15,7 @@ import {
   type CheckContext,
 } from './context.ts';
 import type { Finding } from './finding.ts';
-import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
+import { protectionOf, withstandBandOf } from './withstandBand.ts';
 
 /**
  * Checks that the device nearest above a cable clears before the cable's ICEA P-32-382 short-circuit
@@ -51,10 +50,8 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
     ];
   }
   const scaled = scaleBand(context.bands.get(device.id)!, deviceVolts / volts);
-  const intervals = findOverlaps(withstand, scaled, { fromAmps: from, toAmps, horizon, ...PROTECTION_FINDER });
-  const failures = intervals.filter((interval) => interval.status === 'overlap');
-  if (failures.length === 0) {
-    const least = intervals.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
+  const { failures, closest } = protectionOf(withstand, scaled, from, toAmps, horizon);
+  if (closest) {
     return [
       withLazyText<Finding>(
         {
@@ -64,7 +61,7 @@ export function cableFindings(context: CheckContext, cable: Cable, horizon = 100
           title: `${deviceName} protects ${name}`,
           subjects: [device.id, cable.id],
           range: rangeOf(from, toAmps, volts, []),
-          worst: least.worst,
+          worst: closest,
         },
         { explanation: sentences.protects, basis: sentences.basis },
         { referenceVolts: volts },

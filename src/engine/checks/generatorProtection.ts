@@ -2,12 +2,11 @@ import { scaleBand } from '../band.ts';
 import { generatorDamageCurve } from '../generator/generatorDamageCurve.ts';
 import { ratedAmpsOf } from '../generator/rating.ts';
 import { locationBusOf, upstreamDeviceOf, type Network } from '../network/index.ts';
-import { findOverlaps } from '../overlap.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { Device, Source } from '../study/index.ts';
 import { capitalise, describeRange, nameOf, rangeOf, surelyClearsFrom, type CheckContext } from './context.ts';
 import type { Finding } from './finding.ts';
-import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
+import { protectionOf, withstandBandOf } from './withstandBand.ts';
 
 type Generator = Extract<Source, { kind: 'generator' }>;
 
@@ -95,15 +94,8 @@ export function generatorFindings(
     }
     const checkedFrom = Math.max(from, clearsFrom);
     if (!(to > checkedFrom)) continue;
-    const intervals = findOverlaps(withstand, band, {
-      fromAmps: checkedFrom,
-      toAmps: to,
-      horizon,
-      ...PROTECTION_FINDER,
-    });
-    const failures = intervals.filter((interval) => interval.status === 'overlap');
-    if (failures.length === 0) {
-      const least = intervals.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
+    const { failures, closest } = protectionOf(withstand, band, checkedFrom, to, horizon);
+    if (closest) {
       const range = rangeOf(checkedFrom, to, volts, []);
       findings.push({
         ...head,
@@ -111,8 +103,8 @@ export function generatorFindings(
         severity: 'ok',
         title: `${deviceName} protects ${name}`,
         range,
-        worst: least.worst,
-        explanation: `${capitalise(describeRange(range))} ${deviceName} clears before ${curve.label} is reached; the closest point is ${formatAmps(least.worst.amps, 3)}, where it clears in ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
+        worst: closest,
+        explanation: `${capitalise(describeRange(range))} ${deviceName} clears before ${curve.label} is reached; the closest point is ${formatAmps(closest.amps, 3)}, where it clears in ${formatSeconds(closest.downTime)} against ${formatSeconds(closest.upTime)}.`,
       });
       continue;
     }

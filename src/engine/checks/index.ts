@@ -14,7 +14,7 @@ export type { Family, MarginRule } from './margins.ts';
 export { ratingOf } from './deviceRating.ts';
 export type { DeviceRating } from './deviceRating.ts';
 export { nextStandardRating, STANDARD_RATINGS, ADDITIONAL_FUSE_RATINGS } from './standardRatings.ts';
-export { withstandBandOf, PROTECTION_FINDER } from './withstandBand.ts';
+export { withstandBandOf, protectionOf } from './withstandBand.ts';
 export { nameOf, rangeOf, describeRange, surelyClearsFrom, capitalise, protectingDevice } from './context.ts';
 export type { CheckContext } from './context.ts';
 export type { Finding, FindingKind, Severity, CurrentRange } from './finding.ts';

@@ -1,4 +1,3 @@
-import { findOverlaps } from '../overlap.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { Device, Transformer } from '../study/index.ts';
 import {
@@ -17,7 +16,7 @@ import {
   type CheckContext,
 } from './context.ts';
 import type { Finding } from './finding.ts';
-import { PROTECTION_FINDER, withstandBandOf } from './withstandBand.ts';
+import { protectionOf, withstandBandOf } from './withstandBand.ts';
 
 /**
  * Checks a transformer's primary device against the transformer (IEEE C57.109 / C57.12.59 through-fault
@@ -135,16 +134,9 @@ function throughFaultFindings(
     }
     const checkedFrom = Math.max(from, clearsFrom);
     if (!(to > checkedFrom)) continue;
-    const intervals = findOverlaps(withstand, band, {
-      fromAmps: checkedFrom,
-      toAmps: to,
-      horizon,
-      ...PROTECTION_FINDER,
-    });
-    const failures = intervals.filter((interval) => interval.status === 'overlap');
+    const { failures, closest } = protectionOf(withstand, band, checkedFrom, to, horizon);
     const range = rangeOf(checkedFrom, to, volts, [transformer.secondary]);
-    if (failures.length === 0) {
-      const least = intervals.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a));
+    if (closest) {
       findings.push({
         id: `transformer-withstand:${transformer.id}:${faultCase.label}`,
         kind: 'transformer-withstand',
@@ -152,8 +144,8 @@ function throughFaultFindings(
         title: `${deviceName} protects ${name}${suffix}`,
         subjects: [device.id, transformer.id],
         range,
-        worst: least.worst,
-        explanation: `${capitalise(describeRange(range))} ${deviceName} clears before ${curve.label} is reached${suffix}; the closest point is ${formatAmps(least.worst.amps, 3)}, where it clears in ${formatSeconds(least.worst.downTime)} against ${formatSeconds(least.worst.upTime)}.`,
+        worst: closest,
+        explanation: `${capitalise(describeRange(range))} ${deviceName} clears before ${curve.label} is reached${suffix}; the closest point is ${formatAmps(closest.amps, 3)}, where it clears in ${formatSeconds(closest.downTime)} against ${formatSeconds(closest.upTime)}.`,
         basis: curve.notes.join(' '),
         referenceVolts: volts,
       });

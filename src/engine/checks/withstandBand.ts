@@ -1,4 +1,5 @@
 import type { Band } from '../band.ts';
+import { findOverlaps, type OverlapInterval, type WorstPoint } from '../overlap.ts';
 import type { WithstandCurve } from '../withstand/index.ts';
 
 /**
@@ -37,4 +38,24 @@ function scaledCurrentsOf(amps: Float64Array, scale: number): Float64Array {
 }
 
 /** Finder options that turn off the half-cycle rules, which do not apply to equipment limits. */
-export const PROTECTION_FINDER = { margin: 0, thinMargin: 0, halfCycle: 0, instantaneousRegion: 0 } as const;
+const PROTECTION_FINDER = { margin: 0, thinMargin: 0, halfCycle: 0, instantaneousRegion: 0 } as const;
+
+/**
+ * Whether `band` clears below `withstand` from `fromAmps` to `toAmps` (both on one base): the intervals
+ * where it does not (`failures`), or, where there are none, the point where it comes closest (`closest`,
+ * the least time ratio). The one comparison behind the cable, transformer and generator protection checks.
+ *
+ * @example protectionOf(withstandBandOf(curve, 1), breakerBand, 700, 30_000, 1000).failures.length // 0
+ */
+export function protectionOf(
+  withstand: Band,
+  band: Band,
+  fromAmps: number,
+  toAmps: number,
+  horizon: number,
+): { failures: OverlapInterval[]; closest?: WorstPoint } {
+  const intervals = findOverlaps(withstand, band, { fromAmps, toAmps, horizon, ...PROTECTION_FINDER });
+  const failures = intervals.filter((interval) => interval.status === 'overlap');
+  if (failures.length > 0) return { failures };
+  return { failures, closest: intervals.reduce((a, b) => (b.worst.ratio < a.worst.ratio ? b : a)).worst };
+}
