@@ -147,6 +147,13 @@ describe('the sheet and its links in Chromium', () => {
     await expect(page.getByTestId('csv-problem').textContent()).resolves.toMatch(
       /row 2: expected a time in seconds greater than 0, got "abc"/,
     );
+    // Total-clearing rows alone go to total clearing; these lie left of the fuse's minimum melting curve,
+    // which the study would refuse, so the dialog refuses them first.
+    await text.fill('curve,current,time\ntotal-clearing,10,300\ntotal-clearing,20,0.01\n');
+    await expect(page.getByTestId('csv-import-problem').textContent()).resolves.toMatch(
+      /would not be accepted: totalClearing/,
+    );
+    await expect(page.getByTestId('csv-apply').isDisabled()).resolves.toBe(true);
     await text.fill(
       [
         'curve,current,time',

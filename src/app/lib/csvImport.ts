@@ -1,4 +1,4 @@
-import { parsePointsCsv, type PointsCsv } from '../../engine/devices/index.ts';
+import { parsePointsCsv, readCharacteristic, type PointsCsv } from '../../engine/devices/index.ts';
 
 type Table = [number, number][];
 
@@ -23,31 +23,35 @@ const BREAKER_BOTH: PointsTarget = {
 };
 
 /**
- * The places a CSV of points fits in a characteristic of `kind`: for a two-curve file both edges
- * at once; for a one-curve file either edge. An empty list means the family takes no point tables.
+ * The places a CSV of points fits in a characteristic of `kind`: for a two-curve file both edges at
+ * once; for a file whose rows name one curve that edge alone (a file of total-clearing rows is never
+ * offered as minimum melting); for an unnamed one-curve file either edge. An empty list means the
+ * family takes no point tables.
  *
  * @example pointsTargetsOf('fuse', { minimum: [...], maximum: [...] })[0].label // 'minimum melting and total clearing'
  */
 export function pointsTargetsOf(kind: string, points: PointsCsv): PointsTarget[] {
-  const both = points.minimum && points.maximum;
-  if (kind === 'fuse') {
-    return both
-      ? [FUSE_BOTH]
-      : [
-          { label: 'minimum melting', fields: [['minimumMelting']] },
-          { label: 'total clearing', fields: [['totalClearing']] },
-        ];
-  }
-  if (kind === 'thermal-magnetic') {
-    return both
-      ? [BREAKER_BOTH]
-      : [
-          { label: 'thermal band minimum (× rating)', fields: [['thermal', 'minimum']] },
-          { label: 'thermal band maximum (× rating)', fields: [['thermal', 'maximum']] },
-        ];
-  }
-  return [];
+  const edges = EDGES[kind];
+  if (!edges) return [];
+  if (points.minimum && points.maximum) return [edges.both];
+  if (points.minimum) return [edges.minimum];
+  if (points.maximum) return [edges.maximum];
+  return [edges.minimum, edges.maximum];
 }
+
+/** Each family's targets: both edges, the fast edge, the slow edge. */
+const EDGES: Record<string, { both: PointsTarget; minimum: PointsTarget; maximum: PointsTarget }> = {
+  fuse: {
+    both: FUSE_BOTH,
+    minimum: { label: 'minimum melting', fields: [['minimumMelting']] },
+    maximum: { label: 'total clearing', fields: [['totalClearing']] },
+  },
+  'thermal-magnetic': {
+    both: BREAKER_BOTH,
+    minimum: { label: 'thermal band minimum (× rating)', fields: [['thermal', 'minimum']] },
+    maximum: { label: 'thermal band maximum (× rating)', fields: [['thermal', 'maximum']] },
+  },
+};
 
 /**
  * The characteristic (file form) with the imported tables put in place; everything else is kept.
@@ -71,6 +75,25 @@ export function withPoints(
     );
   });
   return next;
+}
+
+/**
+ * Why the characteristic with the points in place would not be accepted, or `undefined` when it would:
+ * the same checks the study applies (each edge's points, and a slow edge never faster than the fast
+ * one), said of the imported curve, so the dialog refuses what the study would then refuse.
+ *
+ * @example importProblemOf({ kind: 'fuse', minimumMelting: [[150, 300], [2000, 0.01]], totalClearing: [[100, 300], [1000, 0.01]] })
+ * // 'With these points the curve would not be accepted: totalClearing: expected …'
+ */
+export function importProblemOf(characteristic: Record<string, unknown>, frequency = 60): string | undefined {
+  try {
+    readCharacteristic(characteristic, { path: '', frequency });
+    return undefined;
+  } catch (error) {
+    // The error names the field inside the characteristic (".totalClearing: …"), or none (": …").
+    const message = (error as Error).message.replace(/^\.|^: /, '');
+    return `With these points the curve would not be accepted: ${message}`;
+  }
 }
 
 /**

@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import {
   asOwnCurve,
+  importProblemOf,
   pointsCsvProblems,
   pointsTargetsOf,
   previewTablesOf,
@@ -24,6 +25,46 @@ describe('csvImport', () => {
     expect(pointsTargetsOf('fuse', both).map((t) => t.label)).toEqual(['minimum melting and total clearing']);
     expect(pointsTargetsOf('fuse', one).map((t) => t.label)).toEqual(['minimum melting', 'total clearing']);
     expect(pointsTargetsOf('thermal-magnetic', one)[1].fields).toEqual([['thermal', 'maximum']]);
+  });
+
+  it('pointsTargetsOf() puts a file whose rows name one curve on that edge alone', () => {
+    // A file of total-clearing rows is never offered as minimum melting (it would move the fast edge).
+    const clearing = parsePointsCsv('total-clearing,170,300\ntotal-clearing,2200,0.02');
+    expect(pointsTargetsOf('fuse', clearing).map((t) => t.fields)).toEqual([[['totalClearing']]]);
+    const melting = parsePointsCsv('min,1.1,300\nmin,10,1');
+    expect(pointsTargetsOf('thermal-magnetic', melting).map((t) => t.fields)).toEqual([[['thermal', 'minimum']]]);
+    const fuse = {
+      kind: 'fuse',
+      minimumMelting: [
+        [150, 300],
+        [2000, 0.01],
+      ],
+      totalClearing: [],
+    };
+    expect(withPoints(fuse, clearing, pointsTargetsOf('fuse', clearing)[0])).toEqual({
+      ...fuse,
+      totalClearing: [
+        [170, 300],
+        [2200, 0.02],
+      ],
+    });
+  });
+
+  it('importProblemOf() refuses points the study would refuse, naming the edge', () => {
+    // Invented points: a total-clearing curve imported to the left of the fuse's minimum melting curve.
+    const fuse = {
+      kind: 'fuse',
+      minimumMelting: [
+        [150, 300],
+        [2000, 0.01],
+      ],
+      totalClearing: [
+        [100, 200],
+        [1000, 0.005],
+      ],
+    };
+    expect(importProblemOf(fuse)).toMatch(/^With these points the curve would not be accepted: totalClearing/);
+    expect(importProblemOf({ ...fuse, totalClearing: both.maximum })).toBeUndefined();
   });
 
   it('withPoints() replaces the tables and keeps every other setting', () => {
