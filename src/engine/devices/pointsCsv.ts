@@ -90,7 +90,10 @@ export function parsePointsCsv(text: string): PointsCsv {
     columns ??= fields.length === 3 ? 3 : 2;
     if (fields.length !== columns) {
       const shape = columns === 2 ? 'current,time' : 'curve,current,time';
-      throw new InputError(row, `expected ${columns} fields (${shape}), got ${JSON.stringify(content)}`);
+      throw new InputError(
+        row,
+        `expected ${columns} fields (${shape}), got ${JSON.stringify(content)}${separatorHint(content)}`,
+      );
     }
     let curve: 'points' | 'minimum' | 'maximum' = 'points';
     if (columns === 3) {
@@ -98,7 +101,7 @@ export function parsePointsCsv(text: string): PointsCsv {
       if (!name) {
         throw new InputError(
           row,
-          `expected a curve "minimum-melting", "total-clearing", "min" or "max", got ${JSON.stringify(fields[0])}`,
+          `expected a curve "minimum-melting", "total-clearing", "min" or "max", got ${JSON.stringify(fields[0])}${STARTS_AS_NUMBER.test(fields[0]) ? separatorHint(content) : ''}`,
         );
       }
       curve = name;
@@ -127,6 +130,18 @@ export function parsePointsCsv(text: string): PointsCsv {
     throw new InputError('row 1', 'expected rows of current,time or curve,current,time, got no points');
   }
   return result;
+}
+
+/**
+ * A hint for a row that a comma split into too many fields: a decimal comma in a file separated by
+ * semicolons or tabs ("1,5;300"), or a thousands separator ("1,500,0.5"), reads as a field separator.
+ */
+function separatorHint(content: string): string {
+  const decimalComma = /[;\t]/.test(content) && /\d,\d/.test(content);
+  const thousands = /\d,\d{3}(?![\d.])/.test(content);
+  return decimalComma || thousands
+    ? ' (a decimal comma or a thousands separator? write numbers as 1.5 and 1500, without separators)'
+    : '';
 }
 
 /**

@@ -104,6 +104,19 @@ describe('pointsCsv', () => {
     );
   });
 
+  it('parsePointsCsv says why a decimal comma or a thousands separator splits a row', () => {
+    const hint = '(a decimal comma or a thousands separator? write numbers as 1.5 and 1500, without separators)';
+    // "1,5;300" is 1.5 A at 300 s written with a decimal comma; "1,500,300" is 1500 A with a thousands separator.
+    expect(rejection('1,5;300\n20;0,01')).toBe(
+      `row 1: expected a curve "minimum-melting", "total-clearing", "min" or "max", got "1" ${hint}`,
+    );
+    expect(rejection('current,time\n200,300\n1,500,0.5')).toBe(
+      `row 3: expected 2 fields (current,time), got "1,500,0.5" ${hint}`,
+    );
+    // A row with too many fields and no comma between digits gets no hint.
+    expect(rejection('200,300\n400,10,5')).not.toMatch(/decimal comma/);
+  });
+
   it('parsePointsCsv splits lines ended by CR alone, as older spreadsheet exports write them', () => {
     expect(parsePointsCsv('current,time\r200,300\r2000,0.01').points).toEqual([
       [200, 300],
