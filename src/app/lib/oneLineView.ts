@@ -40,7 +40,9 @@ export function oneLineRowOf(diagrams: readonly OneLine[], gap: number): OneLine
   for (const diagram of diagrams) {
     row.diagrams.push({ diagram, x });
     const moved = (b: ViewBox) => ({ ...b, x: b.x + x });
-    for (const place of diagram.places)
+    // A bus continued on bars below selects as the bus does, from any of its bars (after its own place,
+    // so the selection is drawn around the bus's first bar).
+    for (const place of [...diagram.places, ...diagram.continuations])
       row.places.push({ ...place, symbol: moved(place.symbol), label: moved(place.label) });
     row.height = Math.max(row.height, diagram.height);
     row.width = x + diagram.width;

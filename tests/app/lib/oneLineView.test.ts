@@ -64,6 +64,7 @@ describe('oneLineView with several trees', () => {
           label: { x: 45, y: 20, width: 50, height: 14 },
         },
       ],
+      continuations: [],
     }) as unknown as OneLine;
 
   it('oneLineRowOf() sets diagrams left to right with a gap, moving every place with its diagram', () => {
@@ -75,6 +76,23 @@ describe('oneLineView with several trees', () => {
       ['G1', 350, 385],
     ]);
     expect(placeAt(row.places, { x: 360, y: 30 })?.id).toBe('G1');
+  });
+
+  it('oneLineRowOf() makes a continuation bar select its bus', () => {
+    const wide = {
+      ...diagram(300, 500, 'UTIL'),
+      continuations: [
+        {
+          id: 'SWBD',
+          type: 'bus',
+          symbol: { x: 10, y: 400, width: 280, height: 6 },
+          label: { x: 18, y: 380, width: 150, height: 14 },
+        },
+      ],
+    } as OneLine;
+    const row = oneLineRowOf([diagram(200, 300, 'G1'), wide], 40);
+    const place = placeAt(row.places, { x: 240 + 100, y: 402 });
+    expect(place && selectionOfPlace(place)).toEqual({ kind: 'bus', id: 'SWBD' });
   });
 
   it("selectionOfPlace() reads a source other than the study's own as a generator", () => {
