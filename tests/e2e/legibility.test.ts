@@ -134,6 +134,55 @@ describe('a sheet and a workbench read at a glance, in Chromium', () => {
     await context.close();
   });
 
+  it('in large type at 1280 × 800 a banner above the regions leaves the sheet its height, and the page scrolls to the rest', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('large-text').click();
+    await settled(page);
+    await page.waitForTimeout(300);
+    const svg = page.getByTestId('sheet-svg');
+    const plotHeight = () =>
+      page.evaluate(
+        () =>
+          (document.querySelector('[data-testid="sheet-svg"] [data-role="plot-frame"]') as SVGGraphicsElement).getBBox()
+            .height,
+      );
+    const plotWithout = await plotHeight();
+    // A file that cannot be opened puts its problems in a banner above the regions.
+    const bad = { name: 'Bad', buses: [{ id: 'B0' }], cables: [{ id: 'C1', from: 'B0', to: 'B1', size: 'lots' }] };
+    await page.getByTestId('open-file').setInputFiles({
+      name: 'bad.json',
+      mimeType: 'application/json',
+      buffer: Buffer.from(JSON.stringify(bad)),
+    });
+    const banner = page.getByTestId('refused');
+    await banner.waitFor();
+    await page.waitForTimeout(300);
+    await page.screenshot({ path: `${SHOTS}demo-1280x800-large-banner.png` });
+    const sheet = (await svg.boundingBox())!;
+    // At least 320 px of sheet, and a plot area of at least 160 px, nearly what it has without the banner
+    // (squeezed under the sheet's title and key it was about 90 px, too little to read a curve on).
+    expect(sheet.height).toBeGreaterThanOrEqual(320);
+    expect(await plotHeight()).toBeGreaterThanOrEqual(Math.max(160, 0.9 * plotWithout));
+    // The banner and the toolbar are on screen, and nothing of the sheet's region is cut off.
+    await expect(banner.isVisible()).resolves.toBe(true);
+    const onScreen = async (selector: string) => {
+      const box = (await page.locator(selector).first().boundingBox())!;
+      return box.y >= 0 && box.y + box.height <= 800;
+    };
+    await expect(onScreen('header.toolbar')).resolves.toBe(true);
+    await expect(onScreen('[data-testid="refused"]')).resolves.toBe(true);
+    await expect(page.getByTestId('large-text').isVisible()).resolves.toBe(true);
+    const region = (await page.locator('section.region.sheet').boundingBox())!;
+    const pinned = (await page.getByTestId('pinned-list').boundingBox())!;
+    expect(pinned.height).toBeGreaterThan(20);
+    expect(pinned.y + pinned.height).toBeLessThanOrEqual(region.y + region.height);
+    // Whatever the window cannot hold is reached by scrolling the page: the caution at its foot too.
+    await page.getByTestId('caution').scrollIntoViewIfNeeded();
+    await expect(onScreen('[data-testid="caution"]')).resolves.toBe(true);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
   it('point import lists every problem, says at which voltage the currents are, and makes the curve the user’s own', async () => {
     const { page, context } = await bench.open();
     await page.getByTestId('demo-menu').selectOption('harrowmere-fused.json');
