@@ -6,6 +6,7 @@ import { CAUTION } from '../engine/caution.ts';
 import { busFaultLineOf } from './busFaultLine.ts';
 import { longTimeRampBasis } from '../engine/devices/index.ts';
 import { locationBusOf } from '../engine/network/index.ts';
+import { deviceFaultOf } from '../engine/fault/index.ts';
 import {
   cableWithstandOf,
   inrushMarkersOf,
@@ -92,13 +93,14 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
   const ref = view.referenceVoltage;
   const onSheet = (volts: number) => volts / ref;
 
-  // Each band is drawn up to the largest fault at its device's location: beyond it nothing flows.
+  // Each band is drawn up to the largest fault current through its device (a main's stops at what its
+  // transformer passes, short of its bus's motors): beyond it nothing flows through that device.
   const ground = view.groundFault;
   const located = new Map(
     view.devices.map((id) => {
       const device = network.devices.get(id)!;
       const bus = locationBusOf(network, device);
-      const level = faults.buses.get(bus.id)!.max;
+      const level = deviceFaultOf(network, faults, device);
       const fault = ground ? level.lineToGround : level.threePhase;
       // At an infinite bus there is no largest fault to stop the band at.
       const toAmps = Number.isFinite(fault) && fault > 0 ? fault * onSheet(bus.voltage) : undefined;
