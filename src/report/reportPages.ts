@@ -1,9 +1,10 @@
 import { CAUTION } from '../engine/caution.ts';
-import type { Primitive, TextItem } from '../plot/geometry.ts';
+import type { Box, Primitive, TextItem } from '../plot/geometry.ts';
 import { SHEET_COLOURS } from '../plot/palette.ts';
 import { pagePoints, type PagePlacement, type Paper } from '../plot/pdf.ts';
 import type { Drawing } from '../plot/svg.ts';
 import { textWidth, wrapText } from '../plot/textWidth.ts';
+import { figureTilingOf, type FigureTile, type FigureTiling } from './figureTiles.ts';
 import type { ReportBlock, StudyReport } from './studyReport.ts';
 
 /** Paper and orientation of a printed report. */
@@ -31,9 +32,11 @@ export interface ReportPage {
 /**
  * Lays a report out on pages of one paper size: a cover, a table of contents with page numbers, then
  * each section from a new page; paragraphs and lists wrap, tables split between rows with their header
- * repeated, each figure gets a page of its own scaled to fit, and every page carries the study name,
- * the revision, the page number and the caution. Text is measured with the DejaVu Sans widths of the
- * embedded face, so what is laid out here is what prints. Deterministic.
+ * repeated, each figure gets a page of its own scaled to fit (one too large to read so, such as a
+ * whole-site one-line, an overview page and then a page per tile at a legible scale: `figureTilingOf`),
+ * and every page carries the study name, the revision, the page number and the caution. Text is
+ * measured with the DejaVu Sans widths of the embedded face, so what is laid out here is what prints.
+ * Deterministic.
  * @example reportPagesOf(studyReportOf(analysis), { paper: 'letter', orientation: 'portrait' }).length
  */
 export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage[] {
@@ -223,21 +226,59 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
       case 'figure': {
         // A figure takes a page of its own (a fresh one unless this page is still empty under its heading).
         if (y > top + 3 * heading) newPage();
-        paragraph(block.caption, margin, contentWidth, body, 'bold');
-        const box = { x: margin, y: y + 4, width: contentWidth, height: bottom - y - 8 };
-        const fit = Math.min(box.width / block.drawing.width, box.height / block.drawing.height);
-        const [w, h] = [block.drawing.width * fit, block.drawing.height * fit];
-        pages[pages.length - 1].figure = {
-          drawing: block.drawing,
-          x: box.x + (box.width - w) / 2,
-          y: box.y,
-          width: w,
-          height: h,
-        };
-        // The page is full: what follows starts on the next one.
-        y = bottom;
+        const tiling = tilingOf(block.drawing, block.caption);
+        if (tiling === null) return placeFigure(block.drawing, block.caption);
+        // Too small to read whole: the whole as an overview, then a page for each tile, row by row.
+        const count = tiling.tiles.length;
+        placeFigure(
+          block.drawing,
+          `${block.caption} — overview; continued at a readable size on the next ${count} pages`,
+        );
+        tiling.tiles.forEach((tile, index) => {
+          newPage();
+          const caption = tileCaption(block.caption, tile, index, count);
+          placeFigure(block.drawing, caption, { window: tile.window, scale: tiling.scale });
+        });
         return;
       }
+    }
+  }
+
+  // Accepts a drawing, its caption and, for a tile, the window shown and its scale; the caption and the
+  // drawing (scaled to fit when whole) fill the rest of the page.
+  function placeFigure(drawing: Drawing, caption: string, tile?: { window: Box; scale: number }): void {
+    paragraph(caption, margin, contentWidth, body, 'bold');
+    const box = { x: margin, y: y + 4, width: contentWidth, height: bottom - y - 8 };
+    const fit = tile?.scale ?? Math.min(box.width / drawing.width, box.height / drawing.height);
+    const shown = tile?.window ?? drawing;
+    const [w, h] = [shown.width * fit, shown.height * fit];
+    pages[pages.length - 1].figure = {
+      drawing,
+      x: box.x + (box.width - w) / 2,
+      y: box.y,
+      width: w,
+      height: h,
+      ...(tile && { window: tile.window }),
+    };
+    // The page is full: what follows starts on the next one.
+    y = bottom;
+  }
+
+  // Accepts a figure about to be placed at the current point; its tiles when it cannot print legibly
+  // whole, or null. Tile pages start at the top; the room under their captions is known only once the
+  // captions are, which name the tile count, so the room is taken again until the captions fit it.
+  function tilingOf(drawing: Drawing, caption: string): FigureTiling | null {
+    const captionHeight = (text: string) => wrapText(text, contentWidth, body, 'bold').length * body * lineHeight;
+    const fit = Math.min(contentWidth / drawing.width, (bottom - y - captionHeight(caption) - 8) / drawing.height);
+    let above = captionHeight(tileCaption(caption, { row: 1, column: 1 }, 0, 1));
+    for (;;) {
+      const room = { width: contentWidth, height: bottom - top - above - 8 };
+      const tiling = figureTilingOf(drawing, fit, room);
+      if (tiling === null) return null;
+      const count = tiling.tiles.length;
+      const tallest = Math.max(...tiling.tiles.map((tile, i) => captionHeight(tileCaption(caption, tile, i, count))));
+      if (tallest <= above) return tiling;
+      above = tallest;
     }
   }
 
@@ -321,6 +362,11 @@ function fitColumns(natural: number[], width: number): number[] {
   const capped = widths.map((w) => Math.min(w, cap));
   const sum = capped.reduce((a, b) => a + b, 0);
   return capped.map((w) => (w * width) / sum);
+}
+
+// Accepts a figure's caption and one of its tiles with its index and the tile count; the tile page's caption.
+function tileCaption(caption: string, tile: Pick<FigureTile, 'row' | 'column'>, index: number, count: number): string {
+  return `${caption} — part ${index + 1} of ${count} (row ${tile.row}, column ${tile.column})`;
 }
 
 // Accepts text and where it goes; one text primitive on a page.

@@ -1,8 +1,18 @@
 import { readFileSync } from 'node:fs';
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { radialStudy } from '../../bench/radialStudy.ts';
+import { CAUTION } from '../../src/engine/caution.ts';
 import { analyseStudy } from '../../src/engine/analysis.ts';
-import { readStudy } from '../../src/engine/study/index.ts';
-import { pageDefaults, reportPagesOf, studyReportOf, type ReportPage } from '../../src/report/index.ts';
+import { parseStudy, readStudy } from '../../src/engine/study/index.ts';
+import type { Drawing } from '../../src/plot/svg.ts';
+import { figureTileDefaults } from '../../src/report/figureTiles.ts';
+import {
+  pageDefaults,
+  reportPagesOf,
+  studyReportOf,
+  type ReportPage,
+  type StudyReport,
+} from '../../src/report/index.ts';
 
 /** The selective demo with a description of `sentences` numbered sentences. */
 function describedAtLength(sentences: number) {
@@ -61,5 +71,187 @@ describe('reportPagesOf', () => {
     });
     expect(bodyOf(pages[0]).some((item) => item.text === 'Cautions')).toBe(true);
     expect(bodyOf(pages[1])[0].text).toBe('Contents');
+  });
+});
+
+/** A report of one section holding a figure of `drawing`, then a section of one paragraph. */
+function reportWithFigure(drawing: Drawing): StudyReport {
+  return {
+    title: 'Figure study',
+    details: [['Study', 'Figure study']],
+    cautions: ['Check every figure.'],
+    revisions: [],
+    sections: [
+      { id: 'figure', title: 'A figure', blocks: [{ type: 'figure', caption: 'The drawing', drawing }] },
+      { id: 'after', title: 'After it', blocks: [{ type: 'paragraph', text: 'What follows the figure.' }] },
+    ],
+  };
+}
+
+/** A blank drawing of a size with one 11-px label. */
+function labelled(width: number, height: number): Drawing {
+  return {
+    width,
+    height,
+    fontFamily: pageDefaults.fontFamily,
+    title: 'Labelled',
+    description: 'One bus label.',
+    patterns: [],
+    layers: [
+      {
+        name: 'labels',
+        items: [
+          { type: 'text', role: 'label', x: 20, y: 40, text: 'Bus 1', size: 11, anchor: 'start', fill: '#1a1a1a' },
+        ],
+      },
+    ],
+  };
+}
+
+/** The bold text of a page's body, joined: a figure page's caption (after its section heading, if any). */
+function captionOf(page: ReportPage): string {
+  return bodyOf(page)
+    .filter((item) => item.weight === 'bold' && item.size === pageDefaults.body)
+    .map((item) => item.text)
+    .join(' ');
+}
+
+describe('reportPagesOf with figures', () => {
+  it('gives a small figure exactly one page, scaled whole to the width of the page as before', () => {
+    const drawing = labelled(400, 300);
+    const pages = reportPagesOf(reportWithFigure(drawing), { paper: 'letter', orientation: 'portrait' });
+    const placed = pages.flatMap((page, index) => (page.figure ? [{ index, figure: page.figure }] : []));
+    expect(placed).toHaveLength(1);
+    const [{ index, figure }] = placed;
+    const width = pages[index].drawing.width - 2 * pageDefaults.margin;
+    expect(figure).toEqual({
+      drawing,
+      x: pageDefaults.margin,
+      y: figure.y,
+      width,
+      height: (300 * width) / 400,
+    });
+    expect('window' in figure).toBe(false);
+    expect(captionOf(pages[index])).toBe('The drawing');
+    expect(bodyOf(pages[index + 1])[0].text).toBe('2. After it');
+  });
+
+  it('tiles a figure whose labels would print below 6 pt: an overview, then the tiles, and the contents skip them', () => {
+    const drawing = labelled(1200, 4000);
+    const pages = reportPagesOf(reportWithFigure(drawing), { paper: 'letter', orientation: 'portrait' });
+    const at = pages.findIndex((page) => page.figure?.drawing === drawing);
+    const tiles = pages.filter((page) => page.figure?.window);
+    expect(tiles.length).toBeGreaterThan(1);
+    expect(captionOf(pages[at])).toBe(
+      `The drawing — overview; continued at a readable size on the next ${tiles.length} pages`,
+    );
+    expect(pages.slice(at + 1, at + 1 + tiles.length)).toEqual(tiles);
+    expect(captionOf(tiles[1])).toMatch(new RegExp(`^The drawing — part 2 of ${tiles.length} \\(row 1, column 2\\)$`));
+    // The next section starts after the last tile, and the contents page says so.
+    const next = at + tiles.length + 1;
+    expect(bodyOf(pages[next])[0].text).toBe('2. After it');
+    expect(bodyOf(pages[1]).map((item) => item.text)).toContain(String(next + 1));
+  });
+});
+
+describe('reportPagesOf with the whole-site one-line of a generated 600-device study', () => {
+  const setup = { paper: 'letter', orientation: 'portrait' } as const;
+  let report: StudyReport;
+  let pages: ReportPage[];
+  let oneLine: Drawing;
+  let overviewAt: number;
+  let tiles: ReportPage[];
+
+  beforeAll(() => {
+    report = studyReportOf(analyseStudy(parseStudy(radialStudy(600))));
+    pages = reportPagesOf(report, setup);
+    const block = report.sections.find((s) => s.id === 'one-line')!.blocks.find((b) => b.type === 'figure');
+    if (block?.type !== 'figure') throw new Error('no one-line figure');
+    oneLine = block.drawing;
+    overviewAt = pages.findIndex((page) => page.figure?.drawing === oneLine);
+    tiles = pages.filter((page) => page.figure?.drawing === oneLine && page.figure.window);
+  }, 120_000);
+
+  it('prints it whole on an overview page naming the tile pages that follow it, one tile a page', () => {
+    expect(pages[overviewAt].figure!.window).toBeUndefined();
+    expect(tiles.length).toBeGreaterThan(10);
+    expect(captionOf(pages[overviewAt])).toMatch(
+      new RegExp(`— overview; continued at a readable size on the next ${tiles.length} pages$`),
+    );
+    expect(pages.slice(overviewAt + 1, overviewAt + 1 + tiles.length)).toEqual(tiles);
+    tiles.forEach((tile, i) => {
+      const [, row, column] = /\(row (\d+), column (\d+)\)$/.exec(captionOf(tile))!.map(Number);
+      expect(captionOf(tile)).toContain(`— part ${i + 1} of ${tiles.length} (row ${row}, column ${column})`);
+      // Tiles of one row show the same band of the drawing; of one column, the same strip.
+      const first = tiles.find((t) => captionOf(t).endsWith(`(row ${row}, column 1)`))!;
+      expect(tile.figure!.window!.y).toBe(first.figure!.window!.y);
+    });
+  });
+
+  it('prints every text on every tile at 6 pt or more, inside the page above its footer', () => {
+    const texts = oneLine.layers.flatMap((layer) =>
+      layer.items.flatMap((item) => (item.type === 'text' ? [item] : [])),
+    );
+    const rule = pages[0].drawing.height - pageDefaults.margin - 24;
+    let printed = 0;
+    for (const { figure } of tiles) {
+      const { window, width, height } = figure!;
+      const scale = width / window!.width;
+      expect(height / window!.height).toBeCloseTo(scale, 9);
+      expect(figure!.y + height).toBeLessThanOrEqual(rule);
+      for (const text of texts) {
+        const inside =
+          text.x >= window!.x &&
+          text.x <= window!.x + window!.width &&
+          text.y >= window!.y &&
+          text.y <= window!.y + window!.height;
+        if (!inside) continue;
+        printed++;
+        // A hair of tolerance for the window's width, divided from the page's in floating point.
+        expect(text.size * scale).toBeGreaterThanOrEqual(figureTileDefaults.legibleText - 1e-9);
+      }
+    }
+    expect(printed).toBeGreaterThan(texts.length);
+  });
+
+  it('covers the whole drawing with its tiles, every point a half-overlap or more from an edge cut on some tile', () => {
+    const windows = tiles.map((tile) => tile.figure!.window!);
+    const scale = tiles[0].figure!.width / windows[0].width;
+    // Within half the overlap of a cut, a point is the same distance or more inside the neighbour.
+    const clear = figureTileDefaults.overlap / 2 / scale - 1e-6;
+    const { width, height } = oneLine;
+    const along = (length: number) => [...Array.from({ length: Math.ceil(length / 20) }, (_, i) => i * 20), length];
+    for (const y of along(height))
+      for (const x of along(width)) {
+        const shown = windows.some(
+          (w) =>
+            (w.x <= 0 ? x >= 0 : x - w.x >= clear) &&
+            (w.x + w.width >= width ? x <= width : w.x + w.width - x >= clear) &&
+            (w.y <= 0 ? y >= 0 : y - w.y >= clear) &&
+            (w.y + w.height >= height ? y <= height : w.y + w.height - y >= clear),
+        );
+        if (!shown) expect.fail(`(${x}, ${y}) px of the one-line is on no tile, or only at a tile's cut edge`);
+      }
+  });
+
+  it('keeps the running head, the caution and the page number on every page, and the contents pointing at each section', () => {
+    pages.forEach((page, i) => {
+      const texts = page.drawing.layers[0].items.flatMap((item) => (item.type === 'text' ? [item] : []));
+      expect(
+        texts
+          .filter((t) => t.role === 'caution')
+          .map((t) => t.text)
+          .join(' '),
+      ).toContain(CAUTION.slice(0, 60));
+      expect(texts.find((t) => t.role === 'page-number')?.text).toBe(`page ${i + 1} of ${pages.length}`);
+      if (i > 0)
+        expect(texts.find((t) => t.y === pageDefaults.margin)?.text).toBe('generated radial study, 600 devices');
+    });
+    const contentsAt = pages.findIndex((page) => bodyOf(page)[0]?.text === 'Contents');
+    const numbers = bodyOf(pages[contentsAt]).flatMap((item) => (/^\d+$/.test(item.text) ? [Number(item.text)] : []));
+    expect(numbers).toHaveLength(report.sections.length);
+    numbers.forEach((number, i) =>
+      expect(bodyOf(pages[number - 1])[0].text).toBe(`${i + 1}. ${report.sections[i].title}`),
+    );
   });
 });

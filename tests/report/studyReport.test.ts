@@ -97,7 +97,8 @@ describe('studyReportOf', () => {
       expect(words.join(' ')).toContain(CAUTION.slice(0, 30));
       expect(words).toContain(`page ${i + 1} of ${pages.length}`);
     });
-    expect(pages.filter((page) => page.figure).length).toBe(1 + detailed.views.length);
+    // Each figure once whole (the one-line as the overview before its tiles).
+    expect(pages.filter((page) => page.figure && !page.figure.window).length).toBe(1 + detailed.views.length);
   });
 
   it('lays every page out inside its paper, on Tabloid landscape as on A4 portrait', () => {

@@ -42,7 +42,8 @@ export const oneLineDefaults = {
    * Twice the printable width of Letter landscape (696 pt between the report's 48-pt margins), so a
    * diagram at the limit prints its 11-px labels at 5.5 pt across that page. Not narrower: every row
    * wrapped adds height, and a portrait page then shrinks a large study by its height instead (the
-   * whole-site demo prints at 3.4 pt on Letter portrait at this width, 2.7 pt at 946 px).
+   * whole-site demo's overview prints at 3.35 pt on Letter portrait at this width, 2.7 pt at 946 px;
+   * the report then prints it again in tiles at 6 pt, `src/report/figureTiles.ts`).
    */
   maxWidth: 1400,
   fontFamily: 'DejaVu Sans, Arial, Helvetica, sans-serif',

@@ -1,4 +1,4 @@
-import type { HatchPattern, PathItem, Primitive, RectItem, TextItem } from '../geometry.ts';
+import type { Box, HatchPattern, PathItem, Primitive, RectItem, TextItem } from '../geometry.ts';
 import type { Drawing } from '../svg.ts';
 import { writeHatchTile } from './hatchTile.ts';
 import { type Matrix, matrixOperands } from './matrix.ts';
@@ -22,6 +22,12 @@ export interface PagePlacement {
   y: number;
   width: number;
   height: number;
+  /**
+   * The part of the drawing shown, in the drawing's own px from its top-left corner: it is scaled onto
+   * the box and the rest of the drawing is clipped away (a tile of a drawing too large to print whole).
+   * Width and height greater than 0. @default the whole drawing
+   */
+  window?: Box;
 }
 
 /**
@@ -46,7 +52,8 @@ export interface PageStream {
 /**
  * The content stream of one page (ISO 32000-1 §8–9): each placement in order, drawn in its own
  * pixels through a transform that flips SVG's y-down space onto the page, clipped to its box over a
- * white background as the SVG has; then paths, rectangles and text with the paint `svg.ts` writes —
+ * white background as the SVG has (a placement's `window` alone is mapped onto the box and kept by
+ * the clip); then paths, rectangles and text with the paint `svg.ts` writes —
  * fill (SVG's black when unset), stroke, width, dash, caps, opacities through ExtGState, hatch
  * patterns as tiling patterns — and text anchored by the face's own advance widths, turned about its
  * anchor when `rotate` is set.
@@ -67,10 +74,13 @@ export function pageContentOf(contents: PageContent[], context: PageContext): Pa
       continue;
     }
     const { drawing, x, y, width, height } = content;
-    const [w, h] = [pdfNumber(drawing.width), pdfNumber(drawing.height)];
-    const placement: Matrix = [width / drawing.width, 0, 0, -height / drawing.height, x, pageHeight - y];
+    const shown = windowOf(content);
+    const [sx, sy] = [width / shown.width, height / shown.height];
+    // The window's top-left corner lands on the box's; without a window it is the drawing's origin.
+    const placement: Matrix = [sx, 0, 0, -sy, x - shown.x * sx, pageHeight - y + shown.y * sy];
+    const clip = [shown.x, shown.y, shown.width, shown.height].map((v) => pdfNumber(v)).join(' ');
     // SVG's defaults differ from PDF's in the miter limit only (4 against 10).
-    out.push('q', `${matrixOperands(placement)} cm`, `0 0 ${w} ${h} re W n`, '1 1 1 rg', `0 0 ${w} ${h} re f`, '4 M');
+    out.push('q', `${matrixOperands(placement)} cm`, `${clip} re W n`, '1 1 1 rg', `${clip} re f`, '4 M');
     const hatches = new Map(drawing.patterns.map((p) => [p.id, p]));
     const named = new Map<string, string>();
     const patternName = (id: string): string | null => {
@@ -84,7 +94,10 @@ export function pageContentOf(contents: PageContent[], context: PageContext): Pa
       }
       return name;
     };
-    for (const layer of drawing.layers) for (const item of layer.items) drawPrimitive(item, patternName);
+    // A window leaves out what cannot show in it: a tile of a large drawing carries its own part, not the whole again.
+    const shows = content.window === undefined ? () => true : (item: Primitive) => reaches(item, shown);
+    for (const layer of drawing.layers)
+      for (const item of layer.items) if (shows(item)) drawPrimitive(item, patternName);
     out.push('Q');
   }
 
@@ -139,6 +152,40 @@ export function pageContentOf(contents: PageContent[], context: PageContext): Pa
     else out.push(text);
   }
 
+  // Accepts a primitive and a window of its drawing; whether any of its ink may fall inside. Bounds are
+  // generous: strokes widened for miter joins (limit 4), text taken as a circle of its advance plus 1.5
+  // em about its anchor, whatever its anchor and turn. Measuring notes the text's glyphs for the
+  // subset even when it is left out, which costs a few glyphs at most.
+  function reaches(item: Primitive, window: Box): boolean {
+    let [left, top, right, bottom] = [Infinity, Infinity, -Infinity, -Infinity];
+    const take = (x: number, y: number) => {
+      [left, top, right, bottom] = [Math.min(left, x), Math.min(top, y), Math.max(right, x), Math.max(bottom, y)];
+    };
+    let pad: number;
+    if (item.type === 'text') {
+      const font = item.weight === 'bold' ? fonts.bold : fonts.normal;
+      pad = (font.encode(item.text).advance + 1.5) * item.size;
+      take(item.x, item.y);
+    } else if (item.type === 'rect') {
+      pad = 2 * (item.strokeWidth ?? 1);
+      take(item.x, item.y);
+      take(item.x + item.width, item.y + item.height);
+    } else {
+      pad = 2 * (item.strokeWidth ?? 1);
+      for (const step of pathStepsOf(item.d)) {
+        if (step.op === 'C') take(step.x1, step.y1);
+        if (step.op === 'C') take(step.x2, step.y2);
+        if (step.op !== 'Z') take(step.x, step.y);
+      }
+    }
+    return (
+      left - pad <= window.x + window.width &&
+      right + pad >= window.x &&
+      top - pad <= window.y + window.height &&
+      bottom + pad >= window.y
+    );
+  }
+
   // Accepts fill and stroke opacities; the name of a graphics state setting them, one per pair on the page.
   function stateName(ca: number, CA: number): string {
     const key = `/ca ${pdfNumber(ca)} /CA ${pdfNumber(CA)}`;
@@ -157,6 +204,16 @@ export function pageContentOf(contents: PageContent[], context: PageContext): Pa
     if (patternRefs.size > 0) parts.push(`/Pattern ${dictionary([...patternRefs].map(([n, id]) => [n, `${id} 0 R`]))}`);
     return `<< ${parts.join(' ')} >>`;
   }
+}
+
+// Accepts a placement; the part of its drawing it shows, checked to have an area (the whole drawing when not given).
+function windowOf(placement: PagePlacement): Box {
+  const { drawing, window } = placement;
+  if (window === undefined) return { x: 0, y: 0, width: drawing.width, height: drawing.height };
+  for (const side of ['width', 'height'] as const)
+    if (!(window[side] > 0 && Number.isFinite(window[side])))
+      throw new RangeError(`window.${side}: expected a size in px greater than 0, got "${window[side]}"`);
+  return window;
 }
 
 // Accepts a rectangle; its path, or nothing when it has no area (SVG draws no such rectangle).

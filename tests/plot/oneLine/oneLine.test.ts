@@ -148,15 +148,18 @@ describe('oneLineOf', () => {
     }
   });
 
-  it('prints the whole-site one-line at 3.4 pt or more on a Letter portrait report page, where in one row it printed at 1.3 pt', () => {
+  it('prints the whole-site one-line at 3.3 pt or more on a Letter portrait overview page, where in one row it printed at 1.3 pt, and its labels at 6 pt or more on the tiles after it', () => {
     const analysis = analyseStudy(demo('harrowmere-full'));
     const pages = reportPagesOf(studyReportOf(analysis), { paper: 'letter', orientation: 'portrait' });
     const placed = pages.flatMap((page) =>
       page.figure?.drawing.title?.endsWith('one-line diagram') ? [page.figure] : [],
     );
-    expect(placed).toHaveLength(1);
-    const [{ drawing, width }] = placed;
-    expect(oneLineDefaults.fontSize * (width / drawing.width)).toBeGreaterThanOrEqual(3.4);
+    // The overview shows it whole (3.4 pt under a one-line caption; the overview's note takes a second line).
+    const [{ drawing, width, window }, ...tiles] = placed;
+    expect(window).toBeUndefined();
+    expect(oneLineDefaults.fontSize * (width / drawing.width)).toBeGreaterThanOrEqual(3.3);
+    expect(tiles.length).toBeGreaterThan(1);
+    for (const tile of tiles) expect(oneLineDefaults.fontSize * (tile.width / tile.window!.width)).toBeGreaterThan(6);
   });
 
   it('draws a diagram that fits, the selective demo, in one row per bus with no continuation bar', () => {
