@@ -1,14 +1,8 @@
 import type { Network } from '../network/index.ts';
 import type { Device } from '../study/index.ts';
 import type { FaultLevels } from './faultLevels.ts';
-import {
-  addImpedance,
-  divideComplex,
-  magnitudeOf,
-  multiplyComplex,
-  parallelImpedance,
-  type Impedance,
-} from './impedance.ts';
+import { currentsThrough } from './currentsThrough.ts';
+import { divideComplex, magnitudeOf, multiplyComplex, type Impedance } from './impedance.ts';
 
 /** The bolted fault currents that flow through two devices in series for a fault just below the lower one. */
 export interface ThroughFault {
@@ -39,36 +33,21 @@ export function throughFaultOf(
   upstream: Device,
   locationBus: string,
 ): ThroughFault {
-  const bus = faults.buses.get(locationBus)!;
-  if (bus.phases === 1)
-    return { threePhase: bus.max.threePhase, lineToLine: bus.max.lineToLine, lineToGround: bus.max.lineToGround };
-  const tree = faults.trees.max;
-  const toward = tree.toward.get(locationBus)!;
-  // At an infinite bus everything comes from the source, and there is no limit.
-  if (magnitudeOf(toward) === 0)
-    return { threePhase: Infinity, lineToLine: Infinity, lineToGround: bus.max.lineToGround > 0 ? Infinity : 0 };
-  // The share of the fault's positive-sequence current that passes `upstream`, relative to what arrives from above.
-  let share: Impedance = { r: 1, x: 0 };
-  let at = locationBus;
-  for (;;) {
-    if (network.deviceFeeding.get(at) === upstream) break;
-    const feeder = network.feederOf.get(at);
-    if (!feeder || network.deviceFeeding.get(feeder.item.id) === upstream) break;
-    const from = feeder.item.from;
-    if (magnitudeOf(tree.toward.get(from)!) === 0) break; // an infinite source takes the whole current
-    share = multiplyComplex(share, divideComplex(tree.behind.get(feeder.item.id)!, tree.toward.get(from)!));
-    at = from;
-  }
-  const e = { r: bus.volts / Math.sqrt(3), x: 0 };
-  const arriving = divideComplex(e, toward);
-  const threePhase = magnitudeOf(multiplyComplex(arriving, share));
-  let lineToGround = 0;
-  const z0 = bus.max.zeroSequence;
-  if (z0 && bus.max.lineToGround > 0) {
-    const z1 = parallelImpedance(toward, tree.below.get(locationBus))!;
-    const i0 = divideComplex(e, addImpedance(z1, z1, z0));
-    const c1 = multiplyComplex(divideComplex(z1, toward), share);
-    lineToGround = magnitudeOf(multiplyComplex(i0, { r: 2 * c1.r + 1, x: 2 * c1.x }));
-  }
+  const { threePhase, lineToGround } = currentsThrough(faults, locationBus, (tree) => {
+    // The share of the fault's positive-sequence current that passes `upstream`, relative to what arrives from above.
+    let share: Impedance = { r: 1, x: 0 };
+    let at = locationBus;
+    for (;;) {
+      if (network.deviceFeeding.get(at) === upstream) break;
+      const feeder = network.feederOf.get(at);
+      if (!feeder || network.deviceFeeding.get(feeder.item.id) === upstream) break;
+      const from = feeder.item.from;
+      if (magnitudeOf(tree.toward.get(from)!) === 0) break; // an infinite source takes the whole current
+      share = multiplyComplex(share, divideComplex(tree.behind.get(feeder.item.id)!, tree.toward.get(from)!));
+      at = from;
+    }
+    // What arrives from above, 1 / Z_toward, times the share passing `upstream`.
+    return divideComplex(share, tree.toward.get(locationBus)!);
+  });
   return { threePhase, lineToLine: (threePhase * Math.sqrt(3)) / 2, lineToGround };
 }

@@ -4,11 +4,13 @@ import { networkOf } from '../../../src/engine/network/index.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
 import { abs, add, div, mul, par, scale, type C } from './perUnit.ts';
+import { singlePhaseInput } from './sequenceReference.ts';
 import { motorStudy, motorStudyPerUnit } from './studies.ts';
 
 // Every source feeding a fault just below a device through it, in parallel (the hand solution of `motorStudy`).
 const { ib, zs, zt, zm1, zm2, zc } = motorStudyPerUnit;
 const sub = (a: C, b: C): C => [a[0] - b[0], a[1] - b[1]];
+const tripUnit = (sensor: number) => ({ kind: 'trip-unit' as const, sensor, longTime: { pickup: 1, delay: 10 } });
 const one: C = [1, 0];
 
 describe('deviceFaultOf', () => {
@@ -48,5 +50,28 @@ describe('deviceFaultOf', () => {
     const c1 = div(z1, add(zs, zt));
     assertInDelta(fault('MAIN').lineToGround, ib * abs(mul(i0, add(scale(c1, 2), one))), 1e-9);
     expect(fault('MAIN').lineToGround).toBeLessThan(swbd.lineToGround);
+  });
+
+  it('on a single-phase bus a device carries the bus fault itself; at an infinite bus there is no limit', () => {
+    // No motor contributes below a single-phase unit, so the panel's devices carry its own fault currents.
+    const single = singlePhaseInput();
+    single.devices = [
+      { id: 'PM', feeds: 'S', characteristic: tripUnit(200) },
+      { id: 'PF', feeds: 'C', characteristic: tripUnit(100) },
+    ];
+    const singleNetwork = networkOf(parseStudy(single));
+    const singleFaults = faultLevelsOf(singleNetwork);
+    for (const id of ['PM', 'PF']) {
+      const through = deviceFaultOf(singleNetwork, singleFaults, singleNetwork.devices.get(id)!);
+      expect(through).toEqual({
+        threePhase: singleFaults.buses.get('S')!.max.threePhase,
+        lineToGround: singleFaults.buses.get('S')!.max.lineToGround,
+      });
+    }
+    const infinite = motorStudy();
+    infinite.source = { kind: 'infinite', id: 'U', bus: 'MV' };
+    const infiniteNetwork = networkOf(parseStudy(infinite));
+    const relay = deviceFaultOf(infiniteNetwork, faultLevelsOf(infiniteNetwork), infiniteNetwork.devices.get('R')!);
+    expect(relay.threePhase).toBe(Infinity);
   });
 });
