@@ -1,4 +1,5 @@
 import type { Analysis } from './analysis.ts';
+import { deviceFaultOf } from './fault/index.ts';
 import { locationBusOf } from './network/index.ts';
 import { formatAmps, formatVolts } from './quantity/format.ts';
 
@@ -12,9 +13,14 @@ export interface ProbeReading {
   /** Earliest operation and latest clearing at that current (s); `Infinity` where it does not operate / may not clear. */
   minTime: number;
   maxTime: number;
-  /** The largest fault current at the device's location (A at its own voltage); `Infinity` at an infinite bus. */
+  /**
+   * The largest fault current through the device (A at its own voltage; line-to-ground on a ground-fault
+   * sheet), where its band on the sheet ends (`deviceFaultOf`); `Infinity` at an infinite bus.
+   */
   largestFault?: number;
-  /** True when the probed current is more than can flow at the device's location: its times are not read there. */
+  /** The largest fault current at the device's bus, as the sheet's fault lines show it (A at its own voltage). */
+  busFault?: number;
+  /** True when the probed current is more than can flow through the device: its times are not read there. */
   beyondFault?: boolean;
 }
 
@@ -39,9 +45,10 @@ export interface Probe {
 
 /**
  * Reads every device of a view at one current on the view's base: each device's minTime and maxTime,
- * which clears first and by how much before the next device may operate. A device whose location
- * cannot carry that much current (beyond its largest fault) is read but left out of the comparison;
- * beyond the largest fault on the sheet the summary says so instead of comparing times.
+ * which clears first and by how much before the next device may operate. A device that no fault drives
+ * that much current through (beyond the end of its band: a main carries no current of its bus's motors)
+ * is read but left out of the comparison; beyond the largest fault on the sheet the summary says so
+ * instead of comparing times.
  *
  * @example probeAt(analysis, 'main-path', 20_000).first // 'FDR-MCC'
  */
@@ -49,13 +56,17 @@ export function probeAt(analysis: Analysis, viewId: string, amps: number): Probe
   const view = analysis.study.views.find((v) => v.id === viewId);
   if (!view) throw new RangeError(`no view "${viewId}" in the study`);
   const referenceVolts = view.referenceVoltage;
+  const ground = view.groundFault;
   const readings = view.devices.map((deviceId): ProbeReading => {
     const device = analysis.network.devices.get(deviceId)!;
     const bus = locationBusOf(analysis.network, device);
     const ownVolts = bus.voltage;
     const ownAmps = (amps * referenceVolts) / ownVolts;
     const band = analysis.bands.get(deviceId)!;
-    const largestFault = analysis.faults.buses.get(bus.id)?.max.threePhase ?? Infinity;
+    const level = analysis.faults.buses.get(bus.id)?.max;
+    const busFault = level ? (ground ? level.lineToGround : level.threePhase) : Infinity;
+    const through = level ? deviceFaultOf(analysis.network, analysis.faults, device) : undefined;
+    const largestFault = through ? (ground ? through.lineToGround : through.threePhase) : Infinity;
     return {
       deviceId,
       name: device.name ?? deviceId,
@@ -64,6 +75,7 @@ export function probeAt(analysis: Analysis, viewId: string, amps: number): Probe
       minTime: band.minTime(ownAmps),
       maxTime: band.maxTime(ownAmps),
       largestFault,
+      busFault,
       // A relative tolerance keeps a probe pinned exactly on the fault line on the near side of it.
       beyondFault: ownAmps > largestFault * (1 + 1e-9),
     };
@@ -73,17 +85,17 @@ export function probeAt(analysis: Analysis, viewId: string, amps: number): Probe
   // bus fault, reflected, is a current no secondary fault ever draws through it).
   const own = readings.filter((r) => Math.abs(r.ownVolts - referenceVolts) <= 1e-9 * referenceVolts);
   const largest = (own.length > 0 ? own : readings).reduce<ProbeReading | undefined>(
-    (a, b) => (!a || (b.largestFault ?? 0) * b.ownVolts > (a.largestFault ?? 0) * a.ownVolts ? b : a),
+    (a, b) => (!a || (b.busFault ?? 0) * b.ownVolts > (a.busFault ?? 0) * a.ownVolts ? b : a),
     undefined,
   );
-  const largestAmps = largest ? ((largest.largestFault ?? Infinity) * largest.ownVolts) / referenceVolts : Infinity;
+  const largestAmps = largest ? ((largest.busFault ?? Infinity) * largest.ownVolts) / referenceVolts : Infinity;
   if (largest && amps > largestAmps * (1 + 1e-9)) {
     return {
       amps,
       referenceVolts,
       readings,
       beyondFault: true,
-      summary: `Beyond the largest available fault on this sheet (${formatAmps(largest.largestFault ?? Infinity, 3)} at ${formatVolts(largest.ownVolts)}): no such current flows here.`,
+      summary: `Beyond the largest available fault on this sheet (${formatAmps(largest.busFault ?? Infinity, 3)} at ${formatVolts(largest.ownVolts)}): no such current flows here.`,
     };
   }
   const inReach = readings.filter((r) => !r.beyondFault);

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../src/engine/analysis.ts';
+import { deviceFaultOf } from '../../src/engine/fault/index.ts';
 import { probeAt } from '../../src/engine/probe.ts';
 import { parseStudy } from '../../src/engine/study/index.ts';
 
@@ -58,5 +59,19 @@ describe('probeAt', () => {
     const probe = probeAt(analysis, 'service', Math.sqrt(mcc * swbd));
     expect(probe.readings.find((r) => r.deviceId === 'MCC-M1')!.beyondFault).toBe(true);
     expect(probe.first).not.toBe('MCC-M1');
+  });
+
+  it("leaves out a main past what its transformer passes, though its bus's motors take the bus beyond it", () => {
+    // The switchboard's 30.4 kA includes its motors' current, which does not pass the main: the main's
+    // band ends at the 28.4 kA through the transformer (1.09 kA at 12.47 kV, IEEE 141 per-unit method).
+    const through = deviceFaultOf(analysis.network, analysis.faults, analysis.network.devices.get('MAIN')!).threePhase;
+    const swbd = analysis.faults.buses.get('SWBD')!.max.threePhase;
+    expect(through).toBeLessThan(swbd);
+    const probe = probeAt(analysis, 'service', (through + swbd) / 2);
+    const main = probe.readings.find((r) => r.deviceId === 'MAIN')!;
+    expect([main.beyondFault, main.largestFault, main.busFault]).toEqual([true, through, swbd]);
+    expect(probe.beyondFault).toBeUndefined();
+    expect(probe.first).not.toBe('MAIN');
+    expect(probe.summary).not.toMatch(/Main 2000 A/);
   });
 });

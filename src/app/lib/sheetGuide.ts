@@ -47,8 +47,8 @@ export function sheetGuideOf(current: {
     {
       title: 'Fault lines: how much current can flow',
       text: [
-        'The vertical grey lines mark the largest fault current at a bus (and, dash-dotted, the smallest). Each is named in the grey band above the plot, at the bus voltage and, when different, on the sheet’s voltage. A fault beyond the current axis is named at that end of the band with an arrow. Nothing to the right of the maximum can flow there, so a band beyond it never matters for that bus. Each band stops at the largest current its own device can carry: a main short of its bus’s maximum by what the motors on the bus add, since their current does not pass through it.',
-        'The probe says so when you point beyond the largest fault on the sheet: no such current flows there, so nothing is compared.',
+        'The vertical grey lines mark the largest fault current at a bus (and, dash-dotted, the smallest). Each is named in the grey band above the plot, at the bus voltage and, when different, on the sheet’s voltage. A fault beyond the current axis is named at that end of the band with an arrow. Nothing to the right of the maximum can flow there, so a band beyond it never matters for that bus. Each band stops at the largest fault current that flows through its own device: a main’s short of its bus’s maximum, since the current of the motors below it does not pass through it.',
+        'The probe says so when you point beyond the largest fault on the sheet: no such current flows there, so nothing is compared. A device whose band ends before the probe is read but left out of the comparison.',
         'Select a bus or a transformer in the System region to see the fault current worked out in the Work region, every formula and number shown.',
       ],
     },
