@@ -147,13 +147,20 @@ describe('the sheet and its links in Chromium', () => {
     await expect(page.getByTestId('csv-problem').textContent()).resolves.toMatch(
       /row 2: expected a time in seconds greater than 0, got "abc"/,
     );
-    // Total-clearing rows alone go to total clearing; these lie left of the fuse's minimum melting curve,
-    // which the study would refuse, so the dialog refuses them first.
-    await text.fill('curve,current,time\ntotal-clearing,10,300\ntotal-clearing,20,0.01\n');
+    // A file whose total clearing is faster than its own minimum melting would be refused by the study:
+    // the dialog refuses it first.
+    await text.fill('curve,current,time\nmin,150,300\nmin,3000,0.01\nmax,100,200\nmax,1000,0.005\n');
     await expect(page.getByTestId('csv-import-problem').textContent()).resolves.toMatch(
       /would not be accepted: totalClearing/,
     );
     await expect(page.getByTestId('csv-apply').isDisabled()).resolves.toBe(true);
+    // Total-clearing rows alone go to total clearing; left of the minimum melting curve in place they are
+    // imported with a warning (the other curve may be the next file).
+    await text.fill('curve,current,time\ntotal-clearing,10,300\ntotal-clearing,20,0.01\n');
+    await expect(page.getByTestId('csv-import-warning').textContent()).resolves.toMatch(
+      /do not fit the minimum melting curve left in place/,
+    );
+    await expect(page.getByTestId('csv-apply').isDisabled()).resolves.toBe(false);
     await text.fill(
       [
         'curve,current,time',

@@ -1,4 +1,4 @@
-import { parsePointsCsv, readCharacteristic, type PointsCsv } from '../../engine/devices/index.ts';
+import { characteristicProblems, parsePointsCsv, type PointsCsv } from '../../engine/devices/index.ts';
 
 type Table = [number, number][];
 
@@ -77,23 +77,71 @@ export function withPoints(
   return next;
 }
 
+/** What the study would say of a characteristic after an import: a refusal, or a warning to read before importing. */
+export interface ImportCheck {
+  /** The points themselves would not be accepted: the dialog does not import them. */
+  refusal?: string;
+  /** The points are good, but the curve the import leaves in place (the other edge) no longer fits them. */
+  warning?: string;
+}
+
 /**
- * Why the characteristic with the points in place would not be accepted, or `undefined` when it would:
- * the same checks the study applies (each edge's points, and a slow edge never faster than the fast
- * one), said of the imported curve, so the dialog refuses what the study would then refuse.
+ * Checks an import as the study would, and blames the points only for what they cause. The points are
+ * refused where the study would refuse them even with both edges made of them (a curve it does not
+ * accept on its own). Where they are accepted on their own but not against the other edge the import
+ * leaves in place (a template's, about to be replaced by a second file), they are imported with a
+ * warning, so a curve sent as two one-curve files can go in in either order. A problem the
+ * characteristic had before the import is neither: the study already shows it.
  *
- * @example importProblemOf({ kind: 'fuse', minimumMelting: [[150, 300], [2000, 0.01]], totalClearing: [[100, 300], [1000, 0.01]] })
- * // 'With these points the curve would not be accepted: totalClearing: expected …'
+ * @example importCheckOf(fuse, parsePointsCsv('total-clearing,10,300\ntotal-clearing,20,0.01'), target).warning
+ * // 'These points do not fit the minimum melting curve left in place: totalClearing: expected …'
  */
-export function importProblemOf(characteristic: Record<string, unknown>, frequency = 60): string | undefined {
-  try {
-    readCharacteristic(characteristic, { path: '', frequency });
-    return undefined;
-  } catch (error) {
-    // The error names the field inside the characteristic (".totalClearing: …"), or none (": …").
-    const message = (error as Error).message.replace(/^\.|^: /, '');
-    return `With these points the curve would not be accepted: ${message}`;
+export function importCheckOf(
+  characteristic: Record<string, unknown>,
+  points: PointsCsv,
+  target: PointsTarget,
+  frequency = 60,
+): ImportCheck {
+  const problems = (candidate: Record<string, unknown>) => characteristicProblems(candidate, { path: '', frequency });
+  const before = new Set(problems(characteristic));
+  const made = (candidate: Record<string, unknown>) =>
+    problems(candidate)
+      .filter((problem) => !before.has(problem))
+      // The path within the characteristic (".totalClearing: …"), or none (": …").
+      .map((problem) => problem.replace(/^\.|^: /, ''));
+  const table = points.points ?? points.minimum ?? points.maximum;
+  const alone =
+    target.fields.length === 1 && table
+      ? made(withPoints(characteristic, { minimum: table, maximum: table }, bothEdgesOf(target)))
+      : [];
+  if (alone.length > 0) return { refusal: `These points would not be accepted: ${alone[0]}` };
+  const placed = made(withPoints(characteristic, points, target));
+  if (placed.length === 0) return {};
+  if (target.fields.length === 2) return { refusal: `These points would not be accepted: ${placed[0]}` };
+  return {
+    warning: `These points do not fit the ${otherEdgeName(target)} curve left in place, so the study will show a problem until it is replaced too (import it next, or both curves in one curve,current,time file): ${placed[0]}`,
+  };
+}
+
+/** A one-edge target as both edges, each given the same points: the points checked on their own. */
+function bothEdgesOf(target: PointsTarget): PointsTarget {
+  const [field] = target.fields;
+  const pair = Object.values(EDGES).find((edges) => [edges.minimum, edges.maximum].some((t) => same(t, field)))!;
+  return { label: target.label, fields: [pair.minimum.fields[0], pair.maximum.fields[0]] };
+}
+
+/** The name of the edge a one-edge target leaves in place: "total clearing" for minimum melting, and so on. */
+function otherEdgeName(target: PointsTarget): string {
+  const [field] = target.fields;
+  for (const edges of Object.values(EDGES)) {
+    if (same(edges.minimum, field)) return edges.maximum.label;
+    if (same(edges.maximum, field)) return edges.minimum.label;
   }
+  return 'other';
+}
+
+function same(target: PointsTarget, field: string[]): boolean {
+  return target.fields[0].join('.') === field.join('.');
 }
 
 /**
@@ -118,10 +166,11 @@ export function previewTablesOf(points: PointsCsv): { name: string; rows: Table 
 export function pointsCsvProblems(text: string): string[] {
   const problems: string[] = [];
   const rows: { row: number; line: string; curve: string }[] = [];
+  const columns = columnsOf(text);
   text.split(/\r?\n/).forEach((line, i) => {
     const trimmed = line.trim();
     if (trimmed === '' || trimmed.startsWith('#')) return;
-    const message = problemOf(line);
+    const message = problemOf(line, columns);
     // A lone good row fails only for having one point; a header row has none.
     if (message === undefined || /expected at least 2 points/.test(message))
       rows.push({
@@ -134,7 +183,7 @@ export function pointsCsvProblems(text: string): string[] {
   const previous = new Map<string, { row: number; line: string }>();
   for (const r of rows) {
     const before = previous.get(r.curve);
-    const message = before ? problemOf(`${before.line}\n${r.line}`) : undefined;
+    const message = before ? problemOf(`${before.line}\n${r.line}`, columns) : undefined;
     if (message !== undefined && !/expected at least 2 points/.test(message)) problems.push(renumbered(message, r.row));
     else previous.set(r.curve, r);
   }
@@ -146,14 +195,25 @@ export function pointsCsvProblems(text: string): string[] {
   return problems;
 }
 
-// Accepts CSV text; the reader's message about it, or undefined when it reads.
-function problemOf(text: string): string | undefined {
+// Accepts CSV text and the whole file's number of fields; the reader's message about it, or undefined when it reads.
+function problemOf(text: string, columns?: 2 | 3): string | undefined {
   try {
-    parsePointsCsv(text);
+    parsePointsCsv(text, { columns });
     return undefined;
   } catch (error) {
     return (error as Error).message;
   }
+}
+
+// Accepts CSV text; the number of fields its first row sets (a header's, or the first point's), as the
+// reader counts them, so each row is judged against the file's shape rather than its own.
+function columnsOf(text: string): 2 | 3 | undefined {
+  const first = text
+    .split(/\r\n|\r|\n/)
+    .map((line) => line.replace(/#.*$/, '').trim())
+    .find((line) => line !== '');
+  if (first === undefined) return undefined;
+  return first.split(/\s*[,;\t]\s*/).length === 3 ? 3 : 2;
 }
 
 // Accepts a message; the row it names (0 when none).

@@ -23,7 +23,7 @@ export { isValidTable, pointProblem, tableElement, upperBelowLower } from './poi
 export { pointTableSchema } from './pointTableSchema.ts';
 export type { PointTable, PointTableOptions } from './pointTable.ts';
 export { parsePointsCsv, type PointsCsv } from './pointsCsv.ts';
-export { readCharacteristic, type ReadCharacteristicOptions } from './readCharacteristic.ts';
+export { characteristicProblems, readCharacteristic, type ReadCharacteristicOptions } from './readCharacteristic.ts';
 export { relayBand } from './relay.ts';
 export { createRelaySchema, relaySchema, RELAY_CURVES, type Relay } from './relaySchema.ts';
 export { thermalMagneticBand } from './thermalMagnetic.ts';

@@ -24,3 +24,17 @@ export function readCharacteristic(input: unknown, options: ReadCharacteristicOp
   const issue = parsed.error.issues[0];
   throw new InputError(formatIssuePath(path, issue.path), issueMessage(issue));
 }
+
+/**
+ * Every problem of one characteristic, each as `path: expected …, got "…"` (the path from `options.path`),
+ * in the schema's order; an empty list where it reads. For comparing a characteristic before and after an
+ * edit, where the first problem alone could be one the edit did not make.
+ *
+ * @example characteristicProblems({ kind: 'fuse', minimumMelting: [[1, 2]] }) // ['characteristic.minimumMelting: expected at least 2 points, got 1', …]
+ */
+export function characteristicProblems(input: unknown, options: ReadCharacteristicOptions = {}): string[] {
+  const { path = 'characteristic', frequency = 60 } = options;
+  const parsed = createCharacteristicSchema(frequency).safeParse(input, { reportInput: true });
+  if (parsed.success) return [];
+  return parsed.error.issues.map((issue) => `${formatIssuePath(path, issue.path)}: ${issueMessage(issue)}`);
+}

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import {
   asOwnCurve,
-  importProblemOf,
+  importCheckOf,
   pointsCsvProblems,
   pointsTargetsOf,
   previewTablesOf,
@@ -50,21 +50,64 @@ describe('csvImport', () => {
     });
   });
 
-  it('importProblemOf() refuses points the study would refuse, naming the edge', () => {
-    // Invented points: a total-clearing curve imported to the left of the fuse's minimum melting curve.
-    const fuse = {
-      kind: 'fuse',
-      minimumMelting: [
-        [150, 300],
-        [2000, 0.01],
-      ],
-      totalClearing: [
-        [100, 200],
-        [1000, 0.005],
-      ],
+  // Invented, illustrative fuse curves: minimum melting 200–2000 A, total clearing 220–2200 A.
+  const fuse = {
+    kind: 'fuse',
+    minimumMelting: [
+      [200, 300],
+      [2000, 0.01],
+    ],
+    totalClearing: [
+      [220, 300],
+      [2200, 0.02],
+    ],
+  };
+  const check = (text: string) => {
+    const points = parsePointsCsv(text);
+    return importCheckOf(fuse, points, pointsTargetsOf('fuse', points)[0]);
+  };
+
+  it('importCheckOf() lets a curve sent as two one-curve files in, in either order, warning of the curve left in place', () => {
+    // A new curve to the left of the old one: its minimum melting alone starts below the old total clearing.
+    const melting = 'min,150,300\nmin,3000,0.01';
+    const clearing = 'max,160,300\nmax,3200,0.02';
+    expect(check(melting)).toEqual({
+      warning: expect.stringMatching(
+        /^These points do not fit the total clearing curve left in place, .*: totalClearing: expected total clearing no earlier than minimum melting/,
+      ),
+    });
+    expect(check(clearing).refusal).toBeUndefined();
+    // Both in one file, or the second after the first: accepted with no word.
+    expect(check(`${melting}\n${clearing}`)).toEqual({});
+    const first = withPoints(fuse, parsePointsCsv(melting), pointsTargetsOf('fuse', parsePointsCsv(melting))[0]);
+    const points = parsePointsCsv(clearing);
+    expect(importCheckOf(first, points, pointsTargetsOf('fuse', points)[0])).toEqual({});
+  });
+
+  it('importCheckOf() refuses a two-curve file whose total clearing is faster than its minimum melting', () => {
+    expect(check('min,150,300\nmin,3000,0.01\nmax,100,200\nmax,1000,0.005').refusal).toMatch(
+      /^These points would not be accepted: totalClearing: expected total clearing to start at or above/,
+    );
+  });
+
+  it('importCheckOf() does not blame the points for a problem the characteristic already had', () => {
+    const breaker = {
+      kind: 'thermal-magnetic',
+      rating: 100,
+      thermal: {
+        minimum: [
+          [1.1, 300],
+          [10, 1],
+        ],
+        maximum: [
+          [1.3, 600],
+          [10, 4],
+        ],
+      },
+      magnetic: { pickup: 200 },
     };
-    expect(importProblemOf(fuse)).toMatch(/^With these points the curve would not be accepted: totalClearing/);
-    expect(importProblemOf({ ...fuse, totalClearing: both.maximum })).toBeUndefined();
+    const points = parsePointsCsv('min,1.05,400\nmin,10,2');
+    expect(importCheckOf(breaker, points, pointsTargetsOf('thermal-magnetic', points)[0])).toEqual({});
   });
 
   it('withPoints() replaces the tables and keeps every other setting', () => {
@@ -110,6 +153,15 @@ describe('pointsCsvProblems', () => {
       'row 4: expected a current above the previous point\'s 200, got "100"',
       'row 5: expected 2 fields (current,time), got "300"',
       'row 7: expected a time below the previous point\'s 0.5 s, got "1"',
+    ]);
+  });
+
+  it("judges each row by the file's shape, its header's or first row's number of fields", () => {
+    expect(pointsCsvProblems('curve,current,time\nmin,1,500,300\nmin,2000,0.1\nmin,3000,0.05')).toEqual([
+      'row 2: expected 3 fields (curve,current,time), got "min,1,500,300" (a decimal comma or a thousands separator? write numbers as 1.5 and 1500, without separators)',
+    ]);
+    expect(pointsCsvProblems('current;time\n1,5;300\n20;0.01')).toEqual([
+      'row 2: expected 2 fields (current,time), got "1,5;300" (a decimal comma or a thousands separator? write numbers as 1.5 and 1500, without separators)',
     ]);
   });
 
