@@ -53,14 +53,16 @@ const TIME_UNITS: Record<string, number> = {
  * it gives that is not one of these is refused. `#` starts a comment; blank lines are skipped; lines may
  * end in LF, CR LF or CR; fields may be separated by commas, semicolons or tabs. Each
  * curve must have current ascending and time strictly descending. A bad row throws an `InputError`
- * naming its line: `row 7: expected a current in amperes greater than 0, got "abc"`.
+ * naming its line: `row 7: expected a current in amperes greater than 0, got "abc"`. `options.columns`
+ * reads a piece of a file with that file's number of fields (2 or 3), so a row is judged as in the file.
  *
  * @example parsePointsCsv('current,time\n200,300\n2000,0.01').points // [[200, 300], [2000, 0.01]]
  */
-export function parsePointsCsv(text: string): PointsCsv {
+export function parsePointsCsv(text: string, options: { columns?: 2 | 3 } = {}): PointsCsv {
   const result: PointsCsv = {};
   const rows: Record<'points' | 'minimum' | 'maximum', number[]> = { points: [], minimum: [], maximum: [] };
-  let columns: 2 | 3 | undefined;
+  // Given, the columns of the whole file this text is a piece of (its header or first row sets them).
+  let columns: 2 | 3 | undefined = options.columns;
   let seenData = false;
   let scale = { current: 1, time: 1 };
   text.split(/\r\n|\r|\n/).forEach((line, index) => {
@@ -134,11 +136,12 @@ export function parsePointsCsv(text: string): PointsCsv {
 
 /**
  * A hint for a row that a comma split into too many fields: a decimal comma in a file separated by
- * semicolons or tabs ("1,5;300"), or a thousands separator ("1,500,0.5"), reads as a field separator.
+ * semicolons or tabs ("1,5;300"), or a thousands separator ("1,500,0.5", "1,234.5,0.2"), reads as a field
+ * separator. A row such as "400,100,5" may be either a thousands separator or a stray field: the hint asks.
  */
 function separatorHint(content: string): string {
   const decimalComma = /[;\t]/.test(content) && /\d,\d/.test(content);
-  const thousands = /\d,\d{3}(?![\d.])/.test(content);
+  const thousands = /\d,\d{3}(?!\d)/.test(content);
   return decimalComma || thousands
     ? ' (a decimal comma or a thousands separator? write numbers as 1.5 and 1500, without separators)'
     : '';

@@ -113,7 +113,10 @@ describe('pointsCsv', () => {
     expect(rejection('current,time\n200,300\n1,500,0.5')).toBe(
       `row 3: expected 2 fields (current,time), got "1,500,0.5" ${hint}`,
     );
-    // A row with too many fields and no comma between digits gets no hint.
+    expect(rejection('current,time\n200,300\n1,234.5,0.2')).toBe(
+      `row 3: expected 2 fields (current,time), got "1,234.5,0.2" ${hint}`,
+    );
+    // A row with too many fields and no group of three digits after a comma gets no hint.
     expect(rejection('200,300\n400,10,5')).not.toMatch(/decimal comma/);
   });
 
