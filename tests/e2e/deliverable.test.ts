@@ -58,6 +58,31 @@ describe('the study deliverable in the workbench', () => {
     await context.close();
   });
 
+  it('a continuation bar of a wide bus selects the bus there, zoomed in, without moving the view', async () => {
+    const { context, page } = await bench.open();
+    await page.getByTestId('demo-menu').selectOption('harrowmere-full.json');
+    await settled(page);
+    await page.getByTestId('tab-one-line').click();
+    const diagram = page.getByTestId('one-line-svg');
+    const continued = diagram.locator('text[data-role="one-line-continued-label"]').first();
+    await continued.waitFor();
+    const busId = (await continued.getAttribute('data-id'))!;
+    // Zoom in on the bar's label, then click it: the bus is selected and marked there; the view stays.
+    const box = (await continued.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    for (let i = 0; i < 4; i++) await page.mouse.wheel(0, -100);
+    const zoomed = await diagram.getAttribute('viewBox');
+    await continued.click();
+    await expect.poll(() => page.getByTestId(`tree-bus-${busId}`).getAttribute('aria-selected')).toBe('true');
+    await expect.poll(() => diagram.getByTestId('one-line-selected').getAttribute('data-id')).toBe(busId);
+    expect(await diagram.getAttribute('viewBox')).toBe(zoomed);
+    const marked = (await diagram.getByTestId('one-line-selected').boundingBox())!;
+    const label = (await continued.boundingBox())!;
+    expect(Math.abs(marked.y + marked.height / 2 - (label.y + label.height / 2))).toBeLessThan(60);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
   it('adds a sheet for every protective path in one undoable step, and not twice', async () => {
     const { context, page } = await bench.open();
     const menu = page.getByTestId('view-menu');
