@@ -14,11 +14,13 @@ export interface ProbeReading {
   minTime: number;
   maxTime: number;
   /**
-   * The largest fault current through the device (A at its own voltage; line-to-ground on a ground-fault
-   * sheet), where its band on the sheet ends (`deviceFaultOf`); `Infinity` at an infinite bus.
+   * The largest fault current through the device (A at its own voltage), where its band on the sheet
+   * ends (`deviceFaultOf`: line-to-ground on a ground-fault sheet; on a phase sheet the larger of the
+   * three-phase and line-to-ground faults at the sheet's voltage, the three-phase at another); `Infinity`
+   * at an infinite bus.
    */
   largestFault?: number;
-  /** The largest fault current at the device's bus, as the sheet's fault lines show it (A at its own voltage). */
+  /** The largest fault current at the device's bus, taken as `largestFault` is (A at its own voltage). */
   busFault?: number;
   /** True when the probed current is more than can flow through the device: its times are not read there. */
   beyondFault?: boolean;
@@ -64,9 +66,16 @@ export function probeAt(analysis: Analysis, viewId: string, amps: number): Probe
     const ownAmps = (amps * referenceVolts) / ownVolts;
     const band = analysis.bands.get(deviceId)!;
     const level = analysis.faults.buses.get(bus.id)?.max;
-    const busFault = level ? (ground ? level.lineToGround : level.threePhase) : Infinity;
-    const through = level ? deviceFaultOf(analysis.network, analysis.faults, device) : undefined;
-    const largestFault = through ? (ground ? through.lineToGround : through.threePhase) : Infinity;
+    // As the sheet draws the band: line-to-ground on a ground-fault sheet; on a phase sheet the larger of
+    // the three-phase and line-to-ground faults at the sheet's voltage, the three-phase at another.
+    const onSheet = (fault: { threePhase: number; lineToGround: number }) =>
+      ground
+        ? fault.lineToGround
+        : Math.abs(ownVolts - referenceVolts) <= 1e-9 * referenceVolts
+          ? Math.max(fault.threePhase, fault.lineToGround)
+          : fault.threePhase;
+    const busFault = level ? onSheet(level) : Infinity;
+    const largestFault = level ? onSheet(deviceFaultOf(analysis.network, analysis.faults, device)) : Infinity;
     return {
       deviceId,
       name: device.name ?? deviceId,

@@ -62,14 +62,17 @@ describe('probeAt', () => {
   });
 
   it("leaves out a main past what its transformer passes, though its bus's motors take the bus beyond it", () => {
-    // The switchboard's 30.4 kA includes its motors' current, which does not pass the main: the main's
-    // band ends at the 28.4 kA through the transformer (1.09 kA at 12.47 kV, IEEE 141 per-unit method).
-    const through = deviceFaultOf(analysis.network, analysis.faults, analysis.network.devices.get('MAIN')!).threePhase;
-    const swbd = analysis.faults.buses.get('SWBD')!.max.threePhase;
+    // The switchboard's fault includes its motors' current, which does not pass the main: the main's band
+    // ends at the current through the transformer (IEEE 141 per-unit method), on this phase sheet at 480 V
+    // the larger of the three-phase (28.4 kA) and line-to-ground (29.4 kA, Δ–Yg with X0 below X1) faults.
+    const main = deviceFaultOf(analysis.network, analysis.faults, analysis.network.devices.get('MAIN')!);
+    const through = Math.max(main.threePhase, main.lineToGround);
+    const bus = analysis.faults.buses.get('SWBD')!.max;
+    const swbd = Math.max(bus.threePhase, bus.lineToGround);
     expect(through).toBeLessThan(swbd);
     const probe = probeAt(analysis, 'service', (through + swbd) / 2);
-    const main = probe.readings.find((r) => r.deviceId === 'MAIN')!;
-    expect([main.beyondFault, main.largestFault, main.busFault]).toEqual([true, through, swbd]);
+    const reading = probe.readings.find((r) => r.deviceId === 'MAIN')!;
+    expect([reading.beyondFault, reading.largestFault, reading.busFault]).toEqual([true, through, swbd]);
     expect(probe.beyondFault).toBeUndefined();
     expect(probe.first).not.toBe('MAIN');
     expect(probe.summary).not.toMatch(/Main 2000 A/);

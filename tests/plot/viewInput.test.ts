@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../src/engine/analysis.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
 import { formatAmps } from '../../src/engine/quantity/format.ts';
+import { deviceFaultOf } from '../../src/engine/fault/index.ts';
 import { parseStudy } from '../../src/engine/study/index.ts';
 import { inferCurrentRange } from '../../src/plot/currentRange.ts';
 import { faultLabel } from '../../src/plot/marks/faultLine.ts';
@@ -26,6 +27,21 @@ describe('viewInputOf', () => {
     const own = analysis.bands.get('MAIN')!;
     expect(main.ownVolts).toBe(480);
     expect(main.band.maxTime((20_000 * 480) / 12_470)).toBe(own.maxTime(20_000));
+  });
+
+  it("ends each band at the largest current through its own device: the main's at the line through the transformer", () => {
+    const analysis = analysed('selective');
+    const main = analysis.network.devices.get('MAIN')!;
+    const through = deviceFaultOf(analysis.network, analysis.faults, main);
+    // On the primary sheet the main's band, scaled by 480/12 470, ends at the transformer's through-fault
+    // line (three-phase: the voltage ratio holds for it), short of the switchboard total with its motors.
+    const primary = viewInputOf(analysis, 'primary');
+    assertInDelta(primary.bands[1].toAmps!, primary.faultLines[1].amps, 1e-12);
+    assertInDelta(primary.bands[1].toAmps!, (through.threePhase * 480) / 12_470, 1e-12);
+    // On its own 480 V sheet the larger of the three-phase and line-to-ground faults through it (Δ–Yg: 29.4 kA).
+    const service = viewInputOf(analysis, 'service').bands.find((b) => b.id === 'MAIN')!;
+    expect(service.toAmps).toBe(Math.max(through.threePhase, through.lineToGround));
+    expect(through.lineToGround).toBeGreaterThan(through.threePhase);
   });
 
   it('draws a secondary fault on the primary sheet at the current through the transformer: the SWBD total less its motors, × 480/12 470', () => {
