@@ -1,5 +1,5 @@
 import type { Analysis } from './analysis.ts';
-import { deviceFaultOf } from './fault/index.ts';
+import { deviceFaultOf, largestFaultOf } from './fault/index.ts';
 import { locationBusOf } from './network/index.ts';
 import { formatAmps, formatVolts } from './quantity/format.ts';
 
@@ -15,12 +15,10 @@ export interface ProbeReading {
   maxTime: number;
   /**
    * The largest fault current through the device (A at its own voltage), where its band on the sheet
-   * ends (`deviceFaultOf`: line-to-ground on a ground-fault sheet; on a phase sheet the larger of the
-   * three-phase and line-to-ground faults at the sheet's voltage, the three-phase at another); `Infinity`
-   * at an infinite bus.
+   * ends (`deviceFaultOf`, `largestFaultOf`); `Infinity` at an infinite bus.
    */
   largestFault?: number;
-  /** The largest fault current at the device's bus, taken as `largestFault` is (A at its own voltage). */
+  /** The largest fault current at the device's bus, as the sheet's line at that bus shows it (A at its own voltage). */
   busFault?: number;
   /** True when the probed current is more than can flow through the device: its times are not read there. */
   beyondFault?: boolean;
@@ -66,16 +64,10 @@ export function probeAt(analysis: Analysis, viewId: string, amps: number): Probe
     const ownAmps = (amps * referenceVolts) / ownVolts;
     const band = analysis.bands.get(deviceId)!;
     const level = analysis.faults.buses.get(bus.id)?.max;
-    // As the sheet draws the band: line-to-ground on a ground-fault sheet; on a phase sheet the larger of
-    // the three-phase and line-to-ground faults at the sheet's voltage, the three-phase at another.
-    const onSheet = (fault: { threePhase: number; lineToGround: number }) =>
-      ground
-        ? fault.lineToGround
-        : Math.abs(ownVolts - referenceVolts) <= 1e-9 * referenceVolts
-          ? Math.max(fault.threePhase, fault.lineToGround)
-          : fault.threePhase;
-    const busFault = level ? onSheet(level) : Infinity;
-    const largestFault = level ? onSheet(deviceFaultOf(analysis.network, analysis.faults, device)) : Infinity;
+    const busFault = level ? largestFaultOf(level, ground) : Infinity;
+    const largestFault = level
+      ? largestFaultOf(deviceFaultOf(analysis.network, analysis.faults, device), ground)
+      : Infinity;
     return {
       deviceId,
       name: device.name ?? deviceId,

@@ -1,4 +1,4 @@
-import type { FaultLevels } from '../engine/fault/index.ts';
+import { largestFaultOf, type FaultLevels } from '../engine/fault/index.ts';
 import type { Network } from '../engine/network/index.ts';
 import { formatAmps } from '../engine/quantity/format.ts';
 import type { Transformer } from '../engine/study/index.ts';
@@ -8,8 +8,9 @@ import type { SheetFaultLine } from './sheetInput.ts';
 const SAME_VOLTS = 1e-9;
 
 /**
- * A bus's maximum fault current as a line on a sheet at `referenceVolts`: three-phase, or line to
- * ground on a ground-fault sheet. At the bus's own voltage the line is the bus's whole fault current.
+ * A bus's maximum fault current as a line on a sheet at `referenceVolts`: the larger of the three-phase
+ * and line-to-ground faults, or the line-to-ground fault on a ground-fault sheet (`largestFaultOf`, as
+ * the bands reach). At the bus's own voltage the line is the bus's whole fault current.
  * On a sheet at the voltage of a transformer the bus lies below, the three-phase line is the current
  * that flows through that transformer, as its primary devices and the secondary main carry it: the
  * motors on the bus's side feed the fault without passing through them (IEEE 399 current division),
@@ -29,7 +30,7 @@ export function busFaultLineOf(
 ): SheetFaultLine | undefined {
   const bus = network.buses.get(busId)!;
   const fault = faults.buses.get(busId)!;
-  const ownAmps = ground ? fault.max.lineToGround : fault.max.threePhase;
+  const ownAmps = largestFaultOf(fault.max, ground);
   if (!(Number.isFinite(ownAmps) && ownAmps > 0)) return undefined;
   const line: SheetFaultLine = {
     busId,

@@ -6,7 +6,7 @@ import { CAUTION } from '../engine/caution.ts';
 import { busFaultLineOf } from './busFaultLine.ts';
 import { longTimeRampBasis } from '../engine/devices/index.ts';
 import { locationBusOf } from '../engine/network/index.ts';
-import { deviceFaultOf } from '../engine/fault/index.ts';
+import { deviceFaultOf, largestFaultOf } from '../engine/fault/index.ts';
 import {
   cableWithstandOf,
   inrushMarkersOf,
@@ -100,7 +100,7 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     view.devices.map((id) => {
       const device = network.devices.get(id)!;
       const bus = locationBusOf(network, device);
-      const fault = sheetFaultOf(deviceFaultOf(network, faults, device), ground, bus.voltage === ref);
+      const fault = largestFaultOf(deviceFaultOf(network, faults, device), ground);
       // At an infinite bus there is no largest fault to stop the band at.
       const toAmps = Number.isFinite(fault) && fault > 0 ? fault * onSheet(bus.voltage) : undefined;
       return [id, { device, bus, toAmps }] as const;
@@ -333,22 +333,4 @@ export function viewInputOf(analysis: Analysis, viewId: string): SheetInput {
     timeRange: view.timeRange,
     caution: CAUTION,
   };
-}
-
-/**
- * The largest fault current a sheet shows for a device or bus: on a ground-fault sheet the line-to-ground
- * fault; on a phase sheet, at the sheet's own voltage, the larger of the three-phase and the line-to-ground
- * fault (the faulted phase's current, as far as the pair checks go); at another voltage the three-phase
- * fault, the one the voltage ratio that scales the band there holds for (an unbalanced fault crosses a
- * Δ–Y transformer in other proportions, which the sheet's shifted regions show).
- *
- * @example sheetFaultOf({ threePhase: 28_421, lineToGround: 29_377 }, false, true) // 29_377
- */
-export function sheetFaultOf(
-  fault: { threePhase: number; lineToGround: number },
-  ground: boolean,
-  ownVoltage: boolean,
-): number {
-  if (ground) return fault.lineToGround;
-  return ownVoltage ? Math.max(fault.threePhase, fault.lineToGround) : fault.threePhase;
 }

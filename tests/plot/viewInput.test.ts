@@ -33,15 +33,17 @@ describe('viewInputOf', () => {
     const analysis = analysed('selective');
     const main = analysis.network.devices.get('MAIN')!;
     const through = deviceFaultOf(analysis.network, analysis.faults, main);
-    // On the primary sheet the main's band, scaled by 480/12 470, ends at the transformer's through-fault
-    // line (three-phase: the voltage ratio holds for it), short of the switchboard total with its motors.
-    const primary = viewInputOf(analysis, 'primary');
-    assertInDelta(primary.bands[1].toAmps!, primary.faultLines[1].amps, 1e-12);
-    assertInDelta(primary.bands[1].toAmps!, (through.threePhase * 480) / 12_470, 1e-12);
-    // On its own 480 V sheet the larger of the three-phase and line-to-ground faults through it (Δ–Yg: 29.4 kA).
+    // On its own 480 V sheet: the larger of the three-phase (28.4 kA, what T1 passes) and line-to-ground
+    // (29.4 kA: Δ–Yg, X0 below X1) faults through it, short of the switchboard's 30.4 kA with its motors.
     const service = viewInputOf(analysis, 'service').bands.find((b) => b.id === 'MAIN')!;
     expect(service.toAmps).toBe(Math.max(through.threePhase, through.lineToGround));
     expect(through.lineToGround).toBeGreaterThan(through.threePhase);
+    expect(service.toAmps).toBeLessThan(analysis.faults.buses.get('SWBD')!.max.lineToGround);
+    // On the primary sheet the same reach, scaled by 480/12 470: past the three-phase line through the
+    // transformer, since the line-to-ground fault reaches the primary lines reduced by the Δ–Y unit.
+    const primary = viewInputOf(analysis, 'primary');
+    assertInDelta(primary.bands[1].toAmps!, (through.lineToGround * 480) / 12_470, 1e-12);
+    assertInDelta(primary.faultLines[1].amps, (through.threePhase * 480) / 12_470, 1e-12);
   });
 
   it('draws a secondary fault on the primary sheet at the current through the transformer: the SWBD total less its motors, × 480/12 470', () => {
@@ -54,10 +56,10 @@ describe('viewInputOf', () => {
     expect(swbd.amps).toBeLessThan((fault.max.threePhase * 480) / 12_470);
     expect([swbd.ownVolts, swbd.ownAmps, swbd.reflection]).toEqual([
       480,
-      fault.max.threePhase,
+      Math.max(fault.max.threePhase, fault.max.lineToGround),
       'through Service transformer',
     ]);
-    expect(faultLabel(swbd, 12_470)).toBe('SWBD 30 kA @ 480 V → 1.09 kA @ 12.47 kV (through Service transformer)');
+    expect(faultLabel(swbd, 12_470)).toBe('SWBD 30.4 kA @ 480 V → 1.09 kA @ 12.47 kV (through Service transformer)');
   });
 
   it("draws a secondary line-to-ground fault by the voltage ratio and names the Δ–Y primary's line current beside it", () => {

@@ -32,3 +32,15 @@ export function deviceFaultOf(network: Network, faults: FaultLevels, device: Dev
     return { r: all.r - own.r, x: all.x - own.x };
   });
 }
+
+/**
+ * The largest of a device's or bus's fault currents a sheet reaches to: the line-to-ground fault on a
+ * ground-fault sheet; on a phase sheet the larger of the three-phase and line-to-ground faults (the
+ * faulted phase's current, which a Δ–Yg secondary or a solidly grounded generator makes the larger),
+ * as far as the pair checks go. The same at any voltage the sheet is drawn at: only its units change.
+ *
+ * @example largestFaultOf({ threePhase: 28_421, lineToGround: 29_377 }, false) // 29_377
+ */
+export function largestFaultOf(fault: { threePhase: number; lineToGround: number }, groundFault: boolean): number {
+  return groundFault ? fault.lineToGround : Math.max(fault.threePhase, fault.lineToGround);
+}

@@ -63,5 +63,5 @@ export {
 export type { SinglePhaseBus, SinglePhaseLoop } from './singlePhase.ts';
 export { throughFaultOf } from './throughFault.ts';
 export type { ThroughFault } from './throughFault.ts';
-export { deviceFaultOf } from './deviceFault.ts';
+export { deviceFaultOf, largestFaultOf } from './deviceFault.ts';
 export type { DeviceFault } from './deviceFault.ts';

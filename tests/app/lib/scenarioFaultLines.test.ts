@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { scenarioFaultLinesOf } from '../../../src/app/lib/scenarioFaultLines.ts';
 import { scenarioViewOf } from '../../../src/app/lib/scenarioParts.ts';
 import { faultLabel } from '../../../src/plot/marks/faultLine.ts';
+import { largestFaultOf } from '../../../src/engine/fault/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { scenariosOf } from '../../../src/engine/scenario/index.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
@@ -23,8 +24,9 @@ describe('scenarioFaultLinesOf', () => {
       ['EMP', 'max', 'On generator'],
     ]);
     const [utility, generator] = lines;
-    expect(utility.ownAmps).toBe(scenarios[0].parts[0].faults.buses.get('EMP')!.max.threePhase);
-    expect(generator.ownAmps).toBe(scenarios[1].parts[0].faults.buses.get('EMP')!.max.threePhase);
+    // Each the larger of the bus's three-phase and line-to-ground faults, as far as the bands reach.
+    expect(utility.ownAmps).toBe(largestFaultOf(scenarios[0].parts[0].faults.buses.get('EMP')!.max, false));
+    expect(generator.ownAmps).toBe(largestFaultOf(scenarios[1].parts[0].faults.buses.get('EMP')!.max, false));
     expect(generator.ownAmps).toBeLessThan(utility.ownAmps);
     expect(faultLabel(generator, 480)).toMatch(/^On generator: EMP \d[\d.]* kA @ 480 V$/);
   });
