@@ -62,8 +62,14 @@ describe('the study deliverable in the workbench', () => {
     const { context, page } = await bench.open();
     await page.getByTestId('demo-menu').selectOption('harrowmere-full.json');
     await settled(page);
+    // An edit to undo later: the main's long-time pickup.
+    await page.getByTestId('tree-device-MAIN').click();
+    await page.getByTestId('field-study.devices[1].characteristic.longTime.pickup').fill('0.9');
+    await settled(page);
     await page.getByTestId('tab-one-line').click();
     const diagram = page.getByTestId('one-line-svg');
+    // The main, selected for the edit, is brought into view; the whole diagram is shown again on asking.
+    await page.getByTestId('one-line-fit').click();
     const continued = diagram.locator('text[data-role="one-line-continued-label"]').first();
     await continued.waitFor();
     const busId = (await continued.getAttribute('data-id'))!;
@@ -79,6 +85,11 @@ describe('the study deliverable in the workbench', () => {
     const marked = (await diagram.getByTestId('one-line-selected').boundingBox())!;
     const label = (await continued.boundingBox())!;
     expect(Math.abs(marked.y + marked.height / 2 - (label.y + label.height / 2))).toBeLessThan(60);
+    // An edit rebuilds the diagram (here, undoing one made before): the mark and the view stay.
+    await page.getByTestId('undo').click();
+    await settled(page);
+    expect(await diagram.getAttribute('viewBox')).toBe(zoomed);
+    expect(await diagram.getByTestId('one-line-selected').boundingBox()).toEqual(marked);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
