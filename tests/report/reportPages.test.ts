@@ -146,7 +146,9 @@ describe('reportPagesOf with figures', () => {
       `The drawing — overview; continued at a readable size on the next ${tiles.length} pages`,
     );
     expect(pages.slice(at + 1, at + 1 + tiles.length)).toEqual(tiles);
-    expect(captionOf(tiles[1])).toMatch(new RegExp(`^The drawing — part 2 of ${tiles.length} \\(row 1, column 2\\)$`));
+    expect(captionOf(tiles[1])).toMatch(
+      new RegExp(`^The drawing — part 2 of ${tiles.length} \\(row 1 of \\d+, column 2 of \\d+\\)$`),
+    );
     // The next section starts after the last tile, and the contents page says so.
     const next = at + tiles.length + 1;
     expect(bodyOf(pages[next])[0].text).toBe('2. After it');
@@ -180,10 +182,15 @@ describe('reportPagesOf with the whole-site one-line of a generated 600-device s
     );
     expect(pages.slice(overviewAt + 1, overviewAt + 1 + tiles.length)).toEqual(tiles);
     tiles.forEach((tile, i) => {
-      const [, row, column] = /\(row (\d+), column (\d+)\)$/.exec(captionOf(tile))!.map(Number);
-      expect(captionOf(tile)).toContain(`— part ${i + 1} of ${tiles.length} (row ${row}, column ${column})`);
+      const [, row, rows, column, columns] = /\(row (\d+) of (\d+), column (\d+) of (\d+)\)$/
+        .exec(captionOf(tile))!
+        .map(Number);
+      expect(rows * columns).toBe(tiles.length);
+      expect(captionOf(tile)).toContain(
+        `— part ${i + 1} of ${tiles.length} (row ${row} of ${rows}, column ${column} of ${columns})`,
+      );
       // Tiles of one row show the same band of the drawing; of one column, the same strip.
-      const first = tiles.find((t) => captionOf(t).endsWith(`(row ${row}, column 1)`))!;
+      const first = tiles.find((t) => captionOf(t).endsWith(`(row ${row} of ${rows}, column 1 of ${columns})`))!;
       expect(tile.figure!.window!.y).toBe(first.figure!.window!.y);
     });
   });
