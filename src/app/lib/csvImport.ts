@@ -167,7 +167,7 @@ export function pointsCsvProblems(text: string): string[] {
   const problems: string[] = [];
   const rows: { row: number; line: string; curve: string }[] = [];
   const columns = columnsOf(text);
-  text.split(/\r?\n/).forEach((line, i) => {
+  text.split(/\r\n|\r|\n/).forEach((line, i) => {
     const trimmed = line.trim();
     if (trimmed === '' || trimmed.startsWith('#')) return;
     const message = problemOf(line, columns);

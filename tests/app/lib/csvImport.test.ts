@@ -165,6 +165,12 @@ describe('pointsCsvProblems', () => {
     ]);
   });
 
+  it('names the rows of a file whose lines end in CR alone, as older spreadsheets write them', () => {
+    expect(pointsCsvProblems('current,time\r200,300\rabc,1\r400,0.5')).toEqual([
+      'row 3: expected a current in amperes greater than 0, got "abc"',
+    ]);
+  });
+
   it('finds nothing wrong with a good file of one or two curves', () => {
     expect(pointsCsvProblems('current,time\n200,300\n2000,0.1')).toEqual([]);
     expect(pointsCsvProblems('curve,current,time\nmin,200,300\nmax,250,400\nmin,2000,0.1\nmax,2500,0.2')).toEqual([]);
