@@ -49,5 +49,8 @@ export function throughFaultOf(
     // What arrives from above, 1 / Z_toward, times the share passing `upstream`.
     return divideComplex(share, tree.toward.get(locationBus)!);
   });
-  return { threePhase, lineToLine: (threePhase * Math.sqrt(3)) / 2, lineToGround };
+  // On a single-phase bus the devices carry the bus's own fault currents, its line-to-line one among them.
+  const bus = faults.buses.get(locationBus)!;
+  const lineToLine = bus.phases === 1 ? bus.max.lineToLine : (threePhase * Math.sqrt(3)) / 2;
+  return { threePhase, lineToLine, lineToGround };
 }

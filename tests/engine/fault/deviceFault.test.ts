@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { deviceFaultOf, faultLevelsOf } from '../../../src/engine/fault/index.ts';
+import { deviceFaultOf, faultLevelsOf, throughFaultOf } from '../../../src/engine/fault/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
@@ -68,6 +68,9 @@ describe('deviceFaultOf', () => {
         lineToGround: singleFaults.buses.get('S')!.max.lineToGround,
       });
     }
+    // Through two devices in series there alike, the line-to-line fault being the bus's own.
+    const pair = throughFaultOf(singleNetwork, singleFaults, singleNetwork.devices.get('PM')!, 'S');
+    expect(pair.lineToLine).toBe(singleFaults.buses.get('S')!.max.lineToLine);
     const infinite = motorStudy();
     infinite.source = { kind: 'infinite', id: 'U', bus: 'MV' };
     const infiniteNetwork = networkOf(parseStudy(infinite));
