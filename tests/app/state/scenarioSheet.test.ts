@@ -8,7 +8,7 @@ import type { AnalyseReply } from '../../../src/app/worker/protocol.ts';
 import { ChangeTracker } from '../../../src/app/worker/changes.ts';
 import { checksOf } from '../../../src/app/worker/checks.ts';
 import { AnalysisMemo } from '../../../src/engine/incremental.ts';
-import { faultLevelsOf } from '../../../src/engine/fault/index.ts';
+import { faultLevelsOf, largestFaultOf } from '../../../src/engine/fault/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { scenarioPartsOf, scenariosOf } from '../../../src/engine/scenario/index.ts';
 import type { StudyInput } from '../../../src/engine/study/index.ts';
@@ -56,12 +56,14 @@ describe('the sheet, the findings and the tree in a scenario', () => {
     study.scenarioId = 'on-generator';
     const input = sheet.input.input!;
     expect(input.bands.map((b) => b.id)).toEqual(['GEN-CB', 'EM-BR']);
-    // The fault line is the generator tree's own level at the bus, worked out by the engine.
+    // The fault line is the generator tree's own level at the bus, worked out by the engine: the larger of
+    // its three-phase and line-to-ground faults (a solidly grounded machine gives more to the latter).
     const doc = study.study!;
     const part = scenarioPartsOf(doc, scenariosOf(doc)[1])[0];
     const faults = faultLevelsOf(networkOf(part.study));
     expect(input.faultLines.length).toBeGreaterThan(0);
-    for (const line of input.faultLines) expect(line.ownAmps).toBe(faults.buses.get(line.busId)!.max.threePhase);
+    for (const line of input.faultLines)
+      expect(line.ownAmps).toBe(largestFaultOf(faults.buses.get(line.busId)!.max, false));
     expect(sheet.left).toEqual([]);
     // The generator breaker's overlap is hatched on it, and it holds only on the generator.
     const region = input.regions.find((r) => r.findingId.startsWith('coordination:GEN-CB/EM-BR'));
