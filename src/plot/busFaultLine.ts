@@ -45,8 +45,12 @@ export function busFaultLineOf(
   if (!transformer) return line;
   const name = transformer.name ?? transformer.id;
   if (!ground) {
+    // The current through the transformer is that of the three-phase fault: the label names the bus's
+    // three-phase fault beside it, so the arrow joins two figures of one fault.
     const through = fault.reflected.find((r) => sameVolts(r.volts, referenceVolts));
-    return through ? { ...line, amps: through.maxAmps, reflection: `through ${name}` } : line;
+    return through
+      ? { ...line, amps: through.maxAmps, ownAmps: fault.max.threePhase, reflection: `through ${name}` }
+      : line;
   }
   // The worst primary line of a line-to-ground fault, known for a fault at the transformer's own secondary bus.
   const primaryLines = transformer.to === busId && faults.transformers.get(transformer.id)?.unbalanced.lineToGround;

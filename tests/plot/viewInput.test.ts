@@ -54,12 +54,13 @@ describe('viewInputOf', () => {
     // line is the transformer's own reflected through-fault, the current R-T1 and the main carry.
     assertInDelta(swbd.amps, analysis.faults.transformers.get('T1')!.reflectedToPrimary, 1e-12);
     expect(swbd.amps).toBeLessThan((fault.max.threePhase * 480) / 12_470);
+    // The label joins two figures of one fault, the three-phase: the bus's and the current through T1.
     expect([swbd.ownVolts, swbd.ownAmps, swbd.reflection]).toEqual([
       480,
-      Math.max(fault.max.threePhase, fault.max.lineToGround),
+      fault.max.threePhase,
       'through Service transformer',
     ]);
-    expect(faultLabel(swbd, 12_470)).toBe('SWBD 30.4 kA @ 480 V → 1.09 kA @ 12.47 kV (through Service transformer)');
+    expect(faultLabel(swbd, 12_470)).toBe('SWBD 30 kA @ 480 V → 1.09 kA @ 12.47 kV (through Service transformer)');
   });
 
   it("draws a secondary line-to-ground fault by the voltage ratio and names the Δ–Y primary's line current beside it", () => {
