@@ -90,6 +90,16 @@ describe('the study deliverable in the workbench', () => {
     await settled(page);
     expect(await diagram.getAttribute('viewBox')).toBe(zoomed);
     expect(await diagram.getByTestId('one-line-selected').boundingBox()).toEqual(marked);
+    // A choice in the tree is brought into view once: zoomed away from it, an edit leaves the view be.
+    await page.getByTestId('tree-device-MAIN').click();
+    await expect.poll(() => diagram.getByTestId('one-line-selected').getAttribute('data-id')).toBe('MAIN');
+    const panel = (await diagram.boundingBox())!;
+    await page.mouse.move(panel.x + panel.width - 5, panel.y + panel.height - 5);
+    for (let i = 0; i < 6; i++) await page.mouse.wheel(0, -100);
+    const away = await diagram.getAttribute('viewBox');
+    await page.getByTestId('redo').click();
+    await settled(page);
+    expect(await diagram.getAttribute('viewBox')).toBe(away);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
