@@ -234,11 +234,13 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
           block.drawing,
           `${block.caption} — overview; continued at a readable size on the next ${count} pages`,
         );
-        tiling.tiles.forEach((tile, index) => {
+        for (const tile of tiling.tiles) {
           newPage();
-          const caption = tileCaption(block.caption, tile, index, tiling);
-          placeFigure(block.drawing, caption, { window: tile.window, scale: tiling.scale });
-        });
+          placeFigure(block.drawing, tileCaption(block.caption, tile, tiling), {
+            window: tile.window,
+            scale: tiling.scale,
+          });
+        }
         return;
       }
     }
@@ -270,12 +272,12 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
   function tilingOf(drawing: Drawing, caption: string): FigureTiling | null {
     const captionHeight = (text: string) => wrapText(text, contentWidth, body, 'bold').length * body * lineHeight;
     const fit = Math.min(contentWidth / drawing.width, (bottom - y - captionHeight(caption) - 8) / drawing.height);
-    let above = captionHeight(tileCaption(caption, { row: 1, column: 1 }, 0, { rows: 1, columns: 1 }));
+    let above = captionHeight(tileCaption(caption, { row: 1, column: 1 }, { rows: 1, columns: 1 }));
     for (;;) {
       const room = { width: contentWidth, height: bottom - top - above - 8 };
       const tiling = figureTilingOf(drawing, fit, room);
       if (tiling === null) return null;
-      const tallest = Math.max(...tiling.tiles.map((tile, i) => captionHeight(tileCaption(caption, tile, i, tiling))));
+      const tallest = Math.max(...tiling.tiles.map((tile) => captionHeight(tileCaption(caption, tile, tiling))));
       if (tallest <= above) return tiling;
       above = tallest;
     }
@@ -363,16 +365,15 @@ function fitColumns(natural: number[], width: number): number[] {
   return capped.map((w) => (w * width) / sum);
 }
 
-// Accepts a figure's caption, one of its tiles with its index, and the grid's rows and columns; the tile
-// page's caption, placing the tile in the grid ("row 2 of 3, column 1 of 2").
+// Accepts a figure's caption, one of its tiles and the grid's rows and columns; the tile page's caption,
+// numbering the tiles row by row and placing this one in the grid ("row 2 of 3, column 1 of 2").
 function tileCaption(
   caption: string,
   tile: Pick<FigureTile, 'row' | 'column'>,
-  index: number,
   grid: Pick<FigureTiling, 'rows' | 'columns'>,
 ): string {
-  const count = grid.rows * grid.columns;
-  return `${caption} — part ${index + 1} of ${count} (row ${tile.row} of ${grid.rows}, column ${tile.column} of ${grid.columns})`;
+  const part = (tile.row - 1) * grid.columns + tile.column;
+  return `${caption} — part ${part} of ${grid.rows * grid.columns} (row ${tile.row} of ${grid.rows}, column ${tile.column} of ${grid.columns})`;
 }
 
 // Accepts text and where it goes; one text primitive on a page.

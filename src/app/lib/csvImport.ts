@@ -10,18 +10,6 @@ export interface PointsTarget {
   fields: [string[]] | [string[], string[]];
 }
 
-const FUSE_BOTH: PointsTarget = {
-  label: 'minimum melting and total clearing',
-  fields: [['minimumMelting'], ['totalClearing']],
-};
-const BREAKER_BOTH: PointsTarget = {
-  label: 'thermal band, minimum and maximum (× rating)',
-  fields: [
-    ['thermal', 'minimum'],
-    ['thermal', 'maximum'],
-  ],
-};
-
 /**
  * The places a CSV of points fits in a characteristic of `kind`: for a two-curve file both edges at
  * once; for a file whose rows name one curve that edge alone (a file of total-clearing rows is never
@@ -42,12 +30,18 @@ export function pointsTargetsOf(kind: string, points: PointsCsv): PointsTarget[]
 /** Each family's targets: both edges, the fast edge, the slow edge. */
 const EDGES: Record<string, { both: PointsTarget; minimum: PointsTarget; maximum: PointsTarget }> = {
   fuse: {
-    both: FUSE_BOTH,
+    both: { label: 'minimum melting and total clearing', fields: [['minimumMelting'], ['totalClearing']] },
     minimum: { label: 'minimum melting', fields: [['minimumMelting']] },
     maximum: { label: 'total clearing', fields: [['totalClearing']] },
   },
   'thermal-magnetic': {
-    both: BREAKER_BOTH,
+    both: {
+      label: 'thermal band, minimum and maximum (× rating)',
+      fields: [
+        ['thermal', 'minimum'],
+        ['thermal', 'maximum'],
+      ],
+    },
     minimum: { label: 'thermal band minimum (× rating)', fields: [['thermal', 'minimum']] },
     maximum: { label: 'thermal band maximum (× rating)', fields: [['thermal', 'maximum']] },
   },
@@ -109,39 +103,18 @@ export function importCheckOf(
       .filter((problem) => !before.has(problem))
       // The path within the characteristic (".totalClearing: …"), or none (": …").
       .map((problem) => problem.replace(/^\.|^: /, ''));
+  // A one-edge import of a family with two edges: checked on its own first, as both edges.
+  const edges = target.fields.length === 1 ? EDGES[String(characteristic.kind)] : undefined;
   const table = points.points ?? points.minimum ?? points.maximum;
-  const alone =
-    target.fields.length === 1 && table
-      ? made(withPoints(characteristic, { minimum: table, maximum: table }, bothEdgesOf(target)))
-      : [];
+  const alone = edges && table ? made(withPoints(characteristic, { minimum: table, maximum: table }, edges.both)) : [];
   if (alone.length > 0) return { refusal: `These points would not be accepted: ${alone[0]}` };
   const placed = made(withPoints(characteristic, points, target));
   if (placed.length === 0) return {};
-  if (target.fields.length === 2) return { refusal: `These points would not be accepted: ${placed[0]}` };
+  if (!edges) return { refusal: `These points would not be accepted: ${placed[0]}` };
+  const other = target.fields[0].join('.') === edges.minimum.fields[0].join('.') ? edges.maximum : edges.minimum;
   return {
-    warning: `These points do not fit the ${otherEdgeName(target)} curve left in place, so the study will show a problem until it is replaced too (import it next, or both curves in one curve,current,time file): ${placed[0]}`,
+    warning: `These points do not fit the ${other.label} curve left in place, so the study will show a problem until it is replaced too (import it next, or both curves in one curve,current,time file): ${placed[0]}`,
   };
-}
-
-/** A one-edge target as both edges, each given the same points: the points checked on their own. */
-function bothEdgesOf(target: PointsTarget): PointsTarget {
-  const [field] = target.fields;
-  const pair = Object.values(EDGES).find((edges) => [edges.minimum, edges.maximum].some((t) => same(t, field)))!;
-  return { label: target.label, fields: [pair.minimum.fields[0], pair.maximum.fields[0]] };
-}
-
-/** The name of the edge a one-edge target leaves in place: "total clearing" for minimum melting, and so on. */
-function otherEdgeName(target: PointsTarget): string {
-  const [field] = target.fields;
-  for (const edges of Object.values(EDGES)) {
-    if (same(edges.minimum, field)) return edges.maximum.label;
-    if (same(edges.maximum, field)) return edges.minimum.label;
-  }
-  return 'other';
-}
-
-function same(target: PointsTarget, field: string[]): boolean {
-  return target.fields[0].join('.') === field.join('.');
 }
 
 /**

@@ -5,12 +5,11 @@ import { parseStudy } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
 import { abs, add, div, mul, par, scale, type C } from './perUnit.ts';
 import { singlePhaseInput } from './sequenceReference.ts';
-import { motorStudy, motorStudyPerUnit } from './studies.ts';
+import { motorStudy, motorStudyPerUnit, tripUnit } from './studies.ts';
 
 // Every source feeding a fault just below a device through it, in parallel (the hand solution of `motorStudy`).
 const { ib, zs, zt, zm1, zm2, zc } = motorStudyPerUnit;
 const sub = (a: C, b: C): C => [a[0] - b[0], a[1] - b[1]];
-const tripUnit = (sensor: number) => ({ kind: 'trip-unit' as const, sensor, longTime: { pickup: 1, delay: 10 } });
 const one: C = [1, 0];
 
 describe('deviceFaultOf', () => {

@@ -46,13 +46,19 @@ export function study(input: StudyInput): Study {
   return parseStudy(input);
 }
 
+/** A plain long-time trip unit of `sensor` amperes (invented). */
+export const tripUnit = (sensor: number) => ({
+  kind: 'trip-unit' as const,
+  sensor,
+  longTime: { pickup: 1, delay: 10 },
+});
+
 /**
  * 250 MVA X/R 12 at 12.47 kV, a 1500 kVA 5.75 %Z X/R 6 Δ–Yg unit to a 480 V switchboard with a motor
  * group of 500 A FLA on it, and 100 ft of 2 × 500 kcmil Cu (steel conduit) to an MCC with a 200 A FLA
  * motor group. A primary relay, a switchboard main, a feeder to the MCC and the MCC's motor feeder (invented).
  */
 export function motorStudy(): StudyInput {
-  const tripUnit = (sensor: number) => ({ kind: 'trip-unit' as const, sensor, longTime: { pickup: 1, delay: 10 } });
   return {
     discern: 1,
     name: 'motor contribution through two devices',
