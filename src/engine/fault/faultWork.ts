@@ -1,8 +1,10 @@
 import type { Branch, Network } from '../network/index.ts';
+import type { Motor } from '../study/index.ts';
 import type { WorkStep } from '../work.ts';
 import type { FaultLevel } from './faultLevels.ts';
 import type { FaultTree } from './faultTree.ts';
 import { addImpedance, formatImpedance, magnitudeOf } from './impedance.ts';
+import { motorRatingText } from './motorImpedance.ts';
 import type { SinglePhaseBus } from './singlePhase.ts';
 import { impedanceStep, num } from './workSteps.ts';
 import type { ZeroSequenceNetwork } from './zeroSequence.ts';
@@ -11,6 +13,19 @@ import type { ZeroSequenceNetwork } from './zeroSequence.ts';
 // Every substituted number carries its unit.
 
 const OHMIC = 'ohmic form of the per-unit method (IEEE 141 / IEEE 399)';
+
+/**
+ * How many ids a step names before it counts the rest: every motor of a site contributes to the fault
+ * at its top bus, and naming them all in each bus's steps made a large study's worked calculations
+ * grow with buses × motors.
+ */
+const NAMED_IDS = 8;
+
+/** Ids for a step's text: a short list whole, a long one as its first few and how many more. */
+function idsText(ids: readonly string[]): string {
+  if (ids.length <= NAMED_IDS + 2) return ids.join(', ');
+  return `${ids.slice(0, NAMED_IDS).join(', ')} and ${ids.length - NAMED_IDS} more`;
+}
 
 /** The branches from the source down to a bus, top first. */
 function chainTo(network: Network, busId: string): Branch[] {
@@ -42,9 +57,9 @@ export function stepsTo(network: Network, tree: FaultTree, busId: string, name: 
       const motors = motorsAwayFrom(network, tree, from, id);
       steps.push(
         impedanceStep(
-          `${name}: toward the source from ${from}, with the motor branches there in parallel (${motors.join(', ')})`,
+          `${name}: toward the source from ${from}, with the motor branches there in parallel (${idsText(motors)})`,
           'Z = 1 / (1/Z_source + Σ 1/Z_motor branch)',
-          `Z = 1 / (1/(${formatImpedance(up)} Ω) + Σ 1/Z for ${motors.join(', ')})`,
+          `Z = 1 / (1/(${formatImpedance(up)} Ω) + Σ 1/Z for ${idsText(motors)})`,
           behind,
           'Ω',
           'motors as parallel sources (IEEE 399 short-circuit chapter)',
@@ -115,6 +130,30 @@ function motorsBelow(network: Network, tree: FaultTree, busId: string): string[]
 }
 
 /**
+ * Each motor's first-cycle contribution, as the first of its own steps; motors whose contributions are
+ * worked out alike (the same rating, multiple and voltage) in one step, "each", with their ids and count.
+ */
+function contributionSteps(name: string, network: Network, tree: FaultTree, motorIds: readonly string[]): WorkStep[] {
+  const alike = new Map<string, { ids: string[]; motor: Motor; volts: number; step: WorkStep }>();
+  for (const id of motorIds) {
+    const step = tree.steps.get(id)!.steps[0];
+    const motor = network.elements.get(id)!.item as Motor;
+    const volts = network.buses.get(motor.bus)!.voltage;
+    const key = `${volts}|${step.substituted}|${step.value}`;
+    const group = alike.get(key);
+    if (group) group.ids.push(id);
+    else alike.set(key, { ids: [id], motor, volts, step });
+  }
+  return [...alike.values()].map(({ ids, motor, volts, step }) => ({
+    ...step,
+    label:
+      ids.length === 1
+        ? `${name}: ${step.label}`
+        : `${name}: ${idsText(ids)} (${ids.length} motors of ${motorRatingText(motor)}) first-cycle contribution at ${num(volts)} V, each`,
+  }));
+}
+
+/**
  * The zero-sequence steps from the grounding point down to the bus.
  * @example zeroSequenceStepsTo(network, zeroMax, 'MCC', 'maximum')
  */
@@ -167,12 +206,12 @@ export function faultSteps(
   const below = tree.below.get(busId);
   if (below) {
     const motors = motorsBelow(network, tree, busId);
-    for (const id of motors) steps.push(...tag(name, tree.steps.get(id)!.steps.slice(0, 1)));
+    steps.push(...contributionSteps(name, network, tree, motors));
     steps.push(
       impedanceStep(
-        `${name}: motor branches at and below the bus (${motors.join(', ')}), reduced`,
+        `${name}: motor branches at and below the bus (${idsText(motors)}), reduced`,
         'Z_M,eq = 1 / Σ 1/Z_M',
-        `Z_M,eq = 1 / Σ 1/Z over ${motors.join(', ')} (each with its cable)`,
+        `Z_M,eq = 1 / Σ 1/Z over ${idsText(motors)} (each with its cable)`,
         below,
         'Ω',
         'motors as parallel sources (IEEE 399 short-circuit chapter)',

@@ -64,6 +64,30 @@ describe('faultLevelsOf', () => {
     assertInDelta(lv.min.threePhase, 14916.9, 1e-5);
   });
 
+  it('the worked calculation gives motors worked out alike one contribution step, "each", and counts a long list of ids', () => {
+    // Twelve 20 hp motors and one 50 hp at the 750 kVA secondary: as a hand calculation writes it,
+    // 4 × I_FL once for the twelve alike (NEC Table 430.250 at 460 V for a 480 V system: 27 A and 65 A).
+    const input = case72Input();
+    input.motors = [
+      ...Array.from({ length: 12 }, (_, i) => ({ id: `M${i + 1}`, bus: 'LV', hp: 20 })),
+      { id: 'BIG', bus: 'LV', hp: 50 },
+    ];
+    const lv = levelsOf(input).buses.get('LV')!;
+    const contributions = lv.work.filter((s) => /first-cycle contribution/.test(s.label));
+    expect(contributions.map((s) => s.label)).toEqual([
+      'maximum: M1, M2, M3, M4, M5, M6, M7, M8 and 4 more (12 motors of 20 hp) first-cycle contribution at 480 V, each',
+      'maximum: BIG (50 hp) first-cycle contribution at 480 V',
+    ]);
+    expect(contributions.map((s) => s.value)).toEqual([4 * 27, 4 * 65]);
+    const reduced = lv.work.find((s) => /motor branches at and below the bus/.test(s.label))!;
+    expect(reduced.label).toBe(
+      'maximum: motor branches at and below the bus (M1, M2, M3, M4, M5, M6, M7, M8 and 5 more), reduced',
+    );
+    // The grouping changes the text alone: all 13 motors still feed the fault, 12 × 108 A + 260 A at the
+    // terminals (±3 % for phase angle, as for the single motor above).
+    expect(Math.abs(lv.max.motorAmps - 1556) / 1556).toBeLessThan(0.03);
+  });
+
   it('the demo study: 28 421 A at the 1500 kVA secondary before motors, IEEE 141 / IEEE 399 per-unit method, hand calculation; motors add less than 4 × their FLA', () => {
     const study = parseStudy(demoText);
     const demo = faultLevelsOf(networkOf(study));
