@@ -4,6 +4,7 @@ import { isValidTable } from './pointTable.ts';
 import { pointTableSchema, upperBelowLowerOnce } from './pointTableSchema.ts';
 
 const ampsTable = pointTableSchema({ current: 'a current in amperes', unit: ' A' });
+const CURVES = new Set<PropertyKey | undefined>(['minimumMelting', 'totalClearing']);
 
 /**
  * Schema of a fuse characteristic (minimum-melting and total-clearing curves, as ANSI C37.41 and
@@ -33,28 +34,35 @@ export const fuseSchema = z
     }),
   })
   .strict()
-  .superRefine((fuse, ctx) => {
-    const ratings = fuse.availableRatings ?? [];
-    for (let i = 1; i < ratings.length; i++) {
-      if (!(ratings[i] > ratings[i - 1]))
-        ctx.addIssue({
-          code: 'custom',
-          path: ['availableRatings', i],
-          message: `expected a rating above the previous ${ratings[i - 1]} A, got "${ratings[i]}"`,
-        });
-    }
-    if (!isValidTable(fuse.minimumMelting) || !isValidTable(fuse.totalClearing)) return;
-    const problem = upperBelowLowerOnce(fuse.minimumMelting, fuse.totalClearing);
-    if (!problem) return;
-    const at = `${Number(problem.amps.toPrecision(6))} A`;
-    ctx.addIssue({
-      code: 'custom',
-      path: ['totalClearing'],
-      message: Number.isFinite(problem.lowerSeconds)
-        ? `expected total clearing no earlier than minimum melting, got ${Number(problem.upperSeconds.toPrecision(6))} s at ${at} (minimum melting ${Number(problem.lowerSeconds.toPrecision(6))} s)`
-        : `expected total clearing to start at or above the first minimum-melting current, got ${at}`,
-    });
-  })
+  .superRefine(
+    (fuse, ctx) => {
+      // Read as given where another field has a problem: the ratings in order only where they are numbers.
+      const given: unknown = fuse.availableRatings;
+      const ratings = Array.isArray(given) && given.every(Number.isFinite) ? (given as number[]) : [];
+      for (let i = 1; i < ratings.length; i++) {
+        if (!(ratings[i] > ratings[i - 1]))
+          ctx.addIssue({
+            code: 'custom',
+            path: ['availableRatings', i],
+            message: `expected a rating above the previous ${ratings[i - 1]} A, got "${ratings[i]}"`,
+          });
+      }
+      if (!isValidTable(fuse.minimumMelting) || !isValidTable(fuse.totalClearing)) return;
+      const problem = upperBelowLowerOnce(fuse.minimumMelting, fuse.totalClearing);
+      if (!problem) return;
+      const at = `${Number(problem.amps.toPrecision(6))} A`;
+      ctx.addIssue({
+        code: 'custom',
+        path: ['totalClearing'],
+        message: Number.isFinite(problem.lowerSeconds)
+          ? `expected total clearing no earlier than minimum melting, got ${Number(problem.upperSeconds.toPrecision(6))} s at ${at} (minimum melting ${Number(problem.lowerSeconds.toPrecision(6))} s)`
+          : `expected total clearing to start at or above the first minimum-melting current, got ${at}`,
+      });
+    },
+    // Run while the two curves read, whatever else is wrong: the curves' fit is worth saying beside
+    // another problem (an import into a fuse with one would otherwise hear nothing of it).
+    { when: (payload) => !payload.issues.some((issue) => CURVES.has(issue.path?.[0])) },
+  )
   .meta({ description: 'fuse: minimum-melting and total-clearing point tables' });
 
 /** A parsed fuse: tables in amperes and seconds. */

@@ -84,6 +84,15 @@ describe('csvImport', () => {
     expect(importCheckOf(first, points, pointsTargetsOf('fuse', points)[0])).toEqual({});
   });
 
+  it('importCheckOf() warns of the curve left in place even where the fuse has another problem already', () => {
+    // A current-limiting threshold of 0 A is wrong on its own; the import has nothing to do with it.
+    const flawed = { ...fuse, currentLimitingFrom: 0 };
+    const points = parsePointsCsv('min,150,300\nmin,3000,0.01');
+    expect(importCheckOf(flawed, points, pointsTargetsOf('fuse', points)[0])).toEqual({
+      warning: expect.stringMatching(/^These points do not fit the total clearing curve left in place/),
+    });
+  });
+
   it('importCheckOf() refuses a two-curve file whose total clearing is faster than its minimum melting', () => {
     expect(check('min,150,300\nmin,3000,0.01\nmax,100,200\nmax,1000,0.005').refusal).toMatch(
       /^These points would not be accepted: totalClearing: expected total clearing to start at or above/,
