@@ -93,4 +93,36 @@ describe('a 500-device study in Chromium', () => {
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
+
+  it('the one-line diagram opens on the top of the site and draws what is near the view; the whole is there on asking', async () => {
+    const { page, context } = await bench.open();
+    await openLarge(page);
+    await page.getByTestId('tab-one-line').click();
+    const diagram = page.getByTestId('one-line-svg');
+    await diagram.waitFor();
+    const viewBox = async () => (await diagram.getAttribute('viewBox'))!.split(' ').map(Number);
+    // The 500-device diagram is about twenty times as tall as wide: fitted whole, every label would be
+    // under a pixel. It opens on its top, the source and the service transformers in view.
+    const [, y, width, height] = await viewBox();
+    expect(y).toBe(0);
+    expect(height).toBeLessThan(width);
+    await expect(diagram.locator(`[data-id="${large.source.id}"]`).count()).resolves.toBeGreaterThan(0);
+    const drawn = await diagram.locator('path, rect, text').count();
+    expect(drawn).toBeLessThan(2000);
+    // A bus far down chosen in the tree is brought into view and drawn there.
+    await page.locator('[role="tree"] [role="treeitem"][tabindex="0"]').focus();
+    await page.keyboard.press('End');
+    const last = (await page.evaluate(() => document.activeElement?.getAttribute('data-key')))!;
+    await page.keyboard.press('Enter');
+    const lastId = last.slice(last.indexOf(':') + 1);
+    await expect.poll(() => diagram.getByTestId('one-line-selected').getAttribute('data-id')).toBe(lastId);
+    expect((await viewBox())[1]).toBeGreaterThan(height);
+    await expect(diagram.locator(`text[data-id="${lastId}"]`).count()).resolves.toBeGreaterThan(0);
+    // "Whole system": all of it in the view box, drawn as its lines (its text would be under a pixel).
+    await page.getByTestId('one-line-fit').click();
+    await expect.poll(async () => (await viewBox())[3]).toBeGreaterThan(20 * width);
+    await expect(diagram.locator('text[data-role="one-line-label"]').count()).resolves.toBe(0);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
 });

@@ -90,3 +90,39 @@ export function viewBoxAround(target: ViewBox, box: ViewBox): ViewBox {
     y: target.y + target.height / 2 - box.height / 2,
   };
 }
+
+/**
+ * How much taller, for its width, than the panel a diagram may be and still open whole: past it, fitted
+ * whole its labels would be drawn at a third of their size across the panel's width or less (a
+ * 2,000-device site's diagram is 80 times as tall as it is wide, and fitted whole showed a blank panel).
+ */
+const TALLEST_OPENED_WHOLE = 3;
+
+/**
+ * The view a diagram opens on in a panel of `panel` px: the whole diagram, or, where it is far taller
+ * than the panel, its top (the source and what it feeds first) across its whole width.
+ * @example openingBox({ x: 0, y: 0, width: 1400, height: 100_000 }, { width: 300, height: 200 }) // { x: 0, y: 0, width: 1400, height: 933.3… }
+ */
+export function openingBox(full: ViewBox, panel: { width: number; height: number }): ViewBox {
+  const aspect = panel.height / panel.width;
+  if (!(aspect > 0 && Number.isFinite(aspect)) || full.height <= TALLEST_OPENED_WHOLE * aspect * full.width)
+    return full;
+  return { x: full.x, y: full.y, width: full.width, height: full.width * aspect };
+}
+
+/**
+ * The places in a list of the items whose ink (`edges`: left, top, right and bottom of each, in the
+ * diagram's px) reaches the view box grown by `margin` of its size on every side: the panel draws these
+ * alone, so a large diagram costs what is near the view, and a small pan or zoom draws nothing new.
+ * @example itemsInView([[0, 0, 10, 10], [0, 500, 10, 510]], { x: 0, y: 0, width: 100, height: 100 }) // [0]
+ */
+export function itemsInView(edges: readonly (readonly number[])[], box: ViewBox, margin = 0.5): number[] {
+  const [left, top] = [box.x - box.width * margin, box.y - box.height * margin];
+  const [right, bottom] = [box.x + box.width * (1 + margin), box.y + box.height * (1 + margin)];
+  const inView: number[] = [];
+  for (let i = 0; i < edges.length; i++) {
+    const [l, t, r, b] = edges[i];
+    if (l <= right && r >= left && t <= bottom && b >= top) inView.push(i);
+  }
+  return inView;
+}

@@ -1,4 +1,5 @@
 import type { Box, HatchPattern, PathItem, Primitive, RectItem, TextItem } from '../geometry.ts';
+import { inkBoundsOf, type Edges } from '../inkBounds.ts';
 import type { Drawing } from '../svg.ts';
 import { writeHatchTile } from './hatchTile.ts';
 import { type Matrix, matrixOperands } from './matrix.ts';
@@ -155,7 +156,7 @@ export function pageContentOf(contents: PageContent[], context: PageContext): Pa
   // Accepts a primitive and a window of its drawing; whether any of its ink may fall inside.
   function reaches(item: Primitive, window: Box): boolean {
     const font = item.type === 'text' && item.weight === 'bold' ? fonts.bold : fonts.normal;
-    const [left, top, right, bottom] = inkBoundsOf(item, font);
+    const [left, top, right, bottom] = inkBoundsIn(item, font);
     return (
       left <= window.x + window.width && right >= window.x && top <= window.y + window.height && bottom >= window.y
     );
@@ -185,41 +186,17 @@ export function pageContentOf(contents: PageContent[], context: PageContext): Pa
  * Each primitive's ink bounds, worked out once for all the tiles of a drawing (a large one-line has tens of
  * thousands of items and hundreds of tiles), kept per face since text is measured with it.
  */
-const inkBounds = new WeakMap<PdfFont, WeakMap<Primitive, readonly [number, number, number, number]>>();
+const inkBounds = new WeakMap<PdfFont, WeakMap<Primitive, Edges>>();
 
 /**
- * The box any ink of a primitive may fall in, in its drawing's px: generous, strokes widened for miter
- * joins (limit 4), text taken as a circle of its advance plus 1.5 em about its anchor, whatever its anchor
- * and turn. Measuring notes the text's glyphs for the subset even where the text is left out, which costs
- * a few glyphs at most.
+ * `inkBoundsOf(item)` with text measured in `font`, remembered. Measuring notes the text's glyphs for
+ * the subset even where the text is left out, which costs a few glyphs at most.
  */
-function inkBoundsOf(item: Primitive, font: PdfFont): readonly [number, number, number, number] {
+function inkBoundsIn(item: Primitive, font: PdfFont): Edges {
   let known = inkBounds.get(font);
   if (!known) inkBounds.set(font, (known = new WeakMap()));
-  const found = known.get(item);
-  if (found) return found;
-  let [left, top, right, bottom] = [Infinity, Infinity, -Infinity, -Infinity];
-  const take = (x: number, y: number) => {
-    [left, top, right, bottom] = [Math.min(left, x), Math.min(top, y), Math.max(right, x), Math.max(bottom, y)];
-  };
-  let pad: number;
-  if (item.type === 'text') {
-    pad = (font.encode(item.text).advance + 1.5) * item.size;
-    take(item.x, item.y);
-  } else if (item.type === 'rect') {
-    pad = 2 * (item.strokeWidth ?? 1);
-    take(item.x, item.y);
-    take(item.x + item.width, item.y + item.height);
-  } else {
-    pad = 2 * (item.strokeWidth ?? 1);
-    for (const step of pathStepsOf(item.d)) {
-      if (step.op === 'C') take(step.x1, step.y1);
-      if (step.op === 'C') take(step.x2, step.y2);
-      if (step.op !== 'Z') take(step.x, step.y);
-    }
-  }
-  const bounds = [left - pad, top - pad, right + pad, bottom + pad] as const;
-  known.set(item, bounds);
+  let bounds = known.get(item);
+  if (!bounds) known.set(item, (bounds = inkBoundsOf(item, (text) => font.encode(text.text).advance)));
   return bounds;
 }
 

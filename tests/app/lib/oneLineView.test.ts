@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { oneLineRowOf, placeAt, selectionOfPlace, viewBoxAround, zoomedBox } from '../../../src/app/lib/oneLineView.ts';
+import {
+  itemsInView,
+  oneLineRowOf,
+  openingBox,
+  placeAt,
+  selectionOfPlace,
+  viewBoxAround,
+  zoomedBox,
+} from '../../../src/app/lib/oneLineView.ts';
 import type { OneLine, OneLinePlace } from '../../../src/plot/oneLine/index.ts';
 
 const places: OneLinePlace[] = [
@@ -93,6 +101,39 @@ describe('oneLineView with several trees', () => {
     const row = oneLineRowOf([diagram(200, 300, 'G1'), wide], 40);
     const place = placeAt(row.places, { x: 240 + 100, y: 402 });
     expect(place && selectionOfPlace(place)).toEqual({ kind: 'bus', id: 'SWBD' });
+  });
+
+  it('openingBox() opens a diagram whole, or one far taller than the panel on its top across its width', () => {
+    const panel = { width: 300, height: 200 };
+    // A few buses: about as tall as wide, shown whole.
+    expect(openingBox({ x: 0, y: 0, width: 1200, height: 1500 }, panel)).toEqual({
+      x: 0,
+      y: 0,
+      width: 1200,
+      height: 1500,
+    });
+    // Up to three times the panel's proportion, still whole; past it, the top.
+    expect(openingBox({ x: 0, y: 0, width: 1200, height: 2400 }, panel).height).toBe(2400);
+    expect(openingBox({ x: 0, y: 0, width: 1350, height: 109_000 }, panel)).toEqual({
+      x: 0,
+      y: 0,
+      width: 1350,
+      height: 900,
+    });
+    // A panel not laid out yet has no proportion: the whole diagram.
+    expect(openingBox({ x: 0, y: 0, width: 1350, height: 109_000 }, { width: 0, height: 0 }).height).toBe(109_000);
+  });
+
+  it('itemsInView() keeps the items whose ink reaches the view or the margin around it', () => {
+    const edges = [
+      [0, 0, 10, 10], // in view
+      [0, 140, 10, 149], // below the view, within half its height
+      [0, 160, 10, 170], // past the margin
+      [-500, 50, 500, 52], // a bus bar across the view, its ends outside
+      [0, -2000, 4, 2000], // a long run through the view
+    ];
+    expect(itemsInView(edges, { x: 0, y: 0, width: 100, height: 100 })).toEqual([0, 1, 3, 4]);
+    expect(itemsInView(edges, { x: 0, y: 0, width: 100, height: 100 }, 0)).toEqual([0, 3, 4]);
   });
 
   it("selectionOfPlace() reads a source other than the study's own as a generator", () => {
