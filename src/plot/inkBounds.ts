@@ -10,7 +10,7 @@ export type Edges = readonly [number, number, number, number];
  * anchor and turn. `advanceOf` gives a text's advance in em, in the face it is drawn in. What is drawn
  * in part of a large drawing (a tile of a printed one-line, the panel's view of it) is what reaches it.
  *
- * @example inkBoundsOf({ type: 'rect', x: 0, y: 0, width: 10, height: 5, fill: '#fff' }, () => 0) // [-2, -2, 12, 7]
+ * @example inkBoundsOf({ type: 'rect', role: 'box', x: 0, y: 0, width: 10, height: 5, fill: '#fff' }, () => 0) // [-2, -2, 12, 7]
  */
 export function inkBoundsOf(item: Primitive, advanceOf: (text: TextItem) => number): Edges {
   let [left, top, right, bottom] = [Infinity, Infinity, -Infinity, -Infinity];
