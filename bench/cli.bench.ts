@@ -47,6 +47,28 @@ const VERBS: Array<{ verb: string; args: string[]; target: number; ok: number[] 
     target: 1.5,
     ok: [0],
   },
+  { verb: 'window', args: ['window', 'demo/harrowmere-overlap.json', '--device', 'MAIN'], target: 1, ok: [0] },
+  {
+    verb: 'propose',
+    args: ['propose', 'demo/harrowmere-overlap.json', '--out', join(out, 'proposed.json')],
+    target: 1,
+    ok: [0],
+  },
+  {
+    verb: 'paths',
+    args: ['paths', 'demo/harrowmere-full.json', '--out', join(out, 'with-paths.json')],
+    target: 1,
+    ok: [0],
+  },
+  {
+    verb: 'report (PDF)',
+    args: [
+      ...['report', 'demo/harrowmere-selective.json', '--out', join(out, 'study.pdf')],
+      ...['--paper', 'letter', '--date', '2026-12-02'],
+    ],
+    target: 1.5,
+    ok: [0],
+  },
 ];
 
 let results: Measured[] | undefined;
