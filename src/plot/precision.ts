@@ -13,9 +13,20 @@ const polyline = line<readonly [number, number]>().digits(DIGITS);
  * @example fixed(12.34567) // "12.346"
  */
 export function fixed(value: number): string {
+  // A large diagram writes a hundred thousand coordinates: rounded by arithmetic, which gives the very
+  // number `toFixed` would (an integer count of thousandths over 1000 is the double nearest that
+  // decimal) except within a rounding error of a half, left to `toFixed` with anything not finite.
+  const scaled = Math.abs(value) * SCALE;
+  const whole = Math.floor(scaled);
+  if (scaled < 1e15 && Math.abs(scaled - whole - 0.5) > 1e-6) {
+    const rounded = (scaled - whole < 0.5 ? whole : whole + 1) / SCALE;
+    return String(rounded === 0 ? 0 : value < 0 ? -rounded : rounded);
+  }
   const rounded = Number(value.toFixed(DIGITS));
   return String(rounded === 0 ? 0 : rounded);
 }
+
+const SCALE = 10 ** DIGITS;
 
 /**
  * An SVG path string for a polyline given as interleaved pixel coordinates `[x0, y0, x1, y1, …]`,

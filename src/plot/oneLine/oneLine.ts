@@ -136,6 +136,9 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
   const items: Primitive[] = [];
   const marks: Primitive[] = [];
   const places: OneLinePlace[] = [];
+  // Each bus's place by its id, for its bar drawn once the runs under it are placed (found in the list,
+  // a large site's thousands of buses each searched thousands of places).
+  const busPlaces = new Map<string, OneLinePlace>();
   const left = margin;
   const top = margin + header;
   // A run starts just under the bar it hangs from; its own bar closes its level.
@@ -246,7 +249,14 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
     mark(drop.elementId, x - gutter + 9, elementY);
     if (drop.childBus !== undefined && barY !== undefined) {
       const busLabel = text(labels.bus, x + 8, barY - busRow / 2 - 2, drop.childBus, 'one-line-bus-label');
-      places.push({ id: drop.childBus, type: 'bus', symbol: { x, y: barY - 3, width: 1, height: 6 }, label: busLabel });
+      const place: OneLinePlace = {
+        id: drop.childBus,
+        type: 'bus',
+        symbol: { x, y: barY - 3, width: 1, height: 6 },
+        label: busLabel,
+      };
+      places.push(place);
+      busPlaces.set(drop.childBus, place);
       mark(drop.childBus, x - gutter + 9, barY);
     }
   }
@@ -259,7 +269,7 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
   };
   for (const drop of layout.drops) {
     if (drop.childBus === undefined) continue;
-    const place = places.find((p) => p.id === drop.childBus)!;
+    const place = busPlaces.get(drop.childBus)!;
     place.symbol = barOf(drop.childBus, 0, lineX(drop), barYOf(drop), place.label);
   }
   // A bus continued below: the same bar again over each later row, labelled as continued, linked down the bus's line.
