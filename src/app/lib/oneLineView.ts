@@ -126,3 +126,19 @@ export function itemsInView(edges: readonly (readonly number[])[], box: ViewBox,
   }
   return inView;
 }
+
+/**
+ * What a panel of `panel` px shows of a view box, the drawing fitted whole and centred in it (SVG's
+ * `xMidYMid meet`): the box widened, about its centre, to the panel's proportions.
+ * @example visibleBox({ x: 0, y: 0, width: 100, height: 100 }, { width: 300, height: 150 }) // { x: -50, y: 0, width: 200, height: 100 }
+ */
+export function visibleBox(box: ViewBox, panel: { width: number; height: number }): ViewBox {
+  const aspect = panel.height / panel.width;
+  if (!(aspect > 0 && Number.isFinite(aspect))) return box;
+  if (box.height > box.width * aspect) {
+    const width = box.height / aspect;
+    return { ...box, x: box.x - (width - box.width) / 2, width };
+  }
+  const height = box.width * aspect;
+  return { ...box, y: box.y - (height - box.height) / 2, height };
+}

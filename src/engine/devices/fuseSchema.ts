@@ -60,8 +60,15 @@ export const fuseSchema = z
       });
     },
     // Run while the two curves read, whatever else is wrong: the curves' fit is worth saying beside
-    // another problem (an import into a fuse with one would otherwise hear nothing of it).
-    { when: (payload) => !payload.issues.some((issue) => CURVES.has(issue.path?.[0])) },
+    // another problem (an import into a fuse with one would otherwise hear nothing of it). Not on
+    // what is no fuse at all (null, text, a list), which has nothing to check.
+    {
+      when: ({ value, issues }) =>
+        typeof value === 'object' &&
+        value !== null &&
+        !Array.isArray(value) &&
+        !issues.some((issue) => CURVES.has(issue.path?.[0])),
+    },
   )
   .meta({ description: 'fuse: minimum-melting and total-clearing point tables' });
 

@@ -6,6 +6,7 @@ import {
   placeAt,
   selectionOfPlace,
   viewBoxAround,
+  visibleBox,
   zoomedBox,
 } from '../../../src/app/lib/oneLineView.ts';
 import type { OneLine, OneLinePlace } from '../../../src/plot/oneLine/index.ts';
@@ -134,6 +135,30 @@ describe('oneLineView with several trees', () => {
     ];
     expect(itemsInView(edges, { x: 0, y: 0, width: 100, height: 100 })).toEqual([0, 1, 3, 4]);
     expect(itemsInView(edges, { x: 0, y: 0, width: 100, height: 100 }, 0)).toEqual([0, 3, 4]);
+  });
+
+  it('visibleBox() widens a view box about its centre to what a panel of other proportions shows', () => {
+    // A square box in a panel twice as wide as tall: 50 px more of the drawing on either side.
+    expect(visibleBox({ x: 0, y: 0, width: 100, height: 100 }, { width: 300, height: 150 })).toEqual({
+      x: -50,
+      y: 0,
+      width: 200,
+      height: 100,
+    });
+    // A wide box in a square panel: taller, about the same centre.
+    expect(visibleBox({ x: 10, y: 20, width: 200, height: 100 }, { width: 100, height: 100 })).toEqual({
+      x: 10,
+      y: -30,
+      width: 200,
+      height: 200,
+    });
+    // A panel not laid out yet: the box as it is.
+    expect(visibleBox({ x: 1, y: 2, width: 3, height: 4 }, { width: 0, height: 0 })).toEqual({
+      x: 1,
+      y: 2,
+      width: 3,
+      height: 4,
+    });
   });
 
   it("selectionOfPlace() reads a source other than the study's own as a generator", () => {

@@ -177,6 +177,25 @@ describe('fuse', () => {
     );
   });
 
+  it('fuseSchema says what is wrong with what is no fuse at all, and checks the curves beside another problem', () => {
+    for (const input of [null, 'fuse', [], 3]) {
+      const parsed = fuseSchema.safeParse(input);
+      expect(parsed.success).toBe(false);
+      expect(parsed.error!.issues[0].path).toEqual([]);
+    }
+    // A wrong label and crossing curves: both said, neither hiding the other.
+    const parsed = fuseSchema.safeParse({
+      ...fuse,
+      label: 5,
+      totalClearing: [
+        [200, 120],
+        [400, 9],
+        [4000, 0.02],
+      ],
+    });
+    expect(parsed.error!.issues.map((issue) => issue.path.join('.'))).toEqual(['label', 'totalClearing']);
+  });
+
   it('fuseBand keeps the band contract over random valid tables', () => {
     const table = fc
       .array(fc.tuple(fc.double({ min: 0.01, max: 1, noNaN: true }), fc.double({ min: 0.01, max: 1, noNaN: true })), {
