@@ -25,7 +25,21 @@ export function createEmbeddedFont(bytes: Uint8Array, options: EmbeddedFontOptio
   const font = readTrueType(bytes);
   const { unitsPerEm } = font;
   // Glyph space is 1000 units per em; widths are kept to 0.01 unit so /W and the measured text agree.
-  const widthOf = (glyph: number) => Number(((font.advanceOf(glyph) * 1000) / unitsPerEm).toFixed(2));
+  // Each glyph's width and code are worked out once: a large report writes millions of glyphs of a few
+  // hundred kinds.
+  const widths = new Map<number, number>();
+  const codes = new Map<number, string>();
+  const widthOf = (glyph: number) => {
+    let width = widths.get(glyph);
+    if (width === undefined)
+      widths.set(glyph, (width = Number(((font.advanceOf(glyph) * 1000) / unitsPerEm).toFixed(2))));
+    return width;
+  };
+  const codeOf = (glyph: number) => {
+    let code = codes.get(glyph);
+    if (code === undefined) codes.set(glyph, (code = hex4(glyph)));
+    return code;
+  };
   const scaled = (units: number) => Math.round((units * 1000) / unitsPerEm);
   const used = new Map<number, string>();
   let id: number | undefined;
@@ -37,7 +51,7 @@ export function createEmbeddedFont(bytes: Uint8Array, options: EmbeddedFontOptio
       for (const char of text) {
         const glyph = font.glyphIdOf(char.codePointAt(0)!);
         if (glyph !== 0 && !used.has(glyph)) used.set(glyph, char);
-        operand += hex4(glyph);
+        operand += codeOf(glyph);
         advance += widthOf(glyph) / 1000;
       }
       return { operand: `${operand}>`, advance };
