@@ -36,6 +36,8 @@ export class StudyState {
   fileName: string | undefined = $state();
   /** The document as last opened or saved; `dirty` compares against it. */
   savedDocument: StudyInput = $state.raw() as StudyInput;
+  /** How many studies have been shown since the workbench started: a view of the last one starts afresh when it moves. */
+  opened = $state(0);
   /** The id of the view on the sheet. */
   viewId: string | undefined = $state();
   /** The id of the operating scenario shown (the first when unset or no longer in the study). */
@@ -198,6 +200,7 @@ export class StudyState {
     this.history.reset(document);
     this.savedDocument = options.unsaved ? ({ ...document } as StudyInput) : document;
     this.fileName = fileName;
+    this.opened++;
     this.viewId = options.viewId;
     this.scenarioId = undefined;
     this.selection = undefined;

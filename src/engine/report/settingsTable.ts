@@ -1,4 +1,5 @@
 import { CAUTION } from '../caution.ts';
+import { expectedGot, InputError } from '../errors.ts';
 import { significant } from '../quantity/format.ts';
 import type { Study } from '../study/index.ts';
 import { hasScenarios, scenarioLabel, scenarioPartsOf, scenariosOf } from '../scenario/index.ts';
@@ -65,6 +66,9 @@ export function settingsTableOf(study: Study, options: SettingsTableOptions = {}
     if (!trial) trials.set(tree, (trial = trialOf(tree)));
     return windowIn(trial, id, { maps: false, remedies: false });
   };
+  const known = new Set(study.devices.map((d) => d.id));
+  const unknown = deviceIds.find((id) => !known.has(id));
+  if (unknown !== undefined) throw new InputError('device', expectedGot(`one of ${[...known].join(', ')}`, unknown));
   if (!hasScenarios(study)) return deviceIds.flatMap((id) => rowsOf(windowOf(study, id)));
   const scenarios = scenariosOf(study).filter((s) => chosen === undefined || chosen.includes(s.id));
   // Each scenario's trees, split once: the one holding a device is where its window is worked out.

@@ -108,6 +108,18 @@ describe('StudyState', () => {
     expect(state.fileName).toBe('saved.json');
   });
 
+  it('counts each study shown (opened, started or recovered, under any name), not a save', () => {
+    const state = new StudyState(demo, 'study.json');
+    const first = state.opened;
+    state.load(demo, 'study.json');
+    expect(state.opened).toBe(first + 1);
+    state.newStudy();
+    state.newStudy();
+    expect(state.opened).toBe(first + 3);
+    state.markSaved('plant.json');
+    expect(state.opened).toBe(first + 3);
+  });
+
   it('newStudy() starts from one bus and no devices', () => {
     const state = new StudyState(demo);
     state.newStudy();

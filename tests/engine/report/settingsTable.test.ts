@@ -21,6 +21,15 @@ describe('settingsTableOf', () => {
     });
   });
 
+  it('reads every window as a window of its own would, and names a device the study does not have', () => {
+    // One trial serves every device's window: the table is the same as each device's alone, on a fresh trial.
+    const alone = study.devices.flatMap((d) => settingsTableOf(study, { deviceIds: [d.id] }));
+    expect(settingsTableOf(study)).toEqual(alone);
+    expect(() => settingsTableOf(study, { deviceIds: ['NOPE'] })).toThrow(
+      /^device: expected one of .*MAIN.*, got "NOPE"$/,
+    );
+  });
+
   it('renders Markdown and CSV with the caution', () => {
     const rows = settingsTableOf(study, { deviceIds: ['R-T1'] });
     expect(rows.map((r) => r.setting)).toEqual([
