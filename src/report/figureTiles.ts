@@ -15,6 +15,11 @@ export const figureTileDefaults = {
    * one-line of the demo gains 2.4 times.
    */
   minGain: 1.25,
+  /**
+   * Tiles from which an index of what a reader looks for on the figure (a one-line's buses) follows
+   * them, giving each one's part and page: a few tiles are read through, many are looked things up in.
+   */
+  indexedFrom: 8,
 } as const;
 
 /** One tile: the window of the drawing it shows (in the drawing's px) and its place in the grid, counted from 1. */

@@ -4,7 +4,7 @@ import { SHEET_COLOURS } from '../plot/palette.ts';
 import { pagePoints, type PagePlacement, type Paper } from '../plot/pdf.ts';
 import type { Drawing } from '../plot/svg.ts';
 import { textWidth, wrapText } from '../plot/textWidth.ts';
-import { figureTilingOf, type FigureTile, type FigureTiling } from './figureTiles.ts';
+import { figureTileDefaults, figureTilingOf, type FigureTile, type FigureTiling } from './figureTiles.ts';
 import type { ReportBlock, StudyReport } from './studyReport.ts';
 
 /** Paper and orientation of a printed report. */
@@ -234,12 +234,27 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
           block.drawing,
           `${block.caption} — overview; continued at a readable size on the next ${count} pages`,
         );
+        const tilePages: number[] = [];
         for (const tile of tiling.tiles) {
           newPage();
+          tilePages.push(pages.length);
           placeFigure(block.drawing, tileCaption(block.caption, tile, tiling), {
             window: tile.window,
             scale: tiling.scale,
           });
+        }
+        if (block.landmarks && block.landmarks.places.length > 0 && count >= figureTileDefaults.indexedFrom) {
+          const { of, places } = block.landmarks;
+          newPage();
+          paragraph(
+            `Where each ${of} is on the parts above (${block.caption.toLowerCase()})`,
+            margin,
+            contentWidth,
+            body,
+            'bold',
+          );
+          y += 4;
+          table([of, 'part', 'page'], landmarkRows(places, tiling, tilePages), [false, true, true]);
         }
         return;
       }
@@ -388,4 +403,24 @@ function textItem(
   role = 'page-text',
 ): TextItem {
   return { type: 'text', x, y, text, size, anchor, fill, weight, role };
+}
+
+/**
+ * The index of a tiled figure: each landmark by name (in natural order, "P2" before "P10"), with the
+ * first part, row by row, whose window holds it and that part's page. A landmark no part holds (none
+ * should: the tiles cover the drawing) is left out.
+ */
+function landmarkRows(
+  landmarks: { name: string; at: { x: number; y: number } }[],
+  tiling: FigureTiling,
+  tilePages: number[],
+): string[][] {
+  const holds = (window: Box, at: { x: number; y: number }) =>
+    at.x >= window.x && at.x <= window.x + window.width && at.y >= window.y && at.y <= window.y + window.height;
+  const rows: string[][] = [];
+  for (const { name, at } of landmarks) {
+    const index = tiling.tiles.findIndex((tile) => holds(tile.window, at));
+    if (index >= 0) rows.push([name, String(index + 1), String(tilePages[index])]);
+  }
+  return rows.sort((a, b) => a[0].localeCompare(b[0], 'en', { numeric: true }));
 }

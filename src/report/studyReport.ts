@@ -18,7 +18,17 @@ export type ReportBlock =
   | { type: 'paragraph'; text: string }
   | { type: 'list'; items: string[] }
   | { type: 'table'; columns: string[]; rows: string[][]; numeric?: boolean[] }
-  | { type: 'figure'; caption: string; drawing: Drawing }
+  | {
+      type: 'figure';
+      caption: string;
+      drawing: Drawing;
+      /**
+       * What a reader looks for on the figure (a one-line's buses), each by name with a point of it in
+       * the drawing's px: where the figure prints in tiles, an index titled `of` ("bus") follows them,
+       * giving the part and page that show each.
+       */
+      landmarks?: { of: string; places: { name: string; at: { x: number; y: number } }[] };
+    }
   | { type: 'work'; title: string; text: string };
 
 /** A numbered section of the report. */
@@ -78,11 +88,24 @@ export function studyReportOf(analysis: Analysis, options: StudyReportOptions = 
       {
         id: 'one-line',
         title: 'One-line diagram',
-        blocks: treesOf(analysis).map(({ label, scenario, tree }) => ({
-          type: 'figure',
-          caption: `The system as modelled${label ? ` ${label}` : ''}, with maximum and minimum fault currents`,
-          drawing: oneLineOf(scenario === undefined ? tree : withFindingsIn(tree, analysis.findings, scenario)),
-        })),
+        blocks: treesOf(analysis).map(({ label, scenario, tree }): ReportBlock => {
+          const drawing = oneLineOf(scenario === undefined ? tree : withFindingsIn(tree, analysis.findings, scenario));
+          return {
+            type: 'figure',
+            caption: `The system as modelled${label ? ` ${label}` : ''}, with maximum and minimum fault currents`,
+            drawing,
+            // Each bus by its label, where its name is read.
+            landmarks: {
+              of: 'bus',
+              places: drawing.places
+                .filter((place) => place.type === 'bus')
+                .map(({ id, label: box }) => ({
+                  name: tree.network.buses.get(id)?.name ?? id,
+                  at: { x: box.x + 1, y: box.y + box.height / 2 },
+                })),
+            },
+          };
+        }),
       },
       { id: 'faults', title: 'Fault currents', blocks: faultBlocks(analysis) },
       { id: 'settings', title: 'Device settings', blocks: settingsBlocks(analysis) },

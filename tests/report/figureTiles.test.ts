@@ -32,8 +32,8 @@ function drawingOf(width: number, height: number, sizes: number[]): Drawing {
 }
 
 describe('figureTilingOf', () => {
-  it('has the expected defaults: tiles print text at 6 pt or more, neighbours share half an inch', () => {
-    expect(figureTileDefaults).toEqual({ legibleText: 6, overlap: 36, minGain: 1.25 });
+  it('has the expected defaults: tiles print text at 6 pt or more, neighbours share half an inch, eight or more are indexed', () => {
+    expect(figureTileDefaults).toEqual({ legibleText: 6, overlap: 36, minGain: 1.25, indexedFrom: 8 });
   });
 
   it('smallestTextSize reads the smallest text a drawing holds, and Infinity where it holds none', () => {

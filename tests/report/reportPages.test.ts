@@ -4,6 +4,7 @@ import { radialStudy } from '../../bench/radialStudy.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
 import { analyseStudy } from '../../src/engine/analysis.ts';
 import { parseStudy, readStudy } from '../../src/engine/study/index.ts';
+import type { OneLine } from '../../src/plot/oneLine/index.ts';
 import type { Drawing } from '../../src/plot/svg.ts';
 import { figureTileDefaults } from '../../src/report/figureTiles.ts';
 import {
@@ -160,7 +161,7 @@ describe('reportPagesOf with the whole-site one-line of a generated 600-device s
   const setup = { paper: 'letter', orientation: 'portrait' } as const;
   let report: StudyReport;
   let pages: ReportPage[];
-  let oneLine: Drawing;
+  let oneLine: OneLine;
   let overviewAt: number;
   let tiles: ReportPage[];
 
@@ -169,7 +170,7 @@ describe('reportPagesOf with the whole-site one-line of a generated 600-device s
     pages = reportPagesOf(report, setup);
     const block = report.sections.find((s) => s.id === 'one-line')!.blocks.find((b) => b.type === 'figure');
     if (block?.type !== 'figure') throw new Error('no one-line figure');
-    oneLine = block.drawing;
+    oneLine = block.drawing as OneLine;
     overviewAt = pages.findIndex((page) => page.figure?.drawing === oneLine);
     tiles = pages.filter((page) => page.figure?.drawing === oneLine && page.figure.window);
   }, 120_000);
@@ -239,6 +240,31 @@ describe('reportPagesOf with the whole-site one-line of a generated 600-device s
         );
         if (!shown) expect.fail(`(${x}, ${y}) px of the one-line is on no tile, or only at a tile's cut edge`);
       }
+  });
+
+  it('follows the tiles with an index of the buses: each bus once, on the part and page whose tile shows its name', () => {
+    const indexAt = overviewAt + tiles.length + 1;
+    expect(captionOf(pages[indexAt])).toMatch(/^Where each bus is on the parts above \(the system as modelled/);
+    // The index's rows, as the texts on one line of its pages, left to right.
+    const rows = new Map<string, string[]>();
+    for (let at = indexAt; bodyOf(pages[at])[0]?.text !== '3. Fault currents'; at++) {
+      const lines = new Map<number, { x: number; text: string }[]>();
+      for (const item of bodyOf(pages[at])) lines.set(item.y, [...(lines.get(item.y) ?? []), item]);
+      for (const line of lines.values()) {
+        const [name, part, page] = line.sort((a, b) => a.x - b.x).map((item) => item.text);
+        if (/^\d+$/.test(part ?? '') && name !== 'bus') rows.set(name, [part, page]);
+      }
+    }
+    const buses = oneLine.places.filter((place) => place.type === 'bus');
+    expect(rows.size).toBe(buses.length);
+    for (const { id, label } of buses) {
+      const [part, page] = rows.get(id)!.map(Number);
+      const window = tiles[part - 1].figure!.window!;
+      expect(label.x >= window.x && label.x <= window.x + window.width, id).toBe(true);
+      expect(label.y + label.height / 2 >= window.y && label.y <= window.y + window.height, id).toBe(true);
+      // Tile k is on the k-th page after the overview (pages counted from 1).
+      expect(page).toBe(overviewAt + 1 + part);
+    }
   });
 
   it('keeps the running head, the caution and the page number on every page, and the contents pointing at each section', () => {
