@@ -247,7 +247,8 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
           const { of, places } = block.landmarks;
           newPage();
           paragraph(
-            `Where each ${of} is on the parts above (${block.caption.toLowerCase()})`,
+            // The caption as written: it may name a scenario or a generator, whose case is theirs.
+            `Where each ${of} is on the parts above — ${block.caption}`,
             margin,
             contentWidth,
             body,

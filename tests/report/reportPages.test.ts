@@ -244,7 +244,7 @@ describe('reportPagesOf with the whole-site one-line of a generated 600-device s
 
   it('follows the tiles with an index of the buses: each bus once, on the part and page whose tile shows its name', () => {
     const indexAt = overviewAt + tiles.length + 1;
-    expect(captionOf(pages[indexAt])).toMatch(/^Where each bus is on the parts above \(the system as modelled/);
+    expect(captionOf(pages[indexAt])).toMatch(/^Where each bus is on the parts above — The system as modelled/);
     // The index's rows, as the texts on one line of its pages, left to right.
     const rows = new Map<string, string[]>();
     for (let at = indexAt; bodyOf(pages[at])[0]?.text !== '3. Fault currents'; at++) {
