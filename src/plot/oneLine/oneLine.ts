@@ -99,12 +99,22 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
 
   const severityOf = worstSeverities(findings);
   const switches = switchesOf(analysis);
-  const labelsOf = (drop: Omit<Drop, 'x' | 'width' | 'top' | 'barRow'>) => ({
-    feeder: drop.feeder ? deviceLines(drop.feeder) : [],
-    element: elementLines(analysis, drop, switches.settingOf),
-    main: drop.main ? deviceLines(drop.main) : [],
-    bus: drop.childBus ? busLines(analysis, drop.childBus) : [],
-  });
+  // Each run's labels, written once for measuring its column and again read to draw it.
+  const labelsByDrop = new Map<object, { feeder: string[]; element: string[]; main: string[]; bus: string[] }>();
+  const labelsOf = (drop: Omit<Drop, 'x' | 'width' | 'top' | 'barRow'>) => {
+    let labels = labelsByDrop.get(drop);
+    if (!labels)
+      labelsByDrop.set(
+        drop,
+        (labels = {
+          feeder: drop.feeder ? deviceLines(drop.feeder) : [],
+          element: elementLines(analysis, drop, switches.settingOf),
+          main: drop.main ? deviceLines(drop.main) : [],
+          bus: drop.childBus ? busLines(analysis, drop.childBus) : [],
+        }),
+      );
+    return labels;
+  };
   const widest = (lines: string[]) => lines.reduce((w, line) => Math.max(w, textWidth(line, fontSize)), 0);
   const layout = layoutOneLine(
     network,
@@ -204,7 +214,9 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
         (parentBus && 'bus' in parentBus ? parentBus.bus : network.feederOf.get(drop.childBus ?? '')?.item.from);
       if (busId !== undefined) {
         const bar = barKey(busId, drop.barRow);
-        childLines.set(bar, [...(childLines.get(bar) ?? []), x]);
+        const lines = childLines.get(bar);
+        if (lines) lines.push(x);
+        else childLines.set(bar, [x]);
       }
     }
     for (const [device, y, lines] of [
