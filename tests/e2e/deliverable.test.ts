@@ -134,6 +134,14 @@ describe('the study deliverable in the workbench', () => {
   it('exports the whole study report as one print-ready page', async () => {
     const { context, page } = await bench.open();
     await settled(page);
+    // Every notice shown meanwhile, however briefly.
+    await page.evaluate(() => {
+      const seen: string[] = ((window as unknown as { notices: string[] }).notices = []);
+      new MutationObserver(() => {
+        const text = document.querySelector('[data-testid="notice"] span')?.textContent;
+        if (text && seen.at(-1) !== text) seen.push(text);
+      }).observe(document.body, { subtree: true, childList: true, characterData: true });
+    });
     const download = page.waitForEvent('download');
     await page.getByTestId('export-menu').selectOption('report-html');
     const html = readFileSync((await (await download).path())!, 'utf8');
@@ -141,6 +149,11 @@ describe('the study deliverable in the workbench', () => {
     for (const title of ['Scope and method', 'One-line diagram', 'Fault currents', 'Device settings', 'Findings'])
       expect(html).toContain(title);
     expect(html).toContain('qualified engineer');
+    // The page said it was writing the report before standing still for it, and says nothing once it is done.
+    expect(await page.evaluate(() => (window as unknown as { notices: string[] }).notices)).toEqual([
+      'Writing the study report…',
+    ]);
+    await expect.poll(() => page.getByTestId('notice').count()).toBe(0);
     await context.close();
   });
 
