@@ -408,19 +408,18 @@ function textItem(
 
 /**
  * The index of a tiled figure: each landmark by name (in natural order, "P2" before "P10"), with the
- * first part, row by row, whose window holds it and that part's page. A landmark no part holds (none
- * should: the tiles cover the drawing) is left out.
+ * first part, row by row, that shows its box whole, else the first that shows where it starts, and
+ * that part's page. A landmark no part shows (none should: the tiles cover the drawing) is left out.
  */
-function landmarkRows(
-  landmarks: { name: string; at: { x: number; y: number } }[],
-  tiling: FigureTiling,
-  tilePages: number[],
-): string[][] {
-  const holds = (window: Box, at: { x: number; y: number }) =>
-    at.x >= window.x && at.x <= window.x + window.width && at.y >= window.y && at.y <= window.y + window.height;
+function landmarkRows(landmarks: { name: string; box: Box }[], tiling: FigureTiling, tilePages: number[]): string[][] {
+  const holds = (window: Box, x: number, y: number) =>
+    x >= window.x && x <= window.x + window.width && y >= window.y && y <= window.y + window.height;
   const rows: string[][] = [];
-  for (const { name, at } of landmarks) {
-    const index = tiling.tiles.findIndex((tile) => holds(tile.window, at));
+  for (const { name, box } of landmarks) {
+    const whole = tiling.tiles.findIndex(
+      ({ window }) => holds(window, box.x, box.y) && holds(window, box.x + box.width, box.y + box.height),
+    );
+    const index = whole >= 0 ? whole : tiling.tiles.findIndex(({ window }) => holds(window, box.x, box.y));
     if (index >= 0) rows.push([name, String(index + 1), String(tilePages[index])]);
   }
   return rows.sort((a, b) => a[0].localeCompare(b[0], 'en', { numeric: true }));

@@ -8,7 +8,8 @@ import { settingsText } from '../engine/report/settingsText.ts';
 import { locationBusOf } from '../engine/network/index.ts';
 import { scenariosOf, switchPosition } from '../engine/scenario/index.ts';
 import { formatWork } from '../engine/work.ts';
-import { oneLineOf } from '../plot/oneLine/index.ts';
+import type { Box } from '../plot/geometry.ts';
+import { oneLineOf, type OneLine } from '../plot/oneLine/index.ts';
 import { sheetOf } from '../plot/sheet.ts';
 import type { Drawing } from '../plot/svg.ts';
 import { viewInputOf } from '../plot/viewInput.ts';
@@ -23,11 +24,11 @@ export type ReportBlock =
       caption: string;
       drawing: Drawing;
       /**
-       * What a reader looks for on the figure (a one-line's buses), each by name with a point of it in
-       * the drawing's px: where the figure prints in tiles, an index titled `of` ("bus") follows them,
-       * giving the part and page that show each.
+       * What a reader looks for on the figure (a one-line's buses), each by name with the box of its
+       * label in the drawing's px: where the figure prints in tiles, an index titled `of` ("bus")
+       * follows them, giving the part and page that show each.
        */
-      landmarks?: { of: string; places: { name: string; at: { x: number; y: number } }[] };
+      landmarks?: { of: string; places: { name: string; box: Box }[] };
     }
   | { type: 'work'; title: string; text: string };
 
@@ -94,16 +95,7 @@ export function studyReportOf(analysis: Analysis, options: StudyReportOptions = 
             type: 'figure',
             caption: `The system as modelled${label ? ` ${label}` : ''}, with maximum and minimum fault currents`,
             drawing,
-            // Each bus by its label, where its name is read.
-            landmarks: {
-              of: 'bus',
-              places: drawing.places
-                .filter((place) => place.type === 'bus')
-                .map(({ id, label: box }) => ({
-                  name: tree.network.buses.get(id)?.name ?? id,
-                  at: { x: box.x + 1, y: box.y + box.height / 2 },
-                })),
-            },
+            landmarks: { of: 'bus', places: busLandmarksOf(drawing, tree) },
           };
         }),
       },
@@ -114,6 +106,19 @@ export function studyReportOf(analysis: Analysis, options: StudyReportOptions = 
       { id: 'appendix', title: 'Appendix: worked fault calculations', blocks: workBlocks(analysis) },
     ],
   };
+}
+
+// Accepts a one-line and the analysis it draws; each bus by its name (its id beside a name two buses
+// share) and the box of its label, where a reader finds it.
+function busLandmarksOf(drawing: OneLine, tree: Analysis): { name: string; box: Box }[] {
+  const buses = drawing.places.filter((place) => place.type === 'bus');
+  const nameOf = (id: string) => tree.network.buses.get(id)?.name ?? id;
+  const uses = new Map<string, number>();
+  for (const { id } of buses) uses.set(nameOf(id), (uses.get(nameOf(id)) ?? 0) + 1);
+  return buses.map(({ id, label }) => {
+    const name = nameOf(id);
+    return { name: uses.get(name)! > 1 && name !== id ? `${name} (${id})` : name, box: label };
+  });
 }
 
 // Accepts the analysis; the models and standards used and the assumptions behind the numbers.

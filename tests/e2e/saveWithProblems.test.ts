@@ -74,6 +74,14 @@ describe('a study with problems in Chromium', () => {
     await setDial(page, '3');
     await setDial(page, '');
     const downloads = downloadsOf(page);
+    // Every notice shown meanwhile, however briefly: a refused report never says it is being written.
+    await page.evaluate(() => {
+      const seen: string[] = ((window as unknown as { notices: string[] }).notices = []);
+      new MutationObserver(() => {
+        const text = document.querySelector('[data-testid="notice"] span')?.textContent;
+        if (text && seen.at(-1) !== text) seen.push(text);
+      }).observe(document.body, { subtree: true, childList: true, characterData: true });
+    });
     for (const kind of ['pdf', 'report-pdf', 'findings-md']) {
       await page.getByTestId('export-menu').selectOption(kind);
       await expect
@@ -85,6 +93,9 @@ describe('a study with problems in Chromium', () => {
     }
     await page.waitForTimeout(300);
     expect(downloads).toEqual([]);
+    const notices = await page.evaluate(() => (window as unknown as { notices: string[] }).notices);
+    expect(notices.length).toBeGreaterThan(0);
+    expect(notices.every((text) => text.startsWith('Export failed: fix the 1 problem'))).toBe(true);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });

@@ -4,6 +4,7 @@ import { radialStudy } from '../../bench/radialStudy.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
 import { analyseStudy } from '../../src/engine/analysis.ts';
 import { parseStudy, readStudy } from '../../src/engine/study/index.ts';
+import type { Box } from '../../src/plot/geometry.ts';
 import type { OneLine } from '../../src/plot/oneLine/index.ts';
 import type { Drawing } from '../../src/plot/svg.ts';
 import { figureTileDefaults } from '../../src/report/figureTiles.ts';
@@ -115,6 +116,41 @@ function captionOf(page: ReportPage): string {
     .filter((item) => item.weight === 'bold' && item.size === pageDefaults.body)
     .map((item) => item.text)
     .join(' ');
+}
+
+/** The rows of a tiled figure's index from its first page on: name → [part, page]. */
+function indexRowsOf(pages: ReportPage[], indexAt: number): Map<string, string[]> {
+  const rows = new Map<string, string[]>();
+  for (let at = indexAt; at < pages.length && !/^\d\. /.test(bodyOf(pages[at])[0]?.text ?? ''); at++) {
+    // A row is the texts on one line of the page, left to right.
+    const lines = new Map<number, { x: number; text: string }[]>();
+    for (const item of bodyOf(pages[at])) lines.set(item.y, [...(lines.get(item.y) ?? []), item]);
+    for (const line of lines.values()) {
+      const [name, part, page] = line.sort((a, b) => a.x - b.x).map((item) => item.text);
+      if (/^\d+$/.test(part ?? '') && name !== 'bus') rows.set(name, [part, page]);
+    }
+  }
+  return rows;
+}
+
+/**
+ * Each bus (by its index name, with its label's box) is indexed once, on the first tile showing its
+ * label whole, else the first showing where it starts, and on that tile's page.
+ */
+function expectIndexed(rows: Map<string, string[]>, labels: Map<string, Box>, tiles: ReportPage[], overviewAt: number) {
+  expect(rows.size).toBe(labels.size);
+  const windows = tiles.map((tile) => tile.figure!.window!);
+  const holds = (w: Box, x: number, y: number) => x >= w.x && x <= w.x + w.width && y >= w.y && y <= w.y + w.height;
+  for (const [name, label] of labels) {
+    const [part, page] = rows.get(name)!.map(Number);
+    const whole = windows.findIndex(
+      (w) => holds(w, label.x, label.y) && holds(w, label.x + label.width, label.y + label.height),
+    );
+    const start = windows.findIndex((w) => holds(w, label.x, label.y));
+    expect(part - 1, name).toBe(whole >= 0 ? whole : start);
+    // Tile k is on the k-th page after the overview (pages counted from 1).
+    expect(page, name).toBe(overviewAt + 1 + part);
+  }
 }
 
 describe('reportPagesOf with figures', () => {
@@ -245,26 +281,8 @@ describe('reportPagesOf with the whole-site one-line of a generated 600-device s
   it('follows the tiles with an index of the buses: each bus once, on the part and page whose tile shows its name', () => {
     const indexAt = overviewAt + tiles.length + 1;
     expect(captionOf(pages[indexAt])).toMatch(/^Where each bus is on the parts above — The system as modelled/);
-    // The index's rows, as the texts on one line of its pages, left to right.
-    const rows = new Map<string, string[]>();
-    for (let at = indexAt; bodyOf(pages[at])[0]?.text !== '3. Fault currents'; at++) {
-      const lines = new Map<number, { x: number; text: string }[]>();
-      for (const item of bodyOf(pages[at])) lines.set(item.y, [...(lines.get(item.y) ?? []), item]);
-      for (const line of lines.values()) {
-        const [name, part, page] = line.sort((a, b) => a.x - b.x).map((item) => item.text);
-        if (/^\d+$/.test(part ?? '') && name !== 'bus') rows.set(name, [part, page]);
-      }
-    }
     const buses = oneLine.places.filter((place) => place.type === 'bus');
-    expect(rows.size).toBe(buses.length);
-    for (const { id, label } of buses) {
-      const [part, page] = rows.get(id)!.map(Number);
-      const window = tiles[part - 1].figure!.window!;
-      expect(label.x >= window.x && label.x <= window.x + window.width, id).toBe(true);
-      expect(label.y + label.height / 2 >= window.y && label.y <= window.y + window.height, id).toBe(true);
-      // Tile k is on the k-th page after the overview (pages counted from 1).
-      expect(page).toBe(overviewAt + 1 + part);
-    }
+    expectIndexed(indexRowsOf(pages, indexAt), new Map(buses.map((bus) => [bus.id, bus.label])), tiles, overviewAt);
   });
 
   it('keeps the running head, the caution and the page number on every page, and the contents pointing at each section', () => {
@@ -287,4 +305,44 @@ describe('reportPagesOf with the whole-site one-line of a generated 600-device s
       expect(bodyOf(pages[number - 1])[0].text).toBe(`${i + 1}. ${report.sections[i].title}`),
     );
   });
+});
+
+describe('the bus index of a tiled one-line whose buses have long names', () => {
+  it('sends each bus to a part that shows its name whole where one does, and tells apart two buses of one name', () => {
+    const input = radialStudy(200);
+    input.buses = input.buses!.map((bus) => ({ ...bus, name: `Refrigeration switchboard ${bus.id}` }));
+    input.buses[3].name = input.buses[4].name = 'Shared panel';
+    const report = studyReportOf(analyseStudy(parseStudy(input)));
+    const pages = reportPagesOf(report, { paper: 'letter', orientation: 'portrait' });
+    const block = report.sections.find((s) => s.id === 'one-line')!.blocks[0];
+    if (block.type !== 'figure') throw new Error('no one-line figure');
+    const oneLine = block.drawing as OneLine;
+    const overviewAt = pages.findIndex((page) => page.figure?.drawing === oneLine);
+    const tiles = pages.filter((page) => page.figure?.drawing === oneLine && page.figure.window);
+    expect(tiles.length).toBeGreaterThanOrEqual(8);
+    const named = new Map(input.buses.map((bus) => [bus.id, bus.name!]));
+    const labels = new Map(
+      oneLine.places
+        .filter((place) => place.type === 'bus')
+        .map((bus) => {
+          const name = named.get(bus.id)!;
+          return [name === 'Shared panel' ? `${name} (${bus.id})` : name, bus.label] as const;
+        }),
+    );
+    const rows = indexRowsOf(pages, overviewAt + tiles.length + 1);
+    expect([...rows.keys()].filter((name) => name.startsWith('Shared panel'))).toEqual([
+      `Shared panel (${input.buses[3].id})`,
+      `Shared panel (${input.buses[4].id})`,
+    ]);
+    expectIndexed(rows, labels, tiles, overviewAt);
+    // Names long enough that the first part reaching a label often cuts it, and a later one shows it whole.
+    const windows = tiles.map((tile) => tile.figure!.window!);
+    const cut = [...labels.values()].filter((label) => {
+      const first = windows.find(
+        (w) => label.x >= w.x && label.x <= w.x + w.width && label.y >= w.y && label.y <= w.y + w.height,
+      )!;
+      return label.x + label.width > first.x + first.width;
+    });
+    expect(cut.length).toBeGreaterThan(5);
+  }, 60_000);
 });

@@ -19,7 +19,7 @@ import { exportRefusalOf } from './problemNotes.ts';
 export async function runExport(request: ExportKind, context: StudyContext): Promise<void> {
   const { study, sheet } = context;
   const kind = typeof request === 'string' ? request : request.kind;
-  const refusal = exportRefusalOf(kind, study.problems);
+  const refusal = exportRefusalFor(request, context);
   if (refusal) throw new Error(refusal);
   const stem = fileStemOf(study.document.name);
   const view = study.view?.id ?? 'sheet';
@@ -52,10 +52,28 @@ export async function runExport(request: ExportKind, context: StudyContext): Pro
   }
 }
 
-// The analysis with the checks' findings; a report waits for them rather than leaving them out.
+/** The exports written from the checks' findings, which wait for them rather than leave them out. */
+const FROM_FINDINGS = new Set<string>(['findings-md', 'findings-csv', 'report-html', 'report-pdf']);
+
+/**
+ * Why an export cannot be made now, in the words `runExport` throws with, or undefined: the study has
+ * problems and the export would show the last valid study, or it needs the checks' findings and they
+ * are still running. Asked before a long export says it is under way.
+ * @example exportRefusalFor('report-html', context) // 'the checks are still running: …' while they run
+ */
+export function exportRefusalFor(request: ExportKind, { study, analysis }: StudyContext): string | undefined {
+  const kind = typeof request === 'string' ? request : request.kind;
+  const refusal = exportRefusalOf(kind, study.problems);
+  if (refusal) return refusal;
+  if (FROM_FINDINGS.has(kind) && (!analysis.analysis || analysis.pending)) return STILL_RUNNING;
+  return undefined;
+}
+
+const STILL_RUNNING = 'the checks are still running: export the findings in a moment';
+
+// The analysis with the checks' findings, asked for again once a report's modules have loaded (an edit
+// made meanwhile sets the checks running again).
 function checked({ analysis }: StudyContext) {
-  if (!analysis.analysis || analysis.pending) {
-    throw new Error('the checks are still running: export the findings in a moment');
-  }
+  if (!analysis.analysis || analysis.pending) throw new Error(STILL_RUNNING);
   return analysis.analysis;
 }
