@@ -2,28 +2,34 @@ import { defineConfig } from 'vitest/config';
 import type { Plugin } from 'vite';
 import { svelte } from '@sveltejs/vite-plugin-svelte';
 
-/** What the page's code says where the checks' worker script will be; the build writes its file name in. */
-const CHECKS_WORKER_PLACEHOLDER = './discern-checks-worker.js';
+/** What the page's code says where each worker's script will be, by the worker's entry; the build writes its file name in. */
+const WORKER_PLACEHOLDERS = {
+  checks: './discern-checks-worker.js',
+  settings: './discern-settings-worker.js',
+};
 
 /**
- * The checks' worker is built as a second entry of the page's own build, not as a separate worker
- * bundle, so the engine code both load (bands, fault levels, checks) sits in chunks they share and a
- * browser downloads once. The page learns the worker entry's hashed file name here, once every chunk
- * has its name (see `src/app/worker/runners.ts`).
+ * The workers (the checks'; setting windows' and proposals') are built as further entries of the
+ * page's own build, not as separate worker bundles, so the engine code they load with the page
+ * (bands, fault levels, checks) sits in chunks they share and a browser downloads once. The page
+ * learns each worker entry's hashed file name here, once every chunk has its name (see
+ * `src/app/worker/runners.ts`).
  */
-function checksWorkerEntry(): Plugin {
+function workerEntries(): Plugin {
   return {
-    name: 'discern-checks-worker-entry',
+    name: 'discern-worker-entries',
     apply: 'build',
     generateBundle(_, bundle) {
-      const worker = Object.values(bundle).find(
-        (file) => file.type === 'chunk' && file.isEntry && file.name === 'checks',
-      );
-      if (!worker) throw new Error('checks worker: expected an entry named "checks" in the build, got none');
-      const name = `./${worker.fileName.split('/').pop()}`;
-      for (const file of Object.values(bundle)) {
-        if (file.type === 'chunk' && file.code.includes(CHECKS_WORKER_PLACEHOLDER))
-          file.code = file.code.replaceAll(CHECKS_WORKER_PLACEHOLDER, name);
+      for (const [entry, placeholder] of Object.entries(WORKER_PLACEHOLDERS)) {
+        const worker = Object.values(bundle).find(
+          (file) => file.type === 'chunk' && file.isEntry && file.name === entry,
+        );
+        if (!worker) throw new Error(`${entry} worker: expected an entry named "${entry}" in the build, got none`);
+        const name = `./${worker.fileName.split('/').pop()}`;
+        for (const file of Object.values(bundle)) {
+          if (file.type === 'chunk' && file.code.includes(placeholder))
+            file.code = file.code.replaceAll(placeholder, name);
+        }
       }
     },
   };
@@ -68,12 +74,18 @@ const DEV_POLICY = POLICY.replace("style-src 'self'", "style-src 'self' 'unsafe-
 );
 
 export default defineConfig({
-  plugins: [svelte(), strictBuildPolicy(), checksWorkerEntry()],
+  plugins: [svelte(), strictBuildPolicy(), workerEntries()],
   build: {
     outDir: 'dist',
     target: 'es2022',
     chunkSizeWarningLimit: 800,
-    rolldownOptions: { input: { index: 'index.html', checks: 'src/app/worker/analysis.worker.ts' } },
+    rolldownOptions: {
+      input: {
+        index: 'index.html',
+        checks: 'src/app/worker/analysis.worker.ts',
+        settings: 'src/app/worker/settings.worker.ts',
+      },
+    },
   },
   server: { headers: { 'Content-Security-Policy': DEV_POLICY } },
   preview: { headers: { 'Content-Security-Policy': POLICY } },

@@ -8,5 +8,7 @@ export { History } from './History.svelte.ts';
 export type { CommitOptions } from './History.svelte.ts';
 export { ProbeState } from './ProbeState.svelte.ts';
 export { FIGURE_SIZE, SheetState } from './SheetState.svelte.ts';
+export { SettingsAsker } from './SettingsAsker.ts';
+export type { SettingsOutcome } from './SettingsAsker.ts';
 export { StudyState } from './StudyState.svelte.ts';
 export type { RecoveredFrom } from './StudyState.svelte.ts';

@@ -2,6 +2,7 @@ import type { Finding, Severity } from '../../engine/checks/finding.ts';
 import type { PairCheck } from '../../engine/checks/coordination.ts';
 import type { Study } from '../../engine/study/index.ts';
 import type { AnalysisChanges } from './changes.ts';
+import type { SettingsAnswer, SettingsQuestion } from './settingsQuestions.ts';
 import type { StudyDelta } from './studyDelta.ts';
 
 /** Main thread → worker: analyse this parsed study (plain data; `seq` orders the replies). */
@@ -25,3 +26,13 @@ export type AnalyseReply =
   | { seq: number; ok: true; findings: Finding[]; pairs: PairCheck[]; counts: Record<Severity, number> }
   | { seq: number; ok: true; changes: AnalysisChanges }
   | { seq: number; ok: false; message: string };
+
+/**
+ * Main thread → settings' worker: a question about a study, which crosses whole the first time and
+ * then as its changes from the study sent before (the worker keeps the last one).
+ */
+export type SettingsRequest = { seq: number; question: SettingsQuestion } & ({ study: Study } | { delta: StudyDelta });
+
+/** Settings' worker → main thread: the answer as plain data, or why there is none. */
+export type SettingsReply =
+  { seq: number; ok: true; answer: SettingsAnswer } | { seq: number; ok: false; message: string };

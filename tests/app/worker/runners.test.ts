@@ -1,9 +1,10 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { inlineRunner } from '../../../src/app/worker/runners.ts';
+import { inlineRunner, inlineSettingsRunner } from '../../../src/app/worker/runners.ts';
+import { settingWindowOf } from '../../../src/engine/window/index.ts';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
-import type { AnalyseReply } from '../../../src/app/worker/protocol.ts';
+import type { AnalyseReply, SettingsReply } from '../../../src/app/worker/protocol.ts';
 import { resultsWith } from '../../../src/app/worker/changes.ts';
 
 const study = parseStudy(readFileSync(new URL('../../../demo/harrowmere-overlap.json', import.meta.url), 'utf8'));
@@ -43,5 +44,30 @@ describe('runners', () => {
     const got = await reply;
     expect(got).toMatchObject({ seq: 1, ok: false });
     expect(got.ok ? '' : got.message).not.toBe('');
+  });
+
+  it('inlineSettingsRunner() answers a question on a later task, and a refusal with its message', async () => {
+    const runner = inlineSettingsRunner();
+    expect(runner.onreply).toBeUndefined();
+    const replies: SettingsReply[] = [];
+    const two = new Promise<void>((resolve) => {
+      runner.onreply = (reply) => {
+        replies.push(reply);
+        if (replies.length === 2) resolve();
+      };
+    });
+    runner.post({ seq: 3, study, question: { kind: 'window', deviceId: 'MAIN' } });
+    // A device the engine cannot read: the window's trial throws, and the runner says why.
+    const broken = { ...study, devices: [{ ...study.devices[1], characteristic: { kind: 'nonsense' } }] } as never;
+    runner.post({ seq: 4, study: broken, question: { kind: 'window', deviceId: 'MAIN' } });
+    expect(replies).toEqual([]);
+    await two;
+    expect(replies[0]).toEqual({
+      seq: 3,
+      ok: true,
+      answer: { kind: 'window', window: settingWindowOf(study, 'MAIN') },
+    });
+    expect(replies[1]).toMatchObject({ seq: 4, ok: false });
+    expect(replies[1].ok ? '' : replies[1].message).not.toBe('');
   });
 });

@@ -40,3 +40,20 @@ describe("the checks' worker", () => {
     expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
   });
 });
+
+describe("the settings' worker", () => {
+  const loaded = modulesLoadedFrom('src/app/worker/settings.worker.ts');
+  const importersOf = (name: string) =>
+    [...loaded].filter(([, specifiers]) => specifiers.includes(name)).map(([file]) => file.slice(ROOT.length + 1));
+
+  it('loads the setting window and the proposals', () => {
+    const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
+    expect(files).toContain('src/engine/window/settingWindow.ts');
+    expect(files).toContain('src/engine/window/proposal.ts');
+  });
+
+  it("loads no unit parser and no schema, as the checks' worker", () => {
+    expect(importersOf('mathjs')).toEqual([]);
+    expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
+  });
+});
