@@ -3,7 +3,7 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { readFileSync, readdirSync } from 'node:fs';
 import { gzipSync } from 'node:zlib';
-import { chromium } from 'playwright-core';
+import { chromium, type Page } from 'playwright-core';
 import { medianOf, single, type Benchmark } from './benchmark.ts';
 import { ROOT } from './root.ts';
 import { radialStudy } from './radialStudy.ts';
@@ -14,7 +14,7 @@ const EDITS = 24;
 const PROBES = 120;
 
 let built: Promise<void> | undefined;
-let measured: Promise<{ studies: StudyTimes[]; probe: number[] }> | undefined;
+let measured: Promise<{ studies: StudyTimes[]; probe: number[]; windows: WindowTimes[] }> | undefined;
 
 /** Builds dist/ once per run, from the sources as they are now. */
 function build(): Promise<void> {
@@ -53,6 +53,52 @@ interface StudyTimes {
   /** Durations (ms) of the page's long tasks (over 50 ms) while editing. */
   longTasks: number[];
   path: string;
+}
+
+interface WindowTimes {
+  label: string;
+  /** Milliseconds from a click on a device in the tree until its setting window is shown. */
+  shown: number[];
+  /** Milliseconds from "Propose for the whole study" until the proposal is shown. */
+  proposal: number;
+  /** Durations (ms) of the page's long tasks (over 50 ms) meanwhile. */
+  longTasks: number[];
+}
+
+/**
+ * With the Window tab open, selects the first devices of the system tree in turn, each once its
+ * window is shown, then proposes settings for the whole study; the page's long tasks are recorded.
+ */
+async function windowTimes(page: Page, label: string): Promise<WindowTimes> {
+  await page.evaluate(() => ((window as unknown as { __longTasks: number[] }).__longTasks.length = 0));
+  await page.getByTestId('tab-window').click();
+  const rows = await page.evaluate(() =>
+    [...document.querySelectorAll('[data-testid^="tree-device-"]')]
+      .slice(0, 3)
+      .map((row) => row.getAttribute('data-testid')!),
+  );
+  const now = () => page.evaluate(() => performance.now());
+  const settled = (selector: string) =>
+    page.waitForFunction(
+      (shown) =>
+        !!document.querySelector(shown) &&
+        !document.querySelector('[data-testid="window-working"], [data-testid="proposal-working"], .updating'),
+      selector,
+    );
+  const shown: number[] = [];
+  for (const row of rows) {
+    const start = await now();
+    await page.getByTestId(row).click();
+    await settled('[data-testid="window-status"], [data-testid="window-panel"] .hint, [data-testid="window-error"]');
+    shown.push((await now()) - start);
+  }
+  const start = await now();
+  await page.getByTestId('propose-study').click();
+  await settled('[data-testid="proposal"], [data-testid="proposal-error"]');
+  const proposal = (await now()) - start;
+  const longTasks = await page.evaluate(() => [...(window as unknown as { __longTasks: number[] }).__longTasks]);
+  await page.getByTestId('tab-work').click();
+  return { label, shown, proposal, longTasks };
 }
 
 /**
@@ -107,6 +153,7 @@ function measure() {
         });
       });
       const studies: StudyTimes[] = [];
+      const windows: WindowTimes[] = [];
       for (const [label, devices, edits] of [
         [`${demo.fileName}, ${demo.devices} devices`, 0, EDITS],
         ['generated, 500 devices', 500, EDITS],
@@ -152,6 +199,7 @@ function measure() {
           longTasks: times.longTasks,
           path: times.path,
         });
+        if (devices > 0) windows.push(await windowTimes(page, label));
       }
       const probeTimes = await page.evaluate(
         ({ probes }) => {
@@ -160,7 +208,7 @@ function measure() {
         },
         { probes: PROBES },
       );
-      return { studies, probe: probeTimes.slice(5) };
+      return { studies, probe: probeTimes.slice(5), windows };
     } finally {
       await browser?.close();
       server.kill();
@@ -176,8 +224,9 @@ async function bundleSizes() {
   // Every asset counts: scripts, styles and the fonts a PDF export fetches.
   const assets = readdirSync(`${ROOT}dist/assets`).filter((f) => /\.(js|css|ttf|woff2?)$/.test(f));
   const gz = (file: string) => gzipSync(readFileSync(`${ROOT}dist/assets/${file}`), { level: 9 }).length;
-  // At start: the scripts and stylesheet named in index.html, and the checks' worker they start at once
-  // (an entry of the same build, named in the page's code as `new URL("./checks-….js", import.meta.url)`).
+  // At start: the scripts and stylesheet named in index.html, and the workers they name (entries of the
+  // same build, named in the page's code as `new URL("./checks-….js", import.meta.url)`): the checks'
+  // worker starts at once, the settings' entry (a few hundred bytes) with the first setting window.
   const named = assets.filter((f) => html.includes(`/assets/${f}`));
   const workers = named
     .filter((f) => f.endsWith('.js'))
@@ -225,6 +274,21 @@ export const benchmarks: Benchmark[] = [
       return single(longest, `${longTasks.length} tasks over 50 ms; at 2,000 devices ${large.length} (${largeText})`);
     },
   },
+  {
+    id: 'P4w',
+    what: "longest task of the page while the Window tab works out three devices' windows and a proposal for the study, 500 devices",
+    unit: 'ms',
+    target: 50,
+    async run() {
+      const [small, large] = (await measure()).windows;
+      const longest = (times: WindowTimes) => Math.max(0, ...times.longTasks);
+      const shown = (times: WindowTimes) => times.shown.map((ms) => ms.toFixed(0)).join(', ');
+      return single(
+        longest(small),
+        `${small.longTasks.length} tasks over 50 ms; windows shown after ${shown(small)} ms, the proposal after ${small.proposal.toFixed(0)} ms; at 2,000 devices ${large.longTasks.length} tasks over 50 ms (longest ${longest(large).toFixed(0)} ms), windows after ${shown(large)} ms, the proposal after ${large.proposal.toFixed(0)} ms`,
+      );
+    },
+  },
   ...[
     { study: 0, target: 50 },
     { study: 2, target: 100 },
@@ -249,7 +313,7 @@ export const benchmarks: Benchmark[] = [
   },
   {
     id: 'P6',
-    what: 'production bundle loaded at start (entry JS, CSS, checks worker), gzip',
+    what: "production bundle loaded at start (entry JS, CSS, the workers' entries), gzip",
     unit: 'kB',
     target: 300,
     async run() {
