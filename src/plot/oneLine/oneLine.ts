@@ -3,7 +3,8 @@ import { CAUTION } from '../../engine/caution.ts';
 import type { Severity } from '../../engine/checks/finding.ts';
 import { formatAmps, formatVolts, significant } from '../../engine/quantity/index.ts';
 import { switchSettingsOf, type SwitchSetting } from '../../engine/scenario/index.ts';
-import type { Device } from '../../engine/study/index.ts';
+import { sameNetworkInputs } from '../../engine/network/sameNetworkInputs.ts';
+import type { Device, Study } from '../../engine/study/index.ts';
 import type { Box, Primitive, TextItem } from '../geometry.ts';
 import { OKABE_ITO, SHEET_COLOURS } from '../palette.ts';
 import { fixed } from '../precision.ts';
@@ -85,7 +86,74 @@ export interface OneLine extends Drawing {
  * @example svgOf(oneLineOf(analyseStudy(study)))
  */
 export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): OneLine {
-  const { study, network, findings } = analysis;
+  return oneLineWithMarks(oneLineBaseOf(analysis, options), analysis.findings);
+}
+
+/**
+ * A one-line diagram without its finding marks, and where each element's mark goes. Everything in it
+ * comes from the network, the fault levels and what the labels name (`sameOneLineBase`), so an edit of
+ * a device's settings, whose findings alone change, keeps it: a large site's takes tens of milliseconds.
+ */
+export interface OneLineBase {
+  drawing: Omit<OneLine, 'layers'> & { layers: Drawing['layers'] };
+  /** Where a failing or warning finding's mark goes, for each element that can have one, in drawing order. */
+  markSpots: { id: string; x: number; y: number }[];
+}
+
+/** A diagram's base with the marks of the findings on it: `oneLineOf`'s result. @example oneLineWithMarks(oneLineBaseOf(analysis), analysis.findings) */
+export function oneLineWithMarks(base: OneLineBase, findings: Analysis['findings']): OneLine {
+  const severityOf = worstSeverities(findings);
+  const marks: Primitive[] = [];
+  for (const { id, x, y } of base.markSpots) {
+    const severity = severityOf.get(id);
+    if (severity === 'fail') marks.push(...findingMark('fail', x, y, id, OKABE_ITO.vermillion));
+    else if (severity === 'warning') marks.push(...findingMark('warning', x, y, id, OKABE_ITO.orange));
+  }
+  return { ...base.drawing, layers: [...base.drawing.layers, { name: 'findings', items: marks }] };
+}
+
+/**
+ * True when `next` draws the same base as `previous` (`oneLineBaseOf`, same options): the same fault
+ * levels and network (an edit of a device's settings keeps both), the same header, each device with
+ * the name, kind and rating its label shows, and the switches set as before.
+ *
+ * @example sameOneLineBase(analysis, analysisAfterAPickupEdit) // true
+ */
+export function sameOneLineBase(previous: Analysis, next: Analysis): boolean {
+  const [a, b] = [previous.study, next.study];
+  if (previous.faults !== next.faults || !sameNetworkInputs(a, b)) return false;
+  if (switchSettingsOf(a) !== switchSettingsOf(b)) return false;
+  if (HEADER_FIELDS.some((field) => a[field] !== b[field])) return false;
+  return (
+    a.devices === b.devices ||
+    a.devices.every((device, i) => {
+      const other = b.devices[i];
+      return (
+        device === other ||
+        (device.name === other.name &&
+          device.rating === other.rating &&
+          device.characteristic.kind === other.characteristic.kind)
+      );
+    })
+  );
+}
+
+/** The study's fields the header and the title read. */
+const HEADER_FIELDS = [
+  'name',
+  'site',
+  'client',
+  'revisions',
+  'date',
+  'preparedBy',
+] as const satisfies readonly (keyof Study)[];
+
+/** What a diagram's base is drawn from. */
+type BaseInputs = Pick<Analysis, 'study' | 'network' | 'faults'>;
+
+/** Draws the diagram without its finding marks (see `OneLineBase`). @example oneLineBaseOf(analysis).markSpots.length */
+export function oneLineBaseOf(analysis: BaseInputs, options: OneLineOptions = {}): OneLineBase {
+  const { study, network } = analysis;
   const { fontSize, lineHeight, gutter, labelGap, columnPadding, margin, header, maxWidth, fontFamily } =
     oneLineDefaults;
   const step = fontSize * lineHeight;
@@ -97,7 +165,6 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
   // The link between a bus's bars runs down its own line; its branches start clear of it and of their finding marks.
   const linkLane = gutter + 8;
 
-  const severityOf = worstSeverities(findings);
   const switches = switchesOf(analysis);
   // Each run's labels, written once for measuring its column and again read to draw it.
   const labelsByDrop = new Map<object, { feeder: string[]; element: string[]; main: string[]; bus: string[] }>();
@@ -144,7 +211,7 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
   );
 
   const items: Primitive[] = [];
-  const marks: Primitive[] = [];
+  const markSpots: OneLineBase['markSpots'] = [];
   const places: OneLinePlace[] = [];
   // Each bus's place by its id, for its bar drawn once the runs under it are placed (found in the list,
   // a large site's thousands of buses each searched thousands of places).
@@ -155,11 +222,7 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
   const runTop = (drop: Drop) => top + drop.top;
   const barYOf = (drop: Drop) => runTop(drop) + 3 * row + busRow;
   const lineX = (drop: Drop) => left + drop.x + gutter;
-  const mark = (id: string, x: number, y: number) => {
-    const severity = severityOf.get(id);
-    if (severity === 'fail') marks.push(...findingMark('fail', x, y, id, OKABE_ITO.vermillion));
-    else if (severity === 'warning') marks.push(...findingMark('warning', x, y, id, OKABE_ITO.orange));
-  };
+  const mark = (id: string, x: number, y: number) => void markSpots.push({ id, x, y });
   const text = (lines: string[], x: number, centreY: number, dataId: string, role: string): Box => {
     const firstBaseline = centreY - ((lines.length - 1) * step) / 2 + fontSize * 0.35;
     lines.forEach((line, i) =>
@@ -345,7 +408,7 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
         role: 'caution',
       })),
   ];
-  return {
+  const drawing = {
     width,
     height,
     fontFamily,
@@ -355,11 +418,11 @@ export function oneLineOf(analysis: Analysis, options: OneLineOptions = {}): One
     layers: [
       { name: 'header', items: headerItems },
       { name: 'diagram', items },
-      { name: 'findings', items: marks },
     ],
     places,
     continuations,
   };
+  return { drawing, markSpots };
 }
 
 // Accepts a bus id and the row of its branches a bar carries; the key its runs' lines are gathered under.
@@ -368,7 +431,7 @@ function barKey(busId: string, barRow: number): string {
 }
 
 // Accepts a bus id and the branches a continuation bar carries; its label: the bus named as continued, and which branches.
-function continuedLines(analysis: Analysis, busId: string, first: number, last: number, of: number): string[] {
+function continuedLines(analysis: BaseInputs, busId: string, first: number, last: number, of: number): string[] {
   const bus = analysis.network.buses.get(busId)!;
   const branches = first === last ? `branch ${first} of ${of}` : `branches ${first}–${last} of ${of}`;
   return [`${bus.name ?? bus.id}, ${formatVolts(bus.voltage)} (continued)`, branches];
@@ -396,7 +459,7 @@ function deviceLines(device: Device): string[] {
 }
 
 // Accepts the analysis; each switch as its scenario sets it, and those connecting nothing drawn, each under a drawn bus.
-function switchesOf(analysis: Analysis): { settingOf: Map<string, SwitchSetting>; open: OpenSwitch[] } {
+function switchesOf(analysis: BaseInputs): { settingOf: Map<string, SwitchSetting>; open: OpenSwitch[] } {
   const { study, network } = analysis;
   // A study not split by scenario: each switch in its normal position, as its network links it.
   const settings =
@@ -416,7 +479,7 @@ function switchesOf(analysis: Analysis): { settingOf: Map<string, SwitchSetting>
 
 // Accepts a run; its element's name and key ratings.
 function elementLines(
-  analysis: Analysis,
+  analysis: BaseInputs,
   drop: Omit<Drop, 'x' | 'width' | 'top' | 'barRow'>,
   settingOf: Map<string, SwitchSetting>,
 ): string[] {
@@ -482,7 +545,7 @@ function elementLines(
 }
 
 // Accepts a bus id; its name, voltage and fault currents.
-function busLines(analysis: Analysis, busId: string): string[] {
+function busLines(analysis: BaseInputs, busId: string): string[] {
   const bus = analysis.network.buses.get(busId)!;
   const fault = analysis.faults.buses.get(busId);
   const name = `${bus.name ?? bus.id}, ${formatVolts(bus.voltage)}`;
@@ -491,7 +554,7 @@ function busLines(analysis: Analysis, busId: string): string[] {
 }
 
 // Accepts the analysis; the study details line under the title.
-function detailsLine(analysis: Analysis): string {
+function detailsLine(analysis: BaseInputs): string {
   const s = analysis.study;
   const revision = s.revisions.at(-1);
   return [

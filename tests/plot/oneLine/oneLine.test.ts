@@ -4,7 +4,17 @@ import { analyseStudy, type Analysis } from '../../../src/engine/analysis.ts';
 import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { readStudy, type Study } from '../../../src/engine/study/index.ts';
 import { boxesOverlap } from '../../../src/plot/geometry.ts';
-import { oneLineDefaults, oneLineOf, type OneLine } from '../../../src/plot/oneLine/index.ts';
+import {
+  oneLineBaseOf,
+  oneLineDefaults,
+  oneLineOf,
+  oneLineWithMarks,
+  sameOneLineBase,
+  type OneLine,
+} from '../../../src/plot/oneLine/index.ts';
+import { AnalysisMemo } from '../../../src/engine/incremental.ts';
+import { readEditableStudy, readStudyEdit, type EditableReading } from '../../../src/engine/study/readStudyEdit.ts';
+import { withValueAt } from '../../../src/app/lib/documentPath.ts';
 import { svgOf } from '../../../src/plot/svg.ts';
 import { reportPagesOf } from '../../../src/report/reportPages.ts';
 import { studyReportOf } from '../../../src/report/studyReport.ts';
@@ -268,5 +278,44 @@ describe('oneLineOf', () => {
     const first = svgOf(oneLineOf(analysis));
     expect(svgOf(oneLineOf(analysis))).toBe(first);
     expect(oneLineOf(analysis).places.filter((p) => p.type === 'bus')).toHaveLength(151);
+  });
+});
+
+describe("a diagram's base, kept across an edit that changes only findings", () => {
+  // As the workbench reads and analyses an edit: the reading keeps what the edit left alone, and the
+  // memo keeps the fault levels while the network is the same.
+  const memo = new AnalysisMemo();
+  const first = readEditableStudy(JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8')));
+  const analysed = (reading: EditableReading) => analyseStudy(reading.study!, memo);
+  const edited = (path: (string | number)[], value: unknown) =>
+    readStudyEdit(first, withValueAt(first.document, path, value));
+  const before = analysed(first);
+  const marksOf = (diagram: OneLine) => diagram.layers.find((layer) => layer.name === 'findings')!.items;
+
+  it('draws, with the marks of the findings put on its base, exactly what oneLineOf draws', () => {
+    expect(svgOf(oneLineWithMarks(oneLineBaseOf(before), before.findings))).toBe(svgOf(oneLineOf(before)));
+  });
+
+  it("keeps the base after a setting edit, and the kept base with the new findings' marks is the diagram drawn afresh", () => {
+    // The MCC feeder's short-time delay brought down from 0.2 to 0.1 s.
+    const after = analysed(edited(['devices', 2, 'characteristic', 'shortTime', 'delay'], 0.1));
+    expect(after.faults).toBe(before.faults);
+    expect(sameOneLineBase(before, after)).toBe(true);
+    const drawnAfresh = oneLineOf(after);
+    // The edit changes which elements a failing or warning finding concerns: the marks are not those of before.
+    expect(marksOf(drawnAfresh)).not.toEqual(marksOf(oneLineOf(before)));
+    expect(svgOf(oneLineWithMarks(oneLineBaseOf(before), after.findings))).toBe(svgOf(drawnAfresh));
+  });
+
+  it('draws a new base when a label changes (a name, a rating) or the network does', () => {
+    for (const [path, value] of [
+      [['devices', 1, 'name'], 'Main breaker'],
+      [['devices', 1, 'rating'], '1600 A'],
+      [['name'], 'Another study'],
+      [['buses', 0, 'name'], 'Incoming'],
+    ] as const) {
+      const after = analysed(edited([...path], value));
+      expect(sameOneLineBase(before, after), path.join('.')).toBe(false);
+    }
   });
 });
