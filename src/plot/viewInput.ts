@@ -4,7 +4,7 @@ import type { Finding } from '../engine/checks/finding.ts';
 import { fastestOf, groundFaultBandOf, scaleBand, type Band } from '../engine/band.ts';
 import { CAUTION } from '../engine/caution.ts';
 import { busFaultLineOf } from './busFaultLine.ts';
-import { longTimeRampBasis } from '../engine/devices/index.ts';
+import { longTimeRampBasis } from '../engine/devices/tripUnit.ts';
 import { locationBusOf } from '../engine/network/index.ts';
 import { deviceFaultOf, largestFaultOf } from '../engine/fault/index.ts';
 import {

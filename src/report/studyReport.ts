@@ -1,6 +1,6 @@
 import type { Analysis } from '../engine/analysis.ts';
 import { CAUTIONS } from '../engine/caution.ts';
-import { formatAmps, formatVolts, significant } from '../engine/quantity/index.ts';
+import { formatAmps, formatVolts, significant } from '../engine/quantity/format.ts';
 import type { Finding, Severity } from '../engine/checks/finding.ts';
 import { findingRows, scenarioCountsOf } from '../engine/report/findingsTable.ts';
 import { RECOMMENDATION_NOTE, settingsTableOf } from '../engine/report/settingsTable.ts';

@@ -1,7 +1,7 @@
 import type { Analysis } from '../../engine/analysis.ts';
 import { CAUTION } from '../../engine/caution.ts';
 import type { Severity } from '../../engine/checks/finding.ts';
-import { formatAmps, formatVolts, significant } from '../../engine/quantity/index.ts';
+import { formatAmps, formatVolts, significant } from '../../engine/quantity/format.ts';
 import { switchSettingsOf, type SwitchSetting } from '../../engine/scenario/index.ts';
 import { sameNetworkInputs } from '../../engine/network/sameNetworkInputs.ts';
 import type { Device, Study } from '../../engine/study/index.ts';
