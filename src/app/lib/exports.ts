@@ -1,6 +1,5 @@
 import type { Paper } from '../../plot/pdf.ts';
 import type { Drawing } from '../../plot/svg.ts';
-import type { StudyReport } from '../../report/studyReport.ts';
 import { downloadBlob } from './download.ts';
 import { loadPdfFonts } from './pdfFonts.ts';
 
@@ -100,13 +99,11 @@ export async function downloadPdf(fileName: string, drawing: Drawing, page: Expo
 }
 
 /**
- * Prints the study report to PDF on the chosen page with the report's `pdfOfReport` (as `discern
- * report --out x.pdf` does) and downloads it, DejaVu Sans embedded.
- * @example await downloadReportPdf('study-report.pdf', studyReportOf(analysis), { paper: 'letter', orientation: 'portrait' })
+ * Downloads a PDF written elsewhere (the study report, written in its worker).
+ * @example downloadPdfBytes('study-report.pdf', written.pdf)
  */
-export async function downloadReportPdf(fileName: string, report: StudyReport, page: ExportPage): Promise<void> {
-  const [{ pdfOfReport }, fonts] = await Promise.all([import('../../report/reportPdf.ts'), loadPdfFonts()]);
-  downloadBlob(fileName, pdfBlobOf(await pdfOfReport(report, page, { fonts })));
+export function downloadPdfBytes(fileName: string, bytes: Uint8Array): void {
+  downloadBlob(fileName, pdfBlobOf(bytes));
 }
 
 // Accepts a PDF's bytes; a Blob of them with the PDF media type.

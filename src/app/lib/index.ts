@@ -32,7 +32,7 @@ export { downloadBlob, downloadText, fileStemOf, readFileText } from './download
 export {
   downloadPdf,
   downloadPng,
-  downloadReportPdf,
+  downloadPdfBytes,
   downloadSvg,
   EXPORT_PAPERS,
   exportPageOf,

@@ -1,7 +1,7 @@
 import type { StudyContext } from '../state/context.ts';
 import { csvReport, markdownReport } from '../../engine/report/index.ts';
-import { downloadText, fileStemOf } from './download.ts';
-import { downloadPdf, downloadPng, downloadReportPdf, downloadSvg, exportPageOf, type ExportKind } from './exports.ts';
+import { downloadBlob, downloadText, fileStemOf } from './download.ts';
+import { downloadPdf, downloadPdfBytes, downloadPng, downloadSvg, exportPageOf, type ExportKind } from './exports.ts';
 import { probesCsv } from './probeCsv.ts';
 import { exportRefusalOf } from './problemNotes.ts';
 
@@ -39,27 +39,32 @@ export async function runExport(request: ExportKind, context: StudyContext): Pro
       return downloadText(`${stem}-${view}-probes.csv`, probesCsv(sheet.pinned), 'text/csv');
     case 'study-json':
       return downloadText(`${stem}.json`, `${JSON.stringify(study.document, null, 2)}\n`, 'application/json');
-    case 'report-html': {
-      // The report's modules load only when a report is asked for, so the workbench starts light.
-      const { studyReportOf, htmlOfReport } = await import('../../report/index.ts');
-      const report = studyReportOf(checked(context));
-      return downloadText(`${stem}-report.html`, htmlOfReport(report, exportPageOf(request)), 'text/html');
-    }
+    case 'report-html':
     case 'report-pdf': {
-      const { studyReportOf } = await import('../../report/studyReport.ts');
-      return downloadReportPdf(`${stem}-report.pdf`, studyReportOf(checked(context)), exportPageOf(request));
+      // Written in the report's worker from the study as it is now, as the command line writes it.
+      const format = kind === 'report-pdf' ? 'pdf' : 'html';
+      const { bytes } = await context.reports.answer(study.study!, {
+        kind: 'report',
+        format,
+        page: exportPageOf(request),
+      });
+      if (format === 'pdf') return downloadPdfBytes(`${stem}-report.pdf`, bytes);
+      return downloadBlob(
+        `${stem}-report.html`,
+        new Blob([bytes as Uint8Array<ArrayBuffer>], { type: 'text/html;charset=utf-8' }),
+      );
     }
   }
 }
 
-/** The exports written from the checks' findings, which wait for them rather than leave them out. */
-const FROM_FINDINGS = new Set<string>(['findings-md', 'findings-csv', 'report-html', 'report-pdf']);
+/** The exports written from the checks' findings, which wait for them rather than leave them out (a report works its own out). */
+const FROM_FINDINGS = new Set<string>(['findings-md', 'findings-csv']);
 
 /**
  * Why an export cannot be made now, in the words `runExport` throws with, or undefined: the study has
  * problems and the export would show the last valid study, or it needs the checks' findings and they
  * are still running. Asked before a long export says it is under way.
- * @example exportRefusalFor('report-html', context) // 'the checks are still running: …' while they run
+ * @example exportRefusalFor('findings-md', context) // 'the checks are still running: …' while they run
  */
 export function exportRefusalFor(request: ExportKind, { study, analysis }: StudyContext): string | undefined {
   const kind = typeof request === 'string' ? request : request.kind;
@@ -71,8 +76,7 @@ export function exportRefusalFor(request: ExportKind, { study, analysis }: Study
 
 const STILL_RUNNING = 'the checks are still running: export the findings in a moment';
 
-// The analysis with the checks' findings, asked for again once a report's modules have loaded (an edit
-// made meanwhile sets the checks running again).
+// The analysis with the checks' findings.
 function checked({ analysis }: StudyContext) {
   if (!analysis.analysis || analysis.pending) throw new Error(STILL_RUNNING);
   return analysis.analysis;

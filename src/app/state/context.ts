@@ -3,20 +3,25 @@ import type { StudyState } from './StudyState.svelte.ts';
 import type { AnalysisState } from './AnalysisState.svelte.ts';
 import type { ProbeState } from './ProbeState.svelte.ts';
 import type { SheetState } from './SheetState.svelte.ts';
-import type { SettingsAsker } from './SettingsAsker.ts';
+import type { StudyAsker } from './StudyAsker.ts';
+import type { SettingsAnswer, SettingsQuestion } from '../worker/settingsQuestions.ts';
+import type { ReportAnswer, ReportQuestion } from '../worker/reportQuestions.ts';
 
-/** Everything the workbench's components share: the study, its analysis, the probe, the sheet, and where setting windows are worked out. */
+/** Everything the workbench's components share: the study, its analysis, the probe, the sheet, and where windows, proposals and reports are worked out. */
 export interface StudyContext {
   study: StudyState;
   analysis: AnalysisState;
   probe: ProbeState;
   sheet: SheetState;
-  settings: SettingsAsker;
+  /** Setting windows and proposals, worked out in their worker. */
+  settings: StudyAsker<SettingsQuestion, SettingsAnswer>;
+  /** Study reports, written in their worker. */
+  reports: StudyAsker<ReportQuestion, ReportAnswer>;
 }
 
 const KEY = Symbol('discern.study');
 
-/** Makes the workbench state available to every component below. @example setStudyContext({ study, analysis, probe, sheet, settings }) */
+/** Makes the workbench state available to every component below. @example setStudyContext({ study, analysis, probe, sheet, settings, reports }) */
 export function setStudyContext(context: StudyContext): StudyContext {
   return setContext(KEY, context);
 }

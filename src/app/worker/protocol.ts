@@ -2,7 +2,6 @@ import type { Finding, Severity } from '../../engine/checks/finding.ts';
 import type { PairCheck } from '../../engine/checks/coordination.ts';
 import type { Study } from '../../engine/study/index.ts';
 import type { AnalysisChanges } from './changes.ts';
-import type { SettingsAnswer, SettingsQuestion } from './settingsQuestions.ts';
 import type { StudyDelta } from './studyDelta.ts';
 
 /** Main thread → worker: analyse this parsed study (plain data; `seq` orders the replies). */
@@ -28,11 +27,11 @@ export type AnalyseReply =
   | { seq: number; ok: false; message: string };
 
 /**
- * Main thread → settings' worker: a question about a study, which crosses whole the first time and
- * then as its changes from the study sent before (the worker keeps the last one).
+ * Main thread → a worker answering questions about the study (setting windows and proposals; study
+ * reports): the question, with the study whole the first time and then as its changes from the study
+ * sent before (the worker keeps the last one).
  */
-export type SettingsRequest = { seq: number; question: SettingsQuestion } & ({ study: Study } | { delta: StudyDelta });
+export type QuestionRequest<Q> = { seq: number; question: Q } & ({ study: Study } | { delta: StudyDelta });
 
-/** Settings' worker → main thread: the answer as plain data, or why there is none. */
-export type SettingsReply =
-  { seq: number; ok: true; answer: SettingsAnswer } | { seq: number; ok: false; message: string };
+/** Such a worker → main thread: the answer as plain data, or why there is none. */
+export type QuestionReply<A> = { seq: number; ok: true; answer: A } | { seq: number; ok: false; message: string };

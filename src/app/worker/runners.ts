@@ -2,8 +2,9 @@ import { AnalysisMemo } from '../../engine/incremental.ts';
 import { ChangeTracker } from './changes.ts';
 import { checksOf } from './checks.ts';
 import type { CheckRunner } from '../state/AnalysisState.svelte.ts';
-import type { AnalyseReply, AnalyseRequest, SettingsReply, SettingsRequest, WorkerRequest } from './protocol.ts';
-import { answerOf, type SettingsQuestion } from './settingsQuestions.ts';
+import type { AnalyseReply, AnalyseRequest, QuestionReply, QuestionRequest, WorkerRequest } from './protocol.ts';
+import type { ReportAnswer, ReportQuestion } from './reportQuestions.ts';
+import type { SettingsAnswer, SettingsQuestion } from './settingsQuestions.ts';
 import { studyDeltaOf } from './studyDelta.ts';
 import type { Study } from '../../engine/study/index.ts';
 
@@ -35,7 +36,7 @@ export function workerRunner(): CheckRunner {
 
 /**
  * Where a worker's script is. The built page has each worker as an entry of its own build (`checks`,
- * `settings`), beside the page's own chunks and sharing the engine's with them (the build writes its
+ * `settings`, `report`), beside the page's own chunks and sharing the engine's with them (the build writes its
  * hashed name in for the placeholder; see `vite.config.ts`); the dev server serves the source module.
  * The name is put together at run time so the bundler does not make a separate worker bundle of it.
  */
@@ -47,6 +48,11 @@ function checksWorkerUrl(): URL {
 function settingsWorkerUrl(): URL {
   const source = ['.', 'settings.worker.ts'].join('/');
   return new URL(import.meta.env.DEV ? source : './discern-settings-worker.js', import.meta.url);
+}
+
+function reportWorkerUrl(): URL {
+  const source = ['.', 'report.worker.ts'].join('/');
+  return new URL(import.meta.env.DEV ? source : './discern-report-worker.js', import.meta.url);
 }
 
 /**
@@ -72,33 +78,32 @@ export function inlineRunner(): CheckRunner {
   return runner;
 }
 
-/** Where setting windows and proposals are worked out: a Web Worker in the browser, or in-line where there is none. */
-export interface SettingsRunner {
-  post(request: { seq: number; study: Study; question: SettingsQuestion }): void;
-  onreply: ((reply: SettingsReply) => void) | undefined;
+/** Where questions about the study are answered: a Web Worker in the browser, or in-line where there is none. */
+export interface QuestionRunner<Q, A> {
+  post(request: { seq: number; study: Study; question: Q }): void;
+  onreply: ((reply: QuestionReply<A>) => void) | undefined;
 }
 
 /**
- * Works out setting windows and proposals in a module Web Worker of their own, started with the first
- * question (most sessions never open the Window tab), so that a window does not wait for the checks
- * of an edit. The study crosses as the checks' does: whole once, then as its changes.
- * @example new SettingsAsker(settingsWorkerRunner())
+ * Answers questions about the study in a module Web Worker, started with the first question (most
+ * sessions never ask one), so that the answer waits neither on the page nor on the checks of an edit.
+ * The study crosses as the checks' does: whole once, then as its changes.
  */
-export function settingsWorkerRunner(): SettingsRunner {
+function questionWorkerRunner<Q, A>(url: () => URL, name: string): QuestionRunner<Q, A> {
   let worker: Worker | undefined;
   let sent: Study | undefined;
-  const runner: SettingsRunner = {
+  const runner: QuestionRunner<Q, A> = {
     post: ({ seq, study, question }) => {
       if (!worker) {
-        worker = new Worker(settingsWorkerUrl(), { type: 'module', name: 'settings' });
-        worker.onmessage = (event: MessageEvent<SettingsReply>) => runner.onreply?.(event.data);
+        worker = new Worker(url(), { type: 'module', name });
+        worker.onmessage = (event: MessageEvent<QuestionReply<A>>) => runner.onreply?.(event.data);
         worker.onerror = (event) => {
           // What the worker holds is unknown after an error: the next study crosses whole.
           sent = undefined;
           runner.onreply?.({ seq: -1, ok: false, message: event.message });
         };
       }
-      const message: SettingsRequest = sent
+      const message: QuestionRequest<Q> = sent
         ? { seq, question, delta: studyDeltaOf(sent, study) }
         : { seq, question, study };
       sent = study;
@@ -110,21 +115,48 @@ export function settingsWorkerRunner(): SettingsRunner {
 }
 
 /**
- * Answers on the calling thread, on a later task (same contract as the worker). Used where no Worker
- * exists, and by tests.
- * @example new SettingsAsker(inlineSettingsRunner())
+ * Answers on the calling thread, on a later task (same contract as the worker), loading the answering
+ * module only when first asked. Used where no Worker exists, and by tests.
  */
-export function inlineSettingsRunner(): SettingsRunner {
-  const runner: SettingsRunner = {
-    post: ({ seq, study, question }) =>
-      setTimeout(() => {
+function inlineQuestionRunner<Q, A>(
+  answerOf: () => Promise<(study: Study, question: Q) => A | Promise<A>>,
+): QuestionRunner<Q, A> {
+  // Answered one after another, in the order asked, as a worker answers its messages.
+  let answered: Promise<void> = Promise.resolve();
+  const runner: QuestionRunner<Q, A> = {
+    post: ({ seq, study, question }) => {
+      const later = new Promise((resolve) => setTimeout(resolve, 0));
+      answered = answered.then(async () => {
+        await later;
         try {
-          runner.onreply?.({ seq, ok: true, answer: answerOf(study, question) });
+          const answer = await (await answerOf())(study, question);
+          runner.onreply?.({ seq, ok: true, answer });
         } catch (error) {
           runner.onreply?.({ seq, ok: false, message: (error as Error).message });
         }
-      }, 0),
+      });
+    },
     onreply: undefined,
   };
   return runner;
+}
+
+/** Setting windows and proposals in their worker. @example new StudyAsker(settingsWorkerRunner(), { newestOnly: true }) */
+export function settingsWorkerRunner(): QuestionRunner<SettingsQuestion, SettingsAnswer> {
+  return questionWorkerRunner(settingsWorkerUrl, 'settings');
+}
+
+/** Setting windows and proposals on the calling thread. @example new StudyAsker(inlineSettingsRunner(), { newestOnly: true }) */
+export function inlineSettingsRunner(): QuestionRunner<SettingsQuestion, SettingsAnswer> {
+  return inlineQuestionRunner(async () => (await import('./settingsQuestions.ts')).answerOf);
+}
+
+/** Study reports written in their worker. @example new StudyAsker(reportWorkerRunner()) */
+export function reportWorkerRunner(): QuestionRunner<ReportQuestion, ReportAnswer> {
+  return questionWorkerRunner(reportWorkerUrl, 'report');
+}
+
+/** Study reports written on the calling thread. @example new StudyAsker(inlineReportRunner()) */
+export function inlineReportRunner(): QuestionRunner<ReportQuestion, ReportAnswer> {
+  return inlineQuestionRunner(async () => (await import('./reportQuestions.ts')).reportOf);
 }

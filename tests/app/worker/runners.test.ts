@@ -4,7 +4,8 @@ import { inlineRunner, inlineSettingsRunner } from '../../../src/app/worker/runn
 import { settingWindowOf } from '../../../src/engine/window/index.ts';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
-import type { AnalyseReply, SettingsReply } from '../../../src/app/worker/protocol.ts';
+import type { AnalyseReply, QuestionReply } from '../../../src/app/worker/protocol.ts';
+import type { SettingsAnswer } from '../../../src/app/worker/settingsQuestions.ts';
 import { resultsWith } from '../../../src/app/worker/changes.ts';
 
 const study = parseStudy(readFileSync(new URL('../../../demo/harrowmere-overlap.json', import.meta.url), 'utf8'));
@@ -49,7 +50,7 @@ describe('runners', () => {
   it('inlineSettingsRunner() answers a question on a later task, and a refusal with its message', async () => {
     const runner = inlineSettingsRunner();
     expect(runner.onreply).toBeUndefined();
-    const replies: SettingsReply[] = [];
+    const replies: QuestionReply<SettingsAnswer>[] = [];
     const two = new Promise<void>((resolve) => {
       runner.onreply = (reply) => {
         replies.push(reply);

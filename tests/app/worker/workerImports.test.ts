@@ -16,7 +16,9 @@ function modulesLoadedFrom(entry: string): Map<string, string[]> {
       (m) => m[1],
     );
     loaded.set(file, specifiers);
-    for (const specifier of specifiers) if (specifier.startsWith('.')) pending.push(resolve(dirname(file), specifier));
+    // Source modules only: an asset's URL (`…/DejaVuSans.ttf?url`) loads nothing.
+    for (const specifier of specifiers)
+      if (specifier.startsWith('.') && specifier.endsWith('.ts')) pending.push(resolve(dirname(file), specifier));
   }
   return loaded;
 }
@@ -50,6 +52,27 @@ describe("the settings' worker", () => {
     const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
     expect(files).toContain('src/engine/window/settingWindow.ts');
     expect(files).toContain('src/engine/window/proposal.ts');
+  });
+
+  it("loads no unit parser and no schema, as the checks' worker", () => {
+    expect(importersOf('mathjs')).toEqual([]);
+    expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
+  });
+});
+
+describe("the report's worker", () => {
+  const loaded = modulesLoadedFrom('src/app/worker/report.worker.ts');
+  const importersOf = (name: string) =>
+    [...loaded].filter(([, specifiers]) => specifiers.includes(name)).map(([file]) => file.slice(ROOT.length + 1));
+
+  it('loads the report, its PDF writer and every check', () => {
+    const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
+    for (const file of [
+      'src/report/studyReport.ts',
+      'src/report/reportPdf.ts',
+      'src/engine/scenario/scenarioAnalysis.ts',
+    ])
+      expect(files).toContain(file);
   });
 
   it("loads no unit parser and no schema, as the checks' worker", () => {

@@ -1,12 +1,14 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { SettingsAsker, type SettingsOutcome } from '../../../src/app/state/SettingsAsker.ts';
-import type { SettingsRunner } from '../../../src/app/worker/runners.ts';
-import { answerOf } from '../../../src/app/worker/settingsQuestions.ts';
+import { StudyAsker, type Outcome } from '../../../src/app/state/StudyAsker.ts';
+import type { QuestionRunner } from '../../../src/app/worker/runners.ts';
+import { answerOf, type SettingsAnswer, type SettingsQuestion } from '../../../src/app/worker/settingsQuestions.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
 
 const study = parseStudy(readFileSync(new URL('../../../demo/harrowmere-full.json', import.meta.url), 'utf8'));
 
+type SettingsRunner = QuestionRunner<SettingsQuestion, SettingsAnswer>;
+type SettingsOutcome = Outcome<SettingsAnswer>;
 type Posted = Parameters<SettingsRunner['post']>[0];
 
 /** A runner that holds questions until the test answers them with the engine. */
@@ -34,16 +36,16 @@ function heldRunner() {
 const windowOf = (outcome: SettingsOutcome | undefined) =>
   outcome?.ok && outcome.answer.kind === 'window' ? outcome.answer.window?.deviceId : undefined;
 
-describe('SettingsAsker', () => {
+describe('StudyAsker', () => {
   it('has the expected defaults: nothing sent until asked', () => {
     const runner = heldRunner();
-    new SettingsAsker(runner);
+    new StudyAsker(runner, { newestOnly: true });
     expect(runner.posted).toEqual([]);
   });
 
-  it('sends one question at a time, and of those asked meanwhile only the newest of its kind', () => {
+  it('sends one question at a time, and with newestOnly, of those asked meanwhile only the newest of its kind', () => {
     const runner = heldRunner();
-    const asker = new SettingsAsker(runner);
+    const asker = new StudyAsker(runner, { newestOnly: true });
     const got: (string | undefined)[] = [];
     asker.ask(study, { kind: 'window', deviceId: 'MAIN' }, (o) => got.push(windowOf(o)));
     asker.ask(study, { kind: 'window', deviceId: 'FDR-MCC' }, (o) => got.push(windowOf(o)));
@@ -61,7 +63,7 @@ describe('SettingsAsker', () => {
 
   it('keeps a proposal asked while a window is worked out: questions of another kind are not dropped', () => {
     const runner = heldRunner();
-    const asker = new SettingsAsker(runner);
+    const asker = new StudyAsker(runner, { newestOnly: true });
     const kinds: string[] = [];
     asker.ask(study, { kind: 'window', deviceId: 'MAIN' }, (o) => kinds.push(o.ok ? o.answer.kind : 'error'));
     asker.ask(study, { kind: 'proposal' }, (o) => kinds.push(o.ok ? o.answer.kind : 'error'));
@@ -75,7 +77,7 @@ describe('SettingsAsker', () => {
 
   it('never answers a cancelled question, whether it was waiting or already sent', () => {
     const runner = heldRunner();
-    const asker = new SettingsAsker(runner);
+    const asker = new StudyAsker(runner, { newestOnly: true });
     const got: (string | undefined)[] = [];
     const cancelSent = asker.ask(study, { kind: 'window', deviceId: 'MAIN' }, (o) => got.push(windowOf(o)));
     const cancelWaiting = asker.ask(study, { kind: 'proposal' }, () => got.push('proposal'));
@@ -91,7 +93,7 @@ describe('SettingsAsker', () => {
 
   it("passes a failure's message on, and takes a worker that failed to load (seq -1) as the answer to the question sent", () => {
     const runner = heldRunner();
-    const asker = new SettingsAsker(runner);
+    const asker = new StudyAsker(runner, { newestOnly: true });
     const got: SettingsOutcome[] = [];
     asker.ask(study, { kind: 'proposal' }, (o) => got.push(o));
     asker.ask(study, { kind: 'window', deviceId: 'MAIN' }, (o) => got.push(o));
@@ -105,12 +107,32 @@ describe('SettingsAsker', () => {
 
   it('ignores a reply to a question it did not send', () => {
     const runner = heldRunner();
-    const asker = new SettingsAsker(runner);
+    const asker = new StudyAsker(runner, { newestOnly: true });
     const got: SettingsOutcome[] = [];
     asker.ask(study, { kind: 'window', deviceId: 'MAIN' }, (o) => got.push(o));
     runner.fail(99, 'stray');
     expect(got).toEqual([]);
     runner.answer(0);
     expect(got).toHaveLength(1);
+  });
+
+  it('without newestOnly, answers every question in the order asked, and as a promise', async () => {
+    const runner = heldRunner();
+    const asker = new StudyAsker(runner);
+    const answers = [
+      asker.answer(study, { kind: 'window', deviceId: 'MAIN' }),
+      asker.answer(study, { kind: 'window', deviceId: 'FDR-MCC' }),
+      asker.answer(study, { kind: 'window', deviceId: 'FDR-DOCK' }),
+    ];
+    for (let i = 0; i < 3; i++) runner.answer(i);
+    const got = await Promise.all(answers);
+    expect(got.map((answer) => (answer.kind === 'window' ? answer.window?.deviceId : undefined))).toEqual([
+      'MAIN',
+      'FDR-MCC',
+      'FDR-DOCK',
+    ]);
+    const refused = asker.answer(study, { kind: 'proposal' });
+    runner.fail(runner.posted[3].seq, 'a study with scenarios');
+    await expect(refused).rejects.toThrow('a study with scenarios');
   });
 });
