@@ -6,11 +6,12 @@ import { svelte } from '@sveltejs/vite-plugin-svelte';
 const WORKER_PLACEHOLDERS = {
   checks: './discern-checks-worker.js',
   settings: './discern-settings-worker.js',
+  oneLine: './discern-one-line-worker.js',
   report: './discern-report-worker.js',
 };
 
 /**
- * The workers (the checks'; setting windows' and proposals'; the study report's) are built as further entries of the
+ * The workers (the checks'; setting windows' and proposals'; the one-line diagram's; the study report's) are built as further entries of the
  * page's own build, not as separate worker bundles, so the engine code they load with the page
  * (bands, fault levels, checks) sits in chunks they share and a browser downloads once. The page
  * learns each worker entry's hashed file name here, once every chunk has its name (see
@@ -85,6 +86,7 @@ export default defineConfig({
         index: 'index.html',
         checks: 'src/app/worker/analysis.worker.ts',
         settings: 'src/app/worker/settings.worker.ts',
+        oneLine: 'src/app/worker/oneLine.worker.ts',
         report: 'src/app/worker/report.worker.ts',
       },
     },

@@ -345,7 +345,7 @@ export const benchmarks: Benchmark[] = [
       const { start, onDemand } = await bundleSizes();
       return single(
         start / 1000,
-        `plus ${(onDemand / 1000).toFixed(0)} kB loaded on demand (the Window tab's and the report's code, the PDF writer and its font)`,
+        `plus ${(onDemand / 1000).toFixed(0)} kB loaded on demand (the workers' own code, the PDF writer and its font)`,
       );
     },
   },

@@ -140,7 +140,8 @@ describe('operating scenarios in Chromium', () => {
       /de-energised in the scenario "On generator"/,
     );
     await page.getByTestId('tab-one-line').click();
-    await expect(page.locator('[data-testid="one-line-svg"] [data-id="G1"]').count()).resolves.toBeGreaterThan(0);
+    // The diagram is drawn in its worker: it comes a moment after the tab opens.
+    await page.locator('[data-testid="one-line-svg"] [data-id="G1"]').first().waitFor({ state: 'attached' });
     await expect(page.locator('[data-testid="one-line-svg"] [data-id="SWBD"]').count()).resolves.toBe(0);
     await page.screenshot({ path: `${SHOTS}scenario-one-line-generator.png` });
     expect(pageErrors(page)).toEqual([]);

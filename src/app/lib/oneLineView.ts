@@ -1,3 +1,6 @@
+import type { Primitive } from '../../plot/geometry.ts';
+import { inkBoundsOf, type Edges } from '../../plot/inkBounds.ts';
+import { textWidth } from '../../plot/textWidth.ts';
 import type { OneLine, OneLinePlace } from '../../plot/oneLine/index.ts';
 import type { Selection } from './selection.ts';
 
@@ -141,4 +144,12 @@ export function visibleBox(box: ViewBox, panel: { width: number; height: number 
   }
   const height = box.width * aspect;
   return { ...box, y: box.y - (height - box.height) / 2, height };
+}
+
+/**
+ * Each item's ink on screen (`inkBoundsOf`), text measured in the panel's face (`textWidth`).
+ * @example screenInksOf(diagram.layers[0].items)[0] // [left, top, right, bottom]
+ */
+export function screenInksOf(items: readonly Primitive[]): Edges[] {
+  return items.map((item) => inkBoundsOf(item, (text) => textWidth(text.text, 1, text.weight ?? 'normal')));
 }

@@ -6,8 +6,9 @@ import type { SheetState } from './SheetState.svelte.ts';
 import type { StudyAsker } from './StudyAsker.ts';
 import type { SettingsAnswer, SettingsQuestion } from '../worker/settingsQuestions.ts';
 import type { ReportAnswer, ReportQuestion } from '../worker/reportQuestions.ts';
+import type { OneLineAnswer, OneLineQuestion } from '../worker/oneLineQuestions.ts';
 
-/** Everything the workbench's components share: the study, its analysis, the probe, the sheet, and where windows, proposals and reports are worked out. */
+/** Everything the workbench's components share: the study, its analysis, the probe, the sheet, and where windows, proposals, one-line diagrams and reports are worked out. */
 export interface StudyContext {
   study: StudyState;
   analysis: AnalysisState;
@@ -15,13 +16,15 @@ export interface StudyContext {
   sheet: SheetState;
   /** Setting windows and proposals, worked out in their worker. */
   settings: StudyAsker<SettingsQuestion, SettingsAnswer>;
+  /** One-line diagrams, drawn in their worker. */
+  oneLine: StudyAsker<OneLineQuestion, OneLineAnswer>;
   /** Study reports, written in their worker. */
   reports: StudyAsker<ReportQuestion, ReportAnswer>;
 }
 
 const KEY = Symbol('discern.study');
 
-/** Makes the workbench state available to every component below. @example setStudyContext({ study, analysis, probe, sheet, settings, reports }) */
+/** Makes the workbench state available to every component below. @example setStudyContext({ study, analysis, probe, sheet, settings, oneLine, reports }) */
 export function setStudyContext(context: StudyContext): StudyContext {
   return setContext(KEY, context);
 }

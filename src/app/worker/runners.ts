@@ -3,6 +3,7 @@ import { ChangeTracker } from './changes.ts';
 import { checksOf } from './checks.ts';
 import type { CheckRunner } from '../state/AnalysisState.svelte.ts';
 import type { AnalyseReply, AnalyseRequest, QuestionReply, QuestionRequest, WorkerRequest } from './protocol.ts';
+import type { OneLineAnswer, OneLineQuestion } from './oneLineQuestions.ts';
 import type { ReportAnswer, ReportQuestion } from './reportQuestions.ts';
 import type { SettingsAnswer, SettingsQuestion } from './settingsQuestions.ts';
 import { studyDeltaOf } from './studyDelta.ts';
@@ -36,7 +37,7 @@ export function workerRunner(): CheckRunner {
 
 /**
  * Where a worker's script is. The built page has each worker as an entry of its own build (`checks`,
- * `settings`, `report`), beside the page's own chunks and sharing the engine's with them (the build writes its
+ * `settings`, `oneLine`, `report`), beside the page's own chunks and sharing the engine's with them (the build writes its
  * hashed name in for the placeholder; see `vite.config.ts`); the dev server serves the source module.
  * The name is put together at run time so the bundler does not make a separate worker bundle of it.
  */
@@ -48,6 +49,11 @@ function checksWorkerUrl(): URL {
 function settingsWorkerUrl(): URL {
   const source = ['.', 'settings.worker.ts'].join('/');
   return new URL(import.meta.env.DEV ? source : './discern-settings-worker.js', import.meta.url);
+}
+
+function oneLineWorkerUrl(): URL {
+  const source = ['.', 'oneLine.worker.ts'].join('/');
+  return new URL(import.meta.env.DEV ? source : './discern-one-line-worker.js', import.meta.url);
 }
 
 function reportWorkerUrl(): URL {
@@ -159,4 +165,14 @@ export function reportWorkerRunner(): QuestionRunner<ReportQuestion, ReportAnswe
 /** Study reports written on the calling thread. @example new StudyAsker(inlineReportRunner()) */
 export function inlineReportRunner(): QuestionRunner<ReportQuestion, ReportAnswer> {
   return inlineQuestionRunner(async () => (await import('./reportQuestions.ts')).reportOf);
+}
+
+/** One-line diagrams drawn in their worker. @example new StudyAsker(oneLineWorkerRunner(), { newestOnly: true }) */
+export function oneLineWorkerRunner(): QuestionRunner<OneLineQuestion, OneLineAnswer> {
+  return questionWorkerRunner(oneLineWorkerUrl, 'one-line');
+}
+
+/** One-line diagrams drawn on the calling thread. @example new StudyAsker(inlineOneLineRunner(), { newestOnly: true }) */
+export function inlineOneLineRunner(): QuestionRunner<OneLineQuestion, OneLineAnswer> {
+  return inlineQuestionRunner(async () => (await import('./oneLineQuestions.ts')).oneLineBasesOf);
 }

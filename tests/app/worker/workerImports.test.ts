@@ -80,3 +80,20 @@ describe("the report's worker", () => {
     expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
   });
 });
+
+describe("the one-line's worker", () => {
+  const loaded = modulesLoadedFrom('src/app/worker/oneLine.worker.ts');
+  const importersOf = (name: string) =>
+    [...loaded].filter(([, specifiers]) => specifiers.includes(name)).map(([file]) => file.slice(ROOT.length + 1));
+
+  it('loads the one-line diagram and the fault levels its buses are labelled with', () => {
+    const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
+    expect(files).toContain('src/plot/oneLine/oneLine.ts');
+    expect(files).toContain('src/engine/fault/faultLevels.ts');
+  });
+
+  it("loads no unit parser and no schema, as the checks' worker", () => {
+    expect(importersOf('mathjs')).toEqual([]);
+    expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
+  });
+});
