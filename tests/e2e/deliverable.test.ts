@@ -58,6 +58,39 @@ describe('the study deliverable in the workbench', () => {
     await context.close();
   });
 
+  it('redraws the diagram after an edit of what it draws, and moves only its finding marks after a setting edit', async () => {
+    const { context, page } = await bench.open();
+    await page.getByTestId('tab-one-line').click();
+    const diagram = page.getByTestId('one-line-svg');
+    await diagram.waitFor();
+    // The site is printed under the title: an edit of it redraws the diagram (in its worker).
+    await page.getByTestId('details-open').click();
+    const dialog = page.getByTestId('study-details');
+    await dialog.getByTestId('detail-site').fill('Bay 4 redrawn');
+    await dialog.getByTestId('detail-site').press('Tab');
+    await page.keyboard.press('Escape');
+    await expect
+      .poll(() => diagram.locator('text[data-role="one-line-details"]').first().textContent())
+      .toMatch(/^Bay 4 redrawn/);
+    // The MCC feeder's short-time delay down to 0.1 s: the findings, and so the marks, change.
+    const marks = () =>
+      diagram
+        .locator('[data-layer="findings"] [data-id]')
+        .evaluateAll((items) => items.map((i) => i.getAttribute('data-id')));
+    const before = await marks();
+    await page.getByTestId('tree-device-FDR-MCC').click();
+    const delay = page.getByTestId(/field-study\.devices\[\d+\]\.characteristic\.shortTime\.delay/);
+    await delay.fill('0.1');
+    await delay.press('Tab');
+    await settled(page);
+    await expect.poll(marks).not.toEqual(before);
+    await expect(diagram.locator('text[data-role="one-line-details"]').first().textContent()).resolves.toMatch(
+      /^Bay 4 redrawn/,
+    );
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
   it('a continuation bar of a wide bus selects the bus there, zoomed in, without moving the view', async () => {
     const { context, page } = await bench.open();
     await page.getByTestId('demo-menu').selectOption('harrowmere-full.json');
