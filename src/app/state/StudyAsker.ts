@@ -35,9 +35,13 @@ export class StudyAsker<Q extends { kind: string }, A> {
       const asked = this.#inFlight;
       if (!asked || (reply.seq !== asked.seq && reply.seq >= 0)) return;
       this.#inFlight = undefined;
-      if (!asked.cancelled)
-        asked.reply(reply.ok ? { ok: true, answer: reply.answer } : { ok: false, message: reply.message });
-      this.#next();
+      try {
+        if (!asked.cancelled)
+          asked.reply(reply.ok ? { ok: true, answer: reply.answer } : { ok: false, message: reply.message });
+      } finally {
+        // The next question goes, whatever this one's reply did.
+        this.#next();
+      }
     };
   }
 

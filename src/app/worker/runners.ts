@@ -6,7 +6,7 @@ import type { AnalyseReply, AnalyseRequest, QuestionReply, QuestionRequest, Work
 import type { OneLineAnswer, OneLineQuestion } from './oneLineQuestions.ts';
 import type { ReportAnswer, ReportQuestion } from './reportQuestions.ts';
 import type { SettingsAnswer, SettingsQuestion } from './settingsQuestions.ts';
-import { studyDeltaOf } from './studyDelta.ts';
+import { studyDeltaOf, type StudyDelta } from './studyDelta.ts';
 import type { Study } from '../../engine/study/index.ts';
 
 /**
@@ -16,23 +16,42 @@ import type { Study } from '../../engine/study/index.ts';
  * @example new AnalysisState(study, workerRunner())
  */
 export function workerRunner(): CheckRunner {
-  const worker = new Worker(checksWorkerUrl(), { type: 'module', name: 'checks' });
-  let sent: Study | undefined;
   const runner: CheckRunner = {
-    post: (request) => {
-      const message: WorkerRequest = sent ? { seq: request.seq, delta: studyDeltaOf(sent, request.study) } : request;
-      sent = request.study;
-      worker.postMessage(message);
-    },
+    post: ({ seq, study }) => send(study, (payload): WorkerRequest => ({ seq, ...payload })),
     onreply: undefined,
   };
-  worker.onmessage = (event: MessageEvent<AnalyseReply>) => runner.onreply?.(event.data);
-  worker.onerror = (event) => {
-    // What the worker holds is unknown after an error: the next study crosses whole.
-    sent = undefined;
-    runner.onreply?.({ seq: -1, ok: false, message: event.message });
-  };
+  const send = studyWorker<AnalyseReply>(checksWorkerUrl, 'checks', (reply) => runner.onreply?.(reply));
   return runner;
+}
+
+/**
+ * A module worker that keeps the last study sent to it, started with the first message: `send` gives
+ * it a study whole the first time and then as its changes from the one before. A worker whose script
+ * failed to load, or whose code threw outside a message, answers nothing more: it is let go with a
+ * reply of `seq` -1 saying why, and the next message starts another, the study crossing whole.
+ */
+function studyWorker<R>(
+  url: () => URL,
+  name: string,
+  onreply: (reply: R | { seq: -1; ok: false; message: string }) => void,
+): (study: Study, message: (payload: { study: Study } | { delta: StudyDelta }) => unknown) => void {
+  let worker: Worker | undefined;
+  let sent: Study | undefined;
+  return (study, message) => {
+    if (!worker) {
+      const started = new Worker(url(), { type: 'module', name });
+      started.onmessage = (event: MessageEvent<R>) => onreply(event.data);
+      started.onerror = (event) => {
+        started.terminate();
+        if (worker === started) [worker, sent] = [undefined, undefined];
+        // A script that failed to load gives an event without a message.
+        onreply({ seq: -1, ok: false, message: event.message || `the ${name} worker could not start` });
+      };
+      worker = started;
+    }
+    worker.postMessage(message(sent ? { delta: studyDeltaOf(sent, study) } : { study }));
+    sent = study;
+  };
 }
 
 /**
@@ -96,27 +115,11 @@ export interface QuestionRunner<Q, A> {
  * The study crosses as the checks' does: whole once, then as its changes.
  */
 function questionWorkerRunner<Q, A>(url: () => URL, name: string): QuestionRunner<Q, A> {
-  let worker: Worker | undefined;
-  let sent: Study | undefined;
   const runner: QuestionRunner<Q, A> = {
-    post: ({ seq, study, question }) => {
-      if (!worker) {
-        worker = new Worker(url(), { type: 'module', name });
-        worker.onmessage = (event: MessageEvent<QuestionReply<A>>) => runner.onreply?.(event.data);
-        worker.onerror = (event) => {
-          // What the worker holds is unknown after an error: the next study crosses whole.
-          sent = undefined;
-          runner.onreply?.({ seq: -1, ok: false, message: event.message });
-        };
-      }
-      const message: QuestionRequest<Q> = sent
-        ? { seq, question, delta: studyDeltaOf(sent, study) }
-        : { seq, question, study };
-      sent = study;
-      worker.postMessage(message);
-    },
+    post: ({ seq, study, question }) => send(study, (payload): QuestionRequest<Q> => ({ seq, question, ...payload })),
     onreply: undefined,
   };
+  const send = studyWorker<QuestionReply<A>>(url, name, (reply) => runner.onreply?.(reply));
   return runner;
 }
 

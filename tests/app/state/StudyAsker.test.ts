@@ -98,10 +98,28 @@ describe('StudyAsker', () => {
     asker.ask(study, { kind: 'proposal' }, (o) => got.push(o));
     asker.ask(study, { kind: 'window', deviceId: 'MAIN' }, (o) => got.push(o));
     runner.fail(runner.posted[0].seq, 'a study with scenarios');
-    runner.fail(-1, 'worker script not found');
+    runner.fail(-1, 'the settings worker could not start');
     expect(got).toEqual([
       { ok: false, message: 'a study with scenarios' },
-      { ok: false, message: 'worker script not found' },
+      { ok: false, message: 'the settings worker could not start' },
+    ]);
+    // The questions asked after it are sent and answered (the runner starts another worker).
+    asker.ask(study, { kind: 'window', deviceId: 'FDR-MCC' }, (o) => got.push(o));
+    runner.answer(2);
+    expect(windowOf(got[2])).toBe('FDR-MCC');
+  });
+
+  it('sends the next question even when a reply throws', () => {
+    const runner = heldRunner();
+    const asker = new StudyAsker(runner);
+    asker.ask(study, { kind: 'window', deviceId: 'MAIN' }, () => {
+      throw new Error('a broken reply');
+    });
+    asker.ask(study, { kind: 'window', deviceId: 'FDR-MCC' }, () => {});
+    expect(() => runner.answer(0)).toThrow('a broken reply');
+    expect(runner.posted.map((p) => p.question)).toEqual([
+      { kind: 'window', deviceId: 'MAIN' },
+      { kind: 'window', deviceId: 'FDR-MCC' },
     ]);
   });
 

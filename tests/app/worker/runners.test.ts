@@ -1,6 +1,11 @@
-import { describe, it, expect } from 'vitest';
+import { afterEach, describe, it, expect, vi } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { inlineRunner, inlineSettingsRunner } from '../../../src/app/worker/runners.ts';
+import {
+  inlineRunner,
+  inlineSettingsRunner,
+  settingsWorkerRunner,
+  workerRunner,
+} from '../../../src/app/worker/runners.ts';
 import { settingWindowOf } from '../../../src/engine/window/index.ts';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
@@ -70,5 +75,62 @@ describe('runners', () => {
     });
     expect(replies[1]).toMatchObject({ seq: 4, ok: false });
     expect(replies[1].ok ? '' : replies[1].message).not.toBe('');
+  });
+
+  describe('a worker that fails', () => {
+    /** A stand-in for the browser's Worker: it keeps what it is sent and fails when told. */
+    class HeldWorker {
+      static started: HeldWorker[] = [];
+      sent: unknown[] = [];
+      terminated = false;
+      onmessage: ((event: { data: unknown }) => void) | null = null;
+      onerror: ((event: { message?: string }) => void) | null = null;
+      constructor(readonly url: URL) {
+        HeldWorker.started.push(this);
+      }
+      postMessage(message: unknown) {
+        this.sent.push(message);
+      }
+      terminate() {
+        this.terminated = true;
+      }
+    }
+    afterEach(() => {
+      vi.unstubAllGlobals();
+      HeldWorker.started = [];
+    });
+
+    it('is let go with a plain reason when its script does not load, and the next question starts another, the study whole', () => {
+      vi.stubGlobal('Worker', HeldWorker);
+      const runner = settingsWorkerRunner();
+      const replies: QuestionReply<SettingsAnswer>[] = [];
+      runner.onreply = (reply) => replies.push(reply);
+      const question = { kind: 'window', deviceId: 'MAIN' } as const;
+      runner.post({ seq: 1, study, question });
+      const [first] = HeldWorker.started;
+      // A script that fails to load fires an event without a message.
+      first.onerror!({});
+      expect(first.terminated).toBe(true);
+      expect(replies).toEqual([{ seq: -1, ok: false, message: 'the settings worker could not start' }]);
+      runner.post({ seq: 2, study, question });
+      expect(HeldWorker.started).toHaveLength(2);
+      expect(HeldWorker.started[1].sent).toEqual([{ seq: 2, question, study }]);
+      // Once it has the study, the next crosses as its changes.
+      runner.post({ seq: 3, study, question });
+      expect(HeldWorker.started[1].sent[1]).toEqual({ seq: 3, question, delta: { fields: {}, items: {} } });
+    });
+
+    it("the checks' worker too: the next study is sent to a new worker, whole", () => {
+      vi.stubGlobal('Worker', HeldWorker);
+      const runner = workerRunner();
+      const replies: AnalyseReply[] = [];
+      runner.onreply = (reply) => replies.push(reply);
+      runner.post({ seq: 1, study });
+      HeldWorker.started[0].onerror!({ message: 'Uncaught SyntaxError' });
+      expect(replies).toEqual([{ seq: -1, ok: false, message: 'Uncaught SyntaxError' }]);
+      runner.post({ seq: 2, study });
+      expect(HeldWorker.started.map((w) => w.terminated)).toEqual([true, false]);
+      expect(HeldWorker.started[1].sent).toEqual([{ seq: 2, study }]);
+    });
   });
 });
