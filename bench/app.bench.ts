@@ -238,9 +238,10 @@ async function bundleSizes() {
   // Every asset counts: scripts, styles and the fonts a PDF export fetches.
   const assets = readdirSync(`${ROOT}dist/assets`).filter((f) => /\.(js|css|ttf|woff2?)$/.test(f));
   const gz = (file: string) => gzipSync(readFileSync(`${ROOT}dist/assets/${file}`), { level: 9 }).length;
-  // At start: the scripts and stylesheet named in index.html, and the workers they name (entries of the
+  // At start: the scripts and stylesheet named in index.html, and the workers' entries they name (of the
   // same build, named in the page's code as `new URL("./checks-….js", import.meta.url)`): the checks'
-  // worker starts at once, the settings' entry (a few hundred bytes) with the first setting window.
+  // worker starts at once, the others (a few hundred bytes each) with their first question, and what
+  // they load beyond the page's own chunks is counted as loaded on demand.
   const named = assets.filter((f) => html.includes(`/assets/${f}`));
   const workers = named
     .filter((f) => f.endsWith('.js'))

@@ -182,7 +182,7 @@ describe('the study deliverable in the workbench', () => {
     for (const title of ['Scope and method', 'One-line diagram', 'Fault currents', 'Device settings', 'Findings'])
       expect(html).toContain(title);
     expect(html).toContain('qualified engineer');
-    // The page said it was writing the report before standing still for it, and says nothing once it is done.
+    // The page said it was writing the report while it was written, and says nothing once it is done.
     expect(await page.evaluate(() => (window as unknown as { notices: string[] }).notices)).toEqual([
       'Writing the study report…',
     ]);

@@ -97,4 +97,23 @@ describe('the Window panel in Chromium', () => {
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
+
+  it('a proposal worked out before an edit says so and is not applied', async () => {
+    const { page, context } = await bench.open();
+    await page.getByTestId('demo-menu').selectOption('harrowmere-overlap.json');
+    await settled(page);
+    await page.getByTestId('tab-window').click();
+    await page.getByTestId('propose-study').click();
+    await page.getByTestId('proposal').waitFor();
+    await expect(page.getByTestId('proposal-accept').isEnabled()).resolves.toBe(true);
+    await page.getByTestId('tree-device-FDR-MCC').click();
+    const delay = page.getByTestId(/field-study\.devices\[\d+\]\.characteristic\.shortTime\.delay/);
+    await delay.fill('0.3');
+    await delay.press('Tab');
+    await settled(page);
+    await page.getByTestId('proposal-stale').waitFor();
+    await expect(page.getByTestId('proposal-accept').isDisabled()).resolves.toBe(true);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
 });

@@ -5,7 +5,8 @@ import { reportOf } from '../../../src/app/worker/reportQuestions.ts';
 import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
 import { pagePoints } from '../../../src/plot/pdf.ts';
-import { htmlOfReport, reportPagesOf, studyReportOf } from '../../../src/report/index.ts';
+import { reportPagesOf, studyReportOf } from '../../../src/report/index.ts';
+import { runVerb } from '../../cli/run.ts';
 import { mediaBoxesOf } from '../../pdfBytes.ts';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
@@ -16,13 +17,27 @@ afterEach(() => {
 });
 
 describe('reportOf', () => {
-  it("writes the HTML report the command line writes of the study, every scenario's results with it", async () => {
+  it("writes the HTML report `discern report` writes of the study, every scenario's results with it", async () => {
     const study = demo('harrowmere-standby');
-    const page = { paper: 'a4', orientation: 'portrait' } as const;
-    const answer = await reportOf(study, { kind: 'report', format: 'html', page });
+    const answer = await reportOf(study, {
+      kind: 'report',
+      format: 'html',
+      page: { paper: 'a4', orientation: 'landscape' },
+    });
+    const { code, files } = await runVerb([
+      'report',
+      `${ROOT}demo/harrowmere-standby.json`,
+      '--out',
+      'standby.html',
+      '--paper',
+      'a4',
+      '--orientation',
+      'landscape',
+    ]);
+    expect(code).toBe(0);
     const html = new TextDecoder().decode(answer.bytes);
     expect(answer.format).toBe('html');
-    expect(html).toBe(htmlOfReport(studyReportOf(analyseScenarios(study)), page));
+    expect(html).toBe(files.get('standby.html'));
     expect(html).toContain('On generator');
   });
 
