@@ -8,18 +8,20 @@ import {
   type StudyReading,
 } from '../../engine/study/index.ts';
 import { networkOf, type Network } from '../../engine/network/index.ts';
-import { faultLevelsOf } from '../../engine/fault/index.ts';
+import { faultLevelsOf, type FaultLevels } from '../../engine/fault/index.ts';
 import { bandsOf } from './lookups.ts';
 import { systemRowsOf } from './systemTree.ts';
 
 /** A document as the engine reads it: the study when it is valid, the document as parsed, and every problem. */
 export type { StudyReading, EditableReading };
 
-/** A document read and built all the way before it is shown: its reading and its radial tree. */
+/** A document read and built all the way before it is shown: its reading, its radial tree and its fault levels. */
 export interface BuiltStudy {
   document: StudyInput;
   reading: EditableReading;
   network?: Network;
+  /** The fault levels of `network`, worked out to build it whole: the workbench shows these. */
+  faults?: FaultLevels;
 }
 
 /** The outcome of {@link builtStudyOf}: the built study, or why there is none. */
@@ -103,9 +105,9 @@ export function builtStudyOf(input: unknown): BuildOutcome {
   try {
     const network = networkOf(study);
     systemRowsOf(network);
-    faultLevelsOf(network);
+    const faults = faultLevelsOf(network);
     bandsOf(study);
-    return { ok: true, value: { document, reading, network } };
+    return { ok: true, value: { document, reading, network, faults } };
   } catch (error) {
     return { ok: false, problems: [stopped('build', error)], failed: true };
   }

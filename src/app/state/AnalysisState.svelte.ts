@@ -68,7 +68,9 @@ export class AnalysisState {
         // Bands are built when first drawn or probed: a sheet shows a few devices of a large study.
         const kept = this.#faultsFor;
         const faults =
-          kept && sameNetworkInputs(kept.study, network.study) ? kept.faults : this.#memo.faultsOf(network);
+          kept && sameNetworkInputs(kept.study, network.study)
+            ? kept.faults
+            : (this.#study.builtFaults(network) ?? this.#memo.faultsOf(network));
         this.#faultsFor = { study: network.study, faults };
         return { value: { network, faults, bands: bandsByDevice(network.devices) } };
       } catch (error) {

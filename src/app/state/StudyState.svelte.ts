@@ -1,4 +1,5 @@
 import type { Study, StudyInput, StudyProblem } from '../../engine/study/index.ts';
+import type { FaultLevels } from '../../engine/fault/index.ts';
 import type { Network } from '../../engine/network/index.ts';
 import { hasScenarios, scenariosOf } from '../../engine/scenario/index.ts';
 import { History } from './History.svelte.ts';
@@ -81,6 +82,14 @@ export class StudyState {
     if (!study) return undefined;
     return this.#built?.reading.study === study ? this.#built.network : networkOrUndefined(study);
   });
+
+  /**
+   * The fault levels worked out when the study was opened, for the network built then (`undefined` for
+   * any other): opening builds the study whole before showing it, and they need not be worked out again.
+   */
+  builtFaults(network: Network): FaultLevels | undefined {
+    return this.#built?.network === network ? this.#built.faults : undefined;
+  }
   /** The view on the sheet (the chosen one, else the first). */
   readonly view = $derived.by(() => {
     const views = this.study?.views ?? [];

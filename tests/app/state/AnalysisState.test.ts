@@ -36,6 +36,18 @@ describe('AnalysisState', () => {
     expect(analysis.selectedFinding).toBeUndefined();
   });
 
+  it('shows the fault levels worked out when the study was opened, and keeps them through a setting edit', () => {
+    const study = new StudyState(demo);
+    const analysis = new AnalysisState(study, heldRunner());
+    const built = study.builtFaults(study.network!);
+    expect(built).toBeDefined();
+    expect(analysis.base?.faults).toBe(built);
+    const mainIndex = demo.devices!.findIndex((d) => d.id === 'MAIN');
+    study.edit(['devices', mainIndex, 'characteristic', 'shortTime', 'delay'], 0.3, 'delay');
+    expect(study.builtFaults(study.network!)).toBeUndefined();
+    expect(analysis.base?.faults).toBe(built);
+  });
+
   it('request() sends the study once at a time and merges the findings that come back', () => {
     const study = new StudyState(demo);
     const runner = heldRunner();
