@@ -60,25 +60,14 @@ function studyWorker<R>(
  * hashed name in for the placeholder; see `vite.config.ts`); the dev server serves the source module.
  * The name is put together at run time so the bundler does not make a separate worker bundle of it.
  */
-function checksWorkerUrl(): URL {
-  const source = ['.', 'analysis.worker.ts'].join('/');
-  return new URL(import.meta.env.DEV ? source : './discern-checks-worker.js', import.meta.url);
+function workerUrl(sourceFile: string, builtPlaceholder: string): URL {
+  return new URL(import.meta.env.DEV ? ['.', sourceFile].join('/') : builtPlaceholder, import.meta.url);
 }
 
-function settingsWorkerUrl(): URL {
-  const source = ['.', 'settings.worker.ts'].join('/');
-  return new URL(import.meta.env.DEV ? source : './discern-settings-worker.js', import.meta.url);
-}
-
-function oneLineWorkerUrl(): URL {
-  const source = ['.', 'oneLine.worker.ts'].join('/');
-  return new URL(import.meta.env.DEV ? source : './discern-one-line-worker.js', import.meta.url);
-}
-
-function reportWorkerUrl(): URL {
-  const source = ['.', 'report.worker.ts'].join('/');
-  return new URL(import.meta.env.DEV ? source : './discern-report-worker.js', import.meta.url);
-}
+const checksWorkerUrl = () => workerUrl('analysis.worker.ts', './discern-checks-worker.js');
+const settingsWorkerUrl = () => workerUrl('settings.worker.ts', './discern-settings-worker.js');
+const oneLineWorkerUrl = () => workerUrl('oneLine.worker.ts', './discern-one-line-worker.js');
+const reportWorkerUrl = () => workerUrl('report.worker.ts', './discern-report-worker.js');
 
 /**
  * Runs the checks on the calling thread, replying on a later task (same contract as the worker).

@@ -23,77 +23,44 @@ function modulesLoadedFrom(entry: string): Map<string, string[]> {
   return loaded;
 }
 
-describe("the checks' worker", () => {
-  // The page sends the worker parsed studies, so the study schemas and the unit library (mathjs) stay
-  // out of its download; each device family keeps its schema in a file of its own for this.
-  const loaded = modulesLoadedFrom('src/app/worker/analysis.worker.ts');
+// The page sends the workers parsed studies, so the study schemas and the unit library (mathjs) stay
+// out of their downloads; each device family keeps its schema in a file of its own for this.
+const WORKERS = [
+  {
+    name: "the checks' worker",
+    entry: 'src/app/worker/analysis.worker.ts',
+    loads: ['src/engine/analysis.ts', 'src/engine/devices/relay.ts'],
+  },
+  {
+    name: "the settings' worker",
+    entry: 'src/app/worker/settings.worker.ts',
+    loads: ['src/engine/window/settingWindow.ts', 'src/engine/window/proposal.ts'],
+  },
+  {
+    name: "the one-line's worker",
+    entry: 'src/app/worker/oneLine.worker.ts',
+    loads: ['src/plot/oneLine/oneLine.ts', 'src/engine/fault/faultLevels.ts'],
+  },
+  {
+    name: "the report's worker",
+    entry: 'src/app/worker/report.worker.ts',
+    loads: ['src/report/studyReport.ts', 'src/report/reportPdf.ts', 'src/engine/scenario/scenarioAnalysis.ts'],
+  },
+];
+
+describe.each(WORKERS)('$name', ({ entry, loads }) => {
+  const loaded = modulesLoadedFrom(entry);
   const importersOf = (name: string) =>
     [...loaded].filter(([, specifiers]) => specifiers.includes(name)).map(([file]) => file.slice(ROOT.length + 1));
 
-  it('loads the engine checks and the band functions', () => {
+  it(`loads what it works with: ${loads.join(', ')}`, () => {
     const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
-    expect(files).toContain('src/engine/analysis.ts');
-    expect(files).toContain('src/engine/devices/relay.ts');
+    for (const file of loads) expect(files).toContain(file);
   });
 
   it('loads no unit parser and no schema', () => {
     expect(importersOf('mathjs')).toEqual([]);
     // Only the setting that keeps any schema from compiling code (the page's policy forbids it).
-    expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
-  });
-});
-
-describe("the settings' worker", () => {
-  const loaded = modulesLoadedFrom('src/app/worker/settings.worker.ts');
-  const importersOf = (name: string) =>
-    [...loaded].filter(([, specifiers]) => specifiers.includes(name)).map(([file]) => file.slice(ROOT.length + 1));
-
-  it('loads the setting window and the proposals', () => {
-    const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
-    expect(files).toContain('src/engine/window/settingWindow.ts');
-    expect(files).toContain('src/engine/window/proposal.ts');
-  });
-
-  it("loads no unit parser and no schema, as the checks' worker", () => {
-    expect(importersOf('mathjs')).toEqual([]);
-    expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
-  });
-});
-
-describe("the report's worker", () => {
-  const loaded = modulesLoadedFrom('src/app/worker/report.worker.ts');
-  const importersOf = (name: string) =>
-    [...loaded].filter(([, specifiers]) => specifiers.includes(name)).map(([file]) => file.slice(ROOT.length + 1));
-
-  it('loads the report, its PDF writer and every check', () => {
-    const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
-    for (const file of [
-      'src/report/studyReport.ts',
-      'src/report/reportPdf.ts',
-      'src/engine/scenario/scenarioAnalysis.ts',
-    ])
-      expect(files).toContain(file);
-  });
-
-  it("loads no unit parser and no schema, as the checks' worker", () => {
-    expect(importersOf('mathjs')).toEqual([]);
-    expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
-  });
-});
-
-describe("the one-line's worker", () => {
-  const loaded = modulesLoadedFrom('src/app/worker/oneLine.worker.ts');
-  const importersOf = (name: string) =>
-    [...loaded].filter(([, specifiers]) => specifiers.includes(name)).map(([file]) => file.slice(ROOT.length + 1));
-
-  it('loads the one-line diagram and the fault levels its buses are labelled with', () => {
-    const files = [...loaded.keys()].map((file) => file.slice(ROOT.length + 1));
-    expect(files).toContain('src/plot/oneLine/oneLine.ts');
-    expect(files).toContain('src/engine/fault/faultLevels.ts');
-  });
-
-  it("loads no unit parser and no schema, as the checks' worker", () => {
-    expect(importersOf('mathjs')).toEqual([]);
     expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
   });
 });
