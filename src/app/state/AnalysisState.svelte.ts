@@ -43,7 +43,10 @@ export class AnalysisState {
   #runner: CheckRunner;
   #sent = $state(0);
   #received = $state(0);
-  #inFlight = false;
+  // The run the runner has (its seq), if any.
+  #inFlight: number | undefined;
+  // The next reply starts the results afresh (after a worker failed and another was started).
+  #fresh = false;
   #waiting: AnalyseRequest | undefined;
   #results: CheckResults | undefined = $state.raw();
   // Per device, the findings of `#results` naming it, kept up to date from each reply's changes.
@@ -148,7 +151,7 @@ export class AnalysisState {
     // Only the study is a dependency; the counters are written without being tracked.
     untrack(() => {
       const request = { seq: ++this.#sent, study };
-      if (this.#inFlight) this.#waiting = request;
+      if (this.#inFlight !== undefined) this.#waiting = request;
       else this.#post(request);
     });
   }
@@ -207,28 +210,32 @@ export class AnalysisState {
   }
 
   #post(request: AnalyseRequest): void {
-    this.#inFlight = true;
+    this.#inFlight = request.seq;
     this.#runner.post(request);
   }
 
   #receive(reply: AnalyseReply): void {
-    this.#inFlight = false;
+    // A worker that failed answers with seq -1, for the run it had; the runner starts another, whose
+    // first reply holds every finding, not the changes since a reply of the one before.
+    const failed = reply.seq < 0;
+    const seq = failed ? this.#inFlight : reply.seq;
+    if (failed) this.#fresh = true;
+    this.#inFlight = undefined;
     const next = this.#waiting;
     this.#waiting = undefined;
     if (next) this.#post(next);
-    // A worker that failed to load answers with seq -1: it stands for every run sent so far.
-    const seq = reply.seq < 0 ? this.#sent : reply.seq;
-    if (seq <= this.#received) return;
+    if (seq === undefined || seq <= this.#received) return;
     this.#received = seq;
     if (!reply.ok) {
       this.error = `The checks failed: ${reply.message}`;
       return;
     }
     this.error = undefined;
-    const previous = this.#results;
+    const previous = this.#fresh ? undefined : this.#results;
+    this.#fresh = false;
     const results =
       'changes' in reply
-        ? resultsWith(this.#results, reply.changes)
+        ? resultsWith(previous, reply.changes)
         : resultsWith(undefined, {
             findings: reply.findings.map((finding, i) => ({ key: `${i}`, finding })),
             removed: [],

@@ -40,10 +40,14 @@ function studyWorker<R>(
   return (study, message) => {
     if (!worker) {
       const started = new Worker(url(), { type: 'module', name });
-      started.onmessage = (event: MessageEvent<R>) => onreply(event.data);
+      // A worker let go says nothing more, even with messages it had already sent on their way.
+      started.onmessage = (event: MessageEvent<R>) => {
+        if (worker === started) onreply(event.data);
+      };
       started.onerror = (event) => {
         started.terminate();
-        if (worker === started) [worker, sent] = [undefined, undefined];
+        if (worker !== started) return;
+        [worker, sent] = [undefined, undefined];
         // A script that failed to load gives an event without a message.
         onreply({ seq: -1, ok: false, message: event.message || `the ${name} worker could not start` });
       };

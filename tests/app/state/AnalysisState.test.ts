@@ -1,10 +1,17 @@
-import { describe, it, expect } from 'vitest';
+import { afterEach, describe, it, expect, vi } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { AnalysisState, type CheckRunner } from '../../../src/app/state/AnalysisState.svelte.ts';
 import { StudyState } from '../../../src/app/state/StudyState.svelte.ts';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import type { StudyInput } from '../../../src/engine/study/index.ts';
-import type { AnalyseRequest } from '../../../src/app/worker/protocol.ts';
+import type { AnalyseRequest, WorkerRequest } from '../../../src/app/worker/protocol.ts';
+import { workerRunner } from '../../../src/app/worker/runners.ts';
+import { studyWithDelta } from '../../../src/app/worker/studyDelta.ts';
+import { ChangeTracker } from '../../../src/app/worker/changes.ts';
+import { checksOf } from '../../../src/app/worker/checks.ts';
+import { AnalysisMemo } from '../../../src/engine/incremental.ts';
+import { findingCountsOf } from '../../../src/app/lib/lookups.ts';
+import type { Study } from '../../../src/engine/study/index.ts';
 
 const demo = JSON.parse(
   readFileSync(new URL('../../../demo/harrowmere-overlap.json', import.meta.url), 'utf8'),
@@ -101,5 +108,76 @@ describe('AnalysisState', () => {
     expect(analysis.workFor({ kind: 'bus', id: 'SWBD' })?.work.length).toBeGreaterThan(0);
     expect(analysis.workFor({ kind: 'device', id: 'MAIN' })?.title).toBe('Bus SWBD: available fault current');
     expect(analysis.workFor(undefined)).toBeUndefined();
+  });
+
+  describe("when the checks' worker fails", () => {
+    /** A stand-in for the checks' worker: it answers as analysis.worker.ts does, when told, or fails. */
+    class ChecksWorker {
+      static started: ChecksWorker[] = [];
+      held: WorkerRequest[] = [];
+      onmessage: ((event: { data: unknown }) => void) | null = null;
+      onerror: ((event: { message?: string }) => void) | null = null;
+      #study: Study | undefined;
+      #memo = new AnalysisMemo();
+      #tracker = new ChangeTracker();
+      constructor() {
+        ChecksWorker.started.push(this);
+      }
+      postMessage(message: WorkerRequest) {
+        this.held.push(message);
+      }
+      terminate() {}
+      answer() {
+        const message = this.held.shift()!;
+        const study = 'delta' in message ? studyWithDelta(this.#study!, message.delta) : message.study;
+        this.#study = study;
+        this.onmessage!({
+          data: { seq: message.seq, ok: true, changes: this.#tracker.changesOf(checksOf(study, this.#memo)) },
+        });
+      }
+      fail() {
+        this.onerror!({});
+      }
+    }
+    afterEach(() => {
+      vi.unstubAllGlobals();
+      ChecksWorker.started = [];
+    });
+    const selective = JSON.parse(
+      readFileSync(new URL('../../../demo/harrowmere-selective.json', import.meta.url), 'utf8'),
+    ) as StudyInput;
+
+    it('analyses the edit that waited on the next worker, and counts findings from its reply alone', () => {
+      vi.stubGlobal('Worker', ChecksWorker);
+      // The MCC feeder's short-time delay at 0.1 s, where the selective demo has 0.2 s: more findings fail.
+      const index = selective.devices!.findIndex((d) => d.id === 'FDR-MCC');
+      const study = new StudyState({
+        ...selective,
+        devices: selective.devices!.map((d, i) =>
+          i === index ? { ...d, characteristic: { ...d.characteristic, shortTime: { pickup: 6, delay: 0.1 } } } : d,
+        ),
+      } as StudyInput);
+      const analysis = new AnalysisState(study, workerRunner());
+      analysis.request();
+      ChecksWorker.started[0].answer();
+      const countsBefore = analysis.findingCounts;
+      // Back to 0.2 s: findings the first reply had go away. The worker fails on it, with another edit waiting.
+      study.edit(['devices', index, 'characteristic', 'shortTime', 'delay'], 0.2, 'delay');
+      analysis.request();
+      study.edit(['devices', index, 'name'], 'MCC feeder', 'name');
+      analysis.request();
+      ChecksWorker.started[0].fail();
+      expect(analysis.error).toMatch(/^The checks failed: the checks worker could not start/);
+      // The edit that waited goes to a new worker, and the page waits for it.
+      expect(ChecksWorker.started).toHaveLength(2);
+      expect(analysis.pending).toBe(true);
+      ChecksWorker.started[1].answer();
+      expect(analysis.pending).toBe(false);
+      expect(analysis.error).toBeUndefined();
+      const expected = analyseStudy(study.study!).findings;
+      expect(analysis.findings.map((f) => f.id)).toEqual(expected.map((f) => f.id));
+      expect(analysis.findingCounts).toEqual(findingCountsOf(analysis.findings));
+      expect(analysis.findingCounts).not.toEqual(countsBefore);
+    });
   });
 });
