@@ -239,14 +239,16 @@ async function bundleSizes() {
   const assets = readdirSync(`${ROOT}dist/assets`).filter((f) => /\.(js|css|ttf|woff2?)$/.test(f));
   const gz = (file: string) => gzipSync(readFileSync(`${ROOT}dist/assets/${file}`), { level: 9 }).length;
   // At start: the scripts and stylesheet named in index.html, and the workers' entries they name (of the
-  // same build, named in the page's code as `new URL("./checks-….js", import.meta.url)`): the checks'
+  // same build, named in the page's code beside their sources: `workerUrl("analysis.worker.ts", "./checks-….js")`): the checks'
   // worker starts at once, the others (a few hundred bytes each) with their first question, and what
   // they load beyond the page's own chunks is counted as loaded on demand.
   const named = assets.filter((f) => html.includes(`/assets/${f}`));
   const workers = named
     .filter((f) => f.endsWith('.js'))
     .flatMap((f) => [
-      ...readFileSync(`${ROOT}dist/assets/${f}`, 'utf8').matchAll(/new URL\(\s*["'`]\.\/([\w.-]+\.js)["'`]/g),
+      ...readFileSync(`${ROOT}dist/assets/${f}`, 'utf8').matchAll(
+        /["'`][\w.]+\.worker\.ts["'`]\s*,\s*["'`]\.\/([\w.-]+\.js)["'`]/g,
+      ),
     ])
     .map((match) => match[1]);
   const atStart = assets.filter((f) => named.includes(f) || workers.includes(f));

@@ -113,6 +113,15 @@ describe('the Window panel in Chromium', () => {
     await settled(page);
     await page.getByTestId('proposal-stale').waitFor();
     await expect(page.getByTestId('proposal-accept').isDisabled()).resolves.toBe(true);
+    // An edit that leaves a problem (the last valid study still shown) is an edit too.
+    await page.getByTestId('proposal').getByRole('button', { name: 'Dismiss' }).click();
+    await page.getByTestId('propose-study').click();
+    await page.getByTestId('proposal').waitFor();
+    await expect(page.getByTestId('proposal-accept').isEnabled()).resolves.toBe(true);
+    await delay.fill('soon');
+    await delay.press('Tab');
+    await page.getByTestId('proposal-stale').waitFor();
+    await expect(page.getByTestId('proposal-accept').isDisabled()).resolves.toBe(true);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
