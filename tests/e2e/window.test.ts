@@ -1,5 +1,6 @@
 import { mkdirSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
 
 let bench: Workbench;
@@ -76,11 +77,7 @@ describe('the Window panel in Chromium', () => {
 
   it('proposes settings for the overlap demo as a reviewable list; accepting applies them as one step and clears the failures', async () => {
     const { page, context } = await bench.open();
-    await page.getByTestId('demo-menu').selectOption('harrowmere-overlap.json');
-    await settled(page);
-    await page.getByTestId('tab-window').click();
-    await page.getByTestId('propose-study').click();
-    await page.getByTestId('proposal').waitFor();
+    await proposeOnTheOverlapDemo(page);
     expect(await page.getByTestId('proposal-change').count()).toBeGreaterThan(3);
     await expect(page.getByTestId('proposal').textContent()).resolves.toMatch(/failing findings \d+\s*→\s*0/);
     const failsBefore = await page.locator('[data-testid="finding"].fail').count();
@@ -100,11 +97,7 @@ describe('the Window panel in Chromium', () => {
 
   it('a proposal worked out before an edit says so and is not applied', async () => {
     const { page, context } = await bench.open();
-    await page.getByTestId('demo-menu').selectOption('harrowmere-overlap.json');
-    await settled(page);
-    await page.getByTestId('tab-window').click();
-    await page.getByTestId('propose-study').click();
-    await page.getByTestId('proposal').waitFor();
+    await proposeOnTheOverlapDemo(page);
     await expect(page.getByTestId('proposal-accept').isEnabled()).resolves.toBe(true);
     await page.getByTestId('tree-device-FDR-MCC').click();
     const delay = page.getByTestId(/field-study\.devices\[\d+\]\.characteristic\.shortTime\.delay/);
@@ -126,3 +119,12 @@ describe('the Window panel in Chromium', () => {
     await context.close();
   });
 });
+
+// Accepts a page; the overlap demo opened, with settings proposed for the whole study.
+async function proposeOnTheOverlapDemo(page: Page): Promise<void> {
+  await page.getByTestId('demo-menu').selectOption('harrowmere-overlap.json');
+  await settled(page);
+  await page.getByTestId('tab-window').click();
+  await page.getByTestId('propose-study').click();
+  await page.getByTestId('proposal').waitFor();
+}
