@@ -115,6 +115,12 @@ describe('the Window panel in Chromium', () => {
     await delay.press('Tab');
     await page.getByTestId('proposal-stale').waitFor();
     await expect(page.getByTestId('proposal-accept').isDisabled()).resolves.toBe(true);
+    // Nor is anything proposed while the study has problems: it would be worked out for the last valid study.
+    await page.getByTestId('propose-study').click();
+    await expect(page.getByTestId('proposal-error').textContent()).resolves.toMatch(
+      /^No proposal while the study has problems/,
+    );
+    await expect(page.getByTestId('proposal').count()).resolves.toBe(0);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
