@@ -78,12 +78,21 @@ describe('the study deliverable in the workbench', () => {
         .locator('[data-layer="findings"] [data-id]')
         .evaluateAll((items) => items.map((i) => i.getAttribute('data-id')));
     const before = await marks();
+    // Whether the panel says it is redrawing at any moment of the setting edit: it keeps the base, so never.
+    await page.evaluate(() => {
+      (window as unknown as { redrawn: boolean }).redrawn = false;
+      new MutationObserver(() => {
+        if (document.querySelector('[data-testid="one-line-redrawing"]'))
+          (window as unknown as { redrawn: boolean }).redrawn = true;
+      }).observe(document.body, { subtree: true, childList: true });
+    });
     await page.getByTestId('tree-device-FDR-MCC').click();
     const delay = page.getByTestId(/field-study\.devices\[\d+\]\.characteristic\.shortTime\.delay/);
     await delay.fill('0.1');
     await delay.press('Tab');
     await settled(page);
     await expect.poll(marks).not.toEqual(before);
+    expect(await page.evaluate(() => (window as unknown as { redrawn: boolean }).redrawn)).toBe(false);
     await expect(diagram.locator('text[data-role="one-line-details"]').first().textContent()).resolves.toMatch(
       /^Bay 4 redrawn/,
     );
