@@ -120,6 +120,19 @@ describe('runners', () => {
       expect(HeldWorker.started[1].sent[1]).toEqual({ seq: 3, question, delta: { fields: {}, items: {} } });
     });
 
+    it('says nothing more for a worker it let go: neither a reply it had sent on its way nor a second error', () => {
+      vi.stubGlobal('Worker', HeldWorker);
+      const runner = settingsWorkerRunner();
+      const replies: QuestionReply<SettingsAnswer>[] = [];
+      runner.onreply = (reply) => replies.push(reply);
+      runner.post({ seq: 1, study, question: { kind: 'window', deviceId: 'MAIN' } });
+      const [first] = HeldWorker.started;
+      first.onerror!({ message: 'Uncaught TypeError' });
+      first.onmessage!({ data: { seq: 1, ok: true, answer: { kind: 'window' } } });
+      first.onerror!({ message: 'Uncaught TypeError' });
+      expect(replies).toEqual([{ seq: -1, ok: false, message: 'Uncaught TypeError' }]);
+    });
+
     it("the checks' worker too: the next study is sent to a new worker, whole", () => {
       vi.stubGlobal('Worker', HeldWorker);
       const runner = workerRunner();
