@@ -56,7 +56,7 @@ export { alsoRemoved, removalOf, withoutRemoval } from './removal.ts';
 export type { RemovableKind, Removal } from './removal.ts';
 export { runExport } from './runExport.ts';
 export { scenarioFaultLinesOf } from './scenarioFaultLines.ts';
-export { analysisOfPart, findingsIn, placeOfView, scenarioViewOf, withScenarioResults } from './scenarioParts.ts';
+export { analysisOfPart, findingsIn, placeOfView, scenarioViewOf } from './scenarioParts.ts';
 export type { PartView, ScenarioView, ViewPlace } from './scenarioParts.ts';
 export { COLLECTION_OF, parseProblemPath, pathOfSelection, selectionOfPath } from './selection.ts';
 export type { ItemKind, Selection } from './selection.ts';

@@ -4,13 +4,7 @@ import { lazyBandsOf } from '../../engine/bandCache.ts';
 import type { Finding } from '../../engine/checks/finding.ts';
 import { faultLevelsOf, type FaultLevels } from '../../engine/fault/index.ts';
 import { networkOf, type Network } from '../../engine/network/index.ts';
-import {
-  analyseScenarios,
-  hasScenarios,
-  scenarioLabel,
-  scenarioPartsOf,
-  type ScenarioResult,
-} from '../../engine/scenario/index.ts';
+import { scenarioLabel, scenarioPartsOf } from '../../engine/scenario/index.ts';
 import type { Scenario, Study } from '../../engine/study/index.ts';
 
 /**
@@ -94,25 +88,6 @@ export function analysisOfPart(part: PartView, pairs: Analysis['pairs'], finding
   const counts: Analysis['counts'] = { ok: 0, info: 0, warning: 0, fail: 0 };
   for (const finding of findings) counts[finding.severity]++;
   return { study: part.study, network: part.network, faults: part.faults, bands: part.bands, pairs, findings, counts };
-}
-
-/**
- * The analysis with every scenario's own results (`scenarios`, as `analyseScenarios` gives them, for
- * the study report) worked out on this thread the first time they are read, never before: the
- * workbench's checks run in a worker, whose results cannot carry bands across. The property is not
- * enumerable, so spreading the analysis does not work them out. A study that cannot be switched is
- * returned as it is.
- *
- * @example studyReportOf(withScenarioResults(analysis)) // per-scenario fault tables and sheets
- */
-export function withScenarioResults(analysis: Analysis): Analysis {
-  if (!hasScenarios(analysis.study)) return analysis;
-  let scenarios: ScenarioResult[] | undefined;
-  return Object.defineProperty(analysis, 'scenarios', {
-    enumerable: false,
-    configurable: true,
-    get: () => (scenarios ??= analyseScenarios(analysis.study).scenarios),
-  });
 }
 
 /**

@@ -12,14 +12,7 @@ import { bandsByDevice, findingCountsOf, findingCountsWith, idSetOf, type Findin
 import { sameNetworkInputs } from '../../engine/network/sameNetworkInputs.ts';
 import type { Study } from '../../engine/study/index.ts';
 import { resultsWith, type CheckResults } from '../worker/changes.ts';
-import {
-  analysisOfPart,
-  findingsIn,
-  placeOfView,
-  scenarioViewOf,
-  withScenarioResults,
-  type ScenarioView,
-} from '../lib/scenarioParts.ts';
+import { analysisOfPart, findingsIn, placeOfView, scenarioViewOf, type ScenarioView } from '../lib/scenarioParts.ts';
 
 /** The counts before any finding has arrived. */
 const NO_COUNTS: ReadonlyMap<string, FindingCount> = findingCountsOf([]);
@@ -85,21 +78,18 @@ export class AnalysisState {
   readonly base = $derived.by(() => this.#fast?.value);
   /** Why the fault levels or bands of the current study could not be worked out, if they could not. */
   readonly baseError = $derived.by(() => this.#fast?.error);
-  /**
-   * The whole analysis: the fast half now, the checks' findings as last received. For a switched
-   * study, every scenario's own results are worked out when first read (the study report reads them).
-   */
+  /** The whole analysis: the fast half now, the checks' findings as last received. */
   readonly analysis: Analysis | undefined = $derived.by(() => {
     const base = this.base;
     if (!base) return undefined;
     const results = this.#results;
-    return withScenarioResults({
+    return {
       study: base.network.study,
       ...base,
       pairs: results?.pairs ?? [],
       findings: results?.findings ?? [],
       counts: results?.counts ?? { ok: 0, info: 0, warning: 0, fail: 0 },
-    });
+    };
   });
   /** Findings as last received (they may trail the latest edit while `pending`), in every scenario. */
   readonly findings: Finding[] = $derived.by(() => this.#results?.findings ?? []);
@@ -215,8 +205,8 @@ export class AnalysisState {
   }
 
   #receive(reply: AnalyseReply): void {
-    // A worker that failed answers with seq -1, for the run it had; the runner starts another, whose
-    // first reply holds every finding, not the changes since a reply of the one before.
+    // A worker that failed answers with seq -1, for the run it had; the next run goes to a new worker,
+    // whose first reply holds every finding, not the changes since a reply of the one before.
     const failed = reply.seq < 0;
     const seq = failed ? this.#inFlight : reply.seq;
     if (failed) this.#fresh = true;

@@ -1,13 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
-import {
-  analysisOfPart,
-  findingsIn,
-  placeOfView,
-  scenarioViewOf,
-  withScenarioResults,
-} from '../../../src/app/lib/scenarioParts.ts';
-import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { analysisOfPart, findingsIn, placeOfView, scenarioViewOf } from '../../../src/app/lib/scenarioParts.ts';
 import { analyseScenarios, scenariosOf } from '../../../src/engine/scenario/index.ts';
 import type { Finding } from '../../../src/engine/checks/finding.ts';
 import { parseStudy } from '../../../src/engine/study/index.ts';
@@ -85,17 +78,5 @@ describe('scenarioParts', () => {
     expect(findingsIn(findings, 'Normal').map((f) => f.id)).toEqual(['both', 'everywhere']);
     expect(findingsIn(findings, 'On generator').map((f) => f.id)).toEqual(['both', 'generator', 'everywhere']);
     expect(findingsIn(findings, 'Elsewhere').map((f) => f.id)).toEqual(['everywhere']);
-  });
-
-  it("withScenarioResults() gives a switched study every scenario's results when read, and leaves others alone", () => {
-    const analysis = withScenarioResults({ ...analyseStudy(plain) });
-    expect(analysis.scenarios).toBeUndefined();
-    const part = scenarioViewOf(standby, normal).parts[0];
-    const switched = withScenarioResults({ ...analysisOfPart(part, [], []), study: standby });
-    expect({ ...switched }).not.toHaveProperty('scenarios');
-    expect(switched.scenarios?.map((s) => [s.label, s.deEnergised])).toEqual(
-      analyseScenarios(standby).scenarios!.map((s) => [s.label, s.deEnergised]),
-    );
-    expect(switched.scenarios).toBe(switched.scenarios);
   });
 });

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 
 const ROOT = resolve(import.meta.dirname, '../../..');
 
-/** Every source module the checks' worker loads, following value imports (type-only imports load nothing). */
+/** Every source module a worker's entry loads, following value imports (type-only imports load nothing). */
 function modulesLoadedFrom(entry: string): Map<string, string[]> {
   const loaded = new Map<string, string[]>();
   const pending = [resolve(ROOT, entry)];
