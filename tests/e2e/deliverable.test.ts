@@ -6,7 +6,7 @@ import { parseStudy } from '../../src/engine/study/index.ts';
 import { pagePoints } from '../../src/plot/pdf.ts';
 import { reportPagesOf, studyReportOf } from '../../src/report/index.ts';
 import { mediaBoxesOf, toUnicodeOf } from '../pdfBytes.ts';
-import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
+import { pageErrors, recordNotices, settled, startWorkbench, type Workbench } from './harness.ts';
 
 let bench: Workbench;
 beforeAll(async () => {
@@ -176,14 +176,7 @@ describe('the study deliverable in the workbench', () => {
   it('exports the whole study report as one print-ready page', async () => {
     const { context, page } = await bench.open();
     await settled(page);
-    // Every notice shown meanwhile, however briefly.
-    await page.evaluate(() => {
-      const seen: string[] = ((window as unknown as { notices: string[] }).notices = []);
-      new MutationObserver(() => {
-        const text = document.querySelector('[data-testid="notice"] span')?.textContent;
-        if (text && seen.at(-1) !== text) seen.push(text);
-      }).observe(document.body, { subtree: true, childList: true, characterData: true });
-    });
+    const noticesSeen = await recordNotices(page);
     const download = page.waitForEvent('download');
     await page.getByTestId('export-menu').selectOption('report-html');
     const html = readFileSync((await (await download).path())!, 'utf8');
@@ -192,9 +185,7 @@ describe('the study deliverable in the workbench', () => {
       expect(html).toContain(title);
     expect(html).toContain('qualified engineer');
     // The page said it was writing the report while it was written, and says nothing once it is done.
-    expect(await page.evaluate(() => (window as unknown as { notices: string[] }).notices)).toEqual([
-      'Writing the study report…',
-    ]);
+    expect(await noticesSeen()).toEqual(['Writing the study report…']);
     await expect.poll(() => page.getByTestId('notice').count()).toBe(0);
     await context.close();
   });

@@ -73,7 +73,6 @@ export function pageErrors(page: Page): string[] {
   return (page as Page & { errors?: string[] }).errors ?? [];
 }
 
-/** Waits until the checks of the latest edit have come back from the worker. */
 /** Waits until the study named `name` is the one open (reading a chosen file takes a moment). */
 export async function studyOpened(page: Page, name: string): Promise<void> {
   await page.waitForFunction(
@@ -82,6 +81,22 @@ export async function studyOpened(page: Page, name: string): Promise<void> {
   );
 }
 
+/**
+ * Records every notice the page shows from now on, however briefly (each once while it stays); the
+ * returned function reads them.
+ */
+export async function recordNotices(page: Page): Promise<() => Promise<string[]>> {
+  await page.evaluate(() => {
+    const seen: string[] = ((window as unknown as { notices: string[] }).notices = []);
+    new MutationObserver(() => {
+      const text = document.querySelector('[data-testid="notice"] span')?.textContent;
+      if (text && seen.at(-1) !== text) seen.push(text);
+    }).observe(document.body, { subtree: true, childList: true, characterData: true });
+  });
+  return () => page.evaluate(() => (window as unknown as { notices: string[] }).notices);
+}
+
+/** Waits until the checks of the latest edit have come back from the worker. */
 export async function settled(page: Page): Promise<void> {
   await page.waitForFunction(() => !document.querySelector('[data-testid="findings-summary"] .pending'));
 }

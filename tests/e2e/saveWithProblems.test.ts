@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import type { Download, Page } from 'playwright-core';
-import { pageErrors, settled, startWorkbench, type Workbench } from './harness.ts';
+import { pageErrors, recordNotices, settled, startWorkbench, type Workbench } from './harness.ts';
 
 // The selective demo opens first; its first device is "T1 primary relay" (R-T1).
 const dialField = 'field-study.devices[0].characteristic.timeOvercurrent.timeDial';
@@ -74,14 +74,8 @@ describe('a study with problems in Chromium', () => {
     await setDial(page, '3');
     await setDial(page, '');
     const downloads = downloadsOf(page);
-    // Every notice shown meanwhile, however briefly: a refused report never says it is being written.
-    await page.evaluate(() => {
-      const seen: string[] = ((window as unknown as { notices: string[] }).notices = []);
-      new MutationObserver(() => {
-        const text = document.querySelector('[data-testid="notice"] span')?.textContent;
-        if (text && seen.at(-1) !== text) seen.push(text);
-      }).observe(document.body, { subtree: true, childList: true, characterData: true });
-    });
+    // A refused report never says it is being written.
+    const noticesSeen = await recordNotices(page);
     for (const kind of ['pdf', 'report-pdf', 'findings-md']) {
       await page.getByTestId('export-menu').selectOption(kind);
       await expect
@@ -93,7 +87,7 @@ describe('a study with problems in Chromium', () => {
     }
     await page.waitForTimeout(300);
     expect(downloads).toEqual([]);
-    const notices = await page.evaluate(() => (window as unknown as { notices: string[] }).notices);
+    const notices = await noticesSeen();
     expect(notices.length).toBeGreaterThan(0);
     expect(notices.every((text) => text.startsWith('Export failed: fix the 1 problem'))).toBe(true);
     expect(pageErrors(page)).toEqual([]);
