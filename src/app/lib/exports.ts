@@ -100,7 +100,7 @@ export async function downloadPdf(fileName: string, drawing: Drawing, page: Expo
 
 /**
  * Downloads a PDF written elsewhere (the study report, written in its worker).
- * @example downloadPdfBytes('study-report.pdf', written.pdf)
+ * @example downloadPdfBytes('study-report.pdf', written.bytes)
  */
 export function downloadPdfBytes(fileName: string, bytes: Uint8Array): void {
   downloadBlob(fileName, pdfBlobOf(bytes));
