@@ -96,7 +96,7 @@ const FLAT = 1e-6;
  * slack is below `thinMargin`; `not provable from curves` where both bands reach down to the
  * half-cycle and the downstream device surely clears within the instantaneous region (two
  * instantaneous trips), or where either device is current-limiting while the upstream one responds
- * within the instantaneous region; otherwise `selective`.
+ * within the instantaneous region and the downstream one may act within the half-cycle; otherwise `selective`.
  *
  * @example findOverlaps(mainBand, feederBand, { toAmps: 28_421, margin: 0 })
  */
@@ -278,7 +278,12 @@ const compared = {
 function classOf(amps: number, upTime: number, downTime: number): number {
   if (upTime === Infinity) return 0;
   const pair = compared;
-  const limiting = amps >= pair.limitingFrom && upTime < pair.instantaneousRegion;
+  // A current-limiting device (either one) decides within the first half-cycle, so where the upstream
+  // device responds within the instantaneous region the curves cannot tell, but only if the downstream
+  // device may act within that half-cycle too. One that waits longer (a short-time delay) cuts nothing:
+  // the upstream device sees the whole current and operates first, as the curves show.
+  const limiting =
+    amps >= pair.limitingFrom && upTime < pair.instantaneousRegion && pair.downFast(amps) <= pair.halfCycle;
   // Two instantaneous trips: the upstream band and the downstream band both reach the half-cycle,
   // and the downstream device surely clears within the instantaneous region.
   if (

@@ -148,6 +148,23 @@ describe('findOverlaps', () => {
     expect(statuses(findOverlaps(definite(3000, 0.3), fuse, { toAmps: 10_000 }))).toEqual(['selective']);
   });
 
+  it('calls an upstream current-limiting fuse over a downstream short-time delay an overlap: the delay cuts no current', () => {
+    // A fuse melting at 4e6/I² s, current-limiting from 8 kA (0.0625 s there, 0.01 s at 20 kA), over a
+    // short-time band of 0.05–0.07 s from 1 kA: the breaker waits on purpose, so the fuse sees the whole
+    // current and melts first, and no tested selectivity table reverses that (the fuse's minimum melting
+    // time below the breaker's clearing time: an overlap, IEEE 242-2001 chapter 15, from memory).
+    const fuse: Band = { ...ramp(4e6, 1500), currentLimitingFrom: 8000 };
+    const shortTime = definite(1000, 0.05, 0.02);
+    const intervals = findOverlaps(fuse, shortTime, { toAmps: 20_000 });
+    expect(statuses(intervals)).toEqual(['selective', 'thin margin', 'overlap']);
+    // The overlap starts where 4e6/I² falls to the breaker's 0.07 s, and runs to the top of the range.
+    assertInDelta(intervals[2].fromAmps, Math.sqrt(4e6 / 0.07), 1e-6);
+    expect(intervals[2].toAmps).toBe(20_000);
+    // The same fuse over a downstream instantaneous trip (0.5 cycle to open) is for tested data to decide.
+    const instantaneous = definite(1000, 0.008, 0.017);
+    expect(statuses(findOverlaps(fuse, instantaneous, { toAmps: 20_000 })).at(-1)).toBe('not provable from curves');
+  });
+
   it('applies a time ratio (the fuse–fuse 75 % rule) instead of a margin', () => {
     // Upstream t = 4e6/I², downstream t = 3.2e6/I²: 0.75 × 4 = 3 < 3.2 so they overlap everywhere both operate.
     const intervals = findOverlaps(ramp(4e6, 200), ramp(3.2e6, 100), {

@@ -31,7 +31,10 @@ function classAt(up: Band, down: Band, amps: number, margin: number, timeRatio: 
   const upTime = downClears ? never(up.minTime(amps)) : up.minTime(amps);
   if (upTime === Infinity) return 0;
   const downTime = never(down.maxTime(amps));
-  const limiting = amps >= Math.min(up.currentLimitingFrom, down.currentLimitingFrom) && upTime < INSTANTANEOUS_REGION;
+  const limiting =
+    amps >= Math.min(up.currentLimitingFrom, down.currentLimitingFrom) &&
+    upTime < INSTANTANEOUS_REGION &&
+    down.minTime(amps) <= HALF_CYCLE_SECONDS;
   const bothInstantaneous =
     upTime <= HALF_CYCLE_SECONDS && downTime <= INSTANTANEOUS_REGION && down.minTime(amps) <= HALF_CYCLE_SECONDS;
   if (limiting || bothInstantaneous) return 3;
