@@ -1,39 +1,40 @@
-import { readFileSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
+import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expectedGot, InputError } from '../engine/errors.ts';
 import type { Command, CommandIO } from './command.ts';
 import { commands } from './commands/index.ts';
-import { makeFolders, writeAllWhole, type WholeWritingIO } from './writeAll.ts';
+import { readTextFile } from './readTextFile.ts';
+import { fileIdentity } from './sameFile.ts';
+import { writeAllWhole, type Output, type WholeWritingIO } from './writeAll.ts';
 
-/** The process's streams and file system as a `CommandIO`, writing several files all or nothing. */
+/** The files this process has read, by what they are on the disk (`fileIdentity`). */
+const filesRead = new Set<string>();
+
+/**
+ * The process's streams and file system as a `CommandIO`: text read strictly as UTF-8, files written
+ * whole (several all or nothing), and never over a file this run has read, however the path is spelled,
+ * so no verb can replace the user's study with its output.
+ */
 export const nodeIO: WholeWritingIO = {
   stdout: (text) => void process.stdout.write(text),
   stderr: (text) => void process.stderr.write(text),
-  readText: (path) => readFileSync(path, 'utf8'),
-  writeFile: (path, data) => writeFileWhole(path, data),
-  writeAll: (outputs) => writeAllWhole(outputs),
+  readText: (path) => {
+    const text = readTextFile(path);
+    const identity = fileIdentity(path);
+    if (identity !== undefined) filesRead.add(identity);
+    return text;
+  },
+  writeFile: (path, data) => writeNotOverInputs([{ path, data }]),
+  writeAll: (outputs) => writeNotOverInputs(outputs),
 };
 
-/**
- * Writes a figure or report whole or not at all: the parent folder is created when missing (the
- * README's `--out out/service.pdf` on a fresh clone), the data goes to a temporary file beside the
- * target and is renamed over it only when complete, so an existing file is never left half-written.
- * Throws `InputError` naming the path when the file cannot be written.
- *
- * @example writeFileWhole('out/findings.md', markdown)
- */
-export function writeFileWhole(path: string, data: string | Uint8Array): void {
-  const temporary = join(dirname(path), `.${basename(path)}.${process.pid}.partial`);
-  try {
-    makeFolders(dirname(path));
-    writeFileSync(temporary, data);
-    renameSync(temporary, path);
-  } catch (error) {
-    rmSync(temporary, { force: true });
-    const reason = (error as NodeJS.ErrnoException).code ?? 'an error';
-    throw new InputError(path, expectedGot('a file that can be written', `${reason} writing ${path}`));
+function writeNotOverInputs(outputs: readonly Output[]): void {
+  for (const { path } of outputs) {
+    const identity = fileIdentity(path);
+    if (identity !== undefined && filesRead.has(identity))
+      throw new InputError(path, expectedGot('a file other than the study read', path));
   }
+  writeAllWhole(outputs);
 }
 
 /** `discern --help`: the verbs and their summaries. @example io.stdout(usageOf(commands)) */

@@ -14,7 +14,9 @@ export function loadStudyFile(path: string | undefined, io: CommandIO, verb: str
   let text: string;
   try {
     text = io.readText(path);
-  } catch {
+  } catch (error) {
+    // Text that is not UTF-8, or a file too large, says so; any other failure is the file's.
+    if (error instanceof InputError) throw error;
     throw new InputError(path, expectedGot('a readable study file', path));
   }
   return parseStudy(text);
@@ -36,7 +38,8 @@ export function readJsonFile(
   let text: string;
   try {
     text = withoutBom(readText(path));
-  } catch {
+  } catch (error) {
+    if (error instanceof InputError) throw error;
     throw new InputError(path, expectedGot(expected, path));
   }
   const problem = jsonTextProblem(text, /^\s*\{\s*"discern"/.test(text) ? 'study' : base);

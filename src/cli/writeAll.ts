@@ -1,15 +1,21 @@
 import {
+  accessSync,
+  chmodSync,
+  constants,
   copyFileSync,
   existsSync,
   linkSync,
   lstatSync,
   mkdirSync,
+  readlinkSync,
+  realpathSync,
   renameSync,
   rmdirSync,
   rmSync,
+  statSync,
   writeFileSync,
 } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { expectedGot, InputError } from '../engine/errors.ts';
 import type { CommandIO } from './command.ts';
 
@@ -41,7 +47,9 @@ export function writeOutputs(io: CommandIO, outputs: readonly Output[]): void {
  * only when every one is written are they renamed into place. A target that is a folder stops the
  * write before anything is renamed; a rename that fails part way puts back the files already replaced.
  * On any failure the temporaries (and the folders made for them) are removed, so every existing file
- * is left as it was. Throws `InputError` naming the file that could not be written.
+ * is left as it was. A file the user may not write is refused, not replaced; a file replaced keeps its
+ * permissions; a symbolic link is written through, to the file it names, and stays a link. Throws
+ * `InputError` naming the file that could not be written.
  *
  * @example writeAllWhole([{ path: 'out/s-figure-1.svg', data: svg }, { path: 'out/s.md', data: text }])
  */
@@ -52,12 +60,16 @@ export function writeAllWhole(outputs: readonly Output[]): void {
   let at = outputs[0]?.path ?? '';
   try {
     // Stage every output beside its target, so the renames below stay on one file system.
-    for (const { path, data } of outputs) {
-      at = path;
+    for (const output of outputs) {
+      at = output.path;
+      const path = linkedFileOf(output.path);
+      // A rename would replace a read-only file: refuse it as writing into it would be refused.
+      if (existsSync(path)) accessSync(path, constants.W_OK);
       made.push(...makeFolders(dirname(path)));
       const temporary = siblingOf(path, 'partial');
       staged.push({ path, temporary });
-      writeFileSync(temporary, data);
+      writeFileSync(temporary, output.data);
+      if (existsSync(path)) chmodSync(temporary, statSync(path).mode & 0o7777);
     }
     // A folder in a target's place would fail its rename: stop before any file is replaced.
     for (const { path } of staged) {
@@ -86,9 +98,27 @@ function isWholeWriting(io: CommandIO): io is WholeWritingIO {
   return typeof (io as Partial<WholeWritingIO>).writeAll === 'function';
 }
 
-// Accepts a target path; a hidden name beside it that this process alone uses.
+let siblings = 0;
+
+// Accepts a target path; a hidden name beside it that this process alone uses, short whatever the
+// target's name (a name near the file system's limit leaves no room for more).
 function siblingOf(path: string, kind: 'partial' | 'previous'): string {
-  return join(dirname(path), `.${basename(path)}.${process.pid}.${kind}`);
+  return join(dirname(path), `.discern-${process.pid}-${++siblings}.${kind}`);
+}
+
+// Accepts a target path; the file a symbolic link there names (a link to a missing file: the path it
+// holds), else the path itself.
+function linkedFileOf(path: string): string {
+  try {
+    if (!lstatSync(path).isSymbolicLink()) return path;
+  } catch {
+    return path;
+  }
+  try {
+    return realpathSync(path);
+  } catch {
+    return resolve(dirname(path), readlinkSync(path));
+  }
 }
 
 // Accepts a path; true when a folder stands there (a rename replaces a file or a link, never a folder).

@@ -3,7 +3,8 @@ import { tmpdir } from 'node:os';
 import { isAbsolute, join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import type { CommandIO } from '../../src/cli/command.ts';
-import { runCli, writeFileWhole } from '../../src/cli/main.ts';
+import { runCli } from '../../src/cli/main.ts';
+import { writeAllWhole } from '../../src/cli/writeAll.ts';
 
 /** Every `npm run discern -- …` line of the README's tour, with the exit code its comment documents. */
 function tourCommands(): { line: string; argv: string[]; codes: number[] }[] {
@@ -36,7 +37,7 @@ function rootedIO(root: string): CommandIO & { err: string[] } {
     stdout: () => undefined,
     stderr: (text) => void err.push(text),
     readText: (path) => readFileSync(at(path), 'utf8'),
-    writeFile: (path, data) => writeFileWhole(at(path), data),
+    writeFile: (path, data) => writeAllWhole([{ path: at(path), data }]),
   };
 }
 

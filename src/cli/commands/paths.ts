@@ -4,6 +4,7 @@ import { pathViewsOf } from '../../engine/views/index.ts';
 import { flagText, parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
 import { loadStudyFile } from '../studyFile.ts';
+import { isSameFile } from '../sameFile.ts';
 
 const HELP = `discern paths <study.json> --out FILE.json — one sheet per protective path, added to a copy
 
@@ -32,7 +33,7 @@ export const pathsCommand: Command = {
     if (extra !== undefined) throw new InputError('paths', expectedGot('one study file', extra));
     const out = flagText(parsed, 'out');
     if (!out || !/\.json$/i.test(out)) throw new InputError('--out', expectedGot('a file name ending .json', out));
-    if (path !== undefined && out === path)
+    if (path !== undefined && isSameFile(out, path))
       throw new InputError('--out', expectedGot('a file other than the input', out));
     const study = loadStudyFile(path, io, 'paths');
     const views = pathViewsOf(networkOf(study));

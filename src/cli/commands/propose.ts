@@ -1,4 +1,3 @@
-import { resolve } from 'node:path';
 import { CAUTION } from '../../engine/caution.ts';
 import { expectedGot, InputError } from '../../engine/errors.ts';
 import { proposeSettings, settingText, withSettingChanges, type Proposal } from '../../engine/window/index.ts';
@@ -6,6 +5,7 @@ import { flagText, parseArgs } from '../args.ts';
 import type { Command } from '../command.ts';
 import { loadStudyFile, readJsonFile } from '../studyFile.ts';
 import { formatTable } from '../table.ts';
+import { isSameFile } from '../sameFile.ts';
 
 const HELP = `discern propose <study.json> [--view ID | --all] [--out proposed.json] — proposed settings
 
@@ -46,7 +46,7 @@ export const proposeCommand: Command = {
     const out = flagText(parsed, 'out');
     if (out !== undefined && !/\.json$/i.test(out))
       throw new InputError('--out', expectedGot('a file name ending .json', out));
-    if (out !== undefined && path !== undefined && resolve(out) === resolve(path)) {
+    if (out !== undefined && path !== undefined && isSameFile(out, path)) {
       throw new InputError('--out', expectedGot('a new file, not the input study', out));
     }
     const study = loadStudyFile(path, io, 'propose');
