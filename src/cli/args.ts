@@ -1,6 +1,6 @@
 import { expectedGot, InputError } from '../engine/errors.ts';
 import { parsePercent, parseQuantity, type Dimension } from '../engine/quantity/index.ts';
-import { NUMBER_MAGNITUDE } from '../engine/study/fields.ts';
+import { NUMBER_MAGNITUDE, outsidePhysicalRange, physicalRangeText } from '../engine/study/fields.ts';
 
 /** The flags a verb accepts: each takes a value (`'value'`) or stands alone (`'switch'`). */
 export type FlagSpec = Readonly<Record<string, 'value' | 'switch'>>;
@@ -84,7 +84,10 @@ export function quantityFlag(text: string, name: string, dimension: Dimension, p
     throw new InputError(`--${name}`, expectedGot(expected, text));
   }
   if (!(value > 0)) throw new InputError(`--${name}`, expectedGot(expected, text));
-  return withinMagnitude(value, name, text);
+  // As in a study: a flag's quantity keeps to its dimension's physical range ("0.000001" V is no voltage).
+  if (outsidePhysicalRange(value, dimension))
+    throw new InputError(`--${name}`, expectedGot(`a ${dimension} between ${physicalRangeText(dimension)}`, text));
+  return value;
 }
 
 /**

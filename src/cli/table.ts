@@ -68,10 +68,12 @@ export function wrapText(text: string, width: number): string[] {
   return lines;
 }
 
-/** Amps for a table: whole amps grouped by spaces; "—" for nothing, "∞" for unbounded. @example tableAmps(28421.1) // "28 421" */
+/** Amps for a table: whole amps grouped by spaces, three figures below 10 A; "—" for nothing, "∞" for unbounded. @example tableAmps(28421.1) // "28 421" */
 export function tableAmps(amps: number | undefined): string {
   if (amps === undefined) return '—';
   if (amps === Infinity) return '∞';
+  // A relay's secondary currents and the smallest pickups are fractions of an ampere: three figures, not 0.
+  if (amps > 0 && amps < 10) return String(Number(amps.toPrecision(3)));
   return Math.round(amps)
     .toString()
     .replace(/\B(?=(\d{3})+(?!\d))/g, ' ');

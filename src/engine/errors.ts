@@ -9,9 +9,16 @@ export class InputError extends Error {
   readonly path: string;
 
   constructor(path: string, message: string) {
-    super(`${path}: ${message}`);
+    super(`${escapedControls(path)}: ${message}`);
     this.path = path;
   }
+}
+
+// Accepts a path (a file name may hold a line break); it with each control character written as \uXXXX,
+// so that the message stays on one line.
+function escapedControls(path: string): string {
+  // eslint-disable-next-line no-control-regex
+  return path.replace(/[\u0000-\u001f\u007f]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
 }
 
 /** The `expected …, got "…"` half of an error message. */

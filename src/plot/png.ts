@@ -1,5 +1,5 @@
 import { Resvg } from '@resvg/resvg-js';
-import { PNG_SCALE } from './sheetOptions.ts';
+import { PNG_LARGEST_PIXELS, PNG_SCALE } from './sheetOptions.ts';
 
 /** The DejaVu faces a PNG is set in (Debian `fonts-dejavu-core`); named so output never depends on what else is installed. */
 export const DEJAVU_FONT_FILES = [
@@ -18,7 +18,7 @@ export interface PngOptions {
 /**
  * Renders an SVG string (a sheet from `svgOf`) to PNG bytes in Node with resvg, with system fonts
  * off and the DejaVu files named, so the same SVG gives the same pixels on every machine that has
- * those files. Throws a `RangeError` for a scale outside 0.1–10.
+ * those files. Throws a `RangeError` for a scale outside 0.1–10 or an image past `PNG_LARGEST_PIXELS`.
  * @example writeFileSync('sheet.png', pngOf(svgOf(sheet), { scale: 2 }))
  */
 export function pngOf(svg: string, options: PngOptions = {}): Uint8Array {
@@ -32,5 +32,8 @@ export function pngOf(svg: string, options: PngOptions = {}): Uint8Array {
     fitTo: { mode: 'zoom', value: scale },
     background: '#ffffff',
   });
+  const pixels = resvg.width * resvg.height * scale * scale;
+  if (pixels > PNG_LARGEST_PIXELS)
+    throw new RangeError(`options.scale: expected a PNG of at most ${PNG_LARGEST_PIXELS} pixels, got ${pixels}`);
   return new Uint8Array(resvg.render().asPng());
 }

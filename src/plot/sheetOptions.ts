@@ -25,6 +25,17 @@ export interface SheetOptions {
 /** The zoom a PNG may be rendered at, in image pixels per sheet px: enough for print, small enough to fit memory. */
 export const PNG_SCALE = { smallest: 0.1, largest: 10 };
 
+/**
+ * The most pixels a PNG may have: 100 million, 400 MB as the renderer holds them (4 bytes each), room
+ * for the default sheet at the largest zoom (9,600 × 7,200).
+ */
+export const PNG_LARGEST_PIXELS = 1e8;
+
+/** The pixels of a sheet's PNG at a zoom, the defaults filled in. @example pngPixelsOf(undefined, undefined, 2) // 2,764,800 */
+export function pngPixelsOf(width = sheetDefaults.width, height = sheetDefaults.height, scale = 2): number {
+  return width * scale * height * scale;
+}
+
 /** The options with every default filled in. */
 export type ResolvedSheetOptions = Required<SheetOptions>;
 

@@ -73,6 +73,12 @@ describe('discern plot', () => {
       [['--out', 'x.svg', '--width', '100'], /^--width: expected a width in px of at least 480, got "100"\n$/],
       [['--out', 'x.svg', '--height', '99999'], /^--height: expected a height in px of at least 360, got "99999"\n$/],
       [['--out', 'x.png', '--scale', '100'], /^--scale: expected a zoom from 0\.1 to 10, got "100"\n$/],
+      [['--out', 'x.svg', '--width', '0x400'], /^--width: expected a number greater than 0, got "0x400"\n$/],
+      // Each flag within its bounds, the image past what memory holds: 20,000² px at 10 × is 4·10¹⁰ pixels.
+      [
+        ['--out', 'x.png', '--width', '20000', '--height', '20000', '--scale', '10'],
+        /^--scale: expected a PNG of at most 100 million pixels \(width × height × scale²\), got "10"\n$/,
+      ],
       [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected letter, a4, tabloid or a3, got "legal"\n$/],
       [['--out', 'x.pdf', '--orientation', 'up'], /^--orientation: expected portrait or landscape, got "up"\n$/],
     ];

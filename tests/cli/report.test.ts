@@ -65,6 +65,7 @@ describe('discern report', () => {
       [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected letter, a4, tabloid or a3, got "legal"\n$/],
       [['--out', 'x.pdf', '--orientation', 'sideways'], /^--orientation: expected portrait or landscape/],
       [['--out', 'x.docx'], /^--out: expected a file name ending \.pdf, \.html or \.md/],
+      [['--out', 'x.pdf', '--date', '2026-02-30'], /^--date: expected a calendar date \(YYYY-MM-DD\) or other text/],
     ] as const) {
       const { code, stderr } = await runVerb(['demo/harrowmere-fused.json', ...args], reportCommand);
       expect(code).toBe(2);

@@ -230,6 +230,6 @@ describe('window in an operating scenario', () => {
       windowCommand,
     );
     expect(code).toBe(2);
-    expect(stderr).toBe('device: expected a device energised in scenario "on-generator", got "MAIN"\n');
+    expect(stderr).toBe('--device: expected a device energised in scenario "on-generator", got "MAIN"\n');
   });
 });

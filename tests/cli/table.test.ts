@@ -7,6 +7,9 @@ describe('formatTable', () => {
       ['bus     kA', '----  ----', 'SWBD  29.8'].join('\n'),
     );
     expect(tableAmps(28421.1)).toBe('28 421');
+    // A fraction of an ampere keeps three figures rather than rounding to nothing.
+    expect(tableAmps(0.001)).toBe('0.001');
+    expect(tableAmps(4.987)).toBe('4.99');
   });
 
   it('wraps one column so no line is wider than maxWidth, other cells blank on continuation lines', () => {

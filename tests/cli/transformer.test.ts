@@ -127,10 +127,10 @@ describe('discern transformer', () => {
     [['--phases', '2'], /^--phases: expected 1 or 3, got "2"\n$/],
     // Numbers a study would refuse (a denormal, an overflowing size) are refused here too: they carry
     // Infinity into the fault current.
-    [
-      ['--secondary', '1e-310'],
-      /^--secondary: expected a number between 1e-9 and 1000000000000 in size, got "1e-310"\n$/,
-    ],
+    [['--secondary', '1e-310'], /^--secondary: expected a voltage between 1 V and 2000000 V, got "1e-310"\n$/],
+    // As in a study, each quantity keeps to its physical range: a microvolt winding is no transformer.
+    [['--primary', '0.000001'], /^--primary: expected a voltage between 1 V and 2000000 V, got "0\.000001"\n$/],
+    [['--kva', '1e-9'], /^--kva: expected a power between 1 VA and 1000000000000 VA, got "1e-9"\n$/],
     [
       ['--impedance', '5e-324'],
       /^--impedance: expected a number between 1e-9 and 1000000000000 in size, got "5e-324"\n$/,

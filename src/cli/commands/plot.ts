@@ -3,10 +3,10 @@ import { expectedGot, InputError } from '../../engine/errors.ts';
 import { hasScenarios, scenarioLabel, scenarioPartsOf, scenariosOf } from '../../engine/scenario/index.ts';
 import type { Scenario, Study } from '../../engine/study/index.ts';
 import { sheetOf } from '../../plot/sheet.ts';
-import { PNG_SCALE, resolveSheetOptions } from '../../plot/sheetOptions.ts';
+import { PNG_LARGEST_PIXELS, PNG_SCALE, pngPixelsOf, resolveSheetOptions } from '../../plot/sheetOptions.ts';
 import { svgOf } from '../../plot/svg.ts';
 import { viewInputOf } from '../../plot/viewInput.ts';
-import { flagText, parseArgs } from '../args.ts';
+import { flagText, parseArgs, positiveFlag } from '../args.ts';
 import type { Command } from '../command.ts';
 import { scenarioFlag } from '../scenarioFlag.ts';
 import { loadStudyFile } from '../studyFile.ts';
@@ -66,6 +66,15 @@ export const plotCommand: Command = {
     const scale = numberFlag(flagText(parsed, 'scale'), '--scale');
     if (scale !== undefined && !(scale >= PNG_SCALE.smallest && scale <= PNG_SCALE.largest))
       throw new InputError('--scale', expectedGot(`a zoom from ${PNG_SCALE.smallest} to ${PNG_SCALE.largest}`, scale));
+    // Each flag within its bounds can still ask for an image no memory holds.
+    if (format === 'png' && pngPixelsOf(width, height, scale) > PNG_LARGEST_PIXELS)
+      throw new InputError(
+        '--scale',
+        expectedGot(
+          `a PNG of at most ${PNG_LARGEST_PIXELS / 1e6} million pixels (width × height × scale²)`,
+          scale ?? 2,
+        ),
+      );
     const paper = flagText(parsed, 'paper') ?? 'letter';
     if (paper !== 'letter' && paper !== 'a4' && paper !== 'tabloid' && paper !== 'a3')
       throw new InputError('--paper', expectedGot('letter, a4, tabloid or a3', paper));
@@ -131,10 +140,7 @@ function oneLine(note: string): string {
   return note.replace(/\s*[\r\n]+\s*/g, ' ');
 }
 
-/** A positive number flag, or undefined when absent. */
+/** A positive decimal number flag (not "0x400"), or undefined when absent. */
 function numberFlag(text: string | undefined, flag: string): number | undefined {
-  if (text === undefined) return undefined;
-  const value = Number(text);
-  if (!(Number.isFinite(value) && value > 0)) throw new InputError(flag, expectedGot('a number greater than 0', text));
-  return value;
+  return text === undefined ? undefined : positiveFlag(text, flag.replace(/^--/, ''));
 }

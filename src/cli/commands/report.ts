@@ -61,6 +61,9 @@ export const reportCommand: Command = {
     const date = flagText(parsed, 'date');
     if (date !== undefined && (date.length > 40 || [...date].some((c) => c < ' ' || c === '\u007f')))
       throw new InputError('--date', expectedGot('a date of at most 40 printable characters', date));
+    // A date written the ISO way must be one the calendar has (not 2026-02-30, which would print as typed).
+    if (date !== undefined && /^\d{4}-\d{2}-\d{2}$/.test(date) && !isCalendarDate(date))
+      throw new InputError('--date', expectedGot('a calendar date (YYYY-MM-DD) or other text', date));
 
     const study = loadStudyFile(path, io, 'report');
     // The report's modules (and the PDF writer) load only when asked for.
@@ -70,8 +73,8 @@ export const reportCommand: Command = {
     const setup = { paper, orientation } as const;
     const outputs: Output[] = [];
     if (format === 'pdf') {
-      // A parseable ISO date also becomes the PDF's creation date; otherwise a fixed one.
-      const created = date !== undefined && !Number.isNaN(Date.parse(date)) ? date : undefined;
+      // A calendar date (YYYY-MM-DD) also becomes the PDF's creation date; other text, a fixed one.
+      const created = date !== undefined && isCalendarDate(date) ? date : undefined;
       outputs.push({ path: out, data: await pdfOfReport(report, setup, { date: created }) });
     } else if (format === 'html') outputs.push({ path: out, data: htmlOfReport(report, setup) });
     else {
@@ -88,3 +91,10 @@ export const reportCommand: Command = {
     return 0;
   },
 };
+
+/** Whether text is a date the calendar has, written YYYY-MM-DD (years 0001 to 9999). @example isCalendarDate('2026-02-30') // false */
+function isCalendarDate(text: string): boolean {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(text) || text.startsWith('0000')) return false;
+  const time = Date.parse(`${text}T00:00:00Z`);
+  return !Number.isNaN(time) && new Date(time).toISOString().startsWith(text);
+}

@@ -48,12 +48,25 @@ export const windowCommand: Command = {
       throw new InputError('--device', expectedGot(`one of ${study.devices.map((d) => d.id).join(', ')}`, deviceId));
     }
     const scenario = scenarioFlag(parsed, study)?.id;
-    const window = settingWindowOf(study, deviceId, { maps: parsed.flags.has('json'), scenario });
+    const window = windowNamingFlags(() =>
+      settingWindowOf(study, deviceId, { maps: parsed.flags.has('json'), scenario }),
+    );
     if (parsed.flags.has('json')) io.stdout(`${JSON.stringify(window, jsonValue, 2)}\n`);
     else io.stdout(`${windowText(window)}\n${CAUTION}\n`);
     return window.exists ? 0 : 1;
   },
 };
+
+/** The window, with a device the engine refuses (not energised in the scenario asked) named by its flag. */
+function windowNamingFlags(work: () => SettingWindow): SettingWindow {
+  try {
+    return work();
+  } catch (error) {
+    if (error instanceof InputError && error.path === 'device')
+      throw new InputError('--device', error.message.slice('device: '.length));
+    throw error;
+  }
+}
 
 /**
  * A constraint's state in words: FAIL where it fails, warn where it holds with a negative margin (a

@@ -78,8 +78,8 @@ export interface QuantityFieldOptions extends FieldLimits {
   description?: string;
 }
 
-/** The physical range of a dimension as the user reads it: "1 V to 2e+06 V". */
-function rangeText(dimension: Dimension): string {
+/** The physical range of a dimension as the user reads it. @example physicalRangeText('voltage') // "1 V and 2000000 V" */
+export function physicalRangeText(dimension: Dimension): string {
   const { smallest, largest, unit } = PHYSICAL_RANGES[dimension];
   return `${smallest} ${unit} and ${largest} ${unit}`;
 }
@@ -99,10 +99,8 @@ export function quantityField(dimension: Dimension, options: QuantityFieldOption
     } catch (error) {
       return `${(error as Error).message}, got ${quoteGot(value)}`;
     }
-    // A plain number's size was already bounded when the document was read (readStudy); text with a
-    // unit ("1e-310 A") is bounded here, in its dimension's SI range.
-    const problem =
-      limitProblem(parsed, limits) ?? physicalProblem(parsed, dimension, { smallest: typeof value === 'string' });
+    // Bare or with a unit, the value keeps to its dimension's SI range ("1e-9" kVA is no rating).
+    const problem = limitProblem(parsed, limits) ?? physicalProblem(parsed, dimension);
     return problem ? `expected a ${dimension} ${problem}, got ${quoteGot(value)}` : parsed;
   };
   return withPlainReading(
@@ -302,13 +300,11 @@ export function outsidePhysicalRange(value: number, dimension: Dimension): boole
 }
 
 /** A value other than 0 outside the dimension's physical range. */
-function physicalProblem(value: number, dimension: Dimension, check = { smallest: true }): string | undefined {
+function physicalProblem(value: number, dimension: Dimension): string | undefined {
   const { smallest, largest } = PHYSICAL_RANGES[dimension];
   if (value === 0) return undefined;
   const magnitude = Math.abs(value);
-  return (check.smallest && magnitude < smallest) || magnitude > largest
-    ? `between ${rangeText(dimension)}`
-    : undefined;
+  return magnitude < smallest || magnitude > largest ? `between ${physicalRangeText(dimension)}` : undefined;
 }
 
 function limitProblem(value: number, { min, exclusiveMin = false, max }: FieldLimits): string | undefined {
@@ -328,7 +324,7 @@ function limitProblem(value: number, { min, exclusiveMin = false, max }: FieldLi
 export const availableFaultField = z
   .union([z.number(), z.string()])
   .transform((value, ctx): { va: number; amps?: undefined } | { amps: number; va?: undefined } => {
-    const expected = `an available fault such as "250 MVA" or "11.6 kA" greater than 0 (a power between ${rangeText('power')}, or a current between ${rangeText('current')})`;
+    const expected = `an available fault such as "250 MVA" or "11.6 kA" greater than 0 (a power between ${physicalRangeText('power')}, or a current between ${physicalRangeText('current')})`;
     for (const [dimension, plainUnit] of [
       ['power', 'MVA'],
       ['current', 'A'],

@@ -51,7 +51,10 @@ export function pdfTextString(text: string): string {
 export function pdfDate(iso: string): string {
   const time = Date.parse(iso);
   if (Number.isNaN(time)) throw new RangeError(`options.date: expected an ISO date, got "${iso}"`);
-  const digits = new Date(time).toISOString().replace(/[-:T]|\.\d+Z$/g, '');
+  const stamp = new Date(time).toISOString();
+  // A PDF date has four digits of year: "+010000-01-01" or "-000001-01-01" has no such form.
+  if (!/^\d{4}-/.test(stamp)) throw new RangeError(`options.date: expected a year from 0 to 9999, got "${iso}"`);
+  const digits = stamp.replace(/[-:T]|\.\d+Z$/g, '');
   return `D:${digits}Z`;
 }
 

@@ -171,7 +171,8 @@ describe('relay', () => {
     primary: fc.integer({ min: 50, max: 4000 }),
     secondary: fc.constantFrom(1, 5),
     instantaneous: fc.option(fc.double({ min: 1, max: 200, noNaN: true }), { nil: undefined }),
-    instantaneousDelay: fc.double({ min: 0, max: 0.5, noNaN: true }),
+    // A time is 0 or within its physical range (from 1 µs), as every study field reads it.
+    instantaneousDelay: fc.oneof(fc.constant(0), fc.double({ min: 1e-6, max: 0.5, noNaN: true })),
     cap: fc.option(fc.double({ min: 1.5, max: 40, noNaN: true }), { nil: undefined }),
     pickupTolerance: fc.double({ min: 0, max: 10, noNaN: true }),
     timeTolerance: fc.double({ min: 0, max: 10, noNaN: true }),
