@@ -41,6 +41,10 @@ export class AnalysisState {
   // The next reply starts the results afresh (after a worker failed and another was started).
   #fresh = false;
   #waiting: AnalyseRequest | undefined;
+  // The study shown (`StudyState.opened`) and the first run asked for it: replies to runs before it
+  // describe the study shown before (a restored copy with problems asks for no run at all).
+  #opened = 0;
+  #firstRunOfStudy = $state(1);
   #results: CheckResults | undefined = $state.raw();
   // Per device, the findings of `#results` naming it, kept up to date from each reply's changes.
   #counts: ReadonlyMap<string, FindingCount> = $state.raw(NO_COUNTS);
@@ -78,11 +82,13 @@ export class AnalysisState {
   readonly base = $derived.by(() => this.#fast?.value);
   /** Why the fault levels or bands of the current study could not be worked out, if they could not. */
   readonly baseError = $derived.by(() => this.#fast?.error);
+  // The checks' results as last received, while they are of the study shown.
+  readonly #shownResults = $derived.by(() => (this.#received >= this.#firstRunOfStudy ? this.#results : undefined));
   /** The whole analysis: the fast half now, the checks' findings as last received. */
   readonly analysis: Analysis | undefined = $derived.by(() => {
     const base = this.base;
     if (!base) return undefined;
-    const results = this.#results;
+    const results = this.#shownResults;
     return {
       study: base.network.study,
       ...base,
@@ -92,7 +98,7 @@ export class AnalysisState {
     };
   });
   /** Findings as last received (they may trail the latest edit while `pending`), in every scenario. */
-  readonly findings: Finding[] = $derived.by(() => this.#results?.findings ?? []);
+  readonly findings: Finding[] = $derived.by(() => this.#shownResults?.findings ?? []);
   // The chosen scenario's trees, built on the main thread like the fast half, or why they could not be.
   readonly #scenario = $derived.by((): { value?: ScenarioView; error?: string } | undefined => {
     const study = this.#study.study;
@@ -123,7 +129,9 @@ export class AnalysisState {
   /** Device ids the opened finding names (highlighted on the sheet and in the tree). */
   readonly highlighted = $derived.by(() => idSetOf(this.selectedFinding?.subjects ?? []));
   /** Per device: how many findings naming it fail or warn (in the chosen scenario). */
-  readonly findingCounts = $derived.by(() => (this.scenario ? findingCountsOf(this.scenarioFindings) : this.#counts));
+  readonly findingCounts = $derived.by(() =>
+    this.scenario ? findingCountsOf(this.scenarioFindings) : this.#shownResults ? this.#counts : NO_COUNTS,
+  );
 
   constructor(study: StudyState, runner: CheckRunner) {
     this.#study = study;
@@ -137,8 +145,15 @@ export class AnalysisState {
    */
   request(): void {
     const study = this.#study.study;
+    const opened = this.#study.opened;
+    // Only the study and its opening are dependencies; the counters are written without being tracked.
+    untrack(() => {
+      if (opened !== this.#opened) {
+        this.#opened = opened;
+        this.#firstRunOfStudy = this.#sent + 1;
+      }
+    });
     if (!study) return;
-    // Only the study is a dependency; the counters are written without being tracked.
     untrack(() => {
       const request = { seq: ++this.#sent, study };
       if (this.#inFlight !== undefined) this.#waiting = request;
@@ -166,7 +181,7 @@ export class AnalysisState {
     if (!view) return { left: [] };
     const { part, left } = placeOfView(scenario, viewId, view.devices);
     return {
-      analysis: part && analysisOfPart(part, this.#results?.pairs ?? [], this.scenarioFindings),
+      analysis: part && analysisOfPart(part, this.#shownResults?.pairs ?? [], this.scenarioFindings),
       left,
     };
   }

@@ -78,6 +78,42 @@ describe('AnalysisState', () => {
     expect(analysis.analysis?.counts).toEqual(expected.counts);
   });
 
+  it("shows none of the last study's findings once another replaces it, even one with problems that cannot be checked", () => {
+    const study = new StudyState(demo);
+    const runner = heldRunner();
+    const analysis = new AnalysisState(study, runner);
+    analysis.request();
+    runner.answer(0);
+    expect(analysis.findings.length).toBeGreaterThan(0);
+    // A kept copy whose pickup was being retyped: it has problems, so nothing is sent to the checks.
+    const mainIndex = demo.devices!.findIndex((d) => d.id === 'MAIN');
+    const kept = structuredClone(demo);
+    (kept.devices![mainIndex].characteristic as Record<string, unknown>).longTime = 'abc';
+    study.restore(kept, { unsaved: true, savedAt: '2026-12-01T22:00:00Z' });
+    analysis.request();
+    expect(study.study).toBeUndefined();
+    expect(runner.requests).toHaveLength(1);
+    expect(analysis.findings).toEqual([]);
+    expect(analysis.findingCounts.size).toBe(0);
+  });
+
+  it('shows nothing of a run for the study before while the newly opened one is checked', () => {
+    const study = new StudyState(demo);
+    const runner = heldRunner();
+    const analysis = new AnalysisState(study, runner);
+    analysis.request();
+    const fused = JSON.parse(
+      readFileSync(new URL('../../../demo/harrowmere-fused.json', import.meta.url), 'utf8'),
+    ) as StudyInput;
+    study.load(fused);
+    analysis.request();
+    runner.answer(0);
+    expect(analysis.findings).toEqual([]);
+    expect(analysis.pending).toBe(true);
+    runner.answer(1);
+    expect(analysis.findings.map((f) => f.id)).toEqual(analyseStudy(study.study!).findings.map((f) => f.id));
+  });
+
   it('selectFinding() highlights the devices a finding names; findingCounts counts per device', () => {
     const study = new StudyState(demo);
     const runner = heldRunner();
