@@ -7,10 +7,13 @@
 export class InputError extends Error {
   override readonly name = 'InputError';
   readonly path: string;
+  /** The message without its path: `expected …, got "…"`. */
+  readonly reason: string;
 
   constructor(path: string, message: string) {
     super(`${escapedControls(path)}: ${message}`);
     this.path = path;
+    this.reason = message;
   }
 }
 

@@ -136,15 +136,42 @@ describe('the workbench keeps the work', () => {
       new RegExp(`study\\.devices\\[${mainIndex}\\]\\.characteristic\\.shortTime\\.delay: `),
     );
     await expect(page.getByTestId('recovered').textContent()).resolves.toMatch(/with 1 problem to fix/);
+    // Nothing is checked while the restored copy has problems: no findings, not even those of the
+    // study shown before it, and the sheet says why it is not drawn.
+    await expect(page.getByTestId('findings').textContent()).resolves.toMatch(/Not checked: the study has problems/);
+    await expect(page.getByTestId('findings-summary').getAttribute('data-ok')).resolves.toBe('0');
+    await page.getByTestId('sheet-problems').waitFor();
     await page.getByTestId('study-problems').locator('button').first().click();
     await expect(page.getByTestId(delayField).inputValue()).resolves.toBe('');
     // Fixed and saved: the study is whole again, and the recovered banner has gone.
     await page.getByTestId(delayField).fill('0.4');
     await expect(page.getByTestId('study-problems').count()).resolves.toBe(0);
+    await expect.poll(() => page.getByTestId('findings-summary').getAttribute('data-ok')).not.toBe('0');
     const download = page.waitForEvent('download');
     await page.getByTestId('recovered-save').click();
     await download;
     await expect(page.getByTestId('recovered').count()).resolves.toBe(0);
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
+  it('a time dial typed as people write it ("2.50", "2.", ".5") is that number, shown as typed while it is typed', async () => {
+    const { page, context } = await openWith();
+    // The selective demo's first device, T1 primary relay: its time dial is a plain number, not a quantity.
+    await page.getByTestId('tree-device-R-T1').click();
+    const dial = page.getByTestId('field-study.devices[0].characteristic.timeOvercurrent.timeDial');
+    for (const typed of ['2.50', '2.', '.5']) {
+      await dial.fill(typed);
+      await expect(page.getByTestId('study-problems').count()).resolves.toBe(0);
+      await expect(dial.inputValue()).resolves.toBe(typed);
+    }
+    // Deleting the last figure of "2.35" leaves "2.3" under the cursor, not a rewritten field.
+    await dial.fill('2.35');
+    await dial.press('End');
+    await dial.press('Backspace');
+    await dial.press('Backspace');
+    await expect(dial.inputValue()).resolves.toBe('2.');
+    await expect(page.getByTestId('study-problems').count()).resolves.toBe(0);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
@@ -254,6 +281,16 @@ describe('the workbench keeps the work', () => {
     await expect(page.getByTestId('study-name').textContent()).resolves.toContain(demo.name);
     await expect(page.getByTestId(delayField).inputValue()).resolves.toBe('0.3');
     await expect(page.getByTestId('tree-bus-B1').count()).resolves.toBe(0);
+    // A study saved in Latin-1 ("Köln" with the ö as the single byte 0xF6) is refused, not misread.
+    await page.getByTestId('open-file').setInputFiles({
+      name: 'latin1.json',
+      mimeType: 'application/json',
+      buffer: Buffer.from(JSON.stringify({ ...deepStudy(1), name: 'K\u00f6ln' }), 'latin1'),
+    });
+    await expect
+      .poll(() => refused.textContent())
+      .toMatch(/latin1\.json.*was not opened.*study: expected UTF-8 text, got "byte 0xF6 at line 1, column \d+"/s);
+    await expect(page.getByTestId('study-name').textContent()).resolves.toContain(demo.name);
     await reloadAtOnce(page);
     await page.getByTestId('recovery-restore').first().click();
     await page.getByTestId('tree-device-MAIN').click();

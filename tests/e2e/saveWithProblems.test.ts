@@ -64,6 +64,11 @@ describe('a study with problems in Chromium', () => {
     const file = JSON.parse(readFileSync((await (await download).path())!, 'utf8'));
     expect(file.devices[0].characteristic.timeOvercurrent.timeDial).toBe('');
     await expect(page.getByTestId('study-name').textContent()).resolves.toContain('(unsaved changes)');
+    // The mark is seen too, whole, however long the study's name: the name is what is cut short.
+    const name = (await page.getByTestId('study-name').boundingBox())!;
+    const mark = (await page.getByTestId('unsaved-mark').boundingBox())!;
+    expect(mark.width).toBeGreaterThan(0);
+    expect(mark.x + mark.width).toBeLessThanOrEqual(name.x + name.width + 0.5);
     expect(await warnsOnLeaving(page)).toBe(true);
     expect(pageErrors(page)).toEqual([]);
     await context.close();

@@ -1,3 +1,5 @@
+import { utf8TextOf } from '../../engine/study/utf8Text.ts';
+
 /**
  * Hands a file to the browser as a download (the workbench's only way of writing files).
  * @example downloadBlob('study.json', new Blob([text], { type: 'application/json' }))
@@ -35,9 +37,10 @@ export function fileStemOf(name: string): string {
 }
 
 /**
- * Reads a file the user picked as text.
+ * Reads a file the user picked as UTF-8 text. Bytes that are not UTF-8 throw `InputError` under `study`
+ * (read leniently they would become replacement characters, which a save would then write back).
  * @example const text = await readFileText(input.files[0])
  */
-export function readFileText(file: File): Promise<string> {
-  return file.text();
+export async function readFileText(file: File): Promise<string> {
+  return utf8TextOf(new Uint8Array(await file.arrayBuffer()), 'study');
 }

@@ -132,8 +132,15 @@ export class SheetState {
   /** The current view laid out at the figure size, as the command line's figure (throws when there is no sheet). */
   figureSheet(): Sheet {
     const { input, error } = this.input;
-    if (!input) throw new Error(error ?? 'there is no sheet to export: the study has no view');
+    if (!input) throw new Error(error ?? this.#noSheetReason());
     return sheetOf(input, { ...FIGURE_SIZE, idPrefix: 'tcc' });
+  }
+
+  // Why there is no sheet to export: a sheet dark in the chosen scenario, a study with problems, no view.
+  #noSheetReason(): string {
+    if (this.dark) return `there is no sheet to export: ${this.dark.charAt(0).toLowerCase()}${this.dark.slice(1)}`;
+    if (!this.#study.study) return 'there is no sheet to export: the study has problems to mend first';
+    return this.#study.view ? 'there is no sheet to export' : 'there is no sheet to export: the study has no view';
   }
 
   /** The current view as a standalone SVG at the figure size (throws when there is no sheet). */

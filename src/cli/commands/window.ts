@@ -62,8 +62,7 @@ function windowNamingFlags(work: () => SettingWindow): SettingWindow {
   try {
     return work();
   } catch (error) {
-    if (error instanceof InputError && error.path === 'device')
-      throw new InputError('--device', error.message.slice('device: '.length));
+    if (error instanceof InputError && error.path === 'device') throw new InputError('--device', error.reason);
     throw error;
   }
 }

@@ -78,6 +78,10 @@ describe('the sheet, the findings and the tree in a scenario', () => {
     expect(sheet.input.input).toBeUndefined();
     expect(sheet.dark).toMatch(/^Every device on this sheet is de-energised in the scenario "On generator"\.$/);
     expect(sheet.sheet).toBeUndefined();
+    // Exporting it says why there is nothing to export, not that the study has no view.
+    expect(() => sheet.figureSvg()).toThrow(
+      /^there is no sheet to export: every device on this sheet is de-energised in the scenario "On generator"\.$/,
+    );
   });
 
   it("a sheet partly energised draws what is, and lists the rest in the figure's notes", () => {
