@@ -19,6 +19,7 @@ import { locationBusOf } from '../network/index.ts';
 import { inrushMarkersOf, type Marker } from '../withstand/index.ts';
 import { formatAmps, formatSeconds, significant } from '../quantity/format.ts';
 import type { Trial } from './trial.ts';
+import type { Device } from '../study/index.ts';
 
 /** What a constraint is about (DEVELOPERS.md, names "constraint"). */
 export type ConstraintKind =
@@ -186,8 +187,7 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
       kind: 'cable-ampacity',
       label: `protect ${name} at its ampacity`,
       source: 'NFPA 70 240.4, Table 310.16',
-      // The rating NEC 240.4 compares is a setting only for a relay without a rating (its pickup).
-      favours: device.rating === undefined && device.characteristic.kind === 'relay' ? 'faster' : 'fixed',
+      favours: ratingFavours(device),
       subjects: [cable.id],
       evaluate: (t) => {
         const amps = ratingOf(t.deviceOf(deviceId))?.amps;
@@ -247,8 +247,7 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
     const secondary = trial.network.deviceFeeding.get(transformer.to)?.id === deviceId;
     if (!primary && !secondary) continue;
     const side = primary ? 'primary' : 'secondary';
-    // A rating written on the device, or any family but a relay, is not a setting: the limit is reported.
-    const favours: Favours = device.rating === undefined && device.characteristic.kind === 'relay' ? 'faster' : 'fixed';
+    const favours = ratingFavours(device);
     constraints.push({
       id: `nec:${transformer.id}`,
       kind: 'nec-450.3',
@@ -470,4 +469,16 @@ function inrushResult(band: Band, markers: Marker[]): ConstraintResult {
       ? text
       : `may operate ${formatSeconds(-margin)} before the inrush at ${formatAmps(markers[0].amps, 3)} has decayed`,
   };
+}
+
+/**
+ * Which way the NEC's rating limits (240.4, 450.3) pull a device's settings: lower where its rating
+ * follows a setting (a relay without a rating given: its pickup; a trip unit with one: its long-time
+ * pickup once set above it, NEC 240.6(C)); nowhere for a fixed rating, whose limit is only reported.
+ */
+function ratingFavours(device: Device): Favours {
+  const kind = device.characteristic.kind;
+  return (device.rating === undefined && kind === 'relay') || (device.rating !== undefined && kind === 'trip-unit')
+    ? 'faster'
+    : 'fixed';
 }

@@ -107,6 +107,21 @@ describe('cableAmpacityFindings', () => {
     expect(ampacityFinding(input)!.severity).toBe('ok');
   });
 
+  it('rates a trip unit set above the rating given at its setting: 500 kcmil copper (380 A) on 0.67 × 600 A (NFPA 70 240.6(C), 240.4(B))', () => {
+    // Given as 400 A, the next standard rating above 380 A, but set to 402 A: no reading of 240.6
+    // rates it below its long-time setting, and 402 A is above the 400 A that 240.4(B) allows.
+    const input = feederStudy({ size: '500 kcmil', rating: 400 });
+    const device = input.devices![0] as { characteristic: { sensor: number; longTime: { pickup: number } } };
+    device.characteristic.sensor = 600;
+    device.characteristic.longTime.pickup = 0.67;
+    const above = ampacityFinding(input)!;
+    expect(above.severity).toBe('fail');
+    expect(above.explanation).toMatch(/long-time pickup setting, above the rating given \(NEC 240\.6\(C\)\), 402 A/);
+    // Set to 396 A, the rating given stands.
+    device.characteristic.longTime.pickup = 0.66;
+    expect(ampacityFinding(input)!.severity).toBe('ok');
+  });
+
   it('allows no more than the ampacity above 800 A: 3 × 500 kcmil, 1140 A, on 1200 A fails, 4 sets pass (NFPA 70 240.4(C))', () => {
     const three = ampacityFinding(feederStudy({ size: '500 kcmil', sets: 3, rating: 1200 }))!;
     expect(three.severity).toBe('fail');
