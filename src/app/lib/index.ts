@@ -54,11 +54,19 @@ export type { PdfFonts } from './pdfFonts.ts';
 export { csvCell, probesCsv } from './probeCsv.ts';
 export { alsoRemoved, removalOf, withoutRemoval } from './removal.ts';
 export type { RemovableKind, Removal } from './removal.ts';
+export { ELEMENT_ID_PLACES, idEditOf, isId, withIdRenamed } from './renaming.ts';
+export type { IdEdit } from './renaming.ts';
 export { runExport } from './runExport.ts';
 export { scenarioFaultLinesOf } from './scenarioFaultLines.ts';
 export { analysisOfPart, findingsIn, placeOfView, scenarioViewOf } from './scenarioParts.ts';
 export type { PartView, ScenarioView, ViewPlace } from './scenarioParts.ts';
-export { COLLECTION_OF, parseProblemPath, pathOfSelection, selectionOfPath } from './selection.ts';
+export {
+  COLLECTION_OF,
+  parseProblemPath,
+  pathOfSelection,
+  selectionAfterIdEdit,
+  selectionOfPath,
+} from './selection.ts';
 export type { ItemKind, Selection } from './selection.ts';
 export { sheetGuideOf } from './sheetGuide.ts';
 export type { GuideStep } from './sheetGuide.ts';

@@ -8,6 +8,11 @@ export type ItemKind =
 export interface Selection {
   kind: ItemKind;
   id: string;
+  /**
+   * Where the item sits in its list, for an item its id may not name alone: one whose id is being
+   * typed and is, for now, another item's too. The item there is the selection while it has that id.
+   */
+  at?: number;
 }
 
 /** The study document's list holding each kind (the source is a single object). */
@@ -27,17 +32,39 @@ type Lists = Record<string, unknown>;
 
 /**
  * Where the selected item sits in the document, or `undefined` when it is not there (deleted, or
- * undone away).
+ * undone away): the item at `selection.at` when it has the selected id, else the first with it.
  *
  * @example pathOfSelection(document, { kind: 'device', id: 'MAIN' }) // ['devices', 0]
+ * @example pathOfSelection(document, { kind: 'device', id: 'MAIN', at: 3 }) // ['devices', 3] while that one is called MAIN too
  */
 export function pathOfSelection(document: unknown, selection: Selection | undefined): DocumentPath | undefined {
   if (!selection || document === null || typeof document !== 'object') return undefined;
   if (selection.kind === 'source') return ['source'];
   const list = (document as Lists)[COLLECTION_OF[selection.kind]];
   if (!Array.isArray(list)) return undefined;
+  const collection = COLLECTION_OF[selection.kind];
+  if (selection.at !== undefined && list[selection.at]?.id === selection.id) return [collection, selection.at];
   const index = list.findIndex((item) => item !== null && typeof item === 'object' && item.id === selection.id);
-  return index < 0 ? undefined : [COLLECTION_OF[selection.kind], index];
+  return index < 0 ? undefined : [collection, index];
+}
+
+/**
+ * The selection after `value` was typed into the id at `idPath` of the selected item: the item by its
+ * new id once that is its own (`renamed`), else by its place in its list under the id as typed, so
+ * the editor stays on it while the user types on.
+ *
+ * @example selectionAfterIdEdit({ kind: 'device', id: 'MAIN' }, ['devices', 1, 'id'], 'MAIN-2', true) // { kind: 'device', id: 'MAIN-2' }
+ * @example selectionAfterIdEdit({ kind: 'device', id: 'MAIN' }, ['devices', 1, 'id'], 'MAIN 2', false) // { kind: 'device', id: 'MAIN 2', at: 1 }
+ */
+export function selectionAfterIdEdit(
+  selection: Selection,
+  idPath: DocumentPath,
+  value: unknown,
+  renamed: boolean,
+): Selection {
+  const id = typeof value === 'string' ? value : value === undefined || value === null ? '' : String(value);
+  const at = idPath[1];
+  return renamed || typeof at !== 'number' ? { kind: selection.kind, id } : { kind: selection.kind, id, at };
 }
 
 /**

@@ -12,7 +12,8 @@ import {
 } from '../lib/builtStudy.ts';
 import { removalOf, withoutRemoval } from '../lib/removal.ts';
 import { withItemAdded, withValueAt, withoutItemAt, valueAt, type DocumentPath } from '../lib/documentPath.ts';
-import { pathOfSelection, type Selection } from '../lib/selection.ts';
+import { pathOfSelection, selectionAfterIdEdit, type Selection } from '../lib/selection.ts';
+import { idEditOf } from '../lib/renaming.ts';
 import { newStudyDocument, newViewOf, withNewBranch, withNewMotor } from '../lib/newItems.ts';
 
 /** A study brought back from the browser's kept copies (shown in a banner until saved or replaced). */
@@ -54,6 +55,12 @@ export class StudyState {
   #built: BuiltStudy | undefined;
   /** The reading last made, which the next one reuses for what an edit left alone. */
   #lastReading: EditableReading | undefined;
+  /**
+   * For a document whose item id was left mid-typing (not a well-formed id, or another item's), the
+   * id the rest of the document still names that item by: typing on to a good id renames from it.
+   * Kept by document, so an undo or a redo back to that document finds it again.
+   */
+  #idsBeforeTyping = new WeakMap<StudyInput, { field: string; id: string }>();
 
   /** The document being edited (file form). */
   readonly document = $derived.by(() => this.history.current);
@@ -121,10 +128,28 @@ export class StudyState {
 
   /**
    * Sets one field and records it for undo. Edits of the same field in quick succession (typing,
-   * arrow steps, a drag) are one undo step.
+   * arrow steps, a drag) are one undo step. An item's id renames the item everywhere the document
+   * names it once it is a good id of its own, and the selection follows it (see `idEditOf`).
    */
   edit(path: DocumentPath, value: unknown, label: string): void {
-    this.history.commit(withValueAt(this.document, path, value), label, { key: path.join('/') });
+    const field = path.join('/');
+    const before = this.#idsBeforeTyping.get(this.document);
+    const idEdit = idEditOf(this.document, path, value, before?.field === field ? before.id : undefined);
+    if (!idEdit) {
+      this.history.commit(withValueAt(this.document, path, value), label, { key: field });
+      return;
+    }
+    const selected = this.selectionPath;
+    const wasSelected = selected !== undefined && selected.join('/') === path.slice(0, -1).join('/');
+    this.history.commit(idEdit.document, label, { key: field });
+    if (!idEdit.renamed && idEdit.knownAs !== undefined)
+      this.#idsBeforeTyping.set(idEdit.document, { field, id: idEdit.knownAs });
+    // The editor stays on the item: by its new id, or by its place while the id is not its own yet.
+    if (wasSelected && this.selection)
+      this.selection = selectionAfterIdEdit(this.selection, path, value, idEdit.renamed);
+    if (!idEdit.renamed || idEdit.wasKnownAs === undefined) return;
+    if (path[0] === 'views' && this.viewId === idEdit.wasKnownAs) this.viewId = idEdit.knownAs;
+    if (path[0] === 'scenarios' && this.scenarioId === idEdit.wasKnownAs) this.scenarioId = idEdit.knownAs;
   }
 
   /** Appends an item to a list of the document (a device to a view, a new view). */

@@ -191,4 +191,43 @@ describe('StudyState', () => {
     expect(state.problems.map((p) => p.path)).toEqual(['study']);
     expect(state.study?.name).toBe(demo.name);
   });
+
+  it('typing a new id for the selected device renames it everywhere in one undo step, and the editor stays on it', () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'device', id: 'MAIN' };
+    const id = ['devices', mainIndex, 'id'];
+    state.edit(id, 'MAI', 'id of MAIN');
+    expect(state.problems).toEqual([]);
+    expect(state.selection).toEqual({ kind: 'device', id: 'MAI' });
+    expect(state.selectionPath).toEqual(['devices', mainIndex]);
+    expect(state.study?.views.find((v) => v.id === 'service')?.devices).toContain('MAI');
+    expect(state.network?.devices.has('MAI')).toBe(true);
+    state.history.undo();
+    expect(state.document).toBe(demo);
+  });
+
+  it('a half-typed or taken id stands as written, the editor stays on the item by its place, and typing on renames', () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'device', id: 'MAIN' };
+    const id = ['devices', mainIndex, 'id'];
+    state.edit(id, 'R-T1', 'id of MAIN');
+    expect(state.problems.map((p) => p.path)).toContain(`study.devices[${mainIndex}].id`);
+    // R-T1 is the first device, so only its place keeps the editor on the one being typed.
+    expect(state.selectionPath).toEqual(['devices', mainIndex]);
+    state.edit(id, 'MAIN 2', 'id of MAIN');
+    expect(state.selectionPath).toEqual(['devices', mainIndex]);
+    expect(state.valueAt(['views', 0, 'devices'])).toContain('MAIN');
+    state.edit(id, 'MAIN-2', 'id of MAIN');
+    expect(state.problems).toEqual([]);
+    expect(state.selection).toEqual({ kind: 'device', id: 'MAIN-2' });
+    expect(state.valueAt(['views', 0, 'devices'])).toContain('MAIN-2');
+  });
+
+  it('renaming the sheet shown keeps it on the sheet', () => {
+    const state = new StudyState(demo);
+    state.viewId = demo.views![1].id;
+    state.edit(['views', 1, 'id'], 'renamed', 'id of a sheet');
+    expect(state.viewId).toBe('renamed');
+    expect(state.view?.id).toBe('renamed');
+  });
 });
