@@ -301,7 +301,8 @@ export class StudyState {
 
   /**
    * Deletes a bus, transformer, cable, motor or device with everything it takes (its device, what
-   * hangs below, its places on views: see `removalOf`), as one undo step.
+   * hangs below, switches and generators left on nothing, its places on views and in scenarios: see
+   * `removalOf`), as one undo step.
    */
   deleteItem(selection: Selection): void {
     const removal = removalOf(this.document, selection);
