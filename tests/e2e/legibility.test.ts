@@ -233,6 +233,14 @@ describe('a sheet and a workbench read at a glance, in Chromium', () => {
     const next = await fields.nth(2).getAttribute('data-testid');
     await page.keyboard.press('Tab');
     await expect(page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).resolves.toBe(next);
+    // Its remove button is out of the Tab order; Ctrl+Delete in an optional setting removes it, undoably.
+    const optional = page.locator('[data-testid="properties"] input[aria-keyshortcuts="Control+Delete"]').first();
+    const id = (await optional.getAttribute('data-testid'))!;
+    await optional.focus();
+    await page.keyboard.press('Control+Delete');
+    await expect.poll(() => page.getByTestId(id).count()).toBe(0);
+    await page.getByTestId('undo').click();
+    await expect.poll(() => page.getByTestId(id).count()).toBe(1);
     await context.close();
   });
 });
