@@ -38,6 +38,15 @@ describe('the study deliverable in the workbench', () => {
     await page.getByTestId('details-open').click();
     await expect.poll(() => page.getByTestId('detail-checkedBy').inputValue()).toBe('A. Reviewer');
     await expect.poll(() => page.getByLabel('revision 1 revision').count()).toBe(0);
+    // A name cleared is said to be wrong in the dialog itself, where the user is looking.
+    const details = page.getByTestId('study-details');
+    const name = await details.getByTestId('detail-name').inputValue();
+    await details.getByTestId('detail-name').fill('');
+    await details.getByTestId('detail-name').press('Tab');
+    await expect.poll(() => details.getByTestId('detail-name-problem').textContent()).toMatch(/^\s*name: expected/);
+    await details.getByTestId('detail-name').fill(name);
+    await details.getByTestId('detail-name').press('Tab');
+    await expect.poll(() => details.getByTestId('detail-name-problem').count()).toBe(0);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
