@@ -59,7 +59,10 @@ export function transformerFindings(context: CheckContext, transformer: Transfor
       id: `transformer-inrush:${transformer.id}:${marker.seconds}`,
       kind: 'transformer-inrush',
       severity: ok ? 'ok' : 'fail',
-      title: ok ? `${deviceName} rides through ${name}'s inrush` : `${deviceName} may trip on ${name}'s inrush`,
+      // Two inrush points per transformer: the title says which, so the two findings read apart.
+      title: ok
+        ? `${deviceName} rides through ${name}'s inrush at ${significant(marker.seconds!)} s`
+        : `${deviceName} may trip on ${name}'s inrush at ${significant(marker.seconds!)} s`,
       subjects: [device.id, transformer.id],
       range: rangeOf(marker.amps, marker.amps, volts, []),
       explanation: `${marker.label}: ${formatAmps(marker.amps, 3)} for ${formatSeconds(marker.seconds!)}. ${deviceName} ${
