@@ -176,8 +176,11 @@ describe('the study deliverable in the workbench', () => {
     const after = await menu.locator('option').count();
     await page.getByTestId('sheets-for-paths').click();
     expect(await menu.locator('option').count()).toBe(after);
+    // The click that adds nothing says why.
+    await expect(page.getByTestId('sheets-for-paths-note').textContent()).resolves.toMatch(/already has its sheet/);
     await page.getByTestId('undo').click();
     await expect.poll(() => menu.locator('option').count()).toBe(before);
+    await expect.poll(() => page.getByTestId('sheets-for-paths-note').count()).toBe(0);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
