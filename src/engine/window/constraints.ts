@@ -472,13 +472,11 @@ function inrushResult(band: Band, markers: Marker[]): ConstraintResult {
 }
 
 /**
- * Which way the NEC's rating limits (240.4, 450.3) pull a device's settings: lower where its rating
- * follows a setting (a relay without a rating given: its pickup; a trip unit with one: its long-time
- * pickup once set above it, NEC 240.6(C)); nowhere for a fixed rating, whose limit is only reported.
+ * Which way the NEC's rating limits (240.4, 450.3) pull a device's settings: lower for a relay without a
+ * rating given, whose pickup is its rating; nowhere otherwise, and the limit is only reported. A trip
+ * unit set above the rating given is compared at its setting (NEC 240.6(C)), but a rating given that is
+ * itself too large fails at every setting, so that limit cannot bound the window either.
  */
 function ratingFavours(device: Device): Favours {
-  const kind = device.characteristic.kind;
-  return (device.rating === undefined && kind === 'relay') || (device.rating !== undefined && kind === 'trip-unit')
-    ? 'faster'
-    : 'fixed';
+  return device.rating === undefined && device.characteristic.kind === 'relay' ? 'faster' : 'fixed';
 }

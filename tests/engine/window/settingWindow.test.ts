@@ -113,6 +113,18 @@ describe('settingWindowOf', () => {
     expect(window.recommendation?.tieBreak).toMatch(/^Fastest first/);
   });
 
+  it("reports, and is not closed by, a trip unit's rating given too large for its cable (NFPA 70 240.4(B)): no setting lowers it", () => {
+    // The selective demo's dock feeder, given 400 A, on 4/0 copper (230 A in Table 310.16): the rating
+    // fails the ampacity limit whatever the settings, so the window of each setting stays open.
+    const demo = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8')) as StudyInput;
+    const dock = demo.cables!.find((c) => c.id === 'C-DOCK')!;
+    dock.size = '4/0 AWG';
+    const window = settingWindowOf(parseStudy(demo), 'FDR-DOCK');
+    expect(window.exists).toBe(true);
+    const ampacity = window.constraints.find((c) => c.id === 'ampacity:C-DOCK')!;
+    expect(ampacity.favours).toBe('fixed');
+  });
+
   it('a fuse or thermal-magnetic breaker has nothing to set; a device not in the study is an input error naming the field', () => {
     expect(() => settingWindowOf(study, 'NOPE')).toThrow(/^device: expected one of R-T1, MAIN, FDR, got "NOPE"$/);
   });
