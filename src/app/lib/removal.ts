@@ -56,6 +56,9 @@ type ScenarioItem = { id?: unknown; sources?: unknown; switches?: unknown; outOf
  * @example removalOf(document, { kind: 'cable', id: 'C-MCC' }) // { cables: ['C-MCC'], buses: ['MCC'], motors: ['M1', …], devices: ['FDR-MCC', …], … }
  */
 export function removalOf(document: StudyInput, selection: Selection): Removal | undefined {
+  // An item held by its place while its id is typed (another item's, or no id yet) is not deleted
+  // here: what goes is found by id, and the id may name another item too.
+  if (selection.at !== undefined) return undefined;
   const kind = selection.kind;
   // Switches and generators are deleted from the property editor's list, with no cascade.
   if (kind === 'source' || kind === 'view' || kind === 'switch' || kind === 'generator') return undefined;

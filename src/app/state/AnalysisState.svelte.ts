@@ -46,6 +46,8 @@ export class AnalysisState {
   #opened = 0;
   #firstRunOfStudy = $state(1);
   #results: CheckResults | undefined = $state.raw();
+  // The run whose reply `#results` holds (a failed run leaves the results of the one before).
+  #resultsRun = $state(0);
   // Per device, the findings of `#results` naming it, kept up to date from each reply's changes.
   #counts: ReadonlyMap<string, FindingCount> = $state.raw(NO_COUNTS);
   // Fault levels are kept while an edit leaves the network as it was (a setting, a name).
@@ -83,7 +85,7 @@ export class AnalysisState {
   /** Why the fault levels or bands of the current study could not be worked out, if they could not. */
   readonly baseError = $derived.by(() => this.#fast?.error);
   // The checks' results as last received, while they are of the study shown.
-  readonly #shownResults = $derived.by(() => (this.#received >= this.#firstRunOfStudy ? this.#results : undefined));
+  readonly #shownResults = $derived.by(() => (this.#resultsRun >= this.#firstRunOfStudy ? this.#results : undefined));
   /** The whole analysis: the fast half now, the checks' findings as last received. */
   readonly analysis: Analysis | undefined = $derived.by(() => {
     const base = this.base;
@@ -261,5 +263,6 @@ export class AnalysisState {
           )
         : findingCountsOf(results.findings);
     this.#results = results;
+    this.#resultsRun = seq;
   }
 }

@@ -137,6 +137,8 @@ export class StudyState {
     const idEdit = idEditOf(this.document, path, value, before?.field === field ? before.id : undefined);
     if (!idEdit) {
       this.history.commit(withValueAt(this.document, path, value), label, { key: field });
+      // An id left half-typed is still remembered after another field's edit: typing on renames from it.
+      if (before) this.#idsBeforeTyping.set(this.document, before);
       return;
     }
     const selected = this.selectionPath;

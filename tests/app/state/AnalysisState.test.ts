@@ -114,6 +114,19 @@ describe('AnalysisState', () => {
     expect(analysis.findings.map((f) => f.id)).toEqual(analyseStudy(study.study!).findings.map((f) => f.id));
   });
 
+  it("shows none of the last study's findings when the checks of the newly opened one fail", () => {
+    const study = new StudyState(demo);
+    const runner = heldRunner();
+    const analysis = new AnalysisState(study, runner);
+    analysis.request();
+    runner.answer(0);
+    study.load(JSON.parse(readFileSync(new URL('../../../demo/harrowmere-fused.json', import.meta.url), 'utf8')));
+    analysis.request();
+    runner.onreply?.({ seq: runner.requests[1].seq, ok: false, message: 'out of memory' });
+    expect(analysis.error).toBe('The checks failed: out of memory');
+    expect(analysis.findings).toEqual([]);
+  });
+
   it('selectFinding() highlights the devices a finding names; findingCounts counts per device', () => {
     const study = new StudyState(demo);
     const runner = heldRunner();

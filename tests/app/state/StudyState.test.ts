@@ -223,6 +223,26 @@ describe('StudyState', () => {
     expect(state.valueAt(['views', 0, 'devices'])).toContain('MAIN-2');
   });
 
+  it('an id left half-typed while another field is edited still renames every reference once it is typed whole', () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'device', id: 'MAIN' };
+    const id = ['devices', mainIndex, 'id'];
+    state.edit(id, '', 'id of MAIN');
+    state.edit(['devices', mainIndex, 'name'], 'Main breaker', 'name of MAIN');
+    state.edit(id, 'MAIN-2', 'id of MAIN');
+    expect(state.problems).toEqual([]);
+    expect(state.valueAt(['views', 0, 'devices'])).toContain('MAIN-2');
+  });
+
+  it("the Delete of an item held by its place while its id is another item's deletes nothing", () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'device', id: 'MAIN' };
+    state.edit(['devices', mainIndex, 'id'], 'R-T1', 'id of MAIN');
+    const before = state.document;
+    state.deleteItem(state.selection!);
+    expect(state.document).toBe(before);
+  });
+
   it('renaming the sheet shown keeps it on the sheet', () => {
     const state = new StudyState(demo);
     state.viewId = demo.views![1].id;
