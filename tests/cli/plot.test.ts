@@ -79,6 +79,10 @@ describe('discern plot', () => {
         ['--out', 'x.png', '--width', '20000', '--height', '20000', '--scale', '10'],
         /^--scale: expected a PNG of at most 100 million pixels \(width × height × scale²\), got "10"\n$/,
       ],
+      [
+        ['--out', 'x.png', '--width', '12000', '--height', '9000'],
+        /^--height: expected a PNG of at most 100 million pixels \(width × height × scale²\), got "9000"\n$/,
+      ],
       [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected letter, a4, tabloid or a3, got "legal"\n$/],
       [['--out', 'x.pdf', '--orientation', 'up'], /^--orientation: expected portrait or landscape, got "up"\n$/],
     ];

@@ -66,15 +66,16 @@ export const plotCommand: Command = {
     const scale = numberFlag(flagText(parsed, 'scale'), '--scale');
     if (scale !== undefined && !(scale >= PNG_SCALE.smallest && scale <= PNG_SCALE.largest))
       throw new InputError('--scale', expectedGot(`a zoom from ${PNG_SCALE.smallest} to ${PNG_SCALE.largest}`, scale));
-    // Each flag within its bounds can still ask for an image no memory holds.
-    if (format === 'png' && pngPixelsOf(width, height, scale) > PNG_LARGEST_PIXELS)
+    // Each flag within its bounds can still ask for an image no memory holds: named by the flag given last
+    // of scale, height and width.
+    if (format === 'png' && pngPixelsOf(width, height, scale) > PNG_LARGEST_PIXELS) {
+      const [flag, given] =
+        scale !== undefined ? ['--scale', scale] : height !== undefined ? ['--height', height] : ['--width', width];
       throw new InputError(
-        '--scale',
-        expectedGot(
-          `a PNG of at most ${PNG_LARGEST_PIXELS / 1e6} million pixels (width × height × scale²)`,
-          scale ?? 2,
-        ),
+        flag,
+        expectedGot(`a PNG of at most ${PNG_LARGEST_PIXELS / 1e6} million pixels (width × height × scale²)`, given),
       );
+    }
     const paper = flagText(parsed, 'paper') ?? 'letter';
     if (paper !== 'letter' && paper !== 'a4' && paper !== 'tabloid' && paper !== 'a3')
       throw new InputError('--paper', expectedGot('letter, a4, tabloid or a3', paper));
