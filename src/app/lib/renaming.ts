@@ -193,3 +193,21 @@ function rewritten(node: unknown, steps: Step[], at: number, rename: (id: unknow
   const next = rewritten(child, steps, at + 1, rename);
   return next === child ? node : { ...record, [step]: next };
 }
+
+/**
+ * The id an item goes by after an undo or a redo: `id` while `list` of `after` still holds it; else the
+ * id at the place it held in `before`, when the step kept the list's length (undoing or redoing a
+ * rename, not an addition or a deletion); else `undefined`.
+ *
+ * @example idAfterStep(renamed, original, 'devices', 'MAIN-2') // 'MAIN': the rename undone
+ */
+export function idAfterStep(before: StudyInput, after: StudyInput, list: string, id: string): string | undefined {
+  const itemsOf = (document: StudyInput) => (document as unknown as Record<string, unknown>)[list];
+  const [was, now] = [itemsOf(before), itemsOf(after)];
+  if (!Array.isArray(was) || !Array.isArray(now)) return undefined;
+  const idAt = (items: unknown[], index: number) => (items[index] as { id?: unknown } | null | undefined)?.id;
+  if (now.some((_, index) => idAt(now, index) === id)) return id;
+  const at = was.findIndex((_, index) => idAt(was, index) === id);
+  const renamed = at >= 0 && was.length === now.length ? idAt(now, at) : undefined;
+  return typeof renamed === 'string' ? renamed : undefined;
+}

@@ -12,8 +12,8 @@ import {
 } from '../lib/builtStudy.ts';
 import { removalOf, withoutRemoval } from '../lib/removal.ts';
 import { withItemAdded, withValueAt, withoutItemAt, valueAt, type DocumentPath } from '../lib/documentPath.ts';
-import { pathOfSelection, selectionAfterIdEdit, type Selection } from '../lib/selection.ts';
-import { idEditOf } from '../lib/renaming.ts';
+import { COLLECTION_OF, pathOfSelection, selectionAfterIdEdit, type Selection } from '../lib/selection.ts';
+import { idAfterStep, idEditOf } from '../lib/renaming.ts';
 import { newStudyDocument, newViewOf, withNewBranch, withNewMotor } from '../lib/newItems.ts';
 
 /** A study brought back from the browser's kept copies (shown in a banner until saved or replaced). */
@@ -152,6 +152,30 @@ export class StudyState {
     if (!idEdit.renamed || idEdit.wasKnownAs === undefined) return;
     if (path[0] === 'views' && this.viewId === idEdit.wasKnownAs) this.viewId = idEdit.knownAs;
     if (path[0] === 'scenarios' && this.scenarioId === idEdit.wasKnownAs) this.scenarioId = idEdit.knownAs;
+  }
+
+  /** Undoes the last edit; the selection, the sheet shown and the scenario chosen follow a rename it undoes. */
+  undo(): void {
+    this.#step(() => this.history.undo());
+  }
+
+  /** Redoes the edit last undone; the selection, sheet and scenario follow a rename it redoes. */
+  redo(): void {
+    this.#step(() => this.history.redo());
+  }
+
+  #step(step: () => void): void {
+    const before = this.document;
+    step();
+    const after = this.document;
+    const selection = this.selection;
+    if (selection && selection.kind !== 'source') {
+      const id = idAfterStep(before, after, COLLECTION_OF[selection.kind], selection.id);
+      if (id !== undefined && id !== selection.id) this.selection = { kind: selection.kind, id };
+    }
+    if (this.viewId !== undefined) this.viewId = idAfterStep(before, after, 'views', this.viewId) ?? this.viewId;
+    if (this.scenarioId !== undefined)
+      this.scenarioId = idAfterStep(before, after, 'scenarios', this.scenarioId) ?? this.scenarioId;
   }
 
   /** Appends an item to a list of the document (a device to a view, a new view). */

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { readdirSync, readFileSync } from 'node:fs';
 import { z } from 'zod';
-import { ELEMENT_ID_PLACES, idEditOf, isId, withIdRenamed } from '../../../src/app/lib/renaming.ts';
+import { ELEMENT_ID_PLACES, idAfterStep, idEditOf, isId, withIdRenamed } from '../../../src/app/lib/renaming.ts';
 import { STUDY_JSON_SCHEMA, type SchemaNode } from '../../../src/app/lib/fieldInfo.ts';
 import { idField, readStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 
@@ -27,6 +27,15 @@ function elementIdsOf(document: StudyInput): string[] {
 }
 
 describe('renaming', () => {
+  it('idAfterStep follows an item across the undo of its rename, and nothing across an addition or a deletion', () => {
+    const renamed = withIdRenamed(standby, 'SWBD', 'SWBD-1');
+    expect(idAfterStep(renamed, standby, 'buses', 'SWBD-1')).toBe('SWBD');
+    expect(idAfterStep(standby, renamed, 'buses', 'SWBD')).toBe('SWBD-1');
+    expect(idAfterStep(standby, renamed, 'buses', 'DOCK')).toBe('DOCK');
+    const fewer = { ...standby, buses: standby.buses!.filter((b) => b.id !== 'DOCK') };
+    expect(idAfterStep(standby, fewer, 'buses', 'DOCK')).toBeUndefined();
+  });
+
   it('ELEMENT_ID_PLACES is every id field of the study schema but the ids of views and scenarios', () => {
     const idPattern = (z.toJSONSchema(idField) as SchemaNode & { pattern?: string }).pattern;
     const found = new Set<string>();

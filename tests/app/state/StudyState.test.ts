@@ -243,6 +243,21 @@ describe('StudyState', () => {
     expect(state.document).toBe(before);
   });
 
+  it('undoing and redoing a rename takes the selection and the sheet shown with it', () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'device', id: 'MAIN' };
+    state.edit(['devices', mainIndex, 'id'], 'MAI', 'id of MAIN');
+    state.undo();
+    expect(state.selection).toEqual({ kind: 'device', id: 'MAIN' });
+    expect(state.selectionPath).toEqual(['devices', mainIndex]);
+    state.redo();
+    expect(state.selection).toEqual({ kind: 'device', id: 'MAI' });
+    state.viewId = demo.views![1].id;
+    state.edit(['views', 1, 'id'], 'renamed', 'id of a sheet');
+    state.undo();
+    expect(state.view?.id).toBe(demo.views![1].id);
+  });
+
   it('renaming the sheet shown keeps it on the sheet', () => {
     const state = new StudyState(demo);
     state.viewId = demo.views![1].id;
