@@ -187,7 +187,7 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
       kind: 'cable-ampacity',
       label: `protect ${name} at its ampacity`,
       source: 'NFPA 70 240.4, Table 310.16',
-      favours: ratingFavours(device),
+      favours: ratingFavours(trial, device, (t) => cableAmpacityFindings(t, cable)[0]?.severity !== 'fail'),
       subjects: [cable.id],
       evaluate: (t) => {
         const amps = ratingOf(t.deviceOf(deviceId))?.amps;
@@ -247,7 +247,11 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
     const secondary = trial.network.deviceFeeding.get(transformer.to)?.id === deviceId;
     if (!primary && !secondary) continue;
     const side = primary ? 'primary' : 'secondary';
-    const favours = ratingFavours(device);
+    const limitOf = (t: Trial) =>
+      nec450Findings(t, transformer, t.settings.edition).find(
+        (f) => f.subjects[0] === deviceId && f.id.endsWith(`:${side}`),
+      );
+    const favours = ratingFavours(trial, device, (t) => limitOf(t)?.severity !== 'fail');
     constraints.push({
       id: `nec:${transformer.id}`,
       kind: 'nec-450.3',
@@ -256,9 +260,7 @@ export function constraintsOf(trial: Trial, deviceId: string, options: Constrain
       favours,
       subjects: [transformer.id],
       evaluate: (t) => {
-        const finding = nec450Findings(t, transformer, t.settings.edition).find(
-          (f) => f.subjects[0] === deviceId && f.id.endsWith(`:${side}`),
-        );
+        const finding = limitOf(t);
         const ok = finding?.severity !== 'fail';
         return {
           ok,
@@ -472,11 +474,20 @@ function inrushResult(band: Band, markers: Marker[]): ConstraintResult {
 }
 
 /**
- * Which way the NEC's rating limits (240.4, 450.3) pull a device's settings: lower for a relay without a
- * rating given, whose pickup is its rating; nowhere otherwise, and the limit is only reported. A trip
- * unit set above the rating given is compared at its setting (NEC 240.6(C)), but a rating given that is
- * itself too large fails at every setting, so that limit cannot bound the window either.
+ * Which way an NEC rating limit (240.4, 450.3) pulls a device's settings: lower for a relay without a
+ * rating given, whose pickup is its rating, and for a trip unit with a rating given that meets the
+ * limit (set above that rating it is rated at its setting, NEC 240.6(C), which the limit then bounds);
+ * nowhere otherwise, and the limit is only reported: no setting mends a rating given too large.
+ * `holds` asks the limit of a trial; the device is put back as it was.
  */
-function ratingFavours(device: Device): Favours {
-  return device.rating === undefined && device.characteristic.kind === 'relay' ? 'faster' : 'fixed';
+function ratingFavours(trial: Trial, device: Device, holds: (t: Trial) => boolean): Favours {
+  const c = device.characteristic;
+  if (device.rating === undefined) return c.kind === 'relay' ? 'faster' : 'fixed';
+  if (c.kind !== 'trip-unit') return 'fixed';
+  const placed = trial.deviceOf(device.id);
+  const pickup = Math.min(c.longTime.pickup, device.rating / c.sensor);
+  trial.place({ ...device, characteristic: { ...c, longTime: { ...c.longTime, pickup } } });
+  const ok = holds(trial);
+  trial.place(placed);
+  return ok ? 'faster' : 'fixed';
 }

@@ -125,6 +125,22 @@ describe('settingWindowOf', () => {
     expect(ampacity.favours).toBe('fixed');
   });
 
+  it('holds a trip unit given a rating its cable allows to that rating: 500 kcmil (380 A) on a 600 A sensor given 400 A (NFPA 70 240.4(B), 240.6(C))', () => {
+    // Set at 1 × 600 A the feeder is rated at its setting, 600 A; the window of its long-time pickup ends
+    // at 400 / 600, where its setting reaches the 400 A the cable allows.
+    const demo = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8')) as StudyInput;
+    const dock = demo.devices!.find((d) => d.id === 'FDR-DOCK')! as {
+      characteristic: { longTime: { pickup: number } };
+    };
+    dock.characteristic.longTime.pickup = 1;
+    const window = settingWindowOf(parseStudy(demo), 'FDR-DOCK');
+    expect(window.constraints.find((c) => c.id === 'ampacity:C-DOCK')!.favours).toBe('faster');
+    const pickup = window.settings.find((s) => s.key === 'longTime.pickup')!;
+    const top = Math.max(...pickup.intervals.map((i) => i.to));
+    expect(top).toBeLessThanOrEqual(400 / 600 + 1e-6);
+    expect(pickup.intervals.find((i) => i.to === top)!.upper.id).toBe('ampacity:C-DOCK');
+  });
+
   it('a fuse or thermal-magnetic breaker has nothing to set; a device not in the study is an input error naming the field', () => {
     expect(() => settingWindowOf(study, 'NOPE')).toThrow(/^device: expected one of R-T1, MAIN, FDR, got "NOPE"$/);
   });
