@@ -1,9 +1,9 @@
 import type { Band } from './band.ts';
-import { cachedBandOf } from './bandCache.ts';
+import { cachedBandOf, cachedGroundBandOf } from './bandCache.ts';
 import type { AnalysisMemo } from './incremental.ts';
 import { cableAmpacityFindings } from './checks/cableAmpacity.ts';
 import { cableFindings } from './checks/cableProtection.ts';
-import { protectingDevice, type CheckContext } from './checks/context.ts';
+import { capitalise, protectingDevice, type CheckContext } from './checks/context.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
 import { decrementFindings } from './checks/decrementCoordination.ts';
 import { generatorDevicesOf, generatorFindings } from './checks/generatorProtection.ts';
@@ -146,6 +146,21 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
         title: `${device.name ?? device.id}: setting note`,
         subjects: [device.id],
         explanation: message,
+        referenceVolts: locationBusOf(network, device).voltage,
+      }),
+    );
+    // A ground-fault element's notes are the limits of NFPA 70 230.95(A): a code limit, so a warning.
+    cachedGroundBandOf(device.characteristic)?.diagnostics.forEach((message, index) =>
+      findings.push({
+        id: `setting:${device.id}:ground:${index}`,
+        kind: 'setting',
+        severity: 'warning',
+        title: `${device.name ?? device.id}: ground-fault setting beyond NFPA 70 230.95`,
+        subjects: [device.id],
+        explanation: `${capitalise(message)}. NFPA 70 230.95(A) holds the ground-fault protection of a service disconnect rated 1000 A or more, on a solidly grounded wye service of more than 150 V to ground and up to 1000 V, to a setting of 1200 A at most and a delay of 1 s at most at 3000 A or more; other disconnects may be set as their coordination needs.`,
+        suggestion:
+          'Lower the ground-fault pickup to 1200 A or less, or its delay so that it clears within 1 s at 3000 A.',
+        basis: 'NFPA 70 230.95(A)',
         referenceVolts: locationBusOf(network, device).voltage,
       }),
     );

@@ -7,6 +7,22 @@ const demo = (name: string): StudyInput => JSON.parse(readFileSync(`demo/harrowm
 const failing = (name: string) => analyseStudy(parseStudy(demo(name))).findings.filter((f) => f.severity === 'fail');
 
 describe('analyseStudy', () => {
+  it('warns of a ground-fault setting beyond NFPA 70 230.95(A): above 1200 A, or later than 1 s at 3000 A', () => {
+    const within = analyseStudy(parseStudy(demo('selective'))).findings;
+    expect(within.filter((f) => f.basis === 'NFPA 70 230.95(A)')).toEqual([]);
+    // The 2000 A main's ground-fault element set at 0.9 × 2000 A = 1800 A with a 1.5 s delay.
+    const input = demo('selective');
+    const main = input.devices!.find((d) => d.id === 'MAIN')! as { characteristic: { ground?: unknown } };
+    main.characteristic.ground = { pickup: 0.9, delay: 1.5 };
+    const beyond = analyseStudy(parseStudy(input)).findings.filter((f) => f.basis === 'NFPA 70 230.95(A)');
+    expect(beyond.map((f) => [f.severity, f.subjects])).toEqual([
+      ['warning', ['MAIN']],
+      ['warning', ['MAIN']],
+    ]);
+    expect(beyond[0].explanation).toMatch(/^Ground-fault pickup 1800 A is above the 1200 A/);
+    expect(beyond[1].explanation).toMatch(/^Ground-fault clearing at 3000 A is later than the 1 s/);
+  });
+
   it('has the expected defaults: every series pair checked, findings for pairs, transformers, code, cables and motors', () => {
     const analysis = analyseStudy(parseStudy(demo('selective')));
     expect(analysis.pairs.map((p) => `${p.upstream}/${p.downstream}`)).toEqual([
