@@ -1,5 +1,6 @@
 import type { StudyContext } from '../state/context.ts';
-import { csvReport, markdownReport } from '../../engine/report/index.ts';
+import { csvReport, markdownReport, type ReportedAnalysis } from '../../engine/report/index.ts';
+import { scenarioLabel } from '../../engine/scenario/index.ts';
 import { downloadBlob, downloadText, fileStemOf } from './download.ts';
 import { downloadPdf, downloadPdfBytes, downloadPng, downloadSvg, exportPageOf, type ExportKind } from './exports.ts';
 import { probesCsv } from './probeCsv.ts';
@@ -31,9 +32,9 @@ export async function runExport(request: ExportKind, context: StudyContext): Pro
     case 'pdf':
       return downloadPdf(`${stem}-${view}.pdf`, sheet.figureSheet(), exportPageOf(request));
     case 'findings-md':
-      return downloadText(`${stem}-findings.md`, markdownReport(checked(context)), 'text/markdown');
+      return downloadText(`${stem}-findings.md`, markdownReport(findingsAnalysisOf(context)), 'text/markdown');
     case 'findings-csv':
-      return downloadText(`${stem}-findings.csv`, csvReport(checked(context)), 'text/csv');
+      return downloadText(`${stem}-findings.csv`, csvReport(findingsAnalysisOf(context)), 'text/csv');
     case 'probes-csv':
       if (sheet.pinned.length === 0) throw new Error('no probes are pinned: click the sheet to pin one');
       return downloadText(`${stem}-${view}-probes.csv`, probesCsv(sheet.pinned), 'text/csv');
@@ -77,7 +78,16 @@ export function exportRefusalFor(request: ExportKind, { study, analysis }: Study
 const STILL_RUNNING = 'the checks are still running: export the findings in a moment';
 
 // The analysis with the checks' findings.
-function checked({ analysis }: StudyContext) {
+/**
+ * The analysis the findings files are written from, once the checks are done: for a switched study its
+ * findings of every scenario with the scenarios named (throws while the checks run).
+ * @example markdownReport(findingsAnalysisOf(context))
+ */
+export function findingsAnalysisOf({ analysis, study }: Pick<StudyContext, 'analysis' | 'study'>): ReportedAnalysis {
   if (!analysis.analysis || analysis.pending) throw new Error(STILL_RUNNING);
-  return analysis.analysis;
+  // The findings of a switched study are of every scenario: the files name the scenarios and say where
+  // each finding holds, as the command line's do, whichever scenario the screen shows.
+  if (study.scenarios.length === 0) return analysis.analysis;
+  const scenarios = study.scenarios.map((scenario) => ({ scenario, label: scenarioLabel(scenario) }));
+  return { ...analysis.analysis, scenarios };
 }

@@ -1,6 +1,5 @@
-import type { Analysis } from '../analysis.ts';
 import { CAUTION } from '../caution.ts';
-import { findingRows, type FindingRow } from './findingsTable.ts';
+import { findingRows, type FindingRow, type ReportedAnalysis } from './findingsTable.ts';
 
 const COLUMNS: (keyof FindingRow)[] = [
   'severity',
@@ -20,7 +19,7 @@ const COLUMNS: (keyof FindingRow)[] = [
  *
  * @example writeFileSync('findings.csv', csvReport(analysis))
  */
-export function csvReport(analysis: Analysis): string {
+export function csvReport(analysis: ReportedAnalysis): string {
   const columns: (keyof FindingRow)[] = analysis.scenarios ? [...COLUMNS, 'scenarios'] : COLUMNS;
   const rows = findingRows(analysis).map((row) => columns.map((c) => quote(row[c])).join(','));
   const caution = ['caution', '', quote(CAUTION), ...columns.slice(3).map(() => '')].join(',');

@@ -1,6 +1,15 @@
 import type { Analysis } from '../analysis.ts';
+import type { ScenarioResult } from '../scenario/scenarioAnalysis.ts';
 import type { Finding, Severity } from '../checks/finding.ts';
 import { formatAmps, formatVolts, significant } from '../quantity/format.ts';
+
+/**
+ * What the findings tables read of an analysis: its findings and counts, and, for a switched study, the
+ * scenarios analysed by name (the workbench names them without each one's trees).
+ */
+export type ReportedAnalysis = Omit<Analysis, 'scenarios'> & {
+  scenarios?: Pick<ScenarioResult, 'scenario' | 'label'>[];
+};
 
 /** One row of the findings table, as plain text cells (shared by the CLI, Markdown and CSV). */
 export interface FindingRow {
@@ -32,7 +41,7 @@ export const SEVERITY_ORDER = { fail: 0, warning: 1, info: 2, ok: 3 } as const;
  *
  * @example findingRows(analysis).filter((row) => row.severity === 'fail')
  */
-export function findingRows(analysis: Analysis): FindingRow[] {
+export function findingRows(analysis: ReportedAnalysis): FindingRow[] {
   const analysed = scenarioLabelsOf(analysis);
   return [...analysis.findings]
     .map((finding, index) => ({ finding, index }))
@@ -61,7 +70,7 @@ export function rowOf(finding: Finding, analysed: readonly string[] = []): Findi
 }
 
 /** The labels of the scenarios an analysis covers, in order; [] for a study without scenarios. */
-export function scenarioLabelsOf(analysis: Analysis): string[] {
+export function scenarioLabelsOf(analysis: ReportedAnalysis): string[] {
   return analysis.scenarios?.map((s) => s.label) ?? [];
 }
 
@@ -71,7 +80,7 @@ export function scenarioLabelsOf(analysis: Analysis): string[] {
  *
  * @example scenarioCountsOf(analysis)[1] // { label: 'On generator', counts: { ok: 20, info: 1, warning: 1, fail: 2 } }
  */
-export function scenarioCountsOf(analysis: Analysis): { label: string; counts: Record<Severity, number> }[] {
+export function scenarioCountsOf(analysis: ReportedAnalysis): { label: string; counts: Record<Severity, number> }[] {
   return scenarioLabelsOf(analysis).map((label) => {
     const counts: Record<Severity, number> = { ok: 0, info: 0, warning: 0, fail: 0 };
     for (const finding of analysis.findings) if (finding.scenarios?.includes(label)) counts[finding.severity]++;
@@ -103,7 +112,7 @@ export function worstText(finding: Finding): string {
 }
 
 /** "3 fail, 2 warning, 1 info, 14 ok" */
-export function summaryText(analysis: Analysis): string {
+export function summaryText(analysis: ReportedAnalysis): string {
   return countsText(analysis.counts);
 }
 
@@ -131,7 +140,7 @@ export interface FindingClasses {
  *
  * @example findingClassesOf(analysis).thinMargin // 3
  */
-export function findingClassesOf(analysis: Analysis): FindingClasses {
+export function findingClassesOf(analysis: ReportedAnalysis): FindingClasses {
   const classes: FindingClasses = { fail: 0, thinMargin: 0, notProvable: 0, warning: 0, info: 0, ok: 0 };
   for (const finding of analysis.findings) {
     if (finding.severity === 'warning' && finding.status === 'thin margin') classes.thinMargin++;

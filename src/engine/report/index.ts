@@ -11,7 +11,7 @@ export {
   classesText,
   SEVERITY_ORDER,
 } from './findingsTable.ts';
-export type { FindingRow, FindingClasses } from './findingsTable.ts';
+export type { FindingRow, FindingClasses, ReportedAnalysis } from './findingsTable.ts';
 export { markdownReport } from './markdown.ts';
 export { csvReport } from './csv.ts';
 export { jsonReport } from './json.ts';

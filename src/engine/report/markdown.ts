@@ -1,4 +1,3 @@
-import type { Analysis } from '../analysis.ts';
 import { CAUTION } from '../caution.ts';
 import {
   classesText,
@@ -7,6 +6,7 @@ import {
   findingRows,
   scenarioCountsOf,
   summaryText,
+  type ReportedAnalysis,
 } from './findingsTable.ts';
 
 /**
@@ -15,7 +15,7 @@ import {
  *
  * @example writeFileSync('report.md', markdownReport(analysis))
  */
-export function markdownReport(analysis: Analysis): string {
+export function markdownReport(analysis: ReportedAnalysis): string {
   const { study } = analysis;
   const rows = findingRows(analysis);
   // A study with scenarios gets a line naming them and a column saying where each finding holds.
@@ -54,7 +54,7 @@ export function markdownReport(analysis: Analysis): string {
 }
 
 // Accepts an analysis with scenarios; the line naming each one analysed and its counts.
-function scenariosLine(analysis: Analysis): string {
+function scenariosLine(analysis: ReportedAnalysis): string {
   const ids = new Map(analysis.scenarios!.map((s) => [s.label, s.scenario.id]));
   const each = scenarioCountsOf(analysis).map(
     ({ label, counts }) => `${escapeCell(label)} (\`${ids.get(label)}\`): ${countsText(counts)}`,

@@ -1,6 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { AnalysisState } from '../../../src/app/state/AnalysisState.svelte.ts';
+import { findingsAnalysisOf } from '../../../src/app/lib/runExport.ts';
+import { csvReport, markdownReport } from '../../../src/engine/report/index.ts';
 import { ProbeState } from '../../../src/app/state/ProbeState.svelte.ts';
 import { SheetState } from '../../../src/app/state/SheetState.svelte.ts';
 import { StudyState } from '../../../src/app/state/StudyState.svelte.ts';
@@ -105,6 +107,17 @@ describe('the sheet, the findings and the tree in a scenario', () => {
     expect(analysis.scenarioFindings.every((f) => f.scenarios?.includes('On generator'))).toBe(true);
     study.load(standby, 'again.json');
     expect(study.scenario?.id).toBe('normal');
+  });
+
+  it('the findings files of a switched study name each scenario and where each finding holds, whichever is shown', () => {
+    const { study, analysis } = states(standby);
+    study.scenarioId = 'on-generator';
+    const markdown = markdownReport(findingsAnalysisOf({ study, analysis }));
+    expect(markdown).toMatch(/\*\*Scenarios analysed:\*\* Normal \(`normal`\): \d+ fail/);
+    expect(markdown).toMatch(/\| severity \| check \| finding \| current range \| worst margin \| scenarios \|/);
+    const csv = csvReport(findingsAnalysisOf({ study, analysis }));
+    expect(csv.split('\r\n')[0]).toMatch(/,scenarios$/);
+    expect(csv).toMatch(/On generator/);
   });
 
   it('the fault lines of every scenario are drawn at once, each headed by its scenarios', () => {
