@@ -71,6 +71,23 @@ describe('the Window panel in Chromium', () => {
       (old) => document.querySelector('[data-testid="map-current"]')?.getAttribute('cx') === old,
       before,
     );
+    // A click where no setting keeps every constraint writes nothing, and says why.
+    const outside = await page.evaluate(() => {
+      const frame = document.querySelector('[data-testid="window-map"] rect.frame')!.getBoundingClientRect();
+      const cells = [...document.querySelectorAll('[data-testid="window-map"] rect.feasible')].map((r) =>
+        r.getBoundingClientRect(),
+      );
+      for (let y = frame.top + 2; y < frame.bottom - 2; y += 3)
+        for (let x = frame.left + 2; x < frame.right - 2; x += 3)
+          if (!cells.some((c) => x >= c.left - 1 && x <= c.right + 1 && y >= c.top - 1 && y <= c.bottom + 1))
+            return { x, y };
+      return undefined;
+    });
+    expect(outside).toBeDefined();
+    const undoLabel = await page.getByTestId('undo').getAttribute('title');
+    await page.mouse.click(outside!.x, outside!.y);
+    await expect(page.getByTestId('window-map-note').textContent()).resolves.toMatch(/does not keep every constraint/);
+    await expect(page.getByTestId('undo').getAttribute('title')).resolves.toBe(undoLabel);
     expect(pageErrors(page)).toEqual([]);
     await context.close();
   });
@@ -79,7 +96,9 @@ describe('the Window panel in Chromium', () => {
     const { page, context } = await bench.open();
     await proposeOnTheOverlapDemo(page);
     expect(await page.getByTestId('proposal-change').count()).toBeGreaterThan(3);
-    await expect(page.getByTestId('proposal').textContent()).resolves.toMatch(/failing findings \d+\s*→\s*0/);
+    await expect(page.getByTestId('proposal').textContent()).resolves.toMatch(
+      /failing findings in the whole\s+study: \d+\s*→\s*0/,
+    );
     const failsBefore = await page.locator('[data-testid="finding"].fail').count();
     expect(failsBefore).toBeGreaterThan(0);
     await page.getByTestId('proposal-accept').click();
