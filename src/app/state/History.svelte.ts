@@ -42,6 +42,9 @@ export class History<T> {
   /** The label of the edit `redo` would repeat. */
   readonly redoLabel = $derived.by(() => this.#future.at(-1)?.label);
 
+  /** Told of each value as it stops being current (an edit, an undo, a redo), so what was shown with it can be kept. */
+  onleave: ((value: T) => void) | undefined;
+
   constructor(initial: T) {
     this.current = initial;
   }
@@ -55,6 +58,7 @@ export class History<T> {
     if (merge) this.#past = [...this.#past.slice(0, -1), { ...last, at }];
     else this.#past = [...this.#past.slice(-(DEPTH - 1)), { value: this.current, label, key, at }];
     this.#future = [];
+    this.onleave?.(this.current);
     this.current = next;
   }
 
@@ -64,6 +68,7 @@ export class History<T> {
     if (!last) return;
     this.#past = this.#past.slice(0, -1);
     this.#future = [...this.#future, { value: this.current, label: last.label, at: last.at }];
+    this.onleave?.(this.current);
     this.current = last.value;
   }
 
@@ -73,6 +78,7 @@ export class History<T> {
     if (!next) return;
     this.#future = this.#future.slice(0, -1);
     this.#past = [...this.#past, { value: this.current, label: next.label, at: next.at }];
+    this.onleave?.(this.current);
     this.current = next.value;
   }
 

@@ -61,6 +61,8 @@ export class StudyState {
    * Kept by document, so an undo or a redo back to that document finds it again.
    */
   #idsBeforeTyping = new WeakMap<StudyInput, { field: string; id: string }>();
+  /** The sheet shown when each document stopped being current: an undo or a redo back to it shows it again. */
+  #viewShown = new WeakMap<StudyInput, string | undefined>();
 
   /** The document being edited (file form). */
   readonly document = $derived.by(() => this.history.current);
@@ -122,6 +124,7 @@ export class StudyState {
       this.#lastGood = built.value.reading.study;
     }
     this.history = new History(document);
+    this.history.onleave = (left) => this.#viewShown.set(left, this.viewId);
     this.savedDocument = document;
     this.fileName = fileName;
   }
@@ -173,7 +176,11 @@ export class StudyState {
       const id = idAfterStep(before, after, COLLECTION_OF[selection.kind], selection.id);
       if (id !== undefined && id !== selection.id) this.selection = { kind: selection.kind, id };
     }
-    if (this.viewId !== undefined) this.viewId = idAfterStep(before, after, 'views', this.viewId) ?? this.viewId;
+    // The sheet shown when `after` was last current comes back with it (the one a new sheet or a
+    // deletion moved away from); else the one shown follows a rename.
+    const shown = this.#viewShown.get(after);
+    if (shown !== undefined && (after.views ?? []).some((view) => view.id === shown)) this.viewId = shown;
+    else if (this.viewId !== undefined) this.viewId = idAfterStep(before, after, 'views', this.viewId) ?? this.viewId;
     if (this.scenarioId !== undefined)
       this.scenarioId = idAfterStep(before, after, 'scenarios', this.scenarioId) ?? this.scenarioId;
   }

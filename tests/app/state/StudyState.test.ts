@@ -258,6 +258,22 @@ describe('StudyState', () => {
     expect(state.view?.id).toBe(demo.views![1].id);
   });
 
+  it('undo brings back the sheet that was shown: after a new sheet, and after deleting the sheet shown', () => {
+    const state = new StudyState(demo);
+    const office = demo.views![2].id;
+    state.viewId = office;
+    state.newView('MAIN');
+    expect(state.viewId).not.toBe(office);
+    state.undo();
+    expect(state.view?.id).toBe(office);
+    state.deleteView();
+    expect(state.view?.id).not.toBe(office);
+    state.undo();
+    expect(state.view?.id).toBe(office);
+    state.redo();
+    expect(state.view?.id).not.toBe(office);
+  });
+
   it('renaming the sheet shown keeps it on the sheet', () => {
     const state = new StudyState(demo);
     state.viewId = demo.views![1].id;
