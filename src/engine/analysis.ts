@@ -4,6 +4,7 @@ import type { AnalysisMemo } from './incremental.ts';
 import { cableAmpacityFindings } from './checks/cableAmpacity.ts';
 import { cableFindings } from './checks/cableProtection.ts';
 import { capitalise, protectingDevice, type CheckContext } from './checks/context.ts';
+import { ratingOf } from './checks/deviceRating.ts';
 import { checkPair, type PairCheck } from './checks/coordination.ts';
 import { decrementFindings } from './checks/decrementCoordination.ts';
 import { generatorDevicesOf, generatorFindings } from './checks/generatorProtection.ts';
@@ -16,9 +17,9 @@ import { nec450Findings } from './checks/nec450.ts';
 import { sensitivityFindings } from './checks/sensitivity.ts';
 import { transformerFindings } from './checks/transformerProtection.ts';
 import { faultLevelsOf, type FaultLevels } from './fault/index.ts';
-import { locationBusOf, networkOf, seriesPairs, type Network } from './network/index.ts';
+import { locationBusOf, networkOf, seriesPairs, upstreamDeviceOf, type Network } from './network/index.ts';
 import type { ScenarioResult } from './scenario/scenarioAnalysis.ts';
-import type { Study } from './study/index.ts';
+import type { Device, Study } from './study/index.ts';
 
 /** Everything the checks found for one study (DEVELOPERS.md, data flow: the data the plots and reports render). */
 export interface Analysis {
@@ -149,25 +150,41 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
         referenceVolts: locationBusOf(network, device).voltage,
       }),
     );
-    // A ground-fault element's notes are the limits of NFPA 70 230.95(A): a code limit, so a warning.
-    cachedGroundBandOf(device.characteristic)?.diagnostics.forEach((message, index) =>
-      findings.push({
-        id: `setting:${device.id}:ground:${index}`,
-        kind: 'setting',
-        severity: 'warning',
-        title: `${device.name ?? device.id}: ground-fault setting beyond NFPA 70 230.95`,
-        subjects: [device.id],
-        explanation: `${capitalise(message)}. NFPA 70 230.95(A) holds the ground-fault protection of a service disconnect rated 1000 A or more, on a solidly grounded wye service of more than 150 V to ground and up to 1000 V, to a setting of 1200 A at most and a delay of 1 s at most at 3000 A or more; other disconnects may be set as their coordination needs.`,
-        suggestion:
-          'Lower the ground-fault pickup to 1200 A or less, or its delay so that it clears within 1 s at 3000 A.',
-        basis: 'NFPA 70 230.95(A)',
-        referenceVolts: locationBusOf(network, device).voltage,
-      }),
-    );
+    // A ground-fault element's notes are the limits of NFPA 70 230.95(A), which bind a service
+    // disconnect: a warning for a main of 1000 A or more at 480 V class, none for other devices.
+    if (isServiceMain(network, device))
+      cachedGroundBandOf(device.characteristic)?.diagnostics.forEach((message, index) =>
+        findings.push({
+          id: `setting:${device.id}:ground:${index}`,
+          kind: 'setting',
+          severity: 'warning',
+          title: `${device.name ?? device.id}: ground-fault setting beyond NFPA 70 230.95`,
+          subjects: [device.id],
+          explanation: `${capitalise(message)}. NFPA 70 230.95(A) holds the ground-fault protection of a service disconnect rated 1000 A or more, on a solidly grounded wye service of more than 150 V to ground and up to 1000 V, to a setting of 1200 A at most and a delay of 1 s at most at 3000 A or more; this device is checked as one (it is the first device of its voltage, rated 1000 A or more).`,
+          suggestion:
+            'Lower the ground-fault pickup to 1200 A or less, or its delay so that it clears within 1 s at 3000 A.',
+          basis: 'NFPA 70 230.95(A)',
+          referenceVolts: locationBusOf(network, device).voltage,
+        }),
+      );
   }
 
   memo?.forgetUnused();
   const counts: Record<Severity, number> = { ok: 0, info: 0, warning: 0, fail: 0 };
   for (const finding of findings) counts[finding.severity]++;
   return { study, network, faults, bands, pairs, findings, counts };
+}
+
+/**
+ * Whether a device stands where NFPA 70 230.95(A) asks for ground-fault protection: rated 1000 A or more
+ * (its NEC rating), on a bus of more than 150 V to ground and up to 1000 V, with no device above it at
+ * its own voltage (the main of its service). Whether the service is a solidly grounded wye is left to
+ * the engineer, whom the finding tells.
+ */
+function isServiceMain(network: Network, device: Device): boolean {
+  const volts = locationBusOf(network, device).voltage;
+  if (!(volts / Math.sqrt(3) > 150 && volts <= 1000)) return false;
+  if (!((ratingOf(device)?.amps ?? 0) >= 1000)) return false;
+  const above = upstreamDeviceOf(network, device);
+  return !above || locationBusOf(network, above).voltage !== volts;
 }

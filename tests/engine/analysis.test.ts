@@ -21,6 +21,11 @@ describe('analyseStudy', () => {
     ]);
     expect(beyond[0].explanation).toMatch(/^Ground-fault pickup 1800 A is above the 1200 A/);
     expect(beyond[1].explanation).toMatch(/^Ground-fault clearing at 3000 A is later than the 1 s/);
+    // The same setting on a 400 A panel main at 208Y/120 V (120 V to ground) is outside 230.95(A).
+    const office = input.devices!.find((d) => d.id === 'OFC-MAIN')! as { characteristic: { ground?: unknown } };
+    office.characteristic.ground = { pickup: 1, delay: 1.2 };
+    const panel = analyseStudy(parseStudy(input)).findings.filter((f) => f.basis === 'NFPA 70 230.95(A)');
+    expect(panel.map((f) => f.subjects[0])).toEqual(['MAIN', 'MAIN']);
   });
 
   it('has the expected defaults: every series pair checked, findings for pairs, transformers, code, cables and motors', () => {
