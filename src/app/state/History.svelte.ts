@@ -42,8 +42,11 @@ export class History<T> {
   /** The label of the edit `redo` would repeat. */
   readonly redoLabel = $derived.by(() => this.#future.at(-1)?.label);
 
-  /** Told of each value as it stops being current (an edit, an undo, a redo), so what was shown with it can be kept. */
-  onleave: ((value: T) => void) | undefined;
+  /**
+   * Told of each value as it stops being current, the value taking its place and how (an edit, an undo,
+   * a redo), so what was shown with it can be kept.
+   */
+  onleave: ((left: T, next: T, how: 'commit' | 'undo' | 'redo') => void) | undefined;
 
   constructor(initial: T) {
     this.current = initial;
@@ -58,7 +61,7 @@ export class History<T> {
     if (merge) this.#past = [...this.#past.slice(0, -1), { ...last, at }];
     else this.#past = [...this.#past.slice(-(DEPTH - 1)), { value: this.current, label, key, at }];
     this.#future = [];
-    this.onleave?.(this.current);
+    this.onleave?.(this.current, next, 'commit');
     this.current = next;
   }
 
@@ -68,7 +71,7 @@ export class History<T> {
     if (!last) return;
     this.#past = this.#past.slice(0, -1);
     this.#future = [...this.#future, { value: this.current, label: last.label, at: last.at }];
-    this.onleave?.(this.current);
+    this.onleave?.(this.current, last.value, 'undo');
     this.current = last.value;
   }
 
@@ -78,7 +81,7 @@ export class History<T> {
     if (!next) return;
     this.#future = this.#future.slice(0, -1);
     this.#past = [...this.#past, { value: this.current, label: next.label, at: next.at }];
-    this.onleave?.(this.current);
+    this.onleave?.(this.current, next.value, 'redo');
     this.current = next.value;
   }
 

@@ -60,7 +60,7 @@ export class StudyState {
    * id the rest of the document still names that item by: typing on to a good id renames from it.
    * Kept by document, so an undo or a redo back to that document finds it again.
    */
-  #idsBeforeTyping = new WeakMap<StudyInput, { field: string; id: string }>();
+  #idsBeforeTyping = new WeakMap<StudyInput, ReadonlyMap<string, string>>();
   /** The sheet shown when each document stopped being current: an undo or a redo back to it shows it again. */
   #viewShown = new WeakMap<StudyInput, string | undefined>();
 
@@ -124,7 +124,13 @@ export class StudyState {
       this.#lastGood = built.value.reading.study;
     }
     this.history = new History(document);
-    this.history.onleave = (left) => this.#viewShown.set(left, this.viewId);
+    this.history.onleave = (left, next, how) => {
+      this.#viewShown.set(left, this.view?.id);
+      // Ids left half-typed are still remembered after any other edit (a name, another id, a setting
+      // the Window tab wrote): typing on renames their references from the id they used.
+      const typing = this.#idsBeforeTyping.get(left);
+      if (how === 'commit' && typing && !this.#idsBeforeTyping.has(next)) this.#idsBeforeTyping.set(next, typing);
+    };
     this.savedDocument = document;
     this.fileName = fileName;
   }
@@ -136,19 +142,20 @@ export class StudyState {
    */
   edit(path: DocumentPath, value: unknown, label: string): void {
     const field = path.join('/');
-    const before = this.#idsBeforeTyping.get(this.document);
-    const idEdit = idEditOf(this.document, path, value, before?.field === field ? before.id : undefined);
+    const remembered = this.#idsBeforeTyping.get(this.document);
+    const idEdit = idEditOf(this.document, path, value, remembered?.get(field));
     if (!idEdit) {
       this.history.commit(withValueAt(this.document, path, value), label, { key: field });
-      // An id left half-typed is still remembered after another field's edit: typing on renames from it.
-      if (before) this.#idsBeforeTyping.set(this.document, before);
       return;
     }
     const selected = this.selectionPath;
     const wasSelected = selected !== undefined && selected.join('/') === path.slice(0, -1).join('/');
     this.history.commit(idEdit.document, label, { key: field });
-    if (!idEdit.renamed && idEdit.knownAs !== undefined)
-      this.#idsBeforeTyping.set(idEdit.document, { field, id: idEdit.knownAs });
+    // The ids still half-typed, each with the id its references use: this one kept or forgotten.
+    const others = [...(this.#idsBeforeTyping.get(idEdit.document) ?? remembered ?? [])].filter(([f]) => f !== field);
+    const typing = !idEdit.renamed && idEdit.knownAs !== undefined ? [[field, idEdit.knownAs] as const] : [];
+    // eslint-disable-next-line svelte/prefer-svelte-reactivity -- a value kept with one document, never changed
+    this.#idsBeforeTyping.set(idEdit.document, new Map([...others, ...typing]));
     // The editor stays on the item: by its new id, or by its place while the id is not its own yet.
     if (wasSelected && this.selection)
       this.selection = selectionAfterIdEdit(this.selection, path, value, idEdit.renamed);
@@ -173,8 +180,15 @@ export class StudyState {
     const after = this.document;
     const selection = this.selection;
     if (selection && selection.kind !== 'source') {
-      const id = idAfterStep(before, after, COLLECTION_OF[selection.kind], selection.id);
-      if (id !== undefined && id !== selection.id) this.selection = { kind: selection.kind, id };
+      const list = COLLECTION_OF[selection.kind];
+      // An item held by its place (its id half-typed) is followed by its place; any other by its id.
+      const atPlace = selection.at === undefined ? undefined : valueAt(after, [list, selection.at, 'id']);
+      if (typeof atPlace === 'string')
+        this.selection = selectionAfterStep(after, list, selection.kind, selection.at!, atPlace);
+      else {
+        const id = idAfterStep(before, after, list, selection.id);
+        if (id !== undefined && id !== selection.id) this.selection = { kind: selection.kind, id };
+      }
     }
     // The sheet shown when `after` was last current comes back with it (the one a new sheet or a
     // deletion moved away from); else the one shown follows a rename.
@@ -357,4 +371,18 @@ export class StudyState {
     const id = this.view?.id;
     return Array.isArray(views) ? views.findIndex((v) => v?.id === id) : -1;
   }
+}
+
+/** The selection of the item at `at` of `list` after an undo or a redo: by its id where that is its own, else by its place too. */
+function selectionAfterStep(
+  document: StudyInput,
+  list: string,
+  kind: Selection['kind'],
+  at: number,
+  id: string,
+): Selection {
+  const items = (document as unknown as Record<string, unknown>)[list];
+  const shared =
+    Array.isArray(items) && items.some((item, index) => index !== at && (item as { id?: unknown } | null)?.id === id);
+  return shared ? { kind, id, at } : { kind, id };
 }

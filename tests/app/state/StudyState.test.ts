@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { StudyState } from '../../../src/app/state/StudyState.svelte.ts';
+import { withValueAt } from '../../../src/app/lib/documentPath.ts';
 import type { StudyInput } from '../../../src/engine/study/index.ts';
 
 const text = readFileSync(new URL('../../../demo/harrowmere-selective.json', import.meta.url), 'utf8');
@@ -272,6 +273,41 @@ describe('StudyState', () => {
     expect(state.view?.id).toBe(office);
     state.redo();
     expect(state.view?.id).not.toBe(office);
+  });
+
+  it("undo of an id typed as another item's brings the editor back to the item by its place", () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'device', id: 'MAIN' };
+    state.edit(['devices', mainIndex, 'id'], 'R-T1', 'id of MAIN');
+    state.undo();
+    expect(state.selection).toEqual({ kind: 'device', id: 'MAIN' });
+    expect(state.selectionPath).toEqual(['devices', mainIndex]);
+  });
+
+  it('a half-typed id survives another id renamed, another id cleared and a setting written: typing on renames', () => {
+    const state = new StudyState(demo);
+    const id = ['devices', mainIndex, 'id'];
+    const feeder = demo.devices!.findIndex((d) => d.id === 'FDR-MCC');
+    state.edit(id, '', 'id of MAIN');
+    state.edit(['devices', feeder, 'id'], 'FDR-MCC2', 'id of FDR-MCC');
+    state.edit(['devices', feeder, 'id'], '', 'id of FDR-MCC2');
+    state.history.commit(withValueAt(state.document, ['devices', mainIndex, 'name'], 'Main'), 'a setting');
+    state.edit(id, 'MAIN-2', 'id of MAIN');
+    state.edit(['devices', feeder, 'id'], 'FDR-MCC3', 'id of FDR-MCC');
+    expect(state.problems).toEqual([]);
+    expect(state.valueAt(['views', 0, 'devices'])).toEqual(expect.arrayContaining(['MAIN-2', 'FDR-MCC3']));
+  });
+
+  it('undo shows the sheet shown with each version, the first sheet included, and never names a sheet gone', () => {
+    const state = new StudyState(demo);
+    const first = state.view?.id;
+    state.newView('FDR-MCC');
+    state.undo();
+    expect(state.viewId).toBe(first);
+    state.edit(['name'], 'Renamed study', 'name');
+    state.viewId = demo.views![2].id;
+    state.undo();
+    expect(state.view?.id).toBe(first);
   });
 
   it('renaming the sheet shown keeps it on the sheet', () => {
