@@ -18,6 +18,8 @@ const INSTANTANEOUS_REGION = 0.1;
 const HORIZON = 1000;
 /** The finder refines every edge to a relative 1e-6; samples this close to an edge are not judged. */
 const NEAR_EDGE = 1e-5;
+/** How near the horizon, relatively, a time may be classed as within it or beyond it. */
+const NEAR_HORIZON = 1e-3;
 
 /**
  * The class of one current, re-stated from the rule of DEVELOPERS.md (bands and overlaps) without the
@@ -44,6 +46,16 @@ function classAt(up: Band, down: Band, amps: number, margin: number, timeRatio: 
 
 const CLASSES = ['selective', 'thin margin', 'overlap', 'not provable from curves'];
 
+/**
+ * Whether either edge's time is within `NEAR_HORIZON` of the horizon at a current: there a time is as
+ * much "never" as not, and the finder may class it either way (a property run found an upstream curve
+ * crossing 1000 s within 0.02 % of the downstream pickup, where the rule's one-sample sliver of
+ * "selective" lay between two overlaps the finder joined).
+ */
+function nearHorizon(up: Band, down: Band, amps: number): boolean {
+  return [up.minTime(amps), down.maxTime(amps)].some((t) => Math.abs(t / HORIZON - 1) < NEAR_HORIZON);
+}
+
 /** How far a tangent touch of a line may be missed (s): the finder then reports the worse class there. */
 const TANGENT = 1e-3;
 
@@ -66,7 +78,7 @@ function disagreements(up: Band, down: Band, options: OverlapOptions & { margin:
   for (const b of [...up.breakpoints, ...down.breakpoints]) samples.push(b * (1 - 1e-4), b * (1 + 1e-4));
   const problems: string[] = [];
   for (const amps of samples) {
-    if (!(amps >= from && amps <= to) || nearEdge(amps)) continue;
+    if (!(amps >= from && amps <= to) || nearEdge(amps) || nearHorizon(up, down, amps)) continue;
     const interval = intervals.find((i: OverlapInterval) => amps >= i.fromAmps && amps <= i.toAmps)!;
     const found = CLASSES.indexOf(interval.status);
     const rule = classAt(up, down, amps, options.margin, options.timeRatio);
