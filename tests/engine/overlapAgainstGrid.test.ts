@@ -48,9 +48,9 @@ const CLASSES = ['selective', 'thin margin', 'overlap', 'not provable from curve
 
 /**
  * Whether either edge's time is within `NEAR_HORIZON` of the horizon at a current: there a time is as
- * much "never" as not, and the finder may class it either way (a property run found an upstream curve
+ * much "never" as not, and the finder may tell the worse class (a property run found an upstream curve
  * crossing 1000 s within 0.02 % of the downstream pickup, where the rule's one-sample sliver of
- * "selective" lay between two overlaps the finder joined).
+ * "selective" lay between two overlaps the finder joined into one).
  */
 function nearHorizon(up: Band, down: Band, amps: number): boolean {
   return [up.minTime(amps), down.maxTime(amps)].some((t) => Math.abs(t / HORIZON - 1) < NEAR_HORIZON);
@@ -78,7 +78,7 @@ function disagreements(up: Band, down: Band, options: OverlapOptions & { margin:
   for (const b of [...up.breakpoints, ...down.breakpoints]) samples.push(b * (1 - 1e-4), b * (1 + 1e-4));
   const problems: string[] = [];
   for (const amps of samples) {
-    if (!(amps >= from && amps <= to) || nearEdge(amps) || nearHorizon(up, down, amps)) continue;
+    if (!(amps >= from && amps <= to) || nearEdge(amps)) continue;
     const interval = intervals.find((i: OverlapInterval) => amps >= i.fromAmps && amps <= i.toAmps)!;
     const found = CLASSES.indexOf(interval.status);
     const rule = classAt(up, down, amps, options.margin, options.timeRatio);
@@ -86,6 +86,8 @@ function disagreements(up: Band, down: Band, options: OverlapOptions & { margin:
     const slack = up.minTime(amps) * options.timeRatio - (down.maxTime(amps) + options.margin);
     const aboveLine = rule === 1 ? slack : slack - THIN_MARGIN;
     if (found < 3 && rule < 3 && found === rule + 1 && aboveLine < TANGENT) continue;
+    // Next to the horizon a worse class may be told, never a better one.
+    if (found < 3 && rule < 3 && found > rule && nearHorizon(up, down, amps)) continue;
     problems.push(`${amps} A: ${interval.status}, the rule says ${CLASSES[rule]}`);
   }
   return problems;
