@@ -128,8 +128,10 @@ export class StudyState {
       this.#viewShown.set(left, this.view?.id);
       // Ids left half-typed are still remembered after any other edit (a name, another id, a setting
       // the Window tab wrote): typing on renames their references from the id they used.
+      // They are kept by place, so an edit that adds or takes away list items forgets them.
       const typing = this.#idsBeforeTyping.get(left);
-      if (how === 'commit' && typing && !this.#idsBeforeTyping.has(next)) this.#idsBeforeTyping.set(next, typing);
+      if (how === 'commit' && typing && !this.#idsBeforeTyping.has(next) && sameListLengths(left, next))
+        this.#idsBeforeTyping.set(next, typing);
     };
     this.savedDocument = document;
     this.fileName = fileName;
@@ -181,10 +183,13 @@ export class StudyState {
     const selection = this.selection;
     if (selection && selection.kind !== 'source') {
       const list = COLLECTION_OF[selection.kind];
-      // An item held by its place (its id half-typed) is followed by its place; any other by its id.
-      const atPlace = selection.at === undefined ? undefined : valueAt(after, [list, selection.at, 'id']);
+      // Where the step kept the list's length (an id typed, undone or redone), the item is followed by
+      // its place, which its id, half-typed or another's, may not tell; else by its id.
+      const at = pathOfSelection(before, selection)?.[1];
+      const atPlace =
+        typeof at === 'number' && sameListLengths(before, after) ? valueAt(after, [list, at, 'id']) : undefined;
       if (typeof atPlace === 'string')
-        this.selection = selectionAfterStep(after, list, selection.kind, selection.at!, atPlace);
+        this.selection = selectionAfterStep(after, list, selection.kind, at as number, atPlace);
       else {
         const id = idAfterStep(before, after, list, selection.id);
         if (id !== undefined && id !== selection.id) this.selection = { kind: selection.kind, id };
@@ -385,4 +390,26 @@ function selectionAfterStep(
   const shared =
     Array.isArray(items) && items.some((item, index) => index !== at && (item as { id?: unknown } | null)?.id === id);
   return shared ? { kind, id, at } : { kind, id };
+}
+
+/** The lists whose items are held by their place (elements, sheets, scenarios). */
+const PLACED_LISTS = [
+  'buses',
+  'transformers',
+  'cables',
+  'motors',
+  'devices',
+  'switches',
+  'generators',
+  'views',
+  'scenarios',
+];
+
+/** Whether two versions of a document have as many items in each list: no item added or taken away. */
+function sameListLengths(a: StudyInput, b: StudyInput): boolean {
+  const lengthOf = (document: StudyInput, list: string) => {
+    const items = (document as unknown as Record<string, unknown>)[list];
+    return Array.isArray(items) ? items.length : 0;
+  };
+  return PLACED_LISTS.every((list) => lengthOf(a, list) === lengthOf(b, list));
 }

@@ -298,6 +298,26 @@ describe('StudyState', () => {
     expect(state.valueAt(['views', 0, 'devices'])).toEqual(expect.arrayContaining(['MAIN-2', 'FDR-MCC3']));
   });
 
+  it('a deletion that moves the items forgets a half-typed id, so typing at its old place renames the item now there', () => {
+    const state = new StudyState(demo);
+    const feeder = demo.devices!.findIndex((d) => d.id === 'FDR-MCC');
+    state.edit(['devices', feeder, 'id'], '', 'id of FDR-MCC');
+    state.deleteItem({ kind: 'device', id: 'R-T1' });
+    // MCC-M1 now stands where FDR-MCC stood.
+    expect(state.valueAt(['devices', feeder, 'id'])).toBe('MCC-M1');
+    state.edit(['devices', feeder, 'id'], 'COMP-1', 'id of MCC-M1');
+    expect(state.valueAt(['views', 0, 'devices'])).toEqual(['MAIN', 'FDR-MCC', 'COMP-1']);
+  });
+
+  it("redo of an id typed as another item's keeps the editor on the item typed into", () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'device', id: 'MAIN' };
+    state.edit(['devices', mainIndex, 'id'], 'R-T1', 'id of MAIN');
+    state.undo();
+    state.redo();
+    expect(state.selectionPath).toEqual(['devices', mainIndex]);
+  });
+
   it('undo shows the sheet shown with each version, the first sheet included, and never names a sheet gone', () => {
     const state = new StudyState(demo);
     const first = state.view?.id;
