@@ -178,10 +178,12 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
 /**
  * Whether a device stands where NFPA 70 230.95(A) asks for ground-fault protection: rated 1000 A or more
  * (its NEC rating), on a bus of more than 150 V to ground and up to 1000 V, with no device above it at
- * its own voltage (the main of its service). Whether the service is a solidly grounded wye is left to
- * the engineer, whom the finding tells.
+ * its own voltage (the main of its service), in a tree fed by the utility, not a generator. Whether the
+ * service is a solidly grounded wye is left to the engineer, whom the finding tells.
  */
 function isServiceMain(network: Network, device: Device): boolean {
+  // A standby generator's tree (a scenario on the generator) is no service.
+  if (network.study.source.kind === 'generator') return false;
   const volts = locationBusOf(network, device).voltage;
   if (!(volts / Math.sqrt(3) > 150 && volts <= 1000)) return false;
   if (!((ratingOf(device)?.amps ?? 0) >= 1000)) return false;

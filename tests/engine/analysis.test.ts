@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../src/engine/analysis.ts';
+import { analyseScenarios } from '../../src/engine/scenario/index.ts';
 import { parseStudy, type StudyInput } from '../../src/engine/study/index.ts';
 
 const demo = (name: string): StudyInput => JSON.parse(readFileSync(`demo/harrowmere-${name}.json`, 'utf8'));
@@ -26,6 +27,18 @@ describe('analyseStudy', () => {
     office.characteristic.ground = { pickup: 1, delay: 1.2 };
     const panel = analyseStudy(parseStudy(input)).findings.filter((f) => f.basis === 'NFPA 70 230.95(A)');
     expect(panel.map((f) => f.subjects[0])).toEqual(['MAIN', 'MAIN']);
+  });
+
+  it('gives no NFPA 70 230.95 warning for a standby generator breaker, which is no service', () => {
+    const input = demo('standby');
+    const breaker = input.devices!.find((d) => d.id === 'GEN-CB')! as {
+      characteristic: { kind: string; sensor?: number; ground?: unknown };
+    };
+    expect(breaker.characteristic.kind).toBe('trip-unit');
+    breaker.characteristic.sensor = 1200;
+    breaker.characteristic.ground = { pickup: 0.9, delay: 1.5 };
+    const found = analyseScenarios(parseStudy(input)).findings.filter((f) => f.basis === 'NFPA 70 230.95(A)');
+    expect(found.map((f) => f.subjects[0])).not.toContain('GEN-CB');
   });
 
   it('has the expected defaults: every series pair checked, findings for pairs, transformers, code, cables and motors', () => {
