@@ -188,9 +188,11 @@ export class StudyState {
       const at = pathOfSelection(before, selection)?.[1];
       const atPlace =
         typeof at === 'number' && sameListLengths(before, after) ? valueAt(after, [list, at, 'id']) : undefined;
-      if (typeof atPlace === 'string')
-        this.selection = selectionAfterStep(after, list, selection.kind, at as number, atPlace);
-      else {
+      if (typeof atPlace === 'string') {
+        // A new selection only when it changed: the panels bring a new one into view.
+        const next = selectionAfterStep(after, list, selection.kind, at as number, atPlace);
+        if (next.id !== selection.id || next.at !== selection.at) this.selection = next;
+      } else {
         const id = idAfterStep(before, after, list, selection.id);
         if (id !== undefined && id !== selection.id) this.selection = { kind: selection.kind, id };
       }
