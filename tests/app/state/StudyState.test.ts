@@ -309,6 +309,15 @@ describe('StudyState', () => {
     expect(state.valueAt(['views', 0, 'devices'])).toEqual(['MAIN', 'FDR-MCC', 'COMP-1']);
   });
 
+  it('undo of an edit that renames nothing leaves the selection the same object (the panels bring a new one into view)', () => {
+    const state = new StudyState(demo);
+    state.selection = { kind: 'device', id: 'MAIN' };
+    const selected = state.selection;
+    state.edit(['name'], 'Renamed study', 'name');
+    state.undo();
+    expect(state.selection).toBe(selected);
+  });
+
   it("redo of an id typed as another item's keeps the editor on the item typed into", () => {
     const state = new StudyState(demo);
     state.selection = { kind: 'device', id: 'MAIN' };
