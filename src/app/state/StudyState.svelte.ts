@@ -128,10 +128,12 @@ export class StudyState {
       this.#viewShown.set(left, this.view?.id);
       // Ids left half-typed are still remembered after any other edit (a name, another id, a setting
       // the Window tab wrote): typing on renames their references from the id they used.
-      // They are kept by place, so an edit that adds or takes away list items forgets them.
+      // They are kept by place: one whose item the edit moved (an item added or taken away before it) is forgotten.
       const typing = this.#idsBeforeTyping.get(left);
-      if (how === 'commit' && typing && !this.#idsBeforeTyping.has(next) && sameListLengths(left, next))
-        this.#idsBeforeTyping.set(next, typing);
+      if (how !== 'commit' || !typing || this.#idsBeforeTyping.has(next)) return;
+      const staying = [...typing].filter(([field]) => inPlace(left, next, field));
+      // eslint-disable-next-line svelte/prefer-svelte-reactivity -- a value kept with one document, never changed
+      if (staying.length > 0) this.#idsBeforeTyping.set(next, new Map(staying));
     };
     this.savedDocument = document;
     this.fileName = fileName;
@@ -185,7 +187,9 @@ export class StudyState {
       const list = COLLECTION_OF[selection.kind];
       // Where the step kept the list's length (an id typed, undone or redone), the item is followed by
       // its place, which its id, half-typed or another's, may not tell; else by its id.
-      const at = pathOfSelection(before, selection)?.[1];
+      // (by its id only where that id is its own: two items may share a half-typed one)
+      const at =
+        selection.at ?? (isOwnId(before, list, selection.id) ? pathOfSelection(before, selection)?.[1] : undefined);
       const atPlace =
         typeof at === 'number' && sameListLengths(before, after) ? valueAt(after, [list, at, 'id']) : undefined;
       if (typeof atPlace === 'string') {
@@ -414,4 +418,22 @@ function sameListLengths(a: StudyInput, b: StudyInput): boolean {
     return Array.isArray(items) ? items.length : 0;
   };
   return PLACED_LISTS.every((list) => lengthOf(a, list) === lengthOf(b, list));
+}
+
+/**
+ * Whether the item whose field is `field` ("devices/1/id") stands at the same place after an edit: its
+ * list kept its length, or the item there is the very object it was (the edit touched nothing before it).
+ */
+function inPlace(left: StudyInput, next: StudyInput, field: string): boolean {
+  const [list, index] = field.split('/');
+  const itemsOf = (document: StudyInput) => (document as unknown as Record<string, unknown>)[list];
+  const [was, now] = [itemsOf(left), itemsOf(next)];
+  if (!Array.isArray(was) || !Array.isArray(now)) return false;
+  return was.length === now.length || was[Number(index)] === now[Number(index)];
+}
+
+/** Whether exactly one item of a list goes by `id`. */
+function isOwnId(document: StudyInput, list: string, id: string): boolean {
+  const items = (document as unknown as Record<string, unknown>)[list];
+  return Array.isArray(items) && items.filter((item) => (item as { id?: unknown } | null)?.id === id).length === 1;
 }

@@ -298,6 +298,32 @@ describe('StudyState', () => {
     expect(state.valueAt(['views', 0, 'devices'])).toEqual(expect.arrayContaining(['MAIN-2', 'FDR-MCC3']));
   });
 
+  it('a half-typed id is kept when an edit adds a sheet or takes away an item after it: its item stays in place', () => {
+    const state = new StudyState(demo);
+    const id = ['devices', mainIndex, 'id'];
+    state.edit(id, '', 'id of MAIN');
+    const views = state.valueAt(['views']) as unknown[];
+    state.edit(['views'], [...views, { id: 'extra', referenceVoltage: 480, devices: ['R-T1'] }], 'a sheet');
+    state.deleteItem({ kind: 'device', id: 'EM-BR' });
+    state.edit(id, 'MAIN-2', 'id of MAIN');
+    expect(state.problems).toEqual([]);
+    expect(state.valueAt(['views', 0, 'devices'])).toContain('MAIN-2');
+  });
+
+  it('undo keeps the selection on an item chosen by an id two items share for now', () => {
+    const state = new StudyState(demo);
+    const feeder = demo.devices!.findIndex((d) => d.id === 'FDR-MCC');
+    state.edit(['devices', mainIndex, 'id'], 'FDR-MCC', 'id of MAIN');
+    state.selection = { kind: 'device', id: 'FDR-MCC', at: feeder };
+    state.undo();
+    expect(state.selectionPath).toEqual(['devices', feeder]);
+    // Chosen by the id alone (the tree's click), it is not moved to the first item that had it.
+    state.redo();
+    state.selection = { kind: 'device', id: 'FDR-MCC' };
+    state.undo();
+    expect(state.selectionPath).toEqual(['devices', feeder]);
+  });
+
   it('a deletion that moves the items forgets a half-typed id, so typing at its old place renames the item now there', () => {
     const state = new StudyState(demo);
     const feeder = demo.devices!.findIndex((d) => d.id === 'FDR-MCC');
