@@ -201,3 +201,17 @@ function niceLogTicks(min: number, max: number): number[] {
     for (const m of [1, 2, 5]) ticks.push(Number((m * Math.pow(10, e)).toPrecision(3)));
   return ticks;
 }
+
+/**
+ * Whether a pair of settings lies in the map's feasible region: the time setting within an interval of
+ * the column nearest the pickup (the columns are the pickups solved). Judged in setting units, not by
+ * the drawn cells, which are widened to stay visible.
+ *
+ * @example keepsEveryConstraint(window.maps[0], 4, 0.25) // true where 0.25 s lies in the 4 × column's interval
+ */
+export function keepsEveryConstraint(map: Pick<FeasibleMap, 'columns'>, x: number, y: number): boolean {
+  let nearest: FeasibleMap['columns'][number] | undefined;
+  for (const column of map.columns)
+    if (!nearest || Math.abs(Math.log(column.x / x)) < Math.abs(Math.log(nearest.x / x))) nearest = column;
+  return (nearest?.intervals ?? []).some((i) => y >= i.from * (1 - 1e-9) && y <= i.to * (1 + 1e-9));
+}

@@ -3,6 +3,7 @@ import {
   EDGE_LABEL_SIZE,
   MAP_PADDING,
   edgeLabelPlacement,
+  keepsEveryConstraint,
   windowMapGeometry,
   type EdgeLabelPlacement,
   type PlotBox,
@@ -59,6 +60,21 @@ function extentOf({ at: [x], anchor, shown }: EdgeLabelPlacement): [number, numb
   const start = anchor === 'start' ? x : anchor === 'end' ? x - w : x - w / 2;
   return [start, start + w];
 }
+
+describe('keepsEveryConstraint', () => {
+  it('judges a pair of settings by the interval of the nearest column, in setting units, edges included', () => {
+    expect(keepsEveryConstraint(map, 5, 2)).toBe(true);
+    expect(keepsEveryConstraint(map, 2, 2)).toBe(true);
+    expect(keepsEveryConstraint(map, 2, 1)).toBe(false);
+    expect(keepsEveryConstraint(map, 1, 2)).toBe(false);
+    // A column with a single value open: only that value, though its cell is drawn 2 px tall.
+    const one = {
+      columns: [{ x: 3, intervals: [{ ...map.columns[1].intervals[0], from: 0.2344, to: 0.2344 }], blocked: [] }],
+    };
+    expect(keepsEveryConstraint(one, 3, 0.2344)).toBe(true);
+    expect(keepsEveryConstraint(one, 3, 0.233)).toBe(false);
+  });
+});
 
 describe('edgeLabelPlacement', () => {
   it('centres a short label under the middle of a lower edge', () => {
