@@ -148,7 +148,7 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
           : 'Motor contribution: none modelled.',
         'Relays: IEEE C37.112 and IEC 60255-151 inverse-time characteristics with CT ratio, instantaneous element and breaker interrupting time; low-voltage trip units: long-time, short-time, instantaneous and ground-fault functions with tolerance bands; thermal-magnetic breakers and fuses: digitised curves from the device data.',
         'Withstand curves: IEEE C57.109 (liquid-immersed) and IEEE C57.12.59 (dry-type) transformer through-fault curves; ICEA P-32-382 conductor short-circuit limits; transformer magnetising inrush at 8–12 × full-load current for 0.1 s (common practice). The figures also mark each transformer’s full-load current and each low-voltage cable’s ampacity as dotted lines.',
-        `Coordination: every series pair is checked over the currents both devices can see, up to the maximum fault at the downstream device, with the required margins below; below one half-cycle (${significant(study.coordination.halfCycle, 3)} s) curves cannot prove selectivity, and such regions are reported as not provable from curves.`,
+        `Coordination: every series pair is checked over the currents both devices can see, up to the maximum fault at the downstream device, with the required margins below; below about one half-cycle (${significant(study.coordination.halfCycle, 3)} s, the study's setting) curves cannot prove selectivity, and such regions are reported as not provable from curves.`,
         `Code limits: NFPA 70 (${study.coordination.edition} edition) 450.3 for transformer overcurrent protection; 230.95(A) for the ground-fault settings of a service main (the first device of a 480 V class system, rated 1000 A or more: 1200 A at most, 1 s at most at 3000 A), told as a warning, since the rule binds a solidly grounded wye service, which the engineer confirms.`,
         'Cable ampacity: at 1000 V and below, each cable’s ampacity (NFPA 70 Table 310.16 at 75 °C unless the study gives one, times its parallel sets) against the rating of the device above it (240.4: the next standard rating up to 800 A, 240.4(D) for small conductors) and against its motor load (430.22, 430.24); a motor branch circuit’s device is left to 430.52 (240.4(G)), and conductors protected only on a transformer’s primary to 240.21(C).',
         'Load: each pickup is checked against the load it feeds: a transformer’s rated current for its primary device and its secondary main (common practice), 125 % of a motor’s full-load current (NFPA 70 430.22), for a feeder 125 % of the largest motor below plus the others’ (430.24) and the rated current of the transformers below. A pickup below it is a warning: where the load never runs all at once, a lower setting may be meant.',
@@ -356,13 +356,15 @@ function sheetBlocks(analysis: Analysis): ReportBlock[] {
   );
 }
 
-// Accepts the analysis; the findings table and each finding needing attention written out, with the
+// Accepts the analysis; the findings table and each finding but the passes written out, with the
 // scenarios each holds in for a switched study (the labels `check` prints).
 function findingBlocks(analysis: Analysis): ReportBlock[] {
   const rows = findingRows(analysis);
   const { counts } = analysis;
   const switched = analysis.scenarios !== undefined;
-  const attention = rows.filter((row) => row.severity === 'fail' || row.severity === 'warning');
+  // Every finding but a pass is written out: a note's sentence may be what limits it ("on illustrative
+  // curves: this is no claim of selectivity"), which the table's title alone does not say.
+  const writtenOut = rows.filter((row) => row.severity !== 'ok');
   const countsText = (c: Record<Severity, number>) =>
     `${c.fail} failing, ${c.warning} warning${c.warning === 1 ? '' : 's'}, ${c.info} note${c.info === 1 ? '' : 's'} and ${c.ok} passing check${c.ok === 1 ? '' : 's'}`;
   const perScenario = scenarioCountsOf(analysis).map(({ label, counts: c }) => `${label}: ${countsText(c)}.`);
@@ -382,7 +384,7 @@ function findingBlocks(analysis: Analysis): ReportBlock[] {
       columns: ['severity', 'finding', 'current range', 'worst margin', ...(switched ? ['scenarios'] : [])],
       rows: rows.map((row) => [row.severity, row.title, row.range, row.worst, ...(switched ? [row.scenarios] : [])]),
     },
-    ...attention.map((row): ReportBlock => ({
+    ...writtenOut.map((row): ReportBlock => ({
       type: 'list',
       items: [
         `${row.severity}: ${row.title}. ${row.explanation}`,

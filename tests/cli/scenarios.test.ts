@@ -220,7 +220,7 @@ describe('window in an operating scenario', () => {
     );
     expect(code).toBe(0);
     expect(stdout).toMatch(
-      /coordinate with Exhaust fan breaker 50 A below \(0 s margin; shown selective, NFPA 70 700\.32\)/,
+      /coordinate with Exhaust fan breaker 50 A below \(0 s margin; must be shown selective, NFPA 70 700\.32\)/,
     );
   });
 

@@ -362,7 +362,7 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
   return {
     id: `${which}:${other.id}`,
     kind: which === 'below' ? 'coordinate-below' : 'coordinate-above',
-    label: `coordinate with ${nameOf(other)} ${which === 'below' ? 'below' : 'above'} (${separation}${code ? `; shown selective, NFPA 70 ${code}` : ''})`,
+    label: `coordinate with ${nameOf(other)} ${which === 'below' ? 'below' : 'above'} (${separation}${code ? `; must be shown selective, NFPA 70 ${code}` : ''})`,
     source: code ? `${rule.basis}; NFPA 70 ${code}` : rule.basis,
     favours: which === 'below' ? 'slower' : 'faster',
     subjects: [other.id],
