@@ -152,7 +152,7 @@ export function rowsOf(window: SettingWindow): SettingsTableRow[] {
  * state; each table then says where it names the constraints not kept.
  */
 export const RECOMMENDATION_NOTE =
-  'The recommended value is the fastest-clearing setting found at which no constraint the settings can change fails: it does not overlap the devices below or above, and keeps the withstand, inrush, motor-starting, load and code limits. Bounds the checks only warn about, such as a generator’s damage curve or clearing the minimum fault in the zone within the time allowed, can still be missed at it, as can limits no setting changes (interrupting duty).';
+  'The recommended value is the fastest-clearing setting found at which no constraint the settings can change fails: it does not overlap the devices below or above, and keeps the withstand, inrush, motor-starting, load and code limits. Bounds the checks only warn about, such as a generator’s damage curve or clearing the minimum fault in the zone within the time allowed, can still be missed at it, as can limits no setting changes (interrupting duty). The recommendation changes the device’s settings together, so a recommended value can lie outside its own row’s window, which holds the other settings as they are now; and proposals for the whole study (the propose command and the Window tab), which set the devices one after another with those already set, can differ from these, which each hold the rest of the study as it is.';
 
 const HEADERS = [
   'device',
