@@ -134,7 +134,8 @@ export function rowsOf(window: SettingWindow): SettingsTableRow[] {
       deviceId: window.deviceId,
       device: window.deviceName,
       setting: s.label,
-      current: settingText(s.key, s.current, s.unit),
+      // As the window command says it: a present value outside its window is marked.
+      current: `${settingText(s.key, s.current, s.unit)}${s.inside ? '' : ' (outside)'}`,
       window: interval ? `${significant(interval.from, 4)}–${significant(interval.to, 4)}${unit}` : 'none',
       recommended: rec ? settingText(s.key, rec.to, s.unit) : '—',
       binding: interval

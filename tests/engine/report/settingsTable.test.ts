@@ -12,7 +12,8 @@ describe('settingsTableOf', () => {
     const rows = settingsTableOf(study);
     expect(new Set(rows.map((r) => r.deviceId))).not.toContain('EM-BR');
     const delay = rows.find((r) => r.deviceId === 'MAIN' && r.setting === 'short-time delay')!;
-    expect(delay).toMatchObject({ device: 'Main 2000 A', current: '0.4 s' });
+    // With no window, the present value is outside it, as the window command marks it.
+    expect(delay).toMatchObject({ device: 'Main 2000 A', current: '0.4 s (outside)' });
     expect(delay.window).toBe('none');
     expect(delay.binding).toMatch(/^closed by: coordinate with MCC feeder 600 A below/);
     expect(rows.find((r) => r.deviceId === 'MAIN' && r.setting === 'instantaneous trip')).toMatchObject({
