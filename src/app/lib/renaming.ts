@@ -152,7 +152,7 @@ function idsOf(document: StudyInput, namespace: string, path: DocumentPath): Set
   const source = (document as { source?: { id?: unknown } }).source;
   if (namespace === 'elements' && path[0] !== 'source') ids.add(source?.id);
   for (const list of lists) {
-    const items = (document as unknown as Record<string, unknown>)[list];
+    const items = valueAt(document, [list]);
     if (!Array.isArray(items)) continue;
     items.forEach((item, index) => {
       if (list === path[0] && index === path[1]) return;
@@ -202,8 +202,7 @@ function rewritten(node: unknown, steps: Step[], at: number, rename: (id: unknow
  * @example idAfterStep(renamed, original, 'devices', 'MAIN-2') // 'MAIN': the rename undone
  */
 export function idAfterStep(before: StudyInput, after: StudyInput, list: string, id: string): string | undefined {
-  const itemsOf = (document: StudyInput) => (document as unknown as Record<string, unknown>)[list];
-  const [was, now] = [itemsOf(before), itemsOf(after)];
+  const [was, now] = [valueAt(before, [list]), valueAt(after, [list])];
   if (!Array.isArray(was) || !Array.isArray(now)) return undefined;
   const idAt = (items: unknown[], index: number) => (items[index] as { id?: unknown } | null | undefined)?.id;
   if (now.some((_, index) => idAt(now, index) === id)) return id;

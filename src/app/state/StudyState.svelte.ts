@@ -392,10 +392,7 @@ function selectionAfterStep(
   at: number,
   id: string,
 ): Selection {
-  const items = (document as unknown as Record<string, unknown>)[list];
-  const shared =
-    Array.isArray(items) && items.some((item, index) => index !== at && (item as { id?: unknown } | null)?.id === id);
-  return shared ? { kind, id, at } : { kind, id };
+  return isOwnId(document, list, id) ? { kind, id } : { kind, id, at };
 }
 
 /** The lists whose items are held by their place (elements, sheets, scenarios). */
@@ -414,7 +411,7 @@ const PLACED_LISTS = [
 /** Whether two versions of a document have as many items in each list: no item added or taken away. */
 function sameListLengths(a: StudyInput, b: StudyInput): boolean {
   const lengthOf = (document: StudyInput, list: string) => {
-    const items = (document as unknown as Record<string, unknown>)[list];
+    const items = valueAt(document, [list]);
     return Array.isArray(items) ? items.length : 0;
   };
   return PLACED_LISTS.every((list) => lengthOf(a, list) === lengthOf(b, list));
@@ -426,14 +423,13 @@ function sameListLengths(a: StudyInput, b: StudyInput): boolean {
  */
 function inPlace(left: StudyInput, next: StudyInput, field: string): boolean {
   const [list, index] = field.split('/');
-  const itemsOf = (document: StudyInput) => (document as unknown as Record<string, unknown>)[list];
-  const [was, now] = [itemsOf(left), itemsOf(next)];
+  const [was, now] = [valueAt(left, [list]), valueAt(next, [list])];
   if (!Array.isArray(was) || !Array.isArray(now)) return false;
   return was.length === now.length || was[Number(index)] === now[Number(index)];
 }
 
 /** Whether exactly one item of a list goes by `id`. */
 function isOwnId(document: StudyInput, list: string, id: string): boolean {
-  const items = (document as unknown as Record<string, unknown>)[list];
+  const items = valueAt(document, [list]);
   return Array.isArray(items) && items.filter((item) => (item as { id?: unknown } | null)?.id === id).length === 1;
 }
