@@ -152,8 +152,10 @@ export function analyseStudy(study: Study, memo?: AnalysisMemo): Analysis {
     );
     // A ground-fault element's notes are the limits of NFPA 70 230.95(A), which bind a service
     // disconnect: a warning for a main of 1000 A or more at 480 V class, none for other devices.
-    if (isServiceMain(network, device))
-      cachedGroundBandOf(device.characteristic)?.diagnostics.forEach((message, index) =>
+    // Only a ground-fault element with a note is placed in the tree: a study has thousands of devices.
+    const groundNotes = cachedGroundBandOf(device.characteristic)?.diagnostics ?? [];
+    if (groundNotes.length > 0 && isServiceMain(network, device))
+      groundNotes.forEach((message, index) =>
         findings.push({
           id: `setting:${device.id}:ground:${index}`,
           kind: 'setting',
