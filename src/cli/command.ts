@@ -13,6 +13,11 @@ export interface CommandIO {
   readText(path: string): string;
   /** Writes a file (figures, reports). */
   writeFile(path: string, data: string | Uint8Array): void;
+  /**
+   * Removes a file an earlier run wrote (a figure of a longer earlier report); false when no file stands
+   * there. Throws when one does and cannot be removed. Optional: an io without it removes nothing.
+   */
+  removeFile?(path: string): boolean;
 }
 
 /**

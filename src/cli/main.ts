@@ -1,4 +1,4 @@
-import { realpathSync } from 'node:fs';
+import { lstatSync, realpathSync, rmSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expectedGot, InputError } from '../engine/errors.ts';
 import type { Command, CommandIO } from './command.ts';
@@ -26,6 +26,15 @@ export const nodeIO: WholeWritingIO = {
   },
   writeFile: (path, data) => writeNotOverInputs([{ path, data }]),
   writeAll: (outputs) => writeNotOverInputs(outputs),
+  removeFile: (path) => {
+    // Only a file (or a link) is removed, never a folder, and never a file this run read.
+    if (!(lstatSync(path, { throwIfNoEntry: false })?.isDirectory() === false)) return false;
+    const identity = fileIdentity(path);
+    if (identity !== undefined && filesRead.has(identity))
+      throw new InputError(path, expectedGot('a file other than the study read', path));
+    rmSync(path);
+    return true;
+  },
 };
 
 function writeNotOverInputs(outputs: readonly Output[]): void {

@@ -60,6 +60,39 @@ describe('discern report', () => {
     }
   });
 
+  it('removes the figures a longer earlier report of the same name left beside it, and no others', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'discern-report-'));
+    try {
+      const io = {
+        ...memoryIO(),
+        writeFile: nodeIO.writeFile,
+        writeAll: nodeIO.writeAll,
+        removeFile: nodeIO.removeFile,
+      };
+      const argv = ['report', 'demo/harrowmere-fused.json', '--out', join(folder, 'study.md')];
+      expect(await runCli(argv, io)).toBe(0);
+      const figures = readdirSync(folder).filter((name) => name.endsWith('.svg')).length;
+      expect(figures).toBeGreaterThan(2);
+      // An earlier report had two figures more; a figure after a gap, and another report's, are not its.
+      const later = [figures + 1, figures + 2].map((n) => `study-figure-${n}.svg`);
+      for (const name of [...later, `study-figure-${figures + 4}.svg`, 'other-figure-99.svg'])
+        writeFileSync(join(folder, name), 'EARLIER');
+      io.out.length = 0;
+      expect(await runCli(argv, io)).toBe(0);
+      for (const name of later) expect(readdirSync(folder)).not.toContain(name);
+      expect(readdirSync(folder)).toContain(`study-figure-${figures + 4}.svg`);
+      expect(readdirSync(folder)).toContain('other-figure-99.svg');
+      expect(readdirSync(folder).filter((name) => name.startsWith('study-figure-'))).toHaveLength(figures + 1);
+      expect(io.out.join('')).toMatch(
+        new RegExp(
+          `removed 2 figures of an earlier, longer report \\(.*study-figure-${figures + 1}\\.svg to .*study-figure-${figures + 2}\\.svg\\)\\n$`,
+        ),
+      );
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+  });
+
   it('refuses a bad paper, orientation or output with a one-line message naming the flag', async () => {
     for (const [args, message] of [
       [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected letter, a4, tabloid or a3, got "legal"\n$/],

@@ -25,6 +25,7 @@ export function memoryIO(): CommandIO & { out: string[]; err: string[]; files: M
     stderr: (text) => void err.push(text),
     readText: (path) => readFileSync(path, 'utf8'),
     writeFile: (path, data) => void files.set(path, data),
+    removeFile: (path) => files.delete(path),
   };
 }
 

@@ -1,7 +1,7 @@
 import { expectedGot, InputError } from '../../engine/errors.ts';
 import { analyseScenarios } from '../../engine/scenario/index.ts';
 import { flagText, parseArgs } from '../args.ts';
-import type { Command } from '../command.ts';
+import type { Command, CommandIO } from '../command.ts';
 import { scenarioFlag } from '../scenarioFlag.ts';
 import { loadStudyFile } from '../studyFile.ts';
 import { type Output, writeOutputs } from '../writeAll.ts';
@@ -9,7 +9,8 @@ import { type Output, writeOutputs } from '../writeAll.ts';
 const HELP = `discern report <study.json> --out FILE — the whole coordination study report
 
   --out FILE          study.pdf, study.html or study.md (the format follows the ending; Markdown
-                      writes its figures beside it as FILE-figure-N.svg)
+                      writes its figures beside it as FILE-figure-N.svg, and removes those an
+                      earlier, longer report of the same name left numbered past its last)
   --paper SIZE        letter, a4, tabloid or a3 (default letter)
   --orientation O     portrait or landscape (default portrait)
   --date TEXT         the date printed on the report (default: the study's date); the same study and
@@ -88,9 +89,33 @@ export const reportCommand: Command = {
     // not leave the old report pointing at new figures, nor replace any figure of the last good report.
     writeOutputs(io, outputs);
     io.stdout(`${study.name}: wrote ${out}\n`);
+    if (format === 'md') removeLaterFigures(io, out, outputs.length - 1);
     return 0;
   },
 };
+
+/**
+ * Removes the figures a longer earlier Markdown report of the same name left beside `out`, numbered past
+ * this one's last (`<stem>-figure-N.svg`), which a reader would take for this report's own, and says
+ * which on standard output. A figure that cannot be removed is named on standard error; the report
+ * itself is written either way.
+ */
+function removeLaterFigures(io: CommandIO, out: string, figures: number): void {
+  const base = out.replace(/\.md$/i, '');
+  const removed: string[] = [];
+  try {
+    for (let n = figures + 1; io.removeFile?.(`${base}-figure-${n}.svg`); n++) removed.push(`${base}-figure-${n}.svg`);
+  } catch (error) {
+    // A removal fails on the file system (permissions), or refuses the study this run read.
+    const reason = (error as NodeJS.ErrnoException).code ?? 'the study read';
+    io.stderr(
+      `${base}-figure-${figures + removed.length + 1}.svg: left in place (${reason}); it is not a figure of this report\n`,
+    );
+  }
+  if (removed.length === 1) io.stdout(`removed ${removed[0]}, a figure of an earlier, longer report\n`);
+  else if (removed.length > 1)
+    io.stdout(`removed ${removed.length} figures of an earlier, longer report (${removed[0]} to ${removed.at(-1)})\n`);
+}
 
 /** Whether text is a date the calendar has, written YYYY-MM-DD (years 0001 to 9999). @example isCalendarDate('2026-02-30') // false */
 function isCalendarDate(text: string): boolean {
