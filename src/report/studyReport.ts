@@ -288,7 +288,7 @@ function settingsBlocks(analysis: Analysis): ReportBlock[] {
     return [
       device.name ?? device.id,
       bus ? (bus.name ?? bus.id) : 'not energised',
-      settingsText(device.characteristic).join('; '),
+      settingsText(device.characteristic, analysis.study.frequency).join('; '),
     ];
   });
   // The windows in the scenarios the report covers (every one, or the one chosen), each row naming its own.

@@ -1,13 +1,15 @@
-import type { Characteristic } from '../devices/index.ts';
+import { INVERSE_CURVES, type Characteristic } from '../devices/index.ts';
 import { formatAmps, significant } from '../quantity/format.ts';
 
 /**
  * A device's settings in the trade's words, every value with its unit, one element per entry:
  * `['CT 600:5', '51 IEEE very inverse: pickup 4 A (480 A primary), time dial 2', …]`. For the
- * report's settings table and anyone reading a study without the workbench.
+ * report's settings table and anyone reading a study without the workbench. A breaker's interrupting
+ * time is given in cycles of the system `frequency` (Hz) too when it is a whole or half number of them,
+ * as breakers are rated.
  * @example settingsText({ kind: 'fuse', label: '65E', … }) // ['fuse 65E', 'curve from 12 points']
  */
-export function settingsText(characteristic: Characteristic): string[] {
+export function settingsText(characteristic: Characteristic, frequency = 60): string[] {
   const s = (value: number) => significant(value, 4);
   switch (characteristic.kind) {
     case 'relay': {
@@ -22,14 +24,14 @@ export function settingsText(characteristic: Characteristic): string[] {
               ? `time multiplier ${s(toc.timeMultiplier)}`
               : `delay ${s(toc.delay ?? 0)} s`;
         lines.push(
-          `time-overcurrent ${toc.curve}: pickup ${s(toc.pickup)} A (${formatAmps(toc.pickup * ratio)} primary), ${time}`,
+          `time-overcurrent ${toc.curve === 'definite-time' ? 'definite-time' : INVERSE_CURVES[toc.curve].label}: pickup ${s(toc.pickup)} A (${formatAmps(toc.pickup * ratio)} primary), ${time}`,
         );
       }
       if (inst)
         lines.push(
           `instantaneous: pickup ${s(inst.pickup)} A (${formatAmps(inst.pickup * ratio)} primary), delay ${s(inst.delay)} s`,
         );
-      lines.push(`breaker interrupting time ${s(characteristic.breakerTime)} s`);
+      lines.push(`breaker interrupting time ${cyclesText(characteristic.breakerTime, frequency)}`);
       return lines;
     }
     case 'trip-unit': {
@@ -68,4 +70,12 @@ export function settingsText(characteristic: Characteristic): string[] {
         'minimum melting and total clearing from digitised points',
       ];
   }
+}
+
+/** A time as `5 cycles (0.08333 s)` when it is a whole or half number of cycles at `frequency`, else in seconds. */
+function cyclesText(seconds: number, frequency: number): string {
+  const halfCycles = seconds * frequency * 2;
+  const whole = Math.round(halfCycles);
+  if (whole === 0 || Math.abs(halfCycles - whole) > 1e-6 * whole) return `${significant(seconds, 4)} s`;
+  return `${whole / 2} cycle${whole === 2 ? '' : 's'} (${significant(seconds, 4)} s)`;
 }
