@@ -317,7 +317,13 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
       (column, c) =>
         Math.max(textWidth(column, size, 'bold'), ...rows.map((row) => textWidth(row[c] ?? '', size))) + 2 * pad,
     );
-    const widths = fitColumns(natural, contentWidth);
+    const longestWord = (text: string, weight: 'normal' | 'bold') =>
+      Math.max(0, ...text.split(/\s+/).map((word) => textWidth(word, size, weight)));
+    const narrowest = columns.map(
+      (column, c) =>
+        Math.max(longestWord(column, 'bold'), ...rows.map((row) => longestWord(row[c] ?? '', 'normal'))) + 2 * pad,
+    );
+    const widths = fitColumns(narrowest, natural, contentWidth);
     const step = size * lineHeight;
     const drawRow = (cells: string[], weight: 'normal' | 'bold') => {
       const wrapped = cells.map((cell, c) => wrapText(cell, widths[c] - 2 * pad, size, weight));
@@ -367,18 +373,18 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
   }
 }
 
-// Accepts natural column widths and the room there is; shrinks the widest columns first until they fit.
-function fitColumns(natural: number[], width: number): number[] {
+// Accepts each column's narrowest width (its longest word) and natural width (its longest cell unwrapped)
+// and the room there is. Where every cell fits unwrapped, the spare room is shared out evenly; else each
+// column gets its narrowest width and the rest of the room in proportion to what wrapping takes from it,
+// so a column of long sentences gets the room a column of short values does not need.
+function fitColumns(narrowest: number[], natural: number[], width: number): number[] {
   const total = natural.reduce((a, b) => a + b, 0);
   if (total <= width) return natural.map((w) => w + (width - total) / natural.length);
-  const widths = [...natural];
-  // Cap every column at one level so the excess comes off the widest ones.
-  const sorted = [...natural].sort((a, b) => b - a);
-  let cap = sorted[0];
-  for (let i = 0; i < 60 && widths.reduce((a, b) => a + Math.min(b, cap), 0) > width; i++) cap *= 0.9;
-  const capped = widths.map((w) => Math.min(w, cap));
-  const sum = capped.reduce((a, b) => a + b, 0);
-  return capped.map((w) => (w * width) / sum);
+  const least = narrowest.reduce((a, b) => a + b, 0);
+  // Not even the longest words fit: scale them down together (a word that still will not fit breaks).
+  if (least >= width) return narrowest.map((w) => (w * width) / least);
+  const share = (width - least) / (total - least);
+  return natural.map((w, c) => narrowest[c] + (w - narrowest[c]) * share);
 }
 
 // Accepts a figure's caption, one of its tiles and the grid's rows and columns; the tile page's caption,

@@ -346,3 +346,24 @@ describe('the bus index of a tiled one-line whose buses have long names', () => 
     expect(cut.length).toBeGreaterThan(5);
   }, 60_000);
 });
+
+describe('report tables', () => {
+  it('give a column of long sentences the room a column of short values does not need (A4 portrait)', () => {
+    const study = parseStudy(readFileSync('demo/harrowmere-full.json', 'utf8'));
+    const report = studyReportOf(analyseStudy(study));
+    const pages = reportPagesOf(report, { paper: 'a4', orientation: 'portrait' });
+    const texts = pages.flatMap((page) => bodyOf(page));
+    // The settings-window table: every header on one line, the binding constraints the widest column.
+    for (const header of ['device', 'setting', 'now', 'window', 'recommended', 'binding constraints'])
+      expect(texts.some((item) => item.text === header)).toBe(true);
+    const at = (text: string) => texts.find((item) => item.text === text)!.x;
+    const bindingWidth = pages[0].drawing.width - pageDefaults.margin - at('binding constraints');
+    for (const [left, right] of [
+      ['setting', 'now'],
+      ['now', 'window'],
+      ['window', 'recommended'],
+      ['recommended', 'binding constraints'],
+    ])
+      expect(bindingWidth).toBeGreaterThan(at(right) - at(left));
+  });
+});
