@@ -36,6 +36,12 @@ export interface ScenarioPairs {
  * `codeSelectivity: "above-0.1-s"` an interval is accepted where the downstream device clears within
  * 0.1 s at its lowest current, as some authorities having jurisdiction accept; the authority having
  * jurisdiction decides which reading applies. `labelled` lists the scenarios checked on each finding.
+ * A generator's decaying current needs no check of its own here: the pairs are classed at every
+ * constant current from the lower pickup to the largest fault, and where the upstream device's earliest
+ * operation is no earlier than the downstream device's latest clearing at each of those currents, the
+ * time-varying integrals of 1 / t over any current falling through them keep that order (the upstream
+ * integrand is the smaller at every instant), so a decaying current shows no overlap the constant
+ * currents do not; what it can add is a margin missed, which `decrementFindings` reports.
  *
  * @example codeSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }])
  */
