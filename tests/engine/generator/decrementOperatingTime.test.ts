@@ -130,6 +130,29 @@ describe('decrementOperatingTime', () => {
     });
   });
 
+  it('keeps the order of two devices that is kept at every constant current (property: why the code-selectivity check reads the constant-current pairs alone)', () => {
+    // Upstream: at least as slow as downstream at every current (a factor ≥ 1 that varies with current),
+    // its pickup no lower; any generator decrement then opens it no earlier than downstream clears.
+    fc.assert(
+      fc.property(
+        fc.double({ min: 300, max: 3000, noNaN: true }),
+        fc.double({ min: 0.1, max: 10, noNaN: true }),
+        fc.double({ min: 1, max: 1.5, noNaN: true }),
+        fc.double({ min: 0, max: 0.5, noNaN: true }),
+        fc.double({ min: 0, max: 6, noNaN: true }),
+        (pickup, dial, pickupRatio, sway, sustained) => {
+          const down = veryInverse(pickup, dial);
+          const up = (amps: number) => down(amps / pickupRatio) * (1 + sway * (1 + Math.sin(Math.log(amps))));
+          const decrement = generatorDecrement(generatorOf({ sustained: sustained || undefined }));
+          const clears = decrementOperatingTime(down, decrement);
+          const opens = decrementOperatingTime(up, decrement);
+          return opens >= clears * (1 - 1e-7);
+        },
+      ),
+      { numRuns: 60, seed: 70032 },
+    );
+  });
+
   it('an instantaneous (zero-time) device operates at once', () => {
     expect(
       decrementOperatingTime(
