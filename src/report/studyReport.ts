@@ -307,7 +307,7 @@ function settingsBlocks(analysis: Analysis): ReportBlock[] {
       : [
           {
             type: 'paragraph' as const,
-            text: `Setting windows: each adjustable setting with the device’s other settings and the rest of the study held as they are, the window in which no constraint fails, the recommended value and the constraints that set the window’s edges${switched ? ', in each scenario that energises the device (a row that reads the same in several scenarios names them all)' : ''}. ${RECOMMENDATION_NOTE} Every constraint not kept at a recommended setting is listed after the table, with its margin.`,
+            text: `Setting windows: each adjustable setting with the device’s other settings and the rest of the study held as they are, the window in which no constraint fails, the recommended value, the constraints that set the window’s edges and the one that holds the recommended value where it is${switched ? ', in each scenario that energises the device (a row that reads the same in several scenarios names them all)' : ''}. ${RECOMMENDATION_NOTE} Every constraint not kept at a recommended setting is listed after the table, with its margin.`,
           },
           {
             type: 'table' as const,

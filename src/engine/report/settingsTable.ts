@@ -122,7 +122,7 @@ export function rowsOf(window: SettingWindow): SettingsTableRow[] {
         .map((o) => settingText(s.key, o))
         .join(', ') || 'none',
     recommended: recommended.has(s.key) ? settingText(s.key, recommended.get(s.key)!.to) : '—',
-    binding: '',
+    binding: heldText(recommended.get(s.key)?.binding),
     notKept,
     scenarios: '',
   }));
@@ -138,14 +138,21 @@ export function rowsOf(window: SettingWindow): SettingsTableRow[] {
       current: `${settingText(s.key, s.current, s.unit)}${s.inside ? '' : ' (outside)'}`,
       window: interval ? `${significant(interval.from, 4)}–${significant(interval.to, 4)}${unit}` : 'none',
       recommended: rec ? settingText(s.key, rec.to, s.unit) : '—',
-      binding: interval
-        ? `from: ${interval.lower.label}; up to: ${interval.upper.label}`
-        : `closed by: ${s.blocked.map((b) => b.label).join('; ')}`,
+      binding:
+        (interval
+          ? `from: ${interval.lower.label}; up to: ${interval.upper.label}`
+          : `closed by: ${s.blocked.map((b) => b.label).join('; ')}`) + heldText(rec?.binding, '; '),
       notKept,
       scenarios: '',
     };
   });
   return [...switchRows, ...settingRows];
+}
+
+// Accepts the constraint a recommended value stops at (as the window command's "held there by") and
+// what goes before it; the words for the binding column, or nothing.
+function heldText(binding: { label: string } | undefined, before = ''): string {
+  return binding ? `${before}recommended held by: ${binding.label}` : '';
 }
 
 /**

@@ -31,6 +31,16 @@ describe('settingsTableOf', () => {
     );
   });
 
+  it('names in the binding column what holds each recommended value where it is, as the window command does', () => {
+    const rows = settingsTableOf(study, { deviceIds: ['MAIN'] });
+    const window = settingWindowOf(study, 'MAIN');
+    for (const setting of window.recommendation!.settings.filter((s) => s.binding)) {
+      const row = rows.find((r) => r.setting === setting.label)!;
+      expect(row.binding).toMatch(new RegExp(`(^|; )recommended held by: ${escapeRegExp(setting.binding!.label)}$`));
+    }
+    expect(window.recommendation!.settings.some((s) => s.binding)).toBe(true);
+  });
+
   it('renders Markdown and CSV with the caution', () => {
     const rows = settingsTableOf(study, { deviceIds: ['R-T1'] });
     expect(rows.map((r) => r.setting)).toEqual([
@@ -80,3 +90,8 @@ describe('settingsTableOf in a study with scenarios (standby overlap demo)', () 
     expect(md).toMatch(/\| not kept at the recommendation \| scenarios \|\n/);
   });
 });
+
+/** Text as a regular expression that matches it literally. */
+function escapeRegExp(text: string): string {
+  return text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+}
