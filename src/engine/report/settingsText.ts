@@ -1,4 +1,5 @@
-import { INVERSE_CURVES, type Characteristic } from '../devices/index.ts';
+import type { Characteristic } from '../devices/index.ts';
+import { INVERSE_CURVES } from '../devices/inverseCurves.ts';
 import { formatAmps, significant } from '../quantity/format.ts';
 
 /**
