@@ -33,7 +33,8 @@ export function plainReaderOf(schema: z.core.$ZodType): PlainReader {
 /**
  * Gives the part of a schema that a transform reads (a field helper's `union(...).transform(...)`)
  * its plain reading: `read` must return exactly what the transform would for a value the schema
- * accepts, and `NOT_PLAIN` for any other. The schema's copies (`.meta()`, `.describe()`) share it.
+ * accepts, and `NOT_PLAIN` for any other. The schema's copies (`.meta()`, `.describe()`, or with checks
+ * added) share it, and a copy runs its own checks after it.
  *
  * @example withPlainReading(quantity, (value) => (typeof value === 'number' ? value * 1000 : NOT_PLAIN))
  */
@@ -72,14 +73,39 @@ type CheckDef = z.core.$ZodCheckDef & Record<string, unknown>;
 
 function compile(schema: z.core.$ZodType): PlainReader {
   const def = schema._zod.def as AnyDef;
-  const own = declared.get(def);
+  const own = declaredReading(schema);
   // A schema that is its own check (a string or number format: z.email(), z.int()) is zod's to read.
   const selfChecked = schema._zod.traits.has('$ZodCheck');
   const read = own ?? (def.coerce || selfChecked ? undefined : typeReader(schema, def));
   if (!read) return zodReading(schema);
-  const checks = (def.checks ?? []) as Check[];
+  // A check that only describes the schema (`z.meta(…)`, `z.describe(…)`) reads nothing.
+  const checks = ((def.checks ?? []) as Check[]).filter((check) => !DESCRIBING.has(check._zod.def.check));
   const checked = checks.length === 0 ? read : withChecks(read, checks, def.type);
   return sharing.has(def) ? sharedReader(checked) : checked;
+}
+
+/** The kinds of check that only describe a schema (they register metadata, and pass every value). */
+const DESCRIBING = new Set(['meta', 'describe']);
+
+/**
+ * The reading `withPlainReading` gave `schema`, or the schema it was copied from with checks added
+ * (`.check(…)` keeps every other part of the definition): the copy parses as the original does.
+ */
+function declaredReading(schema: z.core.$ZodType): PlainReader | undefined {
+  for (let at: z.core.$ZodType | undefined = schema; at; at = at._zod.parent) {
+    const read = declared.get(at._zod.def);
+    if (read) return read;
+    const parent = at._zod.parent;
+    if (!parent || !sameButChecks(at._zod.def as AnyDef, parent._zod.def as AnyDef)) return undefined;
+  }
+  return undefined;
+}
+
+/** Whether two definitions hold the same parts, their checks aside. */
+function sameButChecks(def: AnyDef, other: AnyDef): boolean {
+  const keys = Object.keys(def).filter((key) => key !== 'checks');
+  const otherKeys = Object.keys(other).filter((key) => key !== 'checks');
+  return keys.length === otherKeys.length && keys.every((key) => Object.hasOwn(other, key) && def[key] === other[key]);
 }
 
 /** Values whose readings a sharing reader keeps: a study's few kinds of device, and more. */
