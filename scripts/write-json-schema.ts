@@ -2,7 +2,7 @@
 // Run with `npm run schema`; tests/engine/study/jsonSchema.test.ts fails when the file is stale.
 import { writeFileSync, realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { studySchema, STUDY_VERSION } from '../src/engine/study/index.ts';
 
 /** Where the JSON Schema lives, relative to the repository root. */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { studySchema } from '../../engine/study/index.ts';
 import { valueAt, type DocumentPath } from './documentPath.ts';
 

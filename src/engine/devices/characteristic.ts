@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { withSharedReadings } from '../study/plainReading.ts';
 import { fuseSchema } from './fuseSchema.ts';
 import { createRelaySchema } from './relaySchema.ts';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { NOT_PLAIN, withPlainReading } from '../study/plainReading.ts';
 import { pointProblem, upperBelowLower, type PointTable, type PointTableOptions } from './pointTable.ts';
 
@@ -24,23 +24,21 @@ export function pointTableSchema(options: PointTableOptions) {
  * its every answer is held to.
  */
 export function zodPointTableSchema({ current, unit }: PointTableOptions) {
-  return (
-    z
-      .array(z.tuple([z.number().max(MAX_AMPS), z.number().max(MAX_SECONDS)]))
-      // At most 1e7 A (or ×) and 1e5 s, like every current and time in a study; 1000 points is far
-      // more than any digitised curve needs and keeps band evaluation cheap.
-      .max(1000)
-      .superRefine((points, ctx) => {
-        if (points.length < 2) {
-          ctx.addIssue({ code: 'custom', message: `expected at least 2 points, got ${points.length}` });
-          return;
-        }
-        for (let i = 0; i < points.length; i++) {
-          const problem = pointProblem(points, i, { current, unit });
-          if (problem) ctx.addIssue({ code: 'custom', path: [i, problem.column], message: problem.message });
-        }
-      })
-      .meta({ description: `[${current.replace(/^an? /, '')}, seconds] pairs, current ascending, time descending` })
+  return z.array(z.tuple([z.number().check(z.maximum(MAX_AMPS)), z.number().check(z.maximum(MAX_SECONDS))])).check(
+    // At most 1e7 A (or ×) and 1e5 s, like every current and time in a study; 1000 points is far
+    // more than any digitised curve needs and keeps band evaluation cheap.
+    z.maxLength(1000),
+    z.superRefine((points, ctx) => {
+      if (points.length < 2) {
+        ctx.addIssue({ code: 'custom', message: `expected at least 2 points, got ${points.length}` });
+        return;
+      }
+      for (let i = 0; i < points.length; i++) {
+        const problem = pointProblem(points, i, { current, unit });
+        if (problem) ctx.addIssue({ code: 'custom', path: [i, problem.column], message: problem.message });
+      }
+    }),
+    z.meta({ description: `[${current.replace(/^an? /, '')}, seconds] pairs, current ascending, time descending` }),
   );
 }
 
@@ -52,7 +50,7 @@ export function zodPointTableSchema({ current, unit }: PointTableOptions) {
  * is zod's. A study holds thousands of tables (every fuse and breaker has two), and this reading was
  * most of the time spent checking a study's devices.
  */
-function withPlainPath<T extends z.ZodArray>(schema: T): T {
+function withPlainPath<T extends z.ZodMiniArray>(schema: T): T {
   let read = schema._zod.parse;
   const readPlain: typeof read = (payload, ctx) => {
     const points = payload.value;
@@ -62,8 +60,9 @@ function withPlainPath<T extends z.ZodArray>(schema: T): T {
       return payload;
     }
     const result = read(payload, ctx);
-    // zod's reader may put another in its place on its first use (it removes a guard against cycles
-    // that this schema cannot have): take that one as zod's reading, and stay in front of it.
+    // zod's reader may put another in its place on its first use (a memoizer, which zod/mini installs
+    // only when configured, removes its guard against cycles that this schema cannot have): take that
+    // one as zod's reading, and stay in front of it.
     if (schema._zod.parse !== readPlain) {
       read = schema._zod.parse;
       schema._zod.parse = readPlain;

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { quoteGot } from '../errors.ts';
 import {
   boundedNumber,
@@ -34,109 +34,112 @@ export function createRelaySchema(frequency = 60) {
   const secondaryAmps = (description: string) =>
     quantityField('current', { min: 0, exclusiveMin: true, description: `${description} (secondary A)` });
   const ct = z
-    .union([
-      z.string(),
-      z
-        .object({
+    .pipe(
+      z.union([
+        z.string(),
+        z.strictObject({
           primary: quantityField('current', { min: 0, exclusiveMin: true }),
           secondary: quantityField('current', { min: 0, exclusiveMin: true }),
-        })
-        .strict(),
-    ])
-    .transform((value, ctx) => {
-      if (typeof value !== 'string') return value;
-      const match = RATIO.exec(value);
-      const sides = match ? [Number(match[1]), Number(match[2])] : [];
-      if (!match || sides.some((amps) => !(amps > 0) || outsidePhysicalRange(amps, 'current'))) {
-        ctx.addIssue({
-          code: 'custom',
-          message: `expected a CT ratio such as "600:5", each side a current between ${PHYSICAL_RANGES.current.smallest} A and ${PHYSICAL_RANGES.current.largest} A, got ${quoteGot(value)}`,
-        });
-        return z.NEVER;
-      }
-      return { primary: sides[0], secondary: sides[1] };
-    })
-    .meta({ description: 'CT ratio: "600:5" or { primary, secondary } in amperes' });
+        }),
+      ]),
+      z.transform((value, ctx) => {
+        if (typeof value !== 'string') return value;
+        const match = RATIO.exec(value);
+        const sides = match ? [Number(match[1]), Number(match[2])] : [];
+        if (!match || sides.some((amps) => !(amps > 0) || outsidePhysicalRange(amps, 'current'))) {
+          ctx.issues.push({
+            code: 'custom',
+            message: `expected a CT ratio such as "600:5", each side a current between ${PHYSICAL_RANGES.current.smallest} A and ${PHYSICAL_RANGES.current.largest} A, got ${quoteGot(value)}`,
+            input: value,
+          });
+          return z.NEVER;
+        }
+        return { primary: sides[0], secondary: sides[1] };
+      }),
+    )
+    .check(z.meta({ description: 'CT ratio: "600:5" or { primary, secondary } in amperes' }));
 
   const timeOvercurrent = z
-    .object({
+    .strictObject({
       curve: z.enum(RELAY_CURVES),
       pickup: secondaryAmps('pickup (tap)'),
-      timeDial: boundedNumber(0.01, 100, 'time dial of an IEEE curve', 'relays offer about 0.05 to 15').optional(),
-      timeMultiplier: boundedNumber(
-        0.001,
-        100,
-        'time multiplier of an IEC curve',
-        'relays offer about 0.025 to 3.2',
-      ).optional(),
-      delay: time('delay of a definite-time element').optional(),
+      timeDial: z.optional(boundedNumber(0.01, 100, 'time dial of an IEEE curve', 'relays offer about 0.05 to 15')),
+      timeMultiplier: z.optional(
+        boundedNumber(0.001, 100, 'time multiplier of an IEC curve', 'relays offer about 0.025 to 3.2'),
+      ),
+      delay: z.optional(time('delay of a definite-time element')),
       definiteTimeFrom: z
-        .number()
-        .gt(1)
-        .max(1000)
-        .optional()
-        .meta({ description: 'multiple of pickup above which the time is held (IEC G_D; common practice 20)' }),
+        .optional(z.number().check(z.gt(1), z.maximum(1000)))
+        .check(
+          z.meta({ description: 'multiple of pickup above which the time is held (IEC G_D; common practice 20)' }),
+        ),
     })
-    .strict()
-    .superRefine((element, ctx) => {
-      const family = element.curve === 'definite-time' ? 'definite' : element.curve.slice(0, 4);
-      const wanted = { ieee: 'timeDial', 'iec-': 'timeMultiplier', definite: 'delay' }[family] as keyof typeof element;
-      const words = { timeDial: 'a time dial', timeMultiplier: 'a time multiplier', delay: 'a delay' };
-      for (const field of ['timeDial', 'timeMultiplier', 'delay'] as const) {
-        if (field === wanted && element[field] === undefined) {
+    .check(
+      z.superRefine((element, ctx) => {
+        const family = element.curve === 'definite-time' ? 'definite' : element.curve.slice(0, 4);
+        const wanted = { ieee: 'timeDial', 'iec-': 'timeMultiplier', definite: 'delay' }[
+          family
+        ] as keyof typeof element;
+        const words = { timeDial: 'a time dial', timeMultiplier: 'a time multiplier', delay: 'a delay' };
+        for (const field of ['timeDial', 'timeMultiplier', 'delay'] as const) {
+          if (field === wanted && element[field] === undefined) {
+            ctx.addIssue({
+              code: 'custom',
+              path: [field],
+              message: `expected ${words[field]} for curve "${element.curve}", got nothing`,
+            });
+          } else if (field !== wanted && element[field] !== undefined) {
+            ctx.addIssue({
+              code: 'custom',
+              path: [field],
+              message: `expected no ${field} with curve "${element.curve}" (it takes ${String(wanted)}), got "${element[field]}"`,
+            });
+          }
+        }
+        if (family === 'definite' && element.definiteTimeFrom !== undefined) {
           ctx.addIssue({
             code: 'custom',
-            path: [field],
-            message: `expected ${words[field]} for curve "${element.curve}", got nothing`,
-          });
-        } else if (field !== wanted && element[field] !== undefined) {
-          ctx.addIssue({
-            code: 'custom',
-            path: [field],
-            message: `expected no ${field} with curve "${element.curve}" (it takes ${String(wanted)}), got "${element[field]}"`,
+            path: ['definiteTimeFrom'],
+            message: `expected no definiteTimeFrom on a definite-time curve, got "${element.definiteTimeFrom}"`,
           });
         }
-      }
-      if (family === 'definite' && element.definiteTimeFrom !== undefined) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['definiteTimeFrom'],
-          message: `expected no definiteTimeFrom on a definite-time curve, got "${element.definiteTimeFrom}"`,
-        });
-      }
-    });
+      }),
+    );
 
   return z
-    .object({
+    .strictObject({
       kind: z.literal('relay'),
-      label: nameField.optional(),
+      label: z.optional(nameField),
       ct,
-      timeOvercurrent: timeOvercurrent.optional(),
-      instantaneous: z
-        .object({ pickup: secondaryAmps('instantaneous pickup'), delay: time('intentional delay').default(0) })
-        .strict()
-        .optional(),
-      operatingTime: time('fastest relay operating time; every element is floored to it').prefault('1 cycle'),
-      breakerTime: time('breaker interrupting time, added to the clearing edge').prefault('5 cycles'),
-      tolerance: z
-        .object({
-          pickup: percentField({ min: 0, max: 50, description: 'pickup tolerance ± %' }).default(0),
-          time: percentField({ min: 0, max: 50, description: 'operating time tolerance ± %' }).default(0),
-        })
-        .strict()
-        .prefault({}),
+      timeOvercurrent: z.optional(timeOvercurrent),
+      instantaneous: z.optional(
+        z.strictObject({
+          pickup: secondaryAmps('instantaneous pickup'),
+          delay: z._default(time('intentional delay'), 0),
+        }),
+      ),
+      operatingTime: z.prefault(time('fastest relay operating time; every element is floored to it'), '1 cycle'),
+      breakerTime: z.prefault(time('breaker interrupting time, added to the clearing edge'), '5 cycles'),
+      tolerance: z.prefault(
+        z.strictObject({
+          pickup: z._default(percentField({ min: 0, max: 50, description: 'pickup tolerance ± %' }), 0),
+          time: z._default(percentField({ min: 0, max: 50, description: 'operating time tolerance ± %' }), 0),
+        }),
+        {},
+      ),
     })
-    .strict()
-    .superRefine((relay, ctx) => {
-      if (!relay.timeOvercurrent && !relay.instantaneous) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['timeOvercurrent'],
-          message: 'expected a timeOvercurrent or an instantaneous element, got neither',
-        });
-      }
-    })
-    .meta({ description: 'protective relay with CT and breaker' });
+    .check(
+      z.superRefine((relay, ctx) => {
+        if (!relay.timeOvercurrent && !relay.instantaneous) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['timeOvercurrent'],
+            message: 'expected a timeOvercurrent or an instantaneous element, got neither',
+          });
+        }
+      }),
+      z.meta({ description: 'protective relay with CT and breaker' }),
+    );
 }
 
 /** Schema of a relay characteristic at 60 Hz (see `createRelaySchema`). */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
 import { isValidTable } from './pointTable.ts';
 import { pointTableSchema, upperBelowLowerOnce } from './pointTableSchema.ts';
@@ -20,15 +20,16 @@ const multiplesTable = pointTableSchema({ current: 'a multiple of the rating', u
 export function createThermalMagneticSchema(frequency = 60) {
   const time = (description: string) => quantityField('time', { frequency, min: 0, description });
   return z
-    .object({
+    .strictObject({
       kind: z.literal('thermal-magnetic'),
-      label: nameField.optional(),
-      illustrative: z.boolean().default(false).meta({ description: 'invented curve data, not a product' }),
+      label: z.optional(nameField),
+      // A default is described by registering it (see createStudySchema).
+      illustrative: z
+        ._default(z.boolean(), false)
+        .register(z.globalRegistry, { description: 'invented curve data, not a product' }),
       rating: quantityField('current', { min: 0, exclusiveMin: true, description: 'breaker rating (A)' }),
-      thermal: z
-        .object({ minimum: multiplesTable, maximum: multiplesTable })
-        .strict()
-        .superRefine(({ minimum, maximum }, ctx) => {
+      thermal: z.strictObject({ minimum: multiplesTable, maximum: multiplesTable }).check(
+        z.superRefine(({ minimum, maximum }, ctx) => {
           if (!isValidTable(minimum) || !isValidTable(maximum)) return;
           const problem = upperBelowLowerOnce(minimum, maximum);
           if (problem) {
@@ -39,42 +40,50 @@ export function createThermalMagneticSchema(frequency = 60) {
             });
           }
         }),
+      ),
       magnetic: z
-        .object({
-          pickup: boundedNumber(0.5, 100, 'magnetic pickup × rating', 'breakers offer about 3 × to 20 ×').optional(),
-          pickupAmps: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+        .strictObject({
+          pickup: z.optional(boundedNumber(0.5, 100, 'magnetic pickup × rating', 'breakers offer about 3 × to 20 ×')),
+          pickupAmps: z.optional(quantityField('current', { min: 0, exclusiveMin: true })),
           range: z
-            .tuple([z.number().positive().max(1e7), z.number().positive().max(1e7)])
-            .optional()
-            .meta({ description: 'adjustable range [low, high] in the terms of the pickup; omit for a fixed trip' }),
-          tolerance: percentField({ min: 0, max: 90, description: 'pickup tolerance ± %' }).default(20),
+            .optional(
+              z.tuple([z.number().check(z.positive(), z.maximum(1e7)), z.number().check(z.positive(), z.maximum(1e7))]),
+            )
+            .check(
+              z.meta({
+                description: 'adjustable range [low, high] in the terms of the pickup; omit for a fixed trip',
+              }),
+            ),
+          tolerance: z._default(percentField({ min: 0, max: 90, description: 'pickup tolerance ± %' }), 20),
         })
-        .strict()
-        .superRefine((magnetic, ctx) => {
-          if ((magnetic.pickup === undefined) === (magnetic.pickupAmps === undefined)) {
-            ctx.addIssue({
-              code: 'custom',
-              path: ['pickup'],
-              message: `expected exactly one of pickup (× rating) or pickupAmps, got ${magnetic.pickup === undefined ? 'neither' : 'both'}`,
-            });
-          }
-        }),
-      openingTime: time('fastest magnetic operation').prefault('0.5 cycles'),
-      clearingTime: time('latest clearing at high current').prefault('1 cycle'),
-      currentLimiting: z.boolean().default(false),
-      currentLimitingFrom: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
+        .check(
+          z.superRefine((magnetic, ctx) => {
+            if ((magnetic.pickup === undefined) === (magnetic.pickupAmps === undefined)) {
+              ctx.addIssue({
+                code: 'custom',
+                path: ['pickup'],
+                message: `expected exactly one of pickup (× rating) or pickupAmps, got ${magnetic.pickup === undefined ? 'neither' : 'both'}`,
+              });
+            }
+          }),
+        ),
+      openingTime: z.prefault(time('fastest magnetic operation'), '0.5 cycles'),
+      clearingTime: z.prefault(time('latest clearing at high current'), '1 cycle'),
+      currentLimiting: z._default(z.boolean(), false),
+      currentLimitingFrom: z.optional(quantityField('current', { min: 0, exclusiveMin: true })),
     })
-    .strict()
-    .superRefine((breaker, ctx) => {
-      if (breaker.openingTime > breaker.clearingTime) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['openingTime'],
-          message: `expected an opening time no later than the clearing time ${breaker.clearingTime} s, got "${breaker.openingTime}"`,
-        });
-      }
-    })
-    .meta({ description: 'thermal-magnetic molded-case breaker' });
+    .check(
+      z.superRefine((breaker, ctx) => {
+        if (breaker.openingTime > breaker.clearingTime) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['openingTime'],
+            message: `expected an opening time no later than the clearing time ${breaker.clearingTime} s, got "${breaker.openingTime}"`,
+          });
+        }
+      }),
+      z.meta({ description: 'thermal-magnetic molded-case breaker' }),
+    );
 }
 
 /** Schema of a thermal-magnetic characteristic at 60 Hz (see `createThermalMagneticSchema`). */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
 
 /** How the long-time ramp meets the short-time function (see `createTripUnitSchema`). */
@@ -30,87 +30,80 @@ export function createTripUnitSchema(frequency = 60) {
   // Multiples of I_n or I_r: ground-fault pickups go down to about 0.2 ×, instantaneous up to about 15 ×.
   const multiple = (description: string) =>
     boundedNumber(0.05, 100, description, 'trip units offer about 0.2 × to 15 ×');
-  const percent = (description: string, value: number) => percentField({ min: 0, max: 90, description }).default(value);
+  const percent = (description: string, value: number) =>
+    z._default(percentField({ min: 0, max: 90, description }), value);
   const delayed = (pickup: string, through: string, throughDefault: number) =>
-    z
-      .object({
-        pickup: multiple(pickup),
-        delay: time('band time (s) of the flat part'),
-        i2t: z.boolean().default(false).meta({ description: 'I²t in (ramp) rather than flat' }),
-        i2tThrough: multiple(through).default(throughDefault),
-      })
-      .strict();
+    z.strictObject({
+      pickup: multiple(pickup),
+      delay: time('band time (s) of the flat part'),
+      // A default is described by registering it (see createStudySchema).
+      i2t: z._default(z.boolean(), false).register(z.globalRegistry, { description: 'I²t in (ramp) rather than flat' }),
+      i2tThrough: z._default(multiple(through), throughDefault),
+    });
 
   return z
-    .object({
+    .strictObject({
       kind: z.literal('trip-unit'),
-      label: nameField.optional(),
+      label: z.optional(nameField),
       sensor: quantityField('current', { min: 0, exclusiveMin: true, description: 'sensor or rating-plug amps I_n' }),
-      longTime: z
-        .object({
-          pickup: multiple('long-time pickup × I_n (usual 0.4–1.0)'),
-          delay: quantityField('time', {
-            frequency,
-            min: 0,
-            exclusiveMin: true,
-            description: 'band time at delayAt × I_r',
-          }),
-          delayAt: multiple('multiple of I_r where the delay is read').default(6),
-        })
-        .strict(),
-      shortTime: delayed('short-time pickup × I_r (usual 1.5–10)', 'I²t reference × I_r', 10).optional(),
-      instantaneous: z
-        .object({ pickup: multiple('instantaneous pickup × I_n (usual 2–15)') })
-        .strict()
-        .optional(),
-      ground: delayed('ground-fault pickup × I_n (usual 0.2–1.0)', 'I²t reference × I_n', 1).optional(),
-      tolerance: z
-        .object({
+      longTime: z.strictObject({
+        pickup: multiple('long-time pickup × I_n (usual 0.4–1.0)'),
+        delay: quantityField('time', {
+          frequency,
+          min: 0,
+          exclusiveMin: true,
+          description: 'band time at delayAt × I_r',
+        }),
+        delayAt: z._default(multiple('multiple of I_r where the delay is read'), 6),
+      }),
+      shortTime: z.optional(delayed('short-time pickup × I_r (usual 1.5–10)', 'I²t reference × I_r', 10)),
+      instantaneous: z.optional(z.strictObject({ pickup: multiple('instantaneous pickup × I_n (usual 2–15)') })),
+      ground: z.optional(delayed('ground-fault pickup × I_n (usual 0.2–1.0)', 'I²t reference × I_n', 1)),
+      tolerance: z.prefault(
+        z.strictObject({
           pickup: percent('pickup tolerance ± %', 10),
           groundPickup: percent('ground-fault pickup tolerance ± %', 10),
           longTimeBelow: percent('long-time time band below the setting, %', 10),
           longTimeAbove: percent('long-time time band above the setting, %', 20),
-          shortTimeBelow: time('short-time and ground band below the set delay (s)').default(0),
-          shortTimeAbove: time('short-time and ground band above the set delay (s)').default(0.05),
-        })
-        .strict()
-        .prefault({}),
-      openingTime: time('fastest operation at high current').prefault('0.5 cycles'),
-      clearingTime: time('latest clearing at high current').prefault('3 cycles'),
-      currentLimiting: z.boolean().default(false),
-      currentLimitingFrom: quantityField('current', { min: 0, exclusiveMin: true }).optional(),
-      longTimeRamp: z
-        .enum(LONG_TIME_RAMPS)
-        .default('independent')
-        .meta({
-          description:
-            'independent: every function acts on its own and the first to act trips the breaker; ' +
-            "ends-at-short-time-pickup: the long-time ramp hands over to the short-time function at its pickup, as some trip units' published curves show",
+          shortTimeBelow: z._default(time('short-time and ground band below the set delay (s)'), 0),
+          shortTimeAbove: z._default(time('short-time and ground band above the set delay (s)'), 0.05),
         }),
+        {},
+      ),
+      openingTime: z.prefault(time('fastest operation at high current'), '0.5 cycles'),
+      clearingTime: z.prefault(time('latest clearing at high current'), '3 cycles'),
+      currentLimiting: z._default(z.boolean(), false),
+      currentLimitingFrom: z.optional(quantityField('current', { min: 0, exclusiveMin: true })),
+      longTimeRamp: z._default(z.enum(LONG_TIME_RAMPS), 'independent').register(z.globalRegistry, {
+        description:
+          'independent: every function acts on its own and the first to act trips the breaker; ' +
+          "ends-at-short-time-pickup: the long-time ramp hands over to the short-time function at its pickup, as some trip units' published curves show",
+      }),
     })
-    .strict()
-    .superRefine((unit, ctx) => {
-      if (unit.openingTime > unit.clearingTime) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['openingTime'],
-          message: `expected an opening time no later than the clearing time ${unit.clearingTime} s, got "${unit.openingTime}"`,
-        });
-      }
-      for (const element of ['shortTime', 'ground'] as const) {
-        const delay = unit[element]?.delay;
-        if (delay !== undefined && delay - unit.tolerance.shortTimeBelow <= 0) {
+    .check(
+      z.superRefine((unit, ctx) => {
+        if (unit.openingTime > unit.clearingTime) {
           ctx.addIssue({
             code: 'custom',
-            path: [element, 'delay'],
-            message: `expected a delay greater than the band's ${unit.tolerance.shortTimeBelow} s below it, got "${delay}"`,
+            path: ['openingTime'],
+            message: `expected an opening time no later than the clearing time ${unit.clearingTime} s, got "${unit.openingTime}"`,
           });
         }
-      }
-    })
-    .meta({
-      description: 'electronic trip unit of a low-voltage breaker (long-time, short-time, instantaneous, ground)',
-    });
+        for (const element of ['shortTime', 'ground'] as const) {
+          const delay = unit[element]?.delay;
+          if (delay !== undefined && delay - unit.tolerance.shortTimeBelow <= 0) {
+            ctx.addIssue({
+              code: 'custom',
+              path: [element, 'delay'],
+              message: `expected a delay greater than the band's ${unit.tolerance.shortTimeBelow} s below it, got "${delay}"`,
+            });
+          }
+        }
+      }),
+      z.meta({
+        description: 'electronic trip unit of a low-voltage breaker (long-time, short-time, instantaneous, ground)',
+      }),
+    );
 }
 
 /** Schema of a trip-unit characteristic at 60 Hz (see `createTripUnitSchema`). */

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { parsePercent, parseQuantity, type Dimension } from '../quantity/index.ts';
 import { quoteGot } from '../errors.ts';
 import { NOT_PLAIN, withPlainReading, type PlainReader } from './plainReading.ts';
@@ -104,12 +104,11 @@ export function quantityField(dimension: Dimension, options: QuantityFieldOption
     return problem ? `expected a ${dimension} ${problem}, got ${quoteGot(value)}` : parsed;
   };
   return withPlainReading(
-    z
-      .union([z.number(), z.string()])
-      .transform(reportedBy(read))
-      .meta({
+    z.pipe(z.union([z.number(), z.string()]), z.transform(reportedBy(read))).check(
+      z.meta({
         description: `${description ?? `${dimension}: a number in ${plainUnit ?? 'SI units'} or text with a unit`}; range: ${PHYSICAL_RANGES[dimension].why}`,
       }),
+    ),
     plainReadingOf(read),
   );
 }
@@ -119,10 +118,10 @@ export function quantityField(dimension: Dimension, options: QuantityFieldOption
  * what is wrong), so that zod's reading and the plain one (`plainReadingOf`) are the same function.
  */
 function reportedBy<T>(read: (value: number | string) => T | string) {
-  return (value: number | string, ctx: z.RefinementCtx): T => {
+  return (value: number | string, ctx: z.core.ParsePayload): T => {
     const parsed = read(value);
     if (typeof parsed !== 'string') return parsed;
-    ctx.addIssue({ code: 'custom', message: parsed, input: value });
+    ctx.issues.push({ code: 'custom', message: parsed, input: value });
     return z.NEVER;
   };
 }
@@ -174,19 +173,18 @@ export function percentField(limits: FieldLimits & { description?: string } = {}
     return problem ? `expected a percentage ${problem}, got ${quoteGot(value)}` : parsed;
   };
   return withPlainReading(
-    z
-      .union([z.number(), z.string()])
-      .transform(reportedBy(read))
-      .meta({
+    z.pipe(z.union([z.number(), z.string()]), z.transform(reportedBy(read))).check(
+      z.meta({
         description: `${description ?? 'percentage: a number or text such as "5.75 %"'}; range: ${rest.min ?? 0} % to ${rest.max} %`,
       }),
+    ),
     plainReadingOf(read),
   );
 }
 
 /** A plain positive number (ratios, multiples, time dials). */
 export function positiveNumber(description?: string) {
-  return z.number().positive().meta({ description });
+  return z.number().check(z.positive(), z.meta({ description }));
 }
 
 /**
@@ -198,9 +196,7 @@ export function positiveNumber(description?: string) {
 export function boundedNumber(min: number, max: number, description: string, why: string) {
   return z
     .number()
-    .min(min)
-    .max(max)
-    .meta({ description: `${description}; range: ${min} to ${max}, ${why}` });
+    .check(z.minimum(min), z.maximum(max), z.meta({ description: `${description}; range: ${min} to ${max}, ${why}` }));
 }
 
 /** Why an X/R ratio lies in 0.1–1000: from nearly resistive circuits to the stiffest sources (published values stay below about 100). */
@@ -238,16 +234,16 @@ export const MAX_NOTES = 10_000;
  * @example axisRangeField('A', 1e-3, 1e7).parse([10, 100000]) // [10, 100000]
  */
 export function axisRangeField(unit: string, smallest: number, largest: number, why: string) {
-  const end = z.number().min(smallest).max(largest);
-  return z
-    .tuple([end, end])
-    .superRefine(([low, high], ctx) => {
+  const end = z.number().check(z.minimum(smallest), z.maximum(largest));
+  return z.tuple([end, end]).check(
+    z.superRefine(([low, high], ctx) => {
       if (!(high > low))
         ctx.addIssue({ code: 'custom', path: [1], message: `expected a value above ${low} ${unit}, got "${high}"` });
-    })
-    .meta({
+    }),
+    z.meta({
       description: `[low, high] in ${unit}, low below high; each from ${smallest} to ${largest} ${unit}, ${why}`,
-    });
+    }),
+  );
 }
 
 /**
@@ -259,18 +255,18 @@ export function axisRangeField(unit: string, smallest: number, largest: number, 
  */
 export function textField(max: number, description: string, { multiline = false } = {}) {
   const forbidden = multiline ? FORBIDDEN_IN_NOTES : FORBIDDEN_IN_NAMES;
-  return z
-    .string()
-    .max(max)
-    .superRefine((text, ctx) => {
+  return z.string().check(
+    z.maxLength(max),
+    z.superRefine((text, ctx) => {
       if (!forbidden.test(text)) return;
       const allowed = multiline ? ' (other than tab and line breaks)' : '';
       ctx.addIssue({
         code: 'custom',
         message: `expected text without control characters${allowed} or U+FFFE/U+FFFF, got ${quoteGot(text)}`,
       });
-    })
-    .meta({ description: `${description}; at most ${max} characters, no control characters` });
+    }),
+    z.meta({ description: `${description}; at most ${max} characters, no control characters` }),
+  );
 }
 
 /** C0 and C1 controls, and the non-characters U+FFFE/U+FFFF (invalid in XML 1.0). */
@@ -288,8 +284,10 @@ export const notesField = textField(MAX_NOTES, 'free text', { multiline: true })
 /** Element ids: short, unique across the study, usable in file names and flags. */
 export const idField = z
   .string()
-  .regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'expected an id of letters, digits, ".", "_" or "-"')
-  .meta({ description: 'identifier, unique in the study' });
+  .check(
+    z.regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'expected an id of letters, digits, ".", "_" or "-"'),
+    z.meta({ description: 'identifier, unique in the study' }),
+  );
 
 /**
  * Whether a number other than 0 lies outside its dimension's physical range (`PHYSICAL_RANGES`), for
@@ -322,24 +320,28 @@ function limitProblem(value: number, { min, exclusiveMin = false, max }: FieldLi
  * @example availableFaultField.parse('250 MVA') // { va: 250e6 }
  */
 export const availableFaultField = z
-  .union([z.number(), z.string()])
-  .transform((value, ctx): { va: number; amps?: undefined } | { amps: number; va?: undefined } => {
-    const expected = `an available fault such as "250 MVA" or "11.6 kA" greater than 0 (a power between ${physicalRangeText('power')}, or a current between ${physicalRangeText('current')})`;
-    for (const [dimension, plainUnit] of [
-      ['power', 'MVA'],
-      ['current', 'A'],
-    ] as const) {
-      try {
-        const parsed = parseQuantity(value, dimension, { plainUnit });
-        if (!(parsed > 0) || physicalProblem(parsed, dimension)) break;
-        return dimension === 'power' ? { va: parsed } : { amps: parsed };
-      } catch {
-        // not this dimension; try the next
+  .pipe(
+    z.union([z.number(), z.string()]),
+    z.transform((value, ctx): { va: number; amps?: undefined } | { amps: number; va?: undefined } => {
+      const expected = `an available fault such as "250 MVA" or "11.6 kA" greater than 0 (a power between ${physicalRangeText('power')}, or a current between ${physicalRangeText('current')})`;
+      for (const [dimension, plainUnit] of [
+        ['power', 'MVA'],
+        ['current', 'A'],
+      ] as const) {
+        try {
+          const parsed = parseQuantity(value, dimension, { plainUnit });
+          if (!(parsed > 0) || physicalProblem(parsed, dimension)) break;
+          return dimension === 'power' ? { va: parsed } : { amps: parsed };
+        } catch {
+          // not this dimension; try the next
+        }
       }
-    }
-    ctx.addIssue({ code: 'custom', message: `expected ${expected}, got ${quoteGot(value)}` });
-    return z.NEVER;
-  })
-  .meta({
-    description: `available three-phase fault: "250 MVA" (a bare number is MVA) or "11.6 kA"; range: ${PHYSICAL_RANGES.power.why}; ${PHYSICAL_RANGES.current.why}`,
-  });
+      ctx.issues.push({ code: 'custom', message: `expected ${expected}, got ${quoteGot(value)}`, input: value });
+      return z.NEVER;
+    }),
+  )
+  .check(
+    z.meta({
+      description: `available three-phase fault: "250 MVA" (a bare number is MVA) or "11.6 kA"; range: ${PHYSICAL_RANGES.power.why}; ${PHYSICAL_RANGES.current.why}`,
+    }),
+  );

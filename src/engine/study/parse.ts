@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import type { z } from 'zod/mini';
 import { InputError, quoteGot } from '../errors.ts';
 import { formatIssuePath, issueMessage } from './issueMessage.ts';
 import { fieldNamesIn, jsonTextProblem, MAX_NESTING, withoutBom } from './jsonText.ts';

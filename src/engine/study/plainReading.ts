@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import type { z } from 'zod/mini';
 import { sameContent } from '../sameContent.ts';
 
 /** What a plain reader returns when zod must read the value itself (to name a problem, or a form it does not take). */
@@ -31,10 +31,10 @@ export function plainReaderOf(schema: z.core.$ZodType): PlainReader {
 }
 
 /**
- * Gives the part of a schema that a transform reads (a field helper's `union(...).transform(...)`)
+ * Gives the part of a schema that a transform reads (a field helper's `z.pipe(z.union(…), z.transform(…))`)
  * its plain reading: `read` must return exactly what the transform would for a value the schema
- * accepts, and `NOT_PLAIN` for any other. The schema's copies (`.meta()`, `.describe()`, or with checks
- * added) share it, and a copy runs its own checks after it.
+ * accepts, and `NOT_PLAIN` for any other. A copy of the schema with checks added
+ * (`schema.check(z.meta(…))`) shares it, and runs its own checks after it.
  *
  * @example withPlainReading(quantity, (value) => (typeof value === 'number' ? value * 1000 : NOT_PLAIN))
  */
@@ -237,13 +237,13 @@ interface FieldReading {
   read: PlainReader;
   /** The schema's input may be absent (`optin`: "optional" or "defaulted"). */
   optin: 'optional' | 'defaulted' | undefined;
-  /** The schema's output may be absent (`.optional()` outside). */
+  /** The schema's output may be absent (`z.optional(…)` outside). */
   optionalOut: boolean;
 }
 
 function objectReader(def: z.core.$ZodObjectDef): PlainReader | undefined {
   const catchall = def.catchall?._zod.def.type;
-  // Unknown keys are dropped (no catchall) or refused (`.strict()`); any other catchall is zod's.
+  // Unknown keys are dropped (no catchall) or refused (`z.strictObject`); any other catchall is zod's.
   if (catchall !== undefined && catchall !== 'never') return undefined;
   const shape = def.shape as Record<string, z.core.$ZodType>;
   if (Object.getOwnPropertySymbols(shape).length > 0) return undefined;

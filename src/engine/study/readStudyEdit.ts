@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import type { z } from 'zod/mini';
 import {
   describeIssue,
   documentProblemAt,
@@ -57,7 +57,7 @@ export function readStudyEdit(previous: EditableReading, next: unknown): Editabl
   const accepted = previous.accepted;
   if (!accepted || !isRecord(next) || !sameKeys(accepted.document, next)) return readEditableStudy(next);
   if (next.frequency !== accepted.document.frequency) return readEditableStudy(next);
-  const shape = studySchemaFor(next.frequency).shape as Record<string, z.ZodType>;
+  const shape = studySchemaFor(next.frequency).shape as Record<string, z.ZodMiniType>;
   const before = accepted.document;
 
   // Numbers out of range and absurd nesting, first in document order, as the whole walk finds them:
@@ -147,8 +147,8 @@ function firstOf<T>(indexes: readonly number[], find: (i: number) => T | undefin
 }
 
 // Accepts a field's schema; the item schema of a list field (through a default), else undefined.
-function listItemSchemaOf(schema: z.ZodType): z.ZodType | undefined {
-  let def = schema._zod.def as { type: string; innerType?: z.ZodType; element?: z.ZodType };
+function listItemSchemaOf(schema: z.ZodMiniType): z.ZodMiniType | undefined {
+  let def = schema._zod.def as { type: string; innerType?: z.ZodMiniType; element?: z.ZodMiniType };
   if (def.type === 'default' && def.innerType) def = def.innerType._zod.def as typeof def;
   return def.type === 'array' ? def.element : undefined;
 }

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import fastActing from '../../../curves/fuse-illustrative-fast-acting.json' with { type: 'json' };
 import mvPower from '../../../curves/fuse-illustrative-mv-power.json' with { type: 'json' };
 import timeDelay from '../../../curves/fuse-illustrative-time-delay.json' with { type: 'json' };
@@ -7,44 +7,46 @@ import thermalMagnetic from '../../../curves/thermal-magnetic-illustrative.json'
 import tripUnits from '../../../curves/trip-unit-templates.json' with { type: 'json' };
 import { characteristicSchema, DEVICE_KINDS } from '../devices/characteristic.ts';
 import { idField } from '../study/fields.ts';
+import { issueMessage } from '../study/issueMessage.ts';
 
 /**
  * Schema of a template file in `curves/`: the family (a device `kind`), a note shown with every
  * template, and the templates, each a characteristic of that family a user picks and then adjusts.
  */
 export const curveTemplateFileSchema = z
-  .object({
+  .strictObject({
     family: z.enum(DEVICE_KINDS),
-    note: z.string().min(1),
+    note: z.string().check(z.minLength(1)),
     templates: z
       .array(
-        z
-          .object({
-            id: idField,
-            label: z.string().min(1),
-            note: z.string().optional(),
-            rating: z.string().optional().meta({
+        z.strictObject({
+          id: idField,
+          label: z.string().check(z.minLength(1)),
+          note: z.optional(z.string()),
+          rating: z.optional(z.string()).check(
+            z.meta({
               description:
                 'the device ampere rating a device made from the template gets, as a study writes it ("65 A")',
             }),
-            characteristic: characteristicSchema,
-          })
-          .strict(),
+          ),
+          characteristic: characteristicSchema,
+        }),
       )
-      .min(1),
+      .check(z.minLength(1)),
   })
-  .strict()
-  .superRefine((file, ctx) => {
-    file.templates.forEach((template, i) => {
-      if (template.characteristic.kind !== file.family) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['templates', i, 'characteristic', 'kind'],
-          message: `expected "${file.family}" like the file's family, got "${template.characteristic.kind}"`,
-        });
-      }
-    });
-  });
+  .check(
+    z.superRefine((file, ctx) => {
+      file.templates.forEach((template, i) => {
+        if (template.characteristic.kind !== file.family) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['templates', i, 'characteristic', 'kind'],
+            message: `expected "${file.family}" like the file's family, got "${template.characteristic.kind}"`,
+          });
+        }
+      });
+    }),
+  );
 
 /** A template a user picks from: id, label, family, a note and the parsed characteristic (SI units). */
 export interface CurveTemplate {
@@ -73,10 +75,11 @@ export const TEMPLATE_FILES: Record<string, unknown> = {
  */
 export function readCurveTemplates(files: Record<string, unknown>): CurveTemplate[] {
   return Object.entries(files).flatMap(([name, data]) => {
-    const parsed = curveTemplateFileSchema.safeParse(data);
+    const parsed = curveTemplateFileSchema.safeParse(data, { reportInput: true });
     if (!parsed.success) {
+      // In the words of a study problem: zod/mini loads no locale, so its own message is "Invalid input".
       const issue = parsed.error.issues[0];
-      throw new RangeError(`curves/${name}: ${issue.path.join('.')}: ${issue.message}`);
+      throw new RangeError(`curves/${name}: ${issue.path.join('.')}: ${issueMessage(issue)}`);
     }
     const { family, note, templates } = parsed.data;
     return templates.map(({ id, label, note: own, characteristic }) => ({

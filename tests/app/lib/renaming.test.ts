@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { readdirSync, readFileSync } from 'node:fs';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { ELEMENT_ID_PLACES, idAfterStep, idEditOf, isId, withIdRenamed } from '../../../src/app/lib/renaming.ts';
 import { STUDY_JSON_SCHEMA, type SchemaNode } from '../../../src/app/lib/fieldInfo.ts';
 import { idField, readStudy, type StudyInput } from '../../../src/engine/study/index.ts';

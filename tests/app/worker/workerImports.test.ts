@@ -61,6 +61,7 @@ describe.each(WORKERS)('$name', ({ entry, loads }) => {
   it('loads no unit parser and no schema', () => {
     expect(importersOf('mathjs')).toEqual([]);
     // Only the setting that keeps any schema from compiling code (the page's policy forbids it).
-    expect(importersOf('zod')).toEqual(['src/app/lib/jitlessSchemas.ts']);
+    expect(importersOf('zod/mini')).toEqual(['src/app/lib/jitlessSchemas.ts']);
+    expect(importersOf('zod')).toEqual([]);
   });
 });

@@ -1,6 +1,6 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { radialStudy } from '../../../bench/radialStudy.ts';
 import { characteristicSchema, createCharacteristicSchema } from '../../../src/engine/devices/characteristic.ts';
 import { quantityField, textField } from '../../../src/engine/study/fields.ts';
@@ -87,22 +87,20 @@ describe('plain reading of fields', () => {
   });
 
   it('fills defaults and prefaults and leaves out absent optional fields, as zod does', () => {
-    const schema = z
-      .object({
-        required: z.number().min(1),
-        optional: z.number().optional(),
-        defaulted: z.enum(['a', 'b']).default('a'),
-        optionalDefault: z.number().default(3).optional(),
-        list: z.array(z.number().max(10)).default([]),
-        // A prefault is read as if given: "3 cycles" becomes 0.05 s.
-        prefaulted: quantityField('time').prefault('3 cycles'),
-        // Absent allowed, but a value kept only when there is one (an optional input, no optional output).
-        piped: z
-          .number()
-          .optional()
-          .transform((value) => value),
-      })
-      .strict();
+    const schema = z.strictObject({
+      required: z.number().check(z.minimum(1)),
+      optional: z.optional(z.number()),
+      defaulted: z._default(z.enum(['a', 'b']), 'a'),
+      optionalDefault: z.optional(z._default(z.number(), 3)),
+      list: z._default(z.array(z.number().check(z.maximum(10))), []),
+      // A prefault is read as if given: "3 cycles" becomes 0.05 s.
+      prefaulted: z.prefault(quantityField('time'), '3 cycles'),
+      // Absent allowed, but a value kept only when there is one (an optional input, no optional output).
+      piped: z.pipe(
+        z.optional(z.number()),
+        z.transform((value) => value),
+      ),
+    });
     expect(expectSameReading(schema, { required: 2 })).toBe('plain');
     expect(plainReaderOf(schema)({ required: 2 })).toMatchObject({ prefaulted: 0.05 });
     expect(expectSameReading(schema, { required: 2, optional: 1, defaulted: 'b', list: [1, 2] })).toBe('plain');

@@ -5,7 +5,7 @@ import { createStudySchema } from '../../../src/engine/study/schema.ts';
 import { expectSameReading, hostileDocuments } from './sameReading.ts';
 
 // The page reads studies with zod's settings for the browser (no compiled parsers): the plain reading
-// must agree with zod's interpreted reading as it does with the compiled one (plainReading.test.ts).
+// must agree with zod's reading under them as it does under the defaults (plainReading.test.ts).
 describe('plain reading against zod without compiled parsers', () => {
   const schema = createStudySchema(60);
 

@@ -1,5 +1,5 @@
 import { expect } from 'vitest';
-import type { z } from 'zod';
+import type { z } from 'zod/mini';
 import { NOT_PLAIN, plainReaderOf } from '../../../src/engine/study/plainReading.ts';
 import { hostileStudies } from '../../fuzz/hostileStudies.ts';
 
@@ -9,7 +9,7 @@ import { hostileStudies } from '../../fuzz/hostileStudies.ts';
  *
  * @example expect(expectSameReading(studySchema, document)).toBe('plain')
  */
-export function expectSameReading(schema: z.ZodType, document: unknown): 'plain' | 'zod' {
+export function expectSameReading(schema: z.ZodMiniType, document: unknown): 'plain' | 'zod' {
   const plain = plainReaderOf(schema)(structuredClone(document));
   const read = schema.safeParse(structuredClone(document));
   if (plain === NOT_PLAIN) return 'zod';

@@ -10,7 +10,7 @@ type Input<K extends 'transformers' | 'cables' | 'motors'> = NonNullable<StudyIn
 
 /** A transformer as the study file would give it, parsed (units to SI, defaults filled). Inputs invented. */
 export function transformerOf(input: Partial<Input<'transformers'>> = {}): Transformer {
-  return studySchema.shape.transformers.unwrap().element.parse({
+  return studySchema.shape.transformers.def.innerType.def.element.parse({
     id: 'T1',
     from: 'HV',
     to: 'LV',
@@ -24,14 +24,19 @@ export function transformerOf(input: Partial<Input<'transformers'>> = {}): Trans
 
 /** A cable as the study file would give it, parsed. Inputs invented. */
 export function cableOf(input: Partial<Input<'cables'>> = {}): Cable {
-  return studySchema.shape.cables
-    .unwrap()
-    .element.parse({ id: 'C1', from: 'SWBD', to: 'MCC', size: '4/0', length: 100, ...input });
+  return studySchema.shape.cables.def.innerType.def.element.parse({
+    id: 'C1',
+    from: 'SWBD',
+    to: 'MCC',
+    size: '4/0',
+    length: 100,
+    ...input,
+  });
 }
 
 /** A motor as the study file would give it, parsed. Inputs invented. */
 export function motorOf(input: Partial<Input<'motors'>> = {}): Motor {
-  return studySchema.shape.motors.unwrap().element.parse({ id: 'M1', bus: 'MCC', hp: 100, ...input });
+  return studySchema.shape.motors.def.innerType.def.element.parse({ id: 'M1', bus: 'MCC', hp: 100, ...input });
 }
 
 /** The hand-worked IEEE C57.109 Category II case unit: 2500 kVA, 13.8 kV–480 V, 5.75 %Z, liquid-immersed, Category II (invented). */
