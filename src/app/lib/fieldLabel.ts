@@ -12,6 +12,7 @@ const TRADE_NAMES: Record<string, string> = {
   referenceVoltage: 'reference voltage',
   fullLoadAmps: 'full-load amps',
   lockedRotor: 'locked-rotor multiple',
+  codeLetter: 'locked-rotor code letter',
   accelerationTime: 'acceleration time',
   interruptingRating: 'interrupting rating',
   ctRatio: 'CT ratio',

@@ -319,44 +319,60 @@ export function createStudySchema(frequency = 60) {
       .check(z.meta({ description: 'zero-sequence R0 and X0, ohms per 1000 ft; default 3 × Z1 (common practice)' })),
   });
 
-  const motor = z.strictObject({
-    id: idField,
-    name: z.optional(nameField),
-    bus: idField,
-    hp: z.optional(
-      boundedNumber(
-        0.01,
-        200_000,
-        'rated horsepower (or give rating)',
-        'from fractional-horsepower motors to beyond the largest built (about 100 000 hp)',
+  const motor = z
+    .strictObject({
+      id: idField,
+      name: z.optional(nameField),
+      bus: idField,
+      hp: z.optional(
+        boundedNumber(
+          0.01,
+          200_000,
+          'rated horsepower (or give rating)',
+          'from fractional-horsepower motors to beyond the largest built (about 100 000 hp)',
+        ),
       ),
-    ),
-    rating: z.optional(quantityField('power', { plainUnit: 'kVA', min: 0, exclusiveMin: true })),
-    fullLoadAmps: z.optional(quantityField('current', { min: 0, exclusiveMin: true })),
-    phases: z._default(z.union([z.literal(1), z.literal(3)]), 3).register(z.globalRegistry, {
-      description: 'three-phase (NFPA 70 Table 430.250) or single-phase (Table 430.248) motor',
-    }),
-    contribution: z._default(
-      boundedNumber(
-        0.1,
-        20,
-        'first-cycle fault contribution as a multiple of FLA (common practice: 4)',
-        'no motor feeds a fault with more than its locked-rotor current',
+      rating: z.optional(quantityField('power', { plainUnit: 'kVA', min: 0, exclusiveMin: true })),
+      fullLoadAmps: z.optional(quantityField('current', { min: 0, exclusiveMin: true })),
+      phases: z._default(z.union([z.literal(1), z.literal(3)]), 3).register(z.globalRegistry, {
+        description: 'three-phase (NFPA 70 Table 430.250) or single-phase (Table 430.248) motor',
+      }),
+      contribution: z._default(
+        boundedNumber(
+          0.1,
+          20,
+          'first-cycle fault contribution as a multiple of FLA (common practice: 4)',
+          'no motor feeds a fault with more than its locked-rotor current',
+        ),
+        4,
       ),
-      4,
-    ),
-    lockedRotor: z._default(
-      boundedNumber(
-        1,
-        30,
-        'locked-rotor current as a multiple of FLA (common practice: 6)',
-        'NEMA code letters stop at about 22 kVA/hp, some 25 × FLA',
+      lockedRotor: z._default(
+        boundedNumber(
+          1,
+          30,
+          'locked-rotor current as a multiple of FLA (common practice: 6)',
+          'NEMA code letters stop at about 22 kVA/hp, some 25 × FLA',
+        ),
+        6,
       ),
-      6,
-    ),
-    accelerationTime: z._default(quantityField('time', { frequency, min: 0, exclusiveMin: true }), 5),
-    xr: z.optional(xrRatio('X/R ratio of the motor; omit for the default')),
-  });
+      // V has no upper value in the table, so its motors give their locked-rotor multiple instead.
+      codeLetter: z
+        .optional(z.enum(['A', 'B', 'C', 'D', 'E', 'F', 'G', 'H', 'J', 'K', 'L', 'M', 'N', 'P', 'R', 'S', 'T', 'U']))
+        .check(
+          z.meta({
+            description:
+              'locked-rotor code letter from the nameplate, A to U (NFPA 70 Table 430.7(B)); with hp, sets the locked-rotor current from the letter’s upper kVA per hp in place of lockedRotor',
+          }),
+        ),
+      accelerationTime: z._default(quantityField('time', { frequency, min: 0, exclusiveMin: true }), 5),
+      xr: z.optional(xrRatio('X/R ratio of the motor; omit for the default')),
+    })
+    .check(
+      z.refine((m) => m.codeLetter === undefined || m.hp !== undefined, {
+        message: 'expected the horsepower a code letter is read with (its kVA per hp)',
+        path: ['hp'],
+      }),
+    );
 
   const device = z.strictObject({
     id: idField,

@@ -28,11 +28,12 @@ export const LOCKED_ROTOR_KVA_PER_HP: Readonly<Record<string, readonly [number, 
 };
 
 /**
- * Locked-rotor current (A) of a three-phase motor from its code letter: `LRA = (kVA/hp) · hp · 1000 / (√3 · V)`,
- * using the letter's upper value (the maximum) unless `bound` is 'lower' (NEC 430.7(B), from memory).
- * Feed the result to `motorStartingOf` as `lockedRotorAmps`.
+ * Locked-rotor current (A) of a motor from its code letter: `LRA = (kVA/hp) · hp · 1000 / (√3 · V)` for a
+ * three-phase motor, `/ V` for a single-phase one, using the letter's upper value (the maximum) unless
+ * `bound` is 'lower' (NEC 430.7(B), from memory; the letters' values as public reproductions of NFPA 70
+ * Table 430.7(B) give them). A motor of the study with a `codeLetter` has its starting curve from it.
  *
- * @param volts line-to-line voltage (V).
+ * @param volts line-to-line voltage (V); for a single-phase motor, the voltage across it.
  * @example lockedRotorAmpsFromCode('G', 100, 460) // 789.46 A (hand-worked NFPA 70 Table 430.7(B) case)
  */
 export function lockedRotorAmpsFromCode(
@@ -40,6 +41,7 @@ export function lockedRotorAmpsFromCode(
   hp: number,
   volts: number,
   bound: 'upper' | 'lower' = 'upper',
+  phases: 1 | 3 = 3,
 ): number {
   const range = LOCKED_ROTOR_KVA_PER_HP[typeof letter === 'string' ? letter.trim().toUpperCase() : ''];
   if (!range) throw new InputError('codeLetter', expectedGot('an NEC 430.7(B) code letter A–V (no I, O or Q)', letter));
@@ -52,5 +54,5 @@ export function lockedRotorAmpsFromCode(
   }
   requireNumberAbove('hp', hp, 0, 'a horsepower');
   requireNumberAbove('volts', volts, 0, 'a voltage in V');
-  return (kvaPerHp * hp * 1000) / (Math.sqrt(3) * volts);
+  return (kvaPerHp * hp * 1000) / (phases === 3 ? Math.sqrt(3) * volts : volts);
 }

@@ -4,6 +4,7 @@ import { withLazyFields } from '../lazyText.ts';
 import { significant } from '../quantity/format.ts';
 import type { Motor } from '../study/index.ts';
 import { elementPath, requireNumberAbove } from './inputs.ts';
+import { LOCKED_ROTOR_KVA_PER_HP, lockedRotorAmpsFromCode } from './lockedRotorCode.ts';
 import type { Marker, StartingCurve } from './withstand.ts';
 
 /** Times of the starting curve (s): the asymmetrical current from one half-cycle to 0.1 s, FLA up to 1000 s (common practice). */
@@ -15,7 +16,7 @@ export interface MotorStartingOptions {
   serviceFactor?: number;
   /** First-half-cycle asymmetrical current as a multiple of LRA (common practice 1.5–1.7). @default 1.6; range ≥ 1 */
   asymmetryFactor?: number;
-  /** Locked-rotor current (A), e.g. from `lockedRotorAmpsFromCode`. @default motor.lockedRotor × FLA */
+  /** Locked-rotor current (A). @default from `motor.codeLetter` and its hp where given, else motor.lockedRotor × FLA */
   lockedRotorAmps?: number;
   /** Top of the FLA line (s). @default 1000 */
   longestSeconds?: number;
@@ -33,7 +34,8 @@ export interface MotorStarting {
 /**
  * A motor's starting curve at `volts` (common practice, as IEEE 3004.8 and IEEE 242 draw it), in the order of time:
  * the asymmetrical current `asymmetryFactor × LRA` from 0.01 s to 0.1 s, the locked-rotor current
- * `LRA = lockedRotor × FLA` from 0.1 s to the acceleration time, then `FLA × serviceFactor` up to 1000 s.
+ * `LRA = lockedRotor × FLA` (or from the motor's code letter and horsepower, NFPA 70 Table 430.7(B)) from 0.1 s
+ * to the acceleration time, then `FLA × serviceFactor` up to 1000 s.
  * FLA comes from `motorFullLoadOf` (nameplate, else kVA, else hp through NFPA 70 Table 430.250 or
  * 430.248), so the locked-rotor current follows the table too. The motor's device must stay
  * above and to the right of it.
@@ -77,9 +79,11 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
             (serviceFactor === 1
               ? ''
               : `; running current × service factor ${serviceFactor} = ${significant(runningAmps, 6)} A`),
-          options.lockedRotorAmps === undefined
-            ? `LRA = ${motor.lockedRotor} × FLA = ${lraText} (common practice without data: about 6 × FLA)`
-            : `LRA ${lraText} given`,
+          options.lockedRotorAmps !== undefined
+            ? `LRA ${lraText} given`
+            : motor.codeLetter !== undefined
+              ? `LRA ${lraText} from code letter ${motor.codeLetter}: ${LOCKED_ROTOR_KVA_PER_HP[motor.codeLetter][1]} kVA per hp, the letter's upper value (NFPA 70 Table 430.7(B)), × ${significant(motor.hp!, 6)} hp at ${significant(volts, 6)} V`
+              : `LRA = ${motor.lockedRotor} × FLA = ${lraText} (common practice without data: about 6 × FLA)`,
           `asymmetrical first-cycle current ${asymmetryFactor} × LRA = ${significant(asymmetricalAmps, 4)} A from ` +
             `${STARTING_TIMES.halfCycle} s to ${asymmetricalUntil} s (common practice: 1.5–1.7 × LRA)`,
           `acceleration time ${accelerationText}, then the running current up to ${longestSeconds} s (common practice)`,
@@ -95,6 +99,14 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
       elementId: motor.id,
     },
   };
+}
+
+// Accepts a motor with a code letter, its bus voltage and its field path; the locked-rotor current the
+// letter gives with the motor's horsepower (NFPA 70 Table 430.7(B), the letter's upper value).
+function codeLetterAmps(motor: Motor, volts: number, path: string): number {
+  if (motor.hp === undefined)
+    throw new InputError(`${path}.hp`, expectedGot('the horsepower a code letter is read with (kVA per hp)', motor.hp));
+  return lockedRotorAmpsFromCode(motor.codeLetter!, motor.hp, volts, 'upper', motor.phases);
 }
 
 /** The currents and times of a motor's starting curve, with the currents and options they come from. */
@@ -149,12 +161,19 @@ export function startingPointsOf(motor: Motor, volts: number, options: MotorStar
   // Currents of the three steps; each must exceed the next so the curve falls as time rises.
   const runningAmps = fullLoadAmps * serviceFactor;
   const lockedRotorAmps =
-    options.lockedRotorAmps === undefined
-      ? requireNumberAbove(`${path}.lockedRotor`, motor.lockedRotor, 0, 'a multiple of full-load current') *
-        fullLoadAmps
-      : requireNumberAbove('options.lockedRotorAmps', options.lockedRotorAmps, 0, 'a current in A');
+    options.lockedRotorAmps !== undefined
+      ? requireNumberAbove('options.lockedRotorAmps', options.lockedRotorAmps, 0, 'a current in A')
+      : motor.codeLetter !== undefined
+        ? codeLetterAmps(motor, volts, path)
+        : requireNumberAbove(`${path}.lockedRotor`, motor.lockedRotor, 0, 'a multiple of full-load current') *
+          fullLoadAmps;
   if (!(lockedRotorAmps > runningAmps)) {
-    const field = options.lockedRotorAmps === undefined ? `${path}.lockedRotor` : 'options.lockedRotorAmps';
+    const field =
+      options.lockedRotorAmps !== undefined
+        ? 'options.lockedRotorAmps'
+        : motor.codeLetter !== undefined
+          ? `${path}.codeLetter`
+          : `${path}.lockedRotor`;
     throw new InputError(
       field,
       expectedGot(

@@ -21,6 +21,26 @@ describe('motorStartingOf', () => {
     assertInDelta(lockedRotor.amps, 6 * fla, 1e-12);
   });
 
+  it('reads the locked-rotor current from a code letter on the motor, in place of the multiple', () => {
+    // The §7.9 motor below with its code letter G on the study: 6.29 kVA/hp · 100 hp at 460 V = 789.46 A.
+    const motor = motorOf({ fullLoadAmps: 124, accelerationTime: 8, codeLetter: 'G', lockedRotor: 9 });
+    const { lockedRotor, curve } = motorStartingOf(motor, 460);
+    assertInDelta(lockedRotor.amps, 789.46, 1e-5);
+    expect(curve.notes).toContain(
+      "LRA 789.5 A from code letter G: 6.29 kVA per hp, the letter's upper value (NFPA 70 Table 430.7(B)), × 100 hp at 460 V",
+    );
+    // Single-phase, 5 hp, code K at 230 V: 8.99 · 5 · 1000 / 230 = 195.43 A (no √3 across one phase).
+    const single = motorOf({ hp: 5, phases: 1, codeLetter: 'K' });
+    assertInDelta(motorStartingOf(single, 230).lockedRotor.amps, (8.99 * 5000) / 230, 1e-12);
+  });
+
+  it('refuses a code letter without the horsepower it is read with, and letter V, which has no upper value', () => {
+    expect(() => motorOf({ hp: undefined, fullLoadAmps: 124, codeLetter: 'G' })).toThrow(
+      /expected the horsepower a code letter is read with/,
+    );
+    expect(() => motorOf({ codeLetter: 'V' as never })).toThrow();
+  });
+
   it('motorStartingOf(§7.9 motor) draws LRA 789.46 A to the acceleration time and 1263.1 A asymmetrical', () => {
     // 100 hp 460 V, FLC 124 A (NFPA 70 Table 430.250), code G (NEC Table 430.7(B), from memory) → LRA
     // 6.29 · 100 · 1000 / (√3 · 460) = 789.46 A; 1.6 × LRA = 1263.1 A (common practice)
