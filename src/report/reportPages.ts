@@ -376,13 +376,23 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
 // Accepts each column's narrowest width (its longest word) and natural width (its longest cell unwrapped)
 // and the room there is. Where every cell fits unwrapped, the spare room is shared out evenly; else each
 // column gets its narrowest width and the rest of the room in proportion to what wrapping takes from it,
-// so a column of long sentences gets the room a column of short values does not need.
+// so a column of long sentences gets the room a column of short values does not need. Where the longest
+// words alone are too wide, the widest give way.
 function fitColumns(narrowest: number[], natural: number[], width: number): number[] {
   const total = natural.reduce((a, b) => a + b, 0);
   if (total <= width) return natural.map((w) => w + (width - total) / natural.length);
   const least = narrowest.reduce((a, b) => a + b, 0);
-  // Not even the longest words fit: scale them down together (a word that still will not fit breaks).
-  if (least >= width) return narrowest.map((w) => (w * width) / least);
+  // Not even the longest words fit: only the columns of the longest words give way, down to one width
+  // between them (their words break), so that short values and headers elsewhere stay whole.
+  if (least >= width) {
+    const ascending = [...narrowest].sort((a, b) => a - b);
+    let left = width;
+    for (let i = 0; i < ascending.length; i++) {
+      const even = left / (ascending.length - i);
+      if (ascending[i] >= even) return narrowest.map((w) => Math.min(w, even));
+      left -= ascending[i];
+    }
+  }
   const share = (width - least) / (total - least);
   return natural.map((w, c) => narrowest[c] + (w - narrowest[c]) * share);
 }

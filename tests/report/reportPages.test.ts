@@ -348,6 +348,16 @@ describe('the bus index of a tiled one-line whose buses have long names', () => 
 });
 
 describe('report tables', () => {
+  it('let only the column of a word too long for the page give way: values and headers elsewhere stay whole', () => {
+    const raw = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8'));
+    raw.devices[1].name = 'MSB-MAIN-2000A-INCOMER-FROM-SERVICE-TRANSFORMER-T1';
+    const { study } = readStudy(raw);
+    const pages = reportPagesOf(studyReportOf(analyseStudy(study!)), { paper: 'letter', orientation: 'portrait' });
+    const cut = pages.flatMap((page) => bodyOf(page)).filter((item) => item.text.endsWith('…'));
+    expect(cut.length).toBeGreaterThan(0);
+    for (const item of cut) expect(raw.devices[1].name.startsWith(item.text.slice(0, -1)), item.text).toBe(true);
+  });
+
   it('give a column of long sentences the room a column of short values does not need (A4 portrait)', () => {
     const study = parseStudy(readFileSync('demo/harrowmere-full.json', 'utf8'));
     const report = studyReportOf(analyseStudy(study));
