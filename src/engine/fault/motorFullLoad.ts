@@ -75,7 +75,7 @@ export function tableFullLoadAmps(
   phases: 1 | 3,
 ): { amps: number; hp: number; column: number; table: string } | undefined {
   const table: MotorCurrentTable = phases === 1 ? TABLE_430_248 : TABLE_430_250;
-  const served = MOTOR_VOLTAGE_COLUMNS.find(({ from, to }) => volts >= from * 0.995 && volts <= to * 1.005);
+  const served = columnServing(volts);
   const index = served ? table.volts.indexOf(served.column) : -1;
   if (!served || index < 0 || !(hp > 0)) return undefined;
   // A relative 1e-9 lets 0.333 hp entered as 1/3 match its row.
@@ -89,4 +89,14 @@ function hpText(hp: number): string {
   if (Math.abs(hp - 1 / 6) < 1e-9) return '⅙';
   if (Math.abs(hp - 1 / 3) < 1e-9) return '⅓';
   return fractions[String(hp)] ?? String(hp);
+}
+
+/**
+ * The motor voltage of NFPA 70's tables that serves a bus of `volts` (460 V for 480 V, 575 V for 600 V,
+ * 230 V for 240 V…); undefined where none does.
+ *
+ * @example columnServing(480)?.column // 460
+ */
+export function columnServing(volts: number): (typeof MOTOR_VOLTAGE_COLUMNS)[number] | undefined {
+  return MOTOR_VOLTAGE_COLUMNS.find(({ from, to }) => volts >= from * 0.995 && volts <= to * 1.005);
 }

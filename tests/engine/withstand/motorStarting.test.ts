@@ -22,10 +22,12 @@ describe('motorStartingOf', () => {
   });
 
   it('reads the locked-rotor current from a code letter on the motor, in place of the multiple', () => {
-    // The §7.9 motor below with its code letter G on the study: 6.29 kVA/hp · 100 hp at 460 V = 789.46 A.
+    // The §7.9 motor below with its code letter G on the study: 6.29 kVA/hp · 100 hp at 460 V = 789.46 A,
+    // on a 480 V bus too: the letter is read at the motor's rated voltage, as its full-load current is.
     const motor = motorOf({ fullLoadAmps: 124, accelerationTime: 8, codeLetter: 'G', lockedRotor: 9 });
     const { lockedRotor, curve } = motorStartingOf(motor, 460);
     assertInDelta(lockedRotor.amps, 789.46, 1e-5);
+    assertInDelta(motorStartingOf(motor, 480).lockedRotor.amps, 789.46, 1e-5);
     expect(curve.notes).toContain(
       "LRA 789.5 A from code letter G: 6.29 kVA per hp, the letter's upper value (NFPA 70 Table 430.7(B)), × 100 hp at 460 V",
     );
