@@ -1,4 +1,4 @@
-import { lstatSync, realpathSync, rmSync } from 'node:fs';
+import { accessSync, constants, lstatSync, realpathSync, rmSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expectedGot, InputError } from '../engine/errors.ts';
 import type { Command, CommandIO } from './command.ts';
@@ -27,11 +27,13 @@ export const nodeIO: WholeWritingIO = {
   writeFile: (path, data) => writeNotOverInputs([{ path, data }]),
   writeAll: (outputs) => writeNotOverInputs(outputs),
   removeFile: (path) => {
-    // Only a file (or a link) is removed, never a folder, and never a file this run read.
+    // Only a file (or a link) is removed, never a folder, never a file this run read, and never one
+    // the user may not write: such a file is refused, not replaced, by a write as well.
     if (!(lstatSync(path, { throwIfNoEntry: false })?.isDirectory() === false)) return false;
     const identity = fileIdentity(path);
     if (identity !== undefined && filesRead.has(identity))
       throw new InputError(path, expectedGot('a file other than the study read', path));
+    accessSync(path, constants.W_OK);
     rmSync(path);
     return true;
   },

@@ -93,6 +93,21 @@ describe('discern report', () => {
     }
   });
 
+  it('leaves a figure it may not remove in place and says so, the report written all the same', async () => {
+    const io = memoryIO();
+    const refused = Object.assign(new Error('permission denied'), { code: 'EACCES' });
+    const removeFile = (path: string) => {
+      if (/-figure-\d+\.svg$/.test(path) && !io.files.has(path)) throw refused;
+      return io.files.delete(path);
+    };
+    const code = await runCli(['report', 'demo/harrowmere-fused.json', '--out', 'out/f.md'], { ...io, removeFile });
+    expect(code).toBe(0);
+    expect(io.files.has('out/f.md')).toBe(true);
+    expect(io.err.join('')).toMatch(
+      /^out\/f-figure-\d+\.svg: left in place \(EACCES\); it is not a figure of this report\n$/,
+    );
+  });
+
   it('refuses a bad paper, orientation or output with a one-line message naming the flag', async () => {
     for (const [args, message] of [
       [['--out', 'x.pdf', '--paper', 'legal'], /^--paper: expected letter, a4, tabloid or a3, got "legal"\n$/],
