@@ -40,20 +40,13 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     const down = network.devices.get(pair.downstream)!;
     const up = network.devices.get(pair.upstream)!;
     const bus = locationBusOf(network, down);
-    const decrement = decrementAt(analysis, source, bus.id);
-    const toBus = source.voltage / bus.voltage;
-    const current = (seconds: number) => decrement.ampsAt(seconds) * toBus;
-    const downBand = analysis.bands.get(down.id)!;
-    // The upstream band on the downstream device's voltage base.
-    const upBand = scaleBand(analysis.bands.get(up.id)!, locationBusOf(network, up).voltage / bus.voltage);
-    const clears = decrementOperatingTime((amps) => downBand.maxTime(amps), current);
-    const opens = decrementOperatingTime((amps) => upBand.minTime(amps), current);
+    const { current, sustainedAmps, clears, opens } = decrementTimesOf(analysis, pair, bus.id)!;
     const { rule } = pair;
     // The finder's slack and ratio (`up.minTime · timeRatio` against `down.maxTime + margin`).
     const slack = opens === Infinity ? Infinity : opens * rule.timeRatio - (clears + rule.margin);
     const ok = Number.isFinite(clears) && slack >= 0;
     const initial = formatAmps(current(0), 3);
-    const sustained = formatAmps(decrement.sustainedAmps * toBus, 3);
+    const sustained = formatAmps(sustainedAmps, 3);
     const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${initial} falling to ${sustained}`;
     // As the pair check: selective on an illustrative curve is told (info), not claimed.
     const illustrative = [up, down].filter(isIllustrative).map(nameOf);
@@ -86,6 +79,49 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     });
   }
   return findings;
+}
+
+/** A pair's two times on a generator's decaying current, and the current (A at the fault's bus). */
+export interface DecrementTimes {
+  /** The current against time (s). */
+  current: (seconds: number) => number;
+  sustainedAmps: number;
+  /** The downstream device's latest clearing (s); Infinity where it never clears. */
+  clears: number;
+  /** The upstream device's earliest operation (s); Infinity where it never operates. */
+  opens: number;
+}
+
+/**
+ * The downstream device's latest clearing and the upstream device's earliest operation on the decaying
+ * current of a bolted three-phase fault at `busId` (the downstream device's bus, or one below it), fed by
+ * the tree's generator through the path's impedance, both bands on that bus's voltage (IEEE Std 551
+ * decrement, IEEE C37.112 time-varying current). Undefined for a tree fed by no generator.
+ *
+ * @example decrementTimesOf(analysis, pair, 'EMERG')?.clears // s
+ */
+export function decrementTimesOf(
+  analysis: AnalysedTree,
+  pair: { upstream: string; downstream: string },
+  busId: string,
+): DecrementTimes | undefined {
+  const source = analysis.study.source;
+  if (source.kind !== 'generator') return undefined;
+  const { network } = analysis;
+  const volts = network.buses.get(busId)!.voltage;
+  const decrement = decrementAt(analysis, source, busId);
+  const toBus = source.voltage / volts;
+  const current = (seconds: number) => decrement.ampsAt(seconds) * toBus;
+  const onBus = (id: string) =>
+    scaleBand(analysis.bands.get(id)!, locationBusOf(network, network.devices.get(id)!).voltage / volts);
+  const downBand = onBus(pair.downstream);
+  const upBand = onBus(pair.upstream);
+  return {
+    current,
+    sustainedAmps: decrement.sustainedAmps * toBus,
+    clears: decrementOperatingTime((amps) => downBand.maxTime(amps), current),
+    opens: decrementOperatingTime((amps) => upBand.minTime(amps), current),
+  };
 }
 
 // Accepts the two times (s, both finite), the pair's rule and the two names; the separation against the rule, in words.

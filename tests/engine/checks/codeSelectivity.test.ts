@@ -67,4 +67,78 @@ describe('NFPA 70 700.32 selective coordination', () => {
     )!;
     expect(code.severity).toBe('fail');
   });
+
+  it('on a generator, with "above-0.1-s", fails where the decaying current lets the upstream device operate first after 0.1 s', () => {
+    // Both relays' instantaneous elements (4000 A) see the 4990 A first-cycle current, which falls below
+    // them within a few cycles (T″d 0.015 s): the overlap there is accepted (the feeder clears in 0.067 s
+    // at 4000 A), but on the decaying current (IEEE Std 551, integrated as IEEE C37.112) the generator
+    // relay's 0.6 s element, helped by its instantaneous head start, operates at 0.327 s while the
+    // feeder's 0.5 s element clears at 0.482 s. Invented settings.
+    const code = (option: 'above-0.1-s' | 'full-range') =>
+      analyseScenarios(parseStudy(generatorStudy(option))).findings.find(
+        (f) => f.kind === 'code-selectivity' && f.subjects[0] === 'DOWN',
+      )!;
+    expect(code('above-0.1-s').severity).toBe('fail');
+    expect(code('above-0.1-s').explanation).toMatch(
+      /Not shown: Normal: on the generator's decaying current \(a fault at LB, 4990 A falling to 1800 A at 480 V\), Generator relay can operate from 0\.327 s, before Feeder relay clears \(0\.482 s\)\. /,
+    );
+    // Over the full range the constant currents already show the overlap; the decaying current comes last.
+    expect(code('full-range').explanation).toMatch(
+      /overlap from 4000 A .*; Normal: on the generator's decaying current/,
+    );
+  });
 });
+
+/** A 500 kVA generator, its breaker's relay UP and a feeder relay DOWN below it, both on the emergency system. */
+function generatorStudy(codeSelectivity: 'above-0.1-s' | 'full-range'): StudyInput {
+  const relay = (delay: number, instantaneous: Record<string, unknown>, rest: Record<string, unknown> = {}) => ({
+    kind: 'relay' as const,
+    ct: '600:5',
+    timeOvercurrent: { curve: 'definite-time' as const, pickup: 8.333, delay },
+    instantaneous: { pickup: 33.33, ...instantaneous },
+    ...rest,
+  });
+  return {
+    discern: 1,
+    name: 'decaying current against above-0.1-s',
+    source: {
+      kind: 'generator',
+      id: 'G1',
+      bus: 'GB',
+      rating: 500,
+      voltage: 480,
+      xdSubtransient: 0.12,
+      xdTransient: 0.2,
+      xd: 2,
+      tdSubtransient: 0.015,
+      tdTransient: 0.4,
+      sustained: 3,
+    },
+    buses: [
+      { id: 'GB', voltage: 480 },
+      { id: 'LB', voltage: 480 },
+      { id: 'MB', voltage: 480 },
+    ],
+    cables: [
+      { id: 'C1', from: 'GB', to: 'LB', size: '500 kcmil', length: 10, sets: 2 },
+      { id: 'C2', from: 'LB', to: 'MB', size: '500 kcmil', length: 10, sets: 2 },
+    ],
+    devices: [
+      {
+        id: 'UP',
+        name: 'Generator relay',
+        feeds: 'C1',
+        system: 'emergency',
+        characteristic: relay(0.6, { delay: 0.02 }),
+      },
+      {
+        id: 'DOWN',
+        name: 'Feeder relay',
+        feeds: 'C2',
+        system: 'emergency',
+        characteristic: relay(0.5, {}, { breakerTime: '3 cycles' }),
+      },
+    ],
+    coordination: { codeSelectivity, margins: { 'relay/relay': 0 } },
+  };
+}
