@@ -1,9 +1,8 @@
 import type { Analysis } from '../analysis.ts';
-import { formatAmps, formatSeconds, formatVolts } from '../quantity/format.ts';
+import { formatAmps, formatVolts } from '../quantity/format.ts';
 import type { Device, Study } from '../study/index.ts';
 import { locationBusOf } from '../network/index.ts';
 import { illustrativeSentence, isIllustrative } from './coordination.ts';
-import { decrementTimesOf } from './decrementCoordination.ts';
 import { nameOf } from './context.ts';
 import type { Finding } from './finding.ts';
 
@@ -37,14 +36,16 @@ export interface ScenarioPairs {
  * `codeSelectivity: "above-0.1-s"` an interval is accepted where the downstream device clears within
  * 0.1 s at its lowest current, as some authorities having jurisdiction accept; the authority having
  * jurisdiction decides which reading applies. `labelled` lists the scenarios checked on each finding.
- * In a tree fed by a generator, each pair of the chain is also checked on the generator's decaying
- * current for a fault at the marked device's bus (`decrementTimesOf`): the upstream device must not
- * operate before the downstream one clears. Over the full range this adds nothing the constant currents
- * miss (where the upstream device is no faster at any constant current, the time-varying integrals of
- * 1 / t keep that order, the upstream integrand being the smaller at every instant); with "above-0.1-s"
- * it does: an overlap accepted at high current, where the marked device clears within 0.1 s, can give
- * the upstream device a head start that carries it past the marked device's clearing as the current
- * decays, so there the decaying current is accepted only where the marked device clears within 0.1 s.
+ * A generator's decaying current is not checked here. Over the full range it needs no check of its own:
+ * the pairs are classed at every constant current from the lower pickup to the largest fault, and where
+ * the upstream device's earliest operation is no earlier than the downstream device's latest clearing at
+ * each of those currents, the time-varying integrals of 1 / t over any current falling through them keep
+ * that order (the upstream integrand is the smaller at every instant), so a decaying current shows no
+ * overlap the constant currents do not. With "above-0.1-s" the integral of a whole band would give an
+ * instantaneous or definite-time element that never completes (the current falls below its pickup first)
+ * a head start it does not have, since such an element resets (IEEE C37.112's integral is an inverse-time
+ * element's), and fail pairs whose elements, read one by one, are selective; `decrementFindings` reports
+ * each pair on the decaying current, with the same reading.
  *
  * @example codeSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }])
  */
@@ -96,20 +97,6 @@ export function codeSelectivityFindings(
               );
             }
           }
-        // On a generator's decaying current, for a fault at the marked device's bus (IEEE Std 551,
-        // IEEE C37.112): no supply-side device may operate before the one below it clears.
-        const decaying = chain.map((pair) => decrementTimesOf(part, pair, here.id));
-        const markedClears = decaying[0]?.clears ?? Infinity;
-        chain.forEach((pair, i) => {
-          const times = decaying[i];
-          if (!times || !(times.opens < times.clears)) return;
-          if (option === 'above-0.1-s' && markedClears <= AHJ_SELECTIVITY_SECONDS) return;
-          failing.push(scenario.label);
-          const below = pair.downstream === device.id ? '' : ` (on the supply side of ${nameOf(device)})`;
-          problems.push(
-            `${scenario.label}: on the generator's decaying current (a fault at ${here.name ?? here.id}, ${formatAmps(times.current(0), 3)} falling to ${formatAmps(times.sustainedAmps, 3)} at ${formatVolts(here.voltage)}), ${pair.upstreamName} can operate from ${formatSeconds(times.opens)}, ${Number.isFinite(times.clears) ? `before ${pair.downstreamName} clears (${formatSeconds(times.clears)})` : `while ${pair.downstreamName} never clears`}${below}`,
-          );
-        });
       }
     if (checked.length === 0) continue;
     const scope =
