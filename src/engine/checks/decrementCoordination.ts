@@ -27,7 +27,9 @@ type AnalysedTree = Pick<Analysis, 'study' | 'network' | 'faults' | 'bands' | 'p
  * finder applies it: `opens × timeRatio ≥ clears + margin` (for a fuse pair the downstream total
  * clearing within 75 % of the upstream minimum melting, common practice). A downstream device that
  * never operates on the decaying current fails. Motor contribution is left out (it decays within a few
- * cycles). Findings only for a tree whose source is a generator.
+ * cycles). Each band is integrated whole: an instantaneous or definite-time element the current leaves
+ * before it completes still counts toward operation, though a real element resets, so where either device
+ * has one its time can be early. Findings only for a tree whose source is a generator.
  *
  * @example decrementFindings(analysisOfGeneratorTree)
  */
