@@ -60,7 +60,8 @@ export function textWidth(text: string, size: number, weight: FontWeight = 'norm
 
 /**
  * Breaks `text` into lines no wider than `maxWidth` px at `size` px, at spaces; a single word wider
- * than the line is cut with a trailing "…". Empty text gives no lines. Each word is measured once.
+ * than the line is broken across lines, so that no character is lost (an id in a narrow column of a
+ * report). Empty text gives no lines. Each word is measured once.
  * @example wrapText('Results are for review by a qualified engineer', 120, 11) // ['Results are for review', 'by a qualified engineer']
  */
 export function wrapText(text: string, maxWidth: number, size: number, weight: FontWeight = 'normal'): string[] {
@@ -76,8 +77,24 @@ export function wrapText(text: string, maxWidth: number, size: number, weight: F
       continue;
     }
     if (current) lines.push(current);
-    current = wordWidth <= maxWidth ? word : truncateText(word, maxWidth, size, weight);
-    currentWidth = wordWidth <= maxWidth ? wordWidth : textWidth(current, size, weight);
+    if (wordWidth <= maxWidth) {
+      current = word;
+      currentWidth = wordWidth;
+      continue;
+    }
+    // Too long for any line: whole lines of its characters, the rest begins the next line.
+    current = '';
+    currentWidth = 0;
+    for (const char of word) {
+      const charWidth = textWidth(char, size, weight);
+      if (current && currentWidth + charWidth > maxWidth) {
+        lines.push(current);
+        current = '';
+        currentWidth = 0;
+      }
+      current += char;
+      currentWidth += charWidth;
+    }
   }
   if (current) lines.push(current);
   return lines;

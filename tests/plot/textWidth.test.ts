@@ -26,6 +26,14 @@ describe('wrapText', () => {
     expect(lines.join(' ')).toBe(text);
   });
 
+  it('wrapText breaks a word wider than the line across lines, losing no character', () => {
+    const id = 'BLDG-C-SWBD-MSB-1-FEEDER-TO-COMPRESSOR-MCC';
+    const lines = wrapText(`feeds ${id} now`, 60, 11);
+    expect(lines.length).toBeGreaterThan(3);
+    for (const line of lines) expect(textWidth(line, 11)).toBeLessThanOrEqual(60);
+    expect(lines.join('').replaceAll(' ', '')).toBe(`feeds${id}now`);
+  });
+
   it('truncateText cuts a long word with an ellipsis that fits', () => {
     const cut = truncateText('FEEDER-TO-COMPRESSOR-MCC', 60, 11);
     expect(cut.endsWith('…')).toBe(true);
