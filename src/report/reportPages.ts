@@ -360,7 +360,8 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
         role: 'table-rule',
       });
     };
-    room(header.height + step * 2);
+    // The header keeps its first row with it: a header alone at the foot of a page says nothing.
+    room(header.height + (rows.length > 0 ? drawRow(rows[0], 'normal').height : step * 2));
     put(header, 'bold');
     for (const cells of rows) {
       const row = drawRow(cells, 'normal');

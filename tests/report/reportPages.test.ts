@@ -3,6 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { radialStudy } from '../../bench/radialStudy.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
 import { analyseStudy } from '../../src/engine/analysis.ts';
+import { analyseScenarios } from '../../src/engine/scenario/index.ts';
 import { parseStudy, readStudy } from '../../src/engine/study/index.ts';
 import type { Box } from '../../src/plot/geometry.ts';
 import type { OneLine } from '../../src/plot/oneLine/index.ts';
@@ -348,6 +349,25 @@ describe('the bus index of a tiled one-line whose buses have long names', () => 
 });
 
 describe('report tables', () => {
+  it('never leave a header alone at the foot of a page: its first row goes with it', () => {
+    // Where a settings-window header fell at a page's foot (the selective demo on A4 landscape, the
+    // standby overlap demo on letter portrait), with its first row taller than two lines.
+    for (const demo of ['selective', 'standby-overlap']) {
+      const study = parseStudy(readFileSync(`demo/harrowmere-${demo}.json`, 'utf8'));
+      const report = studyReportOf(analyseScenarios(study));
+      for (const paper of ['letter', 'a4'] as const)
+        for (const orientation of ['portrait', 'landscape'] as const)
+          for (const page of reportPagesOf(report, { paper, orientation })) {
+            const texts = bodyOf(page);
+            for (const header of texts.filter((item) => item.text === 'recommended' && item.weight === 'bold'))
+              expect(
+                texts.some((item) => item.y > header.y + 1 && item.weight !== 'bold'),
+                `${demo} ${paper} ${orientation}`,
+              ).toBe(true);
+          }
+    }
+  });
+
   it('let only the column of a word too long for the page give way, and break that word across lines: nothing is cut', () => {
     const raw = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8'));
     const name = 'MSB-MAIN-2000A-INCOMER-FROM-SERVICE-TRANSFORMER-T1';
