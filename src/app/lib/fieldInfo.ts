@@ -112,6 +112,18 @@ export function missingFieldsAt(
     .map(([key, child]) => ({ key, description: child.description }));
 }
 
+/**
+ * The value an optional field is added with: its default where it has one; else a choice starts
+ * unchosen (empty, which the study reports until a value is picked), since no first value is a safe
+ * guess (a motor's code letter A would give the least locked-rotor current); a switch off; text empty.
+ *
+ * @example initialValueOf(fieldInfoAt(document, ['motors', 0, 'codeLetter'])) // ''
+ */
+export function initialValueOf(info: FieldInfo | undefined): unknown {
+  if (info?.defaultValue !== undefined) return info.defaultValue;
+  return info?.control === 'boolean' ? false : '';
+}
+
 // Accepts a node that may be a union; picks the member matching `value` (by `kind`, then by type).
 function memberFor(node: SchemaNode, value: unknown): SchemaNode {
   const members = node.oneOf ?? node.anyOf;

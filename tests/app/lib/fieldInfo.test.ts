@@ -1,5 +1,11 @@
 import { describe, it, expect } from 'vitest';
-import { fieldInfoAt, missingFieldsAt, schemaNodeAt, STUDY_JSON_SCHEMA } from '../../../src/app/lib/fieldInfo.ts';
+import {
+  fieldInfoAt,
+  initialValueOf,
+  missingFieldsAt,
+  schemaNodeAt,
+  STUDY_JSON_SCHEMA,
+} from '../../../src/app/lib/fieldInfo.ts';
 
 const document = {
   discern: 1,
@@ -24,6 +30,14 @@ describe('fieldInfo', () => {
   it('has the expected defaults', () => {
     expect(STUDY_JSON_SCHEMA.properties?.buses).toBeDefined();
     expect(fieldInfoAt(document, ['nowhere'])).toBeUndefined();
+  });
+
+  it('initialValueOf() adds a field at its default, and a choice without one unchosen: no code letter is guessed', () => {
+    const withMotor = { ...document, motors: [{ id: 'M1', bus: 'MV', hp: 100 }] };
+    expect(initialValueOf(fieldInfoAt(withMotor, ['motors', 0, 'codeLetter']))).toBe('');
+    expect(initialValueOf(fieldInfoAt(withMotor, ['motors', 0, 'lockedRotor']))).toBe(6);
+    expect(initialValueOf(fieldInfoAt(document, ['transformers', 0, 'connection']))).toBe('delta-wye');
+    expect(initialValueOf(fieldInfoAt(document, ['devices', 0, 'system']))).toBe('');
   });
 
   it('fieldInfoAt() offers a quantity for fields that take numbers or text with units', () => {
