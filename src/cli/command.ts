@@ -14,8 +14,8 @@ export interface CommandIO {
   /** Writes a file (figures, reports). */
   writeFile(path: string, data: string | Uint8Array): void;
   /**
-   * Removes a file an earlier run wrote (a figure of a longer earlier report); false when no file stands
-   * there. Throws when one does and cannot be removed. Optional: an io without it removes nothing.
+   * Removes a file an earlier run wrote (a figure of a longer earlier report); false when nothing stands
+   * there. Throws when something does and may not be removed. Optional: an io without it removes nothing.
    */
   removeFile?(path: string): boolean;
 }

@@ -27,13 +27,15 @@ export const nodeIO: WholeWritingIO = {
   writeFile: (path, data) => writeNotOverInputs([{ path, data }]),
   writeAll: (outputs) => writeNotOverInputs(outputs),
   removeFile: (path) => {
-    // Only a file (or a link) is removed, never a folder, never a file this run read, and never one
-    // the user may not write: such a file is refused, not replaced, by a write as well.
-    if (!(lstatSync(path, { throwIfNoEntry: false })?.isDirectory() === false)) return false;
+    // Only a file or a link (the link itself) is removed: never a folder, never a file this run read, and
+    // never one the user may not write, which a write refuses as well.
+    const stat = lstatSync(path, { throwIfNoEntry: false });
+    if (!stat) return false;
+    if (stat.isDirectory()) throw Object.assign(new Error(`${path} is a folder`), { code: 'EISDIR' });
     const identity = fileIdentity(path);
     if (identity !== undefined && filesRead.has(identity))
       throw new InputError(path, expectedGot('a file other than the study read', path));
-    accessSync(path, constants.W_OK);
+    if (!stat.isSymbolicLink()) accessSync(path, constants.W_OK);
     rmSync(path);
     return true;
   },

@@ -95,26 +95,29 @@ export const reportCommand: Command = {
 };
 
 /**
- * Removes the figures a longer earlier Markdown report of the same name left beside `out`, numbered past
- * this one's last (`<stem>-figure-N.svg`), which a reader would take for this report's own, and says
- * which on standard output. A figure that cannot be removed is named on standard error; the report
- * itself is written either way.
+ * Removes the figures a longer earlier Markdown report of the same name left beside `out`, numbered on
+ * from this one's last (`<stem>-figure-N.svg`) up to the first number with nothing there, which a reader
+ * would take for this report's own, and says which on standard output. A figure that cannot be removed
+ * (one the user may not write, a folder, the study read) is named on standard error and passed over; the
+ * report itself is written either way.
  */
 function removeLaterFigures(io: CommandIO, out: string, figures: number): void {
   const base = out.replace(/\.md$/i, '');
   const removed: string[] = [];
-  try {
-    for (let n = figures + 1; io.removeFile?.(`${base}-figure-${n}.svg`); n++) removed.push(`${base}-figure-${n}.svg`);
-  } catch (error) {
-    // A removal fails on the file system (permissions), or refuses the study this run read.
-    const reason = (error as NodeJS.ErrnoException).code ?? 'the study read';
-    io.stderr(
-      `${base}-figure-${figures + removed.length + 1}.svg: left in place (${reason}); it is not a figure of this report\n`,
-    );
+  for (let n = figures + 1; ; n++) {
+    const path = `${base}-figure-${n}.svg`;
+    try {
+      if (!io.removeFile?.(path)) break;
+      removed.push(path);
+    } catch (error) {
+      // A removal fails on the file system (permissions, a folder), or refuses the study this run read.
+      const reason = (error as NodeJS.ErrnoException).code ?? 'the study read';
+      io.stderr(`${path}: left in place (${reason}); it is not a figure of this report\n`);
+    }
   }
   if (removed.length === 1) io.stdout(`removed ${removed[0]}, a figure of an earlier, longer report\n`);
   else if (removed.length > 1)
-    io.stdout(`removed ${removed.length} figures of an earlier, longer report (${removed[0]} to ${removed.at(-1)})\n`);
+    io.stdout(`removed ${removed.length} figures of an earlier, longer report: ${removed.join(', ')}\n`);
 }
 
 /** Whether text is a date the calendar has, written YYYY-MM-DD (years 0001 to 9999). @example isCalendarDate('2026-02-30') // false */
