@@ -100,3 +100,17 @@ function hpText(hp: number): string {
 export function columnServing(volts: number): (typeof MOTOR_VOLTAGE_COLUMNS)[number] | undefined {
   return MOTOR_VOLTAGE_COLUMNS.find(({ from, to }) => volts >= from * 0.995 && volts <= to * 1.005);
 }
+
+/**
+ * A motor's rated voltage on a bus of `volts`: the column serving the bus in the table for its phases
+ * (NFPA 70 Table 430.250 three-phase, 430.248 single-phase), else the bus voltage, as its full-load
+ * current is read.
+ *
+ * @example motorRatedVolts(480, 3) // 460
+ * @example motorRatedVolts(480, 1) // 480 (Table 430.248 has no 460 V column)
+ */
+export function motorRatedVolts(volts: number, phases: 1 | 3 = 3): number {
+  const column = columnServing(volts)?.column;
+  const table = phases === 1 ? TABLE_430_248 : TABLE_430_250;
+  return column !== undefined && table.volts.includes(column) ? column : volts;
+}

@@ -1,5 +1,5 @@
 import { InputError, expectedGot } from '../errors.ts';
-import { columnServing, motorFullLoadAmps, motorFullLoadOf } from '../fault/motorFullLoad.ts';
+import { motorFullLoadAmps, motorFullLoadOf, motorRatedVolts } from '../fault/motorFullLoad.ts';
 import { withLazyFields } from '../lazyText.ts';
 import { significant } from '../quantity/format.ts';
 import type { Motor } from '../study/index.ts';
@@ -82,7 +82,7 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
           options.lockedRotorAmps !== undefined
             ? `LRA ${lraText} given`
             : motor.codeLetter !== undefined
-              ? `LRA ${lraText} from code letter ${motor.codeLetter}: ${LOCKED_ROTOR_KVA_PER_HP[motor.codeLetter][1]} kVA per hp, the letter's upper value (NFPA 70 Table 430.7(B)), × ${significant(motor.hp!, 6)} hp at ${significant(ratedVoltsOf(volts), 6)} V`
+              ? `LRA ${lraText} from code letter ${motor.codeLetter}: ${LOCKED_ROTOR_KVA_PER_HP[motor.codeLetter][1]} kVA per hp, the letter's upper value (NFPA 70 Table 430.7(B)), × ${significant(motor.hp!, 6)} hp at ${significant(motorRatedVolts(volts, motor.phases), 6)} V`
               : `LRA = ${motor.lockedRotor} × FLA = ${lraText} (common practice without data: about 6 × FLA)`,
           `asymmetrical first-cycle current ${asymmetryFactor} × LRA = ${significant(asymmetricalAmps, 4)} A from ` +
             `${STARTING_TIMES.halfCycle} s to ${asymmetricalUntil} s (common practice: 1.5–1.7 × LRA)`,
@@ -107,12 +107,13 @@ export function motorStartingOf(motor: Motor, volts: number, options: MotorStart
 function codeLetterAmps(motor: Motor, volts: number, path: string): number {
   if (motor.hp === undefined)
     throw new InputError(`${path}.hp`, expectedGot('the horsepower a code letter is read with (kVA per hp)', motor.hp));
-  return lockedRotorAmpsFromCode(motor.codeLetter!, motor.hp, ratedVoltsOf(volts), 'upper', motor.phases);
-}
-
-// Accepts a bus voltage; the motor voltage serving it in NFPA 70's tables, else the bus voltage.
-function ratedVoltsOf(volts: number): number {
-  return columnServing(volts)?.column ?? volts;
+  return lockedRotorAmpsFromCode(
+    motor.codeLetter!,
+    motor.hp,
+    motorRatedVolts(volts, motor.phases),
+    'upper',
+    motor.phases,
+  );
 }
 
 /** The currents and times of a motor's starting curve, with the currents and options they come from. */

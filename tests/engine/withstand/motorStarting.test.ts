@@ -31,7 +31,13 @@ describe('motorStartingOf', () => {
     expect(curve.notes).toContain(
       "LRA 789.5 A from code letter G: 6.29 kVA per hp, the letter's upper value (NFPA 70 Table 430.7(B)), × 100 hp at 460 V",
     );
-    // Single-phase, 5 hp, code K at 230 V: 8.99 · 5 · 1000 / 230 = 195.43 A (no √3 across one phase).
+    // Single-phase, 5 hp, code K at 230 V: 8.99 · 5 · 1000 / 230 = 195.43 A (no √3 across one phase);
+    // on a 480 V bus at 480 V, as its full-load current is (Table 430.248 has no 460 V column).
+    assertInDelta(
+      motorStartingOf(motorOf({ hp: 5, phases: 1, codeLetter: 'K' }), 480).lockedRotor.amps,
+      (8.99 * 5000) / 480,
+      1e-12,
+    );
     const single = motorOf({ hp: 5, phases: 1, codeLetter: 'K' });
     assertInDelta(motorStartingOf(single, 230).lockedRotor.amps, (8.99 * 5000) / 230, 1e-12);
   });
