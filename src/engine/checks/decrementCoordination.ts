@@ -29,7 +29,8 @@ type AnalysedTree = Pick<Analysis, 'study' | 'network' | 'faults' | 'bands' | 'p
  * never operates on the decaying current fails. Motor contribution is left out (it decays within a few
  * cycles). Each band is integrated whole: an instantaneous or definite-time element the current leaves
  * before it completes still counts toward operation, though a real element resets, so where either device
- * has one its time can be early. Findings only for a tree whose source is a generator.
+ * has one its time can be early. A pair on a single-phase bus is told not worked out (an info). Findings
+ * only for a tree whose source is a generator.
  *
  * @example decrementFindings(analysisOfGeneratorTree)
  */
@@ -42,6 +43,20 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     const down = network.devices.get(pair.downstream)!;
     const up = network.devices.get(pair.upstream)!;
     const bus = locationBusOf(network, down);
+    // The decrement is the machine's three-phase one: a single-phase bus's loop is not worked on it.
+    if (analysis.faults.buses.get(bus.id)?.phases === 1) {
+      findings.push({
+        id: `decrement:${up.id}/${down.id}`,
+        kind: 'generator-decrement',
+        severity: 'info',
+        title: `${nameOf(up)} over ${nameOf(down)} on the generator's decaying current: not worked out`,
+        subjects: [up.id, down.id],
+        explanation: `${bus.name ?? bus.id} is a single-phase bus: its fault is a single-phase loop, and the decaying current here is worked out for a three-phase fault only, so the pair is checked at constant currents alone.`,
+        basis: 'generator decrement (IEEE Std 551), three-phase faults',
+        referenceVolts: bus.voltage,
+      });
+      continue;
+    }
     const { current, sustainedAmps, clears, opens } = decrementTimesOf(analysis, pair, bus.id)!;
     const { rule } = pair;
     // The finder's slack and ratio (`up.minTime · timeRatio` against `down.maxTime + margin`).

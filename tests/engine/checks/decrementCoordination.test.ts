@@ -116,4 +116,25 @@ describe('decrementFindings', () => {
     const coordination = analysis.findings.filter((f) => f.kind === 'coordination' && f.subjects[0] === 'UP');
     expect(coordination.some((f) => f.severity === 'fail')).toBe(true);
   });
+
+  it('tells a pair on a single-phase bus not worked out: the decrement is a three-phase one', () => {
+    // The fuse pair with DOWN moved below a 100 kVA single-phase 480–240 V unit (invented).
+    const study = fusePair(1.5);
+    study.buses!.push({ id: 'S', voltage: 240 });
+    study.transformers = [
+      { id: 'T', from: 'PNL', to: 'S', rating: '100 kVA', primary: 480, secondary: 240, impedance: '3 %', phases: 1 },
+    ];
+    study.devices!.push({ ...study.devices![1], id: 'LOW', feeds: 'T' });
+    study.devices![1] = { ...study.devices![1], feeds: 'C1' };
+    study.cables!.push({ id: 'C2', from: 'S', to: 'S2', size: '1/0 AWG', length: '30 ft' });
+    study.buses!.push({ id: 'S2', voltage: 240 });
+    study.devices!.push({ ...study.devices![1], id: 'BR', feeds: 'C2' });
+    const findings = analyseStudy(parseStudy(study)).findings.filter((f) => f.kind === 'generator-decrement');
+    const single = findings.find((f) => f.id === 'decrement:LOW/BR')!;
+    expect([single.severity, single.title]).toEqual([
+      'info',
+      "LOW over BR on the generator's decaying current: not worked out",
+    ]);
+    expect(single.explanation).toMatch(/^S is a single-phase bus/);
+  });
 });
