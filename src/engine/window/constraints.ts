@@ -429,7 +429,9 @@ function decrement(trial: Trial, upId: string, downId: string, which: 'below' | 
       const text = worst
         ? `${formatSeconds(worst.marginSeconds)} at ${formatAmps(worst.amps, 3)} on the decaying current`
         : finding.explanation;
-      return { ok, clean: ok, margin: worst?.marginSeconds ?? -Infinity, unit: 's', text };
+      // Without a worst point: the downstream device never clears (a failure), or the pair is not worked
+      // out on the decaying current (a single-phase bus), which limits no setting.
+      return { ok, clean: ok, margin: worst?.marginSeconds ?? (ok ? Infinity : -Infinity), unit: 's', text };
     },
   };
 }
