@@ -44,8 +44,11 @@ export interface ScenarioPairs {
  * overlap the constant currents do not. With "above-0.1-s" the integral of a whole band would give an
  * instantaneous or definite-time element that never completes (the current falls below its pickup first)
  * a head start it does not have, since such an element resets (IEEE C37.112's integral is an inverse-time
- * element's), and fail pairs whose elements, read one by one, are selective; `decrementFindings` reports
- * each pair on the decaying current, with the same reading.
+ * element's), and fail pairs whose elements, read one by one, are selective. Left unchecked here is a
+ * real head start: two inverse-time elements whose overlap at high current is accepted (the marked device
+ * clearing within 0.1 s there) while the current decays before the marked device clears.
+ * `decrementFindings` reads each pair on the decaying current of a fault at its own downstream device's
+ * bus (three-phase buses only), with the same whole-band reading.
  *
  * @example codeSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }])
  */

@@ -57,7 +57,7 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       });
       continue;
     }
-    const { current, sustainedAmps, clears, opens } = decrementTimesOf(analysis, pair, bus.id)!;
+    const { current, sustainedAmps, clears, opens } = decrementTimesOf(analysis, source, pair, bus.id);
     const { rule } = pair;
     // The finder's slack and ratio (`up.minTime · timeRatio` against `down.maxTime + margin`).
     const slack = opens === Infinity ? Infinity : opens * rule.timeRatio - (clears + rule.margin);
@@ -98,36 +98,20 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
   return findings;
 }
 
-/** A pair's two times on a generator's decaying current, and the current (A at the fault's bus). */
-export interface DecrementTimes {
-  /** The current against time (s). */
-  current: (seconds: number) => number;
-  sustainedAmps: number;
-  /** The downstream device's latest clearing (s); Infinity where it never clears. */
-  clears: number;
-  /** The upstream device's earliest operation (s); Infinity where it never operates. */
-  opens: number;
-}
-
-/**
- * The downstream device's latest clearing and the upstream device's earliest operation on the decaying
- * current of a bolted three-phase fault at `busId` (the downstream device's bus, or one below it), fed by
- * the tree's generator through the path's impedance, both bands on that bus's voltage (IEEE Std 551
- * decrement, IEEE C37.112 time-varying current). Undefined for a tree fed by no generator.
- *
- * @example decrementTimesOf(analysis, pair, 'EMERG')?.clears // s
- */
-export function decrementTimesOf(
+// Accepts a generator tree, one of its pairs and the downstream device's bus; the current of a bolted
+// three-phase fault there (A at the bus) against time, its sustained value, the downstream device's latest
+// clearing and the upstream device's earliest operation on it (s; Infinity where never), both bands on
+// the bus's voltage.
+function decrementTimesOf(
   analysis: AnalysedTree,
+  generator: Generator,
   pair: { upstream: string; downstream: string },
   busId: string,
-): DecrementTimes | undefined {
-  const source = analysis.study.source;
-  if (source.kind !== 'generator') return undefined;
+) {
   const { network } = analysis;
   const volts = network.buses.get(busId)!.voltage;
-  const decrement = decrementAt(analysis, source, busId);
-  const toBus = source.voltage / volts;
+  const decrement = decrementAt(analysis, generator, busId);
+  const toBus = generator.voltage / volts;
   const current = (seconds: number) => decrement.ampsAt(seconds) * toBus;
   const onBus = (id: string) =>
     scaleBand(analysis.bands.get(id)!, locationBusOf(network, network.devices.get(id)!).voltage / volts);
