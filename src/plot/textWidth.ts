@@ -85,7 +85,7 @@ export function wrapText(text: string, maxWidth: number, size: number, weight: F
     // Too long for any line: whole lines of its characters, the rest begins the next line.
     current = '';
     currentWidth = 0;
-    for (const char of word) {
+    for (const char of charactersOf(word)) {
       const charWidth = textWidth(char, size, weight);
       if (current && currentWidth + charWidth > maxWidth) {
         lines.push(current);
@@ -98,6 +98,15 @@ export function wrapText(text: string, maxWidth: number, size: number, weight: F
   }
   if (current) lines.push(current);
   return lines;
+}
+
+// Whole characters as a reader sees them (a letter with its accents, an emoji sequence), never split.
+const graphemes =
+  typeof Intl.Segmenter === 'function' ? new Intl.Segmenter(undefined, { granularity: 'grapheme' }) : undefined;
+
+// Accepts a word; its characters as a reader sees them, or its code points where the runtime cannot tell.
+function charactersOf(word: string): Iterable<string> {
+  return graphemes ? Array.from(graphemes.segment(word), (part) => part.segment) : word;
 }
 
 /**

@@ -106,9 +106,14 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
     line(text, margin, 11, 'bold');
   };
   if (report.revisions.length > 0) {
-    // The table itself asks for room for its header and two rows (small text, 4 pt padding).
-    coverHeading('Revision log', 3 * pageDefaults.small * lineHeight + 4);
-    table(['revision', 'date', 'by', 'what changed'], report.revisions);
+    // The table keeps its heading with its header and first row.
+    table(['revision', 'date', 'by', 'what changed'], report.revisions, [], {
+      height: 12 + detailStep,
+      draw: () => {
+        y += 12;
+        line('Revision log', margin, 11, 'bold');
+      },
+    });
   }
   if (report.notes) {
     coverHeading('Notes', body * lineHeight);
@@ -310,7 +315,12 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
   }
 
   // Accepts a table; columns sized to their contents within the page, cells wrapped, header repeated after a break.
-  function table(columns: string[], rows: string[][], numeric: boolean[] = []): void {
+  function table(
+    columns: string[],
+    rows: string[][],
+    numeric: boolean[] = [],
+    lead?: { height: number; draw: () => void },
+  ): void {
     const size = pageDefaults.small;
     const pad = 4;
     const natural = columns.map(
@@ -360,16 +370,45 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
         role: 'table-rule',
       });
     };
-    // The header keeps its first row with it: a header alone at the foot of a page says nothing.
-    room(header.height + (rows.length > 0 ? drawRow(rows[0], 'normal').height : step * 2));
+    // Lines `from` to `to` of a row, as a row of their own.
+    const partOf = (row: { wrapped: string[][] }, from: number, to: number) => {
+      const wrapped = row.wrapped.map((lines) => lines.slice(from, to));
+      return { wrapped, height: Math.max(1, ...wrapped.map((lines) => lines.length)) * step + pad };
+    };
+    const linesOf = (row: { wrapped: string[][] }) => Math.max(1, ...row.wrapped.map((lines) => lines.length));
+    // What a page holds under the header; a row taller than that is split at page feet.
+    const pageRoom = bottom - top - header.height;
+    // The header keeps its first row (or, of a row taller than a page, two lines of it) and what leads
+    // into the table (a heading) with it: a header alone at the foot of a page says nothing.
+    const first = rows.length > 0 ? drawRow(rows[0], 'normal') : undefined;
+    const kept = first && first.height <= pageRoom ? first.height : 2 * step + pad;
+    room((lead?.height ?? 0) + header.height + kept);
+    lead?.draw();
     put(header, 'bold');
     for (const cells of rows) {
-      const row = drawRow(cells, 'normal');
-      if (y + row.height > bottom) {
+      let row = drawRow(cells, 'normal');
+      if (row.height <= pageRoom) {
+        if (y + row.height > bottom) {
+          newPage();
+          put(header, 'bold');
+        }
+        put(row, 'normal');
+        continue;
+      }
+      // Taller than a page: as many lines as fit here, the rest under the header on the next pages.
+      for (;;) {
+        const fit = Math.max(y <= top + header.height ? 1 : 0, Math.floor((bottom - y - pad) / step));
+        if (linesOf(row) <= fit) {
+          put(row, 'normal');
+          break;
+        }
+        if (fit > 0) {
+          put(partOf(row, 0, fit), 'normal');
+          row = partOf(row, fit, Infinity);
+        }
         newPage();
         put(header, 'bold');
       }
-      put(row, 'normal');
     }
   }
 }

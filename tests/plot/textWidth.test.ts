@@ -34,6 +34,15 @@ describe('wrapText', () => {
     expect(lines.join('').replaceAll(' ', '')).toBe(`feeds${id}now`);
   });
 
+  it('wrapText breaks a long word between whole characters, never inside one', () => {
+    // "é" written as e and a combining acute accent (U+0301) stays one character.
+    const word = 'Cafe\u0301'.repeat(12);
+    const lines = wrapText(word, 30, 10);
+    expect(lines.length).toBeGreaterThan(1);
+    for (const line of lines) expect(line.startsWith('\u0301')).toBe(false);
+    expect(lines.join('')).toBe(word);
+  });
+
   it('truncateText cuts a long word with an ellipsis that fits', () => {
     const cut = truncateText('FEEDER-TO-COMPRESSOR-MCC', 60, 11);
     expect(cut.endsWith('…')).toBe(true);

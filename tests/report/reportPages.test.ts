@@ -349,6 +349,44 @@ describe('the bus index of a tiled one-line whose buses have long names', () => 
 });
 
 describe('report tables', () => {
+  /** The selective demo's report on letter portrait, with one revision whose description is `description`. */
+  const revisedPages = (description: string, studyDescription?: string) => {
+    const raw = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8'));
+    raw.revisions = [{ revision: 'A', date: '2026-01-01', by: 'J. Engineer', description }];
+    if (studyDescription) raw.description = studyDescription;
+    const { study } = readStudy(raw);
+    return reportPagesOf(studyReportOf(analyseStudy(study!)), { paper: 'letter', orientation: 'portrait' });
+  };
+  // The footer's rule sits 24 pt above the bottom margin; body text must stay above it.
+  const footerRule = (page: ReportPage) => page.drawing.height - pageDefaults.margin - 24;
+
+  it('split a row taller than a page at page feet, the header above each part: nothing runs past the footer', () => {
+    for (const description of ['x'.repeat(9000), Array.from({ length: 1200 }, (_, i) => `w${i}`).join(' ')]) {
+      const pages = revisedPages(description);
+      for (const page of pages) for (const item of bodyOf(page)) expect(item.y).toBeLessThan(footerRule(page));
+      // Every character of the description is printed, in order.
+      const printed = pages.flatMap((page) => bodyOf(page).filter((item) => /^(x+|(w\d+ ?)+)$/.test(item.text)));
+      expect(printed.map((item) => item.text).join(description.includes(' ') ? ' ' : '')).toBe(description);
+      // No page holds the table's header alone.
+      for (const page of pages) {
+        const texts = bodyOf(page).map((item) => item.text);
+        if (texts.includes('what changed')) expect(texts.length).toBeGreaterThan(4);
+      }
+    }
+  });
+
+  it("keep the revision log's heading with the table's header and first row", () => {
+    const change = Array.from({ length: 120 }, (_, i) => `change${i}`).join(' ');
+    for (let words = 300; words <= 560; words += 20) {
+      const pages = revisedPages(change, Array.from({ length: words }, (_, i) => `w${i}`).join(' '));
+      for (const page of pages) {
+        const texts = bodyOf(page);
+        const heading = texts.findIndex((item) => item.text === 'Revision log');
+        if (heading >= 0) expect(texts.slice(heading + 1).some((item) => item.text === 'what changed')).toBe(true);
+      }
+    }
+  });
+
   it('never leave a header alone at the foot of a page: its first row goes with it', () => {
     // Where a settings-window header fell at a page's foot (the selective demo on A4 landscape, the
     // standby overlap demo on letter portrait), with its first row taller than two lines.
