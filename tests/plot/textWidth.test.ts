@@ -37,10 +37,12 @@ describe('wrapText', () => {
   it('wrapText breaks a long word between whole characters, never inside one', () => {
     // "é" written as e and a combining acute accent (U+0301) stays one character.
     const word = 'Cafe\u0301'.repeat(12);
-    const lines = wrapText(word, 30, 10);
-    expect(lines.length).toBeGreaterThan(1);
-    for (const line of lines) expect(line.startsWith('\u0301')).toBe(false);
-    expect(lines.join('')).toBe(word);
+    for (let width = 12; width <= 60; width += 0.5) {
+      const lines = wrapText(word, width, 10);
+      expect(lines.length).toBeGreaterThan(1);
+      for (const line of lines) expect(line.startsWith('\u0301'), `${width}`).toBe(false);
+      expect(lines.join('')).toBe(word);
+    }
   });
 
   it('truncateText cuts a long word with an ellipsis that fits', () => {
