@@ -235,11 +235,15 @@ class SegmentIndex {
   constructor(lines: Float64Array[], owners: (string | undefined)[], cell: number, area: Box) {
     this.#owners = owners;
     this.#cell = cell;
+    // An area squeezed to nothing (a sheet too small for its strip) still has one cell, not a negative count.
     const [firstColumn, lastColumn] = (this.#columns = [
       Math.floor(area.x / cell),
-      Math.floor((area.x + area.width) / cell),
+      Math.floor((area.x + Math.max(0, area.width)) / cell),
     ]);
-    const [firstRow, lastRow] = (this.#rows = [Math.floor(area.y / cell), Math.floor((area.y + area.height) / cell)]);
+    const [firstRow, lastRow] = (this.#rows = [
+      Math.floor(area.y / cell),
+      Math.floor((area.y + Math.max(0, area.height)) / cell),
+    ]);
     const width = lastColumn - firstColumn + 1;
     const cells = (this.#cells = new Array<number[] | undefined>(width * (lastRow - firstRow + 1)));
     let segments = 0;

@@ -140,4 +140,15 @@ describe('discern plot', () => {
     expect(code).toBe(2);
     expect(stderr).toBe('study.views: expected at least one view to plot, got "none"\n');
   });
+
+  it('plots a study whose revision mark is as long as the schema allows: the stamp is shortened, the title kept', async () => {
+    const study = JSON.parse(readFileSync('demo/harrowmere-selective.json', 'utf8'));
+    const revision = 'rev '.repeat(50).trim();
+    const path = join(mkdtempSync(join(tmpdir(), 'discern-plot-')), 'long-revision.json');
+    writeFileSync(path, JSON.stringify({ ...study, revisions: [{ revision, date: '2026-01-01', by: 'J. E.' }] }));
+    const { code, files } = await runVerb([path, '--view', 'service', '--out', 'x.svg'], plotCommand);
+    expect(code).toBe(0);
+    const svg = String(files.get('x.svg'));
+    expect(svg).toMatch(/>Rev rev rev[^<]*…</);
+  });
 });

@@ -1,7 +1,7 @@
 import type { Primitive, TextItem } from '../geometry.ts';
 import { SHEET_COLOURS } from '../palette.ts';
 import { pathOf } from '../precision.ts';
-import { textWidth, wrapText } from '../textWidth.ts';
+import { textWidth, truncateText, wrapText } from '../textWidth.ts';
 
 /** How the study strip is set: sizes relative to the sheet's font size, spacing in px. */
 export const studyStripDefaults = {
@@ -62,8 +62,14 @@ export function studyStrip(
   const textWidthMax = width - barWidth - indent;
   const items: Primitive[] = [];
 
-  // Line 1: title left, revision and date right (the title wraps if the two would meet).
-  const stamp = [fields.revision ? `Rev ${fields.revision}` : '', fields.date ?? ''].filter(Boolean).join('  ·  ');
+  // Line 1: title left, revision and date right (the title wraps if the two would meet). The stamp takes
+  // at most two fifths of the line, so that a long revision mark cannot squeeze the title out.
+  const stamp = truncateText(
+    [fields.revision ? `Rev ${fields.revision}` : '', fields.date ?? ''].filter(Boolean).join('  ·  '),
+    textWidthMax * 0.4,
+    fontSize,
+    'bold',
+  );
   const stampWidth = stamp ? textWidth(stamp, fontSize, 'bold') + 16 : 0;
   const titleLines = wrapText(fields.title, textWidthMax - stampWidth, titleSize, 'bold');
   let baseline = y + titleSize * 0.93;
