@@ -380,26 +380,33 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
     const pageRoom = bottom - top - header.height;
     // The header keeps its first row (or, of a row taller than a page, two lines of it) and what leads
     // into the table (a heading) with it: a header alone at the foot of a page says nothing.
+    const leadHeight = lead?.height ?? 0;
     const first = rows.length > 0 ? drawRow(rows[0], 'normal') : undefined;
-    const kept = first && first.height <= pageRoom ? first.height : 2 * step + pad;
-    room((lead?.height ?? 0) + header.height + kept);
+    const kept = first && first.height <= pageRoom - leadHeight ? first.height : 2 * step + pad;
+    room(leadHeight + header.height + kept);
     lead?.draw();
     put(header, 'bold');
+    // True while nothing stands under the header just put: a row that does not fit there is split, not
+    // moved on, or the header would stand alone.
+    let underHeader = true;
     for (const cells of rows) {
       let row = drawRow(cells, 'normal');
-      if (row.height <= pageRoom) {
+      if (y + row.height <= bottom || (!underHeader && row.height <= pageRoom)) {
         if (y + row.height > bottom) {
           newPage();
           put(header, 'bold');
         }
         put(row, 'normal');
+        underHeader = false;
         continue;
       }
-      // Taller than a page: as many lines as fit here, the rest under the header on the next pages.
+      // Taller than the room under the header: as many lines as fit here, the rest under the header on
+      // the next pages.
       for (;;) {
-        const fit = Math.max(y <= top + header.height ? 1 : 0, Math.floor((bottom - y - pad) / step));
+        const fit = Math.max(underHeader ? 1 : 0, Math.floor((bottom - y - pad) / step));
         if (linesOf(row) <= fit) {
           put(row, 'normal');
+          underHeader = false;
           break;
         }
         if (fit > 0) {
@@ -408,6 +415,7 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
         }
         newPage();
         put(header, 'bold');
+        underHeader = true;
       }
     }
   }
