@@ -53,16 +53,10 @@ export function textWidth(text: string, size: number, weight: FontWeight = 'norm
   let units = 0;
   for (const char of text) {
     const code = char.codePointAt(0) ?? 32;
-    units +=
-      code >= 32 && code < 127
-        ? table[code - 32]
-        : (SYMBOLS[char]?.[face] ?? (ZERO_WIDTH.test(char) ? 0 : FALLBACK[face]));
+    units += code >= 32 && code < 127 ? table[code - 32] : (SYMBOLS[char]?.[face] ?? FALLBACK[face]);
   }
   return (units / UNITS_PER_EM) * size;
 }
-
-/** Marks that join the character before them and joiners, which take no width of their own. */
-const ZERO_WIDTH = /^(?:\p{Mn}|\p{Me}|\u200b|\u200c|\u200d|\u2060|\p{Variation_Selector})$/u;
 
 /**
  * Breaks `text` into lines no wider than `maxWidth` px at `size` px, at spaces; a single word wider
