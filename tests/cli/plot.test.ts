@@ -149,6 +149,6 @@ describe('discern plot', () => {
     const { code, files } = await runVerb([path, '--view', 'service', '--out', 'x.svg'], plotCommand);
     expect(code).toBe(0);
     const svg = String(files.get('x.svg'));
-    expect(svg).toMatch(/>Rev rev rev[^<]*…</);
+    expect(svg).toMatch(/>Rev rev rev[^<]*… {2}· {2}\d{4}-\d{2}-\d{2}</);
   });
 });

@@ -16,6 +16,9 @@ export const studyStripDefaults = {
   indent: 10,
   /** Lines of notes kept; more are summarised with "…". */
   noteLines: 2,
+  /** Lines of the title and of the study's details kept, so that the longest fields leave the plot its room. */
+  titleLines: 2,
+  detailLines: 2,
 } as const;
 
 /** What the strip prints; empty fields are left out. */
@@ -55,7 +58,16 @@ export function studyStrip(
   options: StudyStripOptions,
 ): { items: Primitive[]; height: number } {
   const { x, y, width, fontSize } = options;
-  const { titleScale, detailScale, lineHeight, barWidth, indent, noteLines } = studyStripDefaults;
+  const {
+    titleScale,
+    detailScale,
+    lineHeight,
+    barWidth,
+    indent,
+    noteLines,
+    titleLines: titleMost,
+    detailLines,
+  } = studyStripDefaults;
   const titleSize = fontSize * titleScale;
   const detailSize = fontSize * detailScale;
   const textX = x + barWidth + indent;
@@ -63,15 +75,16 @@ export function studyStrip(
   const items: Primitive[] = [];
 
   // Line 1: title left, revision and date right (the title wraps if the two would meet). The stamp takes
-  // at most two fifths of the line, so that a long revision mark cannot squeeze the title out.
-  const stamp = truncateText(
-    [fields.revision ? `Rev ${fields.revision}` : '', fields.date ?? ''].filter(Boolean).join('  ·  '),
-    textWidthMax * 0.4,
-    fontSize,
-    'bold',
-  );
+  // at most two fifths of the line, so that a long revision mark cannot squeeze the title out: the date
+  // stays whole and the mark is shortened.
+  const date = fields.date ?? '';
+  const dateRoom = date ? textWidth(`  ·  ${date}`, fontSize, 'bold') : 0;
+  const mark = fields.revision
+    ? truncateText(`Rev ${fields.revision}`, Math.max(0, textWidthMax * 0.4 - dateRoom), fontSize, 'bold')
+    : '';
+  const stamp = [mark, date].filter(Boolean).join('  ·  ');
   const stampWidth = stamp ? textWidth(stamp, fontSize, 'bold') + 16 : 0;
-  const titleLines = wrapText(fields.title, textWidthMax - stampWidth, titleSize, 'bold');
+  const titleLines = keptLines(wrapText(fields.title, textWidthMax - stampWidth, titleSize, 'bold'), titleMost);
   let baseline = y + titleSize * 0.93;
   titleLines.forEach((line, i) =>
     items.push(
@@ -97,13 +110,14 @@ export function studyStrip(
     .filter((d): d is string => Boolean(d))
     .join(' · ');
   const blocks: [string, string[], string][] = [
-    ['strip-details', wrapText(details, textWidthMax, detailSize), SHEET_COLOURS.text],
+    ['strip-details', keptLines(wrapText(details, textWidthMax, detailSize), detailLines), SHEET_COLOURS.text],
   ];
-  if (fields.notes) {
-    const lines = wrapText(fields.notes, textWidthMax, detailSize);
-    const kept = lines.length > noteLines ? [...lines.slice(0, noteLines - 1), `${lines[noteLines - 1]} …`] : lines;
-    blocks.push(['strip-notes', kept, SHEET_COLOURS.text]);
-  }
+  if (fields.notes)
+    blocks.push([
+      'strip-notes',
+      keptLines(wrapText(fields.notes, textWidthMax, detailSize), noteLines),
+      SHEET_COLOURS.text,
+    ]);
   if (fields.caution)
     blocks.push(['caution', wrapText(fields.caution, textWidthMax, detailSize), SHEET_COLOURS.mutedText]);
   for (const [role, lines, fill] of blocks)
@@ -144,4 +158,9 @@ function text(
   weight: 'normal' | 'bold' = 'normal',
 ): TextItem {
   return { type: 'text', role, x, y, text: value, size, anchor: 'start', fill, weight };
+}
+
+// Accepts wrapped lines and how many to keep; the first lines, the last kept ending "…" when more were cut.
+function keptLines(lines: string[], most: number): string[] {
+  return lines.length > most ? [...lines.slice(0, most - 1), `${lines[most - 1]} …`] : lines;
 }

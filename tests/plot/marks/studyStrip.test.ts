@@ -23,7 +23,31 @@ describe('studyStrip', () => {
       barWidth: 5,
       indent: 10,
       noteLines: 2,
+      titleLines: 2,
+      detailLines: 2,
     });
+  });
+
+  it('keeps the date whole and shortens a long revision mark; keeps two lines of a long title and details', () => {
+    const long = 'Wmmmmmm '.repeat(25).trim();
+    const { items, height } = studyStrip(
+      {
+        ...fields,
+        title: long,
+        study: long,
+        site: long,
+        preparedBy: long,
+        revision: 'B (issued for construction, supersedes A)',
+      },
+      { x: 0, y: 0, width: 480, fontSize: 11 },
+    );
+    const text = (role: string) => items.flatMap((p) => (p.type === 'text' && p.role === role ? [p.text] : []));
+    expect(text('strip-stamp')[0]).toMatch(/^Rev B \(issued[^·]*… {2}· {2}2026-12-01$/);
+    expect(text('sheet-title')).toHaveLength(2);
+    expect(text('sheet-title')[1]).toMatch(/ …$/);
+    expect(text('strip-details')).toHaveLength(2);
+    expect(text('strip-details')[1]).toMatch(/ …$/);
+    expect(height).toBeLessThan(200);
   });
 
   it('studyStrip prints title, revision and date, details and the whole caution across the width', () => {
