@@ -234,18 +234,7 @@ describe('a fuse above a relay', () => {
 const SINGLE_PHASE_ON_GENERATOR: StudyInput = {
   discern: 1,
   name: 'single-phase panel on a generator',
-  source: {
-    kind: 'generator',
-    id: 'G1',
-    bus: 'GEN',
-    rating: '500 kVA',
-    voltage: 480,
-    xdSubtransient: 0.12,
-    xdTransient: 0.2,
-    xd: 2.0,
-    tdSubtransient: 0.015,
-    tdTransient: 0.4,
-  },
+  source: standbySource(),
   buses: [
     { id: 'GEN', voltage: 480 },
     { id: 'PNL', voltage: 480 },
