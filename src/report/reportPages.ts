@@ -389,8 +389,8 @@ export function reportPagesOf(report: StudyReport, setup: PageSetup): ReportPage
     // True while nothing stands under the header just put: a row that does not fit there is split, not
     // moved on, or the header would stand alone.
     let underHeader = true;
-    for (const cells of rows) {
-      let row = drawRow(cells, 'normal');
+    for (const [index, cells] of rows.entries()) {
+      let row = index === 0 && first ? first : drawRow(cells, 'normal');
       if (y + row.height <= bottom || (!underHeader && row.height <= pageRoom)) {
         if (y + row.height > bottom) {
           newPage();
