@@ -17,8 +17,9 @@ export interface EmbeddedFontOptions {
  * A TrueType face embedded as a composite font (ISO 32000-1 §9.7): Type0 with `Identity-H` encoding
  * over a CIDFontType2 whose CIDs are the font's glyph ids, looked up in its cmap. The file carries a
  * subset of the face (the glyphs used, under a subset tag), a `/W` array of their advance widths from
- * `hmtx`, and a ToUnicode CMap so the text copies out as written. A character the face lacks prints
- * as its .notdef box.
+ * `hmtx`, and a ToUnicode CMap so the text copies out as written. Text is composed first (Unicode
+ * NFC): glyphs are placed one by one, without shaping, so a letter typed as a base and a combining
+ * accent prints as the face's accented letter. A character the face lacks prints as its .notdef box.
  * @example createEmbeddedFont(dejaVuSans, { name: 'F1', postScriptName: 'DejaVuSans' }).encode('A').operand // "<0024>"
  */
 export function createEmbeddedFont(bytes: Uint8Array, options: EmbeddedFontOptions): PdfFont {
@@ -48,7 +49,7 @@ export function createEmbeddedFont(bytes: Uint8Array, options: EmbeddedFontOptio
     encode(text) {
       let operand = '<';
       let advance = 0;
-      for (const char of text) {
+      for (const char of text.normalize('NFC')) {
         const glyph = font.glyphIdOf(char.codePointAt(0)!);
         if (glyph !== 0 && !used.has(glyph)) used.set(glyph, char);
         operand += codeOf(glyph);

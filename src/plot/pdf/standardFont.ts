@@ -4,8 +4,10 @@ import { pdfLiteral } from './pdfSyntax.ts';
 
 /**
  * Helvetica or Helvetica-Bold, a standard font every PDF reader has (ISO 32000-1 §9.6.2.2), in
- * WinAnsiEncoding: what prints when no face is given to embed. Characters WinAnsi lacks are spelled
- * out ("Ω" as "Ohm", "≥" as ">=") or printed as "?". Text is measured with the sheet's DejaVu Sans
+ * WinAnsiEncoding: what prints when no face is given to embed. Text is composed first (Unicode NFC), so
+ * a letter typed as a base and a combining accent prints as its accented letter; characters WinAnsi
+ * lacks are spelled out ("Ω" as "Ohm", "≥" as ">=") or printed as "?", and an accent with no composed
+ * form is left out. Text is measured with the sheet's DejaVu Sans
  * widths (`textWidth`), the widths it was laid out with, so a centred label stays centred within a
  * few per cent.
  * @example createStandardFont('F1', 'normal').encode('≥ 0.3 s').operand // "(>= 0.3 s)"
@@ -15,8 +17,8 @@ export function createStandardFont(name: string, weight: 'normal' | 'bold'): Pdf
   return {
     name,
     encode(text) {
-      const spelled = [...text]
-        .map((char) => (winAnsiByte(char) === undefined ? (SPELLED[char] ?? '?') : char))
+      const spelled = [...text.normalize('NFC')]
+        .map((char) => (winAnsiByte(char) === undefined ? (SPELLED[char] ?? (COMBINING.test(char) ? '' : '?')) : char))
         .join('');
       const bytes = [...spelled].map((char) => String.fromCharCode(winAnsiByte(char) ?? 63)).join('');
       return { operand: pdfLiteral(bytes), advance: textWidth(spelled, 1, weight) };
@@ -47,6 +49,9 @@ const WIN_ANSI_HIGH = [
   0x20ac, -1, 0x201a, 0x0192, 0x201e, 0x2026, 0x2020, 0x2021, 0x02c6, 0x2030, 0x0160, 0x2039, 0x0152, -1, 0x017d, -1,
   -1, 0x2018, 0x2019, 0x201c, 0x201d, 0x2022, 0x2013, 0x2014, 0x02dc, 0x2122, 0x0161, 0x203a, 0x0153, -1, 0x017e, 0x0178,
 ];
+
+// A combining mark (Unicode general category M): an accent drawn over the character before it.
+const COMBINING = /^\p{M}$/u;
 
 // Engineering symbols the sheets and reports print, spelled in WinAnsi characters.
 // prettier-ignore

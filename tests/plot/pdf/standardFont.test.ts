@@ -18,6 +18,14 @@ describe('createStandardFont', () => {
     expect(advance).toBeCloseTo(textWidth('R >= 2 Ohm ?', 1, 'bold'), 12);
   });
 
+  it('prints a letter typed as a base and a combining accent as its accented letter (Unicode NFC), and drops an accent with no composed form', () => {
+    const font = createStandardFont('F1', 'normal');
+    expect(font.encode('Jose\u0301 Nun\u0303ez').operand).toBe(font.encode('José Nuñez').operand);
+    expect(font.encode('Jose\u0301').operand).toBe('(Jos\\351)');
+    expect(font.encode('Jose\u0301').advance).toBeCloseTo(textWidth('José', 1), 12);
+    expect(font.encode('q\u0307').operand).toBe('(q)');
+  });
+
   it('writes a Type1 font dictionary only once referenced', () => {
     const writer = createPdfWriter();
     const font = createStandardFont('F2', 'bold');
