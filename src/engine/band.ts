@@ -1,4 +1,5 @@
 import type { Characteristic } from './devices/characteristic.ts';
+import type { EdgeParts } from './devices/composite.ts';
 import { fuseBand } from './devices/fuse.ts';
 import { relayBand } from './devices/relay.ts';
 import { thermalMagneticBand } from './devices/thermalMagnetic.ts';
@@ -46,6 +47,13 @@ export interface Band {
   currentLimitingFrom: number;
   /** Problems found while building the band that do not stop it (e.g. a setting outside its usual range). */
   diagnostics: string[];
+  /**
+   * Each edge as the elements it is the fastest of (long-time, short-time, instantaneous…), where the
+   * family builds it so: a current that changes with time reads them one by one, since each element
+   * runs on its own (`edgeTimeOnCurrent`). Absent for a band of one curve (a fuse), or one scaled or
+   * combined from others; such a band is read as one element.
+   */
+  parts?: { min: EdgeParts; max: EdgeParts };
 }
 
 /** One half-cycle, rounded as practitioners draw it: below this a TCC proves nothing (IEEE 242; the half-cycle limit, common practice). */

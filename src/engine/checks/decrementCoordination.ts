@@ -1,8 +1,7 @@
 import type { Analysis } from '../analysis.ts';
-import { scaleBand } from '../band.ts';
 import { addImpedance, ZERO_IMPEDANCE, type Impedance } from '../fault/impedance.ts';
 import { reflectImpedance } from '../fault/reflect.ts';
-import { decrementOperatingTime, generatorDecrement, type GeneratorDecrement } from '../generator/index.ts';
+import { edgeTimeOnCurrent, generatorDecrement, type GeneratorDecrement } from '../generator/index.ts';
 import { locationBusOf, pathTo, type Network } from '../network/index.ts';
 import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
 import type { Source } from '../study/index.ts';
@@ -21,15 +20,17 @@ type AnalysedTree = Pick<Analysis, 'study' | 'network' | 'faults' | 'bands' | 'p
  * the subtransient value toward the sustained one, so each pair is also checked for a bolted
  * three-phase fault at the downstream device's bus with the current following the generator's
  * decrement behind the impedance of the path (`generatorDecrement`, IEEE Std 551): the downstream
- * device's latest clearing and the upstream device's earliest operation are each found by
- * integrating 1 / t(I(t)) to 1 over the decaying current (`decrementOperatingTime`, the
- * time-varying-current method of IEEE C37.112), and the two must meet the pair's rule as the overlap
+ * device's latest clearing and the upstream device's earliest operation are each found element by
+ * element (`edgeTimeOnCurrent`): an inverse-time element integrates 1 / t(I(t)) to 1 over the decaying
+ * current (the time-varying-current method of IEEE C37.112), a definite-time or instantaneous element
+ * operates only if the current stays above its pickup for its delay, and the device acts on the first;
+ * the two times must meet the pair's rule as the overlap
  * finder applies it: `opens × timeRatio ≥ clears + margin` (for a fuse pair the downstream total
  * clearing within 75 % of the upstream minimum melting, common practice). A downstream device that
  * never operates on the decaying current fails. Motor contribution is left out (it decays within a few
- * cycles). Each band is integrated whole: an instantaneous or definite-time element the current leaves
- * before it completes still counts toward operation, though a real element resets, so where either device
- * has one its time can be early. A pair on a single-phase bus is told not worked out (an info). Findings
+ * cycles). An upstream inverse-time element that gains on the decaying current while the downstream
+ * device's definite-time element never completes fails here, though the two are selective at every
+ * constant current. A pair on a single-phase bus is told not worked out (an info). Findings
  * only for a tree whose source is a generator.
  *
  * @example decrementFindings(analysisOfGeneratorTree)
@@ -113,15 +114,16 @@ function decrementTimesOf(
   const decrement = decrementAt(analysis, generator, busId);
   const toBus = generator.voltage / volts;
   const current = (seconds: number) => decrement.ampsAt(seconds) * toBus;
-  const onBus = (id: string) =>
-    scaleBand(analysis.bands.get(id)!, locationBusOf(network, network.devices.get(id)!).voltage / volts);
-  const downBand = onBus(pair.downstream);
-  const upBand = onBus(pair.upstream);
+  // Each device reads its own band, element by element, on the current at its own voltage.
+  const timeOf = (id: string, edge: 'min' | 'max') => {
+    const toDevice = volts / locationBusOf(network, network.devices.get(id)!).voltage;
+    return edgeTimeOnCurrent(analysis.bands.get(id)!, edge, (seconds) => current(seconds) * toDevice);
+  };
   return {
     current,
     sustainedAmps: decrement.sustainedAmps * toBus,
-    clears: decrementOperatingTime((amps) => downBand.maxTime(amps), current),
-    opens: decrementOperatingTime((amps) => upBand.minTime(amps), current),
+    clears: timeOf(pair.downstream, 'max'),
+    opens: timeOf(pair.upstream, 'min'),
   };
 }
 

@@ -102,6 +102,20 @@ export interface CompositeEdge {
   breakpoints: number[];
   /** Lowest current (A) at which the edge is finite. */
   minAmps: number;
+  /** What the edge is made of: its elements, its floor and its added time, as given to `compositeEdge`. */
+  parts: EdgeParts;
+}
+
+/**
+ * An edge as the elements it is the fastest of: `time(I) = max(floor, min over elements of t(I)) + add`.
+ * A current that changes with time needs them one by one, since each element runs on its own.
+ */
+export interface EdgeParts {
+  elements: readonly EdgeElement[];
+  /** Seconds the edge is never faster than. */
+  floor: number;
+  /** Seconds added to every time (a relay's breaker interrupting time). */
+  add: number;
 }
 
 /**
@@ -263,6 +277,7 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
     packed: { count, kinds, params, pickups, tables, flats, finishedBy, bounds, leading },
     breakpoints: uniqueAscending(points),
     minAmps: Math.min(Infinity, ...pickups),
+    parts: { elements, floor, add },
   };
 }
 
@@ -422,5 +437,6 @@ export function bandOfEdges(
     maxAmps: Infinity,
     currentLimitingFrom,
     diagnostics,
+    parts: { min: low.parts, max: high.parts },
   };
 }

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
+import { standbySource } from '../generator/fixtures.ts';
 
 /**
  * A 500 kVA, 480 V generator feeding a fuse UP, a cable and a fuse DOWN below it. X″d = X′d = Xd = 0.25 pu
@@ -136,5 +137,72 @@ describe('decrementFindings', () => {
       "LOW over BR on the generator's decaying current: not worked out",
     ]);
     expect(single.explanation).toMatch(/^S is a single-phase bus/);
+  });
+
+  describe('each element on its own: a short-time delay the current leaves unfinished gives no head start', () => {
+    /**
+     * The standby generator (X″d 0.12, X′d 0.2 pu, T′d 0.4 s; excitation support held at `sustained` ×
+     * rated, 601.4 A) on bus GEN, a relay UP (IEEE C37.112 very inverse, CT 800:5, pickup 4 A, TD 6) and a
+     * 400 A trip unit DOWN feeding a short cable: long time 10 s at 6 ×, short time 6 × flat 0.3 s, so its
+     * latest short-time clearing is 0.3 + 0.05 s above 6 × 400 × 1.1 = 2640 A (the default tolerances).
+     * Invented settings.
+     */
+    const onGenerator = (sustained: number) => {
+      const source = { ...standbySource(), sustained };
+      const study: StudyInput = {
+        discern: 1,
+        name: 'short time on a standby generator',
+        source,
+        buses: [
+          { id: 'GEN', voltage: 480 },
+          { id: 'PNL', voltage: 480 },
+        ],
+        cables: [{ id: 'C1', from: 'GEN', to: 'PNL', size: '500 kcmil', length: '20 ft' }],
+        devices: [
+          {
+            id: 'UP',
+            feeds: 'GEN',
+            characteristic: {
+              kind: 'relay',
+              ct: '800:5',
+              timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 4, timeDial: 6 },
+            },
+          },
+          {
+            id: 'DOWN',
+            feeds: 'C1',
+            characteristic: {
+              kind: 'trip-unit',
+              sensor: 400,
+              longTime: { pickup: 1, delay: 10 },
+              shortTime: { pickup: 6, delay: 0.3 },
+            },
+          },
+        ],
+      };
+      return analyseStudy(parseStudy(study)).findings.find((f) => f.id === 'decrement:UP/DOWN')!;
+    };
+
+    it('with the current held at 3 × rated (1804 A) DOWN clears on long time, after UP: not selective', () => {
+      // The current falls below 2640 A at about t = 0.4 · ln(1203 / 836) = 0.146 s (hand-worked from the
+      // transient term), before the 0.35 s short-time delay: the element resets and never operates. DOWN
+      // clears on its long-time element, integrated from zero, a little before its 12 × (2400 / 1804)² =
+      // 21.24 s at the sustained current; integrating DOWN's band whole would have taken the short time
+      // 0.146 / 0.35 done and cleared near 12 s, ahead of UP.
+      const finding = onGenerator(3);
+      expect([finding.severity, finding.title]).toEqual([
+        'fail',
+        "UP over DOWN on the generator's decaying current: margin not met",
+      ]);
+      expect(finding.worst!.downTime).toBeGreaterThan(20);
+      expect(finding.worst!.downTime).toBeLessThan(12 * (2400 / 1804.2196) ** 2);
+      expect(finding.worst!.upTime).toBeLessThan(finding.worst!.downTime);
+    });
+
+    it('with the current held at 5 × rated (3007 A, above the short-time pickup) DOWN clears at 0.35 s: selective', () => {
+      const finding = onGenerator(5);
+      expect(finding.severity).toBe('ok');
+      assertInDelta(finding.worst!.downTime, 0.35, 1e-9);
+    });
   });
 });
