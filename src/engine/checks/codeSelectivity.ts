@@ -1,7 +1,8 @@
 import type { Analysis } from '../analysis.ts';
-import { formatAmps, formatVolts } from '../quantity/format.ts';
-import type { Device, Study } from '../study/index.ts';
+import { formatAmps, formatSeconds, formatVolts } from '../quantity/format.ts';
+import type { Bus, Device, Study } from '../study/index.ts';
 import { locationBusOf } from '../network/index.ts';
+import { decrementTimesOf, separationText } from './decrementCoordination.ts';
 import { illustrativeSentence, isIllustrative } from './coordination.ts';
 import { nameOf } from './context.ts';
 import type { Finding } from './finding.ts';
@@ -36,19 +37,10 @@ export interface ScenarioPairs {
  * `codeSelectivity: "above-0.1-s"` an interval is accepted where the downstream device clears within
  * 0.1 s at its lowest current, as some authorities having jurisdiction accept; the authority having
  * jurisdiction decides which reading applies. `labelled` lists the scenarios checked on each finding.
- * A generator's decaying current is not checked here. Over the full range it needs no check of its own:
- * the pairs are classed at every constant current from the lower pickup to the largest fault, and where
- * the upstream device's earliest operation is no earlier than the downstream device's latest clearing at
- * each of those currents, the time-varying integrals of 1 / t over any current falling through them keep
- * that order (the upstream integrand is the smaller at every instant), so a decaying current shows no
- * overlap the constant currents do not. With "above-0.1-s" the integral of a whole band would give an
- * instantaneous or definite-time element that never completes (the current falls below its pickup first)
- * a head start it does not have, since such an element resets (IEEE C37.112's integral is an inverse-time
- * element's), and fail pairs whose elements, read one by one, are selective. Left unchecked here is a
- * real head start: two inverse-time elements whose overlap at high current is accepted (the marked device
- * clearing within 0.1 s there) while the current decays before the marked device clears.
- * `decrementFindings` reads each pair on the decaying current of a fault at its own downstream device's
- * bus (three-phase buses only), with the same whole-band reading.
+ * On a tree fed by a generator the chain is also read on the decaying current of a fault at the marked
+ * device's bus (`decayProblems`): each device element by element, where an upstream inverse-time element
+ * can gain while a downstream definite-time element resets, so a pair selective at every constant current
+ * can still fail there.
  *
  * @example codeSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }])
  */
@@ -80,6 +72,8 @@ export function codeSelectivityFindings(
         }
         const here = locationBusOf(part.network, device);
         const largest = part.faults.buses.get(here.id)?.max.largest ?? Infinity;
+        // The pairs found wanting at constant currents, which the decaying current need not name again.
+        const wanting = new Set<string>();
         for (const pair of chain)
           for (const fault of pair.cases) {
             referenceVolts = fault.referenceVolts;
@@ -94,12 +88,17 @@ export function codeSelectivityFindings(
               const lowest = part.bands.get(device.id)?.maxTime(atDevice) ?? Infinity;
               if (option === 'above-0.1-s' && lowest <= AHJ_SELECTIVITY_SECONDS) continue;
               failing.push(scenario.label);
+              wanting.add(pair.upstream);
               const below = pair.downstream === device.id ? '' : ` (on the supply side of ${nameOf(device)})`;
               problems.push(
                 `${scenario.label}: ${pair.upstreamName} and ${pair.downstreamName}${below} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(Math.min(interval.toAmps, limit), 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
               );
             }
           }
+        const unproven = chain.filter((pair) => !wanting.has(pair.upstream));
+        const decaying = decayProblems(part, device, unproven, here, option === 'above-0.1-s');
+        if (decaying.length > 0) failing.push(scenario.label);
+        problems.push(...decaying.map((problem) => `${scenario.label}: ${problem}`));
       }
     if (checked.length === 0) continue;
     const scope =
@@ -131,6 +130,41 @@ export function codeSelectivityFindings(
   }
   return findings;
 }
+
+/**
+ * On a generator's tree, where the chain's pairs meet on the decaying current of a bolted three-phase fault at
+ * the marked device's bus (`decrementTimesOf`, each element of a device on its own): an upstream device that
+ * can operate before the downstream one clears. Its inverse-time element may gain there while the downstream
+ * device's definite-time element resets, which the constant currents do not show. With `aboveTenthSecond`, a
+ * pair is accepted where the marked device clears within 0.1 s on that current. None on a single-phase bus,
+ * whose decrement is not worked out. `chain` holds the pairs still to be shown (those found wanting at
+ * constant currents are named already).
+ */
+function decayProblems(part: Analysis, device: Device, chain: Chain, here: Bus, aboveTenthSecond: boolean): string[] {
+  const source = part.study.source;
+  if (source.kind !== 'generator' || part.faults.buses.get(here.id)?.phases !== 3 || chain.length === 0) return [];
+  const problems: string[] = [];
+  let markedClears: number | undefined;
+  for (const pair of chain) {
+    const { clears, opens, current, sustainedAmps } = decrementTimesOf(part, source, pair, here.id);
+    const { rule } = pair;
+    // An upstream device that never operates, or only once the pair's rule is met, is selective (the
+    // overlap finder's reading: `opens · timeRatio ≥ clears + margin`).
+    if (opens === Infinity || opens * rule.timeRatio >= clears + rule.margin) continue;
+    markedClears ??= decrementTimesOf(part, source, { upstream: pair.upstream, downstream: device.id }, here.id).clears;
+    if (aboveTenthSecond && markedClears <= AHJ_SELECTIVITY_SECONDS) continue;
+    const below = pair.downstream === device.id ? '' : ` (on the supply side of ${nameOf(device)})`;
+    const times = Number.isFinite(clears)
+      ? `${pair.downstreamName}${below} clears by ${formatSeconds(clears)} and ${pair.upstreamName} can operate from ${formatSeconds(opens)}: ${separationText(clears, opens, rule, pair.downstreamName, pair.upstreamName)}`
+      : `${pair.downstreamName}${below} never clears and ${pair.upstreamName} can operate from ${formatSeconds(opens)}`;
+    problems.push(
+      `on the generator's decaying current (a fault at ${here.name ?? here.id}, ${formatAmps(current(0), 3)} falling to ${formatAmps(sustainedAmps, 3)}), ${times}`,
+    );
+  }
+  return problems;
+}
+
+type Chain = ReturnType<typeof upstreamChain>;
 
 // Accepts an analysed tree and a device; its pairs with each device above it, nearest first.
 function upstreamChain(part: Analysis, deviceId: string) {

@@ -99,11 +99,15 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
   return findings;
 }
 
-// Accepts a generator tree, one of its pairs and the downstream device's bus; the current of a bolted
-// three-phase fault there (A at the bus) against time, its sustained value, the downstream device's latest
-// clearing and the upstream device's earliest operation on it (s; Infinity where never), both bands on
-// the bus's voltage.
-function decrementTimesOf(
+/**
+ * A pair on the generator's decaying current for a bolted three-phase fault at a bus of its tree: the
+ * current there (A at the bus) against time, its sustained value, the downstream device's latest clearing
+ * and the upstream device's earliest operation (s; `Infinity` where never), each device's band read
+ * element by element on the current at its own voltage (`edgeTimeOnCurrent`).
+ *
+ * @example decrementTimesOf(analysis, generator, { upstream: 'GEN-CB', downstream: 'F1' }, 'PNL').clears // s
+ */
+export function decrementTimesOf(
   analysis: AnalysedTree,
   generator: Generator,
   pair: { upstream: string; downstream: string },
@@ -127,8 +131,13 @@ function decrementTimesOf(
   };
 }
 
-// Accepts the two times (s, both finite), the pair's rule and the two names; the separation against the rule, in words.
-function separationText(clears: number, opens: number, rule: MarginRule, down: string, up: string): string {
+/**
+ * The separation of a pair's two times on a decaying current against its rule, in words: the margin, or
+ * for a fuse rule the downstream clearing as a share of the upstream operation. Accepts finite times (s).
+ *
+ * @example separationText(0.2, 0.35, rule, 'F1', 'MAIN') // 'a margin of 0.15 s against the required 0.2 s'
+ */
+export function separationText(clears: number, opens: number, rule: MarginRule, down: string, up: string): string {
   if (rule.timeRatio === 1)
     return `a margin of ${formatSeconds(opens - clears)} against the required ${formatSeconds(rule.margin)}`;
   const needed =

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
+import { standbySource } from '../generator/fixtures.ts';
 
 const tripUnit = (sensor: number, shortOrInstantaneous: Record<string, unknown>) => ({
   kind: 'trip-unit' as const,
@@ -66,5 +67,73 @@ describe('NFPA 70 700.32 selective coordination', () => {
       (f) => f.kind === 'code-selectivity',
     )!;
     expect(code.severity).toBe('fail');
+  });
+
+  describe('on a generator: the decaying current of a fault at the marked device', () => {
+    /**
+     * The standby generator (X″d 0.12, X′d 0.2 pu, T′d 0.4 s, held at 3 × rated: 1804 A) on bus GEN feeds
+     * fuse UP and, below it, breaker DOWN on the emergency system: long time 10 s at 6 × 400 A, short time
+     * 6 × flat 0.3 s. UP's invented melting curve is a little above DOWN's long time up to DOWN's
+     * short-time pickup (2640 A with its tolerance) and falls steeply to 0.5 s by 3000 A. At every constant
+     * current UP's melting, taken at 75 % for preloading, is no earlier than DOWN's clearing (thin margins
+     * only). On the decaying current UP melts part way while the current is above 2640 A, where DOWN's
+     * short-time element resets unfinished (the current falls below it at about 0.146 s), and DOWN's long
+     * time, integrated from zero, clears after 75 % of UP's melting. Invented curves.
+     */
+    const generatorStudy = (codeSelectivity?: 'above-0.1-s'): StudyInput => ({
+      discern: 1,
+      name: 'emergency breaker below a fuse on a standby generator',
+      ...(codeSelectivity ? { coordination: { codeSelectivity } } : {}),
+      source: { ...standbySource(), sustained: 3 },
+      buses: [
+        { id: 'GEN', voltage: 480 },
+        { id: 'PNL', voltage: 480 },
+      ],
+      cables: [{ id: 'C1', from: 'GEN', to: 'PNL', size: '500 kcmil', length: '20 ft' }],
+      devices: [
+        {
+          id: 'UP',
+          feeds: 'GEN',
+          characteristic: {
+            kind: 'fuse',
+            illustrative: true,
+            minimumMelting: [
+              [600, 272],
+              [1804, 29.92],
+              [2640, 14.28],
+              [3000, 0.5],
+              [30_000, 0.48],
+            ],
+            totalClearing: [
+              [600, 353.6],
+              [1804, 38.08],
+              [2640, 17.68],
+              [3000, 0.65],
+              [30_000, 0.6],
+            ],
+          },
+        },
+        {
+          id: 'DOWN',
+          feeds: 'C1',
+          system: 'emergency',
+          characteristic: tripUnit(400, { shortTime: { pickup: 6, delay: 0.3 } }),
+        },
+      ],
+    });
+
+    it('fails a pair that no constant current shows overlapping, where the upstream fuse gains while the short time resets', () => {
+      const { findings } = analyseScenarios(parseStudy(generatorStudy()));
+      const pair = findings.filter((f) => f.kind === 'coordination');
+      expect(pair.map((f) => f.status)).not.toContain('overlap');
+      const code = findings.find((f) => f.kind === 'code-selectivity')!;
+      expect(code.severity).toBe('fail');
+      expect(code.explanation).toMatch(
+        /Not shown: Normal: on the generator's decaying current \(a fault at GEN, 5010 A falling to 1800 A\), DOWN clears by 21 s and UP can operate from 27\.\d s: DOWN's clearing is 76\.\d % of UP's earliest operation, against at most 75 % required/,
+      );
+      // The marked device clears after 21 s there, so "above-0.1-s" does not accept it either.
+      const above = analyseScenarios(parseStudy(generatorStudy('above-0.1-s'))).findings;
+      expect(above.find((f) => f.kind === 'code-selectivity')!.severity).toBe('fail');
+    });
   });
 });
