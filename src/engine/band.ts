@@ -1,5 +1,5 @@
 import type { Characteristic } from './devices/characteristic.ts';
-import type { EdgeParts } from './devices/composite.ts';
+import type { EdgeElement, EdgeParts } from './devices/composite.ts';
 import { fuseBand } from './devices/fuse.ts';
 import { relayBand } from './devices/relay.ts';
 import { thermalMagneticBand } from './devices/thermalMagnetic.ts';
@@ -50,8 +50,9 @@ export interface Band {
   /**
    * Each edge as the elements it is the fastest of (long-time, short-time, instantaneous…), where the
    * family builds it so: a current that changes with time reads them one by one, since each element
-   * runs on its own (`edgeTimeOnCurrent`). Absent for a band of one curve (a fuse), or one scaled or
-   * combined from others; such a band is read as one element.
+   * runs on its own (`edgeTimeOnCurrent`). A scaled band has its band's, scaled; a band combined from
+   * others (`fastestOf`) has theirs where they share floor and added time. Absent for a band of one curve
+   * (a fuse), which is read as one element.
    */
   parts?: { min: EdgeParts; max: EdgeParts };
 }
@@ -106,6 +107,8 @@ function scaledBandOf(band: Band, currentFactor: number): Band {
   const inverse = 1 / currentFactor;
   // Scratch for the currents at the band's own base, kept with the scaled band and grown when needed.
   let ownAmps = new Float64Array(0);
+  // The elements scaled when first asked for (by a decaying current), not for every band drawn.
+  let parts: Band['parts'];
   return {
     minTime: (amps) => minTime(amps * inverse),
     maxTime: (amps) => maxTime(amps * inverse),
@@ -123,7 +126,24 @@ function scaledBandOf(band: Band, currentFactor: number): Band {
     maxAmps: band.maxAmps * currentFactor,
     currentLimitingFrom: band.currentLimitingFrom * currentFactor,
     diagnostics: band.diagnostics,
+    get parts() {
+      if (band.parts && !parts)
+        parts = { min: scaledParts(band.parts.min, currentFactor), max: scaledParts(band.parts.max, currentFactor) };
+      return parts;
+    },
   };
+}
+
+// Accepts an edge's parts and a current factor; the same elements drawn at `I · factor`.
+function scaledParts(parts: EdgeParts, currentFactor: number): EdgeParts {
+  const inverse = 1 / currentFactor;
+  const elements = parts.elements.map((element): EdgeElement => ({
+    pickup: element.pickup * currentFactor,
+    time: (amps) => element.time(amps * inverse),
+    joins: element.joins.map((amps) => amps * currentFactor),
+    levels: element.levels,
+  }));
+  return { elements, floor: parts.floor, add: parts.add };
 }
 
 /**
@@ -196,5 +216,20 @@ export function fastestOf(bands: Band[]): Band {
     maxAmps: Math.max(...bands.map((band) => band.maxAmps)),
     currentLimitingFrom: Math.min(...bands.map((band) => band.currentLimitingFrom)),
     diagnostics: bands.flatMap((band) => band.diagnostics),
+    parts: fastestParts(bands),
   };
+}
+
+// Accepts bands seeing one current; their elements as one device's, where every band has them on the
+// same floor and added time (so the fastest of all is the fastest element); otherwise none.
+function fastestParts(bands: Band[]): Band['parts'] {
+  const edge = (side: 'min' | 'max'): EdgeParts | undefined => {
+    const all = bands.map((band) => band.parts?.[side]);
+    const [first] = all;
+    if (!first || all.some((parts) => !parts || parts.floor !== first.floor || parts.add !== first.add)) return;
+    return { elements: all.flatMap((parts) => parts!.elements), floor: first.floor, add: first.add };
+  };
+  const min = edge('min');
+  const max = edge('max');
+  return min && max ? { min, max } : undefined;
 }

@@ -264,6 +264,8 @@ export function compositeEdge(elements: readonly EdgeElement[], floor = 0, add =
     points.push(element.pickup, ...element.joins);
     if (!element.reach) continue;
     for (const level of levels) {
+      // A level under the floor is hidden by it (an instantaneous trip's opening time under its clearing).
+      if (level < floor) continue;
       // Keep a crossing only where the edge really sits at that level (the elements hand over there).
       const amps = element.reach(level);
       const at = Math.max(level, floor) + add;

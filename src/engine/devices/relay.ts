@@ -33,8 +33,11 @@ export function relayBand(relay: Relay): Band {
     if (timeOvercurrent) {
       elements.push(overcurrentElement(timeOvercurrent, ratio * pickupFactor, timeFactor, lowestScale));
     }
+    // An instantaneous element operates once the current has lasted the relay's operating time (or its
+    // delay): a current that falls below its pickup sooner leaves it unoperated (what a decaying current reads).
     if (instantaneous) {
-      elements.push(definiteElement(instantaneous.pickup * ratio * pickupFactor, instantaneous.delay * timeFactor));
+      const seconds = Math.max(instantaneous.delay * timeFactor, operatingTime);
+      elements.push(definiteElement(instantaneous.pickup * ratio * pickupFactor, seconds));
     }
     return compositeEdge(elements, operatingTime, add);
   };

@@ -25,10 +25,12 @@ export function thermalMagneticBand(breaker: ThermalMagnetic): Band {
   const magneticLow = magneticAmps * (1 - magnetic.tolerance / 100);
   const fastFrom = Math.min(magneticLow, minimum.lastAmps);
   const low = compositeEdge([minimum, definiteElement(fastFrom, openingTime)], openingTime);
+  // The magnetic trip commits once the current has lasted the opening time; the breaker then clears by
+  // the floor, the clearing time, whatever the current does after (what a decaying current reads).
   const high = compositeEdge(
     [
       tableElement(thermal.maximum, rating),
-      definiteElement(magneticAmps * (1 + magnetic.tolerance / 100), clearingTime),
+      definiteElement(magneticAmps * (1 + magnetic.tolerance / 100), openingTime),
     ],
     clearingTime,
   );

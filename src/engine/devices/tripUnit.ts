@@ -69,9 +69,9 @@ export function tripUnitBand(unit: TripUnit): Band {
       elements.push(short);
     }
     elements.push(i2tElement(ratedAmps * pickupFactor, longSeconds, longThrough, longFlatFrom));
-    if (instantaneous) {
-      elements.push(definiteElement(instantaneousPickup, side < 0 ? unit.openingTime : unit.clearingTime));
-    }
+    // An instantaneous trip commits once the current has lasted the opening time; the breaker then
+    // clears by the edge's floor whatever the current does after (what a decaying current reads).
+    if (instantaneous) elements.push(definiteElement(instantaneousPickup, unit.openingTime));
     return compositeEdge(elements, side < 0 ? unit.openingTime : unit.clearingTime);
   };
   const flagged = unit.currentLimiting || unit.currentLimitingFrom !== undefined;

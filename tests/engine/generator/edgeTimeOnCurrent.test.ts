@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { bandOf } from '../../../src/engine/band.ts';
+import { bandOf, fastestOf, groundFaultBandOf, scaleBand } from '../../../src/engine/band.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
 import { decrementOperatingTime, edgeTimeOnCurrent } from '../../../src/engine/generator/index.ts';
 import { assertInDelta } from '../../asserts.ts';
@@ -57,6 +57,25 @@ describe('edgeTimeOnCurrent', () => {
     assertInDelta(edgeTimeOnCurrent(BREAKER, 'max', step), 0.3, 1e-6);
   });
 
+  it('an instantaneous trip that outlasts its opening time clears by the clearing time, whatever the current does after; a shorter one leaves the breaker on long time (hand-worked)', () => {
+    // BREAKER with an instantaneous trip at 6 × 1000 A: opening time half a cycle (1/120 s), clearing 3 cycles (0.05 s).
+    const withInstantaneous = bandOf(
+      readCharacteristic({
+        kind: 'trip-unit',
+        sensor: 1000,
+        longTime: { pickup: 1, delay: 10 },
+        shortTime: { pickup: 4, delay: 0.3 },
+        instantaneous: { pickup: 6 },
+        tolerance: NO_TOLERANCE,
+      }),
+    );
+    const lasting = (t: number) => (t < 0.03 ? 10_000 : 3000);
+    assertInDelta(edgeTimeOnCurrent(withInstantaneous, 'max', lasting), 0.05, 1e-9);
+    // 10 kA for 5 ms only: long time at 3.6 s there, then 40 s at 3000 A.
+    const brief = (t: number) => (t < 0.005 ? 10_000 : 3000);
+    assertInDelta(edgeTimeOnCurrent(withInstantaneous, 'max', brief), 0.005 + 40 * (1 - 0.005 / 3.6), 1e-6);
+  });
+
   it('adds a relay edge’s breaker time once, after the first element operates (IEEE C37.112 very inverse, TD 2, 600 A; instantaneous 6000 A)', () => {
     const relay = bandOf(
       readCharacteristic({
@@ -74,9 +93,36 @@ describe('edgeTimeOnCurrent', () => {
     const falling = (t: number) => (t < 0.5 ? 5000 : 3000);
     const expected = 0.5 + curve(3000) * (1 - 0.5 / curve(5000)) + breaker;
     assertInDelta(edgeTimeOnCurrent(relay, 'max', falling), expected, 1e-6);
-    // 8000 A at the start picks up the instantaneous element, which operates at once.
-    const high = (t: number) => (t < 0.01 ? 8000 : 3000);
-    assertInDelta(edgeTimeOnCurrent(relay, 'max', high), relay.maxTime(8000), 1e-9);
+    // 8000 A for 0.01 s, less than the relay's 1-cycle operating time (1/60 s): the instantaneous element
+    // drops out unoperated, and the very inverse element carries on from what it gained.
+    const brief = (t: number) => (t < 0.01 ? 8000 : 3000);
+    const onCurve = 0.01 + curve(3000) * (1 - 0.01 / curve(8000)) + breaker;
+    assertInDelta(edgeTimeOnCurrent(relay, 'max', brief), onCurve, 1e-6);
+    // 8000 A for 0.02 s outlasts it: the instantaneous element operates, and the breaker clears 5 cycles later.
+    const lasting = (t: number) => (t < 0.02 ? 8000 : 3000);
+    assertInDelta(edgeTimeOnCurrent(relay, 'max', lasting), 1 / 60 + 5 / 60, 1e-6);
+  });
+
+  it('reads a band drawn on another voltage as the band itself at the current on its own voltage (IEEE 242 voltage-ratio reflection)', () => {
+    // BREAKER at 480 V drawn on a 12.47 kV sheet: 12.47 kV amps × 12 470 / 480 are its own amps.
+    const onSheet = scaleBand(BREAKER, 480 / 12_470);
+    const factor = 12_470 / 480;
+    const step = (t: number) => (t < 0.2 ? 6000 : 3000);
+    expect(onSheet.parts).toBeDefined();
+    assertInDelta(
+      edgeTimeOnCurrent(onSheet, 'max', (t) => step(t) / factor),
+      39.4,
+      1e-6,
+    );
+    // A phase and ground band on one floor and added time read as one device's elements.
+    const unit = readCharacteristic({
+      kind: 'trip-unit',
+      sensor: 1000,
+      longTime: { pickup: 1, delay: 10 },
+      ground: { pickup: 0.3, delay: 0.2 },
+    });
+    const both = fastestOf([bandOf(unit), groundFaultBandOf(unit)!]);
+    expect(both.parts?.max.elements.length).toBe(2);
   });
 
   it('reads a fuse, one curve each edge, as the whole edge', () => {
@@ -98,7 +144,10 @@ describe('edgeTimeOnCurrent', () => {
     expect(edgeTimeOnCurrent(fuse, 'min', decay)).toBe(decrementOperatingTime(fuse.minTime, decay));
   });
 
-  it('is never earlier than the whole edge integrated, and equals the edge at any constant current (property)', () => {
+  it('on a falling current lies between the edge at its starting current and any time by which the edge at the current then has elapsed; at a constant current it is the edge (property)', () => {
+    // Each element sees its largest current first, so none is faster than at I(0); and where
+    // edge(I(T)) ≤ T, the element fastest at I(T) has been picked up throughout and done by then.
+    const grid = Array.from({ length: 61 }, (_, k) => 10 ** (-3 + k / 10));
     fc.assert(
       fc.property(
         fc.double({ min: 1.5, max: 10, noNaN: true }),
@@ -118,12 +167,13 @@ describe('edgeTimeOnCurrent', () => {
           );
           const decay = (t: number) => start * (floor + (1 - floor) * Math.exp(-t / tau));
           for (const edge of ['min', 'max'] as const) {
-            const whole = decrementOperatingTime(edge === 'min' ? band.minTime : band.maxTime, decay);
-            expect(edgeTimeOnCurrent(band, edge, decay)).toBeGreaterThanOrEqual(whole * (1 - 1e-6));
-            const constant = edge === 'min' ? band.minTime(start) : band.maxTime(start);
-            const read = edgeTimeOnCurrent(band, edge, () => start);
-            if (constant === Infinity) expect(read).toBe(Infinity);
-            else assertInDelta(read, constant, 1e-6);
+            const at = edge === 'min' ? band.minTime : band.maxTime;
+            const read = edgeTimeOnCurrent(band, edge, decay);
+            expect(read).toBeGreaterThanOrEqual(at(start) * (1 - 1e-6));
+            for (const t of grid) if (at(decay(t)) <= t) expect(read).toBeLessThanOrEqual(t * (1 + 1e-6));
+            const constant = edgeTimeOnCurrent(band, edge, () => start);
+            if (at(start) === Infinity) expect(constant).toBe(Infinity);
+            else assertInDelta(constant, at(start), 1e-6);
           }
         },
       ),
