@@ -51,6 +51,7 @@ export function codeSelectivityFindings(
 ): Finding[] {
   const option = study.coordination.codeSelectivity;
   const findings: Finding[] = [];
+  const decayTimes: DecayTimes = new Map();
   for (const device of study.devices) {
     if (!device.system) continue;
     const { article, system } = SELECTIVITY_ARTICLE[device.system];
@@ -96,7 +97,7 @@ export function codeSelectivityFindings(
             }
           }
         const unproven = chain.filter((pair) => !wanting.has(pair.upstream));
-        const decaying = decayProblems(part, device, unproven, here, option === 'above-0.1-s');
+        const decaying = decayProblems(part, device, unproven, here, option === 'above-0.1-s', decayTimes);
         if (decaying.length > 0) failing.push(scenario.label);
         problems.push(...decaying.map((problem) => `${scenario.label}: ${problem}`));
       }
@@ -140,31 +141,52 @@ export function codeSelectivityFindings(
  * whose decrement is not worked out. `chain` holds the pairs still to be shown (those found wanting at
  * constant currents are named already).
  */
-function decayProblems(part: Analysis, device: Device, chain: Chain, here: Bus, aboveTenthSecond: boolean): string[] {
+function decayProblems(
+  part: Analysis,
+  device: Device,
+  chain: Chain,
+  here: Bus,
+  aboveTenthSecond: boolean,
+  decayTimes: DecayTimes,
+): string[] {
   const source = part.study.source;
   if (source.kind !== 'generator' || part.faults.buses.get(here.id)?.phases !== 3 || chain.length === 0) return [];
   const problems: string[] = [];
   let markedClears: number | undefined;
+  // A panel's marked devices share the pairs above it: each pair is read once per bus.
+  const timesOf = (pair: { upstream: string; downstream: string }) => {
+    let byPair = decayTimes.get(part);
+    if (!byPair) decayTimes.set(part, (byPair = new Map()));
+    const key = `${here.id}|${pair.upstream}|${pair.downstream}`;
+    let times = byPair.get(key);
+    if (!times) byPair.set(key, (times = decrementTimesOf(part, source, pair, here.id)));
+    return times;
+  };
   for (const pair of chain) {
-    const { clears, opens, current, sustainedAmps } = decrementTimesOf(part, source, pair, here.id);
+    const { clears, opens, current, sustainedAmps } = timesOf(pair);
     const { rule } = pair;
     // An upstream device that never operates, or only once the pair's rule is met, is selective (the
     // overlap finder's reading: `opens · timeRatio ≥ clears + margin`).
     if (opens === Infinity || opens * rule.timeRatio >= clears + rule.margin) continue;
-    markedClears ??= decrementTimesOf(part, source, { upstream: pair.upstream, downstream: device.id }, here.id).clears;
-    if (aboveTenthSecond && markedClears <= AHJ_SELECTIVITY_SECONDS) continue;
+    if (aboveTenthSecond) {
+      markedClears ??= timesOf({ upstream: pair.upstream, downstream: device.id }).clears;
+      if (markedClears <= AHJ_SELECTIVITY_SECONDS) continue;
+    }
     const below = pair.downstream === device.id ? '' : ` (on the supply side of ${nameOf(device)})`;
     const times = Number.isFinite(clears)
       ? `${pair.downstreamName}${below} clears by ${formatSeconds(clears)} and ${pair.upstreamName} can operate from ${formatSeconds(opens)}: ${separationText(clears, opens, rule, pair.downstreamName, pair.upstreamName)}`
       : `${pair.downstreamName}${below} never clears and ${pair.upstreamName} can operate from ${formatSeconds(opens)}`;
     problems.push(
-      `on the generator's decaying current (a fault at ${here.name ?? here.id}, ${formatAmps(current(0), 3)} falling to ${formatAmps(sustainedAmps, 3)}), ${times}`,
+      `on the generator's decaying current (a fault at ${here.name ?? here.id} (${formatVolts(here.voltage)}), ${formatAmps(current(0), 3)} falling to ${formatAmps(sustainedAmps, 3)}), ${times}`,
     );
   }
   return problems;
 }
 
 type Chain = ReturnType<typeof upstreamChain>;
+
+/** Pairs already read on a decaying current, by tree, then by bus and pair. */
+type DecayTimes = Map<Analysis, Map<string, ReturnType<typeof decrementTimesOf>>>;
 
 // Accepts an analysed tree and a device; its pairs with each device above it, nearest first.
 function upstreamChain(part: Analysis, deviceId: string) {
