@@ -194,7 +194,7 @@ function scenarioBlocks(analysis: Analysis): ReportBlock[] {
       ? [
           {
             type: 'paragraph' as const,
-            text: 'Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain (IEEE Std 551); on a generator, each pair is also checked on the decaying fault current, each device operating when the integral of 1 / t(I(t)) reaches 1 (the time-varying-current method of IEEE C37.112). The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.',
+            text: 'Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain (IEEE Std 551); on a generator, each pair is also checked on the decaying fault current, each element of a device on its own: an inverse-time element operates when the integral of 1 / t(I(t)) over its curve reaches 1 (the time-varying-current method of IEEE C37.112), a definite-time or instantaneous element once the current has stayed above its pickup for its delay. The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.',
           },
           { type: 'list' as const, items: generators },
         ]
