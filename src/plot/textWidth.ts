@@ -44,15 +44,23 @@ export type FontWeight = 'normal' | 'bold';
 
 /**
  * Advance width in px of `text` set in DejaVu Sans at `size` px (no kerning, which DejaVu applies
- * little of at label sizes).
+ * little of at label sizes), composed as the PDF fonts draw it (Unicode NFC).
  * @example textWidth('480 V', 11) // ≈ 28.2
  */
 export function textWidth(text: string, size: number, weight: FontWeight = 'normal'): number {
+  return widthOf(text, size, weight, false);
+}
+
+// Text is measured composed (Unicode NFC), as the PDF fonts place it: an accent typed after its letter,
+// or the ohm sign (U+2126, the letter Ω once composed). Only text with a character from U+0300 on is
+// composed; below that NFC changes nothing.
+function widthOf(text: string, size: number, weight: FontWeight, composed: boolean): number {
   const face = weight === 'bold' ? 1 : 0;
   const table = face ? BOLD : REGULAR;
   let units = 0;
   for (const char of text) {
     const code = char.codePointAt(0) ?? 32;
+    if (code >= 0x300 && !composed) return widthOf(text.normalize('NFC'), size, weight, true);
     units += code >= 32 && code < 127 ? table[code - 32] : (SYMBOLS[char]?.[face] ?? FALLBACK[face]);
   }
   return (units / UNITS_PER_EM) * size;

@@ -15,6 +15,11 @@ describe('textWidth', () => {
     assertInDelta(textWidth('480 V', 11), ((1303 * 3 + 651 + 1401) / 2048) * 11, 1e-12);
     assertInDelta(textWidth('Ω', 2048), 1565, 1e-12);
   });
+
+  it('measures text composed (Unicode NFC), as the PDF fonts place it: an accent after its letter, the ohm sign as Ω', () => {
+    expect(textWidth('Jose\u0301', 11)).toBe(textWidth('José', 11));
+    expect(textWidth('R = 5 \u2126', 11)).toBe(textWidth('R = 5 Ω', 11));
+  });
 });
 
 describe('wrapText', () => {
