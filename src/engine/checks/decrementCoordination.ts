@@ -121,7 +121,10 @@ export function decrementTimesOf(
   // Each device reads its own band, element by element, on the current at its own voltage.
   const timeOf = (id: string, edge: 'min' | 'max') => {
     const toDevice = volts / locationBusOf(network, network.devices.get(id)!).voltage;
-    return edgeTimeOnCurrent(analysis.bands.get(id)!, edge, (seconds) => current(seconds) * toDevice);
+    // The decrement never rises (X″d ≤ X′d ≤ Xd, held at most at its support floor).
+    return edgeTimeOnCurrent(analysis.bands.get(id)!, edge, (seconds) => current(seconds) * toDevice, {
+      fallingFrom: current(0) * toDevice,
+    });
   };
   return {
     current,

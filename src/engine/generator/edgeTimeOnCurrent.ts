@@ -1,9 +1,22 @@
 import type { Band } from '../band.ts';
+
+/** The earliest time (s) an element is followed to; `decrementOperatingTime` starts its integral there. */
+const START_SECONDS = 1e-6;
 import {
   decrementOperatingTime,
   type CurrentAgainstTime,
   type DecrementOperatingTimeOptions,
 } from './decrementOperatingTime.ts';
+
+/** Options of `edgeTimeOnCurrent`: the integral's, and what is known of the current. */
+export interface EdgeTimeOptions extends DecrementOperatingTimeOptions {
+  /**
+   * The current at t = 0 (A) of a current that never rises after it, as a generator's decrement (X″d ≤ X′d ≤
+   * Xd, held at most at its support floor): an element below its pickup there, or no faster there than the
+   * first element so far, is not followed. Leave it out for a current that may rise.
+   */
+  fallingFrom?: number;
+}
 
 /**
  * The time (s) one edge of a band takes on a current that changes with time: `min` the earliest
@@ -28,15 +41,26 @@ export function edgeTimeOnCurrent(
   band: Band,
   edge: 'min' | 'max',
   current: CurrentAgainstTime,
-  options?: DecrementOperatingTimeOptions,
+  options: EdgeTimeOptions = {},
 ): number {
   const parts = band.parts?.[edge];
   if (!parts) return decrementOperatingTime(edge === 'min' ? band.minTime : band.maxTime, current, options);
+  const { fallingFrom, ...integration } = options;
+  const horizon = integration.horizonSeconds ?? 1000;
+  // Flat elements first: they are quick to read, and once one operates by the floor no other can be
+  // faster; each later element is followed only as far as the first so far.
+  const elements = [...parts.elements].sort((a, b) => Number(a.reach !== undefined) - Number(b.reach !== undefined));
   let first = Infinity;
-  for (const element of parts.elements) {
+  for (const element of elements) {
+    if (first <= parts.floor || first <= START_SECONDS) break;
     const { pickup } = element;
     const time = (amps: number) => (amps >= pickup ? element.time(amps) : Infinity);
-    first = Math.min(first, decrementOperatingTime(time, current, options));
+    // On a falling current an element is at its fastest at the start.
+    if (fallingFrom !== undefined && !(time(fallingFrom) < first)) continue;
+    first = Math.min(
+      first,
+      decrementOperatingTime(time, current, { ...integration, horizonSeconds: Math.min(horizon, first) }),
+    );
   }
   return first === Infinity ? Infinity : Math.max(first, parts.floor) + parts.add;
 }

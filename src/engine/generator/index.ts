@@ -16,3 +16,4 @@ export type { DamagePoint, GeneratorDamageCurveOptions, GeneratorWithstandCurve 
 export { decrementOperatingTime } from './decrementOperatingTime.ts';
 export type { CurrentAgainstTime, DecrementOperatingTimeOptions } from './decrementOperatingTime.ts';
 export { edgeTimeOnCurrent } from './edgeTimeOnCurrent.ts';
+export type { EdgeTimeOptions } from './edgeTimeOnCurrent.ts';

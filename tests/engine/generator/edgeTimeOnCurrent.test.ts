@@ -170,6 +170,8 @@ describe('edgeTimeOnCurrent', () => {
             const at = edge === 'min' ? band.minTime : band.maxTime;
             const read = edgeTimeOnCurrent(band, edge, decay);
             expect(read).toBeGreaterThanOrEqual(at(start) * (1 - 1e-6));
+            // Told the current falls from `start`, it follows fewer elements to the same time.
+            expect(edgeTimeOnCurrent(band, edge, decay, { fallingFrom: start })).toBe(read);
             for (const t of grid) if (at(decay(t)) <= t) expect(read).toBeLessThanOrEqual(t * (1 + 1e-6));
             const constant = edgeTimeOnCurrent(band, edge, () => start);
             if (at(start) === Infinity) expect(constant).toBe(Infinity);
