@@ -107,8 +107,6 @@ function scaledBandOf(band: Band, currentFactor: number): Band {
   const inverse = 1 / currentFactor;
   // Scratch for the currents at the band's own base, kept with the scaled band and grown when needed.
   let ownAmps = new Float64Array(0);
-  // The elements scaled when first asked for (by a decaying current), not for every band drawn.
-  let parts: Band['parts'];
   return {
     minTime: (amps) => minTime(amps * inverse),
     maxTime: (amps) => maxTime(amps * inverse),
@@ -126,12 +124,26 @@ function scaledBandOf(band: Band, currentFactor: number): Band {
     maxAmps: band.maxAmps * currentFactor,
     currentLimitingFrom: band.currentLimitingFrom * currentFactor,
     diagnostics: band.diagnostics,
-    get parts() {
-      if (band.parts && !parts)
-        parts = { min: scaledParts(band.parts.min, currentFactor), max: scaledParts(band.parts.max, currentFactor) };
-      return parts;
-    },
+    parts: band.parts && new ScaledParts(band.parts, currentFactor),
   };
+}
+
+/** A band's parts drawn at `I · factor`, each edge scaled when first asked for (by a decaying current), not for every band drawn. */
+class ScaledParts {
+  #parts: NonNullable<Band['parts']>;
+  #factor: number;
+  #min?: EdgeParts;
+  #max?: EdgeParts;
+  constructor(parts: NonNullable<Band['parts']>, currentFactor: number) {
+    this.#parts = parts;
+    this.#factor = currentFactor;
+  }
+  get min(): EdgeParts {
+    return (this.#min ??= scaledParts(this.#parts.min, this.#factor));
+  }
+  get max(): EdgeParts {
+    return (this.#max ??= scaledParts(this.#parts.max, this.#factor));
+  }
 }
 
 // Accepts an edge's parts and a current factor; the same elements drawn at `I · factor`.
