@@ -71,7 +71,8 @@ export function decrementOperatingTime(
   let a = Math.log(START_SECONDS);
   let h = 0.05;
   while (a < end) {
-    const b = Math.min(a + h, end);
+    // The grid does not depend on the horizon: a step may pass it, and a time beyond it is never.
+    const b = a + h;
     const step = b - a;
     const estimate = simpsonPair(g, a, b);
     if (estimate.value === Infinity) {
@@ -80,13 +81,16 @@ export function decrementOperatingTime(
         h = step / 2;
         continue;
       }
-      return Math.exp(b);
+      return Math.exp(b) <= horizonSeconds ? Math.exp(b) : Infinity;
     }
     if (estimate.error > tolerance * step && step > SMALLEST_LOG_STEP) {
       h = step / 2;
       continue;
     }
-    if (done + estimate.value >= 1) return Math.exp(rootInStep(g, a, b, 1 - done));
+    if (done + estimate.value >= 1) {
+      const at = Math.exp(rootInStep(g, a, b, 1 - done));
+      return at <= horizonSeconds ? at : Infinity;
+    }
     done += estimate.value;
     a = b;
     // A smooth step lets the next one grow.

@@ -52,14 +52,18 @@ export function edgeTimeOnCurrent(
   const elements = [...parts.elements].sort((a, b) => Number(a.reach !== undefined) - Number(b.reach !== undefined));
   let first = Infinity;
   for (const element of elements) {
-    if (first <= parts.floor || first <= START_SECONDS) break;
+    if (first <= parts.floor) break;
     const { pickup } = element;
     const time = (amps: number) => (amps >= pickup ? element.time(amps) : Infinity);
     // On a falling current an element is at its fastest at the start.
     if (fallingFrom !== undefined && !(time(fallingFrom) < first)) continue;
     first = Math.min(
       first,
-      decrementOperatingTime(time, current, { ...integration, horizonSeconds: Math.min(horizon, first) }),
+      // The integral needs a horizon past its start; an element faster than that returns its start-time value anyway.
+      decrementOperatingTime(time, current, {
+        ...integration,
+        horizonSeconds: Math.min(horizon, Math.max(first, 2 * START_SECONDS)),
+      }),
     );
   }
   return first === Infinity ? Infinity : Math.max(first, parts.floor) + parts.add;

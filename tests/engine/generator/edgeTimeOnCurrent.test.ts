@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { bandOf, fastestOf, groundFaultBandOf, scaleBand } from '../../../src/engine/band.ts';
+import { bandOf, fastestOf, groundFaultBandOf, scaleBand, type Band } from '../../../src/engine/band.ts';
+import { compositeEdge, definiteElement, i2tElement, type EdgeElement } from '../../../src/engine/devices/composite.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
 import { decrementOperatingTime, edgeTimeOnCurrent } from '../../../src/engine/generator/index.ts';
 import { assertInDelta } from '../../asserts.ts';
@@ -182,4 +183,104 @@ describe('edgeTimeOnCurrent', () => {
       { seed: 70_101, numRuns: 60 },
     );
   });
+});
+
+/** A band whose two edges are one composite edge of the given elements (invented, for the checks below). */
+function bandOfParts(elements: EdgeElement[], floor: number, add: number): Band {
+  const edge = compositeEdge(elements, floor, add);
+  return {
+    minTime: edge.time,
+    maxTime: edge.time,
+    breakpoints: Float64Array.from(edge.breakpoints),
+    minAmps: edge.minAmps,
+    maxAmps: Infinity,
+    currentLimitingFrom: Infinity,
+    diagnostics: [],
+    parts: { min: edge.parts, max: edge.parts },
+  };
+}
+
+/** The plain reading the early exits must agree with: every element followed to the horizon. */
+function followingEveryElement(band: Band, current: (t: number) => number): number {
+  const parts = band.parts!.min;
+  let first = Infinity;
+  for (const element of parts.elements) {
+    const time = (amps: number) => (amps >= element.pickup ? element.time(amps) : Infinity);
+    first = Math.min(first, decrementOperatingTime(time, current));
+  }
+  return first === Infinity ? Infinity : Math.max(first, parts.floor) + parts.add;
+}
+
+describe('edgeTimeOnCurrent, its early exits', () => {
+  it('reads an element faster than a microsecond after one at a microsecond (floor 0)', () => {
+    const constant = () => 1000;
+    const band = bandOfParts([definiteElement(100, 1e-6), definiteElement(100, 5e-7)], 0, 0);
+    expect(edgeTimeOnCurrent(band, 'min', constant)).toBe(5e-7);
+    const added = bandOfParts([definiteElement(100, 1e-6), definiteElement(100, 0)], 0, 0.05);
+    expect(edgeTimeOnCurrent(added, 'min', constant)).toBe(0.05);
+  });
+
+  it.each([0.0128, 0.0163])(
+    'give the time of following every element fully where a %s s delay ends just as the current falls through its pickup',
+    (delay) => {
+      // Behind an element 0.5 % slower: followed only as far as that one, the integral must take the same steps.
+      const amps = (t: number) => 600 + 8000 * Math.exp(-t / 0.05);
+      const band = bandOfParts([definiteElement(100, delay * 1.005), definiteElement(amps(delay), delay)], 0, 0);
+      const full = followingEveryElement(band, amps);
+      assertInDelta(edgeTimeOnCurrent(band, 'min', amps, { fallingFrom: amps(0) }), full, 1e-9);
+    },
+  );
+
+  it.each(['decay', 'step'] as const)(
+    'give the time of following every element fully, on a %s current, even where a delay ends as the current leaves its pickup (property)',
+    (shape) => {
+      const seconds = fc.oneof(
+        fc.constantFrom(0, 5e-7, 1e-6, 2e-6, 0.0083, 0.05, 0.3, 1),
+        fc.double({ min: 1e-3, max: 5, noNaN: true }),
+      );
+      const element = fc.oneof(
+        fc.record({ kind: fc.constant('flat' as const), pickup: fc.constantFrom(100, 1000, 2000, 4000), seconds }),
+        fc.record({
+          kind: fc.constant('i2t' as const),
+          pickup: fc.constantFrom(100, 1000, 2000),
+          seconds: fc.constantFrom(0.05, 0.3, 1, 10),
+          through: fc.constantFrom(1000, 6000),
+          flatFrom: fc.constantFrom(Infinity, 3000, 8000),
+        }),
+      );
+      const toElement = (e: {
+        kind: 'flat' | 'i2t';
+        pickup: number;
+        seconds: number;
+        through?: number;
+        flatFrom?: number;
+      }) =>
+        e.kind === 'flat'
+          ? definiteElement(e.pickup, e.seconds)
+          : i2tElement(e.pickup, e.seconds, e.through!, e.flatFrom);
+      fc.assert(
+        fc.property(
+          fc.array(element, { minLength: 1, maxLength: 4 }),
+          fc.constantFrom(0, 0.0083, 0.05),
+          fc.constantFrom(0, 0.083),
+          fc.constantFrom(1500, 5000, 9000),
+          fc.constantFrom(0.01, 0.1, 1),
+          fc.constantFrom(0, 600, 2500, 12_000),
+          (elements, floor, add, start, tau, after) => {
+            const band = bandOfParts(elements.map(toElement), floor, add);
+            const amps =
+              shape === 'decay'
+                ? (t: number) => Math.max(Math.min(after, start), start * Math.exp(-t / tau))
+                : (t: number) => (t < tau / 10 ? start : after);
+            const falling = shape === 'decay' || after <= start;
+            const full = followingEveryElement(band, amps);
+            const read = edgeTimeOnCurrent(band, 'min', amps, falling ? { fallingFrom: start } : {});
+            if (full === Infinity || read === Infinity) expect(read).toBe(full);
+            else expect(Math.abs(read - full)).toBeLessThanOrEqual(1e-7 * full);
+          },
+        ),
+        { seed: 70_102, numRuns: 400 },
+      );
+    },
+  );
 });
