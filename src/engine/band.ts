@@ -154,6 +154,8 @@ function scaledParts(parts: EdgeParts, currentFactor: number): EdgeParts {
     time: (amps) => element.time(amps * inverse),
     joins: element.joins.map((amps) => amps * currentFactor),
     levels: element.levels,
+    // Kept so that curved elements are still followed after flat ones.
+    reach: element.reach && ((seconds: number) => element.reach!(seconds) * currentFactor),
   }));
   return { elements, floor: parts.floor, add: parts.add };
 }
