@@ -52,15 +52,17 @@ export function textWidth(text: string, size: number, weight: FontWeight = 'norm
 }
 
 // Text is measured composed (Unicode NFC), as the PDF fonts place it: an accent typed after its letter,
-// or the ohm sign (U+2126, the letter Ω once composed). Only text with a character from U+0300 on is
-// composed; below that NFC changes nothing.
+// or the ohm sign (U+2126, the letter Ω once composed). Only text with a character from U+0300 on that
+// is not one of the symbols above is composed: below U+0300 NFC changes nothing, and those symbols are
+// composed already.
 function widthOf(text: string, size: number, weight: FontWeight, composed: boolean): number {
   const face = weight === 'bold' ? 1 : 0;
   const table = face ? BOLD : REGULAR;
   let units = 0;
   for (const char of text) {
     const code = char.codePointAt(0) ?? 32;
-    if (code >= 0x300 && !composed) return widthOf(text.normalize('NFC'), size, weight, true);
+    if (code >= 0x300 && !composed && SYMBOLS[char] === undefined)
+      return widthOf(text.normalize('NFC'), size, weight, true);
     units += code >= 32 && code < 127 ? table[code - 32] : (SYMBOLS[char]?.[face] ?? FALLBACK[face]);
   }
   return (units / UNITS_PER_EM) * size;
@@ -119,15 +121,17 @@ function charactersOf(word: string): Iterable<string> {
 
 /**
  * `text` shortened with a trailing "…" so it fits in `maxWidth` px; unchanged when it already fits.
- * Measures each character once.
+ * Measures each character (a letter with its accents) once, composed as `textWidth` measures it.
  * @example truncateText('FEEDER-TO-COMPRESSOR-MCC', 60, 11) // 'FEEDER-T…'
  */
 export function truncateText(text: string, maxWidth: number, size: number, weight: FontWeight = 'normal'): string {
   if (textWidth(text, size, weight) <= maxWidth) return text;
+  // Measured as textWidth measures it: composed, a letter with its accents as one.
+  text = text.normalize('NFC');
   const room = maxWidth - textWidth('…', size, weight);
   let width = 0;
   let kept = '';
-  for (const char of text) {
+  for (const char of charactersOf(text)) {
     const w = textWidth(char, size, weight);
     if (width + w > room) break;
     width += w;
