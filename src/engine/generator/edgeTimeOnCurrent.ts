@@ -1,12 +1,12 @@
 import type { Band } from '../band.ts';
-
-/** The earliest time (s) an element is followed to; `decrementOperatingTime` starts its integral there. */
-const START_SECONDS = 1e-6;
 import {
   decrementOperatingTime,
   type CurrentAgainstTime,
   type DecrementOperatingTimeOptions,
 } from './decrementOperatingTime.ts';
+
+/** The time (s) `decrementOperatingTime` starts its integral at: a horizon must lie beyond it. */
+const START_SECONDS = 1e-6;
 
 /** Options of `edgeTimeOnCurrent`: the integral's, and what is known of the current. */
 export interface EdgeTimeOptions extends DecrementOperatingTimeOptions {
@@ -43,9 +43,9 @@ export function edgeTimeOnCurrent(
   current: CurrentAgainstTime,
   options: EdgeTimeOptions = {},
 ): number {
-  const parts = band.parts?.[edge];
-  if (!parts) return decrementOperatingTime(edge === 'min' ? band.minTime : band.maxTime, current, options);
   const { fallingFrom, ...integration } = options;
+  const parts = band.parts?.[edge];
+  if (!parts) return decrementOperatingTime(edge === 'min' ? band.minTime : band.maxTime, current, integration);
   const horizon = integration.horizonSeconds ?? 1000;
   // Flat elements first: they are quick to read, and once one operates by the floor no other can be
   // faster; each later element is followed only as far as the first so far.
