@@ -156,6 +156,7 @@ function scaledParts(parts: EdgeParts, currentFactor: number): EdgeParts {
     levels: element.levels,
     // Kept so that curved elements are still followed after flat ones.
     reach: element.reach && ((seconds: number) => element.reach!(seconds) * currentFactor),
+    label: element.label,
   }));
   return { elements, floor: parts.floor, add: parts.add };
 }

@@ -2,7 +2,7 @@ import type { Analysis } from '../analysis.ts';
 import { formatAmps, formatSeconds, formatVolts } from '../quantity/format.ts';
 import type { Bus, Device, Study } from '../study/index.ts';
 import { locationBusOf } from '../network/index.ts';
-import { decrementTimesOf, separationText } from './decrementCoordination.ts';
+import { decrementTimesOf, onElement, separationText } from './decrementCoordination.ts';
 import { illustrativeSentence, isIllustrative } from './coordination.ts';
 import { nameOf } from './context.ts';
 import type { Finding } from './finding.ts';
@@ -163,7 +163,7 @@ function decayProblems(
     return times;
   };
   for (const pair of chain) {
-    const { clears, opens, current, sustainedAmps } = timesOf(pair);
+    const { clears, opens, current, sustainedAmps, clearsBy, opensBy } = timesOf(pair);
     const { rule } = pair;
     // An upstream device that never operates, or only once the pair's rule is met, is selective (the
     // overlap finder's reading: `opens · timeRatio ≥ clears + margin`).
@@ -174,8 +174,8 @@ function decayProblems(
     }
     const below = pair.downstream === device.id ? '' : ` (on the supply side of ${nameOf(device)})`;
     const times = Number.isFinite(clears)
-      ? `${pair.downstreamName}${below} clears by ${formatSeconds(clears)} and ${pair.upstreamName} can operate from ${formatSeconds(opens)}: ${separationText(clears, opens, rule, pair.downstreamName, pair.upstreamName)}`
-      : `${pair.downstreamName}${below} never clears and ${pair.upstreamName} can operate from ${formatSeconds(opens)}`;
+      ? `${pair.downstreamName}${below} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${pair.upstreamName} can operate from ${formatSeconds(opens)}${onElement(opensBy)}: ${separationText(clears, opens, rule, pair.downstreamName, pair.upstreamName)}`
+      : `${pair.downstreamName}${below} never clears and ${pair.upstreamName} can operate from ${formatSeconds(opens)}${onElement(opensBy)}`;
     problems.push(
       `on the generator's decaying current (a fault at ${here.name ?? here.id} (${formatVolts(here.voltage)}), ${formatAmps(current(0), 3)} falling to ${formatAmps(sustainedAmps, 3)}), ${times}`,
     );

@@ -1,7 +1,7 @@
 import type { Analysis } from '../analysis.ts';
 import { addImpedance, ZERO_IMPEDANCE, type Impedance } from '../fault/impedance.ts';
 import { reflectImpedance } from '../fault/reflect.ts';
-import { edgeTimeOnCurrent, generatorDecrement, type GeneratorDecrement } from '../generator/index.ts';
+import { edgeOperationOnCurrent, generatorDecrement, type GeneratorDecrement } from '../generator/index.ts';
 import { locationBusOf, pathTo, type Network } from '../network/index.ts';
 import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
 import type { Source } from '../study/index.ts';
@@ -58,7 +58,12 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       });
       continue;
     }
-    const { current, sustainedAmps, clears, opens } = decrementTimesOf(analysis, source, pair, bus.id);
+    const { current, sustainedAmps, clears, opens, clearsBy, opensBy } = decrementTimesOf(
+      analysis,
+      source,
+      pair,
+      bus.id,
+    );
     const { rule } = pair;
     // The finder's slack and ratio (`up.minTime · timeRatio` against `down.maxTime + margin`).
     const slack = opens === Infinity ? Infinity : opens * rule.timeRatio - (clears + rule.margin);
@@ -77,7 +82,7 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       subjects: [up.id, down.id],
       explanation: !Number.isFinite(clears)
         ? `For ${at}, ${nameOf(down)} never clears: the current decays below what it needs before it can operate.`
-        : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : 'does not operate on the decaying current'}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
+        : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}${onElement(opensBy)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : 'does not operate on the decaying current'}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
       suggestion: ok
         ? undefined
         : Number.isFinite(clears)
@@ -102,8 +107,9 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
 /**
  * A pair on the generator's decaying current for a bolted three-phase fault at a bus of its tree: the
  * current there (A at the bus) against time, its sustained value, the downstream device's latest clearing
- * and the upstream device's earliest operation (s; `Infinity` where never), each device's band read
- * element by element on the current at its own voltage (`edgeTimeOnCurrent`).
+ * and the upstream device's earliest operation (s; `Infinity` where never) with the element of each that
+ * acts first, each device's band read element by element on the current at its own voltage
+ * (`edgeOperationOnCurrent`).
  *
  * @example decrementTimesOf(analysis, generator, { upstream: 'GEN-CB', downstream: 'F1' }, 'PNL').clears // s
  */
@@ -119,19 +125,34 @@ export function decrementTimesOf(
   const toBus = generator.voltage / volts;
   const current = (seconds: number) => decrement.ampsAt(seconds) * toBus;
   // Each device reads its own band, element by element, on the current at its own voltage.
-  const timeOf = (id: string, edge: 'min' | 'max') => {
+  const operationOf = (id: string, edge: 'min' | 'max') => {
     const toDevice = volts / locationBusOf(network, network.devices.get(id)!).voltage;
     // The decrement never rises (X″d ≤ X′d ≤ Xd, held at most at its support floor).
-    return edgeTimeOnCurrent(analysis.bands.get(id)!, edge, (seconds) => current(seconds) * toDevice, {
+    return edgeOperationOnCurrent(analysis.bands.get(id)!, edge, (seconds) => current(seconds) * toDevice, {
       fallingFrom: current(0) * toDevice,
     });
   };
+  const down = operationOf(pair.downstream, 'max');
+  const up = operationOf(pair.upstream, 'min');
   return {
     current,
     sustainedAmps: decrement.sustainedAmps * toBus,
-    clears: timeOf(pair.downstream, 'max'),
-    opens: timeOf(pair.upstream, 'min'),
+    clears: down.seconds,
+    opens: up.seconds,
+    /** The elements that clear and operate first, where the families name them ('long-time'…). */
+    clearsBy: down.element,
+    opensBy: up.element,
   };
+}
+
+/**
+ * Which element of a device acts first, as a parenthesis after its time: ` (on its long-time element)`;
+ * nothing where the family names none (a fuse, one curve).
+ *
+ * @example onElement('short-time') // ' (on its short-time element)'
+ */
+export function onElement(label: string | undefined): string {
+  return label ? ` (on its ${label} element)` : '';
 }
 
 /**

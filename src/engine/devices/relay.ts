@@ -4,6 +4,7 @@ import {
   compositeEdge,
   definiteElement,
   inverseShapeTime,
+  named,
   type EdgeElement,
   type InverseShape,
 } from './composite.ts';
@@ -31,13 +32,15 @@ export function relayBand(relay: Relay): Band {
     const timeFactor = 1 + (side * tolerance.time) / 100;
     const elements: EdgeElement[] = [];
     if (timeOvercurrent) {
-      elements.push(overcurrentElement(timeOvercurrent, ratio * pickupFactor, timeFactor, lowestScale));
+      elements.push(
+        named(overcurrentElement(timeOvercurrent, ratio * pickupFactor, timeFactor, lowestScale), 'time-overcurrent'),
+      );
     }
     // An instantaneous element operates once the current has lasted the relay's operating time (or its
     // delay): a current that falls below its pickup sooner leaves it unoperated (what a decaying current reads).
     if (instantaneous) {
       const seconds = Math.max(instantaneous.delay * timeFactor, operatingTime);
-      elements.push(definiteElement(instantaneous.pickup * ratio * pickupFactor, seconds));
+      elements.push(named(definiteElement(instantaneous.pickup * ratio * pickupFactor, seconds), 'instantaneous'));
     }
     return compositeEdge(elements, operatingTime, add);
   };

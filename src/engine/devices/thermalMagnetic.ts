@@ -1,5 +1,5 @@
 import type { Band } from '../band.ts';
-import { bandOfEdges, compositeEdge, definiteElement } from './composite.ts';
+import { bandOfEdges, compositeEdge, definiteElement, named } from './composite.ts';
 import { tableElement } from './pointTable.ts';
 import type { ThermalMagnetic } from './thermalMagneticSchema.ts';
 
@@ -24,13 +24,16 @@ export function thermalMagneticBand(breaker: ThermalMagnetic): Band {
   // the magnetic opening time from that point, the cautious side for a breaker above another device.
   const magneticLow = magneticAmps * (1 - magnetic.tolerance / 100);
   const fastFrom = Math.min(magneticLow, minimum.lastAmps);
-  const low = compositeEdge([minimum, definiteElement(fastFrom, openingTime)], openingTime);
+  const low = compositeEdge(
+    [named(minimum, 'thermal'), named(definiteElement(fastFrom, openingTime), 'magnetic')],
+    openingTime,
+  );
   // The magnetic trip commits once the current has lasted the opening time; the breaker then clears by
   // the floor, the clearing time, whatever the current does after (what a decaying current reads).
   const high = compositeEdge(
     [
-      tableElement(thermal.maximum, rating),
-      definiteElement(magneticAmps * (1 + magnetic.tolerance / 100), openingTime),
+      named(tableElement(thermal.maximum, rating), 'thermal'),
+      named(definiteElement(magneticAmps * (1 + magnetic.tolerance / 100), openingTime), 'magnetic'),
     ],
     clearingTime,
   );

@@ -1,5 +1,5 @@
 import type { Band } from '../band.ts';
-import { bandOfEdges, compositeEdge, definiteElement, i2tElement, type EdgeElement } from './composite.ts';
+import { bandOfEdges, compositeEdge, definiteElement, i2tElement, named, type EdgeElement } from './composite.ts';
 import type { TripUnit } from './tripUnitSchema.ts';
 
 /**
@@ -66,12 +66,12 @@ export function tripUnitBand(unit: TripUnit): Band {
           else longFlatFrom = longThrough * Math.sqrt(longSeconds / shortAtPickup);
         }
       }
-      elements.push(short);
+      elements.push(named(short, 'short-time'));
     }
-    elements.push(i2tElement(ratedAmps * pickupFactor, longSeconds, longThrough, longFlatFrom));
+    elements.push(named(i2tElement(ratedAmps * pickupFactor, longSeconds, longThrough, longFlatFrom), 'long-time'));
     // An instantaneous trip commits once the current has lasted the opening time; the breaker then
     // clears by the edge's floor whatever the current does after (what a decaying current reads).
-    if (instantaneous) elements.push(definiteElement(instantaneousPickup, unit.openingTime));
+    if (instantaneous) elements.push(named(definiteElement(instantaneousPickup, unit.openingTime), 'instantaneous'));
     return compositeEdge(elements, side < 0 ? unit.openingTime : unit.clearingTime);
   };
   const flagged = unit.currentLimiting || unit.currentLimitingFrom !== undefined;
@@ -116,7 +116,7 @@ export function groundBandOf(unit: TripUnit): Band | undefined {
   if (!ground) return undefined;
   const edge = (side: -1 | 1) => {
     const pickup = ground.pickup * sensor * (1 + (side * tolerance.groundPickup) / 100);
-    const element = delayedElement(ground, sensor, pickup, bandDelay(unit, side, ground.delay));
+    const element = named(delayedElement(ground, sensor, pickup, bandDelay(unit, side, ground.delay)), 'ground-fault');
     return compositeEdge([element], side < 0 ? unit.openingTime : unit.clearingTime);
   };
   const diagnostics: string[] = [];

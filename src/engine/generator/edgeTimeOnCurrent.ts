@@ -43,28 +43,46 @@ export function edgeTimeOnCurrent(
   current: CurrentAgainstTime,
   options: EdgeTimeOptions = {},
 ): number {
+  return edgeOperationOnCurrent(band, edge, current, options).seconds;
+}
+
+/**
+ * `edgeTimeOnCurrent`, with the element that operates first, by its name where the family gives one
+ * (`'long-time'`, `'instantaneous'`…): what tells an engineer why a device with a fast element still
+ * clears late on a decaying current.
+ *
+ * @example edgeOperationOnCurrent(band, 'max', decrement).element // 'long-time'
+ */
+export function edgeOperationOnCurrent(
+  band: Band,
+  edge: 'min' | 'max',
+  current: CurrentAgainstTime,
+  options: EdgeTimeOptions = {},
+): { seconds: number; element?: string } {
   const { fallingFrom, ...integration } = options;
   const parts = band.parts?.[edge];
-  if (!parts) return decrementOperatingTime(edge === 'min' ? band.minTime : band.maxTime, current, integration);
+  if (!parts)
+    return { seconds: decrementOperatingTime(edge === 'min' ? band.minTime : band.maxTime, current, integration) };
   const horizon = integration.horizonSeconds ?? 1000;
   // Flat elements first: they are quick to read, and once one operates by the floor no other can be
   // faster; each later element is followed only as far as the first so far.
   const elements = [...parts.elements].sort((a, b) => Number(a.reach !== undefined) - Number(b.reach !== undefined));
   let first = Infinity;
+  let by: string | undefined;
   for (const element of elements) {
     if (first <= parts.floor) break;
     const { pickup } = element;
     const time = (amps: number) => (amps >= pickup ? element.time(amps) : Infinity);
     // On a falling current an element is at its fastest at the start.
     if (fallingFrom !== undefined && !(time(fallingFrom) < first)) continue;
-    first = Math.min(
-      first,
-      // The integral needs a horizon past its start; an element faster than that returns its start-time value anyway.
-      decrementOperatingTime(time, current, {
-        ...integration,
-        horizonSeconds: Math.min(horizon, Math.max(first, 2 * START_SECONDS)),
-      }),
-    );
+    // The integral needs a horizon past its start; an element faster than that returns its start-time value anyway.
+    const seconds = decrementOperatingTime(time, current, {
+      ...integration,
+      horizonSeconds: Math.min(horizon, Math.max(first, 2 * START_SECONDS)),
+    });
+    if (seconds < first) [first, by] = [seconds, element.label];
   }
-  return first === Infinity ? Infinity : Math.max(first, parts.floor) + parts.add;
+  return first === Infinity
+    ? { seconds: Infinity }
+    : { seconds: Math.max(first, parts.floor) + parts.add, element: by };
 }

@@ -15,5 +15,5 @@ export { generatorDamageCurve, ARMATURE_THERMAL_CONSTANT, ARMATURE_THERMAL_SECON
 export type { DamagePoint, GeneratorDamageCurveOptions, GeneratorWithstandCurve } from './generatorDamageCurve.ts';
 export { decrementOperatingTime } from './decrementOperatingTime.ts';
 export type { CurrentAgainstTime, DecrementOperatingTimeOptions } from './decrementOperatingTime.ts';
-export { edgeTimeOnCurrent } from './edgeTimeOnCurrent.ts';
+export { edgeOperationOnCurrent, edgeTimeOnCurrent } from './edgeTimeOnCurrent.ts';
 export type { EdgeTimeOptions } from './edgeTimeOnCurrent.ts';

@@ -130,7 +130,7 @@ describe('NFPA 70 700.32 selective coordination', () => {
       const code = findings.find((f) => f.kind === 'code-selectivity')!;
       expect(code.severity).toBe('fail');
       const said = code.explanation.match(
-        /Not shown: Normal: on the generator's decaying current \(a fault at GEN \(480 V\), 5010 A falling to 1800 A\), DOWN clears by ([\d.]+) s and UP can operate from ([\d.]+) s: DOWN's clearing is ([\d.]+) % of UP's earliest operation, against at most 75 % required/,
+        /Not shown: Normal: on the generator's decaying current \(a fault at GEN \(480 V\), 5010 A falling to 1800 A\), DOWN clears by ([\d.]+) s \(on its long-time element\) and UP can operate from ([\d.]+) s: DOWN's clearing is ([\d.]+) % of UP's earliest operation, against at most 75 % required/,
       );
       expect(said).not.toBeNull();
       const [clears, opens, share] = said!.slice(1).map(Number);

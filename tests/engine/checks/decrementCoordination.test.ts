@@ -195,6 +195,10 @@ describe('decrementFindings', () => {
         "UP over DOWN on the generator's decaying current: margin not met",
       ]);
       expect(finding.worst!.downTime).toBeGreaterThan(20);
+      // The explanation says which element clears, and which operates upstream.
+      expect(finding.explanation).toMatch(
+        /DOWN clears by 21 s \(on its long-time element\) and UP can operate from [\d.]+ s \(on its time-overcurrent element\)/,
+      );
       expect(finding.worst!.downTime).toBeLessThan(12 * (2400 / 1804.2196) ** 2);
       expect(finding.worst!.upTime).toBeLessThan(finding.worst!.downTime);
     });
@@ -202,6 +206,7 @@ describe('decrementFindings', () => {
     it('with the current held at 5 × rated (3007 A, above the short-time pickup) DOWN clears at 0.35 s: selective', () => {
       const finding = onGenerator(5);
       expect(finding.severity).toBe('ok');
+      expect(finding.explanation).toMatch(/DOWN clears by 0\.35 s \(on its short-time element\)/);
       assertInDelta(finding.worst!.downTime, 0.35, 1e-9);
     });
   });

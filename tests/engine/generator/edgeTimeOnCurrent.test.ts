@@ -3,7 +3,11 @@ import { describe, expect, it } from 'vitest';
 import { bandOf, fastestOf, groundFaultBandOf, scaleBand, type Band } from '../../../src/engine/band.ts';
 import { compositeEdge, definiteElement, i2tElement, type EdgeElement } from '../../../src/engine/devices/composite.ts';
 import { readCharacteristic } from '../../../src/engine/devices/readCharacteristic.ts';
-import { decrementOperatingTime, edgeTimeOnCurrent } from '../../../src/engine/generator/index.ts';
+import {
+  decrementOperatingTime,
+  edgeOperationOnCurrent,
+  edgeTimeOnCurrent,
+} from '../../../src/engine/generator/index.ts';
 import { assertInDelta } from '../../asserts.ts';
 
 const NO_TOLERANCE = {
@@ -56,6 +60,9 @@ describe('edgeTimeOnCurrent', () => {
   it('a short-time delay the current outlasts operates at its delay: 6000 A for 0.5 s then 3000 A clears at 0.3 s', () => {
     const step = (t: number) => (t < 0.5 ? 6000 : 3000);
     assertInDelta(edgeTimeOnCurrent(BREAKER, 'max', step), 0.3, 1e-6);
+    // The element that acts is named, here and where the short time is left unfinished.
+    expect(edgeOperationOnCurrent(BREAKER, 'max', step).element).toBe('short-time');
+    expect(edgeOperationOnCurrent(BREAKER, 'max', (t) => (t < 0.2 ? 6000 : 3000)).element).toBe('long-time');
   });
 
   it('an instantaneous trip that outlasts its opening time clears by the clearing time, whatever the current does after; a shorter one leaves the breaker on long time (hand-worked)', () => {
