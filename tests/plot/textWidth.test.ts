@@ -28,14 +28,6 @@ describe('textWidth', () => {
     expect(truncateText(decomposed, width, 11)).toBe(truncateText(composed, width, 11));
     expect(truncateText(decomposed, textWidth('José…', 11) + 0.01, 11)).toBe('José…');
   });
-
-  it('truncateText keeps a letter with its accent, and cuts decomposed text where it cuts the composed', () => {
-    const decomposed = 'Jose\u0301 Dvor\u030ca\u0301k';
-    const composed = 'José Dvořák';
-    const width = textWidth('José Dvoř…', 11) + 0.01;
-    expect(truncateText(decomposed, width, 11)).toBe(truncateText(composed, width, 11));
-    expect(truncateText(decomposed, textWidth('José…', 11) + 0.01, 11)).toBe('José…');
-  });
 });
 
 describe('wrapText', () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
-import { standbySource } from '../generator/fixtures.ts';
+import { generatorPairStudy, standbySource } from '../generator/fixtures.ts';
 
 const tripUnit = (sensor: number, shortOrInstantaneous: Record<string, unknown>) => ({
   kind: 'trip-unit' as const,
@@ -71,6 +71,26 @@ describe('NFPA 70 700.32 selective coordination', () => {
   });
 
   describe('on a generator: the decaying current of a fault at the marked device', () => {
+    // UP's invented melting and clearing curves (described below).
+    const UP_FUSE: Parameters<typeof generatorPairStudy>[0] = {
+      kind: 'fuse',
+      illustrative: true,
+      minimumMelting: [
+        [600, 272],
+        [1804, 29.92],
+        [2640, 14.28],
+        [3000, 0.5],
+        [30_000, 0.48],
+      ],
+      totalClearing: [
+        [600, 353.6],
+        [1804, 38.08],
+        [2640, 17.68],
+        [3000, 0.65],
+        [30_000, 0.6],
+      ],
+    };
+
     /**
      * The standby generator (X″d 0.12, X′d 0.2 pu, T′d 0.4 s, held at 3 × rated: 1804 A) on bus GEN feeds
      * fuse UP and, below it, breaker DOWN on the emergency system: long time 10 s at 6 × 400 A, short time
@@ -81,47 +101,11 @@ describe('NFPA 70 700.32 selective coordination', () => {
      * short-time element resets unfinished (the current falls below it at about 0.146 s), and DOWN's long
      * time, integrated from zero, clears after 75 % of UP's melting. Invented curves.
      */
-    const generatorStudy = (codeSelectivity?: 'above-0.1-s'): StudyInput => ({
-      discern: 1,
-      name: 'emergency breaker below a fuse on a standby generator',
-      ...(codeSelectivity ? { coordination: { codeSelectivity } } : {}),
-      source: { ...standbySource(), sustained: 3 },
-      buses: [
-        { id: 'GEN', voltage: 480 },
-        { id: 'PNL', voltage: 480 },
-      ],
-      cables: [{ id: 'C1', from: 'GEN', to: 'PNL', size: '500 kcmil', length: '20 ft' }],
-      devices: [
-        {
-          id: 'UP',
-          feeds: 'GEN',
-          characteristic: {
-            kind: 'fuse',
-            illustrative: true,
-            minimumMelting: [
-              [600, 272],
-              [1804, 29.92],
-              [2640, 14.28],
-              [3000, 0.5],
-              [30_000, 0.48],
-            ],
-            totalClearing: [
-              [600, 353.6],
-              [1804, 38.08],
-              [2640, 17.68],
-              [3000, 0.65],
-              [30_000, 0.6],
-            ],
-          },
-        },
-        {
-          id: 'DOWN',
-          feeds: 'C1',
-          system: 'emergency',
-          characteristic: tripUnit(400, { shortTime: { pickup: 6, delay: 0.3 } }),
-        },
-      ],
-    });
+    const generatorStudy = (codeSelectivity?: 'above-0.1-s'): StudyInput =>
+      generatorPairStudy(UP_FUSE, tripUnit(400, { shortTime: { pickup: 6, delay: 0.3 } }), {
+        system: 'emergency',
+        coordination: codeSelectivity ? { codeSelectivity } : undefined,
+      });
 
     it('fails a pair that no constant current shows overlapping, where the upstream fuse gains while the short time resets', () => {
       const { findings } = analyseScenarios(parseStudy(generatorStudy()));

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
-import { standbySource } from '../generator/fixtures.ts';
+import { generatorPairStudy } from '../generator/fixtures.ts';
 
 /**
  * A 500 kVA, 480 V generator feeding a fuse UP, a cable and a fuse DOWN below it. X″d = X′d = Xd = 0.25 pu
@@ -148,38 +148,11 @@ describe('decrementFindings', () => {
      * Invented settings.
      */
     const onGenerator = (sustained: number) => {
-      const source = { ...standbySource(), sustained };
-      const study: StudyInput = {
-        discern: 1,
-        name: 'short time on a standby generator',
-        source,
-        buses: [
-          { id: 'GEN', voltage: 480 },
-          { id: 'PNL', voltage: 480 },
-        ],
-        cables: [{ id: 'C1', from: 'GEN', to: 'PNL', size: '500 kcmil', length: '20 ft' }],
-        devices: [
-          {
-            id: 'UP',
-            feeds: 'GEN',
-            characteristic: {
-              kind: 'relay',
-              ct: '800:5',
-              timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 4, timeDial: 6 },
-            },
-          },
-          {
-            id: 'DOWN',
-            feeds: 'C1',
-            characteristic: {
-              kind: 'trip-unit',
-              sensor: 400,
-              longTime: { pickup: 1, delay: 10 },
-              shortTime: { pickup: 6, delay: 0.3 },
-            },
-          },
-        ],
-      };
+      const study = generatorPairStudy(
+        { kind: 'relay', ct: '800:5', timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 4, timeDial: 6 } },
+        { kind: 'trip-unit', sensor: 400, longTime: { pickup: 1, delay: 10 }, shortTime: { pickup: 6, delay: 0.3 } },
+        { sustained },
+      );
       return analyseStudy(parseStudy(study)).findings.find((f) => f.id === 'decrement:UP/DOWN')!;
     };
 

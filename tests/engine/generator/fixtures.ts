@@ -51,3 +51,36 @@ export function standbySource(): Extract<StudyInput['source'], { kind: 'generato
     sustained: 3,
   };
 }
+
+type Characteristic = NonNullable<StudyInput['devices']>[number]['characteristic'];
+
+/**
+ * The standby generator (`standbySource`, its excitation support held at `sustained` × rated) on bus GEN,
+ * with device UP there and device DOWN feeding 20 ft of 500 kcmil to bus PNL: the shape of the
+ * decaying-current checks' studies (a fresh object each call). Invented.
+ */
+export function generatorPairStudy(
+  up: Characteristic,
+  down: Characteristic,
+  {
+    sustained = 3,
+    system,
+    coordination,
+  }: { sustained?: number; system?: 'emergency'; coordination?: StudyInput['coordination'] } = {},
+): StudyInput {
+  return {
+    discern: 1,
+    name: 'a pair on a standby generator',
+    ...(coordination ? { coordination } : {}),
+    source: { ...standbySource(), sustained },
+    buses: [
+      { id: 'GEN', voltage: 480 },
+      { id: 'PNL', voltage: 480 },
+    ],
+    cables: [{ id: 'C1', from: 'GEN', to: 'PNL', size: '500 kcmil', length: '20 ft' }],
+    devices: [
+      { id: 'UP', feeds: 'GEN', characteristic: up },
+      { id: 'DOWN', feeds: 'C1', characteristic: down, ...(system ? { system } : {}) },
+    ],
+  };
+}
