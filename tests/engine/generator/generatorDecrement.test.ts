@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { baseOhmsOf, generatorDecrement, ratedAmpsOf } from '../../../src/engine/generator/index.ts';
 import { assertInDelta } from '../../asserts.ts';
@@ -140,5 +141,39 @@ describe('generatorDecrement', () => {
     it('rejects a negative time', () => {
       expect(() => generatorDecrement(generatorOf()).ampsAt(-1)).toThrow(RangeError);
     });
+  });
+
+  it('never rises, with or without excitation support, behind any external impedance: X″d ≤ X′d ≤ Xd makes every term fall to a constant floor (what the decaying-current check relies on, property)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0.05, max: 0.35, noNaN: true }),
+        fc.double({ min: 1, max: 3, noNaN: true }),
+        fc.double({ min: 1, max: 20, noNaN: true }),
+        fc.double({ min: 0.002, max: 0.05, noNaN: true }),
+        fc.double({ min: 1, max: 100, noNaN: true }),
+        fc.option(fc.double({ min: 0.5, max: 4, noNaN: true })),
+        fc.double({ min: 0, max: 5, noNaN: true }),
+        fc.double({ min: 0, max: 5, noNaN: true }),
+        (xdSubtransient, transientFactor, synchronousFactor, tdSubtransient, timeFactor, sustained, r, x) => {
+          const xdTransient = xdSubtransient * transientFactor;
+          const machine = generatorOf({
+            xdSubtransient,
+            xdTransient,
+            xd: xdTransient * synchronousFactor,
+            tdSubtransient,
+            tdTransient: tdSubtransient * timeFactor,
+            ...(sustained === null ? {} : { sustained }),
+          });
+          const decrement = generatorDecrement(machine, { external: { r, x } });
+          let last = decrement.ampsAt(0);
+          for (let k = 0; k <= 400; k++) {
+            const now = decrement.ampsAt(1e-6 * 10 ** (k / 40));
+            expect(now).toBeLessThanOrEqual(last);
+            last = now;
+          }
+        },
+      ),
+      { seed: 70_103, numRuns: 200 },
+    );
   });
 });
