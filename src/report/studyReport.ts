@@ -194,7 +194,7 @@ function scenarioBlocks(analysis: Analysis): ReportBlock[] {
       ? [
           {
             type: 'paragraph' as const,
-            text: 'Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain (IEEE Std 551); on a generator, each pair is also checked on the decaying fault current, each element of a device on its own: an inverse-time element operates when the integral of 1 / t(I(t)) over its curve reaches 1 (the time-varying-current method of IEEE C37.112), a definite-time or instantaneous element once the current has stayed above its pickup for its delay. The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.',
+            text: 'Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain (IEEE Std 551); on a generator, each pair is also checked on the decaying fault current, each element of a device on its own: an inverse-time element operates when the integral of 1 / t(I(t)) over its curve reaches 1 (the time-varying-current method of IEEE C37.112), a definite-time element once the current has stayed above its pickup for its delay, an instantaneous trip once it has for the opening time of its breaker (for a relay, its operating time), the breaker then clearing by its clearing time. The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.',
           },
           { type: 'list' as const, items: generators },
         ]
@@ -203,7 +203,7 @@ function scenarioBlocks(analysis: Analysis): ReportBlock[] {
       ? [
           {
             type: 'paragraph' as const,
-            text: `Devices marked as part of an emergency, legally required standby or critical operations system, or elevator circuits, are checked for selective coordination with every supply-side device in every scenario (NFPA 70 700.32, 701.32, 708.54, 620.62), ${study.coordination.codeSelectivity === 'above-0.1-s' ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")' : 'over the full range of available fault currents'}. The authority having jurisdiction decides what the requirement means where the work is done.`,
+            text: `Devices marked as part of an emergency, legally required standby or critical operations system, or elevator circuits, are checked for selective coordination with every supply-side device in every scenario (NFPA 70 700.32, 701.32, 708.54, 620.62), ${study.coordination.codeSelectivity === 'above-0.1-s' ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")' : 'over the full range of available fault currents'}; on a generator also on its decaying current, for a fault at the marked device's bus. The authority having jurisdiction decides what the requirement means where the work is done.`,
           },
         ]
       : []),

@@ -12,6 +12,9 @@ import type { MarginRule } from './margins.ts';
 
 type Generator = Extract<Source, { kind: 'generator' }>;
 
+/** How long (s) the decaying current is followed: `decrementOperatingTime`'s horizon. */
+const HORIZON_SECONDS = 1000;
+
 /** What the check reads of an analysis: the tree, its fault levels, bands and pairs. */
 type AnalysedTree = Pick<Analysis, 'study' | 'network' | 'faults' | 'bands' | 'pairs'>;
 
@@ -22,8 +25,9 @@ type AnalysedTree = Pick<Analysis, 'study' | 'network' | 'faults' | 'bands' | 'p
  * decrement behind the impedance of the path (`generatorDecrement`, IEEE Std 551): the downstream
  * device's latest clearing and the upstream device's earliest operation are each found element by
  * element (`edgeTimeOnCurrent`): an inverse-time element integrates 1 / t(I(t)) to 1 over the decaying
- * current (the time-varying-current method of IEEE C37.112), a definite-time or instantaneous element
- * operates only if the current stays above its pickup for its delay, and the device acts on the first;
+ * current (the time-varying-current method of IEEE C37.112), a definite-time element operates only if
+ * the current stays above its pickup for its delay, an instantaneous trip if it does for the opening time
+ * (a relay's operating time), the breaker then clearing by its clearing time, and the device acts on the first;
  * the two times must meet the pair's rule as the overlap
  * finder applies it: `opens × timeRatio ≥ clears + margin` (for a fuse pair the downstream total
  * clearing within 75 % of the upstream minimum melting, common practice). A downstream device that
@@ -58,12 +62,14 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       });
       continue;
     }
-    const { current, sustainedAmps, clears, opens, clearsBy, opensBy } = decrementTimesOf(
+    const { current, sustainedAmps, clears, opens, clearsBy, opensBy, clearsAtSustained } = decrementTimesOf(
       analysis,
       source,
       pair,
       bus.id,
     );
+    // Past the integral's horizon a device may still clear on the sustained current, only too late to follow.
+    const tooSlow = !Number.isFinite(clears) && Number.isFinite(clearsAtSustained);
     const { rule } = pair;
     // The finder's slack and ratio (`up.minTime · timeRatio` against `down.maxTime + margin`).
     const slack = opens === Infinity ? Infinity : opens * rule.timeRatio - (clears + rule.margin);
@@ -78,16 +84,20 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       id: `decrement:${up.id}/${down.id}`,
       kind: 'generator-decrement',
       severity: !ok ? 'fail' : told ? 'info' : 'ok',
-      title: `${nameOf(up)} over ${nameOf(down)} on the generator's decaying current: ${ok ? `selective${told ? ' on illustrative curves' : ''}` : Number.isFinite(clears) ? 'margin not met' : 'downstream never clears'}`,
+      title: `${nameOf(up)} over ${nameOf(down)} on the generator's decaying current: ${ok ? `selective${told ? ' on illustrative curves' : ''}` : Number.isFinite(clears) ? 'margin not met' : tooSlow ? `downstream does not clear within ${HORIZON_SECONDS} s` : 'downstream never clears'}`,
       subjects: [up.id, down.id],
-      explanation: !Number.isFinite(clears)
-        ? `For ${at}, ${nameOf(down)} never clears: the current decays below what it needs before it can operate.`
-        : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}${onElement(opensBy)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : 'does not operate on the decaying current'}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
+      explanation: tooSlow
+        ? `For ${at}, ${nameOf(down)} does not clear within the ${HORIZON_SECONDS} s the check follows: at the sustained ${sustained} it takes ${formatSeconds(clearsAtSustained)}.`
+        : !Number.isFinite(clears)
+          ? `For ${at}, ${nameOf(down)} never clears: the current decays below what it needs before it can operate.`
+          : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}${onElement(opensBy)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : 'does not operate on the decaying current'}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
       suggestion: ok
         ? undefined
         : Number.isFinite(clears)
           ? `Delay ${nameOf(up)} or make ${nameOf(down)} faster at the generator's currents.`
-          : `Lower ${nameOf(down)}'s pickup below the generator's sustained current, or give the generator excitation support.`,
+          : tooSlow
+            ? `Make ${nameOf(down)} faster at the generator's sustained current, or give the generator more excitation support.`
+            : `Lower ${nameOf(down)}'s pickup below the generator's sustained current, or give the generator excitation support.`,
       basis: `generator decrement (IEEE Std 551) with time-varying-current integration (IEEE C37.112); ${pair.rule.basis}`,
       referenceVolts: bus.voltage,
       worst: Number.isFinite(clears)
@@ -134,6 +144,7 @@ export function decrementTimesOf(
   };
   const down = operationOf(pair.downstream, 'max');
   const up = operationOf(pair.upstream, 'min');
+  const downVolts = locationBusOf(network, network.devices.get(pair.downstream)!).voltage;
   return {
     current,
     sustainedAmps: decrement.sustainedAmps * toBus,
@@ -142,6 +153,10 @@ export function decrementTimesOf(
     /** The elements that clear and operate first, where the families name them ('long-time'…). */
     clearsBy: down.element,
     opensBy: up.element,
+    /** The downstream device's clearing at the sustained current, at a constant current (s). */
+    clearsAtSustained: analysis.bands
+      .get(pair.downstream)!
+      .maxTime((decrement.sustainedAmps * toBus * volts) / downVolts),
   };
 }
 

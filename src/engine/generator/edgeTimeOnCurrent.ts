@@ -25,9 +25,12 @@ export interface EdgeTimeOptions extends DecrementOperatingTimeOptions {
  * `max(floor, first) + add` as at a constant current:
  * - an inverse-time element (a relay curve, a long-time or short-time ramp, a thermal curve) by the
  *   integral operating equation on its own curve (IEEE C37.112, `decrementOperatingTime`);
- * - a definite-time or instantaneous element once the current has stayed above its pickup for its
- *   delay: the same integral of its flat curve, which stops where the current falls below the pickup
- *   and, on a falling current, never starts again (a real element resets there).
+ * - a definite-time or instantaneous element once the current has stayed above its pickup for the
+ *   element's own time: the same integral of its flat curve, which stops where the current falls below
+ *   the pickup and, on a falling current, never starts again (a real element resets there). The
+ *   families give an instantaneous trip the opening time (a relay's operating time) as its own time and
+ *   the clearing time as the edge's floor: the trip commits once its current has lasted the opening
+ *   time, on both edges, and the breaker clears by the floor whatever the current does after.
  *
  * Integrating the edge whole would carry the progress a fast element made before the current left it
  * into a slower element's part of the curve, which no real element does: a device with a short-time

@@ -176,6 +176,22 @@ describe('decrementFindings', () => {
       expect(finding.worst!.upTime).toBeLessThan(finding.worst!.downTime);
     });
 
+    it('tells a downstream device still on its way at the sustained current apart from one that never operates', () => {
+      // DOWN, a 1600 A trip unit with a 40 s long-time delay: at the sustained 1804 A (above its 1760 A upper
+      // pickup) it takes 40 × 1.2 × (9600 / 1804)² = 1359 s, beyond the 1000 s the check follows. Invented.
+      const study = generatorPairStudy(
+        { kind: 'relay', ct: '800:5', timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 4, timeDial: 6 } },
+        { kind: 'trip-unit', sensor: 1600, longTime: { pickup: 1, delay: 40 } },
+      );
+      const finding = analyseStudy(parseStudy(study)).findings.find((f) => f.id === 'decrement:UP/DOWN')!;
+      expect([finding.severity, finding.title]).toEqual([
+        'fail',
+        "UP over DOWN on the generator's decaying current: downstream does not clear within 1000 s",
+      ]);
+      const [, seconds] = finding.explanation.match(/at the sustained 1800 A it takes ([\d.]+) s\.$/)!;
+      assertInDelta(Number(seconds), 40 * 1.2 * (9600 / 1804.2196) ** 2, 3e-3);
+    });
+
     it('with the current held at 5 × rated (3007 A, above the short-time pickup) DOWN clears at 0.35 s: selective', () => {
       const finding = onGenerator(5);
       expect(finding.severity).toBe('ok');
