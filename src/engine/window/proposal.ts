@@ -1,4 +1,3 @@
-import { analyseStudy } from '../analysis.ts';
 import { analyseScenarios } from '../scenario/scenarioAnalysis.ts';
 import { splitScenario } from '../scenario/scenarioParts.ts';
 import { hasScenarios, scenariosOf } from '../scenario/scenarios.ts';
@@ -197,8 +196,9 @@ function proposeInTree(study: Study, options: ProposalOptions): Proposal {
   }
 
   const proposed: Study = { ...study, devices: study.devices.map((d) => trial.deviceOf(d.id)) };
+  // Every finding `check` gives, the NFPA 70 selective-coordination ones of marked devices included.
   const comparison = compare
-    ? compared(analyseStudy(study).findings, analyseStudy(proposed).findings)
+    ? compared(analyseScenarios(study).findings, analyseScenarios(proposed).findings)
     : { cleared: [], remaining: [], introduced: [], failsBefore: 0, failsAfter: 0 };
   return {
     order,

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { parseStudy, readStudy } from '../../../src/engine/study/index.ts';
 import { PROPOSAL_ORDER, proposeSettings, withSettingChanges } from '../../../src/engine/window/index.ts';
 
@@ -16,6 +17,17 @@ describe('proposeSettings', () => {
     expect(proposal.order.indexOf('MCC-M1')).toBeLessThan(proposal.order.indexOf('FDR-MCC'));
     expect(proposal.order.indexOf('FDR-MCC')).toBeLessThan(proposal.order.indexOf('MAIN'));
     expect(proposal.changes.every((c) => c.from !== c.to)).toBe(true);
+  });
+
+  it('counts the failures before as the check does, the NFPA 70 selective-coordination finding of a marked device included', () => {
+    // The overlap demo with its emergency breaker marked (a study without scenarios).
+    const marked = {
+      ...overlap,
+      devices: overlap.devices.map((d) => (d.id === 'EM-BR' ? { ...d, system: 'emergency' as const } : d)),
+    };
+    const checked = analyseScenarios(marked).findings;
+    expect(checked.some((f) => f.kind === 'code-selectivity')).toBe(true);
+    expect(proposeSettings(marked).failsBefore).toBe(checked.filter((f) => f.severity === 'fail').length);
   });
 
   it('clears every coordination failure of the overlap demo, and the proposed file reads back to the same settings', () => {
