@@ -1,4 +1,5 @@
 import { z } from 'zod/mini';
+import { requireOpeningBeforeClearing } from './breakerTimes.ts';
 import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
 import { isValidTable } from './pointTable.ts';
 import { pointTableSchema, upperBelowLowerOnce } from './pointTableSchema.ts';
@@ -73,15 +74,7 @@ export function createThermalMagneticSchema(frequency = 60) {
       currentLimitingFrom: z.optional(quantityField('current', { min: 0, exclusiveMin: true })),
     })
     .check(
-      z.superRefine((breaker, ctx) => {
-        if (breaker.openingTime > breaker.clearingTime) {
-          ctx.addIssue({
-            code: 'custom',
-            path: ['openingTime'],
-            message: `expected an opening time no later than the clearing time ${breaker.clearingTime} s, got "${breaker.openingTime}"`,
-          });
-        }
-      }),
+      z.superRefine((breaker, ctx) => requireOpeningBeforeClearing(breaker, ctx)),
       z.meta({ description: 'thermal-magnetic molded-case breaker' }),
     );
 }

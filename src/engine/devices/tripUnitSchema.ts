@@ -1,4 +1,5 @@
 import { z } from 'zod/mini';
+import { requireOpeningBeforeClearing } from './breakerTimes.ts';
 import { boundedNumber, nameField, percentField, quantityField } from '../study/fields.ts';
 
 /** How the long-time ramp meets the short-time function (see `createTripUnitSchema`). */
@@ -82,13 +83,7 @@ export function createTripUnitSchema(frequency = 60) {
     })
     .check(
       z.superRefine((unit, ctx) => {
-        if (unit.openingTime > unit.clearingTime) {
-          ctx.addIssue({
-            code: 'custom',
-            path: ['openingTime'],
-            message: `expected an opening time no later than the clearing time ${unit.clearingTime} s, got "${unit.openingTime}"`,
-          });
-        }
+        requireOpeningBeforeClearing(unit, ctx);
         for (const element of ['shortTime', 'ground'] as const) {
           const delay = unit[element]?.delay;
           if (delay !== undefined && delay - unit.tolerance.shortTimeBelow <= 0) {
