@@ -121,8 +121,11 @@ export class AnalysisState {
     const scenario = this.scenario;
     return scenario ? findingsIn(this.findings, scenario.label) : this.findings;
   });
-  /** True while the checks of the latest edit are still running. */
-  readonly pending = $derived.by(() => this.#received < this.#sent);
+  /**
+   * True while the checks of the latest edit are still running. A study with problems is not
+   * checked, so nothing is pending for it even while a run of the study before it finishes.
+   */
+  readonly pending = $derived.by(() => this.#study.study !== undefined && this.#received < this.#sent);
   /** The finding the user opened. */
   readonly selectedFinding = $derived.by(() => {
     const id = this.selectedFindingId;

@@ -97,6 +97,30 @@ describe('AnalysisState', () => {
     expect(analysis.findingCounts.size).toBe(0);
   });
 
+  it('is not checking a restored copy with problems, even while the run of the study before it is still out', () => {
+    const study = new StudyState(demo);
+    const runner = heldRunner();
+    const analysis = new AnalysisState(study, runner);
+    analysis.request();
+    expect(analysis.pending).toBe(true);
+    const mainIndex = demo.devices!.findIndex((d) => d.id === 'MAIN');
+    const kept = structuredClone(demo);
+    (kept.devices![mainIndex].characteristic as Record<string, unknown>).longTime = 'abc';
+    study.restore(kept, { unsaved: true, savedAt: '2026-12-01T22:00:00Z' });
+    analysis.request();
+    // The panel says the study is not checked, not that it is being checked.
+    expect(analysis.pending).toBe(false);
+    runner.answer(0);
+    expect(analysis.pending).toBe(false);
+    expect(analysis.findings).toEqual([]);
+    // Mended: its run is out, and pending until it comes back.
+    study.restore(demo, { unsaved: true, savedAt: '2026-12-01T22:05:00Z' });
+    analysis.request();
+    expect(analysis.pending).toBe(true);
+    runner.answer(1);
+    expect(analysis.pending).toBe(false);
+  });
+
   it('shows nothing of a run for the study before while the newly opened one is checked', () => {
     const study = new StudyState(demo);
     const runner = heldRunner();
