@@ -1,4 +1,5 @@
 import type { Bus, Cable, Device, Motor, Study, Switch, Transformer } from '../study/index.ts';
+import { addToList } from '../addToList.ts';
 
 /** A closed switch as the network sees it: a connection of no impedance from one bus down to another. */
 export interface SwitchLink {
@@ -63,10 +64,10 @@ export function networkOf(study: Study): Network {
   for (const element of elements.values()) {
     if (element.type !== 'transformer' && element.type !== 'cable' && element.type !== 'switch') continue;
     feederOf.set(element.item.to, element);
-    branchesFrom.set(element.item.from, [...(branchesFrom.get(element.item.from) ?? []), element]);
+    addToList(branchesFrom, element.item.from, element);
   }
   const motorsOn = new Map<string, Motor[]>();
-  for (const motor of study.motors) motorsOn.set(motor.bus, [...(motorsOn.get(motor.bus) ?? []), motor]);
+  for (const motor of study.motors) addToList(motorsOn, motor.bus, motor);
   const deviceFeeding = new Map(study.devices.map((device) => [device.feeds, device]));
   const devices = new Map(study.devices.map((device) => [device.id, device]));
   const tree = { buses, feederOf, branchesFrom, motorsOn, deviceFeeding };

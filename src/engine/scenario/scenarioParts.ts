@@ -2,6 +2,7 @@ import { hiddenSlot } from '../hiddenSlot.ts';
 import type { Scenario, Source, Study, Switch } from '../study/index.ts';
 import { energisedTrees, feedersIn, switchPosition, type Connection } from './connections.ts';
 import { hasScenarios, scenarioLabel, scenariosOf } from './scenarios.ts';
+import { addToList } from '../addToList.ts';
 
 /** One source's radial tree in a scenario, as a study of its own that today's single-source analysis reads. */
 export interface ScenarioPart {
@@ -189,7 +190,7 @@ function leftOutNotes(left: string[], { label, rootOf, nameOf }: PartContext): s
   const bySource = new Map<string | undefined, string[]>();
   for (const id of new Set(left)) {
     const root = rootOf.get(id);
-    bySource.set(root, [...(bySource.get(root) ?? []), nameOf(id)]);
+    addToList(bySource, root, nameOf(id));
   }
   return [...bySource].map(([root, names]) =>
     root === undefined

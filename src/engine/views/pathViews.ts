@@ -1,5 +1,6 @@
 import { locationBusOf, pathTo, upstreamDeviceOf, type Network } from '../network/index.ts';
 import type { Device } from '../study/index.ts';
+import { addToList } from '../addToList.ts';
 
 /** A view as it is written in a study file: plain volts, ids only. */
 export interface PathView {
@@ -36,7 +37,7 @@ export function pathViewsOf(network: Network): PathView[] {
   for (const device of study.devices) {
     if (hasBelow.has(device.id)) continue;
     const key = above.get(device.id)?.id ?? `alone:${device.id}`;
-    groups.set(key, [...(groups.get(key) ?? []), device]);
+    addToList(groups, key, device);
   }
   const taken = new Set(study.views.map((view) => view.id));
   const shown = new Set(study.views.map((view) => view.devices.join('\u0000')));

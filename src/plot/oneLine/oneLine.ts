@@ -24,6 +24,7 @@ import {
   transferSwitchSymbol,
   transformerSymbol,
 } from './symbols.ts';
+import { addToList } from '../../engine/addToList.ts';
 
 /** How the one-line diagram is laid out. */
 export const oneLineDefaults = {
@@ -358,7 +359,7 @@ export function oneLineBaseOf(analysis: BaseInputs, options: OneLineOptions = {}
     const lines = continuedLines(analysis, busId, first, first + runs.length - 1, of);
     const label = text(lines, x + 8, barY - busRow / 2 - 2, busId, 'one-line-continued-label');
     continuations.push({ id: busId, type: 'bus', symbol: barOf(busId, barRow, x, barY, label), label });
-    continuedBars.set(busDrop, [...(continuedBars.get(busDrop) ?? []), barY]);
+    addToList(continuedBars, busDrop, barY);
   }
   for (const [busDrop, barYs] of continuedBars)
     items.push(...continuationLink(lineX(busDrop), barYOf(busDrop), barYs, { dataId: busDrop.childBus! }));

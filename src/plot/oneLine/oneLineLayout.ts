@@ -1,5 +1,6 @@
 import type { Network } from '../../engine/network/index.ts';
 import type { Device } from '../../engine/study/index.ts';
+import { addToList } from '../../engine/addToList.ts';
 
 /**
  * One vertical run of the one-line diagram, from a bus (or the source) down to what it feeds: the
@@ -118,7 +119,7 @@ export function layoutOneLine(
   } = options;
   const { study } = network;
   const openOn = new Map<string, OpenSwitch[]>();
-  for (const item of open) openOn.set(item.bus, [...(openOn.get(item.bus) ?? []), item]);
+  for (const item of open) addToList(openOn, item.bus, item);
   const run = (drop: Omit<Drop, 'x' | 'width' | 'top' | 'barRow'>): Drop => ({
     ...drop,
     x: 0,
