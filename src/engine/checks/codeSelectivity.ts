@@ -2,7 +2,7 @@ import type { Analysis } from '../analysis.ts';
 import { formatAmps, formatSeconds, formatVolts } from '../quantity/format.ts';
 import type { Bus, Device, Study } from '../study/index.ts';
 import { locationBusOf } from '../network/index.ts';
-import { decrementTimesOf, onElement, separationText } from './decrementCoordination.ts';
+import { decayText, decrementTimesOf, onElement, separationText } from './decrementCoordination.ts';
 import { illustrativeSentence, isIllustrative } from './coordination.ts';
 import { nameOf } from './context.ts';
 import type { Finding } from './finding.ts';
@@ -177,7 +177,7 @@ function decayProblems(
       ? `${pair.downstreamName}${below} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${pair.upstreamName} can operate from ${formatSeconds(opens)}${onElement(opensBy)}: ${separationText(clears, opens, rule, pair.downstreamName, pair.upstreamName)}`
       : `${pair.downstreamName}${below} never clears and ${pair.upstreamName} can operate from ${formatSeconds(opens)}${onElement(opensBy)}`;
     problems.push(
-      `on the generator's decaying current (a fault at ${here.name ?? here.id} (${formatVolts(here.voltage)}), ${formatAmps(current(0), 3)} falling to ${formatAmps(sustainedAmps, 3)}), ${times}`,
+      `on the generator's decaying current (a fault at ${here.name ?? here.id} (${formatVolts(here.voltage)}), ${decayText(current(0), sustainedAmps)}), ${times}`,
     );
   }
   return problems;

@@ -74,9 +74,8 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     // The finder's slack and ratio (`up.minTime · timeRatio` against `down.maxTime + margin`).
     const slack = opens === Infinity ? Infinity : opens * rule.timeRatio - (clears + rule.margin);
     const ok = Number.isFinite(clears) && slack >= 0;
-    const initial = formatAmps(current(0), 3);
     const sustained = formatAmps(sustainedAmps, 3);
-    const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${initial} falling to ${sustained}`;
+    const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${decayText(current(0), sustainedAmps)}`;
     // As the pair check: selective on an illustrative curve is told (info), not claimed.
     const illustrative = [up, down].filter(isIllustrative).map(nameOf);
     const told = ok && illustrative.length > 0;
@@ -168,6 +167,18 @@ export function decrementTimesOf(
  */
 export function onElement(label: string | undefined): string {
   return label ? ` (on its ${label} element)` : '';
+}
+
+/**
+ * The decaying current in words, from its start to what it settles at: "2690 A falling to 1200 A", or
+ * "a steady 2890 A" where it does not fall (far behind a cable the excitation support holds its start).
+ *
+ * @example decayText(2694, 1203) // '2690 A falling to 1200 A'
+ */
+export function decayText(initialAmps: number, sustainedAmps: number): string {
+  const initial = formatAmps(initialAmps, 3);
+  const sustained = formatAmps(sustainedAmps, 3);
+  return initial === sustained ? `a steady ${initial}` : `${initial} falling to ${sustained}`;
 }
 
 /**

@@ -69,7 +69,10 @@ export interface GeneratorDecrement {
  * synchronous reactance and the external impedance, the same sum as the `E/Xd` term (IEEE Std 551-2006,
  * synchronous generator decrement, from memory); and no more than rated terminal voltage drives through
  * `Ze`, `1 / |Ze|` (a simplification: the voltage regulator holds the terminals no higher than rated). The
- * floor is the smaller. The manufacturer's decrement curve governs.
+ * floor is the smaller, and never above the current the fault starts at, `E / |Z″|`: far behind a cable
+ * `1 / |Ze|` exceeds it, and the regulator brings the current up toward it only over its response time,
+ * which this model leaves out. So the current never rises, and starts at the bus's subtransient
+ * fault current. The manufacturer's decrement curve governs.
  *
  * @example generatorDecrement(g500kVA, {}).perUnitAt(0) // 1 / 0.12 = 8.3333
  */
@@ -92,11 +95,12 @@ export function generatorDecrement(gen: GeneratorRating, options: GeneratorDecre
   const yTransient = behind(machine.xdTransient);
   const ySynchronous = behind(machine.xd);
   const externalMagnitude = magnitudeOf({ r: re, x: xe });
-  // At the terminals both bounds give k; behind Ze the ceiling voltage k·Xd also drops across Xd.
+  // At the terminals both bounds give k; behind Ze the ceiling voltage k·Xd also drops across Xd. Far
+  // behind Ze the support may not lift the current above its subtransient start.
   const floor =
     machine.sustained === undefined
       ? 0
-      : Math.min(machine.sustained * machine.xd * ySynchronous, 1 / externalMagnitude);
+      : Math.min(machine.sustained * machine.xd * ySynchronous, 1 / externalMagnitude, e * ySubtransient);
 
   const { tdSubtransient, tdTransient } = machine;
   const perUnitAt = (seconds: number): number => {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
+import { decayText } from '../../../src/engine/checks/decrementCoordination.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
 import { generatorPairStudy } from '../generator/fixtures.ts';
@@ -83,6 +84,15 @@ describe('decrementFindings', () => {
     assertInDelta(finding.worst!.amps, AMPS, 1e-6);
     assertInDelta(finding.worst!.downTime, CLEARS, 1e-6);
     assertInDelta(finding.worst!.upTime, 1.5 * CLEARS, 1e-6);
+    // X″d = X′d = Xd: the current does not fall, and the explanation says so.
+    expect(finding.explanation).toMatch(/^For a fault at GEN \(480 V\) fed by G1, a steady 2410 A,/);
+  });
+
+  it('decayText() gives the current from its start to where it settles, or a steady one', () => {
+    expect(decayText(2694, 1203)).toBe('2690 A falling to 1200 A');
+    expect(decayText(2405.6, 2405.6)).toBe('a steady 2410 A');
+    // Equal to three figures, as the text gives them.
+    expect(decayText(2408, 2406)).toBe('a steady 2410 A');
   });
 
   it('fails a fuse pair whose downstream clearing is 83 % of the upstream melting (75 % rule, common practice)', () => {

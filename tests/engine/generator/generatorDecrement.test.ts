@@ -74,8 +74,20 @@ describe('generatorDecrement', () => {
     });
 
     it('behind an external impedance the floor is at most 1/|Ze| (rated terminal voltage, a simplification)', () => {
-      const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.5 } });
-      assertInDelta(far.perUnitAt(10), 2, 1e-12); // min(6 / 2.5 = 2.4, 1/0.5)
+      // A loaded machine (E = 1.1 pu) starts at 1.1/2.12 = 0.518868 pu, above what rated voltage drives through Ze.
+      const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 2 }, internalVoltage: 1.1 });
+      assertInDelta(far.perUnitAt(10), 0.5, 1e-12); // min(6 / 4 = 1.5, 1/2, 0.518868)
+    });
+
+    it("far behind a long cable the support holds the subtransient start 1/|j(0.12 + 2)| = 0.471698 pu, not 1/|Ze| = 0.5 above it (the regulator's slow recovery is left out)", () => {
+      const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 2 } });
+      assertInDelta(far.perUnitAt(0), 1 / 2.12, 1e-12);
+      assertInDelta(far.perUnitAt(10), 1 / 2.12, 1e-12); // min(6 / 4 = 1.5, 1/2 = 0.5, 1/2.12)
+      assertInDelta(far.sustainedAmps, far.initialAmps, 1e-9);
+      expect(far.supported).toBe(true); // above E/Xd = 1/4
+      // Nearer, 1/|j0.5| = 2 pu would lift the current above its start 1/0.62 = 1.6129 pu as well.
+      const nearer = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.5 } });
+      assertInDelta(nearer.perUnitAt(10), 1 / 0.62, 1e-12); // min(6 / 2.5 = 2.4, 1/0.5, 1/0.62)
     });
   });
 
