@@ -142,7 +142,7 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
       type: 'list',
       items: [
         `Fault currents: symmetrical RMS bolted faults by the per-unit impedance method (IEEE 399, IEEE 141): three-phase, line-to-line and line-to-ground at every bus, at maximum and minimum conditions. ${sourceText}`,
-        'Transformers: nameplate impedance on their own rating and X/R; cables: NFPA 70 Chapter 9 Table 9 resistance and reactance at 75 °C for maximum fault, raised to operating temperature for minimum fault, unless the study gives its own values.',
+        'Transformers: nameplate impedance on their own rating and X/R; cables: NFPA 70 Chapter 9 Table 9 resistance and reactance, the resistance (stated at 75 °C) taken to 20 °C for maximum fault as IEC 60909-0 takes it for the maximum short-circuit currents, and to operating temperature (90 °C) for minimum fault, unless the study gives its own values.',
         motors > 0
           ? `Motor contribution: ${motors} motors as first-cycle sources at the multiples of full-load current entered in the study (common practice: 4 × for low-voltage induction motors); none at minimum conditions.`
           : 'Motor contribution: none modelled.',

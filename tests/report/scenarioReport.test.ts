@@ -68,14 +68,14 @@ const tableWith = (blocks: ReportBlock[], column: string) =>
   blocks.find((b): b is Table => b.type === 'table' && b.columns.includes(column))!;
 
 describe('the findings of a study with scenarios say where each holds (standby overlap demo)', () => {
-  it("tells the fan breaker's two interrupting-duty rows apart by a scenarios column: 16.1 kA on the utility, 3970 A on the generator", () => {
+  it("tells the fan breaker's two interrupting-duty rows apart by a scenarios column: 16.6 kA on the utility, 4020 A on the generator", () => {
     const table = tableWith(blocksOf('findings'), 'worst margin');
     expect(table.columns).toEqual(['severity', 'finding', 'current range', 'worst margin', 'scenarios']);
     const duty = table.rows.filter((r) => r[1].startsWith('Exhaust fan breaker 50 A: rated 22 kA, duty'));
     const where = (title: string) => overlap.findings.find((f) => f.title === title)!.scenarios!.join('; ');
     expect(duty.map((r) => [r[1], r[4]])).toEqual(duty.map((r) => [r[1], where(r[1])]));
-    expect(duty.find((r) => r[1].endsWith('duty 3970 A'))![4]).toBe('On generator');
-    expect(duty.find((r) => r[1].endsWith('duty 16.1 kA'))![4]).toBe('Normal; Dock on the office feeder');
+    expect(duty.find((r) => r[1].endsWith('duty 4020 A'))![4]).toBe('On generator');
+    expect(duty.find((r) => r[1].endsWith('duty 16.6 kA'))![4]).toBe('Normal; Dock on the office feeder');
   });
 
   it('says the NFPA 70 700.32 failure of the fan breaker holds only on the generator, in its written-out entry', () => {

@@ -11,7 +11,7 @@ import { transformerImpedanceOf } from './transformerImpedance.ts';
 
 /** The source and element assumptions of one fault condition (IEEE 141 / IEEE 399 maximum and minimum duty, common practice). */
 export interface FaultCondition {
-  /** 'max': maximum source, motors in, 75 °C; 'min': minimum source, no motors, 90 °C. */
+  /** 'max': maximum source, motors in, 20 °C; 'min': minimum source, no motors, 90 °C. */
   kind: 'max' | 'min';
   /** The utility figure used; undefined for an infinite source. */
   level?: SourceLevel;

@@ -1,7 +1,12 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { faultLevelsOf, MINIMUM_FAULT_TEMPERATURE, motorFullLoadAmps } from '../../../src/engine/fault/index.ts';
+import {
+  faultLevelsOf,
+  MAXIMUM_FAULT_TEMPERATURE,
+  MINIMUM_FAULT_TEMPERATURE,
+  motorFullLoadAmps,
+} from '../../../src/engine/fault/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
@@ -14,6 +19,8 @@ describe('faultLevelsOf', () => {
   it('has the expected defaults', () => {
     // Minimum fault: conductors at operating temperature (common practice; NEC Ch. 9 Table 8 coefficients); min source defaults to max.
     expect(MINIMUM_FAULT_TEMPERATURE).toBe(90);
+    // Maximum fault: conductors at 20 °C, as IEC 60909-0:2016 takes them for the maximum short-circuit currents.
+    expect(MAXIMUM_FAULT_TEMPERATURE).toBe(20);
     const levels = levelsOf(case72Input());
     const lv = levels.buses.get('LV')!;
     assertInDelta(lv.min.threePhase, lv.max.threePhase, 1e-12); // no cable, no motors, same source
@@ -29,12 +36,18 @@ describe('faultLevelsOf', () => {
     assertInDelta(at416.maxAmps, 1721.18, 1e-5);
   });
 
-  it('the panel after 100 ft of 2 × 500 kcmil is 13 052.5 A, X/R 4.148, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
+  it('the panel after 100 ft of 2 × 500 kcmil is 13 088.8 A, X/R 4.375, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
+    // The cable, NEC Chapter 9 Table 9 (steel conduit): R 0.029 and X 0.048 Ω/1000 ft at 75 °C, so for
+    // 100 ft of 2 sets 0.00145 + j0.0024 Ω; for the maximum fault at 20 °C (IEC 60909-0) R is
+    // 0.00145 × (234.5 + 20) / (234.5 + 75) = 0.0011923 Ω. Added to the secondary's 0.0035255 + j0.0182405 Ω:
+    // Z = 0.0047178 + j0.0206405 Ω, |Z| = 0.0211729 Ω, I = 480 / (√3 × 0.0211729) = 13 088.8 A.
     const pnl = levelsOf(case72Input()).buses.get('PNL')!;
-    assertInDelta(pnl.max.threePhase, 13052.5, 1e-5);
-    assertInDelta(pnl.max.xr, 4.148, 1e-3);
-    assertInDelta(pnl.max.impedance.r, 0.0049755, 1e-4);
+    assertInDelta(pnl.max.threePhase, 13088.8, 1e-5);
+    assertInDelta(pnl.max.xr, 4.375, 1e-3);
+    assertInDelta(pnl.max.impedance.r, 0.0047178, 1e-4);
     assertInDelta(pnl.max.impedance.x, 0.0206405, 1e-5);
+    // At 75 °C, as Table 9 states it, the panel would read 13 052.5 A: 0.3 % less.
+    expect(pnl.work.some((step) => /resistance at 20 °C/.test(step.label))).toBe(true);
   });
 
   it('utility alone at the 4.16 kV bus is 34 696.5 A, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
@@ -131,7 +144,7 @@ describe('faultLevelsOf', () => {
     const pnl = levelsOf(case72Input()).buses.get('PNL')!;
     const step = pnl.work.find((s) => s.label === 'maximum: three-phase bolted fault')!;
     expect(step.value).toBe(pnl.max.threePhase);
-    expect(step.substituted).toMatch(/^I_3φ = 480 V \/ \(1\.7320508 × 0\.021231\d* Ω\)/);
+    expect(step.substituted).toMatch(/^I_3φ = 480 V \/ \(1\.7320508 × 0\.021172\d* Ω\)/);
   });
 
   it('fault current never rises as cable length, %Z or source weakening is added (property)', () => {

@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { faultLevelsOf, faultTreeOf, motorImpedanceOf } from '../../../src/engine/fault/index.ts';
+import {
+  faultLevelsOf,
+  faultTreeOf,
+  MAXIMUM_FAULT_TEMPERATURE,
+  motorImpedanceOf,
+} from '../../../src/engine/fault/index.ts';
 import { cableImpedanceOf } from '../../../src/engine/conductors/index.ts';
 import { networkOf } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
@@ -101,11 +106,18 @@ describe('faultTreeOf', () => {
         const addShunt = (i: number, adm: C) => (y[i][i] = [y[i][i][0] + adm[0], y[i][i][1] + adm[1]]);
         // No motors sit above LV, so the reduced path toward the source from LV is the utility plus transformer.
         const condition = { kind: 'max' as const, level: s.source.kind === 'utility' ? s.source.max : undefined };
-        const tree = faultTreeOf(network, { ...condition, motors: true, temperature: 75, toleranced: true });
+        const tree = faultTreeOf(network, {
+          ...condition,
+          motors: true,
+          temperature: MAXIMUM_FAULT_TEMPERATURE,
+          toleranced: true,
+        });
         const sourcePath = tree.toward.get('LV')!;
         addShunt(0, inv(sourcePath));
         s.cables.forEach((cable, i) => {
-          const adm = inv(cableImpedanceOf(cable, { path: `study.cables[${i}]` }).z);
+          const adm = inv(
+            cableImpedanceOf(cable, { temperature: MAXIMUM_FAULT_TEMPERATURE, path: `study.cables[${i}]` }).z,
+          );
           const a = index.get(cable.from)!;
           const b = index.get(cable.to)!;
           addShunt(a, adm);

@@ -22,7 +22,9 @@ describe('sequence-network reference: 1500 kVA Δ–Yg 12.47 kV–480 V, 250 MVA
   const zt = polar(0.0575, 6);
   const z1 = add(zs, zt);
   // 100 ft of 2 × 500 kcmil Cu in steel: NFPA 70 Ch. 9 Table 9, R 0.029 and X 0.048 Ω/1000 ft at 75 °C.
-  const zc: C = scale([0.029 * 0.1, 0.048 * 0.1], 1 / 2 / baseOhms(S, 480));
+  const zc75: C = scale([0.029 * 0.1, 0.048 * 0.1], 1 / 2 / baseOhms(S, 480));
+  // The maximum fault takes R at 20 °C (IEC 60909-0) by Table 8's copper coefficient.
+  const zc: C = [zc75[0] * ((234.5 + 20) / (234.5 + 75)), zc75[1]];
 
   it('at the secondary: 3φ, L-L and L-G (the delta traps the source Z0, so Z0 = Z_T, common practice)', () => {
     const lv = levelsOf(deltaWyeInput()).buses.get('LV')!;
@@ -51,7 +53,7 @@ describe('sequence-network reference: 1500 kVA Δ–Yg 12.47 kV–480 V, 250 MVA
 
   it('minimum: cable R at 90 °C (NEC Ch. 9 Table 8 coefficients), same source, no tolerance', () => {
     const pnl = levelsOf(deltaWyeInput()).buses.get('PNL')!;
-    const hot: C = [zc[0] * ((234.5 + 90) / (234.5 + 75)), zc[1]];
+    const hot: C = [zc75[0] * ((234.5 + 90) / (234.5 + 75)), zc75[1]];
     const z1p = add(z1, hot);
     assertInDelta(pnl.min.threePhase, ib / abs(z1p), TOL);
     assertInDelta(pnl.min.lineToGround, (3 * ib) / abs(add(z1p, z1p, zt, scale(hot, 3))), TOL);
@@ -246,8 +248,9 @@ describe('sequence-network reference: 50 kVA single-phase 12.47 kV–120/240 V 2
   const zt = polar(0.021, 2);
   // Half winding at 120 V on the full kVA: 1.5 × R and 1.2 × X (common practice).
   const zh: C = [1.5 * zt[0], 1.2 * zt[1]];
-  // 50 ft of 2/0 Cu in PVC: R 0.10, X 0.043 Ω/1000 ft (NFPA 70 Ch. 9 Table 9), loop of 2 × 50 ft.
-  const loop: C = [0.1 * 0.1, 0.043 * 0.1];
+  // 50 ft of 2/0 Cu in PVC: R 0.10, X 0.043 Ω/1000 ft (NFPA 70 Ch. 9 Table 9, R at 75 °C), loop of 2 × 50 ft;
+  // the maximum fault takes R at 20 °C (IEC 60909-0) by Table 8's copper coefficient.
+  const loop: C = [0.1 * 0.1 * ((234.5 + 20) / (234.5 + 75)), 0.043 * 0.1];
 
   it('across two lines: the loop sees Z1 + Z2 of the source; full-winding and half-winding faults', () => {
     const levels = levelsOf(singlePhaseInput());

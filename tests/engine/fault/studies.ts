@@ -117,6 +117,8 @@ export const motorStudyPerUnit = (() => {
     zt: polar(0.0575, 6),
     zm1: polar(ib / (4 * 500), 6),
     zm2: polar(ib / (4 * 200), 6),
-    zc: scale([0.029 * 0.1, 0.048 * 0.1], 1 / 2 / baseOhms(S, 480)) as C,
+    // 100 ft of 2 × 500 kcmil Cu in steel conduit, NEC Chapter 9 Table 9 (R at 75 °C), R taken to 20 °C for
+    // the maximum fault (IEC 60909-0) by Table 8's copper coefficient, (234.5 + 20) / (234.5 + 75).
+    zc: scale([0.029 * 0.1 * (254.5 / 309.5), 0.048 * 0.1], 1 / 2 / baseOhms(S, 480)) as C,
   };
 })();

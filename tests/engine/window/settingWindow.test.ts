@@ -296,13 +296,13 @@ describe('settingWindowOf', () => {
     }
   });
 
-  // The full demo with an instantaneous trip on the 2000 A main at 12 × I_n: the emergency feeder can no
+  // The full demo with an instantaneous trip on the 2000 A main at 12.5 × I_n: the emergency feeder can no
   // longer fit under it by changing one setting alone, but its long-time map has open cells (a lower
   // long-time pickup with a shorter delay). The search starts from one and finds a setting.
   it('a window exists when only a cell of the pickup × time map shows one', () => {
     const full = JSON.parse(readFileSync('demo/harrowmere-full.json', 'utf8')) as StudyInput;
     const main = full.devices!.find((d) => d.id === 'MAIN')!;
-    main.characteristic = { ...main.characteristic, instantaneous: { pickup: 12 } } as typeof main.characteristic;
+    main.characteristic = { ...main.characteristic, instantaneous: { pickup: 12.5 } } as typeof main.characteristic;
     const window = settingWindowOf(parseStudy(full), 'FDR-EM');
     expect(window.settings.every((row) => row.intervals.length === 0)).toBe(true);
     expect(window.switches.every((row) => !row.feasible.some(Boolean))).toBe(true);
