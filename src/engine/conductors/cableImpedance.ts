@@ -17,6 +17,8 @@ const TEMPERATURE_OFFSET = { copper: 234.5, aluminium: 228 } as const;
 export interface CableImpedanceOptions {
   /** Conductor temperature for the resistance (°C); Table 9 is at 75 °C. @default 75 */
   temperature?: number;
+  /** Why the resistance is taken at `temperature`, for its step's source. @default 'temperature as asked' */
+  temperatureBasis?: string;
   /** Field path of the cable, for errors. @default 'cable' */
   path?: string;
 }
@@ -45,7 +47,7 @@ export function cableImpedanceOf(
   cable: Pick<Cable, 'id' | 'size' | 'material' | 'conduit' | 'length' | 'sets' | 'resistance' | 'reactance'>,
   options: CableImpedanceOptions = {},
 ): { z: Impedance; steps: WorkStep[] } {
-  const { temperature = TABLE_9_TEMPERATURE, path = 'cable' } = options;
+  const { temperature = TABLE_9_TEMPERATURE, temperatureBasis = 'temperature as asked', path = 'cable' } = options;
   const needsTable = cable.resistance === undefined || cable.reactance === undefined;
   const size = needsTable ? parseConductorSize(cable.size, `${path}.size`) : cable.size;
   const row = needsTable ? NEC_TABLE_9[size] : undefined;
@@ -77,7 +79,7 @@ export function cableImpedanceOf(
             substituted: `R_T = ${r75} Ω/1000 ft × (${TEMPERATURE_OFFSET[cable.material]} + ${temperature} °C) / ${TEMPERATURE_OFFSET[cable.material] + TABLE_9_TEMPERATURE} °C`,
             value: r,
             unit: 'Ω/1000 ft',
-            source: 'NEC Ch. 9 Table 8 note coefficients; 90 °C for minimum fault, common practice',
+            source: `NEC Ch. 9 Table 8 note coefficients; ${temperatureBasis}`,
           },
         ]
       : []),

@@ -110,10 +110,11 @@ export interface FaultLevels {
 }
 
 /**
- * Conductor temperature for maximum fault (°C): the coolest the conductors are, as IEC 60909-0:2016
- * takes line resistances at 20 °C for the maximum short-circuit currents. NEC Chapter 9 Table 9 states
+ * Conductor temperature for maximum fault (°C): IEC 60909-0:2016 takes line resistances at 20 °C for
+ * the maximum short-circuit currents (a reference temperature: conductors in a colder place run cooler). NEC Chapter 9 Table 9 states
  * its resistances at 75 °C, a loaded conductor's: taken as they stand they understate the fault current
- * of a cable-fed bus, by up to 18 % (copper, 254.5 / 309.5) where the cable's resistance alone sets it.
+ * of a cable-fed bus, by up to 18 % (copper 254.5 / 309.5, aluminium 248 / 303) where the cable's resistance
+ * alone sets it.
  */
 export const MAXIMUM_FAULT_TEMPERATURE = 20;
 

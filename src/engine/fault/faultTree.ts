@@ -61,7 +61,7 @@ export interface ElementSteps {
  * reduced with the same source level, conductor temperature and tolerance, lends its element
  * impedances and their steps (the maximum fault without motors takes those of the maximum fault).
  *
- * @example faultTreeOf(network, { kind: 'max', level: study.source.max, motors: true, temperature: 75, toleranced: true }).toward.get('SWBD')
+ * @example faultTreeOf(network, { kind: 'max', level: study.source.max, motors: true, temperature: 20, toleranced: true }).toward.get('SWBD')
  */
 export function faultTreeOf(network: Network, condition: FaultCondition, elementsFrom?: FaultTree): FaultTree {
   const { study } = network;
@@ -195,7 +195,14 @@ function sourceOf(network: Network, condition: FaultCondition): { z: Impedance; 
 
 /** A cable's impedance at the condition's conductor temperature, with its steps (`index` names it in messages). */
 function cableOf(cable: Cable, index: number, condition: FaultCondition): { z: Impedance; readonly steps: WorkStep[] } {
-  return cableImpedanceOf(cable, { temperature: condition.temperature, path: `study.cables[${index}]` });
+  return cableImpedanceOf(cable, {
+    temperature: condition.temperature,
+    temperatureBasis:
+      condition.kind === 'max'
+        ? 'maximum fault: IEC 60909-0 takes line resistance at 20 °C for the maximum short-circuit currents'
+        : 'minimum fault: conductors at operating temperature, common practice',
+    path: `study.cables[${index}]`,
+  });
 }
 
 /** Whether two conditions give every element but the motors the same impedance. */

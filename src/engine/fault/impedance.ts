@@ -2,7 +2,7 @@
  * A complex impedance `r + jx`, in ohms (or per unit, when a calculation says so). Radial series
  * elements add as complex numbers, never as magnitudes (IEEE 141 / IEEE 399 per-unit method).
  *
- * @example const z: Impedance = { r: 0.0049755, x: 0.0206405 } // Ω at 480 V
+ * @example const z: Impedance = { r: 0.0047178, x: 0.0206405 } // Ω at 480 V
  */
 export interface Impedance {
   /** Resistance (Ω or pu). */

@@ -303,7 +303,7 @@ export function createStudySchema(frequency = 60) {
     resistance: z.optional(z.number().check(z.minimum(0), z.maximum(100))).check(
       z.meta({
         description:
-          'ohms per 1000 ft per conductor; overrides NEC Table 9 (MV cables); range 0 to 100 (14 AWG copper is about 3)',
+          'ohms per 1000 ft per conductor; overrides NEC Table 9 (MV cables) and is used as given for both the maximum and the minimum fault, with no temperature correction; range 0 to 100 (14 AWG copper is about 3)',
       }),
     ),
     reactance: z

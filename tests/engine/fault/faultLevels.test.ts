@@ -47,7 +47,11 @@ describe('faultLevelsOf', () => {
     assertInDelta(pnl.max.impedance.r, 0.0047178, 1e-4);
     assertInDelta(pnl.max.impedance.x, 0.0206405, 1e-5);
     // At 75 °C, as Table 9 states it, the panel would read 13 052.5 A: 0.3 % less.
-    expect(pnl.work.some((step) => /resistance at 20 °C/.test(step.label))).toBe(true);
+    const corrected = pnl.work.find((step) => /maximum: C resistance at 20 °C/.test(step.label))!;
+    expect(corrected.source).toMatch(/IEC 60909-0 takes line resistance at 20 °C/);
+    expect(pnl.work.find((step) => /minimum: C resistance at 90 °C/.test(step.label))!.source).toMatch(
+      /operating temperature, common practice/,
+    );
   });
 
   it('utility alone at the 4.16 kV bus is 34 696.5 A, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {

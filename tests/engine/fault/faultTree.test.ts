@@ -85,7 +85,7 @@ describe('faultTreeOf', () => {
       kind: 'max',
       level: undefined,
       motors: false,
-      temperature: 75,
+      temperature: MAXIMUM_FAULT_TEMPERATURE,
       toleranced: false,
     });
     expect(tree.order).toEqual(['MV', 'LV', 'PNL']);
@@ -140,7 +140,13 @@ describe('faultTreeOf', () => {
     const s = study(case72Input());
     const network = networkOf(s);
     const level = s.source.kind === 'utility' ? s.source.max : undefined;
-    const max = faultTreeOf(network, { kind: 'max', level, motors: true, temperature: 75, toleranced: true });
+    const max = faultTreeOf(network, {
+      kind: 'max',
+      level,
+      motors: true,
+      temperature: MAXIMUM_FAULT_TEMPERATURE,
+      toleranced: true,
+    });
     const withoutMotors = { ...max.condition, motors: false };
     const taken = faultTreeOf(network, withoutMotors, max);
     const computed = faultTreeOf(network, withoutMotors);
@@ -150,7 +156,7 @@ describe('faultTreeOf', () => {
     for (const id of computed.branchZ.keys()) expect(taken.steps.get(id)!.steps).toEqual(computed.steps.get(id)!.steps);
     expect(max.steps.get('NO-SUCH-ELEMENT')).toBeUndefined();
     expect(taken.branchZ.get('C')).toBe(max.branchZ.get('C'));
-    // At 90 °C the cables' resistance differs, so nothing is taken from the 75 °C tree.
+    // At 90 °C the cables' resistance differs, so nothing is taken from the 20 °C tree.
     const hot = faultTreeOf(network, { ...withoutMotors, temperature: 90 }, max);
     expect(hot.branchZ.get('C')!.r).toBeGreaterThan(max.branchZ.get('C')!.r);
   });
@@ -159,7 +165,13 @@ describe('faultTreeOf', () => {
     const generated = parseStudy(radialStudy(25));
     const network = networkOf(generated);
     const level = generated.source.kind === 'utility' ? generated.source.max : undefined;
-    const max = faultTreeOf(network, { kind: 'max', level, motors: true, temperature: 75, toleranced: true });
+    const max = faultTreeOf(network, {
+      kind: 'max',
+      level,
+      motors: true,
+      temperature: MAXIMUM_FAULT_TEMPERATURE,
+      toleranced: true,
+    });
     const bare = faultTreeOf(network, { ...max.condition, motors: false }, max);
     const motor = generated.motors[0];
     // The first step is the motor's own full-load current; the same steps each time they are read.
