@@ -163,7 +163,7 @@ function decayProblems(
     return times;
   };
   for (const pair of chain) {
-    const { clears, opens, current, sustainedAmps, clearsBy, opensBy } = timesOf(pair);
+    const { clears, opens, current, sustainedAmps, upperSustainedAmps, clearsBy, opensBy } = timesOf(pair);
     const { rule } = pair;
     // An upstream device that never operates, or only once the pair's rule is met, is selective (the
     // overlap finder's reading: `opens · timeRatio ≥ clears + margin`).
@@ -177,7 +177,7 @@ function decayProblems(
       ? `${pair.downstreamName}${below} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${pair.upstreamName} can operate from ${formatSeconds(opens)}${onElement(opensBy)}: ${separationText(clears, opens, rule, pair.downstreamName, pair.upstreamName)}`
       : `${pair.downstreamName}${below} never clears and ${pair.upstreamName} can operate from ${formatSeconds(opens)}${onElement(opensBy)}`;
     problems.push(
-      `on the generator's decaying current (a fault at ${here.name ?? here.id} (${formatVolts(here.voltage)}), ${decayText(current(0), sustainedAmps)}), ${times}`,
+      `on the generator's decaying current (a fault at ${here.name ?? here.id} (${formatVolts(here.voltage)}), ${decayText(current(0), sustainedAmps, upperSustainedAmps)}), ${times}`,
     );
   }
   return problems;

@@ -62,12 +62,8 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       });
       continue;
     }
-    const { current, sustainedAmps, clears, opens, clearsBy, opensBy, clearsAtSustained } = decrementTimesOf(
-      analysis,
-      source,
-      pair,
-      bus.id,
-    );
+    const { current, sustainedAmps, upperSustainedAmps, clears, opens, clearsBy, opensBy, clearsAtSustained } =
+      decrementTimesOf(analysis, source, pair, bus.id);
     // Past the integral's horizon a device may still clear on the sustained current, only too late to follow.
     const tooSlow = !Number.isFinite(clears) && Number.isFinite(clearsAtSustained);
     const { rule } = pair;
@@ -75,7 +71,10 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     const slack = opens === Infinity ? Infinity : opens * rule.timeRatio - (clears + rule.margin);
     const ok = Number.isFinite(clears) && slack >= 0;
     const sustained = formatAmps(sustainedAmps, 3);
-    const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${decayText(current(0), sustainedAmps)}`;
+    const steady = formatAmps(current(0), 3) === sustained;
+    const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${decayText(current(0), sustainedAmps, upperSustainedAmps)}`;
+    // More support is a remedy only for a machine without it: with it, the current is held at its start at most.
+    const orSupport = source.sustained === undefined ? ', or give the generator excitation support' : '';
     // As the pair check: selective on an illustrative curve is told (info), not claimed.
     const illustrative = [up, down].filter(isIllustrative).map(nameOf);
     const told = ok && illustrative.length > 0;
@@ -88,15 +87,15 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       explanation: tooSlow
         ? `For ${at}, ${nameOf(down)} does not clear within the ${HORIZON_SECONDS} s the check follows: at the sustained ${sustained} it takes ${formatSeconds(clearsAtSustained)}.`
         : !Number.isFinite(clears)
-          ? `For ${at}, ${nameOf(down)} never clears: the current decays below what it needs before it can operate.`
+          ? `For ${at}, ${nameOf(down)} never clears: the current ${steady ? 'stays' : 'decays'} below what it needs ${steady ? 'to operate' : 'before it can operate'}.`
           : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}${onElement(opensBy)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : 'does not operate on the decaying current'}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
       suggestion: ok
         ? undefined
         : Number.isFinite(clears)
           ? `Delay ${nameOf(up)} or make ${nameOf(down)} faster at the generator's currents.`
           : tooSlow
-            ? `Make ${nameOf(down)} faster at the generator's sustained current, or give the generator more excitation support.`
-            : `Lower ${nameOf(down)}'s pickup below the generator's sustained current, or give the generator excitation support.`,
+            ? `Make ${nameOf(down)} faster at the generator's sustained current${orSupport}.`
+            : `Lower ${nameOf(down)}'s pickup below the generator's sustained current${orSupport}.`,
       basis: `generator decrement (IEEE Std 551) with time-varying-current integration (IEEE C37.112); ${pair.rule.basis}`,
       referenceVolts: bus.voltage,
       worst: Number.isFinite(clears)
@@ -133,20 +132,25 @@ export function decrementTimesOf(
   const decrement = decrementAt(analysis, generator, busId);
   const toBus = generator.voltage / volts;
   const current = (seconds: number) => decrement.ampsAt(seconds) * toBus;
+  const upperCurrent = (seconds: number) => decrement.upperAmpsAt(seconds) * toBus;
   // Each device reads its own band, element by element, on the current at its own voltage.
-  const operationOf = (id: string, edge: 'min' | 'max') => {
+  const operationOf = (id: string, edge: 'min' | 'max', amps: (seconds: number) => number) => {
     const toDevice = volts / locationBusOf(network, network.devices.get(id)!).voltage;
-    // The decrement never rises (X″d ≤ X′d ≤ Xd, held at most at its support floor).
-    return edgeOperationOnCurrent(analysis.bands.get(id)!, edge, (seconds) => current(seconds) * toDevice, {
-      fallingFrom: current(0) * toDevice,
+    // Both readings of the decrement never rise (X″d ≤ X′d ≤ Xd, then a constant floor).
+    return edgeOperationOnCurrent(analysis.bands.get(id)!, edge, (seconds) => amps(seconds) * toDevice, {
+      fallingFrom: amps(0) * toDevice,
     });
   };
-  const down = operationOf(pair.downstream, 'max');
-  const up = operationOf(pair.upstream, 'min');
+  // The downstream device clears on the lower reading, the upstream one operates on the upper: where the
+  // support may raise a distant fault's current, each is read the way that is worse for the pair.
+  const down = operationOf(pair.downstream, 'max', current);
+  const up = operationOf(pair.upstream, 'min', upperCurrent);
   const downVolts = locationBusOf(network, network.devices.get(pair.downstream)!).voltage;
   return {
     current,
     sustainedAmps: decrement.sustainedAmps * toBus,
+    /** What the support may raise the current to, where that is more than `sustainedAmps` (A at the bus). */
+    upperSustainedAmps: decrement.upperSustainedAmps * toBus,
     clears: down.seconds,
     opens: up.seconds,
     /** The elements that clear and operate first, where the families name them ('long-time'…). */
@@ -171,14 +175,20 @@ export function onElement(label: string | undefined): string {
 
 /**
  * The decaying current in words, from its start to what it settles at: "2690 A falling to 1200 A", or
- * "a steady 2890 A" where it does not fall (far behind a cable the excitation support holds its start).
+ * "a steady 2890 A" where it does not fall (far behind a cable the excitation support holds its start);
+ * with what the support may raise it to, where that is more (`upperSustainedAmps`).
  *
  * @example decayText(2694, 1203) // '2690 A falling to 1200 A'
  */
-export function decayText(initialAmps: number, sustainedAmps: number): string {
+export function decayText(initialAmps: number, sustainedAmps: number, upperSustainedAmps = sustainedAmps): string {
   const initial = formatAmps(initialAmps, 3);
   const sustained = formatAmps(sustainedAmps, 3);
-  return initial === sustained ? `a steady ${initial}` : `${initial} falling to ${sustained}`;
+  const upper = formatAmps(upperSustainedAmps, 3);
+  const raised =
+    upper === sustained
+      ? ''
+      : ` (the excitation support may raise it toward ${upper}, on which the upstream device is read)`;
+  return (initial === sustained ? `a steady ${initial}` : `${initial} falling to ${sustained}`) + raised;
 }
 
 /**

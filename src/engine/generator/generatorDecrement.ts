@@ -44,6 +44,14 @@ export interface GeneratorDecrement {
   supported: boolean;
   /** Current (A) at `seconds` ≥ 0 after the fault; throws a `RangeError` for a negative or NaN time. */
   ampsAt(seconds: number): number;
+  /**
+   * The most the current may be at `seconds` (A): the same, with the support's floor not held at the
+   * start. Far behind a cable the voltage regulator may raise the current above its start, toward that
+   * floor, over its response time; where the floor is below the start it is `ampsAt`.
+   */
+  upperAmpsAt(seconds: number): number;
+  /** What `upperAmpsAt` settles to (A). */
+  upperSustainedAmps: number;
   /** The same in per unit of rated current. */
   perUnitAt(seconds: number): number;
   /** Sampled curve, log-spaced from half a cycle to `longestSeconds`: `seconds[i]`, `amps[i]`. */
@@ -60,19 +68,23 @@ export interface GeneratorDecrement {
  *
  * `i(t) = E · [(1/X″d − 1/X′d) · e^(−t/T″d) + (1/X′d − 1/Xd) · e^(−t/T′d) + 1/Xd]` per unit of rated current.
  *
- * Behind an external impedance `Ze = Re + jXe` each `1/X` becomes `1/|Re + j(X + Xe)|`, with the time
- * constants unchanged (an approximation, common practice: strictly they shorten toward the open-circuit
- * values as Xe grows). The armature resistance only sets the dc time constant, which this symmetrical
- * (ac) decrement leaves out, so it is neglected here. With excitation support `k` (the sustained multiple at
- * the terminals) the current never falls below a floor (model: `max(decaying term, floor)`): the field at
- * ceiling holds an internal voltage of `k · Xd`, which drives `k · Xd / |Re + j(Xd + Xe)|` through the
+ * Each reactance is taken at the machine's X/R angle, `Z = X·(cos θ + j sin θ)` with `tan θ = X/R`, as
+ * the fault levels take X″d, so its magnitude at the terminals is X. Behind an external impedance `Ze = Re + jXe` each `1/X`
+ * becomes `1/|Z + Ze|`, with the time constants unchanged (an approximation, common practice:
+ * strictly they shorten toward the open-circuit values as Xe grows); the current starts at the bus's
+ * subtransient fault current from the machine. With excitation support `k` (the sustained multiple at
+ * the terminals) the current never falls below a floor (model: `max(decaying term, floor)`): the field
+ * at ceiling holds an internal voltage of `k · Xd`, which drives `k · Xd / |Zd + Ze|` through the
  * synchronous reactance and the external impedance, the same sum as the `E/Xd` term (IEEE Std 551-2006,
  * synchronous generator decrement, from memory); and no more than rated terminal voltage drives through
- * `Ze`, `1 / |Ze|` (a simplification: the voltage regulator holds the terminals no higher than rated). The
- * floor is the smaller, and never above the current the fault starts at, `E / |Z″|`: far behind a cable
- * `1 / |Ze|` exceeds it, and the regulator brings the current up toward it only over its response time,
- * which this model leaves out. So the current never rises, and starts at the bus's subtransient
- * fault current. The manufacturer's decrement curve governs.
+ * `Ze`, `1 / |Ze|` (a simplification: the voltage regulator holds the terminals no higher than rated).
+ * The floor is the smaller of the two. Far behind a cable it can exceed the start `E / |Z″ + Ze|`
+ * (with E = 1 it always does where the field's bound allows): the regulator then raises the current
+ * toward it over its response time, which this model does not follow. So the decrement is read two
+ * ways: `ampsAt` holds the floor at most at the start (the current never rises; the downstream device's
+ * clearing is read on it, the later reading), `upperAmpsAt` takes the whole floor from the start (the
+ * upstream device's operation is read on it, the earlier reading). Both never rise. The manufacturer's
+ * decrement curve governs.
  *
  * @example generatorDecrement(g500kVA, {}).perUnitAt(0) // 1 / 0.12 = 8.3333
  */
@@ -89,31 +101,37 @@ export function generatorDecrement(gen: GeneratorRating, options: GeneratorDecre
   const re = requireNumberAbove('options.external.r', external?.r, 0, 'a resistance in pu', true);
   const xe = requireNumberAbove('options.external.x', external?.x, 0, 'a reactance in pu', true);
 
-  // The three admittance magnitudes of the subtransient, transient and steady-state circuits.
-  const behind = (x: number) => 1 / Math.hypot(re, x + xe);
+  // The three admittance magnitudes of the subtransient, transient and steady-state circuits, each
+  // reactance at the machine's X/R angle.
+  const cos = 1 / Math.hypot(1, machine.xr);
+  const sin = machine.xr * cos;
+  const behind = (x: number) => 1 / Math.hypot(x * cos + re, x * sin + xe);
   const ySubtransient = behind(machine.xdSubtransient);
   const yTransient = behind(machine.xdTransient);
   const ySynchronous = behind(machine.xd);
   const externalMagnitude = magnitudeOf({ r: re, x: xe });
-  // At the terminals both bounds give k; behind Ze the ceiling voltage k·Xd also drops across Xd. Far
-  // behind Ze the support may not lift the current above its subtransient start.
-  const floor =
+  // At the terminals both bounds give k; behind Ze the ceiling voltage k·Xd also drops across Xd.
+  const upperFloor =
     machine.sustained === undefined
       ? 0
-      : Math.min(machine.sustained * machine.xd * ySynchronous, 1 / externalMagnitude, e * ySubtransient);
+      : Math.min(machine.sustained * machine.xd * ySynchronous, 1 / externalMagnitude);
+  // Held at most at the start: the regulator's slower rise toward the whole floor is not followed.
+  const floor = Math.min(upperFloor, e * ySubtransient);
 
   const { tdSubtransient, tdTransient } = machine;
-  const perUnitAt = (seconds: number): number => {
+  const decayingAt = (seconds: number): number => {
     if (!(seconds >= 0)) throw new RangeError(`seconds: expected a time of at least 0, got "${seconds}"`);
-    const decaying =
+    return (
       e *
       ((ySubtransient - yTransient) * Math.exp(-seconds / tdSubtransient) +
         (yTransient - ySynchronous) * Math.exp(-seconds / tdTransient) +
-        ySynchronous);
-    return Math.max(decaying, floor);
+        ySynchronous)
+    );
   };
+  const perUnitAt = (seconds: number) => Math.max(decayingAt(seconds), floor);
   const ratedAmps = ratedAmpsOf(machine);
   const ampsAt = (seconds: number) => perUnitAt(seconds) * ratedAmps;
+  const upperAmpsAt = (seconds: number) => Math.max(decayingAt(seconds), upperFloor) * ratedAmps;
 
   // Log-spaced samples, half a cycle to the longest time, both ends included.
   const decades = Math.log10(longestSeconds / halfCycle);
@@ -138,17 +156,22 @@ export function generatorDecrement(gen: GeneratorRating, options: GeneratorDecre
     sustainedAmps: Math.max(steady, floor) * ratedAmps,
     supported,
     ampsAt,
+    upperAmpsAt,
+    upperSustainedAmps: Math.max(steady, upperFloor) * ratedAmps,
     perUnitAt,
     seconds,
     amps,
     notes: [
       'i(t) = E·[(1/X″d − 1/X′d)·e^(−t/T″d) + (1/X′d − 1/Xd)·e^(−t/T′d) + 1/Xd] pu, symmetrical rms (IEEE Std 551; standard machine theory)',
-      `${path}: X″d ${machine.xdSubtransient}, X′d ${machine.xdTransient}, Xd ${machine.xd} pu; T″d ${machine.tdSubtransient} s, T′d ${machine.tdTransient} s; E = ${significant(e, 4)} pu` +
+      `${path}: X″d ${machine.xdSubtransient}, X′d ${machine.xdTransient}, Xd ${machine.xd} pu at X/R ${significant(machine.xr, 4)}; T″d ${machine.tdSubtransient} s, T′d ${machine.tdTransient} s; E = ${significant(e, 4)} pu` +
         (options.internalVoltage === undefined ? ' (no load, rated voltage)' : ''),
       externalText,
       machine.sustained === undefined
         ? `no excitation support: the current decays toward E/Xd = ${significant(steady * ratedAmps, 5)} A`
-        : `excitation support holds at least ${significant(floor * ratedAmps, 5)} A (${significant(floor, 4)} × rated; model max(decaying term, support))`,
+        : `excitation support holds at least ${significant(floor * ratedAmps, 5)} A (${significant(floor, 4)} × rated; model max(decaying term, support))` +
+          (upperFloor > floor
+            ? `, held at the start; the regulator may raise it toward ${significant(upperFloor * ratedAmps, 5)} A, on which the upstream device is read`
+            : ''),
       'dc offset not included; the manufacturer’s decrement curve governs',
     ],
   };

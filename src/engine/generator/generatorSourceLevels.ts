@@ -61,7 +61,9 @@ export function generatorSourceLevels(gen: GeneratorRating): GeneratorSourceLeve
   const synchronousAmps = ratedAmps / machine.xd;
   const supportAmps = machine.sustained === undefined ? 0 : machine.sustained * ratedAmps;
   const minimumBasis = supportAmps > synchronousAmps ? 'support' : 'synchronous';
-  const minimumAmps = Math.max(supportAmps, synchronousAmps);
+  // No more than the fault starts at: the minimum is never above the maximum (a support multiple above
+  // 1/X″d is reached, if at all, only as the regulator raises the current, which the decrement holds at its start).
+  const minimumAmps = Math.min(Math.max(supportAmps, synchronousAmps), subtransientAmps);
   const minimum = { va: Math.sqrt(3) * volts * minimumAmps, amps: minimumAmps };
   const magnitude = (volts * volts) / maximum.va;
   const z = impedanceOfMagnitude(magnitude, machine.xr);
@@ -119,8 +121,11 @@ export function generatorSourceLevels(gen: GeneratorRating): GeneratorSourceLeve
         minimumBasis === 'support'
           ? {
               label: `${machine.id} sustained fault current with excitation support`,
-              formula: 'I_sus = k · I_r',
-              substituted: `I_sus = ${num(machine.sustained!)} × ${num(ratedAmps)} A`,
+              formula: supportAmps > subtransientAmps ? 'I_sus = min(k · I_r, I″)' : 'I_sus = k · I_r',
+              substituted:
+                supportAmps > subtransientAmps
+                  ? `I_sus = min(${num(machine.sustained!)} × ${num(ratedAmps)} A, ${num(subtransientAmps)} A)`
+                  : `I_sus = ${num(machine.sustained!)} × ${num(ratedAmps)} A`,
               value: minimumAmps,
               unit: 'A',
               source: 'excitation-support multiple as given (manufacturer’s data)',

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { analyseStudy } from '../../../src/engine/analysis.ts';
-import { decayText } from '../../../src/engine/checks/decrementCoordination.ts';
+import { decayText, decrementTimesOf } from '../../../src/engine/checks/decrementCoordination.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
-import { generatorPairStudy } from '../generator/fixtures.ts';
+import { generatorPairStudy, standbySource } from '../generator/fixtures.ts';
 
 /**
  * A 500 kVA, 480 V generator feeding a fuse UP, a cable and a fuse DOWN below it. X″d = X′d = Xd = 0.25 pu
@@ -147,6 +147,67 @@ describe('decrementFindings', () => {
       "LOW over BR on the generator's decaying current: not worked out",
     ]);
     expect(single.explanation).toMatch(/^S is a single-phase bus/);
+  });
+
+  describe('far behind a long cable: the support holds the current at its start, and the upstream device is read on what it may be raised to', () => {
+    /**
+     * The standby generator (X″d 0.12, Xd 2 pu, support 3 × rated) feeding 1000 ft of `size` to panel PNL
+     * through UP, a 200 A trip unit, and from PNL 10 ft to LOAD through DOWN. Far behind the cable the
+     * support's floor (no more than rated voltage drives through the cable, 1/|Ze|) is above the start
+     * 1/|X″d∠θ + Ze|: DOWN is read on the current held at the start, UP on the floor. Invented settings.
+     */
+    const farStudy = (size: string, down: Record<string, unknown>): StudyInput => ({
+      discern: 1,
+      name: 'a pair far behind a cable on a standby generator',
+      source: standbySource(),
+      buses: [
+        { id: 'GEN', voltage: 480 },
+        { id: 'PNL', voltage: 480 },
+        { id: 'LOAD', voltage: 480 },
+      ],
+      cables: [
+        { id: 'C1', from: 'GEN', to: 'PNL', size, length: '1000 ft' },
+        { id: 'C2', from: 'PNL', to: 'LOAD', size, length: '10 ft' },
+      ],
+      devices: [
+        {
+          id: 'UP',
+          feeds: 'C1',
+          characteristic: { kind: 'trip-unit', sensor: 200, longTime: { pickup: 1, delay: 10 } },
+        },
+        { id: 'DOWN', feeds: 'C2', characteristic: down as never },
+      ],
+    });
+
+    it('DOWN clears on the steady start, UP operates on the raised current: each the worse way for the pair', () => {
+      const study = parseStudy(
+        farStudy('4 AWG', { kind: 'trip-unit', sensor: 100, longTime: { pickup: 1, delay: 4 } }),
+      );
+      const analysis = analyseStudy(study);
+      const times = decrementTimesOf(analysis, study.source as never, { upstream: 'UP', downstream: 'DOWN' }, 'PNL');
+      assertInDelta(times.current(0), times.sustainedAmps, 1e-12); // steady at its start
+      expect(times.upperSustainedAmps).toBeGreaterThan(times.sustainedAmps * 1.01);
+      // On constant currents each time is the band's own: DOWN's latest at the start, UP's earliest at the floor.
+      assertInDelta(times.clears, analysis.bands.get('DOWN')!.maxTime(times.sustainedAmps), 1e-6);
+      assertInDelta(times.opens, analysis.bands.get('UP')!.minTime(times.upperSustainedAmps), 1e-6);
+      // The start is the bus's maximum fault from the machine (no motors here), to the figures given.
+      assertInDelta(times.current(0), analysis.faults.buses.get('PNL')!.max.threePhase, 1e-6);
+      const finding = analysis.findings.find((f) => f.id === 'decrement:UP/DOWN')!;
+      expect(finding.explanation).toMatch(
+        /^For a fault at PNL \(480 V\) fed by Standby generator, a steady \d+ A \(the excitation support may raise it toward \d+ A, on which the upstream device is read\),/,
+      );
+    });
+
+    it('a downstream device the steady current never reaches is told so, with no excitation support to add', () => {
+      // 12 AWG: the start is below DOWN's 400 A pickup (its lower tolerance, 360 A, too).
+      const study = parseStudy(
+        farStudy('12 AWG', { kind: 'trip-unit', sensor: 400, longTime: { pickup: 1, delay: 4 } }),
+      );
+      const finding = analyseStudy(study).findings.find((f) => f.id === 'decrement:UP/DOWN')!;
+      expect(finding.title).toBe("UP over DOWN on the generator's decaying current: downstream never clears");
+      expect(finding.explanation).toMatch(/DOWN never clears: the current stays below what it needs to operate\.$/);
+      expect(finding.suggestion).toBe("Lower DOWN's pickup below the generator's sustained current.");
+    });
   });
 
   describe('each element on its own: a short-time delay the current leaves unfinished gives no head start', () => {

@@ -4,6 +4,15 @@ import { baseOhmsOf, generatorDecrement, ratedAmpsOf } from '../../../src/engine
 import { assertInDelta } from '../../asserts.ts';
 import { RATED_AMPS, decrementByHand, generatorOf } from './fixtures.ts';
 
+/**
+ * |X∠θ + Re + jXe|: a machine reactance at the X/R angle of `generatorOf()` (the default X/R 20:
+ * cos θ = 1/√401 = 0.049938, sin θ = 20/√401 = 0.998752) behind an external impedance, in pu.
+ */
+function magnitudeBehind(reactance: number, re: number, xe: number): number {
+  const cos = 1 / Math.sqrt(401);
+  return Math.hypot(reactance * cos + re, reactance * 20 * cos + xe);
+}
+
 describe('generatorDecrement', () => {
   it('has the expected defaults', () => {
     const decrement = generatorDecrement(generatorOf());
@@ -64,45 +73,66 @@ describe('generatorDecrement', () => {
       assertInDelta(decrement.perUnitAt(0), 1 / 0.12, 1e-12);
     });
 
-    it('behind Ze the field at ceiling (E = k·Xd = 6 pu) drives 6 / |j(2 + 0.2)| = 2.72727 pu, not k = 3 (IEEE Std 551, from memory)', () => {
+    it('behind Ze the field at ceiling (E = k·Xd = 6 pu) drives 6 / |Xd∠θ + j0.2| = 2.72754 pu, not k = 3 (IEEE Std 551, from memory)', () => {
       const behind = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.2 } });
-      assertInDelta(behind.perUnitAt(10), 6 / 2.2, 1e-12); // min(2.72727, 1/0.2 = 5)
-      assertInDelta(behind.sustainedAmps, (6 / 2.2) * RATED_AMPS, 1e-12);
-      // Resistance adds in the magnitude: 6 / |0.16 + j2.12| = 2.82216 pu.
+      assertInDelta(behind.perUnitAt(10), 6 / magnitudeBehind(2, 0, 0.2), 1e-12); // min(2.72754, 1/0.2 = 5)
+      assertInDelta(6 / magnitudeBehind(2, 0, 0.2), 2.72754, 1e-5); // |0.09988 + j2.19750| = 2.19977
+      assertInDelta(behind.sustainedAmps, (6 / magnitudeBehind(2, 0, 0.2)) * RATED_AMPS, 1e-12);
+      // Resistance adds in the magnitude: 6 / |0.25988 + j2.11750| = 2.81242 pu.
       const lossy = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0.16, x: 0.12 } });
-      assertInDelta(lossy.perUnitAt(10), 2.82216, 1e-5);
+      assertInDelta(lossy.perUnitAt(10), 2.81242, 1e-5);
     });
 
     it('behind an external impedance the floor is at most 1/|Ze| (rated terminal voltage, a simplification)', () => {
-      // A loaded machine (E = 1.1 pu) starts at 1.1/2.12 = 0.518868 pu, above what rated voltage drives through Ze.
+      // A loaded machine (E = 1.1 pu) starts at 1.1 / |X″d∠θ + j2| = 0.518902 pu, above what rated voltage drives through Ze.
       const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 2 }, internalVoltage: 1.1 });
-      assertInDelta(far.perUnitAt(10), 0.5, 1e-12); // min(6 / 4 = 1.5, 1/2, 0.518868)
+      assertInDelta(far.perUnitAt(10), 0.5, 1e-12); // min(6 / 3.99875 = 1.5005, 1/2, 0.518902)
+      assertInDelta(far.upperAmpsAt(10), far.ampsAt(10), 1e-12);
     });
 
-    it("far behind a long cable the support holds the subtransient start 1/|j(0.12 + 2)| = 0.471698 pu, not 1/|Ze| = 0.5 above it (the regulator's slow recovery is left out)", () => {
+    it("far behind a long cable the support holds the subtransient start 1/|X″d∠θ + j2| = 0.471730 pu, and the upper reading takes 1/|Ze| = 0.5 pu above it (the regulator's rise)", () => {
       const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 2 } });
-      assertInDelta(far.perUnitAt(0), 1 / 2.12, 1e-12);
-      assertInDelta(far.perUnitAt(10), 1 / 2.12, 1e-12); // min(6 / 4 = 1.5, 1/2 = 0.5, 1/2.12)
+      const start = 1 / magnitudeBehind(0.12, 0, 2);
+      assertInDelta(start, 0.47173, 1e-5);
+      assertInDelta(far.perUnitAt(0), start, 1e-12);
+      assertInDelta(far.perUnitAt(10), start, 1e-12); // min(6 / 3.99875 = 1.5005, 1/2 = 0.5, 0.471730)
       assertInDelta(far.sustainedAmps, far.initialAmps, 1e-9);
-      expect(far.supported).toBe(true); // above E/Xd = 1/4
-      // Nearer, 1/|j0.5| = 2 pu would lift the current above its start 1/0.62 = 1.6129 pu as well.
+      expect(far.supported).toBe(true); // above E/|Xd∠θ + j2| = 0.2502
+      // The upper reading, for the upstream device: the whole floor from the start.
+      assertInDelta(far.upperAmpsAt(0), 0.5 * RATED_AMPS, 1e-12);
+      assertInDelta(far.upperSustainedAmps, 0.5 * RATED_AMPS, 1e-12);
+      expect(far.notes.join('\n')).toMatch(
+        /the regulator may raise it toward 300\.7 A, on which the upstream device is read/,
+      );
+      // Nearer, 1/|j0.5| = 2 pu would lift the current above its start 1/|X″d∠θ + j0.5| = 1.61322 pu as well.
       const nearer = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.5 } });
-      assertInDelta(nearer.perUnitAt(10), 1 / 0.62, 1e-12); // min(6 / 2.5 = 2.4, 1/0.5, 1/0.62)
+      assertInDelta(nearer.perUnitAt(10), 1 / magnitudeBehind(0.12, 0, 0.5), 1e-12);
+      assertInDelta(1 / magnitudeBehind(0.12, 0, 0.5), 1.61322, 1e-5);
+      assertInDelta(nearer.upperAmpsAt(10), 2 * RATED_AMPS, 1e-12); // min(6 / 2.49950 = 2.40048, 1/0.5)
     });
   });
 
-  describe('fault behind an external impedance (Xe added to each reactance, time constants unchanged, common practice)', () => {
-    it('Xe = 0.1 pu: 1/0.22 = 4.54545 pu at t = 0 and 1/2.1 pu at 10 s', () => {
+  describe('fault behind an external impedance (each reactance at the machine X/R angle, time constants unchanged, common practice)', () => {
+    it('Xe = 0.1 pu: 1/|X″d∠θ + j0.1| = 4.54686 pu at t = 0 and 1/|Xd∠θ + j0.1| at 10 s', () => {
       const decrement = generatorDecrement(generatorOf(), { external: { r: 0, x: 0.1 } });
-      assertInDelta(decrement.perUnitAt(0), 4.54545, 1e-5);
-      assertInDelta(decrement.perUnitAt(0.4), decrementByHand(0.4, 0.22, 0.3, 2.1), 1e-12);
-      assertInDelta(decrement.perUnitAt(0.4), 1.52727, 1e-5);
-      assertInDelta(decrement.perUnitAt(10), 1 / 2.1, 1e-9);
+      assertInDelta(decrement.perUnitAt(0), 4.54686, 1e-5); // |0.005993 + j0.219850| = 0.219932
+      const [x2, x1, x] = [0.12, 0.2, 2].map((reactance) => magnitudeBehind(reactance, 0, 0.1));
+      assertInDelta(decrement.perUnitAt(0.4), decrementByHand(0.4, x2, x1, x), 1e-12);
+      assertInDelta(decrement.perUnitAt(10), 1 / x, 1e-9);
     });
 
-    it('external resistance enters each magnitude: 1/|0.05 + j0.22| at t = 0', () => {
+    it('at the terminals each magnitude is the reactance itself, whatever the X/R', () => {
+      for (const xr of [2, 20, 200]) {
+        const decrement = generatorDecrement(generatorOf({ xr }));
+        assertInDelta(decrement.perUnitAt(0), 1 / 0.12, 1e-12);
+        assertInDelta(decrement.perUnitAt(0.4), decrementByHand(0.4), 1e-12);
+      }
+    });
+
+    it('external resistance enters each magnitude: 1/|(0.05 + 0.005993) + j0.219850| at t = 0', () => {
       const decrement = generatorDecrement(generatorOf(), { external: { r: 0.05, x: 0.1 } });
-      assertInDelta(decrement.perUnitAt(0), 1 / Math.hypot(0.05, 0.22), 1e-12);
+      assertInDelta(decrement.perUnitAt(0), 1 / magnitudeBehind(0.12, 0.05, 0.1), 1e-12);
+      assertInDelta(decrement.perUnitAt(0), 1 / Math.hypot(0.055993, 0.21985), 1e-5);
     });
 
     it('ohms become per unit on the generator base: 0.04608 Ω at 480 V, 500 kVA is 0.1 pu', () => {
@@ -110,7 +140,7 @@ describe('generatorDecrement', () => {
       const decrement = generatorDecrement(generatorOf(), {
         external: { r: 0, x: 0.04608 / baseOhmsOf(generatorOf()) },
       });
-      assertInDelta(decrement.perUnitAt(0), 1 / 0.22, 1e-12);
+      assertInDelta(decrement.perUnitAt(0), 1 / magnitudeBehind(0.12, 0, 0.1), 1e-12);
     });
   });
 
@@ -166,7 +196,8 @@ describe('generatorDecrement', () => {
         fc.option(fc.double({ min: 0.5, max: 4, noNaN: true })),
         fc.double({ min: 0, max: 5, noNaN: true }),
         fc.double({ min: 0, max: 5, noNaN: true }),
-        (xdSubtransient, transientFactor, synchronousFactor, tdSubtransient, timeFactor, sustained, r, x) => {
+        fc.double({ min: 1, max: 100, noNaN: true }),
+        (xdSubtransient, transientFactor, synchronousFactor, tdSubtransient, timeFactor, sustained, r, x, xr) => {
           const xdTransient = xdSubtransient * transientFactor;
           const machine = generatorOf({
             xdSubtransient,
@@ -174,14 +205,23 @@ describe('generatorDecrement', () => {
             xd: xdTransient * synchronousFactor,
             tdSubtransient,
             tdTransient: tdSubtransient * timeFactor,
+            xr,
             ...(sustained === null ? {} : { sustained }),
           });
           const decrement = generatorDecrement(machine, { external: { r, x } });
           let last = decrement.ampsAt(0);
+          let lastUpper = decrement.upperAmpsAt(0);
+          expect(last).toBeLessThanOrEqual(decrement.initialAmps);
           for (let k = 0; k <= 400; k++) {
-            const now = decrement.ampsAt(1e-6 * 10 ** (k / 40));
+            const seconds = 1e-6 * 10 ** (k / 40);
+            const now = decrement.ampsAt(seconds);
+            const upper = decrement.upperAmpsAt(seconds);
             expect(now).toBeLessThanOrEqual(last);
+            // The upper reading never rises either, and is never below the other.
+            expect(upper).toBeLessThanOrEqual(lastUpper);
+            expect(upper).toBeGreaterThanOrEqual(now);
             last = now;
+            lastUpper = upper;
           }
         },
       ),

@@ -53,6 +53,16 @@ describe('generatorSourceLevels', () => {
     assertInDelta(levels.minimum.va, 250e3, 1e-12);
   });
 
+  it('a support above the subtransient current (X″d 0.3, k 4: 1/0.3 = 3.33 × rated) leaves the minimum at the maximum, 2004.69 A, not above it', () => {
+    const levels = generatorSourceLevels(generatorOf({ xdSubtransient: 0.3, xdTransient: 0.35, sustained: 4 }));
+    expect(levels.minimumBasis).toBe('support');
+    assertInDelta(levels.minimum.amps, RATED_AMPS / 0.3, 1e-12);
+    assertInDelta(levels.minimum.amps, levels.maximum.amps, 1e-12);
+    assertInDelta(levels.minimum.amps, 2004.69, 1e-6);
+    const step = levels.work.find((s) => /sustained fault current with excitation support/.test(s.label))!;
+    expect(step.formula).toBe('I_sus = min(k · I_r, I″)');
+  });
+
   it('a given X0 = 0.03 pu gives X0/X1 = 0.03 / 0.12 = 0.25; a given X/R is used', () => {
     const levels = generatorSourceLevels(generatorOf({ x0: 0.03, xr: 12 }));
     assertInDelta(levels.zeroSequenceRatio, 0.25, 1e-12);
