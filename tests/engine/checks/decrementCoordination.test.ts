@@ -3,7 +3,9 @@ import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { decayText, decrementTimesOf } from '../../../src/engine/checks/decrementCoordination.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
-import { generatorPairStudy, standbySource } from '../generator/fixtures.ts';
+import { generatorPairStudy, standbyChainStudy } from '../generator/fixtures.ts';
+
+type Characteristic = NonNullable<StudyInput['devices']>[number]['characteristic'];
 
 /**
  * A 500 kVA, 480 V generator feeding a fuse UP, a cable and a fuse DOWN below it. X″d = X′d = Xd = 0.25 pu
@@ -156,28 +158,13 @@ describe('decrementFindings', () => {
      * support's floor (no more than rated voltage drives through the cable, 1/|Ze|) is above the start
      * 1/|X″d∠θ + Ze|: DOWN is read on the current held at the start, UP on the floor. Invented settings.
      */
-    const farStudy = (size: string, down: Record<string, unknown>): StudyInput => ({
-      discern: 1,
-      name: 'a pair far behind a cable on a standby generator',
-      source: standbySource(),
-      buses: [
-        { id: 'GEN', voltage: 480 },
-        { id: 'PNL', voltage: 480 },
-        { id: 'LOAD', voltage: 480 },
-      ],
-      cables: [
-        { id: 'C1', from: 'GEN', to: 'PNL', size, length: '1000 ft' },
-        { id: 'C2', from: 'PNL', to: 'LOAD', size, length: '10 ft' },
-      ],
-      devices: [
-        {
-          id: 'UP',
-          feeds: 'C1',
-          characteristic: { kind: 'trip-unit', sensor: 200, longTime: { pickup: 1, delay: 10 } },
-        },
-        { id: 'DOWN', feeds: 'C2', characteristic: down as never },
-      ],
-    });
+    const farStudy = (size: string, down: Characteristic): StudyInput =>
+      standbyChainStudy(
+        'a pair far behind a cable on a standby generator',
+        { c1: { size, length: '1000 ft' }, c2: { size, length: '10 ft' } },
+        { id: 'UP', characteristic: { kind: 'trip-unit', sensor: 200, longTime: { pickup: 1, delay: 10 } } },
+        { id: 'DOWN', characteristic: down },
+      );
 
     it('DOWN clears on the steady start, UP operates on the raised current: each the worse way for the pair', () => {
       const study = parseStudy(

@@ -7,7 +7,7 @@ import {
   motorImpedanceOf,
 } from '../../../src/engine/fault/index.ts';
 import { cableImpedanceOf } from '../../../src/engine/conductors/index.ts';
-import { networkOf } from '../../../src/engine/network/index.ts';
+import { networkOf, type Network } from '../../../src/engine/network/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { radialStudy } from '../../../bench/radialStudy.ts';
 import { assertInDelta } from '../../asserts.ts';
@@ -77,6 +77,18 @@ function studyOf(nodes: { parent: number; feet: number; size: string; motorAmps:
   return input as StudyInput;
 }
 
+/** The maximum-fault tree of a utility-fed network, as `faultLevelsOf` builds it. */
+function maximumTreeOf(network: Network) {
+  const { source } = network.study;
+  return faultTreeOf(network, {
+    kind: 'max',
+    level: source.kind === 'utility' ? source.max : undefined,
+    motors: true,
+    temperature: MAXIMUM_FAULT_TEMPERATURE,
+    toleranced: true,
+  });
+}
+
 describe('faultTreeOf', () => {
   it('has the expected defaults', () => {
     // With no motors nothing hangs below any bus, and `toward` is the plain source path.
@@ -137,16 +149,8 @@ describe('faultTreeOf', () => {
   });
 
   it('takes the element impedances of a tree with the same source, temperature and tolerance, and no others', () => {
-    const s = study(case72Input());
-    const network = networkOf(s);
-    const level = s.source.kind === 'utility' ? s.source.max : undefined;
-    const max = faultTreeOf(network, {
-      kind: 'max',
-      level,
-      motors: true,
-      temperature: MAXIMUM_FAULT_TEMPERATURE,
-      toleranced: true,
-    });
+    const network = networkOf(study(case72Input()));
+    const max = maximumTreeOf(network);
     const withoutMotors = { ...max.condition, motors: false };
     const taken = faultTreeOf(network, withoutMotors, max);
     const computed = faultTreeOf(network, withoutMotors);
@@ -164,14 +168,7 @@ describe('faultTreeOf', () => {
   it("works out a motor's steps where the condition counts motors, and gives none where it does not", () => {
     const generated = parseStudy(radialStudy(25));
     const network = networkOf(generated);
-    const level = generated.source.kind === 'utility' ? generated.source.max : undefined;
-    const max = faultTreeOf(network, {
-      kind: 'max',
-      level,
-      motors: true,
-      temperature: MAXIMUM_FAULT_TEMPERATURE,
-      toleranced: true,
-    });
+    const max = maximumTreeOf(network);
     const bare = faultTreeOf(network, { ...max.condition, motors: false }, max);
     const motor = generated.motors[0];
     // The first step is the motor's own full-load current; the same steps each time they are read.

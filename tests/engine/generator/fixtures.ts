@@ -84,3 +84,34 @@ export function generatorPairStudy(
     ],
   };
 }
+
+/**
+ * The standby generator (`standbySource`) on bus GEN, cable C1 to panel PNL and cable C2 from PNL to
+ * LOAD: device `feeder` feeds C1 and `branch` feeds C2, so a fault at PNL is the pair's (a fresh object
+ * each call). Invented.
+ */
+export function standbyChainStudy(
+  name: string,
+  cables: { c1: { size: string; length: string }; c2: { size: string; length: string } },
+  feeder: { id: string; characteristic: Characteristic },
+  branch: { id: string; characteristic: Characteristic },
+): StudyInput {
+  return {
+    discern: 1,
+    name,
+    source: standbySource(),
+    buses: [
+      { id: 'GEN', voltage: 480 },
+      { id: 'PNL', voltage: 480 },
+      { id: 'LOAD', voltage: 480 },
+    ],
+    cables: [
+      { id: 'C1', from: 'GEN', to: 'PNL', ...cables.c1 },
+      { id: 'C2', from: 'PNL', to: 'LOAD', ...cables.c2 },
+    ],
+    devices: [
+      { ...feeder, feeds: 'C1' },
+      { ...branch, feeds: 'C2' },
+    ],
+  };
+}

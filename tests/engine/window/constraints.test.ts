@@ -3,7 +3,7 @@ import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { constraintsOf, trialOf } from '../../../src/engine/window/index.ts';
 import { assertInDelta } from '../../asserts.ts';
-import { standbySource } from '../generator/fixtures.ts';
+import { standbyChainStudy, standbySource } from '../generator/fixtures.ts';
 
 /**
  * A 480 V switchboard with 30 kA available at X/R 10 and a moulded-case feeder breaker on it with the
@@ -89,43 +89,29 @@ describe('constraintsOf: interrupting duty', () => {
  * `genInstantaneous` adds an instantaneous trip to GEN-CB (× sensor). Invented settings.
  */
 function generatorTree(genInstantaneous?: number, shortTimePickup = 2): StudyInput {
-  return {
-    discern: 1,
-    name: 'standby generator, breaker and feeder',
-    source: standbySource(),
-    buses: [
-      { id: 'GEN', voltage: 480 },
-      { id: 'PNL', voltage: 480 },
-      { id: 'LOAD', voltage: 480 },
-    ],
-    cables: [
-      { id: 'C1', from: 'GEN', to: 'PNL', size: '500 kcmil', length: '50 ft' },
-      { id: 'C2', from: 'PNL', to: 'LOAD', size: '1/0', length: '100 ft' },
-    ],
-    devices: [
-      {
-        id: 'GEN-CB',
-        feeds: 'C1',
-        characteristic: {
-          kind: 'trip-unit',
-          sensor: 800,
-          longTime: { pickup: 0.75, delay: 1 },
-          shortTime: { pickup: shortTimePickup, delay: 0.2 },
-          ...(genInstantaneous ? { instantaneous: { pickup: genInstantaneous } } : {}),
-        },
+  return standbyChainStudy(
+    'standby generator, breaker and feeder',
+    { c1: { size: '500 kcmil', length: '50 ft' }, c2: { size: '1/0', length: '100 ft' } },
+    {
+      id: 'GEN-CB',
+      characteristic: {
+        kind: 'trip-unit',
+        sensor: 800,
+        longTime: { pickup: 0.75, delay: 1 },
+        shortTime: { pickup: shortTimePickup, delay: 0.2 },
+        ...(genInstantaneous ? { instantaneous: { pickup: genInstantaneous } } : {}),
       },
-      {
-        id: 'FDR',
-        feeds: 'C2',
-        characteristic: {
-          kind: 'trip-unit',
-          sensor: 100,
-          longTime: { pickup: 1, delay: 4 },
-          instantaneous: { pickup: 10 },
-        },
+    },
+    {
+      id: 'FDR',
+      characteristic: {
+        kind: 'trip-unit',
+        sensor: 100,
+        longTime: { pickup: 1, delay: 4 },
+        instantaneous: { pickup: 10 },
       },
-    ],
-  };
+    },
+  );
 }
 
 describe('constraintsOf: a generator-fed tree', () => {
