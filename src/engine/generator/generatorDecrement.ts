@@ -68,19 +68,21 @@ export interface GeneratorDecrement {
  *
  * `i(t) = E · [(1/X″d − 1/X′d) · e^(−t/T″d) + (1/X′d − 1/Xd) · e^(−t/T′d) + 1/Xd]` per unit of rated current.
  *
- * Each reactance is taken at the machine's X/R angle, `Z = X·(cos θ + j sin θ)` with `tan θ = X/R`, as
- * the fault levels take X″d, so its magnitude at the terminals is X. Behind an external impedance `Ze = Re + jXe` each `1/X`
- * becomes `1/|Z + Ze|`, with the time constants unchanged (an approximation, common practice:
- * strictly they shorten toward the open-circuit values as Xe grows); the current starts at the bus's
- * subtransient fault current from the machine. With excitation support `k` (the sustained multiple at
+ * The machine's X/R is that of X″d (`X″d / Ra`): the armature resistance is `Ra = X″d · cos θ`,
+ * `tan θ = X/R`, as the fault levels split X″d, and each circuit is `Z = Ra + j√(X² − Ra²)`, so its
+ * magnitude at the terminals is X. Behind an external impedance `Ze = Re + jXe` each `1/X` becomes
+ * `1/|Z + Ze|`, with the time constants unchanged (an approximation, common practice: strictly they
+ * shorten toward the open-circuit values as Xe grows); the current starts at the bus's subtransient
+ * fault current from the machine. With excitation support `k` (the sustained multiple at
  * the terminals) the current never falls below a floor (model: `max(decaying term, floor)`): the field
  * at ceiling holds an internal voltage of `k · Xd`, which drives `k · Xd / |Zd + Ze|` through the
  * synchronous reactance and the external impedance, the same sum as the `E/Xd` term (IEEE Std 551-2006,
  * synchronous generator decrement, from memory); and no more than rated terminal voltage drives through
  * `Ze`, `1 / |Ze|` (a simplification: the voltage regulator holds the terminals no higher than rated).
- * The floor is the smaller of the two. Far behind a cable it can exceed the start `E / |Z″ + Ze|`
- * (with E = 1 it always does where the field's bound allows): the regulator then raises the current
- * toward it over its response time, which this model does not follow. So the decrement is read two
+ * The floor is the smaller of the two. It can exceed the start `E / |Z″ + Ze|` (far behind a cable or a
+ * transformer, where with E = 1 it always does if the field's bound allows; or with a support multiple
+ * above 1/X″d): the regulator then raises the current toward it over its response time, which this
+ * model does not follow. So the decrement is read two
  * ways: `ampsAt` holds the floor at most at the start (the current never rises; the downstream device's
  * clearing is read on it, the later reading), `upperAmpsAt` takes the whole floor from the start (the
  * upstream device's operation is read on it, the earlier reading). Both never rise. The manufacturer's
@@ -101,11 +103,10 @@ export function generatorDecrement(gen: GeneratorRating, options: GeneratorDecre
   const re = requireNumberAbove('options.external.r', external?.r, 0, 'a resistance in pu', true);
   const xe = requireNumberAbove('options.external.x', external?.x, 0, 'a reactance in pu', true);
 
-  // The three admittance magnitudes of the subtransient, transient and steady-state circuits, each
-  // reactance at the machine's X/R angle.
-  const cos = 1 / Math.hypot(1, machine.xr);
-  const sin = machine.xr * cos;
-  const behind = (x: number) => 1 / Math.hypot(x * cos + re, x * sin + xe);
+  // The three admittance magnitudes of the subtransient, transient and steady-state circuits: one
+  // armature resistance, from X″d's X/R, and each circuit's magnitude its reactance at the terminals.
+  const ra = machine.xdSubtransient / Math.hypot(1, machine.xr);
+  const behind = (x: number) => 1 / Math.hypot(ra + re, Math.sqrt(x * x - ra * ra) + xe);
   const ySubtransient = behind(machine.xdSubtransient);
   const yTransient = behind(machine.xdTransient);
   const ySynchronous = behind(machine.xd);
@@ -163,7 +164,7 @@ export function generatorDecrement(gen: GeneratorRating, options: GeneratorDecre
     amps,
     notes: [
       'i(t) = E·[(1/X″d − 1/X′d)·e^(−t/T″d) + (1/X′d − 1/Xd)·e^(−t/T′d) + 1/Xd] pu, symmetrical rms (IEEE Std 551; standard machine theory)',
-      `${path}: X″d ${machine.xdSubtransient}, X′d ${machine.xdTransient}, Xd ${machine.xd} pu at X/R ${significant(machine.xr, 4)}; T″d ${machine.tdSubtransient} s, T′d ${machine.tdTransient} s; E = ${significant(e, 4)} pu` +
+      `${path}: X″d ${machine.xdSubtransient}, X′d ${machine.xdTransient}, Xd ${machine.xd} pu, X/R ${significant(machine.xr, 4)} (Ra = ${significant(ra, 4)} pu); T″d ${machine.tdSubtransient} s, T′d ${machine.tdTransient} s; E = ${significant(e, 4)} pu` +
         (options.internalVoltage === undefined ? ' (no load, rated voltage)' : ''),
       externalText,
       machine.sustained === undefined

@@ -5,12 +5,13 @@ import { assertInDelta } from '../../asserts.ts';
 import { RATED_AMPS, decrementByHand, generatorOf } from './fixtures.ts';
 
 /**
- * |X∠θ + Re + jXe|: a machine reactance at the X/R angle of `generatorOf()` (the default X/R 20:
- * cos θ = 1/√401 = 0.049938, sin θ = 20/√401 = 0.998752) behind an external impedance, in pu.
+ * |Z + Re + jXe| for a circuit of reactance `reactance` of `generatorOf()` behind an external impedance, in
+ * pu: one armature resistance from X″d at the default X/R 20, Ra = 0.12 / √401 = 0.0059925, and
+ * Z = Ra + j√(X² − Ra²), whose magnitude at the terminals is X.
  */
 function magnitudeBehind(reactance: number, re: number, xe: number): number {
-  const cos = 1 / Math.sqrt(401);
-  return Math.hypot(reactance * cos + re, reactance * 20 * cos + xe);
+  const ra = 0.12 / Math.sqrt(401);
+  return Math.hypot(ra + re, Math.sqrt(reactance ** 2 - ra ** 2) + xe);
 }
 
 describe('generatorDecrement', () => {
@@ -73,47 +74,47 @@ describe('generatorDecrement', () => {
       assertInDelta(decrement.perUnitAt(0), 1 / 0.12, 1e-12);
     });
 
-    it('behind Ze the field at ceiling (E = k·Xd = 6 pu) drives 6 / |Xd∠θ + j0.2| = 2.72754 pu, not k = 3 (IEEE Std 551, from memory)', () => {
+    it('behind Ze the field at ceiling (E = k·Xd = 6 pu) drives 6 / |Zd + j0.2| = 2.72727 pu, not k = 3 (IEEE Std 551, from memory)', () => {
       const behind = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.2 } });
-      assertInDelta(behind.perUnitAt(10), 6 / magnitudeBehind(2, 0, 0.2), 1e-12); // min(2.72754, 1/0.2 = 5)
-      assertInDelta(6 / magnitudeBehind(2, 0, 0.2), 2.72754, 1e-5); // |0.09988 + j2.19750| = 2.19977
+      assertInDelta(behind.perUnitAt(10), 6 / magnitudeBehind(2, 0, 0.2), 1e-12); // min(2.72727, 1/0.2 = 5)
+      assertInDelta(6 / magnitudeBehind(2, 0, 0.2), 2.72727, 1e-5); // |0.005993 + j2.199991| = 2.2
       assertInDelta(behind.sustainedAmps, (6 / magnitudeBehind(2, 0, 0.2)) * RATED_AMPS, 1e-12);
-      // Resistance adds in the magnitude: 6 / |0.25988 + j2.11750| = 2.81242 pu.
+      // Resistance adds in the magnitude: 6 / |0.165993 + j2.119991| = 2.82156 pu.
       const lossy = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0.16, x: 0.12 } });
-      assertInDelta(lossy.perUnitAt(10), 2.81242, 1e-5);
+      assertInDelta(lossy.perUnitAt(10), 2.82156, 1e-5);
     });
 
     it('behind an external impedance the floor is at most 1/|Ze| (rated terminal voltage, a simplification)', () => {
-      // A loaded machine (E = 1.1 pu) starts at 1.1 / |X″d∠θ + j2| = 0.518902 pu, above what rated voltage drives through Ze.
+      // A loaded machine (E = 1.1 pu) starts at 1.1 / |Z″ + j2| = 0.518902 pu, above what rated voltage drives through Ze.
       const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 2 }, internalVoltage: 1.1 });
-      assertInDelta(far.perUnitAt(10), 0.5, 1e-12); // min(6 / 3.99875 = 1.5005, 1/2, 0.518902)
+      assertInDelta(far.perUnitAt(10), 0.5, 1e-12); // min(6 / 4 = 1.5, 1/2, 0.518902)
       assertInDelta(far.upperAmpsAt(10), far.ampsAt(10), 1e-12);
     });
 
-    it("far behind a long cable the support holds the subtransient start 1/|X″d∠θ + j2| = 0.471730 pu, and the upper reading takes 1/|Ze| = 0.5 pu above it (the regulator's rise)", () => {
+    it("far behind a long cable the support holds the subtransient start 1/|Z″ + j2| = 0.471730 pu, and the upper reading takes 1/|Ze| = 0.5 pu above it (the regulator's rise)", () => {
       const far = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 2 } });
       const start = 1 / magnitudeBehind(0.12, 0, 2);
       assertInDelta(start, 0.47173, 1e-5);
       assertInDelta(far.perUnitAt(0), start, 1e-12);
-      assertInDelta(far.perUnitAt(10), start, 1e-12); // min(6 / 3.99875 = 1.5005, 1/2 = 0.5, 0.471730)
+      assertInDelta(far.perUnitAt(10), start, 1e-12); // min(6 / 4 = 1.5, 1/2 = 0.5, 0.471730)
       assertInDelta(far.sustainedAmps, far.initialAmps, 1e-9);
-      expect(far.supported).toBe(true); // above E/|Xd∠θ + j2| = 0.2502
+      expect(far.supported).toBe(true); // above E/|Zd + j2| = 0.25
       // The upper reading, for the upstream device: the whole floor from the start.
       assertInDelta(far.upperAmpsAt(0), 0.5 * RATED_AMPS, 1e-12);
       assertInDelta(far.upperSustainedAmps, 0.5 * RATED_AMPS, 1e-12);
       expect(far.notes.join('\n')).toMatch(
         /the regulator may raise it toward 300\.7 A, on which the upstream device is read/,
       );
-      // Nearer, 1/|j0.5| = 2 pu would lift the current above its start 1/|X″d∠θ + j0.5| = 1.61322 pu as well.
+      // Nearer, 1/|j0.5| = 2 pu would lift the current above its start 1/|Z″ + j0.5| = 1.61322 pu as well.
       const nearer = generatorDecrement(generatorOf({ sustained: 3 }), { external: { r: 0, x: 0.5 } });
       assertInDelta(nearer.perUnitAt(10), 1 / magnitudeBehind(0.12, 0, 0.5), 1e-12);
       assertInDelta(1 / magnitudeBehind(0.12, 0, 0.5), 1.61322, 1e-5);
-      assertInDelta(nearer.upperAmpsAt(10), 2 * RATED_AMPS, 1e-12); // min(6 / 2.49950 = 2.40048, 1/0.5)
+      assertInDelta(nearer.upperAmpsAt(10), 2 * RATED_AMPS, 1e-12); // min(6 / 2.5 = 2.4, 1/0.5)
     });
   });
 
   describe('fault behind an external impedance (each reactance at the machine X/R angle, time constants unchanged, common practice)', () => {
-    it('Xe = 0.1 pu: 1/|X″d∠θ + j0.1| = 4.54686 pu at t = 0 and 1/|Xd∠θ + j0.1| at 10 s', () => {
+    it('Xe = 0.1 pu: 1/|Z″ + j0.1| = 4.54686 pu at t = 0 and 1/|Zd + j0.1| at 10 s', () => {
       const decrement = generatorDecrement(generatorOf(), { external: { r: 0, x: 0.1 } });
       assertInDelta(decrement.perUnitAt(0), 4.54686, 1e-5); // |0.005993 + j0.219850| = 0.219932
       const [x2, x1, x] = [0.12, 0.2, 2].map((reactance) => magnitudeBehind(reactance, 0, 0.1));
