@@ -122,6 +122,10 @@ function busLandmarksOf(drawing: OneLine, tree: Analysis): { name: string; box: 
 }
 
 // Accepts the analysis; the models and standards used and the assumptions behind the numbers.
+/** How generators and the checks on their decaying current are modelled, for the method section. */
+const GENERATOR_METHOD =
+  'Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain (IEEE Std 551); on a generator, each pair is also checked on the decaying fault current, each element of a device on its own: an inverse-time element operates when the integral of 1 / t(I(t)) over its curve reaches 1 (the time-varying-current method of IEEE C37.112), a definite-time element once the current has stayed above its pickup for its delay, an instantaneous trip once it has for the opening time of its breaker (for a relay, its operating time), the breaker then clearing by its clearing time. Where the excitation support may raise the current above its start (far behind a cable or transformer, or a support above 1/X″d), the downstream device is read on the current held at its start and the upstream device on the raised one. The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.';
+
 function methodBlocks(analysis: Analysis): ReportBlock[] {
   const { study } = analysis;
   const source = study.source;
@@ -129,7 +133,7 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
     source.kind === 'infinite'
       ? 'The source is taken as an infinite bus (no source impedance): the largest possible fault currents.'
       : source.kind === 'generator'
-        ? `The source is generator ${source.id}, modelled at maximum by its subtransient reactance X″d and at minimum by its sustained current (IEEE Std 551).`
+        ? `The source is generator ${source.id}, modelled at maximum by its subtransient reactance X″d and at minimum by its sustained current, no more than the subtransient (IEEE Std 551).`
         : `The utility source is modelled by its available fault level at maximum${source.min ? ' and at minimum' : ' (no separate minimum was given, so the minimum equals the maximum)'}, with its X/R ratio.`;
   const motors = study.motors.length;
   const margins = [...new Set(analysis.pairs.map((pair) => `${pair.kind}: ${pair.rule.basis}`))].sort();
@@ -159,6 +163,10 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
           { type: 'paragraph' as const, text: 'Required margins by pair kind:' },
           { type: 'list' as const, items: margins },
         ]
+      : []),
+    // A study fed by a generator alone has no scenarios, but its pairs are checked on the decaying current too.
+    ...(!analysis.scenarios && source.kind === 'generator'
+      ? [{ type: 'paragraph' as const, text: GENERATOR_METHOD }]
       : []),
     ...scenarioBlocks(analysis),
   ];
@@ -194,7 +202,7 @@ function scenarioBlocks(analysis: Analysis): ReportBlock[] {
       ? [
           {
             type: 'paragraph' as const,
-            text: 'Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain (IEEE Std 551); on a generator, each pair is also checked on the decaying fault current, each element of a device on its own: an inverse-time element operates when the integral of 1 / t(I(t)) over its curve reaches 1 (the time-varying-current method of IEEE C37.112), a definite-time element once the current has stayed above its pickup for its delay, an instantaneous trip once it has for the opening time of its breaker (for a relay, its operating time), the breaker then clearing by its clearing time. Far behind a cable, where the excitation support may raise the current above its start, the downstream device is read on the current held at its start and the upstream device on the raised one. The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.',
+            text: GENERATOR_METHOD,
           },
           { type: 'list' as const, items: generators },
         ]

@@ -5,6 +5,7 @@ import { analyseStudy } from '../../src/engine/analysis.ts';
 import { CAUTION } from '../../src/engine/caution.ts';
 import { formatAmps } from '../../src/engine/quantity/index.ts';
 import { readStudy, type Study } from '../../src/engine/study/index.ts';
+import { generatorPairStudy } from '../engine/generator/fixtures.ts';
 import {
   escapeMarkdown,
   htmlOfReport,
@@ -132,6 +133,27 @@ describe('studyReportOf', () => {
     expect(html).not.toContain('<script>');
     expect(html).toContain('&lt;script&gt;');
     expect(escapeMarkdown('a | b')).toBe('a \\| b');
+  });
+});
+
+describe('the method section of a study fed by a generator alone', () => {
+  it('says how its pairs are checked on the decaying current, as a switched study’s does', () => {
+    const study = readStudy(
+      generatorPairStudy(
+        { kind: 'trip-unit', sensor: 800, longTime: { pickup: 1, delay: 10 } },
+        { kind: 'trip-unit', sensor: 100, longTime: { pickup: 1, delay: 4 } },
+      ),
+    ).study!;
+    const analysis = analyseStudy(study);
+    expect(analysis.scenarios).toBeUndefined();
+    const method = studyReportOf(analysis).sections.find((s) => s.id === 'method')!;
+    const text = method.blocks.map((b) => (b.type === 'paragraph' ? b.text : '')).join('\n');
+    expect(text).toMatch(
+      /each pair is also checked on the decaying fault current, each element of a device on its own/,
+    );
+    expect(text).toMatch(
+      /the downstream device is read on the current held at its start and the upstream device on the raised one/,
+    );
   });
 });
 

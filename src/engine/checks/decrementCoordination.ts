@@ -72,9 +72,19 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     const ok = Number.isFinite(clears) && slack >= 0;
     const sustained = formatAmps(sustainedAmps, 3);
     const steady = formatAmps(current(0), 3) === sustained;
+    // The support may raise the current above its start: the upstream device is read on that.
+    const raised = formatAmps(upperSustainedAmps, 3) !== sustained;
     const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${decayText(current(0), sustainedAmps, upperSustainedAmps)}`;
-    // More support is a remedy only for a machine without it: with it, the current is held at its start at most.
-    const orSupport = source.sustained === undefined ? ', or give the generator excitation support' : '';
+    // More support lifts the current the downstream device is read on only while its floor is below the start.
+    const orSupport =
+      source.sustained === undefined
+        ? ', or give the generator excitation support'
+        : upperSustainedAmps > sustainedAmps * (1 + 1e-9)
+          ? ''
+          : ', or give the generator more excitation support';
+    const neverClears = raised
+      ? 'it does not clear on the current held at its start'
+      : `the current ${steady ? 'stays' : 'decays'} below what it needs ${steady ? 'to operate' : 'before it can operate'}`;
     // As the pair check: selective on an illustrative curve is told (info), not claimed.
     const illustrative = [up, down].filter(isIllustrative).map(nameOf);
     const told = ok && illustrative.length > 0;
@@ -87,8 +97,8 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       explanation: tooSlow
         ? `For ${at}, ${nameOf(down)} does not clear within the ${HORIZON_SECONDS} s the check follows: at the sustained ${sustained} it takes ${formatSeconds(clearsAtSustained)}.`
         : !Number.isFinite(clears)
-          ? `For ${at}, ${nameOf(down)} never clears: the current ${steady ? 'stays' : 'decays'} below what it needs ${steady ? 'to operate' : 'before it can operate'}.`
-          : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}${onElement(opensBy)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : 'does not operate on the decaying current'}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
+          ? `For ${at}, ${nameOf(down)} never clears: ${neverClears}.`
+          : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}${raised ? ' on the raised current' : ''}${onElement(opensBy)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : `does not operate on ${raised ? 'the raised current' : 'it'}`}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
       suggestion: ok
         ? undefined
         : Number.isFinite(clears)
@@ -175,7 +185,7 @@ export function onElement(label: string | undefined): string {
 
 /**
  * The decaying current in words, from its start to what it settles at: "2690 A falling to 1200 A", or
- * "a steady 2890 A" where it does not fall (far behind a cable the excitation support holds its start);
+ * "a steady 2890 A" where it does not fall (the excitation support holds its start);
  * with what the support may raise it to, where that is more (`upperSustainedAmps`).
  *
  * @example decayText(2694, 1203) // '2690 A falling to 1200 A'

@@ -62,7 +62,7 @@ export function generatorSourceLevels(gen: GeneratorRating): GeneratorSourceLeve
   const supportAmps = machine.sustained === undefined ? 0 : machine.sustained * ratedAmps;
   const minimumBasis = supportAmps > synchronousAmps ? 'support' : 'synchronous';
   // No more than the fault starts at: the minimum is never above the maximum (a support multiple above
-  // 1/X″d is reached, if at all, only as the regulator raises the current, which the decrement holds at its start).
+  // 1/X″d is reached, if at all, only as the regulator raises the current over its response time).
   const minimumAmps = Math.min(Math.max(supportAmps, synchronousAmps), subtransientAmps);
   const minimum = { va: Math.sqrt(3) * volts * minimumAmps, amps: minimumAmps };
   const magnitude = (volts * volts) / maximum.va;

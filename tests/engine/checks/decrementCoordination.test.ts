@@ -181,7 +181,7 @@ describe('decrementFindings', () => {
       assertInDelta(times.current(0), analysis.faults.buses.get('PNL')!.max.threePhase, 1e-6);
       const finding = analysis.findings.find((f) => f.id === 'decrement:UP/DOWN')!;
       expect(finding.explanation).toMatch(
-        /^For a fault at PNL \(480 V\) fed by Standby generator, a steady \d+ A \(the excitation support may raise it toward \d+ A, on which the upstream device is read\),/,
+        /^For a fault at PNL \(480 V\) fed by Standby generator, a steady \d+ A \(the excitation support may raise it toward \d+ A, on which the upstream device is read\), DOWN clears by [\d.]+ s \(on its long-time element\) and UP (can operate from [\d.]+ s on the raised current \(on its long-time element\)|does not operate on the raised current)/,
       );
     });
 
@@ -195,6 +195,22 @@ describe('decrementFindings', () => {
       expect(finding.explanation).toMatch(/DOWN never clears: the current stays below what it needs to operate\.$/);
       expect(finding.suggestion).toBe("Lower DOWN's pickup below the generator's sustained current.");
     });
+  });
+
+  it('suggests more excitation support where the floor is below the start, so more support lifts the current DOWN is read on', () => {
+    // DOWN, a 1600 A trip unit at 1.2 × (1920 A): the current falls from 5010 A to the 3 × rated (1804 A)
+    // support before DOWN's long time completes, so it never clears; held at 4 × rated (2406 A) it does. Invented.
+    const study = (sustained: number) =>
+      generatorPairStudy(
+        { kind: 'relay', ct: '800:5', timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 4, timeDial: 6 } },
+        { kind: 'trip-unit', sensor: 1600, longTime: { pickup: 1.2, delay: 4 } },
+        { sustained },
+      );
+    const at = (sustained: number) =>
+      analyseStudy(parseStudy(study(sustained))).findings.find((f) => f.id === 'decrement:UP/DOWN')!;
+    expect(at(3).suggestion).toMatch(/, or give the generator more excitation support\.$/);
+    expect(at(3).title).toMatch(/downstream never clears$/);
+    expect(at(4).title).not.toMatch(/never clears/);
   });
 
   describe('each element on its own: a short-time delay the current leaves unfinished gives no head start', () => {
