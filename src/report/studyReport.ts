@@ -121,11 +121,14 @@ function busLandmarksOf(drawing: OneLine, tree: Analysis): { name: string; box: 
   });
 }
 
-// Accepts the analysis; the models and standards used and the assumptions behind the numbers.
-/** How generators and the checks on their decaying current are modelled, for the method section. */
-const GENERATOR_METHOD =
-  'Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain (IEEE Std 551); on a generator, each pair is also checked on the decaying fault current, each element of a device on its own: an inverse-time element operates when the integral of 1 / t(I(t)) over its curve reaches 1 (the time-varying-current method of IEEE C37.112), a definite-time element once the current has stayed above its pickup for its delay, an instantaneous trip once it has for the opening time of its breaker (for a relay, its operating time), the breaker then clearing by its clearing time. Where the excitation support may raise the current above its start (far behind a cable or transformer, or a support above 1/X″d), the downstream device is read on the current held at its start and the upstream device on the raised one. The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.';
+/** How the pairs on a generator are checked on its decaying current, for the method section. */
+const DECAY_METHOD =
+  'On a generator, each pair is also checked on the decaying fault current, each element of a device on its own: an inverse-time element operates when the integral of 1 / t(I(t)) over its curve reaches 1 (the time-varying-current method of IEEE C37.112), a definite-time element once the current has stayed above its pickup for its delay, an instantaneous trip once it has for the opening time of its breaker (for a relay, its operating time), the breaker then clearing by its clearing time. Where the excitation support may raise the current above its start (far behind a cable or transformer, or a support above 1/X″d), the downstream device is read on the current held at its start and the upstream device on the raised one. The armature damage curve is (I² − 1) t = 37.5 per unit (IEEE C50.13, from memory) unless the machine data give one.';
 
+/** How generators are modelled, for the method section of a switched study (its sources are listed there). */
+const GENERATOR_METHOD = `Generators are modelled at maximum by their subtransient reactance and at minimum by the current they sustain, no more than the subtransient (IEEE Std 551). ${DECAY_METHOD}`;
+
+// Accepts the analysis; the models and standards used and the assumptions behind the numbers.
 function methodBlocks(analysis: Analysis): ReportBlock[] {
   const { study } = analysis;
   const source = study.source;
@@ -165,9 +168,7 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
         ]
       : []),
     // A study fed by a generator alone has no scenarios, but its pairs are checked on the decaying current too.
-    ...(!analysis.scenarios && source.kind === 'generator'
-      ? [{ type: 'paragraph' as const, text: GENERATOR_METHOD }]
-      : []),
+    ...(!analysis.scenarios && source.kind === 'generator' ? [{ type: 'paragraph' as const, text: DECAY_METHOD }] : []),
     ...scenarioBlocks(analysis),
   ];
 }

@@ -154,6 +154,8 @@ describe('the method section of a study fed by a generator alone', () => {
     expect(text).toMatch(
       /the downstream device is read on the current held at its start and the upstream device on the raised one/,
     );
+    // The fault-current item says how the generator itself is modelled; the paragraph does not say it again.
+    expect(text).not.toMatch(/Generators are modelled/);
   });
 });
 

@@ -12,8 +12,10 @@ import { formatSeconds } from '../../engine/quantity/index.ts';
 export function worstTimesOf(finding: Finding, nameOf: (id: string) => string): string {
   const { upTime, downTime } = finding.worst!;
   const [first, second] = finding.subjects;
-  if (finding.kind === 'coordination' || finding.kind === 'generator-decrement')
-    return `${nameOf(first)} may operate from ${formatSeconds(upTime)}; ${nameOf(second)} clears by ${formatSeconds(downTime)}`;
+  if (finding.kind === 'coordination' || finding.kind === 'generator-decrement') {
+    const up = Number.isFinite(upTime) ? `may operate from ${formatSeconds(upTime)}` : 'does not operate';
+    return `${nameOf(first)} ${up}; ${nameOf(second)} clears by ${formatSeconds(downTime)}`;
+  }
   if (['transformer-withstand', 'cable-withstand', 'generator-withstand'].includes(finding.kind))
     return `${nameOf(second)}'s damage curve at ${formatSeconds(upTime)}; ${nameOf(first)} clears by ${formatSeconds(downTime)}`;
   return `${nameOf(second ?? first)} at ${formatSeconds(upTime)}; ${nameOf(first)} at ${formatSeconds(downTime)}`;

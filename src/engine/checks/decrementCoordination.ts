@@ -62,8 +62,17 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
       });
       continue;
     }
-    const { current, sustainedAmps, upperSustainedAmps, clears, opens, clearsBy, opensBy, clearsAtSustained } =
-      decrementTimesOf(analysis, source, pair, bus.id);
+    const {
+      current,
+      sustainedAmps,
+      upperSustainedAmps,
+      clears,
+      opens,
+      clearsBy,
+      opensBy,
+      clearsAtSustained,
+      clearsAtStart,
+    } = decrementTimesOf(analysis, source, pair, bus.id);
     // Past the integral's horizon a device may still clear on the sustained current, only too late to follow.
     const tooSlow = !Number.isFinite(clears) && Number.isFinite(clearsAtSustained);
     const { rule } = pair;
@@ -71,20 +80,21 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
     const slack = opens === Infinity ? Infinity : opens * rule.timeRatio - (clears + rule.margin);
     const ok = Number.isFinite(clears) && slack >= 0;
     const sustained = formatAmps(sustainedAmps, 3);
-    const steady = formatAmps(current(0), 3) === sustained;
     // The support may raise the current above its start: the upstream device is read on that.
     const raised = formatAmps(upperSustainedAmps, 3) !== sustained;
+    // Below what the downstream device needs from the start: no support (held at most at the start) lifts it.
+    const belowFromStart = !Number.isFinite(clearsAtStart);
     const at = `a fault at ${bus.name ?? bus.id} (${formatVolts(bus.voltage)}) fed by ${source.name ?? source.id}, ${decayText(current(0), sustainedAmps, upperSustainedAmps)}`;
     // More support lifts the current the downstream device is read on only while its floor is below the start.
     const orSupport =
-      source.sustained === undefined
-        ? ', or give the generator excitation support'
-        : upperSustainedAmps > sustainedAmps * (1 + 1e-9)
-          ? ''
+      belowFromStart || upperSustainedAmps > sustainedAmps * (1 + 1e-9)
+        ? ''
+        : source.sustained === undefined
+          ? ', or give the generator excitation support'
           : ', or give the generator more excitation support';
-    const neverClears = raised
-      ? 'it does not clear on the current held at its start'
-      : `the current ${steady ? 'stays' : 'decays'} below what it needs ${steady ? 'to operate' : 'before it can operate'}`;
+    const neverClears = belowFromStart
+      ? `the current, ${formatAmps(current(0), 3)} from the start, is below what it needs to operate`
+      : 'the current decays below what it needs before it can operate';
     // As the pair check: selective on an illustrative curve is told (info), not claimed.
     const illustrative = [up, down].filter(isIllustrative).map(nameOf);
     const told = ok && illustrative.length > 0;
@@ -98,14 +108,14 @@ export function decrementFindings(analysis: AnalysedTree): Finding[] {
         ? `For ${at}, ${nameOf(down)} does not clear within the ${HORIZON_SECONDS} s the check follows: at the sustained ${sustained} it takes ${formatSeconds(clearsAtSustained)}.`
         : !Number.isFinite(clears)
           ? `For ${at}, ${nameOf(down)} never clears: ${neverClears}.`
-          : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}${raised ? ' on the raised current' : ''}${onElement(opensBy)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : `does not operate on ${raised ? 'the raised current' : 'it'}`}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
+          : `For ${at}, ${nameOf(down)} clears by ${formatSeconds(clears)}${onElement(clearsBy)} and ${nameOf(up)} ${Number.isFinite(opens) ? `can operate from ${formatSeconds(opens)}${raised ? ' on the raised current' : ''}${onElement(opensBy)}: ${separationText(clears, opens, rule, nameOf(down), nameOf(up))}` : `does not operate on ${raised ? 'the raised current' : "the generator's current"}`}.${told ? ` ${illustrativeSentence(illustrative)}` : ''}`,
       suggestion: ok
         ? undefined
         : Number.isFinite(clears)
           ? `Delay ${nameOf(up)} or make ${nameOf(down)} faster at the generator's currents.`
           : tooSlow
             ? `Make ${nameOf(down)} faster at the generator's sustained current${orSupport}.`
-            : `Lower ${nameOf(down)}'s pickup below the generator's sustained current${orSupport}.`,
+            : `Lower ${nameOf(down)}'s pickup below ${belowFromStart ? `the ${formatAmps(current(0), 3)} the fault starts at` : "the generator's sustained current"}${orSupport}.`,
       basis: `generator decrement (IEEE Std 551) with time-varying-current integration (IEEE C37.112); ${pair.rule.basis}`,
       referenceVolts: bus.voltage,
       worst: Number.isFinite(clears)
@@ -170,6 +180,8 @@ export function decrementTimesOf(
     clearsAtSustained: analysis.bands
       .get(pair.downstream)!
       .maxTime((decrement.sustainedAmps * toBus * volts) / downVolts),
+    /** The downstream device's clearing at the current the fault starts at, held constant (s). */
+    clearsAtStart: analysis.bands.get(pair.downstream)!.maxTime((current(0) * volts) / downVolts),
   };
 }
 

@@ -28,6 +28,12 @@ describe('worstTimesOf', () => {
       );
   });
 
+  it('says so where the upstream device does not operate on the current', () => {
+    const never = finding('generator-decrement', ['GEN-CB', 'FDR']);
+    never.worst!.upTime = Infinity;
+    expect(worstTimesOf(never, nameOf)).toBe('Generator breaker does not operate; Feeder clears by 0.3 s');
+  });
+
   it('names a damage curve and the device that must clear before it', () => {
     expect(worstTimesOf(finding('transformer-withstand', ['R-T1', 'T1']), nameOf)).toBe(
       "Service transformer's damage curve at 0.2 s; T1 primary relay clears by 0.3 s",

@@ -156,7 +156,7 @@ describe('decrementFindings', () => {
      * The standby generator (X″d 0.12, Xd 2 pu, support 3 × rated) feeding 1000 ft of `size` to panel PNL
      * through UP, a 200 A trip unit, and from PNL 10 ft to LOAD through DOWN. Far behind the cable the
      * support's floor (no more than rated voltage drives through the cable, 1/|Ze|) is above the start
-     * 1/|X″d∠θ + Ze|: DOWN is read on the current held at the start, UP on the floor. Invented settings.
+     * 1/|Z″ + Ze|: DOWN is read on the current held at the start, UP on the floor. Invented settings.
      */
     const farStudy = (size: string, down: Characteristic): StudyInput =>
       standbyChainStudy(
@@ -192,9 +192,24 @@ describe('decrementFindings', () => {
       );
       const finding = analyseStudy(study).findings.find((f) => f.id === 'decrement:UP/DOWN')!;
       expect(finding.title).toBe("UP over DOWN on the generator's decaying current: downstream never clears");
-      expect(finding.explanation).toMatch(/DOWN never clears: the current stays below what it needs to operate\.$/);
-      expect(finding.suggestion).toBe("Lower DOWN's pickup below the generator's sustained current.");
+      expect(finding.explanation).toMatch(
+        /DOWN never clears: the current, 168 A from the start, is below what it needs to operate\.$/,
+      );
+      expect(finding.suggestion).toBe("Lower DOWN's pickup below the 168 A the fault starts at.");
     });
+  });
+
+  it('a downstream pickup above the start itself is told so, with no excitation support to add: none lifts the start', () => {
+    // DOWN, a 5000 A sensor at 1.2 × (6000 A), above the 5010 A the fault starts at. Invented.
+    const study = generatorPairStudy(
+      { kind: 'relay', ct: '800:5', timeOvercurrent: { curve: 'ieee-very-inverse', pickup: 4, timeDial: 6 } },
+      { kind: 'trip-unit', sensor: 5000, longTime: { pickup: 1.2, delay: 4 } },
+    );
+    const finding = analyseStudy(parseStudy(study)).findings.find((f) => f.id === 'decrement:UP/DOWN')!;
+    expect(finding.explanation).toMatch(
+      /5010 A falling to 1800 A, DOWN never clears: the current, 5010 A from the start, is below what it needs to operate\.$/,
+    );
+    expect(finding.suggestion).toBe("Lower DOWN's pickup below the 5010 A the fault starts at.");
   });
 
   it('suggests more excitation support where the floor is below the start, so more support lifts the current DOWN is read on', () => {

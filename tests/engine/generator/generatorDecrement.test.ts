@@ -113,7 +113,7 @@ describe('generatorDecrement', () => {
     });
   });
 
-  describe('fault behind an external impedance (each reactance at the machine X/R angle, time constants unchanged, common practice)', () => {
+  describe('fault behind an external impedance (one armature resistance from the X/R of X″d, time constants unchanged, common practice)', () => {
     it('Xe = 0.1 pu: 1/|Z″ + j0.1| = 4.54686 pu at t = 0 and 1/|Zd + j0.1| at 10 s', () => {
       const decrement = generatorDecrement(generatorOf(), { external: { r: 0, x: 0.1 } });
       assertInDelta(decrement.perUnitAt(0), 4.54686, 1e-5); // |0.005993 + j0.219850| = 0.219932
