@@ -46,8 +46,8 @@ export interface GeneratorDecrement {
   ampsAt(seconds: number): number;
   /**
    * The most the current may be at `seconds` (A): the same, with the support's floor not held at the
-   * start. Far behind a cable the voltage regulator may raise the current above its start, toward that
-   * floor, over its response time; where the floor is below the start it is `ampsAt`.
+   * start. Where that floor is above the start (far behind a cable or a transformer) the voltage
+   * regulator may raise the current toward it over its response time; elsewhere it is `ampsAt`.
    */
   upperAmpsAt(seconds: number): number;
   /** What `upperAmpsAt` settles to (A). */
@@ -82,11 +82,10 @@ export interface GeneratorDecrement {
  * The floor is the smaller of the two. It can exceed the start `E / |Z″ + Ze|` (far behind a cable or a
  * transformer, where with E = 1 it always does if the field's bound allows; or with a support multiple
  * above 1/X″d): the regulator then raises the current toward it over its response time, which this
- * model does not follow. So the decrement is read two
- * ways: `ampsAt` holds the floor at most at the start (the current never rises; the downstream device's
- * clearing is read on it, the later reading), `upperAmpsAt` takes the whole floor from the start (the
- * upstream device's operation is read on it, the earlier reading). Both never rise. The manufacturer's
- * decrement curve governs.
+ * model does not follow. So the decrement is read two ways: `ampsAt` holds the floor at most at the
+ * start (the downstream device's clearing is read on it, the later reading), `upperAmpsAt` takes the
+ * whole floor from the start (the upstream device's operation is read on it, the earlier reading).
+ * Both never rise. The manufacturer's decrement curve governs.
  *
  * @example generatorDecrement(g500kVA, {}).perUnitAt(0) // 1 / 0.12 = 8.3333
  */
