@@ -1,5 +1,6 @@
 import type { Analysis } from '../engine/analysis.ts';
 import { CAUTIONS } from '../engine/caution.ts';
+import { MAXIMUM_FAULT_TEMPERATURE, MINIMUM_FAULT_TEMPERATURE } from '../engine/fault/index.ts';
 import { formatAmps, formatVolts, significant } from '../engine/quantity/format.ts';
 import type { Finding, Severity } from '../engine/checks/finding.ts';
 import { findingRows, scenarioCountsOf } from '../engine/report/findingsTable.ts';
@@ -7,6 +8,7 @@ import { RECOMMENDATION_NOTE, settingsTableOf } from '../engine/report/settingsT
 import { settingsText } from '../engine/report/settingsText.ts';
 import { locationBusOf } from '../engine/network/index.ts';
 import { scenariosOf, switchPosition } from '../engine/scenario/index.ts';
+import type { Study } from '../engine/study/index.ts';
 import { formatWork } from '../engine/work.ts';
 import type { Box } from '../plot/geometry.ts';
 import { oneLineOf, type OneLine } from '../plot/oneLine/index.ts';
@@ -149,7 +151,7 @@ function methodBlocks(analysis: Analysis): ReportBlock[] {
       type: 'list',
       items: [
         `Fault currents: symmetrical RMS bolted faults by the per-unit impedance method (IEEE 399, IEEE 141): three-phase, line-to-line and line-to-ground at every bus, at maximum and minimum conditions. ${sourceText}`,
-        'Transformers: nameplate impedance on their own rating and X/R; cables: NFPA 70 Chapter 9 Table 9 resistance and reactance, the resistance (stated at 75 °C) taken to 20 °C for maximum fault as IEC 60909-0 takes it for the maximum short-circuit currents, and to operating temperature (90 °C) for minimum fault, unless the study gives its own values.',
+        `Transformers: nameplate impedance on their own rating and X/R; cables: NFPA 70 Chapter 9 Table 9 resistance and reactance, the resistance (stated at 75 °C) taken to ${conductorTemperatureText(study)}, unless the study gives a cable's own values.`,
         motors > 0
           ? `Motor contribution: ${motors} motors as first-cycle sources at the multiples of full-load current entered in the study (common practice: 4 × for low-voltage induction motors); none at minimum conditions.`
           : 'Motor contribution: none modelled.',
@@ -414,4 +416,20 @@ function workBlocks(analysis: Analysis): ReportBlock[] {
       text: formatWork(tree.faults.buses.get(bus.id)!.work),
     })),
   );
+}
+
+/**
+ * The conductor temperatures of the two fault conditions, in words: each default with its source, a
+ * study's own setting as the study's.
+ */
+function conductorTemperatureText({ conductorTemperatures: { maximumFault, minimumFault } }: Study): string {
+  const maximum =
+    maximumFault === MAXIMUM_FAULT_TEMPERATURE
+      ? '20 °C for maximum fault, as IEC 60909-0 takes it for the maximum short-circuit currents'
+      : `${maximumFault} °C for maximum fault (the study's setting)`;
+  const minimum =
+    minimumFault === MINIMUM_FAULT_TEMPERATURE
+      ? 'operating temperature (90 °C) for minimum fault'
+      : `${minimumFault} °C for minimum fault (the study's setting)`;
+  return `${maximum}, and ${minimum}`;
 }

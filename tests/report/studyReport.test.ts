@@ -159,6 +159,25 @@ describe('the method section of a study fed by a generator alone', () => {
   });
 });
 
+describe('the method section on conductor temperatures', () => {
+  const methodItems = (study: Study) => {
+    const method = studyReportOf(analyseStudy(study)).sections.find((s) => s.id === 'method')!;
+    return method.blocks.flatMap((b) => (b.type === 'list' ? b.items : [])).join('\n');
+  };
+
+  it("names the defaults with their sources, and a study's own temperatures as its setting", () => {
+    expect(methodItems(detailed)).toMatch(
+      /taken to 20 °C for maximum fault, as IEC 60909-0 takes it for the maximum short-circuit currents, and operating temperature \(90 °C\) for minimum fault/,
+    );
+    const coldSite = demo('harrowmere-selective', (raw) => {
+      raw.conductorTemperatures = { maximumFault: -10, minimumFault: 150 };
+    });
+    expect(methodItems(coldSite)).toMatch(
+      /taken to -10 °C for maximum fault \(the study's setting\), and 150 °C for minimum fault \(the study's setting\)/,
+    );
+  });
+});
+
 describe('pdfOfReport', () => {
   it('prints the same bytes twice, with DejaVu Sans embedded and Ω among its glyphs', async () => {
     const study = demo('harrowmere-fused', (raw) => {

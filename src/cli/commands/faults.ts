@@ -24,7 +24,8 @@ headed "fed from G1 (generator)". --scenario prints one scenario only. With --js
 buses are those of the first scenario's first tree and "scenarios" holds every scenario's trees.
 
 Maximum: maximum source, motors contributing (first cycle), Table 9 cable resistance at 20 °C (IEC 60909-0).
-Minimum: minimum source, no motors, Table 9 cable resistance at 90 °C. A cable's own resistance is used as given.
+Minimum: minimum source, no motors, Table 9 cable resistance at 90 °C. A study may set both temperatures
+("conductorTemperatures": {"maximumFault": 20, "minimumFault": 90}, °C); a cable's own resistance is used as given.
 Line-to-line and line-to-ground come from the sequence networks (Z2 = Z1): source Z0 as entered (else
 Z0 = Z1, solidly grounded), transformer connection and neutral grounding, cable Z0 as entered (else 3 × Z1).
 "at … kV" shows what a fault at the bus draws through the nearest transformer fed at that voltage, as

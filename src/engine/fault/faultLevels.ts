@@ -110,24 +110,13 @@ export interface FaultLevels {
 }
 
 /**
- * Conductor temperature for maximum fault (°C): IEC 60909-0:2016 takes line resistances at 20 °C for
- * the maximum short-circuit currents (a reference temperature: conductors in a colder place run cooler). NEC Chapter 9 Table 9 states
- * its resistances at 75 °C, a loaded conductor's: taken as they stand they understate the fault current
- * of a cable-fed bus, by up to 18 % (copper 254.5 / 309.5, aluminium 248 / 303) where the cable's resistance
- * alone sets it.
- */
-export const MAXIMUM_FAULT_TEMPERATURE = 20;
-
-/** Conductor temperature for minimum fault (°C): operating temperature, common practice. */
-export const MINIMUM_FAULT_TEMPERATURE = 90;
-
-/**
  * Fault levels at every bus of a radial network by the ohmic form of the per-unit method (IEEE 141 /
  * IEEE 399): series impedances added as complex values, motors as parallel sources anywhere in the
  * tree, unbalanced faults from symmetrical components with Z2 = Z1 and the zero-sequence network of
  * `zeroSequenceOf`; buses below a single-phase transformer as single-phase loops (`singlePhaseBusesOf`).
- * Maximum: `max` source, motors in, conductors at 20 °C (NEC Table 9 corrected), %Z tolerance where asked.
- * Minimum: `min` source (else `max`), no motors, R at 90 °C.
+ * Maximum: `max` source, motors in, conductors at the study's maximum-fault temperature (20 °C unless
+ * set; NEC Table 9 corrected), %Z tolerance where asked. Minimum: `min` source (else `max`), no motors,
+ * conductors at the study's minimum-fault temperature (90 °C unless set).
  *
  * @example faultLevelsOf(networkOf(study)).buses.get('SWBD')!.max.lineToGround // A at 480 V
  */
@@ -139,7 +128,7 @@ export function faultLevelsOf(network: Network): FaultLevels {
     kind: 'max',
     level: maxLevel,
     motors: true,
-    temperature: MAXIMUM_FAULT_TEMPERATURE,
+    temperature: study.conductorTemperatures.maximumFault,
     toleranced: true,
   });
   // The maximum fault without motors, for the motors' share: the same elements as `max`, taken from it.
@@ -148,7 +137,7 @@ export function faultLevelsOf(network: Network): FaultLevels {
     kind: 'min',
     level: minLevel,
     motors: false,
-    temperature: MINIMUM_FAULT_TEMPERATURE,
+    temperature: study.conductorTemperatures.minimumFault,
     toleranced: false,
   });
   const zeroMax = zeroSequenceOf(network, max, maxLevel);

@@ -2,6 +2,7 @@ import { cableImpedanceOf } from '../conductors/cableImpedance.ts';
 import { closedSwitchLinks, type Branch, type Network } from '../network/index.ts';
 import type { Cable } from '../study/index.ts';
 import type { WorkStep } from '../work.ts';
+import { MAXIMUM_FAULT_TEMPERATURE, MINIMUM_FAULT_TEMPERATURE } from './conductorTemperatures.ts';
 import { addImpedance, invertImpedance, ParallelSum, ZERO_IMPEDANCE, type Impedance } from './impedance.ts';
 import { motorImpedanceOf } from './motorImpedance.ts';
 import { reflectImpedance } from './reflect.ts';
@@ -11,7 +12,7 @@ import { transformerImpedanceOf } from './transformerImpedance.ts';
 
 /** The source and element assumptions of one fault condition (IEEE 141 / IEEE 399 maximum and minimum duty, common practice). */
 export interface FaultCondition {
-  /** 'max': maximum source, motors in, 20 °C; 'min': minimum source, no motors, 90 °C. */
+  /** 'max': maximum source, motors in, the study's maximum-fault conductor temperature; 'min': minimum source, no motors, its minimum-fault one. */
   kind: 'max' | 'min';
   /** The utility figure used; undefined for an infinite source. */
   level?: SourceLevel;
@@ -197,12 +198,20 @@ function sourceOf(network: Network, condition: FaultCondition): { z: Impedance; 
 function cableOf(cable: Cable, index: number, condition: FaultCondition): { z: Impedance; readonly steps: WorkStep[] } {
   return cableImpedanceOf(cable, {
     temperature: condition.temperature,
-    temperatureBasis:
-      condition.kind === 'max'
-        ? 'maximum fault: IEC 60909-0 takes line resistance at 20 °C for the maximum short-circuit currents'
-        : 'minimum fault: conductors at operating temperature, common practice',
+    temperatureBasis: temperatureBasisOf(condition),
     path: `study.cables[${index}]`,
   });
+}
+
+/** Why a condition's cables are taken at its temperature: the default's source, or the study's own setting. */
+function temperatureBasisOf({ kind, temperature }: FaultCondition): string {
+  if (kind === 'max')
+    return temperature === MAXIMUM_FAULT_TEMPERATURE
+      ? 'maximum fault: IEC 60909-0 takes line resistance at 20 °C for the maximum short-circuit currents'
+      : "maximum fault: the study's conductor temperature (conductorTemperatures.maximumFault)";
+  return temperature === MINIMUM_FAULT_TEMPERATURE
+    ? 'minimum fault: conductors at operating temperature, common practice'
+    : "minimum fault: the study's conductor temperature (conductorTemperatures.minimumFault)";
 }
 
 /** Whether two conditions give every element but the motors the same impedance. */

@@ -37,7 +37,8 @@ export {
 export type { Connection, FaultType, UnbalancedCase, UnbalancedCurrents } from './deltaWye.ts';
 export { faultTreeOf, isSinglePhase } from './faultTree.ts';
 export type { FaultCondition, FaultTree } from './faultTree.ts';
-export { faultLevelsOf, MAXIMUM_FAULT_TEMPERATURE, MINIMUM_FAULT_TEMPERATURE } from './faultLevels.ts';
+export { faultLevelsOf } from './faultLevels.ts';
+export { MAXIMUM_FAULT_TEMPERATURE, MINIMUM_FAULT_TEMPERATURE } from './conductorTemperatures.ts';
 export type { FaultLevel, BusFault, TransformerFault, FaultLevels } from './faultLevels.ts';
 export { transformerFaultOf } from './transformerFault.ts';
 export { transformerCalculation } from './transformerCalculation.ts';

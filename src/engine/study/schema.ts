@@ -1,6 +1,11 @@
 import { z } from 'zod/mini';
 import { createCharacteristicSchema } from '../devices/characteristic.ts';
 import {
+  CONDUCTOR_TEMPERATURE_SPAN,
+  MAXIMUM_FAULT_TEMPERATURE,
+  MINIMUM_FAULT_TEMPERATURE,
+} from '../fault/conductorTemperatures.ts';
+import {
   availableFaultField,
   axisRangeField,
   boundedNumber,
@@ -532,6 +537,41 @@ export function createStudySchema(frequency = 60) {
     },
   );
 
+  // The conductor temperatures of the two fault conditions, to which NFPA 70 Chapter 9 Table 9's 75 °C
+  // resistances are taken (a cable's own resistance is used as entered).
+  const temperature = (description: string) =>
+    boundedNumber(
+      CONDUCTOR_TEMPERATURE_SPAN.min,
+      CONDUCTOR_TEMPERATURE_SPAN.max,
+      description,
+      "°C, from a cold site's ambient to the short-circuit limit of XLPE and EPR insulation (ICEA P-32-382)",
+    );
+  const conductorTemperatures = z._default(
+    z
+      .strictObject({
+        maximumFault: z._default(
+          temperature(
+            'conductor temperature for the maximum fault, °C (IEC 60909-0:2016 takes 20 °C for the maximum short-circuit currents)',
+          ),
+          MAXIMUM_FAULT_TEMPERATURE,
+        ),
+        minimumFault: z._default(
+          temperature(
+            'conductor temperature for the minimum fault, °C (common practice: 90 °C, operating temperature; IEC 60909-0:2016 takes the temperature at the end of the fault)',
+          ),
+          MINIMUM_FAULT_TEMPERATURE,
+        ),
+      })
+      .check(
+        z.refine((t) => t.minimumFault >= t.maximumFault, {
+          message:
+            'expected a minimum-fault temperature at or above the maximum-fault one (a hotter conductor carries less)',
+          path: ['minimumFault'],
+        }),
+      ),
+    { maximumFault: MAXIMUM_FAULT_TEMPERATURE, minimumFault: MINIMUM_FAULT_TEMPERATURE },
+  );
+
   const revision = z.strictObject({
     revision: nameField.check(z.minLength(1), z.meta({ description: 'revision mark, e.g. "A" or "2"' })),
     date: z.optional(nameField),
@@ -575,6 +615,7 @@ export function createStudySchema(frequency = 60) {
     devices: z._default(z.array(device).check(z.maxLength(MAX_ELEMENTS)), []),
     views: z._default(z.array(view).check(z.maxLength(MAX_ELEMENTS)), []),
     coordination,
+    conductorTemperatures,
   });
 }
 

@@ -54,6 +54,22 @@ describe('faultLevelsOf', () => {
     );
   });
 
+  it("takes a study's own conductor temperatures: the panel at 75 °C maximum is 13 052.5 A, at 150 °C minimum 13 000.5 A, hand calculation", () => {
+    // The same panel, NEC Chapter 9 Table 9 (Table 8 note coefficients): at 75 °C, Table 9's own temperature,
+    // R = 0.00145 Ω, Z = 0.0049755 + j0.0206405 Ω, |Z| = 0.0212317 Ω, I = 480 / (√3 × 0.0212317) = 13 052.5 A.
+    // At 150 °C (a conductor at the end of a fault, IEC 60909-0:2016 for the minimum currents) R = 0.00145 ×
+    // (234.5 + 150) / 309.5 = 0.0018014 Ω, Z = 0.0053269 + j0.0206405 Ω, |Z| = 0.0213168 Ω, I = 13 000.5 A.
+    const input = { ...case72Input(), conductorTemperatures: { maximumFault: 75, minimumFault: 150 } };
+    const pnl = levelsOf(input).buses.get('PNL')!;
+    assertInDelta(pnl.max.threePhase, 13052.5, 1e-5);
+    assertInDelta(pnl.min.threePhase, 13000.5, 1e-5);
+    // At Table 9's own 75 °C there is nothing to correct; the minimum's step names the study's setting.
+    expect(pnl.work.some((step) => /maximum: C resistance at/.test(step.label))).toBe(false);
+    expect(pnl.work.find((step) => /minimum: C resistance at 150 °C/.test(step.label))!.source).toMatch(
+      /the study's conductor temperature \(conductorTemperatures.minimumFault\)/,
+    );
+  });
+
   it('utility alone at the 4.16 kV bus is 34 696.5 A, IEEE 141 / IEEE 399 per-unit method, hand calculation', () => {
     assertInDelta(levelsOf(case72Input()).buses.get('MV')!.max.threePhase, 34696.5, 1e-5);
   });

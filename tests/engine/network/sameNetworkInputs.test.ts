@@ -33,4 +33,13 @@ describe('sameNetworkInputs', () => {
     expect(sameNetworkInputs(study, bus)).toBe(false);
     expect(sameNetworkInputs(study, { ...study, devices: study.devices.slice(1) })).toBe(false);
   });
+
+  it('sameNetworkInputs() fails for a conductor temperature changed, holds for the same two in a new object', () => {
+    const hotter = { ...study, conductorTemperatures: { maximumFault: 20, minimumFault: 150 } };
+    expect(sameNetworkInputs(study, hotter)).toBe(false);
+    const colder = { ...study, conductorTemperatures: { maximumFault: 5, minimumFault: 90 } };
+    expect(sameNetworkInputs(study, colder)).toBe(false);
+    const spelledOut = { ...study, conductorTemperatures: { maximumFault: 20, minimumFault: 90 } };
+    expect(sameNetworkInputs(study, spelledOut)).toBe(true);
+  });
 });

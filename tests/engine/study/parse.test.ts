@@ -259,6 +259,18 @@ describe('readStudy', () => {
     );
   });
 
+  it("refuses conductor temperatures out of their span or a minimum fault's below the maximum's, naming the field", () => {
+    const input = demo();
+    input.conductorTemperatures = { maximumFault: 40, minimumFault: 30 };
+    expect(firstProblem(input)).toMatch(
+      /^study\.conductorTemperatures\.minimumFault: expected a minimum-fault temperature at or above the maximum-fault one/,
+    );
+    input.conductorTemperatures = { minimumFault: 300 };
+    expect(firstProblem(input)).toMatch(/^study\.conductorTemperatures\.minimumFault: .*250/);
+    input.conductorTemperatures = { maximumFault: -10 };
+    expect(parseStudy(input).conductorTemperatures).toEqual({ maximumFault: -10, minimumFault: 90 });
+  });
+
   it('reads a radial chain 250 levels deep (no recursion anywhere)', () => {
     const input = demo();
     let above = 'EMP';
