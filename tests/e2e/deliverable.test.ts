@@ -51,6 +51,51 @@ describe('the study deliverable in the workbench', () => {
     await context.close();
   });
 
+  it('sets the study options in their dialog: a bad value said there, the work following, saved in the file, undoable', async () => {
+    const { context, page } = await bench.open();
+    await page.getByTestId('options-open').click();
+    const dialog = page.getByTestId('study-options');
+    const minimum = dialog.getByTestId('option-conductorTemperatures-minimumFault');
+    // Left out of the file, an option shows its default.
+    expect(await minimum.inputValue()).toBe('');
+    expect(await minimum.getAttribute('placeholder')).toBe('90');
+    await minimum.fill('300');
+    await minimum.press('Tab');
+    await expect
+      .poll(() => dialog.getByTestId('option-conductorTemperatures-minimumFault-problem').textContent())
+      .toMatch(/minimum fault, °C: .*250/);
+    await minimum.fill('150');
+    await minimum.press('Tab');
+    await expect.poll(() => dialog.getByTestId('option-conductorTemperatures-minimumFault-problem').count()).toBe(0);
+    await dialog.getByTestId('option-coordination-edition').selectOption('2020');
+    await dialog.getByTestId('option-add-margin').selectOption('relay/trip-unit');
+    await expect.poll(() => dialog.getByLabel('margin for relay/trip-unit pairs, s').inputValue()).toBe('0.2');
+    await page.keyboard.press('Escape');
+    // The minimum fault behind a cable is now worked out with its conductors at 150 °C.
+    await page.getByTestId('tree-bus-MCC').click();
+    await expect.poll(() => page.getByTestId('work').textContent()).toMatch(/C-MCC resistance at 150 °C/);
+    const saved = page.waitForEvent('download');
+    await page.getByTestId('export-menu').selectOption('study-json');
+    const file = JSON.parse(readFileSync((await (await saved).path())!, 'utf8'));
+    expect(file.conductorTemperatures).toEqual({ minimumFault: 150 });
+    expect(file.coordination).toEqual({ edition: '2020', margins: { 'relay/trip-unit': 0.2 } });
+    // Each change is one undo step; emptied, an option is taken out of the file again.
+    await page.getByTestId('undo').click();
+    await page.getByTestId('options-open').click();
+    await expect.poll(() => dialog.getByLabel('margin for relay/trip-unit pairs, s').count()).toBe(0);
+    await dialog.getByTestId('option-coordination-edition').selectOption('');
+    await minimum.fill('');
+    await minimum.press('Tab');
+    await page.keyboard.press('Escape');
+    const again = page.waitForEvent('download');
+    await page.getByTestId('export-menu').selectOption('study-json');
+    const cleared = JSON.parse(readFileSync((await (await again).path())!, 'utf8'));
+    expect(cleared.conductorTemperatures ?? {}).toEqual({});
+    expect(cleared.coordination ?? {}).toEqual({});
+    expect(pageErrors(page)).toEqual([]);
+    await context.close();
+  });
+
   it('draws the one-line diagram and links its selection both ways with the tree', async () => {
     const { context, page } = await bench.open();
     await page.getByTestId('tab-one-line').click();

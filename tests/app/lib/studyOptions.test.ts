@@ -1,0 +1,61 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { fieldInfoAt, STUDY_JSON_SCHEMA } from '../../../src/app/lib/fieldInfo.ts';
+import {
+  PAIR_KINDS,
+  STUDY_OPTION_GROUPS,
+  optionDefault,
+  startingMargin,
+  startingPairMargin,
+} from '../../../src/app/lib/studyOptions.ts';
+import { networkOf } from '../../../src/engine/network/index.ts';
+import { parseStudy } from '../../../src/engine/study/index.ts';
+
+const listed = STUDY_OPTION_GROUPS.flatMap((group) => group.options.map((option) => option.path.join('.')));
+const demo = JSON.parse(readFileSync('demo/harrowmere-full.json', 'utf8'));
+
+describe('studyOptions', () => {
+  it('has the expected defaults: every option of the schema offered once, the two margin tables aside', () => {
+    const { properties } = STUDY_JSON_SCHEMA;
+    const coordination = properties!.coordination.properties!;
+    const expected = [
+      ...Object.keys(coordination)
+        .filter((key) => key !== 'margins' && key !== 'pairs' && key !== 'sensitivity')
+        .map((key) => `coordination.${key}`),
+      ...Object.keys(coordination.sensitivity.properties!).map((key) => `coordination.sensitivity.${key}`),
+      ...Object.keys(properties!.conductorTemperatures.properties!).map((key) => `conductorTemperatures.${key}`),
+    ];
+    expect([...listed].sort()).toEqual(expected.sort());
+    expect(new Set(listed).size).toBe(listed.length);
+  });
+
+  it("gives each option's default as the schema fills it in: seconds, °C, an edition", () => {
+    const defaultAt = (...path: string[]) => optionDefault({ path, label: '' });
+    expect(defaultAt('coordination', 'thinMargin')).toBe(0.1);
+    expect(defaultAt('coordination', 'edition')).toBe('2023');
+    expect(defaultAt('coordination', 'sensitivity', 'maxTime')).toBe(2);
+    expect(defaultAt('coordination', 'sensitivity', 'arcingFactor')).toBeUndefined();
+    expect(defaultAt('conductorTemperatures', 'maximumFault')).toBe(20);
+    expect(defaultAt('conductorTemperatures', 'minimumFault')).toBe(90);
+    const bare = { ...demo, coordination: undefined, conductorTemperatures: undefined };
+    expect(fieldInfoAt(bare, ['coordination', 'edition'])).toMatchObject({ control: 'choice' });
+    expect(fieldInfoAt(bare, ['conductorTemperatures', 'minimumFault'])?.control).toBe('number');
+  });
+
+  it('starts a new margin at the one the checks apply now: 0.12 s relay over relay, 0.2 s relay over LV devices (IEEE 242 ch. 15)', () => {
+    expect(PAIR_KINDS).toHaveLength(16);
+    expect(startingMargin('relay/relay')).toBe(0.12);
+    expect(startingMargin('relay/trip-unit')).toBe(0.2);
+    expect(startingMargin('trip-unit/thermal-magnetic')).toBe(0);
+  });
+
+  it('starts a margin for one pair at the one its pair is checked with now', () => {
+    const network = networkOf(parseStudy(demo));
+    const kindOf = (id: string) => network.devices.get(id)!.characteristic.kind;
+    const relay = [...network.devices.keys()].find((id) => kindOf(id) === 'relay')!;
+    const breaker = [...network.devices.keys()].find((id) => kindOf(id) === 'trip-unit')!;
+    // A relay over an LV breaker: 0.2 s (IEEE 242 ch. 15) unless the relay or the study sets its own.
+    const own = network.devices.get(relay)!.margin ?? network.study.coordination.margins['relay/trip-unit'];
+    expect(startingPairMargin(network, relay, breaker)).toBe(own ?? 0.2);
+  });
+});
