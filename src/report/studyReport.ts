@@ -214,7 +214,7 @@ function scenarioBlocks(analysis: Analysis): ReportBlock[] {
       ? [
           {
             type: 'paragraph' as const,
-            text: `Devices marked as part of an emergency, legally required standby or critical operations system, or elevator circuits, are checked for selective coordination with every supply-side device in every scenario (NFPA 70 700.32, 701.32, 708.54, 620.62), ${study.coordination.codeSelectivity === 'above-0.1-s' ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")' : 'over the full range of available fault currents'}; on a generator also on its decaying current, for a fault at the marked device's bus. The authority having jurisdiction decides what the requirement means where the work is done.`,
+            text: `Devices marked as part of an emergency, legally required standby or critical operations system, or elevator circuits, are checked for selective coordination with every supply-side device in every scenario (NFPA 70 700.32, 701.32, 708.54, 620.62), ${study.coordination.codeSelectivity === 'above-0.1-s' ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")' : 'over the full range of available fault currents'}; on a generator also on its decaying current, for a fault at the marked device's bus.${study.coordination.edition === '2023' ? ' Following NFPA 70 (2023) 240.11, once a feeder device supplied directly by a service device must be selective with it, every feeder device that service device supplies directly is checked with it too; the service device is taken as one with no device above it in the utility’s tree.' : ''} The authority having jurisdiction decides what the requirement means where the work is done.`,
           },
         ]
       : []),

@@ -25,6 +25,16 @@ describe('the report of a study with scenarios (standby demo)', () => {
     });
   });
 
+  it('says how marked devices are checked, with NFPA 70 (2023) 240.11 for the feeders of a service device', () => {
+    const text = section('method')
+      .blocks.map((b) => (b.type === 'paragraph' ? b.text : ''))
+      .join('\n');
+    expect(text).toMatch(/checked for selective coordination with every supply-side device in every scenario/);
+    expect(text).toMatch(
+      /Following NFPA 70 \(2023\) 240\.11, once a feeder device supplied directly by a service device/,
+    );
+  });
+
   it('draws a one-line diagram per scenario', () => {
     expect(captions(section('one-line').blocks)).toEqual([
       'The system as modelled in "Normal", with maximum and minimum fault currents',

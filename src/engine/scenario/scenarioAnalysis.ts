@@ -1,5 +1,6 @@
 import { analyseStudy, type Analysis } from '../analysis.ts';
 import { codeSelectivityFindings } from '../checks/codeSelectivity.ts';
+import { serviceSelectivityFindings } from '../checks/serviceSelectivity.ts';
 import type { Finding, Severity } from '../checks/finding.ts';
 import { expectedGot, InputError } from '../errors.ts';
 import type { Scenario, Study } from '../study/index.ts';
@@ -41,12 +42,20 @@ export function analyseScenarios(study: Study, options: ScenarioOptions = {}): A
   if (!hasScenarios(study)) {
     if (options.only !== undefined) scenarioNamed(study, options.only);
     const analysis = analyseStudy(study);
-    const code = codeSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }], { labelled: false });
+    const normal = [{ label: 'Normal', parts: [analysis] }];
+    const code = [
+      ...codeSelectivityFindings(study, normal, { labelled: false }),
+      ...serviceSelectivityFindings(study, normal, { labelled: false }),
+    ];
     return code.length === 0 ? analysis : withFindings(analysis, [...analysis.findings, ...code]);
   }
   const chosen = options.only === undefined ? scenariosOf(study) : [scenarioNamed(study, options.only)];
   const results = chosen.map((scenario) => scenarioResultOf(study, scenario));
-  const findings = [...mergedFindings(results), ...codeSelectivityFindings(study, results)];
+  const findings = [
+    ...mergedFindings(results),
+    ...codeSelectivityFindings(study, results),
+    ...serviceSelectivityFindings(study, results),
+  ];
   const primary = results.find((r) => r.parts.length > 0)?.parts[0];
   if (!primary)
     throw new InputError(

@@ -1,0 +1,139 @@
+import { locationBusOf } from '../network/index.ts';
+import { formatAmps, formatVolts } from '../quantity/format.ts';
+import type { Device, Study } from '../study/index.ts';
+import { AHJ_SELECTIVITY_SECONDS, SELECTIVITY_ARTICLE, type ScenarioPairs } from './codeSelectivity.ts';
+import { illustrativeSentence, isIllustrative } from './coordination.ts';
+import { nameOf } from './context.ts';
+import type { Finding } from './finding.ts';
+
+/** The edition of NFPA 70 that brought in 240.11. */
+const FROM_EDITION = '2023';
+
+/**
+ * NFPA 70 (2023) 240.11: where one or more feeder devices must be selectively coordinated with a
+ * service overcurrent device, every feeder device the service device supplies directly must be. A
+ * device the study marks (emergency, legally required standby, critical operations, elevator) must be
+ * selective with every supply-side device, so on a tree fed by the utility the feeder on its path just
+ * below the service device must be; then so must each of that service device's other feeders. The
+ * service device is taken as a device with no device above it in a tree the utility feeds (the study's
+ * utility source stands at the service point): the engineer confirms it. Each such pair is read as the
+ * code-selectivity check reads the marked devices' own pairs (`codeSelectivityFindings`: an interval
+ * classed "overlap" or "not provable from curves" is not shown selective, and with `codeSelectivity:
+ * "above-0.1-s"` one is accepted where the feeder device clears within 0.1 s at its lowest current); the
+ * pairs on a marked device's own path are left to its finding. One finding per service device, in the
+ * 2023 edition only.
+ *
+ * @example serviceSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }])
+ */
+export function serviceSelectivityFindings(
+  study: Study,
+  scenarios: ScenarioPairs[],
+  { labelled = true }: { labelled?: boolean } = {},
+): Finding[] {
+  if (study.coordination.edition !== FROM_EDITION || !study.devices.some((device) => device.system)) return [];
+  const aboveTenthSecond = study.coordination.codeSelectivity === 'above-0.1-s';
+  // What each service device is found to owe, by its id, in the order met.
+  const owed = new Map<string, ServiceDuty>();
+  for (const scenario of scenarios)
+    for (const part of scenario.parts) {
+      if (part.study.source.kind === 'generator') continue;
+      const { network, pairs, bands } = part;
+      const above = new Map(pairs.map((pair) => [pair.downstream, pair.upstream]));
+      // Each marked device's path up to its tree's top device, and the feeder on it just below the top.
+      const onMarkedPaths = new Set<string>();
+      const requiredBy = new Map<string, { feeder: Device; marked: Device }>();
+      for (const marked of study.devices) {
+        if (!marked.system || !network.devices.has(marked.id)) continue;
+        let down = marked.id;
+        for (let up = above.get(down); up !== undefined; down = up, up = above.get(down)) {
+          onMarkedPaths.add(`${up}|${down}`);
+          if (!above.has(up) && !requiredBy.has(up)) requiredBy.set(up, { feeder: network.devices.get(down)!, marked });
+        }
+      }
+      for (const [serviceId, reason] of requiredBy) {
+        const service = network.devices.get(serviceId)!;
+        let duty = owed.get(serviceId);
+        if (!duty) {
+          const volts = locationBusOf(network, service).voltage;
+          duty = {
+            service,
+            reason,
+            referenceVolts: volts,
+            problems: [],
+            failing: [],
+            checked: [],
+            feeders: new Set(),
+            illustrative: new Set(),
+          };
+          owed.set(serviceId, duty);
+        }
+        duty.checked.push(scenario.label);
+        for (const pair of pairs) {
+          if (pair.upstream !== serviceId || onMarkedPaths.has(`${pair.upstream}|${pair.downstream}`)) continue;
+          const feeder = network.devices.get(pair.downstream)!;
+          // The sheet's base: the feeders' own voltage, where their intervals are read.
+          if (duty.feeders.size === 0) duty.referenceVolts = pair.cases[0]?.referenceVolts ?? duty.referenceVolts;
+          duty.feeders.add(nameOf(feeder));
+          for (const each of [service, feeder]) if (isIllustrative(each)) duty.illustrative.add(nameOf(each));
+          for (const fault of pair.cases)
+            for (const interval of fault.intervals) {
+              if (interval.status === 'selective' || interval.status === 'thin margin') continue;
+              // The intervals are on the feeder device's own voltage, its band's.
+              if (
+                aboveTenthSecond &&
+                (bands.get(feeder.id)?.maxTime(interval.fromAmps) ?? Infinity) <= AHJ_SELECTIVITY_SECONDS
+              )
+                continue;
+              duty.failing.push(scenario.label);
+              duty.problems.push(
+                `${scenario.label}: ${nameOf(service)} and ${nameOf(feeder)} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
+              );
+            }
+        }
+      }
+    }
+  const scope = aboveTenthSecond
+    ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")'
+    : 'over the full range of available fault currents';
+  const findings: Finding[] = [];
+  for (const { service, reason, referenceVolts, problems, failing, checked, feeders, illustrative } of owed.values()) {
+    // A service device that supplies no feeder but the marked path's own has nothing more to show.
+    if (feeders.size === 0) continue;
+    const { system } = SELECTIVITY_ARTICLE[reason.marked.system!];
+    const why = `${nameOf(reason.feeder)} must be selectively coordinated with ${nameOf(service)}, since ${nameOf(reason.marked)} (${system}) must be selective with every supply-side device; NFPA 70 (2023) 240.11 then asks the same of every feeder device ${nameOf(service)} supplies directly, ${scope}. ${nameOf(service)} is taken as the service overcurrent device: it has no device above it in the utility's tree (confirm that the study's utility source stands at the service point).`;
+    findings.push({
+      id: `service-selectivity:${service.id}`,
+      kind: 'code-selectivity',
+      severity: problems.length > 0 ? 'fail' : illustrative.size > 0 ? 'warning' : 'ok',
+      title: `${nameOf(service)}: NFPA 70 240.11 selective coordination of the feeders it supplies`,
+      subjects: [service.id],
+      explanation:
+        problems.length > 0
+          ? `${why} Not shown: ${problems.join('; ')}. The authority having jurisdiction decides what selective coordination means where the work is done.`
+          : `${why} ${illustrative.size > 0 ? 'On their curves, ' : ''}${[...feeders].join(', ')} ${feeders.size > 1 ? 'are' : 'is'} selective with it in every scenario checked (${[...new Set(checked)].join(', ')}).${illustrative.size > 0 ? ` ${illustrativeSentence([...illustrative])}` : ''}`,
+      suggestion:
+        problems.length > 0
+          ? "Separate the overlapping devices (raise or delay the service device, lower the feeder's instantaneous), or show selectivity from the manufacturers' tested selectivity tables."
+          : undefined,
+      basis: 'NFPA 70 (2023) 240.11',
+      referenceVolts,
+      ...(labelled ? { scenarios: [...new Set(failing.length > 0 ? failing : checked)] } : {}),
+    });
+  }
+  return findings;
+}
+
+/** What one service device is found to owe across the scenarios. */
+interface ServiceDuty {
+  service: Device;
+  /** The first marked device whose path makes a feeder of this service device owe selectivity, and that feeder. */
+  reason: { feeder: Device; marked: Device };
+  /** The voltage the feeders' intervals are read at. */
+  referenceVolts: number;
+  problems: string[];
+  failing: string[];
+  checked: string[];
+  /** The names of the feeder devices checked, those on marked paths aside. */
+  feeders: Set<string>;
+  illustrative: Set<string>;
+}
