@@ -5,14 +5,21 @@ import { locationBusOf } from '../network/index.ts';
 import { decayText, decrementTimesOf, onElement, separationText } from './decrementCoordination.ts';
 import { illustrativeSentence, isIllustrative } from './coordination.ts';
 import { nameOf } from './context.ts';
+import { inSeriesAlone } from './seriesException.ts';
 import type { Finding } from './finding.ts';
 
-/** The NFPA 70 article that asks each kind of system for selective coordination. */
-export const SELECTIVITY_ARTICLE: Record<NonNullable<Device['system']>, { article: string; system: string }> = {
-  emergency: { article: '700.32', system: 'emergency system' },
-  'legally-required': { article: '701.32', system: 'legally required standby system' },
-  'critical-operations': { article: '708.54', system: 'critical operations power system' },
-  elevator: { article: '620.62', system: 'elevator feeders and branch circuits' },
+/**
+ * The NFPA 70 article that asks each kind of system for selective coordination, and whether it carries
+ * the Exception for two devices in series with no load in parallel with the downstream one (`inSeriesAlone`).
+ */
+export const SELECTIVITY_ARTICLE: Record<
+  NonNullable<Device['system']>,
+  { article: string; system: string; seriesException: boolean }
+> = {
+  emergency: { article: '700.32', system: 'emergency system', seriesException: true },
+  'legally-required': { article: '701.32', system: 'legally required standby system', seriesException: true },
+  'critical-operations': { article: '708.54', system: 'critical operations power system', seriesException: true },
+  elevator: { article: '620.62', system: 'elevator feeders and branch circuits', seriesException: false },
 };
 
 /** Time below which the "above-0.1-s" option accepts two devices operating together (as some authorities do). */
@@ -54,8 +61,10 @@ export function codeSelectivityFindings(
   const decayTimes: DecayTimes = new Map();
   for (const device of study.devices) {
     if (!device.system) continue;
-    const { article, system } = SELECTIVITY_ARTICLE[device.system];
+    const { article, system, seriesException } = SELECTIVITY_ARTICLE[device.system];
     const problems: string[] = [];
+    // The pairs the article's Exception leaves out (two devices in series, no load in parallel), by name.
+    const exempt = new Set<string>();
     const checked: string[] = [];
     const failing: string[] = [];
     // The devices whose illustrative curves the verdict would rest on.
@@ -64,9 +73,15 @@ export function codeSelectivityFindings(
     for (const scenario of scenarios)
       for (const part of scenario.parts) {
         if (!part.network.devices.has(device.id)) continue;
-        // The pair with the device just above, and every device above that in series (the supply side).
-        const chain = upstreamChain(part, device.id);
-        if (chain.length > 0) checked.push(scenario.label);
+        // The pair with the device just above, and every device above that in series (the supply side),
+        // but for the pairs the article's Exception leaves out.
+        const supplySide = upstreamChain(part, device.id);
+        if (supplySide.length > 0) checked.push(scenario.label);
+        const chain = supplySide.filter((pair) => {
+          const alone = seriesException && inSeriesAlone(part.network, pair.upstream, pair.downstream);
+          if (alone) exempt.add(`${pair.upstreamName} over ${pair.downstreamName}`);
+          return !alone;
+        });
         for (const id of [device.id, ...chain.map((pair) => pair.upstream)]) {
           const each = part.network.devices.get(id)!;
           if (isIllustrative(each)) illustrative.add(nameOf(each));
@@ -106,6 +121,10 @@ export function codeSelectivityFindings(
       option === 'above-0.1-s'
         ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")'
         : 'over the full range of available fault currents';
+    const exception =
+      exempt.size > 0
+        ? ` Not asked of ${[...exempt].join(', ')}: the Exception to ${article} (two devices in series with no load connected in parallel with the downstream device: as modelled, each downstream device named is the main of the bus that its upstream device's transformer or cable alone supplies). Confirm that no load is tapped between them.`
+        : '';
     const authority =
       'The authority having jurisdiction decides what selective coordination means where the work is done; some accept it above 0.1 s only.';
     findings.push({
@@ -117,8 +136,8 @@ export function codeSelectivityFindings(
       subjects: [device.id],
       explanation:
         problems.length > 0
-          ? `${nameOf(device)} is part of the ${system}, whose overcurrent devices must be selectively coordinated with every supply-side device ${scope}, in every scenario. Not shown: ${problems.join('; ')}. ${authority}`
-          : `${nameOf(device)} is part of the ${system}; ${illustrative.size > 0 ? 'on its curves ' : ''}it is selective with every supply-side device ${scope} in every scenario checked (${[...new Set(checked)].join(', ')}).${illustrative.size > 0 ? ` ${illustrativeSentence([...illustrative])}` : ''} ${authority}`,
+          ? `${nameOf(device)} is part of the ${system}, whose overcurrent devices must be selectively coordinated with every supply-side device ${scope}, in every scenario. Not shown: ${problems.join('; ')}.${exception} ${authority}`
+          : `${nameOf(device)} is part of the ${system}; ${illustrative.size > 0 ? 'on its curves ' : ''}it is selective with every supply-side device ${scope} in every scenario checked (${[...new Set(checked)].join(', ')}).${illustrative.size > 0 ? ` ${illustrativeSentence([...illustrative])}` : ''}${exception} ${authority}`,
       suggestion:
         problems.length > 0
           ? "Separate the overlapping devices (raise or delay the upstream device, lower the downstream instantaneous), or show selectivity from the manufacturers' tested selectivity tables."

@@ -1,5 +1,6 @@
 import type { Band } from '../band.ts';
 import { AHJ_SELECTIVITY_SECONDS, SELECTIVITY_ARTICLE } from '../checks/codeSelectivity.ts';
+import { inSeriesAlone } from '../checks/seriesException.ts';
 import { cableAmpacityFindings } from '../checks/cableAmpacity.ts';
 import { ratingOf } from '../checks/deviceRating.ts';
 import { cableFindings } from '../checks/cableProtection.ts';
@@ -355,9 +356,11 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
   const ratio = `${rule.timeRatio * 100} % time ratio`;
   const separation =
     rule.timeRatio === 1 ? `${rule.margin} s margin` : rule.margin > 0 ? `${rule.margin} s margin, ${ratio}` : ratio;
-  // A device of an emergency (or like) system must be shown selective: curves that cannot prove it do not do.
+  // A device of an emergency (or like) system must be shown selective: curves that cannot prove it do not
+  // do; but for a pair the article's Exception leaves out (two devices in series, no load in parallel).
   const system = trial.deviceOf(downId).system;
-  const code = system ? SELECTIVITY_ARTICLE[system].article : undefined;
+  const exempt = system && SELECTIVITY_ARTICLE[system].seriesException && inSeriesAlone(trial.network, upId, downId);
+  const code = system && !exempt ? SELECTIVITY_ARTICLE[system].article : undefined;
   const fullRange = trial.settings.codeSelectivity === 'full-range';
   return {
     id: `${which}:${other.id}`,

@@ -162,3 +162,49 @@ describe('NFPA 70 700.32 selective coordination', () => {
     });
   });
 });
+
+/**
+ * A 480 V feeder F (400 A, short-time 4 × at 0.3 s) supplies, by cable C1, panel P, whose main PM is set
+ * exactly as F; PM feeds branch breaker BR (100 A, instantaneous 10 ×), marked `system`. F and PM overlap
+ * over their whole short-time band; PM over BR is selective. Invented settings.
+ */
+function panelMainStudy(system: 'emergency' | 'elevator'): StudyInput {
+  const sameAsFeeder = tripUnit(400, { shortTime: { pickup: 4, delay: 0.3 } });
+  return {
+    discern: 1,
+    name: 'a feeder and the main of the panel it alone supplies',
+    source: { kind: 'utility', id: 'U', bus: 'A', max: { available: '30 kA', xr: 6 } },
+    buses: [
+      { id: 'A', voltage: 480 },
+      { id: 'P', voltage: 480 },
+      { id: 'L', voltage: 480 },
+    ],
+    cables: [
+      { id: 'C1', from: 'A', to: 'P', size: '500 kcmil', length: 100 },
+      { id: 'C2', from: 'P', to: 'L', size: '1 AWG', length: 50 },
+    ],
+    devices: [
+      { id: 'F', feeds: 'C1', characteristic: sameAsFeeder },
+      { id: 'PM', feeds: 'P', characteristic: sameAsFeeder },
+      { id: 'BR', feeds: 'C2', system, characteristic: tripUnit(100, { instantaneous: { pickup: 10 } }) },
+    ],
+  };
+}
+
+describe('the Exception for two devices in series with no load in parallel with the downstream one', () => {
+  const codeFinding = (input: StudyInput) =>
+    analyseScenarios(parseStudy(input)).findings.find((f) => f.id === 'code-selectivity:BR')!;
+
+  it('leaves a feeder and the main of the panel it alone supplies out of an emergency device’s chain, and says so (NFPA 70 700.32, 708.54 Exception)', () => {
+    const finding = codeFinding(panelMainStudy('emergency'));
+    expect(finding.severity).toBe('ok');
+    expect(finding.explanation).toMatch(/Not asked of F over PM: the Exception to 700\.32 /);
+    expect(finding.explanation).toMatch(/Confirm that no load is tapped between them\./);
+  });
+
+  it('asks it of elevator circuits (NFPA 70 620.62 has no such Exception)', () => {
+    const finding = codeFinding(panelMainStudy('elevator'));
+    expect(finding.severity).toBe('fail');
+    expect(finding.explanation).toMatch(/Normal: F and PM \(on the supply side of BR\) overlap from /);
+  });
+});
