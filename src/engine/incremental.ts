@@ -53,6 +53,7 @@ export class AnalysisMemo {
       this.lastRun.faultsReused = true;
       return this.#faults;
     }
+    // Everything the fault levels are worked out from (`sameNetworkInputs`' fields), by value.
     const key = JSON.stringify([
       study.frequency,
       study.source,
@@ -60,6 +61,9 @@ export class AnalysisMemo {
       study.transformers,
       study.cables,
       study.motors,
+      study.generators,
+      study.switches,
+      study.conductorTemperatures,
       study.devices.map((device) => device.feeds),
     ]);
     this.lastRun.faultsReused = key === this.#networkKey && this.#faults !== undefined;

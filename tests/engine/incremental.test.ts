@@ -46,6 +46,21 @@ describe('AnalysisMemo', () => {
     expect(memo.lastRun.faultsReused).toBe(false);
   });
 
+  it('works the fault levels out again when a conductor temperature changes, every other network list kept', () => {
+    const memo = new AnalysisMemo();
+    const before = parseStudy(demo());
+    analyseStudy(before, memo);
+    // As the workbench reads an edit of the option: the same lists, a new temperatures object.
+    const hotter = { ...before, conductorTemperatures: { maximumFault: 20, minimumFault: 200 } };
+    const viaMemo = analyseStudy(hotter, memo);
+    expect(memo.lastRun.faultsReused).toBe(false);
+    const fresh = analyseStudy(hotter);
+    expect(viaMemo.faults.buses.get('MCC')!.min.threePhase).toBe(fresh.faults.buses.get('MCC')!.min.threePhase);
+    expect(fresh.faults.buses.get('MCC')!.min.threePhase).toBeLessThan(
+      analyseStudy(before).faults.buses.get('MCC')!.min.threePhase,
+    );
+  });
+
   // As the workbench edits: the parsed study copied along the edited path, every other object kept.
   const withDevice = (
     study: Study,
