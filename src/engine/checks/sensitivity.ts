@@ -1,6 +1,6 @@
 import type { Band } from '../band.ts';
 import { cachedFastestOf, cachedGroundBandOf } from '../bandCache.ts';
-import { DELTA_WYE_TABLE, secondaryWindingOf } from '../fault/index.ts';
+import { DELTA_WYE_TABLE, MINIMUM_FAULT_TEMPERATURE, secondaryWindingOf } from '../fault/index.ts';
 import { locationBusOf, transformersBetween, type Network } from '../network/index.ts';
 import { formatAmps, formatSeconds, formatVolts, significant } from '../quantity/format.ts';
 import type { Bus, CoordinationSettings, Device, Transformer } from '../study/index.ts';
@@ -176,7 +176,10 @@ function zoneFindings(
           explanation: () =>
             `${cases.map((c) => `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} clears within ${formatSeconds(c.clearingTime)}.`).join(' ')} ${cases.length === 1 ? 'This is' : 'Both are'} within the ${formatSeconds(settings.maxTime)} allowed.`,
         }),
-        { basis: basisOf(settings), referenceVolts: location.voltage },
+        {
+          basis: basisOf(settings, context.network.study.conductorTemperatures.minimumFault),
+          referenceVolts: location.voltage,
+        },
       ),
     ];
   }
@@ -200,7 +203,10 @@ function zoneFindings(
             : `For ${describeCase(context, c, name, location.voltage, settings)}, ${name} may take ${formatSeconds(c.clearingTime)} to clear, longer than the ${formatSeconds(settings.maxTime)} allowed for the minimum fault in its zone.`,
         suggestion: () => remedyOf(device, c, settings.maxTime),
       }),
-      { basis: basisOf(settings), referenceVolts: location.voltage },
+      {
+        basis: basisOf(settings, context.network.study.conductorTemperatures.minimumFault),
+        referenceVolts: location.voltage,
+      },
     );
   });
 }
@@ -217,22 +223,28 @@ function faultNameOf(context: CheckContext, c: SensitivityCase): string {
     : c.fault;
 }
 
-/** The finding's basis line: the minimum-fault assumptions and the time allowed. */
-function basisOf(settings: SensitivitySettings): string {
-  let basis = bases.get(settings);
-  if (basis === undefined) bases.set(settings, (basis = basisText(settings)));
-  return basis;
+/** The finding's basis line: the minimum-fault assumptions (conductors at `temperature`, °C) and the time allowed. */
+function basisOf(settings: SensitivitySettings, temperature: number): string {
+  const written = bases.get(settings);
+  if (written?.temperature === temperature) return written.text;
+  const text = basisText(settings, temperature);
+  bases.set(settings, { temperature, text });
+  return text;
 }
 
 /** Each study's basis, written once: it is the same for every device the check looks at. */
-const bases = new WeakMap<SensitivitySettings, string>();
+const bases = new WeakMap<SensitivitySettings, { temperature: number; text: string }>();
 
-function basisText(settings: SensitivitySettings): string {
+function basisText(settings: SensitivitySettings, temperature: number): string {
+  const conductors =
+    temperature === MINIMUM_FAULT_TEMPERATURE
+      ? 'conductors at operating temperature'
+      : `conductors at ${temperature} °C (the study's setting)`;
   const arcing =
     settings.arcingFactor === undefined
       ? 'bolted faults'
       : `arcing faults taken as ${significant(settings.arcingFactor * 100, 3)} % of the bolted fault (a user option; common practice, IEEE 1584 gives the method for the arcing current)`;
-  return `Minimum fault at the far end of the zone: weakest source, no motors, conductors at operating temperature; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (${settings.maxTime === 2 ? 'common practice' : 'as set for this study'}).`;
+  return `Minimum fault at the far end of the zone: weakest source, no motors, ${conductors}; ${arcing}; clearing within ${formatSeconds(settings.maxTime)} (${settings.maxTime === 2 ? 'common practice' : 'as set for this study'}).`;
 }
 
 /** One case in words: the bolted fault at its bus, and the current through the device (at `volts`) where that differs. */

@@ -59,6 +59,12 @@ describe('sensitivity to the minimum fault in a zone', () => {
     expect(finding.basis).toMatch(/bolted faults; clearing within 2 s \(common practice\)/);
   });
 
+  it("names the minimum fault's conductor temperature: operating temperature by default, else the study's setting", () => {
+    expect(sensitivity(fused())[0].basis).toMatch(/no motors, conductors at operating temperature;/);
+    const hot = { ...fused(), conductorTemperatures: { minimumFault: 250 } } as StudyInput;
+    expect(sensitivity(hot)[0].basis).toMatch(/no motors, conductors at 250 °C \(the study's setting\);/);
+  });
+
   it('zoneBusesOf() runs down to the next devices, keeping a bus whose main ends the zone', () => {
     const network = networkOf(parseStudy(demo()));
     const zone = (id: string) => zoneBusesOf(network, network.devices.get(id)!);
