@@ -563,11 +563,17 @@ export function createStudySchema(frequency = 60) {
         ),
       })
       .check(
-        z.refine((t) => t.minimumFault >= t.maximumFault, {
-          message:
-            'expected a minimum-fault temperature at or above the maximum-fault one (a hotter conductor carries less)',
-          path: ['minimumFault'],
-        }),
+        // Said of the pair, once each reads: either may be the one to change.
+        z.superRefine(
+          ({ maximumFault, minimumFault }, ctx) => {
+            if (!(minimumFault < maximumFault)) return;
+            ctx.addIssue({
+              code: 'custom',
+              message: `expected a minimum-fault temperature at or above the maximum-fault one (a hotter conductor carries less), got ${minimumFault} °C below ${maximumFault} °C`,
+            });
+          },
+          { when: ({ issues }) => issues.length === 0 },
+        ),
       ),
     { maximumFault: MAXIMUM_FAULT_TEMPERATURE, minimumFault: MINIMUM_FAULT_TEMPERATURE },
   );

@@ -263,8 +263,11 @@ describe('readStudy', () => {
     const input = demo();
     input.conductorTemperatures = { maximumFault: 40, minimumFault: 30 };
     expect(firstProblem(input)).toMatch(
-      /^study\.conductorTemperatures\.minimumFault: expected a minimum-fault temperature at or above the maximum-fault one/,
+      /^study\.conductorTemperatures: expected a minimum-fault temperature at or above the maximum-fault one .*, got 30 °C below 40 °C$/,
     );
+    // Out of its span, a temperature is told alone: not also as below the other one.
+    input.conductorTemperatures = { maximumFault: 300 };
+    expect(readStudy(input).problems.map((p) => p.path)).toEqual(['study.conductorTemperatures.maximumFault']);
     input.conductorTemperatures = { minimumFault: 300 };
     expect(firstProblem(input)).toMatch(/^study\.conductorTemperatures\.minimumFault: .*250/);
     input.conductorTemperatures = { maximumFault: -10 };
