@@ -68,20 +68,42 @@ describe('the study deliverable in the workbench', () => {
     await minimum.press('Tab');
     await expect.poll(() => dialog.getByTestId('option-conductorTemperatures-minimumFault-problem').count()).toBe(0);
     await dialog.getByTestId('option-coordination-edition').selectOption('2020');
-    await dialog.getByTestId('option-add-margin').selectOption('relay/trip-unit');
-    await expect.poll(() => dialog.getByLabel('margin for relay/trip-unit pairs, s').inputValue()).toBe('0.2');
+    // A margin is added by its button, once chosen (arrow keys on the choice add nothing).
+    await dialog.getByTestId('option-margin-kind').focus();
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('ArrowDown');
+    await dialog.getByTestId('option-margin-kind').selectOption('relay/trip-unit');
+    await dialog.getByTestId('option-add-margin').click();
+    const margin = dialog.getByLabel('margin for relay/trip-unit pairs, s');
+    await expect.poll(() => margin.inputValue()).toBe('0.2');
+    expect(await dialog.getByLabel(/^margin for .* pairs, s$/).count()).toBe(1);
+    // A margin out of range is said in the dialog, beside it.
+    await margin.fill('9');
+    await margin.press('Tab');
+    await expect.poll(() => margin.getAttribute('aria-invalid')).toBe('true');
+    await margin.fill('0.2');
+    await margin.press('Tab');
+    await expect.poll(() => margin.getAttribute('aria-invalid')).toBe('false');
     await page.keyboard.press('Escape');
-    // The minimum fault behind a cable is now worked out with its conductors at 150 °C.
+    // The minimum fault behind a cable is now worked out with its conductors at 150 °C, and at each
+    // temperature set after.
     await page.getByTestId('tree-bus-MCC').click();
     await expect.poll(() => page.getByTestId('work').textContent()).toMatch(/C-MCC resistance at 150 °C/);
+    await page.getByTestId('options-open').click();
+    await minimum.fill('200');
+    await minimum.press('Tab');
+    await page.keyboard.press('Escape');
+    await expect.poll(() => page.getByTestId('work').textContent()).toMatch(/C-MCC resistance at 200 °C/);
     const saved = page.waitForEvent('download');
     await page.getByTestId('export-menu').selectOption('study-json');
     const file = JSON.parse(readFileSync((await (await saved).path())!, 'utf8'));
-    expect(file.conductorTemperatures).toEqual({ minimumFault: 150 });
+    expect(file.conductorTemperatures).toEqual({ minimumFault: 200 });
     expect(file.coordination).toEqual({ edition: '2020', margins: { 'relay/trip-unit': 0.2 } });
     // Each change is one undo step; emptied, an option is taken out of the file again.
     await page.getByTestId('undo').click();
     await page.getByTestId('options-open').click();
+    await expect.poll(() => minimum.inputValue()).toBe('150');
+    await dialog.getByRole('button', { name: 'Remove' }).click();
     await expect.poll(() => dialog.getByLabel('margin for relay/trip-unit pairs, s').count()).toBe(0);
     await dialog.getByTestId('option-coordination-edition').selectOption('');
     await minimum.fill('');

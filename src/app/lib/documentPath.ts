@@ -1,3 +1,5 @@
+import { formatIssuePath } from '../../engine/study/issueMessage.ts';
+
 /**
  * A location inside a study document (the file form the user edits): object keys and array
  * indexes from the top, e.g. `['devices', 2, 'characteristic', 'pickup']`.
@@ -75,9 +77,10 @@ export function withItemAdded<T>(document: T, path: DocumentPath, item: unknown)
 }
 
 /**
- * The path as the study's problems name it: `study.devices[2].characteristic.pickup`.
+ * The path as the study's problems name it: `study.devices[2].characteristic.pickup`, a key that is not
+ * a plain name quoted (`study.coordination.margins["relay/fuse"]`), by the reader's own formatter.
  * @example formatDocumentPath(['devices', 2, 'rating']) // 'study.devices[2].rating'
  */
 export function formatDocumentPath(path: DocumentPath): string {
-  return path.reduce<string>((text, key) => (typeof key === 'number' ? `${text}[${key}]` : `${text}.${key}`), 'study');
+  return formatIssuePath('study', path);
 }

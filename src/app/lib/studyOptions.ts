@@ -1,5 +1,5 @@
 import { defaultMarginRule, marginRuleOf } from '../../engine/checks/margins.ts';
-import type { Network } from '../../engine/network/index.ts';
+import { seriesPairs, type Network } from '../../engine/network/index.ts';
 import { z } from 'zod/mini';
 import { studySchema } from '../../engine/study/index.ts';
 import { valueAt, type DocumentPath } from './documentPath.ts';
@@ -95,4 +95,22 @@ export function startingPairMargin(network: Network, upstream: string, downstrea
   if (!up || !down) return 0.2;
   const settings = { ...network.study.coordination, pairs: [] };
   return marginRuleOf(up.characteristic.kind, down.characteristic.kind, settings, up.margin).margin;
+}
+
+/**
+ * The pairs a margin for one pair may name, as `UP over DOWN` choices: each device with the device just
+ * above it (the tree's series pairs), less those the study lists already (a pair is listed once).
+ *
+ * @example pairChoices(network, [{ upstream: 'MAIN', downstream: 'FDR-MCC' }]) // every other series pair
+ */
+export function pairChoices(
+  network: Network,
+  listed: readonly { upstream?: unknown; downstream?: unknown }[],
+): { upstream: string; downstream: string }[] {
+  const taken = new Set(listed.map((pair) => `${String(pair.upstream)}\n${String(pair.downstream)}`));
+  const choices: { upstream: string; downstream: string }[] = [];
+  for (const { upstream, downstream } of seriesPairs(network))
+    if (!taken.has(`${upstream.id}\n${downstream.id}`))
+      choices.push({ upstream: upstream.id, downstream: downstream.id });
+  return choices;
 }

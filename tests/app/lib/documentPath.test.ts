@@ -21,6 +21,13 @@ describe('documentPath', () => {
     expect(formatDocumentPath([])).toBe('study');
   });
 
+  it("formatDocumentPath() names a path as the study's problems do, a key that is no plain name quoted", () => {
+    expect(formatDocumentPath(['devices', 2, 'rating'])).toBe('study.devices[2].rating');
+    expect(formatDocumentPath(['coordination', 'margins', 'relay/trip-unit'])).toBe(
+      'study.coordination.margins["relay/trip-unit"]',
+    );
+  });
+
   it('valueAt() reads nested keys and indexes, undefined where the path leads nowhere', () => {
     expect(valueAt(study, ['devices', 0, 'characteristic', 'longTime', 'pickup'])).toBe(1);
     expect(valueAt(study, ['devices', 5, 'id'])).toBeUndefined();

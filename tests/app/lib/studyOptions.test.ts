@@ -5,6 +5,7 @@ import {
   PAIR_KINDS,
   STUDY_OPTION_GROUPS,
   optionDefault,
+  pairChoices,
   startingMargin,
   startingPairMargin,
 } from '../../../src/app/lib/studyOptions.ts';
@@ -57,5 +58,15 @@ describe('studyOptions', () => {
     // A relay over an LV breaker: 0.2 s (IEEE 242 ch. 15) unless the relay or the study sets its own.
     const own = network.devices.get(relay)!.margin ?? network.study.coordination.margins['relay/trip-unit'];
     expect(startingPairMargin(network, relay, breaker)).toBe(own ?? 0.2);
+  });
+
+  it('offers for one pair only a device with the device just above it, each pair once', () => {
+    const network = networkOf(parseStudy(demo));
+    const all = pairChoices(network, []);
+    expect(all).toContainEqual({ upstream: 'MAIN', downstream: 'FDR-MCC' });
+    expect(all.every(({ upstream, downstream }) => upstream !== downstream)).toBe(true);
+    const rest = pairChoices(network, [{ upstream: 'MAIN', downstream: 'FDR-MCC' }]);
+    expect(rest).toHaveLength(all.length - 1);
+    expect(rest).not.toContainEqual({ upstream: 'MAIN', downstream: 'FDR-MCC' });
   });
 });
