@@ -3,7 +3,7 @@ import { formatAmps, formatSeconds, formatVolts } from '../quantity/format.ts';
 import type { Bus, Device, Study } from '../study/index.ts';
 import { locationBusOf } from '../network/index.ts';
 import { decayText, decrementTimesOf, onElement, separationText } from './decrementCoordination.ts';
-import { illustrativeSentence, isIllustrative } from './coordination.ts';
+import { checkPair, illustrativeSentence, isIllustrative } from './coordination.ts';
 import { nameOf } from './context.ts';
 import { inSeriesAlone } from './seriesException.ts';
 import type { Finding } from './finding.ts';
@@ -21,6 +21,9 @@ export const SELECTIVITY_ARTICLE: Record<
   'critical-operations': { article: '708.54', system: 'critical operations power system', seriesException: true },
   elevator: { article: '620.62', system: 'elevator feeders and branch circuits', seriesException: false },
 };
+
+/** The edition of NFPA 70 whose 700.32(A) adds the load-side devices to the supply-side ones. */
+const LOAD_SIDE_EDITION = '2023';
 
 /** Time below which the "above-0.1-s" option accepts two devices operating together (as some authorities do). */
 export const AHJ_SELECTIVITY_SECONDS = 0.1;
@@ -59,9 +62,13 @@ export function codeSelectivityFindings(
   const option = study.coordination.codeSelectivity;
   const findings: Finding[] = [];
   const decayTimes: DecayTimes = new Map();
+  const marked = new Set(study.devices.filter((device) => device.system).map((device) => device.id));
   for (const device of study.devices) {
     if (!device.system) continue;
     const { article, system, seriesException } = SELECTIVITY_ARTICLE[device.system];
+    // NFPA 70 (2023) 700.32(A) asks an emergency system's devices to be selective with their load-side
+    // devices too.
+    const loadSide = article === '700.32' && study.coordination.edition === LOAD_SIDE_EDITION;
     const problems: string[] = [];
     // The pairs the article's Exception leaves out (two devices in series, no load in parallel), by name.
     const exempt = new Set<string>();
@@ -74,14 +81,10 @@ export function codeSelectivityFindings(
       for (const part of scenario.parts) {
         if (!part.network.devices.has(device.id)) continue;
         // The pair with the device just above, and every device above that in series (the supply side),
-        // but for the pairs the article's Exception leaves out.
+        // the pairs the article's Exception leaves out replaced by the pairs they stand for (`withException`).
         const supplySide = upstreamChain(part, device.id);
         if (supplySide.length > 0) checked.push(scenario.label);
-        const chain = supplySide.filter((pair) => {
-          const alone = seriesException && inSeriesAlone(part.network, pair.upstream, pair.downstream);
-          if (alone) exempt.add(`${pair.upstreamName} over ${pair.downstreamName}`);
-          return !alone;
-        });
+        const chain = seriesException ? withException(part, supplySide, exempt) : supplySide;
         for (const id of [device.id, ...chain.map((pair) => pair.upstream)]) {
           const each = part.network.devices.get(id)!;
           if (isIllustrative(each)) illustrative.add(nameOf(each));
@@ -111,6 +114,28 @@ export function codeSelectivityFindings(
               );
             }
           }
+        if (loadSide) {
+          const below = withException(part, loadSidePairs(part, device.id, marked), exempt);
+          if (below.length > 0 && supplySide.length === 0) checked.push(scenario.label);
+          for (const pair of below) {
+            const each = part.network.devices.get(pair.downstream)!;
+            if (isIllustrative(each)) illustrative.add(nameOf(each));
+          }
+          for (const pair of below)
+            for (const fault of pair.cases)
+              for (const interval of fault.intervals) {
+                if (interval.status === 'selective' || interval.status === 'thin margin') continue;
+                // The load-side device is the one to clear: with "above-0.1-s", accepted where it clears
+                // within 0.1 s (its intervals are on its own voltage).
+                const clears = part.bands.get(pair.downstream)?.maxTime(interval.fromAmps) ?? Infinity;
+                if (option === 'above-0.1-s' && clears <= AHJ_SELECTIVITY_SECONDS) continue;
+                failing.push(scenario.label);
+                referenceVolts ||= fault.referenceVolts;
+                problems.push(
+                  `${scenario.label}: ${pair.upstreamName} and ${pair.downstreamName} (on the load side of ${nameOf(device)}) ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
+                );
+              }
+        }
         const unproven = chain.filter((pair) => !wanting.has(pair.upstream));
         const decaying = decayProblems(part, device, unproven, here, option === 'above-0.1-s', decayTimes);
         if (decaying.length > 0) failing.push(scenario.label);
@@ -121,9 +146,10 @@ export function codeSelectivityFindings(
       option === 'above-0.1-s'
         ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")'
         : 'over the full range of available fault currents';
+    const sides = loadSide ? 'supply-side and load-side' : 'supply-side';
     const exception =
       exempt.size > 0
-        ? ` Not asked of ${[...exempt].join(', ')}: the Exception to ${article} (two devices in series with no load connected in parallel with the downstream device: as modelled, each downstream device named is the main of the bus that its upstream device's transformer or cable alone supplies). Confirm that no load is tapped between them.`
+        ? ` Not asked of ${[...exempt].join(', ')}: the Exception to ${article} (two devices in series with no load connected in parallel with the downstream device: as modelled, each downstream device named is the main of the bus that its upstream device's transformer or cable alone supplies), each upper device checked instead with the devices below the lower one. Confirm that no load is tapped between them.`
         : '';
     const authority =
       'The authority having jurisdiction decides what selective coordination means where the work is done; some accept it above 0.1 s only.';
@@ -136,8 +162,8 @@ export function codeSelectivityFindings(
       subjects: [device.id],
       explanation:
         problems.length > 0
-          ? `${nameOf(device)} is part of the ${system}, whose overcurrent devices must be selectively coordinated with every supply-side device ${scope}, in every scenario. Not shown: ${problems.join('; ')}.${exception} ${authority}`
-          : `${nameOf(device)} is part of the ${system}; ${illustrative.size > 0 ? 'on its curves ' : ''}it is selective with every supply-side device ${scope} in every scenario checked (${[...new Set(checked)].join(', ')}).${illustrative.size > 0 ? ` ${illustrativeSentence([...illustrative])}` : ''}${exception} ${authority}`,
+          ? `${nameOf(device)} is part of the ${system}, whose overcurrent devices must be selectively coordinated with every ${sides} device ${scope}, in every scenario. Not shown: ${problems.join('; ')}.${exception} ${authority}`
+          : `${nameOf(device)} is part of the ${system}; ${illustrative.size > 0 ? 'on its curves ' : ''}it is selective with every ${sides} device ${scope} in every scenario checked (${[...new Set(checked)].join(', ')}).${illustrative.size > 0 ? ` ${illustrativeSentence([...illustrative])}` : ''}${exception} ${authority}`,
       suggestion:
         problems.length > 0
           ? "Separate the overlapping devices (raise or delay the upstream device, lower the downstream instantaneous), or show selectivity from the manufacturers' tested selectivity tables."
@@ -203,6 +229,76 @@ function decayProblems(
 }
 
 type Chain = ReturnType<typeof upstreamChain>;
+
+/**
+ * The pairs a selectivity requirement asks for along `links` (pairs of a device and the device just above
+ * it), with the Exception for two devices in series with no load in parallel with the downstream one
+ * (`inSeriesAlone`): such a link is not asked for (its name goes to `exempt`), but the two devices serve
+ * the same loads, so the upper one must be selective with whatever the lower one must: for each link kept,
+ * every device joined to its upstream device from above by such links is paired with its downstream
+ * device too (a transformer's primary relay with the feeders under the one secondary main). Leaving the
+ * link out alone would break the chain by which selective pairs make a selective path.
+ */
+function withException(part: Analysis, links: Chain, exempt: Set<string>): Chain {
+  const aboveOf = abovesOf(part);
+  const alone = (upstream: string, downstream: string) => inSeriesAlone(part.network, upstream, downstream);
+  const pairs: Chain = [];
+  for (const link of links) {
+    if (alone(link.upstream, link.downstream)) {
+      exempt.add(`${link.upstreamName} over ${link.downstreamName}`);
+      continue;
+    }
+    pairs.push(link);
+    for (
+      let lower = link.upstream, upper = aboveOf.get(lower);
+      upper !== undefined && alone(upper, lower);
+      lower = upper, upper = aboveOf.get(lower)
+    )
+      pairs.push(pairBetween(part, upper, link.downstream));
+  }
+  return pairs;
+}
+
+/** Each device's nearest device above in a tree, by id, from its pairs (worked out once per tree). */
+function abovesOf(part: Analysis): Map<string, string> {
+  let aboveOf = aboves.get(part);
+  if (!aboveOf) aboves.set(part, (aboveOf = new Map(part.pairs.map((pair) => [pair.downstream, pair.upstream]))));
+  return aboveOf;
+}
+const aboves = new WeakMap<Analysis, Map<string, string>>();
+
+/** Two devices in series that are not neighbours, checked as a pair is (`checkPair`), with their names. */
+function pairBetween(part: Analysis, upstreamId: string, downstreamId: string): Chain[number] {
+  const upstream = part.network.devices.get(upstreamId)!;
+  const downstream = part.network.devices.get(downstreamId)!;
+  const { check } = checkPair(part, { upstream, downstream }, part.study.coordination);
+  return Object.assign({}, check, { upstreamName: nameOf(upstream), downstreamName: nameOf(downstream) });
+}
+
+/**
+ * The pairs on the load side of a marked device: each device below it with the device just above it,
+ * down to the devices marked themselves, whose own findings read their pairs (above and below).
+ */
+function loadSidePairs(part: Analysis, deviceId: string, marked: ReadonlySet<string>): Chain {
+  const pairs: Chain = [];
+  const below = new Map<string, Analysis['pairs']>();
+  for (const pair of part.pairs) {
+    const list = below.get(pair.upstream);
+    if (list) list.push(pair);
+    else below.set(pair.upstream, [pair]);
+  }
+  const pending = [deviceId];
+  while (pending.length > 0) {
+    for (const pair of below.get(pending.pop()!) ?? []) {
+      if (marked.has(pair.downstream)) continue;
+      const upstreamName = nameOf(part.network.devices.get(pair.upstream)!);
+      const downstreamName = nameOf(part.network.devices.get(pair.downstream)!);
+      pairs.push(Object.assign({}, pair, { upstreamName, downstreamName }));
+      pending.push(pair.downstream);
+    }
+  }
+  return pairs;
+}
 
 /** Pairs already read on a decaying current, by tree, then by bus and pair. */
 type DecayTimes = Map<Analysis, Map<string, ReturnType<typeof decrementTimesOf>>>;

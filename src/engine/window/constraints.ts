@@ -356,11 +356,13 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
   const ratio = `${rule.timeRatio * 100} % time ratio`;
   const separation =
     rule.timeRatio === 1 ? `${rule.margin} s margin` : rule.margin > 0 ? `${rule.margin} s margin, ${ratio}` : ratio;
-  // A device of an emergency (or like) system must be shown selective: curves that cannot prove it do not
-  // do; but for a pair the article's Exception leaves out (two devices in series, no load in parallel).
-  const system = trial.deviceOf(downId).system;
-  const exempt = system && SELECTIVITY_ARTICLE[system].seriesException && inSeriesAlone(trial.network, upId, downId);
-  const code = system && !exempt ? SELECTIVITY_ARTICLE[system].article : undefined;
+  // A pair on the supply side of a device of an emergency (or like) system must be shown selective: curves
+  // that cannot prove it do not do; but for a pair every such article's Exception leaves out (two devices in
+  // series, no load in parallel), which an elevator circuit's (620.62) does not.
+  const articles = markedAtOrBelow(trial, downId).map((system) => SELECTIVITY_ARTICLE[system]);
+  const exempt =
+    articles.every((article) => article.seriesException) && inSeriesAlone(trial.network, upId, downId);
+  const code = articles.length > 0 && !exempt ? [...new Set(articles.map((a) => a.article))].join(', ') : undefined;
   const fullRange = trial.settings.codeSelectivity === 'full-range';
   return {
     id: `${which}:${other.id}`,
@@ -400,6 +402,19 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
       return { ok, clean: ok && clean, margin, unit: 's', text };
     },
   };
+}
+
+/** The systems marked on a device and on every device below it (those whose supply side it is on). */
+function markedAtOrBelow(trial: Trial, deviceId: string): NonNullable<Device['system']>[] {
+  const systems: NonNullable<Device['system']>[] = [];
+  const pending = [deviceId];
+  while (pending.length > 0) {
+    const id = pending.pop()!;
+    const system = trial.deviceOf(id).system;
+    if (system) systems.push(system);
+    pending.push(...(trial.belowOf.get(id) ?? []));
+  }
+  return systems;
 }
 
 /**

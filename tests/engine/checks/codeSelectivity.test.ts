@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
@@ -202,9 +203,73 @@ describe('the Exception for two devices in series with no load in parallel with 
     expect(finding.explanation).toMatch(/Confirm that no load is tapped between them\./);
   });
 
+  it('checks the upper device of an exempt pair with the devices below the lower one: the chain stays unbroken', () => {
+    // The standby demo with the primary relay's instantaneous at 20 × 5 A on its 100:5 CT: 400 A at
+    // 12.47 kV, about 10.4 kA at 480 V, below the fault at the emergency panel. The relay and the one
+    // secondary main need not be selective; the relay and the emergency feeder under that main must.
+    const input = JSON.parse(readFileSync('demo/harrowmere-standby.json', 'utf8')) as StudyInput;
+    const relay = input.devices!.find((d) => d.id === 'R-T1')!.characteristic as { instantaneous: { pickup: number } };
+    relay.instantaneous.pickup = 20;
+    const finding = analyseScenarios(parseStudy(input)).findings.find((f) => f.id === 'code-selectivity:FDR-EM')!;
+    expect(finding.severity).toBe('fail');
+    expect(finding.explanation).toMatch(/Normal: T1 primary relay and Emergency feeder overlap from 9870 A to /);
+    expect(finding.explanation).toMatch(/Not asked of T1 primary relay over Main 2000 A/);
+  });
+
   it('asks it of elevator circuits (NFPA 70 620.62 has no such Exception)', () => {
     const finding = codeFinding(panelMainStudy('elevator'));
     expect(finding.severity).toBe('fail');
     expect(finding.explanation).toMatch(/Normal: F and PM \(on the supply side of BR\) overlap from /);
+  });
+});
+
+/**
+ * An emergency feeder FE (800 A, short-time 4 × at 0.4 s) supplies panel P by cable; its main PM (400 A,
+ * short-time 4 × at 0.2 s) feeds branch breaker BR (225 A, short-time 4 × at 0.2 s), neither marked. PM and
+ * BR overlap over their short-time bands; FE is selective over both. Invented settings.
+ */
+function loadSideStudy(edition: '2020' | '2023'): StudyInput {
+  return {
+    discern: 1,
+    name: 'an emergency feeder and the devices on its load side',
+    coordination: { edition },
+    source: { kind: 'utility', id: 'U', bus: 'A', max: { available: '30 kA', xr: 6 } },
+    buses: [
+      { id: 'A', voltage: 480 },
+      { id: 'P', voltage: 480 },
+      { id: 'L', voltage: 480 },
+    ],
+    cables: [
+      { id: 'C1', from: 'A', to: 'P', size: '500 kcmil', sets: 2, length: 100 },
+      { id: 'C2', from: 'P', to: 'L', size: '4/0', length: 50 },
+    ],
+    devices: [
+      {
+        id: 'FE',
+        feeds: 'C1',
+        system: 'emergency',
+        characteristic: tripUnit(800, { shortTime: { pickup: 4, delay: 0.4 } }),
+      },
+      { id: 'PM', feeds: 'P', characteristic: tripUnit(400, { shortTime: { pickup: 4, delay: 0.2 } }) },
+      { id: 'BR', feeds: 'C2', characteristic: tripUnit(225, { shortTime: { pickup: 4, delay: 0.2 } }) },
+    ],
+  };
+}
+
+describe('NFPA 70 (2023) 700.32(A): selective with the load-side devices too', () => {
+  const codeFinding = (input: StudyInput) =>
+    analyseScenarios(parseStudy(input)).findings.find((f) => f.id === 'code-selectivity:FE')!;
+
+  it('names a pair on the load side of the emergency feeder that overlaps, in the 2023 edition', () => {
+    const finding = codeFinding(loadSideStudy('2023'));
+    expect(finding.severity).toBe('fail');
+    expect(finding.explanation).toMatch(/must be selectively coordinated with every supply-side and load-side device/);
+    expect(finding.explanation).toMatch(/Normal: PM and BR \(on the load side of FE\) overlap from /);
+    // FE over PM, the main of the panel FE alone supplies, is left to the Exception.
+    expect(finding.explanation).toMatch(/Not asked of FE over PM: the Exception to 700\.32/);
+  });
+
+  it('asks only the supply side before the 2023 edition: of FE, at the top of its tree, nothing', () => {
+    expect(codeFinding(loadSideStudy('2020'))).toBeUndefined();
   });
 });

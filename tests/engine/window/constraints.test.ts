@@ -257,3 +257,55 @@ const SINGLE_PHASE_ON_GENERATOR: StudyInput = {
     },
   ],
 };
+
+/**
+ * A feeder F (instantaneous 10 × 400 A) supplies, by cable, panel P alone; its main PM, marked emergency,
+ * feeds branch breaker BR, marked `below` (emergency, or an elevator circuit). Invented settings.
+ */
+function seriesStudy(below: 'emergency' | 'elevator'): StudyInput {
+  const tripUnit = (sensor: number, more: Record<string, unknown>) => ({
+    kind: 'trip-unit' as const,
+    sensor,
+    longTime: { pickup: 1, delay: 10 },
+    ...more,
+  });
+  return {
+    discern: 1,
+    name: 'a feeder over the one main it supplies',
+    source: { kind: 'utility', id: 'U', bus: 'A', max: { available: '30 kA', xr: 6 } },
+    buses: [
+      { id: 'A', voltage: 480 },
+      { id: 'P', voltage: 480 },
+      { id: 'L', voltage: 480 },
+    ],
+    cables: [
+      { id: 'C1', from: 'A', to: 'P', size: '500 kcmil', length: 100 },
+      { id: 'C2', from: 'P', to: 'L', size: '1 AWG', length: 50 },
+    ],
+    devices: [
+      { id: 'F', feeds: 'C1', characteristic: tripUnit(400, { instantaneous: { pickup: 10 } }) },
+      {
+        id: 'PM',
+        feeds: 'P',
+        system: 'emergency',
+        characteristic: tripUnit(400, { shortTime: { pickup: 4, delay: 0.3 } }),
+      },
+      { id: 'BR', feeds: 'C2', system: below, characteristic: tripUnit(100, { instantaneous: { pickup: 10 } }) },
+    ],
+  };
+}
+
+describe('constraintsOf: code selectivity over the devices below a pair', () => {
+  const labelOf = (input: StudyInput) => {
+    const trial = trialOf(parseStudy(input));
+    return constraintsOf(trial, 'F').find((c) => c.id === 'below:PM')!.label;
+  };
+
+  it('leaves the Exception’s pair (a feeder over the one main it supplies) to plain coordination, as the check does (NFPA 70 700.32)', () => {
+    expect(labelOf(seriesStudy('emergency'))).not.toMatch(/must be shown selective/);
+  });
+
+  it('asks it to be shown selective for an elevator circuit below it (NFPA 70 620.62 has no such Exception)', () => {
+    expect(labelOf(seriesStudy('elevator'))).toMatch(/must be shown selective, NFPA 70 700\.32, 620\.62/);
+  });
+});
