@@ -4,6 +4,7 @@ import type { Device, Study } from '../study/index.ts';
 import { AHJ_SELECTIVITY_SECONDS, SELECTIVITY_ARTICLE, type ScenarioPairs } from './codeSelectivity.ts';
 import { illustrativeSentence, isIllustrative } from './coordination.ts';
 import { nameOf } from './context.ts';
+import { inSeriesAlone } from './seriesException.ts';
 import type { Finding } from './finding.ts';
 
 /** The edition of NFPA 70 that brought in 240.11. */
@@ -13,15 +14,16 @@ const FROM_EDITION = '2023';
  * NFPA 70 (2023) 240.11: where one or more feeder devices must be selectively coordinated with a
  * service overcurrent device, every feeder device the service device supplies directly must be. A
  * device the study marks (emergency, legally required standby, critical operations, elevator) must be
- * selective with every supply-side device, so on a tree fed by the utility the feeder on its path just
- * below the service device must be; then so must each of that service device's other feeders. The
+ * selective with every supply-side device, so on a tree fed by the utility the feeder device on its path
+ * just below the service device must be (one that feeds a cable, transformer or bus, not a branch
+ * circuit's; not one the Exception for two devices in series leaves out); then so must every feeder device
+ * the service device supplies directly, that one included, each over its own range. The
  * service device is taken as a device with no device above it in a tree the utility feeds (the study's
  * utility source stands at the service point): the engineer confirms it. Each such pair is read as the
  * code-selectivity check reads the marked devices' own pairs (`codeSelectivityFindings`: an interval
  * classed "overlap" or "not provable from curves" is not shown selective, and with `codeSelectivity:
- * "above-0.1-s"` one is accepted where the feeder device clears within 0.1 s at its lowest current); the
- * pairs on a marked device's own path are left to its finding. One finding per service device, in the
- * 2023 edition only.
+ * "above-0.1-s"` one is accepted where the feeder device clears within 0.1 s at its lowest current). One
+ * finding per service device, in the 2023 edition only.
  *
  * @example serviceSelectivityFindings(study, [{ label: 'Normal', parts: [analysis] }])
  */
@@ -39,16 +41,20 @@ export function serviceSelectivityFindings(
       if (part.study.source.kind === 'generator') continue;
       const { network, pairs, bands } = part;
       const above = new Map(pairs.map((pair) => [pair.downstream, pair.upstream]));
-      // Each marked device's path up to its tree's top device, and the feeder on it just below the top.
-      const onMarkedPaths = new Set<string>();
+      // A feeder device (one that feeds a cable, transformer or bus; not a branch circuit's) sits on a marked
+      // device's path just below its tree's top device, which its article then asks it to be selective with
+      // (but for the Exception's two devices in series with no load in parallel).
+      const isFeeder = (device: Device) => network.elements.get(device.feeds)?.type !== 'motor';
       const requiredBy = new Map<string, { feeder: Device; marked: Device }>();
       for (const marked of study.devices) {
         if (!marked.system || !network.devices.has(marked.id)) continue;
         let down = marked.id;
-        for (let up = above.get(down); up !== undefined; down = up, up = above.get(down)) {
-          onMarkedPaths.add(`${up}|${down}`);
-          if (!above.has(up) && !requiredBy.has(up)) requiredBy.set(up, { feeder: network.devices.get(down)!, marked });
-        }
+        let up = above.get(down);
+        while (up !== undefined && above.has(up)) [down, up] = [up, above.get(up)];
+        if (up === undefined || requiredBy.has(up)) continue;
+        const feeder = network.devices.get(down)!;
+        const exempt = SELECTIVITY_ARTICLE[marked.system].seriesException && inSeriesAlone(network, up, down);
+        if (isFeeder(feeder) && !exempt) requiredBy.set(up, { feeder, marked });
       }
       for (const [serviceId, reason] of requiredBy) {
         const service = network.devices.get(serviceId)!;
@@ -69,8 +75,8 @@ export function serviceSelectivityFindings(
         }
         duty.checked.push(scenario.label);
         for (const pair of pairs) {
-          if (pair.upstream !== serviceId || onMarkedPaths.has(`${pair.upstream}|${pair.downstream}`)) continue;
           const feeder = network.devices.get(pair.downstream)!;
+          if (pair.upstream !== serviceId || !isFeeder(feeder)) continue;
           // The sheet's base: the feeders' own voltage, where their intervals are read.
           if (duty.feeders.size === 0) duty.referenceVolts = pair.cases[0]?.referenceVolts ?? duty.referenceVolts;
           duty.feeders.add(nameOf(feeder));
@@ -110,7 +116,7 @@ export function serviceSelectivityFindings(
       explanation:
         problems.length > 0
           ? `${why} Not shown: ${problems.join('; ')}. The authority having jurisdiction decides what selective coordination means where the work is done.`
-          : `${why} ${illustrative.size > 0 ? 'On their curves, ' : ''}${[...feeders].join(', ')} ${feeders.size > 1 ? 'are' : 'is'} selective with it in every scenario checked (${[...new Set(checked)].join(', ')}).${illustrative.size > 0 ? ` ${illustrativeSentence([...illustrative])}` : ''}`,
+          : `${why} ${illustrative.size > 0 ? 'On their curves, ' : ''}${[...feeders].join(', ')} ${feeders.size > 1 ? 'are' : 'is'} selective with it wherever it supplies ${feeders.size > 1 ? 'them' : 'it'} (scenarios checked: ${[...new Set(checked)].join(', ')}).${illustrative.size > 0 ? ` ${illustrativeSentence([...illustrative])}` : ''}`,
       suggestion:
         problems.length > 0
           ? "Separate the overlapping devices (raise or delay the service device, lower the feeder's instantaneous), or show selectivity from the manufacturers' tested selectivity tables."

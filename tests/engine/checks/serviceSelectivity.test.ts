@@ -79,14 +79,16 @@ describe('NFPA 70 (2023) 240.11 selective coordination of a service device’s f
     expect(finding.explanation).toMatch(
       /Not shown: Normal: MAIN and FDR-P overlap from 7200 A to .* at 480 V \(three-phase fault\)/,
     );
-    // The emergency feeder's own pair is its own finding's (NFPA 70 700.32), not named here again.
+    // The emergency feeder is read too, over its own range: selective here.
     expect(finding.explanation).not.toMatch(/MAIN and FDR-EM/);
   });
 
   it('holds where every other feeder is selective with the service main', () => {
     const finding = serviceFinding(serviceStudy(instantaneous))!;
     expect(finding.severity).toBe('ok');
-    expect(finding.explanation).toMatch(/FDR-P is selective with it in every scenario checked \(Normal\)\.$/);
+    expect(finding.explanation).toMatch(
+      /FDR-EM, FDR-P are selective with it wherever it supplies them \(scenarios checked: Normal\)\.$/,
+    );
   });
 
   it('accepts, with the study option "above-0.1-s", an overlap where the feeder clears within 0.1 s', () => {
@@ -101,5 +103,29 @@ describe('NFPA 70 (2023) 240.11 selective coordination of a service device’s f
   it('asks nothing before the 2023 edition, nor of a service with no marked system', () => {
     expect(serviceFinding(serviceStudy(sameDelay, { edition: '2020' }))).toBeUndefined();
     expect(serviceFinding(serviceStudy(sameDelay, { marked: false }))).toBeUndefined();
+  });
+
+  it('reads the emergency feeder itself against the service main over its own range', () => {
+    // Both feeders with the main's short-time delay: each overlaps it, the emergency one named too.
+    const input = serviceStudy(sameDelay);
+    input.devices![1].characteristic = sameDelay;
+    const finding = serviceFinding(input)!;
+    expect(finding.explanation).toMatch(/Normal: MAIN and FDR-EM overlap from /);
+    expect(finding.explanation).toMatch(/Normal: MAIN and FDR-P overlap from /);
+  });
+
+  it("is not brought in by a branch circuit's device, nor asks anything of one", () => {
+    // The marked device a motor's breaker on the service bus: a branch-circuit device, not a feeder device.
+    const input = serviceStudy(sameDelay);
+    input.motors = [{ id: 'M-FAN', bus: 'SWBD', hp: 20 }];
+    input.devices![1] = {
+      id: 'FAN-BR',
+      feeds: 'M-FAN',
+      system: 'emergency',
+      characteristic: tripUnit(100, { instantaneous: { pickup: 10 } }),
+    };
+    input.cables = input.cables!.filter((cable) => cable.id !== 'C-EM');
+    input.buses = input.buses!.filter((bus) => bus.id !== 'EMP');
+    expect(serviceFinding(input)).toBeUndefined();
   });
 });
