@@ -267,13 +267,25 @@ function abovesOf(part: Analysis): Map<string, string> {
 }
 const aboves = new WeakMap<Analysis, Map<string, string>>();
 
-/** Two devices in series that are not neighbours, checked as a pair is (`checkPair`), with their names. */
+/**
+ * Two devices in series that are not neighbours, checked as a pair is (`checkPair`), with their names;
+ * once per tree (a panel's marked devices share the pairs above it).
+ */
 function pairBetween(part: Analysis, upstreamId: string, downstreamId: string): Chain[number] {
-  const upstream = part.network.devices.get(upstreamId)!;
-  const downstream = part.network.devices.get(downstreamId)!;
-  const { check } = checkPair(part, { upstream, downstream }, part.study.coordination);
-  return Object.assign({}, check, { upstreamName: nameOf(upstream), downstreamName: nameOf(downstream) });
+  let byKey = betweens.get(part);
+  if (!byKey) betweens.set(part, (byKey = new Map()));
+  const key = `${upstreamId}\n${downstreamId}`;
+  let pair = byKey.get(key);
+  if (!pair) {
+    const upstream = part.network.devices.get(upstreamId)!;
+    const downstream = part.network.devices.get(downstreamId)!;
+    const { check } = checkPair(part, { upstream, downstream }, part.study.coordination);
+    pair = Object.assign({}, check, { upstreamName: nameOf(upstream), downstreamName: nameOf(downstream) });
+    byKey.set(key, pair);
+  }
+  return pair;
 }
+const betweens = new WeakMap<Analysis, Map<string, Chain[number]>>();
 
 /**
  * The pairs on the load side of a marked device: each device below it with the device just above it,
