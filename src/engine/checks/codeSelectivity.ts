@@ -72,6 +72,8 @@ export function codeSelectivityFindings(
     const problems: string[] = [];
     // The pairs the article's Exception leaves out (two devices in series, no load in parallel), by name.
     const exempt = new Set<string>();
+    // Whether any pair was checked in place of one the Exception leaves out.
+    let replaced = false;
     const checked: string[] = [];
     const failing: string[] = [];
     // The devices whose illustrative curves the verdict would rest on.
@@ -84,7 +86,11 @@ export function codeSelectivityFindings(
         // the pairs the article's Exception leaves out replaced by the pairs they stand for (`withException`).
         const supplySide = upstreamChain(part, device.id);
         if (supplySide.length > 0) checked.push(scenario.label);
-        const chain = seriesException ? withException(part, supplySide, exempt) : supplySide;
+        const kept = seriesException
+          ? withException(part, supplySide, exempt, chainLowerOf(part, supplySide))
+          : { pairs: supplySide, replaced: false };
+        const chain = kept.pairs;
+        replaced ||= kept.replaced;
         for (const id of [device.id, ...chain.map((pair) => pair.upstream)]) {
           const each = part.network.devices.get(id)!;
           if (isIllustrative(each)) illustrative.add(nameOf(each));
@@ -115,13 +121,20 @@ export function codeSelectivityFindings(
             }
           }
         if (loadSide) {
-          const below = withException(part, loadSidePairs(part, device.id, marked), exempt);
+          const loadLinks = loadSidePairs(part, device.id, marked);
+          const keptBelow = seriesException
+            ? withException(part, loadLinks, exempt, treeLowerOf(part))
+            : { pairs: loadLinks, replaced: false };
+          const below = keptBelow.pairs;
+          replaced ||= keptBelow.replaced;
           if (below.length > 0 && supplySide.length === 0) checked.push(scenario.label);
           for (const pair of below) {
             const each = part.network.devices.get(pair.downstream)!;
             if (isIllustrative(each)) illustrative.add(nameOf(each));
           }
-          for (const pair of below)
+          for (const pair of below) {
+            const side = `(${pair.downstreamName} on the load side of ${nameOf(device)})`;
+            let shown = false;
             for (const fault of pair.cases)
               for (const interval of fault.intervals) {
                 if (interval.status === 'selective' || interval.status === 'thin margin') continue;
@@ -130,11 +143,20 @@ export function codeSelectivityFindings(
                 const clears = part.bands.get(pair.downstream)?.maxTime(interval.fromAmps) ?? Infinity;
                 if (option === 'above-0.1-s' && clears <= AHJ_SELECTIVITY_SECONDS) continue;
                 failing.push(scenario.label);
+                shown = true;
                 referenceVolts ||= fault.referenceVolts;
                 problems.push(
-                  `${scenario.label}: ${pair.upstreamName} and ${pair.downstreamName} (on the load side of ${nameOf(device)}) ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
+                  `${scenario.label}: ${pair.upstreamName} and ${pair.downstreamName} ${side} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
                 );
               }
+            if (shown) continue;
+            // On a generator, the pair on the decaying current of a fault at the load-side device's bus too.
+            const lower = part.network.devices.get(pair.downstream)!;
+            const at = locationBusOf(part.network, lower);
+            const decaying = decayProblems(part, lower, [pair], at, option === 'above-0.1-s', decayTimes);
+            if (decaying.length > 0) failing.push(scenario.label);
+            problems.push(...decaying.map((problem) => `${scenario.label}: ${side} ${problem}`));
+          }
         }
         const unproven = chain.filter((pair) => !wanting.has(pair.upstream));
         const decaying = decayProblems(part, device, unproven, here, option === 'above-0.1-s', decayTimes);
@@ -149,7 +171,7 @@ export function codeSelectivityFindings(
     const sides = loadSide ? 'supply-side and load-side' : 'supply-side';
     const exception =
       exempt.size > 0
-        ? ` Not asked of ${[...exempt].join(', ')}: the Exception to ${article} (two devices in series with no load connected in parallel with the downstream device: as modelled, each downstream device named is the main of the bus that its upstream device's transformer or cable alone supplies), each upper device checked instead with the devices below the lower one. Confirm that no load is tapped between them.`
+        ? ` Not asked of ${[...exempt].join(', ')}: the Exception to ${article} (two devices in series with no load connected in parallel with the downstream device: as modelled, each downstream device named is the main of the bus that its upstream device's transformer or cable alone supplies)${replaced ? ', the two standing as one with the devices above and below them' : ''}. Confirm that no load is tapped between them.`
         : '';
     const authority =
       'The authority having jurisdiction decides what selective coordination means where the work is done; some accept it above 0.1 s only.';
@@ -234,30 +256,95 @@ type Chain = ReturnType<typeof upstreamChain>;
  * The pairs a selectivity requirement asks for along `links` (pairs of a device and the device just above
  * it), with the Exception for two devices in series with no load in parallel with the downstream one
  * (`inSeriesAlone`): such a link is not asked for (its name goes to `exempt`), but the two devices serve
- * the same loads, so the upper one must be selective with whatever the lower one must: for each link kept,
- * every device joined to its upstream device from above by such links is paired with its downstream
- * device too (a transformer's primary relay with the feeders under the one secondary main). Leaving the
- * link out alone would break the chain by which selective pairs make a selective path.
+ * the same loads and stand as one. So for each link kept, every device joined to its upstream device from
+ * above by such links is paired with its downstream device and with every device joined to that one from
+ * below (`lowerOf`: on the supply side, down the marked device's path to it; on the load side, down the
+ * tree) — a transformer's primary relay with the feeders under its one secondary main, a service main with
+ * a marked panel main its feeder alone supplies. Leaving the link out alone would break the chain by which
+ * selective pairs make a selective path. `replaced` says whether any pair was made so.
  */
-function withException(part: Analysis, links: Chain, exempt: Set<string>): Chain {
+function withException(
+  part: Analysis,
+  links: Chain,
+  exempt: Set<string>,
+  lowerOf: (deviceId: string) => readonly string[],
+): { pairs: Chain; replaced: boolean } {
   const aboveOf = abovesOf(part);
   const alone = (upstream: string, downstream: string) => inSeriesAlone(part.network, upstream, downstream);
   const pairs: Chain = [];
+  let replaced = false;
   for (const link of links) {
     if (alone(link.upstream, link.downstream)) {
       exempt.add(`${link.upstreamName} over ${link.downstreamName}`);
       continue;
     }
-    pairs.push(link);
+    const uppers = [link.upstream];
     for (
-      let lower = link.upstream, upper = aboveOf.get(lower);
-      upper !== undefined && alone(upper, lower);
-      lower = upper, upper = aboveOf.get(lower)
+      let upper = aboveOf.get(link.upstream);
+      upper !== undefined && alone(upper, uppers.at(-1)!);
+      upper = aboveOf.get(upper)
     )
-      pairs.push(pairBetween(part, upper, link.downstream));
+      uppers.push(upper);
+    for (const upper of uppers)
+      for (const lower of lowerOf(link.downstream)) {
+        const same = upper === link.upstream && lower === link.downstream;
+        if (!same) replaced = true;
+        pairs.push(same ? link : pairBetween(part, upper, lower));
+      }
   }
-  return pairs;
+  return { pairs, replaced };
 }
+
+/**
+ * On a supply-side chain (nearest first, from the marked device up), each device's group below it: itself
+ * and the devices joined to it from below by links the Exception leaves out, down to the marked device.
+ */
+function chainLowerOf(part: Analysis, chain: Chain): (deviceId: string) => readonly string[] {
+  const groups = new Map<string, string[]>();
+  let group = chain.length > 0 ? [chain[0].downstream] : [];
+  for (const link of chain) {
+    groups.set(link.downstream, group);
+    group = inSeriesAlone(part.network, link.upstream, link.downstream) ? [link.upstream, ...group] : [link.upstream];
+  }
+  return (deviceId) => groups.get(deviceId) ?? [deviceId];
+}
+
+/**
+ * On the load side, a device's group below it: itself and the device (at most one) each joins from below
+ * by a link the Exception leaves out (the main of the bus its transformer or cable alone supplies).
+ */
+function treeLowerOf(part: Analysis): (deviceId: string) => readonly string[] {
+  const belowOf = belowsOf(part);
+  return (deviceId) => {
+    const group = [deviceId];
+    for (let found = true; found;) {
+      found = false;
+      for (const pair of belowOf.get(group.at(-1)!) ?? [])
+        if (inSeriesAlone(part.network, pair.upstream, pair.downstream)) {
+          group.push(pair.downstream);
+          found = true;
+          break;
+        }
+    }
+    return group;
+  };
+}
+
+/** Each device's pairs with the devices just below it, by its id (worked out once per tree). */
+function belowsOf(part: Analysis): Map<string, Analysis['pairs']> {
+  let belowOf = belows.get(part);
+  if (!belowOf) {
+    belowOf = new Map();
+    for (const pair of part.pairs) {
+      const list = belowOf.get(pair.upstream);
+      if (list) list.push(pair);
+      else belowOf.set(pair.upstream, [pair]);
+    }
+    belows.set(part, belowOf);
+  }
+  return belowOf;
+}
+const belows = new WeakMap<Analysis, Map<string, Analysis['pairs']>>();
 
 /** Each device's nearest device above in a tree, by id, from its pairs (worked out once per tree). */
 function abovesOf(part: Analysis): Map<string, string> {
@@ -266,6 +353,14 @@ function abovesOf(part: Analysis): Map<string, string> {
   return aboveOf;
 }
 const aboves = new WeakMap<Analysis, Map<string, string>>();
+
+/** Each device's pair with the device just above it, by its id (once per tree: a study marks thousands). */
+function pairsAboveOf(part: Analysis): Map<string, Analysis['pairs'][number]> {
+  let pairAbove = pairsAbove.get(part);
+  if (!pairAbove) pairsAbove.set(part, (pairAbove = new Map(part.pairs.map((pair) => [pair.downstream, pair]))));
+  return pairAbove;
+}
+const pairsAbove = new WeakMap<Analysis, Map<string, Analysis['pairs'][number]>>();
 
 /**
  * Two devices in series that are not neighbours, checked as a pair is (`checkPair`), with their names;
@@ -293,12 +388,7 @@ const betweens = new WeakMap<Analysis, Map<string, Chain[number]>>();
  */
 function loadSidePairs(part: Analysis, deviceId: string, marked: ReadonlySet<string>): Chain {
   const pairs: Chain = [];
-  const below = new Map<string, Analysis['pairs']>();
-  for (const pair of part.pairs) {
-    const list = below.get(pair.upstream);
-    if (list) list.push(pair);
-    else below.set(pair.upstream, [pair]);
-  }
+  const below = belowsOf(part);
   const pending = [deviceId];
   while (pending.length > 0) {
     for (const pair of below.get(pending.pop()!) ?? []) {
@@ -318,9 +408,10 @@ type DecayTimes = Map<Analysis, Map<string, ReturnType<typeof decrementTimesOf>>
 // Accepts an analysed tree and a device; its pairs with each device above it, nearest first.
 function upstreamChain(part: Analysis, deviceId: string) {
   const pairs: (Analysis['pairs'][number] & { upstreamName: string; downstreamName: string })[] = [];
+  const pairAbove = pairsAboveOf(part);
   let down = deviceId;
   for (;;) {
-    const pair = part.pairs.find((p) => p.downstream === down);
+    const pair = pairAbove.get(down);
     if (!pair) return pairs;
     const upstream = part.network.devices.get(pair.upstream)!;
     // `Object.assign`, not a spread followed by a new field (which gives each object a hidden class of its own in V8).

@@ -359,9 +359,10 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
   // A pair on the supply side of a device of an emergency (or like) system must be shown selective: curves
   // that cannot prove it do not do; but for a pair every such article's Exception leaves out (two devices in
   // series, no load in parallel), which an elevator circuit's (620.62) does not.
-  const articles = markedAtOrBelow(trial, downId).map((system) => SELECTIVITY_ARTICLE[system]);
-  const exempt =
-    articles.every((article) => article.seriesException) && inSeriesAlone(trial.network, upId, downId);
+  const articles = [...markedAtOrBelow(trial, downId), ...loadSideOf(trial, upId)].map(
+    (system) => SELECTIVITY_ARTICLE[system],
+  );
+  const exempt = articles.every((article) => article.seriesException) && inSeriesAlone(trial.network, upId, downId);
   const code = articles.length > 0 && !exempt ? [...new Set(articles.map((a) => a.article))].join(', ') : undefined;
   const fullRange = trial.settings.codeSelectivity === 'full-range';
   return {
@@ -402,6 +403,18 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
       return { ok, clean: ok && clean, margin, unit: 's', text };
     },
   };
+}
+
+/**
+ * In the 2023 edition, the emergency systems a device is at or below: NFPA 70 (2023) 700.32(A) asks their
+ * devices to be selective with their load-side devices too.
+ */
+function loadSideOf(trial: Trial, deviceId: string): NonNullable<Device['system']>[] {
+  if (trial.settings.edition !== '2023') return [];
+  const systems: NonNullable<Device['system']>[] = [];
+  for (let id: string | undefined = deviceId; id !== undefined; id = trial.aboveOf.get(id))
+    if (trial.deviceOf(id).system === 'emergency') systems.push('emergency');
+  return systems;
 }
 
 /** The systems marked on a device and on every device below it (those whose supply side it is on). */

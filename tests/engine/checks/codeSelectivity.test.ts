@@ -108,6 +108,19 @@ describe('NFPA 70 700.32 selective coordination', () => {
         coordination: codeSelectivity ? { codeSelectivity } : undefined,
       });
 
+    it('reads a load-side pair on the decaying current too, in the 2023 edition (NFPA 70 700.32(A))', () => {
+      // The same pair with the fuse marked instead: the breaker is on its load side.
+      const study = generatorPairStudy(UP_FUSE, tripUnit(400, { shortTime: { pickup: 6, delay: 0.3 } }), {
+        coordination: { edition: '2023' },
+      });
+      study.devices![0] = { ...study.devices![0], system: 'emergency' };
+      const code = analyseScenarios(parseStudy(study)).findings.find((f) => f.id === 'code-selectivity:UP')!;
+      expect(code.severity).toBe('fail');
+      expect(code.explanation).toMatch(
+        /Not shown: Normal: \(DOWN on the load side of UP\) on the generator's decaying current \(a fault at GEN /,
+      );
+    });
+
     it('fails a pair that no constant current shows overlapping, where the upstream fuse gains while the short time resets', () => {
       const { findings } = analyseScenarios(parseStudy(generatorStudy()));
       const pair = findings.filter((f) => f.kind === 'coordination');
@@ -256,6 +269,33 @@ function loadSideStudy(edition: '2020' | '2023'): StudyInput {
   };
 }
 
+describe('the Exception with the marked device below it', () => {
+  it('pairs the device above the exempt link with the marked main itself, not only with its feeder', () => {
+    // Service main SM (short-time 4 × 2000 A at 0.3 s) over feeder F (instantaneous 10 × 400 A), which alone
+    // supplies panel P, whose main PM is marked (short-time 4 × 400 A at 0.3 s, no instantaneous). F over PM
+    // is left out; SM over F is selective; SM over PM, which the article asks for, overlaps from 7.2 kA
+    // (SM's short-time pickup less 10 %). Invented settings.
+    const input = panelMainStudy('emergency');
+    input.devices = [
+      { id: 'SM', feeds: 'A', characteristic: tripUnit(2000, { shortTime: { pickup: 4, delay: 0.3 } }) },
+      { id: 'F', feeds: 'C1', characteristic: tripUnit(400, { instantaneous: { pickup: 10 } }) },
+      {
+        id: 'PM',
+        feeds: 'P',
+        system: 'emergency',
+        characteristic: tripUnit(400, { shortTime: { pickup: 4, delay: 0.3 } }),
+      },
+    ];
+    input.cables = input.cables!.filter((cable) => cable.id === 'C1');
+    input.buses = input.buses!.filter((bus) => bus.id !== 'L');
+    const finding = analyseScenarios(parseStudy(input)).findings.find((f) => f.id === 'code-selectivity:PM')!;
+    expect(finding.severity).toBe('fail');
+    expect(finding.explanation).toMatch(/Normal: SM and PM overlap from 7200 A to /);
+    expect(finding.explanation).not.toMatch(/SM and F /);
+    expect(finding.explanation).toMatch(/Not asked of F over PM: the Exception to 700\.32 /);
+  });
+});
+
 describe('NFPA 70 (2023) 700.32(A): selective with the load-side devices too', () => {
   const codeFinding = (input: StudyInput) =>
     analyseScenarios(parseStudy(input)).findings.find((f) => f.id === 'code-selectivity:FE')!;
@@ -264,7 +304,7 @@ describe('NFPA 70 (2023) 700.32(A): selective with the load-side devices too', (
     const finding = codeFinding(loadSideStudy('2023'));
     expect(finding.severity).toBe('fail');
     expect(finding.explanation).toMatch(/must be selectively coordinated with every supply-side and load-side device/);
-    expect(finding.explanation).toMatch(/Normal: PM and BR \(on the load side of FE\) overlap from /);
+    expect(finding.explanation).toMatch(/Normal: PM and BR \(BR on the load side of FE\) overlap from /);
     // FE over PM, the main of the panel FE alone supplies, is left to the Exception.
     expect(finding.explanation).toMatch(/Not asked of FE over PM: the Exception to 700\.32/);
   });

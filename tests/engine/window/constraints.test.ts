@@ -309,3 +309,17 @@ describe('constraintsOf: code selectivity over the devices below a pair', () => 
     expect(labelOf(seriesStudy('elevator'))).toMatch(/must be shown selective, NFPA 70 700\.32, 620\.62/);
   });
 });
+
+describe('constraintsOf: the load side of an emergency device (NFPA 70 (2023) 700.32(A))', () => {
+  it('asks a pair below an emergency device to be shown selective in the 2023 edition, not before', () => {
+    const input = seriesStudy('emergency');
+    // PM alone marked: BR on its load side.
+    input.devices![2] = { ...input.devices![2], system: undefined };
+    const labelOf = (edition: '2020' | '2023') => {
+      const trial = trialOf(parseStudy({ ...input, coordination: { edition } }));
+      return constraintsOf(trial, 'PM').find((c) => c.id === 'below:BR')!.label;
+    };
+    expect(labelOf('2023')).toMatch(/must be shown selective, NFPA 70 700\.32/);
+    expect(labelOf('2020')).not.toMatch(/must be shown selective/);
+  });
+});
