@@ -4,6 +4,7 @@ import { analyseScenarios } from '../../../src/engine/scenario/index.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { assertInDelta } from '../../asserts.ts';
 import { generatorPairStudy, standbySource } from '../generator/fixtures.ts';
+import { panelStudy } from './panelFixtures.ts';
 
 const tripUnit = (sensor: number, shortOrInstantaneous: Record<string, unknown>) => ({
   kind: 'trip-unit' as const,
@@ -184,25 +185,11 @@ describe('NFPA 70 700.32 selective coordination', () => {
  */
 function panelMainStudy(system: 'emergency' | 'elevator'): StudyInput {
   const sameAsFeeder = tripUnit(400, { shortTime: { pickup: 4, delay: 0.3 } });
-  return {
-    discern: 1,
-    name: 'a feeder and the main of the panel it alone supplies',
-    source: { kind: 'utility', id: 'U', bus: 'A', max: { available: '30 kA', xr: 6 } },
-    buses: [
-      { id: 'A', voltage: 480 },
-      { id: 'P', voltage: 480 },
-      { id: 'L', voltage: 480 },
-    ],
-    cables: [
-      { id: 'C1', from: 'A', to: 'P', size: '500 kcmil', length: 100 },
-      { id: 'C2', from: 'P', to: 'L', size: '1 AWG', length: 50 },
-    ],
-    devices: [
-      { id: 'F', feeds: 'C1', characteristic: sameAsFeeder },
-      { id: 'PM', feeds: 'P', characteristic: sameAsFeeder },
-      { id: 'BR', feeds: 'C2', system, characteristic: tripUnit(100, { instantaneous: { pickup: 10 } }) },
-    ],
-  };
+  return panelStudy('a feeder and the main of the panel it alone supplies', {
+    F: { characteristic: sameAsFeeder },
+    PM: { characteristic: sameAsFeeder },
+    BR: { system, characteristic: tripUnit(100, { instantaneous: { pickup: 10 } }) },
+  });
 }
 
 describe('the Exception for two devices in series with no load in parallel with the downstream one', () => {

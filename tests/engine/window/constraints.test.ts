@@ -3,6 +3,7 @@ import { analyseStudy } from '../../../src/engine/analysis.ts';
 import { parseStudy, type StudyInput } from '../../../src/engine/study/index.ts';
 import { constraintsOf, trialOf } from '../../../src/engine/window/index.ts';
 import { assertInDelta } from '../../asserts.ts';
+import { panelStudy, tripUnit } from '../checks/panelFixtures.ts';
 import { standbyChainStudy, standbySource } from '../generator/fixtures.ts';
 
 /**
@@ -263,36 +264,11 @@ const SINGLE_PHASE_ON_GENERATOR: StudyInput = {
  * feeds branch breaker BR, marked `below` (emergency, or an elevator circuit). Invented settings.
  */
 function seriesStudy(below: 'emergency' | 'elevator'): StudyInput {
-  const tripUnit = (sensor: number, more: Record<string, unknown>) => ({
-    kind: 'trip-unit' as const,
-    sensor,
-    longTime: { pickup: 1, delay: 10 },
-    ...more,
+  return panelStudy('a feeder over the one main it supplies', {
+    F: { characteristic: tripUnit(400, { instantaneous: { pickup: 10 } }) },
+    PM: { system: 'emergency', characteristic: tripUnit(400, { shortTime: { pickup: 4, delay: 0.3 } }) },
+    BR: { system: below, characteristic: tripUnit(100, { instantaneous: { pickup: 10 } }) },
   });
-  return {
-    discern: 1,
-    name: 'a feeder over the one main it supplies',
-    source: { kind: 'utility', id: 'U', bus: 'A', max: { available: '30 kA', xr: 6 } },
-    buses: [
-      { id: 'A', voltage: 480 },
-      { id: 'P', voltage: 480 },
-      { id: 'L', voltage: 480 },
-    ],
-    cables: [
-      { id: 'C1', from: 'A', to: 'P', size: '500 kcmil', length: 100 },
-      { id: 'C2', from: 'P', to: 'L', size: '1 AWG', length: 50 },
-    ],
-    devices: [
-      { id: 'F', feeds: 'C1', characteristic: tripUnit(400, { instantaneous: { pickup: 10 } }) },
-      {
-        id: 'PM',
-        feeds: 'P',
-        system: 'emergency',
-        characteristic: tripUnit(400, { shortTime: { pickup: 4, delay: 0.3 } }),
-      },
-      { id: 'BR', feeds: 'C2', system: below, characteristic: tripUnit(100, { instantaneous: { pickup: 10 } }) },
-    ],
-  };
 }
 
 describe('constraintsOf: code selectivity over the devices below a pair', () => {
