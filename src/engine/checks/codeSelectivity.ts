@@ -10,7 +10,8 @@ import type { Finding } from './finding.ts';
 
 /**
  * The NFPA 70 article that asks each kind of system for selective coordination, and whether it carries
- * the Exception for two devices in series with no load in parallel with the downstream one (`inSeriesAlone`).
+ * the Exception for two devices in series with no load in parallel with the downstream one (`inSeriesAlone`:
+ * 708.54's wording confirmed in a public reproduction of the code text, 700.32's and 701.32's from memory).
  */
 export const SELECTIVITY_ARTICLE: Record<
   NonNullable<Device['system']>,
@@ -41,7 +42,9 @@ export interface ScenarioPairs {
  * over the full range of available fault currents. A chain of selective pairs is selective, so the
  * marked device's pair and each pair above it up to the source are checked, every fault case, at
  * the currents a fault in the marked device's zone drives through them (up to the largest fault at
- * its bus, referred to each pair's voltage). An
+ * its bus, referred to each pair's voltage); a pair the article's Exception leaves out is named, and the
+ * device above it paired with the devices below instead (`withException`). In the 2023 edition an
+ * emergency device is also read against the devices on its load side (700.32(A), `loadSidePairs`). An
  * interval classed "overlap" or "not provable from curves" is not shown selective (a selectivity
  * table from the manufacturers may show it is, but the curves cannot). With the study option
  * `codeSelectivity: "above-0.1-s"` an interval is accepted where the downstream device clears within
@@ -62,7 +65,8 @@ export function codeSelectivityFindings(
   const option = study.coordination.codeSelectivity;
   const findings: Finding[] = [];
   const decayTimes: DecayTimes = new Map();
-  const marked = new Set(study.devices.filter((device) => device.system).map((device) => device.id));
+  // The emergency devices, whose own findings read their load sides (2023).
+  const emergency = new Set(study.devices.filter((device) => device.system === 'emergency').map((d) => d.id));
   for (const device of study.devices) {
     if (!device.system) continue;
     const { article, system, seriesException } = SELECTIVITY_ARTICLE[device.system];
@@ -121,7 +125,7 @@ export function codeSelectivityFindings(
             }
           }
         if (loadSide) {
-          const loadLinks = loadSidePairs(part, device.id, marked);
+          const loadLinks = loadSidePairs(part, device.id, emergency);
           const keptBelow = seriesException
             ? withException(part, loadLinks, exempt, treeLowerOf(part))
             : { pairs: loadLinks, replaced: false };
@@ -155,7 +159,9 @@ export function codeSelectivityFindings(
             const at = locationBusOf(part.network, lower);
             const decaying = decayProblems(part, lower, [pair], at, option === 'above-0.1-s', decayTimes);
             if (decaying.length > 0) failing.push(scenario.label);
-            problems.push(...decaying.map((problem) => `${scenario.label}: ${side} ${problem}`));
+            problems.push(
+              ...decaying.map((problem) => `${scenario.label}: on the load side of ${nameOf(device)}, ${problem}`),
+            );
           }
         }
         const unproven = chain.filter((pair) => !wanting.has(pair.upstream));
@@ -171,7 +177,7 @@ export function codeSelectivityFindings(
     const sides = loadSide ? 'supply-side and load-side' : 'supply-side';
     const exception =
       exempt.size > 0
-        ? ` Not asked of ${[...exempt].join(', ')}: the Exception to ${article} (two devices in series with no load connected in parallel with the downstream device: as modelled, each downstream device named is the main of the bus that its upstream device's transformer or cable alone supplies)${replaced ? ', the two standing as one with the devices above and below them' : ''}. Confirm that no load is tapped between them.`
+        ? ` Not asked of ${[...exempt].join(', ')}: the Exception to ${article} (two devices in series with no load connected in parallel with the downstream device: as modelled, each downstream device named is the main of the bus that its upstream device's transformer or cable alone supplies)${replaced ? ', the two standing as one with the devices above and below them' : ''}. Confirm that no load is tapped between them.${article === '708.54' ? '' : ` The Exception's wording for ${article} is recalled here, not quoted: check it against the edition you work to.`}`
         : '';
     const authority =
       'The authority having jurisdiction decides what selective coordination means where the work is done; some accept it above 0.1 s only.';
@@ -383,16 +389,17 @@ function pairBetween(part: Analysis, upstreamId: string, downstreamId: string): 
 const betweens = new WeakMap<Analysis, Map<string, Chain[number]>>();
 
 /**
- * The pairs on the load side of a marked device: each device below it with the device just above it,
- * down to the devices marked themselves, whose own findings read their pairs (above and below).
+ * The pairs on the load side of an emergency device: each device below it with the device just above it,
+ * down to the emergency devices below, whose own findings read their pairs above and below (a device of
+ * another system marked below is passed through: its finding reads only its supply side).
  */
-function loadSidePairs(part: Analysis, deviceId: string, marked: ReadonlySet<string>): Chain {
+function loadSidePairs(part: Analysis, deviceId: string, emergency: ReadonlySet<string>): Chain {
   const pairs: Chain = [];
   const below = belowsOf(part);
   const pending = [deviceId];
   while (pending.length > 0) {
     for (const pair of below.get(pending.pop()!) ?? []) {
-      if (marked.has(pair.downstream)) continue;
+      if (emergency.has(pair.downstream)) continue;
       const upstreamName = nameOf(part.network.devices.get(pair.upstream)!);
       const downstreamName = nameOf(part.network.devices.get(pair.downstream)!);
       pairs.push(Object.assign({}, pair, { upstreamName, downstreamName }));

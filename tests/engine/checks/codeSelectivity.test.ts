@@ -118,7 +118,7 @@ describe('NFPA 70 700.32 selective coordination', () => {
       const code = analyseScenarios(parseStudy(study)).findings.find((f) => f.id === 'code-selectivity:UP')!;
       expect(code.severity).toBe('fail');
       expect(code.explanation).toMatch(
-        /Not shown: Normal: \(DOWN on the load side of UP\) on the generator's decaying current \(a fault at GEN /,
+        /Not shown: Normal: on the load side of UP, on the generator's decaying current \(a fault at GEN /,
       );
     });
 
@@ -294,6 +294,12 @@ describe('NFPA 70 (2023) 700.32(A): selective with the load-side devices too', (
     expect(finding.explanation).toMatch(/Normal: PM and BR \(BR on the load side of FE\) overlap from /);
     // FE over PM, the main of the panel FE alone supplies, is left to the Exception.
     expect(finding.explanation).toMatch(/Not asked of FE over PM: the Exception to 700\.32/);
+  });
+
+  it('reads on through a device of another system below it, whose own finding reads only its supply side', () => {
+    const input = loadSideStudy('2023');
+    input.devices![1] = { ...input.devices![1], system: 'elevator' };
+    expect(codeFinding(input).explanation).toMatch(/Normal: PM and BR \(BR on the load side of FE\) overlap from /);
   });
 
   it('asks only the supply side before the 2023 edition: of FE, at the top of its tree, nothing', () => {
