@@ -103,8 +103,9 @@ export function serviceSelectivityFindings(
     : 'over the full range of available fault currents';
   const findings: Finding[] = [];
   for (const { service, reason, referenceVolts, problems, failing, checked, feeders, illustrative } of owed.values()) {
-    // A service device that supplies no feeder but the marked path's own has nothing more to show.
-    if (feeders.size === 0) continue;
+    // A service device that supplies no feeder but the one on the marked path adds nothing to that
+    // device's own finding.
+    if (feeders.size === 1 && feeders.has(nameOf(reason.feeder))) continue;
     const { system } = SELECTIVITY_ARTICLE[reason.marked.system!];
     const why = `${nameOf(reason.feeder)} must be selectively coordinated with ${nameOf(service)}, since ${nameOf(reason.marked)} (${system}) must be selective with every supply-side device; NFPA 70 (2023) 240.11 then asks the same of every feeder device ${nameOf(service)} supplies directly, ${scope}. ${nameOf(service)} is taken as the service overcurrent device: it has no device above it in the utility's tree (confirm that the study's utility source stands at the service point).`;
     findings.push({
@@ -139,7 +140,7 @@ interface ServiceDuty {
   problems: string[];
   failing: string[];
   checked: string[];
-  /** The names of the feeder devices checked, those on marked paths aside. */
+  /** The names of the feeder devices checked, the one on the marked path included. */
   feeders: Set<string>;
   illustrative: Set<string>;
 }

@@ -114,7 +114,7 @@ describe('NFPA 70 (2023) 240.11 selective coordination of a service device’s f
     expect(finding.explanation).toMatch(/Normal: MAIN and FDR-P overlap from /);
   });
 
-  it("is not brought in by a branch circuit's device, nor asks anything of one", () => {
+  it("is not brought in by a branch circuit's device", () => {
     // The marked device a motor's breaker on the service bus: a branch-circuit device, not a feeder device.
     const input = serviceStudy(sameDelay);
     input.motors = [{ id: 'M-FAN', bus: 'SWBD', hp: 20 }];
