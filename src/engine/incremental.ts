@@ -63,6 +63,7 @@ export class AnalysisMemo {
       study.motors,
       study.generators,
       study.switches,
+      study.scenarios,
       study.conductorTemperatures,
       study.devices.map((device) => device.feeds),
     ]);

@@ -214,7 +214,7 @@ function scenarioBlocks(analysis: Analysis): ReportBlock[] {
       ? [
           {
             type: 'paragraph' as const,
-            text: `Devices marked as part of an emergency, legally required standby or critical operations system, or elevator circuits, are checked for selective coordination with every supply-side device in every scenario (NFPA 70 700.32, 701.32, 708.54, 620.62), ${study.coordination.codeSelectivity === 'above-0.1-s' ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")' : 'over the full range of available fault currents'}${study.coordination.edition === '2023' ? ', and the devices of an emergency system with their load-side devices too (NFPA 70 (2023) 700.32(A))' : ''}; two devices in series with no load connected in parallel with the downstream one (a feeder or transformer primary device over the one main it supplies, as modelled) are left out, as the Exception to 700.32, 701.32 and 708.54 leaves them, the upper device then checked with the devices below the main; on a generator also on its decaying current, for a fault at the marked device's bus.${study.coordination.edition === '2023' ? ' Following NFPA 70 (2023) 240.11, once a feeder device supplied directly by a service device must be selective with it, every feeder device that service device supplies directly is checked with it too; the service device is taken as one with no device above it in the utility’s tree.' : ''} The authority having jurisdiction decides what the requirement means where the work is done.`,
+            text: `Devices marked as part of an emergency, legally required standby or critical operations system, or elevator circuits, are checked for selective coordination with every supply-side device in every scenario (NFPA 70 700.32, 701.32, 708.54, 620.62), ${study.coordination.codeSelectivity === 'above-0.1-s' ? 'for faults lasting longer than 0.1 s (the study option "above-0.1-s")' : 'over the full range of available fault currents'}${study.coordination.edition === '2023' ? ', and the devices of an emergency system with their load-side devices too (NFPA 70 (2023) 700.32(A))' : ''}; two devices in series with no load connected in parallel with the downstream one (a feeder or transformer primary device over the one main it supplies, as modelled) are left out, as the Exception to 700.32, 701.32 and 708.54 leaves them (its wording for 700.32 and 701.32 recalled, not quoted), the upper device then checked with the devices below the main; on a generator also on its decaying current, for a fault at the marked device's bus.${study.coordination.edition === '2023' ? ' Following NFPA 70 (2023) 240.11, once a feeder device supplied directly by a service device must be selective with it, every feeder device that service device supplies directly is checked with it too; the service device is taken as one with no device above it in the utility’s tree.' : ''} The authority having jurisdiction decides what the requirement means where the work is done.`,
           },
         ]
       : []),
@@ -429,7 +429,7 @@ function conductorTemperatureText({ conductorTemperatures: { maximumFault, minim
       : `${maximumFault} °C for maximum fault (the study's setting)`;
   const minimum =
     minimumFault === MINIMUM_FAULT_TEMPERATURE
-      ? 'operating temperature (90 °C) for minimum fault'
-      : `${minimumFault} °C for minimum fault (the study's setting)`;
+      ? 'to operating temperature (90 °C) for minimum fault'
+      : `to ${minimumFault} °C for minimum fault (the study's setting)`;
   return `${maximum}, and ${minimum}`;
 }

@@ -81,6 +81,7 @@ describe('the study deliverable in the workbench', () => {
     await margin.fill('9');
     await margin.press('Tab');
     await expect.poll(() => margin.getAttribute('aria-invalid')).toBe('true');
+    await expect.poll(() => dialog.getByRole('alert').first().textContent()).toMatch(/at most 5, got "9"/);
     await margin.fill('0.2');
     await margin.press('Tab');
     await expect.poll(() => margin.getAttribute('aria-invalid')).toBe('false');

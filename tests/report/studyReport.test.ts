@@ -167,13 +167,13 @@ describe('the method section on conductor temperatures', () => {
 
   it("names the defaults with their sources, and a study's own temperatures as its setting", () => {
     expect(methodItems(detailed)).toMatch(
-      /taken to 20 °C for maximum fault, as IEC 60909-0 takes it for the maximum short-circuit currents, and operating temperature \(90 °C\) for minimum fault/,
+      /taken to 20 °C for maximum fault, as IEC 60909-0 takes it for the maximum short-circuit currents, and to operating temperature \(90 °C\) for minimum fault/,
     );
     const coldSite = demo('harrowmere-selective', (raw) => {
       raw.conductorTemperatures = { maximumFault: -10, minimumFault: 150 };
     });
     expect(methodItems(coldSite)).toMatch(
-      /taken to -10 °C for maximum fault \(the study's setting\), and 150 °C for minimum fault \(the study's setting\)/,
+      /taken to -10 °C for maximum fault \(the study's setting\), and to 150 °C for minimum fault \(the study's setting\)/,
     );
   });
 });

@@ -356,7 +356,8 @@ function coordination(trial: Trial, upId: string, downId: string, which: 'below'
   const ratio = `${rule.timeRatio * 100} % time ratio`;
   const separation =
     rule.timeRatio === 1 ? `${rule.margin} s margin` : rule.margin > 0 ? `${rule.margin} s margin, ${ratio}` : ratio;
-  // A pair on the supply side of a device of an emergency (or like) system must be shown selective: curves
+  // A pair on the supply side of a device of an emergency (or like) system, or in the 2023 edition on the
+  // load side of an emergency device, must be shown selective: curves
   // that cannot prove it do not do; but for a pair every such article's Exception leaves out (two devices in
   // series, no load in parallel), which an elevator circuit's (620.62) does not.
   const articles = [...markedAtOrBelow(trial, downId), ...loadSideOf(trial, upId)].map(

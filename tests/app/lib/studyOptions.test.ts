@@ -16,7 +16,7 @@ const listed = STUDY_OPTION_GROUPS.flatMap((group) => group.options.map((option)
 const demo = JSON.parse(readFileSync('demo/harrowmere-full.json', 'utf8'));
 
 describe('studyOptions', () => {
-  it('has the expected defaults: every option of the schema offered once, the two margin tables aside', () => {
+  it('has the expected defaults: every option of the schema offered, each once, the two margin tables aside', () => {
     const { properties } = STUDY_JSON_SCHEMA;
     const coordination = properties!.coordination.properties!;
     const expected = [
@@ -50,14 +50,16 @@ describe('studyOptions', () => {
     expect(startingMargin('trip-unit/thermal-magnetic')).toBe(0);
   });
 
-  it('starts a margin for one pair at the one its pair is checked with now', () => {
-    const network = networkOf(parseStudy(demo));
-    const kindOf = (id: string) => network.devices.get(id)!.characteristic.kind;
-    const relay = [...network.devices.keys()].find((id) => kindOf(id) === 'relay')!;
-    const breaker = [...network.devices.keys()].find((id) => kindOf(id) === 'trip-unit')!;
-    // A relay over an LV breaker: 0.2 s (IEEE 242 ch. 15) unless the relay or the study sets its own.
-    const own = network.devices.get(relay)!.margin ?? network.study.coordination.margins['relay/trip-unit'];
-    expect(startingPairMargin(network, relay, breaker)).toBe(own ?? 0.2);
+  it('starts a margin for one pair at the one its pair is checked with now: 0.2 s relay over LV breaker (IEEE 242 ch. 15), else the study’s own', () => {
+    // The full demo: relay R-T1 over the main MAIN, a series pair, with no margin set anywhere.
+    expect(startingPairMargin(networkOf(parseStudy(demo)), 'R-T1', 'MAIN')).toBe(0.2);
+    const ownKind = { ...demo, coordination: { margins: { 'relay/trip-unit': 0.35 } } };
+    expect(startingPairMargin(networkOf(parseStudy(ownKind)), 'R-T1', 'MAIN')).toBe(0.35);
+    const ownDevice = {
+      ...demo,
+      devices: demo.devices.map((d: { id: string }) => (d.id === 'R-T1' ? { ...d, margin: 0.4 } : d)),
+    };
+    expect(startingPairMargin(networkOf(parseStudy(ownDevice)), 'R-T1', 'MAIN')).toBe(0.4);
   });
 
   it('offers for one pair only a device with the device just above it, each pair once', () => {
