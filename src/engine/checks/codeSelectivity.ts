@@ -3,7 +3,7 @@ import { formatAmps, formatSeconds, formatVolts } from '../quantity/format.ts';
 import type { Bus, Device, Study } from '../study/index.ts';
 import { locationBusOf } from '../network/index.ts';
 import { decayText, decrementTimesOf, onElement, separationText } from './decrementCoordination.ts';
-import { checkPair, illustrativeSentence, isIllustrative } from './coordination.ts';
+import { checkPair, illustrativeSentence, isIllustrative, type PairCase } from './coordination.ts';
 import { nameOf } from './context.ts';
 import { inSeriesAlone } from './seriesException.ts';
 import type { Finding } from './finding.ts';
@@ -120,7 +120,7 @@ export function codeSelectivityFindings(
               wanting.add(pair.upstream);
               const below = pair.downstream === device.id ? '' : ` (on the supply side of ${nameOf(device)})`;
               problems.push(
-                `${scenario.label}: ${pair.upstreamName} and ${pair.downstreamName}${below} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(Math.min(interval.toAmps, limit), 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
+                `${scenario.label}: ${notShownText(pair.upstreamName, `${pair.downstreamName}${below}`, interval, Math.min(interval.toAmps, limit), fault)}`,
               );
             }
           }
@@ -133,10 +133,8 @@ export function codeSelectivityFindings(
           replaced ||= keptBelow.replaced;
           if (below.length > 0 && supplySide.length === 0) checked.push(scenario.label);
           for (const pair of below) {
-            const each = part.network.devices.get(pair.downstream)!;
-            if (isIllustrative(each)) illustrative.add(nameOf(each));
-          }
-          for (const pair of below) {
+            const lower = part.network.devices.get(pair.downstream)!;
+            if (isIllustrative(lower)) illustrative.add(nameOf(lower));
             const side = `(${pair.downstreamName} on the load side of ${nameOf(device)})`;
             let shown = false;
             for (const fault of pair.cases)
@@ -150,12 +148,11 @@ export function codeSelectivityFindings(
                 shown = true;
                 referenceVolts ||= fault.referenceVolts;
                 problems.push(
-                  `${scenario.label}: ${pair.upstreamName} and ${pair.downstreamName} ${side} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
+                  `${scenario.label}: ${notShownText(pair.upstreamName, `${pair.downstreamName} ${side}`, interval, interval.toAmps, fault)}`,
                 );
               }
             if (shown) continue;
             // On a generator, the pair on the decaying current of a fault at the load-side device's bus too.
-            const lower = part.network.devices.get(pair.downstream)!;
             const at = locationBusOf(part.network, lower);
             const decaying = decayProblems(part, lower, [pair], at, option === 'above-0.1-s', decayTimes);
             if (decaying.length > 0) failing.push(scenario.label);
@@ -256,7 +253,8 @@ function decayProblems(
   return problems;
 }
 
-type Chain = ReturnType<typeof upstreamChain>;
+/** Pairs with their two devices' names, as findings write them. */
+type Chain = (Analysis['pairs'][number] & { upstreamName: string; downstreamName: string })[];
 
 /**
  * The pairs a selectivity requirement asks for along `links` (pairs of a device and the device just above
@@ -275,7 +273,7 @@ function withException(
   exempt: Set<string>,
   lowerOf: (deviceId: string) => readonly string[],
 ): { pairs: Chain; replaced: boolean } {
-  const aboveOf = abovesOf(part);
+  const pairAbove = pairsAboveOf(part);
   const alone = (upstream: string, downstream: string) => inSeriesAlone(part.network, upstream, downstream);
   const pairs: Chain = [];
   let replaced = false;
@@ -286,9 +284,9 @@ function withException(
     }
     const uppers = [link.upstream];
     for (
-      let upper = aboveOf.get(link.upstream);
+      let upper = pairAbove.get(link.upstream)?.upstream;
       upper !== undefined && alone(upper, uppers.at(-1)!);
-      upper = aboveOf.get(upper)
+      upper = pairAbove.get(upper)?.upstream
     )
       uppers.push(upper);
     for (const upper of uppers)
@@ -336,57 +334,71 @@ function treeLowerOf(part: Analysis): (deviceId: string) => readonly string[] {
   };
 }
 
-/** Each device's pairs with the devices just below it, by its id (worked out once per tree). */
-function belowsOf(part: Analysis): Map<string, Analysis['pairs']> {
-  let belowOf = belows.get(part);
-  if (!belowOf) {
-    belowOf = new Map();
-    for (const pair of part.pairs) {
-      const list = belowOf.get(pair.upstream);
-      if (list) list.push(pair);
-      else belowOf.set(pair.upstream, [pair]);
-    }
-    belows.set(part, belowOf);
+/**
+ * `build` of a tree, worked out once per analysed tree and kept while the tree is: a study marks thousands
+ * of devices, and each would otherwise build the same maps again.
+ */
+function perTree<T>(build: (part: Analysis) => T): (part: Analysis) => T {
+  const kept = new WeakMap<Analysis, T>();
+  return (part) => {
+    let value = kept.get(part);
+    if (value === undefined) kept.set(part, (value = build(part)));
+    return value;
+  };
+}
+
+/** Each device's pairs with the devices just below it, by its id. */
+const belowsOf = perTree((part) => {
+  const belowOf = new Map<string, Analysis['pairs']>();
+  for (const pair of part.pairs) {
+    const list = belowOf.get(pair.upstream);
+    if (list) list.push(pair);
+    else belowOf.set(pair.upstream, [pair]);
   }
   return belowOf;
-}
-const belows = new WeakMap<Analysis, Map<string, Analysis['pairs']>>();
+});
 
-/** Each device's nearest device above in a tree, by id, from its pairs (worked out once per tree). */
-function abovesOf(part: Analysis): Map<string, string> {
-  let aboveOf = aboves.get(part);
-  if (!aboveOf) aboves.set(part, (aboveOf = new Map(part.pairs.map((pair) => [pair.downstream, pair.upstream]))));
-  return aboveOf;
-}
-const aboves = new WeakMap<Analysis, Map<string, string>>();
+/** Each device's pair with the device just above it, by its id. */
+export const pairsAboveOf = perTree((part) => new Map(part.pairs.map((pair) => [pair.downstream, pair])));
 
-/** Each device's pair with the device just above it, by its id (once per tree: a study marks thousands). */
-function pairsAboveOf(part: Analysis): Map<string, Analysis['pairs'][number]> {
-  let pairAbove = pairsAbove.get(part);
-  if (!pairAbove) pairsAbove.set(part, (pairAbove = new Map(part.pairs.map((pair) => [pair.downstream, pair]))));
-  return pairAbove;
-}
-const pairsAbove = new WeakMap<Analysis, Map<string, Analysis['pairs'][number]>>();
+/** The pairs already checked in a tree between devices that are not neighbours, by upstream and downstream id. */
+const betweensOf = perTree(() => new Map<string, Chain[number]>());
 
-/**
- * Two devices in series that are not neighbours, checked as a pair is (`checkPair`), with their names;
- * once per tree (a panel's marked devices share the pairs above it).
- */
+/** Two devices in series that are not neighbours, checked as a pair is (`checkPair`), with their names; once per tree. */
 function pairBetween(part: Analysis, upstreamId: string, downstreamId: string): Chain[number] {
-  let byKey = betweens.get(part);
-  if (!byKey) betweens.set(part, (byKey = new Map()));
+  const byKey = betweensOf(part);
   const key = `${upstreamId}\n${downstreamId}`;
   let pair = byKey.get(key);
   if (!pair) {
     const upstream = part.network.devices.get(upstreamId)!;
     const downstream = part.network.devices.get(downstreamId)!;
-    const { check } = checkPair(part, { upstream, downstream }, part.study.coordination);
-    pair = Object.assign({}, check, { upstreamName: nameOf(upstream), downstreamName: nameOf(downstream) });
-    byKey.set(key, pair);
+    byKey.set(key, (pair = named(part, checkPair(part, { upstream, downstream }, part.study.coordination).check)));
   }
   return pair;
 }
-const betweens = new WeakMap<Analysis, Map<string, Chain[number]>>();
+
+/** A pair with its two devices' names, as findings write them. */
+function named(part: Analysis, pair: Analysis['pairs'][number]): Chain[number] {
+  const upstreamName = nameOf(part.network.devices.get(pair.upstream)!);
+  const downstreamName = nameOf(part.network.devices.get(pair.downstream)!);
+  // `Object.assign`, not a spread followed by new fields (which gives each object a hidden class of its own in V8).
+  return Object.assign({}, pair, { upstreamName, downstreamName });
+}
+
+/**
+ * An interval not shown selective, in words: "UP and DOWN overlap from … to `toAmps` at … (three-phase
+ * fault)"; `down` is the downstream device's name with whatever says where it stands.
+ */
+export function notShownText(
+  up: string,
+  down: string,
+  interval: PairCase['intervals'][number],
+  toAmps: number,
+  fault: PairCase,
+): string {
+  const status = interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves';
+  return `${up} and ${down} ${status} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`;
+}
 
 /**
  * The pairs on the load side of an emergency device: each device below it with the device just above it,
@@ -400,9 +412,7 @@ function loadSidePairs(part: Analysis, deviceId: string, emergency: ReadonlySet<
   while (pending.length > 0) {
     for (const pair of below.get(pending.pop()!) ?? []) {
       if (emergency.has(pair.downstream)) continue;
-      const upstreamName = nameOf(part.network.devices.get(pair.upstream)!);
-      const downstreamName = nameOf(part.network.devices.get(pair.downstream)!);
-      pairs.push(Object.assign({}, pair, { upstreamName, downstreamName }));
+      pairs.push(named(part, pair));
       pending.push(pair.downstream);
     }
   }
@@ -413,17 +423,9 @@ function loadSidePairs(part: Analysis, deviceId: string, emergency: ReadonlySet<
 type DecayTimes = Map<Analysis, Map<string, ReturnType<typeof decrementTimesOf>>>;
 
 // Accepts an analysed tree and a device; its pairs with each device above it, nearest first.
-function upstreamChain(part: Analysis, deviceId: string) {
-  const pairs: (Analysis['pairs'][number] & { upstreamName: string; downstreamName: string })[] = [];
+function upstreamChain(part: Analysis, deviceId: string): Chain {
+  const pairs: Chain = [];
   const pairAbove = pairsAboveOf(part);
-  let down = deviceId;
-  for (;;) {
-    const pair = pairAbove.get(down);
-    if (!pair) return pairs;
-    const upstream = part.network.devices.get(pair.upstream)!;
-    // `Object.assign`, not a spread followed by a new field (which gives each object a hidden class of its own in V8).
-    const downstreamName = nameOf(part.network.devices.get(pair.downstream)!);
-    pairs.push(Object.assign({}, pair, { upstreamName: nameOf(upstream), downstreamName }));
-    down = pair.upstream;
-  }
+  for (let pair = pairAbove.get(deviceId); pair; pair = pairAbove.get(pair.upstream)) pairs.push(named(part, pair));
+  return pairs;
 }

@@ -1,7 +1,12 @@
 import { locationBusOf } from '../network/index.ts';
-import { formatAmps, formatVolts } from '../quantity/format.ts';
 import type { Device, Study } from '../study/index.ts';
-import { AHJ_SELECTIVITY_SECONDS, SELECTIVITY_ARTICLE, type ScenarioPairs } from './codeSelectivity.ts';
+import {
+  AHJ_SELECTIVITY_SECONDS,
+  notShownText,
+  pairsAboveOf,
+  SELECTIVITY_ARTICLE,
+  type ScenarioPairs,
+} from './codeSelectivity.ts';
 import { illustrativeSentence, isIllustrative } from './coordination.ts';
 import { nameOf } from './context.ts';
 import { inSeriesAlone } from './seriesException.ts';
@@ -40,7 +45,8 @@ export function serviceSelectivityFindings(
     for (const part of scenario.parts) {
       if (part.study.source.kind === 'generator') continue;
       const { network, pairs, bands } = part;
-      const above = new Map(pairs.map((pair) => [pair.downstream, pair.upstream]));
+      const pairAbove = pairsAboveOf(part);
+      const above = (id: string) => pairAbove.get(id)?.upstream;
       // A feeder device (one that feeds a cable, transformer or bus; not a branch circuit's) sits on a marked
       // device's path just below its tree's top device, which its article then asks it to be selective with
       // (but for the Exception's two devices in series with no load in parallel).
@@ -49,8 +55,8 @@ export function serviceSelectivityFindings(
       for (const marked of study.devices) {
         if (!marked.system || !network.devices.has(marked.id)) continue;
         let down = marked.id;
-        let up = above.get(down);
-        while (up !== undefined && above.has(up)) [down, up] = [up, above.get(up)];
+        let up = above(down);
+        while (up !== undefined && pairAbove.has(up)) [down, up] = [up, above(up)];
         if (up === undefined || requiredBy.has(up)) continue;
         const feeder = network.devices.get(down)!;
         const exempt = SELECTIVITY_ARTICLE[marked.system].seriesException && inSeriesAlone(network, up, down);
@@ -92,7 +98,7 @@ export function serviceSelectivityFindings(
                 continue;
               duty.failing.push(scenario.label);
               duty.problems.push(
-                `${scenario.label}: ${nameOf(service)} and ${nameOf(feeder)} ${interval.status === 'overlap' ? 'overlap' : 'are not shown selective by their curves'} from ${formatAmps(interval.fromAmps, 3)} to ${formatAmps(interval.toAmps, 3)} at ${formatVolts(fault.referenceVolts)} (${fault.fault} fault)`,
+                `${scenario.label}: ${notShownText(nameOf(service), nameOf(feeder), interval, interval.toAmps, fault)}`,
               );
             }
         }
